@@ -1,0 +1,55 @@
+/**
+ * Jest projects. Node-side code (the computational core, the server, the
+ * browser tests) goes through ts-jest in transpile-only mode — `npm run
+ * typecheck` is the type gate. Component tests use the jest-expo web preset.
+ * Caches stay inside the ignored .kenning folder, not the system temp folder.
+ */
+const path = require('node:path');
+
+const cacheDirectory = path.join(__dirname, '.kenning', 'cache', 'jest');
+
+const tsJest = [
+  'ts-jest',
+  {
+    isolatedModules: true,
+    diagnostics: false,
+    tsconfig: {
+      module: 'commonjs',
+      moduleResolution: 'node',
+      target: 'es2022',
+      esModuleInterop: true,
+      jsx: 'react-jsx',
+      resolveJsonModule: true,
+      allowJs: true,
+    },
+  },
+];
+
+const nodeProject = (name, extra = {}) => ({
+  displayName: name,
+  testEnvironment: 'node',
+  roots: ['<rootDir>/tests/' + name],
+  testMatch: ['**/*.test.ts'],
+  transform: { '^.+\\.tsx?$': tsJest },
+  moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
+  cacheDirectory,
+  ...extra,
+});
+
+module.exports = {
+  projects: [
+    nodeProject('unit'),
+    nodeProject('api', { testTimeout: 30000 }),
+    nodeProject('e2e', { testTimeout: 120000 }),
+    {
+      displayName: 'components',
+      preset: 'jest-expo/web',
+      roots: ['<rootDir>/tests/components'],
+      testMatch: ['**/*.test.tsx'],
+      setupFiles: ['<rootDir>/tests/components/setup.ts'],
+      moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
+      cacheDirectory,
+      testTimeout: 60000,
+    },
+  ],
+};
