@@ -1,0 +1,5 @@
+import { HomeOverview } from '@/components/home/home-overview';
+
+export default function HomeScreen() {
+  return <HomeOverview />;
+}

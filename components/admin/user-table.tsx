@@ -1,0 +1,93 @@
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import type { ManagedUser } from '@/shared/schemas/auth';
+import { useSession } from '@/components/data/session';
+import { useUpdateUser } from '@/components/data/users';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Notice } from '@/components/ui/states';
+import { colors, radius, space } from '@/components/ui/theme';
+import { useLayout } from '@/components/ui/use-layout';
+import { RolePicker } from './role-picker';
+
+const STATUS_LABEL = { active: 'Active', invited: 'Invited', deactivated: 'Deactivated' } as const;
+
+/** A table on wide screens, cards on phones. */
+export function UserTable({ users }: { users: ManagedUser[] }) {
+  const { wide } = useLayout();
+  const update = useUpdateUser();
+  const { data: me } = useSession();
+  const [error, setError] = useState('');
+  const change = (u: ManagedUser, changes: { role?: ManagedUser['role']; active?: boolean }) => {
+    setError('');
+    update.mutate({ id: u.id, version: u.version, ...changes }, { onError: (e) => setError(e.message) });
+  };
+
+  return (
+    <View style={{ gap: space.md }}>
+      {error ? (
+        <Notice tone="danger">
+          <AppText>{error}</AppText>
+        </Notice>
+      ) : null}
+      {wide ? (
+        <View style={styles.table} role="table" aria-label="Users">
+          <View style={[styles.tr, styles.th]} role="row">
+            {['Name', 'Role', 'Status', 'Last sign-in', ''].map((h, i) => (
+              <AppText key={i} variant="label" tone="muted" role="columnheader" style={[styles.td, i === 1 && { flex: 3 }]}>
+                {h}
+              </AppText>
+            ))}
+          </View>
+          {users.map((u) => (
+            <View key={u.id} style={styles.tr} role="row">
+              <View style={styles.td} role="cell">
+                <AppText variant="label">{u.name}</AppText>
+                <AppText variant="small" tone="muted">
+                  {u.email}
+                </AppText>
+              </View>
+              <View style={[styles.td, { flex: 3 }]} role="cell">
+                <RolePicker label={`Role of ${u.name}`} value={u.role} disabled={update.isPending || u.id === me?.id} onChange={(role) => change(u, { role })} />
+              </View>
+              <AppText style={styles.td} role="cell">
+                {STATUS_LABEL[u.status]}
+              </AppText>
+              <AppText style={styles.td} role="cell" tone="muted">
+                {u.lastSignInAt ? new Date(u.lastSignInAt).toLocaleString() : 'never'}
+              </AppText>
+              <View style={styles.td} role="cell">
+                {u.id !== me?.id ? (
+                  <Button kind="secondary" label={u.status === 'deactivated' ? 'Reactivate' : 'Deactivate'} onPress={() => change(u, { active: u.status === 'deactivated' })} />
+                ) : null}
+              </View>
+            </View>
+          ))}
+        </View>
+      ) : (
+        users.map((u) => (
+          <Card key={u.id} aria-label={u.name}>
+            <View>
+              <AppText variant="heading">{u.name}</AppText>
+              <AppText variant="small" tone="muted">
+                {u.email} · {STATUS_LABEL[u.status]}
+              </AppText>
+            </View>
+            <RolePicker label={`Role of ${u.name}`} value={u.role} disabled={update.isPending || u.id === me?.id} onChange={(role) => change(u, { role })} />
+            {u.id !== me?.id ? (
+              <Button kind="secondary" label={u.status === 'deactivated' ? 'Reactivate' : 'Deactivate'} onPress={() => change(u, { active: u.status === 'deactivated' })} />
+            ) : null}
+          </Card>
+        ))
+      )}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  table: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, overflow: 'hidden' },
+  tr: { flexDirection: 'row', alignItems: 'center', borderBottomWidth: 1, borderBottomColor: colors.line, paddingVertical: space.sm },
+  th: { backgroundColor: colors.paper },
+  td: { flex: 2, paddingHorizontal: space.md },
+});

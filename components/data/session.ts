@@ -1,0 +1,56 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { MeResponseSchema, type SignInRequest, type User } from '@/shared/schemas/auth';
+import { api, ApiRequestError } from './api-client';
+import { STALE } from './query-client';
+
+export const sessionKeys = {
+  all: ['session'] as const,
+  me: () => [...sessionKeys.all, 'me'] as const,
+};
+
+/** The signed-in user, or null when signed out (401 is an answer, not an error). */
+export const meQuery = () =>
+  queryOptions({
+    queryKey: sessionKeys.me(),
+    staleTime: STALE.session,
+    queryFn: async (): Promise<User | null> => {
+      try {
+        return (await api.get('/me', MeResponseSchema)).user;
+      } catch (e) {
+        if (e instanceof ApiRequestError && e.status === 401) return null;
+        throw e;
+      }
+    },
+  });
+
+export function useSession() {
+  return useQuery(meQuery());
+}
+
+export function useSignIn() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: SignInRequest) => api.post('/auth/sign-in', input, MeResponseSchema),
+    onSuccess: ({ user }) => {
+      qc.clear();
+      qc.setQueryData(sessionKeys.me(), user);
+    },
+  });
+}
+
+export function useSignOut() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api.post('/auth/sign-out', {}, null),
+    onSettled: () => {
+      qc.clear();
+      qc.setQueryData(sessionKeys.me(), null);
+    },
+  });
+}
+
+export function useSetPassword() {
+  return useMutation({
+    mutationFn: (input: { token: string; password: string }) => api.post('/auth/set-password', input, null),
+  });
+}

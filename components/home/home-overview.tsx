@@ -1,0 +1,66 @@
+import { useRouter } from 'expo-router';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { SITE_KIND_LABELS } from '@/shared/schemas/site';
+import { useSession } from '@/components/data/session';
+import { useSites } from '@/components/data/sites';
+import { AppText } from '@/components/ui/app-text';
+import { Card } from '@/components/ui/card';
+import { SightlineIcon } from '@/components/ui/icons';
+import { Screen } from '@/components/ui/screen';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { colors, space } from '@/components/ui/theme';
+import { useLayout } from '@/components/ui/use-layout';
+
+export function HomeOverview() {
+  const { data: user } = useSession();
+  const { wide } = useLayout();
+  const router = useRouter();
+  return (
+    <Screen title="Your sites" subtitle={user ? `${user.organization.name} · signed in as ${user.name}` : undefined}>
+      <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
+        <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%', gap: space.md }}>
+          <SiteList />
+        </View>
+        <Pressable role="link" onPress={() => router.navigate('/check')} style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%' }}>
+          <Card accent="ember">
+            <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
+              <SightlineIcon color={colors.ember} />
+              <AppText variant="heading">Quick check</AppText>
+            </View>
+            <AppText tone="muted">
+              Horizon, dip, hidden height and detection range for one height of eye and one target, under several refraction conditions.
+            </AppText>
+          </Card>
+        </Pressable>
+      </View>
+    </Screen>
+  );
+}
+
+function SiteList() {
+  const sites = useSites();
+  if (sites.isPending) return <LoadingState label="Loading sites…" />;
+  if (sites.isError) return <ErrorState error={sites.error} onRetry={() => void sites.refetch()} />;
+  if (sites.data.items.length === 0) {
+    return (
+      <EmptyState
+        title="No sites yet"
+        body="A site is a forest district, a coast stretch or a search area your organisation watches. Planners add sites; then posts, targets and coverage plans go inside them."
+      />
+    );
+  }
+  return (
+    <View style={{ gap: space.sm }}>
+      {sites.data.items.map((s) => (
+        <Card key={s.id} style={styles.row}>
+          <AppText variant="heading">{s.name}</AppText>
+          <AppText variant="small" tone="muted">
+            {SITE_KIND_LABELS[s.kind]}
+          </AppText>
+        </Card>
+      ))}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({ row: { gap: space.xs } });

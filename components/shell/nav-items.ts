@@ -1,0 +1,23 @@
+import type { Href } from 'expo-router';
+import type { Role } from '@/shared/schemas/auth';
+import { PeopleIcon, PersonIcon, SightlineIcon, TowerIcon, type IconProps } from '@/components/ui/icons';
+
+export interface NavItem {
+  href: Href;
+  /** Path prefix that marks the item active. */
+  match: string;
+  label: string;
+  Icon: (p: IconProps) => React.ReactElement;
+  roles?: Role[];
+}
+
+export const NAV_ITEMS: NavItem[] = [
+  { href: '/', match: '/', label: 'Sites', Icon: TowerIcon },
+  { href: '/check', match: '/check', label: 'Quick check', Icon: SightlineIcon },
+  { href: '/admin/users', match: '/admin', label: 'Users', Icon: PeopleIcon, roles: ['admin'] },
+  { href: '/account', match: '/account', label: 'Account', Icon: PersonIcon },
+];
+
+export function isActive(item: NavItem, pathname: string) {
+  return item.match === '/' ? pathname === '/' || pathname.startsWith('/sites') : pathname.startsWith(item.match);
+}

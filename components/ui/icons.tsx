@@ -1,0 +1,104 @@
+import Svg, { Circle, Line, Path, Polyline, Rect } from 'react-native-svg';
+import { colors } from './theme';
+
+export interface IconProps {
+  size?: number;
+  color?: string;
+}
+
+/**
+ * Kenning's own line icons, drawn on a 24-unit grid with a 1.8 stroke and
+ * square ends — the shape language of a surveyor's sketch.
+ */
+function Frame({ size = 24, color = colors.ink, children }: IconProps & { children: React.ReactNode }) {
+  return (
+    <Svg width={size} height={size} viewBox="0 0 24 24" fill="none" stroke={color} strokeWidth={1.8} strokeLinecap="square" strokeLinejoin="miter" aria-hidden>
+      {children}
+    </Svg>
+  );
+}
+
+/** Home: a lookout tower on a rise. */
+export function TowerIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Path d="M3 21c3-3 15-3 18 0" />
+      <Path d="M9 18 10.5 9h3L15 18" />
+      <Rect x="8.5" y="5" width="7" height="4" />
+      <Path d="M12 5V3" />
+    </Frame>
+  );
+}
+
+/** Quick check: a sight line grazing the curve of the earth. */
+export function SightlineIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Path d="M2 19c5-4 15-4 20 0" />
+      <Line x1="4" y1="7" x2="21" y2="14" />
+      <Circle cx="4" cy="7" r="1.6" />
+    </Frame>
+  );
+}
+
+/** Sites: a boundary with posts. */
+export function SitesIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Polyline points="4,6 11,3 20,7 18,19 6,20 4,6" />
+      <Circle cx="10" cy="10" r="1.5" />
+      <Circle cx="15" cy="14" r="1.5" />
+    </Frame>
+  );
+}
+
+/** Account: a person with a horizon behind. */
+export function PersonIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Circle cx="12" cy="8" r="3.5" />
+      <Path d="M5 20c1-4 4-6 7-6s6 2 7 6" />
+    </Frame>
+  );
+}
+
+/** Users: two people. */
+export function PeopleIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Circle cx="9" cy="8.5" r="3" />
+      <Path d="M3 19c.8-3.3 3.2-5 6-5s5.2 1.7 6 5" />
+      <Path d="M15.5 5.8a3 3 0 0 1 0 5.4M17.5 14.3c1.7.8 2.9 2.4 3.5 4.7" />
+    </Frame>
+  );
+}
+
+/** Caution: a triangle with a bar. */
+export function CautionIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Path d="M12 3 22 20H2Z" />
+      <Line x1="12" y1="9" x2="12" y2="14" />
+      <Line x1="12" y1="17" x2="12" y2="17.2" />
+    </Frame>
+  );
+}
+
+export function SignOutIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Path d="M14 4H5v16h9" />
+      <Line x1="10" y1="12" x2="21" y2="12" />
+      <Polyline points="17,8 21,12 17,16" />
+    </Frame>
+  );
+}
+
+export function OfflineIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Path d="M2 9c5.5-5 14.5-5 20 0M5.5 12.5c3.6-3 9.4-3 13 0M9 16c1.7-1.3 4.3-1.3 6 0" />
+      <Line x1="3" y1="3" x2="21" y2="21" />
+    </Frame>
+  );
+}

@@ -1,0 +1,99 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import express, { type Request } from 'express';
+import type { Sequelize } from 'sequelize';
+import type { Config } from './config';
+import { createSignInLimiter } from './domain/auth/sign-in-limiter';
+import { errorHandler, notFoundHandler } from './http/error-handler';
+import { sessionMiddleware } from './http/session';
+import { authRoutes } from './routes/auth';
+import { healthRoutes } from './routes/health';
+import { siteRoutes } from './routes/sites';
+import { userRoutes } from './routes/users';
+
+export interface AppDeps {
+  db: Sequelize;
+  config: Pick<
+    Config,
+    | 'SESSION_SECRET'
+    | 'TRUST_PROXY'
+    | 'WEB_DIST_DIR'
+    | 'SIGN_IN_LIMIT_PER_ADDRESS'
+    | 'SIGN_IN_LIMIT_PER_ACCOUNT'
+    | 'SIGN_IN_WINDOW_SECONDS'
+    | 'LOG_REQUESTS'
+  >;
+}
+
+const publicUrl = (req: Request) => `${req.protocol}://${req.get('host') ?? 'localhost'}`;
+
+/** Builds the Express app (API + the exported web app) without listening. */
+export function createApp({ db, config }: AppDeps) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
+
+  app.use((_req, res, next) => {
+    res.setHeader('X-Content-Type-Options', 'nosniff');
+    res.setHeader('Referrer-Policy', 'same-origin');
+    res.setHeader('X-Frame-Options', 'DENY');
+    next();
+  });
+  if (config.LOG_REQUESTS) {
+    app.use((req, res, next) => {
+      const started = process.hrtime.bigint();
+      res.on('finish', () => {
+        const ms = Number(process.hrtime.bigint() - started) / 1e6;
+        console.log(`${req.method} ${req.originalUrl} ${res.statusCode} ${ms.toFixed(1)} ms`);
+      });
+      next();
+    });
+  }
+
+  const limiter = createSignInLimiter({
+    perAddress: config.SIGN_IN_LIMIT_PER_ADDRESS,
+    perAccount: config.SIGN_IN_LIMIT_PER_ACCOUNT,
+    windowSeconds: config.SIGN_IN_WINDOW_SECONDS,
+  });
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(sessionMiddleware(config.SESSION_SECRET));
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(healthRoutes(db));
+  api.use(authRoutes(db, limiter));
+
+  const v1 = express.Router();
+  v1.use(siteRoutes());
+  v1.use(userRoutes(db, publicUrl));
+  api.use('/v1', v1);
+
+  api.use(notFoundHandler);
+  app.use('/api', api);
+
+  // The single-page web app: hashed assets cached long, every other path gets index.html.
+  const webDir = config.WEB_DIST_DIR;
+  const index = path.join(webDir, 'index.html');
+  if (existsSync(index)) {
+    app.use(
+      express.static(webDir, {
+        index: false,
+        setHeaders(res, file) {
+          if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`)) {
+            res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+          }
+        },
+      }),
+    );
+    app.get(/.*/, (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(index);
+    });
+  }
+
+  app.use(errorHandler);
+  return app;
+}

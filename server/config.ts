@@ -1,0 +1,76 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { z } from 'zod';
+
+/** The project root: server/ lives one level below it. */
+export const projectRoot = path.resolve(__dirname, '..');
+
+/** Local, ignored state: database cluster, secrets, uploads, caches. */
+export const dataDir = path.join(projectRoot, '.kenning');
+
+const EnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(8080),
+  DATABASE_URL: z.url({ protocol: /^postgres(ql)?$/ }),
+  /** iron-session needs at least 32 characters. */
+  SESSION_SECRET: z.string().min(32).optional(),
+  /** Folder holding the exported web app; the API runs without it. */
+  WEB_DIST_DIR: z.string().default(path.join(projectRoot, 'dist', 'web')),
+  /** Set when a reverse proxy terminates TLS in front of the server. */
+  TRUST_PROXY: z
+    .enum(['0', '1', 'true', 'false'])
+    .default('0')
+    .transform((v) => v === '1' || v === 'true'),
+  /** Sign-in attempts allowed per client address per window. */
+  SIGN_IN_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(30),
+  /** Failed sign-ins allowed per account per window. */
+  SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
+  SIGN_IN_WINDOW_SECONDS: z.coerce.number().int().positive().default(15 * 60),
+  LOG_REQUESTS: z
+    .enum(['0', '1'])
+    .default('0')
+    .transform((v) => v === '1'),
+});
+
+export type Config = Omit<z.infer<typeof EnvSchema>, 'SESSION_SECRET'> & { SESSION_SECRET: string };
+
+export class ConfigError extends Error {
+  override name = 'ConfigError';
+}
+
+/**
+ * Development and test runs get a generated session secret kept in the ignored
+ * data folder; production must supply one.
+ */
+function localSessionSecret(): string {
+  const file = path.join(dataDir, 'session-secret');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  mkdirSync(dataDir, { recursive: true });
+  const secret = randomBytes(32).toString('base64url');
+  writeFileSync(file, secret + '\n', { mode: 0o600 });
+  return secret;
+}
+
+/** Reads and validates the environment once. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = EnvSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new ConfigError(`Invalid environment:\n${lines.join('\n')}`);
+  }
+  const cfg = parsed.data;
+  if (!cfg.SESSION_SECRET && cfg.NODE_ENV === 'production') {
+    throw new ConfigError('SESSION_SECRET must be set (32+ characters) when NODE_ENV=production');
+  }
+  return { ...cfg, SESSION_SECRET: cfg.SESSION_SECRET ?? localSessionSecret() };
+}
+
+let cached: Config | undefined;
+
+/** The process-wide configuration, read on first use. */
+export function config(): Config {
+  cached ??= loadConfig();
+  return cached;
+}

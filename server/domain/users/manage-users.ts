@@ -1,0 +1,77 @@
+import { createHash, randomBytes } from 'node:crypto';
+import type { Sequelize } from 'sequelize';
+import type { InviteUserRequest, ManagedUser, UpdateUserRequest } from '@/shared/schemas/auth';
+import { usersRepository } from '@/server/data/repositories/users-repository';
+import { AppError } from '@/server/http/app-error';
+import { hashPassword } from '../auth/passwords';
+import type { Actor } from '../actor';
+
+const INVITE_DAYS = 7;
+
+export const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
+
+export function listUsers(actor: Actor): Promise<ManagedUser[]> {
+  return usersRepository.listInOrganization(actor.organizationId);
+}
+
+/** Creates an invited account and returns the one-time token for its set-password link. */
+export async function inviteUser(
+  db: Sequelize,
+  actor: Actor,
+  input: InviteUserRequest,
+): Promise<{ user: ManagedUser; token: string }> {
+  const token = randomBytes(24).toString('base64url');
+  const user = await db.transaction(async (transaction) => {
+    if (await usersRepository.emailExists(input.email, transaction)) {
+      throw new AppError(409, 'email_taken', 'An account with this e-mail address already exists.', {
+        email: 'Already in use.',
+      });
+    }
+    return usersRepository.createInvited(
+      {
+        ...input,
+        organizationId: actor.organizationId,
+        inviteTokenHash: hashToken(token),
+        inviteExpiresAt: new Date(Date.now() + INVITE_DAYS * 86_400_000),
+      },
+      transaction,
+    );
+  });
+  return { user, token };
+}
+
+/** Changes role or active state, refusing stale versions and the last active admin. */
+export async function updateUser(db: Sequelize, actor: Actor, id: string, input: UpdateUserRequest): Promise<ManagedUser> {
+  return db.transaction(async (transaction) => {
+    const current = await usersRepository.findInOrganization(actor.organizationId, id, transaction);
+    if (!current) throw AppError.notFound('That user');
+    const demotes = (input.role !== undefined && input.role !== 'admin') || input.active === false;
+    if (current.role === 'admin' && demotes) {
+      const others = await usersRepository.countActiveAdmins(actor.organizationId, id, transaction);
+      if (others === 0) {
+        throw AppError.conflict('An organisation needs at least one active administrator.', 'last_admin');
+      }
+    }
+    const { version, ...changes } = input;
+    const updated = await usersRepository.updateIfVersion(actor.organizationId, id, version, changes, transaction);
+    if (!updated) {
+      throw AppError.conflict(
+        'Someone else changed this user since you opened it. Reload to see their change, then try again.',
+        'stale_version',
+      );
+    }
+    return updated;
+  });
+}
+
+/** Redeems a set-password link. */
+export async function setPasswordWithToken(db: Sequelize, token: string, password: string): Promise<void> {
+  const passwordHash = await hashPassword(password);
+  await db.transaction(async (transaction) => {
+    const found = await usersRepository.findByInviteToken(hashToken(token), transaction);
+    if (!found || !found.expiresAt || found.expiresAt.getTime() < Date.now()) {
+      throw new AppError(400, 'invalid_token', 'This link has expired or was already used. Ask your administrator for a new one.');
+    }
+    await usersRepository.setPassword(found.id, passwordHash, transaction);
+  });
+}

@@ -1,0 +1,62 @@
+import type { NextFunction, Request, Response } from 'express';
+import { getIronSession, type IronSession } from 'iron-session';
+import type { Role } from '@/shared/schemas/auth';
+import { usersRepository } from '@/server/data/repositories/users-repository';
+import type { Actor } from '@/server/domain/actor';
+import { AppError } from './app-error';
+
+export interface SessionData {
+  userId?: string;
+  /** Random per sign-in, so every sign-in issues a new cookie value. */
+  nonce?: string;
+}
+
+export const SESSION_COOKIE = 'kenning_session';
+const SESSION_TTL_SECONDS = 12 * 60 * 60;
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    session: IronSession<SessionData>;
+    actor?: Actor;
+  }
+}
+
+/** Attaches the sealed-cookie session; the cookie is Secure whenever the request came over https. */
+export function sessionMiddleware(password: string) {
+  return async (req: Request, res: Response, next: NextFunction) => {
+    req.session = await getIronSession<SessionData>(req, res, {
+      password,
+      cookieName: SESSION_COOKIE,
+      ttl: SESSION_TTL_SECONDS,
+      cookieOptions: { httpOnly: true, sameSite: 'lax', secure: req.secure, path: '/' },
+    });
+    next();
+  };
+}
+
+/** Requires a signed-in, active user; loads the current role from the database. */
+export async function requireUser(req: Request, _res: Response, next: NextFunction) {
+  const userId = req.session.userId;
+  if (!userId) throw AppError.unauthenticated();
+  const user = await usersRepository.activeById(userId);
+  if (!user) {
+    req.session.destroy();
+    throw AppError.unauthenticated('Your session has ended. Sign in again.');
+  }
+  req.actor = { userId: user.id, organizationId: user.organization.id, role: user.role };
+  next();
+}
+
+/** Requires one of `roles`; use after requireUser. */
+export function requireRole(...roles: Role[]) {
+  return (req: Request, _res: Response, next: NextFunction) => {
+    if (!req.actor || !roles.includes(req.actor.role)) throw AppError.forbidden();
+    next();
+  };
+}
+
+/** The actor of a request that passed requireUser. */
+export function actorOf(req: Request): Actor {
+  if (!req.actor) throw AppError.unauthenticated();
+  return req.actor;
+}

@@ -1,0 +1,45 @@
+import { randomBytes } from 'node:crypto';
+import { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import { SetPasswordRequestSchema, SignInRequestSchema } from '@/shared/schemas/auth';
+import { usersRepository } from '@/server/data/repositories/users-repository';
+import { signIn } from '@/server/domain/auth/sign-in';
+import type { SignInLimiter } from '@/server/domain/auth/sign-in-limiter';
+import { setPasswordWithToken } from '@/server/domain/users/manage-users';
+import { actorOf, requireUser } from '@/server/http/session';
+import { parseOrThrow } from '@/server/http/validate';
+import { AppError } from '@/server/http/app-error';
+
+export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
+  const router = Router();
+
+  router.post('/auth/sign-in', async (req, res) => {
+    const input = parseOrThrow(SignInRequestSchema, req.body, 'sign-in form');
+    const user = await signIn(input, req.ip ?? 'unknown', limiter);
+    // A fresh session on every sign-in.
+    req.session.destroy();
+    req.session.userId = user.id;
+    req.session.nonce = randomBytes(12).toString('base64url');
+    await req.session.save();
+    res.json({ user });
+  });
+
+  router.post('/auth/sign-out', async (req, res) => {
+    req.session.destroy();
+    res.status(204).end();
+  });
+
+  router.post('/auth/set-password', async (req, res) => {
+    const input = parseOrThrow(SetPasswordRequestSchema, req.body, 'password form');
+    await setPasswordWithToken(db, input.token, input.password);
+    res.status(204).end();
+  });
+
+  router.get('/me', requireUser, async (req, res) => {
+    const user = await usersRepository.activeById(actorOf(req).userId);
+    if (!user) throw AppError.unauthenticated();
+    res.json({ user });
+  });
+
+  return router;
+}

@@ -1,0 +1,12 @@
+import { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import { databaseIsUp } from '@/server/data/database';
+
+export function healthRoutes(db: Sequelize) {
+  const router = Router();
+  router.get('/health', async (_req, res) => {
+    const up = await databaseIsUp(db);
+    res.status(up ? 200 : 503).json({ status: up ? 'ok' : 'degraded', db: up ? 'ok' : 'down' });
+  });
+  return router;
+}

@@ -1,0 +1,34 @@
+import type { Server } from 'node:http';
+import { createApp } from './app';
+import { config } from './config';
+import { createDatabase } from './data/database';
+
+/** Entry point: serves the API and the web app from one process. */
+async function main() {
+  const cfg = config();
+  const db = createDatabase(cfg.DATABASE_URL);
+  await db.authenticate();
+  const app = createApp({ db, config: cfg });
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(cfg.PORT, cfg.HOST, () => resolve(s));
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : cfg.PORT;
+  console.log(`[kenning] serving on http://${cfg.HOST}:${port}`);
+
+  const stop = (signal: string) => {
+    console.log(`[kenning] ${signal}: closing`);
+    server.close(() => {
+      void db.close().finally(() => process.exit(0));
+    });
+    server.closeAllConnections();
+    setTimeout(() => process.exit(1), 5000).unref();
+  };
+  process.once('SIGINT', () => stop('SIGINT'));
+  process.once('SIGTERM', () => stop('SIGTERM'));
+}
+
+main().catch((err: unknown) => {
+  console.error('[kenning] could not start:', err);
+  process.exit(1);
+});

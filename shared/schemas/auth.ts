@@ -1,0 +1,96 @@
+import { z } from 'zod';
+
+export const ROLES = ['admin', 'planner', 'reviewer', 'observer'] as const;
+export const RoleSchema = z.enum(ROLES);
+export type Role = z.infer<typeof RoleSchema>;
+
+export const ROLE_LABELS: Record<Role, string> = {
+  admin: 'Administrator',
+  planner: 'Planner',
+  reviewer: 'Reviewer',
+  observer: 'Observer (field crew)',
+};
+
+const email = z
+  .string({ error: 'Enter your e-mail address.' })
+  .trim()
+  .toLowerCase()
+  .min(1, 'Enter your e-mail address.')
+  .max(254, 'That e-mail address is too long.')
+  .pipe(z.email({ error: 'That is not an e-mail address.' }));
+
+/** A new password: long enough to resist guessing, short enough for bcrypt (72 bytes). */
+export const NewPasswordSchema = z
+  .string({ error: 'Choose a password.' })
+  .min(10, 'Use at least 10 characters.')
+  .max(72, 'Use at most 72 characters.');
+
+export const SignInRequestSchema = z.object({
+  email,
+  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(200, 'That password is too long.'),
+});
+export type SignInRequest = z.infer<typeof SignInRequestSchema>;
+
+export const OrganizationSchema = z.object({
+  id: z.uuid(),
+  name: z.string(),
+});
+export type Organization = z.infer<typeof OrganizationSchema>;
+
+export const UserSchema = z.object({
+  id: z.uuid(),
+  email: z.string(),
+  name: z.string(),
+  role: RoleSchema,
+  organization: OrganizationSchema,
+});
+export type User = z.infer<typeof UserSchema>;
+
+export const MeResponseSchema = z.object({ user: UserSchema });
+export type MeResponse = z.infer<typeof MeResponseSchema>;
+
+/** A row of the administrator's user table. */
+export const ManagedUserSchema = z.object({
+  id: z.uuid(),
+  email: z.string(),
+  name: z.string(),
+  role: RoleSchema,
+  status: z.enum(['active', 'invited', 'deactivated']),
+  /** ISO 8601, null when the user never signed in. */
+  lastSignInAt: z.string().nullable(),
+  version: z.number().int(),
+});
+export type ManagedUser = z.infer<typeof ManagedUserSchema>;
+
+export const ManagedUserListSchema = z.object({ users: z.array(ManagedUserSchema) });
+
+export const InviteUserRequestSchema = z.object({
+  email,
+  name: z.string({ error: 'Enter a name.' }).trim().min(1, 'Enter a name.').max(120, 'Use at most 120 characters.'),
+  role: RoleSchema,
+});
+export type InviteUserRequest = z.infer<typeof InviteUserRequestSchema>;
+
+export const InviteUserResponseSchema = z.object({
+  user: ManagedUserSchema,
+  /** One-time link; valid for 7 days. */
+  setPasswordUrl: z.string(),
+});
+
+export const UpdateUserRequestSchema = z
+  .object({
+    role: RoleSchema.optional(),
+    active: z.boolean().optional(),
+    /** The version the client last saw; a different current version is a 409. */
+    version: z.number({ error: 'Send the version you last saw.' }).int(),
+  })
+  .refine((v) => v.role !== undefined || v.active !== undefined, {
+    message: 'Change the role or the active state.',
+    path: ['role'],
+  });
+export type UpdateUserRequest = z.infer<typeof UpdateUserRequestSchema>;
+
+export const SetPasswordRequestSchema = z.object({
+  token: z.string().min(20, 'This link is incomplete.').max(200),
+  password: NewPasswordSchema,
+});
