@@ -1,0 +1,69 @@
+/**
+ * Physical constants and conventional values used by the sightline core.
+ * All SI: metres, radians, kelvin, hectopascals where stated.
+ */
+
+/**
+ * IUGG mean Earth radius R₁ = (2a + b)/3 = 6 371 008.7714 m on the GRS 80
+ * ellipsoid, rounded to 0.1 m. Source: Geodetic Reference System 1980
+ * (GRS 80), table of derived geometric constants.
+ */
+export const MEAN_EARTH_RADIUS_M = 6_371_008.8;
+
+/** WGS 84 semi-major axis a, metres. Source: NIMA TR8350.2 (2000), WGS 84 defining parameters. */
+export const WGS84_SEMI_MAJOR_AXIS_M = 6_378_137;
+
+/** WGS 84 flattening f = 1/298.257223563. Source: NIMA TR8350.2 (2000), WGS 84 defining parameters. */
+export const WGS84_FLATTENING = 1 / 298.257_223_563;
+
+/**
+ * Conventional optical refraction coefficient for terrestrial sightlines,
+ * k = 0.13: the long-standing default of geodetic surveying (common
+ * practice; individual sightlines near the ground range from below 0 to
+ * above 1).
+ */
+export const STANDARD_OPTICAL_K = 0.13;
+
+/**
+ * Radio "4/3 earth": k = 1 − 3/4 = 0.25. Source: IEC 60050-705 (705-05-41)
+ * and Federal Standard 1037C "effective Earth radius": for the standard
+ * radio atmosphere the effective radius is 4/3 of the actual radius.
+ */
+export const RADIO_FOUR_THIRDS_K = 0.25;
+
+/** Standard sea-level pressure, hPa (ISO 2533 / ICAO standard atmosphere). */
+export const STANDARD_PRESSURE_HPA = 1013.25;
+
+/** Standard sea-level temperature, K (ISO 2533 / ICAO standard atmosphere). */
+export const STANDARD_TEMPERATURE_K = 288.15;
+
+/** Standard tropospheric temperature gradient dT/dh, K/m (ISO 2533: −6.5 K/km). */
+export const STANDARD_TEMPERATURE_GRADIENT_K_PER_M = -0.0065;
+
+/** One minute of arc in radians: the resolving angle of 20/20 (6/6) vision. */
+export const ONE_ARCMINUTE_RAD = Math.PI / (180 * 60);
+
+/**
+ * Threshold contrast behind each kind of reported visibility:
+ * - `meteorological-range-2pct`: the meteorological range ("standard
+ *   visibility") with ε = 0.02, V = 3.912/σ (AMS Glossary of Meteorology,
+ *   "meteorological range", 2000–2012 text; the 2021 edit moved it to 0.05).
+ * - `mor-5pct`: the meteorological optical range, 95 % attenuation of a
+ *   collimated beam, V = 2.996/σ (CIE S 017 term 17-31-018; WMO-No. 8).
+ */
+export const VISIBILITY_CONTRAST_THRESHOLD = Object.freeze({
+  'meteorological-range-2pct': 0.02,
+  'mor-5pct': 0.05,
+} as const);
+
+/**
+ * Refraction regime boundaries on k (see `classifyRefraction`):
+ * sub-refraction below `SUB_REFRACTION_BELOW_K`, standard up to and
+ * including `STANDARD_UP_TO_K`, super-refraction above it and below
+ * `DUCTING_FROM_K`, ducting from `DUCTING_FROM_K` on.
+ */
+export const SUB_REFRACTION_BELOW_K = 0;
+/** Upper edge of the standard band: the radio 4/3 earth (k = 0.25) is still standard. */
+export const STANDARD_UP_TO_K = RADIO_FOUR_THIRDS_K;
+/** k = 1: a ray bends exactly with the Earth; the effective surface is flat. */
+export const DUCTING_FROM_K = 1;
