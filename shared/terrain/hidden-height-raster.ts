@@ -1,0 +1,392 @@
+import {
+  DEFAULT_EARTH_RADIUS,
+  DEFAULT_REFRACTION_COEFFICIENT,
+} from '@/shared/terrain/curvature-drop';
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
+import type { RasterGrid, TerrainRaster } from '@/shared/terrain/terrain-raster';
+
+/** A lookout post on the terrain grid. */
+export interface LookoutPost {
+  /** Column of the post's cell (0 = west). */
+  readonly col: number;
+  /** Row of the post's cell (0 = north). */
+  readonly row: number;
+  /** Eye height above the ground of the post's cell, metres (add any tower or cab height). */
+  readonly eyeHeight: number;
+}
+
+/** Atmospheric and range settings of one viewshed computation. */
+export interface SightConditions {
+  /** Refraction coefficient k, dimensionless; default 0.13. */
+  readonly refractionCoefficient?: number;
+  /** Earth radius R, metres; default 6 371 008.8. */
+  readonly earthRadius?: number;
+  /** Largest horizontal distance from the post that is computed, metres; default unlimited. */
+  readonly maxDistance?: number;
+}
+
+/**
+ * Hidden heights for one post: the grid of the terrain it was computed on
+ * (same orientation, cell size and origin) plus one Float32 value per cell.
+ */
+export interface HiddenHeightRaster extends RasterGrid {
+  /**
+   * Height above the ground, metres, that a target in the cell must reach to
+   * be seen from the eye; 0 where the ground itself is seen. NaN where the
+   * terrain has nodata and beyond `maxDistance` (not computed).
+   */
+  readonly hidden: Float32Array;
+  /** The post the raster was computed for. */
+  readonly post: LookoutPost;
+  /** Eye elevation, metres above the vertical datum (ground at the post + eye height). */
+  readonly eyeElevation: number;
+  /** Refraction coefficient k used. */
+  readonly refractionCoefficient: number;
+  /** Earth radius R used, metres. */
+  readonly earthRadius: number;
+  /** Range limit used, metres (Infinity when unlimited). */
+  readonly maxDistance: number;
+}
+
+/** Height given to nodata cells inside the sweep: so low that they never block. */
+const NEVER_BLOCKS = -1e30;
+
+/**
+ * Computes the hidden-height raster of one lookout post: for every cell, the
+ * height above ground a target there must have for its top to be seen from
+ * the eye (0 where the ground itself is seen).
+ *
+ * Terrain model: heights stand for cell centres and the surface between them
+ * is interpolated linearly along grid lines. Earth curvature and refraction
+ * are applied by lowering each height by (1 − k)·d²/(2R) for its horizontal
+ * distance d from the post, after which sight lines are straight.
+ * The eye is at the ground of the post's cell plus `eyeHeight`; the target
+ * stands at the centre of its cell.
+ *
+ * Algorithm ("obstacle-tracking horizon sweep", O(cells)): the grid is swept
+ * in eight octants, column by column away from the post. For every cell the
+ * sweep keeps the column of the obstacle that set its horizon. A new cell's
+ * sight line crosses the previous column between two cells; the candidates
+ * for its horizon are the terrain at that crossing and the obstacles recorded
+ * by those two cells, each evaluated exactly where
+ * the new cell's own sight line crosses the obstacle's column. Unlike sweeps
+ * that interpolate horizon angles between neighbours, every candidate is a
+ * real point of the true sight line, so the sweep never invents an obstacle;
+ * it can only miss one that dominates a sight line without dominating any
+ * neighbouring line, which is rare.
+ *
+ * Nodata cells do not block sight (the grid-line segments touching them are
+ * left out) and get NaN in the result. Cells farther than `maxDistance` get
+ * NaN. The post's own cell gets 0.
+ *
+ * Sources: curvature-and-refraction correction (1 − k)·d²/(2R) of
+ * trigonometric levelling (see `curvature-drop.ts`); the octant sweep that
+ * propagates a horizon outward from the observer is the well-known
+ * reference-plane / horizon-propagation family of grid viewshed methods.
+ *
+ * @param terrain ground heights, metres (not modified)
+ * @param post the post's cell and eye height above ground, metres
+ * @param conditions k (default 0.13), R in metres (default 6 371 008.8),
+ *   maxDistance in metres (default unlimited)
+ * @returns a new raster of hidden heights, metres, same grid as `terrain`
+ * @throws TerrainInputError for a post outside the grid or on nodata, a
+ *   negative or non-finite eye height, or out-of-range conditions
+ * @example
+ * const hidden = computeHiddenHeightRaster(terrain, { col: 120, row: 80, eyeHeight: 15 });
+ * const i = 30 * terrain.width + 200;
+ * hidden.hidden[i]; // metres a smoke column at (col 200, row 30) must rise to be seen
+ */
+export function computeHiddenHeightRaster(
+  terrain: TerrainRaster,
+  post: LookoutPost,
+  conditions: SightConditions = {},
+): HiddenHeightRaster {
+  const { width: W, height: H, cellSize, nodata } = terrain;
+  const k = conditions.refractionCoefficient ?? DEFAULT_REFRACTION_COEFFICIENT;
+  const R = conditions.earthRadius ?? DEFAULT_EARTH_RADIUS;
+  const maxDistance = conditions.maxDistance ?? Infinity;
+  validate(terrain, post, k, R, maxDistance);
+
+  const source = terrain.heights;
+  const heights = withoutNodata(source, nodata);
+  const obs = post.row * W + post.col;
+  const groundAtPost = heights[obs] as number;
+  if (groundAtPost === NEVER_BLOCKS) {
+    throw new TerrainInputError(
+      'post-on-nodata',
+      `The post's cell (col ${post.col}, row ${post.row}) has no ground height.`,
+    );
+  }
+  const eye = groundAtPost + post.eyeHeight;
+  // Drop per squared cell of distance, metres.
+  const dropPerCell2 = ((1 - k) * cellSize * cellSize) / (2 * R);
+  const rangeCells = maxDistance / cellSize;
+  const hidden = new Float32Array(W * H);
+  const maxSpan = Math.max(W, H) + 2;
+  const prevObstacle = new Int32Array(maxSpan);
+  const curObstacle = new Int32Array(maxSpan);
+  const reciprocal = new Float64Array(maxSpan);
+  for (let i = 1; i < maxSpan; i++) reciprocal[i] = 1 / i;
+
+  const c0 = post.col;
+  const r0 = post.row;
+  // [major step, minor step, cells available along major, along minor]
+  const octants: Array<[number, number, number, number]> = [
+    [1, W, W - 1 - c0, H - 1 - r0],
+    [1, -W, W - 1 - c0, r0],
+    [-1, W, c0, H - 1 - r0],
+    [-1, -W, c0, r0],
+    [W, 1, H - 1 - r0, W - 1 - c0],
+    [W, -1, H - 1 - r0, c0],
+    [-W, 1, r0, W - 1 - c0],
+    [-W, -1, r0, c0],
+  ];
+  for (const [stepMajor, stepMinor, iMax, jMax] of octants) {
+    sweepOctant(
+      heights,
+      hidden,
+      obs,
+      stepMajor,
+      stepMinor,
+      Math.min(iMax, Math.floor(rangeCells)),
+      jMax,
+      eye,
+      dropPerCell2,
+      rangeCells,
+      prevObstacle,
+      curObstacle,
+      reciprocal,
+    );
+  }
+  hidden[obs] = 0;
+  if (heights !== source || Number.isFinite(rangeCells)) {
+    maskUncomputed(hidden, source, nodata, W, H, c0, r0, rangeCells);
+  }
+
+  return {
+    width: W,
+    height: H,
+    cellSize,
+    xll: terrain.xll,
+    yll: terrain.yll,
+    crs: terrain.crs,
+    hidden,
+    post: { col: post.col, row: post.row, eyeHeight: post.eyeHeight },
+    eyeElevation: eye,
+    refractionCoefficient: k,
+    earthRadius: R,
+    maxDistance,
+  };
+}
+
+function validate(terrain: TerrainRaster, post: LookoutPost, k: number, R: number, maxDistance: number): void {
+  if (terrain.heights.length !== terrain.width * terrain.height) {
+    throw new TerrainInputError('invalid-raster', 'Heights length does not match width × height.');
+  }
+  if (!Number.isInteger(post.col) || !Number.isInteger(post.row)) {
+    throw new TerrainInputError('invalid-post', `Post cell must be integer, got (${post.col}, ${post.row}).`);
+  }
+  if (post.col < 0 || post.row < 0 || post.col >= terrain.width || post.row >= terrain.height) {
+    throw new TerrainInputError(
+      'post-outside-raster',
+      `Post cell (col ${post.col}, row ${post.row}) is outside the ${terrain.width} × ${terrain.height} grid.`,
+    );
+  }
+  if (!Number.isFinite(post.eyeHeight) || post.eyeHeight < 0) {
+    throw new TerrainInputError('invalid-post', `Eye height must be ≥ 0 m, got ${post.eyeHeight}.`);
+  }
+  if (!Number.isFinite(k) || k >= 1 || k < -10) {
+    throw new TerrainInputError('invalid-condition', `Refraction coefficient must be finite and < 1, got ${k}.`);
+  }
+  if (!(R > 0) || !Number.isFinite(R)) {
+    throw new TerrainInputError('invalid-condition', `Earth radius must be a positive number of metres, got ${R}.`);
+  }
+  if (!(maxDistance > 0)) {
+    throw new TerrainInputError('invalid-condition', `Max distance must be > 0 m, got ${maxDistance}.`);
+  }
+}
+
+/** A copy of the heights with nodata set to NEVER_BLOCKS, or the input itself when it has none. */
+function withoutNodata(source: Float32Array, nodata: number | null): Float32Array {
+  const n = source.length;
+  const marker = nodata ?? NaN;
+  let first = -1;
+  for (let i = 0; i < n; i++) {
+    const v = source[i] as number;
+    if (v !== v || v === marker) {
+      first = i;
+      break;
+    }
+  }
+  if (first < 0) return source;
+  const copy = new Float32Array(source);
+  for (let i = first; i < n; i++) {
+    const v = copy[i] as number;
+    if (v !== v || v === marker) copy[i] = NEVER_BLOCKS;
+  }
+  return copy;
+}
+
+function maskUncomputed(
+  hidden: Float32Array,
+  source: Float32Array,
+  nodata: number | null,
+  W: number,
+  H: number,
+  c0: number,
+  r0: number,
+  rangeCells: number,
+): void {
+  const marker = nodata ?? NaN;
+  const range2 = rangeCells * rangeCells;
+  const limited = Number.isFinite(rangeCells);
+  for (let r = 0; r < H; r++) {
+    const dr = r - r0;
+    const base = r * W;
+    for (let c = 0; c < W; c++) {
+      const v = source[base + c] as number;
+      if (v !== v || v === marker) {
+        hidden[base + c] = NaN;
+      } else if (limited) {
+        const dc = c - c0;
+        if (dc * dc + dr * dr > range2) hidden[base + c] = NaN;
+      }
+    }
+  }
+}
+
+/**
+ * One octant: cells (i, j) with 0 ≤ j ≤ i, i along the major axis, j along
+ * the minor axis, index = obs + i·stepMajor + j·stepMinor. Heights are in
+ * metres; distances in cells; `dropPerCell2` turns squared cell distance into
+ * the curvature drop. Sight-line slopes are measured per major-axis cell,
+ * which along one sight line is proportional to the true slope.
+ */
+function sweepOctant(
+  h: Float32Array,
+  out: Float32Array,
+  obs: number,
+  stepMajor: number,
+  stepMinor: number,
+  iMax: number,
+  jMax: number,
+  eye: number,
+  dropPerCell2: number,
+  rangeCells: number,
+  prevObstacleIn: Int32Array,
+  curObstacleIn: Int32Array,
+  reciprocal: Float64Array,
+): void {
+  if (iMax < 1) return;
+  let prev = prevObstacleIn;
+  let cur = curObstacleIn;
+  const range2 = rangeCells * rangeCells;
+  const limited = Number.isFinite(rangeCells);
+  const twoDrop = 2 * dropPerCell2;
+
+  // Column 1: nothing lies between the eye and these cells.
+  const j1 = Math.min(1, jMax);
+  for (let j = 0; j <= j1; j++) {
+    out[obs + stepMajor + j * stepMinor] = 0;
+    prev[j] = 1;
+  }
+  let prevEnd = j1;
+
+  for (let i = 2; i <= iMax; i++) {
+    let jEnd = i < jMax ? i : jMax;
+    if (limited) {
+      const lim = Math.floor(Math.sqrt(Math.max(0, range2 - i * i)));
+      if (lim < jEnd) jEnd = lim;
+    }
+    if (jEnd < 0) break;
+    const invI = reciprocal[i] as number;
+    const iPrev = i - 1;
+    const invIPrev = reciprocal[iPrev] as number;
+    const colPrev = obs + iPrev * stepMajor;
+    const colCur = obs + i * stepMajor;
+    const dropCur = dropPerCell2 * i * i;
+    const dropPrev = dropPerCell2 * iPrev * iPrev;
+    let zBelow = 0; // raw height of (i, j − 1)
+    for (let j = 0; j <= jEnd; j++) {
+      const m = j * invI; // sight-line direction: minor cells per major cell
+      // Crossing of the previous column, between minor rows a and a + 1.
+      const y = j - m;
+      const a = y | 0;
+      const f = y - a;
+      const p0 = colPrev + a * stepMinor;
+      const z0 = h[p0] as number;
+      let z1 = z0;
+      if (f > 0) z1 = h[p0 + stepMinor] as number;
+      let best = (z0 + f * (z1 - z0) - dropPrev - dropPerCell2 * y * y - eye) * invIPrev;
+      let bestCol = iPrev;
+
+      // Obstacles recorded by the previous column's cells a and a + 1,
+      // evaluated where this cell's sight line crosses their columns.
+      const kA = prev[a] as number;
+      if (kA !== iPrev) {
+        const yk = kA * m;
+        const ak = yk | 0;
+        const fk = yk - ak;
+        const pk = obs + kA * stepMajor + ak * stepMinor;
+        const zk0 = h[pk] as number;
+        const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
+        const s = (zk - dropPerCell2 * (kA * kA + yk * yk) - eye) * (reciprocal[kA] as number);
+        if (s > best) {
+          best = s;
+          bestCol = kA;
+        }
+      }
+      if (f > 0 && a < prevEnd) {
+        const kB = prev[a + 1] as number;
+        if (kB !== iPrev && kB !== kA) {
+          const yk = kB * m;
+          const ak = yk | 0;
+          const fk = yk - ak;
+          const pk = obs + kB * stepMajor + ak * stepMinor;
+          const zk0 = h[pk] as number;
+          const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
+          const s = (zk - dropPerCell2 * (kB * kB + yk * yk) - eye) * (reciprocal[kB] as number);
+          if (s > best) {
+            best = s;
+            bestCol = kB;
+          }
+        }
+      }
+
+      const idx = colCur + j * stepMinor;
+      const zRaw = h[idx] as number;
+      const zt = zRaw - dropCur - dropPerCell2 * j * j;
+      let need = eye + best * i - zt;
+      if (f > 0 && j > 0) {
+        // Last stretch, inside the patch between columns i − 1, i and minor rows
+        // j − 1, j: the bilinear surface along the sight line is a quadratic
+        // q(v) = zt + qb·v + qa·v² of v, the major-axis distance back from the
+        // target (curvature drop included). Its contribution
+        // E + (q(v) − E)·i/(i − v) − zt has an interior maximum only if its
+        // slope at the target, ∝ qb·i + zt − E, is positive (a back slope).
+        const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
+        const n0 = qb * i + zt - eye;
+        if (n0 > 0) {
+          const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
+          const x = n0 / qa;
+          const disc = i * i + x;
+          if (disc >= 0) {
+            const v = -x / (i + Math.sqrt(disc));
+            if (v > 0 && v < 1) {
+              const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
+              if (local > need) need = local;
+            }
+          }
+        }
+      }
+      out[idx] = need > 0 ? need : 0;
+      if ((zt - eye) * invI > best) bestCol = i;
+      cur[j] = bestCol;
+      zBelow = zRaw;
+    }
+    const t = prev;
+    prev = cur;
+    cur = t;
+    prevEnd = jEnd;
+  }
+}

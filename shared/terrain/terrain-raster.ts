@@ -1,0 +1,113 @@
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
+
+/**
+ * Coordinate reference system of a raster, as far as Kenning needs it.
+ * `epsg` is the EPSG code when known (e.g. 32633 for WGS 84 / UTM zone 33N);
+ * `wkt` is the well-known text when the source supplied one (an ESRI `.prj`).
+ */
+export interface TerrainCrs {
+  readonly epsg: number | null;
+  readonly wkt: string | null;
+}
+
+/**
+ * Geometry shared by every Kenning raster.
+ *
+ * Orientation: cells are stored row-major; row 0 is the northernmost (top)
+ * row, column 0 the westernmost. The value of cell (col, row) is at index
+ * `row * width + col` and stands for the cell's centre, whose coordinates are
+ * `x = xll + (col + 0.5) * cellSize`, `y = yll + (height - row - 0.5) * cellSize`.
+ * Cells are square. Coordinates are projected metres (e.g. UTM).
+ */
+export interface RasterGrid {
+  /** Number of columns (cells west → east). */
+  readonly width: number;
+  /** Number of rows (cells north → south). */
+  readonly height: number;
+  /** Side of a square cell, metres. */
+  readonly cellSize: number;
+  /** Easting of the lower-left (south-west) corner of the grid, metres (ESRI `xllcorner`). */
+  readonly xll: number;
+  /** Northing of the lower-left (south-west) corner of the grid, metres (ESRI `yllcorner`). */
+  readonly yll: number;
+  /** Coordinate reference system, or null when unknown. */
+  readonly crs: TerrainCrs | null;
+}
+
+/**
+ * A digital elevation model: ground heights in metres above the vertical
+ * datum, one per cell (see {@link RasterGrid} for orientation).
+ * A cell is nodata when its value is NaN or equals `nodata`.
+ */
+export interface TerrainRaster extends RasterGrid {
+  /** Ground heights, metres, `width * height` values, row 0 = north. */
+  readonly heights: Float32Array;
+  /** Marker value for cells without data, or null when only NaN marks them. */
+  readonly nodata: number | null;
+}
+
+/** Fields accepted by {@link createTerrainRaster}. */
+export interface TerrainRasterInit {
+  readonly heights: Float32Array;
+  readonly width: number;
+  readonly height: number;
+  readonly cellSize: number;
+  readonly xll?: number;
+  readonly yll?: number;
+  readonly nodata?: number | null;
+  readonly crs?: TerrainCrs | null;
+}
+
+/**
+ * Checks the fields of a terrain raster and returns them as a
+ * {@link TerrainRaster}. The heights array is used as is (not copied, never
+ * modified).
+ *
+ * Defaults: `xll = 0`, `yll = 0`, `nodata = null`, `crs = null`.
+ *
+ * Source: grid layout of the ESRI ASCII raster format (ncols, nrows,
+ * xllcorner, yllcorner, cellsize, NODATA_value), rows stored north to south.
+ *
+ * @throws TerrainInputError `invalid-raster` when a size is not a positive
+ *   integer, the cell size is not a positive finite number, or the array
+ *   length is not `width * height`.
+ * @example
+ * const terrain = createTerrainRaster({
+ *   heights: new Float32Array([100, 101, 102, 103]),
+ *   width: 2, height: 2, cellSize: 25, xll: 500000, yll: 6000000,
+ * });
+ * terrain.heights[0]; // 100 m, the north-west cell
+ */
+export function createTerrainRaster(init: TerrainRasterInit): TerrainRaster {
+  const { heights, width, height, cellSize } = init;
+  const xll = init.xll ?? 0;
+  const yll = init.yll ?? 0;
+  if (!Number.isInteger(width) || width < 1 || !Number.isInteger(height) || height < 1) {
+    throw new TerrainInputError(
+      'invalid-raster',
+      `Raster size must be positive integers, got ${width} × ${height}.`,
+    );
+  }
+  if (!(cellSize > 0) || !Number.isFinite(cellSize)) {
+    throw new TerrainInputError('invalid-raster', `Cell size must be a positive number of metres, got ${cellSize}.`);
+  }
+  if (!Number.isFinite(xll) || !Number.isFinite(yll)) {
+    throw new TerrainInputError('invalid-raster', `Raster origin must be finite, got (${xll}, ${yll}).`);
+  }
+  if (!(heights instanceof Float32Array) || heights.length !== width * height) {
+    throw new TerrainInputError(
+      'invalid-raster',
+      `Heights must be a Float32Array of ${width} × ${height} = ${width * height} values.`,
+    );
+  }
+  return {
+    heights,
+    width,
+    height,
+    cellSize,
+    xll,
+    yll,
+    nodata: init.nodata ?? null,
+    crs: init.crs ?? null,
+  };
+}
