@@ -298,6 +298,7 @@ export const SIGHTLINE_WARNING_CODES = [
   'distance-not-given',
   'target-height-not-given',
   'beyond-effective-quarter',
+  'required-part-exceeds-target',
   'detection-unbounded',
 ] as const;
 
@@ -320,7 +321,7 @@ export type SightlineCaution = z.infer<typeof SightlineCautionSchema>;
 /** Which limit sets the detection range. */
 export const DetectionLimitSchema = z.enum(['horizon', 'visibility', 'angular-size']);
 
-/** Refraction regime by k: sub (< 0), standard (0…0.25), super (0.25…1), ducting (≥ 1). */
+/** Refraction regime by k: sub (k < 0), standard (0 ≤ k < 0.5), super (0.5 ≤ k < 1), ducting (k ≥ 1). */
 export const RefractionRegimeSchema = z.enum(['sub-refraction', 'standard', 'super-refraction', 'ducting']);
 
 const metres = z.number().nullable();

@@ -58,12 +58,17 @@ export const VISIBILITY_CONTRAST_THRESHOLD = Object.freeze({
 
 /**
  * Refraction regime boundaries on k (see `classifyRefraction`):
- * sub-refraction below `SUB_REFRACTION_BELOW_K`, standard up to and
- * including `STANDARD_UP_TO_K`, super-refraction above it and below
+ * sub-refraction below `SUB_REFRACTION_BELOW_K`, standard from there up to
+ * (not including) `SUPER_REFRACTION_FROM_K`, super-refraction from it up to
  * `DUCTING_FROM_K`, ducting from `DUCTING_FROM_K` on.
  */
 export const SUB_REFRACTION_BELOW_K = 0;
-/** Upper edge of the standard band: the radio 4/3 earth (k = 0.25) is still standard. */
-export const STANDARD_UP_TO_K = RADIO_FOUR_THIRDS_K;
+/**
+ * Lower edge of super-refraction, k = 0.5 ≈ dN/dh of −79 N/km (the
+ * super-refraction threshold of radio meteorology, −79 N/km · R ≈ 0.503).
+ * The standard band 0 ≤ k < 0.5 therefore holds the optical conventions
+ * (0.13, 1/7, ≈ 0.17) and the radio standard atmosphere (−40 N/km, k ≈ 0.25).
+ */
+export const SUPER_REFRACTION_FROM_K = 0.5;
 /** k = 1: a ray bends exactly with the Earth; the effective surface is flat. */
 export const DUCTING_FROM_K = 1;

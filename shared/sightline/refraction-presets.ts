@@ -43,7 +43,7 @@ function fromGradient(pressureHpa: number, temperatureK: number, gradientKPerM: 
 
 const isa = fromGradient(STANDARD_PRESSURE_HPA, STANDARD_TEMPERATURE_K, STANDARD_TEMPERATURE_GRADIENT_K_PER_M);
 const heatedGround = fromGradient(STANDARD_PRESSURE_HPA, 308.15, -0.1);
-const inversion = fromGradient(STANDARD_PRESSURE_HPA, 283.15, 0.03);
+const inversion = fromGradient(STANDARD_PRESSURE_HPA, 283.15, 0.06);
 const strongInversion = fromGradient(STANDARD_PRESSURE_HPA, 273.15, 0.15);
 
 const PRESET_TABLE = [
