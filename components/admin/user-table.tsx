@@ -11,6 +11,8 @@ import { colors, radius, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { RolePicker } from './role-picker';
 
+const COLUMN_FLEX = [2.2, 5, 1.4, 1.8, 2];
+
 const STATUS_LABEL = { active: 'Active', invited: 'Invited', deactivated: 'Deactivated' } as const;
 
 /** A table on wide screens, cards on phones. */
@@ -35,7 +37,7 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
         <View style={styles.table} role="table" aria-label="Users">
           <View style={[styles.tr, styles.th]} role="row">
             {['Name', 'Role', 'Status', 'Last sign-in', ''].map((h, i) => (
-              <AppText key={i} variant="label" tone="muted" role="columnheader" style={[styles.td, i === 1 && { flex: 3 }]}>
+              <AppText key={i} variant="label" tone="muted" role="columnheader" style={[styles.td, { flex: COLUMN_FLEX[i] }]}>
                 {h}
               </AppText>
             ))}
@@ -48,10 +50,10 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
                   {u.email}
                 </AppText>
               </View>
-              <View style={[styles.td, { flex: 3 }]} role="cell">
+              <View style={[styles.td, { flex: COLUMN_FLEX[1] }]} role="cell">
                 <RolePicker label={`Role of ${u.name}`} value={u.role} disabled={update.isPending || u.id === me?.id} onChange={(role) => change(u, { role })} />
               </View>
-              <AppText style={styles.td} role="cell">
+              <AppText style={[styles.td, { flex: COLUMN_FLEX[2] }]} role="cell">
                 {STATUS_LABEL[u.status]}
               </AppText>
               <AppText style={styles.td} role="cell" tone="muted">
@@ -89,5 +91,5 @@ const styles = StyleSheet.create({
   table: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, overflow: 'hidden' },
   tr: { flexDirection: 'row', alignItems: 'center', borderBottomWidth: 1, borderBottomColor: colors.line, paddingVertical: space.sm },
   th: { backgroundColor: colors.paper },
-  td: { flex: 2, paddingHorizontal: space.md },
+  td: { flex: 2, paddingHorizontal: space.sm },
 });

@@ -27,12 +27,17 @@ export function useSession() {
   return useQuery(meQuery());
 }
 
+/** Drops every cached query that belonged to the previous user, keeping the session query observed. */
+function forgetOtherUsersData(qc: ReturnType<typeof useQueryClient>) {
+  qc.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionKeys.all[0] });
+}
+
 export function useSignIn() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (input: SignInRequest) => api.post('/auth/sign-in', input, MeResponseSchema),
     onSuccess: ({ user }) => {
-      qc.clear();
+      forgetOtherUsersData(qc);
       qc.setQueryData(sessionKeys.me(), user);
     },
   });
@@ -43,7 +48,7 @@ export function useSignOut() {
   return useMutation({
     mutationFn: () => api.post('/auth/sign-out', {}, null),
     onSettled: () => {
-      qc.clear();
+      forgetOtherUsersData(qc);
       qc.setQueryData(sessionKeys.me(), null);
     },
   });

@@ -1,0 +1,45 @@
+import path from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+
+/** Debian's Chromium; playwright-core never downloads a browser of its own. */
+export const CHROMIUM = process.env.KENNING_CHROMIUM ?? '/usr/bin/chromium';
+
+export const VIEWPORTS = {
+  phone: { width: 390, height: 844 },
+  wide: { width: 1440, height: 900 },
+} as const;
+export type ViewportName = keyof typeof VIEWPORTS;
+
+/**
+ * Launches headless Chromium (playwright gives every launch a fresh, empty
+ * profile) with no background network
+ * (the machine's network is closed; Chromium's own connections would be refused).
+ * WebGL runs on SwiftShader — no GPU.
+ */
+export async function launchBrowser(): Promise<{ browser: Browser; close: () => Promise<void> }> {
+  const browser = await chromium.launch({
+    executablePath: CHROMIUM,
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--enable-unsafe-swiftshader',
+      '--use-angle=swiftshader',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+  return { browser, close: () => browser.close() };
+}
+
+export async function newPage(browser: Browser, viewport: ViewportName): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ viewport: VIEWPORTS[viewport], deviceScaleFactor: 1 });
+  const page = await context.newPage();
+  return { context, page };
+}
+
+/** Where e2e screenshots go (ignored by git). */
+export const SCREENSHOT_DIR = path.join(__dirname, '..', 'e2e', 'screenshots');
