@@ -336,7 +336,7 @@ async function test() {
     step('web build', ensureWebBuild);
     const port = await freePort();
     const url = `http://127.0.0.1:${port}`;
-    server = serve({ DATABASE_URL: pg.url(e2eDb), PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'test' });
+    server = serve({ DATABASE_URL: pg.url(e2eDb), PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'test', SIGN_IN_LIMIT_PER_ADDRESS: '1000' });
     if (!(await waitForHealth(url, server))) throw new Error('the test server did not become healthy');
     const jestArgs = process.argv.slice(3);
     step('jest (unit, components, api, e2e)', () =>

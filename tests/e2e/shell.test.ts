@@ -1,0 +1,85 @@
+import type { Browser } from 'playwright-core';
+import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { DEMO } from '@/tests/support/agents';
+
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+});
+afterAll(() => close());
+
+describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+  it('signs in, shows the shell and the empty home, and signs out', async () => {
+    const { context, page } = await newPage(browser, viewport);
+    const errors = watchErrors(page);
+    try {
+      await page.goto(`${e2eUrl()}/`);
+      // Signed out, the root sends you to sign-in.
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      await shot(page, 'sign-in', viewport);
+
+      await signIn(page, DEMO.planner, 'definitely-wrong');
+      await page.getByText('The e-mail address or password is not right.').waitFor();
+      await shot(page, 'sign-in-error', viewport);
+
+      await signIn(page, DEMO.planner);
+      await page.getByText('Your sites').first().waitFor();
+      await page.getByText('No sites yet').waitFor();
+      const nav = page.getByRole('navigation', { name: 'Main' });
+      const box = await nav.boundingBox();
+      expect(box).not.toBeNull();
+      if (viewport === 'phone') {
+        // A bottom bar spanning the width.
+        expect(box!.y + box!.height).toBeGreaterThan(VIEWPORTS.phone.height - 2);
+        expect(box!.width).toBeGreaterThan(VIEWPORTS.phone.width - 2);
+      } else {
+        // A side rail on the left, full height.
+        expect(box!.x).toBeLessThan(1);
+        expect(box!.width).toBeLessThan(300);
+        expect(box!.height).toBeGreaterThan(VIEWPORTS.wide.height - 2);
+      }
+      // Planners see no user administration in the navigation.
+      expect(await nav.getByRole('link', { name: 'Users' }).count()).toBe(0);
+      await shot(page, 'home', viewport);
+
+      await nav.getByRole('link', { name: 'Account' }).click();
+      await page.getByText('Harrowmere Lookout Service').first().waitFor();
+      await page.getByRole('button', { name: 'Sign out' }).click();
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('lets an admin manage users, and keeps an observer out of administration', async () => {
+    const { context, page } = await newPage(browser, viewport);
+    try {
+      await signIn(page, DEMO.admin);
+      await page.getByText('Your sites').first().waitFor();
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Users' }).click();
+      await page.getByText('Invite someone').waitFor();
+      for (const email of [DEMO.admin, DEMO.planner, DEMO.reviewer, DEMO.observer]) {
+        expect(await page.getByText(email, { exact: false }).count()).toBeGreaterThan(0);
+      }
+      expect(await page.getByText(DEMO.otherAdmin).count()).toBe(0);
+      await shot(page, 'users', viewport);
+    } finally {
+      await context.close();
+    }
+
+    const observer = await newPage(browser, viewport);
+    try {
+      await signIn(observer.page, DEMO.observer);
+      await observer.page.getByText('Your sites').first().waitFor();
+      await observer.page.goto(`${e2eUrl()}/admin/users`);
+      await observer.page.getByText('Not available to your role').waitFor();
+      await shot(observer.page, 'observer-admin', viewport);
+    } finally {
+      await observer.context.close();
+    }
+  });
+});

@@ -1,0 +1,65 @@
+import { randomBytes } from 'node:crypto';
+import { Client } from 'pg';
+import type { Sequelize } from 'sequelize';
+import { createApp, type AppDeps } from '@/server/app';
+import { createDatabase } from '@/server/data/database';
+
+/**
+ * A disposable database per test file, copied from the migrated and seeded
+ * template that `npm test` prepares (KENNING_TEST_TEMPLATE_DB).
+ */
+export async function createTestDatabase(): Promise<{ db: Sequelize; url: string; drop: () => Promise<void> }> {
+  const adminUrl = process.env.KENNING_ADMIN_DATABASE_URL;
+  const template = process.env.KENNING_TEST_TEMPLATE_DB;
+  if (!adminUrl || !template) {
+    throw new Error('API tests need the database that `npm test` prepares (KENNING_ADMIN_DATABASE_URL, KENNING_TEST_TEMPLATE_DB).');
+  }
+  const name = `${template}_${randomBytes(4).toString('hex')}`;
+  const admin = new Client({ connectionString: adminUrl });
+  await admin.connect();
+  try {
+    // Two files copying the template at the same instant can collide; retry briefly.
+    for (let attempt = 0; ; attempt++) {
+      try {
+        await admin.query(`CREATE DATABASE "${name}" TEMPLATE "${template}"`);
+        break;
+      } catch (e) {
+        if (attempt >= 10) throw e;
+        await new Promise((r) => setTimeout(r, 200 + Math.random() * 300));
+      }
+    }
+  } finally {
+    await admin.end();
+  }
+  const url = new URL(adminUrl);
+  url.pathname = `/${name}`;
+  const db = createDatabase(url.toString());
+  return {
+    db,
+    url: url.toString(),
+    drop: async () => {
+      await db.close();
+      const c = new Client({ connectionString: adminUrl });
+      await c.connect();
+      await c.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+      await c.end();
+    },
+  };
+}
+
+export const TEST_CONFIG: AppDeps['config'] = {
+  SESSION_SECRET: 'test-secret-'.padEnd(48, 'x'),
+  TRUST_PROXY: false,
+  WEB_DIST_DIR: '/nonexistent',
+  SIGN_IN_LIMIT_PER_ADDRESS: 1000,
+  SIGN_IN_LIMIT_PER_ACCOUNT: 1000,
+  SIGN_IN_WINDOW_SECONDS: 900,
+  LOG_REQUESTS: false,
+};
+
+/** An app on a fresh database; call `close` in afterAll. */
+export async function createTestApp(config: Partial<AppDeps['config']> = {}) {
+  const database = await createTestDatabase();
+  const app = createApp({ db: database.db, config: { ...TEST_CONFIG, ...config } });
+  return { app, db: database.db, close: database.drop };
+}
