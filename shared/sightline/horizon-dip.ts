@@ -27,7 +27,7 @@ import type { Derived, SphereOptions } from '@/shared/sightline/types';
  * refraction; effective-radius form, IEC 60050-705 (705-05-41).
  *
  * @example
- * horizonDip(10, { k: 0 });    // 0.001 772 rad ≈ 6.09′
+ * horizonDip(10, { k: 0 });    // { value: 0.001772, reason: null } (rad, ≈ 6.09′)
  * horizonDip(10, { k: 1.2 });  // { value: null, reason: 'ducting' }
  */
 export function horizonDip(heightM: number, options: SphereOptions = {}): Derived {
