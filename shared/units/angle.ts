@@ -8,7 +8,7 @@ export type AngleUnit = 'rad' | 'deg' | 'arcmin' | 'mil';
 
 /**
  * Units of each kind in a full circle. The NATO mil divides the circle into
- * 6400 (STANAG 2434 / common artillery practice); other armies use 6000 or
+ * 6400 (NATO practice); other armies use 6000 or
  * 6300 and are not supported here.
  */
 export const ANGLE_UNITS_PER_TURN: Readonly<Record<AngleUnit, number>> = Object.freeze({
