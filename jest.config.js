@@ -11,7 +11,6 @@ const cacheDirectory = path.join(__dirname, '.kenning', 'cache', 'jest');
 const tsJest = [
   'ts-jest',
   {
-    isolatedModules: true,
     diagnostics: false,
     tsconfig: {
       module: 'commonjs',
@@ -21,6 +20,7 @@ const tsJest = [
       jsx: 'react-jsx',
       resolveJsonModule: true,
       allowJs: true,
+      isolatedModules: true,
     },
   },
 ];

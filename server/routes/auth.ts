@@ -16,8 +16,7 @@ export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
   router.post('/auth/sign-in', async (req, res) => {
     const input = parseOrThrow(SignInRequestSchema, req.body, 'sign-in form');
     const user = await signIn(input, req.ip ?? 'unknown', limiter);
-    // A fresh session on every sign-in.
-    req.session.destroy();
+    // A fresh session on every sign-in: new nonce, newly sealed cookie value.
     req.session.userId = user.id;
     req.session.nonce = randomBytes(12).toString('base64url');
     await req.session.save();

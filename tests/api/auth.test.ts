@@ -3,7 +3,8 @@ import type { Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import { UserModel } from '@/server/data/models';
 import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
-import { createTestApp } from '@/tests/support/test-db';
+import { createApp } from '@/server/app';
+import { createTestApp, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
 
 let app: Express;
@@ -80,24 +81,22 @@ describe('POST /api/auth/sign-in', () => {
   });
 
   it('marks the cookie Secure when the request came over https through a trusted proxy', async () => {
-    const secured = await createTestApp({ TRUST_PROXY: true });
-    try {
-      const res = await request(secured.app)
+    const secured = createApp({ db, config: { ...TEST_CONFIG, TRUST_PROXY: true } });
+    {
+      const res = await request(secured)
         .post('/api/auth/sign-in')
         .set('X-Forwarded-Proto', 'https')
         .send({ email: DEMO.planner, password: DEMO_PASSWORD });
       expect(res.status).toBe(200);
       expect(cookieOf(res)).toMatch(/Secure/i);
-    } finally {
-      await secured.close();
     }
   });
 });
 
 describe('sign-in rate limits', () => {
   it('answers a burst of bad attempts on one account with 429, even with the right password', async () => {
-    const limited = await createTestApp({ SIGN_IN_LIMIT_PER_ACCOUNT: 3, SIGN_IN_LIMIT_PER_ADDRESS: 100 });
-    try {
+    const limited = { app: createApp({ db, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ACCOUNT: 3, SIGN_IN_LIMIT_PER_ADDRESS: 100 } }) };
+    {
       const statuses: number[] = [];
       for (let i = 0; i < 4; i++) {
         const r = await request(limited.app).post('/api/auth/sign-in').send({ email: DEMO.planner, password: `wrong-${i}-guess` });
@@ -110,20 +109,16 @@ describe('sign-in rate limits', () => {
       // Another account from the same address is not locked out.
       const other = await request(limited.app).post('/api/auth/sign-in').send({ email: DEMO.reviewer, password: DEMO_PASSWORD });
       expect(other.status).toBe(200);
-    } finally {
-      await limited.close();
     }
   });
 
   it('limits attempts per address across accounts', async () => {
-    const limited = await createTestApp({ SIGN_IN_LIMIT_PER_ADDRESS: 2, SIGN_IN_LIMIT_PER_ACCOUNT: 100 });
-    try {
+    const limited = { app: createApp({ db, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ADDRESS: 2, SIGN_IN_LIMIT_PER_ACCOUNT: 100 } }) };
+    {
       const emails = [DEMO.planner, DEMO.reviewer, DEMO.admin];
       const statuses = [];
       for (const email of emails) statuses.push((await request(limited.app).post('/api/auth/sign-in').send({ email, password: 'wrong-password' })).status);
       expect(statuses).toEqual([401, 401, 429]);
-    } finally {
-      await limited.close();
     }
   });
 });

@@ -62,6 +62,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       await page.getByText('Your sites').first().waitFor();
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Users' }).click();
       await page.getByText('Invite someone').waitFor();
+      await page.getByText(DEMO.reviewer).first().waitFor();
       for (const email of [DEMO.admin, DEMO.planner, DEMO.reviewer, DEMO.observer]) {
         expect(await page.getByText(email, { exact: false }).count()).toBeGreaterThan(0);
       }

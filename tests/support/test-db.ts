@@ -57,7 +57,11 @@ export const TEST_CONFIG: AppDeps['config'] = {
   LOG_REQUESTS: false,
 };
 
-/** An app on a fresh database; call `close` in afterAll. */
+/**
+ * An app on a fresh database; call `close` in afterAll. Models are registered
+ * on one Sequelize instance per process, so a test file opens one database and
+ * builds further apps (other configs) on the same `db` with `createApp`.
+ */
 export async function createTestApp(config: Partial<AppDeps['config']> = {}) {
   const database = await createTestDatabase();
   const app = createApp({ db: database.db, config: { ...TEST_CONFIG, ...config } });
