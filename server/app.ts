@@ -8,6 +8,7 @@ import { errorHandler, notFoundHandler } from './http/error-handler';
 import { sessionMiddleware } from './http/session';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
+import { sightlineRoutes } from './routes/sightline';
 import { siteRoutes } from './routes/sites';
 import { userRoutes } from './routes/users';
 
@@ -67,6 +68,7 @@ export function createApp({ db, config }: AppDeps) {
   api.use(authRoutes(db, limiter));
 
   const v1 = express.Router();
+  v1.use(sightlineRoutes());
   v1.use(siteRoutes());
   v1.use(userRoutes(db, publicUrl));
   api.use('/v1', v1);

@@ -1,9 +1,7 @@
-import {
-  DEFAULT_EARTH_RADIUS,
-  DEFAULT_REFRACTION_COEFFICIENT,
-} from '@/shared/terrain/curvature-drop';
+import { DEFAULT_EARTH_RADIUS, DEFAULT_REFRACTION_COEFFICIENT } from '@/shared/terrain/curvature-drop';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { RasterGrid, TerrainRaster } from '@/shared/terrain/terrain-raster';
+import { NEVER_BLOCKS, prepareSweepTerrain, type SweepTerrain } from '@/shared/terrain/sweep-terrain';
 
 /** A lookout post on the terrain grid. */
 export interface LookoutPost {
@@ -48,9 +46,6 @@ export interface HiddenHeightRaster extends RasterGrid {
   readonly maxDistance: number;
 }
 
-/** Height given to nodata cells inside the sweep: so low that they never block. */
-const NEVER_BLOCKS = -1e30;
-
 /**
  * Computes the hidden-height raster of one lookout post: for every cell, the
  * height above ground a target there must have for its top to be seen from
@@ -88,6 +83,8 @@ const NEVER_BLOCKS = -1e30;
  * @param post the post's cell and eye height above ground, metres
  * @param conditions k (default 0.13), R in metres (default 6 371 008.8),
  *   maxDistance in metres (default unlimited)
+ * @param prepared the terrain laid out by `prepareSweepTerrain(terrain)`, to
+ *   share that work between many posts; made on the fly when omitted
  * @returns a new raster of hidden heights, metres, same grid as `terrain`
  * @throws TerrainInputError for a post outside the grid or on nodata, a
  *   negative or non-finite eye height, or out-of-range conditions
@@ -100,55 +97,52 @@ export function computeHiddenHeightRaster(
   terrain: TerrainRaster,
   post: LookoutPost,
   conditions: SightConditions = {},
+  prepared?: SweepTerrain,
 ): HiddenHeightRaster {
   const { width: W, height: H, cellSize, nodata } = terrain;
   const k = conditions.refractionCoefficient ?? DEFAULT_REFRACTION_COEFFICIENT;
   const R = conditions.earthRadius ?? DEFAULT_EARTH_RADIUS;
   const maxDistance = conditions.maxDistance ?? Infinity;
   validate(terrain, post, k, R, maxDistance);
+  if (prepared && prepared.source !== terrain) {
+    throw new TerrainInputError('invalid-raster', 'The prepared sweep terrain was made from another terrain.');
+  }
+  const sweep = prepared ?? prepareSweepTerrain(terrain);
 
-  const source = terrain.heights;
-  const heights = withoutNodata(source, nodata);
-  const obs = post.row * W + post.col;
-  const groundAtPost = heights[obs] as number;
+  const c0 = post.col;
+  const r0 = post.row;
+  const groundAtPost = sweep.rowMajor[r0 * W + c0] as number;
   if (groundAtPost === NEVER_BLOCKS) {
-    throw new TerrainInputError(
-      'post-on-nodata',
-      `The post's cell (col ${post.col}, row ${post.row}) has no ground height.`,
-    );
+    throw new TerrainInputError('post-on-nodata', `The post's cell (col ${post.col}, row ${post.row}) has no ground height.`);
   }
   const eye = groundAtPost + post.eyeHeight;
   // Drop per squared cell of distance, metres.
   const dropPerCell2 = ((1 - k) * cellSize * cellSize) / (2 * R);
   const rangeCells = maxDistance / cellSize;
-  const hidden = new Float32Array(W * H);
+  const iLimit = Math.floor(rangeCells);
   const maxSpan = Math.max(W, H) + 2;
   const prevObstacle = new Int32Array(maxSpan);
   const curObstacle = new Int32Array(maxSpan);
   const reciprocal = new Float64Array(maxSpan);
   for (let i = 1; i < maxSpan; i++) reciprocal[i] = 1 / i;
 
-  const c0 = post.col;
-  const r0 = post.row;
-  // [major step, minor step, cells available along major, along minor]
-  const octants: Array<[number, number, number, number]> = [
-    [1, W, W - 1 - c0, H - 1 - r0],
-    [1, -W, W - 1 - c0, r0],
-    [-1, W, c0, H - 1 - r0],
-    [-1, -W, c0, r0],
+  // North–south octants sweep rows of the row-major heights ...
+  const hidden = new Float32Array(W * H);
+  const obs = r0 * W + c0;
+  const rowOctants: Array<[number, number, number, number]> = [
     [W, 1, H - 1 - r0, W - 1 - c0],
     [W, -1, H - 1 - r0, c0],
     [-W, 1, r0, W - 1 - c0],
     [-W, -1, r0, c0],
   ];
-  for (const [stepMajor, stepMinor, iMax, jMax] of octants) {
+  for (const [stepMajor, stepMinor, iMax, jMax] of rowOctants) {
     sweepOctant(
-      heights,
+      sweep.rowMajor,
       hidden,
       obs,
       stepMajor,
       stepMinor,
-      Math.min(iMax, Math.floor(rangeCells)),
+      Math.min(iMax, iLimit),
       jMax,
       eye,
       dropPerCell2,
@@ -158,9 +152,36 @@ export function computeHiddenHeightRaster(
       reciprocal,
     );
   }
+  // ... east–west octants sweep columns of the column-major copy.
+  const hiddenByColumn = new Float32Array(W * H);
+  const obsT = c0 * H + r0;
+  const columnOctants: Array<[number, number, number, number]> = [
+    [H, 1, W - 1 - c0, H - 1 - r0],
+    [H, -1, W - 1 - c0, r0],
+    [-H, 1, c0, H - 1 - r0],
+    [-H, -1, c0, r0],
+  ];
+  for (const [stepMajor, stepMinor, iMax, jMax] of columnOctants) {
+    sweepOctant(
+      sweep.columnMajor,
+      hiddenByColumn,
+      obsT,
+      stepMajor,
+      stepMinor,
+      Math.min(iMax, iLimit),
+      jMax,
+      eye,
+      dropPerCell2,
+      rangeCells,
+      prevObstacle,
+      curObstacle,
+      reciprocal,
+    );
+  }
+  mergeEastWest(hidden, hiddenByColumn, W, H, c0, r0);
   hidden[obs] = 0;
-  if (heights !== source || Number.isFinite(rangeCells)) {
-    maskUncomputed(hidden, source, nodata, W, H, c0, r0, rangeCells);
+  if (sweep.hasNodata || Number.isFinite(rangeCells)) {
+    maskUncomputed(hidden, terrain.heights, nodata, W, H, c0, r0, rangeCells);
   }
 
   return {
@@ -177,6 +198,29 @@ export function computeHiddenHeightRaster(
     earthRadius: R,
     maxDistance,
   };
+}
+
+/** Copies the cells with |Δcol| > |Δrow| (swept column-major) into the row-major result, in cache-sized blocks. */
+function mergeEastWest(hidden: Float32Array, byColumn: Float32Array, W: number, H: number, c0: number, r0: number): void {
+  const B = 64;
+  for (let rb = 0; rb < H; rb += B) {
+    const re = Math.min(H, rb + B);
+    for (let cb = 0; cb < W; cb += B) {
+      const ce = Math.min(W, cb + B);
+      // Skip blocks that lie wholly in the north–south octants.
+      const dcMax = Math.max(Math.abs(cb - c0), Math.abs(ce - 1 - c0));
+      const drMin = rb <= r0 && r0 < re ? 0 : Math.min(Math.abs(rb - r0), Math.abs(re - 1 - r0));
+      if (dcMax <= drMin) continue;
+      for (let r = rb; r < re; r++) {
+        const dr = r < r0 ? r0 - r : r - r0;
+        const base = r * W;
+        for (let c = cb; c < ce; c++) {
+          const dc = c < c0 ? c0 - c : c - c0;
+          if (dc > dr) hidden[base + c] = byColumn[c * H + r] as number;
+        }
+      }
+    }
+  }
 }
 
 function validate(terrain: TerrainRaster, post: LookoutPost, k: number, R: number, maxDistance: number): void {
@@ -204,27 +248,6 @@ function validate(terrain: TerrainRaster, post: LookoutPost, k: number, R: numbe
   if (!(maxDistance > 0)) {
     throw new TerrainInputError('invalid-condition', `Max distance must be > 0 m, got ${maxDistance}.`);
   }
-}
-
-/** A copy of the heights with nodata set to NEVER_BLOCKS, or the input itself when it has none. */
-function withoutNodata(source: Float32Array, nodata: number | null): Float32Array {
-  const n = source.length;
-  const marker = nodata ?? NaN;
-  let first = -1;
-  for (let i = 0; i < n; i++) {
-    const v = source[i] as number;
-    if (v !== v || v === marker) {
-      first = i;
-      break;
-    }
-  }
-  if (first < 0) return source;
-  const copy = new Float32Array(source);
-  for (let i = first; i < n; i++) {
-    const v = copy[i] as number;
-    if (v !== v || v === marker) copy[i] = NEVER_BLOCKS;
-  }
-  return copy;
 }
 
 function maskUncomputed(

@@ -3,7 +3,7 @@
  * Measurement only (no assertions); the bench runner calls
  * `benchSightline()` and reports the numbers. Speed is never a test.
  */
-import { evaluateSightline } from '@/server/domain/sightline/evaluate-sightline';
+import { evaluateSightline } from '@/shared/sightline/evaluate-sightline';
 import type { SightlineRequest } from '@/shared/schemas/sightline';
 import { hiddenHeight, REFRACTION_PRESET_IDS } from '@/shared/sightline';
 

@@ -1,4 +1,4 @@
-import { evaluateSightline } from '@/server/domain/sightline/evaluate-sightline';
+import { evaluateSightline } from '@/shared/sightline/evaluate-sightline';
 import { SightlineResponseSchema, type SightlineRequest, type SightlineResult } from '@/shared/schemas/sightline';
 import { geographicRange, hiddenHeight, horizonDistance, refractionPreset } from '@/shared/sightline';
 import { convertLength } from '@/shared/units';

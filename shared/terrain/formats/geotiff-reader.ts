@@ -1,0 +1,166 @@
+import { fromArrayBuffer } from 'geotiff';
+import {
+  MAX_TERRAIN_CELLS,
+  REPROJECT_ADVICE,
+  TerrainFormatError,
+} from '@/shared/terrain/formats/terrain-format-error';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+
+/**
+ * Decodes a GeoTIFF (classic or BigTIFF; any compression and sample type the
+ * `geotiff` package decodes) into a terrain raster: band 1 of the first image,
+ * converted to Float32; cell size and origin from ModelPixelScale /
+ * ModelTiepoint (north-up grids only; PixelIsPoint grids are shifted half a
+ * cell so the origin is the outer corner, as GDAL does); nodata from the
+ * GDAL_NODATA tag; CRS from the GeoKeys (ProjectedCSTypeGeoKey → EPSG code,
+ * or null for a user-defined projected CRS).
+ *
+ * Source: OGC GeoTIFF 1.1 standard (GTModelTypeGeoKey 1 = projected,
+ * 2 = geographic; GTRasterTypeGeoKey 1 = PixelIsArea, 2 = PixelIsPoint;
+ * ProjectedCSTypeGeoKey 3072); TIFF Revision 6.0 strip/tile fields;
+ * GDAL GTiff driver documentation (GDAL_NODATA).
+ *
+ * @param bytes the whole file
+ * @returns a promise of a new terrain raster (heights in the file's units, metres expected)
+ * @throws TerrainFormatError (as a rejected promise) `wrong-type` (not a TIFF),
+ *   `truncated`, `corrupt`, `geographic-crs` (degrees — reproject to UTM),
+ *   `oversize` (more than {@link MAX_TERRAIN_CELLS} cells), `unsupported`
+ *   (no georeferencing, rotated or non-square or south-up grids)
+ * @example
+ * const terrain = await readGeoTiff(await fs.promises.readFile('dem.tif').then((b) => b.buffer));
+ */
+export async function readGeoTiff(bytes: ArrayBuffer): Promise<TerrainRaster> {
+  if (bytes.byteLength < 8) {
+    throw new TerrainFormatError(bytes.byteLength === 0 ? 'truncated' : 'wrong-type', 'The file is too short to be a TIFF.');
+  }
+  const head = new Uint8Array(bytes, 0, 4);
+  const little = head[0] === 0x49 && head[1] === 0x49;
+  const big = head[0] === 0x4d && head[1] === 0x4d;
+  const magic = little ? (head[2] as number) | ((head[3] as number) << 8) : ((head[2] as number) << 8) | (head[3] as number);
+  if (!(little || big) || (magic !== 42 && magic !== 43)) {
+    throw new TerrainFormatError('wrong-type', 'Not a TIFF file (it does not start with the TIFF byte-order mark II*/MM*).');
+  }
+
+  let image;
+  try {
+    const tiff = await fromArrayBuffer(bytes);
+    image = await tiff.getImage(0);
+  } catch (cause) {
+    throw new TerrainFormatError(
+      isOutOfRange(cause) ? 'truncated' : 'corrupt',
+      `The TIFF structure cannot be read: ${message(cause)}`,
+      { cause },
+    );
+  }
+  const width = image.getWidth();
+  const height = image.getHeight();
+  if (!(width >= 1 && height >= 1)) throw new TerrainFormatError('corrupt', `Bad image size ${width} × ${height}.`);
+  if (width * height > MAX_TERRAIN_CELLS) {
+    throw new TerrainFormatError(
+      'oversize',
+      `The GeoTIFF has ${width} × ${height} = ${width * height} cells; Kenning reads at most ${MAX_TERRAIN_CELLS} ` +
+        '(e.g. 10 000 × 10 000). Clip or resample it first (e.g. gdal_translate -srcwin / -tr).',
+    );
+  }
+
+  const directory = image.getFileDirectory() as Record<string, unknown>;
+  const offsets = (directory.StripOffsets ?? directory.TileOffsets) as ArrayLike<number> | undefined;
+  const counts = (directory.StripByteCounts ?? directory.TileByteCounts) as ArrayLike<number> | undefined;
+  if (!offsets || !counts || offsets.length !== counts.length) {
+    throw new TerrainFormatError('corrupt', 'The TIFF has no valid strip or tile table.');
+  }
+  for (let i = 0; i < offsets.length; i++) {
+    if ((offsets[i] as number) + (counts[i] as number) > bytes.byteLength) {
+      throw new TerrainFormatError(
+        'truncated',
+        `The file ends at byte ${bytes.byteLength} but image data runs to byte ${(offsets[i] as number) + (counts[i] as number)}.`,
+      );
+    }
+  }
+
+  const geoKeys = (image.getGeoKeys() ?? {}) as Record<string, unknown>;
+  const modelType = geoKeys.GTModelTypeGeoKey as number | undefined;
+  const projected = geoKeys.ProjectedCSTypeGeoKey as number | undefined;
+  const geographic = geoKeys.GeographicTypeGeoKey as number | undefined;
+  if (modelType === 2 || (modelType === undefined && geographic !== undefined && projected === undefined)) {
+    throw new TerrainFormatError(
+      'geographic-crs',
+      `The GeoTIFF is in a geographic CRS${geographic ? ` (EPSG:${geographic})` : ''}, in degrees. ${REPROJECT_ADVICE}`,
+    );
+  }
+  if (modelType === 3) {
+    throw new TerrainFormatError('unsupported', `A geocentric CRS is not a terrain grid. ${REPROJECT_ADVICE}`);
+  }
+
+  if (directory.ModelTransformation) {
+    const t = directory.ModelTransformation as ArrayLike<number>;
+    if (Math.abs(t[1] as number) > 1e-12 || Math.abs(t[4] as number) > 1e-12) {
+      throw new TerrainFormatError('unsupported', 'Rotated grids are not supported; warp the terrain to a north-up grid first.');
+    }
+  }
+  let origin: number[];
+  let resolution: number[];
+  try {
+    origin = image.getOrigin();
+    resolution = image.getResolution();
+  } catch (cause) {
+    throw new TerrainFormatError('unsupported', 'The TIFF has no georeferencing (no tie point and pixel scale).', { cause });
+  }
+  const xRes = resolution[0] as number;
+  const yRes = resolution[1] as number;
+  if (!(xRes > 0) || !(yRes < 0)) {
+    throw new TerrainFormatError('unsupported', `Only north-up grids are supported (pixel size ${xRes}, ${yRes}).`);
+  }
+  if (Math.abs(xRes + yRes) > 1e-9 * xRes) {
+    throw new TerrainFormatError('unsupported', `Cells must be square; this grid has ${xRes} × ${-yRes}.`);
+  }
+  const cellSize = xRes;
+  let left = origin[0] as number;
+  let top = origin[1] as number;
+  if (geoKeys.GTRasterTypeGeoKey === 2) {
+    left -= cellSize / 2;
+    top += cellSize / 2;
+  }
+  const yll = top - height * cellSize;
+  if (modelType === undefined && projected === undefined && cellSize < 0.01 && Math.abs(left) <= 360 && Math.abs(top) <= 90) {
+    throw new TerrainFormatError(
+      'geographic-crs',
+      `Pixel size ${cellSize} and origin (${left}, ${top}) look like degrees. ${REPROJECT_ADVICE}`,
+    );
+  }
+
+  let band: ArrayLike<number>;
+  try {
+    const rasters = await image.readRasters({ samples: [0] });
+    band = (rasters as unknown as ArrayLike<number>[])[0] as ArrayLike<number>;
+  } catch (cause) {
+    throw new TerrainFormatError(isOutOfRange(cause) ? 'truncated' : 'corrupt', `Image data cannot be decoded: ${message(cause)}`, {
+      cause,
+    });
+  }
+  if (!band || band.length !== width * height) {
+    throw new TerrainFormatError('corrupt', 'Decoded image data does not match the image size.');
+  }
+  const heights = band instanceof Float32Array ? band : Float32Array.from(band);
+  const nodataValue = image.getGDALNoData();
+  const nodata = nodataValue === null || Number.isNaN(nodataValue) ? null : nodataValue;
+  const epsg = projected !== undefined && projected !== 32767 ? projected : null;
+  return {
+    heights,
+    width,
+    height,
+    cellSize,
+    xll: left,
+    yll,
+    nodata,
+    crs: modelType === undefined && projected === undefined ? null : { epsg, wkt: null },
+  };
+}
+
+function message(cause: unknown): string {
+  return cause instanceof Error ? cause.message : String(cause);
+}
+
+function isOutOfRange(cause: unknown): boolean {
+  return cause instanceof RangeError || /out of bounds|outside the bounds|offset is outside|beyond/i.test(message(cause));
+}

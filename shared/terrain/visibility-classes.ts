@@ -1,0 +1,90 @@
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
+import type { HiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
+import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+
+/** Class codes stored in {@link VisibilityClassRaster.classes}. */
+export const VISIBILITY_CLASS = {
+  /** Not computed: nodata terrain or beyond the range limit. */
+  none: 0,
+  /** Seen area: the ground itself is seen. */
+  seen: 1,
+  /** Only a target of the given height shows (e.g. the top of a smoke column). */
+  targetOnly: 2,
+  /** Blind: not even the top of the target is seen. */
+  blind: 3,
+} as const;
+
+/** One of the {@link VISIBILITY_CLASS} codes. */
+export type VisibilityClass = (typeof VISIBILITY_CLASS)[keyof typeof VISIBILITY_CLASS];
+
+/** Visibility classes for one post and one target height, same grid as the hidden heights. */
+export interface VisibilityClassRaster extends RasterGrid {
+  /** One {@link VISIBILITY_CLASS} code per cell, row 0 = north. */
+  readonly classes: Uint8Array;
+  /** Target height the classes were made for, metres above ground. */
+  readonly targetHeight: number;
+}
+
+/** Settings of {@link classifyVisibility}. */
+export interface ClassifyOptions {
+  /**
+   * Hidden heights up to this many metres still count as "ground seen", to
+   * absorb floating-point rounding; default 0.001 m (1 mm).
+   */
+  readonly groundTolerance?: number;
+}
+
+/**
+ * Sorts the cells of a hidden-height raster into seen (ground visible),
+ * target-only (only a target of `targetHeight` metres shows — a smoke column
+ * of 30–100 m, a mast) and blind, from the rule
+ *
+ *   seen        if hidden ≤ tolerance
+ *   target-only if tolerance < hidden ≤ targetHeight + tolerance
+ *   blind       otherwise; `none` where hidden is NaN.
+ *
+ * Source: definition of the hidden height (the height a target must reach to
+ * be seen) — common practice, no source.
+ *
+ * @param hidden hidden heights, metres (not modified)
+ * @param targetHeight target height above ground, metres (≥ 0)
+ * @param options ground tolerance, metres; default 0.001
+ * @returns a new class raster on the same grid
+ * @throws TerrainInputError `invalid-option` for a negative or non-finite target height
+ * @example
+ * const classes = classifyVisibility(hidden, 50);
+ * classes.classes[i] === VISIBILITY_CLASS.targetOnly; // a 50 m smoke column shows, the ground does not
+ */
+export function classifyVisibility(
+  hidden: HiddenHeightRaster,
+  targetHeight: number,
+  options: ClassifyOptions = {},
+): VisibilityClassRaster {
+  const tolerance = options.groundTolerance ?? 0.001;
+  if (!Number.isFinite(targetHeight) || targetHeight < 0) {
+    throw new TerrainInputError('invalid-option', `Target height must be ≥ 0 m, got ${targetHeight}.`);
+  }
+  if (!Number.isFinite(tolerance) || tolerance < 0) {
+    throw new TerrainInputError('invalid-option', `Ground tolerance must be ≥ 0 m, got ${tolerance}.`);
+  }
+  const values = hidden.hidden;
+  const classes = new Uint8Array(values.length);
+  const targetLimit = targetHeight + tolerance;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i] as number;
+    if (v !== v) classes[i] = VISIBILITY_CLASS.none;
+    else if (v <= tolerance) classes[i] = VISIBILITY_CLASS.seen;
+    else if (v <= targetLimit) classes[i] = VISIBILITY_CLASS.targetOnly;
+    else classes[i] = VISIBILITY_CLASS.blind;
+  }
+  return {
+    width: hidden.width,
+    height: hidden.height,
+    cellSize: hidden.cellSize,
+    xll: hidden.xll,
+    yll: hidden.yll,
+    crs: hidden.crs,
+    classes,
+    targetHeight,
+  };
+}
