@@ -7,6 +7,8 @@ const config = getDefaultConfig(__dirname);
 
 config.cacheStores = [new FileStore({ root: path.join(__dirname, '.kenning', 'cache', 'metro') })];
 // The server, tests and local data are never part of the app bundle.
-config.resolver.blockList = [/\/\.kenning\/.*/, /\/server\/.*/, /\/tests\/.*/, /\/dist\/.*/];
+const escape = (s) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+const own = (folder) => new RegExp(`^${escape(path.join(__dirname, folder))}\\/.*`);
+config.resolver.blockList = ['.kenning', 'server', 'tests', 'dist'].map(own);
 
 module.exports = config;

@@ -19,6 +19,6 @@ const tones = {
 
 /** All text in Kenning goes through this, so Barlow and the type scale apply everywhere. */
 export function AppText({ variant = 'body', tone = 'ink', style, ...rest }: AppTextProps) {
-  const role = variant === 'display' || variant === 'title' ? 'header' : undefined;
+  const role = variant === 'display' || variant === 'title' ? 'heading' : undefined;
   return <Text role={role} style={[type[variant], { color: tones[tone] }, style]} {...rest} />;
 }

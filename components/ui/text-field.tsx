@@ -76,6 +76,7 @@ const styles = StyleSheet.create({
   invalid: { borderColor: colors.danger },
   input: {
     flex: 1,
+    minWidth: 0,
     minHeight: TOUCH,
     paddingHorizontal: space.md,
     fontFamily: fonts.regular,
