@@ -1,0 +1,168 @@
+import type { RefractionCondition, SightlineRequest } from '@/shared/schemas/sightline';
+import { SightlineRequestSchema } from '@/shared/schemas/sightline';
+import type { RefractionPresetId } from '@/shared/sightline/refraction-presets';
+import { convertLength, type LengthUnit } from '@/shared/units/length';
+
+/** Unit systems the quick check offers for heights and distances. */
+export const UNIT_SYSTEMS = {
+  metric: { height: 'm', distance: 'km', label: 'm · km' },
+  nautical: { height: 'ft', distance: 'nmi', label: 'ft · nmi' },
+  imperial: { height: 'ft', distance: 'mi', label: 'ft · mi' },
+} as const satisfies Record<string, { height: LengthUnit; distance: LengthUnit; label: string }>;
+export type UnitSystem = keyof typeof UNIT_SYSTEMS;
+
+/** What the person typed: text, in the chosen units. */
+export interface CheckFormValues {
+  units: UnitSystem;
+  observerHeight: string;
+  targetHeight: string;
+  distance: string;
+  requiredVisible: string;
+  visibility: string;
+  visibilityKind: 'mor-5pct' | 'meteorological-range-2pct';
+  targetSize: string;
+  resolutionArcmin: string;
+  presets: RefractionPresetId[];
+  customK: string;
+  weather: { enabled: boolean; pressureHpa: string; temperatureC: string; lapseRateKPerM: string };
+}
+
+export const DEFAULT_FORM: CheckFormValues = {
+  units: 'metric',
+  observerHeight: '30',
+  targetHeight: '10',
+  distance: '25',
+  requiredVisible: '0',
+  visibility: '20',
+  visibilityKind: 'mor-5pct',
+  targetSize: '3',
+  resolutionArcmin: '1',
+  presets: ['no-refraction', 'standard-optical', 'radio-four-thirds'],
+  customK: '',
+  weather: { enabled: false, pressureHpa: '1013.25', temperatureC: '15', lapseRateKPerM: '0.0065' },
+};
+
+/** Which form field each request path belongs to, so server/schema errors land under the right input. */
+const FIELD_OF: Record<string, keyof CheckFormValues | 'weather'> = {
+  observerHeightM: 'observerHeight',
+  targetHeightM: 'targetHeight',
+  distanceM: 'distance',
+  requiredVisibleM: 'requiredVisible',
+  visibilityM: 'visibility',
+  targetSizeM: 'targetSize',
+  resolutionArcmin: 'resolutionArcmin',
+  conditions: 'presets',
+};
+
+export type CheckFormErrors = Partial<Record<keyof CheckFormValues | 'weather', string>>;
+
+/** A label per condition, in request order, for the results table. */
+export interface ConditionLabel {
+  key: string;
+  label: string;
+}
+
+const number = (text: string): number | undefined | null => {
+  const t = text.trim().replace(',', '.');
+  if (t === '') return undefined;
+  const n = Number(t);
+  return Number.isFinite(n) ? n : null;
+};
+
+/**
+ * Turns the form into a sightline request in metres, or field errors. The
+ * request is checked with the same schema the server uses.
+ */
+export function buildRequest(
+  v: CheckFormValues,
+  presetLabel: (id: RefractionPresetId) => string,
+): { request: SightlineRequest; labels: ConditionLabel[] } | { errors: CheckFormErrors } {
+  const errors: CheckFormErrors = {};
+  const { height: hu, distance: du } = UNIT_SYSTEMS[v.units];
+  const read = (field: keyof CheckFormValues, text: string, unit: LengthUnit | null, required = false) => {
+    const n = number(text);
+    if (n === null) errors[field] = 'Enter a number.';
+    else if (n === undefined && required) errors[field] = 'Required.';
+    else if (n !== undefined) return unit ? convertLength(n, unit) : n;
+    return undefined;
+  };
+  const observerHeightM = read('observerHeight', v.observerHeight, hu, true);
+  const targetHeightM = read('targetHeight', v.targetHeight, hu);
+  const distanceM = read('distance', v.distance, du);
+  const requiredVisibleM = read('requiredVisible', v.requiredVisible, hu);
+  const visibilityM = read('visibility', v.visibility, du);
+  const targetSizeM = read('targetSize', v.targetSize, hu);
+  const resolutionArcmin = read('resolutionArcmin', v.resolutionArcmin, null);
+
+  const conditions: RefractionCondition[] = [];
+  const labels: ConditionLabel[] = [];
+  for (const id of v.presets) {
+    conditions.push({ preset: id });
+    labels.push({ key: id, label: presetLabel(id) });
+  }
+  const k = number(v.customK);
+  if (k === null) errors.customK = 'Enter a number.';
+  else if (k !== undefined) {
+    conditions.push({ k });
+    labels.push({ key: 'custom-k', label: `Your k = ${k}` });
+  }
+  if (v.weather.enabled) {
+    const p = number(v.weather.pressureHpa);
+    const t = number(v.weather.temperatureC);
+    const g = number(v.weather.lapseRateKPerM);
+    if (p == null || t == null || g == null) errors.weather = 'Give pressure, temperature and lapse rate as numbers.';
+    else {
+      conditions.push({ pressureHpa: p, temperatureC: t, lapseRateKPerM: g });
+      labels.push({ key: 'weather', label: `Weather: ${p} hPa, ${t} °C, Γ ${g} K/m` });
+    }
+  }
+  if (Object.keys(errors).length) return { errors };
+
+  const candidate = {
+    observerHeightM,
+    targetHeightM,
+    distanceM,
+    requiredVisibleM: targetHeightM === undefined ? undefined : requiredVisibleM,
+    visibilityM,
+    visibilityKind: visibilityM === undefined ? undefined : v.visibilityKind,
+    targetSizeM,
+    resolutionArcmin,
+    conditions,
+  };
+  const parsed = SightlineRequestSchema.safeParse(candidate);
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) {
+      const [head, index, sub] = issue.path.map(String);
+      let field: keyof CheckFormValues | 'weather' = FIELD_OF[head ?? ''] ?? 'presets';
+      if (head === 'conditions' && index !== undefined) {
+        const key = labels[Number(index)]?.key;
+        field = key === 'custom-k' ? 'customK' : key === 'weather' ? 'weather' : 'presets';
+      }
+      errors[field] ??= sub ? `${issue.message}` : issue.message;
+    }
+    return { errors };
+  }
+  return { request: parsed.data, labels };
+}
+
+/** Switches unit system, converting what was typed so the question stays the same. */
+export function switchUnits(v: CheckFormValues, units: UnitSystem): CheckFormValues {
+  const from = UNIT_SYSTEMS[v.units];
+  const to = UNIT_SYSTEMS[units];
+  const conv = (text: string, a: LengthUnit, b: LengthUnit) => {
+    const n = number(text);
+    if (n == null || a === b) return text;
+    const c = convertLength(n, a, b);
+    return String(Number(c.toPrecision(6)));
+  };
+  return {
+    ...v,
+    units,
+    observerHeight: conv(v.observerHeight, from.height, to.height),
+    targetHeight: conv(v.targetHeight, from.height, to.height),
+    requiredVisible: conv(v.requiredVisible, from.height, to.height),
+    targetSize: conv(v.targetSize, from.height, to.height),
+    distance: conv(v.distance, from.distance, to.distance),
+    visibility: conv(v.visibility, from.distance, to.distance),
+  };
+}

@@ -1,0 +1,25 @@
+import { convertLength, type LengthUnit } from '@/shared/units/length';
+
+const digits = (v: number) => (Math.abs(v) >= 100 ? 0 : Math.abs(v) >= 10 ? 1 : 2);
+
+/** A length in metres shown in `unit`, or an em dash for a quantity that does not exist. */
+export function formatLength(metres: number | null, unit: LengthUnit): string {
+  if (metres === null) return '—';
+  const v = convertLength(metres, 'm', unit);
+  return `${v.toLocaleString('en', { maximumFractionDigits: digits(v), minimumFractionDigits: 0 })} ${unit}`;
+}
+
+export function formatAngle(deg: number | null): string {
+  if (deg === null) return '—';
+  const arcmin = deg * 60;
+  return Math.abs(arcmin) < 60 ? `${arcmin.toFixed(2)}′` : `${deg.toFixed(3)}°`;
+}
+
+export const LIMIT_LABELS = { horizon: 'horizon', visibility: 'visibility', 'angular-size': 'angular size' } as const;
+
+export const REGIME_LABELS = {
+  'sub-refraction': 'sub-refraction',
+  standard: 'standard',
+  'super-refraction': 'super-refraction',
+  ducting: 'ducting',
+} as const;

@@ -1,0 +1,193 @@
+import { useEffect, useMemo, useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import type { SightlineRequest } from '@/shared/schemas/sightline';
+import { refractionPreset } from '@/shared/sightline/refraction-presets';
+import { useSightline } from '@/components/data/sightline';
+import { AppText } from '@/components/ui/app-text';
+import { Card } from '@/components/ui/card';
+import { OfflineIcon } from '@/components/ui/icons';
+import { Screen } from '@/components/ui/screen';
+import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { TextField } from '@/components/ui/text-field';
+import { colors, space } from '@/components/ui/theme';
+import { useLayout } from '@/components/ui/use-layout';
+import { buildRequest, DEFAULT_FORM, switchUnits, UNIT_SYSTEMS, type CheckFormValues, type ConditionLabel, type UnitSystem } from './check-form-model';
+import { CautionsPanel } from './cautions-panel';
+import { conditionStyle } from './condition-colors';
+import { ConditionPicker } from './condition-picker';
+import { RefractionBandPanel } from './refraction-band-panel';
+import { ResultsTable } from './results-table';
+import { SideViewDiagram } from './side-view-diagram';
+import { Sightline3d } from './sightline-3d';
+import { Segmented } from './unit-switch';
+
+const presetLabel = (id: Parameters<typeof refractionPreset>[0]) => refractionPreset(id).label;
+
+/** Settles typing before asking the server. */
+function useSettled<T>(value: T, ms = 250): T {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    const t = setTimeout(() => setSettled(value), ms);
+    return () => clearTimeout(t);
+  }, [value, ms]);
+  return settled;
+}
+
+export function QuickCheck() {
+  const { wide } = useLayout();
+  const [form, setForm] = useState<CheckFormValues>(DEFAULT_FORM);
+  const built = useMemo(() => buildRequest(form, presetLabel), [form]);
+  const errors = 'errors' in built ? built.errors : {};
+  const valid = 'request' in built ? built : null;
+  const settled = useSettled(valid);
+  const evaluation = useSightline(settled?.request ?? null);
+  const units = UNIT_SYSTEMS[form.units];
+  const set = <K extends keyof CheckFormValues>(key: K) => (value: CheckFormValues[K]) => setForm((f) => ({ ...f, [key]: value }));
+
+  const formPane = (
+    <Card style={{ gap: space.lg }}>
+      <Segmented<UnitSystem>
+        label="Units"
+        value={form.units}
+        onChange={(u) => setForm((f) => switchUnits(f, u))}
+        options={Object.entries(UNIT_SYSTEMS).map(([value, u]) => ({ value: value as UnitSystem, label: u.label }))}
+      />
+      <TextField label="Height of eye" unit={units.height} inputMode="decimal" value={form.observerHeight} onChangeText={set('observerHeight')} error={errors.observerHeight} hint="Above the sea or the plain, including any structure." />
+      <View style={styles.pair}>
+        <View style={styles.half}>
+          <TextField label="Target height" unit={units.height} inputMode="decimal" value={form.targetHeight} onChangeText={set('targetHeight')} error={errors.targetHeight} />
+        </View>
+        <View style={styles.half}>
+          <TextField label="Distance" unit={units.distance} inputMode="decimal" value={form.distance} onChangeText={set('distance')} error={errors.distance} />
+        </View>
+      </View>
+      <TextField label="Part that must show" unit={units.height} inputMode="decimal" value={form.requiredVisible} onChangeText={set('requiredVisible')} error={errors.requiredVisible} hint="e.g. the top 30 m of a smoke column; 0 = any part." />
+      <View style={styles.pair}>
+        <View style={styles.half}>
+          <TextField label="Visibility" unit={units.distance} inputMode="decimal" value={form.visibility} onChangeText={set('visibility')} error={errors.visibility} hint="Leave empty if unknown." />
+        </View>
+        <View style={styles.half}>
+          <TextField label="Target size" unit={units.height} inputMode="decimal" value={form.targetSize} onChangeText={set('targetSize')} error={errors.targetSize} hint="Its width, for the angular limit." />
+        </View>
+      </View>
+      <Segmented
+        label="Visibility is"
+        value={form.visibilityKind}
+        onChange={set('visibilityKind')}
+        options={[
+          { value: 'mor-5pct', label: 'MOR (5 %)' },
+          { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
+        ]}
+      />
+      <TextField label="Eye must resolve" unit="arcmin" inputMode="decimal" value={form.resolutionArcmin} onChangeText={set('resolutionArcmin')} error={errors.resolutionArcmin} hint="1′ is normal acuity; lookouts searching need several." />
+      <View style={{ gap: space.sm }}>
+        <AppText variant="label">Refraction conditions</AppText>
+        <ConditionPicker value={form.presets} onChange={set('presets')} />
+        {errors.presets ? (
+          <AppText variant="small" tone="danger" role="alert">
+            {errors.presets}
+          </AppText>
+        ) : null}
+        <TextField label="Your own k (optional)" inputMode="decimal" value={form.customK} onChangeText={set('customK')} error={errors.customK} hint="Refraction coefficient; 0.13 is standard optical." />
+      </View>
+    </Card>
+  );
+
+  const answer = (() => {
+    if (!valid) return <Notice tone="danger" title="Check the fields marked in red">{null}</Notice>;
+    if (evaluation.isPending) return <LoadingState label="Computing…" />;
+    if (evaluation.isError) return <ErrorState error={evaluation.error} onRetry={() => void evaluation.refetch()} />;
+    const data = evaluation.data;
+    const shown = settled ?? valid;
+    return (
+      <Answer
+        request={shown.request}
+        labels={shown.labels}
+        data={data}
+        units={units}
+      />
+    );
+  })();
+
+  return (
+    <Screen title="Quick check" subtitle="How far one height of eye sees, and how much of a target the earth hides, under each refraction condition." maxWidth={1280}>
+      {wide ? (
+        <View style={{ flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' }}>
+          <View style={{ width: 380 }}>{formPane}</View>
+          <View style={{ flex: 1, gap: space.lg }}>{answer}</View>
+        </View>
+      ) : (
+        <View style={{ gap: space.lg }}>
+          {formPane}
+          {answer}
+        </View>
+      )}
+    </Screen>
+  );
+}
+
+function Answer({
+  request,
+  labels,
+  data,
+  units,
+}: {
+  request: SightlineRequest;
+  labels: ConditionLabel[];
+  data: NonNullable<ReturnType<typeof useSightline>['data']>;
+  units: (typeof UNIT_SYSTEMS)[UnitSystem];
+}) {
+  const warnings = data.results.flatMap((r, i) => r.warnings.map((w) => ({ ...w, label: labels[i]?.label ?? '' })));
+  return (
+    <View style={{ gap: space.lg }}>
+      <CautionsPanel cautions={data.cautions} />
+      {data.computedOn === 'device' ? (
+        <Notice tone="info" title="Offline">
+          <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center' }}>
+            <OfflineIcon color={colors.moss} size={20} />
+            <AppText variant="small">Kenning cannot reach its server, so this answer was computed on this device with the same formulas.</AppText>
+          </View>
+        </Notice>
+      ) : null}
+      <ResultsTable results={data.results} labels={labels} units={units} observerHeightM={request.observerHeightM} earthRadiusM={request.earthRadiusM} />
+      {warnings.length ? (
+        <Notice tone="caution" title="Notes on these results">
+          {warnings.map((w, i) => (
+            <AppText key={i} variant="small">
+              {w.label}: {w.message}
+            </AppText>
+          ))}
+        </Notice>
+      ) : null}
+      <Card>
+        <AppText variant="heading">Side view</AppText>
+        <SideViewDiagram
+          observerHeightM={request.observerHeightM}
+          targetHeightM={request.targetHeightM}
+          distanceM={request.distanceM}
+          earthRadiusM={request.earthRadiusM}
+          results={data.results}
+          labels={labels}
+          units={units}
+        />
+      </Card>
+      <RefractionBandPanel request={request} units={units} />
+      <Card>
+        <AppText variant="heading">3D view</AppText>
+        <Sightline3d
+          observerHeightM={request.observerHeightM}
+          targetHeightM={request.targetHeightM}
+          distanceM={request.distanceM}
+          earthRadiusM={request.earthRadiusM}
+          results={data.results}
+          colors={data.results.map((_, i) => conditionStyle(i).color)}
+        />
+      </Card>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  pair: { flexDirection: 'row', gap: space.md },
+  half: { flex: 1 },
+});

@@ -1,0 +1,73 @@
+import type { Browser } from 'playwright-core';
+import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { DEMO } from '@/tests/support/agents';
+import { SCREENSHOT_DIR } from '@/tests/support/browser';
+
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+});
+afterAll(() => close());
+
+// Geometric horizon of a 30 m eye on a 6 371 008.8 m sphere, R·acos(R/(R+h)) = 19.55 km.
+// Source: spherical geometry of the tangent line, common practice, no source.
+const R = 6371008.8;
+const geometricHorizonKm = (R * Math.acos(R / (R + 30))) / 1000;
+
+describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s viewport', (viewport) => {
+  it('answers, shows cautions, side view and 3D, flags bad input, and works offline', async () => {
+    const { context, page } = await newPage(browser, viewport);
+    const errors = watchErrors(page);
+    try {
+      await signIn(page, DEMO.observer);
+      await page.getByText('Your sites').first().waitFor();
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Quick check' }).click();
+      const table = page.getByRole('table', { name: 'Sightline results' });
+      await table.waitFor();
+      // Default conditions: no refraction, standard optical, 4/3 earth — one column each.
+      expect(await table.getByRole('columnheader').count()).toBe(4);
+      const horizonRow = table.getByRole('row').filter({ hasText: 'Horizon distance' });
+      expect(await horizonRow.textContent()).toContain(`${geometricHorizonKm.toFixed(1)} km`);
+      await page.getByText('Read before you rely on this').waitFor();
+      await page.getByText(/visibility is not detection|not necessarily detected/i).first().waitFor();
+      await shot(page, 'quick-check', viewport);
+      await table.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-table-${viewport}.png` });
+      const side = page.getByRole('img', { name: /Side view/ });
+      await side.scrollIntoViewIfNeeded();
+      await page.getByText(/Vertical scale exaggerated/).waitFor();
+      await side.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-side-view-${viewport}.png` });
+
+      // A negative height is refused under its field; the last answer stays.
+      const eye = page.getByLabel('Height of eye');
+      await eye.fill('-5');
+      await page.getByText('Observer height cannot be negative.').waitFor();
+      await page.getByText('Check the fields marked in red').waitFor();
+      await eye.fill('30');
+      await table.waitFor();
+
+      // Offline: the same core runs in the browser and says so.
+      await context.setOffline(true);
+      await eye.fill('45');
+      await page.getByText('Offline', { exact: true }).waitFor();
+      // 45 m, k = 0: R·acos(R/(R+45)) = 23.95 km (same source as above).
+      const offlineHorizon = ((R * Math.acos(R / (R + 45))) / 1000).toFixed(1);
+      expect(await table.getByRole('row').filter({ hasText: 'Horizon distance' }).textContent()).toContain(`${offlineHorizon} km`);
+      await shot(page, 'quick-check-offline', viewport);
+      await context.setOffline(false);
+
+      // 3D, loaded on demand, drawn with WebGL (software renderer here).
+      await page.getByRole('button', { name: 'Show in 3D' }).click();
+      const view = page.getByLabel('3D sightline view');
+      await view.waitFor();
+      await view.locator('canvas').waitFor();
+      await page.waitForTimeout(1500);
+      await view.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-3d-${viewport}.png` });
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
