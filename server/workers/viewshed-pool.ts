@@ -1,10 +1,7 @@
 import os from 'node:os';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import {
-  DEFAULT_EARTH_RADIUS,
-  DEFAULT_REFRACTION_COEFFICIENT,
-} from '@/shared/terrain/curvature-drop';
+import { DEFAULT_EARTH_RADIUS, DEFAULT_REFRACTION_COEFFICIENT } from '@/shared/terrain/curvature-drop';
 import type { HiddenHeightRaster, LookoutPost, SightConditions } from '@/shared/terrain/hidden-height-raster';
 import { TerrainInputError, type TerrainInputErrorCode } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';

@@ -11,6 +11,7 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { computeHiddenHeightRaster, type LookoutPost, type SightConditions } from '@/shared/terrain/hidden-height-raster';
+import { prepareSweepTerrain, type SweepTerrain } from '@/shared/terrain/sweep-terrain';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 
 interface TerrainMessage extends TerrainRaster {
@@ -27,12 +28,13 @@ interface JobMessage {
 
 const port = parentPort;
 if (!port) throw new Error('viewshed-worker.ts must run in a worker thread.');
-const terrains = new Map<number, TerrainRaster>();
+const terrains = new Map<number, { terrain: TerrainRaster; sweep: SweepTerrain }>();
 
 port.on('message', (message: TerrainMessage | JobMessage | { type: 'forget'; terrainId: number }) => {
   if (message.type === 'terrain') {
     const { type: _type, terrainId, ...terrain } = message;
-    terrains.set(terrainId, terrain);
+    // The sweep layout (a column-major copy) is made once per terrain and worker.
+    terrains.set(terrainId, { terrain, sweep: prepareSweepTerrain(terrain) });
     return;
   }
   if (message.type === 'forget') {
@@ -41,9 +43,9 @@ port.on('message', (message: TerrainMessage | JobMessage | { type: 'forget'; ter
   }
   const started = performance.now();
   try {
-    const terrain = terrains.get(message.terrainId);
-    if (!terrain) throw new Error(`Terrain ${message.terrainId} was not sent to this worker.`);
-    const result = computeHiddenHeightRaster(terrain, message.post, message.conditions);
+    const entry = terrains.get(message.terrainId);
+    if (!entry) throw new Error(`Terrain ${message.terrainId} was not sent to this worker.`);
+    const result = computeHiddenHeightRaster(entry.terrain, message.post, message.conditions, entry.sweep);
     port.postMessage(
       {
         type: 'result',

@@ -126,60 +126,23 @@ export function computeHiddenHeightRaster(
   const reciprocal = new Float64Array(maxSpan);
   for (let i = 1; i < maxSpan; i++) reciprocal[i] = 1 / i;
 
-  // North–south octants sweep rows of the row-major heights ...
   const hidden = new Float32Array(W * H);
+  const sweepArgs = { eye, dropPerCell2, rangeCells, prevObstacle, curObstacle, reciprocal };
   const obs = r0 * W + c0;
-  const rowOctants: Array<[number, number, number, number]> = [
-    [W, 1, H - 1 - r0, W - 1 - c0],
-    [W, -1, H - 1 - r0, c0],
-    [-W, 1, r0, W - 1 - c0],
-    [-W, -1, r0, c0],
-  ];
-  for (const [stepMajor, stepMinor, iMax, jMax] of rowOctants) {
-    sweepOctant(
-      sweep.rowMajor,
-      hidden,
-      obs,
-      stepMajor,
-      stepMinor,
-      Math.min(iMax, iLimit),
-      jMax,
-      eye,
-      dropPerCell2,
-      rangeCells,
-      prevObstacle,
-      curObstacle,
-      reciprocal,
-    );
+  // North–south octants sweep the rows of the row-major heights; east–west
+  // octants sweep the columns of the column-major copy (reading contiguous
+  // memory either way) and write the result in place.
+  for (const sR of [1, -1]) {
+    for (const sC of [1, -1]) {
+      const iMax = Math.min(sR > 0 ? H - 1 - r0 : r0, iLimit);
+      const jMax = sC > 0 ? W - 1 - c0 : c0;
+      sweepOctant(sweep.rowMajor, obs, sR * W, sC, iMax, jMax, sweepArgs, hidden, obs, sR * W, sC);
+      const iMaxT = Math.min(sC > 0 ? W - 1 - c0 : c0, iLimit);
+      const jMaxT = sR > 0 ? H - 1 - r0 : r0;
+      sweepOctant(sweep.columnMajor, c0 * H + r0, sC * H, sR, iMaxT, jMaxT, sweepArgs, hidden, obs, sC, sR * W);
+    }
   }
-  // ... east–west octants sweep columns of the column-major copy.
-  const hiddenByColumn = new Float32Array(W * H);
-  const obsT = c0 * H + r0;
-  const columnOctants: Array<[number, number, number, number]> = [
-    [H, 1, W - 1 - c0, H - 1 - r0],
-    [H, -1, W - 1 - c0, r0],
-    [-H, 1, c0, H - 1 - r0],
-    [-H, -1, c0, r0],
-  ];
-  for (const [stepMajor, stepMinor, iMax, jMax] of columnOctants) {
-    sweepOctant(
-      sweep.columnMajor,
-      hiddenByColumn,
-      obsT,
-      stepMajor,
-      stepMinor,
-      Math.min(iMax, iLimit),
-      jMax,
-      eye,
-      dropPerCell2,
-      rangeCells,
-      prevObstacle,
-      curObstacle,
-      reciprocal,
-    );
-  }
-  mergeEastWest(hidden, hiddenByColumn, W, H, c0, r0);
-  hidden[obs] = 0;
+  hidden[r0 * W + c0] = 0;
   if (sweep.hasNodata || Number.isFinite(rangeCells)) {
     maskUncomputed(hidden, terrain.heights, nodata, W, H, c0, r0, rangeCells);
   }
@@ -198,29 +161,6 @@ export function computeHiddenHeightRaster(
     earthRadius: R,
     maxDistance,
   };
-}
-
-/** Copies the cells with |Δcol| > |Δrow| (swept column-major) into the row-major result, in cache-sized blocks. */
-function mergeEastWest(hidden: Float32Array, byColumn: Float32Array, W: number, H: number, c0: number, r0: number): void {
-  const B = 64;
-  for (let rb = 0; rb < H; rb += B) {
-    const re = Math.min(H, rb + B);
-    for (let cb = 0; cb < W; cb += B) {
-      const ce = Math.min(W, cb + B);
-      // Skip blocks that lie wholly in the north–south octants.
-      const dcMax = Math.max(Math.abs(cb - c0), Math.abs(ce - 1 - c0));
-      const drMin = rb <= r0 && r0 < re ? 0 : Math.min(Math.abs(rb - r0), Math.abs(re - 1 - r0));
-      if (dcMax <= drMin) continue;
-      for (let r = rb; r < re; r++) {
-        const dr = r < r0 ? r0 - r : r - r0;
-        const base = r * W;
-        for (let c = cb; c < ce; c++) {
-          const dc = c < c0 ? c0 - c : c - c0;
-          if (dc > dr) hidden[base + c] = byColumn[c * H + r] as number;
-        }
-      }
-    }
-  }
 }
 
 function validate(terrain: TerrainRaster, post: LookoutPost, k: number, R: number, maxDistance: number): void {
@@ -278,31 +218,40 @@ function maskUncomputed(
   }
 }
 
+interface SweepArgs {
+  readonly eye: number;
+  readonly dropPerCell2: number;
+  readonly rangeCells: number;
+  readonly prevObstacle: Int32Array;
+  readonly curObstacle: Int32Array;
+  readonly reciprocal: Float64Array;
+}
+
 /**
  * One octant: cells (i, j) with 0 ≤ j ≤ i, i along the major axis, j along
  * the minor axis, index = obs + i·stepMajor + j·stepMinor. Heights are in
  * metres; distances in cells; `dropPerCell2` turns squared cell distance into
  * the curvature drop. Sight-line slopes are measured per major-axis cell,
- * which along one sight line is proportional to the true slope.
+ * which along one sight line is proportional to the true slope. The hidden
+ * height of cell (i, j) goes to `out[outObs + i·outMajor + j·outMinor]`.
  */
 function sweepOctant(
   h: Float32Array,
-  out: Float32Array,
   obs: number,
   stepMajor: number,
   stepMinor: number,
   iMax: number,
   jMax: number,
-  eye: number,
-  dropPerCell2: number,
-  rangeCells: number,
-  prevObstacleIn: Int32Array,
-  curObstacleIn: Int32Array,
-  reciprocal: Float64Array,
+  args: SweepArgs,
+  out: Float32Array,
+  outObs: number,
+  outMajor: number,
+  outMinor: number,
 ): void {
+  const { eye, dropPerCell2, rangeCells, reciprocal } = args;
   if (iMax < 1) return;
-  let prev = prevObstacleIn;
-  let cur = curObstacleIn;
+  let prev = args.prevObstacle;
+  let cur = args.curObstacle;
   const range2 = rangeCells * rangeCells;
   const limited = Number.isFinite(rangeCells);
   const twoDrop = 2 * dropPerCell2;
@@ -310,7 +259,7 @@ function sweepOctant(
   // Column 1: nothing lies between the eye and these cells.
   const j1 = Math.min(1, jMax);
   for (let j = 0; j <= j1; j++) {
-    out[obs + stepMajor + j * stepMinor] = 0;
+    out[outObs + outMajor + j * outMinor] = 0;
     prev[j] = 1;
   }
   let prevEnd = j1;
@@ -329,6 +278,7 @@ function sweepOctant(
     const colCur = obs + i * stepMajor;
     const dropCur = dropPerCell2 * i * i;
     const dropPrev = dropPerCell2 * iPrev * iPrev;
+    const outBase = outObs + i * outMajor;
     let zBelow = 0; // raw height of (i, j − 1)
     for (let j = 0; j <= jEnd; j++) {
       const m = j * invI; // sight-line direction: minor cells per major cell
@@ -402,7 +352,7 @@ function sweepOctant(
           }
         }
       }
-      out[idx] = need > 0 ? need : 0;
+      out[outBase + j * outMinor] = need > 0 ? need : 0;
       if ((zt - eye) * invI > best) bestCol = i;
       cur[j] = bestCol;
       zBelow = zRaw;

@@ -83,10 +83,7 @@ export function createTerrainRaster(init: TerrainRasterInit): TerrainRaster {
   const xll = init.xll ?? 0;
   const yll = init.yll ?? 0;
   if (!Number.isInteger(width) || width < 1 || !Number.isInteger(height) || height < 1) {
-    throw new TerrainInputError(
-      'invalid-raster',
-      `Raster size must be positive integers, got ${width} × ${height}.`,
-    );
+    throw new TerrainInputError('invalid-raster', `Raster size must be positive integers, got ${width} × ${height}.`);
   }
   if (!(cellSize > 0) || !Number.isFinite(cellSize)) {
     throw new TerrainInputError('invalid-raster', `Cell size must be a positive number of metres, got ${cellSize}.`);

@@ -1,9 +1,5 @@
 import { epsgFromWkt } from '@/shared/terrain/formats/epsg-from-wkt';
-import {
-  MAX_TERRAIN_CELLS,
-  REPROJECT_ADVICE,
-  TerrainFormatError,
-} from '@/shared/terrain/formats/terrain-format-error';
+import { MAX_TERRAIN_CELLS, REPROJECT_ADVICE, TerrainFormatError } from '@/shared/terrain/formats/terrain-format-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 
 const HEADER_KEYS = new Set([
@@ -148,7 +144,7 @@ export function readEsriAsciiGrid(text: string, prjText?: string | null): Terrai
     pos = skipSpace(text, pos);
     if (pos >= n) break;
     const parsed = parseNumberAt(text, pos);
-    if (parsed.end === pos || parsed.end < n && !isSpace(text.charCodeAt(parsed.end))) {
+    if (parsed.end === pos || (parsed.end < n && !isSpace(text.charCodeAt(parsed.end)))) {
       const row = Math.floor(filled / width);
       const col = filled % width;
       let end = pos;

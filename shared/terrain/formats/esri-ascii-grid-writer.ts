@@ -42,7 +42,10 @@ export function writeEsriAsciiGrid(
   const decimals = options.decimals ?? 3;
   const { width, height } = grid;
   if (values.length !== width * height) {
-    throw new TerrainFormatError('corrupt', `Expected ${width * height} values for a ${width} × ${height} grid, got ${values.length}.`);
+    throw new TerrainFormatError(
+      'corrupt',
+      `Expected ${width * height} values for a ${width} × ${height} grid, got ${values.length}.`,
+    );
   }
   if (!Number.isInteger(decimals) || decimals < 0 || decimals > 9) {
     throw new TerrainFormatError('unsupported', `Decimals must be an integer 0…9, got ${decimals}.`);

@@ -1,9 +1,5 @@
 import { fromArrayBuffer } from 'geotiff';
-import {
-  MAX_TERRAIN_CELLS,
-  REPROJECT_ADVICE,
-  TerrainFormatError,
-} from '@/shared/terrain/formats/terrain-format-error';
+import { MAX_TERRAIN_CELLS, REPROJECT_ADVICE, TerrainFormatError } from '@/shared/terrain/formats/terrain-format-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 
 /**
@@ -134,9 +130,13 @@ export async function readGeoTiff(bytes: ArrayBuffer): Promise<TerrainRaster> {
     const rasters = await image.readRasters({ samples: [0] });
     band = (rasters as unknown as ArrayLike<number>[])[0] as ArrayLike<number>;
   } catch (cause) {
-    throw new TerrainFormatError(isOutOfRange(cause) ? 'truncated' : 'corrupt', `Image data cannot be decoded: ${message(cause)}`, {
-      cause,
-    });
+    throw new TerrainFormatError(
+      isOutOfRange(cause) ? 'truncated' : 'corrupt',
+      `Image data cannot be decoded: ${message(cause)}`,
+      {
+        cause,
+      },
+    );
   }
   if (!band || band.length !== width * height) {
     throw new TerrainFormatError('corrupt', 'Decoded image data does not match the image size.');

@@ -46,7 +46,10 @@ interface Entry {
 export function writeGeoTiff(grid: RasterGrid, values: Float32Array, options: GeoTiffWriteOptions = {}): ArrayBuffer {
   const { width, height, cellSize } = grid;
   if (values.length !== width * height) {
-    throw new TerrainFormatError('corrupt', `Expected ${width * height} values for a ${width} × ${height} grid, got ${values.length}.`);
+    throw new TerrainFormatError(
+      'corrupt',
+      `Expected ${width * height} values for a ${width} × ${height} grid, got ${values.length}.`,
+    );
   }
   const dataBytes = width * height * 4;
   if (dataBytes > 0xffffffff - 1_000_000) {

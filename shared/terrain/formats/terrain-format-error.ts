@@ -26,13 +26,7 @@ export class TerrainFormatError extends Error {
 }
 
 /** Reasons a terrain file can be rejected. */
-export type TerrainFormatErrorCode =
-  | 'wrong-type'
-  | 'corrupt'
-  | 'truncated'
-  | 'geographic-crs'
-  | 'oversize'
-  | 'unsupported';
+export type TerrainFormatErrorCode = 'wrong-type' | 'corrupt' | 'truncated' | 'geographic-crs' | 'oversize' | 'unsupported';
 
 /**
  * Largest terrain the adapters accept: 100 million cells (e.g. 10 000 × 10 000,
