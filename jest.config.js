@@ -37,10 +37,12 @@ const nodeProject = (name, extra = {}) => ({
 });
 
 module.exports = {
+  // testTimeout is global in Jest 29 (ignored per project): browser tests and cold router renders need the room.
+  testTimeout: 120000,
   projects: [
     nodeProject('unit'),
-    nodeProject('api', { testTimeout: 30000 }),
-    nodeProject('e2e', { testTimeout: 120000 }),
+    nodeProject('api'),
+    nodeProject('e2e'),
     {
       displayName: 'components',
       preset: 'jest-expo/web',
@@ -49,7 +51,6 @@ module.exports = {
       setupFiles: ['<rootDir>/tests/components/setup.ts'],
       moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
       cacheDirectory,
-      testTimeout: 60000,
     },
   ],
 };
