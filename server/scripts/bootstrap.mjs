@@ -7,6 +7,7 @@
 //
 //   node server/scripts/bootstrap.mjs start   serve the demo on http://127.0.0.1:8080
 //   node server/scripts/bootstrap.mjs test    run every check against disposable databases
+//   node server/scripts/bootstrap.mjs bench   speed figures (no pass/fail)
 
 import { execFileSync, spawn, spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
@@ -357,6 +358,27 @@ async function test() {
   process.exit(status);
 }
 
-const tasks = { start, test };
+async function bench() {
+  env.NODE_ENV = 'test';
+  ensureNpmPackages();
+  ensureDebianPackages();
+  const pg = await ensureCluster();
+  const runId = `bench_${process.pid}`;
+  const name = `kenning_${runId}`;
+  const adminUrl = pg.url('postgres');
+  try {
+    tsx('server/scripts/prepare-database.ts', ['--database', name, '--seed', '--fresh'], { KENNING_ADMIN_DATABASE_URL: adminUrl });
+    tsx('tests/bench/run.ts', process.argv.slice(3), { KENNING_BENCH_DATABASE_URL: pg.url(name) });
+  } finally {
+    spawnSync(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/drop-test-databases.ts'), runId], {
+      cwd: root,
+      env: { ...env, KENNING_ADMIN_DATABASE_URL: adminUrl },
+      stdio: 'inherit',
+    });
+    pg.stop();
+  }
+}
+
+const tasks = { start, test, bench };
 if (!tasks[mode]) fail(`unknown task ${mode}; use start or test`);
 tasks[mode]().catch((err) => fail(err instanceof Error ? err.message : String(err)));

@@ -1,0 +1,43 @@
+/**
+ * `npm run bench`: speed figures, printed as a table. Nothing here passes or
+ * fails; the numbers go into closing notes and DEVELOPERS.md.
+ */
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { benchApi } from './api.bench';
+import { benchSightline } from './sightline.bench';
+
+interface Row {
+  name: string;
+  value: number;
+  unit: string;
+  detail?: string;
+}
+
+const print = (title: string, rows: Row[]) => {
+  console.log(`\n${title}`);
+  for (const r of rows) {
+    const v = r.value >= 100 ? Math.round(r.value).toLocaleString('en') : r.value.toPrecision(3);
+    console.log(`  ${r.name.padEnd(58)} ${v.padStart(12)} ${r.unit}${r.detail ? `   (${r.detail})` : ''}`);
+  }
+};
+
+async function main() {
+  const only = process.argv[2];
+  if (!only || only === 'sightline') {
+    print('Sightline core', (await benchSightline()).map((r) => ({ name: r.name, value: r.opsPerSec, unit: 'ops/s' })));
+  }
+  if ((!only || only === 'api') && process.env.KENNING_BENCH_DATABASE_URL) {
+    print('Sightline API on loopback (autocannon, 10 connections, 5 s each)', await benchApi(process.env.KENNING_BENCH_DATABASE_URL));
+  }
+  const viewshed = path.join(__dirname, 'viewshed.bench.ts');
+  if ((!only || only === 'viewshed') && existsSync(viewshed)) {
+    const mod = (await import('./viewshed.bench')) as { benchViewshed: () => Promise<Row[]> };
+    print('Viewshed engine', await mod.benchViewshed());
+  }
+}
+
+main().catch((e: unknown) => {
+  console.error(e);
+  process.exit(1);
+});
