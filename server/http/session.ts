@@ -1,6 +1,6 @@
 import type { NextFunction, Request, Response } from 'express';
 import { getIronSession, type IronSession } from 'iron-session';
-import type { Role } from '@/shared/schemas/auth';
+import type { Role, User } from '@/shared/schemas/auth';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 import type { Actor } from '@/server/domain/actor';
 import { AppError } from './app-error';
@@ -18,6 +18,8 @@ declare module 'express-serve-static-core' {
   interface Request {
     session: IronSession<SessionData>;
     actor?: Actor;
+    /** The signed-in user as loaded by requireUser. */
+    user?: User;
   }
 }
 
@@ -43,6 +45,7 @@ export async function requireUser(req: Request, _res: Response, next: NextFuncti
     req.session.destroy();
     throw AppError.unauthenticated('Your session has ended. Sign in again.');
   }
+  req.user = user;
   req.actor = { userId: user.id, organizationId: user.organization.id, role: user.role };
   next();
 }

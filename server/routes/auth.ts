@@ -2,13 +2,11 @@ import { randomBytes } from 'node:crypto';
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { SetPasswordRequestSchema, SignInRequestSchema } from '@/shared/schemas/auth';
-import { usersRepository } from '@/server/data/repositories/users-repository';
 import { signIn } from '@/server/domain/auth/sign-in';
 import type { SignInLimiter } from '@/server/domain/auth/sign-in-limiter';
 import { setPasswordWithToken } from '@/server/domain/users/manage-users';
-import { actorOf, requireUser } from '@/server/http/session';
+import { requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
-import { AppError } from '@/server/http/app-error';
 
 export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
   const router = Router();
@@ -34,10 +32,8 @@ export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
     res.status(204).end();
   });
 
-  router.get('/me', requireUser, async (req, res) => {
-    const user = await usersRepository.activeById(actorOf(req).userId);
-    if (!user) throw AppError.unauthenticated();
-    res.json({ user });
+  router.get('/me', requireUser, (req, res) => {
+    res.json({ user: req.user });
   });
 
   return router;

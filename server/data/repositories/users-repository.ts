@@ -36,10 +36,19 @@ export const usersRepository = {
     return row ? { user: toUser(row), passwordHash: row.passwordHash, active: row.active } : null;
   },
 
-  /** The signed-in user, or null when the account is gone or deactivated. */
+  /**
+   * The signed-in user, or null when the account is gone or deactivated. Runs
+   * on every authenticated request, so it reads plain rows (no model instances).
+   */
   async activeById(id: string): Promise<User | null> {
-    const row = await UserModel.findOne({ where: { id, active: true }, ...withOrg });
-    return row ? toUser(row) : null;
+    const row = (await UserModel.findOne({
+      where: { id, active: true },
+      attributes: ['id', 'email', 'name', 'role'],
+      include: [{ model: OrganizationModel, as: 'organization', attributes: ['id', 'name'] }],
+      raw: true,
+      nest: true,
+    })) as unknown as (Pick<User, 'id' | 'email' | 'name' | 'role'> & { organization: User['organization'] }) | null;
+    return row ? { id: row.id, email: row.email, name: row.name, role: row.role, organization: { id: row.organization.id, name: row.organization.name } } : null;
   },
 
   async recordSignIn(id: string, at: Date): Promise<void> {
