@@ -1,7 +1,7 @@
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 
 /** Height given to nodata cells inside the sweep: so low that they never block sight. */
-export const NEVER_BLOCKS = -1e30;
+export const NEVER_BLOCKS = Math.fround(-1e30);
 
 /**
  * A terrain laid out for the viewshed sweep: the heights twice, row-major and

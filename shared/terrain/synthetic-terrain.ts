@@ -65,12 +65,16 @@ export function generateSyntheticTerrain(options: SyntheticTerrainOptions = {}):
 
   const rand = mulberry32(seed ^ 0x5bd1e995);
   // Ridges: long crest lines at random orientations.
-  const ridges = Array.from({ length: 4 }, () => ({
-    angle: rand() * Math.PI,
-    offset: rand() * 1000,
-    wavelength: 5000 + rand() * 5000,
-    amplitude: 0.5 + rand() * 0.5,
-  }));
+  const ridges = Array.from({ length: 4 }, () => {
+    const angle = rand() * Math.PI;
+    return {
+      cos: Math.cos(angle),
+      sin: Math.sin(angle),
+      offset: rand() * 1000,
+      wavelength: 5000 + rand() * 5000,
+      amplitude: 0.5 + rand() * 0.5,
+    };
+  });
   // Hills: a few rounded summits, placed within the first 15 km square and repeated.
   const hills = Array.from({ length: 6 }, () => ({
     x: rand() * 15000,
@@ -79,16 +83,21 @@ export function generateSyntheticTerrain(options: SyntheticTerrainOptions = {}):
     amplitude: 0.3 + rand() * 0.6,
   }));
   // Valleys: winding lines with depth.
-  const valleys = Array.from({ length: 2 }, () => ({
-    angle: rand() * Math.PI,
-    offset: (rand() - 0.5) * 8000,
-    meanderAmp: 400 + rand() * 800,
-    meanderLen: 3000 + rand() * 4000,
-    phase: rand() * TAU,
-    halfWidth: 350 + rand() * 300,
-    depth: 0.45 + rand() * 0.25,
-  }));
+  const valleys = Array.from({ length: 2 }, () => {
+    const angle = rand() * Math.PI;
+    return {
+      cos: Math.cos(angle),
+      sin: Math.sin(angle),
+      offset: (rand() - 0.5) * 8000,
+      meanderAmp: 400 + rand() * 800,
+      meanderLen: 3000 + rand() * 4000,
+      phase: rand() * TAU,
+      halfWidth: 350 + rand() * 300,
+      depth: 0.45 + rand() * 0.25,
+    };
+  });
   const period = 15000;
+  const valleySpacing = 7000;
 
   const heights = new Float32Array(width * height);
   for (let row = 0; row < height; row++) {
@@ -96,14 +105,16 @@ export function generateSyntheticTerrain(options: SyntheticTerrainOptions = {}):
     for (let col = 0; col < width; col++) {
       const x = (col + 0.5) * cellSize;
       // Rolling ground.
-      let z = 0.55 * fbm(x / 4000, y / 4000, seed, 5);
-      // Ridges.
+      let z = 0.45 * fbm(x / 5000, y / 5000, seed, 5);
+      // Ridges: crest lines bent by a slow warp field, their height modulated
+      // along the crest by one shared noise field.
+      const modulation = 0.4 + 0.6 * valueNoise(x / 9000 + 13.1, y / 9000 - 7.7, seed + 17);
+      const warp = fbm(x / 6000 + 3.3, y / 6000 + 5.1, seed + 29, 3);
       for (const r of ridges) {
-        const u = x * Math.cos(r.angle) + y * Math.sin(r.angle) + r.offset;
-        const n = valueNoise(u / r.wavelength + 13.1, (x * -Math.sin(r.angle) + y * Math.cos(r.angle)) / 9000, seed + 17);
-        const phase = (((u / r.wavelength) % 1) + 1) % 1;
+        const u = (x * r.cos + y * r.sin + r.offset) / r.wavelength + 0.9 * warp;
+        const phase = u - Math.floor(u);
         const crest = 1 - Math.abs(2 * phase - 1);
-        z += 0.35 * r.amplitude * crest * crest * (0.4 + 0.6 * n);
+        z += 0.3 * r.amplitude * crest * crest * crest * modulation;
       }
       // Hills, repeated every `period` metres.
       const hx = x % period;
@@ -113,15 +124,16 @@ export function generateSyntheticTerrain(options: SyntheticTerrainOptions = {}):
         const dy = wrapDelta(hy - hl.y, period);
         z += hl.amplitude * Math.exp(-(dx * dx + dy * dy) / (2 * hl.radius * hl.radius));
       }
-      // Valleys.
+      // Valleys, repeated every `valleySpacing` metres across their direction.
       for (const v of valleys) {
-        const along = x * Math.cos(v.angle) + y * Math.sin(v.angle);
-        const across = -x * Math.sin(v.angle) + y * Math.cos(v.angle) - v.offset;
-        const d = across - v.meanderAmp * Math.sin((TAU * along) / v.meanderLen + v.phase);
+        const along = x * v.cos + y * v.sin;
+        const across = -x * v.sin + y * v.cos - v.offset;
+        const centred = across - v.meanderAmp * Math.sin((TAU * along) / v.meanderLen + v.phase);
+        const d = centred - valleySpacing * Math.round(centred / valleySpacing);
         z -= v.depth * Math.exp(-(d * d) / (2 * v.halfWidth * v.halfWidth));
       }
       // Fine roughness (tens of metres).
-      z += 0.04 * fbm(x / 300, y / 300, seed + 101, 3);
+      z += 0.03 * fbm(x / 400, y / 400, seed + 101, 3);
       heights[row * width + col] = base + relief * (z + 0.5);
     }
   }

@@ -55,33 +55,48 @@ export function checkHiddenHeights(
   const step = options.step ?? 0.1;
   const stride = options.stride ?? 1;
   const marker = terrain.nodata ?? NaN;
-  const isNodata = (v: number): boolean => Number.isNaN(v) || v === marker;
+  const isNodata = (v: number): boolean => v !== v || v === marker;
   const at = (c: number, r: number): number => heights[r * W + c] as number;
-  const drop = (dCells: number): number => ((1 - k) * (dCells * cellSize) ** 2) / (2 * R);
+  const dropPerCell2 = ((1 - k) * cellSize * cellSize) / (2 * R);
+  const drop = (dCells: number): number => dropPerCell2 * dCells * dCells;
 
-  /** Bilinear height at grid position (x = column, y = row), or NaN when a used node is nodata. */
+  /** Bilinear height at grid position (x = column, y = row, both ≥ 0), or NaN when a used node is nodata. */
   const surface = (x: number, y: number): number => {
-    let c = Math.floor(x);
-    let r = Math.floor(y);
-    if (c >= W - 1) c = W - 2;
-    if (r >= H - 1) r = H - 2;
-    if (c < 0) c = 0;
-    if (r < 0) r = 0;
-    const fx = Math.min(1, Math.max(0, x - c));
-    const fy = Math.min(1, Math.max(0, y - r));
-    const c1 = Math.min(W - 1, c + 1);
-    const r1 = Math.min(H - 1, r + 1);
-    const weights: Array<[number, number]> = [
-      [(1 - fx) * (1 - fy), at(c, r)],
-      [fx * (1 - fy), at(c1, r)],
-      [(1 - fx) * fy, at(c, r1)],
-      [fx * fy, at(c1, r1)],
-    ];
+    // (Plain arithmetic rather than Math.* calls: this runs for every sample.)
+    let c = x | 0;
+    let r = y | 0;
+    if (c > W - 2) c = W > 1 ? W - 2 : 0;
+    if (r > H - 2) r = H > 1 ? H - 2 : 0;
+    let fx = x - c;
+    let fy = y - r;
+    if (fx > 1) fx = 1;
+    if (fy > 1) fy = 1;
+    const c1 = c + 1 < W ? c + 1 : c;
+    const r1 = r + 1 < H ? r + 1 : r;
     let z = 0;
-    for (const [w, v] of weights) {
-      if (w === 0) continue;
-      if (isNodata(v)) return NaN;
-      z += w * v;
+    const w00 = (1 - fx) * (1 - fy);
+    const w10 = fx * (1 - fy);
+    const w01 = (1 - fx) * fy;
+    const w11 = fx * fy;
+    if (w00 > 0) {
+      const v = heights[r * W + c] as number;
+      if (v !== v || v === marker) return NaN;
+      z += w00 * v;
+    }
+    if (w10 > 0) {
+      const v = heights[r * W + c1] as number;
+      if (v !== v || v === marker) return NaN;
+      z += w10 * v;
+    }
+    if (w01 > 0) {
+      const v = heights[r1 * W + c] as number;
+      if (v !== v || v === marker) return NaN;
+      z += w01 * v;
+    }
+    if (w11 > 0) {
+      const v = heights[r1 * W + c1] as number;
+      if (v !== v || v === marker) return NaN;
+      z += w11 * v;
     }
     return z;
   };
@@ -90,7 +105,7 @@ export function checkHiddenHeights(
   const y0 = post.row;
   const eye = at(x0, y0) + post.eyeHeight;
   const out = new Float32Array(W * H).fill(NaN);
-  const ts: number[] = [];
+  let ts = new Float64Array(1024);
   for (let r = 0; r < H; r += stride) {
     for (let c = 0; c < W; c += stride) {
       const zt = at(c, r);
@@ -103,19 +118,24 @@ export function checkHiddenHeights(
         out[r * W + c] = 0;
         continue;
       }
+      const dist2 = dx * dx + dy * dy;
       const targetLowered = zt - drop(dist);
-      ts.length = 0;
+      // Sample positions t ∈ (0, 1): uniform steps, then the exact crossings of
+      // the column and row lines of cell centres.
       const n = Math.ceil(dist / step);
-      for (let s = 1; s < n; s++) ts.push(s / n);
-      // Exact crossings of the column and row lines of cell centres.
-      for (let gx = Math.min(x0, c) + 1; gx < Math.max(x0, c); gx++) ts.push((gx - x0) / dx);
-      for (let gy = Math.min(y0, r) + 1; gy < Math.max(y0, r); gy++) ts.push((gy - y0) / dy);
+      const crossings = Math.abs(dx) + Math.abs(dy);
+      if (ts.length < n + crossings) ts = new Float64Array(2 * (n + crossings));
+      let count = 0;
+      for (let s = 1; s < n; s++) ts[count++] = s / n;
+      for (let gx = Math.min(x0, c) + 1; gx < Math.max(x0, c); gx++) ts[count++] = (gx - x0) / dx;
+      for (let gy = Math.min(y0, r) + 1; gy < Math.max(y0, r); gy++) ts[count++] = (gy - y0) / dy;
       let worst = 0;
-      for (const t of ts) {
+      for (let q = 0; q < count; q++) {
+        const t = ts[q] as number;
         if (!(t > 0 && t < 1)) continue;
         const z = surface(x0 + t * dx, y0 + t * dy);
-        if (Number.isNaN(z)) continue;
-        const lowered = z - drop(t * dist);
+        if (z !== z) continue;
+        const lowered = z - dropPerCell2 * t * t * dist2;
         const need = eye + (lowered - eye) / t - targetLowered;
         if (need > worst) worst = need;
       }

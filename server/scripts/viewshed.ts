@@ -1,0 +1,240 @@
+/**
+ * Command line: the hidden-height raster or the seen/not-seen mask of one
+ * lookout post, written as an ESRI ASCII grid or a Float32 GeoTIFF with the
+ * input terrain's extent, cell size and CRS.
+ *
+ *   npm run viewshed -- --dem terrain.tif --x 519000 --y 5738000 --eye 15 --out hidden.tif
+ *
+ * Run with --help for every option. Timing goes to stderr. Exit status: 0 on
+ * success, 2 for bad arguments, 1 when the terrain cannot be read or the
+ * result cannot be written.
+ */
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { parseArgs } from 'node:util';
+import { epsgFromWkt } from '@/shared/terrain/formats/epsg-from-wkt';
+import { readEsriAsciiGrid } from '@/shared/terrain/formats/esri-ascii-grid-reader';
+import { writeEsriAsciiGrid } from '@/shared/terrain/formats/esri-ascii-grid-writer';
+import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
+import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
+import { TerrainFormatError } from '@/shared/terrain/formats/terrain-format-error';
+import { DEFAULT_EARTH_RADIUS, DEFAULT_REFRACTION_COEFFICIENT } from '@/shared/terrain/curvature-drop';
+import { computeHiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
+import { locatePostCell } from '@/shared/terrain/locate-post-cell';
+import { targetVisibilityMask } from '@/shared/terrain/target-visibility-mask';
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
+import type { RasterGrid, TerrainRaster } from '@/shared/terrain/terrain-raster';
+
+const USAGE = `Usage: npm run viewshed -- --dem <file.tif|file.asc> --x <easting> --y <northing> --eye <m> --out <file.asc|file.tif> [options]
+
+Computes what one lookout post sees of the terrain.
+
+Required:
+  --dem <file>           terrain: GeoTIFF (.tif/.tiff) or ESRI ASCII grid (.asc, with optional .prj beside it),
+                         in a projected CRS in metres (e.g. UTM)
+  --x <m>, --y <m>       post position, easting and northing in the terrain's CRS; the post is the cell containing it
+  --eye <m>              eye height above the ground at the post, metres (add the tower or cab height)
+  --out <file>           result: .asc (ESRI ASCII grid, plus .prj) or .tif (Float32 GeoTIFF), same grid as the terrain
+
+Options:
+  --mode hidden|visible  hidden  = hidden height in metres, 0 where the ground is seen (default)
+                         visible = 1 where a target of --target metres is seen, 0 where not
+  --target <m>           target height above ground for --mode visible, metres (default 0)
+  --k <k>                refraction coefficient (default ${DEFAULT_REFRACTION_COEFFICIENT})
+  --earth-radius <m>     earth radius, metres (default ${DEFAULT_EARTH_RADIUS})
+  --max-distance <m>     compute only within this distance of the post; cells beyond are nodata
+  --help                 this text
+`;
+
+/** A problem with the command line itself (exit status 2). */
+class UsageError extends Error {}
+
+interface Arguments {
+  dem: string;
+  x: number;
+  y: number;
+  eye: number;
+  out: string;
+  mode: 'hidden' | 'visible';
+  target: number;
+  k: number;
+  earthRadius: number;
+  maxDistance: number | undefined;
+}
+
+function parseCommandLine(argv: string[]): Arguments | null {
+  let parsed;
+  try {
+    parsed = parseArgs({
+      args: argv,
+      strict: true,
+      allowPositionals: false,
+      options: {
+        dem: { type: 'string' },
+        x: { type: 'string' },
+        y: { type: 'string' },
+        eye: { type: 'string' },
+        out: { type: 'string' },
+        mode: { type: 'string' },
+        target: { type: 'string' },
+        k: { type: 'string' },
+        'earth-radius': { type: 'string' },
+        'max-distance': { type: 'string' },
+        help: { type: 'boolean' },
+      },
+    });
+  } catch (error) {
+    throw new UsageError((error as Error).message.replace(/\. To specify a positional.*$/s, '.'));
+  }
+  const v = parsed.values;
+  if (v.help) return null;
+  const required = (name: 'dem' | 'x' | 'y' | 'eye' | 'out'): string => {
+    const value = v[name];
+    if (value === undefined || value === '') throw new UsageError(`--${name} is required.`);
+    return value;
+  };
+  const number = (name: string, raw: string | undefined, what: string): number | undefined => {
+    if (raw === undefined) return undefined;
+    const value = Number(raw);
+    if (raw.trim() === '' || !Number.isFinite(value)) {
+      throw new UsageError(`--${name} must be a number (${what}), got "${raw}".`);
+    }
+    return value;
+  };
+  const dem = required('dem');
+  const out = required('out');
+  const x = number('x', required('x'), 'easting, metres') as number;
+  const y = number('y', required('y'), 'northing, metres') as number;
+  const eye = number('eye', required('eye'), 'eye height above ground, metres') as number;
+  if (eye < 0) throw new UsageError(`--eye must be ≥ 0 metres, got ${eye}.`);
+  const mode = v.mode ?? 'hidden';
+  if (mode !== 'hidden' && mode !== 'visible') {
+    throw new UsageError(`--mode must be "hidden" or "visible", got "${mode}".`);
+  }
+  const target = number('target', v.target, 'target height above ground, metres') ?? 0;
+  if (target < 0) throw new UsageError(`--target must be ≥ 0 metres, got ${target}.`);
+  if (v.target !== undefined && mode === 'hidden') {
+    throw new UsageError('--target only applies to --mode visible (the hidden-height raster serves every target height).');
+  }
+  const k = number('k', v.k, 'refraction coefficient') ?? DEFAULT_REFRACTION_COEFFICIENT;
+  if (k >= 1) throw new UsageError(`--k must be below 1, got ${k}.`);
+  const earthRadius = number('earth-radius', v['earth-radius'], 'metres') ?? DEFAULT_EARTH_RADIUS;
+  if (!(earthRadius > 0)) throw new UsageError(`--earth-radius must be > 0 metres, got ${earthRadius}.`);
+  const maxDistance = number('max-distance', v['max-distance'], 'metres');
+  if (maxDistance !== undefined && !(maxDistance > 0)) {
+    throw new UsageError(`--max-distance must be > 0 metres, got ${maxDistance}.`);
+  }
+  if (!/\.(asc|tif|tiff)$/i.test(dem)) throw new UsageError(`--dem must end in .tif, .tiff or .asc, got "${dem}".`);
+  if (!/\.(asc|tif|tiff)$/i.test(out)) throw new UsageError(`--out must end in .asc, .tif or .tiff, got "${out}".`);
+  if (!existsSync(dem)) throw new UsageError(`--dem file not found: ${dem}`);
+  return { dem, x, y, eye, out, mode, target, k, earthRadius, maxDistance };
+}
+
+async function readTerrain(file: string): Promise<TerrainRaster> {
+  if (/\.asc$/i.test(file)) {
+    const prjFile = file.replace(/\.asc$/i, '.prj');
+    const prj = existsSync(prjFile) ? readFileSync(prjFile, 'utf8') : null;
+    return readEsriAsciiGrid(readFileSync(file, 'latin1'), prj);
+  }
+  const bytes = readFileSync(file);
+  return readGeoTiff(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
+}
+
+function writeResult(file: string, grid: RasterGrid, values: Float32Array, decimals: number): string[] {
+  const notes: string[] = [];
+  if (/\.asc$/i.test(file)) {
+    const { asc, prj } = writeEsriAsciiGrid(grid, values, { decimals });
+    writeFileSync(file, asc);
+    const prjFile = file.replace(/\.asc$/i, '.prj');
+    if (prj !== null) writeFileSync(prjFile, prj);
+    else notes.push(`the terrain's CRS is not known as WKT, so no ${path.basename(prjFile)} was written`);
+  } else {
+    let out = grid;
+    if (grid.crs && grid.crs.epsg === null && grid.crs.wkt) {
+      const epsg = epsgFromWkt(grid.crs.wkt);
+      out = { ...grid, crs: { epsg, wkt: grid.crs.wkt } };
+    }
+    if (!out.crs || out.crs.epsg === null) notes.push('the terrain has no EPSG code, so the GeoTIFF carries no CRS');
+    writeFileSync(file, Buffer.from(writeGeoTiff(out, values)));
+  }
+  return notes;
+}
+
+async function main(): Promise<number> {
+  let args: Arguments | null;
+  try {
+    args = parseCommandLine(process.argv.slice(2));
+  } catch (error) {
+    if (error instanceof UsageError) {
+      process.stderr.write(`viewshed: ${error.message}\n\n${USAGE}`);
+      return 2;
+    }
+    throw error;
+  }
+  if (args === null) {
+    process.stdout.write(USAGE);
+    return 0;
+  }
+  const t0 = performance.now();
+  let terrain: TerrainRaster;
+  try {
+    terrain = await readTerrain(args.dem);
+  } catch (error) {
+    if (error instanceof TerrainFormatError) {
+      process.stderr.write(`viewshed: cannot read ${args.dem} (${error.code}): ${error.message}\n`);
+      return 1;
+    }
+    throw error;
+  }
+  const t1 = performance.now();
+  let values: Float32Array;
+  let grid: RasterGrid;
+  try {
+    const cell = locatePostCell(terrain, args.x, args.y);
+    const hidden = computeHiddenHeightRaster(
+      terrain,
+      { ...cell, eyeHeight: args.eye },
+      { refractionCoefficient: args.k, earthRadius: args.earthRadius, maxDistance: args.maxDistance },
+    );
+    grid = hidden;
+    values = args.mode === 'hidden' ? hidden.hidden : targetVisibilityMask(hidden, args.target);
+  } catch (error) {
+    if (error instanceof TerrainInputError) {
+      process.stderr.write(`viewshed: ${error.message}\n`);
+      return 2;
+    }
+    throw error;
+  }
+  const t2 = performance.now();
+  let notes: string[];
+  try {
+    notes = writeResult(args.out, grid, values, args.mode === 'hidden' ? 3 : 0);
+  } catch (error) {
+    process.stderr.write(`viewshed: cannot write ${args.out}: ${(error as Error).message}\n`);
+    return 1;
+  }
+  const t3 = performance.now();
+  for (const note of notes) process.stderr.write(`viewshed: note: ${note}\n`);
+  const cells = terrain.width * terrain.height;
+  process.stderr.write(
+    `viewshed: ${terrain.width} × ${terrain.height} cells; read ${ms(t1 - t0)}, compute ${ms(t2 - t1)} ` +
+      `(${(cells / 1e6 / ((t2 - t1) / 1000)).toFixed(1)} Mcells/s), write ${ms(t3 - t2)}, total ${ms(t3 - t0)}\n`,
+  );
+  return 0;
+}
+
+function ms(value: number): string {
+  return `${value.toFixed(0)} ms`;
+}
+
+main().then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (error: unknown) => {
+    process.stderr.write(
+      `viewshed: unexpected failure: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`,
+    );
+    process.exitCode = 1;
+  },
+);
