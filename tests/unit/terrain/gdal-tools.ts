@@ -11,7 +11,11 @@ import os from 'node:os';
 import path from 'node:path';
 
 /** Whether `gdal_viewshed` (and so gdal-bin) is on PATH. */
-export const gdalAvailable: boolean = spawnSync('gdal_viewshed', ['--version'], { encoding: 'utf8' }).status === 0;
+export const gdalAvailable: boolean = (() => {
+  // gdal_viewshed --version prints the version but exits non-zero (no input given); only a missing binary errors.
+  const probe = spawnSync('gdal_viewshed', ['--version'], { encoding: 'utf8' });
+  return probe.error === undefined && /GDAL \d/.test(probe.stdout + probe.stderr);
+})();
 
 /** `describe` that runs only with GDAL, and otherwise fails (or, when allowed, says it did not run). */
 export function describeWithGdal(name: string, body: () => void): void {
