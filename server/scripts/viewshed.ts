@@ -62,11 +62,40 @@ interface Arguments {
   maxDistance: number | undefined;
 }
 
+const VALUE_OPTIONS = new Set([
+  '--dem',
+  '--x',
+  '--y',
+  '--eye',
+  '--out',
+  '--mode',
+  '--target',
+  '--k',
+  '--earth-radius',
+  '--max-distance',
+]);
+
+/** Joins `--k -0.1` into `--k=-0.1`, so negative numbers are taken as values, not options. */
+function joinNegativeValues(argv: string[]): string[] {
+  const joined: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i] as string;
+    const next = argv[i + 1];
+    if (VALUE_OPTIONS.has(arg) && next !== undefined && /^-\d|^-\.\d/.test(next)) {
+      joined.push(`${arg}=${next}`);
+      i++;
+    } else {
+      joined.push(arg);
+    }
+  }
+  return joined;
+}
+
 function parseCommandLine(argv: string[]): Arguments | null {
   let parsed;
   try {
     parsed = parseArgs({
-      args: argv,
+      args: joinNegativeValues(argv),
       strict: true,
       allowPositionals: false,
       options: {

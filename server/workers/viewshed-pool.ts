@@ -24,7 +24,12 @@ export interface ViewshedJobResult {
 export interface ViewshedPool {
   /** Number of worker threads. */
   readonly size: number;
-  /** Computes every job on the terrain, spreading them over the workers. */
+  /**
+   * Computes every job on the terrain, spreading them over the workers. The
+   * heights are copied into shared memory once per terrain object (unless they
+   * already live in a SharedArrayBuffer) and reused by later runs on the same
+   * object, so treat the terrain as immutable, as the whole core does.
+   */
   run(terrain: TerrainRaster, jobs: readonly ViewshedJob[]): Promise<ViewshedJobResult[]>;
   /** Stops the workers; pending runs are rejected. */
   close(): Promise<void>;
@@ -149,6 +154,7 @@ export function createViewshedPool(options: ViewshedPoolOptions = {}): ViewshedP
         nodata: terrain.nodata,
         crs: terrain.crs,
       });
+      slot.terrainIds.clear(); // the worker keeps only the latest terrain
       slot.terrainIds.add(sharedTerrain.id);
     }
     const jobId = nextJobId++;

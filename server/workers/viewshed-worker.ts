@@ -33,7 +33,8 @@ const terrains = new Map<number, { terrain: TerrainRaster; sweep: SweepTerrain }
 port.on('message', (message: TerrainMessage | JobMessage | { type: 'forget'; terrainId: number }) => {
   if (message.type === 'terrain') {
     const { type: _type, terrainId, ...terrain } = message;
-    // The sweep layout (a column-major copy) is made once per terrain and worker.
+    // One terrain at a time per worker; its sweep layout (a column-major copy) is made once.
+    terrains.clear();
     terrains.set(terrainId, { terrain, sweep: prepareSweepTerrain(terrain) });
     return;
   }
