@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
 import type { SightlineRequest } from '@/shared/schemas/sightline';
 import { refractionPreset } from '@/shared/sightline/refraction-presets';
 import { useSightline } from '@/components/data/sightline';
@@ -89,6 +89,7 @@ export function QuickCheck() {
           </AppText>
         ) : null}
         <TextField label="Your own k (optional)" inputMode="decimal" value={form.customK} onChangeText={set('customK')} error={errors.customK} hint="Refraction coefficient; 0.13 is standard optical." />
+        <WeatherCondition value={form.weather} onChange={set('weather')} error={errors.weather} />
       </View>
     </Card>
   );
@@ -187,7 +188,48 @@ function Answer({
   );
 }
 
+/** k from pressure, temperature and lapse rate, as a further condition. */
+function WeatherCondition({ value, onChange, error }: { value: CheckFormValues['weather']; onChange: (v: CheckFormValues['weather']) => void; error?: string }) {
+  const set = (key: 'pressureHpa' | 'temperatureC' | 'lapseRateKPerM') => (text: string) => onChange({ ...value, [key]: text });
+  return (
+    <View style={{ gap: space.sm }}>
+      <Pressable role="checkbox" aria-checked={value.enabled} onPress={() => onChange({ ...value, enabled: !value.enabled })} style={styles.check}>
+        <View style={[styles.box, value.enabled && styles.boxOn]} />
+        <AppText variant="small">From weather readings (k by the surveying relation)</AppText>
+      </Pressable>
+      {value.enabled ? (
+        <View style={{ gap: space.sm }}>
+          <View style={styles.pair}>
+            <View style={styles.half}>
+              <TextField label="Pressure" unit="hPa" inputMode="decimal" value={value.pressureHpa} onChangeText={set('pressureHpa')} />
+            </View>
+            <View style={styles.half}>
+              <TextField label="Air temperature" unit="°C" inputMode="decimal" value={value.temperatureC} onChangeText={set('temperatureC')} />
+            </View>
+          </View>
+          <TextField
+            label="Lapse rate Γ = −dT/dh"
+            unit="K/m"
+            inputMode="decimal"
+            value={value.lapseRateKPerM}
+            onChangeText={set('lapseRateKPerM')}
+            hint="0.0065 is the standard atmosphere; negative in an inversion (air warming with height)."
+          />
+          {error ? (
+            <AppText variant="small" tone="danger" role="alert">
+              {error}
+            </AppText>
+          ) : null}
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
 const styles = StyleSheet.create({
+  check: { flexDirection: 'row', alignItems: 'center', gap: space.sm, minHeight: 44 },
+  box: { width: 20, height: 20, borderRadius: 4, borderWidth: 1.5, borderColor: colors.lineStrong },
+  boxOn: { backgroundColor: colors.ink, borderColor: colors.ink },
   pair: { flexDirection: 'row', gap: space.md },
   half: { flex: 1 },
 });

@@ -59,6 +59,13 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
       await shot(page, 'quick-check-offline', viewport);
       await page.unroute('**/api/v1/sightline');
 
+      // A condition from weather readings adds a column: standard atmosphere gives
+      // k = 503·P/T²·(0.0343 + dT/dh) = 503·1013.25/288.15²·(0.0343 − 0.0065) ≈ 0.171.
+      // Source: the surveying refraction relation (from memory).
+      await page.getByRole('checkbox', { name: /From weather readings/ }).click();
+      await table.getByRole('columnheader', { name: /Weather: 1013.25 hPa/ }).waitFor();
+      expect(await table.getByRole('row').filter({ hasText: 'k · regime' }).textContent()).toContain('0.171');
+
       // 3D, loaded on demand, drawn with WebGL (software renderer here).
       await page.getByRole('button', { name: 'Show in 3D' }).click();
       const view = page.getByLabel('3D sightline view');
