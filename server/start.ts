@@ -26,6 +26,8 @@ async function main() {
   };
   process.once('SIGINT', () => stop('SIGINT'));
   process.once('SIGTERM', () => stop('SIGTERM'));
+  // Started by the bootstrap with an IPC channel: stop when the bootstrap is gone.
+  process.once('disconnect', () => stop('supervisor gone'));
 }
 
 main().catch((err: unknown) => {

@@ -231,8 +231,24 @@ function serve(extraEnv) {
   return spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server', 'start.ts')], {
     cwd: root,
     env: { ...env, ...extraEnv },
-    stdio: ['ignore', 'inherit', 'inherit'],
+    // The IPC channel lets the server notice when this bootstrap is gone and stop itself.
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
   });
+}
+
+/**
+ * `npm` does not always pass SIGTERM on to its script. When the process that
+ * started us goes away, we are re-parented: treat that like a stop signal.
+ */
+function onParentGone(callback) {
+  const parent = process.ppid;
+  const timer = setInterval(() => {
+    if (process.ppid !== parent) {
+      clearInterval(timer);
+      callback();
+    }
+  }, 1000);
+  timer.unref();
 }
 
 async function waitForHealth(url, child, seconds = 60) {
@@ -272,6 +288,10 @@ async function start() {
   }
   const port = env.PORT ?? '8080';
   const url = `http://127.0.0.1:${port}`;
+  if (!(await portIsFree(Number(port)))) {
+    stopAll();
+    fail(`port ${port} on 127.0.0.1 is already in use (another Kenning?). Stop it, or choose another: PORT=9000 npm start`);
+  }
   const server = serve({ DATABASE_URL: pg.url('kenning'), PORT: port, HOST: '127.0.0.1', NODE_ENV: env.NODE_ENV ?? 'development' });
   let stopping = false;
   const shutdown = (signal) => {
@@ -282,6 +302,8 @@ async function start() {
   };
   process.on('SIGINT', () => shutdown('SIGINT'));
   process.on('SIGTERM', () => shutdown('SIGTERM'));
+  process.on('SIGHUP', () => shutdown('SIGHUP'));
+  onParentGone(() => shutdown('parent process gone'));
   server.on('exit', (code) => {
     stopAll();
     log('stopped.');
