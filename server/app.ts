@@ -6,6 +6,9 @@ import type { Config } from './config';
 import { createSignInLimiter } from './domain/auth/sign-in-limiter';
 import { errorHandler, notFoundHandler } from './http/error-handler';
 import { sessionMiddleware } from './http/session';
+import { createCaughtMailClient } from './mail/caught-mail-client';
+import type { Mailer } from './mail/mailer';
+import { caughtMailRoutes } from './routes/caught-mail';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
 import { sightlineRoutes } from './routes/sightline';
@@ -14,6 +17,8 @@ import { userRoutes } from './routes/users';
 
 export interface AppDeps {
   db: Sequelize;
+  /** Outgoing mail; null or absent: nothing is e-mailed (links are still shown where they matter). */
+  mailer?: Mailer | null;
   config: Pick<
     Config,
     | 'SESSION_SECRET'
@@ -23,13 +28,14 @@ export interface AppDeps {
     | 'SIGN_IN_LIMIT_PER_ACCOUNT'
     | 'SIGN_IN_WINDOW_SECONDS'
     | 'LOG_REQUESTS'
+    | 'CAUGHT_MAIL_URL'
   >;
 }
 
 const publicUrl = (req: Request) => `${req.protocol}://${req.get('host') ?? 'localhost'}`;
 
 /** Builds the Express app (API + the exported web app) without listening. */
-export function createApp({ db, config }: AppDeps) {
+export function createApp({ db, config, mailer = null }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
@@ -70,7 +76,8 @@ export function createApp({ db, config }: AppDeps) {
   const v1 = express.Router();
   v1.use(sightlineRoutes());
   v1.use(siteRoutes());
-  v1.use(userRoutes(db, publicUrl));
+  v1.use(userRoutes(db, publicUrl, mailer));
+  v1.use(caughtMailRoutes(config.CAUGHT_MAIL_URL ? createCaughtMailClient(config.CAUGHT_MAIL_URL) : null));
   api.use('/v1', v1);
 
   api.use(notFoundHandler);

@@ -28,6 +28,19 @@ const EnvSchema = z.object({
   /** Failed sign-ins allowed per account per window. */
   SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
   SIGN_IN_WINDOW_SECONDS: z.coerce.number().int().positive().default(15 * 60),
+  /** SMTP relay. Unset: the server sends no mail (the bootstrap points it at the local catcher). */
+  SMTP_HOST: z.string().min(1).optional(),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
+  /** '1' for TLS from the first byte (port 465); otherwise STARTTLS when the server offers it. */
+  SMTP_SECURE: z
+    .enum(['0', '1', 'true', 'false'])
+    .default('0')
+    .transform((v) => v === '1' || v === 'true'),
+  SMTP_USER: z.string().min(1).optional(),
+  SMTP_PASSWORD: z.string().min(1).optional(),
+  MAIL_FROM: z.string().min(3).default('Kenning <no-reply@demo.kenning.test>'),
+  /** Base URL of the development mail catcher's HTTP API; enables GET /api/v1/caught-mail for admins. */
+  CAUGHT_MAIL_URL: z.url({ protocol: /^http$/ }).optional(),
   LOG_REQUESTS: z
     .enum(['0', '1'])
     .default('0')
@@ -63,6 +76,12 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
   const cfg = parsed.data;
   if (!cfg.SESSION_SECRET && cfg.NODE_ENV === 'production') {
     throw new ConfigError('SESSION_SECRET must be set (32+ characters) when NODE_ENV=production');
+  }
+  if (cfg.CAUGHT_MAIL_URL && cfg.NODE_ENV === 'production') {
+    throw new ConfigError('CAUGHT_MAIL_URL is for development and tests only; unset it when NODE_ENV=production');
+  }
+  if (Boolean(cfg.SMTP_USER) !== Boolean(cfg.SMTP_PASSWORD)) {
+    throw new ConfigError('Set both SMTP_USER and SMTP_PASSWORD, or neither');
   }
   return { ...cfg, SESSION_SECRET: cfg.SESSION_SECRET ?? localSessionSecret() };
 }

@@ -2,13 +2,23 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import { config } from './config';
 import { createDatabase } from './data/database';
+import { createMailer } from './mail/mailer';
 
 /** Entry point: serves the API and the web app from one process. */
 async function main() {
   const cfg = config();
   const db = createDatabase(cfg.DATABASE_URL);
   await db.authenticate();
-  const app = createApp({ db, config: cfg });
+  const mailer = cfg.SMTP_HOST
+    ? createMailer({
+        host: cfg.SMTP_HOST,
+        port: cfg.SMTP_PORT,
+        secure: cfg.SMTP_SECURE,
+        from: cfg.MAIL_FROM,
+        auth: cfg.SMTP_USER && cfg.SMTP_PASSWORD ? { user: cfg.SMTP_USER, pass: cfg.SMTP_PASSWORD } : undefined,
+      })
+    : null;
+  const app = createApp({ db, config: cfg, mailer });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(cfg.PORT, cfg.HOST, () => resolve(s));
   });
@@ -18,6 +28,7 @@ async function main() {
 
   const stop = (signal: string) => {
     console.log(`[kenning] ${signal}: closing`);
+    mailer?.close();
     server.close(() => {
       void db.close().finally(() => process.exit(0));
     });

@@ -17,6 +17,7 @@ export function InviteUserForm() {
   const invite = useInviteUser();
   const [formError, setFormError] = useState('');
   const [link, setLink] = useState('');
+  const [mailed, setMailed] = useState(false);
   const { control, handleSubmit, setError, formState, reset } = useForm<InviteUserRequest>({
     resolver: zodResolver(InviteUserRequestSchema),
     defaultValues: { email: '', name: '', role: 'observer' },
@@ -27,6 +28,7 @@ export function InviteUserForm() {
     invite.mutate(values, {
       onSuccess: (r) => {
         setLink(r.setPasswordUrl);
+        setMailed(r.mailed);
         reset();
       },
       onError: (e) => setFormError(applyServerErrors(e, setError, ['email', 'name', 'role'])),
@@ -59,7 +61,9 @@ export function InviteUserForm() {
       <Button label="Create invitation" onPress={submit} busy={invite.isPending} />
       {link ? (
         <Notice tone="info" title="Invitation created">
-          <AppText variant="small">Send this one-time link to the person; it works for 7 days:</AppText>
+          <AppText variant="small">
+            {mailed ? 'We e-mailed this one-time link to the person; it works for 7 days:' : 'Send this one-time link to the person; it works for 7 days:'}
+          </AppText>
           <AppText variant="small" selectable style={{ fontFamily: 'monospace' }}>
             {link}
           </AppText>

@@ -84,6 +84,16 @@ export function CautionIcon(p: IconProps) {
   );
 }
 
+/** Mail: an envelope whose flap is a horizon line. */
+export function MailIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Rect x="3" y="6" width="18" height="13" />
+      <Polyline points="3,7 12,13 21,7" />
+    </Frame>
+  );
+}
+
 export function SignOutIcon(p: IconProps) {
   return (
     <Frame {...p}>

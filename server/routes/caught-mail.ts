@@ -1,7 +1,8 @@
 import { Router } from 'express';
 import type { CaughtMailList } from '@/shared/schemas/mail';
 import { AppError } from '@/server/http/app-error';
-import { requireRole, requireUser } from '@/server/http/session';
+import { usersRepository } from '@/server/data/repositories/users-repository';
+import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import type { CaughtMailClient } from '@/server/mail/caught-mail-client';
 import { MailError } from '@/server/mail/mailer';
 
@@ -13,7 +14,7 @@ export function caughtMailRoutes(client: CaughtMailClient | null) {
   const router = Router();
   router.use('/caught-mail', requireUser, requireRole('admin'));
 
-  router.get('/caught-mail', async (_req, res) => {
+  router.get('/caught-mail', async (req, res) => {
     if (!client) {
       throw new AppError(
         404,
@@ -22,7 +23,10 @@ export function caughtMailRoutes(client: CaughtMailClient | null) {
       );
     }
     try {
-      const body: CaughtMailList = { messages: await client.list() };
+      // The catcher is shared by every organisation; an admin sees only mail to their own people.
+      const [messages, own] = await Promise.all([client.list(), usersRepository.emailsInOrganization(actorOf(req).organizationId)]);
+      const members = new Set(own.map((e) => e.toLowerCase()));
+      const body: CaughtMailList = { messages: messages.filter((m) => m.to.some((to) => members.has(to.toLowerCase()))) };
       res.json(body);
     } catch (err) {
       if (err instanceof MailError) {

@@ -1,15 +1,17 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { InviteUserRequestSchema, UpdateUserRequestSchema } from '@/shared/schemas/auth';
 import { inviteUser, listUsers, updateUser } from '@/server/domain/users/manage-users';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
+import type { Mailer } from '@/server/mail/mailer';
+import { invitation } from '@/server/mail/templates';
 
 const IdParam = z.object({ userId: z.uuid({ error: 'Not a user id.' }) });
 
 /** The administrator's user management, scoped to the admin's organisation. */
-export function userRoutes(db: Sequelize, publicUrl: (req: import('express').Request) => string) {
+export function userRoutes(db: Sequelize, publicUrl: (req: Request) => string, mailer: Mailer | null) {
   const router = Router();
   router.use('/users', requireUser, requireRole('admin'));
 
@@ -20,7 +22,19 @@ export function userRoutes(db: Sequelize, publicUrl: (req: import('express').Req
   router.post('/users', async (req, res) => {
     const input = parseOrThrow(InviteUserRequestSchema, req.body, 'invitation');
     const { user, token } = await inviteUser(db, actorOf(req), input);
-    res.status(201).json({ user, setPasswordUrl: `${publicUrl(req)}/set-password?token=${token}` });
+    const setPasswordUrl = `${publicUrl(req)}/set-password?token=${token}`;
+    // Sent after the account is committed; a mail failure still leaves the link for the admin to pass on.
+    let mailed = false;
+    if (mailer && req.user) {
+      try {
+        const message = invitation({ name: user.name, organizationName: req.user.organization.name, setPasswordUrl, invitedBy: req.user.name });
+        await mailer.send({ to: [user.email], ...message });
+        mailed = true;
+      } catch (e) {
+        console.error('[kenning] invitation mail failed:', e);
+      }
+    }
+    res.status(201).json({ user, setPasswordUrl, mailed });
   });
 
   router.patch('/users/:userId', async (req, res) => {

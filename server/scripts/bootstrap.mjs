@@ -223,6 +223,55 @@ function ensureWebBuild() {
   log(`web app built in ${((Date.now() - started) / 1000).toFixed(0)} s`);
 }
 
+// ---------------------------------------------------------------- mail catcher
+// Hosted mail is out of reach: a local SMTP catcher on loopback takes every
+// message; admins read it in the app, tests read it over its HTTP API.
+function startMailCatcher() {
+  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server', 'scripts', 'mail-catcher.ts')], {
+    cwd: root,
+    env,
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  const ready = new Promise((resolve, reject) => {
+    let buffered = '';
+    const timer = setTimeout(() => {
+      child.kill('SIGTERM');
+      reject(new Error('the mail catcher did not start within 30 s'));
+    }, 30_000);
+    child.stdout.setEncoding('utf8');
+    child.stdout.on('data', function onData(chunk) {
+      buffered += chunk;
+      const nl = buffered.indexOf('\n');
+      if (nl < 0) return;
+      clearTimeout(timer);
+      child.stdout.off('data', onData);
+      try {
+        resolve(JSON.parse(buffered.slice(0, nl)));
+      } catch {
+        child.kill('SIGTERM');
+        reject(new Error(`the mail catcher printed: ${buffered.slice(0, nl)}`));
+      }
+    });
+    child.once('exit', (code) => {
+      clearTimeout(timer);
+      reject(new Error(`the mail catcher exited with ${code}`));
+    });
+  });
+  ready.catch(() => {}); // a catcher stopped before anyone waited on it is not an error
+  const stop = () => {
+    if (child.exitCode === null && child.signalCode === null) child.kill('SIGTERM');
+  };
+  return { ready, stop };
+}
+
+const mailEnv = (c) => ({
+  SMTP_HOST: c.host,
+  SMTP_PORT: String(c.smtpPort),
+  SMTP_SECURE: '0',
+  MAIL_FROM: 'Kenning <no-reply@demo.kenning.test>',
+  CAUGHT_MAIL_URL: c.url,
+});
+
 // --------------------------------------------------------------------- tasks
 const tsx = (script, args = [], extraEnv = {}, opts = {}) =>
   run(process.execPath, ['--import', 'tsx', path.join(root, script), ...args], { env: { ...env, ...extraEnv }, ...opts });
@@ -277,7 +326,11 @@ async function start() {
   ensureNpmPackages();
   ensureDebianPackages();
   const pg = await ensureCluster();
-  const stopAll = () => pg.stop();
+  const mail = env.SMTP_HOST ? null : startMailCatcher();
+  const stopAll = () => {
+    mail?.stop();
+    pg.stop();
+  };
   process.on('exit', stopAll);
   try {
     tsx('server/scripts/prepare-database.ts', ['--database', 'kenning', '--seed'], { KENNING_ADMIN_DATABASE_URL: pg.url('postgres') });
@@ -292,7 +345,14 @@ async function start() {
     stopAll();
     fail(`port ${port} on 127.0.0.1 is already in use (another Kenning?). Stop it, or choose another: PORT=9000 npm start`);
   }
-  const server = serve({ DATABASE_URL: pg.url('kenning'), PORT: port, HOST: '127.0.0.1', NODE_ENV: env.NODE_ENV ?? 'development' });
+  const caught = mail ? await mail.ready : null;
+  const server = serve({
+    DATABASE_URL: pg.url('kenning'),
+    PORT: port,
+    HOST: '127.0.0.1',
+    NODE_ENV: env.NODE_ENV ?? 'development',
+    ...(caught && mailEnv(caught)),
+  });
   let stopping = false;
   const shutdown = (signal) => {
     if (stopping) return;
@@ -314,6 +374,7 @@ async function start() {
     log(`Kenning is up: ${url}`);
     log('Demo sign-ins (password for all: kenning-demo):');
     for (const [email, role] of DEMO_USERS) log(`  ${email.padEnd(30)} ${role}`);
+    if (caught) log(`Outgoing mail is caught locally (SMTP 127.0.0.1:${caught.smtpPort}); administrators read it under Mail.`);
     log('Stop with Ctrl+C.');
   }
 }
@@ -328,8 +389,10 @@ async function test() {
   const template = `kenning_test_${run_id}`;
   const e2eDb = `kenning_e2e_${run_id}`;
   const adminUrl = pg.url('postgres');
+  const mail = startMailCatcher();
   let server;
   const cleanup = () => {
+    mail.stop();
     if (server && server.exitCode === null) server.kill('SIGTERM');
     spawnSync(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/drop-test-databases.ts'), run_id], {
       cwd: root,
@@ -359,7 +422,15 @@ async function test() {
     step('web build', ensureWebBuild);
     const port = await freePort();
     const url = `http://127.0.0.1:${port}`;
-    server = serve({ DATABASE_URL: pg.url(e2eDb), PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'test', SIGN_IN_LIMIT_PER_ADDRESS: '1000' });
+    const caught = await mail.ready;
+    server = serve({
+      DATABASE_URL: pg.url(e2eDb),
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      NODE_ENV: 'test',
+      SIGN_IN_LIMIT_PER_ADDRESS: '1000',
+      ...mailEnv(caught),
+    });
     if (!(await waitForHealth(url, server))) throw new Error('the test server did not become healthy');
     const jestArgs = process.argv.slice(3);
     step('jest (unit, components, api, e2e)', () =>
@@ -370,6 +441,7 @@ async function test() {
           KENNING_TEST_TEMPLATE_DB: template,
           KENNING_E2E_URL: url,
           KENNING_E2E_DATABASE_URL: pg.url(e2eDb),
+          KENNING_CAUGHT_MAIL_URL: caught.url,
         },
       }),
     );

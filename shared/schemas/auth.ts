@@ -75,6 +75,8 @@ export const InviteUserResponseSchema = z.object({
   user: ManagedUserSchema,
   /** One-time link; valid for 7 days. */
   setPasswordUrl: z.string(),
+  /** Whether the link was also e-mailed to the person. */
+  mailed: z.boolean(),
 });
 
 export const UpdateUserRequestSchema = z

@@ -20,7 +20,9 @@ import { MailError, createMailer, type Mailer } from '@/server/mail/mailer';
 import { invitation, reviewDecided } from '@/server/mail/templates';
 import { caughtMailRoutes } from '@/server/routes/caught-mail';
 
-jest.mock('@/server/data/repositories/users-repository', () => ({ usersRepository: { activeById: jest.fn() } }));
+jest.mock('@/server/data/repositories/users-repository', () => ({
+  usersRepository: { activeById: jest.fn(), emailsInOrganization: jest.fn() },
+}));
 
 const FROM = 'Kenning <no-reply@demo.kenning.test>';
 const PLANNER = 'planner@demo.kenning.test';
@@ -277,6 +279,8 @@ describe('GET /caught-mail (admin route)', () => {
 
   beforeAll(() => {
     jest.mocked(usersRepository.activeById).mockImplementation(async (id: string) => users[id] ?? null);
+    // The admin's organisation holds the planner and the reviewer, not the outsider.
+    jest.mocked(usersRepository.emailsInOrganization).mockResolvedValue([PLANNER, REVIEWER]);
   });
 
   /** A bare app with a stand-in session: the `x-test-user` header names the signed-in user. */
@@ -303,6 +307,13 @@ describe('GET /caught-mail (admin route)', () => {
     const res = await request(appWith(client)).get('/caught-mail').set('x-test-user', 'admin-id').expect(200);
     const body = CaughtMailListSchema.parse(res.body);
     expect(body.messages.map((m) => m.subject)).toEqual(['newer', 'older']);
+  });
+
+  it("leaves out mail to other organisations' people", async () => {
+    await mailer.send(text(['someone@tallon.kenning.test'], 'not yours'));
+    const res = await request(appWith(client)).get('/caught-mail').set('x-test-user', 'admin-id').expect(200);
+    expect(res.body.messages.map((m: { subject: string }) => m.subject)).not.toContain('not yours');
+    expect(res.body.messages.length).toBeGreaterThan(0);
   });
 
   it('without a catcher → 404 with a clear message (after the role check)', async () => {

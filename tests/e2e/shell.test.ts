@@ -68,6 +68,18 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       }
       expect(await page.getByText(DEMO.otherAdmin).count()).toBe(0);
       await shot(page, 'users', viewport);
+
+      // Invite someone: the set-password link is shown and e-mailed (to the local catcher).
+      const email = `new.${viewport}@demo.kenning.test`;
+      await page.getByLabel('Name').fill(`New ${viewport} watcher`);
+      await page.getByLabel('E-mail').fill(email);
+      await page.getByRole('button', { name: 'Create invitation' }).click();
+      await page.getByText('We e-mailed this one-time link').waitFor();
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Mail' }).click();
+      await page.getByText('Set up your Kenning account for Harrowmere Lookout Service').first().waitFor();
+      await page.getByText(`To ${email}`, { exact: false }).first().click();
+      await page.getByText(/set-password\?token=/).first().waitFor();
+      await shot(page, 'mail', viewport);
     } finally {
       await context.close();
     }

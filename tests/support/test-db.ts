@@ -55,6 +55,7 @@ export const TEST_CONFIG: AppDeps['config'] = {
   SIGN_IN_LIMIT_PER_ACCOUNT: 1000,
   SIGN_IN_WINDOW_SECONDS: 900,
   LOG_REQUESTS: false,
+  CAUGHT_MAIL_URL: undefined,
 };
 
 /**

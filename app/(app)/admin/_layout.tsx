@@ -11,7 +11,7 @@ export default function AdminLayout() {
     return (
       <Screen title="Administration">
         <Notice tone="danger" title="Not available to your role">
-          <AppText>Only an administrator of your organisation can manage users.</AppText>
+          <AppText>Only an administrator of your organisation can manage users and read the organisation's mail.</AppText>
         </Notice>
       </Screen>
     );

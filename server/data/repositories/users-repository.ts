@@ -51,6 +51,12 @@ export const usersRepository = {
     return row ? { id: row.id, email: row.email, name: row.name, role: row.role, organization: { id: row.organization.id, name: row.organization.name } } : null;
   },
 
+  /** Every e-mail address of the organisation's accounts (any status). */
+  async emailsInOrganization(organizationId: string): Promise<string[]> {
+    const rows = await UserModel.findAll({ where: { organizationId }, attributes: ['email'], raw: true });
+    return rows.map((r) => r.email);
+  },
+
   async recordSignIn(id: string, at: Date): Promise<void> {
     // A plain UPDATE: signing in is not an edit and must not bump the row's version.
     await UserModel.update({ lastSignInAt: at }, { where: { id }, silent: true });
