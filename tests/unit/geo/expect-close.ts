@@ -2,7 +2,7 @@
  * Tolerance assertions for the coordinate tests: every check states its own
  * absolute tolerance; floats are never compared exactly.
  */
-import { CoordinateError, type CoordinateErrorCode, type CoordinatePart } from '@/shared/geo';
+import { CoordinateError, type CoordinateErrorCode, type CoordinatePart } from '@/shared/geo/coordinate-error';
 
 /** Asserts `actual` is a finite number within `tolerance` (absolute) of `expected`. */
 export function expectWithin(actual: number | undefined, expected: number, tolerance: number): void {
