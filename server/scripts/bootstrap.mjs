@@ -326,7 +326,7 @@ async function start() {
   ensureNpmPackages();
   ensureDebianPackages();
   const pg = await ensureCluster();
-  const mail = env.SMTP_HOST ? null : startMailCatcher();
+  let mail = null;
   const stopAll = () => {
     mail?.stop();
     pg.stop();
@@ -345,6 +345,8 @@ async function start() {
     stopAll();
     fail(`port ${port} on 127.0.0.1 is already in use (another Kenning?). Stop it, or choose another: PORT=9000 npm start`);
   }
+  // Started only now: the steps above block the event loop, which would starve its ready line.
+  mail = env.SMTP_HOST ? null : startMailCatcher();
   const caught = mail ? await mail.ready : null;
   const server = serve({
     DATABASE_URL: pg.url('kenning'),
@@ -389,10 +391,10 @@ async function test() {
   const template = `kenning_test_${run_id}`;
   const e2eDb = `kenning_e2e_${run_id}`;
   const adminUrl = pg.url('postgres');
-  const mail = startMailCatcher();
+  let mail = null;
   let server;
   const cleanup = () => {
-    mail.stop();
+    mail?.stop();
     if (server && server.exitCode === null) server.kill('SIGTERM');
     spawnSync(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/drop-test-databases.ts'), run_id], {
       cwd: root,
@@ -422,6 +424,7 @@ async function test() {
     step('web build', ensureWebBuild);
     const port = await freePort();
     const url = `http://127.0.0.1:${port}`;
+    mail = startMailCatcher();
     const caught = await mail.ready;
     server = serve({
       DATABASE_URL: pg.url(e2eDb),
