@@ -10,7 +10,8 @@ import { wrapLongitude } from '@/shared/geo/wrap-longitude';
  *
  * The easting must lie strictly between 0 and 1 000 000 m, the northing
  * between 0 and 10 000 000 m; the position must fall inside the UTM area
- * (80°S–84°N) and within 9° of longitude of the zone's central meridian.
+ * with its polar overlap (80°30′S–84°30′N) and within 9° of longitude of
+ * the zone's central meridian.
  *
  * @param utm - `{ zone, hemisphere, easting, northing }`; zone integer 1–60,
  *   hemisphere `N`/`S`, easting and northing in metres
@@ -37,7 +38,11 @@ export function fromUtm(utm: UtmCoordinate): LatLon {
     throw new CoordinateError('not-finite', 'easting', `The easting must be a finite number of metres, got ${String(easting)}.`);
   }
   if (typeof northing !== 'number' || !Number.isFinite(northing)) {
-    throw new CoordinateError('not-finite', 'northing', `The northing must be a finite number of metres, got ${String(northing)}.`);
+    throw new CoordinateError(
+      'not-finite',
+      'northing',
+      `The northing must be a finite number of metres, got ${String(northing)}.`,
+    );
   }
   if (!(easting > 0 && easting < 1_000_000)) {
     throw new CoordinateError(
@@ -54,7 +59,7 @@ export function fromUtm(utm: UtmCoordinate): LatLon {
     );
   }
   const [lonRaw, latDeg] = utmProjection(zone, hemisphere).inverse([easting, northing]);
-  checkUtmArea(latDeg);
+  checkUtmArea(latDeg, true);
   const lonDeg = wrapLongitude(lonRaw);
   checkZoneReach(zone, lonDeg, easting);
   return { latDeg, lonDeg };

@@ -49,15 +49,27 @@ const FORMAT_NAMES: Readonly<Record<CoordinateFormat, string>> = {
  */
 export function parseCoordinate(text: string, format: CoordinateFormat | 'auto' = 'auto'): ParsedCoordinate {
   if (!FORMATS.includes(format)) {
-    throw new CoordinateError('unknown-format', 'options', `Unknown coordinate format ${String(format)}; use dd, ddm, dms, utm or auto.`);
+    throw new CoordinateError(
+      'unknown-format',
+      'options',
+      `Unknown coordinate format ${String(format)}; use dd, ddm, dms, utm or auto.`,
+    );
   }
   if (typeof text !== 'string') {
     throw new CoordinateError('empty', 'text', 'Enter a coordinate as text.');
   }
-  const cleaned = text.replace(/[\u00a0\u2007\u202f]/g, ' ').replace(/\u2212/g, '-').trim();
-  if (cleaned === '') throw new CoordinateError('empty', 'text', 'Enter a coordinate: a latitude and longitude, or a UTM position.');
+  const cleaned = text
+    .replace(/[\u00a0\u2007\u202f]/g, ' ')
+    .replace(/\u2212/g, '-')
+    .trim();
+  if (cleaned === '')
+    throw new CoordinateError('empty', 'text', 'Enter a coordinate: a latitude and longitude, or a UTM position.');
   if (cleaned.length > MAX_COORDINATE_TEXT_LENGTH) {
-    throw new CoordinateError('too-long', 'text', `That is too long to be a coordinate (over ${MAX_COORDINATE_TEXT_LENGTH} characters).`);
+    throw new CoordinateError(
+      'too-long',
+      'text',
+      `That is too long to be a coordinate (over ${MAX_COORDINATE_TEXT_LENGTH} characters).`,
+    );
   }
 
   if (format === 'utm' || format === 'auto') {

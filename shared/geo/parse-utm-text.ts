@@ -1,4 +1,5 @@
 import { BAND_MARGIN_DEG } from '@/shared/geo/band-margin';
+import { UTM_POLAR_OVERLAP_DEG } from '@/shared/geo/check-utm-area';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
 import { fromUtm } from '@/shared/geo/from-utm';
 import { isBandSNorthing } from '@/shared/geo/is-band-s-northing';
@@ -16,8 +17,7 @@ const ZONE = String.raw`(?:utm\s*)?(?:zone\s*)?(\d{1,3})\s*(north|south|[a-z])?`
 const LEADING = new RegExp(String.raw`^${ZONE}${SEP}${NUM}\s*${SUFFIX}${SEP}${NUM}\s*${SUFFIX}$`, 'i');
 const TRAILING = new RegExp(String.raw`^${NUM}\s*${SUFFIX}${SEP}${NUM}\s*${SUFFIX}${SEP}${ZONE}$`, 'i');
 
-const EXPECTED =
-  'Write UTM as zone and letter, easting, northing — for example “33N 500000 6800000” or “33V 500000E 6800000N”.';
+const EXPECTED = 'Write UTM as zone and letter, easting, northing — for example “33N 500000 6800000” or “33V 500000E 6800000N”.';
 
 interface UtmParts {
   zoneText: string;
@@ -97,7 +97,11 @@ export function parseUtmText(text: string, required: boolean): LatLon | null {
 
   if (firstAxis !== null && firstAxis === secondAxis) {
     const what = firstAxis === 'E' ? 'eastings (E)' : 'northings (N)';
-    throw new CoordinateError('not-utm', 'text', `Both numbers in “${text}” are marked as ${what}; give one easting and one northing.`);
+    throw new CoordinateError(
+      'not-utm',
+      'text',
+      `Both numbers in “${text}” are marked as ${what}; give one easting and one northing.`,
+    );
   }
   if (firstAxis === 'N' || secondAxis === 'E') [easting, northing] = [northing, easting];
 
@@ -160,7 +164,10 @@ export function parseUtmText(text: string, required: boolean): LatLon | null {
     const index = LATITUDE_BANDS.indexOf(band);
     const south = -80 + 8 * index;
     const north = band === 'X' ? 84 : south + 8;
-    if (position.latDeg < south - BAND_MARGIN_DEG || position.latDeg > north + BAND_MARGIN_DEG) {
+    // Bands C and X reach into the grid's polar overlap.
+    const southLimit = band === 'C' ? south - UTM_POLAR_OVERLAP_DEG : south - BAND_MARGIN_DEG;
+    const northLimit = band === 'X' ? north + UTM_POLAR_OVERLAP_DEG : north + BAND_MARGIN_DEG;
+    if (position.latDeg < southLimit || position.latDeg > northLimit) {
       const at = position.latDeg < 0 ? `${(-position.latDeg).toFixed(2)}°S` : `${position.latDeg.toFixed(2)}°N`;
       const range = (v: number) => (v < 0 ? `${-v}°S` : v === 0 ? '0°' : `${v}°N`);
       throw new CoordinateError(

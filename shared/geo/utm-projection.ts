@@ -36,7 +36,10 @@ export function utmProjection(zone: number, hemisphere: Hemisphere): UtmProjecti
   const key = `${zone}${hemisphere}`;
   const known = cache.get(key);
   if (known) return known;
-  const converter = proj4('WGS84', `+proj=utm +zone=${zone}${hemisphere === 'S' ? ' +south' : ''} +datum=WGS84 +units=m +no_defs`);
+  const converter = proj4(
+    'WGS84',
+    `+proj=utm +zone=${zone}${hemisphere === 'S' ? ' +south' : ''} +datum=WGS84 +units=m +no_defs`,
+  );
   const projection: UtmProjection = {
     forward: ([lon, lat]) => {
       const [x, y] = converter.forward([lon, lat]);

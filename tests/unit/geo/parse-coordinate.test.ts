@@ -42,13 +42,16 @@ describe('parseCoordinate — latitude and longitude', () => {
     expectWithin(parsed.lonDeg, LON, ANGLE_TOL);
   });
 
-  it.each(['33.3 44.4', 'E44.4 N33.3', "33d18'N 44d24'E", '44d24 33d18N'])('reads the published equivalent %j as 33.3°N 44.4°E', (text) => {
-    // Source: GeographicLib GeoConvert usage text: "the following are all equivalent: 33.3 44.4, E44.4 N33.3,
-    // 33d18'N 44d24'E, 44d24 33d18N".
-    const parsed = parseCoordinate(text);
-    expectWithin(parsed.latDeg, 33.3, ANGLE_TOL);
-    expectWithin(parsed.lonDeg, 44.4, ANGLE_TOL);
-  });
+  it.each(['33.3 44.4', 'E44.4 N33.3', "33d18'N 44d24'E", '44d24 33d18N'])(
+    'reads the published equivalent %j as 33.3°N 44.4°E',
+    (text) => {
+      // Source: GeographicLib GeoConvert usage text: "the following are all equivalent: 33.3 44.4, E44.4 N33.3,
+      // 33d18'N 44d24'E, 44d24 33d18N".
+      const parsed = parseCoordinate(text);
+      expectWithin(parsed.latDeg, 33.3, ANGLE_TOL);
+      expectWithin(parsed.lonDeg, 44.4, ANGLE_TOL);
+    },
+  );
 
   it('reads southern and western, zero, pole and antimeridian values', () => {
     // Source: sign conventions, S and W negative (common practice, no source).
@@ -124,12 +127,25 @@ describe('parseCoordinate — UTM', () => {
     expect(parseCoordinate('33F 500000 4000000').latDeg).toBeLessThan(-50);
   });
 
+  it('lets bands C and X reach into the 30′ polar overlap', () => {
+    // Source: UTM overlaps UPS to 84.5°N and 80.5°S (apsalin.com UTM converter notes; DMA TM 8358.2 from memory);
+    // northings from proj4 (EPSG:32633 / EPSG:32733).
+    const north = Math.round(proj4('EPSG:4326', 'EPSG:32633', [15, 84.4])[1] as number);
+    expectWithin(parseCoordinate(`33X 500000 ${north}`).latDeg, 84.4, 1e-5);
+    const south = Math.round(proj4('EPSG:4326', 'EPSG:32733', [15, -80.4])[1] as number);
+    expectWithin(parseCoordinate(`33C 500000 ${south}`).latDeg, -80.4, 1e-5);
+  });
+
   it('forgives a position up to one minute of latitude outside its band, not more', () => {
     // Source: Kenning's band margin (1′). 0.5′ and 2′ north of 64°N, read with band V (56°N–64°N); the northings
     // of those latitudes on zone 33's central meridian come from proj4 (EPSG:32633), whole metres.
-    const northing = (latDeg: number) => Math.round((proj4('EPSG:4326', 'EPSG:32633', [15, latDeg])[1] as number));
+    const northing = (latDeg: number) => Math.round(proj4('EPSG:4326', 'EPSG:32633', [15, latDeg])[1] as number);
     expect(parseCoordinate(`33V 500000 ${northing(64 + 0.5 / 60)}`).latDeg).toBeGreaterThan(64);
-    const error = expectCoordinateError(() => parseCoordinate(`33V 500000 ${northing(64 + 2 / 60)}`), 'band-mismatch', 'northing');
+    const error = expectCoordinateError(
+      () => parseCoordinate(`33V 500000 ${northing(64 + 2 / 60)}`),
+      'band-mismatch',
+      'northing',
+    );
     expect(error.message).toMatch(/^Band V covers 56°N to 64°N, but northing \d+ m in zone 33 is at 64\.03°N/);
   });
 });
@@ -139,19 +155,55 @@ describe('parseCoordinate — messages a person understands', () => {
     // Source: none — Kenning's error contract; each message names the part that is wrong and why.
     ['empty', '   ', 'empty', 'text', /^Enter a coordinate/],
     ['too long', '1'.repeat(200), 'too-long', 'text', /too long/],
-    ['latitude beyond 90°', '91.5, 10', 'latitude-out-of-range', 'latitude', /^Latitude “91\.5” is 91\.5°, beyond 90°: latitudes run from 90°S to 90°N\./],
+    [
+      'latitude beyond 90°',
+      '91.5, 10',
+      'latitude-out-of-range',
+      'latitude',
+      /^Latitude “91\.5” is 91\.5°, beyond 90°: latitudes run from 90°S to 90°N\./,
+    ],
     ['longitude first', '-149.8765, 61.2345', 'latitude-out-of-range', 'latitude', /Did you put the longitude first\?/],
     ['latitude beyond 90° in DMS', '90 00 01 N 10 0 0 E', 'latitude-out-of-range', 'latitude', /beyond 90°/],
-    ['longitude beyond 180°', '10N 180.5E', 'longitude-out-of-range', 'longitude', /^Longitude “180\.5E” is 180\.5°, beyond 180°/],
-    ['minutes 60', "61°60.0'N 149°52.59'W", 'minutes-out-of-range', 'text', /the minutes are 60\.0: minutes run from 0 to under 60/],
-    ['seconds 75', '61 14 75 N 149 52 35 W', 'seconds-out-of-range', 'text', /In “61 14 75 N” the seconds are 75: seconds run from 0 to under 60/],
-    ['decimal degrees with minutes', '61.5 30 N 149 10 W', 'fraction-not-last', 'text', /degrees \(61\.5\) have a decimal part but are followed by minutes/],
+    [
+      'longitude beyond 180°',
+      '10N 180.5E',
+      'longitude-out-of-range',
+      'longitude',
+      /^Longitude “180\.5E” is 180\.5°, beyond 180°/,
+    ],
+    [
+      'minutes 60',
+      "61°60.0'N 149°52.59'W",
+      'minutes-out-of-range',
+      'text',
+      /the minutes are 60\.0: minutes run from 0 to under 60/,
+    ],
+    [
+      'seconds 75',
+      '61 14 75 N 149 52 35 W',
+      'seconds-out-of-range',
+      'text',
+      /In “61 14 75 N” the seconds are 75: seconds run from 0 to under 60/,
+    ],
+    [
+      'decimal degrees with minutes',
+      '61.5 30 N 149 10 W',
+      'fraction-not-last',
+      'text',
+      /degrees \(61\.5\) have a decimal part but are followed by minutes/,
+    ],
     ['sign and letter', '-61.5S 10E', 'sign-and-hemisphere', 'text', /both a minus sign and the letter S/],
     ['sign on minutes', '61 -14 N 149 52 W', 'misplaced-sign', 'text', /only the degrees may carry a sign/],
     ['two latitudes', '61.5N 49.8S', 'hemisphere-conflict', 'text', /are marked as latitudes \(N\/S\)/],
     ['three commas', '61,5, -149,8', 'too-many-separators', 'text', /a point for decimals/],
     ['odd count', '61 14.07 149.8765', 'cannot-split', 'text', /Can't tell where the latitude ends/],
-    ['mixed formats', '61 14.07 N 149.8765 W', 'mixed-formats', 'text', /latitude “61 14\.07 N” is in degrees and decimal minutes \(DDM\) but the longitude “149\.8765 W” is in decimal degrees/],
+    [
+      'mixed formats',
+      '61 14.07 N 149.8765 W',
+      'mixed-formats',
+      'text',
+      /latitude “61 14\.07 N” is in degrees and decimal minutes \(DDM\) but the longitude “149\.8765 W” is in decimal degrees/,
+    ],
     ['letters on both sides', 'N 61 149 W', 'hemisphere-placement', 'text', /either all before the numbers/],
     ['four parts', '61 14 04 2 N 149 52 35 4 W', 'too-many-parts', 'text', /at most three/],
     ['seconds mark first', '61" 14 N 149 W', 'mark-order', 'text', /begins with seconds/],
@@ -161,11 +213,23 @@ describe('parseCoordinate — messages a person understands', () => {
     ['one number', '61.5', 'missing-number', 'text', /needs both a latitude and a longitude/],
     ['zone 61', '61N 500000 6800000', 'unknown-zone', 'zone', /^UTM zones run from 1 to 60; “61” is not one\./],
     ['zone 0', '0V 500000 6800000', 'unknown-zone', 'zone', /“0” is not one/],
-    ['no zone letter', '33 500000 6800000', 'missing-zone-letter', 'zone', /has no hemisphere: write the zone with N or S \(33N\)/],
+    [
+      'no zone letter',
+      '33 500000 6800000',
+      'missing-zone-letter',
+      'zone',
+      /has no hemisphere: write the zone with N or S \(33N\)/,
+    ],
     ['band I', '33I 500000 6800000', 'unknown-zone-letter', 'zone', /no latitude band I/],
     ['polar zone', '33Z 500000 6800000', 'polar-zone', 'zone', /polar \(UPS\)/],
     ['unused 34X', '34X 500000 8500000', 'unused-zone', 'zone', /Grid zone 34X is not used/],
-    ['band Q at 61°N', '33Q 500000 6800000', 'band-mismatch', 'northing', /Band Q covers 16°N to 24°N, but northing 6800000 m in zone 33 is at 61\.33°N/],
+    [
+      'band Q at 61°N',
+      '33Q 500000 6800000',
+      'band-mismatch',
+      'northing',
+      /Band Q covers 16°N to 24°N, but northing 6800000 m in zone 33 is at 61\.33°N/,
+    ],
     ['southern band with a northern northing', '33C 500000 5000000', 'band-mismatch', 'northing', /Band C covers 80°S to 72°S/],
     ['easting 7 digits', '33N 5000000 6800000', 'easting-out-of-range', 'easting', /Easting 5000000 m is not a UTM easting/],
     ['northing past 10 000 km', '33N 500000 12000000', 'northing-out-of-range', 'northing', /not a UTM northing/],

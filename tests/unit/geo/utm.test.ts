@@ -22,26 +22,167 @@ interface Reference {
 }
 
 const GEODESY = 'geodesy (npm) test suite, test/utm-mgrs-tests.js, "latitude/longitude -> UTM"';
-const IBM = 'IBM developerWorks "j-coordconvert" listing 7, as quoted in test/utm-mgrs-tests.js of geodesy (npm); rounded to the metre';
+const IBM =
+  'IBM developerWorks "j-coordconvert" listing 7, as quoted in test/utm-mgrs-tests.js of geodesy (npm); rounded to the metre';
 const REFERENCES: readonly Reference[] = [
   // Source: GeographicLib GeoConvert usage text: "33.3 44.4" ≡ "38N 444140.54 3684706.36".
-  { what: '33.3°N 44.4°E', latDeg: 33.3, lonDeg: 44.4, zone: 38, hemisphere: 'N', easting: 444140.54, northing: 3684706.36, toleranceM: 0.0051, source: 'GeographicLib GeoConvert usage' },
+  {
+    what: '33.3°N 44.4°E',
+    latDeg: 33.3,
+    lonDeg: 44.4,
+    zone: 38,
+    hemisphere: 'N',
+    easting: 444140.54,
+    northing: 3684706.36,
+    toleranceM: 0.0051,
+    source: 'GeographicLib GeoConvert usage',
+  },
   // Source: geodesy (npm) test suite, see GEODESY.
-  { what: 'equator at 0°', latDeg: 0, lonDeg: 0, zone: 31, hemisphere: 'N', easting: 166021.443081, northing: 0, toleranceM: 0.0001, source: GEODESY },
-  { what: '1°N 1°E', latDeg: 1, lonDeg: 1, zone: 31, hemisphere: 'N', easting: 277438.26352, northing: 110597.97252, toleranceM: 0.0001, source: GEODESY },
-  { what: '1°S 1°W', latDeg: -1, lonDeg: -1, zone: 30, hemisphere: 'S', easting: 722561.73648, northing: 9889402.02748, toleranceM: 0.0001, source: GEODESY },
-  { what: '48.8583°N 2.2945°E', latDeg: 48.8583, lonDeg: 2.2945, zone: 31, hemisphere: 'N', easting: 448251.898, northing: 5411943.794, toleranceM: 0.0006, source: GEODESY },
-  { what: '33.857°S 151.215°E', latDeg: -33.857, lonDeg: 151.215, zone: 56, hemisphere: 'S', easting: 334873.199, northing: 6252266.092, toleranceM: 0.0006, source: GEODESY },
-  { what: '38.8977°N 77.0365°W', latDeg: 38.8977, lonDeg: -77.0365, zone: 18, hemisphere: 'N', easting: 323394.296, northing: 4307395.634, toleranceM: 0.0006, source: GEODESY },
-  { what: '22.9519°S 43.2106°W', latDeg: -22.9519, lonDeg: -43.2106, zone: 23, hemisphere: 'S', easting: 683466.254, northing: 7460687.433, toleranceM: 0.0006, source: GEODESY },
+  {
+    what: 'equator at 0°',
+    latDeg: 0,
+    lonDeg: 0,
+    zone: 31,
+    hemisphere: 'N',
+    easting: 166021.443081,
+    northing: 0,
+    toleranceM: 0.0001,
+    source: GEODESY,
+  },
+  {
+    what: '1°N 1°E',
+    latDeg: 1,
+    lonDeg: 1,
+    zone: 31,
+    hemisphere: 'N',
+    easting: 277438.26352,
+    northing: 110597.97252,
+    toleranceM: 0.0001,
+    source: GEODESY,
+  },
+  {
+    what: '1°S 1°W',
+    latDeg: -1,
+    lonDeg: -1,
+    zone: 30,
+    hemisphere: 'S',
+    easting: 722561.73648,
+    northing: 9889402.02748,
+    toleranceM: 0.0001,
+    source: GEODESY,
+  },
+  {
+    what: '48.8583°N 2.2945°E',
+    latDeg: 48.8583,
+    lonDeg: 2.2945,
+    zone: 31,
+    hemisphere: 'N',
+    easting: 448251.898,
+    northing: 5411943.794,
+    toleranceM: 0.0006,
+    source: GEODESY,
+  },
+  {
+    what: '33.857°S 151.215°E',
+    latDeg: -33.857,
+    lonDeg: 151.215,
+    zone: 56,
+    hemisphere: 'S',
+    easting: 334873.199,
+    northing: 6252266.092,
+    toleranceM: 0.0006,
+    source: GEODESY,
+  },
+  {
+    what: '38.8977°N 77.0365°W',
+    latDeg: 38.8977,
+    lonDeg: -77.0365,
+    zone: 18,
+    hemisphere: 'N',
+    easting: 323394.296,
+    northing: 4307395.634,
+    toleranceM: 0.0006,
+    source: GEODESY,
+  },
+  {
+    what: '22.9519°S 43.2106°W',
+    latDeg: -22.9519,
+    lonDeg: -43.2106,
+    zone: 23,
+    hemisphere: 'S',
+    easting: 683466.254,
+    northing: 7460687.433,
+    toleranceM: 0.0006,
+    source: GEODESY,
+  },
   // Source: geodesy (npm) test suite — 5.3249°E at 60.39°N lies in widened zone 32, not 31.
-  { what: '60.39135°N 5.3249°E (zone 32 widened)', latDeg: 60.39135, lonDeg: 5.3249, zone: 32, hemisphere: 'N', easting: 297508.41, northing: 6700645.3, toleranceM: 0.0051, source: GEODESY },
+  {
+    what: '60.39135°N 5.3249°E (zone 32 widened)',
+    latDeg: 60.39135,
+    lonDeg: 5.3249,
+    zone: 32,
+    hemisphere: 'N',
+    easting: 297508.41,
+    northing: 6700645.3,
+    toleranceM: 0.0051,
+    source: GEODESY,
+  },
   // Source: IBM coordconvert values, see IBM (rounded: tolerance 0.5 m plus the other implementation's own error, 1 m in all).
-  { what: '0.13°N 0.2324°W', latDeg: 0.13, lonDeg: -0.2324, zone: 30, hemisphere: 'N', easting: 808084, northing: 14386, toleranceM: 1, source: IBM },
-  { what: '45.6456°S 23.3545°E', latDeg: -45.6456, lonDeg: 23.3545, zone: 34, hemisphere: 'S', easting: 683474, northing: 4942631, toleranceM: 1, source: IBM },
-  { what: '12.765°S 33.8765°W', latDeg: -12.765, lonDeg: -33.8765, zone: 25, hemisphere: 'S', easting: 404859, northing: 8588691, toleranceM: 1, source: IBM },
-  { what: '23.4578°N 135.4545°W', latDeg: 23.4578, lonDeg: -135.4545, zone: 8, hemisphere: 'N', easting: 453580, northing: 2594273, toleranceM: 1, source: IBM },
-  { what: '77.345°N 156.9876°E', latDeg: 77.345, lonDeg: 156.9876, zone: 57, hemisphere: 'N', easting: 450794, northing: 8586116, toleranceM: 1, source: IBM },
+  {
+    what: '0.13°N 0.2324°W',
+    latDeg: 0.13,
+    lonDeg: -0.2324,
+    zone: 30,
+    hemisphere: 'N',
+    easting: 808084,
+    northing: 14386,
+    toleranceM: 1,
+    source: IBM,
+  },
+  {
+    what: '45.6456°S 23.3545°E',
+    latDeg: -45.6456,
+    lonDeg: 23.3545,
+    zone: 34,
+    hemisphere: 'S',
+    easting: 683474,
+    northing: 4942631,
+    toleranceM: 1,
+    source: IBM,
+  },
+  {
+    what: '12.765°S 33.8765°W',
+    latDeg: -12.765,
+    lonDeg: -33.8765,
+    zone: 25,
+    hemisphere: 'S',
+    easting: 404859,
+    northing: 8588691,
+    toleranceM: 1,
+    source: IBM,
+  },
+  {
+    what: '23.4578°N 135.4545°W',
+    latDeg: 23.4578,
+    lonDeg: -135.4545,
+    zone: 8,
+    hemisphere: 'N',
+    easting: 453580,
+    northing: 2594273,
+    toleranceM: 1,
+    source: IBM,
+  },
+  {
+    what: '77.345°N 156.9876°E',
+    latDeg: 77.345,
+    lonDeg: 156.9876,
+    zone: 57,
+    hemisphere: 'N',
+    easting: 450794,
+    northing: 8586116,
+    toleranceM: 1,
+    source: IBM,
+  },
 ];
 
 describe('toUtm against published conversions', () => {
@@ -258,12 +399,26 @@ describe('fromUtm checks', () => {
     ['easting 1 000 000', { zone: 33, hemisphere: 'N', easting: 1_000_000, northing: 10 }, 'easting-out-of-range', 'easting'],
     ['easting NaN', { zone: 33, hemisphere: 'N', easting: Number.NaN, northing: 10 }, 'not-finite', 'easting'],
     ['negative northing', { zone: 33, hemisphere: 'N', easting: 500000, northing: -1 }, 'northing-out-of-range', 'northing'],
-    ['northing past 10 000 km', { zone: 33, hemisphere: 'S', easting: 500000, northing: 10_000_001 }, 'northing-out-of-range', 'northing'],
+    [
+      'northing past 10 000 km',
+      { zone: 33, hemisphere: 'S', easting: 500000, northing: 10_000_001 },
+      'northing-out-of-range',
+      'northing',
+    ],
     ['north of 84°N', { zone: 33, hemisphere: 'N', easting: 500000, northing: 9_400_000 }, 'outside-utm-area', 'latitude'],
     ['south of 80°S', { zone: 33, hemisphere: 'S', easting: 500000, northing: 1_000_000 }, 'outside-utm-area', 'latitude'],
     ['far from the meridian at 83°N', { zone: 33, hemisphere: 'N', easting: 1000, northing: 9_200_000 }, 'outside-zone', 'zone'],
   ] as const)('%s', (_what, utm, code, part) => {
     expectCoordinateError(() => fromUtm(utm as never), code, part);
+  });
+
+  it('reads positions in the 30′ polar overlap but writes only inside 80°S–84°N', () => {
+    // Source: UTM overlaps UPS to 84.5°N and 80.5°S (apsalin.com UTM converter notes; DMA TM 8358.2 from memory).
+    const [, north = Number.NaN] = proj4('EPSG:4326', 'EPSG:32633', [15, 84.3]);
+    expectWithin(fromUtm({ zone: 33, hemisphere: 'N', easting: 500_000, northing: north }).latDeg, 84.3, 1e-9);
+    const [, south = Number.NaN] = proj4('EPSG:4326', 'EPSG:32733', [15, -80.3]);
+    expectWithin(fromUtm({ zone: 33, hemisphere: 'S', easting: 500_000, northing: south }).latDeg, -80.3, 1e-9);
+    expectCoordinateError(() => toUtm({ latDeg: 84.3, lonDeg: 15 }), 'outside-utm-area', 'latitude');
   });
 
   it('returns longitudes in [−180, 180)', () => {
