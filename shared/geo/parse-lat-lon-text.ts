@@ -113,7 +113,8 @@ function tokenize(text: string): Token[] {
       i += 1;
     } else if (MINUTE_MARKS.includes(ch)) {
       // Two minute marks in a row ('' or ′′) stand for a second mark.
-      const double = MINUTE_MARKS.includes(text.charAt(i + 1));
+      const next = text.charAt(i + 1);
+      const double = next !== '' && MINUTE_MARKS.includes(next);
       tokens.push({ kind: 'mark', unit: double ? 'sec' : 'min', start: i, end: i + (double ? 2 : 1) });
       i += double ? 2 : 1;
     } else if (SECOND_MARKS.includes(ch)) {
@@ -169,7 +170,11 @@ function split(tokens: readonly Token[], text: string): [Token[], Token[]] {
 
   const letters = tokens.filter(isLetter);
   if (letters.length > 2) {
-    throw fail('hemisphere-conflict', 'text', `“${text}” has ${letters.length} hemisphere letters; give one for the latitude and one for the longitude.`);
+    throw fail(
+      'hemisphere-conflict',
+      'text',
+      `“${text}” has ${letters.length} hemisphere letters; give one for the latitude and one for the longitude.`,
+    );
   }
   if (letters.length === 2) {
     const second = tokens.indexOf(letters[1] as Token);
@@ -187,7 +192,9 @@ function split(tokens: readonly Token[], text: string): [Token[], Token[]] {
 
   // No separator and at most one letter: split the numbers.
   const numbers = tokens.filter(isNumber);
-  const degreeMarked = tokens.flatMap((t, i) => (t.kind === 'mark' && t.unit === 'deg' && isNumber(tokens[i - 1]) ? [i - 1] : []));
+  const degreeMarked = tokens.flatMap((t, i) =>
+    t.kind === 'mark' && t.unit === 'deg' && isNumber(tokens[i - 1]) ? [i - 1] : [],
+  );
   let at: number;
   if (degreeMarked.length === 2) {
     at = degreeMarked[1] as number;
@@ -223,7 +230,11 @@ function readHalf(tokens: readonly Token[], text: string): Half {
     core = core.slice(0, -1);
   }
   if (core.some(isLetter)) {
-    throw fail('hemisphere-placement', 'text', `In ${where} the hemisphere letter must come before or after the numbers, not between them.`);
+    throw fail(
+      'hemisphere-placement',
+      'text',
+      `In ${where} the hemisphere letter must come before or after the numbers, not between them.`,
+    );
   }
   if (!core.some(isNumber)) throw fail('missing-number', 'text', `${where} has no number.`);
 
@@ -240,7 +251,11 @@ function readHalf(tokens: readonly Token[], text: string): Half {
     }
   });
   if (parts.length > 3) {
-    throw fail('too-many-parts', 'text', `${where} has ${parts.length} numbers; a latitude or longitude has at most three (degrees, minutes, seconds).`);
+    throw fail(
+      'too-many-parts',
+      'text',
+      `${where} has ${parts.length} numbers; a latitude or longitude has at most three (degrees, minutes, seconds).`,
+    );
   }
   parts.forEach((part, i) => {
     const expected = UNIT_ORDER[i] as Unit;
@@ -331,9 +346,16 @@ export function parseLatLonText(text: string): LatLonText {
   const a = readHalf(left, slice(left));
   const b = readHalf(right, slice(right));
 
-  if ((isLatitudeLetter(a.letter) && isLatitudeLetter(b.letter)) || (isLongitudeLetter(a.letter) && isLongitudeLetter(b.letter))) {
+  if (
+    (isLatitudeLetter(a.letter) && isLatitudeLetter(b.letter)) ||
+    (isLongitudeLetter(a.letter) && isLongitudeLetter(b.letter))
+  ) {
     const kind = isLatitudeLetter(a.letter) ? 'latitudes (N/S)' : 'longitudes (E/W)';
-    throw fail('hemisphere-conflict', 'text', `Both “${a.text}” and “${b.text}” are marked as ${kind}; give one latitude (N/S) and one longitude (E/W).`);
+    throw fail(
+      'hemisphere-conflict',
+      'text',
+      `Both “${a.text}” and “${b.text}” are marked as ${kind}; give one latitude (N/S) and one longitude (E/W).`,
+    );
   }
   const swapped = isLongitudeLetter(a.letter) || isLatitudeLetter(b.letter);
   const [lat, lon] = swapped ? [b, a] : [a, b];
@@ -348,7 +370,8 @@ export function parseLatLonText(text: string): LatLonText {
   }
   const lettered = a.letter !== null || b.letter !== null;
   if (Math.abs(lat.valueDeg) > 90) {
-    const hint = !lettered && Math.abs(lon.valueDeg) <= 90 ? ' Did you put the longitude first? Without N/S/E/W, latitude comes first.' : '';
+    const hint =
+      !lettered && Math.abs(lon.valueDeg) <= 90 ? ' Did you put the longitude first? Without N/S/E/W, latitude comes first.' : '';
     throw fail(
       'latitude-out-of-range',
       'latitude',
