@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import compression from 'compression';
 import express, { type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
@@ -40,6 +41,8 @@ export function createApp({ db, config, mailer = null }: AppDeps) {
   app.disable('x-powered-by');
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
 
+  // The web bundle is ~2 MB of JavaScript; gzip brings it under 0.5 MB for phones.
+  app.use(compression());
   app.use((_req, res, next) => {
     res.setHeader('X-Content-Type-Options', 'nosniff');
     res.setHeader('Referrer-Policy', 'same-origin');

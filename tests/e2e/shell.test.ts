@@ -96,3 +96,15 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
     }
   });
 });
+
+describe('the web app as served', () => {
+  it('sends the entry bundle gzip-compressed', async () => {
+    const html = await (await fetch(`${e2eUrl()}/`)).text();
+    const src = /src="(\/_expo\/static\/js\/web\/entry-[^"]+\.js)"/.exec(html)?.[1];
+    expect(src).toBeDefined();
+    const res = await fetch(`${e2eUrl()}${src}`, { headers: { 'Accept-Encoding': 'gzip' } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-encoding')).toBe('gzip');
+    expect(res.headers.get('cache-control')).toMatch(/immutable/);
+  });
+});
