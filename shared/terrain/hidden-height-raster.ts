@@ -339,8 +339,12 @@ function sweepOctant(
         // slope at the target, ∝ qb·i + zt − E, is positive (a back slope).
         const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
         const n0 = qb * i + zt - eye;
-        if (n0 > 0) {
-          const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
+        const qa = n0 > 0 ? m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m) : 0;
+        // Upper bound of the contribution on 0 < v < 1: q(v) − zt ≤ max(qb, 0) + max(qa, 0),
+        // and the factor i/(i − v) adds at most 1/(i − 1) of any excess over the eye.
+        const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
+        const over = zt - eye + rise;
+        if (n0 > 0 && rise + (over > 0 ? over * invIPrev : 0) > need) {
           const x = n0 / qa;
           const disc = i * i + x;
           if (disc >= 0) {

@@ -1,0 +1,192 @@
+/**
+ * Viewshed benchmark: Kenning's hidden-height engine against GDAL's
+ * `gdal_viewshed -om GROUND` on the same seeded synthetic terrains (1000²,
+ * 2000², 4000² cells of 25 m), plus a whole plan — 10 posts × 3 conditions on
+ * 2000² — through the worker pool. Speed figures only; nothing passes or fails.
+ *
+ * Timings are medians of a few runs, wall clock, after a warm-up run that
+ * lets the JIT compile the sweep. GDAL's time is the whole process (start-up,
+ * reading the GeoTIFF, computing, writing); the engine's "core" time is the
+ * computation on a raster already in memory and its "file to file" time adds
+ * decoding and encoding the GeoTIFFs, for a like-for-like comparison.
+ */
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { createViewshedPool, type ViewshedJob } from '@/server/workers/viewshed-pool';
+import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
+import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
+import { computeHiddenHeightRaster, type SightConditions } from '@/shared/terrain/hidden-height-raster';
+import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+
+interface Row {
+  name: string;
+  value: number;
+  unit: string;
+  detail?: string;
+}
+
+const EYE = 15; // metres
+const K = 0.13;
+/** GDAL uses the CRS's semi-major axis as the earth radius; so does the engine here. */
+const CONDITIONS: SightConditions = { refractionCoefficient: K, earthRadius: 6_378_137 };
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.floor(sorted.length / 2)] as number;
+}
+
+function timed(fn: () => void, runs: number): number {
+  const times: number[] = [];
+  for (let r = 0; r < runs; r++) {
+    const t0 = performance.now();
+    fn();
+    times.push(performance.now() - t0);
+  }
+  return median(times);
+}
+
+async function timedAsync(fn: () => Promise<void>, runs: number): Promise<number> {
+  const times: number[] = [];
+  for (let r = 0; r < runs; r++) {
+    const t0 = performance.now();
+    await fn();
+    times.push(performance.now() - t0);
+  }
+  return median(times);
+}
+
+const gdalAvailable = (() => {
+  const probe = spawnSync('gdal_viewshed', ['--version'], { encoding: 'utf8' });
+  return probe.error === undefined && /GDAL \d/.test(probe.stdout + probe.stderr);
+})();
+
+function postOf(terrain: TerrainRaster): { col: number; row: number; eyeHeight: number } {
+  return { col: Math.floor(terrain.width * 0.45), row: Math.floor(terrain.height * 0.55), eyeHeight: EYE };
+}
+
+function toArrayBuffer(bytes: Buffer): ArrayBuffer {
+  return bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer;
+}
+
+/** Runs the viewshed benchmark and returns its figures. */
+export async function benchViewshed(): Promise<Row[]> {
+  const rows: Row[] = [];
+  const dir = mkdtempSync(path.join(os.tmpdir(), 'kenning-viewshed-bench-'));
+  try {
+    // Warm-up: let the JIT compile the sweep before anything is timed.
+    const warm = generateSyntheticTerrain({ width: 400, height: 400, seed: 99 });
+    for (let i = 0; i < 3; i++) computeHiddenHeightRaster(warm, postOf(warm), CONDITIONS);
+
+    for (const size of [1000, 2000, 4000]) {
+      const terrain = generateSyntheticTerrain({ width: size, height: size, seed: 4242 });
+      const post = postOf(terrain);
+      const cells = size * size;
+      const input = path.join(dir, `dem-${size}.tif`);
+      writeFileSync(input, Buffer.from(writeGeoTiff(terrain, terrain.heights, { nodata: null })));
+      const runs = size >= 4000 ? 3 : 5;
+
+      const core = timed(() => {
+        computeHiddenHeightRaster(terrain, post, CONDITIONS);
+      }, runs);
+      const output = path.join(dir, `ours-${size}.tif`);
+      const fileToFile = await timedAsync(async () => {
+        const dem = await readGeoTiff(toArrayBuffer(readFileSync(input)));
+        const hidden = computeHiddenHeightRaster(dem, post, CONDITIONS);
+        writeFileSync(output, Buffer.from(writeGeoTiff(hidden, hidden.hidden)));
+      }, runs);
+      rows.push({ name: `engine core, one post, ${size}²`, value: core, unit: 'ms' });
+      rows.push({ name: `engine core throughput, ${size}²`, value: cells / 1e6 / (core / 1000), unit: 'Mcells/s' });
+      rows.push({ name: `engine file to file (read tif, compute, write tif), ${size}²`, value: fileToFile, unit: 'ms' });
+
+      if (gdalAvailable) {
+        const x = terrain.xll + (post.col + 0.5) * terrain.cellSize;
+        const y = terrain.yll + (size - post.row - 0.5) * terrain.cellSize;
+        const gdalOut = path.join(dir, `gdal-${size}.tif`);
+        const gdal = timed(() => {
+          execFileSync('gdal_viewshed', [
+            '-q',
+            '-om',
+            'GROUND',
+            '-oz',
+            String(EYE),
+            '-tz',
+            '0',
+            '-cc',
+            String(1 - K),
+            '-ox',
+            String(x),
+            '-oy',
+            String(y),
+            input,
+            gdalOut,
+          ]);
+        }, runs);
+        rows.push({ name: `gdal_viewshed -om GROUND (whole process), ${size}²`, value: gdal, unit: 'ms' });
+        rows.push({
+          name: `ratio engine core / gdal_viewshed, ${size}²`,
+          value: core / gdal,
+          unit: '×',
+          detail: '≤ 1 means Kenning is faster',
+        });
+        rows.push({
+          name: `ratio engine file to file / gdal_viewshed, ${size}²`,
+          value: fileToFile / gdal,
+          unit: '×',
+        });
+      } else {
+        rows.push({ name: `gdal_viewshed, ${size}²`, value: NaN, unit: 'ms', detail: 'gdal_viewshed not on PATH' });
+      }
+      const memory = process.memoryUsage();
+      rows.push({
+        name: `peak RSS so far (after ${size}²)`,
+        value: process.resourceUsage().maxRSS / 1024,
+        unit: 'MiB',
+        detail: `now: rss ${(memory.rss / 2 ** 20).toFixed(0)} MiB, array buffers ${(memory.arrayBuffers / 2 ** 20).toFixed(0)} MiB`,
+      });
+    }
+
+    // A whole plan: 10 posts × 3 conditions on 2000², both cores through the pool.
+    const plan = generateSyntheticTerrain({ width: 2000, height: 2000, seed: 4243 });
+    const jobs: ViewshedJob[] = [];
+    for (let p = 0; p < 10; p++) {
+      const post = { col: 150 + p * 170, row: 200 + ((p * 577) % 1600), eyeHeight: EYE };
+      for (const k of [0.13, 0, -0.2]) jobs.push({ post, conditions: { refractionCoefficient: k } });
+    }
+    const t0 = performance.now();
+    const pool = createViewshedPool();
+    try {
+      await pool.run(plan, jobs);
+      const cold = performance.now() - t0;
+      const warmRuns: number[] = [];
+      for (let r = 0; r < 3; r++) {
+        const t1 = performance.now();
+        await pool.run(plan, jobs);
+        warmRuns.push(performance.now() - t1);
+      }
+      rows.push({
+        name: `plan 10 posts × 3 conditions, 2000², pool of ${pool.size}, cold`,
+        value: cold / 1000,
+        unit: 's',
+        detail: 'includes starting the workers and sharing the terrain',
+      });
+      rows.push({
+        name: `plan 10 posts × 3 conditions, 2000², pool of ${pool.size}, warm`,
+        value: median(warmRuns) / 1000,
+        unit: 's',
+      });
+    } finally {
+      await pool.close();
+    }
+    const sequential = timed(() => {
+      for (const job of jobs) computeHiddenHeightRaster(plan, job.post, job.conditions);
+    }, 1);
+    rows.push({ name: 'plan 10 posts × 3 conditions, 2000², one thread, no pool', value: sequential / 1000, unit: 's' });
+    rows.push({ name: 'peak RSS of the benchmark process', value: process.resourceUsage().maxRSS / 1024, unit: 'MiB' });
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+  return rows;
+}
