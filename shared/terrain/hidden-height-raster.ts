@@ -52,23 +52,38 @@ export interface HiddenHeightRaster extends RasterGrid {
  * the eye (0 where the ground itself is seen).
  *
  * Terrain model: heights stand for cell centres and the surface between them
- * is interpolated linearly along grid lines. Earth curvature and refraction
- * are applied by lowering each height by (1 − k)·d²/(2R) for its horizontal
- * distance d from the post, after which sight lines are straight.
- * The eye is at the ground of the post's cell plus `eyeHeight`; the target
- * stands at the centre of its cell.
+ * is bilinear. Earth curvature and refraction are applied by lowering each
+ * height by (1 − k)·d²/(2R) for its horizontal distance d from the post,
+ * after which sight lines are straight. The eye is at the ground of the
+ * post's cell plus `eyeHeight`; the target stands at the centre of its cell.
  *
  * Algorithm ("obstacle-tracking horizon sweep", O(cells)): the grid is swept
- * in eight octants, column by column away from the post. For every cell the
+ * in eight octants, column by column away from the post (a "column" is a
+ * line of cells across the octant's main direction). For every cell the
  * sweep keeps the column of the obstacle that set its horizon. A new cell's
  * sight line crosses the previous column between two cells; the candidates
  * for its horizon are the terrain at that crossing and the obstacles recorded
- * by those two cells, each evaluated exactly where
- * the new cell's own sight line crosses the obstacle's column. Unlike sweeps
- * that interpolate horizon angles between neighbours, every candidate is a
- * real point of the true sight line, so the sweep never invents an obstacle;
- * it can only miss one that dominates a sight line without dominating any
- * neighbouring line, which is rare.
+ * by those two cells, each evaluated exactly where the new cell's own sight
+ * line crosses the obstacle's column. Unlike sweeps that interpolate horizon
+ * angles between neighbouring cells, every candidate is a real point of the
+ * true sight line, so the sweep never invents an obstacle; it can only miss
+ * one that dominates a sight line without dominating either neighbouring
+ * line, which is rare. On the last stretch before the target (one bilinear
+ * patch) the exact maximum of the surface's effect is found in closed form,
+ * which catches ground hidden by its own back slope.
+ *
+ * Known limitation: farther back, the surface is sampled only where the sight
+ * line crosses columns, so a sharp crest running almost along the sight line
+ * (crossed between two columns) can be under-estimated. Measured against a
+ * brute-force bilinear checker on synthetic hill country: 99.9–99.99 % of
+ * cells agree on seen / not seen for 0 m and 10 m targets and the median
+ * hidden-height error over hidden cells is below 1 mm
+ * (`tests/unit/terrain/hidden-height-raster.test.ts`).
+ *
+ * Memory: north–south octants read the row-major heights, east–west octants
+ * a column-major copy (see `sweep-terrain.ts`), so every sweep reads
+ * contiguous memory; the result (4 bytes per cell) is the only other large
+ * allocation.
  *
  * Nodata cells do not block sight (the grid-line segments touching them are
  * left out) and get NaN in the result. Cells farther than `maxDistance` get
