@@ -78,7 +78,7 @@ export function createApp({ db, config, mailer = null }: AppDeps) {
 
   const v1 = express.Router();
   v1.use(sightlineRoutes());
-  v1.use(siteRoutes());
+  v1.use(siteRoutes(db));
   v1.use(userRoutes(db, publicUrl, mailer));
   v1.use(caughtMailRoutes(config.CAUGHT_MAIL_URL ? createCaughtMailClient(config.CAUGHT_MAIL_URL) : null));
   api.use('/v1', v1);

@@ -39,6 +39,7 @@ export function HomeOverview() {
 
 function SiteList() {
   const sites = useSites();
+  const router = useRouter();
   if (sites.isPending) return <LoadingState label="Loading sites…" />;
   if (sites.isError) return <ErrorState error={sites.error} onRetry={() => void sites.refetch()} />;
   if (sites.data.items.length === 0) {
@@ -52,12 +53,14 @@ function SiteList() {
   return (
     <View style={{ gap: space.sm }}>
       {sites.data.items.map((s) => (
-        <Card key={s.id} style={styles.row}>
-          <AppText variant="heading">{s.name}</AppText>
-          <AppText variant="small" tone="muted">
-            {SITE_KIND_LABELS[s.kind]}
-          </AppText>
-        </Card>
+        <Pressable key={s.id} role="link" aria-label={s.name} onPress={() => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: s.id } })}>
+          <Card style={styles.row}>
+            <AppText variant="heading">{s.name}</AppText>
+            <AppText variant="small" tone="muted">
+              {SITE_KIND_LABELS[s.kind]} · {s.postCount} post{s.postCount === 1 ? '' : 's'}
+            </AppText>
+          </Card>
+        </Pressable>
       ))}
     </View>
   );

@@ -1,7 +1,8 @@
 import { z } from 'zod';
+import { LatLonSchema } from './coordinate';
 
 export const SITE_KINDS = ['forest-district', 'coast-stretch', 'search-area'] as const;
-export const SiteKindSchema = z.enum(SITE_KINDS);
+export const SiteKindSchema = z.enum(SITE_KINDS, { error: `Choose one of: ${SITE_KINDS.join(', ')}.` });
 export type SiteKind = z.infer<typeof SiteKindSchema>;
 
 export const SITE_KIND_LABELS: Record<SiteKind, string> = {
@@ -10,16 +11,78 @@ export const SITE_KIND_LABELS: Record<SiteKind, string> = {
   'search-area': 'Search area',
 };
 
-/** A site as listed: the place an agency plans lookouts for. */
-export const SiteSummarySchema = z.object({
+export const UNIT_SYSTEM_IDS = ['metric', 'nautical', 'imperial'] as const;
+
+/**
+ * A polygon ring as [longitude, latitude] pairs (GeoJSON order, WGS84 degrees),
+ * 3 to 2 000 distinct corners; the closing corner may be given or left out.
+ */
+export const RingSchema = z
+  .array(z.tuple([z.number().min(-180).max(180), z.number().min(-90).max(90)]), { error: 'Give the corners as [longitude, latitude] pairs.' })
+  .min(3, 'A boundary needs at least three corners.')
+  .max(2000, 'At most 2 000 corners.')
+  .transform((ring) => {
+    const [first] = ring;
+    const last = ring[ring.length - 1];
+    const closed = first && last && first[0] === last[0] && first[1] === last[1];
+    return closed ? ring : [...ring, first!];
+  })
+  .refine((ring) => new Set(ring.slice(0, -1).map((p) => p.join(','))).size >= 3, 'A boundary needs at least three distinct corners.');
+
+export const PriorityZoneSchema = z.object({
+  name: z.string().trim().min(1, 'Name the zone.').max(120),
+  /** Relative importance, 1 (low) … 10 (high). */
+  weight: z.number().int().min(1, 'Weight is 1 to 10.').max(10, 'Weight is 1 to 10.'),
+  ring: RingSchema,
+});
+export type PriorityZone = z.infer<typeof PriorityZoneSchema>;
+
+/** A site: the place an agency plans lookouts for. */
+export const SiteSchema = z.object({
   id: z.uuid(),
   name: z.string(),
   kind: SiteKindSchema,
   notes: z.string(),
+  /** Outer boundary ring (closed), or null while not drawn yet. */
+  boundary: z.array(z.tuple([z.number(), z.number()])).nullable(),
+  priorityZones: z.array(z.object({ name: z.string(), weight: z.number(), ring: z.array(z.tuple([z.number(), z.number()])) })),
+  defaultUnits: z.enum(UNIT_SYSTEM_IDS),
+  /** IANA time zone, e.g. Europe/Oslo. */
+  timeZone: z.string(),
+  version: z.number().int(),
   /** ISO 8601. */
   updatedAt: z.string(),
 });
+export type Site = z.infer<typeof SiteSchema>;
+
+export const SiteSummarySchema = SiteSchema.pick({ id: true, name: true, kind: true, notes: true, updatedAt: true }).extend({
+  postCount: z.number().int(),
+});
 export type SiteSummary = z.infer<typeof SiteSummarySchema>;
+
+const isTimeZone = (tz: string) => {
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: tz });
+    return true;
+  } catch {
+    return false;
+  }
+};
+
+export const SiteInputSchema = z.object({
+  name: z.string({ error: 'Name the site.' }).trim().min(1, 'Name the site.').max(160, 'At most 160 characters.'),
+  kind: SiteKindSchema,
+  notes: z.string().max(5000, 'At most 5 000 characters.').default(''),
+  boundary: RingSchema.nullable().default(null),
+  priorityZones: z.array(PriorityZoneSchema).max(50, 'At most 50 zones.').default([]),
+  defaultUnits: z.enum(UNIT_SYSTEM_IDS).default('metric'),
+  timeZone: z.string().refine(isTimeZone, 'Not a time zone name (use e.g. Europe/Oslo).').default('UTC'),
+});
+export type SiteInput = z.infer<typeof SiteInputSchema>;
+
+export const SiteUpdateSchema = SiteInputSchema.partial().extend({
+  version: z.number({ error: 'Send the version you last saw.' }).int(),
+});
 
 /** One page of a list endpoint. */
 export const pageOf = <T extends z.ZodType>(item: T) =>
@@ -31,3 +94,58 @@ export const PageQuerySchema = z.object({
   page: z.coerce.number().int().min(1, 'Pages start at 1.').default(1),
   pageSize: z.coerce.number().int().min(1).max(200, 'At most 200 per page.').default(50),
 });
+
+// ---------------------------------------------------------------- posts
+
+export const POST_KINDS = ['tower', 'hilltop', 'shore-post', 'vessel', 'aircraft'] as const;
+export const POST_KIND_LABELS: Record<(typeof POST_KINDS)[number], string> = {
+  tower: 'Tower',
+  hilltop: 'Hilltop',
+  'shore-post': 'Shore post',
+  vessel: 'Vessel',
+  aircraft: 'Aircraft',
+};
+export const POST_STATUSES = ['existing', 'proposed'] as const;
+
+const metres = (what: string, max: number) =>
+  z.number({ error: `${what} must be a number of metres.` }).min(0, `${what} cannot be negative.`).max(max, `${what} must be at most ${max} m.`);
+const bearing = z.number({ error: 'A bearing is a number of degrees.' }).min(0, 'Bearings run 0–360°.').max(360, 'Bearings run 0–360°.');
+
+/** A place a lookout watches from. Heights in metres; location WGS84. */
+export const PostSchema = z.object({
+  id: z.uuid(),
+  siteId: z.uuid(),
+  name: z.string(),
+  kind: z.enum(POST_KINDS),
+  location: LatLonSchema,
+  /** Ground (or sea) elevation at the post, metres above the datum. */
+  groundElevationM: z.number(),
+  /** Height of the structure (tower cab floor, deck), metres above ground. */
+  structureHeightM: z.number(),
+  /** Eye height above the platform, metres. */
+  eyeHeightM: z.number(),
+  /** Viewing sector, clockwise from → to, degrees true; null = all round. */
+  sector: z.object({ fromDeg: z.number(), toDeg: z.number() }).nullable(),
+  status: z.enum(POST_STATUSES),
+  version: z.number().int(),
+  updatedAt: z.string(),
+});
+export type Post = z.infer<typeof PostSchema>;
+
+export const PostInputSchema = z.object({
+  name: z.string({ error: 'Name the post.' }).trim().min(1, 'Name the post.').max(120, 'At most 120 characters.'),
+  kind: z.enum(POST_KINDS, { error: `Choose one of: ${POST_KINDS.join(', ')}.` }),
+  location: LatLonSchema,
+  groundElevationM: z.number({ error: 'Ground elevation must be a number of metres.' }).min(-500, 'At least −500 m.').max(9000, 'At most 9 000 m.'),
+  structureHeightM: metres('Structure height', 500).default(0),
+  eyeHeightM: metres('Eye height', 10).default(1.6),
+  sector: z.object({ fromDeg: bearing, toDeg: bearing }).nullable().default(null),
+  status: z.enum(POST_STATUSES).default('existing'),
+});
+export type PostInput = z.infer<typeof PostInputSchema>;
+
+export const PostUpdateSchema = PostInputSchema.partial().extend({
+  version: z.number({ error: 'Send the version you last saw.' }).int(),
+});
+
+export const PostListSchema = z.object({ items: z.array(PostSchema) });

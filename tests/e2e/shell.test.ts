@@ -12,7 +12,7 @@ beforeAll(async () => {
 afterAll(() => close());
 
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
-  it('signs in, shows the shell and the empty home, and signs out', async () => {
+  it('signs in, shows the shell and the sites, and signs out', async () => {
     const { context, page } = await newPage(browser, viewport);
     const errors = watchErrors(page);
     try {
@@ -27,7 +27,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
 
       await signIn(page, DEMO.planner);
       await page.getByText('Your sites').first().waitFor();
-      await page.getByText('No sites yet').waitFor();
+      // The demo scenario's sites are listed.
+      await page.getByText('Harrowmere Forest District').waitFor();
+      await page.getByText('Tallow Strand').waitFor();
       const nav = page.getByRole('navigation', { name: 'Main' });
       const box = await nav.boundingBox();
       expect(box).not.toBeNull();

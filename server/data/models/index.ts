@@ -1,18 +1,27 @@
 import type { Sequelize } from 'sequelize';
+import { AuditEventModel } from './audit-event';
 import { OrganizationModel } from './organization';
-import { SiteModel } from './site';
+import { PostModel } from './post';
+import { PriorityZoneModel, SiteModel } from './site';
 import { UserModel } from './user';
 
-export { OrganizationModel, SiteModel, UserModel };
+export { AuditEventModel, OrganizationModel, PostModel, PriorityZoneModel, SiteModel, UserModel };
 
 /** Registers every model and declares all associations, in one place. */
 export function initModels(sequelize: Sequelize): void {
   OrganizationModel.register(sequelize);
   UserModel.register(sequelize);
   SiteModel.register(sequelize);
+  PriorityZoneModel.register(sequelize);
+  PostModel.register(sequelize);
+  AuditEventModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
   OrganizationModel.hasMany(SiteModel, { foreignKey: 'organizationId', as: 'sites' });
   SiteModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
+  SiteModel.hasMany(PriorityZoneModel, { foreignKey: 'siteId', as: 'zones' });
+  PriorityZoneModel.belongsTo(SiteModel, { foreignKey: 'siteId', as: 'site' });
+  SiteModel.hasMany(PostModel, { foreignKey: 'siteId', as: 'posts' });
+  PostModel.belongsTo(SiteModel, { foreignKey: 'siteId', as: 'site' });
 }

@@ -1,7 +1,11 @@
 import type { Sequelize } from 'sequelize';
 import type { Role } from '@/shared/schemas/auth';
 import { hashPassword } from '@/server/domain/auth/passwords';
-import { OrganizationModel, UserModel } from '../models';
+import { fromUtm } from '@/shared/geo/from-utm';
+import type { PostInput, SiteInput } from '@/shared/schemas/site';
+import { OrganizationModel, SiteModel, UserModel } from '../models';
+import { postsRepository } from '../repositories/posts-repository';
+import { sitesRepository } from '../repositories/sites-repository';
 
 /** Invented demo scenario. Every demo account uses this password. */
 export const DEMO_PASSWORD = 'kenning-demo';
@@ -31,8 +35,95 @@ export const DEMO_ORGANIZATIONS = [
   users: ReadonlyArray<{ email: string; name: string; role: Role }>;
 }>;
 
-/** Seeds the demo organisations and users once; returns false when already seeded. */
+/** A point of the demo terrain's grid (UTM zone 33N, invented coordinates) as latitude/longitude. */
+const utm33 = (easting: number, northing: number) => {
+  const p = fromUtm({ zone: 33, hemisphere: 'N', easting, northing });
+  return { latDeg: p.latDeg, lonDeg: p.lonDeg };
+};
+const ring = (corners: [number, number][]) =>
+  corners.map(([e, n]) => {
+    const p = utm33(e, n);
+    return [p.lonDeg, p.latDeg] as [number, number];
+  });
+
+/** The invented scenario: a forest district on the demo terrain and a coast stretch. */
+export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
+  {
+    site: {
+      name: 'Harrowmere Forest District',
+      kind: 'forest-district',
+      notes: 'Fire season May–September. Smokes are fixed by cross-bearings from two towers.',
+      boundary: ring([
+        [513_000, 5_732_000],
+        [526_000, 5_732_500],
+        [525_500, 5_745_000],
+        [514_500, 5_744_000],
+      ]),
+      priorityZones: [
+        {
+          name: 'Old-growth stand',
+          weight: 9,
+          ring: ring([
+            [517_000, 5_736_000],
+            [521_000, 5_736_000],
+            [521_000, 5_740_000],
+            [517_000, 5_740_000],
+          ]),
+        },
+      ],
+      defaultUnits: 'metric',
+      timeZone: 'Europe/Berlin',
+    },
+    posts: [
+      { name: 'Crane Knoll Tower', kind: 'tower', location: utm33(516_200, 5_741_300), groundElevationM: 612, structureHeightM: 22, eyeHeightM: 1.6, sector: null, status: 'existing' },
+      { name: 'Sedge Ridge Tower', kind: 'tower', location: utm33(523_400, 5_739_800), groundElevationM: 688, structureHeightM: 18, eyeHeightM: 1.6, sector: null, status: 'existing' },
+      { name: 'Blackmoss Tower', kind: 'tower', location: utm33(519_600, 5_733_900), groundElevationM: 455, structureHeightM: 30, eyeHeightM: 1.6, sector: null, status: 'proposed' },
+    ],
+  },
+  {
+    site: {
+      name: 'Tallow Strand',
+      kind: 'coast-stretch',
+      notes: 'Summer watch 08:00–20:00. Bathers, small craft and kayaks.',
+      boundary: ring([
+        [530_000, 5_750_000],
+        [548_000, 5_750_000],
+        [548_000, 5_762_000],
+        [530_000, 5_762_000],
+      ]),
+      priorityZones: [],
+      defaultUnits: 'nautical',
+      timeZone: 'Europe/Berlin',
+    },
+    posts: [
+      { name: 'Gull Point', kind: 'shore-post', location: utm33(533_000, 5_751_200), groundElevationM: 14, structureHeightM: 6, eyeHeightM: 1.6, sector: { fromDeg: 290, toDeg: 110 }, status: 'existing' },
+      { name: 'Fenwick Head', kind: 'shore-post', location: utm33(544_500, 5_751_800), groundElevationM: 38, structureHeightM: 0, eyeHeightM: 1.6, sector: { fromDeg: 270, toDeg: 90 }, status: 'existing' },
+      { name: 'Patrol vessel Kittiwake', kind: 'vessel', location: utm33(539_000, 5_757_000), groundElevationM: 0, structureHeightM: 4.5, eyeHeightM: 1.6, sector: null, status: 'existing' },
+    ],
+  },
+];
+
+/** Seeds the demo sites once per organisation that has none. */
+async function seedDemoSites(db: Sequelize): Promise<boolean> {
+  const org = await OrganizationModel.findOne({ where: { slug: DEMO_ORGANIZATIONS[0].slug } });
+  if (!org || (await SiteModel.count({ where: { organizationId: org.id }, paranoid: false })) > 0) return false;
+  await db.transaction(async (t) => {
+    for (const { site, posts } of DEMO_SITES) {
+      const created = await sitesRepository.create(org.id, site, t);
+      for (const post of posts) await postsRepository.create(org.id, created.id, post, t);
+    }
+  });
+  return true;
+}
+
+/** Seeds the demo organisations, users and sites once; returns false when nothing was added. */
 export async function seedDemo(db: Sequelize): Promise<boolean> {
+  const accounts = await seedDemoAccounts(db);
+  const sites = await seedDemoSites(db);
+  return accounts || sites;
+}
+
+async function seedDemoAccounts(db: Sequelize): Promise<boolean> {
   if (await OrganizationModel.findOne({ where: { slug: DEMO_ORGANIZATIONS[0].slug } })) return false;
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await db.transaction(async (transaction) => {

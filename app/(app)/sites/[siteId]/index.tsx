@@ -1,0 +1,22 @@
+import { useLocalSearchParams } from 'expo-router';
+import { z } from 'zod';
+import { SiteOverview } from '@/components/sites/site-overview';
+import { Screen } from '@/components/ui/screen';
+import { Notice } from '@/components/ui/states';
+import { AppText } from '@/components/ui/app-text';
+
+const Params = z.object({ siteId: z.uuid() });
+
+export default function SiteScreen() {
+  const parsed = Params.safeParse(useLocalSearchParams());
+  if (!parsed.success) {
+    return (
+      <Screen title="Site">
+        <Notice tone="danger">
+          <AppText>This address does not name a site.</AppText>
+        </Notice>
+      </Screen>
+    );
+  }
+  return <SiteOverview siteId={parsed.data.siteId} />;
+}

@@ -1,0 +1,134 @@
+import { useState } from 'react';
+import { View } from 'react-native';
+import { CoordinateError } from '@/shared/geo/coordinate-error';
+import { formatCoordinate } from '@/shared/geo/format-coordinate';
+import { parseCoordinate } from '@/shared/geo/parse-coordinate';
+import { POST_KIND_LABELS, POST_KINDS, PostInputSchema, type PostInput } from '@/shared/schemas/site';
+import { ApiRequestError } from '@/components/data/api-client';
+import { useCreatePost } from '@/components/data/sites';
+import { Segmented } from '@/components/check/unit-switch';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Notice } from '@/components/ui/states';
+import { TextField } from '@/components/ui/text-field';
+import { space } from '@/components/ui/theme';
+
+type Kind = (typeof POST_KINDS)[number];
+const EMPTY = { name: '', kind: 'tower' as Kind, location: '', ground: '', structure: '0', eye: '1.6', status: 'existing' as 'existing' | 'proposed', sectorFrom: '', sectorTo: '' };
+type Errors = Partial<Record<keyof typeof EMPTY, string>>;
+
+const FIELD: Record<string, keyof typeof EMPTY> = {
+  name: 'name',
+  kind: 'kind',
+  location: 'location',
+  groundElevationM: 'ground',
+  structureHeightM: 'structure',
+  eyeHeightM: 'eye',
+  'sector.fromDeg': 'sectorFrom',
+  'sector.toDeg': 'sectorTo',
+};
+
+/** New post: coordinates in any usual format (DD, DDM, DMS, UTM), heights in metres. */
+export function PostForm({ siteId, onDone }: { siteId: string; onDone?: () => void }) {
+  const [v, setV] = useState(EMPTY);
+  const [errors, setErrors] = useState<Errors>({});
+  const [formError, setFormError] = useState('');
+  const create = useCreatePost(siteId);
+  const set = (k: keyof typeof EMPTY) => (text: string) => setV((f) => ({ ...f, [k]: text }));
+
+  let parsed: ReturnType<typeof parseCoordinate> | null = null;
+  let locationError = '';
+  if (v.location.trim()) {
+    try {
+      parsed = parseCoordinate(v.location);
+    } catch (e) {
+      locationError = e instanceof CoordinateError ? e.message : 'Not a coordinate.';
+    }
+  }
+
+  const submit = () => {
+    setFormError('');
+    const num = (t: string) => (t.trim() === '' ? undefined : Number(t.replace(',', '.')));
+    const candidate = {
+      name: v.name,
+      kind: v.kind,
+      location: parsed ? { latDeg: parsed.latDeg, lonDeg: parsed.lonDeg } : undefined,
+      groundElevationM: num(v.ground),
+      structureHeightM: num(v.structure),
+      eyeHeightM: num(v.eye),
+      status: v.status,
+      sector: v.sectorFrom || v.sectorTo ? { fromDeg: num(v.sectorFrom), toDeg: num(v.sectorTo) } : null,
+    };
+    const result = PostInputSchema.safeParse(candidate);
+    const next: Errors = {};
+    if (!parsed) next.location = locationError || 'Enter where the post is.';
+    if (!result.success) {
+      for (const i of result.error.issues) {
+        const key = FIELD[i.path.join('.')] ?? FIELD[String(i.path[0])];
+        if (key && !next[key]) next[key] = i.message;
+      }
+    }
+    setErrors(next);
+    if (!result.success || Object.keys(next).length) return;
+    create.mutate(result.data as PostInput, {
+      onSuccess: () => {
+        setV(EMPTY);
+        onDone?.();
+      },
+      onError: (e) => {
+        if (e instanceof ApiRequestError) {
+          const fromServer: Errors = {};
+          for (const [path, msg] of Object.entries(e.fields)) {
+            const key = FIELD[path] ?? FIELD[path.split('.')[0] ?? ''];
+            if (key) fromServer[key] = msg;
+          }
+          setErrors(fromServer);
+        }
+        setFormError(e.message);
+      },
+    });
+  };
+
+  return (
+    <Card accent="moss" aria-label="New post">
+      <AppText variant="heading">Add a post</AppText>
+      {formError ? (
+        <Notice tone="danger">
+          <AppText>{formError}</AppText>
+        </Notice>
+      ) : null}
+      <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
+      <Segmented<Kind> label="Kind" value={v.kind} onChange={(k) => setV((f) => ({ ...f, kind: k }))} options={POST_KINDS.map((k) => ({ value: k, label: POST_KIND_LABELS[k] }))} />
+      <TextField
+        label="Location"
+        value={v.location}
+        onChangeText={set('location')}
+        error={errors.location ?? (locationError || undefined)}
+        hint={parsed ? `Read as ${formatCoordinate(parsed, 'dd')} · ${formatCoordinate(parsed, 'utm')}` : 'Decimal degrees, degrees-minutes, DMS or UTM (e.g. 33U 516200 5741300).'}
+        autoCapitalize="characters"
+      />
+      <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
+        <View style={{ flex: 1, minWidth: 140 }}>
+          <TextField label="Ground elevation" unit="m" inputMode="decimal" value={v.ground} onChangeText={set('ground')} error={errors.ground} />
+        </View>
+        <View style={{ flex: 1, minWidth: 140 }}>
+          <TextField label="Structure height" unit="m" inputMode="decimal" value={v.structure} onChangeText={set('structure')} error={errors.structure} />
+        </View>
+        <View style={{ flex: 1, minWidth: 140 }}>
+          <TextField label="Eye above platform" unit="m" inputMode="decimal" value={v.eye} onChangeText={set('eye')} error={errors.eye} />
+        </View>
+      </View>
+      <View style={{ flexDirection: 'row', gap: space.md }}>
+        <View style={{ flex: 1 }}>
+          <TextField label="Sector from" unit="°" inputMode="decimal" value={v.sectorFrom} onChangeText={set('sectorFrom')} error={errors.sectorFrom} hint="Leave both empty for all round." />
+        </View>
+        <View style={{ flex: 1 }}>
+          <TextField label="Sector to" unit="°" inputMode="decimal" value={v.sectorTo} onChangeText={set('sectorTo')} error={errors.sectorTo} />
+        </View>
+      </View>
+      <Segmented label="Status" value={v.status} onChange={(s) => setV((f) => ({ ...f, status: s }))} options={[{ value: 'existing', label: 'Existing' }, { value: 'proposed', label: 'Proposed' }]} />
+      <Button label="Save post" onPress={submit} busy={create.isPending} />
+    </Card>
+  );
+}

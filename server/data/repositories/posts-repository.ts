@@ -1,0 +1,75 @@
+import type { Transaction } from 'sequelize';
+import type { Post, PostInput } from '@/shared/schemas/site';
+import { PostModel } from '../models';
+
+function toPost(row: PostModel): Post {
+  const [lonDeg, latDeg] = row.location.coordinates;
+  return {
+    id: row.id,
+    siteId: row.siteId,
+    name: row.name,
+    kind: row.kind,
+    location: { latDeg, lonDeg },
+    groundElevationM: row.groundElevationM,
+    structureHeightM: row.structureHeightM,
+    eyeHeightM: row.eyeHeightM,
+    sector: row.sectorFromDeg === null || row.sectorToDeg === null ? null : { fromDeg: row.sectorFromDeg, toDeg: row.sectorToDeg },
+    status: row.status,
+    version: row.version,
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+const columns = (input: Partial<PostInput>) => {
+  const { location, sector, ...plain } = input;
+  return {
+    ...plain,
+    ...(location && { location: { type: 'Point' as const, coordinates: [location.lonDeg, location.latDeg] as [number, number] } }),
+    ...(sector !== undefined && { sectorFromDeg: sector?.fromDeg ?? null, sectorToDeg: sector?.toDeg ?? null }),
+  };
+};
+
+export const postsRepository = {
+  async listInSite(organizationId: string, siteId: string): Promise<Post[]> {
+    const rows = await PostModel.findAll({ where: { organizationId, siteId }, order: [['name', 'ASC']] });
+    return rows.map(toPost);
+  },
+
+  async findInSite(organizationId: string, siteId: string, id: string, transaction?: Transaction): Promise<Post | null> {
+    const row = await PostModel.findOne({ where: { id, siteId, organizationId }, transaction });
+    return row ? toPost(row) : null;
+  },
+
+  async create(organizationId: string, siteId: string, input: PostInput, transaction: Transaction): Promise<Post> {
+    const row = await PostModel.create(
+      {
+        organizationId,
+        siteId,
+        name: input.name,
+        kind: input.kind,
+        groundElevationM: input.groundElevationM,
+        structureHeightM: input.structureHeightM,
+        eyeHeightM: input.eyeHeightM,
+        status: input.status,
+        location: { type: 'Point', coordinates: [input.location.lonDeg, input.location.latDeg] },
+        sectorFromDeg: input.sector?.fromDeg ?? null,
+        sectorToDeg: input.sector?.toDeg ?? null,
+      },
+      { transaction },
+    );
+    return toPost(row);
+  },
+
+  async updateIfVersion(organizationId: string, siteId: string, id: string, version: number, changes: Partial<PostInput>, transaction: Transaction): Promise<Post | null> {
+    const [count] = await PostModel.update({ ...columns(changes), version: version + 1 }, { where: { id, siteId, organizationId, version }, transaction });
+    return count === 1 ? this.findInSite(organizationId, siteId, id, transaction) : null;
+  },
+
+  async countInSite(siteId: string, transaction?: Transaction): Promise<number> {
+    return PostModel.count({ where: { siteId }, transaction });
+  },
+
+  async softDelete(organizationId: string, siteId: string, id: string, transaction: Transaction): Promise<void> {
+    await PostModel.destroy({ where: { id, siteId, organizationId }, transaction });
+  },
+};

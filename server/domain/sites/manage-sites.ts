@@ -1,0 +1,80 @@
+import type { Sequelize } from 'sequelize';
+import type { Post, PostInput, Site, SiteInput } from '@/shared/schemas/site';
+import { auditRepository } from '@/server/data/repositories/audit-repository';
+import { postsRepository } from '@/server/data/repositories/posts-repository';
+import { sitesRepository } from '@/server/data/repositories/sites-repository';
+import { AppError } from '@/server/http/app-error';
+import type { Actor } from '../actor';
+
+const STALE = 'Someone else changed this since you opened it. Reload to see their change, then try again.';
+
+export async function getSite(actor: Actor, id: string): Promise<Site> {
+  const site = await sitesRepository.findInOrganization(actor.organizationId, id);
+  if (!site) throw AppError.notFound('That site');
+  return site;
+}
+
+export function createSite(db: Sequelize, actor: Actor, input: SiteInput): Promise<Site> {
+  return db.transaction(async (t) => {
+    const site = await sitesRepository.create(actor.organizationId, input, t);
+    await auditRepository.record(actor, { action: 'create', entityType: 'site', entityId: site.id, after: site }, t);
+    return site;
+  });
+}
+
+export function updateSite(db: Sequelize, actor: Actor, id: string, input: Partial<SiteInput> & { version: number }): Promise<Site> {
+  return db.transaction(async (t) => {
+    const before = await sitesRepository.findInOrganization(actor.organizationId, id, t);
+    if (!before) throw AppError.notFound('That site');
+    const { version, ...changes } = input;
+    const after = await sitesRepository.updateIfVersion(actor.organizationId, id, version, changes, t);
+    if (!after) throw AppError.conflict(STALE, 'stale_version');
+    await auditRepository.record(actor, { action: 'update', entityType: 'site', entityId: id, before, after }, t);
+    return after;
+  });
+}
+
+/** Soft delete: the site leaves the lists, its history stays. (Sites with approved plans will be refused once plans exist.) */
+export function deleteSite(db: Sequelize, actor: Actor, id: string): Promise<void> {
+  return db.transaction(async (t) => {
+    const before = await sitesRepository.findInOrganization(actor.organizationId, id, t);
+    if (!before) throw AppError.notFound('That site');
+    await sitesRepository.softDelete(actor.organizationId, id, t);
+    await auditRepository.record(actor, { action: 'delete', entityType: 'site', entityId: id, before }, t);
+  });
+}
+
+export async function listPosts(actor: Actor, siteId: string): Promise<Post[]> {
+  await getSite(actor, siteId);
+  return postsRepository.listInSite(actor.organizationId, siteId);
+}
+
+export function createPost(db: Sequelize, actor: Actor, siteId: string, input: PostInput): Promise<Post> {
+  return db.transaction(async (t) => {
+    if (!(await sitesRepository.findInOrganization(actor.organizationId, siteId, t))) throw AppError.notFound('That site');
+    const post = await postsRepository.create(actor.organizationId, siteId, input, t);
+    await auditRepository.record(actor, { action: 'create', entityType: 'post', entityId: post.id, after: post }, t);
+    return post;
+  });
+}
+
+export function updatePost(db: Sequelize, actor: Actor, siteId: string, id: string, input: Partial<PostInput> & { version: number }): Promise<Post> {
+  return db.transaction(async (t) => {
+    const before = await postsRepository.findInSite(actor.organizationId, siteId, id, t);
+    if (!before) throw AppError.notFound('That post');
+    const { version, ...changes } = input;
+    const after = await postsRepository.updateIfVersion(actor.organizationId, siteId, id, version, changes, t);
+    if (!after) throw AppError.conflict(STALE, 'stale_version');
+    await auditRepository.record(actor, { action: 'update', entityType: 'post', entityId: id, before, after }, t);
+    return after;
+  });
+}
+
+export function deletePost(db: Sequelize, actor: Actor, siteId: string, id: string): Promise<void> {
+  return db.transaction(async (t) => {
+    const before = await postsRepository.findInSite(actor.organizationId, siteId, id, t);
+    if (!before) throw AppError.notFound('That post');
+    await postsRepository.softDelete(actor.organizationId, siteId, id, t);
+    await auditRepository.record(actor, { action: 'delete', entityType: 'post', entityId: id, before }, t);
+  });
+}

@@ -1,0 +1,45 @@
+import type { Browser } from 'playwright-core';
+import { launchBrowser, newPage, SCREENSHOT_DIR, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { DEMO } from '@/tests/support/agents';
+
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+});
+afterAll(() => close());
+
+describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a site on the %s viewport', (viewport) => {
+  it('shows the sketch and posts, and lets a planner add a post from a UTM coordinate', async () => {
+    const { context, page } = await newPage(browser, viewport);
+    const errors = watchErrors(page);
+    try {
+      await signIn(page, DEMO.planner);
+      await page.getByRole('link', { name: 'Harrowmere Forest District' }).click();
+      await page.getByRole('img', { name: 'Sketch of Harrowmere Forest District' }).waitFor();
+      for (const name of ['Crane Knoll Tower', 'Sedge Ridge Tower', 'Blackmoss Tower']) await page.getByLabel(name).first().waitFor();
+      await shot(page, 'site', viewport);
+      await page.getByRole('img', { name: /Sketch of/ }).screenshot({ path: `${SCREENSHOT_DIR}/site-sketch-${viewport}.png` });
+
+      const form = page.getByLabel('New post');
+      await form.getByLabel('Name').fill(`Lookout ${viewport}`);
+      await form.getByLabel('Location').fill('33U 999999 5738000');
+      await form.getByRole('button', { name: 'Save post' }).click();
+      // A UTM easting outside its zone is refused under the field, and nothing is saved.
+      expect(await form.getByRole('alert').count()).toBeGreaterThan(0);
+      await form.getByLabel('Location').fill('33U 521000 5737000');
+      await form.getByText(/Read as/).waitFor();
+      await form.getByLabel('Ground elevation').fill('530');
+      await form.getByLabel('Structure height').fill('15');
+      await form.getByRole('button', { name: 'Save post' }).click();
+      await page.getByLabel(`Lookout ${viewport}`).first().waitFor();
+      // 530 + 15 + 1.6 (the default eye height) = 546.6 m.
+      await page.getByText(/Eye 546\.6 m above datum/).first().waitFor();
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
