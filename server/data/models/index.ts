@@ -22,6 +22,8 @@ export function initModels(sequelize: Sequelize): void {
   SiteModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
   SiteModel.hasMany(PriorityZoneModel, { foreignKey: 'siteId', as: 'zones' });
   PriorityZoneModel.belongsTo(SiteModel, { foreignKey: 'siteId', as: 'site' });
-  SiteModel.hasMany(PostModel, { foreignKey: 'siteId', as: 'posts' });
+  OrganizationModel.hasMany(PostModel, { foreignKey: 'organizationId', as: 'posts' });
+  PostModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
+  SiteModel.hasMany(PostModel, { foreignKey: 'siteId', as: 'sitePosts' });
   PostModel.belongsTo(SiteModel, { foreignKey: 'siteId', as: 'site' });
 }
