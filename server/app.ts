@@ -12,6 +12,7 @@ import type { Mailer } from './mail/mailer';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
+import { libraryRoutes } from './routes/library';
 import { sightlineRoutes } from './routes/sightline';
 import { siteRoutes } from './routes/sites';
 import { userRoutes } from './routes/users';
@@ -79,6 +80,7 @@ export function createApp({ db, config, mailer = null }: AppDeps) {
   const v1 = express.Router();
   v1.use(sightlineRoutes());
   v1.use(siteRoutes(db));
+  v1.use(libraryRoutes(db));
   v1.use(userRoutes(db, publicUrl, mailer));
   v1.use(caughtMailRoutes(config.CAUGHT_MAIL_URL ? createCaughtMailClient(config.CAUGHT_MAIL_URL) : null));
   api.use('/v1', v1);

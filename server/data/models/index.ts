@@ -1,11 +1,12 @@
 import type { Sequelize } from 'sequelize';
 import { AuditEventModel } from './audit-event';
+import { ConditionSetModel, TargetProfileModel } from './library';
 import { OrganizationModel } from './organization';
 import { PostModel } from './post';
 import { PriorityZoneModel, SiteModel } from './site';
 import { UserModel } from './user';
 
-export { AuditEventModel, OrganizationModel, PostModel, PriorityZoneModel, SiteModel, UserModel };
+export { AuditEventModel, ConditionSetModel, TargetProfileModel, OrganizationModel, PostModel, PriorityZoneModel, SiteModel, UserModel };
 
 /** Registers every model and declares all associations, in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -15,6 +16,8 @@ export function initModels(sequelize: Sequelize): void {
   PriorityZoneModel.register(sequelize);
   PostModel.register(sequelize);
   AuditEventModel.register(sequelize);
+  TargetProfileModel.register(sequelize);
+  ConditionSetModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });

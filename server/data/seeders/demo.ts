@@ -3,7 +3,9 @@ import type { Role } from '@/shared/schemas/auth';
 import { hashPassword } from '@/server/domain/auth/passwords';
 import { fromUtm } from '@/shared/geo/from-utm';
 import type { PostInput, SiteInput } from '@/shared/schemas/site';
-import { OrganizationModel, SiteModel, UserModel } from '../models';
+import type { ConditionSetInput, TargetInput } from '@/shared/schemas/library';
+import { ConditionSetModel, OrganizationModel, SiteModel, TargetProfileModel, UserModel } from '../models';
+import { conditionSetsRepository, targetsRepository } from '../repositories/library-repository';
 import { postsRepository } from '../repositories/posts-repository';
 import { sitesRepository } from '../repositories/sites-repository';
 
@@ -116,11 +118,57 @@ async function seedDemoSites(db: Sequelize): Promise<boolean> {
   return true;
 }
 
-/** Seeds the demo organisations, users and sites once; returns false when nothing was added. */
+/**
+ * Starting libraries every organisation gets. Sizes are planning values chosen
+ * for the demo (invented, not from a standard); agencies edit them to their own.
+ */
+export const STARTER_TARGETS: TargetInput[] = [
+  { name: 'Early smoke column', kind: 'smoke-column', heightM: 60, widthM: 8, requiredVisibleM: 30, period: 'day' },
+  { name: 'Developed smoke column', kind: 'smoke-column', heightM: 300, widthM: 40, requiredVisibleM: 50, period: 'day' },
+  { name: 'Person in the water (head)', kind: 'person-in-water', heightM: 0.3, widthM: 0.3, requiredVisibleM: 0, period: 'day' },
+  { name: 'Six-person life raft', kind: 'raft', heightM: 1.2, widthM: 2, requiredVisibleM: 0, period: 'day' },
+  { name: 'Small open boat', kind: 'small-craft', heightM: 1.5, widthM: 5, requiredVisibleM: 0.5, period: 'day' },
+  { name: 'Hand flare', kind: 'light', heightM: 0, widthM: 0.05, requiredVisibleM: 0, period: 'night' },
+];
+
+export const STARTER_CONDITION_SETS: ConditionSetInput[] = [
+  { name: 'Standard day', conditions: [{ preset: 'standard-optical' }], visibilityM: 20_000, visibilityKind: 'mor-5pct' },
+  {
+    name: 'Refraction spread',
+    conditions: [{ preset: 'no-refraction' }, { preset: 'standard-optical' }, { preset: 'radio-four-thirds' }],
+    visibilityM: 20_000,
+    visibilityKind: 'mor-5pct',
+  },
+  {
+    name: 'Hot afternoon, haze',
+    conditions: [{ preset: 'sub-refraction-heated-ground' }, { preset: 'no-refraction' }],
+    visibilityM: 8_000,
+    visibilityKind: 'mor-5pct',
+  },
+  { name: 'Cold sea, inversion', conditions: [{ preset: 'super-refraction-inversion' }, { preset: 'ducting-strong-inversion' }], visibilityM: null, visibilityKind: 'mor-5pct' },
+];
+
+/** Gives every organisation without libraries the starter targets and condition sets. */
+async function seedLibraries(db: Sequelize): Promise<boolean> {
+  let added = false;
+  for (const org of await OrganizationModel.findAll()) {
+    const has = (await TargetProfileModel.count({ where: { organizationId: org.id }, paranoid: false })) + (await ConditionSetModel.count({ where: { organizationId: org.id }, paranoid: false }));
+    if (has > 0) continue;
+    await db.transaction(async (t) => {
+      for (const target of STARTER_TARGETS) await targetsRepository.create(org.id, target, t);
+      for (const set of STARTER_CONDITION_SETS) await conditionSetsRepository.create(org.id, set, t);
+    });
+    added = true;
+  }
+  return added;
+}
+
+/** Seeds the demo organisations, users, sites and libraries once; returns false when nothing was added. */
 export async function seedDemo(db: Sequelize): Promise<boolean> {
   const accounts = await seedDemoAccounts(db);
   const sites = await seedDemoSites(db);
-  return accounts || sites;
+  const libraries = await seedLibraries(db);
+  return accounts || sites || libraries;
 }
 
 async function seedDemoAccounts(db: Sequelize): Promise<boolean> {

@@ -1,0 +1,46 @@
+import type { Sequelize } from 'sequelize';
+import { auditRepository } from '@/server/data/repositories/audit-repository';
+import type { LibraryRepository } from '@/server/data/repositories/library-repository';
+import { AppError } from '@/server/http/app-error';
+import type { Actor } from '../actor';
+
+/**
+ * Create, edit and remove entries of an organisation library (targets, condition sets):
+ * one transaction per write, optimistic versions, an audit event each.
+ */
+export function libraryUseCases<Dto extends { id: string }, Input extends object>(
+  db: Sequelize,
+  repo: LibraryRepository<Dto, Input>,
+  entityType: string,
+  what: string,
+  check: (merged: Input) => void = () => {},
+) {
+  return {
+    list: (actor: Actor) => repo.list(actor.organizationId),
+    create: (actor: Actor, input: Input) =>
+      db.transaction(async (t) => {
+        check(input);
+        const after = await repo.create(actor.organizationId, input, t);
+        await auditRepository.record(actor, { action: 'create', entityType, entityId: after.id, after }, t);
+        return after;
+      }),
+    update: (actor: Actor, id: string, input: Partial<Input> & { version: number }) =>
+      db.transaction(async (t) => {
+        const before = await repo.find(actor.organizationId, id, t);
+        if (!before) throw AppError.notFound(what);
+        const { version, ...changes } = input;
+        check({ ...(before as unknown as Input), ...(changes as Partial<Input>) });
+        const after = await repo.updateIfVersion(actor.organizationId, id, version, changes as Partial<Input>, t);
+        if (!after) throw AppError.conflict('Someone else changed this since you opened it. Reload to see their change, then try again.', 'stale_version');
+        await auditRepository.record(actor, { action: 'update', entityType, entityId: id, before, after }, t);
+        return after;
+      }),
+    remove: (actor: Actor, id: string) =>
+      db.transaction(async (t) => {
+        const before = await repo.find(actor.organizationId, id, t);
+        if (!before) throw AppError.notFound(what);
+        await repo.softDelete(actor.organizationId, id, t);
+        await auditRepository.record(actor, { action: 'delete', entityType, entityId: id, before }, t);
+      }),
+  };
+}

@@ -1,0 +1,43 @@
+import { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import { z } from 'zod';
+import { ConditionSetInputSchema, ConditionSetUpdateSchema, TargetInputSchema, TargetUpdateSchema, type TargetInput } from '@/shared/schemas/library';
+import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
+import { libraryUseCases } from '@/server/domain/library/manage-library';
+import { AppError } from '@/server/http/app-error';
+import { actorOf, requireRole, requireUser } from '@/server/http/session';
+import { parseOrThrow } from '@/server/http/validate';
+
+const IdParams = z.object({ id: z.uuid({ error: 'Not an id.' }) });
+
+const checkTarget = (t: TargetInput) => {
+  if (t.requiredVisibleM > t.heightM) {
+    throw AppError.badRequest('The target has invalid fields.', { requiredVisibleM: 'The part that must show cannot exceed the height.' });
+  }
+};
+
+/** The organisation's target profiles and condition sets: every role reads, planners write. */
+export function libraryRoutes(db: Sequelize) {
+  const router = Router();
+  const write = [requireUser, requireRole('planner')];
+  const mount = (path: string, uc: ReturnType<typeof libraryUseCases<{ id: string }, object>>, create: z.ZodType, update: z.ZodType, noun: string, key: string) => {
+    router.get(`/${path}`, requireUser, async (req, res) => {
+      res.json({ items: await uc.list(actorOf(req)) });
+    });
+    router.post(`/${path}`, ...write, async (req, res) => {
+      res.status(201).json({ [key]: await uc.create(actorOf(req), parseOrThrow(create, req.body, noun) as object) });
+    });
+    router.patch(`/${path}/:id`, ...write, async (req, res) => {
+      const { id } = parseOrThrow(IdParams, req.params, 'address');
+      res.json({ [key]: await uc.update(actorOf(req), id, parseOrThrow(update, req.body, noun) as { version: number }) });
+    });
+    router.delete(`/${path}/:id`, ...write, async (req, res) => {
+      const { id } = parseOrThrow(IdParams, req.params, 'address');
+      await uc.remove(actorOf(req), id);
+      res.status(204).end();
+    });
+  };
+  mount('targets', libraryUseCases(db, targetsRepository, 'target', 'That target', checkTarget) as never, TargetInputSchema, TargetUpdateSchema, 'target', 'target');
+  mount('conditions', libraryUseCases(db, conditionSetsRepository, 'condition-set', 'That condition set') as never, ConditionSetInputSchema, ConditionSetUpdateSchema, 'condition set', 'conditionSet');
+  return router;
+}
