@@ -84,6 +84,18 @@ export function CautionIcon(p: IconProps) {
   );
 }
 
+/** Library: a target board on a stand. */
+export function LibraryIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Circle cx="12" cy="9" r="6" />
+      <Circle cx="12" cy="9" r="2" />
+      <Line x1="12" y1="15" x2="12" y2="21" />
+      <Line x1="8" y1="21" x2="16" y2="21" />
+    </Frame>
+  );
+}
+
 /** Mail: an envelope whose flap is a horizon line. */
 export function MailIcon(p: IconProps) {
   return (

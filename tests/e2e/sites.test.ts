@@ -43,3 +43,27 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a site on the %s viewpo
     }
   });
 });
+
+describe.each(Object.keys(VIEWPORTS) as ViewportName[])('the library on the %s viewport', (viewport) => {
+  it('lists the starter targets and condition sets and lets a planner add a target', async () => {
+    const { context, page } = await newPage(browser, viewport);
+    try {
+      await signIn(page, DEMO.planner);
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Library' }).click();
+      await page.getByLabel('Early smoke column').waitFor();
+      await page.getByLabel('Refraction spread').waitFor();
+      const form = page.getByLabel('New target');
+      await form.getByLabel('Name').fill(`Canoe ${viewport}`);
+      await form.getByLabel('Height', { exact: true }).fill('-2');
+      await form.getByLabel('Width').fill('0.8');
+      await form.getByRole('button', { name: 'Save target' }).click();
+      await form.getByText('Height must be at least 0 m.').waitFor();
+      await form.getByLabel('Height', { exact: true }).fill('0.7');
+      await form.getByRole('button', { name: 'Save target' }).click();
+      await page.getByLabel(`Canoe ${viewport}`).waitFor();
+      await shot(page, 'library', viewport);
+    } finally {
+      await context.close();
+    }
+  });
+});
