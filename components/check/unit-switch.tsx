@@ -24,7 +24,7 @@ export function Segmented<T extends string>({ label, value, options, onChange }:
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', borderWidth: 1.5, borderColor: colors.lineStrong, borderRadius: radius.md, overflow: 'hidden', alignSelf: 'flex-start' },
+  row: { flexDirection: 'row', flexWrap: 'wrap', borderWidth: 1.5, borderColor: colors.lineStrong, borderRadius: radius.md, overflow: 'hidden', alignSelf: 'flex-start' },
   seg: { minHeight: TOUCH, paddingHorizontal: space.md, justifyContent: 'center', backgroundColor: colors.surface },
   on: { backgroundColor: colors.ink },
 });
