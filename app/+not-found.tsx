@@ -5,7 +5,16 @@ import { colors, space } from '@/components/ui/theme';
 
 export default function NotFound() {
   return (
-    <View style={{ flex: 1, alignItems: 'center', justifyContent: 'center', gap: space.lg, backgroundColor: colors.paper, padding: space.xl }}>
+    <View
+      style={{
+        flex: 1,
+        alignItems: 'center',
+        justifyContent: 'center',
+        gap: space.lg,
+        backgroundColor: colors.paper,
+        padding: space.xl,
+      }}
+    >
       <Stack.Screen options={{ title: 'Not found' }} />
       <AppText variant="title">Beyond the horizon</AppText>
       <AppText tone="muted">There is no page at this address.</AppText>

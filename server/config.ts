@@ -27,7 +27,11 @@ const EnvSchema = z.object({
   SIGN_IN_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(30),
   /** Failed sign-ins allowed per account per window. */
   SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
-  SIGN_IN_WINDOW_SECONDS: z.coerce.number().int().positive().default(15 * 60),
+  SIGN_IN_WINDOW_SECONDS: z.coerce
+    .number()
+    .int()
+    .positive()
+    .default(15 * 60),
   /** SMTP relay. Unset: the server sends no mail (the bootstrap points it at the local catcher). */
   SMTP_HOST: z.string().min(1).optional(),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),

@@ -24,7 +24,10 @@ export function CaughtMailList() {
       ) : mail.isError ? (
         <ErrorState error={mail.error} onRetry={() => void mail.refetch()} />
       ) : mail.data.length === 0 ? (
-        <EmptyState title="No mail yet" body="Invitations, plan submissions and review decisions appear here once they are sent." />
+        <EmptyState
+          title="No mail yet"
+          body="Invitations, plan submissions and review decisions appear here once they are sent."
+        />
       ) : (
         <View style={{ gap: space.sm }}>
           <Notice tone="info">
@@ -32,7 +35,12 @@ export function CaughtMailList() {
           </Notice>
           {mail.data.map((m) => (
             <Card key={m.id}>
-              <Pressable role="button" aria-expanded={open === m.id} onPress={() => setOpen(open === m.id ? null : m.id)} style={{ gap: 2, minHeight: 44 }}>
+              <Pressable
+                role="button"
+                aria-expanded={open === m.id}
+                onPress={() => setOpen(open === m.id ? null : m.id)}
+                style={{ gap: 2, minHeight: 44 }}
+              >
                 <AppText variant="heading">{m.subject}</AppText>
                 <AppText variant="small" tone="muted">
                   To {m.to.join(', ')} · {new Date(m.receivedAt).toLocaleString()}

@@ -8,7 +8,7 @@ import { useInviteUser } from '@/components/data/users';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Notice } from '@/components/ui/states';
+import { FormError, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { RolePicker } from './role-picker';
@@ -37,16 +37,34 @@ export function InviteUserForm() {
   return (
     <Card accent="moss">
       <AppText variant="heading">Invite someone</AppText>
-      {formError ? (
-        <Notice tone="danger">
-          <AppText>{formError}</AppText>
-        </Notice>
-      ) : null}
-      <Controller control={control} name="name" render={({ field }) => <TextField label="Name" value={field.value} onChangeText={field.onChange} onBlur={field.onBlur} error={formState.errors.name?.message} />} />
+      <FormError message={formError} />
+      <Controller
+        control={control}
+        name="name"
+        render={({ field }) => (
+          <TextField
+            label="Name"
+            value={field.value}
+            onChangeText={field.onChange}
+            onBlur={field.onBlur}
+            error={formState.errors.name?.message}
+          />
+        )}
+      />
       <Controller
         control={control}
         name="email"
-        render={({ field }) => <TextField label="E-mail" autoCapitalize="none" inputMode="email" value={field.value} onChangeText={field.onChange} onBlur={field.onBlur} error={formState.errors.email?.message} />}
+        render={({ field }) => (
+          <TextField
+            label="E-mail"
+            autoCapitalize="none"
+            inputMode="email"
+            value={field.value}
+            onChangeText={field.onChange}
+            onBlur={field.onBlur}
+            error={formState.errors.email?.message}
+          />
+        )}
       />
       <Controller
         control={control}
@@ -62,7 +80,9 @@ export function InviteUserForm() {
       {link ? (
         <Notice tone="info" title="Invitation created">
           <AppText variant="small">
-            {mailed ? 'We e-mailed this one-time link to the person; it works for 7 days:' : 'Send this one-time link to the person; it works for 7 days:'}
+            {mailed
+              ? 'We e-mailed this one-time link to the person; it works for 7 days:'
+              : 'Send this one-time link to the person; it works for 7 days:'}
           </AppText>
           <AppText variant="small" selectable style={{ fontFamily: 'monospace' }}>
             {link}

@@ -6,7 +6,7 @@ import { useUpdateUser } from '@/components/data/users';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Notice } from '@/components/ui/states';
+import { FormError } from '@/components/ui/states';
 import { colors, radius, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { RolePicker } from './role-picker';
@@ -28,11 +28,7 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
 
   return (
     <View style={{ gap: space.md }}>
-      {error ? (
-        <Notice tone="danger">
-          <AppText>{error}</AppText>
-        </Notice>
-      ) : null}
+      <FormError message={error} />
       {wide ? (
         <View style={styles.table} role="table" aria-label="Users">
           <View style={[styles.tr, styles.th]} role="row">
@@ -51,7 +47,12 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
                 </AppText>
               </View>
               <View style={[styles.td, { flex: COLUMN_FLEX[1] }]} role="cell">
-                <RolePicker label={`Role of ${u.name}`} value={u.role} disabled={update.isPending || u.id === me?.id} onChange={(role) => change(u, { role })} />
+                <RolePicker
+                  label={`Role of ${u.name}`}
+                  value={u.role}
+                  disabled={update.isPending || u.id === me?.id}
+                  onChange={(role) => change(u, { role })}
+                />
               </View>
               <AppText style={[styles.td, { flex: COLUMN_FLEX[2] }]} role="cell">
                 {STATUS_LABEL[u.status]}
@@ -61,7 +62,11 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
               </AppText>
               <View style={styles.td} role="cell">
                 {u.id !== me?.id ? (
-                  <Button kind="secondary" label={u.status === 'deactivated' ? 'Reactivate' : 'Deactivate'} onPress={() => change(u, { active: u.status === 'deactivated' })} />
+                  <Button
+                    kind="secondary"
+                    label={u.status === 'deactivated' ? 'Reactivate' : 'Deactivate'}
+                    onPress={() => change(u, { active: u.status === 'deactivated' })}
+                  />
                 ) : null}
               </View>
             </View>
@@ -76,9 +81,18 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
                 {u.email} · {STATUS_LABEL[u.status]}
               </AppText>
             </View>
-            <RolePicker label={`Role of ${u.name}`} value={u.role} disabled={update.isPending || u.id === me?.id} onChange={(role) => change(u, { role })} />
+            <RolePicker
+              label={`Role of ${u.name}`}
+              value={u.role}
+              disabled={update.isPending || u.id === me?.id}
+              onChange={(role) => change(u, { role })}
+            />
             {u.id !== me?.id ? (
-              <Button kind="secondary" label={u.status === 'deactivated' ? 'Reactivate' : 'Deactivate'} onPress={() => change(u, { active: u.status === 'deactivated' })} />
+              <Button
+                kind="secondary"
+                label={u.status === 'deactivated' ? 'Reactivate' : 'Deactivate'}
+                onPress={() => change(u, { active: u.status === 'deactivated' })}
+              />
             ) : null}
           </Card>
         ))
@@ -88,8 +102,20 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
 }
 
 const styles = StyleSheet.create({
-  table: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, overflow: 'hidden' },
-  tr: { flexDirection: 'row', alignItems: 'center', borderBottomWidth: 1, borderBottomColor: colors.line, paddingVertical: space.sm },
+  table: {
+    backgroundColor: colors.surface,
+    borderRadius: radius.lg,
+    borderWidth: 1,
+    borderColor: colors.line,
+    overflow: 'hidden',
+  },
+  tr: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    borderBottomWidth: 1,
+    borderBottomColor: colors.line,
+    paddingVertical: space.sm,
+  },
   th: { backgroundColor: colors.paper },
   td: { flex: 2, paddingHorizontal: space.sm },
 });

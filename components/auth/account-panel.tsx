@@ -30,7 +30,14 @@ export function AccountPanel() {
           </View>
         ))}
       </Card>
-      <Button kind="secondary" label="Sign out" icon={<SignOutIcon color={colors.ink} size={20} />} busy={signOut.isPending} onPress={() => signOut.mutate()} style={{ alignSelf: 'flex-start' }} />
+      <Button
+        kind="secondary"
+        label="Sign out"
+        icon={<SignOutIcon color={colors.ink} size={20} />}
+        busy={signOut.isPending}
+        onPress={() => signOut.mutate()}
+        style={{ alignSelf: 'flex-start' }}
+      />
       <AppText variant="small" tone="muted" style={{ marginTop: space.lg }}>
         Kenning gives estimates for planning. Follow your agency's procedures and local regulations.
       </AppText>

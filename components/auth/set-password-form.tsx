@@ -8,7 +8,7 @@ import { NewPasswordSchema } from '@/shared/schemas/auth';
 import { useSetPassword } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/states';
+import { FormError, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { colors, space } from '@/components/ui/theme';
 import { applyServerErrors } from './use-server-errors';
@@ -54,23 +54,37 @@ export function SetPasswordForm({ token }: { token: string }) {
 
   return (
     <View style={{ gap: space.lg }}>
-      {formError ? (
-        <Notice tone="danger">
-          <AppText>{formError}</AppText>
-        </Notice>
-      ) : null}
+      <FormError message={formError} />
       <Controller
         control={control}
         name="password"
         render={({ field }) => (
-          <TextField label="New password" secureTextEntry autoComplete="new-password" hint="At least 10 characters." value={field.value} onChangeText={field.onChange} onBlur={field.onBlur} error={formState.errors.password?.message} />
+          <TextField
+            label="New password"
+            secureTextEntry
+            autoComplete="new-password"
+            hint="At least 10 characters."
+            value={field.value}
+            onChangeText={field.onChange}
+            onBlur={field.onBlur}
+            error={formState.errors.password?.message}
+          />
         )}
       />
       <Controller
         control={control}
         name="repeat"
         render={({ field }) => (
-          <TextField label="Repeat the password" secureTextEntry autoComplete="new-password" value={field.value} onChangeText={field.onChange} onBlur={field.onBlur} error={formState.errors.repeat?.message} onSubmitEditing={submit} />
+          <TextField
+            label="Repeat the password"
+            secureTextEntry
+            autoComplete="new-password"
+            value={field.value}
+            onChangeText={field.onChange}
+            onBlur={field.onBlur}
+            error={formState.errors.repeat?.message}
+            onSubmitEditing={submit}
+          />
         )}
       />
       <Button label="Set password" onPress={submit} busy={setPassword.isPending} />

@@ -4,9 +4,8 @@ import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { SignInRequestSchema, type SignInRequest } from '@/shared/schemas/auth';
 import { useSignIn } from '@/components/data/session';
-import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/states';
+import { FormError } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { applyServerErrors } from './use-server-errors';
@@ -28,11 +27,7 @@ export function SignInForm() {
 
   return (
     <View style={{ gap: space.lg }}>
-      {formError ? (
-        <Notice tone="danger">
-          <AppText>{formError}</AppText>
-        </Notice>
-      ) : null}
+      <FormError message={formError} />
       <Controller
         control={control}
         name="email"

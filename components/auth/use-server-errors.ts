@@ -5,7 +5,11 @@ import { ApiRequestError } from '@/components/data/api-client';
  * Copies the server's field errors onto the form; returns the message to show
  * above the form for anything not tied to a field.
  */
-export function applyServerErrors<T extends FieldValues>(error: unknown, setError: UseFormSetError<T>, fields: readonly Path<T>[]): string {
+export function applyServerErrors<T extends FieldValues>(
+  error: unknown,
+  setError: UseFormSetError<T>,
+  fields: readonly Path<T>[],
+): string {
   if (error instanceof ApiRequestError) {
     let unplaced = false;
     for (const [key, message] of Object.entries(error.fields)) {

@@ -11,7 +11,15 @@ import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { colors, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
-import { buildRequest, DEFAULT_FORM, switchUnits, UNIT_SYSTEMS, type CheckFormValues, type ConditionLabel, type UnitSystem } from './check-form-model';
+import {
+  buildRequest,
+  DEFAULT_FORM,
+  switchUnits,
+  UNIT_SYSTEMS,
+  type CheckFormValues,
+  type ConditionLabel,
+  type UnitSystem,
+} from './check-form-model';
 import { CautionsPanel } from './cautions-panel';
 import { conditionStyle } from './condition-colors';
 import { ConditionPicker } from './condition-picker';
@@ -42,7 +50,10 @@ export function QuickCheck() {
   const settled = useSettled(valid);
   const evaluation = useSightline(settled?.request ?? null);
   const units = UNIT_SYSTEMS[form.units];
-  const set = <K extends keyof CheckFormValues>(key: K) => (value: CheckFormValues[K]) => setForm((f) => ({ ...f, [key]: value }));
+  const set =
+    <K extends keyof CheckFormValues>(key: K) =>
+    (value: CheckFormValues[K]) =>
+      setForm((f) => ({ ...f, [key]: value }));
 
   const formPane = (
     <Card style={{ gap: space.lg }}>
@@ -52,22 +63,68 @@ export function QuickCheck() {
         onChange={(u) => setForm((f) => switchUnits(f, u))}
         options={Object.entries(UNIT_SYSTEMS).map(([value, u]) => ({ value: value as UnitSystem, label: u.label }))}
       />
-      <TextField label="Height of eye" unit={units.height} inputMode="decimal" value={form.observerHeight} onChangeText={set('observerHeight')} error={errors.observerHeight} hint="Above the sea or the plain, including any structure." />
+      <TextField
+        label="Height of eye"
+        unit={units.height}
+        inputMode="decimal"
+        value={form.observerHeight}
+        onChangeText={set('observerHeight')}
+        error={errors.observerHeight}
+        hint="Above the sea or the plain, including any structure."
+      />
       <View style={styles.pair}>
         <View style={styles.half}>
-          <TextField label="Target height" unit={units.height} inputMode="decimal" value={form.targetHeight} onChangeText={set('targetHeight')} error={errors.targetHeight} />
+          <TextField
+            label="Target height"
+            unit={units.height}
+            inputMode="decimal"
+            value={form.targetHeight}
+            onChangeText={set('targetHeight')}
+            error={errors.targetHeight}
+          />
         </View>
         <View style={styles.half}>
-          <TextField label="Distance" unit={units.distance} inputMode="decimal" value={form.distance} onChangeText={set('distance')} error={errors.distance} />
+          <TextField
+            label="Distance"
+            unit={units.distance}
+            inputMode="decimal"
+            value={form.distance}
+            onChangeText={set('distance')}
+            error={errors.distance}
+          />
         </View>
       </View>
-      <TextField label="Part that must show" unit={units.height} inputMode="decimal" value={form.requiredVisible} onChangeText={set('requiredVisible')} error={errors.requiredVisible} hint="e.g. the top 30 m of a smoke column; 0 = any part." />
+      <TextField
+        label="Part that must show"
+        unit={units.height}
+        inputMode="decimal"
+        value={form.requiredVisible}
+        onChangeText={set('requiredVisible')}
+        error={errors.requiredVisible}
+        hint="e.g. the top 30 m of a smoke column; 0 = any part."
+      />
       <View style={styles.pair}>
         <View style={styles.half}>
-          <TextField label="Visibility" unit={units.distance} inputMode="decimal" value={form.visibility} onChangeText={set('visibility')} error={errors.visibility} hint="Leave empty if unknown." />
+          <TextField
+            label="Visibility"
+            unit={units.distance}
+            inputMode="decimal"
+            value={form.visibility}
+            onChangeText={set('visibility')}
+            error={errors.visibility}
+            hint="Leave empty if unknown."
+          />
         </View>
         <View style={styles.half}>
-          <TextField label="Target size" unit={units.height} inputMode="decimal" value={form.targetSize} onChangeText={set('targetSize')} error={errors.targetSize} hint="Its width, for the angular limit." />
+          <TextField
+            label="Target size"
+            unit={units.height}
+            inputMode="decimal"
+            value={form.targetSize}
+            onChangeText={set('targetSize')}
+            error={errors.targetSize}
+            hint="Its width, for the angular limit."
+          />
         </View>
       </View>
       <Segmented
@@ -79,7 +136,15 @@ export function QuickCheck() {
           { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
         ]}
       />
-      <TextField label="Eye must resolve" unit="arcmin" inputMode="decimal" value={form.resolutionArcmin} onChangeText={set('resolutionArcmin')} error={errors.resolutionArcmin} hint="1′ is normal acuity; lookouts searching need several." />
+      <TextField
+        label="Eye must resolve"
+        unit="arcmin"
+        inputMode="decimal"
+        value={form.resolutionArcmin}
+        onChangeText={set('resolutionArcmin')}
+        error={errors.resolutionArcmin}
+        hint="1′ is normal acuity; lookouts searching need several."
+      />
       <View style={{ gap: space.sm }}>
         <AppText variant="label">Refraction conditions</AppText>
         <ConditionPicker value={form.presets} onChange={set('presets')} />
@@ -88,30 +153,39 @@ export function QuickCheck() {
             {errors.presets}
           </AppText>
         ) : null}
-        <TextField label="Your own k (optional)" inputMode="decimal" value={form.customK} onChangeText={set('customK')} error={errors.customK} hint="Refraction coefficient; 0.13 is standard optical." />
+        <TextField
+          label="Your own k (optional)"
+          inputMode="decimal"
+          value={form.customK}
+          onChangeText={set('customK')}
+          error={errors.customK}
+          hint="Refraction coefficient; 0.13 is standard optical."
+        />
         <WeatherCondition value={form.weather} onChange={set('weather')} error={errors.weather} />
       </View>
     </Card>
   );
 
   const answer = (() => {
-    if (!valid) return <Notice tone="danger" title="Check the fields marked in red">{null}</Notice>;
+    if (!valid)
+      return (
+        <Notice tone="danger" title="Check the fields marked in red">
+          {null}
+        </Notice>
+      );
     if (evaluation.isPending) return <LoadingState label="Computing…" />;
     if (evaluation.isError) return <ErrorState error={evaluation.error} onRetry={() => void evaluation.refetch()} />;
     const data = evaluation.data;
     const shown = settled ?? valid;
-    return (
-      <Answer
-        request={shown.request}
-        labels={shown.labels}
-        data={data}
-        units={units}
-      />
-    );
+    return <Answer request={shown.request} labels={shown.labels} data={data} units={units} />;
   })();
 
   return (
-    <Screen title="Quick check" subtitle="How far one height of eye sees, and how much of a target the earth hides, under each refraction condition." maxWidth={1280}>
+    <Screen
+      title="Quick check"
+      subtitle="How far one height of eye sees, and how much of a target the earth hides, under each refraction condition."
+      maxWidth={1280}
+    >
       {wide ? (
         <View style={{ flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' }}>
           <View style={{ width: 380 }}>{formPane}</View>
@@ -146,11 +220,19 @@ function Answer({
         <Notice tone="info" title="Offline">
           <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center' }}>
             <OfflineIcon color={colors.moss} size={20} />
-            <AppText variant="small">Kenning cannot reach its server, so this answer was computed on this device with the same formulas.</AppText>
+            <AppText variant="small">
+              Kenning cannot reach its server, so this answer was computed on this device with the same formulas.
+            </AppText>
           </View>
         </Notice>
       ) : null}
-      <ResultsTable results={data.results} labels={labels} units={units} observerHeightM={request.observerHeightM} earthRadiusM={request.earthRadiusM} />
+      <ResultsTable
+        results={data.results}
+        labels={labels}
+        units={units}
+        observerHeightM={request.observerHeightM}
+        earthRadiusM={request.earthRadiusM}
+      />
       {warnings.length ? (
         <Notice tone="caution" title="Notes on these results">
           {warnings.map((w, i) => (
@@ -189,11 +271,24 @@ function Answer({
 }
 
 /** k from pressure, temperature and lapse rate, as a further condition. */
-function WeatherCondition({ value, onChange, error }: { value: CheckFormValues['weather']; onChange: (v: CheckFormValues['weather']) => void; error?: string }) {
+function WeatherCondition({
+  value,
+  onChange,
+  error,
+}: {
+  value: CheckFormValues['weather'];
+  onChange: (v: CheckFormValues['weather']) => void;
+  error?: string;
+}) {
   const set = (key: 'pressureHpa' | 'temperatureC' | 'lapseRateKPerM') => (text: string) => onChange({ ...value, [key]: text });
   return (
     <View style={{ gap: space.sm }}>
-      <Pressable role="checkbox" aria-checked={value.enabled} onPress={() => onChange({ ...value, enabled: !value.enabled })} style={styles.check}>
+      <Pressable
+        role="checkbox"
+        aria-checked={value.enabled}
+        onPress={() => onChange({ ...value, enabled: !value.enabled })}
+        style={styles.check}
+      >
         <View style={[styles.box, value.enabled && styles.boxOn]} />
         <AppText variant="small">From weather readings (k by the surveying relation)</AppText>
       </Pressable>
@@ -201,10 +296,22 @@ function WeatherCondition({ value, onChange, error }: { value: CheckFormValues['
         <View style={{ gap: space.sm }}>
           <View style={styles.pair}>
             <View style={styles.half}>
-              <TextField label="Pressure" unit="hPa" inputMode="decimal" value={value.pressureHpa} onChangeText={set('pressureHpa')} />
+              <TextField
+                label="Pressure"
+                unit="hPa"
+                inputMode="decimal"
+                value={value.pressureHpa}
+                onChangeText={set('pressureHpa')}
+              />
             </View>
             <View style={styles.half}>
-              <TextField label="Air temperature" unit="°C" inputMode="decimal" value={value.temperatureC} onChangeText={set('temperatureC')} />
+              <TextField
+                label="Air temperature"
+                unit="°C"
+                inputMode="decimal"
+                value={value.temperatureC}
+                onChangeText={set('temperatureC')}
+              />
             </View>
           </View>
           <TextField

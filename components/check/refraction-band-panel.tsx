@@ -16,7 +16,13 @@ const span = (results: SightlineResult[], pick: (r: SightlineResult) => number |
 };
 
 /** How far the answer moves as k runs over its usual daytime range. */
-export function RefractionBandPanel({ request, units }: { request: SightlineRequest; units: { height: LengthUnit; distance: LengthUnit } }) {
+export function RefractionBandPanel({
+  request,
+  units,
+}: {
+  request: SightlineRequest;
+  units: { height: LengthUnit; distance: LengthUnit };
+}) {
   const results = useMemo(() => evaluateSightline({ ...request, conditions: BAND_K.map((k) => ({ k })) }).results, [request]);
   const rows: [string, ReturnType<typeof span>, LengthUnit][] = [
     ['Horizon distance', span(results, (r) => r.horizonDistanceM), units.distance],
@@ -33,7 +39,9 @@ export function RefractionBandPanel({ request, units }: { request: SightlineRequ
         {rows.map(([label, s, unit]) => (
           <View key={label} style={{ flexDirection: 'row', justifyContent: 'space-between', gap: space.md }}>
             <AppText variant="label">{label}</AppText>
-            <AppText style={{ fontVariant: ['tabular-nums'] }}>{s ? `${formatLength(s.min, unit)} – ${formatLength(s.max, unit)}` : '—'}</AppText>
+            <AppText style={{ fontVariant: ['tabular-nums'] }}>
+              {s ? `${formatLength(s.min, unit)} – ${formatLength(s.max, unit)}` : '—'}
+            </AppText>
           </View>
         ))}
       </View>

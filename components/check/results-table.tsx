@@ -34,14 +34,26 @@ export function ResultsTable({
     { label: 'Horizon distance', hint: 'along the surface', cell: (r) => formatLength(r.horizonDistanceM, units.distance) },
     { label: 'Tangent length', hint: 'straight, eye to horizon', cell: (r) => formatLength(r.tangentLengthM, units.distance) },
     { label: 'Dip of the horizon', hint: 'below eye level', cell: (r) => formatAngle(r.dipDeg) },
-    { label: 'Hidden height', hint: 'at the target distance', cell: (r) => formatLength(r.hiddenHeightM, units.height), strong: true },
+    {
+      label: 'Hidden height',
+      hint: 'at the target distance',
+      cell: (r) => formatLength(r.hiddenHeightM, units.height),
+      strong: true,
+    },
     { label: 'Visible part', hint: 'of the target', cell: (r) => formatLength(r.visibleHeightM, units.height) },
-    { label: 'Geographic range', hint: 'eye horizon + target-top horizon', cell: (r) => formatLength(r.geographicRangeM, units.distance) },
+    {
+      label: 'Geographic range',
+      hint: 'eye horizon + target-top horizon',
+      cell: (r) => formatLength(r.geographicRangeM, units.distance),
+    },
     {
       label: 'Detection range',
       hint: 'least of the limits',
       strong: true,
-      cell: (r) => (r.detectionRangeM === null ? '—' : `${formatLength(r.detectionRangeM, units.distance)} (${r.limitedBy ? LIMIT_LABELS[r.limitedBy] : '—'})`),
+      cell: (r) =>
+        r.detectionRangeM === null
+          ? '—'
+          : `${formatLength(r.detectionRangeM, units.distance)} (${r.limitedBy ? LIMIT_LABELS[r.limitedBy] : '—'})`,
     },
     {
       label: '√(2R′h) error',
@@ -92,7 +104,14 @@ export function ResultsTable({
 }
 
 const styles = StyleSheet.create({
-  table: { flex: 1, backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, overflow: 'hidden' },
+  table: {
+    flex: 1,
+    backgroundColor: colors.surface,
+    borderRadius: radius.lg,
+    borderWidth: 1,
+    borderColor: colors.line,
+    overflow: 'hidden',
+  },
   tr: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.line },
   head: { backgroundColor: colors.paper },
   th: { width: 150, padding: space.sm, justifyContent: 'flex-end' },

@@ -29,7 +29,15 @@ const PAD = { left: 44, right: 16, top: 20, bottom: 36 };
  * above the surface, (x − d_h)²/2R′, on that falling surface. The vertical
  * scale is exaggerated, and says by how much.
  */
-export function SideViewDiagram({ observerHeightM: h, targetHeightM, distanceM, earthRadiusM = MEAN_EARTH_RADIUS_M, results, labels, units }: SideViewProps) {
+export function SideViewDiagram({
+  observerHeightM: h,
+  targetHeightM,
+  distanceM,
+  earthRadiusM = MEAN_EARTH_RADIUS_M,
+  results,
+  labels,
+  units,
+}: SideViewProps) {
   const [width, setWidth] = useState(0);
   const height = 260;
   const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
@@ -62,7 +70,10 @@ export function SideViewDiagram({ observerHeightM: h, targetHeightM, distanceM, 
   };
 
   const first = results[0];
-  const target = distanceM !== undefined && targetHeightM !== undefined ? { x: distanceM, base: -drop(distanceM), top: -drop(distanceM) + targetHeightM } : null;
+  const target =
+    distanceM !== undefined && targetHeightM !== undefined
+      ? { x: distanceM, base: -drop(distanceM), top: -drop(distanceM) + targetHeightM }
+      : null;
   const hidden = first && target && first.hiddenHeightM !== null ? Math.min(first.hiddenHeightM, targetHeightM ?? 0) : null;
 
   return (
@@ -74,15 +85,39 @@ export function SideViewDiagram({ observerHeightM: h, targetHeightM, distanceM, 
           {results.map((r, i) => {
             const d = rayPath(r);
             const st = conditionStyle(i);
-            return d ? <Path key={labels[i]?.key ?? i} d={d} stroke={st.color} strokeWidth={2} strokeDasharray={st.dash} fill="none" /> : null;
+            return d ? (
+              <Path key={labels[i]?.key ?? i} d={d} stroke={st.color} strokeWidth={2} strokeDasharray={st.dash} fill="none" />
+            ) : null;
           })}
           {target ? (
             <G>
-              <Line x1={sx(target.x)} y1={sy(target.base)} x2={sx(target.x)} y2={sy(target.top)} stroke={colors.ink} strokeWidth={6} />
+              <Line
+                x1={sx(target.x)}
+                y1={sy(target.base)}
+                x2={sx(target.x)}
+                y2={sy(target.top)}
+                stroke={colors.ink}
+                strokeWidth={6}
+              />
               {hidden !== null && hidden > 0 ? (
-                <Line x1={sx(target.x)} y1={sy(target.base)} x2={sx(target.x)} y2={sy(target.base + hidden)} stroke="#7A8A91" strokeWidth={10} opacity={0.75} />
+                <Line
+                  x1={sx(target.x)}
+                  y1={sy(target.base)}
+                  x2={sx(target.x)}
+                  y2={sy(target.base + hidden)}
+                  stroke="#7A8A91"
+                  strokeWidth={10}
+                  opacity={0.75}
+                />
               ) : null}
-              <SvgText x={sx(target.x) - 6} y={sy(target.top) - 6} fontSize={12} fontFamily={fonts.medium} fill={colors.ink} textAnchor="end">
+              <SvgText
+                x={sx(target.x) - 6}
+                y={sy(target.top) - 6}
+                fontSize={12}
+                fontFamily={fonts.medium}
+                fill={colors.ink}
+                textAnchor="end"
+              >
                 target
               </SvgText>
             </G>
@@ -103,13 +138,22 @@ export function SideViewDiagram({ observerHeightM: h, targetHeightM, distanceM, 
         <View style={{ height }} />
       )}
       <AppText variant="small" tone="muted">
-        Vertical scale exaggerated about ×{Math.round(exaggeration).toLocaleString('en')}. Grey on the target: the part hidden under the first condition's sightline.
+        Vertical scale exaggerated about ×{Math.round(exaggeration).toLocaleString('en')}. Grey on the target: the part hidden
+        under the first condition's sightline.
       </AppText>
       <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md }}>
         {labels.map((l, i) => (
           <View key={l.key} style={{ flexDirection: 'row', alignItems: 'center', gap: space.xs }}>
             <Svg width={28} height={10}>
-              <Line x1={0} y1={5} x2={28} y2={5} stroke={conditionStyle(i).color} strokeWidth={2.5} strokeDasharray={conditionStyle(i).dash} />
+              <Line
+                x1={0}
+                y1={5}
+                x2={28}
+                y2={5}
+                stroke={conditionStyle(i).color}
+                strokeWidth={2.5}
+                strokeDasharray={conditionStyle(i).dash}
+              />
             </Svg>
             <AppText variant="small">{l.label}</AppText>
             {results[i]?.horizonDistanceM === null ? (

@@ -31,14 +31,17 @@ class SceneBoundary extends Component<{ fallback: ReactNode; children: ReactNode
 
 const NoWebGL = (
   <Notice tone="info" title="3D view not available">
-    <AppText>This browser cannot draw 3D (WebGL is off or missing). The side view and the table above hold the same answer.</AppText>
+    <AppText>
+      This browser cannot draw 3D (WebGL is off or missing). The side view and the table above hold the same answer.
+    </AppText>
   </Notice>
 );
 
 /** The 3D sightline view, opened on request. */
 export function Sightline3d(props: SightlineSceneProps) {
   const [open, setOpen] = useState(false);
-  if (!open) return <Button kind="secondary" label="Show in 3D" onPress={() => setOpen(true)} style={{ alignSelf: 'flex-start' }} />;
+  if (!open)
+    return <Button kind="secondary" label="Show in 3D" onPress={() => setOpen(true)} style={{ alignSelf: 'flex-start' }} />;
   if (!hasWebGL()) return NoWebGL;
   return (
     <View style={{ gap: space.sm }}>

@@ -3,7 +3,17 @@ import { AppText } from '@/components/ui/app-text';
 import { colors, radius, space, TOUCH } from '@/components/ui/theme';
 
 /** A segmented choice. */
-export function Segmented<T extends string>({ label, value, options, onChange }: { label: string; value: T; options: { value: T; label: string }[]; onChange: (v: T) => void }) {
+export function Segmented<T extends string>({
+  label,
+  value,
+  options,
+  onChange,
+}: {
+  label: string;
+  value: T;
+  options: { value: T; label: string }[];
+  onChange: (v: T) => void;
+}) {
   return (
     <View style={{ gap: space.xs }}>
       <AppText variant="label">{label}</AppText>
@@ -11,7 +21,13 @@ export function Segmented<T extends string>({ label, value, options, onChange }:
         {options.map((o) => {
           const on = o.value === value;
           return (
-            <Pressable key={o.value} role="radio" aria-checked={on} onPress={() => onChange(o.value)} style={[styles.seg, on && styles.on]}>
+            <Pressable
+              key={o.value}
+              role="radio"
+              aria-checked={on}
+              onPress={() => onChange(o.value)}
+              style={[styles.seg, on && styles.on]}
+            >
               <AppText variant="label" style={{ color: on ? colors.surface : colors.ink }}>
                 {o.label}
               </AppText>
@@ -24,7 +40,15 @@ export function Segmented<T extends string>({ label, value, options, onChange }:
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', flexWrap: 'wrap', borderWidth: 1.5, borderColor: colors.lineStrong, borderRadius: radius.md, overflow: 'hidden', alignSelf: 'flex-start' },
+  row: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    borderWidth: 1.5,
+    borderColor: colors.lineStrong,
+    borderRadius: radius.md,
+    overflow: 'hidden',
+    alignSelf: 'flex-start',
+  },
   seg: { minHeight: TOUCH, paddingHorizontal: space.md, justifyContent: 'center', backgroundColor: colors.surface },
   on: { backgroundColor: colors.ink },
 });

@@ -11,10 +11,18 @@ export const libraryKeys = {
 };
 
 export const targetsQuery = () =>
-  queryOptions({ queryKey: libraryKeys.targets(), staleTime: STALE.reference, queryFn: async () => (await api.get('/v1/targets', TargetListSchema)).items });
+  queryOptions({
+    queryKey: libraryKeys.targets(),
+    staleTime: STALE.reference,
+    queryFn: async () => (await api.get('/v1/targets', TargetListSchema)).items,
+  });
 
 export const conditionSetsQuery = () =>
-  queryOptions({ queryKey: libraryKeys.conditions(), staleTime: STALE.reference, queryFn: async () => (await api.get('/v1/conditions', ConditionSetListSchema)).items });
+  queryOptions({
+    queryKey: libraryKeys.conditions(),
+    staleTime: STALE.reference,
+    queryFn: async () => (await api.get('/v1/conditions', ConditionSetListSchema)).items,
+  });
 
 export const useTargets = () => useQuery(targetsQuery());
 export const useConditionSets = () => useQuery(conditionSetsQuery());

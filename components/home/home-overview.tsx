@@ -21,14 +21,19 @@ export function HomeOverview() {
         <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%', gap: space.md }}>
           <SiteList />
         </View>
-        <Pressable role="link" onPress={() => router.navigate('/check')} style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%' }}>
+        <Pressable
+          role="link"
+          onPress={() => router.navigate('/check')}
+          style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%' }}
+        >
           <Card accent="ember">
             <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
               <SightlineIcon color={colors.ember} />
               <AppText variant="heading">Quick check</AppText>
             </View>
             <AppText tone="muted">
-              Horizon, dip, hidden height and detection range for one height of eye and one target, under several refraction conditions.
+              Horizon, dip, hidden height and detection range for one height of eye and one target, under several refraction
+              conditions.
             </AppText>
           </Card>
         </Pressable>
@@ -53,7 +58,12 @@ function SiteList() {
   return (
     <View style={{ gap: space.sm }}>
       {sites.data.items.map((s) => (
-        <Pressable key={s.id} role="link" aria-label={s.name} onPress={() => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: s.id } })}>
+        <Pressable
+          key={s.id}
+          role="link"
+          aria-label={s.name}
+          onPress={() => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: s.id } })}
+        >
           <Card style={styles.row}>
             <AppText variant="heading">{s.name}</AppText>
             <AppText variant="small" tone="muted">

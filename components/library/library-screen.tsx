@@ -9,13 +9,19 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Screen } from '@/components/ui/screen';
-import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { EmptyState, ErrorState, FormError, LoadingState } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 
 const describeCondition = (c: Record<string, number | string>) =>
-  typeof c.preset === 'string' ? refractionPreset(c.preset as RefractionPresetId).label : typeof c.k === 'number' ? `k = ${c.k}` : Object.entries(c).map(([k, v]) => `${k} ${v}`).join(', ');
+  typeof c.preset === 'string'
+    ? refractionPreset(c.preset as RefractionPresetId).label
+    : typeof c.k === 'number'
+      ? `k = ${c.k}`
+      : Object.entries(c)
+          .map(([k, v]) => `${k} ${v}`)
+          .join(', ');
 
 /** The organisation's targets and condition sets, used by every coverage plan. */
 export function LibraryScreen() {
@@ -24,7 +30,10 @@ export function LibraryScreen() {
   const { data: user } = useSession();
   const { wide } = useLayout();
   return (
-    <Screen title="Library" subtitle="Targets your lookouts must detect, and the refraction and visibility conditions plans are judged under.">
+    <Screen
+      title="Library"
+      subtitle="Targets your lookouts must detect, and the refraction and visibility conditions plans are judged under."
+    >
       <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
         <View style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%', gap: space.sm }}>
           <AppText variant="heading">Targets</AppText>
@@ -39,7 +48,8 @@ export function LibraryScreen() {
               <Card key={t.id} aria-label={t.name} style={{ gap: 2 }}>
                 <AppText variant="label">{t.name}</AppText>
                 <AppText variant="small" tone="muted">
-                  {TARGET_KIND_LABELS[t.kind]} · {t.heightM} m tall, {t.widthM} m wide · top {t.requiredVisibleM} m must show · {t.period}
+                  {TARGET_KIND_LABELS[t.kind]} · {t.heightM} m tall, {t.widthM} m wide · top {t.requiredVisibleM} m must show ·{' '}
+                  {t.period}
                 </AppText>
               </Card>
             ))
@@ -62,7 +72,10 @@ export function LibraryScreen() {
                   </AppText>
                 ))}
                 <AppText variant="small" tone="muted">
-                  Visibility {s.visibilityM === null ? 'not stated' : `${(s.visibilityM / 1000).toLocaleString('en')} km (${s.visibilityKind === 'mor-5pct' ? 'MOR' : 'met. range'})`}
+                  Visibility{' '}
+                  {s.visibilityM === null
+                    ? 'not stated'
+                    : `${(s.visibilityM / 1000).toLocaleString('en')} km (${s.visibilityKind === 'mor-5pct' ? 'MOR' : 'met. range'})`}
                 </AppText>
               </Card>
             ))
@@ -75,39 +88,76 @@ export function LibraryScreen() {
 
 function TargetForm() {
   const create = useCreateTarget();
-  const [v, setV] = useState({ name: '', kind: 'smoke-column' as (typeof TARGET_KINDS)[number], height: '', width: '', required: '0' });
+  const [v, setV] = useState({
+    name: '',
+    kind: 'smoke-column' as (typeof TARGET_KINDS)[number],
+    height: '',
+    width: '',
+    required: '0',
+  });
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [failed, setFailed] = useState('');
   const set = (k: keyof typeof v) => (t: string) => setV((f) => ({ ...f, [k]: t }));
   const submit = () => {
     const n = (t: string) => (t.trim() === '' ? undefined : Number(t));
-    const r = TargetInputSchema.safeParse({ name: v.name, kind: v.kind, heightM: n(v.height), widthM: n(v.width), requiredVisibleM: n(v.required) });
+    const r = TargetInputSchema.safeParse({
+      name: v.name,
+      kind: v.kind,
+      heightM: n(v.height),
+      widthM: n(v.width),
+      requiredVisibleM: n(v.required),
+    });
     if (!r.success) {
       setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
       return;
     }
     setErrors({});
-    create.mutate(r.data, { onSuccess: () => setV({ ...v, name: '', height: '', width: '', required: '0' }), onError: (e) => setFailed(e.message) });
+    create.mutate(r.data, {
+      onSuccess: () => setV({ ...v, name: '', height: '', width: '', required: '0' }),
+      onError: (e) => setFailed(e.message),
+    });
   };
   return (
     <Card accent="moss" aria-label="New target">
       <AppText variant="heading">Add a target</AppText>
-      {failed ? (
-        <Notice tone="danger">
-          <AppText>{failed}</AppText>
-        </Notice>
-      ) : null}
+      <FormError message={failed} />
       <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
-      <Segmented label="Kind" value={v.kind} onChange={(k) => setV((f) => ({ ...f, kind: k }))} options={TARGET_KINDS.slice(0, 4).map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))} />
+      <Segmented
+        label="Kind"
+        value={v.kind}
+        onChange={(k) => setV((f) => ({ ...f, kind: k }))}
+        options={TARGET_KINDS.slice(0, 4).map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))}
+      />
       <View style={{ flexDirection: 'row', gap: space.md }}>
         <View style={{ flex: 1 }}>
-          <TextField label="Height" unit="m" inputMode="decimal" value={v.height} onChangeText={set('height')} error={errors.heightM} />
+          <TextField
+            label="Height"
+            unit="m"
+            inputMode="decimal"
+            value={v.height}
+            onChangeText={set('height')}
+            error={errors.heightM}
+          />
         </View>
         <View style={{ flex: 1 }}>
-          <TextField label="Width" unit="m" inputMode="decimal" value={v.width} onChangeText={set('width')} error={errors.widthM} />
+          <TextField
+            label="Width"
+            unit="m"
+            inputMode="decimal"
+            value={v.width}
+            onChangeText={set('width')}
+            error={errors.widthM}
+          />
         </View>
       </View>
-      <TextField label="Top part that must show" unit="m" inputMode="decimal" value={v.required} onChangeText={set('required')} error={errors.requiredVisibleM} />
+      <TextField
+        label="Top part that must show"
+        unit="m"
+        inputMode="decimal"
+        value={v.required}
+        onChangeText={set('required')}
+        error={errors.requiredVisibleM}
+      />
       <Button label="Save target" onPress={submit} busy={create.isPending} />
     </Card>
   );

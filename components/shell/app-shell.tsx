@@ -32,7 +32,11 @@ export function AppShell() {
                 role="link"
                 aria-current={active ? 'page' : undefined}
                 onPress={() => router.navigate(item.href)}
-                style={({ pressed }) => [styles.railItem, active && styles.railItemActive, pressed && { backgroundColor: colors.nightRaised }]}
+                style={({ pressed }) => [
+                  styles.railItem,
+                  active && styles.railItemActive,
+                  pressed && { backgroundColor: colors.nightRaised },
+                ]}
               >
                 <item.Icon color={active ? colors.lantern : colors.railText} />
                 <AppText variant="label" style={{ color: active ? colors.lantern : colors.railText, fontSize: 16 }}>

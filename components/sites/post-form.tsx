@@ -10,12 +10,22 @@ import { Segmented } from '@/components/check/unit-switch';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Notice } from '@/components/ui/states';
+import { FormError } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 
 type Kind = (typeof POST_KINDS)[number];
-const EMPTY = { name: '', kind: 'tower' as Kind, location: '', ground: '', structure: '0', eye: '1.6', status: 'existing' as 'existing' | 'proposed', sectorFrom: '', sectorTo: '' };
+const EMPTY = {
+  name: '',
+  kind: 'tower' as Kind,
+  location: '',
+  ground: '',
+  structure: '0',
+  eye: '1.6',
+  status: 'existing' as 'existing' | 'proposed',
+  sectorFrom: '',
+  sectorTo: '',
+};
 type Errors = Partial<Record<keyof typeof EMPTY, string>>;
 
 const FIELD: Record<string, keyof typeof EMPTY> = {
@@ -93,41 +103,90 @@ export function PostForm({ siteId, onDone }: { siteId: string; onDone?: () => vo
   return (
     <Card accent="moss" aria-label="New post">
       <AppText variant="heading">Add a post</AppText>
-      {formError ? (
-        <Notice tone="danger">
-          <AppText>{formError}</AppText>
-        </Notice>
-      ) : null}
+      <FormError message={formError} />
       <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
-      <Segmented<Kind> label="Kind" value={v.kind} onChange={(k) => setV((f) => ({ ...f, kind: k }))} options={POST_KINDS.map((k) => ({ value: k, label: POST_KIND_LABELS[k] }))} />
+      <Segmented<Kind>
+        label="Kind"
+        value={v.kind}
+        onChange={(k) => setV((f) => ({ ...f, kind: k }))}
+        options={POST_KINDS.map((k) => ({ value: k, label: POST_KIND_LABELS[k] }))}
+      />
       <TextField
         label="Location"
         value={v.location}
         onChangeText={set('location')}
         error={errors.location ?? (locationError || undefined)}
-        hint={parsed ? `Read as ${formatCoordinate(parsed, 'dd')} · ${formatCoordinate(parsed, 'utm')}` : 'Decimal degrees, degrees-minutes, DMS or UTM (e.g. 33U 516200 5741300).'}
+        hint={
+          parsed
+            ? `Read as ${formatCoordinate(parsed, 'dd')} · ${formatCoordinate(parsed, 'utm')}`
+            : 'Decimal degrees, degrees-minutes, DMS or UTM (e.g. 33U 516200 5741300).'
+        }
         autoCapitalize="characters"
       />
       <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
         <View style={{ flex: 1, minWidth: 140 }}>
-          <TextField label="Ground elevation" unit="m" inputMode="decimal" value={v.ground} onChangeText={set('ground')} error={errors.ground} />
+          <TextField
+            label="Ground elevation"
+            unit="m"
+            inputMode="decimal"
+            value={v.ground}
+            onChangeText={set('ground')}
+            error={errors.ground}
+          />
         </View>
         <View style={{ flex: 1, minWidth: 140 }}>
-          <TextField label="Structure height" unit="m" inputMode="decimal" value={v.structure} onChangeText={set('structure')} error={errors.structure} />
+          <TextField
+            label="Structure height"
+            unit="m"
+            inputMode="decimal"
+            value={v.structure}
+            onChangeText={set('structure')}
+            error={errors.structure}
+          />
         </View>
         <View style={{ flex: 1, minWidth: 140 }}>
-          <TextField label="Eye above platform" unit="m" inputMode="decimal" value={v.eye} onChangeText={set('eye')} error={errors.eye} />
+          <TextField
+            label="Eye above platform"
+            unit="m"
+            inputMode="decimal"
+            value={v.eye}
+            onChangeText={set('eye')}
+            error={errors.eye}
+          />
         </View>
       </View>
       <View style={{ flexDirection: 'row', gap: space.md }}>
         <View style={{ flex: 1 }}>
-          <TextField label="Sector from" unit="°" inputMode="decimal" value={v.sectorFrom} onChangeText={set('sectorFrom')} error={errors.sectorFrom} hint="Leave both empty for all round." />
+          <TextField
+            label="Sector from"
+            unit="°"
+            inputMode="decimal"
+            value={v.sectorFrom}
+            onChangeText={set('sectorFrom')}
+            error={errors.sectorFrom}
+            hint="Leave both empty for all round."
+          />
         </View>
         <View style={{ flex: 1 }}>
-          <TextField label="Sector to" unit="°" inputMode="decimal" value={v.sectorTo} onChangeText={set('sectorTo')} error={errors.sectorTo} />
+          <TextField
+            label="Sector to"
+            unit="°"
+            inputMode="decimal"
+            value={v.sectorTo}
+            onChangeText={set('sectorTo')}
+            error={errors.sectorTo}
+          />
         </View>
       </View>
-      <Segmented label="Status" value={v.status} onChange={(s) => setV((f) => ({ ...f, status: s }))} options={[{ value: 'existing', label: 'Existing' }, { value: 'proposed', label: 'Proposed' }]} />
+      <Segmented
+        label="Status"
+        value={v.status}
+        onChange={(s) => setV((f) => ({ ...f, status: s }))}
+        options={[
+          { value: 'existing', label: 'Existing' },
+          { value: 'proposed', label: 'Proposed' },
+        ]}
+      />
       <Button label="Save post" onPress={submit} busy={create.isPending} />
     </Card>
   );

@@ -35,7 +35,10 @@ export function SiteOverview({ siteId }: { siteId: string }) {
           ) : posts.isError ? (
             <ErrorState error={posts.error} onRetry={() => void posts.refetch()} />
           ) : list.length === 0 ? (
-            <EmptyState title="No posts yet" body="A post is a tower, hilltop, shore post, vessel or aircraft someone watches from." />
+            <EmptyState
+              title="No posts yet"
+              body="A post is a tower, hilltop, shore post, vessel or aircraft someone watches from."
+            />
           ) : (
             list.map((p) => (
               <Card key={p.id} aria-label={p.name} style={{ gap: space.xs }}>
@@ -44,7 +47,8 @@ export function SiteOverview({ siteId }: { siteId: string }) {
                   {POST_KIND_LABELS[p.kind]} · {p.status} · {formatCoordinate(p.location, 'ddm')}
                 </AppText>
                 <AppText variant="small">
-                  Eye {eye(p).toFixed(1)} m above datum (ground {p.groundElevationM} m + structure {p.structureHeightM} m + eye {p.eyeHeightM} m)
+                  Eye {eye(p).toFixed(1)} m above datum (ground {p.groundElevationM} m + structure {p.structureHeightM} m + eye{' '}
+                  {p.eyeHeightM} m)
                   {p.sector ? ` · sector ${p.sector.fromDeg}°–${p.sector.toDeg}°` : ' · all round'}
                 </AppText>
               </Card>

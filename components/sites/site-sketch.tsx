@@ -13,7 +13,11 @@ import { colors, fonts, space } from '@/components/ui/theme';
 export function SiteSketch({ site, posts }: { site: Site; posts: Post[] }) {
   const [width, setWidth] = useState(0);
   const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
-  const pts: [number, number][] = [...(site.boundary ?? []), ...site.priorityZones.flatMap((z) => z.ring), ...posts.map((p) => [p.location.lonDeg, p.location.latDeg] as [number, number])];
+  const pts: [number, number][] = [
+    ...(site.boundary ?? []),
+    ...site.priorityZones.flatMap((z) => z.ring),
+    ...posts.map((p) => [p.location.lonDeg, p.location.latDeg] as [number, number]),
+  ];
   const height = Math.min(Math.max(width * 0.7, 220), 420);
   if (pts.length === 0) {
     return (
@@ -30,8 +34,8 @@ export function SiteSketch({ site, posts }: { site: Site; posts: Post[] }) {
   const span = Math.max(maxX - minX, maxY - minY, 1e-4);
   const pad = 28;
   const scale = Math.min((width - 2 * pad) / span, (height - 2 * pad) / span);
-  const sx = (lon: number) => pad + (lon * kx - minX) * scale + ((width - 2 * pad) - (maxX - minX) * scale) / 2;
-  const sy = (lat: number) => height - pad - (lat - minY) * scale - ((height - 2 * pad) - (maxY - minY) * scale) / 2;
+  const sx = (lon: number) => pad + (lon * kx - minX) * scale + (width - 2 * pad - (maxX - minX) * scale) / 2;
+  const sy = (lat: number) => height - pad - (lat - minY) * scale - (height - 2 * pad - (maxY - minY) * scale) / 2;
   const poly = (ring: [number, number][]) => ring.map(([lon, lat]) => `${sx(lon).toFixed(1)},${sy(lat).toFixed(1)}`).join(' ');
   // Kilometres per degree of latitude: 2πR/360 with R = 6 371 km (common practice, no source).
   const kmPerPx = 111.195 / scale;
@@ -66,8 +70,21 @@ export function SiteSketch({ site, posts }: { site: Site; posts: Post[] }) {
           })}
           {posts.map((p) => (
             <G key={p.id}>
-              <Circle cx={sx(p.location.lonDeg)} cy={sy(p.location.latDeg)} r={6} fill={p.status === 'proposed' ? colors.surface : colors.ink} stroke={colors.ink} strokeWidth={2} />
-              <SvgText x={sx(p.location.lonDeg) + 9} y={sy(p.location.latDeg) + 4} fontSize={12} fontFamily={fonts.medium} fill={colors.ink}>
+              <Circle
+                cx={sx(p.location.lonDeg)}
+                cy={sy(p.location.latDeg)}
+                r={6}
+                fill={p.status === 'proposed' ? colors.surface : colors.ink}
+                stroke={colors.ink}
+                strokeWidth={2}
+              />
+              <SvgText
+                x={sx(p.location.lonDeg) + 9}
+                y={sy(p.location.latDeg) + 4}
+                fontSize={12}
+                fontFamily={fonts.medium}
+                fill={colors.ink}
+              >
                 {p.name}
               </SvgText>
             </G>

@@ -27,7 +27,11 @@ export function Button({ label, kind = 'primary', busy, disabled, icon, style, .
       {...rest}
     >
       <View style={styles.row}>
-        {busy ? <ActivityIndicator size="small" color={kind === 'primary' || kind === 'danger' ? colors.surface : colors.ink} /> : icon}
+        {busy ? (
+          <ActivityIndicator size="small" color={kind === 'primary' || kind === 'danger' ? colors.surface : colors.ink} />
+        ) : (
+          icon
+        )}
         <AppText variant="label" style={{ color: textColor[kind], fontSize: 16 }}>
           {label}
         </AppText>

@@ -3,7 +3,12 @@ import { colors, radius, space } from './theme';
 
 /** A surface panel; `accent` draws Kenning's horizon rule along its top edge. */
 export function Card({ style, accent, ...rest }: ViewProps & { accent?: 'ember' | 'moss' | 'none' }) {
-  return <View style={[styles.card, accent && accent !== 'none' && { borderTopColor: colors[accent], borderTopWidth: 3 }, style]} {...rest} />;
+  return (
+    <View
+      style={[styles.card, accent && accent !== 'none' && { borderTopColor: colors[accent], borderTopWidth: 3 }, style]}
+      {...rest}
+    />
+  );
 }
 
 const styles = StyleSheet.create({

@@ -12,7 +12,17 @@ export interface IconProps {
  */
 function Frame({ size = 24, color = colors.ink, children }: IconProps & { children: React.ReactNode }) {
   return (
-    <Svg width={size} height={size} viewBox="0 0 24 24" fill="none" stroke={color} strokeWidth={1.8} strokeLinecap="square" strokeLinejoin="miter" aria-hidden>
+    <Svg
+      width={size}
+      height={size}
+      viewBox="0 0 24 24"
+      fill="none"
+      stroke={color}
+      strokeWidth={1.8}
+      strokeLinecap="square"
+      strokeLinejoin="miter"
+      aria-hidden
+    >
       {children}
     </Svg>
   );

@@ -4,7 +4,13 @@ import { colors, space } from './theme';
 import { useLayout } from './use-layout';
 
 /** A scrolling page with a title and a readable maximum width. */
-export function Screen({ title, subtitle, actions, children, maxWidth = 1100 }: {
+export function Screen({
+  title,
+  subtitle,
+  actions,
+  children,
+  maxWidth = 1100,
+}: {
   title: string;
   subtitle?: string;
   actions?: React.ReactNode;

@@ -37,7 +37,15 @@ export function EmptyState({ title, body, action }: { title: string; body: strin
 }
 
 /** A banner for cautions and notices that must stay visible. */
-export function Notice({ tone = 'caution', title, children }: { tone?: 'caution' | 'danger' | 'info'; title?: string; children: React.ReactNode }) {
+export function Notice({
+  tone = 'caution',
+  title,
+  children,
+}: {
+  tone?: 'caution' | 'danger' | 'info';
+  title?: string;
+  children: React.ReactNode;
+}) {
   const bg = tone === 'danger' ? colors.dangerSoft : tone === 'info' ? colors.mossSoft : colors.cautionSoft;
   const line = tone === 'danger' ? colors.danger : tone === 'info' ? colors.moss : colors.cautionLine;
   return (
@@ -53,3 +61,13 @@ const styles = StyleSheet.create({
   box: { borderRadius: radius.lg },
   notice: { borderLeftWidth: 4, borderRadius: radius.sm, padding: space.md, gap: space.xs },
 });
+
+/** A form-level error above the fields; renders nothing when there is no message. */
+export function FormError({ message }: { message: string }) {
+  if (!message) return null;
+  return (
+    <Notice tone="danger">
+      <AppText>{message}</AppText>
+    </Notice>
+  );
+}

@@ -51,5 +51,5 @@ export const type = {
   body: { fontFamily: fonts.regular, fontSize: 16, lineHeight: 23 },
   small: { fontFamily: fonts.regular, fontSize: 14, lineHeight: 20 },
   label: { fontFamily: fonts.medium, fontSize: 14, lineHeight: 18, letterSpacing: 0.3 },
-  figure: { fontFamily: fonts.semibold, fontSize: 20, lineHeight: 24, fontVariant: ['tabular-nums'] as ('tabular-nums')[] },
+  figure: { fontFamily: fonts.semibold, fontSize: 20, lineHeight: 24, fontVariant: ['tabular-nums'] as 'tabular-nums'[] },
 } as const;

@@ -1,5 +1,19 @@
 /** A vertical pole: the observer's eye or the target, with an optional hidden lower part. */
-export function PostMarker({ x, baseY, heightY, hiddenY = 0, color, radius = 0.12 }: { x: number; baseY: number; heightY: number; hiddenY?: number; color: string; radius?: number }) {
+export function PostMarker({
+  x,
+  baseY,
+  heightY,
+  hiddenY = 0,
+  color,
+  radius = 0.12,
+}: {
+  x: number;
+  baseY: number;
+  heightY: number;
+  hiddenY?: number;
+  color: string;
+  radius?: number;
+}) {
   const shown = Math.max(heightY - hiddenY, 0);
   const hidden = Math.min(hiddenY, heightY);
   return (

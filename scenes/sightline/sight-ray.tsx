@@ -3,7 +3,17 @@ import { BufferAttribute, BufferGeometry, Line, LineBasicMaterial } from 'three'
 import { rayPoints, type SceneScale } from './scene-geometry';
 
 /** One condition's horizon-grazing sightline. */
-export function SightRay({ horizonM, effectiveRadiusM, color, scale }: { horizonM: number | null; effectiveRadiusM: number | null; color: string; scale: SceneScale }) {
+export function SightRay({
+  horizonM,
+  effectiveRadiusM,
+  color,
+  scale,
+}: {
+  horizonM: number | null;
+  effectiveRadiusM: number | null;
+  color: string;
+  scale: SceneScale;
+}) {
   const line = useMemo(() => {
     const pts = rayPoints(horizonM, effectiveRadiusM, scale);
     if (!pts) return null;

@@ -49,7 +49,14 @@ function DragRotate({ target }: { target: React.RefObject<Group | null> }) {
 }
 
 /** Curved earth segment, the eye, the target with its hidden part, and one sightline per condition. */
-export default function SightlineScene({ observerHeightM, targetHeightM, distanceM, earthRadiusM = MEAN_EARTH_RADIUS_M, results, colors }: SightlineSceneProps) {
+export default function SightlineScene({
+  observerHeightM,
+  targetHeightM,
+  distanceM,
+  earthRadiusM = MEAN_EARTH_RADIUS_M,
+  results,
+  colors,
+}: SightlineSceneProps) {
   const group = useRef<Group>(null);
   const scale = useMemo<SceneScale>(() => {
     const horizons = results.map((r) => r.horizonDistanceM ?? 0);
@@ -63,7 +70,11 @@ export default function SightlineScene({ observerHeightM, targetHeightM, distanc
   const first = results[0];
 
   return (
-    <Canvas frameloop="demand" camera={{ position: [km * 0.5, km * 0.35, km * 0.9], fov: 45, near: 0.01, far: km * 20 }} style={{ touchAction: 'none' }}>
+    <Canvas
+      frameloop="demand"
+      camera={{ position: [km * 0.5, km * 0.35, km * 0.9], fov: 45, near: 0.01, far: km * 20 }}
+      style={{ touchAction: 'none' }}
+    >
       <color attach="background" args={['#EEF2F3']} />
       <ambientLight intensity={0.7} />
       <directionalLight position={[km, km, km * 0.5]} intensity={1.1} />
@@ -81,7 +92,13 @@ export default function SightlineScene({ observerHeightM, targetHeightM, distanc
           />
         ) : null}
         {results.map((r, i) => (
-          <SightRay key={i} horizonM={r.horizonDistanceM} effectiveRadiusM={r.effectiveRadiusM} color={colors[i] ?? '#17252B'} scale={scale} />
+          <SightRay
+            key={i}
+            horizonM={r.horizonDistanceM}
+            effectiveRadiusM={r.effectiveRadiusM}
+            color={colors[i] ?? '#17252B'}
+            scale={scale}
+          />
         ))}
       </group>
       <DragRotate target={group} />

@@ -24,7 +24,10 @@ export function caughtMailRoutes(client: CaughtMailClient | null) {
     }
     try {
       // The catcher is shared by every organisation; an admin sees only mail to their own people.
-      const [messages, own] = await Promise.all([client.list(), usersRepository.emailsInOrganization(actorOf(req).organizationId)]);
+      const [messages, own] = await Promise.all([
+        client.list(),
+        usersRepository.emailsInOrganization(actorOf(req).organizationId),
+      ]);
       const members = new Set(own.map((e) => e.toLowerCase()));
       const body: CaughtMailList = { messages: messages.filter((m) => m.to.some((to) => members.has(to.toLowerCase()))) };
       res.json(body);

@@ -1,7 +1,13 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { ConditionSetInputSchema, ConditionSetUpdateSchema, TargetInputSchema, TargetUpdateSchema, type TargetInput } from '@/shared/schemas/library';
+import {
+  ConditionSetInputSchema,
+  ConditionSetUpdateSchema,
+  TargetInputSchema,
+  TargetUpdateSchema,
+  type TargetInput,
+} from '@/shared/schemas/library';
 import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
 import { libraryUseCases } from '@/server/domain/library/manage-library';
 import { AppError } from '@/server/http/app-error';
@@ -12,7 +18,9 @@ const IdParams = z.object({ id: z.uuid({ error: 'Not an id.' }) });
 
 const checkTarget = (t: TargetInput) => {
   if (t.requiredVisibleM > t.heightM) {
-    throw AppError.badRequest('The target has invalid fields.', { requiredVisibleM: 'The part that must show cannot exceed the height.' });
+    throw AppError.badRequest('The target has invalid fields.', {
+      requiredVisibleM: 'The part that must show cannot exceed the height.',
+    });
   }
 };
 
@@ -20,7 +28,14 @@ const checkTarget = (t: TargetInput) => {
 export function libraryRoutes(db: Sequelize) {
   const router = Router();
   const write = [requireUser, requireRole('planner')];
-  const mount = (path: string, uc: ReturnType<typeof libraryUseCases<{ id: string }, object>>, create: z.ZodType, update: z.ZodType, noun: string, key: string) => {
+  const mount = (
+    path: string,
+    uc: ReturnType<typeof libraryUseCases<{ id: string }, object>>,
+    create: z.ZodType,
+    update: z.ZodType,
+    noun: string,
+    key: string,
+  ) => {
     router.get(`/${path}`, requireUser, async (req, res) => {
       res.json({ items: await uc.list(actorOf(req)) });
     });
@@ -37,7 +52,21 @@ export function libraryRoutes(db: Sequelize) {
       res.status(204).end();
     });
   };
-  mount('targets', libraryUseCases(db, targetsRepository, 'target', 'That target', checkTarget) as never, TargetInputSchema, TargetUpdateSchema, 'target', 'target');
-  mount('conditions', libraryUseCases(db, conditionSetsRepository, 'condition-set', 'That condition set') as never, ConditionSetInputSchema, ConditionSetUpdateSchema, 'condition set', 'conditionSet');
+  mount(
+    'targets',
+    libraryUseCases(db, targetsRepository, 'target', 'That target', checkTarget) as never,
+    TargetInputSchema,
+    TargetUpdateSchema,
+    'target',
+    'target',
+  );
+  mount(
+    'conditions',
+    libraryUseCases(db, conditionSetsRepository, 'condition-set', 'That condition set') as never,
+    ConditionSetInputSchema,
+    ConditionSetUpdateSchema,
+    'condition set',
+    'conditionSet',
+  );
   return router;
 }

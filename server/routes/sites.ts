@@ -3,7 +3,16 @@ import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { PageQuerySchema, PostInputSchema, PostUpdateSchema, SiteInputSchema, SiteUpdateSchema } from '@/shared/schemas/site';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
-import { createPost, createSite, deletePost, deleteSite, getSite, listPosts, updatePost, updateSite } from '@/server/domain/sites/manage-sites';
+import {
+  createPost,
+  createSite,
+  deletePost,
+  deleteSite,
+  getSite,
+  listPosts,
+  updatePost,
+  updateSite,
+} from '@/server/domain/sites/manage-sites';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 

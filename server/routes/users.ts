@@ -27,7 +27,12 @@ export function userRoutes(db: Sequelize, publicUrl: (req: Request) => string, m
     let mailed = false;
     if (mailer && req.user) {
       try {
-        const message = invitation({ name: user.name, organizationName: req.user.organization.name, setPasswordUrl, invitedBy: req.user.name });
+        const message = invitation({
+          name: user.name,
+          organizationName: req.user.organization.name,
+          setPasswordUrl,
+          invitedBy: req.user.name,
+        });
         await mailer.send({ to: [user.email], ...message });
         mailed = true;
       } catch (e) {

@@ -14,7 +14,10 @@ export const TARGET_KIND_LABELS: Record<(typeof TARGET_KINDS)[number], string> =
 };
 
 const metres = (what: string, min: number, max: number) =>
-  z.number({ error: `${what} must be a number of metres.` }).min(min, `${what} must be at least ${min} m.`).max(max, `${what} must be at most ${max} m.`);
+  z
+    .number({ error: `${what} must be a number of metres.` })
+    .min(min, `${what} must be at least ${min} m.`)
+    .max(max, `${what} must be at most ${max} m.`);
 
 /** A target profile in the organisation's library. Lengths in metres. */
 export const TargetInputSchema = z
@@ -29,7 +32,10 @@ export const TargetInputSchema = z
     requiredVisibleM: metres('Required part', 0, 20_000).default(0),
     period: z.enum(['day', 'night'], { error: 'Day or night.' }).default('day'),
   })
-  .refine((t) => t.requiredVisibleM <= t.heightM, { message: 'The part that must show cannot exceed the height.', path: ['requiredVisibleM'] });
+  .refine((t) => t.requiredVisibleM <= t.heightM, {
+    message: 'The part that must show cannot exceed the height.',
+    path: ['requiredVisibleM'],
+  });
 export type TargetInput = z.infer<typeof TargetInputSchema>;
 
 export const TargetSchema = z.object({
@@ -48,9 +54,17 @@ export type Target = z.infer<typeof TargetSchema>;
 /** A named set of refraction conditions with a visibility, in the organisation's library. */
 export const ConditionSetInputSchema = z.object({
   name: z.string({ error: 'Name the set.' }).trim().min(1, 'Name the set.').max(120, 'At most 120 characters.'),
-  conditions: z.array(RefractionConditionSchema).min(1, 'Give at least one refraction condition.').max(12, 'At most 12 conditions.'),
+  conditions: z
+    .array(RefractionConditionSchema)
+    .min(1, 'Give at least one refraction condition.')
+    .max(12, 'At most 12 conditions.'),
   /** Visibility, metres; null when not stated. */
-  visibilityM: z.number({ error: 'Visibility must be a number of metres.' }).min(10, 'At least 10 m.').max(1_000_000, 'At most 1 000 km.').nullable().default(null),
+  visibilityM: z
+    .number({ error: 'Visibility must be a number of metres.' })
+    .min(10, 'At least 10 m.')
+    .max(1_000_000, 'At most 1 000 km.')
+    .nullable()
+    .default(null),
   visibilityKind: VisibilityKindSchema.default('mor-5pct'),
 });
 export type ConditionSetInput = z.infer<typeof ConditionSetInputSchema>;

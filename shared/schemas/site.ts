@@ -18,7 +18,9 @@ export const UNIT_SYSTEM_IDS = ['metric', 'nautical', 'imperial'] as const;
  * 3 to 2 000 distinct corners; the closing corner may be given or left out.
  */
 export const RingSchema = z
-  .array(z.tuple([z.number().min(-180).max(180), z.number().min(-90).max(90)]), { error: 'Give the corners as [longitude, latitude] pairs.' })
+  .array(z.tuple([z.number().min(-180).max(180), z.number().min(-90).max(90)]), {
+    error: 'Give the corners as [longitude, latitude] pairs.',
+  })
   .min(3, 'A boundary needs at least three corners.')
   .max(2000, 'At most 2 000 corners.')
   .transform((ring) => {
@@ -27,7 +29,10 @@ export const RingSchema = z
     const closed = first && last && first[0] === last[0] && first[1] === last[1];
     return closed ? ring : [...ring, first!];
   })
-  .refine((ring) => new Set(ring.slice(0, -1).map((p) => p.join(','))).size >= 3, 'A boundary needs at least three distinct corners.');
+  .refine(
+    (ring) => new Set(ring.slice(0, -1).map((p) => p.join(','))).size >= 3,
+    'A boundary needs at least three distinct corners.',
+  );
 
 export const PriorityZoneSchema = z.object({
   name: z.string().trim().min(1, 'Name the zone.').max(120),
@@ -108,8 +113,14 @@ export const POST_KIND_LABELS: Record<(typeof POST_KINDS)[number], string> = {
 export const POST_STATUSES = ['existing', 'proposed'] as const;
 
 const metres = (what: string, max: number) =>
-  z.number({ error: `${what} must be a number of metres.` }).min(0, `${what} cannot be negative.`).max(max, `${what} must be at most ${max} m.`);
-const bearing = z.number({ error: 'A bearing is a number of degrees.' }).min(0, 'Bearings run 0–360°.').max(360, 'Bearings run 0–360°.');
+  z
+    .number({ error: `${what} must be a number of metres.` })
+    .min(0, `${what} cannot be negative.`)
+    .max(max, `${what} must be at most ${max} m.`);
+const bearing = z
+  .number({ error: 'A bearing is a number of degrees.' })
+  .min(0, 'Bearings run 0–360°.')
+  .max(360, 'Bearings run 0–360°.');
 
 /** A place a lookout watches from. Heights in metres; location WGS84. */
 export const PostSchema = z.object({
@@ -136,7 +147,10 @@ export const PostInputSchema = z.object({
   name: z.string({ error: 'Name the post.' }).trim().min(1, 'Name the post.').max(120, 'At most 120 characters.'),
   kind: z.enum(POST_KINDS, { error: `Choose one of: ${POST_KINDS.join(', ')}.` }),
   location: LatLonSchema,
-  groundElevationM: z.number({ error: 'Ground elevation must be a number of metres.' }).min(-500, 'At least −500 m.').max(9000, 'At most 9 000 m.'),
+  groundElevationM: z
+    .number({ error: 'Ground elevation must be a number of metres.' })
+    .min(-500, 'At least −500 m.')
+    .max(9000, 'At most 9 000 m.'),
   structureHeightM: metres('Structure height', 500).default(0),
   eyeHeightM: metres('Eye height', 10).default(1.6),
   sector: z.object({ fromDeg: bearing, toDeg: bearing }).nullable().default(null),

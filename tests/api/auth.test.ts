@@ -35,13 +35,17 @@ describe('POST /api/auth/sign-in', () => {
   });
 
   it('accepts the e-mail in any case and with spaces around it', async () => {
-    const res = await request(app).post('/api/auth/sign-in').send({ email: '  Planner@Demo.Kenning.TEST ', password: DEMO_PASSWORD });
+    const res = await request(app)
+      .post('/api/auth/sign-in')
+      .send({ email: '  Planner@Demo.Kenning.TEST ', password: DEMO_PASSWORD });
     expect(res.status).toBe(200);
   });
 
   it('answers a wrong password and an unknown e-mail with the same 401', async () => {
     const wrong = await request(app).post('/api/auth/sign-in').send({ email: DEMO.planner, password: 'not-the-password' });
-    const unknown = await request(app).post('/api/auth/sign-in').send({ email: 'nobody@demo.kenning.test', password: 'whatever-at-all' });
+    const unknown = await request(app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'nobody@demo.kenning.test', password: 'whatever-at-all' });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrong.body).toEqual(unknown.body);
@@ -95,11 +99,15 @@ describe('POST /api/auth/sign-in', () => {
 
 describe('sign-in rate limits', () => {
   it('answers a burst of bad attempts on one account with 429, even with the right password', async () => {
-    const limited = { app: createApp({ db, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ACCOUNT: 3, SIGN_IN_LIMIT_PER_ADDRESS: 100 } }) };
+    const limited = {
+      app: createApp({ db, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ACCOUNT: 3, SIGN_IN_LIMIT_PER_ADDRESS: 100 } }),
+    };
     {
       const statuses: number[] = [];
       for (let i = 0; i < 4; i++) {
-        const r = await request(limited.app).post('/api/auth/sign-in').send({ email: DEMO.planner, password: `wrong-${i}-guess` });
+        const r = await request(limited.app)
+          .post('/api/auth/sign-in')
+          .send({ email: DEMO.planner, password: `wrong-${i}-guess` });
         statuses.push(r.status);
       }
       expect(statuses).toEqual([401, 401, 401, 429]);
@@ -113,11 +121,14 @@ describe('sign-in rate limits', () => {
   });
 
   it('limits attempts per address across accounts', async () => {
-    const limited = { app: createApp({ db, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ADDRESS: 2, SIGN_IN_LIMIT_PER_ACCOUNT: 100 } }) };
+    const limited = {
+      app: createApp({ db, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ADDRESS: 2, SIGN_IN_LIMIT_PER_ACCOUNT: 100 } }),
+    };
     {
       const emails = [DEMO.planner, DEMO.reviewer, DEMO.admin];
       const statuses = [];
-      for (const email of emails) statuses.push((await request(limited.app).post('/api/auth/sign-in').send({ email, password: 'wrong-password' })).status);
+      for (const email of emails)
+        statuses.push((await request(limited.app).post('/api/auth/sign-in').send({ email, password: 'wrong-password' })).status);
       expect(statuses).toEqual([401, 401, 429]);
     }
   });

@@ -23,8 +23,12 @@ describe('target and condition libraries', () => {
       const c = await agent.get('/api/v1/conditions').expect(200);
       expect(c.body.items).toHaveLength(STARTER_CONDITION_SETS.length);
     }
-    const mine = (await (await signedInAgent(app, DEMO.planner)).get('/api/v1/targets')).body.items.map((t: { id: string }) => t.id);
-    const theirs = (await (await signedInAgent(app, DEMO.otherPlanner)).get('/api/v1/targets')).body.items.map((t: { id: string }) => t.id);
+    const mine = (await (await signedInAgent(app, DEMO.planner)).get('/api/v1/targets')).body.items.map(
+      (t: { id: string }) => t.id,
+    );
+    const theirs = (await (await signedInAgent(app, DEMO.otherPlanner)).get('/api/v1/targets')).body.items.map(
+      (t: { id: string }) => t.id,
+    );
     expect(mine.filter((id: string) => theirs.includes(id))).toEqual([]);
   });
 
@@ -36,7 +40,10 @@ describe('target and condition libraries', () => {
     expect(created.body.target).toMatchObject({ ...target, version: 0 });
 
     expect((await (await signedInAgent(app, DEMO.reviewer)).post('/api/v1/targets').send(target)).status).toBe(403);
-    expect((await (await signedInAgent(app, DEMO.otherPlanner)).patch(`/api/v1/targets/${id}`).send({ name: 'Mine now', version: 0 })).status).toBe(404);
+    expect(
+      (await (await signedInAgent(app, DEMO.otherPlanner)).patch(`/api/v1/targets/${id}`).send({ name: 'Mine now', version: 0 }))
+        .status,
+    ).toBe(404);
 
     const edited = await planner.patch(`/api/v1/targets/${id}`).send({ heightM: 1.0, version: 0 });
     expect(edited.body.target).toMatchObject({ heightM: 1.0, version: 1 });
@@ -65,8 +72,19 @@ describe('target and condition libraries', () => {
 
   it('a condition set is saved whole and parsed conditions come back', async () => {
     const planner = await signedInAgent(app, DEMO.planner);
-    const res = await planner.post('/api/v1/conditions').send({ name: 'Measured morning', conditions: [{ pressureHpa: 1002, temperatureC: 6, lapseRateKPerM: -0.01 }], visibilityM: 15000 });
+    const res = await planner
+      .post('/api/v1/conditions')
+      .send({
+        name: 'Measured morning',
+        conditions: [{ pressureHpa: 1002, temperatureC: 6, lapseRateKPerM: -0.01 }],
+        visibilityM: 15000,
+      });
     expect(res.status).toBe(201);
-    expect(res.body.conditionSet).toMatchObject({ name: 'Measured morning', conditions: [{ pressureHpa: 1002, temperatureC: 6, lapseRateKPerM: -0.01 }], visibilityM: 15000, visibilityKind: 'mor-5pct' });
+    expect(res.body.conditionSet).toMatchObject({
+      name: 'Measured morning',
+      conditions: [{ pressureHpa: 1002, temperatureC: 6, lapseRateKPerM: -0.01 }],
+      visibilityM: 15000,
+      visibilityKind: 'mor-5pct',
+    });
   });
 });

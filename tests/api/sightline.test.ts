@@ -27,7 +27,11 @@ describe('POST /api/v1/sightline', () => {
       earthRadiusM: 6371008.8,
       visibilityM: 20000,
       targetSizeM: 3,
-      conditions: [{ k: 0.13 }, { preset: 'radio-four-thirds' }, { pressureHpa: 1013.25, temperatureC: 15, lapseRateKPerM: 0.0065 }],
+      conditions: [
+        { k: 0.13 },
+        { preset: 'radio-four-thirds' },
+        { pressureHpa: 1013.25, temperatureC: 15, lapseRateKPerM: 0.0065 },
+      ],
     };
     const res = await agent.post('/api/v1/sightline').send(body);
     expect(res.status).toBe(200);
@@ -44,7 +48,9 @@ describe('POST /api/v1/sightline', () => {
   });
 
   it('flags ducting with nulls and warnings, never NaN or Infinity', async () => {
-    const res = await agent.post('/api/v1/sightline').send({ observerHeightM: 20, targetHeightM: 5, distanceM: 40000, conditions: [{ k: 1.2 }] });
+    const res = await agent
+      .post('/api/v1/sightline')
+      .send({ observerHeightM: 20, targetHeightM: 5, distanceM: 40000, conditions: [{ k: 1.2 }] });
     expect(res.status).toBe(200);
     const [r] = res.body.results;
     expect(r.regime).toBe('ducting');
@@ -70,7 +76,9 @@ describe('POST /api/v1/sightline', () => {
   });
 
   it('is 401 signed out', async () => {
-    const res = await request(app).post('/api/v1/sightline').send({ observerHeightM: 10, conditions: [{ k: 0 }] });
+    const res = await request(app)
+      .post('/api/v1/sightline')
+      .send({ observerHeightM: 10, conditions: [{ k: 0 }] });
     expect(res.status).toBe(401);
   });
 });

@@ -15,8 +15,20 @@ const RING: [number, number][] = [
   [14.2, 61.1],
   [14.0, 61.1],
 ];
-const siteBody = { name: 'Test district C', kind: 'forest-district', boundary: RING, priorityZones: [{ name: 'Old growth', weight: 8, ring: RING.slice(0, 3) }] };
-const postBody = { name: 'Tower T1', kind: 'tower', location: { latDeg: 61.05, lonDeg: 14.1 }, groundElevationM: 412, structureHeightM: 18, eyeHeightM: 1.6 };
+const siteBody = {
+  name: 'Test district C',
+  kind: 'forest-district',
+  boundary: RING,
+  priorityZones: [{ name: 'Old growth', weight: 8, ring: RING.slice(0, 3) }],
+};
+const postBody = {
+  name: 'Tower T1',
+  kind: 'tower',
+  location: { latDeg: 61.05, lonDeg: 14.1 },
+  groundElevationM: 412,
+  structureHeightM: 18,
+  eyeHeightM: 1.6,
+};
 
 beforeAll(async () => {
   ({ app, close } = await createTestApp());
@@ -96,7 +108,9 @@ describe('sites: create, read, edit, delete', () => {
 
   it('answers bad input with a reason per field and writes nothing', async () => {
     const before = await SiteModel.count();
-    const res = await planner.post('/api/v1/sites').send({ name: '', kind: 'volcano', boundary: [[200, 10]], timeZone: 'Mars/Olympus' });
+    const res = await planner
+      .post('/api/v1/sites')
+      .send({ name: '', kind: 'volcano', boundary: [[200, 10]], timeZone: 'Mars/Olympus' });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields)).toEqual(expect.arrayContaining(['name', 'kind', 'timeZone']));
     expect(Object.keys(res.body.error.fields).some((k) => k.startsWith('boundary'))).toBe(true);
@@ -104,7 +118,10 @@ describe('sites: create, read, edit, delete', () => {
   });
 
   it('detects concurrent edits with 409 and overwrites nothing', async () => {
-    const { body } = await planner.post('/api/v1/sites').send({ ...siteBody, name: 'Edit race' }).expect(201);
+    const { body } = await planner
+      .post('/api/v1/sites')
+      .send({ ...siteBody, name: 'Edit race' })
+      .expect(201);
     const first = await planner.patch(`/api/v1/sites/${body.site.id}`).send({ notes: 'first', version: 0 });
     expect(first.status).toBe(200);
     expect(first.body.site).toMatchObject({ notes: 'first', version: 1 });
@@ -115,7 +132,10 @@ describe('sites: create, read, edit, delete', () => {
   });
 
   it('soft-deletes a site: gone from the lists, kept in the table', async () => {
-    const { body } = await planner.post('/api/v1/sites').send({ ...siteBody, name: 'To remove' }).expect(201);
+    const { body } = await planner
+      .post('/api/v1/sites')
+      .send({ ...siteBody, name: 'To remove' })
+      .expect(201);
     await planner.delete(`/api/v1/sites/${body.site.id}`).expect(204);
     await planner.get(`/api/v1/sites/${body.site.id}`).expect(404);
     expect(await SiteModel.findByPk(body.site.id, { paranoid: false })).not.toBeNull();
@@ -125,9 +145,14 @@ describe('sites: create, read, edit, delete', () => {
 
 describe('posts of a site', () => {
   it('a planner adds, edits and removes a post; every role lists them', async () => {
-    const { body } = await planner.post('/api/v1/sites').send({ ...siteBody, name: 'With posts' }).expect(201);
+    const { body } = await planner
+      .post('/api/v1/sites')
+      .send({ ...siteBody, name: 'With posts' })
+      .expect(201);
     const siteId = body.site.id;
-    const created = await planner.post(`/api/v1/sites/${siteId}/posts`).send({ ...postBody, sector: { fromDeg: 300, toDeg: 60 } });
+    const created = await planner
+      .post(`/api/v1/sites/${siteId}/posts`)
+      .send({ ...postBody, sector: { fromDeg: 300, toDeg: 60 } });
     expect(created.status).toBe(201);
     expect(created.body.post).toMatchObject({ ...postBody, sector: { fromDeg: 300, toDeg: 60 }, status: 'existing', version: 0 });
     const observer = await signedInAgent(app, DEMO.observer);
@@ -138,7 +163,9 @@ describe('posts of a site', () => {
     const postId = created.body.post.id;
     const edited = await planner.patch(`/api/v1/sites/${siteId}/posts/${postId}`).send({ structureHeightM: 24, version: 0 });
     expect(edited.body.post).toMatchObject({ structureHeightM: 24, version: 1, location: postBody.location });
-    expect((await planner.patch(`/api/v1/sites/${siteId}/posts/${postId}`).send({ structureHeightM: 30, version: 0 })).status).toBe(409);
+    expect(
+      (await planner.patch(`/api/v1/sites/${siteId}/posts/${postId}`).send({ structureHeightM: 30, version: 0 })).status,
+    ).toBe(409);
 
     const listed = await planner.get('/api/v1/sites?pageSize=200').expect(200);
     expect(listed.body.items.find((s: { id: string }) => s.id === siteId).postCount).toBe(1);
@@ -151,9 +178,20 @@ describe('posts of a site', () => {
   it('answers bad post input with field errors and writes nothing', async () => {
     const site = await SiteModel.findOne({ where: { name: 'Test district A' } });
     const before = await PostModel.count();
-    const res = await planner.post(`/api/v1/sites/${site!.id}/posts`).send({ name: 'Bad', kind: 'balloon', location: { latDeg: 95, lonDeg: 0 }, groundElevationM: 'high', eyeHeightM: -1, sector: { fromDeg: 400, toDeg: 10 } });
+    const res = await planner
+      .post(`/api/v1/sites/${site!.id}/posts`)
+      .send({
+        name: 'Bad',
+        kind: 'balloon',
+        location: { latDeg: 95, lonDeg: 0 },
+        groundElevationM: 'high',
+        eyeHeightM: -1,
+        sector: { fromDeg: 400, toDeg: 10 },
+      });
     expect(res.status).toBe(400);
-    expect(Object.keys(res.body.error.fields)).toEqual(expect.arrayContaining(['kind', 'location.latDeg', 'groundElevationM', 'eyeHeightM', 'sector.fromDeg']));
+    expect(Object.keys(res.body.error.fields)).toEqual(
+      expect.arrayContaining(['kind', 'location.latDeg', 'groundElevationM', 'eyeHeightM', 'sector.fromDeg']),
+    );
     expect(await PostModel.count()).toBe(before);
   });
 });

@@ -62,7 +62,10 @@ describe('PATCH /api/v1/users/:id', () => {
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('stale_version');
     expect((await idOf(DEMO.observer)).role).toBe('reviewer');
-    await agent.patch(`/api/v1/users/${before.id}`).send({ role: 'observer', version: before.version + 1 }).expect(200);
+    await agent
+      .patch(`/api/v1/users/${before.id}`)
+      .send({ role: 'observer', version: before.version + 1 })
+      .expect(200);
   });
 
   it('will not deactivate or demote the last active admin', async () => {
@@ -91,14 +94,19 @@ describe('PATCH /api/v1/users/:id', () => {
 describe('invitations', () => {
   it('invites a user who sets a password through the one-time link and signs in', async () => {
     const agent = await signedInAgent(app, DEMO.admin);
-    const res = await agent.post('/api/v1/users').send({ email: 'New.Watcher@Demo.Kenning.test', name: 'Nell Harrow', role: 'observer' });
+    const res = await agent
+      .post('/api/v1/users')
+      .send({ email: 'New.Watcher@Demo.Kenning.test', name: 'Nell Harrow', role: 'observer' });
     expect(res.status).toBe(201);
     expect(res.body.user).toMatchObject({ email: 'new.watcher@demo.kenning.test', status: 'invited', role: 'observer' });
     const token = new URL(res.body.setPasswordUrl).searchParams.get('token');
     expect(token).toBeTruthy();
 
     // Not yet able to sign in.
-    await request(app).post('/api/auth/sign-in').send({ email: 'new.watcher@demo.kenning.test', password: 'a-good-long-password' }).expect(401);
+    await request(app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'new.watcher@demo.kenning.test', password: 'a-good-long-password' })
+      .expect(401);
     const short = await request(app).post('/api/auth/set-password').send({ token, password: 'short' });
     expect(short.status).toBe(400);
     expect(short.body.error.fields).toHaveProperty('password');
@@ -107,7 +115,9 @@ describe('invitations', () => {
     const again = await request(app).post('/api/auth/set-password').send({ token, password: 'another-long-password' });
     expect(again.status).toBe(400);
     expect(again.body.error.code).toBe('invalid_token');
-    const signIn = await request(app).post('/api/auth/sign-in').send({ email: 'new.watcher@demo.kenning.test', password: 'a-good-long-password' });
+    const signIn = await request(app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'new.watcher@demo.kenning.test', password: 'a-good-long-password' });
     expect(signIn.status).toBe(200);
     expect(signIn.body.user.organization.name).toBe('Harrowmere Lookout Service');
   });

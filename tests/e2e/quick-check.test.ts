@@ -32,7 +32,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
       const horizonRow = table.getByRole('row').filter({ hasText: 'Horizon distance' });
       expect(await horizonRow.textContent()).toContain(`${geometricHorizonKm.toFixed(1)} km`);
       await page.getByText('Read before you rely on this').waitFor();
-      await page.getByText(/visibility is not detection|not necessarily detected/i).first().waitFor();
+      await page
+        .getByText(/visibility is not detection|not necessarily detected/i)
+        .first()
+        .waitFor();
       await shot(page, 'quick-check', viewport);
       await table.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-table-${viewport}.png` });
       const side = page.getByRole('img', { name: /Side view/ });
@@ -55,7 +58,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
       await page.getByText('Offline', { exact: true }).waitFor();
       // 45 m, k = 0: R·acos(R/(R+45)) = 23.95 km (same source as above).
       const offlineHorizon = ((R * Math.acos(R / (R + 45))) / 1000).toFixed(1);
-      expect(await table.getByRole('row').filter({ hasText: 'Horizon distance' }).textContent()).toContain(`${offlineHorizon} km`);
+      expect(await table.getByRole('row').filter({ hasText: 'Horizon distance' }).textContent()).toContain(
+        `${offlineHorizon} km`,
+      );
       await shot(page, 'quick-check-offline', viewport);
       await page.unroute('**/api/v1/sightline');
 

@@ -80,7 +80,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Mail' }).click();
       await page.getByText('Set up your Kenning account for Harrowmere Lookout Service').first().waitFor();
       await page.getByText(`To ${email}`, { exact: false }).first().click();
-      await page.getByText(/set-password\?token=/).first().waitFor();
+      await page
+        .getByText(/set-password\?token=/)
+        .first()
+        .waitFor();
       await shot(page, 'mail', viewport);
     } finally {
       await context.close();

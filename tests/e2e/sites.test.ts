@@ -19,7 +19,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a site on the %s viewpo
       await signIn(page, DEMO.planner);
       await page.getByRole('link', { name: 'Harrowmere Forest District' }).click();
       await page.getByRole('img', { name: 'Sketch of Harrowmere Forest District' }).waitFor();
-      for (const name of ['Crane Knoll Tower', 'Sedge Ridge Tower', 'Blackmoss Tower']) await page.getByLabel(name).first().waitFor();
+      for (const name of ['Crane Knoll Tower', 'Sedge Ridge Tower', 'Blackmoss Tower'])
+        await page.getByLabel(name).first().waitFor();
       await shot(page, 'site', viewport);
       await page.getByRole('img', { name: /Sketch of/ }).screenshot({ path: `${SCREENSHOT_DIR}/site-sketch-${viewport}.png` });
 
@@ -36,7 +37,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a site on the %s viewpo
       await form.getByRole('button', { name: 'Save post' }).click();
       await page.getByLabel(`Lookout ${viewport}`).first().waitFor();
       // 530 + 15 + 1.6 (the default eye height) = 546.6 m.
-      await page.getByText(/Eye 546\.6 m above datum/).first().waitFor();
+      await page
+        .getByText(/Eye 546\.6 m above datum/)
+        .first()
+        .waitFor();
       expect(errors).toEqual([]);
     } finally {
       await context.close();

@@ -12,7 +12,9 @@ export async function createTestDatabase(): Promise<{ db: Sequelize; url: string
   const adminUrl = process.env.KENNING_ADMIN_DATABASE_URL;
   const template = process.env.KENNING_TEST_TEMPLATE_DB;
   if (!adminUrl || !template) {
-    throw new Error('API tests need the database that `npm test` prepares (KENNING_ADMIN_DATABASE_URL, KENNING_TEST_TEMPLATE_DB).');
+    throw new Error(
+      'API tests need the database that `npm test` prepares (KENNING_ADMIN_DATABASE_URL, KENNING_TEST_TEMPLATE_DB).',
+    );
   }
   const name = `${template}_${randomBytes(4).toString('hex')}`;
   const admin = new Client({ connectionString: adminUrl });

@@ -4,7 +4,12 @@ import type { Migration } from '../migrator';
 export const up: Migration = async ({ context: qi }) => {
   await qi.createTable('sites', {
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-    organization_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'organizations', key: 'id' }, onDelete: 'RESTRICT' },
+    organization_id: {
+      type: DataTypes.UUID,
+      allowNull: false,
+      references: { model: 'organizations', key: 'id' },
+      onDelete: 'RESTRICT',
+    },
     name: { type: DataTypes.STRING(160), allowNull: false },
     kind: { type: DataTypes.ENUM('forest-district', 'coast-stretch', 'search-area'), allowNull: false },
     notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },

@@ -25,7 +25,12 @@ export const up: Migration = async ({ context: qi }) => {
 
   await qi.createTable('posts', {
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-    organization_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'organizations', key: 'id' }, onDelete: 'RESTRICT' },
+    organization_id: {
+      type: DataTypes.UUID,
+      allowNull: false,
+      references: { model: 'organizations', key: 'id' },
+      onDelete: 'RESTRICT',
+    },
     site_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'sites', key: 'id' }, onDelete: 'RESTRICT' },
     name: { type: DataTypes.STRING(120), allowNull: false },
     kind: { type: DataTypes.STRING(16), allowNull: false },
@@ -49,7 +54,12 @@ export const up: Migration = async ({ context: qi }) => {
 
   await qi.createTable('audit_events', {
     id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
-    organization_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'organizations', key: 'id' }, onDelete: 'RESTRICT' },
+    organization_id: {
+      type: DataTypes.UUID,
+      allowNull: false,
+      references: { model: 'organizations', key: 'id' },
+      onDelete: 'RESTRICT',
+    },
     actor_id: { type: DataTypes.UUID, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' },
     action: { type: DataTypes.STRING(40), allowNull: false },
     entity_type: { type: DataTypes.STRING(40), allowNull: false },

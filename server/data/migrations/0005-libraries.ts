@@ -3,7 +3,12 @@ import type { Migration } from '../migrator';
 
 const common = {
   id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-  organization_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'organizations', key: 'id' }, onDelete: 'RESTRICT' },
+  organization_id: {
+    type: DataTypes.UUID,
+    allowNull: false,
+    references: { model: 'organizations', key: 'id' },
+    onDelete: 'RESTRICT',
+  },
   name: { type: DataTypes.STRING(120), allowNull: false },
   version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
   deleted_at: { type: DataTypes.DATE, allowNull: true },
@@ -21,7 +26,9 @@ export const up: Migration = async ({ context: qi }) => {
     required_visible_m: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
     period: { type: DataTypes.STRING(8), allowNull: false, defaultValue: 'day' },
   });
-  await qi.sequelize.query('ALTER TABLE target_profiles ADD CONSTRAINT target_required_part CHECK (required_visible_m <= height_m)');
+  await qi.sequelize.query(
+    'ALTER TABLE target_profiles ADD CONSTRAINT target_required_part CHECK (required_visible_m <= height_m)',
+  );
   await qi.createTable('condition_sets', {
     ...common,
     conditions: { type: DataTypes.JSONB, allowNull: false },

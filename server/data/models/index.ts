@@ -6,7 +6,16 @@ import { PostModel } from './post';
 import { PriorityZoneModel, SiteModel } from './site';
 import { UserModel } from './user';
 
-export { AuditEventModel, ConditionSetModel, TargetProfileModel, OrganizationModel, PostModel, PriorityZoneModel, SiteModel, UserModel };
+export {
+  AuditEventModel,
+  ConditionSetModel,
+  TargetProfileModel,
+  OrganizationModel,
+  PostModel,
+  PriorityZoneModel,
+  SiteModel,
+  UserModel,
+};
 
 /** Registers every model and declares all associations, in one place. */
 export function initModels(sequelize: Sequelize): void {

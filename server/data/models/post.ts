@@ -1,4 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import type { POST_KINDS, POST_STATUSES } from '@/shared/schemas/site';
 import type { OrganizationModel } from './organization';
 import type { SiteModel } from './site';

@@ -27,7 +27,16 @@ export const auditRepository = {
   },
 
   async forEntity(organizationId: string, entityType: string, entityId: string) {
-    const rows = await AuditEventModel.findAll({ where: { organizationId, entityType, entityId }, order: [['id', 'ASC']], raw: true });
-    return rows.map((r) => ({ action: r.action, actorId: r.actorId, summary: r.summary, at: new Date(r.createdAt).toISOString() }));
+    const rows = await AuditEventModel.findAll({
+      where: { organizationId, entityType, entityId },
+      order: [['id', 'ASC']],
+      raw: true,
+    });
+    return rows.map((r) => ({
+      action: r.action,
+      actorId: r.actorId,
+      summary: r.summary,
+      at: new Date(r.createdAt).toISOString(),
+    }));
   },
 };

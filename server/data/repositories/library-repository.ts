@@ -25,7 +25,10 @@ const toConditionSet = (r: ConditionSetModel): ConditionSet => ({
 });
 
 /** The same five operations over one library table, returning plain objects. */
-function libraryOf<M extends typeof TargetProfileModel | typeof ConditionSetModel, Dto, Input extends object>(model: M, toDto: (row: InstanceType<M>) => Dto) {
+function libraryOf<M extends typeof TargetProfileModel | typeof ConditionSetModel, Dto, Input extends object>(
+  model: M,
+  toDto: (row: InstanceType<M>) => Dto,
+) {
   // Sequelize's static methods do not type well across a union of models; the casts stay inside this factory.
   const m = model as unknown as typeof TargetProfileModel;
   const dto = toDto as unknown as (row: TargetProfileModel) => Dto;
@@ -40,8 +43,17 @@ function libraryOf<M extends typeof TargetProfileModel | typeof ConditionSetMode
     async create(organizationId: string, input: Input, transaction: Transaction): Promise<Dto> {
       return dto(await m.create({ ...(input as object), organizationId } as never, { transaction }));
     },
-    async updateIfVersion(organizationId: string, id: string, version: number, changes: Partial<Input>, transaction: Transaction): Promise<Dto | null> {
-      const [count] = await m.update({ ...(changes as object), version: version + 1 } as never, { where: { id, organizationId, version }, transaction });
+    async updateIfVersion(
+      organizationId: string,
+      id: string,
+      version: number,
+      changes: Partial<Input>,
+      transaction: Transaction,
+    ): Promise<Dto | null> {
+      const [count] = await m.update({ ...(changes as object), version: version + 1 } as never, {
+        where: { id, organizationId, version },
+        transaction,
+      });
       return count === 1 ? this.find(organizationId, id, transaction) : null;
     },
     async softDelete(organizationId: string, id: string, transaction: Transaction): Promise<void> {
@@ -51,5 +63,8 @@ function libraryOf<M extends typeof TargetProfileModel | typeof ConditionSetMode
 }
 
 export const targetsRepository = libraryOf<typeof TargetProfileModel, Target, TargetInput>(TargetProfileModel, toTarget);
-export const conditionSetsRepository = libraryOf<typeof ConditionSetModel, ConditionSet, ConditionSetInput>(ConditionSetModel, toConditionSet);
+export const conditionSetsRepository = libraryOf<typeof ConditionSetModel, ConditionSet, ConditionSetInput>(
+  ConditionSetModel,
+  toConditionSet,
+);
 export type LibraryRepository<Dto, Input extends object> = ReturnType<typeof libraryOf<typeof TargetProfileModel, Dto, Input>>;

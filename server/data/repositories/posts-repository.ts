@@ -13,7 +13,8 @@ function toPost(row: PostModel): Post {
     groundElevationM: row.groundElevationM,
     structureHeightM: row.structureHeightM,
     eyeHeightM: row.eyeHeightM,
-    sector: row.sectorFromDeg === null || row.sectorToDeg === null ? null : { fromDeg: row.sectorFromDeg, toDeg: row.sectorToDeg },
+    sector:
+      row.sectorFromDeg === null || row.sectorToDeg === null ? null : { fromDeg: row.sectorFromDeg, toDeg: row.sectorToDeg },
     status: row.status,
     version: row.version,
     updatedAt: row.updatedAt.toISOString(),
@@ -24,7 +25,9 @@ const columns = (input: Partial<PostInput>) => {
   const { location, sector, ...plain } = input;
   return {
     ...plain,
-    ...(location && { location: { type: 'Point' as const, coordinates: [location.lonDeg, location.latDeg] as [number, number] } }),
+    ...(location && {
+      location: { type: 'Point' as const, coordinates: [location.lonDeg, location.latDeg] as [number, number] },
+    }),
     ...(sector !== undefined && { sectorFromDeg: sector?.fromDeg ?? null, sectorToDeg: sector?.toDeg ?? null }),
   };
 };
@@ -60,8 +63,18 @@ export const postsRepository = {
     return toPost(row);
   },
 
-  async updateIfVersion(organizationId: string, siteId: string, id: string, version: number, changes: Partial<PostInput>, transaction: Transaction): Promise<Post | null> {
-    const [count] = await PostModel.update({ ...columns(changes), version: version + 1 }, { where: { id, siteId, organizationId, version }, transaction });
+  async updateIfVersion(
+    organizationId: string,
+    siteId: string,
+    id: string,
+    version: number,
+    changes: Partial<PostInput>,
+    transaction: Transaction,
+  ): Promise<Post | null> {
+    const [count] = await PostModel.update(
+      { ...columns(changes), version: version + 1 },
+      { where: { id, siteId, organizationId, version }, transaction },
+    );
     return count === 1 ? this.findInSite(organizationId, siteId, id, transaction) : null;
   },
 

@@ -4,7 +4,8 @@ import { PostModel, PriorityZoneModel, SiteModel } from '../models';
 import type { PolygonGeometry } from '../models/site';
 
 const polygon = (ring: [number, number][]): PolygonGeometry => ({ type: 'Polygon', coordinates: [ring] });
-const ringOf = (g: PolygonGeometry | null | undefined) => (g ? (g.coordinates[0] ?? []).map(([x, y]) => [x, y] as [number, number]) : null);
+const ringOf = (g: PolygonGeometry | null | undefined) =>
+  g ? (g.coordinates[0] ?? []).map(([x, y]) => [x, y] as [number, number]) : null;
 
 function toSite(row: SiteModel, zones: PriorityZoneModel[]): Site {
   return {
@@ -32,7 +33,11 @@ async function replaceZones(siteId: string, zones: SiteInput['priorityZones'], t
 }
 
 export const sitesRepository = {
-  async pageInOrganization(organizationId: string, page: number, pageSize: number): Promise<{ items: SiteSummary[]; total: number; page: number; pageSize: number }> {
+  async pageInOrganization(
+    organizationId: string,
+    page: number,
+    pageSize: number,
+  ): Promise<{ items: SiteSummary[]; total: number; page: number; pageSize: number }> {
     const { rows, count } = await SiteModel.findAndCountAll({
       where: { organizationId },
       order: [['name', 'ASC']],
@@ -49,7 +54,14 @@ export const sitesRepository = {
       : [];
     const bySite = new Map(counts.map((c) => [c.siteId, Number(c.n)]));
     return {
-      items: rows.map((r) => ({ id: r.id, name: r.name, kind: r.kind, notes: r.notes, updatedAt: r.updatedAt.toISOString(), postCount: bySite.get(r.id) ?? 0 })),
+      items: rows.map((r) => ({
+        id: r.id,
+        name: r.name,
+        kind: r.kind,
+        notes: r.notes,
+        updatedAt: r.updatedAt.toISOString(),
+        postCount: bySite.get(r.id) ?? 0,
+      })),
       total: count,
       page,
       pageSize,
@@ -81,7 +93,13 @@ export const sitesRepository = {
   },
 
   /** Applies the changes when the row still has `version`; null when another edit came first. */
-  async updateIfVersion(organizationId: string, id: string, version: number, changes: Partial<SiteInput>, transaction: Transaction): Promise<Site | null> {
+  async updateIfVersion(
+    organizationId: string,
+    id: string,
+    version: number,
+    changes: Partial<SiteInput>,
+    transaction: Transaction,
+  ): Promise<Site | null> {
     const { priorityZones, boundary, ...plain } = changes;
     const [count] = await SiteModel.update(
       { ...plain, ...(boundary !== undefined && { boundary: boundary ? polygon(boundary) : null }), version: version + 1 },

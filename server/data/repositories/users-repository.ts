@@ -48,7 +48,15 @@ export const usersRepository = {
       raw: true,
       nest: true,
     })) as unknown as (Pick<User, 'id' | 'email' | 'name' | 'role'> & { organization: User['organization'] }) | null;
-    return row ? { id: row.id, email: row.email, name: row.name, role: row.role, organization: { id: row.organization.id, name: row.organization.name } } : null;
+    return row
+      ? {
+          id: row.id,
+          email: row.email,
+          name: row.name,
+          role: row.role,
+          organization: { id: row.organization.id, name: row.organization.name },
+        }
+      : null;
   },
 
   /** Every e-mail address of the organisation's accounts (any status). */
@@ -116,9 +124,6 @@ export const usersRepository = {
   },
 
   async setPassword(id: string, passwordHash: string, transaction?: Transaction): Promise<void> {
-    await UserModel.update(
-      { passwordHash, inviteTokenHash: null, inviteExpiresAt: null },
-      { where: { id }, transaction },
-    );
+    await UserModel.update({ passwordHash, inviteTokenHash: null, inviteExpiresAt: null }, { where: { id }, transaction });
   },
 };

@@ -77,9 +77,36 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
       timeZone: 'Europe/Berlin',
     },
     posts: [
-      { name: 'Crane Knoll Tower', kind: 'tower', location: utm33(516_200, 5_741_300), groundElevationM: 612, structureHeightM: 22, eyeHeightM: 1.6, sector: null, status: 'existing' },
-      { name: 'Sedge Ridge Tower', kind: 'tower', location: utm33(523_400, 5_739_800), groundElevationM: 688, structureHeightM: 18, eyeHeightM: 1.6, sector: null, status: 'existing' },
-      { name: 'Blackmoss Tower', kind: 'tower', location: utm33(519_600, 5_733_900), groundElevationM: 455, structureHeightM: 30, eyeHeightM: 1.6, sector: null, status: 'proposed' },
+      {
+        name: 'Crane Knoll Tower',
+        kind: 'tower',
+        location: utm33(516_200, 5_741_300),
+        groundElevationM: 612,
+        structureHeightM: 22,
+        eyeHeightM: 1.6,
+        sector: null,
+        status: 'existing',
+      },
+      {
+        name: 'Sedge Ridge Tower',
+        kind: 'tower',
+        location: utm33(523_400, 5_739_800),
+        groundElevationM: 688,
+        structureHeightM: 18,
+        eyeHeightM: 1.6,
+        sector: null,
+        status: 'existing',
+      },
+      {
+        name: 'Blackmoss Tower',
+        kind: 'tower',
+        location: utm33(519_600, 5_733_900),
+        groundElevationM: 455,
+        structureHeightM: 30,
+        eyeHeightM: 1.6,
+        sector: null,
+        status: 'proposed',
+      },
     ],
   },
   {
@@ -98,9 +125,36 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
       timeZone: 'Europe/Berlin',
     },
     posts: [
-      { name: 'Gull Point', kind: 'shore-post', location: utm33(533_000, 5_751_200), groundElevationM: 14, structureHeightM: 6, eyeHeightM: 1.6, sector: { fromDeg: 290, toDeg: 110 }, status: 'existing' },
-      { name: 'Fenwick Head', kind: 'shore-post', location: utm33(544_500, 5_751_800), groundElevationM: 38, structureHeightM: 0, eyeHeightM: 1.6, sector: { fromDeg: 270, toDeg: 90 }, status: 'existing' },
-      { name: 'Patrol vessel Kittiwake', kind: 'vessel', location: utm33(539_000, 5_757_000), groundElevationM: 0, structureHeightM: 4.5, eyeHeightM: 1.6, sector: null, status: 'existing' },
+      {
+        name: 'Gull Point',
+        kind: 'shore-post',
+        location: utm33(533_000, 5_751_200),
+        groundElevationM: 14,
+        structureHeightM: 6,
+        eyeHeightM: 1.6,
+        sector: { fromDeg: 290, toDeg: 110 },
+        status: 'existing',
+      },
+      {
+        name: 'Fenwick Head',
+        kind: 'shore-post',
+        location: utm33(544_500, 5_751_800),
+        groundElevationM: 38,
+        structureHeightM: 0,
+        eyeHeightM: 1.6,
+        sector: { fromDeg: 270, toDeg: 90 },
+        status: 'existing',
+      },
+      {
+        name: 'Patrol vessel Kittiwake',
+        kind: 'vessel',
+        location: utm33(539_000, 5_757_000),
+        groundElevationM: 0,
+        structureHeightM: 4.5,
+        eyeHeightM: 1.6,
+        sector: null,
+        status: 'existing',
+      },
     ],
   },
 ];
@@ -145,14 +199,21 @@ export const STARTER_CONDITION_SETS: ConditionSetInput[] = [
     visibilityM: 8_000,
     visibilityKind: 'mor-5pct',
   },
-  { name: 'Cold sea, inversion', conditions: [{ preset: 'super-refraction-inversion' }, { preset: 'ducting-strong-inversion' }], visibilityM: null, visibilityKind: 'mor-5pct' },
+  {
+    name: 'Cold sea, inversion',
+    conditions: [{ preset: 'super-refraction-inversion' }, { preset: 'ducting-strong-inversion' }],
+    visibilityM: null,
+    visibilityKind: 'mor-5pct',
+  },
 ];
 
 /** Gives every organisation without libraries the starter targets and condition sets. */
 async function seedLibraries(db: Sequelize): Promise<boolean> {
   let added = false;
   for (const org of await OrganizationModel.findAll()) {
-    const has = (await TargetProfileModel.count({ where: { organizationId: org.id }, paranoid: false })) + (await ConditionSetModel.count({ where: { organizationId: org.id }, paranoid: false }));
+    const has =
+      (await TargetProfileModel.count({ where: { organizationId: org.id }, paranoid: false })) +
+      (await ConditionSetModel.count({ where: { organizationId: org.id }, paranoid: false }));
     if (has > 0) continue;
     await db.transaction(async (t) => {
       for (const target of STARTER_TARGETS) await targetsRepository.create(org.id, target, t);

@@ -31,7 +31,11 @@ export function libraryUseCases<Dto extends { id: string }, Input extends object
         const { version, ...changes } = input;
         check({ ...(before as unknown as Input), ...(changes as Partial<Input>) });
         const after = await repo.updateIfVersion(actor.organizationId, id, version, changes as Partial<Input>, t);
-        if (!after) throw AppError.conflict('Someone else changed this since you opened it. Reload to see their change, then try again.', 'stale_version');
+        if (!after)
+          throw AppError.conflict(
+            'Someone else changed this since you opened it. Reload to see their change, then try again.',
+            'stale_version',
+          );
         await auditRepository.record(actor, { action: 'update', entityType, entityId: id, before, after }, t);
         return after;
       }),

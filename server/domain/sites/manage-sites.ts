@@ -22,7 +22,12 @@ export function createSite(db: Sequelize, actor: Actor, input: SiteInput): Promi
   });
 }
 
-export function updateSite(db: Sequelize, actor: Actor, id: string, input: Partial<SiteInput> & { version: number }): Promise<Site> {
+export function updateSite(
+  db: Sequelize,
+  actor: Actor,
+  id: string,
+  input: Partial<SiteInput> & { version: number },
+): Promise<Site> {
   return db.transaction(async (t) => {
     const before = await sitesRepository.findInOrganization(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That site');
@@ -58,7 +63,13 @@ export function createPost(db: Sequelize, actor: Actor, siteId: string, input: P
   });
 }
 
-export function updatePost(db: Sequelize, actor: Actor, siteId: string, id: string, input: Partial<PostInput> & { version: number }): Promise<Post> {
+export function updatePost(
+  db: Sequelize,
+  actor: Actor,
+  siteId: string,
+  id: string,
+  input: Partial<PostInput> & { version: number },
+): Promise<Post> {
   return db.transaction(async (t) => {
     const before = await postsRepository.findInSite(actor.organizationId, siteId, id, t);
     if (!before) throw AppError.notFound('That post');

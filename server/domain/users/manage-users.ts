@@ -70,7 +70,11 @@ export async function setPasswordWithToken(db: Sequelize, token: string, passwor
   await db.transaction(async (transaction) => {
     const found = await usersRepository.findByInviteToken(hashToken(token), transaction);
     if (!found || !found.expiresAt || found.expiresAt.getTime() < Date.now()) {
-      throw new AppError(400, 'invalid_token', 'This link has expired or was already used. Ask your administrator for a new one.');
+      throw new AppError(
+        400,
+        'invalid_token',
+        'This link has expired or was already used. Ask your administrator for a new one.',
+      );
     }
     await usersRepository.setPassword(found.id, passwordHash, transaction);
   });

@@ -6,7 +6,13 @@ describe('buildRequest', () => {
   it('turns the default form into a request in metres, one condition per toggle', () => {
     const out = buildRequest(DEFAULT_FORM, label);
     if (!('request' in out)) throw new Error(JSON.stringify(out.errors));
-    expect(out.request).toMatchObject({ observerHeightM: 30, targetHeightM: 10, distanceM: 25000, visibilityM: 20000, targetSizeM: 3 });
+    expect(out.request).toMatchObject({
+      observerHeightM: 30,
+      targetHeightM: 10,
+      distanceM: 25000,
+      visibilityM: 20000,
+      targetSizeM: 3,
+    });
     expect(out.request.conditions).toEqual(DEFAULT_FORM.presets.map((preset) => ({ preset })));
     expect(out.labels.map((l) => l.key)).toEqual(DEFAULT_FORM.presets);
   });
