@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { AuditEventModel } from './audit-event';
 import { ConditionSetModel, TargetProfileModel } from './library';
 import { OrganizationModel } from './organization';
+import { PlanModel, PlanReviewModel, PlanRevisionModel } from './plan';
 import { PostModel } from './post';
 import { PriorityZoneModel, SiteModel } from './site';
 import { UserModel } from './user';
@@ -9,6 +10,9 @@ import { UserModel } from './user';
 export {
   AuditEventModel,
   ConditionSetModel,
+  PlanModel,
+  PlanReviewModel,
+  PlanRevisionModel,
   TargetProfileModel,
   OrganizationModel,
   PostModel,
@@ -27,6 +31,9 @@ export function initModels(sequelize: Sequelize): void {
   AuditEventModel.register(sequelize);
   TargetProfileModel.register(sequelize);
   ConditionSetModel.register(sequelize);
+  PlanModel.register(sequelize);
+  PlanRevisionModel.register(sequelize);
+  PlanReviewModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });

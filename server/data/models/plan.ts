@@ -1,0 +1,93 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { PlanStatus } from '@/shared/schemas/plan';
+
+export class PlanModel extends Model<InferAttributes<PlanModel>, InferCreationAttributes<PlanModel>> {
+  declare id: CreationOptional<string>;
+  declare organizationId: string;
+  declare siteId: string;
+  declare previousId: string | null;
+  declare title: string;
+  declare postIds: string[];
+  declare targetIds: string[];
+  declare conditionSetIds: string[];
+  declare standard: { minSeenPct: number; priorityMinPosts: number };
+  declare status: CreationOptional<PlanStatus>;
+  declare version: CreationOptional<number>;
+  declare rowVersion: CreationOptional<number>;
+  declare preparedById: string;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static register(sequelize: Sequelize) {
+    PlanModel.init(
+      {
+        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        organizationId: { type: DataTypes.UUID, allowNull: false },
+        siteId: { type: DataTypes.UUID, allowNull: false },
+        previousId: { type: DataTypes.UUID, allowNull: true },
+        title: { type: DataTypes.STRING(200), allowNull: false },
+        postIds: { type: DataTypes.JSONB, allowNull: false },
+        targetIds: { type: DataTypes.JSONB, allowNull: false },
+        conditionSetIds: { type: DataTypes.JSONB, allowNull: false },
+        standard: { type: DataTypes.JSONB, allowNull: false },
+        status: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'draft' },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+        rowVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        preparedById: { type: DataTypes.UUID, allowNull: false },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'plans' },
+    );
+  }
+}
+
+export class PlanRevisionModel extends Model<InferAttributes<PlanRevisionModel>, InferCreationAttributes<PlanRevisionModel>> {
+  declare id: CreationOptional<string>;
+  declare planId: string;
+  declare number: number;
+  declare contentHash: string;
+  declare snapshot: object;
+  declare submittedById: string;
+  declare createdAt: CreationOptional<Date>;
+
+  static register(sequelize: Sequelize) {
+    PlanRevisionModel.init(
+      {
+        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        planId: { type: DataTypes.UUID, allowNull: false },
+        number: { type: DataTypes.INTEGER, allowNull: false },
+        contentHash: { type: DataTypes.STRING(64), allowNull: false },
+        snapshot: { type: DataTypes.JSONB, allowNull: false },
+        submittedById: { type: DataTypes.UUID, allowNull: false },
+        createdAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'plan_revisions', updatedAt: false },
+    );
+  }
+}
+
+export class PlanReviewModel extends Model<InferAttributes<PlanReviewModel>, InferCreationAttributes<PlanReviewModel>> {
+  declare id: CreationOptional<string>;
+  declare planId: string;
+  declare revision: number;
+  declare decision: 'approve' | 'return';
+  declare comment: string;
+  declare reviewerId: string;
+  declare createdAt: CreationOptional<Date>;
+
+  static register(sequelize: Sequelize) {
+    PlanReviewModel.init(
+      {
+        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        planId: { type: DataTypes.UUID, allowNull: false },
+        revision: { type: DataTypes.INTEGER, allowNull: false },
+        decision: { type: DataTypes.STRING(8), allowNull: false },
+        comment: { type: DataTypes.TEXT, allowNull: false },
+        reviewerId: { type: DataTypes.UUID, allowNull: false },
+        createdAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'plan_reviews', updatedAt: false },
+    );
+  }
+}

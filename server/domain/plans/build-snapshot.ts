@@ -1,0 +1,85 @@
+import { createHash } from 'node:crypto';
+import type { ConditionSet, Target } from '@/shared/schemas/library';
+import type { PlanSnapshot } from '@/shared/schemas/plan';
+import type { RefractionCondition } from '@/shared/schemas/sightline';
+import type { Post, Site } from '@/shared/schemas/site';
+import { evaluateSightline } from '@/shared/sightline/evaluate-sightline';
+
+export const SNAPSHOT_ASSUMPTIONS = [
+  'Smooth earth at the datum (sea level or the plain); terrain is not yet included.',
+  'Height of eye = ground elevation + structure height + eye height above the platform.',
+  'Targets stand at the datum; a target is detected when its required top part shows and the visibility and angular-size limits allow.',
+  'Refraction is uniform along each sightline under each condition.',
+];
+
+/**
+ * Every input of a plan and every computed result, for one post × target ×
+ * condition: the content that a revision freezes. Pure: same inputs, same snapshot.
+ */
+export function buildSnapshot(input: {
+  title: string;
+  standard: PlanSnapshot['inputs']['plan']['standard'];
+  site: Site;
+  posts: Post[];
+  targets: Target[];
+  conditionSets: ConditionSet[];
+}): PlanSnapshot {
+  let cautions: PlanSnapshot['cautions'] = [];
+  const results: PlanSnapshot['results'] = [];
+  for (const post of input.posts) {
+    const observerHeightM = Math.max(0, post.groundElevationM + post.structureHeightM + post.eyeHeightM);
+    for (const target of input.targets) {
+      for (const set of input.conditionSets) {
+        const response = evaluateSightline({
+          observerHeightM,
+          targetHeightM: target.heightM,
+          requiredVisibleM: target.requiredVisibleM,
+          targetSizeM: target.widthM,
+          ...(set.visibilityM !== null && { visibilityM: set.visibilityM, visibilityKind: set.visibilityKind }),
+          conditions: set.conditions as RefractionCondition[],
+        });
+        cautions = response.cautions;
+        response.results.forEach((result, conditionIndex) =>
+          results.push({
+            postId: post.id,
+            postName: post.name,
+            targetId: target.id,
+            targetName: target.name,
+            conditionSetId: set.id,
+            conditionSetName: set.name,
+            conditionIndex,
+            observerHeightM,
+            result,
+          }),
+        );
+      }
+    }
+  }
+  const strip = <T extends { version?: number; updatedAt?: string }>({ version: _v, updatedAt: _u, ...rest }: T) => rest;
+  return {
+    assumptions: SNAPSHOT_ASSUMPTIONS,
+    inputs: {
+      plan: { title: input.title, standard: input.standard },
+      site: strip(input.site),
+      posts: input.posts.map(strip),
+      targets: input.targets.map(strip),
+      conditionSets: input.conditionSets.map(strip),
+    },
+    results,
+    cautions,
+  };
+}
+
+/** JSON with object keys sorted, so equal content always hashes the same. */
+export function canonicalJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`;
+  if (value && typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>)
+      .filter(([, v]) => v !== undefined)
+      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
+  }
+  return JSON.stringify(value);
+}
+
+export const contentHash = (snapshot: PlanSnapshot) => createHash('sha256').update(canonicalJson(snapshot)).digest('hex');

@@ -1,0 +1,167 @@
+import type { Sequelize, Transaction } from 'sequelize';
+import type { Plan, PlanInput, PlanStatus } from '@/shared/schemas/plan';
+import { auditRepository } from '@/server/data/repositories/audit-repository';
+import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
+import { plansRepository } from '@/server/data/repositories/plans-repository';
+import { postsRepository } from '@/server/data/repositories/posts-repository';
+import { sitesRepository } from '@/server/data/repositories/sites-repository';
+import { AppError } from '@/server/http/app-error';
+import type { Mailer } from '@/server/mail/mailer';
+import { planSubmitted, reviewDecided } from '@/server/mail/templates';
+import type { Actor } from '../actor';
+import { buildSnapshot, contentHash } from './build-snapshot';
+
+const EDITABLE: PlanStatus[] = ['draft', 'returned'];
+const STALE = 'Someone else changed this plan since you opened it. Reload to see their change, then try again.';
+
+export interface PlanDeps {
+  db: Sequelize;
+  mailer: Mailer | null;
+  /** Absolute URL of a plan's page, for e-mails. */
+  planUrl: (planId: string) => string;
+}
+
+/** Observers see approved plans only; everyone else sees all of their organisation's. */
+export function listPlans(actor: Actor, filter: { siteId?: string; statuses?: PlanStatus[] }) {
+  const statuses = actor.role === 'observer' ? ['approved' as const] : filter.statuses;
+  return plansRepository.list(actor.organizationId, { ...filter, statuses });
+}
+
+export async function getPlan(actor: Actor, id: string): Promise<Plan> {
+  const plan = await plansRepository.find(actor.organizationId, id);
+  if (!plan || (actor.role === 'observer' && plan.status !== 'approved')) throw AppError.notFound('That plan');
+  return plan;
+}
+
+/** Loads what the plan refers to, refusing anything outside the organisation or the site. */
+async function loadInputs(actor: Actor, p: Pick<PlanInput, 'siteId' | 'postIds' | 'targetIds' | 'conditionSetIds'>, t?: Transaction) {
+  const site = await sitesRepository.findInOrganization(actor.organizationId, p.siteId, t);
+  if (!site) throw AppError.badRequest('The plan has invalid fields.', { siteId: 'No such site in your organisation.' });
+  const posts = await postsRepository.listInSite(actor.organizationId, site.id);
+  const targets = await targetsRepository.list(actor.organizationId);
+  const sets = await conditionSetsRepository.list(actor.organizationId);
+  const pick = <T extends { id: string }>(all: T[], ids: string[], field: string, what: string) => {
+    const found = ids.map((id) => all.find((x) => x.id === id));
+    const missing = found.findIndex((x) => !x);
+    if (missing >= 0) throw AppError.badRequest('The plan has invalid fields.', { [`${field}.${missing}`]: `No such ${what} here.` });
+    return found as T[];
+  };
+  return {
+    site,
+    posts: pick(posts, p.postIds, 'postIds', 'post on this site'),
+    targets: pick(targets, p.targetIds, 'targetIds', 'target in your library'),
+    conditionSets: pick(sets, p.conditionSetIds, 'conditionSetIds', 'condition set in your library'),
+  };
+}
+
+export function createPlan({ db }: PlanDeps, actor: Actor, input: PlanInput): Promise<Plan> {
+  return db.transaction(async (t) => {
+    await loadInputs(actor, input, t);
+    const plan = await plansRepository.create(actor.organizationId, actor.userId, input, t);
+    await auditRepository.record(actor, { action: 'create', entityType: 'plan', entityId: plan.id, after: plan }, t);
+    return plan;
+  });
+}
+
+export function updatePlan({ db }: PlanDeps, actor: Actor, id: string, input: Partial<Omit<PlanInput, 'siteId'>> & { rowVersion: number }): Promise<Plan> {
+  return db.transaction(async (t) => {
+    const before = await plansRepository.find(actor.organizationId, id, t);
+    if (!before) throw AppError.notFound('That plan');
+    if (!EDITABLE.includes(before.status)) {
+      throw AppError.conflict(`A ${before.status} plan cannot be edited. Start a new version to change an approved plan.`, 'plan_frozen');
+    }
+    const { rowVersion, ...changes } = input;
+    await loadInputs(actor, { ...before, ...changes }, t);
+    const after = await plansRepository.updateIfRowVersion(actor.organizationId, id, rowVersion, changes, t);
+    if (!after) throw AppError.conflict(STALE, 'stale_version');
+    await auditRepository.record(actor, { action: 'update', entityType: 'plan', entityId: id, before, after }, t);
+    return after;
+  });
+}
+
+async function notify(deps: PlanDeps, to: string[], message: { subject: string; text: string; html?: string }) {
+  if (!deps.mailer || to.length === 0) return false;
+  try {
+    await deps.mailer.send({ to, ...message });
+    return true;
+  } catch (e) {
+    console.error('[kenning] notification mail failed:', e);
+    return false;
+  }
+}
+
+/** Freezes every input and result in a new revision and hands the plan to the reviewers. */
+export async function submitPlan(deps: PlanDeps, actor: Actor, id: string, rowVersion: number) {
+  const { plan, revision, siteName } = await deps.db.transaction(async (t) => {
+    const before = await plansRepository.find(actor.organizationId, id, t);
+    if (!before) throw AppError.notFound('That plan');
+    if (!EDITABLE.includes(before.status)) throw AppError.conflict(`A ${before.status} plan cannot be submitted.`, 'wrong_status');
+    if (before.rowVersion !== rowVersion) throw AppError.conflict(STALE, 'stale_version');
+    const inputs = await loadInputs(actor, before, t);
+    const snapshot = buildSnapshot({ title: before.title, standard: before.standard, ...inputs });
+    const revision = await plansRepository.addRevision(id, actor.userId, snapshot, contentHash(snapshot), t);
+    await plansRepository.setStatus(id, 'submitted', t);
+    await auditRepository.record(actor, { action: 'submit', entityType: 'plan', entityId: id, before: { status: before.status }, after: { status: 'submitted', revision } }, t);
+    return { plan: (await plansRepository.find(actor.organizationId, id, t))!, revision, siteName: inputs.site.name };
+  });
+  const message = planSubmitted({ planTitle: plan.title, siteName, version: plan.version, preparedBy: plan.preparedBy.name, reviewUrl: deps.planUrl(id) });
+  const mailed = await notify(deps, await plansRepository.reviewerEmails(actor.organizationId), message);
+  return { plan, revision, mailed };
+}
+
+/** A reviewer approves or returns the revision they read. */
+export async function reviewPlan(deps: PlanDeps, actor: Actor, id: string, input: { decision: 'approve' | 'return'; comment: string; revision: number }) {
+  const plan = await deps.db.transaction(async (t) => {
+    const before = await plansRepository.find(actor.organizationId, id, t);
+    if (!before) throw AppError.notFound('That plan');
+    if (before.status !== 'submitted') throw AppError.conflict('Only a submitted plan can be reviewed.', 'wrong_status');
+    if (before.preparedBy.id === actor.userId) throw AppError.forbidden('You cannot review a plan you prepared.');
+    const latest = await plansRepository.latestRevisionNumber(id, t);
+    if (latest !== input.revision) {
+      throw AppError.conflict(`Revision ${input.revision} is not the one under review (${latest}). Reload the plan.`, 'stale_revision');
+    }
+    await plansRepository.addReview(id, { ...input, reviewerId: actor.userId }, t);
+    const status = input.decision === 'approve' ? 'approved' : 'returned';
+    await plansRepository.setStatus(id, status, t);
+    // An approved new version supersedes the approved plan it replaces.
+    if (status === 'approved' && before.previousId) await plansRepository.setStatus(before.previousId, 'superseded', t);
+    await auditRepository.record(actor, { action: input.decision, entityType: 'plan', entityId: id, before: { status: before.status }, after: { status, revision: input.revision, comment: input.comment } }, t);
+    return (await plansRepository.find(actor.organizationId, id, t))!;
+  });
+  const to = await plansRepository.emailOf(plan.preparedBy.id);
+  const reviewer = (await plansRepository.reviews(id)).at(-1)?.reviewer.name ?? 'A reviewer';
+  const mailed = await notify(deps, to ? [to] : [], reviewDecided({ planTitle: plan.title, decision: input.decision === 'approve' ? 'approved' : 'returned', reviewer, comment: input.comment || null, planUrl: deps.planUrl(id) }));
+  return { plan, mailed };
+}
+
+/** A change to an approved plan starts a new draft version; approving it supersedes the old one. */
+export function newPlanVersion({ db }: PlanDeps, actor: Actor, id: string): Promise<Plan> {
+  return db.transaction(async (t) => {
+    const before = await plansRepository.find(actor.organizationId, id, t);
+    if (!before) throw AppError.notFound('That plan');
+    if (before.status !== 'approved') throw AppError.conflict('Only an approved plan gets a new version; edit this one directly.', 'wrong_status');
+    const { siteId, title, postIds, targetIds, conditionSetIds, standard } = before;
+    const plan = await plansRepository.create(actor.organizationId, actor.userId, { siteId, title, postIds, targetIds, conditionSetIds, standard, version: before.version + 1, previousId: before.id }, t);
+    await auditRepository.record(actor, { action: 'new-version', entityType: 'plan', entityId: plan.id, before: { from: before.id, version: before.version }, after: plan }, t);
+    return plan;
+  });
+}
+
+/** Revisions, reviews and the signature chain: prepared → submitted → returned/approved. */
+export async function planHistory(actor: Actor, id: string) {
+  const plan = await getPlan(actor, id);
+  const revisions = await plansRepository.revisions(id, false);
+  const reviews = await plansRepository.reviews(id);
+  const signatures = [
+    ...revisions.map((r) => ({ step: 'submitted' as const, person: r.submittedBy, at: r.submittedAt, revision: r.number })),
+    ...reviews.map((r) => ({ step: r.decision === 'approve' ? ('approved' as const) : ('returned' as const), person: r.reviewer, at: r.at, revision: r.revision })),
+  ].sort((a, b) => a.at.localeCompare(b.at));
+  return { revisions, reviews, signatures: [{ step: 'prepared' as const, person: plan.preparedBy, at: signatures[0]?.at ?? plan.updatedAt, revision: null }, ...signatures] };
+}
+
+export async function planRevision(actor: Actor, id: string, number: number) {
+  await getPlan(actor, id);
+  const found = (await plansRepository.revisions(id, true)).find((r) => r.number === number);
+  if (!found) throw AppError.notFound('That revision');
+  return found;
+}

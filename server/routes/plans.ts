@@ -1,0 +1,65 @@
+import { Router, type Request } from 'express';
+import type { Sequelize } from 'sequelize';
+import { z } from 'zod';
+import { PLAN_STATUSES, PlanInputSchema, PlanUpdateSchema, ReviewInputSchema } from '@/shared/schemas/plan';
+import { createPlan, getPlan, listPlans, newPlanVersion, planHistory, planRevision, reviewPlan, submitPlan, updatePlan, type PlanDeps } from '@/server/domain/plans/manage-plans';
+import { actorOf, requireRole, requireUser } from '@/server/http/session';
+import { parseOrThrow } from '@/server/http/validate';
+import type { Mailer } from '@/server/mail/mailer';
+
+const IdParams = z.object({ planId: z.uuid({ error: 'Not a plan id.' }) });
+const RevisionParams = IdParams.extend({ number: z.coerce.number().int().min(1, 'Revisions start at 1.') });
+const ListQuery = z.object({
+  siteId: z.uuid({ error: 'Not a site id.' }).optional(),
+  status: z
+    .string()
+    .transform((s) => s.split(','))
+    .pipe(z.array(z.enum(PLAN_STATUSES, { error: `Statuses: ${PLAN_STATUSES.join(', ')}.` })))
+    .optional(),
+});
+const SubmitBody = z.object({ rowVersion: z.number({ error: 'Send the version you last saw.' }).int() });
+
+/** Coverage plans: planners prepare and submit, reviewers approve or return, observers read approved ones. */
+export function planRoutes(db: Sequelize, publicUrl: (req: Request) => string, mailer: Mailer | null) {
+  const router = Router();
+  const deps = (req: Request): PlanDeps => ({ db, mailer, planUrl: (id) => `${publicUrl(req)}/plans/${id}` });
+  const planner = [requireUser, requireRole('planner')];
+
+  router.get('/plans', requireUser, async (req, res) => {
+    const q = parseOrThrow(ListQuery, req.query, 'query');
+    res.json({ items: await listPlans(actorOf(req), { siteId: q.siteId, statuses: q.status }) });
+  });
+  router.post('/plans', ...planner, async (req, res) => {
+    res.status(201).json({ plan: await createPlan(deps(req), actorOf(req), parseOrThrow(PlanInputSchema, req.body, 'plan')) });
+  });
+  router.get('/plans/:planId', requireUser, async (req, res) => {
+    const { planId } = parseOrThrow(IdParams, req.params, 'address');
+    res.json({ plan: await getPlan(actorOf(req), planId) });
+  });
+  router.patch('/plans/:planId', ...planner, async (req, res) => {
+    const { planId } = parseOrThrow(IdParams, req.params, 'address');
+    res.json({ plan: await updatePlan(deps(req), actorOf(req), planId, parseOrThrow(PlanUpdateSchema, req.body, 'plan')) });
+  });
+  router.post('/plans/:planId/submit', ...planner, async (req, res) => {
+    const { planId } = parseOrThrow(IdParams, req.params, 'address');
+    const { rowVersion } = parseOrThrow(SubmitBody, req.body, 'submission');
+    res.json(await submitPlan(deps(req), actorOf(req), planId, rowVersion));
+  });
+  router.post('/plans/:planId/reviews', requireUser, requireRole('reviewer'), async (req, res) => {
+    const { planId } = parseOrThrow(IdParams, req.params, 'address');
+    res.status(201).json(await reviewPlan(deps(req), actorOf(req), planId, parseOrThrow(ReviewInputSchema, req.body, 'review')));
+  });
+  router.post('/plans/:planId/versions', ...planner, async (req, res) => {
+    const { planId } = parseOrThrow(IdParams, req.params, 'address');
+    res.status(201).json({ plan: await newPlanVersion(deps(req), actorOf(req), planId) });
+  });
+  router.get('/plans/:planId/revisions', requireUser, async (req, res) => {
+    const { planId } = parseOrThrow(IdParams, req.params, 'address');
+    res.json(await planHistory(actorOf(req), planId));
+  });
+  router.get('/plans/:planId/revisions/:number', requireUser, async (req, res) => {
+    const { planId, number } = parseOrThrow(RevisionParams, req.params, 'address');
+    res.json({ revision: await planRevision(actorOf(req), planId, number) });
+  });
+  return router;
+}

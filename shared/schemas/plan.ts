@@ -1,0 +1,114 @@
+import { z } from 'zod';
+import { SightlineResultSchema } from './sightline';
+
+export const PLAN_STATUSES = ['draft', 'submitted', 'returned', 'approved', 'superseded'] as const;
+export type PlanStatus = (typeof PLAN_STATUSES)[number];
+
+/** The standard a plan must meet. */
+export const PlanStandardSchema = z.object({
+  /** Least share of the site seen by at least one post, percent. */
+  minSeenPct: z.number({ error: 'Give a percentage.' }).min(0, '0 to 100 %.').max(100, '0 to 100 %.'),
+  /** Posts that must see each priority zone (for cross-bearings: 2). */
+  priorityMinPosts: z.number().int().min(1, '1 to 3 posts.').max(3, '1 to 3 posts.'),
+});
+
+const ids = (what: string) => z.array(z.uuid({ error: `Not a ${what} id.` })).min(1, `Choose at least one ${what}.`).max(100);
+
+export const PlanInputSchema = z.object({
+  siteId: z.uuid({ error: 'Choose a site.' }),
+  title: z.string({ error: 'Give the plan a title.' }).trim().min(1, 'Give the plan a title.').max(200),
+  postIds: ids('post'),
+  targetIds: ids('target'),
+  conditionSetIds: ids('condition set'),
+  standard: PlanStandardSchema.default({ minSeenPct: 70, priorityMinPosts: 2 }),
+});
+export type PlanInput = z.infer<typeof PlanInputSchema>;
+
+export const PlanUpdateSchema = PlanInputSchema.omit({ siteId: true })
+  .partial()
+  .extend({ rowVersion: z.number({ error: 'Send the version you last saw.' }).int() });
+
+const Person = z.object({ id: z.uuid(), name: z.string(), role: z.string() });
+
+export const PlanSchema = z.object({
+  id: z.uuid(),
+  siteId: z.uuid(),
+  title: z.string(),
+  postIds: z.array(z.uuid()),
+  targetIds: z.array(z.uuid()),
+  conditionSetIds: z.array(z.uuid()),
+  standard: PlanStandardSchema,
+  status: z.enum(PLAN_STATUSES),
+  /** Plan version: 1, then +1 each time an approved plan is changed. */
+  version: z.number().int(),
+  /** The plan this version replaces, if any. */
+  previousId: z.uuid().nullable(),
+  /** Optimistic-concurrency counter of the row. */
+  rowVersion: z.number().int(),
+  preparedBy: Person,
+  updatedAt: z.string(),
+});
+export type Plan = z.infer<typeof PlanSchema>;
+
+/** One line of the frozen results: a post seeing a target under one condition. */
+export const PlanResultRowSchema = z.object({
+  postId: z.uuid(),
+  postName: z.string(),
+  targetId: z.uuid(),
+  targetName: z.string(),
+  conditionSetId: z.uuid(),
+  conditionSetName: z.string(),
+  conditionIndex: z.number().int(),
+  observerHeightM: z.number(),
+  result: SightlineResultSchema,
+});
+
+export const PlanSnapshotSchema = z.object({
+  assumptions: z.array(z.string()),
+  inputs: z.object({
+    plan: z.object({ title: z.string(), standard: PlanStandardSchema }),
+    site: z.record(z.string(), z.unknown()),
+    posts: z.array(z.record(z.string(), z.unknown())),
+    targets: z.array(z.record(z.string(), z.unknown())),
+    conditionSets: z.array(z.record(z.string(), z.unknown())),
+  }),
+  results: z.array(PlanResultRowSchema),
+  cautions: z.array(z.object({ code: z.string(), message: z.string() })),
+});
+export type PlanSnapshot = z.infer<typeof PlanSnapshotSchema>;
+
+export const PlanRevisionSchema = z.object({
+  number: z.number().int(),
+  /** sha256 of the canonical JSON of the snapshot. */
+  contentHash: z.string(),
+  snapshot: PlanSnapshotSchema,
+  submittedBy: Person,
+  submittedAt: z.string(),
+});
+export type PlanRevision = z.infer<typeof PlanRevisionSchema>;
+
+export const ReviewInputSchema = z
+  .object({
+    decision: z.enum(['approve', 'return'], { error: 'Approve or return.' }),
+    comment: z.string().trim().max(5000, 'At most 5 000 characters.').default(''),
+    /** The revision the reviewer read. */
+    revision: z.number({ error: 'Send the revision you reviewed.' }).int().min(1),
+  })
+  .refine((r) => r.decision === 'approve' || r.comment.length > 0, { message: 'Say what needs to change.', path: ['comment'] });
+
+export const ReviewSchema = z.object({
+  revision: z.number().int(),
+  decision: z.enum(['approve', 'return']),
+  comment: z.string(),
+  reviewer: Person,
+  at: z.string(),
+});
+
+/** Who prepared, reviewed and approved, with times. */
+export const SignatureSchema = z.object({ step: z.enum(['prepared', 'submitted', 'returned', 'approved']), person: Person, at: z.string(), revision: z.number().int().nullable() });
+
+export const PlanHistorySchema = z.object({
+  revisions: z.array(PlanRevisionSchema.omit({ snapshot: true })),
+  reviews: z.array(ReviewSchema),
+  signatures: z.array(SignatureSchema),
+});

@@ -1,0 +1,151 @@
+import type { Express } from 'express';
+import request from 'supertest';
+import type { Sequelize } from 'sequelize';
+import { createApp } from '@/server/app';
+import { startMailCatcher } from '@/server/mail/mail-catcher';
+import { createMailer, type Mailer } from '@/server/mail/mailer';
+import { createTestDatabase, TEST_CONFIG } from '@/tests/support/test-db';
+import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO } from '@/tests/support/agents';
+
+let app: Express;
+let db: Sequelize;
+let drop: () => Promise<void>;
+let catcher: Awaited<ReturnType<typeof startMailCatcher>>;
+let mailer: Mailer;
+
+const agentFor = async (email: string) => {
+  const agent = request.agent(app);
+  await agent.post('/api/auth/sign-in').send({ email, password: DEMO_PASSWORD }).expect(200);
+  return agent;
+};
+
+let planner: request.Agent;
+let reviewer: request.Agent;
+let observer: request.Agent;
+let body: { siteId: string; title: string; postIds: string[]; targetIds: string[]; conditionSetIds: string[] };
+
+beforeAll(async () => {
+  ({ db, drop } = await createTestDatabase());
+  catcher = await startMailCatcher({ port: 0, onError: () => {} });
+  mailer = createMailer({ host: '127.0.0.1', port: catcher.port, from: 'Kenning <no-reply@demo.kenning.test>' });
+  app = createApp({ db, config: TEST_CONFIG, mailer });
+  [planner, reviewer, observer] = await Promise.all([agentFor(DEMO.planner), agentFor(DEMO.reviewer), agentFor(DEMO.observer)]);
+  const sites = (await planner.get('/api/v1/sites')).body.items;
+  const site = sites.find((s: { name: string }) => s.name === 'Harrowmere Forest District');
+  const posts = (await planner.get(`/api/v1/sites/${site.id}/posts`)).body.items;
+  const targets = (await planner.get('/api/v1/targets')).body.items;
+  const sets = (await planner.get('/api/v1/conditions')).body.items;
+  body = {
+    siteId: site.id,
+    title: 'Fire season cover, test',
+    postIds: posts.slice(0, 2).map((p: { id: string }) => p.id),
+    targetIds: [targets.find((t: { name: string }) => t.name === 'Early smoke column').id],
+    conditionSetIds: [sets.find((s: { name: string }) => s.name === 'Refraction spread').id],
+  };
+});
+afterAll(async () => {
+  mailer.close();
+  await catcher.close();
+  await drop();
+});
+
+const waitForMail = async (to: string, subject: RegExp) => {
+  for (let i = 0; i < 50; i++) {
+    const m = catcher.messages().find((x) => x.to.includes(to) && subject.test(x.subject));
+    if (m) return m;
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  throw new Error(`no mail to ${to} matching ${subject}`);
+};
+
+describe('coverage plan review cycle', () => {
+  it('runs draft → submitted → returned → resubmitted → approved, freezing each revision, with mail at each step', async () => {
+    expect((await reviewer.post('/api/v1/plans').send(body)).status).toBe(403);
+    const created = await planner.post('/api/v1/plans').send(body);
+    expect(created.status).toBe(201);
+    const plan = created.body.plan;
+    expect(plan).toMatchObject({ status: 'draft', version: 1, rowVersion: 0, preparedBy: { role: 'planner' } });
+
+    // Observers do not see drafts.
+    expect((await observer.get(`/api/v1/plans/${plan.id}`)).status).toBe(404);
+    expect((await observer.get('/api/v1/plans')).body.items.map((p: { id: string }) => p.id)).not.toContain(plan.id);
+
+    const sub1 = await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: 0 });
+    expect(sub1.status).toBe(200);
+    expect(sub1.body).toMatchObject({ revision: 1, mailed: true, plan: { status: 'submitted' } });
+    await waitForMail(DEMO.reviewer, /For review: Fire season cover, test/);
+
+    const rev1 = (await reviewer.get(`/api/v1/plans/${plan.id}/revisions/1`)).body.revision;
+    // 2 posts × 1 target × 3 conditions.
+    expect(rev1.snapshot.results).toHaveLength(6);
+    expect(rev1.contentHash).toMatch(/^[0-9a-f]{64}$/);
+    expect(rev1.snapshot.assumptions.length).toBeGreaterThan(0);
+    expect(rev1.snapshot.cautions.map((c: { code: string }) => c.code)).toContain('refraction-varies');
+
+    // Submitted plans cannot be edited.
+    const frozen = await planner.patch(`/api/v1/plans/${plan.id}`).send({ title: 'x', rowVersion: sub1.body.plan.rowVersion });
+    expect(frozen.status).toBe(409);
+    expect(frozen.body.error.code).toBe('plan_frozen');
+
+    const noComment = await reviewer.post(`/api/v1/plans/${plan.id}/reviews`).send({ decision: 'return', revision: 1 });
+    expect(noComment.status).toBe(400);
+    expect(noComment.body.error.fields).toHaveProperty('comment');
+    const returned = await reviewer.post(`/api/v1/plans/${plan.id}/reviews`).send({ decision: 'return', comment: 'Add the proposed tower.', revision: 1 });
+    expect(returned.status).toBe(201);
+    expect(returned.body.plan.status).toBe('returned');
+    const mail = await waitForMail(DEMO.planner, /Returned for changes/);
+    expect(mail.text).toContain('Add the proposed tower.');
+
+    const posts = (await planner.get(`/api/v1/sites/${body.siteId}/posts`)).body.items.map((p: { id: string }) => p.id);
+    const edited = await planner.patch(`/api/v1/plans/${plan.id}`).send({ postIds: posts, rowVersion: returned.body.plan.rowVersion });
+    expect(edited.status).toBe(200);
+    const sub2 = await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: edited.body.plan.rowVersion });
+    expect(sub2.body.revision).toBe(2);
+
+    // Approving the old revision is refused; the one under review is approved.
+    expect((await reviewer.post(`/api/v1/plans/${plan.id}/reviews`).send({ decision: 'approve', revision: 1 })).status).toBe(409);
+    const approved = await reviewer.post(`/api/v1/plans/${plan.id}/reviews`).send({ decision: 'approve', revision: 2 });
+    expect(approved.body.plan.status).toBe('approved');
+    await waitForMail(DEMO.planner, /Approved: Fire season cover, test/);
+
+    // The revisions are frozen in the database itself.
+    await expect(db.query("UPDATE plan_revisions SET content_hash = 'x'")).rejects.toThrow(/cannot be changed/);
+    const rev1Again = (await reviewer.get(`/api/v1/plans/${plan.id}/revisions/1`)).body.revision;
+    expect(rev1Again.contentHash).toBe(rev1.contentHash);
+
+    const history = (await observer.get(`/api/v1/plans/${plan.id}/revisions`)).body;
+    expect(history.signatures.map((s: { step: string }) => s.step)).toEqual(['prepared', 'submitted', 'returned', 'submitted', 'approved']);
+    expect(history.signatures.map((s: { person: { role: string } }) => s.person.role)).toEqual(['planner', 'planner', 'reviewer', 'planner', 'reviewer']);
+    expect(history.revisions.map((r: { number: number }) => r.number)).toEqual([1, 2]);
+
+    // Changing an approved plan makes a new version; approving it supersedes the old one.
+    const next = await planner.post(`/api/v1/plans/${plan.id}/versions`).send({});
+    expect(next.body.plan).toMatchObject({ version: 2, previousId: plan.id, status: 'draft' });
+    const s3 = await planner.post(`/api/v1/plans/${next.body.plan.id}/submit`).send({ rowVersion: 0 });
+    await reviewer.post(`/api/v1/plans/${next.body.plan.id}/reviews`).send({ decision: 'approve', revision: s3.body.revision }).expect(201);
+    expect((await planner.get(`/api/v1/plans/${plan.id}`)).body.plan.status).toBe('superseded');
+  });
+
+  it('refuses inputs from outside the site or the organisation, on the right field', async () => {
+    const other = await agentFor(DEMO.otherPlanner);
+    const otherTargets = (await other.get('/api/v1/targets')).body.items;
+    const res = await planner.post('/api/v1/plans').send({ ...body, targetIds: [otherTargets[0].id] });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toHaveProperty(['targetIds.0']);
+    const bad = await planner.post('/api/v1/plans').send({ siteId: 'nope', title: '', postIds: [] });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['siteId', 'title', 'postIds', 'targetIds', 'conditionSetIds']));
+  });
+
+  it("keeps other organisations out (404) and stops stale edits (409)", async () => {
+    const { body: created } = await planner.post('/api/v1/plans').send({ ...body, title: 'Race' }).expect(201);
+    const other = await agentFor(DEMO.otherPlanner);
+    expect((await other.get(`/api/v1/plans/${created.plan.id}`)).status).toBe(404);
+    expect((await other.post(`/api/v1/plans/${created.plan.id}/submit`).send({ rowVersion: 0 })).status).toBe(404);
+    await planner.patch(`/api/v1/plans/${created.plan.id}`).send({ title: 'Race 1', rowVersion: 0 }).expect(200);
+    const stale = await planner.patch(`/api/v1/plans/${created.plan.id}`).send({ title: 'Race 2', rowVersion: 0 });
+    expect(stale.status).toBe(409);
+    expect((await planner.get(`/api/v1/plans/${created.plan.id}`)).body.plan.title).toBe('Race 1');
+  });
+});
