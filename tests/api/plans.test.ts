@@ -59,6 +59,17 @@ const waitForMail = async (to: string, subject: RegExp) => {
   throw new Error(`no mail to ${to} matching ${subject}`);
 };
 
+describe('the demo scenario', () => {
+  it('has one approved, one submitted and one draft plan; observers see only the approved one', async () => {
+    const all = (await reviewer.get('/api/v1/plans')).body.items.filter((p: { title: string }) => !p.title.includes('test'));
+    expect(all.map((p: { status: string }) => p.status).sort()).toEqual(['approved', 'draft', 'submitted']);
+    const seen = (await observer.get('/api/v1/plans')).body.items.map((p: { status: string }) => p.status);
+    expect(new Set(seen)).toEqual(new Set(['approved']));
+    const queue = (await reviewer.get('/api/v1/plans?status=submitted')).body.items;
+    expect(queue.map((p: { title: string }) => p.title)).toEqual(['Summer watch, Tallow Strand']);
+  });
+});
+
 describe('coverage plan review cycle', () => {
   it('runs draft → submitted → returned → resubmitted → approved, freezing each revision, with mail at each step', async () => {
     expect((await reviewer.post('/api/v1/plans').send(body)).status).toBe(403);

@@ -6,6 +6,8 @@ import type { PostInput, SiteInput } from '@/shared/schemas/site';
 import type { ConditionSetInput, TargetInput } from '@/shared/schemas/library';
 import { ConditionSetModel, OrganizationModel, SiteModel, TargetProfileModel, UserModel } from '../models';
 import { conditionSetsRepository, targetsRepository } from '../repositories/library-repository';
+import { createPlan, reviewPlan, submitPlan, type PlanDeps } from '@/server/domain/plans/manage-plans';
+import { PlanModel } from '../models';
 import { postsRepository } from '../repositories/posts-repository';
 import { sitesRepository } from '../repositories/sites-repository';
 
@@ -224,12 +226,68 @@ async function seedLibraries(db: Sequelize): Promise<boolean> {
   return added;
 }
 
-/** Seeds the demo organisations, users, sites and libraries once; returns false when nothing was added. */
+/** One approved, one submitted and one draft plan, made through the same use cases people use. */
+async function seedDemoPlans(db: Sequelize): Promise<boolean> {
+  const org = await OrganizationModel.findOne({ where: { slug: DEMO_ORGANIZATIONS[0].slug } });
+  if (!org || (await PlanModel.count({ where: { organizationId: org.id } })) > 0) return false;
+  const user = async (email: string) => {
+    const u = await UserModel.findOne({ where: { email } });
+    if (!u) throw new Error(`demo user ${email} missing`);
+    return { userId: u.id, organizationId: org.id, role: u.role };
+  };
+  const planner = await user('planner@demo.kenning.test');
+  const reviewer = await user('reviewer@demo.kenning.test');
+  const deps: PlanDeps = { db, mailer: null, planUrl: (id) => `/plans/${id}` };
+  const sites = await SiteModel.findAll({ where: { organizationId: org.id } });
+  const forest = sites.find((s) => s.kind === 'forest-district');
+  const coast = sites.find((s) => s.kind === 'coast-stretch');
+  if (!forest || !coast) return false;
+  const posts = async (siteId: string, status?: string) =>
+    (await postsRepository.listInSite(org.id, siteId)).filter((p) => !status || p.status === status).map((p) => p.id);
+  const targets = await targetsRepository.list(org.id);
+  const sets = await conditionSetsRepository.list(org.id);
+  const t = (name: string) => targets.filter((x) => x.name === name).map((x) => x.id);
+  const c = (name: string) => sets.filter((x) => x.name === name).map((x) => x.id);
+
+  const season = await createPlan(deps, planner, {
+    siteId: forest.id,
+    title: 'Fire season cover 2026',
+    postIds: await posts(forest.id, 'existing'),
+    targetIds: [...t('Early smoke column'), ...t('Developed smoke column')],
+    conditionSetIds: c('Refraction spread'),
+    standard: { minSeenPct: 70, priorityMinPosts: 2 },
+  });
+  const s1 = await submitPlan(deps, planner, season.id, season.rowVersion);
+  await reviewPlan(deps, reviewer, season.id, { decision: 'approve', comment: 'Meets the district standard.', revision: s1.revision });
+
+  const summer = await createPlan(deps, planner, {
+    siteId: coast.id,
+    title: 'Summer watch, Tallow Strand',
+    postIds: await posts(coast.id),
+    targetIds: [...t('Person in the water (head)'), ...t('Six-person life raft'), ...t('Small open boat')],
+    conditionSetIds: [...c('Standard day'), ...c('Cold sea, inversion')],
+    standard: { minSeenPct: 90, priorityMinPosts: 1 },
+  });
+  await submitPlan(deps, planner, summer.id, summer.rowVersion);
+
+  await createPlan(deps, planner, {
+    siteId: forest.id,
+    title: 'Blackmoss tower proposal',
+    postIds: await posts(forest.id),
+    targetIds: t('Early smoke column'),
+    conditionSetIds: [...c('Refraction spread'), ...c('Hot afternoon, haze')],
+    standard: { minSeenPct: 80, priorityMinPosts: 2 },
+  });
+  return true;
+}
+
+/** Seeds the demo organisations, users, sites, libraries and plans once; returns false when nothing was added. */
 export async function seedDemo(db: Sequelize): Promise<boolean> {
   const accounts = await seedDemoAccounts(db);
   const sites = await seedDemoSites(db);
   const libraries = await seedLibraries(db);
-  return accounts || sites || libraries;
+  const plans = await seedDemoPlans(db);
+  return accounts || sites || libraries || plans;
 }
 
 async function seedDemoAccounts(db: Sequelize): Promise<boolean> {
