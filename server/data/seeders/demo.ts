@@ -258,7 +258,11 @@ async function seedDemoPlans(db: Sequelize): Promise<boolean> {
     standard: { minSeenPct: 70, priorityMinPosts: 2 },
   });
   const s1 = await submitPlan(deps, planner, season.id, season.rowVersion);
-  await reviewPlan(deps, reviewer, season.id, { decision: 'approve', comment: 'Meets the district standard.', revision: s1.revision });
+  await reviewPlan(deps, reviewer, season.id, {
+    decision: 'approve',
+    comment: 'Meets the district standard.',
+    revision: s1.revision,
+  });
 
   const summer = await createPlan(deps, planner, {
     siteId: coast.id,

@@ -34,7 +34,11 @@ export async function getPlan(actor: Actor, id: string): Promise<Plan> {
 }
 
 /** Loads what the plan refers to, refusing anything outside the organisation or the site. */
-async function loadInputs(actor: Actor, p: Pick<PlanInput, 'siteId' | 'postIds' | 'targetIds' | 'conditionSetIds'>, t?: Transaction) {
+async function loadInputs(
+  actor: Actor,
+  p: Pick<PlanInput, 'siteId' | 'postIds' | 'targetIds' | 'conditionSetIds'>,
+  t?: Transaction,
+) {
   const site = await sitesRepository.findInOrganization(actor.organizationId, p.siteId, t);
   if (!site) throw AppError.badRequest('The plan has invalid fields.', { siteId: 'No such site in your organisation.' });
   const posts = await postsRepository.listInSite(actor.organizationId, site.id);
@@ -43,7 +47,8 @@ async function loadInputs(actor: Actor, p: Pick<PlanInput, 'siteId' | 'postIds' 
   const pick = <T extends { id: string }>(all: T[], ids: string[], field: string, what: string) => {
     const found = ids.map((id) => all.find((x) => x.id === id));
     const missing = found.findIndex((x) => !x);
-    if (missing >= 0) throw AppError.badRequest('The plan has invalid fields.', { [`${field}.${missing}`]: `No such ${what} here.` });
+    if (missing >= 0)
+      throw AppError.badRequest('The plan has invalid fields.', { [`${field}.${missing}`]: `No such ${what} here.` });
     return found as T[];
   };
   return {
@@ -63,12 +68,20 @@ export function createPlan({ db }: PlanDeps, actor: Actor, input: PlanInput): Pr
   });
 }
 
-export function updatePlan({ db }: PlanDeps, actor: Actor, id: string, input: Partial<Omit<PlanInput, 'siteId'>> & { rowVersion: number }): Promise<Plan> {
+export function updatePlan(
+  { db }: PlanDeps,
+  actor: Actor,
+  id: string,
+  input: Partial<Omit<PlanInput, 'siteId'>> & { rowVersion: number },
+): Promise<Plan> {
   return db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That plan');
     if (!EDITABLE.includes(before.status)) {
-      throw AppError.conflict(`A ${before.status} plan cannot be edited. Start a new version to change an approved plan.`, 'plan_frozen');
+      throw AppError.conflict(
+        `A ${before.status} plan cannot be edited. Start a new version to change an approved plan.`,
+        'plan_frozen',
+      );
     }
     const { rowVersion, ...changes } = input;
     await loadInputs(actor, { ...before, ...changes }, t);
@@ -79,10 +92,11 @@ export function updatePlan({ db }: PlanDeps, actor: Actor, id: string, input: Pa
   });
 }
 
-async function notify(deps: PlanDeps, to: string[], message: { subject: string; text: string; html?: string }) {
+/** Sends after the write has committed; a mail failure is logged and reported as `mailed: false`. */
+async function notify(deps: PlanDeps, to: string[], message: () => { subject: string; text: string; html?: string }) {
   if (!deps.mailer || to.length === 0) return false;
   try {
-    await deps.mailer.send({ to, ...message });
+    await deps.mailer.send({ to, ...message() });
     return true;
   } catch (e) {
     console.error('[kenning] notification mail failed:', e);
@@ -95,22 +109,45 @@ export async function submitPlan(deps: PlanDeps, actor: Actor, id: string, rowVe
   const { plan, revision, siteName } = await deps.db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That plan');
-    if (!EDITABLE.includes(before.status)) throw AppError.conflict(`A ${before.status} plan cannot be submitted.`, 'wrong_status');
+    if (!EDITABLE.includes(before.status))
+      throw AppError.conflict(`A ${before.status} plan cannot be submitted.`, 'wrong_status');
     if (before.rowVersion !== rowVersion) throw AppError.conflict(STALE, 'stale_version');
     const inputs = await loadInputs(actor, before, t);
     const snapshot = buildSnapshot({ title: before.title, standard: before.standard, ...inputs });
     const revision = await plansRepository.addRevision(id, actor.userId, snapshot, contentHash(snapshot), t);
     await plansRepository.setStatus(id, 'submitted', t);
-    await auditRepository.record(actor, { action: 'submit', entityType: 'plan', entityId: id, before: { status: before.status }, after: { status: 'submitted', revision } }, t);
+    await auditRepository.record(
+      actor,
+      {
+        action: 'submit',
+        entityType: 'plan',
+        entityId: id,
+        before: { status: before.status },
+        after: { status: 'submitted', revision },
+      },
+      t,
+    );
     return { plan: (await plansRepository.find(actor.organizationId, id, t))!, revision, siteName: inputs.site.name };
   });
-  const message = planSubmitted({ planTitle: plan.title, siteName, version: plan.version, preparedBy: plan.preparedBy.name, reviewUrl: deps.planUrl(id) });
+  const message = () =>
+    planSubmitted({
+      planTitle: plan.title,
+      siteName,
+      version: plan.version,
+      preparedBy: plan.preparedBy.name,
+      reviewUrl: deps.planUrl(id),
+    });
   const mailed = await notify(deps, await plansRepository.reviewerEmails(actor.organizationId), message);
   return { plan, revision, mailed };
 }
 
 /** A reviewer approves or returns the revision they read. */
-export async function reviewPlan(deps: PlanDeps, actor: Actor, id: string, input: { decision: 'approve' | 'return'; comment: string; revision: number }) {
+export async function reviewPlan(
+  deps: PlanDeps,
+  actor: Actor,
+  id: string,
+  input: { decision: 'approve' | 'return'; comment: string; revision: number },
+) {
   const plan = await deps.db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That plan');
@@ -118,19 +155,40 @@ export async function reviewPlan(deps: PlanDeps, actor: Actor, id: string, input
     if (before.preparedBy.id === actor.userId) throw AppError.forbidden('You cannot review a plan you prepared.');
     const latest = await plansRepository.latestRevisionNumber(id, t);
     if (latest !== input.revision) {
-      throw AppError.conflict(`Revision ${input.revision} is not the one under review (${latest}). Reload the plan.`, 'stale_revision');
+      throw AppError.conflict(
+        `Revision ${input.revision} is not the one under review (${latest}). Reload the plan.`,
+        'stale_revision',
+      );
     }
     await plansRepository.addReview(id, { ...input, reviewerId: actor.userId }, t);
     const status = input.decision === 'approve' ? 'approved' : 'returned';
     await plansRepository.setStatus(id, status, t);
     // An approved new version supersedes the approved plan it replaces.
     if (status === 'approved' && before.previousId) await plansRepository.setStatus(before.previousId, 'superseded', t);
-    await auditRepository.record(actor, { action: input.decision, entityType: 'plan', entityId: id, before: { status: before.status }, after: { status, revision: input.revision, comment: input.comment } }, t);
+    await auditRepository.record(
+      actor,
+      {
+        action: input.decision,
+        entityType: 'plan',
+        entityId: id,
+        before: { status: before.status },
+        after: { status, revision: input.revision, comment: input.comment },
+      },
+      t,
+    );
     return (await plansRepository.find(actor.organizationId, id, t))!;
   });
   const to = await plansRepository.emailOf(plan.preparedBy.id);
   const reviewer = (await plansRepository.reviews(id)).at(-1)?.reviewer.name ?? 'A reviewer';
-  const mailed = await notify(deps, to ? [to] : [], reviewDecided({ planTitle: plan.title, decision: input.decision === 'approve' ? 'approved' : 'returned', reviewer, comment: input.comment || null, planUrl: deps.planUrl(id) }));
+  const mailed = await notify(deps, to ? [to] : [], () =>
+    reviewDecided({
+      planTitle: plan.title,
+      decision: input.decision === 'approve' ? 'approved' : 'returned',
+      reviewer,
+      comment: input.comment || null,
+      planUrl: deps.planUrl(id),
+    }),
+  );
   return { plan, mailed };
 }
 
@@ -139,10 +197,26 @@ export function newPlanVersion({ db }: PlanDeps, actor: Actor, id: string): Prom
   return db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That plan');
-    if (before.status !== 'approved') throw AppError.conflict('Only an approved plan gets a new version; edit this one directly.', 'wrong_status');
+    if (before.status !== 'approved')
+      throw AppError.conflict('Only an approved plan gets a new version; edit this one directly.', 'wrong_status');
     const { siteId, title, postIds, targetIds, conditionSetIds, standard } = before;
-    const plan = await plansRepository.create(actor.organizationId, actor.userId, { siteId, title, postIds, targetIds, conditionSetIds, standard, version: before.version + 1, previousId: before.id }, t);
-    await auditRepository.record(actor, { action: 'new-version', entityType: 'plan', entityId: plan.id, before: { from: before.id, version: before.version }, after: plan }, t);
+    const plan = await plansRepository.create(
+      actor.organizationId,
+      actor.userId,
+      { siteId, title, postIds, targetIds, conditionSetIds, standard, version: before.version + 1, previousId: before.id },
+      t,
+    );
+    await auditRepository.record(
+      actor,
+      {
+        action: 'new-version',
+        entityType: 'plan',
+        entityId: plan.id,
+        before: { from: before.id, version: before.version },
+        after: plan,
+      },
+      t,
+    );
     return plan;
   });
 }
@@ -154,9 +228,21 @@ export async function planHistory(actor: Actor, id: string) {
   const reviews = await plansRepository.reviews(id);
   const signatures = [
     ...revisions.map((r) => ({ step: 'submitted' as const, person: r.submittedBy, at: r.submittedAt, revision: r.number })),
-    ...reviews.map((r) => ({ step: r.decision === 'approve' ? ('approved' as const) : ('returned' as const), person: r.reviewer, at: r.at, revision: r.revision })),
+    ...reviews.map((r) => ({
+      step: r.decision === 'approve' ? ('approved' as const) : ('returned' as const),
+      person: r.reviewer,
+      at: r.at,
+      revision: r.revision,
+    })),
   ].sort((a, b) => a.at.localeCompare(b.at));
-  return { revisions, reviews, signatures: [{ step: 'prepared' as const, person: plan.preparedBy, at: signatures[0]?.at ?? plan.updatedAt, revision: null }, ...signatures] };
+  return {
+    revisions,
+    reviews,
+    signatures: [
+      { step: 'prepared' as const, person: plan.preparedBy, at: signatures[0]?.at ?? plan.updatedAt, revision: null },
+      ...signatures,
+    ],
+  };
 }
 
 export async function planRevision(actor: Actor, id: string, number: number) {
