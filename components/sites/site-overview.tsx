@@ -10,6 +10,7 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { PostForm } from './post-form';
+import { SitePlans } from './site-plans';
 import { SiteSketch } from './site-sketch';
 
 export function SiteOverview({ siteId }: { siteId: string }) {
@@ -29,6 +30,8 @@ export function SiteOverview({ siteId }: { siteId: string }) {
           <Card>
             <SiteSketch site={s} posts={list} />
           </Card>
+          <AppText variant="heading">Coverage plans</AppText>
+          <SitePlans siteId={siteId} />
           <AppText variant="heading">Posts</AppText>
           {posts.isPending ? (
             <LoadingState label="Loading posts…" />

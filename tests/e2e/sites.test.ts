@@ -21,6 +21,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a site on the %s viewpo
       await page.getByRole('img', { name: 'Sketch of Harrowmere Forest District' }).waitFor();
       for (const name of ['Crane Knoll Tower', 'Sedge Ridge Tower', 'Blackmoss Tower'])
         await page.getByLabel(name).first().waitFor();
+      // The demo plans of this site, with their status.
+      await page.getByLabel('Fire season cover 2026').getByText('Approved').waitFor();
+      await page.getByLabel('Blackmoss tower proposal').getByText('Draft').waitFor();
       await shot(page, 'site', viewport);
       await page.getByRole('img', { name: /Sketch of/ }).screenshot({ path: `${SCREENSHOT_DIR}/site-sketch-${viewport}.png` });
 
