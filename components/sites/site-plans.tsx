@@ -14,6 +14,8 @@ const STATUS: Record<PlanStatus, { label: string; bg: string; fg: string }> = {
   superseded: { label: 'Superseded', bg: colors.paper, fg: colors.muted },
 };
 
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
 /** The site's coverage plans with their status and who prepared them. */
 export function SitePlans({ siteId }: { siteId: string }) {
   const plans = usePlans({ siteId });
@@ -39,7 +41,7 @@ export function SitePlans({ siteId }: { siteId: string }) {
             </AppText>
           </View>
           <AppText variant="small" tone="muted">
-            {p.postIds.length} posts · {p.targetIds.length} targets · standard ≥ {p.standard.minSeenPct} % seen, priority zones by
+            {plural(p.postIds.length, 'post')} · {plural(p.targetIds.length, 'target')} · standard ≥ {p.standard.minSeenPct} % seen, priority zones by
             ≥ {p.standard.priorityMinPosts} · prepared by {p.preparedBy.name}
           </AppText>
         </Card>
