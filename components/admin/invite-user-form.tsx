@@ -9,7 +9,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError, Notice } from '@/components/ui/states';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { space } from '@/components/ui/theme';
 import { RolePicker } from './role-picker';
 
@@ -18,7 +18,7 @@ export function InviteUserForm() {
   const [formError, setFormError] = useState('');
   const [link, setLink] = useState('');
   const [mailed, setMailed] = useState(false);
-  const { control, handleSubmit, setError, formState, reset } = useForm<InviteUserRequest>({
+  const { control, handleSubmit, setError, reset } = useForm<InviteUserRequest>({
     resolver: zodResolver(InviteUserRequestSchema),
     defaultValues: { email: '', name: '', role: 'observer' },
   });
@@ -38,34 +38,8 @@ export function InviteUserForm() {
     <Card accent="moss">
       <AppText variant="heading">Invite someone</AppText>
       <FormError message={formError} />
-      <Controller
-        control={control}
-        name="name"
-        render={({ field }) => (
-          <TextField
-            label="Name"
-            value={field.value}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={formState.errors.name?.message}
-          />
-        )}
-      />
-      <Controller
-        control={control}
-        name="email"
-        render={({ field }) => (
-          <TextField
-            label="E-mail"
-            autoCapitalize="none"
-            inputMode="email"
-            value={field.value}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={formState.errors.email?.message}
-          />
-        )}
-      />
+      <FormTextField control={control} name="name" label="Name" />
+      <FormTextField control={control} name="email" label="E-mail" autoCapitalize="none" inputMode="email" />
       <Controller
         control={control}
         name="role"

@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link } from 'expo-router';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { z } from 'zod';
 import { NewPasswordSchema } from '@/shared/schemas/auth';
@@ -9,7 +9,7 @@ import { useSetPassword } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { FormError, Notice } from '@/components/ui/states';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { colors, space } from '@/components/ui/theme';
 import { applyServerErrors } from './use-server-errors';
 
@@ -21,7 +21,7 @@ type Form = z.infer<typeof FormSchema>;
 export function SetPasswordForm({ token }: { token: string }) {
   const setPassword = useSetPassword();
   const [formError, setFormError] = useState('');
-  const { control, handleSubmit, setError, formState } = useForm<Form>({
+  const { control, handleSubmit, setError } = useForm<Form>({
     resolver: zodResolver(FormSchema),
     defaultValues: { password: '', repeat: '' },
   });
@@ -55,37 +55,21 @@ export function SetPasswordForm({ token }: { token: string }) {
   return (
     <View style={{ gap: space.lg }}>
       <FormError message={formError} />
-      <Controller
+      <FormTextField
         control={control}
         name="password"
-        render={({ field }) => (
-          <TextField
-            label="New password"
-            secureTextEntry
-            autoComplete="new-password"
-            hint="At least 10 characters."
-            value={field.value}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={formState.errors.password?.message}
-          />
-        )}
+        label="New password"
+        secureTextEntry
+        autoComplete="new-password"
+        hint="At least 10 characters."
       />
-      <Controller
+      <FormTextField
         control={control}
         name="repeat"
-        render={({ field }) => (
-          <TextField
-            label="Repeat the password"
-            secureTextEntry
-            autoComplete="new-password"
-            value={field.value}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={formState.errors.repeat?.message}
-            onSubmitEditing={submit}
-          />
-        )}
+        label="Repeat the password"
+        secureTextEntry
+        autoComplete="new-password"
+        onSubmitEditing={submit}
       />
       <Button label="Set password" onPress={submit} busy={setPassword.isPending} />
     </View>

@@ -1,19 +1,19 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { SignInRequestSchema, type SignInRequest } from '@/shared/schemas/auth';
 import { useSignIn } from '@/components/data/session';
 import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/states';
-import { TextField } from '@/components/ui/text-field';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { space } from '@/components/ui/theme';
 import { applyServerErrors } from './use-server-errors';
 
 export function SignInForm() {
   const signIn = useSignIn();
   const [formError, setFormError] = useState('');
-  const { control, handleSubmit, setError, formState } = useForm<SignInRequest>({
+  const { control, handleSubmit, setError } = useForm<SignInRequest>({
     resolver: zodResolver(SignInRequestSchema),
     defaultValues: { email: '', password: '' },
   });
@@ -28,38 +28,22 @@ export function SignInForm() {
   return (
     <View style={{ gap: space.lg }}>
       <FormError message={formError} />
-      <Controller
+      <FormTextField
         control={control}
         name="email"
-        render={({ field }) => (
-          <TextField
-            label="E-mail"
-            autoComplete="email"
-            inputMode="email"
-            autoCapitalize="none"
-            value={field.value}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={formState.errors.email?.message}
-            onSubmitEditing={submit}
-          />
-        )}
+        label="E-mail"
+        autoComplete="email"
+        inputMode="email"
+        autoCapitalize="none"
+        onSubmitEditing={submit}
       />
-      <Controller
+      <FormTextField
         control={control}
         name="password"
-        render={({ field }) => (
-          <TextField
-            label="Password"
-            secureTextEntry
-            autoComplete="current-password"
-            value={field.value}
-            onChangeText={field.onChange}
-            onBlur={field.onBlur}
-            error={formState.errors.password?.message}
-            onSubmitEditing={submit}
-          />
-        )}
+        label="Password"
+        secureTextEntry
+        autoComplete="current-password"
+        onSubmitEditing={submit}
       />
       <Button label="Sign in" onPress={submit} busy={signIn.isPending} />
     </View>
