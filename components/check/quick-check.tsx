@@ -48,7 +48,7 @@ export function QuickCheck() {
   const errors = 'errors' in built ? built.errors : {};
   const valid = 'request' in built ? built : null;
   const settled = useSettled(valid);
-  const evaluation = useSightline(settled?.request ?? null);
+  const evaluation = useSightline(settled?.request ?? null, settled?.labels ?? []);
   const units = UNIT_SYSTEMS[form.units];
   const set =
     <K extends keyof CheckFormValues>(key: K) =>
@@ -176,8 +176,7 @@ export function QuickCheck() {
     if (evaluation.isPending) return <LoadingState label="Computing…" />;
     if (evaluation.isError) return <ErrorState error={evaluation.error} onRetry={() => void evaluation.refetch()} />;
     const data = evaluation.data;
-    const shown = settled ?? valid;
-    return <Answer request={shown.request} labels={shown.labels} data={data} units={units} />;
+    return <Answer request={data.request} labels={data.context} data={data} units={units} />;
   })();
 
   return (
@@ -209,7 +208,7 @@ function Answer({
 }: {
   request: SightlineRequest;
   labels: ConditionLabel[];
-  data: NonNullable<ReturnType<typeof useSightline>['data']>;
+  data: NonNullable<ReturnType<typeof useSightline<ConditionLabel[]>>['data']>;
   units: (typeof UNIT_SYSTEMS)[UnitSystem];
 }) {
   const warnings = data.results.flatMap((r, i) => r.warnings.map((w) => ({ ...w, label: labels[i]?.label ?? '' })));

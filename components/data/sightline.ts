@@ -11,7 +11,8 @@ import { STALE } from './query-client';
 
 export const sightlineKeys = {
   all: ['sightline'] as const,
-  evaluation: (request: SightlineRequest | null) => [...sightlineKeys.all, 'evaluation', request] as const,
+  evaluation: (request: SightlineRequest | null, context?: unknown) =>
+    [...sightlineKeys.all, 'evaluation', request, context] as const,
   presets: () => [...sightlineKeys.all, 'presets'] as const,
 };
 
@@ -22,25 +23,27 @@ export type ComputedOn = 'server' | 'device';
  * The sightline evaluation. The server answers when it can be reached; when it
  * cannot, the same pure core runs on the device, and the answer says so.
  */
-export const sightlineQuery = (request: SightlineRequest | null) =>
+export const sightlineQuery = <C>(request: SightlineRequest | null, context: C) =>
   queryOptions({
-    queryKey: sightlineKeys.evaluation(request),
+    queryKey: sightlineKeys.evaluation(request, context),
     enabled: request !== null,
     staleTime: Infinity,
     retry: false,
-    queryFn: async (): Promise<SightlineResponse & { computedOn: ComputedOn }> => {
+    // The answer carries the request it answers and the caller's context (e.g. column labels),
+    // so a screen showing a previous answer while the next loads never mixes the two.
+    queryFn: async (): Promise<SightlineResponse & { computedOn: ComputedOn; request: SightlineRequest; context: C }> => {
       if (!request) throw new Error('no request');
       try {
-        return { ...(await api.post('/v1/sightline', request, SightlineResponseSchema)), computedOn: 'server' };
+        return { ...(await api.post('/v1/sightline', request, SightlineResponseSchema)), computedOn: 'server', request, context };
       } catch (e) {
-        if (e instanceof NetworkError) return { ...evaluateSightline(request), computedOn: 'device' };
+        if (e instanceof NetworkError) return { ...evaluateSightline(request), computedOn: 'device', request, context };
         throw e;
       }
     },
   });
 
-export function useSightline(request: SightlineRequest | null) {
-  return useQuery({ ...sightlineQuery(request), placeholderData: keepPreviousData });
+export function useSightline<C>(request: SightlineRequest | null, context: C) {
+  return useQuery({ ...sightlineQuery(request, context), placeholderData: keepPreviousData });
 }
 
 export const refractionPresetsQuery = () =>
