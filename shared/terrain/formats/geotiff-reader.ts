@@ -125,18 +125,18 @@ export async function readGeoTiff(bytes: ArrayBuffer): Promise<TerrainRaster> {
     );
   }
 
-  let band: ArrayLike<number>;
-  try {
-    const rasters = await image.readRasters({ samples: [0] });
-    band = (rasters as unknown as ArrayLike<number>[])[0] as ArrayLike<number>;
-  } catch (cause) {
-    throw new TerrainFormatError(
-      isOutOfRange(cause) ? 'truncated' : 'corrupt',
-      `Image data cannot be decoded: ${message(cause)}`,
-      {
-        cause,
-      },
-    );
+  let band: ArrayLike<number> | null = readPlainFloat32(bytes, directory, little, width * height, offsets, counts);
+  if (band === null) {
+    try {
+      const rasters = await image.readRasters({ samples: [0] });
+      band = (rasters as unknown as ArrayLike<number>[])[0] as ArrayLike<number>;
+    } catch (cause) {
+      throw new TerrainFormatError(
+        isOutOfRange(cause) ? 'truncated' : 'corrupt',
+        `Image data cannot be decoded: ${message(cause)}`,
+        { cause },
+      );
+    }
   }
   if (!band || band.length !== width * height) {
     throw new TerrainFormatError('corrupt', 'Decoded image data does not match the image size.');
@@ -163,4 +163,46 @@ function message(cause: unknown): string {
 
 function isOutOfRange(cause: unknown): boolean {
   return cause instanceof RangeError || /out of bounds|outside the bounds|offset is outside|beyond/i.test(message(cause));
+}
+
+/**
+ * Fast path for the commonest terrain file — what Kenning and GDAL write by
+ * default: one band of uncompressed little-endian Float32 in strips. The strip
+ * bytes are copied straight into the result; anything else returns null and
+ * goes through the `geotiff` package's general decoder.
+ */
+function readPlainFloat32(
+  bytes: ArrayBuffer,
+  directory: Record<string, unknown>,
+  little: boolean,
+  cells: number,
+  offsets: ArrayLike<number>,
+  counts: ArrayLike<number>,
+): Float32Array | null {
+  const first = (value: unknown): unknown =>
+    Array.isArray(value) || ArrayBuffer.isView(value) ? (value as unknown as ArrayLike<unknown>)[0] : value;
+  const littleHost = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+  if (
+    !little ||
+    !littleHost ||
+    directory.TileOffsets !== undefined ||
+    (first(directory.Compression) ?? 1) !== 1 ||
+    first(directory.BitsPerSample) !== 32 ||
+    first(directory.SampleFormat) !== 3 ||
+    (first(directory.SamplesPerPixel) ?? 1) !== 1
+  ) {
+    return null;
+  }
+  let total = 0;
+  for (let i = 0; i < counts.length; i++) total += counts[i] as number;
+  if (total !== cells * 4) return null;
+  const heights = new Float32Array(cells);
+  const target = new Uint8Array(heights.buffer);
+  let at = 0;
+  for (let i = 0; i < offsets.length; i++) {
+    const count = counts[i] as number;
+    target.set(new Uint8Array(bytes, offsets[i] as number, count), at);
+    at += count;
+  }
+  return heights;
 }
