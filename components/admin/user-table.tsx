@@ -26,6 +26,16 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
     update.mutate({ id: u.id, version: u.version, ...changes }, { onError: (e) => setError(e.message) });
   };
 
+  // Nobody deactivates themselves; the server also keeps the last active admin.
+  const activeToggle = (u: ManagedUser) =>
+    u.id === me?.id ? null : (
+      <Button
+        kind="secondary"
+        label={u.status === 'deactivated' ? 'Reactivate' : 'Deactivate'}
+        onPress={() => change(u, { active: u.status === 'deactivated' })}
+      />
+    );
+
   return (
     <View style={{ gap: space.md }}>
       <FormError message={error} />
@@ -61,13 +71,7 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
                 {u.lastSignInAt ? new Date(u.lastSignInAt).toLocaleString() : 'never'}
               </AppText>
               <View style={styles.td} role="cell">
-                {u.id !== me?.id ? (
-                  <Button
-                    kind="secondary"
-                    label={u.status === 'deactivated' ? 'Reactivate' : 'Deactivate'}
-                    onPress={() => change(u, { active: u.status === 'deactivated' })}
-                  />
-                ) : null}
+                {activeToggle(u)}
               </View>
             </View>
           ))}
@@ -87,13 +91,7 @@ export function UserTable({ users }: { users: ManagedUser[] }) {
               disabled={update.isPending || u.id === me?.id}
               onChange={(role) => change(u, { role })}
             />
-            {u.id !== me?.id ? (
-              <Button
-                kind="secondary"
-                label={u.status === 'deactivated' ? 'Reactivate' : 'Deactivate'}
-                onPress={() => change(u, { active: u.status === 'deactivated' })}
-              />
-            ) : null}
+            {activeToggle(u)}
           </Card>
         ))
       )}

@@ -28,11 +28,11 @@ const checkTarget = (t: TargetInput) => {
 export function libraryRoutes(db: Sequelize) {
   const router = Router();
   const write = [requireUser, requireRole('planner')];
-  const mount = (
+  const mount = <Dto extends { id: string }, Input extends object>(
     path: string,
-    uc: ReturnType<typeof libraryUseCases<{ id: string }, object>>,
-    create: z.ZodType,
-    update: z.ZodType,
+    uc: ReturnType<typeof libraryUseCases<Dto, Input>>,
+    create: z.ZodType<Input>,
+    update: z.ZodType<Partial<Input> & { version: number }>,
     noun: string,
     key: string,
   ) => {
@@ -40,11 +40,11 @@ export function libraryRoutes(db: Sequelize) {
       res.json({ items: await uc.list(actorOf(req)) });
     });
     router.post(`/${path}`, ...write, async (req, res) => {
-      res.status(201).json({ [key]: await uc.create(actorOf(req), parseOrThrow(create, req.body, noun) as object) });
+      res.status(201).json({ [key]: await uc.create(actorOf(req), parseOrThrow(create, req.body, noun)) });
     });
     router.patch(`/${path}/:id`, ...write, async (req, res) => {
       const { id } = parseOrThrow(IdParams, req.params, 'address');
-      res.json({ [key]: await uc.update(actorOf(req), id, parseOrThrow(update, req.body, noun) as { version: number }) });
+      res.json({ [key]: await uc.update(actorOf(req), id, parseOrThrow(update, req.body, noun)) });
     });
     router.delete(`/${path}/:id`, ...write, async (req, res) => {
       const { id } = parseOrThrow(IdParams, req.params, 'address');
@@ -54,7 +54,7 @@ export function libraryRoutes(db: Sequelize) {
   };
   mount(
     'targets',
-    libraryUseCases(db, targetsRepository, 'target', 'That target', checkTarget) as never,
+    libraryUseCases(db, targetsRepository, 'target', 'That target', checkTarget),
     TargetInputSchema,
     TargetUpdateSchema,
     'target',
@@ -62,7 +62,7 @@ export function libraryRoutes(db: Sequelize) {
   );
   mount(
     'conditions',
-    libraryUseCases(db, conditionSetsRepository, 'condition-set', 'That condition set') as never,
+    libraryUseCases(db, conditionSetsRepository, 'condition-set', 'That condition set'),
     ConditionSetInputSchema,
     ConditionSetUpdateSchema,
     'condition set',

@@ -80,19 +80,18 @@ export const ConditionSetSchema = z.object({
 });
 export type ConditionSet = z.infer<typeof ConditionSetSchema>;
 
-export const withVersion = <T extends z.ZodObject>(schema: T) =>
-  schema.partial().extend({ version: z.number({ error: 'Send the version you last saw.' }).int() });
-
-export const TargetUpdateSchema = withVersion(
-  z.object({
+/** Changes to a target (no defaults: a field left out stays as it is) and the version last seen. */
+export const TargetUpdateSchema = z
+  .object({
     name: z.string().trim().min(1, 'Name the target.').max(120),
     kind: z.enum(TARGET_KINDS),
     heightM: metres('Height', 0, 20_000),
     widthM: metres('Width', 0.01, 10_000),
     requiredVisibleM: metres('Required part', 0, 20_000),
     period: z.enum(['day', 'night']),
-  }),
-);
+  })
+  .partial()
+  .extend({ version: z.number({ error: 'Send the version you last saw.' }).int() });
 
 /** A condition set is replaced whole; `version` is the one last seen. */
 export const ConditionSetUpdateSchema = ConditionSetInputSchema.extend({
