@@ -9,6 +9,7 @@ import { errorHandler, notFoundHandler } from './http/error-handler';
 import { sessionMiddleware } from './http/session';
 import { createCaughtMailClient } from './mail/caught-mail-client';
 import type { Mailer } from './mail/mailer';
+import type { FileStore } from './storage/file-store';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
@@ -22,6 +23,8 @@ export interface AppDeps {
   db: Sequelize;
   /** Outgoing mail; null or absent: nothing is e-mailed (links are still shown where they matter). */
   mailer?: Mailer | null;
+  /** Where uploaded bytes are kept (attachments, terrain). */
+  files: FileStore;
   config: Pick<
     Config,
     | 'SESSION_SECRET'

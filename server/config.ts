@@ -16,6 +16,8 @@ const EnvSchema = z.object({
   DATABASE_URL: z.url({ protocol: /^postgres(ql)?$/ }),
   /** iron-session needs at least 32 characters. */
   SESSION_SECRET: z.string().min(32).optional(),
+  /** Folder where uploaded files (attachments, terrain) are kept. */
+  FILE_STORE_DIR: z.string().min(1).default(path.join(dataDir, 'files')),
   /** Folder holding the exported web app; the API runs without it. */
   WEB_DIST_DIR: z.string().default(path.join(projectRoot, 'dist', 'web')),
   /** Set when a reverse proxy terminates TLS in front of the server. */

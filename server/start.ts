@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { config } from './config';
 import { createDatabase } from './data/database';
 import { createMailer } from './mail/mailer';
+import { createDiskFileStore } from './storage/file-store';
 
 /** Entry point: serves the API and the web app from one process. */
 async function main() {
@@ -18,7 +19,7 @@ async function main() {
         auth: cfg.SMTP_USER && cfg.SMTP_PASSWORD ? { user: cfg.SMTP_USER, pass: cfg.SMTP_PASSWORD } : undefined,
       })
     : null;
-  const app = createApp({ db, config: cfg, mailer });
+  const app = createApp({ db, config: cfg, mailer, files: createDiskFileStore(cfg.FILE_STORE_DIR) });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(cfg.PORT, cfg.HOST, () => resolve(s));
   });

@@ -11,7 +11,7 @@
 
 import { execFileSync, spawn, spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
-import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -390,6 +390,7 @@ async function test() {
   const run_id = `${process.pid}_${Date.now().toString(36)}`;
   const template = `kenning_test_${run_id}`;
   const e2eDb = `kenning_e2e_${run_id}`;
+  const testFiles = path.join(local, `test-files-${run_id}`);
   const adminUrl = pg.url('postgres');
   let mail = null;
   let server;
@@ -402,6 +403,7 @@ async function test() {
       stdio: 'inherit',
     });
     pg.stop();
+    rmSync(testFiles, { recursive: true, force: true });
   };
   process.on('SIGINT', () => {
     cleanup();
@@ -415,13 +417,16 @@ async function test() {
       fn();
       log(`  ${name} done in ${((Date.now() - t) / 1000).toFixed(1)} s`);
     };
-    step('type-check', () => run('npx', ['tsc', '--noEmit', '-p', 'tsconfig.json']));
-    step('lint', () => run('npx', ['eslint', '.', '--max-warnings', '0']));
+    // KENNING_TEST_QUICK=1: a developer's inner loop for unit and API tests — no type-check, lint or web build.
+    const quick = env.KENNING_TEST_QUICK === '1';
+    if (quick) log('quick run: skipping type-check, lint and the web build (browser tests will not find the app)');
+    if (!quick) step('type-check', () => run('npx', ['tsc', '--noEmit', '-p', 'tsconfig.json']));
+    if (!quick) step('lint', () => run('npx', ['eslint', '.', '--max-warnings', '0']));
     step('test databases', () => {
       tsx('server/scripts/prepare-database.ts', ['--database', template, '--seed', '--fresh'], { KENNING_ADMIN_DATABASE_URL: adminUrl });
       tsx('server/scripts/prepare-database.ts', ['--database', e2eDb, '--from', template], { KENNING_ADMIN_DATABASE_URL: adminUrl });
     });
-    step('web build', ensureWebBuild);
+    if (!quick) step('web build', ensureWebBuild);
     const port = await freePort();
     const url = `http://127.0.0.1:${port}`;
     mail = startMailCatcher();
@@ -432,6 +437,7 @@ async function test() {
       HOST: '127.0.0.1',
       NODE_ENV: 'test',
       SIGN_IN_LIMIT_PER_ADDRESS: '1000',
+      FILE_STORE_DIR: testFiles,
       ...mailEnv(caught),
     });
     if (!(await waitForHealth(url, server))) throw new Error('the test server did not become healthy');

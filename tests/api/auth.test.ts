@@ -4,15 +4,17 @@ import type { Sequelize } from 'sequelize';
 import { UserModel } from '@/server/data/models';
 import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
 import { createApp } from '@/server/app';
+import type { FileStore } from '@/server/storage/file-store';
 import { createTestApp, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
 
 let app: Express;
 let db: Sequelize;
 let close: () => Promise<void>;
+let files: FileStore;
 
 beforeAll(async () => {
-  ({ app, db, close } = await createTestApp());
+  ({ app, db, files, close } = await createTestApp());
 });
 afterAll(() => close());
 
@@ -85,7 +87,7 @@ describe('POST /api/auth/sign-in', () => {
   });
 
   it('marks the cookie Secure when the request came over https through a trusted proxy', async () => {
-    const secured = createApp({ db, config: { ...TEST_CONFIG, TRUST_PROXY: true } });
+    const secured = createApp({ db, files, config: { ...TEST_CONFIG, TRUST_PROXY: true } });
     {
       const res = await request(secured)
         .post('/api/auth/sign-in')
@@ -100,7 +102,7 @@ describe('POST /api/auth/sign-in', () => {
 describe('sign-in rate limits', () => {
   it('answers a burst of bad attempts on one account with 429, even with the right password', async () => {
     const limited = {
-      app: createApp({ db, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ACCOUNT: 3, SIGN_IN_LIMIT_PER_ADDRESS: 100 } }),
+      app: createApp({ db, files, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ACCOUNT: 3, SIGN_IN_LIMIT_PER_ADDRESS: 100 } }),
     };
     {
       const statuses: number[] = [];
@@ -122,7 +124,7 @@ describe('sign-in rate limits', () => {
 
   it('limits attempts per address across accounts', async () => {
     const limited = {
-      app: createApp({ db, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ADDRESS: 2, SIGN_IN_LIMIT_PER_ACCOUNT: 100 } }),
+      app: createApp({ db, files, config: { ...TEST_CONFIG, SIGN_IN_LIMIT_PER_ADDRESS: 2, SIGN_IN_LIMIT_PER_ACCOUNT: 100 } }),
     };
     {
       const emails = [DEMO.planner, DEMO.reviewer, DEMO.admin];

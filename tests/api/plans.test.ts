@@ -4,7 +4,7 @@ import type { Sequelize } from 'sequelize';
 import { createApp } from '@/server/app';
 import { startMailCatcher } from '@/server/mail/mail-catcher';
 import { createMailer, type Mailer } from '@/server/mail/mailer';
-import { createTestDatabase, TEST_CONFIG } from '@/tests/support/test-db';
+import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
 import { DEMO } from '@/tests/support/agents';
 
@@ -29,7 +29,7 @@ beforeAll(async () => {
   ({ db, drop } = await createTestDatabase());
   catcher = await startMailCatcher({ port: 0, onError: () => {} });
   mailer = createMailer({ host: '127.0.0.1', port: catcher.port, from: 'Kenning <no-reply@demo.kenning.test>' });
-  app = createApp({ db, config: TEST_CONFIG, mailer });
+  app = createApp({ db, config: TEST_CONFIG, mailer, files: scratchFileStore().files });
   [planner, reviewer, observer] = await Promise.all([agentFor(DEMO.planner), agentFor(DEMO.reviewer), agentFor(DEMO.observer)]);
   const sites = (await planner.get('/api/v1/sites')).body.items;
   const site = sites.find((s: { name: string }) => s.name === 'Harrowmere Forest District');

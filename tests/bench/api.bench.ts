@@ -10,7 +10,7 @@ import request from 'supertest';
 import { createApp } from '@/server/app';
 import { createDatabase } from '@/server/data/database';
 import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
-import { TEST_CONFIG } from '@/tests/support/test-db';
+import { scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 
 const BODY = JSON.stringify({
   observerHeightM: 30,
@@ -34,7 +34,7 @@ async function load(url: string, headers: Record<string, string>, seconds: numbe
 
 export async function benchApi(databaseUrl: string, seconds = 5) {
   const db = createDatabase(databaseUrl);
-  const app = createApp({ db, config: TEST_CONFIG });
+  const app = createApp({ db, config: TEST_CONFIG, files: scratchFileStore().files });
   const server = await listen(app);
   const bare = express();
   bare.post('/x', express.json(), (req, res) => res.json({ ok: true, n: Object.keys(req.body as object).length }));

@@ -1,8 +1,13 @@
 import { randomBytes } from 'node:crypto';
+import { mkdtempSync } from 'node:fs';
+import { rm } from 'node:fs/promises';
+import os from 'node:os';
+import path from 'node:path';
 import { Client } from 'pg';
 import type { Sequelize } from 'sequelize';
 import { createApp, type AppDeps } from '@/server/app';
 import { createDatabase } from '@/server/data/database';
+import { createDiskFileStore } from '@/server/storage/file-store';
 
 /**
  * A disposable database per test file, copied from the migrated and seeded
@@ -60,6 +65,12 @@ export const TEST_CONFIG: AppDeps['config'] = {
   CAUGHT_MAIL_URL: undefined,
 };
 
+/** A file store in a new temporary folder (remove `filesDir` when done). */
+export function scratchFileStore() {
+  const filesDir = mkdtempSync(path.join(os.tmpdir(), 'kenning-files-'));
+  return { files: createDiskFileStore(filesDir), filesDir };
+}
+
 /**
  * An app on a fresh database; call `close` in afterAll. Models are registered
  * on one Sequelize instance per process, so a test file opens one database and
@@ -67,6 +78,16 @@ export const TEST_CONFIG: AppDeps['config'] = {
  */
 export async function createTestApp(config: Partial<AppDeps['config']> = {}) {
   const database = await createTestDatabase();
-  const app = createApp({ db: database.db, config: { ...TEST_CONFIG, ...config } });
-  return { app, db: database.db, close: database.drop };
+  const { files, filesDir } = scratchFileStore();
+  const app = createApp({ db: database.db, config: { ...TEST_CONFIG, ...config }, files });
+  return {
+    app,
+    db: database.db,
+    files,
+    filesDir,
+    close: async () => {
+      await database.drop();
+      await rm(filesDir, { recursive: true, force: true });
+    },
+  };
 }
