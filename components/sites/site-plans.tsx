@@ -21,7 +21,7 @@ export function SitePlans({ siteId }: { siteId: string }) {
   const plans = usePlans({ siteId });
   if (plans.isPending) return <LoadingState label="Loading plans…" />;
   if (plans.isError) return <ErrorState error={plans.error} onRetry={() => void plans.refetch()} />;
-  if (plans.data.length === 0)
+  if (plans.data.items.length === 0)
     return (
       <EmptyState
         title="No plans yet"
@@ -30,7 +30,7 @@ export function SitePlans({ siteId }: { siteId: string }) {
     );
   return (
     <View style={{ gap: space.sm }}>
-      {plans.data.map((p) => (
+      {plans.data.items.map((p) => (
         <Card key={p.id} aria-label={p.title} style={{ gap: 2 }}>
           <View style={{ flexDirection: 'row', justifyContent: 'space-between', gap: space.sm, flexWrap: 'wrap' }}>
             <AppText variant="label">
@@ -41,8 +41,8 @@ export function SitePlans({ siteId }: { siteId: string }) {
             </AppText>
           </View>
           <AppText variant="small" tone="muted">
-            {plural(p.postIds.length, 'post')} · {plural(p.targetIds.length, 'target')} · standard ≥ {p.standard.minSeenPct} % seen, priority zones by
-            ≥ {p.standard.priorityMinPosts} · prepared by {p.preparedBy.name}
+            {plural(p.postIds.length, 'post')} · {plural(p.targetIds.length, 'target')} · standard ≥ {p.standard.minSeenPct} %
+            seen, priority zones by ≥ {p.standard.priorityMinPosts} · prepared by {p.preparedBy.name}
           </AppText>
         </Card>
       ))}

@@ -1,22 +1,26 @@
 import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { PLAN_STATUSES, PlanInputSchema, PlanUpdateSchema, ReviewInputSchema } from '@/shared/schemas/plan';
-import { createPlan, getPlan, listPlans, newPlanVersion, planHistory, planRevision, reviewPlan, submitPlan, updatePlan, type PlanDeps } from '@/server/domain/plans/manage-plans';
+import { PlanInputSchema, PlanListQuerySchema, PlanUpdateSchema, ReviewInputSchema } from '@/shared/schemas/plan';
+import {
+  createPlan,
+  getPlan,
+  listPlans,
+  previewPlan,
+  newPlanVersion,
+  planHistory,
+  planRevision,
+  reviewPlan,
+  submitPlan,
+  updatePlan,
+  type PlanDeps,
+} from '@/server/domain/plans/manage-plans';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 import type { Mailer } from '@/server/mail/mailer';
 
 const IdParams = z.object({ planId: z.uuid({ error: 'Not a plan id.' }) });
 const RevisionParams = IdParams.extend({ number: z.coerce.number().int().min(1, 'Revisions start at 1.') });
-const ListQuery = z.object({
-  siteId: z.uuid({ error: 'Not a site id.' }).optional(),
-  status: z
-    .string()
-    .transform((s) => s.split(','))
-    .pipe(z.array(z.enum(PLAN_STATUSES, { error: `Statuses: ${PLAN_STATUSES.join(', ')}.` })))
-    .optional(),
-});
 const SubmitBody = z.object({ rowVersion: z.number({ error: 'Send the version you last saw.' }).int() });
 
 /** Coverage plans: planners prepare and submit, reviewers approve or return, observers read approved ones. */
@@ -26,8 +30,7 @@ export function planRoutes(db: Sequelize, publicUrl: (req: Request) => string, m
   const planner = [requireUser, requireRole('planner')];
 
   router.get('/plans', requireUser, async (req, res) => {
-    const q = parseOrThrow(ListQuery, req.query, 'query');
-    res.json({ items: await listPlans(actorOf(req), { siteId: q.siteId, statuses: q.status }) });
+    res.json(await listPlans(actorOf(req), parseOrThrow(PlanListQuerySchema, req.query, 'query')));
   });
   router.post('/plans', ...planner, async (req, res) => {
     res.status(201).json({ plan: await createPlan(deps(req), actorOf(req), parseOrThrow(PlanInputSchema, req.body, 'plan')) });
@@ -35,6 +38,10 @@ export function planRoutes(db: Sequelize, publicUrl: (req: Request) => string, m
   router.get('/plans/:planId', requireUser, async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');
     res.json({ plan: await getPlan(actorOf(req), planId) });
+  });
+  router.get('/plans/:planId/preview', requireUser, async (req, res) => {
+    const { planId } = parseOrThrow(IdParams, req.params, 'address');
+    res.json({ snapshot: await previewPlan(actorOf(req), planId) });
   });
   router.patch('/plans/:planId', ...planner, async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');

@@ -1,7 +1,8 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { PageQuerySchema, PostInputSchema, PostUpdateSchema, SiteInputSchema, SiteUpdateSchema } from '@/shared/schemas/site';
+import { PageQuerySchema } from '@/shared/schemas/list';
+import { PostInputSchema, PostListQuerySchema, PostUpdateSchema, SiteInputSchema, SiteUpdateSchema } from '@/shared/schemas/site';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import {
   createPost,
@@ -49,7 +50,7 @@ export function siteRoutes(db: Sequelize) {
 
   router.get('/sites/:siteId/posts', requireUser, async (req, res) => {
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
-    res.json({ items: await listPosts(actorOf(req), siteId) });
+    res.json(await listPosts(actorOf(req), siteId, parseOrThrow(PostListQuerySchema, req.query, 'query')));
   });
   router.post('/sites/:siteId/posts', ...write, async (req, res) => {
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');

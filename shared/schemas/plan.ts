@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { listQuerySchema, pageOf } from './list';
 import { SightlineResultSchema } from './sightline';
 
 export const PLAN_STATUSES = ['draft', 'submitted', 'returned', 'approved', 'superseded'] as const;
@@ -12,7 +13,11 @@ export const PlanStandardSchema = z.object({
   priorityMinPosts: z.number().int().min(1, '1 to 3 posts.').max(3, '1 to 3 posts.'),
 });
 
-const ids = (what: string) => z.array(z.uuid({ error: `Not a ${what} id.` })).min(1, `Choose at least one ${what}.`).max(100);
+const ids = (what: string) =>
+  z
+    .array(z.uuid({ error: `Not a ${what} id.` }))
+    .min(1, `Choose at least one ${what}.`)
+    .max(100);
 
 export const PlanInputSchema = z.object({
   siteId: z.uuid({ error: 'Choose a site.' }),
@@ -46,9 +51,47 @@ export const PlanSchema = z.object({
   /** Optimistic-concurrency counter of the row. */
   rowVersion: z.number().int(),
   preparedBy: Person,
+  /** Name of the plan's site, for lists across sites. */
+  siteName: z.string(),
+  /** When the latest revision was submitted (ISO 8601), or null if never. */
+  submittedAt: z.string().nullable(),
   updatedAt: z.string(),
 });
 export type Plan = z.infer<typeof PlanSchema>;
+
+export const PLAN_SORTS = ['-updatedAt', 'updatedAt', 'title', '-title', 'submittedAt', '-submittedAt'] as const;
+
+/**
+ * Query of the plan list. `queue=review` is a reviewer's queue: submitted
+ * plans the caller did not prepare, longest waiting first.
+ */
+export const PlanListQuerySchema = listQuerySchema(PLAN_SORTS).extend({
+  siteId: z.uuid({ error: 'Not a site id.' }).optional(),
+  status: z
+    .string()
+    .transform((s) => s.split(','))
+    .pipe(z.array(z.enum(PLAN_STATUSES, { error: `Statuses: ${PLAN_STATUSES.join(', ')}.` })))
+    .optional(),
+  queue: z.enum(['review'], { error: 'The only queue is review.' }).optional(),
+});
+export type PlanListQuery = z.infer<typeof PlanListQuerySchema>;
+
+export const PlanListSchema = pageOf(PlanSchema);
+
+/** How much of a named priority zone a post reaches for one target under one condition. */
+export const ZoneReachSchema = z.object({
+  name: z.string(),
+  weight: z.number(),
+  /** Distance from the post to the zone's nearest point, metres (0 inside it). */
+  nearestM: z.number(),
+  /** Distance to the zone's farthest point, metres. */
+  farthestM: z.number(),
+  /** Share of the zone within the detection range and the post's sector, percent; null when the range is unknown. */
+  coveredPct: z.number().nullable(),
+  /** whole (≥ 99.5 %), part, none (< 0.5 %), or unknown (no detection range under this condition). */
+  reach: z.enum(['whole', 'part', 'none', 'unknown']),
+});
+export type ZoneReach = z.infer<typeof ZoneReachSchema>;
 
 /** One line of the frozen results: a post seeing a target under one condition. */
 export const PlanResultRowSchema = z.object({
@@ -61,7 +104,10 @@ export const PlanResultRowSchema = z.object({
   conditionIndex: z.number().int(),
   observerHeightM: z.number(),
   result: SightlineResultSchema,
+  /** The site's priority zones as seen from this post (smooth earth); empty in revisions made before zones were measured. */
+  zones: z.array(ZoneReachSchema).default([]),
 });
+export type PlanResultRow = z.infer<typeof PlanResultRowSchema>;
 
 export const PlanSnapshotSchema = z.object({
   assumptions: z.array(z.string()),
@@ -105,7 +151,12 @@ export const ReviewSchema = z.object({
 });
 
 /** Who prepared, reviewed and approved, with times. */
-export const SignatureSchema = z.object({ step: z.enum(['prepared', 'submitted', 'returned', 'approved']), person: Person, at: z.string(), revision: z.number().int().nullable() });
+export const SignatureSchema = z.object({
+  step: z.enum(['prepared', 'submitted', 'returned', 'approved']),
+  person: Person,
+  at: z.string(),
+  revision: z.number().int().nullable(),
+});
 
 export const PlanHistorySchema = z.object({
   revisions: z.array(PlanRevisionSchema.omit({ snapshot: true })),

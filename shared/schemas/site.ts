@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { LatLonSchema } from './coordinate';
+import { listQuerySchema, pageOf } from './list';
 
 export const SITE_KINDS = ['forest-district', 'coast-stretch', 'search-area'] as const;
 export const SiteKindSchema = z.enum(SITE_KINDS, { error: `Choose one of: ${SITE_KINDS.join(', ')}.` });
@@ -89,16 +90,7 @@ export const SiteUpdateSchema = SiteInputSchema.partial().extend({
   version: z.number({ error: 'Send the version you last saw.' }).int(),
 });
 
-/** One page of a list endpoint. */
-export const pageOf = <T extends z.ZodType>(item: T) =>
-  z.object({ items: z.array(item), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
-
 export const SiteListSchema = pageOf(SiteSummarySchema);
-
-export const PageQuerySchema = z.object({
-  page: z.coerce.number().int().min(1, 'Pages start at 1.').default(1),
-  pageSize: z.coerce.number().int().min(1).max(200, 'At most 200 per page.').default(50),
-});
 
 // ---------------------------------------------------------------- posts
 
@@ -162,4 +154,12 @@ export const PostUpdateSchema = PostInputSchema.partial().extend({
   version: z.number({ error: 'Send the version you last saw.' }).int(),
 });
 
-export const PostListSchema = z.object({ items: z.array(PostSchema) });
+export const POST_SORTS = ['name', '-name', 'kind', 'status', '-updatedAt'] as const;
+export const PostListQuerySchema = listQuerySchema(POST_SORTS).extend({
+  pageSize: z.coerce.number().int().min(1).max(500, 'At most 500 per page.').default(200),
+  kind: z.enum(POST_KINDS, { error: `Kinds: ${POST_KINDS.join(', ')}.` }).optional(),
+  status: z.enum(POST_STATUSES, { error: `Statuses: ${POST_STATUSES.join(', ')}.` }).optional(),
+});
+export type PostListQuery = z.infer<typeof PostListQuerySchema>;
+
+export const PostListSchema = pageOf(PostSchema);

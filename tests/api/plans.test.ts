@@ -70,6 +70,68 @@ describe('the demo scenario', () => {
   });
 });
 
+describe('plan lists', () => {
+  it('pages, sorts and searches; the review queue holds only other people’s submitted plans, longest waiting first', async () => {
+    const a = (
+      await planner
+        .post('/api/v1/plans')
+        .send({ ...body, title: 'Queue test Alpha' })
+        .expect(201)
+    ).body.plan;
+    const b = (
+      await planner
+        .post('/api/v1/plans')
+        .send({ ...body, title: 'Queue test Bravo' })
+        .expect(201)
+    ).body.plan;
+    await planner.post(`/api/v1/plans/${b.id}/submit`).send({ rowVersion: 0 }).expect(200);
+    await planner.post(`/api/v1/plans/${a.id}/submit`).send({ rowVersion: 0 }).expect(200);
+
+    const found = (await planner.get('/api/v1/plans?q=queue%20test&sort=title')).body;
+    expect(found.items.map((p: { title: string }) => p.title)).toEqual(['Queue test Alpha', 'Queue test Bravo']);
+    expect(found).toMatchObject({ total: 2, page: 1, pageSize: 50 });
+    expect(found.items[0]).toMatchObject({ siteName: 'Harrowmere Forest District', submittedAt: expect.any(String) });
+
+    const page2 = (await planner.get('/api/v1/plans?q=queue%20test&sort=-title&pageSize=1&page=2')).body;
+    expect(page2.items.map((p: { title: string }) => p.title)).toEqual(['Queue test Alpha']);
+
+    const queue = (await reviewer.get('/api/v1/plans?queue=review&sort=submittedAt')).body.items.map(
+      (p: { title: string }) => p.title,
+    );
+    expect(queue.indexOf('Queue test Bravo')).toBeLessThan(queue.indexOf('Queue test Alpha'));
+    expect(queue).toContain('Summer watch, Tallow Strand');
+    // Only reviewers have a queue; a wrong sort or status names the field.
+    expect((await planner.get('/api/v1/plans?queue=review')).status).toBe(403);
+    expect((await observer.get('/api/v1/plans?queue=review')).status).toBe(403);
+    const bad = await planner.get('/api/v1/plans?sort=colour&status=lost');
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['sort', 'status.0']));
+  });
+
+  it('previews the results a draft would freeze, with each priority zone measured from each post', async () => {
+    const { plan } = (
+      await planner
+        .post('/api/v1/plans')
+        .send({ ...body, title: 'Preview test' })
+        .expect(201)
+    ).body;
+    const { snapshot } = (await planner.get(`/api/v1/plans/${plan.id}/preview`).expect(200)).body;
+    expect(snapshot.results).toHaveLength(6);
+    for (const row of snapshot.results) {
+      expect(row.zones).toHaveLength(1);
+      const zone = row.zones[0];
+      expect(zone.name).toBe('Old-growth stand');
+      expect(zone.farthestM).toBeGreaterThan(zone.nearestM);
+      // The zone's share agrees with its distances and the detection range.
+      if (row.result.detectionRangeM >= zone.farthestM) expect(zone.reach).toBe('whole');
+      if (row.result.detectionRangeM < zone.nearestM) expect(zone.reach).toBe('none');
+    }
+    // Nothing was frozen by a preview.
+    expect((await planner.get(`/api/v1/plans/${plan.id}/revisions`)).body.revisions).toEqual([]);
+    expect((await observer.get(`/api/v1/plans/${plan.id}/preview`)).status).toBe(404);
+  });
+});
+
 describe('coverage plan review cycle', () => {
   it('runs draft → submitted → returned → resubmitted → approved, freezing each revision, with mail at each step', async () => {
     expect((await reviewer.post('/api/v1/plans').send(body)).status).toBe(403);
@@ -102,14 +164,18 @@ describe('coverage plan review cycle', () => {
     const noComment = await reviewer.post(`/api/v1/plans/${plan.id}/reviews`).send({ decision: 'return', revision: 1 });
     expect(noComment.status).toBe(400);
     expect(noComment.body.error.fields).toHaveProperty('comment');
-    const returned = await reviewer.post(`/api/v1/plans/${plan.id}/reviews`).send({ decision: 'return', comment: 'Add the proposed tower.', revision: 1 });
+    const returned = await reviewer
+      .post(`/api/v1/plans/${plan.id}/reviews`)
+      .send({ decision: 'return', comment: 'Add the proposed tower.', revision: 1 });
     expect(returned.status).toBe(201);
     expect(returned.body.plan.status).toBe('returned');
     const mail = await waitForMail(DEMO.planner, /Returned for changes/);
     expect(mail.text).toContain('Add the proposed tower.');
 
     const posts = (await planner.get(`/api/v1/sites/${body.siteId}/posts`)).body.items.map((p: { id: string }) => p.id);
-    const edited = await planner.patch(`/api/v1/plans/${plan.id}`).send({ postIds: posts, rowVersion: returned.body.plan.rowVersion });
+    const edited = await planner
+      .patch(`/api/v1/plans/${plan.id}`)
+      .send({ postIds: posts, rowVersion: returned.body.plan.rowVersion });
     expect(edited.status).toBe(200);
     const sub2 = await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: edited.body.plan.rowVersion });
     expect(sub2.body.revision).toBe(2);
@@ -126,15 +192,30 @@ describe('coverage plan review cycle', () => {
     expect(rev1Again.contentHash).toBe(rev1.contentHash);
 
     const history = (await observer.get(`/api/v1/plans/${plan.id}/revisions`)).body;
-    expect(history.signatures.map((s: { step: string }) => s.step)).toEqual(['prepared', 'submitted', 'returned', 'submitted', 'approved']);
-    expect(history.signatures.map((s: { person: { role: string } }) => s.person.role)).toEqual(['planner', 'planner', 'reviewer', 'planner', 'reviewer']);
+    expect(history.signatures.map((s: { step: string }) => s.step)).toEqual([
+      'prepared',
+      'submitted',
+      'returned',
+      'submitted',
+      'approved',
+    ]);
+    expect(history.signatures.map((s: { person: { role: string } }) => s.person.role)).toEqual([
+      'planner',
+      'planner',
+      'reviewer',
+      'planner',
+      'reviewer',
+    ]);
     expect(history.revisions.map((r: { number: number }) => r.number)).toEqual([1, 2]);
 
     // Changing an approved plan makes a new version; approving it supersedes the old one.
     const next = await planner.post(`/api/v1/plans/${plan.id}/versions`).send({});
     expect(next.body.plan).toMatchObject({ version: 2, previousId: plan.id, status: 'draft' });
     const s3 = await planner.post(`/api/v1/plans/${next.body.plan.id}/submit`).send({ rowVersion: 0 });
-    await reviewer.post(`/api/v1/plans/${next.body.plan.id}/reviews`).send({ decision: 'approve', revision: s3.body.revision }).expect(201);
+    await reviewer
+      .post(`/api/v1/plans/${next.body.plan.id}/reviews`)
+      .send({ decision: 'approve', revision: s3.body.revision })
+      .expect(201);
     expect((await planner.get(`/api/v1/plans/${plan.id}`)).body.plan.status).toBe('superseded');
   });
 
@@ -146,11 +227,16 @@ describe('coverage plan review cycle', () => {
     expect(res.body.error.fields).toHaveProperty(['targetIds.0']);
     const bad = await planner.post('/api/v1/plans').send({ siteId: 'nope', title: '', postIds: [] });
     expect(bad.status).toBe(400);
-    expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['siteId', 'title', 'postIds', 'targetIds', 'conditionSetIds']));
+    expect(Object.keys(bad.body.error.fields)).toEqual(
+      expect.arrayContaining(['siteId', 'title', 'postIds', 'targetIds', 'conditionSetIds']),
+    );
   });
 
-  it("keeps other organisations out (404) and stops stale edits (409)", async () => {
-    const { body: created } = await planner.post('/api/v1/plans').send({ ...body, title: 'Race' }).expect(201);
+  it('keeps other organisations out (404) and stops stale edits (409)', async () => {
+    const { body: created } = await planner
+      .post('/api/v1/plans')
+      .send({ ...body, title: 'Race' })
+      .expect(201);
     const other = await agentFor(DEMO.otherPlanner);
     expect((await other.get(`/api/v1/plans/${created.plan.id}`)).status).toBe(404);
     expect((await other.post(`/api/v1/plans/${created.plan.id}/submit`).send({ rowVersion: 0 })).status).toBe(404);

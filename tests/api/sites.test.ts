@@ -175,19 +175,65 @@ describe('posts of a site', () => {
     expect(await AuditEventModel.count({ where: { entityId: postId } })).toBe(3);
   });
 
+  it('pages, filters and sorts a site’s posts', async () => {
+    const { body } = await planner
+      .post('/api/v1/sites')
+      .send({ ...siteBody, name: 'Many posts' })
+      .expect(201);
+    const siteId = body.site.id;
+    for (const [name, kind, status] of [
+      ['Post C', 'tower', 'existing'],
+      ['Post A', 'shore-post', 'proposed'],
+      ['Post B', 'tower', 'proposed'],
+    ] as const) {
+      await planner
+        .post(`/api/v1/sites/${siteId}/posts`)
+        .send({ ...postBody, name, kind, status })
+        .expect(201);
+    }
+    const names = (res: request.Response) => res.body.items.map((p: { name: string }) => p.name);
+    const all = await planner.get(`/api/v1/sites/${siteId}/posts`).expect(200);
+    expect(names(all)).toEqual(['Post A', 'Post B', 'Post C']);
+    expect(all.body).toMatchObject({ total: 3, page: 1, pageSize: 200 });
+    expect(names(await planner.get(`/api/v1/sites/${siteId}/posts?sort=-name&pageSize=2`))).toEqual(['Post C', 'Post B']);
+    expect(names(await planner.get(`/api/v1/sites/${siteId}/posts?kind=tower&status=proposed`))).toEqual(['Post B']);
+    expect(names(await planner.get(`/api/v1/sites/${siteId}/posts?q=t%20a`))).toEqual(['Post A']);
+    // LIKE wildcards in the search text are taken literally.
+    expect(names(await planner.get(`/api/v1/sites/${siteId}/posts?q=%25`))).toEqual([]);
+    const bad = await planner.get(`/api/v1/sites/${siteId}/posts?sort=height&kind=balloon&pageSize=9999`);
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['sort', 'kind', 'pageSize']));
+  });
+
+  it('refuses to delete a site with an approved plan, and deletes one without', async () => {
+    const demo = await SiteModel.findOne({ where: { name: 'Harrowmere Forest District' } });
+    const refused = await planner.delete(`/api/v1/sites/${demo!.id}`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error).toMatchObject({
+      code: 'site_has_approved_plans',
+      message: expect.stringMatching(/approved plan/),
+    });
+    expect((await planner.get(`/api/v1/sites/${demo!.id}`)).status).toBe(200);
+
+    const { body } = await planner
+      .post('/api/v1/sites')
+      .send({ ...siteBody, name: 'Short-lived' })
+      .expect(201);
+    await planner.delete(`/api/v1/sites/${body.site.id}`).expect(204);
+    expect((await planner.get(`/api/v1/sites/${body.site.id}`)).status).toBe(404);
+  });
+
   it('answers bad post input with field errors and writes nothing', async () => {
     const site = await SiteModel.findOne({ where: { name: 'Test district A' } });
     const before = await PostModel.count();
-    const res = await planner
-      .post(`/api/v1/sites/${site!.id}/posts`)
-      .send({
-        name: 'Bad',
-        kind: 'balloon',
-        location: { latDeg: 95, lonDeg: 0 },
-        groundElevationM: 'high',
-        eyeHeightM: -1,
-        sector: { fromDeg: 400, toDeg: 10 },
-      });
+    const res = await planner.post(`/api/v1/sites/${site!.id}/posts`).send({
+      name: 'Bad',
+      kind: 'balloon',
+      location: { latDeg: 95, lonDeg: 0 },
+      groundElevationM: 'high',
+      eyeHeightM: -1,
+      sector: { fromDeg: 400, toDeg: 10 },
+    });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields)).toEqual(
       expect.arrayContaining(['kind', 'location.latDeg', 'groundElevationM', 'eyeHeightM', 'sector.fromDeg']),

@@ -1,17 +1,50 @@
-import { Op, type Transaction } from 'sequelize';
-import type { Plan, PlanInput, PlanRevision, PlanSnapshot, PlanStatus } from '@/shared/schemas/plan';
-import { PlanModel, PlanReviewModel, PlanRevisionModel, UserModel } from '../models';
+import { col, fn, literal, Op, type Transaction } from 'sequelize';
+import { sortOrder } from '@/shared/schemas/list';
+import type { Plan, PlanInput, PlanListQuery, PlanRevision, PlanSnapshot, PlanStatus } from '@/shared/schemas/plan';
+import { PlanModel, PlanReviewModel, PlanRevisionModel, SiteModel, UserModel } from '../models';
+import { containsText } from './like-pattern';
 
 type Person = { id: string; name: string; role: string };
 
 async function people(ids: string[], transaction?: Transaction): Promise<Map<string, Person>> {
-  const rows = await UserModel.findAll({ where: { id: [...new Set(ids)] }, attributes: ['id', 'name', 'role'], raw: true, transaction });
+  const rows = await UserModel.findAll({
+    where: { id: [...new Set(ids)] },
+    attributes: ['id', 'name', 'role'],
+    raw: true,
+    transaction,
+  });
   return new Map(rows.map((r) => [r.id, { id: r.id, name: r.name, role: r.role }]));
 }
 const someone = (map: Map<string, Person>, id: string): Person => map.get(id) ?? { id, name: 'former user', role: 'unknown' };
 
+/** When each plan's latest revision was submitted, for lists and the review queue. */
+const SUBMITTED_AT = literal('(SELECT max(r.created_at) FROM plan_revisions r WHERE r.plan_id = "PlanModel"."id")');
+
 async function toPlans(rows: PlanModel[], transaction?: Transaction): Promise<Plan[]> {
-  const who = await people(rows.map((r) => r.preparedById), transaction);
+  if (rows.length === 0) return [];
+  const ids = rows.map((r) => r.id);
+  const [who, sites, submitted] = await Promise.all([
+    people(
+      rows.map((r) => r.preparedById),
+      transaction,
+    ),
+    SiteModel.findAll({
+      where: { id: [...new Set(rows.map((r) => r.siteId))] },
+      attributes: ['id', 'name'],
+      paranoid: false,
+      raw: true,
+      transaction,
+    }),
+    PlanRevisionModel.findAll({
+      where: { planId: ids },
+      attributes: ['planId', [fn('max', col('created_at')), 'at']],
+      group: ['planId'],
+      raw: true,
+      transaction,
+    }) as unknown as Promise<{ planId: string; at: Date }[]>,
+  ]);
+  const siteName = new Map(sites.map((x) => [x.id, x.name]));
+  const submittedAt = new Map(submitted.map((x) => [x.planId, new Date(x.at).toISOString()]));
   return rows.map((r) => ({
     id: r.id,
     siteId: r.siteId,
@@ -25,35 +58,74 @@ async function toPlans(rows: PlanModel[], transaction?: Transaction): Promise<Pl
     previousId: r.previousId,
     rowVersion: r.rowVersion,
     preparedBy: someone(who, r.preparedById),
+    siteName: siteName.get(r.siteId) ?? 'removed site',
+    submittedAt: submittedAt.get(r.id) ?? null,
     updatedAt: r.updatedAt.toISOString(),
   }));
 }
 
 export const plansRepository = {
-  async list(organizationId: string, filter: { statuses?: PlanStatus[]; siteId?: string }): Promise<Plan[]> {
-    const rows = await PlanModel.findAll({
+  /** One page of the organisation's plans; `notPreparedBy` leaves out one person's own plans (a reviewer's queue). */
+  async page(
+    organizationId: string,
+    query: Omit<PlanListQuery, 'status' | 'queue'> & { statuses?: PlanStatus[]; notPreparedBy?: string },
+  ) {
+    const [field, direction] = sortOrder(query.sort);
+    const { rows, count } = await PlanModel.findAndCountAll({
       where: {
         organizationId,
-        ...(filter.statuses && { status: { [Op.in]: filter.statuses } }),
-        ...(filter.siteId && { siteId: filter.siteId }),
+        ...(query.statuses && { status: { [Op.in]: query.statuses } }),
+        ...(query.siteId && { siteId: query.siteId }),
+        ...(query.notPreparedBy && { preparedById: { [Op.ne]: query.notPreparedBy } }),
+        ...(query.q && { title: containsText(query.q) }),
       },
-      order: [['updatedAt', 'DESC']],
+      order: [
+        [field === 'submittedAt' ? SUBMITTED_AT : field, direction],
+        ['id', 'ASC'],
+      ],
+      limit: query.pageSize,
+      offset: (query.page - 1) * query.pageSize,
     });
-    return toPlans(rows);
+    return { items: await toPlans(rows), total: count, page: query.page, pageSize: query.pageSize };
+  },
+
+  async countInSite(siteId: string, statuses: PlanStatus[], transaction?: Transaction): Promise<number> {
+    return PlanModel.count({ where: { siteId, status: { [Op.in]: statuses } }, transaction });
   },
 
   async find(organizationId: string, id: string, transaction?: Transaction): Promise<Plan | null> {
-    const row = await PlanModel.findOne({ where: { id, organizationId }, transaction, ...(transaction && { lock: transaction.LOCK.UPDATE }) });
+    const row = await PlanModel.findOne({
+      where: { id, organizationId },
+      transaction,
+      ...(transaction && { lock: transaction.LOCK.UPDATE }),
+    });
     return row ? (await toPlans([row], transaction))[0]! : null;
   },
 
-  async create(organizationId: string, preparedById: string, input: PlanInput & { version?: number; previousId?: string | null }, transaction: Transaction): Promise<Plan> {
-    const row = await PlanModel.create({ ...input, organizationId, preparedById, previousId: input.previousId ?? null }, { transaction });
+  async create(
+    organizationId: string,
+    preparedById: string,
+    input: PlanInput & { version?: number; previousId?: string | null },
+    transaction: Transaction,
+  ): Promise<Plan> {
+    const row = await PlanModel.create(
+      { ...input, organizationId, preparedById, previousId: input.previousId ?? null },
+      { transaction },
+    );
     return (await toPlans([row], transaction))[0]!;
   },
 
-  async updateIfRowVersion(organizationId: string, id: string, rowVersion: number, changes: Partial<PlanInput> & { status?: PlanStatus }, transaction: Transaction): Promise<Plan | null> {
-    const [count] = await PlanModel.update({ ...changes, rowVersion: rowVersion + 1 }, { where: { id, organizationId, rowVersion }, transaction });
+  async updateIfRowVersion(
+    organizationId: string,
+    id: string,
+    rowVersion: number,
+    changes: Partial<PlanInput> & { status?: PlanStatus },
+    transaction: Transaction,
+  ): Promise<Plan | null> {
+    const [count] = await PlanModel.update(
+      { ...changes, rowVersion: rowVersion + 1 },
+      { where: { id, organizationId, rowVersion }, transaction },
+    );
     return count === 1 ? this.find(organizationId, id, transaction) : null;
   },
 
@@ -62,14 +134,23 @@ export const plansRepository = {
     await PlanModel.update({ status }, { where: { id }, transaction });
   },
 
-  async addRevision(planId: string, submittedById: string, snapshot: PlanSnapshot, hash: string, transaction: Transaction): Promise<number> {
+  async addRevision(
+    planId: string,
+    submittedById: string,
+    snapshot: PlanSnapshot,
+    hash: string,
+    transaction: Transaction,
+  ): Promise<number> {
     const last = (await PlanRevisionModel.max('number', { where: { planId }, transaction })) as number | null;
     const number = (last ?? 0) + 1;
     await PlanRevisionModel.create({ planId, number, contentHash: hash, snapshot, submittedById }, { transaction });
     return number;
   },
 
-  async revisions(planId: string, withSnapshot: boolean): Promise<(Omit<PlanRevision, 'snapshot'> & { snapshot?: PlanSnapshot })[]> {
+  async revisions(
+    planId: string,
+    withSnapshot: boolean,
+  ): Promise<(Omit<PlanRevision, 'snapshot'> & { snapshot?: PlanSnapshot })[]> {
     const rows = await PlanRevisionModel.findAll({
       where: { planId },
       order: [['number', 'ASC']],
@@ -89,18 +170,32 @@ export const plansRepository = {
     return ((await PlanRevisionModel.max('number', { where: { planId }, transaction })) as number | null) ?? null;
   },
 
-  async addReview(planId: string, review: { revision: number; decision: 'approve' | 'return'; comment: string; reviewerId: string }, transaction: Transaction) {
+  async addReview(
+    planId: string,
+    review: { revision: number; decision: 'approve' | 'return'; comment: string; reviewerId: string },
+    transaction: Transaction,
+  ) {
     await PlanReviewModel.create({ planId, ...review }, { transaction });
   },
 
   async reviews(planId: string) {
     const rows = await PlanReviewModel.findAll({ where: { planId }, order: [['createdAt', 'ASC']] });
     const who = await people(rows.map((r) => r.reviewerId));
-    return rows.map((r) => ({ revision: r.revision, decision: r.decision, comment: r.comment, reviewer: someone(who, r.reviewerId), at: r.createdAt.toISOString() }));
+    return rows.map((r) => ({
+      revision: r.revision,
+      decision: r.decision,
+      comment: r.comment,
+      reviewer: someone(who, r.reviewerId),
+      at: r.createdAt.toISOString(),
+    }));
   },
 
   async reviewerEmails(organizationId: string): Promise<string[]> {
-    const rows = await UserModel.findAll({ where: { organizationId, role: 'reviewer', active: true }, attributes: ['email'], raw: true });
+    const rows = await UserModel.findAll({
+      where: { organizationId, role: 'reviewer', active: true },
+      attributes: ['email'],
+      raw: true,
+    });
     return rows.map((r) => r.email);
   },
 

@@ -1,6 +1,8 @@
 import type { Transaction } from 'sequelize';
-import type { Post, PostInput } from '@/shared/schemas/site';
+import { sortOrder } from '@/shared/schemas/list';
+import type { Post, PostInput, PostListQuery } from '@/shared/schemas/site';
 import { PostModel } from '../models';
+import { containsText } from './like-pattern';
 
 function toPost(row: PostModel): Post {
   const [lonDeg, latDeg] = row.location.coordinates;
@@ -36,6 +38,28 @@ export const postsRepository = {
   async listInSite(organizationId: string, siteId: string): Promise<Post[]> {
     const rows = await PostModel.findAll({ where: { organizationId, siteId }, order: [['name', 'ASC']] });
     return rows.map(toPost);
+  },
+
+  /** One page of a site's posts, filtered and sorted as asked; ties broken by name, then id. */
+  async pageInSite(organizationId: string, siteId: string, query: PostListQuery) {
+    const [field, direction] = sortOrder(query.sort);
+    const { rows, count } = await PostModel.findAndCountAll({
+      where: {
+        organizationId,
+        siteId,
+        ...(query.kind && { kind: query.kind }),
+        ...(query.status && { status: query.status }),
+        ...(query.q && { name: containsText(query.q) }),
+      },
+      order: [
+        [field, direction],
+        ['name', 'ASC'],
+        ['id', 'ASC'],
+      ],
+      limit: query.pageSize,
+      offset: (query.page - 1) * query.pageSize,
+    });
+    return { items: rows.map(toPost), total: count, page: query.page, pageSize: query.pageSize };
   },
 
   async findInSite(organizationId: string, siteId: string, id: string, transaction?: Transaction): Promise<Post | null> {

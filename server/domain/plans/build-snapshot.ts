@@ -1,6 +1,8 @@
 import { createHash } from 'node:crypto';
 import type { ConditionSet, Target } from '@/shared/schemas/library';
-import type { PlanSnapshot } from '@/shared/schemas/plan';
+import type { PlanSnapshot, ZoneReach } from '@/shared/schemas/plan';
+import { projectAzimuthalEquidistant } from '@/shared/geo/azimuthal-equidistant';
+import { ringReach } from '@/shared/geo/ring-reach';
 import type { RefractionCondition } from '@/shared/schemas/sightline';
 import type { Post, Site } from '@/shared/schemas/site';
 import { evaluateSightline } from '@/shared/sightline/evaluate-sightline';
@@ -10,6 +12,7 @@ export const SNAPSHOT_ASSUMPTIONS = [
   'Height of eye = ground elevation + structure height + eye height above the platform.',
   'Targets stand at the datum; a target is detected when its required top part shows and the visibility and angular-size limits allow.',
   'Refraction is uniform along each sightline under each condition.',
+  'Priority zones: the share of each zone within the detection range and the post’s viewing sector, on the smooth earth (terrain that hides ground is not counted).',
 ];
 
 /**
@@ -28,6 +31,19 @@ export function buildSnapshot(input: {
   const results: PlanSnapshot['results'] = [];
   for (const post of input.posts) {
     const observerHeightM = Math.max(0, post.groundElevationM + post.structureHeightM + post.eyeHeightM);
+    const zoneRings = input.site.priorityZones.map((z) =>
+      projectAzimuthalEquidistant(
+        post.location,
+        z.ring.map(([lonDeg, latDeg]) => ({ latDeg, lonDeg })),
+      ),
+    );
+    const zonesFor = (rangeM: number | null): ZoneReach[] =>
+      input.site.priorityZones.map((z, i) => {
+        const { nearestM, farthestM, coveredShare } = ringReach(zoneRings[i]!, rangeM ?? 0, post.sector);
+        const pct = rangeM === null ? null : Math.round(coveredShare * 1000) / 10;
+        const reach = pct === null ? 'unknown' : pct >= 99.5 ? 'whole' : pct >= 0.5 ? 'part' : 'none';
+        return { name: z.name, weight: z.weight, nearestM, farthestM, coveredPct: pct, reach };
+      });
     for (const target of input.targets) {
       for (const set of input.conditionSets) {
         const response = evaluateSightline({
@@ -50,6 +66,7 @@ export function buildSnapshot(input: {
             conditionIndex,
             observerHeightM,
             result,
+            zones: zonesFor(result.detectionRangeM),
           }),
         );
       }

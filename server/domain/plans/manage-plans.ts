@@ -1,5 +1,5 @@
 import type { Sequelize, Transaction } from 'sequelize';
-import type { Plan, PlanInput, PlanStatus } from '@/shared/schemas/plan';
+import type { Plan, PlanInput, PlanListQuery, PlanSnapshot, PlanStatus } from '@/shared/schemas/plan';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
 import { plansRepository } from '@/server/data/repositories/plans-repository';
@@ -21,10 +21,18 @@ export interface PlanDeps {
   planUrl: (planId: string) => string;
 }
 
-/** Observers see approved plans only; everyone else sees all of their organisation's. */
-export function listPlans(actor: Actor, filter: { siteId?: string; statuses?: PlanStatus[] }) {
-  const statuses = actor.role === 'observer' ? ['approved' as const] : filter.statuses;
-  return plansRepository.list(actor.organizationId, { ...filter, statuses });
+/**
+ * Observers see approved plans only; everyone else sees all of their
+ * organisation's. The review queue holds the submitted plans someone else prepared.
+ */
+export function listPlans(actor: Actor, query: PlanListQuery) {
+  const { status, queue, ...rest } = query;
+  if (queue === 'review') {
+    if (actor.role !== 'reviewer') throw AppError.forbidden('Only reviewers have a review queue.');
+    return plansRepository.page(actor.organizationId, { ...rest, statuses: ['submitted'], notPreparedBy: actor.userId });
+  }
+  const statuses = actor.role === 'observer' ? (['approved'] as PlanStatus[]) : status;
+  return plansRepository.page(actor.organizationId, { ...rest, statuses });
 }
 
 export async function getPlan(actor: Actor, id: string): Promise<Plan> {
@@ -57,6 +65,16 @@ async function loadInputs(
     targets: pick(targets, p.targetIds, 'targetIds', 'target in your library'),
     conditionSets: pick(sets, p.conditionSetIds, 'conditionSetIds', 'condition set in your library'),
   };
+}
+
+/**
+ * The results a plan would freeze if it were submitted now: the same
+ * snapshot, computed from today's posts, targets and conditions, not stored.
+ */
+export async function previewPlan(actor: Actor, id: string): Promise<PlanSnapshot> {
+  const plan = await getPlan(actor, id);
+  const inputs = await loadInputs(actor, plan);
+  return buildSnapshot({ title: plan.title, standard: plan.standard, ...inputs });
 }
 
 export function createPlan({ db }: PlanDeps, actor: Actor, input: PlanInput): Promise<Plan> {

@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize';
-import type { Post, PostInput, Site, SiteInput } from '@/shared/schemas/site';
+import type { Post, PostInput, PostListQuery, Site, SiteInput } from '@/shared/schemas/site';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
+import { plansRepository } from '@/server/data/repositories/plans-repository';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import { AppError } from '@/server/http/app-error';
@@ -39,19 +40,26 @@ export function updateSite(
   });
 }
 
-/** Soft delete: the site leaves the lists, its history stays. (Sites with approved plans will be refused once plans exist.) */
+/** Soft delete: the site leaves the lists, its history stays. A site with an approved plan is kept. */
 export function deleteSite(db: Sequelize, actor: Actor, id: string): Promise<void> {
   return db.transaction(async (t) => {
     const before = await sitesRepository.findInOrganization(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That site');
+    const approved = await plansRepository.countInSite(id, ['approved'], t);
+    if (approved > 0) {
+      throw AppError.conflict(
+        `This site has ${approved === 1 ? 'an approved plan' : `${approved} approved plans`} that lookouts work to, so it cannot be deleted.`,
+        'site_has_approved_plans',
+      );
+    }
     await sitesRepository.softDelete(actor.organizationId, id, t);
     await auditRepository.record(actor, { action: 'delete', entityType: 'site', entityId: id, before }, t);
   });
 }
 
-export async function listPosts(actor: Actor, siteId: string): Promise<Post[]> {
+export async function listPosts(actor: Actor, siteId: string, query: PostListQuery) {
   await getSite(actor, siteId);
-  return postsRepository.listInSite(actor.organizationId, siteId);
+  return postsRepository.pageInSite(actor.organizationId, siteId, query);
 }
 
 export function createPost(db: Sequelize, actor: Actor, siteId: string, input: PostInput): Promise<Post> {
