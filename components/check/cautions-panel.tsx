@@ -1,9 +1,8 @@
-import type { SightlineCaution } from '@/shared/schemas/sightline';
 import { AppText } from '@/components/ui/app-text';
 import { Notice } from '@/components/ui/states';
 
 /** The standing cautions; always shown with any result. */
-export function CautionsPanel({ cautions }: { cautions: SightlineCaution[] }) {
+export function CautionsPanel({ cautions }: { cautions: readonly { code: string; message: string }[] }) {
   return (
     <Notice tone="caution" title="Read before you rely on this">
       {cautions.map((c) => (

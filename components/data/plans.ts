@@ -84,7 +84,7 @@ export const usePlanRevision = (id: string, n: number | null) =>
 const PlanBody = z.object({ plan: PlanSchema });
 
 /** Every plan write: store the plan it returns and refresh lists and the plan's own queries. */
-function usePlanMutation<V>(mutationFn: (vars: V) => Promise<{ plan: Plan }>) {
+function usePlanMutation<V, R extends { plan: Plan }>(mutationFn: (vars: V) => Promise<R>) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn,

@@ -1,10 +1,10 @@
 import { useState } from 'react';
 import { View } from 'react-native';
 import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema } from '@/shared/schemas/library';
-import { refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import { Segmented } from '@/components/check/unit-switch';
 import { useConditionSets, useCreateTarget, useTargets } from '@/components/data/library';
 import { useSession } from '@/components/data/session';
+import { describeCondition } from './describe-condition';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -13,15 +13,6 @@ import { EmptyState, ErrorState, FormError, LoadingState } from '@/components/ui
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
-
-const describeCondition = (c: Record<string, number | string>) =>
-  typeof c.preset === 'string'
-    ? refractionPreset(c.preset as RefractionPresetId).label
-    : typeof c.k === 'number'
-      ? `k = ${c.k}`
-      : Object.entries(c)
-          .map(([k, v]) => `${k} ${v}`)
-          .join(', ');
 
 /** The organisation's targets and condition sets, used by every coverage plan. */
 export function LibraryScreen() {

@@ -1,6 +1,6 @@
 import type { Href } from 'expo-router';
 import type { Role } from '@/shared/schemas/auth';
-import { LibraryIcon, MailIcon, PeopleIcon, PersonIcon, SightlineIcon, TowerIcon, type IconProps } from '@/components/ui/icons';
+import { LibraryIcon, MailIcon, PeopleIcon, PersonIcon, PlanIcon, SightlineIcon, TowerIcon, type IconProps } from '@/components/ui/icons';
 
 export interface NavItem {
   href: Href;
@@ -14,7 +14,8 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { href: '/', match: '/', label: 'Sites', Icon: TowerIcon },
   { href: '/check', match: '/check', label: 'Quick check', Icon: SightlineIcon },
-  { href: '/library', match: '/library', label: 'Library', Icon: LibraryIcon, roles: ['planner', 'reviewer', 'observer'] },
+  { href: '/plans', match: '/plans', label: 'Plans', Icon: PlanIcon, roles: ['planner', 'reviewer', 'observer'] },
+  { href: '/library', match: '/library', label: 'Library', Icon: LibraryIcon, roles: ['planner', 'reviewer'] },
   { href: '/admin/users', match: '/admin/users', label: 'Users', Icon: PeopleIcon, roles: ['admin'] },
   { href: '/admin/mail', match: '/admin/mail', label: 'Mail', Icon: MailIcon, roles: ['admin'] },
   { href: '/account', match: '/account', label: 'Account', Icon: PersonIcon },

@@ -106,6 +106,28 @@ export function LibraryIcon(p: IconProps) {
   );
 }
 
+/** Plans: a folded sheet with two sight lines crossing on it. */
+export function PlanIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Path d="M5 3h10l4 4v14H5z" />
+      <Line x1="8" y1="17" x2="16" y2="10" />
+      <Line x1="8" y1="10" x2="16" y2="17" />
+    </Frame>
+  );
+}
+
+/** Briefing: a post's flag over a horizon arc. */
+export function BriefingIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Path d="M3 20c4-3 14-3 18 0" />
+      <Line x1="9" y1="18" x2="9" y2="4" />
+      <Path d="M9 4h9l-2.5 3L18 10H9" />
+    </Frame>
+  );
+}
+
 /** Mail: an envelope whose flap is a horizon line. */
 export function MailIcon(p: IconProps) {
   return (

@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import { canonicalJson } from '@/shared/plans/canonical-json';
 import type { ConditionSet, Target } from '@/shared/schemas/library';
 import type { PlanSnapshot, ZoneReach } from '@/shared/schemas/plan';
 import { projectAzimuthalEquidistant } from '@/shared/geo/azimuthal-equidistant';
@@ -85,18 +86,6 @@ export function buildSnapshot(input: {
     results,
     cautions,
   };
-}
-
-/** JSON with object keys sorted, so equal content always hashes the same. */
-export function canonicalJson(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`;
-  if (value && typeof value === 'object') {
-    const entries = Object.entries(value as Record<string, unknown>)
-      .filter(([, v]) => v !== undefined)
-      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
-    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
-  }
-  return JSON.stringify(value);
 }
 
 export const contentHash = (snapshot: PlanSnapshot) => createHash('sha256').update(canonicalJson(snapshot)).digest('hex');

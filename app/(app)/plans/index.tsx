@@ -1,0 +1,5 @@
+import { PlansScreen } from '@/components/plans/plans-screen';
+
+export default function PlansRoute() {
+  return <PlansScreen />;
+}

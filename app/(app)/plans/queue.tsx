@@ -1,0 +1,5 @@
+import { ReviewQueue } from '@/components/plans/review-queue';
+
+export default function ReviewQueueRoute() {
+  return <ReviewQueue />;
+}

@@ -1,0 +1,154 @@
+import { useRouter } from 'expo-router';
+import { useState } from 'react';
+import { View } from 'react-native';
+import type { Plan, PlanSnapshot } from '@/shared/schemas/plan';
+import { useNewPlanVersion, usePlan, usePlanHistory, usePlanPreview, usePlanRevision, useSubmitPlan } from '@/components/data/plans';
+import { useSession } from '@/components/data/session';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Screen } from '@/components/ui/screen';
+import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/states';
+import { space } from '@/components/ui/theme';
+import { useLayout } from '@/components/ui/use-layout';
+import { PlanResults } from './plan-results';
+import { AssumptionsPanel, InputsPanel, SnapshotCautions } from './plan-snapshot-panels';
+import { PlanStatusBadge } from './plan-status';
+import { when } from './when';
+
+const EDITABLE = new Set(['draft', 'returned']);
+
+/** A plan's page: status, what to do next, and its results (frozen once submitted). */
+export function PlanOverview({ planId }: { planId: string }) {
+  const plan = usePlan(planId);
+  const history = usePlanHistory(planId);
+  if (plan.isPending) return <LoadingState label="Loading the plan…" />;
+  if (plan.isError) return <ErrorState error={plan.error} onRetry={() => void plan.refetch()} />;
+  const latest = history.data?.revisions.at(-1)?.number ?? null;
+  return <PlanPage plan={plan.data} latestRevision={latest} history={history.data} />;
+}
+
+function PlanPage({
+  plan,
+  latestRevision,
+  history,
+}: {
+  plan: Plan;
+  latestRevision: number | null;
+  history: ReturnType<typeof usePlanHistory>['data'];
+}) {
+  const router = useRouter();
+  const { data: user } = useSession();
+  const { wide } = useLayout();
+  const editable = EDITABLE.has(plan.status);
+  const preview = usePlanPreview(plan.id, editable);
+  const frozen = usePlanRevision(plan.id, editable ? null : latestRevision);
+  const submit = useSubmitPlan(plan.id);
+  const newVersion = useNewPlanVersion(plan.id);
+  const [notice, setNotice] = useState('');
+  const [error, setError] = useState('');
+  const isPlanner = user?.role === 'planner';
+  const canReview = user?.role === 'reviewer' && plan.status === 'submitted' && plan.preparedBy.id !== user.id;
+  const lastReview = history?.reviews.at(-1);
+
+  const snapshot: PlanSnapshot | undefined = editable ? preview.data : frozen.data?.snapshot;
+  const results = editable ? preview : frozen;
+
+  const onSubmit = () => {
+    setError('');
+    submit.mutate(plan.rowVersion, {
+      onSuccess: (r) =>
+        setNotice(
+          `Revision ${r.revision} is frozen and waiting for review.${r.mailed ? ' The reviewers were e-mailed.' : ' No e-mail went out; tell the reviewers.'}`,
+        ),
+      onError: (e) => setError(e.message),
+    });
+  };
+  const onNewVersion = () =>
+    newVersion.mutate(undefined, {
+      onSuccess: (r) => router.navigate({ pathname: '/plans/[planId]', params: { planId: r.plan.id } }),
+      onError: (e) => setError(e.message),
+    });
+
+  return (
+    <Screen
+      title={`${plan.title} · v${plan.version}`}
+      subtitle={`${plan.siteName} · prepared by ${plan.preparedBy.name} · updated ${when(plan.updatedAt)}`}
+      actions={<PlanStatusBadge status={plan.status} />}
+    >
+      <FormError message={error} />
+      {notice ? (
+        <Notice tone="info" title="Submitted">
+          <AppText>{notice}</AppText>
+        </Notice>
+      ) : null}
+      {plan.status === 'returned' && lastReview ? (
+        <Notice tone="danger" title={`Returned by ${lastReview.reviewer.name} · ${when(lastReview.at)}`}>
+          <AppText>{lastReview.comment}</AppText>
+        </Notice>
+      ) : null}
+      {plan.status === 'superseded' ? (
+        <Notice tone="caution" title="Superseded">
+          <AppText>A newer approved version of this plan replaces it. It stays on record as it was approved.</AppText>
+        </Notice>
+      ) : null}
+
+      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+        {isPlanner && editable ? (
+          <>
+            <Button
+              label="Edit"
+              kind="secondary"
+              onPress={() => router.navigate({ pathname: '/plans/[planId]/edit', params: { planId: plan.id } })}
+            />
+            <Button label="Submit for review" onPress={onSubmit} busy={submit.isPending} />
+          </>
+        ) : null}
+        {isPlanner && plan.status === 'approved' ? (
+          <Button label="Start a new version" kind="secondary" onPress={onNewVersion} busy={newVersion.isPending} />
+        ) : null}
+        {canReview ? (
+          <Button label="Review this plan" onPress={() => router.navigate({ pathname: '/plans/[planId]/review', params: { planId: plan.id } })} />
+        ) : null}
+        <Button
+          label="History and signatures"
+          kind="quiet"
+          onPress={() => router.navigate({ pathname: '/plans/[planId]/history', params: { planId: plan.id } })}
+        />
+        <Button
+          label="Site"
+          kind="quiet"
+          onPress={() => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: plan.siteId } })}
+        />
+      </View>
+
+      <Card accent={editable ? 'none' : 'moss'} style={{ gap: space.xs }}>
+        <AppText variant="heading">{editable ? 'Results from today’s inputs' : `Results frozen in revision ${latestRevision ?? '—'}`}</AppText>
+        <AppText variant="small" tone="muted">
+          {editable
+            ? 'Not frozen yet: these figures follow any change to the posts, targets or conditions until the plan is submitted.'
+            : frozen.data
+              ? `Submitted by ${frozen.data.submittedBy.name} · ${when(frozen.data.submittedAt)} · content hash ${frozen.data.contentHash.slice(0, 12)}…`
+              : 'Loading the frozen revision…'}
+        </AppText>
+      </Card>
+
+      {results.isPending && (editable || latestRevision !== null) ? (
+        <LoadingState label="Computing the results…" />
+      ) : results.isError ? (
+        <ErrorState error={results.error} onRetry={() => void results.refetch()} />
+      ) : snapshot ? (
+        <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
+          <View style={{ flex: wide ? 3 : undefined, width: wide ? undefined : '100%', gap: space.lg }}>
+            <SnapshotCautions snapshot={snapshot} />
+            <PlanResults snapshot={snapshot} units={(snapshot.inputs.site.defaultUnits as 'metric' | undefined) ?? 'metric'} />
+          </View>
+          <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%', gap: space.lg }}>
+            <InputsPanel snapshot={snapshot} />
+            <AssumptionsPanel snapshot={snapshot} />
+          </View>
+        </View>
+      ) : null}
+    </Screen>
+  );
+}

@@ -1,0 +1,216 @@
+import { useMemo, useState } from 'react';
+import { ScrollView, StyleSheet, View } from 'react-native';
+import type { PlanResultRow, PlanSnapshot, ZoneReach } from '@/shared/schemas/plan';
+import { UNIT_SYSTEMS, type UnitSystem } from '@/components/check/check-form-model';
+import { formatLength, LIMIT_LABELS } from '@/components/check/format';
+import { describeCondition } from '@/components/library/describe-condition';
+import { AppText } from '@/components/ui/app-text';
+import { Card } from '@/components/ui/card';
+import { Chip, ChipRow } from '@/components/ui/chip';
+import { EmptyState } from '@/components/ui/states';
+import { colors, radius, space } from '@/components/ui/theme';
+import { useLayout } from '@/components/ui/use-layout';
+
+type SortKey = 'post' | 'range-asc' | 'range-desc';
+
+const REACH: Record<ZoneReach['reach'], { label: string; fg: string; bg: string }> = {
+  whole: { label: 'whole zone', fg: colors.moss, bg: colors.mossSoft },
+  part: { label: 'part', fg: colors.ink, bg: colors.cautionSoft },
+  none: { label: 'out of reach', fg: colors.danger, bg: colors.dangerSoft },
+  unknown: { label: 'no range', fg: colors.muted, bg: colors.paper },
+};
+
+/** Labels of a result line's condition: the set's name and the condition itself. */
+function conditionLabels(snapshot: PlanSnapshot) {
+  const sets = new Map(snapshot.inputs.conditionSets.map((s) => [String(s.id), s]));
+  return (row: PlanResultRow) => {
+    const set = sets.get(row.conditionSetId);
+    const cond = (set?.conditions as Record<string, number | string>[] | undefined)?.[row.conditionIndex];
+    return cond ? describeCondition(cond) : `k = ${row.result.k.toFixed(3)}`;
+  };
+}
+
+const toggle = (set: Set<string>, id: string) => {
+  const next = new Set(set);
+  if (next.has(id)) next.delete(id);
+  else next.add(id);
+  return next;
+};
+
+/**
+ * Every post × target × condition of a plan: detection range, the limit that
+ * sets it, and how much of each priority zone it reaches. Filter by post,
+ * target or condition set; sort by post or by range. A table on wide
+ * screens, cards on a phone.
+ */
+export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnapshot; units?: UnitSystem }) {
+  const { wide } = useLayout();
+  const [posts, setPosts] = useState<Set<string>>(new Set());
+  const [targets, setTargets] = useState<Set<string>>(new Set());
+  const [sets, setSets] = useState<Set<string>>(new Set());
+  const [sort, setSort] = useState<SortKey>('post');
+  const u = UNIT_SYSTEMS[units];
+  const conditionOf = useMemo(() => conditionLabels(snapshot), [snapshot]);
+
+  const options = (key: 'postId' | 'targetId' | 'conditionSetId', name: 'postName' | 'targetName' | 'conditionSetName') => [
+    ...new Map(snapshot.results.map((r) => [r[key], r[name]])).entries(),
+  ];
+  const rows = useMemo(() => {
+    const kept = snapshot.results.filter(
+      (r) =>
+        (posts.size === 0 || posts.has(r.postId)) &&
+        (targets.size === 0 || targets.has(r.targetId)) &&
+        (sets.size === 0 || sets.has(r.conditionSetId)),
+    );
+    if (sort === 'post') return kept;
+    const range = (r: PlanResultRow) => r.result.detectionRangeM ?? (sort === 'range-asc' ? Infinity : -Infinity);
+    return [...kept].sort((a, b) => (sort === 'range-asc' ? range(a) - range(b) : range(b) - range(a)));
+  }, [snapshot.results, posts, targets, sets, sort]);
+
+  if (snapshot.results.length === 0) {
+    return <EmptyState title="No results" body="Choose at least one post, target and condition set." />;
+  }
+  const zoneNames = snapshot.results[0]?.zones.map((z) => z.name) ?? [];
+
+  return (
+    <View style={{ gap: space.md }}>
+      <View style={{ gap: space.sm }}>
+        <ChipRow label="Posts">
+          {options('postId', 'postName').map(([id, name]) => (
+            <Chip key={id} label={name} on={posts.has(id)} onPress={() => setPosts((s) => toggle(s, id))} />
+          ))}
+        </ChipRow>
+        <ChipRow label="Targets">
+          {options('targetId', 'targetName').map(([id, name]) => (
+            <Chip key={id} label={name} on={targets.has(id)} onPress={() => setTargets((s) => toggle(s, id))} />
+          ))}
+        </ChipRow>
+        <ChipRow label="Condition sets">
+          {options('conditionSetId', 'conditionSetName').map(([id, name]) => (
+            <Chip key={id} label={name} on={sets.has(id)} onPress={() => setSets((s) => toggle(s, id))} />
+          ))}
+        </ChipRow>
+        <ChipRow label="Order">
+          <Chip label="By post" on={sort === 'post'} onPress={() => setSort('post')} />
+          <Chip label="Shortest range first" on={sort === 'range-asc'} onPress={() => setSort('range-asc')} />
+          <Chip label="Longest range first" on={sort === 'range-desc'} onPress={() => setSort('range-desc')} />
+        </ChipRow>
+        <AppText variant="small" tone="muted">
+          {rows.length} of {snapshot.results.length} lines
+          {posts.size + targets.size + sets.size > 0 ? ' · filters on' : ''}
+        </AppText>
+      </View>
+
+      {wide ? (
+        <ScrollView horizontal contentContainerStyle={{ minWidth: '100%' }}>
+          <View style={styles.table} role="table" aria-label="Plan results">
+            <View style={[styles.tr, styles.head]} role="row">
+              {['Post', 'Target', 'Condition', 'Detection range', 'Geographic range', ...zoneNames].map((h, i) => (
+                <View key={h} style={[styles.th, { width: i < 3 ? 190 : 150 }]} role="columnheader">
+                  <AppText variant="label" tone="muted">
+                    {h}
+                  </AppText>
+                </View>
+              ))}
+            </View>
+            {rows.map((r) => (
+              <View key={`${r.postId}|${r.targetId}|${r.conditionSetId}|${r.conditionIndex}`} style={styles.tr} role="row">
+                <Cell width={190} strong>
+                  {r.postName}
+                  <AppText variant="small" tone="muted">
+                    {'\n'}eye {formatLength(r.observerHeightM, u.height)}
+                  </AppText>
+                </Cell>
+                <Cell width={190}>{r.targetName}</Cell>
+                <Cell width={190}>
+                  {r.conditionSetName}
+                  <AppText variant="small" tone="muted">
+                    {'\n'}
+                    {conditionOf(r)}
+                  </AppText>
+                </Cell>
+                <Cell width={150} strong>
+                  {formatLength(r.result.detectionRangeM, u.distance)}
+                  <AppText variant="small" tone="muted">
+                    {'\n'}
+                    {r.result.limitedBy ? `limit: ${LIMIT_LABELS[r.result.limitedBy]}` : 'no limit found'}
+                  </AppText>
+                </Cell>
+                <Cell width={150}>{formatLength(r.result.geographicRangeM, u.distance)}</Cell>
+                {r.zones.map((z) => (
+                  <View key={z.name} style={[styles.td, { width: 150 }]} role="cell">
+                    <ReachTag zone={z} />
+                  </View>
+                ))}
+              </View>
+            ))}
+          </View>
+        </ScrollView>
+      ) : (
+        <View style={{ gap: space.sm }} role="list" aria-label="Plan results">
+          {rows.map((r) => (
+            <Card key={`${r.postId}|${r.targetId}|${r.conditionSetId}|${r.conditionIndex}`} role="listitem" style={{ gap: space.xs }}>
+              <AppText variant="label">
+                {r.postName} → {r.targetName}
+              </AppText>
+              <AppText variant="small" tone="muted">
+                {r.conditionSetName} · {conditionOf(r)}
+              </AppText>
+              <View style={{ flexDirection: 'row', alignItems: 'baseline', gap: space.sm, flexWrap: 'wrap' }}>
+                <AppText variant="figure">{formatLength(r.result.detectionRangeM, u.distance)}</AppText>
+                <AppText variant="small" tone="muted">
+                  {r.result.limitedBy ? `limited by ${LIMIT_LABELS[r.result.limitedBy]}` : 'no limit found'} · geographic{' '}
+                  {formatLength(r.result.geographicRangeM, u.distance)}
+                </AppText>
+              </View>
+              {r.zones.length ? (
+                <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.xs }}>
+                  {r.zones.map((z) => (
+                    <ReachTag key={z.name} zone={z} withName />
+                  ))}
+                </View>
+              ) : null}
+            </Card>
+          ))}
+        </View>
+      )}
+    </View>
+  );
+}
+
+function Cell({ width, strong, children }: { width: number; strong?: boolean; children: React.ReactNode }) {
+  return (
+    <View style={[styles.td, { width }]} role="cell">
+      <AppText variant={strong ? 'label' : 'body'} style={{ fontVariant: ['tabular-nums'] }}>
+        {children}
+      </AppText>
+    </View>
+  );
+}
+
+/** A priority zone's reach from one post: whole / part (with its share) / out of reach. */
+function ReachTag({ zone, withName }: { zone: ZoneReach; withName?: boolean }) {
+  const s = REACH[zone.reach];
+  const share = zone.reach === 'part' && zone.coveredPct !== null ? ` ${zone.coveredPct.toFixed(0)} %` : '';
+  return (
+    <AppText
+      variant="small"
+      style={[styles.tag, { color: s.fg, backgroundColor: s.bg }]}
+      aria-label={`${zone.name}: ${s.label}${share}`}
+    >
+      {withName ? `${zone.name}: ` : ''}
+      {s.label}
+      {share}
+    </AppText>
+  );
+}
+
+const styles = StyleSheet.create({
+  table: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, overflow: 'hidden' },
+  tr: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.line },
+  head: { backgroundColor: colors.paper },
+  th: { padding: space.sm, justifyContent: 'flex-end' },
+  td: { padding: space.sm, justifyContent: 'center' },
+  tag: { paddingHorizontal: space.sm, paddingVertical: 2, borderRadius: radius.pill, overflow: 'hidden', alignSelf: 'flex-start' },
+});
+

@@ -1,0 +1,66 @@
+import { View } from 'react-native';
+import type { PlanSnapshot } from '@/shared/schemas/plan';
+import { CautionsPanel } from '@/components/check/cautions-panel';
+import { AppText } from '@/components/ui/app-text';
+import { Card } from '@/components/ui/card';
+import { space } from '@/components/ui/theme';
+
+/** What every result of a plan rests on, in words. */
+export function AssumptionsPanel({ snapshot }: { snapshot: PlanSnapshot }) {
+  return (
+    <Card style={{ gap: space.xs }}>
+      <AppText variant="heading">Assumptions</AppText>
+      {snapshot.assumptions.map((a) => (
+        <AppText key={a} variant="small">
+          • {a}
+        </AppText>
+      ))}
+    </Card>
+  );
+}
+
+/** The inputs a revision froze: posts with their heights, targets, condition sets and the standard. */
+export function InputsPanel({ snapshot }: { snapshot: PlanSnapshot }) {
+  const { plan, posts, targets, conditionSets } = snapshot.inputs;
+  const n = (v: unknown) => (typeof v === 'number' ? v : Number(v));
+  return (
+    <Card style={{ gap: space.sm }}>
+      <AppText variant="heading">Inputs</AppText>
+      <AppText variant="small">
+        Standard: at least {plan.standard.minSeenPct} % of the site seen by one post or more; each priority zone seen by{' '}
+        {plan.standard.priorityMinPosts} post{plan.standard.priorityMinPosts === 1 ? '' : 's'} or more.
+      </AppText>
+      <View style={{ gap: 2 }}>
+        <AppText variant="label">Posts</AppText>
+        {posts.map((p) => (
+          <AppText key={String(p.id)} variant="small">
+            {String(p.name)} — ground {n(p.groundElevationM)} m + structure {n(p.structureHeightM)} m + eye {n(p.eyeHeightM)} m
+            {p.status === 'proposed' ? ' (proposed)' : ''}
+          </AppText>
+        ))}
+      </View>
+      <View style={{ gap: 2 }}>
+        <AppText variant="label">Targets</AppText>
+        {targets.map((t) => (
+          <AppText key={String(t.id)} variant="small">
+            {String(t.name)} — {n(t.heightM)} m high, {n(t.widthM)} m wide, top {n(t.requiredVisibleM)} m must show
+          </AppText>
+        ))}
+      </View>
+      <View style={{ gap: 2 }}>
+        <AppText variant="label">Condition sets</AppText>
+        {conditionSets.map((c) => (
+          <AppText key={String(c.id)} variant="small">
+            {String(c.name)}
+            {c.visibilityM ? ` — visibility ${(n(c.visibilityM) / 1000).toFixed(1)} km` : ''}
+          </AppText>
+        ))}
+      </View>
+    </Card>
+  );
+}
+
+/** The standing cautions a plan's figures carry. */
+export function SnapshotCautions({ snapshot }: { snapshot: PlanSnapshot }) {
+  return <CautionsPanel cautions={snapshot.cautions} />;
+}
