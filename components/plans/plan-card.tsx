@@ -27,12 +27,11 @@ export function PlanCard({ plan, showSite, waiting }: { plan: Plan; showSite?: b
         </View>
         <AppText variant="small" tone="muted">
           {showSite ? `${plan.siteName} · ` : ''}
-          {plural(plan.postIds.length, 'post')} · {plural(plan.targetIds.length, 'target')} · standard ≥ {plan.standard.minSeenPct} % seen,
-          priority zones by ≥ {plan.standard.priorityMinPosts} · prepared by {plan.preparedBy.name}
+          {plural(plan.postIds.length, 'post')} · {plural(plan.targetIds.length, 'target')} · standard ≥{' '}
+          {plan.standard.minSeenPct} % seen, priority zones by ≥ {plan.standard.priorityMinPosts} · prepared by{' '}
+          {plan.preparedBy.name}
         </AppText>
-        {waiting && plan.submittedAt ? (
-          <AppText variant="small">Waiting since {when(plan.submittedAt)}</AppText>
-        ) : null}
+        {waiting && plan.submittedAt ? <AppText variant="small">Waiting since {when(plan.submittedAt)}</AppText> : null}
       </Card>
     </Pressable>
   );

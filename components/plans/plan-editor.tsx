@@ -79,7 +79,10 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
       postIds: v.postIds,
       targetIds: v.targetIds,
       conditionSetIds: v.conditionSetIds,
-      standard: { minSeenPct: v.minSeenPct.trim() === '' ? NaN : Number(v.minSeenPct.replace(',', '.')), priorityMinPosts: Number(v.priorityMinPosts) },
+      standard: {
+        minSeenPct: v.minSeenPct.trim() === '' ? NaN : Number(v.minSeenPct.replace(',', '.')),
+        priorityMinPosts: Number(v.priorityMinPosts),
+      },
     };
     const parsed = PlanInputSchema.safeParse(candidate);
     if (!parsed.success) {
@@ -124,12 +127,13 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
             ) : sites.isError ? (
               <ErrorState error={sites.error} onRetry={() => void sites.refetch()} />
             ) : (
-              <CheckGroup label="Site" error={fieldState.error?.message}>
+              <CheckGroup label="Site" single error={fieldState.error?.message}>
                 {siteList.map((s) => (
                   <CheckRow
                     key={s.id}
                     label={s.name}
                     detail={`${s.postCount} post${s.postCount === 1 ? '' : 's'}`}
+                    single
                     checked={field.value === s.id}
                     onToggle={() => {
                       field.onChange(s.id);

@@ -48,7 +48,13 @@ export function PlanHistory({ planId }: { planId: string }) {
             {signatures.map((s, i) => (
               <View key={`${s.step}-${s.at}-${i}`} style={styles.step} role="listitem">
                 <View style={styles.rail}>
-                  <View style={[styles.dot, s.step === 'approved' && { backgroundColor: colors.moss }, s.step === 'returned' && { backgroundColor: colors.danger }]} />
+                  <View
+                    style={[
+                      styles.dot,
+                      s.step === 'approved' && { backgroundColor: colors.moss },
+                      s.step === 'returned' && { backgroundColor: colors.danger },
+                    ]}
+                  />
                   {i < signatures.length - 1 ? <View style={styles.line} /> : null}
                 </View>
                 <View style={{ flex: 1, paddingBottom: space.md, gap: 2 }}>
@@ -90,7 +96,10 @@ export function PlanHistory({ planId }: { planId: string }) {
         <View style={{ flex: wide ? 3 : undefined, width: wide ? undefined : '100%', gap: space.lg }}>
           <AppText variant="heading">Compare revisions</AppText>
           {count < 2 ? (
-            <EmptyState title="Nothing to compare yet" body="Once the plan has been submitted twice, the differences between revisions show here." />
+            <EmptyState
+              title="Nothing to compare yet"
+              body="Once the plan has been submitted twice, the differences between revisions show here."
+            />
           ) : (
             <>
               <ChipRow label="From">

@@ -2,7 +2,14 @@ import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { View } from 'react-native';
 import type { Plan, PlanSnapshot } from '@/shared/schemas/plan';
-import { useNewPlanVersion, usePlan, usePlanHistory, usePlanPreview, usePlanRevision, useSubmitPlan } from '@/components/data/plans';
+import {
+  useNewPlanVersion,
+  usePlan,
+  usePlanHistory,
+  usePlanPreview,
+  usePlanRevision,
+  useSubmitPlan,
+} from '@/components/data/plans';
 import { useSession } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -12,7 +19,7 @@ import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/sta
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { PlanResults } from './plan-results';
-import { AssumptionsPanel, InputsPanel, SnapshotCautions } from './plan-snapshot-panels';
+import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan-snapshot-panels';
 import { PlanStatusBadge } from './plan-status';
 import { when } from './when';
 
@@ -108,7 +115,10 @@ function PlanPage({
           <Button label="Start a new version" kind="secondary" onPress={onNewVersion} busy={newVersion.isPending} />
         ) : null}
         {canReview ? (
-          <Button label="Review this plan" onPress={() => router.navigate({ pathname: '/plans/[planId]/review', params: { planId: plan.id } })} />
+          <Button
+            label="Review this plan"
+            onPress={() => router.navigate({ pathname: '/plans/[planId]/review', params: { planId: plan.id } })}
+          />
         ) : null}
         <Button
           label="History and signatures"
@@ -123,7 +133,9 @@ function PlanPage({
       </View>
 
       <Card accent={editable ? 'none' : 'moss'} style={{ gap: space.xs }}>
-        <AppText variant="heading">{editable ? 'Results from today’s inputs' : `Results frozen in revision ${latestRevision ?? '—'}`}</AppText>
+        <AppText variant="heading">
+          {editable ? 'Results from today’s inputs' : `Results frozen in revision ${latestRevision ?? '—'}`}
+        </AppText>
         <AppText variant="small" tone="muted">
           {editable
             ? 'Not frozen yet: these figures follow any change to the posts, targets or conditions until the plan is submitted.'
@@ -137,17 +149,28 @@ function PlanPage({
         <LoadingState label="Computing the results…" />
       ) : results.isError ? (
         <ErrorState error={results.error} onRetry={() => void results.refetch()} />
+      ) : snapshot && wide ? (
+        <>
+          <View style={{ flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' }}>
+            <View style={{ flex: 1 }}>
+              <SnapshotCautions snapshot={snapshot} />
+            </View>
+            <View style={{ flex: 1 }}>
+              <InputsPanel snapshot={snapshot} />
+            </View>
+            <View style={{ flex: 1 }}>
+              <AssumptionsPanel snapshot={snapshot} />
+            </View>
+          </View>
+          <PlanResults snapshot={snapshot} units={unitsOf(snapshot)} />
+        </>
       ) : snapshot ? (
-        <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
-          <View style={{ flex: wide ? 3 : undefined, width: wide ? undefined : '100%', gap: space.lg }}>
-            <SnapshotCautions snapshot={snapshot} />
-            <PlanResults snapshot={snapshot} units={(snapshot.inputs.site.defaultUnits as 'metric' | undefined) ?? 'metric'} />
-          </View>
-          <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%', gap: space.lg }}>
-            <InputsPanel snapshot={snapshot} />
-            <AssumptionsPanel snapshot={snapshot} />
-          </View>
-        </View>
+        <>
+          <SnapshotCautions snapshot={snapshot} />
+          <PlanResults snapshot={snapshot} units={unitsOf(snapshot)} />
+          <InputsPanel snapshot={snapshot} />
+          <AssumptionsPanel snapshot={snapshot} />
+        </>
       ) : null}
     </Screen>
   );

@@ -74,7 +74,7 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
 
   return (
     <View style={{ gap: space.md }}>
-      <View style={{ gap: space.sm }}>
+      <View style={wide ? { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.xl, rowGap: space.sm } : { gap: space.sm }}>
         <ChipRow label="Posts">
           {options('postId', 'postName').map(([id, name]) => (
             <Chip key={id} label={name} on={posts.has(id)} onPress={() => setPosts((s) => toggle(s, id))} />
@@ -95,7 +95,7 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
           <Chip label="Shortest range first" on={sort === 'range-asc'} onPress={() => setSort('range-asc')} />
           <Chip label="Longest range first" on={sort === 'range-desc'} onPress={() => setSort('range-desc')} />
         </ChipRow>
-        <AppText variant="small" tone="muted">
+        <AppText variant="small" tone="muted" style={{ width: '100%' }}>
           {rows.length} of {snapshot.results.length} lines
           {posts.size + targets.size + sets.size > 0 ? ' · filters on' : ''}
         </AppText>
@@ -105,40 +105,38 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
         <ScrollView horizontal contentContainerStyle={{ minWidth: '100%' }}>
           <View style={styles.table} role="table" aria-label="Plan results">
             <View style={[styles.tr, styles.head]} role="row">
-              {['Post', 'Target', 'Condition', 'Detection range', 'Geographic range', ...zoneNames].map((h, i) => (
-                <View key={h} style={[styles.th, { width: i < 3 ? 190 : 150 }]} role="columnheader">
+              {['Post → target', 'Condition', 'Detection range', ...zoneNames].map((h, i) => (
+                <View key={h} style={[styles.th, COLUMNS[Math.min(i, 3)]]} role="columnheader">
                   <AppText variant="label" tone="muted">
-                    {h}
+                    {i >= 3 ? `Zone: ${h}` : h}
                   </AppText>
                 </View>
               ))}
             </View>
             {rows.map((r) => (
               <View key={`${r.postId}|${r.targetId}|${r.conditionSetId}|${r.conditionIndex}`} style={styles.tr} role="row">
-                <Cell width={190} strong>
+                <Cell
+                  column={0}
+                  strong
+                  lines={[`→ ${r.targetName}`, `eye ${formatLength(r.observerHeightM, u.height)} above datum`]}
+                >
                   {r.postName}
-                  <AppText variant="small" tone="muted">
-                    {'\n'}eye {formatLength(r.observerHeightM, u.height)}
-                  </AppText>
                 </Cell>
-                <Cell width={190}>{r.targetName}</Cell>
-                <Cell width={190}>
+                <Cell column={1} lines={[conditionOf(r)]}>
                   {r.conditionSetName}
-                  <AppText variant="small" tone="muted">
-                    {'\n'}
-                    {conditionOf(r)}
-                  </AppText>
                 </Cell>
-                <Cell width={150} strong>
+                <Cell
+                  column={2}
+                  strong
+                  lines={[
+                    r.result.limitedBy ? `limit: ${LIMIT_LABELS[r.result.limitedBy]}` : 'no limit found',
+                    `geographic ${formatLength(r.result.geographicRangeM, u.distance)}`,
+                  ]}
+                >
                   {formatLength(r.result.detectionRangeM, u.distance)}
-                  <AppText variant="small" tone="muted">
-                    {'\n'}
-                    {r.result.limitedBy ? `limit: ${LIMIT_LABELS[r.result.limitedBy]}` : 'no limit found'}
-                  </AppText>
                 </Cell>
-                <Cell width={150}>{formatLength(r.result.geographicRangeM, u.distance)}</Cell>
                 {r.zones.map((z) => (
-                  <View key={z.name} style={[styles.td, { width: 150 }]} role="cell">
+                  <View key={z.name} style={[styles.td, COLUMNS[3]]} role="cell">
                     <ReachTag zone={z} />
                   </View>
                 ))}
@@ -149,7 +147,11 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
       ) : (
         <View style={{ gap: space.sm }} role="list" aria-label="Plan results">
           {rows.map((r) => (
-            <Card key={`${r.postId}|${r.targetId}|${r.conditionSetId}|${r.conditionIndex}`} role="listitem" style={{ gap: space.xs }}>
+            <Card
+              key={`${r.postId}|${r.targetId}|${r.conditionSetId}|${r.conditionIndex}`}
+              role="listitem"
+              style={{ gap: space.xs }}
+            >
               <AppText variant="label">
                 {r.postName} → {r.targetName}
               </AppText>
@@ -178,12 +180,35 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
   );
 }
 
-function Cell({ width, strong, children }: { width: number; strong?: boolean; children: React.ReactNode }) {
+/** Column widths: flexible, with a floor below which the table scrolls sideways. */
+const COLUMNS = [
+  { flex: 3, minWidth: 200 },
+  { flex: 3, minWidth: 190 },
+  { flex: 2, minWidth: 150 },
+  { flex: 2, minWidth: 130 },
+] as const;
+
+function Cell({
+  column,
+  strong,
+  lines,
+  children,
+}: {
+  column: number;
+  strong?: boolean;
+  lines: string[];
+  children: React.ReactNode;
+}) {
   return (
-    <View style={[styles.td, { width }]} role="cell">
+    <View style={[styles.td, COLUMNS[column]]} role="cell">
       <AppText variant={strong ? 'label' : 'body'} style={{ fontVariant: ['tabular-nums'] }}>
         {children}
       </AppText>
+      {lines.map((l) => (
+        <AppText key={l} variant="small" tone="muted">
+          {l}
+        </AppText>
+      ))}
     </View>
   );
 }
@@ -206,11 +231,23 @@ function ReachTag({ zone, withName }: { zone: ZoneReach; withName?: boolean }) {
 }
 
 const styles = StyleSheet.create({
-  table: { backgroundColor: colors.surface, borderRadius: radius.lg, borderWidth: 1, borderColor: colors.line, overflow: 'hidden' },
+  table: {
+    flex: 1,
+    backgroundColor: colors.surface,
+    borderRadius: radius.lg,
+    borderWidth: 1,
+    borderColor: colors.line,
+    overflow: 'hidden',
+  },
   tr: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.line },
   head: { backgroundColor: colors.paper },
   th: { padding: space.sm, justifyContent: 'flex-end' },
   td: { padding: space.sm, justifyContent: 'center' },
-  tag: { paddingHorizontal: space.sm, paddingVertical: 2, borderRadius: radius.pill, overflow: 'hidden', alignSelf: 'flex-start' },
+  tag: {
+    paddingHorizontal: space.sm,
+    paddingVertical: 2,
+    borderRadius: radius.pill,
+    overflow: 'hidden',
+    alignSelf: 'flex-start',
+  },
 });
-

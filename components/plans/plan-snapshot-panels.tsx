@@ -1,5 +1,6 @@
 import { View } from 'react-native';
 import type { PlanSnapshot } from '@/shared/schemas/plan';
+import { UNIT_SYSTEMS, type UnitSystem } from '@/components/check/check-form-model';
 import { CautionsPanel } from '@/components/check/cautions-panel';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
@@ -64,3 +65,9 @@ export function InputsPanel({ snapshot }: { snapshot: PlanSnapshot }) {
 export function SnapshotCautions({ snapshot }: { snapshot: PlanSnapshot }) {
   return <CautionsPanel cautions={snapshot.cautions} />;
 }
+
+/** The unit system of the plan's site (metric when the snapshot does not say). */
+export const unitsOf = (snapshot: PlanSnapshot): UnitSystem => {
+  const units = snapshot.inputs.site.defaultUnits;
+  return typeof units === 'string' && units in UNIT_SYSTEMS ? (units as UnitSystem) : 'metric';
+};

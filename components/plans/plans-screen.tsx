@@ -52,7 +52,10 @@ export function PlansScreen() {
       actions={user?.role === 'planner' ? <Button label="New plan" onPress={() => router.navigate('/plans/new')} /> : null}
     >
       {showQueue ? (
-        <Card accent="ember" style={{ flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', flexWrap: 'wrap' }}>
+        <Card
+          accent="ember"
+          style={{ flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', flexWrap: 'wrap' }}
+        >
           <View style={{ gap: 2, flexShrink: 1 }}>
             <AppText variant="heading">Your review queue</AppText>
             <AppText tone="muted">

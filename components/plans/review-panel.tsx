@@ -14,7 +14,7 @@ import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { PlanResults } from './plan-results';
-import { AssumptionsPanel, InputsPanel, SnapshotCautions } from './plan-snapshot-panels';
+import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan-snapshot-panels';
 import { PlanStatusBadge } from './plan-status';
 import { SnapshotDiffView } from './snapshot-diff-view';
 import { when } from './when';
@@ -75,6 +75,51 @@ export function ReviewPanel({ planId }: { planId: string }) {
     );
   };
 
+  const inputs = (
+    <>
+      <InputsPanel snapshot={snapshot} />
+      <AssumptionsPanel snapshot={snapshot} />
+      {previous.data ? (
+        <SnapshotDiffView diff={diffSnapshots(previous.data.snapshot, snapshot)} from={latest - 1} to={latest} />
+      ) : null}
+    </>
+  );
+  const results = (
+    <>
+      <SnapshotCautions snapshot={snapshot} />
+      <PlanResults snapshot={snapshot} units={unitsOf(snapshot)} />
+    </>
+  );
+  const decision = open ? (
+    <Card accent="ember" style={{ gap: space.md }}>
+      <AppText variant="heading">Your decision on revision {latest}</AppText>
+      <FormError message={formError} />
+      <TextField
+        label="Comment"
+        hint="Required when you return the plan; kept with the revision in the plan's history."
+        value={comment}
+        onChangeText={setComment}
+        error={commentError}
+        multiline
+        numberOfLines={4}
+        style={{ minHeight: 96, paddingTop: space.sm, textAlignVertical: 'top' }}
+      />
+      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+        <Button
+          label="Approve"
+          onPress={() => decide('approve')}
+          busy={review.isPending && review.variables?.decision === 'approve'}
+        />
+        <Button
+          label="Return for changes"
+          kind="secondary"
+          onPress={() => decide('return')}
+          busy={review.isPending && review.variables?.decision === 'return'}
+        />
+      </View>
+    </Card>
+  ) : null;
+
   return (
     <Screen
       title={`Review: ${p.title} · v${p.version}`}
@@ -93,42 +138,23 @@ export function ReviewPanel({ planId }: { planId: string }) {
           </AppText>
         </Notice>
       ) : null}
-      <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
-        <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%', gap: space.lg }} aria-label="Assumptions and inputs">
-          <InputsPanel snapshot={snapshot} />
-          <AssumptionsPanel snapshot={snapshot} />
-          {previous.data ? <SnapshotDiffView diff={diffSnapshots(previous.data.snapshot, snapshot)} from={latest - 1} to={latest} /> : null}
+      {wide ? (
+        <View style={{ flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' }}>
+          <View style={{ flex: 2, gap: space.lg }} aria-label="Assumptions and inputs">
+            {inputs}
+            {decision}
+          </View>
+          <View style={{ flex: 3, gap: space.lg }} aria-label="Results">
+            {results}
+          </View>
         </View>
-        <View style={{ flex: wide ? 3 : undefined, width: wide ? undefined : '100%', gap: space.lg }} aria-label="Results">
-          <SnapshotCautions snapshot={snapshot} />
-          <PlanResults snapshot={snapshot} units={(snapshot.inputs.site.defaultUnits as 'metric' | undefined) ?? 'metric'} />
-          {open ? (
-            <Card accent="ember" style={{ gap: space.md }}>
-              <AppText variant="heading">Your decision on revision {latest}</AppText>
-              <FormError message={formError} />
-              <TextField
-                label="Comment"
-                hint="Required when you return the plan; kept with the revision in the plan's history."
-                value={comment}
-                onChangeText={setComment}
-                error={commentError}
-                multiline
-                numberOfLines={4}
-                style={{ minHeight: 96, paddingTop: space.sm, textAlignVertical: 'top' }}
-              />
-              <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-                <Button label="Approve" onPress={() => decide('approve')} busy={review.isPending && review.variables?.decision === 'approve'} />
-                <Button
-                  label="Return for changes"
-                  kind="secondary"
-                  onPress={() => decide('return')}
-                  busy={review.isPending && review.variables?.decision === 'return'}
-                />
-              </View>
-            </Card>
-          ) : null}
-        </View>
-      </View>
+      ) : (
+        <>
+          {results}
+          {inputs}
+          {decision}
+        </>
+      )}
     </Screen>
   );
 }

@@ -1,6 +1,15 @@
 import type { Href } from 'expo-router';
 import type { Role } from '@/shared/schemas/auth';
-import { LibraryIcon, MailIcon, PeopleIcon, PersonIcon, PlanIcon, SightlineIcon, TowerIcon, type IconProps } from '@/components/ui/icons';
+import {
+  LibraryIcon,
+  MailIcon,
+  PeopleIcon,
+  PersonIcon,
+  PlanIcon,
+  SightlineIcon,
+  TowerIcon,
+  type IconProps,
+} from '@/components/ui/icons';
 
 export interface NavItem {
   href: Href;

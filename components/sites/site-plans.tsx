@@ -14,7 +14,11 @@ export function SitePlans({ siteId }: { siteId: string }) {
   const router = useRouter();
   const add =
     user?.role === 'planner' ? (
-      <Button kind="secondary" label="New plan for this site" onPress={() => router.navigate({ pathname: '/plans/new', params: { siteId } })} />
+      <Button
+        kind="secondary"
+        label="New plan for this site"
+        onPress={() => router.navigate({ pathname: '/plans/new', params: { siteId } })}
+      />
     ) : null;
   if (plans.isPending) return <LoadingState label="Loading plans…" />;
   if (plans.isError) return <ErrorState error={plans.error} onRetry={() => void plans.refetch()} />;

@@ -59,7 +59,14 @@ const standard: ConditionSet = {
   updatedAt: site.updatedAt,
 };
 const snap = (posts: Post[], minSeenPct = 70) =>
-  buildSnapshot({ title: 'Cover', standard: { minSeenPct, priorityMinPosts: 2 }, site, posts, targets: [smoke], conditionSets: [standard] });
+  buildSnapshot({
+    title: 'Cover',
+    standard: { minSeenPct, priorityMinPosts: 2 },
+    site,
+    posts,
+    targets: [smoke],
+    conditionSets: [standard],
+  });
 
 describe('diffSnapshots', () => {
   it('finds nothing between a snapshot and its recomputation', () => {
@@ -92,7 +99,9 @@ describe('diffSnapshots', () => {
 
   it('reports the plan’s own fields and a removed post', () => {
     const d = diffSnapshots(snap([post(1, 20), post(2, 20)], 70), snap([post(1, 20)], 80));
-    expect(d.plan).toEqual([{ field: 'standard', before: { minSeenPct: 70, priorityMinPosts: 2 }, after: { minSeenPct: 80, priorityMinPosts: 2 } }]);
+    expect(d.plan).toEqual([
+      { field: 'standard', before: { minSeenPct: 70, priorityMinPosts: 2 }, after: { minSeenPct: 80, priorityMinPosts: 2 } },
+    ]);
     expect(d.posts.map((p) => p.change)).toEqual(['removed']);
     expect(d.results.every((r) => r.change === 'removed' && r.detectionRangeM.after === null)).toBe(true);
   });
