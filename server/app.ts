@@ -15,6 +15,7 @@ import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
 import { libraryRoutes } from './routes/library';
 import { planRoutes } from './routes/plans';
+import { rosterRoutes } from './routes/roster';
 import { sightlineRoutes } from './routes/sightline';
 import { siteRoutes } from './routes/sites';
 import { userRoutes } from './routes/users';
@@ -86,6 +87,7 @@ export function createApp({ db, config, mailer = null }: AppDeps) {
   v1.use(siteRoutes(db));
   v1.use(libraryRoutes(db));
   v1.use(planRoutes(db, publicUrl, mailer));
+  v1.use(rosterRoutes(db));
   v1.use(userRoutes(db, publicUrl, mailer));
   v1.use(caughtMailRoutes(config.CAUGHT_MAIL_URL ? createCaughtMailClient(config.CAUGHT_MAIL_URL) : null));
   api.use('/v1', v1);

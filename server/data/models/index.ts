@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { AssignmentModel } from './assignment';
 import { AuditEventModel } from './audit-event';
 import { ConditionSetModel, TargetProfileModel } from './library';
 import { OrganizationModel } from './organization';
@@ -8,6 +9,7 @@ import { PriorityZoneModel, SiteModel } from './site';
 import { UserModel } from './user';
 
 export {
+  AssignmentModel,
   AuditEventModel,
   ConditionSetModel,
   PlanModel,
@@ -34,6 +36,7 @@ export function initModels(sequelize: Sequelize): void {
   PlanModel.register(sequelize);
   PlanRevisionModel.register(sequelize);
   PlanReviewModel.register(sequelize);
+  AssignmentModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
@@ -45,4 +48,9 @@ export function initModels(sequelize: Sequelize): void {
   PostModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
   SiteModel.hasMany(PostModel, { foreignKey: 'siteId', as: 'sitePosts' });
   PostModel.belongsTo(SiteModel, { foreignKey: 'siteId', as: 'site' });
+  OrganizationModel.hasMany(AssignmentModel, { foreignKey: 'organizationId', as: 'assignments' });
+  PostModel.hasMany(AssignmentModel, { foreignKey: 'postId', as: 'assignments' });
+  AssignmentModel.belongsTo(PostModel, { foreignKey: 'postId', as: 'post' });
+  UserModel.hasMany(AssignmentModel, { foreignKey: 'userId', as: 'assignments' });
+  AssignmentModel.belongsTo(UserModel, { foreignKey: 'userId', as: 'user' });
 }

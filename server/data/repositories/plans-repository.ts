@@ -89,6 +89,15 @@ export const plansRepository = {
     return { items: await toPlans(rows), total: count, page: query.page, pageSize: query.pageSize };
   },
 
+  /** The most recently approved plan of the organisation that uses the post. */
+  async latestApprovedWithPost(organizationId: string, postId: string): Promise<Plan | null> {
+    const row = await PlanModel.findOne({
+      where: { organizationId, status: 'approved', postIds: { [Op.contains]: [postId] } },
+      order: [['updatedAt', 'DESC']],
+    });
+    return row ? (await toPlans([row]))[0]! : null;
+  },
+
   async countInSite(siteId: string, statuses: PlanStatus[], transaction?: Transaction): Promise<number> {
     return PlanModel.count({ where: { siteId, status: { [Op.in]: statuses } }, transaction });
   },

@@ -62,6 +62,11 @@ export const postsRepository = {
     return { items: rows.map(toPost), total: count, page: query.page, pageSize: query.pageSize };
   },
 
+  async findInOrganization(organizationId: string, id: string, transaction?: Transaction): Promise<Post | null> {
+    const row = await PostModel.findOne({ where: { id, organizationId }, transaction });
+    return row ? toPost(row) : null;
+  },
+
   async findInSite(organizationId: string, siteId: string, id: string, transaction?: Transaction): Promise<Post | null> {
     const row = await PostModel.findOne({ where: { id, siteId, organizationId }, transaction });
     return row ? toPost(row) : null;

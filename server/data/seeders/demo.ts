@@ -7,7 +7,8 @@ import type { ConditionSetInput, TargetInput } from '@/shared/schemas/library';
 import { ConditionSetModel, OrganizationModel, SiteModel, TargetProfileModel, UserModel } from '../models';
 import { conditionSetsRepository, targetsRepository } from '../repositories/library-repository';
 import { createPlan, reviewPlan, submitPlan, type PlanDeps } from '@/server/domain/plans/manage-plans';
-import { PlanModel } from '../models';
+import { AssignmentModel, PlanModel, PostModel } from '../models';
+import { assignmentsRepository } from '../repositories/assignments-repository';
 import { postsRepository } from '../repositories/posts-repository';
 import { sitesRepository } from '../repositories/sites-repository';
 
@@ -23,6 +24,8 @@ export const DEMO_ORGANIZATIONS = [
       { email: 'planner@demo.kenning.test', name: 'Teodor Ashby', role: 'planner' },
       { email: 'reviewer@demo.kenning.test', name: 'Lin Okonkwo-Hale', role: 'reviewer' },
       { email: 'observer@demo.kenning.test', name: 'Sami Rookwood', role: 'observer' },
+      { email: 'lookout.marrow@demo.kenning.test', name: 'Ines Marrow', role: 'observer' },
+      { email: 'lookout.tolliver@demo.kenning.test', name: 'Bram Tolliver', role: 'observer' },
     ],
   },
   {
@@ -285,13 +288,44 @@ async function seedDemoPlans(db: Sequelize): Promise<boolean> {
   return true;
 }
 
-/** Seeds the demo organisations, users, sites, libraries and plans once; returns false when nothing was added. */
+/**
+ * Watches from the day of seeding: two lookouts on duty until further notice
+ * and one three-day stretch, so the roster shows both cover and gaps.
+ */
+async function seedDemoWatches(db: Sequelize, now = new Date()): Promise<boolean> {
+  const org = await OrganizationModel.findOne({ where: { slug: DEMO_ORGANIZATIONS[0].slug } });
+  if (!org || (await AssignmentModel.count({ where: { organizationId: org.id }, paranoid: false })) > 0) return false;
+  const day = Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate());
+  const at = (days: number, hours: number) => new Date(day + days * 86_400_000 + hours * 3_600_000);
+  const watches = [
+    { email: 'observer@demo.kenning.test', post: 'Crane Knoll Tower', startsAt: at(0, 0), endsAt: null, note: 'Fire season watch.' },
+    { email: 'lookout.marrow@demo.kenning.test', post: 'Gull Point', startsAt: at(0, 0), endsAt: null, note: 'Bathing season.' },
+    { email: 'lookout.tolliver@demo.kenning.test', post: 'Sedge Ridge Tower', startsAt: at(1, 6), endsAt: at(4, 18), note: 'Relief cover.' },
+  ];
+  const posts = await PostModel.findAll({ where: { organizationId: org.id } });
+  await db.transaction(async (transaction) => {
+    for (const w of watches) {
+      const user = await UserModel.findOne({ where: { email: w.email }, transaction });
+      const post = posts.find((p) => p.name === w.post);
+      if (!user || !post) continue;
+      await assignmentsRepository.create(
+        org.id,
+        { postId: post.id, userId: user.id, startsAt: w.startsAt, endsAt: w.endsAt, note: w.note },
+        transaction,
+      );
+    }
+  });
+  return true;
+}
+
+/** Seeds the demo organisations, users, sites, libraries, plans and watches once; returns false when nothing was added. */
 export async function seedDemo(db: Sequelize): Promise<boolean> {
   const accounts = await seedDemoAccounts(db);
   const sites = await seedDemoSites(db);
   const libraries = await seedLibraries(db);
   const plans = await seedDemoPlans(db);
-  return accounts || sites || libraries || plans;
+  const watches = await seedDemoWatches(db);
+  return accounts || sites || libraries || plans || watches;
 }
 
 async function seedDemoAccounts(db: Sequelize): Promise<boolean> {
