@@ -1,6 +1,7 @@
 import type { Href } from 'expo-router';
 import type { Role } from '@/shared/schemas/auth';
 import {
+  BriefingIcon,
   LibraryIcon,
   MailIcon,
   PeopleIcon,
@@ -23,6 +24,7 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { href: '/', match: '/', label: 'Sites', Icon: TowerIcon },
   { href: '/check', match: '/check', label: 'Quick check', Icon: SightlineIcon },
+  { href: '/briefing', match: '/briefing', label: 'My watch', Icon: BriefingIcon, roles: ['observer'] },
   { href: '/plans', match: '/plans', label: 'Plans', Icon: PlanIcon, roles: ['planner', 'reviewer', 'observer'] },
   { href: '/library', match: '/library', label: 'Library', Icon: LibraryIcon, roles: ['planner', 'reviewer'] },
   { href: '/admin/users', match: '/admin/users', label: 'Users', Icon: PeopleIcon, roles: ['admin'] },

@@ -11,6 +11,7 @@ import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { PostForm } from './post-form';
 import { SitePlans } from './site-plans';
+import { SiteRoster } from './site-roster';
 import { SiteSketch } from './site-sketch';
 
 export function SiteOverview({ siteId }: { siteId: string }) {
@@ -32,6 +33,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
           </Card>
           <AppText variant="heading">Coverage plans</AppText>
           <SitePlans siteId={siteId} />
+          <SiteRoster siteId={siteId} timeZone={s.timeZone} />
           <AppText variant="heading">Posts</AppText>
           {posts.isPending ? (
             <LoadingState label="Loading posts…" />

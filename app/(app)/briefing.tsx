@@ -1,0 +1,5 @@
+import { BriefingScreen } from '@/components/briefing/briefing-screen';
+
+export default function BriefingRoute() {
+  return <BriefingScreen />;
+}

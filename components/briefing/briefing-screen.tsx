@@ -1,0 +1,85 @@
+import { useRouter } from 'expo-router';
+import { View } from 'react-native';
+import { formatCoordinate } from '@/shared/geo/format-coordinate';
+import { POST_KIND_LABELS } from '@/shared/schemas/site';
+import { CautionsPanel } from '@/components/check/cautions-panel';
+import { formatLength, LIMIT_LABELS } from '@/components/check/format';
+import { useBriefing } from '@/components/data/roster';
+import { when } from '@/components/plans/when';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Screen } from '@/components/ui/screen';
+import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { space } from '@/components/ui/theme';
+import { useLayout } from '@/components/ui/use-layout';
+
+/**
+ * A lookout's own briefing: their watches for the next two weeks and, for each
+ * post, what the approved plan expects them to see from it and how far.
+ */
+export function BriefingScreen() {
+  const briefing = useBriefing();
+  const router = useRouter();
+  const { wide } = useLayout();
+  if (briefing.isPending) return <LoadingState label="Loading your briefing…" />;
+  if (briefing.isError) return <ErrorState error={briefing.error} onRetry={() => void briefing.refetch()} />;
+  const { assignments, posts } = briefing.data;
+  return (
+    <Screen title="Your watch" subtitle="Your posts for the next two weeks and what the approved plans expect you to see from them.">
+      {assignments.length === 0 ? (
+        <EmptyState title="No watches" body="Nobody has put you on a post for the next two weeks. Your supervisor does that on the site's roster." />
+      ) : (
+        <Card style={{ gap: space.xs }} aria-label="Your watches">
+          <AppText variant="heading">Watches</AppText>
+          {assignments.map((a) => (
+            <AppText key={a.id}>
+              {a.postName} ({a.siteName}) · {when(a.startsAt)} → {a.endsAt ? when(a.endsAt) : 'until further notice'}
+              {a.note ? ` · ${a.note}` : ''}
+            </AppText>
+          ))}
+        </Card>
+      )}
+      {posts.map(({ post, siteName, plan, results, cautions }) => (
+        <View key={post.id} style={{ gap: space.md }}>
+          <AppText variant="title">{post.name}</AppText>
+          <AppText tone="muted">
+            {POST_KIND_LABELS[post.kind]} · {siteName} · {formatCoordinate(post.location, 'ddm')} · eye{' '}
+            {(post.groundElevationM + post.structureHeightM + post.eyeHeightM).toFixed(1)} m above datum
+            {post.sector ? ` · watch ${post.sector.fromDeg}°–${post.sector.toDeg}°` : ' · all round'}
+          </AppText>
+          {plan ? (
+            <>
+              <AppText>
+                Approved plan “{plan.title}” v{plan.version}, revision {plan.revision}, approved {when(plan.approvedAt)}.
+              </AppText>
+              <View style={{ flexDirection: wide ? 'row' : 'column', flexWrap: 'wrap', gap: space.sm }}>
+                {results.map((r) => (
+                  <Card key={`${r.targetId}|${r.conditionSetId}|${r.conditionIndex}`} style={{ gap: 2, width: wide ? 320 : '100%' }}>
+                    <AppText variant="label">{r.targetName}</AppText>
+                    <AppText variant="small" tone="muted">
+                      {r.conditionSetName} · k = {r.result.k.toFixed(2)}
+                    </AppText>
+                    <AppText variant="figure">{formatLength(r.result.detectionRangeM, 'km')}</AppText>
+                    <AppText variant="small" tone="muted">
+                      {r.result.limitedBy ? `limited by ${LIMIT_LABELS[r.result.limitedBy]}` : 'no limit found'}
+                      {r.zones.length ? ` · ${r.zones.map((z) => `${z.name}: ${z.reach}`).join(', ')}` : ''}
+                    </AppText>
+                  </Card>
+                ))}
+              </View>
+              <CautionsPanel cautions={cautions} />
+              <View style={{ alignSelf: 'flex-start' }}>
+                <Button kind="secondary" label="Open the plan" onPress={() => router.navigate({ pathname: '/plans/[planId]', params: { planId: plan.id } })} />
+              </View>
+            </>
+          ) : (
+            <Notice tone="caution">
+              <AppText>No approved plan uses this post yet. Ask your supervisor before relying on any range from it.</AppText>
+            </Notice>
+          )}
+        </View>
+      ))}
+    </Screen>
+  );
+}
