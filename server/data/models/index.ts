@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { AttachmentModel } from './attachment';
 import { AuditEventModel } from './audit-event';
 import { ConditionSetModel, TargetProfileModel } from './library';
 import { OrganizationModel } from './organization';
@@ -8,6 +9,7 @@ import { PriorityZoneModel, SiteModel } from './site';
 import { UserModel } from './user';
 
 export {
+  AttachmentModel,
   AuditEventModel,
   ConditionSetModel,
   PlanModel,
@@ -34,6 +36,7 @@ export function initModels(sequelize: Sequelize): void {
   PlanModel.register(sequelize);
   PlanRevisionModel.register(sequelize);
   PlanReviewModel.register(sequelize);
+  AttachmentModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
@@ -45,4 +48,9 @@ export function initModels(sequelize: Sequelize): void {
   PostModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
   SiteModel.hasMany(PostModel, { foreignKey: 'siteId', as: 'sitePosts' });
   PostModel.belongsTo(SiteModel, { foreignKey: 'siteId', as: 'site' });
+  // Attachments: the owner (post, site or plan) is polymorphic and checked by the use case, not by an association.
+  OrganizationModel.hasMany(AttachmentModel, { foreignKey: 'organizationId', as: 'attachments' });
+  AttachmentModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
+  UserModel.hasMany(AttachmentModel, { foreignKey: 'uploadedById', as: 'uploads' });
+  AttachmentModel.belongsTo(UserModel, { foreignKey: 'uploadedById', as: 'uploadedBy' });
 }
