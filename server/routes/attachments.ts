@@ -37,7 +37,9 @@ function uploadError(err: unknown): unknown {
   if (err instanceof multer.MulterError) {
     if (err.code === 'LIMIT_FILE_SIZE') return fileTooLarge(null);
     if (err.code === 'LIMIT_UNEXPECTED_FILE' || err.code === 'LIMIT_FILE_COUNT') {
-      return AppError.badRequest('Send one file, in the form field "file".', { file: 'Send one file, in the form field "file".' });
+      return AppError.badRequest('Send one file, in the form field "file".', {
+        file: 'Send one file, in the form field "file".',
+      });
     }
     return AppError.badRequest(`The upload form is not acceptable (${err.message.toLowerCase()}).`, {
       ...(err.field && { [err.field]: err.message }),
@@ -85,7 +87,8 @@ export function attachmentRoutes(db: Sequelize, files: FileStore, uploadTempDir 
   router.post(
     '/attachments',
     ...write,
-    (req: Request, res: Response, next: NextFunction) => receive(req, res, (err?: unknown) => next(err ? uploadError(err) : undefined)),
+    (req: Request, res: Response, next: NextFunction) =>
+      receive(req, res, (err?: unknown) => next(err ? uploadError(err) : undefined)),
     async (req, res) => {
       const file = req.file;
       try {
@@ -118,9 +121,15 @@ export function attachmentRoutes(db: Sequelize, files: FileStore, uploadTempDir 
     const { id } = parseOrThrow(Params, req.params, 'address');
     const { attachment, stream } = await openAttachment(deps, actorOf(req), id);
     const isImage = attachment.contentType.startsWith('image/');
-    res.setHeader('Content-Type', attachment.contentType.startsWith('text/') ? `${attachment.contentType}; charset=utf-8` : attachment.contentType);
+    res.setHeader(
+      'Content-Type',
+      attachment.contentType.startsWith('text/') ? `${attachment.contentType}; charset=utf-8` : attachment.contentType,
+    );
     res.setHeader('Content-Length', String(attachment.bytes));
-    res.setHeader('Content-Disposition', contentDisposition(attachment.originalName, { type: isImage ? 'inline' : 'attachment' }));
+    res.setHeader(
+      'Content-Disposition',
+      contentDisposition(attachment.originalName, { type: isImage ? 'inline' : 'attachment' }),
+    );
     // The bytes of an id never change; only this user's browser may keep them.
     res.setHeader('Cache-Control', 'private, max-age=3600');
     res.setHeader('ETag', `"${attachment.sha256}"`);

@@ -72,19 +72,21 @@ export const AttachmentSchema = z.object({
 export type Attachment = z.infer<typeof AttachmentSchema>;
 
 /** Multipart text fields sent beside the file (all strings on the wire). */
-export const AttachmentUploadFieldsSchema = z.object({
-  ownerType: z.enum(ATTACHMENT_OWNER_TYPES, { error: `Choose one of: ${ATTACHMENT_OWNER_TYPES.join(', ')}.` }),
-  ownerId: z.uuid({ error: 'Not an id.' }),
-  kind: z.enum(ATTACHMENT_KINDS, { error: `Choose one of: ${ATTACHMENT_KINDS.join(', ')}.` }),
-  caption: caption.default(''),
-  bearingDeg: z.preprocess(
-    (v) => (v === undefined || v === null || (typeof v === 'string' && v.trim() === '') ? null : Number(v)),
-    bearing.nullable(),
-  ),
-}).refine((f) => f.kind === 'photo' || f.bearingDeg === null, {
-  path: ['bearingDeg'],
-  message: 'Only photos have a bearing.',
-});
+export const AttachmentUploadFieldsSchema = z
+  .object({
+    ownerType: z.enum(ATTACHMENT_OWNER_TYPES, { error: `Choose one of: ${ATTACHMENT_OWNER_TYPES.join(', ')}.` }),
+    ownerId: z.uuid({ error: 'Not an id.' }),
+    kind: z.enum(ATTACHMENT_KINDS, { error: `Choose one of: ${ATTACHMENT_KINDS.join(', ')}.` }),
+    caption: caption.default(''),
+    bearingDeg: z.preprocess(
+      (v) => (v === undefined || v === null || (typeof v === 'string' && v.trim() === '') ? null : Number(v)),
+      bearing.nullable(),
+    ),
+  })
+  .refine((f) => f.kind === 'photo' || f.bearingDeg === null, {
+    path: ['bearingDeg'],
+    message: 'Only photos have a bearing.',
+  });
 export type AttachmentUploadFields = z.infer<typeof AttachmentUploadFieldsSchema>;
 
 export const AttachmentUpdateSchema = z.object({

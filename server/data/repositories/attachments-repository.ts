@@ -103,7 +103,12 @@ export const attachmentsRepository = {
     return row ? toAttachment(row) : null;
   },
 
-  async create(organizationId: string, uploadedById: string, input: NewAttachment, transaction: Transaction): Promise<Attachment> {
+  async create(
+    organizationId: string,
+    uploadedById: string,
+    input: NewAttachment,
+    transaction: Transaction,
+  ): Promise<Attachment> {
     const row = await AttachmentModel.create({ ...input, organizationId, uploadedById }, { transaction });
     return withoutKey((await this.find(organizationId, row.id, transaction))!);
   },

@@ -48,7 +48,9 @@ export function checkImage(bytes: Uint8Array, type: ImageContentType): { widthPx
     throw new ImageCheckError(`This ${NAME[type]} image has no readable size.`);
   }
   if (size.width > MAX_IMAGE_SIDE_PX || size.height > MAX_IMAGE_SIDE_PX) {
-    throw new ImageCheckError(`Images can be at most ${MAX_IMAGE_SIDE_PX} pixels on a side (this one is ${size.width} × ${size.height}).`);
+    throw new ImageCheckError(
+      `Images can be at most ${MAX_IMAGE_SIDE_PX} pixels on a side (this one is ${size.width} × ${size.height}).`,
+    );
   }
   const turned = type === 'image/jpeg' && (size.orientation ?? 1) >= 5;
   return turned ? { widthPx: size.height, heightPx: size.width } : { widthPx: size.width, heightPx: size.height };

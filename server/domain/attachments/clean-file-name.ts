@@ -1,3 +1,6 @@
+// eslint-disable-next-line no-control-regex
+const CONTROL = /[\u0000-\u001F\u007F]/g;
+
 /** Longest name kept, in characters (the column holds 255). */
 export const FILE_NAME_MAX = 200;
 
@@ -18,8 +21,7 @@ export const FILE_NAME_MAX = 200;
  * cleanFileName('C:\\Users\\crew\\north.jpg'); // 'north.jpg'
  */
 export function cleanFileName(name: string, fallback = 'upload'): string {
-  // eslint-disable-next-line no-control-regex
-  const base = (name.split(/[/\\]/).pop() ?? '').replace(/[\u0000-\u001F\u007F]/g, '').trim().replace(/^\.+/, '');
+  const base = (name.split(/[/\\]/).pop() ?? '').replace(CONTROL, '').trim().replace(/^\.+/, '');
   if (!base) return fallback;
   const chars = [...base];
   if (chars.length <= FILE_NAME_MAX) return base;
