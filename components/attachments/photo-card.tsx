@@ -62,8 +62,20 @@ export function PhotoCard({ photo, canEdit }: { photo: Attachment; canEdit: bool
       )}
       {canEdit && mode === 'view' ? (
         <View style={styles.actions}>
-          <Button kind="secondary" label="Edit" aria-label={`Edit photo ${label}`} onPress={() => setMode('edit')} />
-          <Button kind="quiet" label="Delete" aria-label={`Delete photo ${label}`} onPress={() => setMode('confirm-delete')} />
+          <Button
+            kind="quiet"
+            label="Edit"
+            aria-label={`Edit photo ${label}`}
+            onPress={() => setMode('edit')}
+            style={styles.compact}
+          />
+          <Button
+            kind="quiet"
+            label="Delete"
+            aria-label={`Delete photo ${label}`}
+            onPress={() => setMode('confirm-delete')}
+            style={styles.compact}
+          />
         </View>
       ) : null}
       {mode === 'confirm-delete' ? <ConfirmDelete photo={photo} onCancel={() => setMode('view')} /> : null}
@@ -161,5 +173,6 @@ const styles = StyleSheet.create({
     backgroundColor: 'rgba(255,255,255,0.92)',
   },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  compact: { paddingHorizontal: space.sm },
   confirm: { gap: space.sm, padding: space.md, borderRadius: radius.md, backgroundColor: colors.dangerSoft },
 });

@@ -5,6 +5,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
+import { useLayout } from '@/components/ui/use-layout';
 import { PhotoCard } from './photo-card';
 import { PhotoUpload } from './photo-upload';
 
@@ -13,9 +14,11 @@ const PAGE_SIZE = 24;
 /**
  * The photos of a post (or a site): thumbnails with the direction each one
  * looks and its caption. Planners add, edit and delete; everyone else reads.
- * `columns` is 2 on phones; wider panes pass more.
+ * `columns` is 2 on phones; wider panes pass more. On phones the photos come
+ * first and the upload card after them; on wide screens the card leads.
  */
 export function PhotoPanel({ owner, canEdit, columns = 2 }: { owner: AttachmentOwner; canEdit: boolean; columns?: number }) {
+  const { wide } = useLayout();
   const [page, setPage] = useState(1);
   const photos = useAttachments({ ...owner, kind: 'photo', page, pageSize: PAGE_SIZE });
   const width = `${100 / columns}%` as const;
@@ -67,8 +70,9 @@ export function PhotoPanel({ owner, canEdit, columns = 2 }: { owner: AttachmentO
   return (
     <View style={{ gap: space.md }} aria-label="Photo panel">
       <AppText variant="heading">Photos{total ? ` (${total})` : ''}</AppText>
-      {canEdit ? <PhotoUpload owner={owner} /> : null}
+      {canEdit && wide ? <PhotoUpload owner={owner} /> : null}
       {body}
+      {canEdit && !wide ? <PhotoUpload owner={owner} /> : null}
     </View>
   );
 }

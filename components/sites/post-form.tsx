@@ -155,15 +155,6 @@ export function PostForm({
   return (
     <Card accent="moss" aria-label={post ? 'Edit post' : 'New post'}>
       <AppText variant="heading">{post ? 'Edit this post' : 'Add a post'}</AppText>
-      {stale ? (
-        <Notice tone="danger" title="Not saved: this post changed">
-          <AppText>
-            Someone else saved this post after you opened it, so your changes were not saved. Reload to see their version, then
-            make your change again.
-          </AppText>
-          {onReload ? <Button kind="secondary" label="Reload the post" onPress={onReload} /> : null}
-        </Notice>
-      ) : null}
       <FormError message={formError} />
       <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
       <Segmented<Kind>
@@ -248,6 +239,16 @@ export function PostForm({
           { value: 'proposed', label: 'Proposed' },
         ]}
       />
+      {/* Beside the button just pressed, so it is seen on a phone too. */}
+      {stale ? (
+        <Notice tone="danger" title="Not saved: this post changed">
+          <AppText>
+            Someone else saved this post after you opened it, so your changes were not saved. Reload to see their version, then
+            make your change again.
+          </AppText>
+          {onReload ? <Button kind="secondary" label="Reload the post" onPress={onReload} /> : null}
+        </Notice>
+      ) : null}
       <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
         <Button label={post ? 'Save changes' : 'Save post'} onPress={submit} busy={saving.isPending} />
         {post ? (

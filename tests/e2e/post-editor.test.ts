@@ -12,15 +12,24 @@ beforeAll(async () => {
 });
 afterAll(() => close());
 
-/** A 320 × 240 picture of a ridge line under a sky, written by pngjs. */
+/**
+ * A 640 × 480 picture of a ridge line under a sky, written by pngjs, with film
+ * grain from a fixed pseudo-random sequence so it does not compress to nothing
+ * (a few hundred kB, enough for the upload to take visible time when throttled).
+ */
 function ridgePng(): Buffer {
-  const png = new PNG({ width: 320, height: 240 });
-  for (let y = 0; y < 240; y++) {
-    for (let x = 0; x < 320; x++) {
-      const ridge = 150 + 25 * Math.sin(x / 30) + 10 * Math.sin(x / 7);
-      const i = (y * 320 + x) * 4;
-      const px = y < ridge ? [150 + y / 3, 185 + y / 4, 225, 255] : [60, 95 - (y - ridge) / 4, 55, 255];
-      png.data.set(px.map(Math.round), i);
+  const [w, h] = [640, 480];
+  const png = new PNG({ width: w, height: h });
+  let seed = 12345;
+  const grain = () => {
+    seed = (seed * 1103515245 + 12345) % 2147483648; // the ANSI C example LCG
+    return (seed / 2147483648 - 0.5) * 24;
+  };
+  for (let y = 0; y < h; y++) {
+    for (let x = 0; x < w; x++) {
+      const ridge = 300 + 50 * Math.sin(x / 60) + 20 * Math.sin(x / 14);
+      const px = y < ridge ? [150 + y / 6, 185 + y / 8, 225] : [60, 95 - (y - ridge) / 8, 55];
+      png.data.set([...px.map((v) => Math.max(0, Math.min(255, Math.round(v + grain())))), 255], (y * w + x) * 4);
     }
   }
   return PNG.sync.write(png);
@@ -81,35 +90,60 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('the post page on the %s
       await page.getByLabel('Post details').getByText('435.0 m').waitFor(); // 412 + 21 + 2
       await page.getByRole('heading', { name, exact: true }).waitFor();
 
-      // Upload a photo with its bearing; the answer is held back a moment so the progress bar shows.
-      await page.route('**/api/v1/attachments', async (route) => {
-        if (route.request().method() === 'POST') await new Promise((r) => setTimeout(r, 1500));
-        await route.continue();
-      });
+      // Upload a photo with its bearing over a slow uplink (Chromium's network throttling), so the progress shows.
+      const cdp = await context.newCDPSession(page);
+      await cdp.send('Network.enable');
+      const uplink = (bytesPerSecond: number) =>
+        cdp.send('Network.emulateNetworkConditions', {
+          offline: false,
+          latency: 0,
+          downloadThroughput: -1,
+          uploadThroughput: bytesPerSecond,
+        });
+      const picture = ridgePng();
+      await uplink(picture.length / 3); // about three seconds
       const add = page.getByLabel('Add a photo');
       await add.getByLabel('Bearing').fill('45');
       await add.getByLabel('Caption').fill('Over the old burn to the ridge');
       const chooser = page.waitForEvent('filechooser');
       await add.getByRole('button', { name: 'Choose a photo…' }).click();
-      await (await chooser).setFiles({ name: 'north-east.png', mimeType: 'image/png', buffer: ridgePng() });
+      await (await chooser).setFiles({ name: 'north-east.png', mimeType: 'image/png', buffer: picture });
       await add.getByText('north-east.png').waitFor();
       await add.getByRole('button', { name: 'Upload photo' }).click();
       await add.getByRole('progressbar').waitFor();
+      // The bar moves: some share sent, not all of it.
+      await page.waitForFunction(() => {
+        const now = Number(document.querySelector('[role="progressbar"]')?.getAttribute('aria-valuenow'));
+        return now > 0 && now < 100;
+      });
       await shot(page, 'post-uploading', viewport);
       await add.getByText('Added north-east.png.').waitFor();
+      await uplink(-1);
       expect(await add.getByRole('progressbar').count()).toBe(0);
 
       const thumb = page.getByRole('img', { name: 'View towards 045° NE: Over the old burn to the ridge' });
       await thumb.waitFor();
       const card = page.getByLabel('Photo Over the old burn to the ridge');
       await card.getByText('045° NE').waitFor();
-      await card.getByText(/320 × 240 px/).waitFor();
-      // The thumbnail really loaded the picture from the server.
-      const img = await thumb.locator('img').elementHandle();
+      await card.getByText(/640 × 480 px/).waitFor();
+      // The thumbnail really loaded the picture from the server (react-native-web renders an <img> with the label as alt).
+      const img = await thumb.elementHandle();
       await page.waitForFunction((el) => (el as HTMLImageElement).complete && (el as HTMLImageElement).naturalWidth > 0, img);
-      expect(await img!.evaluate((el) => (el as HTMLImageElement).naturalWidth)).toBe(320);
+      expect(await img!.evaluate((el) => (el as HTMLImageElement).naturalWidth)).toBe(640);
       expect(await card.getByText('The picture could not be loaded.').count()).toBe(0);
       await shot(page, 'post-photo', viewport);
+
+      // Turn the bearing, then delete the photo.
+      await card.getByRole('button', { name: 'Edit photo Over the old burn to the ridge' }).click();
+      await card.getByLabel('Bearing').fill('400');
+      await card.getByRole('button', { name: 'Save' }).click();
+      await card.getByText('Bearings run 0–360°.').waitFor();
+      await card.getByLabel('Bearing').fill('92');
+      await card.getByRole('button', { name: 'Save' }).click();
+      await card.getByText('092° E').waitFor();
+      await card.getByRole('button', { name: 'Delete photo Over the old burn to the ridge' }).click();
+      await card.getByRole('button', { name: 'Delete photo', exact: true }).click();
+      await page.getByText('No photos yet').waitFor();
       expect(errors).toEqual([]);
     } finally {
       await context.close();
