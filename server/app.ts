@@ -10,6 +10,7 @@ import { sessionMiddleware } from './http/session';
 import { createCaughtMailClient } from './mail/caught-mail-client';
 import type { Mailer } from './mail/mailer';
 import type { FileStore } from './storage/file-store';
+import { attachmentRoutes } from './routes/attachments';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
@@ -26,6 +27,8 @@ export interface AppDeps {
   mailer?: Mailer | null;
   /** Where uploaded bytes are kept (attachments, terrain). */
   files: FileStore;
+  /** Folder for uploads still being received (default: `kenning-uploads` in the system temp folder). */
+  uploadTempDir?: string;
   config: Pick<
     Config,
     | 'SESSION_SECRET'
@@ -42,7 +45,7 @@ export interface AppDeps {
 const publicUrl = (req: Request) => `${req.protocol}://${req.get('host') ?? 'localhost'}`;
 
 /** Builds the Express app (API + the exported web app) without listening. */
-export function createApp({ db, config, mailer = null }: AppDeps) {
+export function createApp({ db, config, mailer = null, files, uploadTempDir }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
@@ -88,6 +91,7 @@ export function createApp({ db, config, mailer = null }: AppDeps) {
   v1.use(libraryRoutes(db));
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(rosterRoutes(db));
+  v1.use(attachmentRoutes(db, files, uploadTempDir));
   v1.use(userRoutes(db, publicUrl, mailer));
   v1.use(caughtMailRoutes(config.CAUGHT_MAIL_URL ? createCaughtMailClient(config.CAUGHT_MAIL_URL) : null));
   api.use('/v1', v1);

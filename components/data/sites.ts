@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { PostListSchema, PostSchema, SiteListSchema, SiteSchema, type PostInput } from '@/shared/schemas/site';
+import { PostListSchema, PostSchema, SiteListSchema, SiteSchema, type Post, type PostInput } from '@/shared/schemas/site';
 import { api } from './api-client';
 
 export const siteKeys = {
@@ -40,10 +40,25 @@ export function useSitePosts(id: string) {
   return useQuery(sitePostsQuery(id));
 }
 
+/** One post of a site, read from the site's post list (null when the site has no such post). */
+export function usePost(siteId: string, postId: string) {
+  return useQuery({ ...sitePostsQuery(siteId), select: (posts: Post[]) => posts.find((p) => p.id === postId) ?? null });
+}
+
 export function useCreatePost(siteId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (input: PostInput) => api.post(`/v1/sites/${siteId}/posts`, input, z.object({ post: PostSchema })),
     onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.all }),
+  });
+}
+
+/** Saves changes to a post with the version last seen (409 `stale_version` when someone else saved first). */
+export function useUpdatePost(siteId: string, postId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: Partial<PostInput> & { version: number }) =>
+      (await api.patch(`/v1/sites/${siteId}/posts/${postId}`, input, z.object({ post: PostSchema }))).post,
+    onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.detail(siteId) }),
   });
 }

@@ -3,14 +3,14 @@ import { View } from 'react-native';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { parseCoordinate } from '@/shared/geo/parse-coordinate';
-import { POST_KIND_LABELS, POST_KINDS, PostInputSchema, type PostInput } from '@/shared/schemas/site';
+import { POST_KIND_LABELS, POST_KINDS, PostInputSchema, type Post, type PostInput } from '@/shared/schemas/site';
 import { ApiRequestError } from '@/components/data/api-client';
-import { useCreatePost } from '@/components/data/sites';
+import { useCreatePost, useUpdatePost } from '@/components/data/sites';
 import { Segmented } from '@/components/check/unit-switch';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { FormError } from '@/components/ui/states';
+import { FormError, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 
@@ -26,7 +26,23 @@ const EMPTY = {
   sectorFrom: '',
   sectorTo: '',
 };
-type Errors = Partial<Record<keyof typeof EMPTY, string>>;
+type Values = typeof EMPTY;
+type Errors = Partial<Record<keyof Values, string>>;
+
+/** The form's text values for an existing post. */
+function valuesOf(p: Post): Values {
+  return {
+    name: p.name,
+    kind: p.kind,
+    location: formatCoordinate(p.location, 'dd'),
+    ground: String(p.groundElevationM),
+    structure: String(p.structureHeightM),
+    eye: String(p.eyeHeightM),
+    status: p.status,
+    sectorFrom: p.sector ? String(p.sector.fromDeg) : '',
+    sectorTo: p.sector ? String(p.sector.toDeg) : '',
+  };
+}
 
 const FIELD: Record<string, keyof typeof EMPTY> = {
   name: 'name',
@@ -39,12 +55,32 @@ const FIELD: Record<string, keyof typeof EMPTY> = {
   'sector.toDeg': 'sectorTo',
 };
 
-/** New post: coordinates in any usual format (DD, DDM, DMS, UTM), heights in metres. */
-export function PostForm({ siteId, onDone }: { siteId: string; onDone?: () => void }) {
-  const [v, setV] = useState(EMPTY);
+/**
+ * A post's form: a new post, or — given `post` — an edit of that post saved
+ * with the version it was loaded at. Coordinates in any usual format (DD,
+ * DDM, DMS, UTM), heights in metres. When someone else saved the post first
+ * the form says so and offers `onReload` (the parent remounts the form with
+ * the new version).
+ */
+export function PostForm({
+  siteId,
+  post,
+  onDone,
+  onReload,
+}: {
+  siteId: string;
+  post?: Post;
+  onDone?: () => void;
+  onReload?: () => void;
+}) {
+  const initial = post ? valuesOf(post) : EMPTY;
+  const [v, setV] = useState(initial);
   const [errors, setErrors] = useState<Errors>({});
   const [formError, setFormError] = useState('');
+  const [stale, setStale] = useState(false);
   const create = useCreatePost(siteId);
+  const update = useUpdatePost(siteId, post?.id ?? '');
+  const saving = post ? update : create;
   const set = (k: keyof typeof EMPTY) => (text: string) => setV((f) => ({ ...f, [k]: text }));
 
   let parsed: ReturnType<typeof parseCoordinate> | null = null;
@@ -59,11 +95,18 @@ export function PostForm({ siteId, onDone }: { siteId: string; onDone?: () => vo
 
   const submit = () => {
     setFormError('');
+    setStale(false);
     const num = (t: string) => (t.trim() === '' ? undefined : Number(t.replace(',', '.')));
     const candidate = {
       name: v.name,
       kind: v.kind,
-      location: parsed ? { latDeg: parsed.latDeg, lonDeg: parsed.lonDeg } : undefined,
+      // An untouched location keeps its full precision (the text shows it rounded to about a metre).
+      location:
+        post && v.location === initial.location
+          ? post.location
+          : parsed
+            ? { latDeg: parsed.latDeg, lonDeg: parsed.lonDeg }
+            : undefined,
       groundElevationM: num(v.ground),
       structureHeightM: num(v.structure),
       eyeHeightM: num(v.eye),
@@ -81,28 +124,37 @@ export function PostForm({ siteId, onDone }: { siteId: string; onDone?: () => vo
     }
     setErrors(next);
     if (!result.success || Object.keys(next).length) return;
-    create.mutate(result.data as PostInput, {
-      onSuccess: () => {
-        setV(EMPTY);
-        onDone?.();
-      },
-      onError: (e) => {
-        if (e instanceof ApiRequestError) {
-          const fromServer: Errors = {};
-          for (const [path, msg] of Object.entries(e.fields)) {
-            const key = FIELD[path] ?? FIELD[path.split('.')[0] ?? ''];
-            if (key) fromServer[key] = msg;
-          }
-          setErrors(fromServer);
+    const onError = (e: Error) => {
+      if (e instanceof ApiRequestError) {
+        if (e.code === 'stale_version') {
+          setStale(true);
+          return;
         }
-        setFormError(e.message);
-      },
-    });
+        const fromServer: Errors = {};
+        for (const [path, msg] of Object.entries(e.fields)) {
+          const key = FIELD[path] ?? FIELD[path.split('.')[0] ?? ''];
+          if (key) fromServer[key] = msg;
+        }
+        setErrors(fromServer);
+      }
+      setFormError(e.message);
+    };
+    if (post) {
+      update.mutate({ ...(result.data as PostInput), version: post.version }, { onSuccess: () => onDone?.(), onError });
+    } else {
+      create.mutate(result.data as PostInput, {
+        onSuccess: () => {
+          setV(EMPTY);
+          onDone?.();
+        },
+        onError,
+      });
+    }
   };
 
   return (
-    <Card accent="moss" aria-label="New post">
-      <AppText variant="heading">Add a post</AppText>
+    <Card accent="moss" aria-label={post ? 'Edit post' : 'New post'}>
+      <AppText variant="heading">{post ? 'Edit this post' : 'Add a post'}</AppText>
       <FormError message={formError} />
       <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
       <Segmented<Kind>
@@ -187,7 +239,30 @@ export function PostForm({ siteId, onDone }: { siteId: string; onDone?: () => vo
           { value: 'proposed', label: 'Proposed' },
         ]}
       />
-      <Button label="Save post" onPress={submit} busy={create.isPending} />
+      {/* Beside the button just pressed, so it is seen on a phone too. */}
+      {stale ? (
+        <Notice tone="danger" title="Not saved: this post changed">
+          <AppText>
+            Someone else saved this post after you opened it, so your changes were not saved. Reload to see their version, then
+            make your change again.
+          </AppText>
+          {onReload ? <Button kind="secondary" label="Reload the post" onPress={onReload} /> : null}
+        </Notice>
+      ) : null}
+      <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
+        <Button label={post ? 'Save changes' : 'Save post'} onPress={submit} busy={saving.isPending} />
+        {post ? (
+          <Button
+            kind="quiet"
+            label="Discard changes"
+            onPress={() => {
+              setV(initial);
+              setErrors({});
+              setFormError('');
+            }}
+          />
+        ) : null}
+      </View>
     </Card>
   );
 }

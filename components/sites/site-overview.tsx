@@ -1,4 +1,5 @@
-import { View } from 'react-native';
+import { useRouter } from 'expo-router';
+import { Pressable, View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { POST_KIND_LABELS, SITE_KIND_LABELS } from '@/shared/schemas/site';
 import { useSession } from '@/components/data/session';
@@ -19,6 +20,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
   const posts = useSitePosts(siteId);
   const { data: user } = useSession();
   const { wide } = useLayout();
+  const router = useRouter();
   if (site.isPending) return <LoadingState label="Loading the site…" />;
   if (site.isError) return <ErrorState error={site.error} onRetry={() => void site.refetch()} />;
   const s = site.data;
@@ -46,17 +48,24 @@ export function SiteOverview({ siteId }: { siteId: string }) {
             />
           ) : (
             list.map((p) => (
-              <Card key={p.id} aria-label={p.name} style={{ gap: space.xs }}>
-                <AppText variant="heading">{p.name}</AppText>
-                <AppText variant="small" tone="muted">
-                  {POST_KIND_LABELS[p.kind]} · {p.status} · {formatCoordinate(p.location, 'ddm')}
-                </AppText>
-                <AppText variant="small">
-                  Eye {eye(p).toFixed(1)} m above datum (ground {p.groundElevationM} m + structure {p.structureHeightM} m + eye{' '}
-                  {p.eyeHeightM} m)
-                  {p.sector ? ` · sector ${p.sector.fromDeg}°–${p.sector.toDeg}°` : ' · all round'}
-                </AppText>
-              </Card>
+              <Pressable
+                key={p.id}
+                role="link"
+                aria-label={p.name}
+                onPress={() => router.navigate({ pathname: '/sites/[siteId]/posts/[postId]', params: { siteId, postId: p.id } })}
+              >
+                <Card style={{ gap: space.xs }}>
+                  <AppText variant="heading">{p.name}</AppText>
+                  <AppText variant="small" tone="muted">
+                    {POST_KIND_LABELS[p.kind]} · {p.status} · {formatCoordinate(p.location, 'ddm')}
+                  </AppText>
+                  <AppText variant="small">
+                    Eye {eye(p).toFixed(1)} m above datum (ground {p.groundElevationM} m + structure {p.structureHeightM} m + eye{' '}
+                    {p.eyeHeightM} m)
+                    {p.sector ? ` · sector ${p.sector.fromDeg}°–${p.sector.toDeg}°` : ' · all round'}
+                  </AppText>
+                </Card>
+              </Pressable>
             ))
           )}
         </View>

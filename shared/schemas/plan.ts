@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { listQuerySchema, pageOf } from './list';
+import { patchOf } from './patch-of';
 import { SightlineResultSchema } from './sightline';
 
 export const PLAN_STATUSES = ['draft', 'submitted', 'returned', 'approved', 'superseded'] as const;
@@ -29,9 +30,10 @@ export const PlanInputSchema = z.object({
 });
 export type PlanInput = z.infer<typeof PlanInputSchema>;
 
-export const PlanUpdateSchema = PlanInputSchema.omit({ siteId: true })
-  .partial()
-  .extend({ rowVersion: z.number({ error: 'Send the version you last saw.' }).int() });
+/** Changes to a plan: a field left out stays as stored (no defaults). */
+export const PlanUpdateSchema = patchOf(PlanInputSchema.omit({ siteId: true })).extend({
+  rowVersion: z.number({ error: 'Send the version you last saw.' }).int(),
+});
 
 const Person = z.object({ id: z.uuid(), name: z.string(), role: z.string() });
 

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { LatLonSchema } from './coordinate';
 import { listQuerySchema, pageOf } from './list';
+import { patchOf } from './patch-of';
 
 export const SITE_KINDS = ['forest-district', 'coast-stretch', 'search-area'] as const;
 export const SiteKindSchema = z.enum(SITE_KINDS, { error: `Choose one of: ${SITE_KINDS.join(', ')}.` });
@@ -86,7 +87,8 @@ export const SiteInputSchema = z.object({
 });
 export type SiteInput = z.infer<typeof SiteInputSchema>;
 
-export const SiteUpdateSchema = SiteInputSchema.partial().extend({
+/** Changes to a site (a field left out stays as it is) and the version last seen. */
+export const SiteUpdateSchema = patchOf(SiteInputSchema).extend({
   version: z.number({ error: 'Send the version you last saw.' }).int(),
 });
 
@@ -150,7 +152,8 @@ export const PostInputSchema = z.object({
 });
 export type PostInput = z.infer<typeof PostInputSchema>;
 
-export const PostUpdateSchema = PostInputSchema.partial().extend({
+/** Changes to a post (a field left out stays as it is) and the version last seen. */
+export const PostUpdateSchema = patchOf(PostInputSchema).extend({
   version: z.number({ error: 'Send the version you last saw.' }).int(),
 });
 

@@ -232,6 +232,17 @@ describe('coverage plan review cycle', () => {
     );
   });
 
+  it('keeps the fields a partial update leaves out (regression: defaults reset the standard)', async () => {
+    const { plan } = (
+      await planner
+        .post('/api/v1/plans')
+        .send({ ...body, title: 'Partial', standard: { minSeenPct: 85, priorityMinPosts: 3 } })
+        .expect(201)
+    ).body;
+    const edited = await planner.patch(`/api/v1/plans/${plan.id}`).send({ title: 'Partial, renamed', rowVersion: 0 }).expect(200);
+    expect(edited.body.plan).toMatchObject({ title: 'Partial, renamed', standard: { minSeenPct: 85, priorityMinPosts: 3 } });
+  });
+
   it('keeps other organisations out (404) and stops stale edits (409)', async () => {
     const { body: created } = await planner
       .post('/api/v1/plans')

@@ -1,5 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import { AssignmentModel } from './assignment';
+import { AttachmentModel } from './attachment';
 import { AuditEventModel } from './audit-event';
 import { ConditionSetModel, TargetProfileModel } from './library';
 import { OrganizationModel } from './organization';
@@ -10,6 +11,7 @@ import { UserModel } from './user';
 
 export {
   AssignmentModel,
+  AttachmentModel,
   AuditEventModel,
   ConditionSetModel,
   PlanModel,
@@ -37,6 +39,7 @@ export function initModels(sequelize: Sequelize): void {
   PlanRevisionModel.register(sequelize);
   PlanReviewModel.register(sequelize);
   AssignmentModel.register(sequelize);
+  AttachmentModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
@@ -53,4 +56,9 @@ export function initModels(sequelize: Sequelize): void {
   AssignmentModel.belongsTo(PostModel, { foreignKey: 'postId', as: 'post' });
   UserModel.hasMany(AssignmentModel, { foreignKey: 'userId', as: 'assignments' });
   AssignmentModel.belongsTo(UserModel, { foreignKey: 'userId', as: 'user' });
+  // Attachments: the owner (post, site or plan) is polymorphic and checked by the use case, not by an association.
+  OrganizationModel.hasMany(AttachmentModel, { foreignKey: 'organizationId', as: 'attachments' });
+  AttachmentModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
+  UserModel.hasMany(AttachmentModel, { foreignKey: 'uploadedById', as: 'uploads' });
+  AttachmentModel.belongsTo(UserModel, { foreignKey: 'uploadedById', as: 'uploadedBy' });
 }

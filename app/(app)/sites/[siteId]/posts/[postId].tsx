@@ -1,0 +1,37 @@
+import { useLocalSearchParams } from 'expo-router';
+import { z } from 'zod';
+import { usePost } from '@/components/data/sites';
+import { PostEditor } from '@/components/sites/post-editor';
+import { AppText } from '@/components/ui/app-text';
+import { Screen } from '@/components/ui/screen';
+import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+
+const Params = z.object({ siteId: z.uuid(), postId: z.uuid() });
+
+export default function PostScreen() {
+  const parsed = Params.safeParse(useLocalSearchParams());
+  if (!parsed.success) {
+    return (
+      <Screen title="Post">
+        <Notice tone="danger">
+          <AppText>This address does not name a post.</AppText>
+        </Notice>
+      </Screen>
+    );
+  }
+  return <PostRoute {...parsed.data} />;
+}
+
+function PostRoute({ siteId, postId }: z.infer<typeof Params>) {
+  const post = usePost(siteId, postId);
+  if (post.isPending) return <LoadingState label="Loading the post…" />;
+  if (post.isError) return <ErrorState error={post.error} onRetry={() => void post.refetch()} />;
+  if (!post.data) {
+    return (
+      <Screen title="Post">
+        <EmptyState title="No such post" body="This post was removed, or it belongs to another site." />
+      </Screen>
+    );
+  }
+  return <PostEditor siteId={siteId} post={post.data} onReload={() => void post.refetch()} />;
+}
