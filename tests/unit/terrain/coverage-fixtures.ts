@@ -29,3 +29,15 @@ export function classesFrom(grid: RasterGrid, rule: (col: number, row: number) =
   }
   return classes;
 }
+
+/** Number of positions where two arrays of the same length differ (NaN equals NaN); fast on big rasters. */
+export function mismatches(a: ArrayLike<number>, b: ArrayLike<number>): number {
+  if (a.length !== b.length) return Math.max(a.length, b.length);
+  let n = 0;
+  for (let i = 0; i < a.length; i++) {
+    const x = a[i] as number;
+    const y = b[i] as number;
+    if (x !== y && !(x !== x && y !== y)) n++;
+  }
+  return n;
+}
