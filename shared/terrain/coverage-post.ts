@@ -1,7 +1,6 @@
 import { checkLayer } from '@/shared/terrain/check-layer';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { RasterGrid } from '@/shared/terrain/terrain-raster';
-import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 
 /**
  * The part of the horizon a post watches, as true bearings: clockwise from
@@ -45,15 +44,22 @@ export interface CoveragePost {
   readonly maxDistance?: number;
 }
 
-const ALL_ROUND = 0;
-const NARROW = 1; // width ≤ π: inside both half-planes
-const WIDE = 2; // width > π: outside the (narrow) complement
+/** How a prepared post's sector is tested (see {@link PreparedCoveragePost.kind}). */
+export const SECTOR_KIND = {
+  /** No sector: every direction. */
+  allRound: 0,
+  /** Width ≤ 180°: inside both half-planes of its edges. */
+  narrow: 1,
+  /** Width > 180°: outside the narrow complement. */
+  wide: 2,
+} as const;
 
-/** Relative allowance on the sector test, so a cell on a boundary ray counts as inside. */
-const SECTOR_TOLERANCE = 1e-9; // radians; common practice, no source
-
-/** A checked post with its sector as grid-north unit vectors; see {@link prepareCoveragePosts}. */
-export class PreparedCoveragePost {
+/**
+ * A checked post with its sector as grid unit vectors, made by
+ * {@link prepareCoveragePosts}. Plain data, so hot loops read the fields
+ * directly; `insideSector` tests a direction against it.
+ */
+export interface PreparedCoveragePost {
   /** Column of the post's cell. */
   readonly col: number;
   /** Row of the post's cell. */
@@ -62,48 +68,13 @@ export class PreparedCoveragePost {
   readonly classes: Uint8Array;
   /** Squared range limit, cells² (Infinity when unlimited). */
   readonly range2: number;
-  /** ALL_ROUND, NARROW or WIDE. */
-  private readonly kind: number;
-  /** Grid unit vector (east, north) of the sector's start, then of its end. */
-  private readonly fx: number;
-  private readonly fy: number;
-  private readonly tx: number;
-  private readonly ty: number;
-
-  constructor(col: number, row: number, classes: Uint8Array, range2: number, kind: number, fromGrid = 0, toGrid = 0) {
-    this.col = col;
-    this.row = row;
-    this.classes = classes;
-    this.range2 = range2;
-    this.kind = kind;
-    this.fx = Math.sin(fromGrid);
-    this.fy = Math.cos(fromGrid);
-    this.tx = Math.sin(toGrid);
-    this.ty = Math.cos(toGrid);
-  }
-
-  /**
-   * Whether the post sees the target in cell `index`, whose centre lies `dx`
-   * cells east and `dy` cells north of the post's cell centre: the class is
-   * seen or target-only and the direction is inside the sector (boundaries
-   * included; the post's own cell always is).
-   */
-  sees(index: number, dx: number, dy: number): boolean {
-    const c = this.classes[index];
-    if (c !== VISIBILITY_CLASS.seen && c !== VISIBILITY_CLASS.targetOnly) return false;
-    if (this.kind === ALL_ROUND || (dx === 0 && dy === 0)) return true;
-    const tolerance = SECTOR_TOLERANCE * ((dx < 0 ? -dx : dx) + (dy < 0 ? -dy : dy));
-    // cross(f, d) ≤ 0: d is clockwise of f; cross(d, t) ≤ 0: t is clockwise of d.
-    const a = this.fx * dy - this.fy * dx;
-    const b = dx * this.ty - dy * this.tx;
-    if (this.kind === NARROW) return a <= tolerance && b <= tolerance;
-    return a <= tolerance || b <= tolerance;
-  }
-
-  /** Whether cell `index` (dx, dy cells from the post) lacks terrain data: class none within range. */
-  lacksData(index: number, dx: number, dy: number): boolean {
-    return this.classes[index] === VISIBILITY_CLASS.none && dx * dx + dy * dy <= this.range2;
-  }
+  /** A {@link SECTOR_KIND} code. */
+  readonly kind: number;
+  /** Grid unit vector (east, north) of the sector's start (`fx`, `fy`) and end (`tx`, `ty`). */
+  readonly fx: number;
+  readonly fy: number;
+  readonly tx: number;
+  readonly ty: number;
 }
 
 /**
@@ -124,7 +95,7 @@ export class PreparedCoveragePost {
  *   `invalid-sector` (with `field` = `posts.N…`)
  * @example
  * const [prepared] = prepareCoveragePosts(grid, [{ col: 10, row: 10, classes }]);
- * prepared.sees(10 * grid.width + 12, 2, 0); // does the post see the cell 2 east of it?
+ * insideSector(prepared, 2, 0); // is the cell 2 east of the post inside its sector?
  */
 export function prepareCoveragePosts(grid: RasterGrid, posts: readonly CoveragePost[]): PreparedCoveragePost[] {
   if (!Array.isArray(posts) || posts.length === 0) {
@@ -159,7 +130,7 @@ export function prepareCoveragePosts(grid: RasterGrid, posts: readonly CoverageP
       );
     }
     const sector = post.sector ?? null;
-    if (sector === null) return new PreparedCoveragePost(col, row, post.classes, range2, ALL_ROUND);
+    if (sector === null) return prepared(col, row, post.classes, range2, SECTOR_KIND.allRound, 0, 0);
     const { from, to } = sector;
     if (!Number.isFinite(from) || !Number.isFinite(to)) {
       throw new TerrainInputError('invalid-sector', `Post ${p}: sector bearings must be finite radians.`, `${field}.sector`);
@@ -174,8 +145,30 @@ export function prepareCoveragePosts(grid: RasterGrid, posts: readonly CoverageP
           `${field}.sector`,
         );
       }
-      return new PreparedCoveragePost(col, row, post.classes, range2, ALL_ROUND);
+      return prepared(col, row, post.classes, range2, SECTOR_KIND.allRound, 0, 0);
     }
-    return new PreparedCoveragePost(col, row, post.classes, range2, width <= Math.PI ? NARROW : WIDE, from - convergence, to - convergence);
+    return prepared(col, row, post.classes, range2, width <= Math.PI ? SECTOR_KIND.narrow : SECTOR_KIND.wide, from - convergence, to - convergence);
   });
+}
+
+function prepared(
+  col: number,
+  row: number,
+  classes: Uint8Array,
+  range2: number,
+  kind: number,
+  fromGrid: number,
+  toGrid: number,
+): PreparedCoveragePost {
+  return {
+    col,
+    row,
+    classes,
+    range2,
+    kind,
+    fx: Math.sin(fromGrid),
+    fy: Math.cos(fromGrid),
+    tx: Math.sin(toGrid),
+    ty: Math.cos(toGrid),
+  };
 }

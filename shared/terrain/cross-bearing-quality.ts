@@ -1,8 +1,10 @@
 import { checkLayer } from '@/shared/terrain/check-layer';
 import { prepareCoveragePosts, type CoveragePost } from '@/shared/terrain/coverage-post';
+import { insideSector } from '@/shared/terrain/inside-sector';
 import type { PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 
 /** Class codes stored in {@link CrossBearingRaster.classes}. */
 export const CROSS_BEARING_CLASS = {
@@ -147,9 +149,11 @@ export function crossBearingQuality(
       let k = 0;
       for (let p = 0; p < N; p++) {
         const post = prepared[p]!;
+        const v = post.classes[i];
+        if (v !== VISIBILITY_CLASS.seen && v !== VISIBILITY_CLASS.targetOnly) continue;
         const dx = col - post.col;
         const dy = post.row - row;
-        if (post.sees(i, dx, dy)) {
+        if (insideSector(post, dx, dy)) {
           ex[k] = dx;
           ey[k] = dy;
           len2[k] = dx * dx + dy * dy;

@@ -1,5 +1,8 @@
-import { prepareCoveragePosts, type CoveragePost } from '@/shared/terrain/coverage-post';
+import { prepareCoveragePosts, SECTOR_KIND, type CoveragePost } from '@/shared/terrain/coverage-post';
+import { insideSector } from '@/shared/terrain/inside-sector';
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 
 /**
  * Codes of the coverage layer drawn on the map ({@link PostsPerCellRaster.layer}):
@@ -77,34 +80,57 @@ export interface PostsPerCellRaster extends RasterGrid {
  */
 export function countPostsPerCell(grid: RasterGrid, posts: readonly CoveragePost[]): PostsPerCellRaster {
   const prepared = prepareCoveragePosts(grid, posts);
+  if (prepared.length > 65_535) throw new TerrainInputError('invalid-post', 'At most 65 535 posts can be counted.', 'posts');
   const { width: W, height: H } = grid;
-  const counts = new Uint8Array(W * H);
+  // Up to 65 535 posts without overflow; clamped to 255 below.
+  const tally = new Uint16Array(W * H);
   const noData = new Uint8Array(W * H);
+  const SEEN = VISIBILITY_CLASS.seen;
+  const TARGET_ONLY = VISIBILITY_CLASS.targetOnly;
+  const NONE = VISIBILITY_CLASS.none;
 
   for (const post of prepared) {
+    const classes = post.classes;
+    const limited = Number.isFinite(post.range2);
+    const allRound = post.kind === SECTOR_KIND.allRound;
     for (let row = 0; row < H; row++) {
       const dy = post.row - row;
       const base = row * W;
+      // Columns within the range limit on this row (all of them when unlimited).
+      let c0 = 0;
+      let c1 = W - 1;
+      if (limited) {
+        const span2 = post.range2 - dy * dy;
+        if (span2 < 0) {
+          c1 = -1;
+        } else {
+          const span = Math.floor(Math.sqrt(span2));
+          c0 = Math.max(0, post.col - span - 1);
+          c1 = Math.min(W - 1, post.col + span + 1);
+        }
+      }
       for (let col = 0; col < W; col++) {
-        const dx = col - post.col;
         const i = base + col;
-        if (post.sees(i, dx, dy)) {
-          const c = (counts[i] as number) + 1;
-          counts[i] = c > 255 ? 255 : c;
-        } else if (post.lacksData(i, dx, dy)) {
-          noData[i] = 1;
+        const c = classes[i];
+        if (c === SEEN || c === TARGET_ONLY) {
+          if (allRound || insideSector(post, col - post.col, dy)) tally[i]!++;
+        } else if (c === NONE && col >= c0 && col <= c1) {
+          const dx = col - post.col;
+          if (dx * dx + dy * dy <= post.range2) noData[i] = 1;
         }
       }
     }
   }
 
+  const counts = new Uint8Array(W * H);
   const layer = new Uint8Array(W * H);
   for (let i = 0; i < layer.length; i++) {
     if (noData[i] === 1) {
-      counts[i] = 0;
       layer[i] = COVERAGE_LAYER.noData;
     } else {
-      const c = counts[i] as number;
+      const t = tally[i] as number;
+      const c = t > 255 ? 255 : t;
+      counts[i] = c;
       layer[i] = c >= 3 ? COVERAGE_LAYER.threeOrMorePosts : c + 1;
     }
   }

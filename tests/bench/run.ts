@@ -36,6 +36,11 @@ async function main() {
     const mod = (await import(viewshed)) as { benchViewshed: () => Promise<Row[]> };
     print('Viewshed engine', await mod.benchViewshed());
   }
+  const coverage = path.join(__dirname, 'coverage.bench.ts');
+  if ((!only || only === 'coverage') && existsSync(coverage)) {
+    const mod = (await import(coverage)) as { benchCoverage: () => Promise<Row[]> };
+    print('Network coverage (10 posts, 2000², after the viewsheds)', await mod.benchCoverage());
+  }
 }
 
 main().catch((e: unknown) => {
