@@ -1,11 +1,7 @@
 import type { CoverageStandard } from '@/shared/terrain/check-coverage-standard';
 import type { ViewingSector } from '@/shared/terrain/coverage-post';
 import type { CoverageZone } from '@/shared/terrain/coverage-statistics';
-import {
-  computeHiddenHeightRaster,
-  type LookoutPost,
-  type SightConditions,
-} from '@/shared/terrain/hidden-height-raster';
+import { computeHiddenHeightRaster, type LookoutPost, type SightConditions } from '@/shared/terrain/hidden-height-raster';
 import { evaluateNetworkCoverage, type NetworkCoverage } from '@/shared/terrain/network-coverage';
 import { prepareSweepTerrain } from '@/shared/terrain/sweep-terrain';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
@@ -73,8 +69,10 @@ export function computeNetworkCoverage(
   targetHeights: readonly number[],
   setup: NetworkCoverageSetup,
 ): NetworkCoverageCase[] {
-  if (conditions.length === 0) throw new TerrainInputError('invalid-condition', 'At least one condition is needed.', 'conditions');
-  if (targetHeights.length === 0) throw new TerrainInputError('invalid-option', 'At least one target height is needed.', 'targetHeights');
+  if (conditions.length === 0)
+    throw new TerrainInputError('invalid-condition', 'At least one condition is needed.', 'conditions');
+  if (targetHeights.length === 0)
+    throw new TerrainInputError('invalid-option', 'At least one target height is needed.', 'targetHeights');
   const sweep = prepareSweepTerrain(terrain);
   const cases: NetworkCoverageCase[] = [];
   conditions.forEach((condition, conditionIndex) => {

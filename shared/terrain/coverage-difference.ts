@@ -77,7 +77,11 @@ export interface CoverageDifference extends RasterGrid {
  * const diff = compareCoverage(countsBefore, countsAfter, siteMask);
  * diff.statistics.netSeenBy1Area / 1e6; // km² more seen by at least one post after raising the tower
  */
-export function compareCoverage(before: PostsPerCellRaster, after: PostsPerCellRaster, mask: Uint8Array | null = null): CoverageDifference {
+export function compareCoverage(
+  before: PostsPerCellRaster,
+  after: PostsPerCellRaster,
+  mask: Uint8Array | null = null,
+): CoverageDifference {
   checkLayer(before, before.counts, 'Uint8Array', 'before.counts');
   checkLayer(before, before.noData, 'Uint8Array', 'before.noData');
   checkSameGrid(before, after, 'after');

@@ -117,7 +117,11 @@ export function prepareCoveragePosts(grid: RasterGrid, posts: readonly CoverageP
     checkLayer(grid, post.classes, 'Uint8Array', `${field}.classes`);
     const maxDistance = post.maxDistance ?? Infinity;
     if (!(maxDistance > 0)) {
-      throw new TerrainInputError('invalid-post', `Post ${p}: the range limit must be > 0 m, got ${maxDistance}.`, `${field}.maxDistance`);
+      throw new TerrainInputError(
+        'invalid-post',
+        `Post ${p}: the range limit must be > 0 m, got ${maxDistance}.`,
+        `${field}.maxDistance`,
+      );
     }
     const rangeCells = maxDistance / grid.cellSize;
     const range2 = rangeCells * rangeCells;
@@ -147,7 +151,15 @@ export function prepareCoveragePosts(grid: RasterGrid, posts: readonly CoverageP
       }
       return prepared(col, row, post.classes, range2, SECTOR_KIND.allRound, 0, 0);
     }
-    return prepared(col, row, post.classes, range2, width <= Math.PI ? SECTOR_KIND.narrow : SECTOR_KIND.wide, from - convergence, to - convergence);
+    return prepared(
+      col,
+      row,
+      post.classes,
+      range2,
+      width <= Math.PI ? SECTOR_KIND.narrow : SECTOR_KIND.wide,
+      from - convergence,
+      to - convergence,
+    );
   });
 }
 

@@ -170,7 +170,11 @@ export function computeCoverageStatistics(
     throw new TerrainInputError('invalid-option', `The blind-area threshold must be ≥ 0 m², got ${minArea}.`, 'blindAreaMinArea');
   }
   if (!Number.isInteger(maxListed) || maxListed < 0) {
-    throw new TerrainInputError('invalid-option', `The blind-area list length must be a whole number ≥ 0, got ${maxListed}.`, 'maxBlindAreas');
+    throw new TerrainInputError(
+      'invalid-option',
+      `The blind-area list length must be a whole number ≥ 0, got ${maxListed}.`,
+      'maxBlindAreas',
+    );
   }
   checkLayer(postsPerCell, postsPerCell.counts, 'Uint8Array', 'postsPerCell.counts');
   checkLayer(postsPerCell, postsPerCell.noData, 'Uint8Array', 'postsPerCell.noData');
@@ -182,7 +186,11 @@ export function computeCoverageStatistics(
       throw new TerrainInputError('invalid-option', `Zone ${z} needs a name.`, `zones.${z}.name`);
     }
     if (!(zone.weight > 0) || !Number.isFinite(zone.weight)) {
-      throw new TerrainInputError('invalid-option', `Zone “${zone.name}”: the weight must be > 0, got ${zone.weight}.`, `zones.${z}.weight`);
+      throw new TerrainInputError(
+        'invalid-option',
+        `Zone “${zone.name}”: the weight must be > 0, got ${zone.weight}.`,
+        `zones.${z}.weight`,
+      );
     }
     checkLayer(postsPerCell, zone.mask, 'Uint8Array', `zones.${z}.mask`);
   });
@@ -190,7 +198,11 @@ export function computeCoverageStatistics(
   const cellArea = postsPerCell.cellSize * postsPerCell.cellSize;
   const layers = { counts: postsPerCell.counts, noData: postsPerCell.noData, cross: crossBearings.classes };
   const site = areaCoverage(siteMask, layers, cellArea);
-  const zoneResults = zones.map((zone) => ({ name: zone.name, weight: zone.weight, ...areaCoverage(zone.mask, layers, cellArea) }));
+  const zoneResults = zones.map((zone) => ({
+    name: zone.name,
+    weight: zone.weight,
+    ...areaCoverage(zone.mask, layers, cellArea),
+  }));
   let zonesWeighted: CoverageStatistics['zonesWeighted'] = null;
   if (zoneResults.length > 0) {
     const totalWeight = zoneResults.reduce((sum, z) => sum + z.weight, 0);

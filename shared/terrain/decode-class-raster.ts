@@ -22,7 +22,11 @@ import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
  */
 export function decodeClassRaster(encoded: EncodedClassRaster): Uint8Array {
   if (encoded?.format !== CLASS_RASTER_ENCODING) {
-    throw new TerrainInputError('invalid-encoding', `Unknown raster encoding ${String(encoded?.format)}; expected ${CLASS_RASTER_ENCODING}.`, 'format');
+    throw new TerrainInputError(
+      'invalid-encoding',
+      `Unknown raster encoding ${String(encoded?.format)}; expected ${CLASS_RASTER_ENCODING}.`,
+      'format',
+    );
   }
   const { width, height, data } = encoded;
   if (!Number.isInteger(width) || width < 1 || !Number.isInteger(height) || height < 1 || width * height > MAX_TERRAIN_CELLS) {
@@ -54,7 +58,11 @@ export function decodeClassRaster(encoded: EncodedClassRaster): Uint8Array {
     filled += run;
   }
   if (filled !== n) {
-    throw new TerrainInputError('invalid-encoding', `The runs cover ${filled} cells; the ${width} × ${height} grid has ${n}.`, 'data');
+    throw new TerrainInputError(
+      'invalid-encoding',
+      `The runs cover ${filled} cells; the ${width} × ${height} grid has ${n}.`,
+      'data',
+    );
   }
   return values;
 }

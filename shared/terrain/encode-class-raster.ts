@@ -27,7 +27,7 @@ export function encodeClassRaster(grid: RasterGrid, values: Uint8Array): Encoded
   const n = values.length;
   // Pass 1: size of the run bytes.
   let size = 0;
-  for (let i = 0; i < n; ) {
+  for (let i = 0; i < n;) {
     const v = values[i];
     let j = i + 1;
     while (j < n && values[j] === v) j++;
@@ -37,7 +37,7 @@ export function encodeClassRaster(grid: RasterGrid, values: Uint8Array): Encoded
   // Pass 2: write them.
   const bytes = new Uint8Array(size);
   let k = 0;
-  for (let i = 0; i < n; ) {
+  for (let i = 0; i < n;) {
     const v = values[i] as number;
     let j = i + 1;
     while (j < n && values[j] === v) j++;

@@ -1,11 +1,11 @@
-import { checkCoverageStandard, type CoverageStandard, type CoverageStandardCheck } from '@/shared/terrain/check-coverage-standard';
+import {
+  checkCoverageStandard,
+  type CoverageStandard,
+  type CoverageStandardCheck,
+} from '@/shared/terrain/check-coverage-standard';
 import { checkSameGrid } from '@/shared/terrain/check-same-grid';
 import type { CoveragePost, ViewingSector } from '@/shared/terrain/coverage-post';
-import {
-  computeCoverageStatistics,
-  type CoverageStatistics,
-  type CoverageZone,
-} from '@/shared/terrain/coverage-statistics';
+import { computeCoverageStatistics, type CoverageStatistics, type CoverageZone } from '@/shared/terrain/coverage-statistics';
 import { crossBearingQuality, type CrossBearingRaster } from '@/shared/terrain/cross-bearing-quality';
 import type { HiddenHeightRaster, LookoutPost } from '@/shared/terrain/hidden-height-raster';
 import { countPostsPerCell, type PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';

@@ -55,7 +55,10 @@ export type PolygonRing = ReadonlyArray<readonly [number, number]>;
 export function rasterizePolygon(grid: RasterGrid, rings: readonly PolygonRing[]): Uint8Array {
   const { width: W, height: H, cellSize, xll, yll } = grid;
   if (!Number.isInteger(W) || W < 1 || !Number.isInteger(H) || H < 1 || !(cellSize > 0) || !Number.isFinite(cellSize)) {
-    throw new TerrainInputError('invalid-raster', `Raster size and cell size must be positive, got ${W} × ${H} at ${cellSize} m.`);
+    throw new TerrainInputError(
+      'invalid-raster',
+      `Raster size and cell size must be positive, got ${W} × ${H} at ${cellSize} m.`,
+    );
   }
   if (!Number.isFinite(xll) || !Number.isFinite(yll)) {
     throw new TerrainInputError('invalid-raster', `Raster origin must be finite, got (${xll}, ${yll}).`);

@@ -6,7 +6,10 @@
  * once beforehand and not timed (see the viewshed benchmark for them).
  * Speed figures only; nothing passes or fails.
  *
- * Timings are medians of a few runs, wall clock, after a warm-up run.
+ * Timings are medians of a few runs after a warm-up run: wall clock (the
+ * figure given) and this process's CPU time (in the detail column; it is the
+ * steadier one when other jobs share the cores). Throughput = 2000² cells /
+ * wall-clock time.
  */
 import { checkCoverageStandard } from '@/shared/terrain/check-coverage-standard';
 import { compareCoverage } from '@/shared/terrain/coverage-difference';
@@ -39,16 +42,27 @@ function median(values: number[]): number {
   return sorted[Math.floor(sorted.length / 2)] as number;
 }
 
-/** Median wall-clock time of `runs` runs after one warm-up, ms. */
-function timed(fn: () => void, runs = 3): number {
+const cpuNow = () => {
+  const usage = process.cpuUsage();
+  return (usage.user + usage.system) / 1000;
+};
+
+/**
+ * Median wall-clock and CPU time of `runs` runs after one warm-up, ms. The CPU
+ * time (this process, all threads) shows the cost when other work shares the cores.
+ */
+function timed(fn: () => void, runs = 3): { wall: number; cpu: number } {
   fn();
-  const times: number[] = [];
+  const wall: number[] = [];
+  const cpu: number[] = [];
   for (let r = 0; r < runs; r++) {
+    const c0 = cpuNow();
     const t0 = performance.now();
     fn();
-    times.push(performance.now() - t0);
+    wall.push(performance.now() - t0);
+    cpu.push(cpuNow() - c0);
   }
-  return median(times);
+  return { wall: median(wall), cpu: median(cpu) };
 }
 
 /** A ring of `n` corners around (cx, cy), metres, wobbling between 0.75 and 1 × radius. */
@@ -65,15 +79,18 @@ export async function benchCoverage(): Promise<Row[]> {
   const rows: Row[] = [];
   const cells = SIZE * SIZE;
   const mcells = (ms: number) => cells / 1e6 / (ms / 1000);
-  const add = (name: string, ms: number, detail?: string) => {
-    rows.push({ name: `${name}, ms`, value: ms, unit: 'ms', detail });
-    rows.push({ name: `${name}, throughput`, value: mcells(ms), unit: 'Mcells/s' });
+  const add = (name: string, time: { wall: number; cpu: number }, detail?: string) => {
+    const cpu = `CPU ${time.cpu.toFixed(0)} ms`;
+    rows.push({ name: `${name}, wall clock`, value: time.wall, unit: 'ms', detail: detail ? `${cpu}; ${detail}` : cpu });
+    rows.push({ name: `${name}, throughput`, value: mcells(time.wall), unit: 'Mcells/s' });
   };
 
   const terrain = generateSyntheticTerrain({ width: SIZE, height: SIZE, seed: 4243 });
   const sweep = prepareSweepTerrain(terrain);
   const posts = Array.from({ length: 10 }, (_, p) => ({ col: 150 + p * 170, row: 200 + ((p * 577) % 1600), eyeHeight: 20 }));
-  const hidden: HiddenHeightRaster[] = posts.map((post) => computeHiddenHeightRaster(terrain, post, { refractionCoefficient: 0.13 }, sweep));
+  const hidden: HiddenHeightRaster[] = posts.map((post) =>
+    computeHiddenHeightRaster(terrain, post, { refractionCoefficient: 0.13 }, sweep),
+  );
   const coveragePosts: CoveragePost[] = hidden.map((h, p) => ({
     col: h.post.col,
     row: h.post.row,
@@ -86,7 +103,10 @@ export async function benchCoverage(): Promise<Row[]> {
   const cy = terrain.yll + (SIZE * terrain.cellSize) / 2;
   const siteRing = wobblyRing(cx, cy, 0.48 * SIZE * terrain.cellSize, 2000);
   let siteMask: Uint8Array = new Uint8Array(0);
-  add('rasterizePolygon, site of 2 000 corners', timed(() => (siteMask = rasterizePolygon(terrain, [siteRing]))));
+  add(
+    'rasterizePolygon, site of 2 000 corners',
+    timed(() => (siteMask = rasterizePolygon(terrain, [siteRing]))),
+  );
   const zones = [0, 1, 2].map((z) => ({
     name: `Zone ${z + 1}`,
     weight: 3 + z,
@@ -94,12 +114,24 @@ export async function benchCoverage(): Promise<Row[]> {
   }));
 
   let counts = countPostsPerCell(terrain, coveragePosts);
-  add('countPostsPerCell, 10 posts', timed(() => (counts = countPostsPerCell(terrain, coveragePosts))));
+  add(
+    'countPostsPerCell, 10 posts',
+    timed(() => (counts = countPostsPerCell(terrain, coveragePosts))),
+  );
   let cross = crossBearingQuality(counts, coveragePosts);
-  add('crossBearingQuality, 10 posts', timed(() => (cross = crossBearingQuality(counts, coveragePosts))));
+  add(
+    'crossBearingQuality, 10 posts',
+    timed(() => (cross = crossBearingQuality(counts, coveragePosts))),
+  );
   let stats = computeCoverageStatistics(counts, cross, siteMask, zones);
-  add('computeCoverageStatistics, site + 3 zones + blind areas', timed(() => (stats = computeCoverageStatistics(counts, cross, siteMask, zones))));
-  add('checkCoverageStandard', timed(() => checkCoverageStandard(stats, STANDARD)));
+  add(
+    'computeCoverageStatistics, site + 3 zones + blind areas',
+    timed(() => (stats = computeCoverageStatistics(counts, cross, siteMask, zones))),
+  );
+  add(
+    'checkCoverageStandard',
+    timed(() => checkCoverageStandard(stats, STANDARD)),
+  );
 
   const networkPosts = hidden.map((h, p) => ({ post: posts[p]!, hidden: h, sector: coveragePosts[p]!.sector }));
   add(
@@ -112,12 +144,24 @@ export async function benchCoverage(): Promise<Row[]> {
   // posts, so the sorting path of crossBearingQuality runs.
   const thirty = [...coveragePosts, ...coveragePosts, ...coveragePosts];
   let counts30 = countPostsPerCell(terrain, thirty);
-  add('countPostsPerCell, 30 posts', timed(() => (counts30 = countPostsPerCell(terrain, thirty))));
-  add('crossBearingQuality, 30 posts', timed(() => crossBearingQuality(counts30, thirty)));
+  add(
+    'countPostsPerCell, 30 posts',
+    timed(() => (counts30 = countPostsPerCell(terrain, thirty))),
+  );
+  add(
+    'crossBearingQuality, 30 posts',
+    timed(() => crossBearingQuality(counts30, thirty)),
+  );
 
   let encoded = encodeClassRaster(terrain, counts.layer);
-  add('encodeClassRaster, coverage layer', timed(() => (encoded = encodeClassRaster(terrain, counts.layer))));
-  add('decodeClassRaster, coverage layer', timed(() => decodeClassRaster(encoded)));
+  add(
+    'encodeClassRaster, coverage layer',
+    timed(() => (encoded = encodeClassRaster(terrain, counts.layer))),
+  );
+  add(
+    'decodeClassRaster, coverage layer',
+    timed(() => decodeClassRaster(encoded)),
+  );
   rows.push({
     name: 'encoded coverage layer size',
     value: encoded.data.length / 1024,
@@ -126,7 +170,10 @@ export async function benchCoverage(): Promise<Row[]> {
   });
 
   const fewer = countPostsPerCell(terrain, coveragePosts.slice(1));
-  add('compareCoverage, 10 vs 9 posts', timed(() => compareCoverage(counts, fewer, siteMask)));
+  add(
+    'compareCoverage, 10 vs 9 posts',
+    timed(() => compareCoverage(counts, fewer, siteMask)),
+  );
   rows.push({ name: 'peak RSS of the benchmark process', value: process.resourceUsage().maxRSS / 1024, unit: 'MiB' });
   return rows;
 }

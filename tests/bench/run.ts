@@ -25,10 +25,16 @@ const print = (title: string, rows: Row[]) => {
 async function main() {
   const only = process.argv[2];
   if (!only || only === 'sightline') {
-    print('Sightline core', (await benchSightline()).map((r) => ({ name: r.name, value: r.opsPerSec, unit: 'ops/s' })));
+    print(
+      'Sightline core',
+      (await benchSightline()).map((r) => ({ name: r.name, value: r.opsPerSec, unit: 'ops/s' })),
+    );
   }
   if ((!only || only === 'api') && process.env.KENNING_BENCH_DATABASE_URL) {
-    print('Sightline API on loopback (autocannon, 10 connections, 5 s each)', await benchApi(process.env.KENNING_BENCH_DATABASE_URL));
+    print(
+      'Sightline API on loopback (autocannon, 10 connections, 5 s each)',
+      await benchApi(process.env.KENNING_BENCH_DATABASE_URL),
+    );
   }
   const viewshed = path.join(__dirname, 'viewshed.bench.ts');
   if ((!only || only === 'viewshed') && existsSync(viewshed)) {

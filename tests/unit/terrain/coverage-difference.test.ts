@@ -63,7 +63,9 @@ describe('compareCoverage', () => {
     const post = PLAIN_POSTS[1];
     const countFor = (eyeHeight: number) => {
       const hidden = computeHiddenHeightRaster(terrain, { ...post, eyeHeight }, PLAIN_CONDITIONS);
-      return countPostsPerCell(terrain, [{ col: post.col, row: post.row, classes: classifyVisibility(hidden, PLAIN_TARGET).classes }]);
+      return countPostsPerCell(terrain, [
+        { col: post.col, row: post.row, classes: classifyVisibility(hidden, PLAIN_TARGET).classes },
+      ]);
     };
     const raised = compareCoverage(countFor(5), countFor(15));
     const r0 = 3000;
@@ -93,6 +95,8 @@ describe('compareCoverage', () => {
     expect(() => compareCoverage(before, { ...after, noData: new Uint8Array(7) })).toThrow(
       expect.objectContaining({ code: 'invalid-layer', field: 'after.noData' }),
     );
-    expect(() => compareCoverage(before, after, new Uint8Array(9))).toThrow(expect.objectContaining({ code: 'invalid-layer', field: 'mask' }));
+    expect(() => compareCoverage(before, after, new Uint8Array(9))).toThrow(
+      expect.objectContaining({ code: 'invalid-layer', field: 'mask' }),
+    );
   });
 });

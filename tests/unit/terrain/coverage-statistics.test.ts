@@ -34,11 +34,18 @@ const noData = Uint8Array.from(picture.flat().map((v) => (v === N ? 1 : 0)));
 const postsPerCell: PostsPerCellRaster = { ...grid, counts, noData, layer: new Uint8Array(30), postCount: 3 };
 // Good at (3,0) and (4,0); weak at the other cells seen by two or more; a stray "good" on a
 // single-post cell (2,0) must not be counted (good needs two posts).
-const crossClasses = counts.map((c) => (c >= 2 ? CROSS_BEARING_CLASS.weak : c === 1 ? CROSS_BEARING_CLASS.single : CROSS_BEARING_CLASS.none));
+const crossClasses = counts.map((c) =>
+  c >= 2 ? CROSS_BEARING_CLASS.weak : c === 1 ? CROSS_BEARING_CLASS.single : CROSS_BEARING_CLASS.none,
+);
 crossClasses[3] = CROSS_BEARING_CLASS.good;
 crossClasses[4] = CROSS_BEARING_CLASS.good;
 crossClasses[2] = CROSS_BEARING_CLASS.good;
-const crossBearings: CrossBearingRaster = { ...grid, classes: crossClasses, bestAngle: new Float32Array(30), minCrossingAngle: Math.PI / 6 };
+const crossBearings: CrossBearingRaster = {
+  ...grid,
+  classes: crossClasses,
+  bestAngle: new Float32Array(30),
+  minCrossingAngle: Math.PI / 6,
+};
 const siteMask = Uint8Array.from(picture.flat().map((_, i) => (i % 6 === 5 ? 0 : 1)));
 const zoneA = Uint8Array.from(picture.flat().map((_, i) => (i < 12 && i % 6 < 5 ? 1 : 0))); // rows 0–1, cols 0–4
 const zoneB = new Uint8Array(30);
@@ -68,9 +75,14 @@ describe('computeCoverageStatistics on a hand-counted grid', () => {
   test('zones and their weighted mean', () => {
     const [a, b] = stats.zones;
     expect(a!.name).toBe('North strip');
-    expect([a!.total.cells, a!.unseen.cells, a!.seenBy1.cells, a!.seenBy2.cells, a!.seenBy3.cells, a!.goodCrossBearing.cells]).toEqual([
-      10, 4, 6, 3, 1, 2,
-    ]);
+    expect([
+      a!.total.cells,
+      a!.unseen.cells,
+      a!.seenBy1.cells,
+      a!.seenBy2.cells,
+      a!.seenBy3.cells,
+      a!.goodCrossBearing.cells,
+    ]).toEqual([10, 4, 6, 3, 1, 2]);
     expect([b!.total.cells, b!.noData.cells, b!.unseen.cells, b!.seenBy1.cells]).toEqual([2, 1, 1, 0]);
     expect(b!.noData.pct).toBeCloseTo(50, 10);
     expect(stats.zonesWeighted!.seenBy1Pct).toBeCloseTo((3 * 60 + 1 * 0) / 4, 10);
@@ -134,12 +146,12 @@ describe('computeCoverageStatistics on a hand-counted grid', () => {
     expect(() => computeCoverageStatistics(postsPerCell, { ...crossBearings, xll: 0 }, siteMask)).toThrow(
       expect.objectContaining({ code: 'grid-mismatch', field: 'crossBearings' }),
     );
-    expect(() => computeCoverageStatistics(postsPerCell, crossBearings, siteMask, [{ name: 'x', weight: 1, mask: new Uint8Array(3) }])).toThrow(
-      expect.objectContaining({ code: 'invalid-layer', field: 'zones.0.mask' }),
-    );
-    expect(() => computeCoverageStatistics(postsPerCell, crossBearings, siteMask, [{ name: 'x', weight: 0, mask: zoneA }])).toThrow(
-      expect.objectContaining({ code: 'invalid-option', field: 'zones.0.weight' }),
-    );
+    expect(() =>
+      computeCoverageStatistics(postsPerCell, crossBearings, siteMask, [{ name: 'x', weight: 1, mask: new Uint8Array(3) }]),
+    ).toThrow(expect.objectContaining({ code: 'invalid-layer', field: 'zones.0.mask' }));
+    expect(() =>
+      computeCoverageStatistics(postsPerCell, crossBearings, siteMask, [{ name: 'x', weight: 0, mask: zoneA }]),
+    ).toThrow(expect.objectContaining({ code: 'invalid-option', field: 'zones.0.weight' }));
     expect(() => computeCoverageStatistics(postsPerCell, crossBearings, siteMask, [], { blindAreaMinArea: -1 })).toThrow(
       expect.objectContaining({ code: 'invalid-option', field: 'blindAreaMinArea' }),
     );
@@ -196,7 +208,9 @@ describe('checkCoverageStandard', () => {
   });
 
   test('a zone with no cells on the grid fails with a reason', () => {
-    const off = computeCoverageStatistics(postsPerCell, crossBearings, siteMask, [{ name: 'Beyond the map', weight: 5, mask: new Uint8Array(30) }]);
+    const off = computeCoverageStatistics(postsPerCell, crossBearings, siteMask, [
+      { name: 'Beyond the map', weight: 5, mask: new Uint8Array(30) },
+    ]);
     const verdict = checkCoverageStandard(off, { minSeenPct: 10, priorityMinPosts: 1 });
     expect(verdict.rules[1]!.passed).toBe(false);
     expect(verdict.rules[1]!.reasons[0]).toMatch(/“Beyond the map” has no cells on the terrain grid/);
@@ -215,7 +229,9 @@ describe('checkCoverageStandard', () => {
       { minSeenPct: -1, priorityMinPosts: 2 },
       { minSeenPct: NaN, priorityMinPosts: 2 },
     ]) {
-      expect(() => checkCoverageStandard(stats, standard)).toThrow(expect.objectContaining({ code: 'invalid-standard', field: 'standard.minSeenPct' }));
+      expect(() => checkCoverageStandard(stats, standard)).toThrow(
+        expect.objectContaining({ code: 'invalid-standard', field: 'standard.minSeenPct' }),
+      );
     }
     for (const priorityMinPosts of [0, 4, 1.5]) {
       expect(() => checkCoverageStandard(stats, { minSeenPct: 70, priorityMinPosts })).toThrow(

@@ -54,7 +54,10 @@ describe('crossBearingQuality: geometry at known points', () => {
       { col: 60, row: 180, classes: all },
     ];
     const c = crossBearingQuality(countPostsPerCell(wide, two), two);
-    const at = (col: number, row: number) => ({ angle: (c.bestAngle[row * 100 + col]! * 180) / Math.PI, cls: c.classes[row * 100 + col] });
+    const at = (col: number, row: number) => ({
+      angle: (c.bestAngle[row * 100 + col]! * 180) / Math.PI,
+      cls: c.classes[row * 100 + col],
+    });
     const far = at(40, 180 - 113);
     expect(far.angle).toBeCloseTo((2 * Math.atan(20 / 113) * 180) / Math.PI, 3);
     expect(far.cls).toBe(CROSS_BEARING_CLASS.weak);
@@ -120,8 +123,7 @@ describe('crossBearingQuality against all pairs (brute force)', () => {
         const seenBy = perPost.flatMap((c, p) => (c[i] === 1 ? [p] : []));
         const k = seenBy.length;
         if (k > 16) sortedPath++;
-        const expectedClass =
-          k === 0 ? CROSS_BEARING_CLASS.none : k === 1 ? CROSS_BEARING_CLASS.single : undefined;
+        const expectedClass = k === 0 ? CROSS_BEARING_CLASS.none : k === 1 ? CROSS_BEARING_CLASS.single : undefined;
         if (expectedClass !== undefined) {
           if (cross.classes[i] !== expectedClass || !Number.isNaN(cross.bestAngle[i])) classMismatch++;
           continue;
@@ -166,7 +168,9 @@ describe('crossBearingQuality: inputs', () => {
   });
 
   test('refuses posts that do not match the counts, and bad bands', () => {
-    expect(() => crossBearingQuality(counts, [posts[0]!])).toThrow(expect.objectContaining({ code: 'invalid-post', field: 'posts' }));
+    expect(() => crossBearingQuality(counts, [posts[0]!])).toThrow(
+      expect.objectContaining({ code: 'invalid-post', field: 'posts' }),
+    );
     // Checked where the counts say two or more: here the second post no longer sees anything.
     const blind = classesFrom(grid, () => VISIBILITY_CLASS.blind);
     expect(() => crossBearingQuality(counts, [posts[0]!, { ...posts[1]!, classes: blind }])).toThrow(

@@ -35,7 +35,12 @@ function expectConsistent(result: NetworkCoverage, siteMask: Uint8Array | null):
     const c = ppc.counts[i]!;
     const k = cross.classes[i]!;
     // good ⊆ weak ∪ good ⊆ seen by ≥ 2; single ⇔ 1; none ⇔ 0 (no data included).
-    const expected = c === 0 ? [CROSS_BEARING_CLASS.none] : c === 1 ? [CROSS_BEARING_CLASS.single] : [CROSS_BEARING_CLASS.weak, CROSS_BEARING_CLASS.good];
+    const expected =
+      c === 0
+        ? [CROSS_BEARING_CLASS.none]
+        : c === 1
+          ? [CROSS_BEARING_CLASS.single]
+          : [CROSS_BEARING_CLASS.weak, CROSS_BEARING_CLASS.good];
     if (!(expected as number[]).includes(k)) broken++;
     if (ppc.noData[i] === 1 && c !== 0) broken++;
   }
@@ -52,7 +57,8 @@ function expectConsistent(result: NetworkCoverage, siteMask: Uint8Array | null):
   expect(b.area).toBeCloseTo(stats.site.unseen.area, 6);
   const listed = stats.blindAreas.reduce((sum, a) => sum + a.area, 0);
   expect(listed + b.belowThreshold.area + b.notListed.area).toBeCloseTo(b.area, 6);
-  for (let j = 1; j < stats.blindAreas.length; j++) expect(stats.blindAreas[j]!.area).toBeLessThanOrEqual(stats.blindAreas[j - 1]!.area);
+  for (let j = 1; j < stats.blindAreas.length; j++)
+    expect(stats.blindAreas[j]!.area).toBeLessThanOrEqual(stats.blindAreas[j - 1]!.area);
   for (const blind of stats.blindAreas) {
     expect(blind.area).toBeGreaterThanOrEqual(b.minArea);
     const { minCol, maxCol, minRow, maxRow } = blind.bounds;
@@ -80,7 +86,11 @@ describe('evaluateNetworkCoverage on the flat plain', () => {
 
   test('equals the functions it calls, one after the other', () => {
     const result = evaluateNetworkCoverage({ posts, targetHeight: PLAIN_TARGET, siteMask: null, standard: STANDARD });
-    const coveragePosts = hidden.map((h) => ({ col: h.post.col, row: h.post.row, classes: classifyVisibility(h, PLAIN_TARGET).classes }));
+    const coveragePosts = hidden.map((h) => ({
+      col: h.post.col,
+      row: h.post.row,
+      classes: classifyVisibility(h, PLAIN_TARGET).classes,
+    }));
     const counts = countPostsPerCell(hidden[0]!, coveragePosts);
     const cross = crossBearingQuality(counts, coveragePosts);
     expect(mismatches(result.postsPerCell.counts, counts.counts)).toBe(0);
@@ -103,7 +113,12 @@ describe('evaluateNetworkCoverage on the flat plain', () => {
     );
     const other = computeHiddenHeightRaster(flatPlain(), PLAIN_POSTS[1], { ...PLAIN_CONDITIONS, refractionCoefficient: 0.13 });
     expect(() =>
-      evaluateNetworkCoverage({ posts: [posts[0]!, { post: PLAIN_POSTS[1], hidden: other }], targetHeight: 0, siteMask: null, standard: STANDARD }),
+      evaluateNetworkCoverage({
+        posts: [posts[0]!, { post: PLAIN_POSTS[1], hidden: other }],
+        targetHeight: 0,
+        siteMask: null,
+        standard: STANDARD,
+      }),
     ).toThrow(expect.objectContaining({ code: 'invalid-condition', field: 'posts.1.hidden' }));
     expect(() =>
       evaluateNetworkCoverage({
@@ -125,7 +140,10 @@ describe('evaluateNetworkCoverage on the flat plain', () => {
     const terrain = flatPlain();
     const setupPosts: NetworkPostSetup[] = PLAIN_POSTS.map((p) => ({ ...p }));
     const conditions = [PLAIN_CONDITIONS, { ...PLAIN_CONDITIONS, refractionCoefficient: 0.25 }];
-    const cases = computeNetworkCoverage(terrain, setupPosts, conditions, [0, PLAIN_TARGET], { siteMask: null, standard: STANDARD });
+    const cases = computeNetworkCoverage(terrain, setupPosts, conditions, [0, PLAIN_TARGET], {
+      siteMask: null,
+      standard: STANDARD,
+    });
     expect(cases.map((c) => [c.conditionIndex, c.targetHeight])).toEqual([
       [0, 0],
       [0, PLAIN_TARGET],
@@ -170,8 +188,16 @@ describe('network coverage on the demo terrain (Harrowmere Forest District)', ()
       };
     });
     const siteMask = rasterizePolygon(terrain, [demo.site.boundary!.map(utm)]);
-    const zones = demo.site.priorityZones.map((z) => ({ name: z.name, weight: z.weight, mask: rasterizePolygon(terrain, [z.ring.map(utm)]) }));
-    const [ground, smoke] = computeNetworkCoverage(terrain, posts, [{ refractionCoefficient: 0.13 }], [0, 30], { siteMask, zones, standard: STANDARD });
+    const zones = demo.site.priorityZones.map((z) => ({
+      name: z.name,
+      weight: z.weight,
+      mask: rasterizePolygon(terrain, [z.ring.map(utm)]),
+    }));
+    const [ground, smoke] = computeNetworkCoverage(terrain, posts, [{ refractionCoefficient: 0.13 }], [0, 30], {
+      siteMask,
+      zones,
+      standard: STANDARD,
+    });
 
     for (const c of [ground!, smoke!]) expectConsistent(c.coverage, siteMask);
 

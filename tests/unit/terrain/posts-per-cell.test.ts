@@ -36,7 +36,11 @@ function inSectorByBearing(dx: number, dy: number, fromTrue: number, toTrue: num
 describe('countPostsPerCell on a flat plain (exact circles)', () => {
   const hidden = plainHiddenRasters();
   const grid = hidden[0]!;
-  const posts: CoveragePost[] = hidden.map((h) => ({ col: h.post.col, row: h.post.row, classes: classifyVisibility(h, PLAIN_TARGET).classes }));
+  const posts: CoveragePost[] = hidden.map((h) => ({
+    col: h.post.col,
+    row: h.post.row,
+    classes: classifyVisibility(h, PLAIN_TARGET).classes,
+  }));
   const result = countPostsPerCell(grid, posts);
   const cellArea = PLAIN_CELL * PLAIN_CELL;
 
@@ -72,7 +76,9 @@ describe('countPostsPerCell on a flat plain (exact circles)', () => {
   });
 
   test('the layer follows the 0 / 1 / 2 / 3+ convention and nothing is no-data', () => {
-    const expected = result.counts.map((c) => (c === 0 ? COVERAGE_LAYER.unseen : c === 1 ? COVERAGE_LAYER.onePost : COVERAGE_LAYER.twoPosts));
+    const expected = result.counts.map((c) =>
+      c === 0 ? COVERAGE_LAYER.unseen : c === 1 ? COVERAGE_LAYER.onePost : COVERAGE_LAYER.twoPosts,
+    );
     expect(mismatches(result.layer, expected)).toBe(0);
     expect(sum(result.layer, (v) => v === COVERAGE_LAYER.twoPosts)).toBeGreaterThan(1000);
     expect(sum(result.noData, (v) => v === 1)).toBe(0);
@@ -89,7 +95,10 @@ describe('countPostsPerCell on a flat plain (exact circles)', () => {
   test('a sector keeps only the cells whose bearing lies in it', () => {
     // The middle post watches north-east to south (45° → 180° true); the others all round.
     const sector = { from: 45 * DEG, to: 180 * DEG };
-    const withSector = countPostsPerCell(grid, posts.map((p, i) => (i === 1 ? { ...p, sector } : p)));
+    const withSector = countPostsPerCell(
+      grid,
+      posts.map((p, i) => (i === 1 ? { ...p, sector } : p)),
+    );
     const middle = countPostsPerCell(grid, [{ ...posts[1]!, sector }]);
     const b = PLAIN_POSTS[1];
     let inside = 0;
@@ -197,7 +206,10 @@ describe('countPostsPerCell: no data and range limits', () => {
     // The far corner is beyond every 2 km range: unseen, with data.
     expect(result.layer[0]).toBe(COVERAGE_LAYER.unseen);
     // Without telling the range limit, cells beyond it would look like missing data.
-    const naive = countPostsPerCell(hidden[0]!, posts.map((p) => ({ ...p, maxDistance: undefined })));
+    const naive = countPostsPerCell(
+      hidden[0]!,
+      posts.map((p) => ({ ...p, maxDistance: undefined })),
+    );
     expect(naive.noData[0]).toBe(1);
   });
 
@@ -225,10 +237,15 @@ describe('countPostsPerCell: no data and range limits', () => {
     expect(() => countPostsPerCell(grid, [{ col: 4, row: 0, classes }])).toThrow(
       expect.objectContaining({ code: 'post-outside-raster', field: 'posts.0' }),
     );
-    expect(() => countPostsPerCell(grid, [{ col: 1.5, row: 0, classes }])).toThrow(expect.objectContaining({ code: 'invalid-post' }));
-    expect(() => countPostsPerCell(grid, [{ col: 0, row: 0, classes }, { col: 0, row: 0, classes: new Uint8Array(15) }])).toThrow(
-      expect.objectContaining({ code: 'invalid-layer', field: 'posts.1.classes' }),
+    expect(() => countPostsPerCell(grid, [{ col: 1.5, row: 0, classes }])).toThrow(
+      expect.objectContaining({ code: 'invalid-post' }),
     );
+    expect(() =>
+      countPostsPerCell(grid, [
+        { col: 0, row: 0, classes },
+        { col: 0, row: 0, classes: new Uint8Array(15) },
+      ]),
+    ).toThrow(expect.objectContaining({ code: 'invalid-layer', field: 'posts.1.classes' }));
     expect(() => countPostsPerCell(grid, [{ col: 0, row: 0, classes: new Float32Array(16) as unknown as Uint8Array }])).toThrow(
       expect.objectContaining({ code: 'invalid-layer' }),
     );

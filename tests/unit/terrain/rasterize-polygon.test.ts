@@ -73,7 +73,9 @@ describe('rasterizePolygon', () => {
       if (t % 3 === 0) rings.push(randomStar(random, cx, cy, 150, 5)); // a hole
       if (t % 5 === 0) {
         // A self-crossing ring (even-odd decides).
-        rings.push(Array.from({ length: 7 }, () => [cx + (random() - 0.5) * 1500, cy + (random() - 0.5) * 1500] as [number, number]));
+        rings.push(
+          Array.from({ length: 7 }, () => [cx + (random() - 0.5) * 1500, cy + (random() - 0.5) * 1500] as [number, number]),
+        );
       }
       expect(differing(rasterizePolygon(grid, rings), bruteForce(grid, rings))).toBe(0);
     }
@@ -270,7 +272,12 @@ describeWithGdal('rasterizePolygon against gdal_rasterize', () => {
     ]);
     const bytes = readFileSync(output);
     const reference = await readGeoTiff(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
-    expect([reference.width, reference.height, reference.xll, reference.yll]).toEqual([grid.width, grid.height, grid.xll, grid.yll]);
+    expect([reference.width, reference.height, reference.xll, reference.yll]).toEqual([
+      grid.width,
+      grid.height,
+      grid.xll,
+      grid.yll,
+    ]);
     const ours = rasterizePolygon(grid, rings);
     const theirs = Uint8Array.from(reference.heights);
     expect(theirs.reduce((a, b) => a + b, 0)).toBeGreaterThan(100); // the reference burned something
