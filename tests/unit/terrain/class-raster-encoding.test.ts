@@ -68,10 +68,13 @@ describe('encodeClassRaster / decodeClassRaster', () => {
     expect(JSON.parse(JSON.stringify(encoded))).toEqual(encoded);
   });
 
-  test('does not mutate its input', () => {
+  test('neither function mutates its input', () => {
     const values = Uint8Array.from([1, 1, 2, 0]);
-    encodeClassRaster(gridOf(2, 2), values);
+    const encoded = encodeClassRaster(gridOf(2, 2), values);
     expect(Array.from(values)).toEqual([1, 1, 2, 0]);
+    const copy = { ...encoded };
+    decodeClassRaster(encoded);
+    expect(encoded).toEqual(copy);
   });
 
   test('rejects what it cannot decode', () => {

@@ -140,10 +140,12 @@ describe('evaluateNetworkCoverage on the flat plain', () => {
     const terrain = flatPlain();
     const setupPosts: NetworkPostSetup[] = PLAIN_POSTS.map((p) => ({ ...p }));
     const conditions = [PLAIN_CONDITIONS, { ...PLAIN_CONDITIONS, refractionCoefficient: 0.25 }];
+    const heights = Float32Array.from(terrain.heights);
     const cases = computeNetworkCoverage(terrain, setupPosts, conditions, [0, PLAIN_TARGET], {
       siteMask: null,
       standard: STANDARD,
     });
+    expect(mismatches(terrain.heights, heights)).toBe(0); // the terrain is not changed
     expect(cases.map((c) => [c.conditionIndex, c.targetHeight])).toEqual([
       [0, 0],
       [0, PLAIN_TARGET],
