@@ -81,7 +81,7 @@ export async function benchCoverage(): Promise<Row[]> {
   const mcells = (ms: number) => cells / 1e6 / (ms / 1000);
   const add = (name: string, time: { wall: number; cpu: number }, detail?: string) => {
     const cpu = `CPU ${time.cpu.toFixed(0)} ms`;
-    rows.push({ name: `${name}, wall clock`, value: time.wall, unit: 'ms', detail: detail ? `${cpu}; ${detail}` : cpu });
+    rows.push({ name: `${name}, wall`, value: time.wall, unit: 'ms', detail: detail ? `${cpu}; ${detail}` : cpu });
     rows.push({ name: `${name}, throughput`, value: mcells(time.wall), unit: 'Mcells/s' });
   };
 
@@ -104,7 +104,7 @@ export async function benchCoverage(): Promise<Row[]> {
   const siteRing = wobblyRing(cx, cy, 0.48 * SIZE * terrain.cellSize, 2000);
   let siteMask: Uint8Array = new Uint8Array(0);
   add(
-    'rasterizePolygon, site of 2 000 corners',
+    'rasterizePolygon, 2 000 corners',
     timed(() => (siteMask = rasterizePolygon(terrain, [siteRing]))),
   );
   const zones = [0, 1, 2].map((z) => ({
@@ -125,7 +125,7 @@ export async function benchCoverage(): Promise<Row[]> {
   );
   let stats = computeCoverageStatistics(counts, cross, siteMask, zones);
   add(
-    'computeCoverageStatistics, site + 3 zones + blind areas',
+    'statistics, site + 3 zones + blind',
     timed(() => (stats = computeCoverageStatistics(counts, cross, siteMask, zones))),
   );
   add(
@@ -135,9 +135,9 @@ export async function benchCoverage(): Promise<Row[]> {
 
   const networkPosts = hidden.map((h, p) => ({ post: posts[p]!, hidden: h, sector: coveragePosts[p]!.sector }));
   add(
-    'evaluateNetworkCoverage, 10 posts (classify + all of the above)',
+    'evaluateNetworkCoverage, 10 posts',
     timed(() => evaluateNetworkCoverage({ posts: networkPosts, targetHeight: TARGET, siteMask, zones, standard: STANDARD })),
-    'the combination step of one condition × one target height',
+    'classify + all of the above: one condition × one target',
   );
 
   // Scaling to 30 posts (the 10 rasters three times over): many cells are seen by more than 16
@@ -155,11 +155,11 @@ export async function benchCoverage(): Promise<Row[]> {
 
   let encoded = encodeClassRaster(terrain, counts.layer);
   add(
-    'encodeClassRaster, coverage layer',
+    'encodeClassRaster, layer',
     timed(() => (encoded = encodeClassRaster(terrain, counts.layer))),
   );
   add(
-    'decodeClassRaster, coverage layer',
+    'decodeClassRaster, layer',
     timed(() => decodeClassRaster(encoded)),
   );
   rows.push({
