@@ -8,6 +8,7 @@ export { toUtm } from '@/shared/geo/to-utm';
 export { fromUtm } from '@/shared/geo/from-utm';
 export { latitudeBand, LATITUDE_BANDS } from '@/shared/geo/latitude-band';
 export { utmCentralMeridian } from '@/shared/geo/utm-central-meridian';
+export { utmGridConvergence } from '@/shared/geo/utm-grid-convergence';
 export { UTM_NORTH_LIMIT_DEG, UTM_SOUTH_LIMIT_DEG } from '@/shared/geo/check-utm-area';
 export { MAX_ZONE_REACH_DEG } from '@/shared/geo/check-zone-reach';
 export type { Hemisphere, UtmCoordinate, UtmPosition } from '@/shared/geo/types';

@@ -17,14 +17,37 @@
 export class TerrainInputError extends Error {
   /** Stable machine-readable reason. */
   readonly code: TerrainInputErrorCode;
+  /**
+   * Dot-joined path of the offending input when known (`posts.2.sector`,
+   * `zones.0.mask`), for the API's `fields`; null otherwise.
+   */
+  readonly field: string | null;
 
-  constructor(code: TerrainInputErrorCode, message: string) {
+  constructor(code: TerrainInputErrorCode, message: string, field: string | null = null) {
     super(message);
     this.name = 'TerrainInputError';
     this.code = code;
+    this.field = field;
   }
 }
 
 /** Reasons a terrain-core input can be rejected. */
 export type TerrainInputErrorCode =
-  'invalid-raster' | 'invalid-post' | 'post-outside-raster' | 'post-on-nodata' | 'invalid-option' | 'invalid-condition';
+  | 'invalid-raster'
+  | 'invalid-post'
+  | 'post-outside-raster'
+  | 'post-on-nodata'
+  | 'invalid-option'
+  | 'invalid-condition'
+  /** A layer (mask, class or count raster) of the wrong type or length. */
+  | 'invalid-layer'
+  /** Two rasters that must share one grid do not. */
+  | 'grid-mismatch'
+  /** A polygon ring with too few corners or a non-finite coordinate. */
+  | 'invalid-polygon'
+  /** A viewing sector with a non-finite or zero-width span. */
+  | 'invalid-sector'
+  /** A coverage standard outside its documented range. */
+  | 'invalid-standard'
+  /** An encoded class raster that cannot be decoded. */
+  | 'invalid-encoding';

@@ -1,0 +1,102 @@
+import { checkLayer } from '@/shared/terrain/check-layer';
+import { BASE64_ALPHABET, CLASS_RASTER_ENCODING, type EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
+import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+
+/**
+ * Packs a Uint8 class raster for the map client: run-length bytes (value,
+ * LEB128 run length) written as base64 — see {@link EncodedClassRaster} for
+ * the exact format; `decodeClassRaster` reverses it. Class layers are mostly
+ * long runs of one code, so a 2000 × 2000 coverage layer of a few megabytes
+ * usually packs into tens to hundreds of kilobytes before compression of the
+ * HTTP response. Pure and isomorphic: no Node `Buffer`, no `btoa`.
+ *
+ * Source: run-length encoding (common practice, no source); unsigned LEB128
+ * (DWARF Debugging Information Format, version 4, section 7.6); base64
+ * (RFC 4648, section 4).
+ *
+ * @param grid the raster's geometry (size; cell size and origin in metres; CRS)
+ * @param values one byte per cell, row-major, row 0 = north (not modified)
+ * @returns the encoded raster (plain data, JSON-safe)
+ * @throws TerrainInputError `invalid-raster`, `invalid-layer` (field `values`)
+ * @example
+ * const packed = encodeClassRaster(counts, counts.layer);
+ * JSON.stringify(packed); // { format: 'kenning-rle8/1', width: 600, height: 600, …, data: 'AYDU…' }
+ */
+export function encodeClassRaster(grid: RasterGrid, values: Uint8Array): EncodedClassRaster {
+  checkLayer(grid, values, 'Uint8Array', 'values');
+  const n = values.length;
+  // Pass 1: size of the run bytes.
+  let size = 0;
+  for (let i = 0; i < n;) {
+    const v = values[i];
+    let j = i + 1;
+    while (j < n && values[j] === v) j++;
+    size += 1 + leb128Length(j - i);
+    i = j;
+  }
+  // Pass 2: write them.
+  const bytes = new Uint8Array(size);
+  let k = 0;
+  for (let i = 0; i < n;) {
+    const v = values[i] as number;
+    let j = i + 1;
+    while (j < n && values[j] === v) j++;
+    bytes[k++] = v;
+    let run = j - i;
+    while (run >= 0x80) {
+      bytes[k++] = (run & 0x7f) | 0x80;
+      run = Math.floor(run / 128);
+    }
+    bytes[k++] = run;
+    i = j;
+  }
+  return {
+    format: CLASS_RASTER_ENCODING,
+    width: grid.width,
+    height: grid.height,
+    cellSize: grid.cellSize,
+    xll: grid.xll,
+    yll: grid.yll,
+    epsg: grid.crs?.epsg ?? null,
+    data: toBase64(bytes),
+  };
+}
+
+function leb128Length(value: number): number {
+  let length = 1;
+  while (value >= 0x80) {
+    value = Math.floor(value / 128);
+    length++;
+  }
+  return length;
+}
+
+function toBase64(bytes: Uint8Array): string {
+  const codes = new Uint8Array(Math.ceil(bytes.length / 3) * 4);
+  const alphabet = new Uint8Array(64);
+  for (let i = 0; i < 64; i++) alphabet[i] = BASE64_ALPHABET.charCodeAt(i);
+  let o = 0;
+  let i = 0;
+  for (; i + 2 < bytes.length; i += 3) {
+    const triple = ((bytes[i] as number) << 16) | ((bytes[i + 1] as number) << 8) | (bytes[i + 2] as number);
+    codes[o++] = alphabet[triple >>> 18] as number;
+    codes[o++] = alphabet[(triple >>> 12) & 63] as number;
+    codes[o++] = alphabet[(triple >>> 6) & 63] as number;
+    codes[o++] = alphabet[triple & 63] as number;
+  }
+  const rest = bytes.length - i;
+  if (rest > 0) {
+    const b0 = bytes[i] as number;
+    const b1 = rest === 2 ? (bytes[i + 1] as number) : 0;
+    codes[o++] = alphabet[b0 >>> 2] as number;
+    codes[o++] = alphabet[((b0 & 3) << 4) | (b1 >>> 4)] as number;
+    codes[o++] = rest === 2 ? (alphabet[(b1 & 15) << 2] as number) : 61; // '='
+    codes[o++] = 61;
+  }
+  let text = '';
+  const CHUNK = 0x8000;
+  for (let c = 0; c < codes.length; c += CHUNK) {
+    text += String.fromCharCode.apply(null, codes.subarray(c, c + CHUNK) as unknown as number[]);
+  }
+  return text;
+}
