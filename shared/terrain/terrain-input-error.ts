@@ -27,4 +27,11 @@ export class TerrainInputError extends Error {
 
 /** Reasons a terrain-core input can be rejected. */
 export type TerrainInputErrorCode =
-  'invalid-raster' | 'invalid-post' | 'post-outside-raster' | 'post-on-nodata' | 'invalid-option' | 'invalid-condition';
+  | 'invalid-raster'
+  | 'invalid-post'
+  | 'post-outside-raster'
+  | 'post-on-nodata'
+  | 'point-outside-raster'
+  | 'point-on-nodata'
+  | 'invalid-option'
+  | 'invalid-condition';
