@@ -5,6 +5,7 @@ import { OrganizationModel } from './organization';
 import { PlanModel, PlanReviewModel, PlanRevisionModel } from './plan';
 import { PostModel } from './post';
 import { PriorityZoneModel, SiteModel } from './site';
+import { SiteTerrainModel } from './site-terrain';
 import { UserModel } from './user';
 
 export {
@@ -18,6 +19,7 @@ export {
   PostModel,
   PriorityZoneModel,
   SiteModel,
+  SiteTerrainModel,
   UserModel,
 };
 
@@ -34,6 +36,7 @@ export function initModels(sequelize: Sequelize): void {
   PlanModel.register(sequelize);
   PlanRevisionModel.register(sequelize);
   PlanReviewModel.register(sequelize);
+  SiteTerrainModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
