@@ -12,6 +12,7 @@ import { useLayout } from '@/components/ui/use-layout';
 import { PostForm } from './post-form';
 import { SitePlans } from './site-plans';
 import { SiteSketch } from './site-sketch';
+import { TerrainPanel } from './terrain-panel';
 
 export function SiteOverview({ siteId }: { siteId: string }) {
   const site = useSite(siteId);
@@ -30,6 +31,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
           <Card>
             <SiteSketch site={s} posts={list} />
           </Card>
+          <TerrainPanel site={s} canUpload={user?.role === 'planner'} />
           <AppText variant="heading">Coverage plans</AppText>
           <SitePlans siteId={siteId} />
           <AppText variant="heading">Posts</AppText>

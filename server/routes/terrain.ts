@@ -1,11 +1,7 @@
 import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
 import { z } from 'zod';
-import {
-  ElevationQuerySchema,
-  TerrainProfileRequestSchema,
-  TerrainUploadFieldsSchema,
-} from '@/shared/schemas/terrain';
+import { ElevationQuerySchema, TerrainProfileRequestSchema, TerrainUploadFieldsSchema } from '@/shared/schemas/terrain';
 import { getSite } from '@/server/domain/sites/manage-sites';
 import {
   getActiveTerrain,

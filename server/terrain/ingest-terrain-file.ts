@@ -111,8 +111,13 @@ export async function ingestTerrainFile(request: TerrainIngestRequest): Promise<
   } catch (error) {
     if (!(error instanceof TerrainCrsError)) throw error;
     if (error.code === 'missing') throw new TerrainIngestError('crs-missing', 'epsg', error.message);
-    if (error.code === 'geographic') throw new TerrainIngestError('in-degrees', request.epsg !== null && !raster.crs ? 'epsg' : 'file', error.message);
-    throw new TerrainIngestError('crs-unsupported', request.prjPath ? 'prj' : request.epsg !== null ? 'epsg' : 'file', error.message);
+    if (error.code === 'geographic')
+      throw new TerrainIngestError('in-degrees', request.epsg !== null && !raster.crs ? 'epsg' : 'file', error.message);
+    throw new TerrainIngestError(
+      'crs-unsupported',
+      request.prjPath ? 'prj' : request.epsg !== null ? 'epsg' : 'file',
+      error.message,
+    );
   }
 
   // Nodata → NaN, statistics, plausibility.
@@ -199,7 +204,11 @@ async function readRaster(request: TerrainIngestRequest): Promise<TerrainRaster>
     if (request.format === 'esri-ascii') {
       const prj = request.prjPath ? readFileSync(request.prjPath, 'utf8') : null;
       if (prj !== null && (prj.includes('\0') || !/[A-Z]{4,}\s*\[/i.test(prj))) {
-        throw new TerrainIngestError('wrong-type', 'prj', 'The .prj file is not a coordinate system description (well-known text).');
+        throw new TerrainIngestError(
+          'wrong-type',
+          'prj',
+          'The .prj file is not a coordinate system description (well-known text).',
+        );
       }
       return readEsriAsciiGrid(readFileSync(request.filePath, 'latin1'), prj, { maxCells: request.maxCells });
     }
@@ -262,7 +271,11 @@ function gridCorners(terrain: TerrainRaster, projection: GridProjection): Terrai
 }
 
 /** Whether every point of the boundary (its corners and its edges every cell or so) has ground data. */
-function boundaryCovered(terrain: TerrainRaster, projection: GridProjection, ring: readonly (readonly [number, number])[]): boolean {
+function boundaryCovered(
+  terrain: TerrainRaster,
+  projection: GridProjection,
+  ring: readonly (readonly [number, number])[],
+): boolean {
   const points = ring.map(([lonDeg, latDeg]) => projection.toGrid({ latDeg, lonDeg }));
   for (let i = 0; i < points.length; i++) {
     const a = points[i] as { x: number; y: number };

@@ -73,8 +73,12 @@ export function createTerrainIngestRunner(options: { concurrency?: number } = {}
           settle(() => reject(error));
         } else settle(() => reject(new TerrainWorkerError(`Terrain ingest failed: ${reply.message}`)));
       });
-      worker.once('error', (cause) => settle(() => reject(new TerrainWorkerError(`Terrain ingest worker failed: ${cause.message}`, { cause }))));
-      worker.once('exit', (code) => settle(() => reject(new TerrainWorkerError(`Terrain ingest worker stopped (exit code ${code}).`))));
+      worker.once('error', (cause) =>
+        settle(() => reject(new TerrainWorkerError(`Terrain ingest worker failed: ${cause.message}`, { cause }))),
+      );
+      worker.once('exit', (code) =>
+        settle(() => reject(new TerrainWorkerError(`Terrain ingest worker stopped (exit code ${code}).`))),
+      );
     });
 
   return async (request) => {

@@ -18,7 +18,13 @@ ingestTerrainFile(workerData as TerrainIngestRequest).then(
       port.postMessage({ type: 'error', name: error.name, code: error.code, field: error.field, message: error.message });
     } else {
       const e = error as { name?: string; message?: string; stack?: string };
-      port.postMessage({ type: 'error', name: e.name ?? 'Error', code: null, field: null, message: e.stack ?? e.message ?? String(error) });
+      port.postMessage({
+        type: 'error',
+        name: e.name ?? 'Error',
+        code: null,
+        field: null,
+        message: e.stack ?? e.message ?? String(error),
+      });
     }
   },
 );

@@ -187,7 +187,11 @@ export const TerrainProfileRequestSchema = z
   })
   .superRefine((body, ctx) => {
     if (body.postId === undefined && body.observer === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['observer'], message: 'Give the observer: a postId, or observer { latDeg, lonDeg, eyeHeightM }.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['observer'],
+        message: 'Give the observer: a postId, or observer { latDeg, lonDeg, eyeHeightM }.',
+      });
     }
     if (body.postId !== undefined && body.observer !== undefined) {
       ctx.addIssue({ code: 'custom', path: ['observer'], message: 'Give either a postId or an observer, not both.' });

@@ -50,7 +50,9 @@ const latLon = (e: number, n: number) => {
 };
 
 const filesUnder = (dir: string): string[] =>
-  readdirSync(dir, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? filesUnder(path.join(dir, e.name)) : [path.join(dir, e.name)]));
+  readdirSync(dir, { withFileTypes: true }).flatMap((e) =>
+    e.isDirectory() ? filesUnder(path.join(dir, e.name)) : [path.join(dir, e.name)],
+  );
 
 beforeAll(async () => {
   ({ app, db, files, filesDir, uploadsDir, close } = await createTestApp());
@@ -130,7 +132,9 @@ describe('POST /api/v1/sites/:siteId/terrain', () => {
     // The stored grid is a Float32 GeoTIFF with the same heights, and its sha256 is recorded.
     const row = await SiteTerrainModel.findByPk(t.id);
     const stored = readFileSync(files.localPath(row!.storeKey));
-    const reread = await readGeoTiff(stored.buffer.slice(stored.byteOffset, stored.byteOffset + stored.byteLength) as ArrayBuffer);
+    const reread = await readGeoTiff(
+      stored.buffer.slice(stored.byteOffset, stored.byteOffset + stored.byteLength) as ArrayBuffer,
+    );
     expect(reread.heights).toEqual(terrain.heights);
     expect(t.sha256).toBe(require('node:crypto').createHash('sha256').update(stored).digest('hex'));
 
@@ -186,9 +190,13 @@ describe('POST /api/v1/sites/:siteId/terrain', () => {
       'file',
     );
     expect(res.body.error.message).toMatch(/gdalwarp -t_srs EPSG:326/);
-    const geographicPrj = 'GEOGCS["WGS 84",DATUM["WGS_1984",SPHEROID["WGS 84",6378137,298.257223563]],PRIMEM["Greenwich",0],UNIT["degree",0.0174532925199433]]';
+    const geographicPrj =
+      'GEOGCS["WGS 84",DATUM["WGS_1984",SPHEROID["WGS 84",6378137,298.257223563]],PRIMEM["Greenwich",0],UNIT["degree",0.0174532925199433]]';
     await expectNothingStored(
-      () => upload(planner, siteId).attach('file', Buffer.from(degrees), 'degrees.asc').attach('prj', Buffer.from(geographicPrj), 'degrees.prj'),
+      () =>
+        upload(planner, siteId)
+          .attach('file', Buffer.from(degrees), 'degrees.asc')
+          .attach('prj', Buffer.from(geographicPrj), 'degrees.prj'),
       422,
       'terrain_in_degrees',
     );
@@ -201,10 +209,23 @@ describe('POST /api/v1/sites/:siteId/terrain', () => {
   });
 
   it('refuses corrupt, truncated and wrong-type files, storing nothing', async () => {
-    const corruptTif = Buffer.concat([tif.subarray(0, 8), Buffer.alloc(400, 0xab)]);
-    await expectNothingStored(() => upload(planner, siteId).attach('file', corruptTif, 'corrupt.tif'), 422, 'terrain_corrupt', 'file');
+    // A TIFF whose Compression tag (the 4th directory entry) claims JPEG for plain float data.
+    const corruptTif = Buffer.from(tif);
+    expect(corruptTif.readUInt16LE(8 + 2 + 3 * 12)).toBe(259);
+    corruptTif.writeUInt16LE(7, 8 + 2 + 3 * 12 + 8);
+    await expectNothingStored(
+      () => upload(planner, siteId).attach('file', corruptTif, 'corrupt.tif'),
+      422,
+      'terrain_corrupt',
+      'file',
+    );
     const badAsc = asc.replace(/\n([\d.]+) /, '\n12x.5 ');
-    await expectNothingStored(() => upload(planner, siteId).attach('file', Buffer.from(badAsc), 'bad.asc').field('epsg', '32633'), 422, 'terrain_corrupt', 'file');
+    await expectNothingStored(
+      () => upload(planner, siteId).attach('file', Buffer.from(badAsc), 'bad.asc').field('epsg', '32633'),
+      422,
+      'terrain_corrupt',
+      'file',
+    );
     await expectNothingStored(
       () => upload(planner, siteId).attach('file', tif.subarray(0, Math.floor(tif.length / 2)), 'half.tif'),
       422,
@@ -212,14 +233,27 @@ describe('POST /api/v1/sites/:siteId/terrain', () => {
       'file',
     );
     await expectNothingStored(
-      () => upload(planner, siteId).attach('file', Buffer.from(asc.slice(0, Math.floor(asc.length * 0.6))), 'half.asc').field('epsg', '32633'),
+      () =>
+        upload(planner, siteId)
+          .attach('file', Buffer.from(asc.slice(0, Math.floor(asc.length * 0.6))), 'half.asc')
+          .field('epsg', '32633'),
       422,
       'terrain_truncated',
       'file',
     );
     const png = PNG.sync.write(Object.assign(new PNG({ width: 2, height: 2 }), { data: Buffer.alloc(16, 200) }));
-    await expectNothingStored(() => upload(planner, siteId).attach('file', png, 'picture.png'), 415, 'terrain_wrong_type', 'file');
-    await expectNothingStored(() => upload(planner, siteId).attach('file', png, 'picture.tif'), 415, 'terrain_wrong_type', 'file');
+    await expectNothingStored(
+      () => upload(planner, siteId).attach('file', png, 'picture.png'),
+      415,
+      'terrain_wrong_type',
+      'file',
+    );
+    await expectNothingStored(
+      () => upload(planner, siteId).attach('file', png, 'picture.tif'),
+      415,
+      'terrain_wrong_type',
+      'file',
+    );
     await expectNothingStored(() => upload(planner, siteId).attach('file', tif, 'grid.asc'), 415, 'terrain_wrong_type', 'file');
     await expectNothingStored(() => upload(planner, siteId).field('epsg', '32633'), 400, 'invalid_input', 'file');
     await expectNothingStored(
@@ -245,24 +279,44 @@ describe('POST /api/v1/sites/:siteId/terrain', () => {
     const heights = new Float32Array(terrain.heights);
     for (let i = 0; i < 200; i++) heights[i] = -9999; // the top row
     const { asc: holed } = writeEsriAsciiGrid(terrain, heights.map((v) => v) as Float32Array, { nodata: -9999 });
-    const res = await upload(planner, siteId).attach('file', Buffer.from(holed), 'holed.asc').attach('prj', Buffer.from(prj!), 'holed.prj').expect(201);
+    const res = await upload(planner, siteId)
+      .attach('file', Buffer.from(holed), 'holed.asc')
+      .attach('prj', Buffer.from(prj!), 'holed.prj')
+      .expect(201);
     expect(res.body.terrain).toMatchObject({ nodataValue: -9999, nodataCells: 200, coversBoundary: true });
     // Elevation on the nodata row is refused with a field error.
     const top = latLon(602_000, 5_763_990);
     const e = await planner.get(`/api/v1/sites/${siteId}/terrain/elevation`).query(top).expect(422);
-    expect(e.body.error).toMatchObject({ code: 'no_elevation', fields: { latDeg: expect.any(String), lonDeg: expect.any(String) } });
+    expect(e.body.error).toMatchObject({
+      code: 'no_elevation',
+      fields: { latDeg: expect.any(String), lonDeg: expect.any(String) },
+    });
     // Restore the plain terrain for the tests below.
     await upload(planner, siteId).attach('file', tif, 'district.tif').expect(201);
   });
 
   it('refuses files over the byte limit and grids over the cell limit (limits from config)', async () => {
-    const small = createApp({ db, config: { ...TEST_CONFIG, TERRAIN_UPLOAD_DIR: uploadsDir, TERRAIN_MAX_UPLOAD_BYTES: 50_000 }, files });
+    const small = createApp({
+      db,
+      config: { ...TEST_CONFIG, TERRAIN_UPLOAD_DIR: uploadsDir, TERRAIN_MAX_UPLOAD_BYTES: 50_000 },
+      files,
+    });
     const smallPlanner = await signedInAgent(small, DEMO.planner);
-    const res = await expectNothingStored(() => upload(smallPlanner, siteId).attach('file', tif, 'big.tif'), 413, 'terrain_too_large', 'file');
+    const res = await expectNothingStored(
+      () => upload(smallPlanner, siteId).attach('file', tif, 'big.tif'),
+      413,
+      'terrain_too_large',
+      'file',
+    );
     expect(res.body.error.message).toMatch(/larger than 0 MB|larger than/);
     const few = createApp({ db, config: { ...TEST_CONFIG, TERRAIN_UPLOAD_DIR: uploadsDir, TERRAIN_MAX_CELLS: 10_000 }, files });
     const fewPlanner = await signedInAgent(few, DEMO.planner);
-    const cells = await expectNothingStored(() => upload(fewPlanner, siteId).attach('file', tif, 'big.tif'), 413, 'terrain_too_large', 'file');
+    const cells = await expectNothingStored(
+      () => upload(fewPlanner, siteId).attach('file', tif, 'big.tif'),
+      413,
+      'terrain_too_large',
+      'file',
+    );
     expect(cells.body.error.message).toMatch(/32000 cells|10000/);
   });
 
@@ -278,14 +332,20 @@ describe('POST /api/v1/sites/:siteId/terrain', () => {
     await otherPlanner.get(`/api/v1/sites/${siteId}/terrain/elevation`).query(latLon(602_000, 5_762_000)).expect(404);
     await otherPlanner
       .post(`/api/v1/sites/${siteId}/terrain/profile`)
-      .send({ observer: { ...latLon(601_000, 5_761_000), eyeHeightM: 10 }, target: latLon(604_000, 5_763_000), targetHeightM: 0, conditions: [{ k: 0.13 }] })
+      .send({
+        observer: { ...latLon(601_000, 5_761_000), eyeHeightM: 10 },
+        target: latLon(604_000, 5_763_000),
+        targetHeightM: 0,
+        conditions: [{ k: 0.13 }],
+      })
       .expect(404);
   });
 
   it('keeps the server answering while a large grid is ingested (the ingest runs in a worker thread)', async () => {
     const size = 2000;
     const big: TerrainRaster = { ...terrain, width: size, height: size, heights: new Float32Array(size * size) };
-    for (let r = 0; r < size; r++) for (let c = 0; c < size; c++) big.heights[r * size + c] = 300 + 80 * Math.sin(c / 40) * Math.cos(r / 55);
+    for (let r = 0; r < size; r++)
+      for (let c = 0; c < size; c++) big.heights[r * size + c] = 300 + 80 * Math.sin(c / 40) * Math.cos(r / 55);
     const order: string[] = [];
     const uploading = upload(planner, siteId)
       .attach('file', Buffer.from(writeGeoTiff(big, big.heights)), 'large.tif')
@@ -320,7 +380,13 @@ describe('GET /api/v1/sites/:siteId/terrain', () => {
 
   it('serves the demo district’s seeded terrain and hillshade to every role', async () => {
     const res = await observer.get(`/api/v1/sites/${demoSiteId}/terrain`).expect(200);
-    expect(res.body.terrain).toMatchObject({ width: 600, height: 600, cellSizeM: 25, crs: { epsg: 32633 }, coversBoundary: true });
+    expect(res.body.terrain).toMatchObject({
+      width: 600,
+      height: 600,
+      cellSizeM: 25,
+      crs: { epsg: 32633 },
+      coversBoundary: true,
+    });
     const png = await observer
       .get(res.body.terrain.baseLayer.url)
       .buffer(true)
@@ -363,8 +429,14 @@ describe('GET /api/v1/sites/:siteId/terrain/elevation', () => {
 
   it('refuses a position outside the grid and bad numbers with field errors', async () => {
     const res = await observer.get(`/api/v1/sites/${siteId}/terrain/elevation`).query(latLon(590_000, 5_762_000)).expect(422);
-    expect(res.body.error).toMatchObject({ code: 'outside_terrain', fields: { latDeg: expect.any(String), lonDeg: expect.any(String) } });
-    const bad = await observer.get(`/api/v1/sites/${siteId}/terrain/elevation`).query({ latDeg: 'north', lonDeg: 200 }).expect(400);
+    expect(res.body.error).toMatchObject({
+      code: 'outside_terrain',
+      fields: { latDeg: expect.any(String), lonDeg: expect.any(String) },
+    });
+    const bad = await observer
+      .get(`/api/v1/sites/${siteId}/terrain/elevation`)
+      .query({ latDeg: 'north', lonDeg: 200 })
+      .expect(400);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['latDeg', 'lonDeg']);
   });
 });
@@ -388,7 +460,12 @@ describe('POST /api/v1/sites/:siteId/terrain/profile', () => {
     expect(body.observer.postId).toBe(crane.id);
     expect(body.observer.eyeHeightM).toBeCloseTo(crane.structureHeightM + crane.eyeHeightM, 9);
     expect(body.results.map((r) => r.k)).toEqual([0, 0.13, -0.2]);
-    expect(body.cautions.map((c) => c.code)).toEqual(['estimates-only', 'refraction-varies', 'visibility-not-detection', 'follow-procedures']);
+    expect(body.cautions.map((c) => c.code)).toEqual([
+      'estimates-only',
+      'refraction-varies',
+      'visibility-not-detection',
+      'follow-procedures',
+    ]);
     expect(body.samples.length).toBeLessThanOrEqual(2001);
     expect(body.spacingM).toBeCloseTo(12.5, 9);
 
@@ -405,7 +482,10 @@ describe('POST /api/v1/sites/:siteId/terrain/profile', () => {
     // Lowered ground: ground minus (1 − k)·d²/(2R) at the last sample.
     const last = body.samples.length - 1;
     const d = body.samples[last]!.distanceM;
-    expect(body.samples[last]!.groundElevationM! - body.results[1]!.loweredGroundM[last]!).toBeCloseTo((0.87 * d * d) / (2 * 6_371_008.8), 6);
+    expect(body.samples[last]!.groundElevationM! - body.results[1]!.loweredGroundM[last]!).toBeCloseTo(
+      (0.87 * d * d) / (2 * 6_371_008.8),
+      6,
+    );
     const hidden = body.results.find((r) => !r.targetTopSeen);
     if (hidden) expect(hidden.firstObstruction).not.toBeNull();
     // The eye-level check: ground under the post from the terrain.
@@ -416,7 +496,12 @@ describe('POST /api/v1/sites/:siteId/terrain/profile', () => {
   it('takes an observer position with an eye height', async () => {
     const res = await observer
       .post(`/api/v1/sites/${siteId}/terrain/profile`)
-      .send({ observer: { ...latLon(600_500, 5_761_000), eyeHeightM: 12 }, target: latLon(604_500, 5_763_500), targetHeightM: 0, conditions: [{ k: 0.13 }] })
+      .send({
+        observer: { ...latLon(600_500, 5_761_000), eyeHeightM: 12 },
+        target: latLon(604_500, 5_763_500),
+        targetHeightM: 0,
+        conditions: [{ k: 0.13 }],
+      })
       .expect(200);
     expect(res.body.observer.recordedGroundElevationM).toBeNull();
     expect(res.body.distanceM).toBeCloseTo(Math.hypot(4000, 2500), 0);
@@ -427,15 +512,27 @@ describe('POST /api/v1/sites/:siteId/terrain/profile', () => {
       .post(`/api/v1/sites/${siteId}/terrain/profile`)
       .send({ target: { latDeg: 95, lonDeg: 10 }, targetHeightM: -1, conditions: [] })
       .expect(400);
-    expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['observer', 'target.latDeg', 'targetHeightM', 'conditions']));
+    expect(Object.keys(bad.body.error.fields)).toEqual(
+      expect.arrayContaining(['observer', 'target.latDeg', 'targetHeightM', 'conditions']),
+    );
     const outside = await observer
       .post(`/api/v1/sites/${siteId}/terrain/profile`)
-      .send({ observer: { ...latLon(600_500, 5_761_000), eyeHeightM: 12 }, target: latLon(640_000, 5_763_500), targetHeightM: 0, conditions: [{ k: 0.13 }] })
+      .send({
+        observer: { ...latLon(600_500, 5_761_000), eyeHeightM: 12 },
+        target: latLon(640_000, 5_763_500),
+        targetHeightM: 0,
+        conditions: [{ k: 0.13 }],
+      })
       .expect(422);
     expect(outside.body.error).toMatchObject({ code: 'outside_terrain', fields: { 'target.latDeg': expect.any(String) } });
     const noPost = await observer
       .post(`/api/v1/sites/${siteId}/terrain/profile`)
-      .send({ postId: '00000000-0000-4000-8000-000000000000', target: latLon(602_000, 5_762_000), targetHeightM: 0, conditions: [{ k: 0 }] })
+      .send({
+        postId: '00000000-0000-4000-8000-000000000000',
+        target: latLon(602_000, 5_762_000),
+        targetHeightM: 0,
+        conditions: [{ k: 0 }],
+      })
       .expect(404);
     expect(noPost.body.error.fields.postId).toEqual(expect.any(String));
   });

@@ -6,6 +6,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { benchApi } from './api.bench';
 import { benchSightline } from './sightline.bench';
+import { benchTerrain } from './terrain.bench';
 
 interface Row {
   name: string;
@@ -25,16 +26,25 @@ const print = (title: string, rows: Row[]) => {
 async function main() {
   const only = process.argv[2];
   if (!only || only === 'sightline') {
-    print('Sightline core', (await benchSightline()).map((r) => ({ name: r.name, value: r.opsPerSec, unit: 'ops/s' })));
+    print(
+      'Sightline core',
+      (await benchSightline()).map((r) => ({ name: r.name, value: r.opsPerSec, unit: 'ops/s' })),
+    );
   }
   if ((!only || only === 'api') && process.env.KENNING_BENCH_DATABASE_URL) {
-    print('Sightline API on loopback (autocannon, 10 connections, 5 s each)', await benchApi(process.env.KENNING_BENCH_DATABASE_URL));
+    print(
+      'Sightline API on loopback (autocannon, 10 connections, 5 s each)',
+      await benchApi(process.env.KENNING_BENCH_DATABASE_URL),
+    );
   }
   const viewshed = path.join(__dirname, 'viewshed.bench.ts');
   if ((!only || only === 'viewshed') && existsSync(viewshed)) {
     // Imported by path: the terrain benchmark may not exist on older checkouts.
     const mod = (await import(viewshed)) as { benchViewshed: () => Promise<Row[]> };
     print('Viewshed engine', await mod.benchViewshed());
+  }
+  if (!only || only === 'terrain') {
+    print('Terrain: hillshade, profile, upload ingest', await benchTerrain());
   }
 }
 

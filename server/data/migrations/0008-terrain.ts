@@ -11,7 +11,12 @@ import type { Migration } from '../migrator';
 export const up: Migration = async ({ context: qi }) => {
   await qi.createTable('site_terrains', {
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-    organization_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'organizations', key: 'id' }, onDelete: 'RESTRICT' },
+    organization_id: {
+      type: DataTypes.UUID,
+      allowNull: false,
+      references: { model: 'organizations', key: 'id' },
+      onDelete: 'RESTRICT',
+    },
     site_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'sites', key: 'id' }, onDelete: 'RESTRICT' },
     active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
     store_key: { type: DataTypes.STRING(64), allowNull: false },

@@ -78,7 +78,10 @@ export const terrainRepository = {
   ): Promise<{ created: TerrainRecord; replacedId: string | null }> {
     const previous = await SiteTerrainModel.findOne({ where: { organizationId, siteId, active: true }, transaction });
     if (previous) await SiteTerrainModel.update({ active: false }, { where: { id: previous.id }, transaction });
-    const row = await SiteTerrainModel.create({ ...terrain, organizationId, siteId, uploadedById, active: true }, { transaction });
+    const row = await SiteTerrainModel.create(
+      { ...terrain, organizationId, siteId, uploadedById, active: true },
+      { transaction },
+    );
     return { created: await toRecord(row, transaction), replacedId: previous?.id ?? null };
   },
 

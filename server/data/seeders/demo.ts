@@ -309,10 +309,11 @@ async function seedDemoTerrain(db: Sequelize, files: FileStore): Promise<boolean
   const forest = await SiteModel.findOne({ where: { organizationId: org.id, name: DEMO_SITES[0]!.site.name } });
   if (!forest) return false;
   const current = await terrainRepository.findActive(org.id, forest.id);
-  const present = async (key: string) => stat(files.localPath(key)).then(
-    () => true,
-    () => false,
-  );
+  const present = async (key: string) =>
+    stat(files.localPath(key)).then(
+      () => true,
+      () => false,
+    );
   if (current && (await present(current.storeKey)) && (await present(current.hillshadeKey))) return false;
   const planner = await UserModel.findOne({ where: { organizationId: org.id, role: 'planner' } });
   if (!planner) return false;

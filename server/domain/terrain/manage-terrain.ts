@@ -144,7 +144,12 @@ const summary = (record: TerrainRecord) => ({
  * terrain (the previous one stays, inactive) with an audit event. On any
  * failure nothing is kept: no row, no stored file.
  */
-export async function uploadTerrain(deps: TerrainDeps, actor: Actor, siteId: string, upload: TerrainUpload): Promise<SiteTerrain> {
+export async function uploadTerrain(
+  deps: TerrainDeps,
+  actor: Actor,
+  siteId: string,
+  upload: TerrainUpload,
+): Promise<SiteTerrain> {
   const site = await getSite(actor, siteId);
   const format = FORMATS[path.extname(upload.file.originalName).toLowerCase()];
   if (!format) {
@@ -190,7 +195,11 @@ export async function uploadTerrain(deps: TerrainDeps, actor: Actor, siteId: str
     stored.push(picture);
     const record = await deps.db.transaction(async (t) => {
       // One upload at a time per site: the site row is the lock.
-      await SiteModel.findOne({ where: { id: siteId, organizationId: actor.organizationId }, lock: t.LOCK.UPDATE, transaction: t });
+      await SiteModel.findOne({
+        where: { id: siteId, organizationId: actor.organizationId },
+        lock: t.LOCK.UPDATE,
+        transaction: t,
+      });
       const { created, replacedId } = await terrainRepository.createActive(
         actor.organizationId,
         siteId,
@@ -224,7 +233,12 @@ export async function uploadTerrain(deps: TerrainDeps, actor: Actor, siteId: str
       );
       await auditRepository.record(
         actor,
-        { action: 'upload', entityType: 'site_terrain', entityId: created.id, after: { ...summary(created), siteId, replacedId } },
+        {
+          action: 'upload',
+          entityType: 'site_terrain',
+          entityId: created.id,
+          after: { ...summary(created), siteId, replacedId },
+        },
         t,
       );
       return created;
@@ -277,7 +291,12 @@ function pointError(error: unknown, fields: string[], what: string): never {
   if (error instanceof TerrainInputError && (error.code === 'point-outside-raster' || error.code === 'point-on-nodata')) {
     const outside = error.code === 'point-outside-raster';
     const message = outside ? `The ${what} is outside the site’s terrain.` : `The terrain has no ground height at the ${what}.`;
-    throw new AppError(422, outside ? 'outside_terrain' : 'no_elevation', message, Object.fromEntries(fields.map((f) => [f, message])));
+    throw new AppError(
+      422,
+      outside ? 'outside_terrain' : 'no_elevation',
+      message,
+      Object.fromEntries(fields.map((f) => [f, message])),
+    );
   }
   throw error;
 }
@@ -316,7 +335,8 @@ export async function profileTerrain(
   let observer: { latDeg: number; lonDeg: number; eyeHeightM: number; postId: string | null; recorded: number | null };
   if (request.postId) {
     const post = await postsRepository.findInSite(actor.organizationId, siteId, request.postId);
-    if (!post) throw new AppError(404, 'not_found', 'That post was not found on this site.', { postId: 'No such post on this site.' });
+    if (!post)
+      throw new AppError(404, 'not_found', 'That post was not found on this site.', { postId: 'No such post on this site.' });
     observer = {
       ...post.location,
       eyeHeightM: post.structureHeightM + post.eyeHeightM,
@@ -347,7 +367,11 @@ export async function profileTerrain(
       conditions: ks.map((k) => ({ refractionCoefficient: k, earthRadius })),
     });
   } catch (error) {
-    if (error instanceof TerrainInputError && error.code === 'invalid-option' && /same point|at the observer/.test(error.message)) {
+    if (
+      error instanceof TerrainInputError &&
+      error.code === 'invalid-option' &&
+      /same point|at the observer/.test(error.message)
+    ) {
       throw new AppError(422, 'same_point', 'The target is where the observer is: pick a target elsewhere.', {
         target: 'Pick a target away from the observer.',
       });
@@ -380,7 +404,10 @@ export async function profileTerrain(
     distanceM: profile.distance,
     gridBearingDeg: bearing,
     spacingM: profile.spacing,
-    samples: Array.from(profile.sampleDistances, (d, i) => ({ distanceM: d, groundElevationM: finite(profile.sampleGround[i] as number) })),
+    samples: Array.from(profile.sampleDistances, (d, i) => ({
+      distanceM: d,
+      groundElevationM: finite(profile.sampleGround[i] as number),
+    })),
     results: profile.conditions.map((c) => ({
       k: c.refractionCoefficient,
       effectiveRadiusM: c.refractionCoefficient < 1 ? c.earthRadius / (1 - c.refractionCoefficient) : null,
