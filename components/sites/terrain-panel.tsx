@@ -112,14 +112,8 @@ function TerrainPicture({ site, terrain }: { site: Site; terrain: SiteTerrain })
   return (
     <View onLayout={onLayout} style={{ width: '100%' }}>
       {width > 0 ? (
-        <View style={[styles.picture, { width: drawWidth, height }]}>
-          <Image
-            source={{ uri: layer.url }}
-            style={{ width: drawWidth, height }}
-            resizeMode="stretch"
-            role="img"
-            aria-label={`Hillshade of ${site.name}`}
-          />
+        <View style={[styles.picture, { width: drawWidth, height }]} role="img" aria-label={`Hillshade of ${site.name}`}>
+          <Image source={{ uri: layer.url }} style={{ width: drawWidth, height }} resizeMode="stretch" />
           {outline ? (
             <Svg width={drawWidth} height={height} style={StyleSheet.absoluteFill} pointerEvents="none">
               <Polygon points={outline} fill="none" stroke={colors.ember} strokeWidth={2.5} />

@@ -41,6 +41,11 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain on the %s viewp
       expect(response.headers()['content-type']).toBe('image/png');
       const picture = panel.getByRole('img', { name: 'Hillshade of Harrowmere Forest District' });
       await picture.waitFor();
+      // The PNG itself has loaded and decoded (600 × 600 px: the grid at full resolution).
+      await page.waitForFunction(() => {
+        const img = document.querySelector<HTMLImageElement>('img[src*="hillshade.png"]');
+        return !!img && img.complete && img.naturalWidth === 600 && img.naturalHeight === 600;
+      });
       const box = await picture.boundingBox();
       expect(box!.width).toBeGreaterThan(200);
       expect(Math.abs(box!.width - box!.height)).toBeLessThan(2); // a square grid
@@ -56,10 +61,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain on the %s viewp
       );
       const expected = Math.round((elevationAt(demo, x, y) as number) * 10) / 10;
       const form = page.getByLabel('New post');
-      await form.getByRole('button', { name: 'Ground elevation from terrain' }).click();
+      await form.getByRole('button', { name: 'From terrain' }).click();
       await form.getByText('Enter the location first.').waitFor();
       await form.getByLabel('Location').fill('33U 521000 5737000');
-      await form.getByRole('button', { name: 'Ground elevation from terrain' }).click();
+      await form.getByRole('button', { name: 'From terrain' }).click();
       await form.getByText(`Ground from the terrain: ${expected.toFixed(1)} m.`).waitFor();
       expect(Number(await form.getByLabel('Ground elevation').inputValue())).toBeCloseTo(expected, 6);
       expect(errors).toEqual([]);
