@@ -41,8 +41,8 @@ export function SitePlans({ siteId }: { siteId: string }) {
             </AppText>
           </View>
           <AppText variant="small" tone="muted">
-            {plural(p.postIds.length, 'post')} · {plural(p.targetIds.length, 'target')} · standard ≥ {p.standard.minSeenPct} %
-            seen, priority zones by ≥ {p.standard.priorityMinPosts} · prepared by {p.preparedBy.name}
+            {plural(p.postIds.length, 'post')} · {plural(p.targetIds.length, 'target')} · standard ≥ {p.standard.minSeenPct} % seen, priority zones by
+            ≥ {p.standard.priorityMinPosts} · prepared by {p.preparedBy.name}
           </AppText>
         </Card>
       ))}
