@@ -40,13 +40,7 @@ export function GroundFromTerrain({
   };
   return (
     <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.md, flexWrap: 'wrap' }}>
-      <Button
-        kind="secondary"
-        label="From terrain"
-        onPress={run}
-        busy={lookup.isPending}
-        aria-label="Ground elevation from terrain"
-      />
+      <Button kind="secondary" label="From terrain" onPress={run} busy={lookup.isPending} />
       {message ? (
         <AppText
           variant="small"
