@@ -245,7 +245,7 @@ function TerrainUploadForm({ siteId, replacing }: { siteId: string; replacing: b
 const styles = StyleSheet.create({
   picture: { borderRadius: radius.md, overflow: 'hidden', backgroundColor: colors.paper, alignSelf: 'center' },
   facts: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.xl, rowGap: space.sm },
-  fact: { minWidth: 140, gap: 2 },
+  fact: { flexBasis: '40%', flexGrow: 1, gap: 2 },
   form: { gap: space.md, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.md },
   track: { height: 8, borderRadius: radius.pill, backgroundColor: colors.paper, overflow: 'hidden' },
   bar: { height: 8, backgroundColor: colors.moss },
