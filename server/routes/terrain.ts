@@ -27,7 +27,10 @@ export interface TerrainUploadSettings {
   maxBytes: number;
 }
 
-const megabytes = (bytes: number) => `${Math.floor(bytes / 1_000_000).toLocaleString('en')} MB`;
+const megabytes = (bytes: number) =>
+  bytes >= 1_000_000
+    ? `${Math.floor(bytes / 1_000_000).toLocaleString('en')} MB`
+    : `${Math.floor(bytes / 1000).toLocaleString('en')} kB`;
 
 /** A site's terrain: upload (planners), metadata, hillshade, elevation and profile (every role). */
 export function terrainRoutes(deps: TerrainDeps, upload: TerrainUploadSettings) {

@@ -138,27 +138,55 @@ export function computeHillshade(terrain: TerrainRaster, options: HillshadeOptio
     return shadeOf(win);
   };
 
+  // Interior cells: the window in locals (the hot loop; edges and holes take the general path above).
+  const markerValue = marker ?? NaN;
   for (let r = 0; r < H; r++) {
     const interiorRow = r > 0 && r < H - 1;
-    for (let c = 0; c < W; c++) {
-      if (!interiorRow || c === 0 || c === W - 1) {
-        shade[r * W + c] = edgeCell(c, r);
-        continue;
-      }
+    if (!interiorRow) {
+      for (let c = 0; c < W; c++) shade[r * W + c] = edgeCell(c, r);
+      continue;
+    }
+    shade[r * W] = edgeCell(0, r);
+    if (W > 1) shade[r * W + W - 1] = edgeCell(W - 1, r);
+    for (let c = 1; c < W - 1; c++) {
       const i = r * W + c;
-      const centre = heights[i] as number;
-      if (isNodata(centre)) continue; // 0 = no data
-      win[0] = heights[i - W - 1] as number;
-      win[1] = heights[i - W] as number;
-      win[2] = heights[i - W + 1] as number;
-      win[3] = heights[i - 1] as number;
-      win[4] = centre;
-      win[5] = heights[i + 1] as number;
-      win[6] = heights[i + W - 1] as number;
-      win[7] = heights[i + W] as number;
-      win[8] = heights[i + W + 1] as number;
-      for (let k = 0; k < 9; k++) if (isNodata(win[k] as number)) win[k] = centre;
-      shade[i] = shadeOf(win);
+      const z4 = heights[i] as number;
+      if (z4 !== z4 || z4 === markerValue) continue; // 0 = no data
+      let z0 = heights[i - W - 1] as number;
+      let z1 = heights[i - W] as number;
+      let z2 = heights[i - W + 1] as number;
+      let z3 = heights[i - 1] as number;
+      let z5 = heights[i + 1] as number;
+      let z6 = heights[i + W - 1] as number;
+      let z7 = heights[i + W] as number;
+      let z8 = heights[i + W + 1] as number;
+      // NaN (or the marker) anywhere in the window makes the sum NaN (or is checked below).
+      const sum = z0 + z1 + z2 + z3 + z5 + z6 + z7 + z8;
+      if (
+        sum !== sum ||
+        (marker !== null &&
+          (z0 === marker ||
+            z1 === marker ||
+            z2 === marker ||
+            z3 === marker ||
+            z5 === marker ||
+            z6 === marker ||
+            z7 === marker ||
+            z8 === marker))
+      ) {
+        if (isNodata(z0)) z0 = z4;
+        if (isNodata(z1)) z1 = z4;
+        if (isNodata(z2)) z2 = z4;
+        if (isNodata(z3)) z3 = z4;
+        if (isNodata(z5)) z5 = z4;
+        if (isNodata(z6)) z6 = z4;
+        if (isNodata(z7)) z7 = z4;
+        if (isNodata(z8)) z8 = z4;
+      }
+      const x = (z0 + z3 + z3 + z6 - (z2 + z5 + z5 + z8)) * invEw;
+      const y = (z6 + z7 + z7 + z8 - (z0 + z1 + z1 + z2)) * invNs;
+      const value = (sinAlt254 - (y * cosAz254 - x * sinAz254)) / Math.sqrt(1 + s2 * (x * x + y * y));
+      shade[i] = value <= 0 ? 1 : Math.round(1 + value);
     }
   }
 

@@ -308,7 +308,7 @@ describe('POST /api/v1/sites/:siteId/terrain', () => {
       'terrain_too_large',
       'file',
     );
-    expect(res.body.error.message).toMatch(/larger than 0 MB|larger than/);
+    expect(res.body.error.message).toMatch(/larger than 50 kB/);
     const few = createApp({ db, config: { ...TEST_CONFIG, TERRAIN_UPLOAD_DIR: uploadsDir, TERRAIN_MAX_CELLS: 10_000 }, files });
     const fewPlanner = await signedInAgent(few, DEMO.planner);
     const cells = await expectNothingStored(
