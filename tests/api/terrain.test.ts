@@ -291,6 +291,13 @@ describe('POST /api/v1/sites/:siteId/terrain', () => {
       code: 'no_elevation',
       fields: { latDeg: expect.any(String), lonDeg: expect.any(String) },
     });
+    // NaN cells in a GeoTIFF are nodata too.
+    const nan = new Float32Array(terrain.heights);
+    nan.fill(NaN, 0, 400); // the top two rows
+    const withNaN = await upload(planner, siteId)
+      .attach('file', Buffer.from(writeGeoTiff(terrain, nan)), 'nan.tif')
+      .expect(201);
+    expect(withNaN.body.terrain).toMatchObject({ nodataCells: 400, coversBoundary: true });
     // Restore the plain terrain for the tests below.
     await upload(planner, siteId).attach('file', tif, 'district.tif').expect(201);
   });
