@@ -57,6 +57,7 @@ export function terrainRoutes(deps: TerrainDeps, upload: TerrainUploadSettings) 
           { [field]: `At most ${megabytes(upload.maxBytes)}.` },
         ),
     });
+    let terrain;
     try {
       const file = received.files.file;
       if (!file) {
@@ -65,16 +66,17 @@ export function terrainRoutes(deps: TerrainDeps, upload: TerrainUploadSettings) 
         });
       }
       const { epsg } = parseOrThrow(TerrainUploadFieldsSchema, received.fields, 'upload');
-      const terrain = await uploadTerrain(deps, actor, siteId, {
+      terrain = await uploadTerrain(deps, actor, siteId, {
         file,
         prj: received.files.prj ?? null,
         epsg: epsg ?? null,
         workDir: received.dir,
       });
-      res.status(201).json({ terrain });
     } finally {
+      // Before answering, so nothing of the upload is left on disk once the caller hears back.
       await received.cleanup();
     }
+    res.status(201).json({ terrain });
   });
 
   router.get('/sites/:siteId/terrain/hillshade.png', requireUser, async (req, res) => {
