@@ -31,7 +31,7 @@ const nodeProject = (name, extra = {}) => ({
   roots: ['<rootDir>/tests/' + name],
   testMatch: ['**/*.test.ts'],
   transform: { '^.+\\.tsx?$': tsJest },
-  moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
+  moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1', '^quick-lru$': '<rootDir>/tests/support/quick-lru-stub.js' },
   cacheDirectory,
   ...extra,
 });

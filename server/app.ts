@@ -3,6 +3,7 @@ import path from 'node:path';
 import compression from 'compression';
 import express, { type Request } from 'express';
 import type { Sequelize } from 'sequelize';
+import { DEFAULT_HILLSHADE_MAX_EDGE } from '@/shared/terrain/hillshade-image';
 import type { Config } from './config';
 import { createSignInLimiter } from './domain/auth/sign-in-limiter';
 import { errorHandler, notFoundHandler } from './http/error-handler';
@@ -19,6 +20,9 @@ import { planRoutes } from './routes/plans';
 import { rosterRoutes } from './routes/roster';
 import { sightlineRoutes } from './routes/sightline';
 import { siteRoutes } from './routes/sites';
+import { terrainRoutes } from './routes/terrain';
+import { createTerrainCache, type TerrainCache } from './terrain/terrain-cache';
+import { createTerrainIngestRunner, type TerrainIngestRunner } from './workers/terrain-ingest-runner';
 import { userRoutes } from './routes/users';
 
 export interface AppDeps {
@@ -29,6 +33,10 @@ export interface AppDeps {
   files: FileStore;
   /** Folder for uploads still being received (default: `kenning-uploads` in the system temp folder). */
   uploadTempDir?: string;
+  /** Terrain ingest off the request thread; default a worker-thread runner. */
+  terrainIngest?: TerrainIngestRunner;
+  /** Terrains held in memory; default a cache of TERRAIN_CACHE_MB. */
+  terrainCache?: TerrainCache;
   config: Pick<
     Config,
     | 'SESSION_SECRET'
@@ -39,13 +47,17 @@ export interface AppDeps {
     | 'SIGN_IN_WINDOW_SECONDS'
     | 'LOG_REQUESTS'
     | 'CAUGHT_MAIL_URL'
+    | 'TERRAIN_MAX_UPLOAD_BYTES'
+    | 'TERRAIN_MAX_CELLS'
+    | 'TERRAIN_CACHE_MB'
+    | 'TERRAIN_UPLOAD_DIR'
   >;
 }
 
 const publicUrl = (req: Request) => `${req.protocol}://${req.get('host') ?? 'localhost'}`;
 
 /** Builds the Express app (API + the exported web app) without listening. */
-export function createApp({ db, config, mailer = null, files, uploadTempDir }: AppDeps) {
+export function createApp({ db, config, mailer = null, files, uploadTempDir, terrainIngest, terrainCache }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
@@ -88,6 +100,19 @@ export function createApp({ db, config, mailer = null, files, uploadTempDir }: A
   const v1 = express.Router();
   v1.use(sightlineRoutes());
   v1.use(siteRoutes(db));
+  v1.use(
+    terrainRoutes(
+      {
+        db,
+        files,
+        ingest: terrainIngest ?? createTerrainIngestRunner(),
+        cache: terrainCache ?? createTerrainCache({ files, maxBytes: config.TERRAIN_CACHE_MB * 2 ** 20 }),
+        maxCells: config.TERRAIN_MAX_CELLS,
+        hillshadeMaxEdge: DEFAULT_HILLSHADE_MAX_EDGE,
+      },
+      { tmpDir: config.TERRAIN_UPLOAD_DIR, maxBytes: config.TERRAIN_MAX_UPLOAD_BYTES },
+    ),
+  );
   v1.use(libraryRoutes(db));
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(rosterRoutes(db));

@@ -18,6 +18,14 @@ const EnvSchema = z.object({
   SESSION_SECRET: z.string().min(32).optional(),
   /** Folder where uploaded files (attachments, terrain) are kept. */
   FILE_STORE_DIR: z.string().min(1).default(path.join(dataDir, 'files')),
+  /** Largest terrain upload, bytes (default 400 MB: a 4000 × 4000 ESRI ASCII grid is about 150 MB). */
+  TERRAIN_MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(400_000_000),
+  /** Largest terrain grid, cells (default 25 million, e.g. 5000 × 5000). */
+  TERRAIN_MAX_CELLS: z.coerce.number().int().positive().max(100_000_000).default(25_000_000),
+  /** Memory for terrains held by the server (LRU), MiB (default 512: eight 4000 × 4000 grids). */
+  TERRAIN_CACHE_MB: z.coerce.number().int().positive().default(512),
+  /** Where terrain uploads are received before they are checked (default beside the file store, so moving them in is a rename). */
+  TERRAIN_UPLOAD_DIR: z.string().min(1).default(path.join(dataDir, 'uploads')),
   /** Folder holding the exported web app; the API runs without it. */
   WEB_DIST_DIR: z.string().default(path.join(projectRoot, 'dist', 'web')),
   /** Set when a reverse proxy terminates TLS in front of the server. */

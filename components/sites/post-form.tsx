@@ -13,6 +13,7 @@ import { Card } from '@/components/ui/card';
 import { FormError, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
+import { GroundFromTerrain } from './ground-from-terrain';
 
 type Kind = (typeof POST_KINDS)[number];
 const EMPTY = {
@@ -185,6 +186,7 @@ export function PostForm({
             onChangeText={set('ground')}
             error={errors.ground}
           />
+          <GroundFromTerrain siteId={siteId} location={parsed} onElevation={(m) => setV((f) => ({ ...f, ground: String(m) }))} />
         </View>
         <View style={{ flex: 1, minWidth: 140 }}>
           <TextField

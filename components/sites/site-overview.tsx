@@ -14,6 +14,7 @@ import { PostForm } from './post-form';
 import { SitePlans } from './site-plans';
 import { SiteRoster } from './site-roster';
 import { SiteSketch } from './site-sketch';
+import { TerrainPanel } from './terrain-panel';
 
 export function SiteOverview({ siteId }: { siteId: string }) {
   const site = useSite(siteId);
@@ -33,6 +34,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
           <Card>
             <SiteSketch site={s} posts={list} />
           </Card>
+          <TerrainPanel site={s} canUpload={user?.role === 'planner'} />
           <AppText variant="heading">Coverage plans</AppText>
           <SitePlans siteId={siteId} />
           <SiteRoster siteId={siteId} timeZone={s.timeZone} />

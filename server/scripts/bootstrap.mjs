@@ -423,7 +423,10 @@ async function test() {
     if (!quick) step('type-check', () => run('npx', ['tsc', '--noEmit', '-p', 'tsconfig.json']));
     if (!quick) step('lint', () => run('npx', ['eslint', '.', '--max-warnings', '0']));
     step('test databases', () => {
-      tsx('server/scripts/prepare-database.ts', ['--database', template, '--seed', '--fresh'], { KENNING_ADMIN_DATABASE_URL: adminUrl });
+      // The demo terrain goes to this run's file store, which the test server and the API tests' stores copy.
+      tsx('server/scripts/prepare-database.ts', ['--database', template, '--seed', '--fresh', '--files', testFiles], {
+        KENNING_ADMIN_DATABASE_URL: adminUrl,
+      });
       tsx('server/scripts/prepare-database.ts', ['--database', e2eDb, '--from', template], { KENNING_ADMIN_DATABASE_URL: adminUrl });
     });
     if (!quick) step('web build', ensureWebBuild);
@@ -451,6 +454,7 @@ async function test() {
           KENNING_E2E_URL: url,
           KENNING_E2E_DATABASE_URL: pg.url(e2eDb),
           KENNING_CAUGHT_MAIL_URL: caught.url,
+          KENNING_TEST_FILES_DIR: testFiles,
         },
       }),
     );
@@ -469,10 +473,14 @@ async function bench() {
   const runId = `bench_${process.pid}`;
   const name = `kenning_${runId}`;
   const adminUrl = pg.url('postgres');
+  const benchFiles = path.join(local, `bench-files-${process.pid}`);
   try {
-    tsx('server/scripts/prepare-database.ts', ['--database', name, '--seed', '--fresh'], { KENNING_ADMIN_DATABASE_URL: adminUrl });
-    tsx('tests/bench/run.ts', process.argv.slice(3), { KENNING_BENCH_DATABASE_URL: pg.url(name) });
+    tsx('server/scripts/prepare-database.ts', ['--database', name, '--seed', '--fresh', '--files', benchFiles], {
+      KENNING_ADMIN_DATABASE_URL: adminUrl,
+    });
+    tsx('tests/bench/run.ts', process.argv.slice(3), { KENNING_BENCH_DATABASE_URL: pg.url(name), KENNING_BENCH_FILES_DIR: benchFiles });
   } finally {
+    rmSync(benchFiles, { recursive: true, force: true });
     spawnSync(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/drop-test-databases.ts'), runId], {
       cwd: root,
       env: { ...env, KENNING_ADMIN_DATABASE_URL: adminUrl },

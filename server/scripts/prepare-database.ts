@@ -5,14 +5,18 @@
  *   --fresh           drop it first
  *   --from TEMPLATE   copy an already prepared database instead of migrating
  *   --seed            seed the demo scenario (idempotent)
+ *   --files DIR       the file store the demo terrain goes to (default .kenning/files, the server's default)
  *
  * Reads KENNING_ADMIN_DATABASE_URL (a URL to the maintenance database).
  */
+import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { Client } from 'pg';
+import { dataDir } from '../config';
 import { createDatabase } from '../data/database';
 import { migrate } from '../data/migrator';
 import { seedDemo } from '../data/seeders/demo';
+import { createDiskFileStore } from '../storage/file-store';
 
 const { values } = parseArgs({
   options: {
@@ -20,6 +24,7 @@ const { values } = parseArgs({
     fresh: { type: 'boolean', default: false },
     from: { type: 'string' },
     seed: { type: 'boolean', default: false },
+    files: { type: 'string' },
   },
 });
 
@@ -53,7 +58,8 @@ async function main() {
     const applied = await migrate(db);
     if (applied.length) console.log(`[kenning] ${name}: applied ${applied.length} migration(s)`);
     if (values.seed) {
-      const seeded = await seedDemo(db);
+      const files = createDiskFileStore(path.resolve(values.files ?? path.join(dataDir, 'files')));
+      const seeded = await seedDemo(db, { files });
       if (seeded) console.log(`[kenning] ${name}: seeded the demo scenario`);
     }
   } finally {

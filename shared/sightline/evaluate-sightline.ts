@@ -15,16 +15,12 @@ import {
   horizonDip,
   horizonDistance,
   MEAN_EARTH_RADIUS_M,
-  refractionFromRefractivityGradient,
-  refractionFromTemperatureGradient,
-  refractionFromTwoTemperatures,
-  refractionPreset,
   tangentLength,
   visibleHeight,
   type SphereOptions,
 } from '@/shared/sightline';
+import { refractionFromCondition } from '@/shared/sightline/refraction-from-condition';
 import { convertAngle } from '@/shared/units/angle';
-import { convertTemperature } from '@/shared/units/temperature';
 
 /** Standing cautions returned with every evaluation. */
 const CAUTIONS: readonly SightlineCaution[] = Object.freeze([
@@ -51,33 +47,9 @@ const CAUTIONS: readonly SightlineCaution[] = Object.freeze([
 
 const format = (value: number, digits = 3) => Number(value.toPrecision(digits)).toString();
 
-/** k of one condition; conversions to SI happen here, at the edge. */
-function refractionCoefficient(condition: RefractionCondition, earthRadiusM: number): number {
-  if ('k' in condition) return condition.k;
-  if ('preset' in condition) return refractionPreset(condition.preset).k;
-  if ('refractivityGradientNPerKm' in condition) {
-    return refractionFromRefractivityGradient(condition.refractivityGradientNPerKm / 1000, earthRadiusM);
-  }
-  if ('airTemperatureC' in condition) {
-    return refractionFromTwoTemperatures({
-      airTemperatureK: convertTemperature(condition.airTemperatureC, 'C'),
-      surfaceTemperatureK: convertTemperature(condition.surfaceTemperatureC, 'C'),
-      airHeightM: condition.airHeightM,
-      surfaceHeightM: condition.surfaceHeightM,
-      pressureHpa: condition.pressureHpa,
-    });
-  }
-  // Lapse rate Γ is −dT/dh.
-  return refractionFromTemperatureGradient({
-    pressureHpa: condition.pressureHpa,
-    temperatureK: convertTemperature(condition.temperatureC, 'C'),
-    temperatureGradientKPerM: -condition.lapseRateKPerM,
-  });
-}
-
 function evaluateCondition(request: SightlineRequest, condition: RefractionCondition): SightlineResult {
   const earthRadiusM = request.earthRadiusM ?? MEAN_EARTH_RADIUS_M;
-  const k = refractionCoefficient(condition, earthRadiusM);
+  const k = refractionFromCondition(condition, earthRadiusM);
   const sphere: SphereOptions = { k, earthRadiusM };
   const regime = classifyRefraction(k);
   const warnings: SightlineWarning[] = [];

@@ -50,4 +50,6 @@ export type TerrainInputErrorCode =
   /** A coverage standard outside its documented range. */
   | 'invalid-standard'
   /** An encoded class raster that cannot be decoded. */
-  | 'invalid-encoding';
+  | 'invalid-encoding'
+  | 'point-outside-raster'
+  | 'point-on-nodata';

@@ -6,6 +6,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { benchApi } from './api.bench';
 import { benchSightline } from './sightline.bench';
+import { benchTerrain } from './terrain.bench';
 
 interface Row {
   name: string;
@@ -46,6 +47,9 @@ async function main() {
   if ((!only || only === 'coverage') && existsSync(coverage)) {
     const mod = (await import(coverage)) as { benchCoverage: () => Promise<Row[]> };
     print('Network coverage (10 posts, 2000², after the viewsheds)', await mod.benchCoverage());
+  }
+  if (!only || only === 'terrain') {
+    print('Terrain: hillshade, profile, upload ingest', await benchTerrain());
   }
 }
 

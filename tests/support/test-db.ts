@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { mkdtempSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync } from 'node:fs';
 import { rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
@@ -63,11 +63,21 @@ export const TEST_CONFIG: AppDeps['config'] = {
   SIGN_IN_WINDOW_SECONDS: 900,
   LOG_REQUESTS: false,
   CAUGHT_MAIL_URL: undefined,
+  TERRAIN_MAX_UPLOAD_BYTES: 400_000_000,
+  TERRAIN_MAX_CELLS: 25_000_000,
+  TERRAIN_CACHE_MB: 256,
+  TERRAIN_UPLOAD_DIR: path.join(os.tmpdir(), 'kenning-test-uploads'),
 };
 
-/** A file store in a new temporary folder (remove `filesDir` when done). */
+/**
+ * A file store in a new temporary folder (remove `filesDir` when done). It
+ * starts as a copy of the run's seeded store (KENNING_TEST_FILES_DIR, which
+ * holds the demo terrain the template database refers to), when there is one.
+ */
 export function scratchFileStore() {
   const filesDir = mkdtempSync(path.join(os.tmpdir(), 'kenning-files-'));
+  const seeded = process.env.KENNING_TEST_FILES_DIR;
+  if (seeded && existsSync(seeded)) cpSync(seeded, filesDir, { recursive: true });
   return { files: createDiskFileStore(filesDir), filesDir };
 }
 
@@ -79,15 +89,19 @@ export function scratchFileStore() {
 export async function createTestApp(config: Partial<AppDeps['config']> = {}) {
   const database = await createTestDatabase();
   const { files, filesDir } = scratchFileStore();
-  const app = createApp({ db: database.db, config: { ...TEST_CONFIG, ...config }, files });
+  const uploadsDir = mkdtempSync(path.join(os.tmpdir(), 'kenning-uploads-'));
+  const app = createApp({ db: database.db, config: { ...TEST_CONFIG, TERRAIN_UPLOAD_DIR: uploadsDir, ...config }, files });
   return {
     app,
     db: database.db,
     files,
     filesDir,
+    /** Where terrain uploads are received (per-request folders, removed after each request). */
+    uploadsDir,
     close: async () => {
       await database.drop();
       await rm(filesDir, { recursive: true, force: true });
+      await rm(uploadsDir, { recursive: true, force: true });
     },
   };
 }

@@ -7,6 +7,7 @@ import { OrganizationModel } from './organization';
 import { PlanModel, PlanReviewModel, PlanRevisionModel } from './plan';
 import { PostModel } from './post';
 import { PriorityZoneModel, SiteModel } from './site';
+import { SiteTerrainModel } from './site-terrain';
 import { UserModel } from './user';
 
 export {
@@ -22,6 +23,7 @@ export {
   PostModel,
   PriorityZoneModel,
   SiteModel,
+  SiteTerrainModel,
   UserModel,
 };
 
@@ -40,6 +42,7 @@ export function initModels(sequelize: Sequelize): void {
   PlanReviewModel.register(sequelize);
   AssignmentModel.register(sequelize);
   AttachmentModel.register(sequelize);
+  SiteTerrainModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });

@@ -1,3 +1,6 @@
+import { copyFile, mkdtemp, rm, stat } from 'node:fs/promises';
+import os from 'node:os';
+import path from 'node:path';
 import type { Sequelize } from 'sequelize';
 import type { Role } from '@/shared/schemas/auth';
 import { hashPassword } from '@/server/domain/auth/passwords';
@@ -11,6 +14,15 @@ import { AssignmentModel, PlanModel, PostModel } from '../models';
 import { assignmentsRepository } from '../repositories/assignments-repository';
 import { postsRepository } from '../repositories/posts-repository';
 import { sitesRepository } from '../repositories/sites-repository';
+import { terrainRepository } from '../repositories/terrain-repository';
+import { uploadTerrain } from '@/server/domain/terrain/manage-terrain';
+import type { FileStore } from '@/server/storage/file-store';
+import { createTerrainCache } from '@/server/terrain/terrain-cache';
+import { createTerrainIngestRunner } from '@/server/workers/terrain-ingest-runner';
+import { DEFAULT_HILLSHADE_MAX_EDGE } from '@/shared/terrain/hillshade-image';
+
+/** The demo terrain (invented, see assets/terrain/README.md), attached to the forest district. */
+export const DEMO_TERRAIN_FILE = path.join(__dirname, '..', '..', '..', 'assets', 'terrain', 'demo-forest-district.tif');
 
 /** Invented demo scenario. Every demo account uses this password. */
 export const DEMO_PASSWORD = 'kenning-demo';
@@ -86,7 +98,7 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
         name: 'Crane Knoll Tower',
         kind: 'tower',
         location: utm33(516_200, 5_741_300),
-        groundElevationM: 612,
+        groundElevationM: 578.4, // the demo terrain's ground there (bilinear)
         structureHeightM: 22,
         eyeHeightM: 1.6,
         sector: null,
@@ -96,7 +108,7 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
         name: 'Sedge Ridge Tower',
         kind: 'tower',
         location: utm33(523_400, 5_739_800),
-        groundElevationM: 688,
+        groundElevationM: 931.2,
         structureHeightM: 18,
         eyeHeightM: 1.6,
         sector: null,
@@ -106,7 +118,7 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
         name: 'Blackmoss Tower',
         kind: 'tower',
         location: utm33(519_600, 5_733_900),
-        groundElevationM: 455,
+        groundElevationM: 613.0,
         structureHeightM: 30,
         eyeHeightM: 1.6,
         sector: null,
@@ -318,14 +330,68 @@ async function seedDemoWatches(db: Sequelize, now = new Date()): Promise<boolean
   return true;
 }
 
-/** Seeds the demo organisations, users, sites, libraries, plans and watches once; returns false when nothing was added. */
-export async function seedDemo(db: Sequelize): Promise<boolean> {
+/**
+ * Attaches the demo terrain to the forest district through the same use case
+ * as an upload (so the hillshade exists), as the demo planner. Idempotent: runs
+ * when the district has no active terrain, or when its stored grid is missing
+ * from this file store (then the new upload replaces the old row).
+ */
+async function seedDemoTerrain(db: Sequelize, files: FileStore): Promise<boolean> {
+  const org = await OrganizationModel.findOne({ where: { slug: DEMO_ORGANIZATIONS[0].slug } });
+  if (!org) return false;
+  const forest = await SiteModel.findOne({ where: { organizationId: org.id, name: DEMO_SITES[0]!.site.name } });
+  if (!forest) return false;
+  const current = await terrainRepository.findActive(org.id, forest.id);
+  const present = async (key: string) =>
+    stat(files.localPath(key)).then(
+      () => true,
+      () => false,
+    );
+  if (current && (await present(current.storeKey)) && (await present(current.hillshadeKey))) return false;
+  const planner = await UserModel.findOne({ where: { organizationId: org.id, role: 'planner' } });
+  if (!planner) return false;
+  const workDir = await mkdtemp(path.join(os.tmpdir(), 'kenning-seed-'));
+  try {
+    // The upload use case consumes its input; give it a copy of the asset.
+    const copy = path.join(workDir, 'demo-forest-district.tif');
+    await copyFile(DEMO_TERRAIN_FILE, copy);
+    await uploadTerrain(
+      {
+        db,
+        files,
+        ingest: createTerrainIngestRunner(),
+        cache: createTerrainCache({ files, maxBytes: 0 }),
+        maxCells: 25_000_000,
+        hillshadeMaxEdge: DEFAULT_HILLSHADE_MAX_EDGE,
+      },
+      { userId: planner.id, organizationId: org.id, role: 'planner' },
+      forest.id,
+      {
+        file: { path: copy, originalName: 'demo-forest-district.tif', bytes: (await stat(copy)).size },
+        prj: null,
+        epsg: null,
+        workDir,
+      },
+    );
+  } finally {
+    await rm(workDir, { recursive: true, force: true });
+  }
+  return true;
+}
+
+/**
+ * Seeds the demo organisations, users, sites, libraries, plans and watches
+ * once, and — given a file store — the forest district's terrain; returns
+ * false when nothing was added.
+ */
+export async function seedDemo(db: Sequelize, options: { files?: FileStore } = {}): Promise<boolean> {
   const accounts = await seedDemoAccounts(db);
   const sites = await seedDemoSites(db);
   const libraries = await seedLibraries(db);
   const plans = await seedDemoPlans(db);
   const watches = await seedDemoWatches(db);
-  return accounts || sites || libraries || plans || watches;
+  const terrain = options.files ? await seedDemoTerrain(db, options.files) : false;
+  return accounts || sites || libraries || plans || watches || terrain;
 }
 
 async function seedDemoAccounts(db: Sequelize): Promise<boolean> {

@@ -35,9 +35,11 @@ const HEADER_KEYS = new Set([
  *
  * @param text the whole `.asc` file
  * @param prjText the `.prj` file's text, or null/undefined when absent
+ * @param options `maxCells`: refuse larger grids before reading their values
+ *   (default {@link MAX_TERRAIN_CELLS})
  * @returns a new terrain raster, heights in the file's units (metres expected)
  * @throws TerrainFormatError `wrong-type`, `corrupt`, `truncated`,
- *   `geographic-crs`, `oversize` (more than {@link MAX_TERRAIN_CELLS} cells),
+ *   `geographic-crs`, `oversize` (more than `maxCells` cells),
  *   `unsupported` (dx ≠ dy)
  * @example
  * const terrain = readEsriAsciiGrid(
@@ -45,7 +47,8 @@ const HEADER_KEYS = new Set([
  * );
  * terrain.heights; // Float32Array [101.5, 102]
  */
-export function readEsriAsciiGrid(text: string, prjText?: string | null): TerrainRaster {
+export function readEsriAsciiGrid(text: string, prjText?: string | null, options: { maxCells?: number } = {}): TerrainRaster {
+  const maxCells = Math.min(options.maxCells ?? MAX_TERRAIN_CELLS, MAX_TERRAIN_CELLS);
   if (text.length === 0) throw new TerrainFormatError('truncated', 'The ASCII grid is empty.');
   if (/^(II\*\0|MM\0\*|\x89PNG|PK)/.test(text) || text.slice(0, 512).includes('\0')) {
     throw new TerrainFormatError(
@@ -95,11 +98,11 @@ export function readEsriAsciiGrid(text: string, prjText?: string | null): Terrai
   if (!Number.isInteger(width) || !Number.isInteger(height) || width < 1 || height < 1) {
     throw new TerrainFormatError('corrupt', `ncols and nrows must be positive integers, got ${width} × ${height}.`);
   }
-  if (width * height > MAX_TERRAIN_CELLS) {
+  if (width * height > maxCells) {
     throw new TerrainFormatError(
       'oversize',
-      `The grid has ${width} × ${height} = ${width * height} cells; Kenning reads at most ${MAX_TERRAIN_CELLS} ` +
-        '(e.g. 10 000 × 10 000). Clip or resample it first (e.g. gdal_translate -srcwin / -tr).',
+      `The grid has ${width} × ${height} = ${width * height} cells; Kenning reads at most ${maxCells}. ` +
+        'Clip or resample it first (e.g. gdal_translate -srcwin / -tr).',
     );
   }
   let cellSize = header.get('cellsize');

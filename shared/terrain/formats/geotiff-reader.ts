@@ -17,15 +17,18 @@ import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
  * GDAL GTiff driver documentation (GDAL_NODATA).
  *
  * @param bytes the whole file
+ * @param options `maxCells`: refuse larger grids before decoding them
+ *   (default {@link MAX_TERRAIN_CELLS})
  * @returns a promise of a new terrain raster (heights in the file's units, metres expected)
  * @throws TerrainFormatError (as a rejected promise) `wrong-type` (not a TIFF),
  *   `truncated`, `corrupt`, `geographic-crs` (degrees — reproject to UTM),
- *   `oversize` (more than {@link MAX_TERRAIN_CELLS} cells), `unsupported`
+ *   `oversize` (more than `maxCells` cells), `unsupported`
  *   (no georeferencing, rotated or non-square or south-up grids)
  * @example
  * const terrain = await readGeoTiff(await fs.promises.readFile('dem.tif').then((b) => b.buffer));
  */
-export async function readGeoTiff(bytes: ArrayBuffer): Promise<TerrainRaster> {
+export async function readGeoTiff(bytes: ArrayBuffer, options: { maxCells?: number } = {}): Promise<TerrainRaster> {
+  const maxCells = Math.min(options.maxCells ?? MAX_TERRAIN_CELLS, MAX_TERRAIN_CELLS);
   if (bytes.byteLength < 8) {
     throw new TerrainFormatError(bytes.byteLength === 0 ? 'truncated' : 'wrong-type', 'The file is too short to be a TIFF.');
   }
@@ -51,11 +54,11 @@ export async function readGeoTiff(bytes: ArrayBuffer): Promise<TerrainRaster> {
   const width = image.getWidth();
   const height = image.getHeight();
   if (!(width >= 1 && height >= 1)) throw new TerrainFormatError('corrupt', `Bad image size ${width} × ${height}.`);
-  if (width * height > MAX_TERRAIN_CELLS) {
+  if (width * height > maxCells) {
     throw new TerrainFormatError(
       'oversize',
-      `The GeoTIFF has ${width} × ${height} = ${width * height} cells; Kenning reads at most ${MAX_TERRAIN_CELLS} ` +
-        '(e.g. 10 000 × 10 000). Clip or resample it first (e.g. gdal_translate -srcwin / -tr).',
+      `The GeoTIFF has ${width} × ${height} = ${width * height} cells; Kenning reads at most ${maxCells}. ` +
+        'Clip or resample it first (e.g. gdal_translate -srcwin / -tr).',
     );
   }
 

@@ -1,0 +1,252 @@
+import { useState } from 'react';
+import { Image, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
+import Svg, { Polygon } from 'react-native-svg';
+import type { Site } from '@/shared/schemas/site';
+import { TERRAIN_FORMAT_LABELS, type SiteTerrain } from '@/shared/schemas/terrain';
+import { gridProjection } from '@/shared/terrain/grid-projection';
+import { ApiRequestError } from '@/components/data/api-client';
+import { useSiteTerrain, useUploadTerrain, type PickedFile } from '@/components/data/terrain';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { EmptyState, ErrorState, FormError, LoadingState, Notice } from '@/components/ui/states';
+import { TextField } from '@/components/ui/text-field';
+import { colors, radius, space } from '@/components/ui/theme';
+import { CAN_PICK_FILES, FilePickerField } from './terrain-file-picker';
+
+const km = (metres: number) => `${(metres / 1000).toFixed(metres < 10_000 ? 2 : 1)} km`;
+
+/** The site's terrain: hillshade with the boundary, grid facts, and for planners an upload control. */
+export function TerrainPanel({ site, canUpload }: { site: Site; canUpload: boolean }) {
+  const terrain = useSiteTerrain(site.id);
+  return (
+    <Card aria-label="Terrain" style={{ gap: space.md }}>
+      <AppText variant="heading">Terrain</AppText>
+      {terrain.isPending ? (
+        <LoadingState label="Loading the terrain…" />
+      ) : terrain.isError ? (
+        <ErrorState error={terrain.error} onRetry={() => void terrain.refetch()} />
+      ) : terrain.data === null ? (
+        <EmptyState
+          title="No terrain yet"
+          body="An elevation grid of the site lets Kenning look up ground heights, draw terrain profiles and, later, work out what each post sees."
+        />
+      ) : (
+        <TerrainFacts site={site} terrain={terrain.data} />
+      )}
+      {canUpload && !terrain.isPending && !terrain.isError ? (
+        <TerrainUploadForm siteId={site.id} replacing={terrain.data !== null} />
+      ) : null}
+    </Card>
+  );
+}
+
+function TerrainFacts({ site, terrain }: { site: Site; terrain: SiteTerrain }) {
+  const layer = terrain.baseLayer;
+  const widthM = terrain.width * terrain.cellSizeM;
+  const heightM = terrain.height * terrain.cellSizeM;
+  return (
+    <View style={{ gap: space.sm }}>
+      <TerrainPicture site={site} terrain={terrain} />
+      <AppText variant="small" tone="muted">
+        Hillshade, north up, lit from the north-west.{' '}
+        {layer.widthPx < terrain.width ? `Shown at ${layer.widthPx} × ${layer.heightPx} px. ` : ''}
+        {site.boundary ? 'Outline: the site boundary.' : ''}
+      </AppText>
+      <View style={styles.facts}>
+        <Fact label="Grid" value={`${terrain.width} × ${terrain.height} cells · ${km(widthM)} × ${km(heightM)}`} />
+        <Fact label="Cell size" value={`${terrain.cellSizeM} m`} />
+        <Fact label="Coordinate system" value={terrain.crs.label} />
+        <Fact label="Ground" value={`${Math.round(terrain.minElevationM)} – ${Math.round(terrain.maxElevationM)} m`} />
+        {terrain.nodataCells > 0 ? <Fact label="Cells without data" value={terrain.nodataCells.toLocaleString('en')} /> : null}
+        <Fact label="File" value={`${terrain.originalName} (${TERRAIN_FORMAT_LABELS[terrain.originalFormat]})`} />
+        <Fact
+          label="Uploaded"
+          value={`${new Date(terrain.createdAt).toLocaleDateString('en-GB')} by ${terrain.uploadedBy.name}`}
+        />
+      </View>
+      {terrain.coversBoundary === false ? (
+        <Notice tone="caution" title="Part of the site is outside this terrain">
+          <AppText variant="small">
+            Ground outside the grid, or without data, is not assessed. Upload a terrain that covers the whole boundary.
+          </AppText>
+        </Notice>
+      ) : null}
+    </View>
+  );
+}
+
+function Fact({ label, value }: { label: string; value: string }) {
+  return (
+    <View style={styles.fact}>
+      <AppText variant="small" tone="muted">
+        {label}
+      </AppText>
+      <AppText variant="small">{value}</AppText>
+    </View>
+  );
+}
+
+/** The hillshade picture, with the site boundary drawn over it in the grid's own coordinates. */
+function TerrainPicture({ site, terrain }: { site: Site; terrain: SiteTerrain }) {
+  const [width, setWidth] = useState(0);
+  const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
+  const layer = terrain.baseLayer;
+  const height = width > 0 ? Math.min((width * layer.heightPx) / layer.widthPx, 520) : 0;
+  const drawWidth = height > 0 ? (height * layer.widthPx) / layer.heightPx : 0;
+  let outline: string | null = null;
+  if (site.boundary && drawWidth > 0) {
+    try {
+      const grid = gridProjection(terrain.crs);
+      const { west, east, south, north } = layer.gridBounds;
+      outline = site.boundary
+        .map(([lonDeg, latDeg]) => {
+          const { x, y } = grid.toGrid({ latDeg, lonDeg });
+          return `${(((x - west) / (east - west)) * drawWidth).toFixed(1)},${(((north - y) / (north - south)) * height).toFixed(1)}`;
+        })
+        .join(' ');
+    } catch {
+      outline = null; // a CRS the browser cannot convert: the picture alone
+    }
+  }
+  return (
+    <View onLayout={onLayout} style={{ width: '100%' }}>
+      {width > 0 ? (
+        <View style={[styles.picture, { width: drawWidth, height }]} role="img" aria-label={`Hillshade of ${site.name}`}>
+          <Image source={{ uri: layer.url }} style={{ width: drawWidth, height }} resizeMode="stretch" />
+          {outline ? (
+            <Svg width={drawWidth} height={height} style={StyleSheet.absoluteFill} pointerEvents="none">
+              <Polygon points={outline} fill="none" stroke={colors.ember} strokeWidth={2.5} />
+            </Svg>
+          ) : null}
+        </View>
+      ) : (
+        <View style={{ height: 200 }} />
+      )}
+    </View>
+  );
+}
+
+const ACCEPTED = '.tif,.tiff,.asc';
+
+/** Upload (or replace) the site's terrain, with progress and the server's field errors. */
+function TerrainUploadForm({ siteId, replacing }: { siteId: string; replacing: boolean }) {
+  const upload = useUploadTerrain(siteId);
+  const [file, setFile] = useState<PickedFile | null>(null);
+  const [prj, setPrj] = useState<PickedFile | null>(null);
+  const [epsg, setEpsg] = useState('');
+  const [progress, setProgress] = useState(0);
+  const [errors, setErrors] = useState<{ file?: string; prj?: string; epsg?: string }>({});
+  const [formError, setFormError] = useState('');
+  const [done, setDone] = useState('');
+  const isAscii = !!file && /\.asc$/i.test(file.name);
+
+  if (!CAN_PICK_FILES)
+    return <FilePickerField label="Terrain file" buttonLabel="" accept={ACCEPTED} file={null} onPick={() => {}} />;
+
+  const submit = () => {
+    setFormError('');
+    setDone('');
+    if (!file) {
+      setErrors({ file: 'Choose a GeoTIFF (.tif, .tiff) or an ESRI ASCII grid (.asc).' });
+      return;
+    }
+    setErrors({});
+    setProgress(0);
+    upload.mutate(
+      { file, prj: isAscii ? prj : null, epsg, onProgress: setProgress },
+      {
+        onSuccess: ({ terrain }) => {
+          setFile(null);
+          setPrj(null);
+          setEpsg('');
+          setDone(`${terrain.originalName} is now the site’s terrain.`);
+        },
+        onError: (e) => {
+          if (e instanceof ApiRequestError) {
+            setErrors({ file: e.fields.file, prj: e.fields.prj, epsg: e.fields.epsg });
+          }
+          setFormError(e.message);
+        },
+      },
+    );
+  };
+
+  const sending = upload.isPending && progress < 1;
+  const checking = upload.isPending && progress >= 1;
+  return (
+    <View aria-label={replacing ? 'Replace terrain' : 'Upload terrain'} style={styles.form}>
+      <AppText variant="label">{replacing ? 'Replace the terrain' : 'Upload a terrain'}</AppText>
+      <AppText variant="small" tone="muted">
+        GeoTIFF, or ESRI ASCII grid with its .prj, in a projected coordinate system in metres (e.g. UTM). Up to 25 million cells
+        (5000 × 5000) and 400 MB. The previous terrain is kept for the plans that used it.
+      </AppText>
+      <FormError message={formError} />
+      {done ? (
+        <Notice tone="info">
+          <AppText variant="small">{done}</AppText>
+        </Notice>
+      ) : null}
+      <FilePickerField
+        label="Terrain file"
+        buttonLabel="Choose file"
+        accept={ACCEPTED}
+        file={file}
+        error={errors.file}
+        onPick={(picked) => {
+          setFile(picked);
+          setErrors((e) => ({ ...e, file: undefined }));
+        }}
+      />
+      {isAscii ? (
+        <FilePickerField
+          label="Coordinate system (.prj), optional"
+          buttonLabel="Choose .prj"
+          accept=".prj"
+          file={prj}
+          error={errors.prj}
+          hint="The .prj file that came with the grid."
+          onPick={setPrj}
+        />
+      ) : null}
+      <TextField
+        label="EPSG code, if the file has no coordinate system"
+        value={epsg}
+        onChangeText={setEpsg}
+        inputMode="numeric"
+        error={errors.epsg}
+        hint="E.g. 32633 for WGS 84 / UTM zone 33N. Leave empty when the file carries its own."
+      />
+      {upload.isPending ? (
+        <View style={{ gap: space.xs }} aria-live="polite">
+          <View
+            style={styles.track}
+            role="progressbar"
+            aria-valuemin={0}
+            aria-valuemax={100}
+            aria-valuenow={Math.round(progress * 100)}
+          >
+            <View style={[styles.bar, { width: `${Math.round(progress * 100)}%` }]} />
+          </View>
+          <AppText variant="small" tone="muted">
+            {sending
+              ? `Sending… ${Math.round(progress * 100)} %`
+              : checking
+                ? 'Checking the grid and drawing its hillshade…'
+                : ''}
+          </AppText>
+        </View>
+      ) : null}
+      <Button label={replacing ? 'Replace terrain' : 'Upload terrain'} onPress={submit} busy={upload.isPending} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  picture: { borderRadius: radius.md, overflow: 'hidden', backgroundColor: colors.paper, alignSelf: 'center' },
+  facts: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.xl, rowGap: space.sm },
+  fact: { flexBasis: '40%', flexGrow: 1, gap: 2 },
+  form: { gap: space.md, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.md },
+  track: { height: 8, borderRadius: radius.pill, backgroundColor: colors.paper, overflow: 'hidden' },
+  bar: { height: 8, backgroundColor: colors.moss },
+});

@@ -1,0 +1,105 @@
+import { pipeline } from 'node:stream/promises';
+import { Router } from 'express';
+import { z } from 'zod';
+import { ElevationQuerySchema, TerrainProfileRequestSchema, TerrainUploadFieldsSchema } from '@/shared/schemas/terrain';
+import { getSite } from '@/server/domain/sites/manage-sites';
+import {
+  getActiveTerrain,
+  openHillshade,
+  profileTerrain,
+  terrainElevation,
+  uploadTerrain,
+  type TerrainDeps,
+} from '@/server/domain/terrain/manage-terrain';
+import { AppError } from '@/server/http/app-error';
+import { receiveUpload } from '@/server/http/multipart';
+import { actorOf, requireRole, requireUser } from '@/server/http/session';
+import { parseOrThrow } from '@/server/http/validate';
+
+const SiteParams = z.object({ siteId: z.uuid({ error: 'Not a site id.' }) });
+const HillshadeQuery = z.object({ terrainId: z.uuid({ error: 'Not a terrain id.' }).optional() });
+
+/** Settings of the terrain upload route. */
+export interface TerrainUploadSettings {
+  /** Parent folder of the per-request temporary folders. */
+  tmpDir: string;
+  /** Largest upload, bytes. */
+  maxBytes: number;
+}
+
+const megabytes = (bytes: number) =>
+  bytes >= 1_000_000
+    ? `${Math.floor(bytes / 1_000_000).toLocaleString('en')} MB`
+    : `${Math.floor(bytes / 1000).toLocaleString('en')} kB`;
+
+/** A site's terrain: upload (planners), metadata, hillshade, elevation and profile (every role). */
+export function terrainRoutes(deps: TerrainDeps, upload: TerrainUploadSettings) {
+  const router = Router();
+
+  router.get('/sites/:siteId/terrain', requireUser, async (req, res) => {
+    const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
+    res.json({ terrain: await getActiveTerrain(actorOf(req), siteId) });
+  });
+
+  router.post('/sites/:siteId/terrain', requireUser, requireRole('planner'), async (req, res) => {
+    const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
+    const actor = actorOf(req);
+    await getSite(actor, siteId); // 404 before taking the body
+    const received = await receiveUpload(req, res, {
+      tmpRoot: upload.tmpDir,
+      maxBytes: upload.maxBytes,
+      fileFields: ['file', 'prj'],
+      tooLarge: (field) =>
+        new AppError(
+          413,
+          'terrain_too_large',
+          `The file is larger than ${megabytes(upload.maxBytes)}, the most Kenning takes. Clip the terrain to the site or resample it to a coarser cell (e.g. gdalwarp -tr 25 25), or send it as a GeoTIFF (smaller than an ASCII grid).`,
+          { [field]: `At most ${megabytes(upload.maxBytes)}.` },
+        ),
+    });
+    let terrain;
+    try {
+      const file = received.files.file;
+      if (!file) {
+        throw AppError.badRequest('Choose a terrain file to upload.', {
+          file: 'Choose a GeoTIFF (.tif, .tiff) or an ESRI ASCII grid (.asc).',
+        });
+      }
+      const { epsg } = parseOrThrow(TerrainUploadFieldsSchema, received.fields, 'upload');
+      terrain = await uploadTerrain(deps, actor, siteId, {
+        file,
+        prj: received.files.prj ?? null,
+        epsg: epsg ?? null,
+        workDir: received.dir,
+      });
+    } finally {
+      // Before answering, so nothing of the upload is left on disk once the caller hears back.
+      await received.cleanup();
+    }
+    res.status(201).json({ terrain });
+  });
+
+  router.get('/sites/:siteId/terrain/hillshade.png', requireUser, async (req, res) => {
+    const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
+    const { terrainId } = parseOrThrow(HillshadeQuery, req.query, 'query');
+    const { stream } = await openHillshade(deps, actorOf(req), siteId, terrainId);
+    res.setHeader('Content-Type', 'image/png');
+    // A terrain never changes once stored (a replacement gets a new id), so an image named by id can be kept.
+    res.setHeader('Cache-Control', terrainId ? 'private, max-age=31536000, immutable' : 'private, no-cache');
+    await pipeline(stream, res);
+  });
+
+  router.get('/sites/:siteId/terrain/elevation', requireUser, async (req, res) => {
+    const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
+    const query = parseOrThrow(ElevationQuerySchema, req.query, 'query');
+    res.json(await terrainElevation(deps, actorOf(req), siteId, query));
+  });
+
+  router.post('/sites/:siteId/terrain/profile', requireUser, async (req, res) => {
+    const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
+    const body = parseOrThrow(TerrainProfileRequestSchema, req.body, 'profile');
+    res.json(await profileTerrain(deps, actorOf(req), siteId, body));
+  });
+
+  return router;
+}
