@@ -5,6 +5,7 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { benchApi } from './api.bench';
+import { benchLists } from './lists.bench';
 import { benchSightline } from './sightline.bench';
 import { benchTerrain } from './terrain.bench';
 
@@ -36,6 +37,9 @@ async function main() {
       'Sightline API on loopback (autocannon, 10 connections, 5 s each)',
       await benchApi(process.env.KENNING_BENCH_DATABASE_URL),
     );
+  }
+  if ((!only || only === 'lists') && process.env.KENNING_BENCH_DATABASE_URL) {
+    print('List pages with 1 000 posts on a site (autocannon, 4 connections, 4 s each)', await benchLists(process.env.KENNING_BENCH_DATABASE_URL));
   }
   const viewshed = path.join(__dirname, 'viewshed.bench.ts');
   if ((!only || only === 'viewshed') && existsSync(viewshed)) {
