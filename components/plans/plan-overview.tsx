@@ -11,6 +11,7 @@ import {
   useSubmitPlan,
 } from '@/components/data/plans';
 import { useSession } from '@/components/data/session';
+import { DocumentsPanel } from '@/components/attachments/documents-panel';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -144,6 +145,14 @@ function PlanPage({
               : 'Loading the frozen revision…'}
         </AppText>
       </Card>
+
+      <DocumentsPanel
+        owner={{ ownerType: 'plan', ownerId: plan.id }}
+        canEdit={isPlanner && editable}
+        frozenNote={
+          editable ? undefined : 'These files were frozen with the plan when it was submitted; a new version can change them.'
+        }
+      />
 
       {results.isPending && (editable || latestRevision !== null) ? (
         <LoadingState label="Computing the results…" />

@@ -80,6 +80,19 @@ export type PlanListQuery = z.infer<typeof PlanListQuerySchema>;
 
 export const PlanListSchema = pageOf(PlanSchema);
 
+/** A file frozen into a revision by reference: which, whose, and its content hash. */
+export const AttachmentRefSchema = z.object({
+  id: z.uuid(),
+  ownerType: z.enum(['post', 'site', 'plan']),
+  ownerId: z.uuid(),
+  kind: z.enum(['photo', 'document']),
+  name: z.string(),
+  sha256: z.string(),
+  bytes: z.number().int(),
+  bearingDeg: z.number().nullable(),
+  caption: z.string(),
+});
+
 /** How much of a named priority zone a post reaches for one target under one condition. */
 export const ZoneReachSchema = z.object({
   name: z.string(),
@@ -119,6 +132,8 @@ export const PlanSnapshotSchema = z.object({
     posts: z.array(z.record(z.string(), z.unknown())),
     targets: z.array(z.record(z.string(), z.unknown())),
     conditionSets: z.array(z.record(z.string(), z.unknown())),
+    /** The plan's documents and its posts' photos as they were at submission (the bytes are kept for good). */
+    attachments: z.array(AttachmentRefSchema).default([]),
   }),
   results: z.array(PlanResultRowSchema),
   cautions: z.array(z.object({ code: z.string(), message: z.string() })),

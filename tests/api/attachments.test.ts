@@ -84,9 +84,16 @@ const photoOf = (owner: keyof typeof owners, extra: Record<string, string | numb
 });
 
 async function uploadPhoto(owner: keyof typeof owners = 'post', extra: Record<string, string | number> = {}) {
-  const res = await upload(agents.planner, photoOf(owner, extra), { data: fixture('ridge-64x48.png'), name: 'ridge.png' });
-  if (res.status !== 201) throw new Error(`upload failed: ${res.status} ${JSON.stringify(res.body)}`);
-  return res.body.attachment as { id: string; version: number; sha256: string };
+  // An approved plan takes no new files; its files were attached while it was a draft, as here.
+  const reopen = owner === 'approvedPlan';
+  if (reopen) await PlanModel.update({ status: 'draft' }, { where: { id: owners.approvedPlan.ownerId } });
+  try {
+    const res = await upload(agents.planner, photoOf(owner, extra), { data: fixture('ridge-64x48.png'), name: 'ridge.png' });
+    if (res.status !== 201) throw new Error(`upload failed: ${res.status} ${JSON.stringify(res.body)}`);
+    return res.body.attachment as { id: string; version: number; sha256: string };
+  } finally {
+    if (reopen) await PlanModel.update({ status: 'approved' }, { where: { id: owners.approvedPlan.ownerId } });
+  }
 }
 
 /** GET …/content with the body as raw bytes, whatever the content type. */
@@ -142,6 +149,7 @@ function expected(role: Role, route: Route, owner: Owner): number {
   if (isWrite) {
     if (role !== 'planner' && role !== 'otherPlanner') return 403; // only planners write
     if (otherOrganisation) return 404; // never reveal another organisation's records
+    if (owner === 'approvedPlan') return 409; // a submitted or approved plan's files are part of its record
     return { upload: 201, patch: 200, delete: 204 }[route];
   }
   if (otherOrganisation) return 404;
@@ -177,6 +185,7 @@ describe('roles × organisations on every attachment route', () => {
       expect(res.status).toBe(status);
       if (status === 404) expect(res.body.error.code).toBe('not_found');
       if (status === 403) expect(res.body.error.code).toBe('forbidden');
+      if (status === 409) expect(res.body.error.code).toBe('plan_frozen');
       if (route === 'list' && status === 200) expect(res.body.items.map((i: { id: string }) => i.id)).toContain(a.id);
       // A refused write changed nothing.
       if (status >= 400 && (route === 'patch' || route === 'delete')) {

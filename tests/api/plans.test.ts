@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { Express } from 'express';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
@@ -230,6 +231,41 @@ describe('coverage plan review cycle', () => {
     expect(Object.keys(bad.body.error.fields)).toEqual(
       expect.arrayContaining(['siteId', 'title', 'postIds', 'targetIds', 'conditionSetIds']),
     );
+  });
+
+  it('freezes the plan’s documents by reference and hash, and refuses new files once submitted', async () => {
+    const { plan } = (
+      await planner
+        .post('/api/v1/plans')
+        .send({ ...body, title: 'With a document' })
+        .expect(201)
+    ).body;
+    const text = Buffer.from('Tower cab glazing replaced in May; the north pane is still scratched.\n');
+    const doc = await planner
+      .post('/api/v1/attachments')
+      .field('ownerType', 'plan')
+      .field('ownerId', plan.id)
+      .field('kind', 'document')
+      .attach('file', text, { filename: 'cab-notes.txt', contentType: 'text/plain' })
+      .expect(201);
+    await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: 0 }).expect(200);
+    const { revision } = (await reviewer.get(`/api/v1/plans/${plan.id}/revisions/1`).expect(200)).body;
+    expect(revision.snapshot.inputs.attachments).toContainEqual(
+      expect.objectContaining({
+        id: doc.body.attachment.id,
+        name: 'cab-notes.txt',
+        sha256: createHash('sha256').update(text).digest('hex'),
+      }),
+    );
+    const late = await planner
+      .post('/api/v1/attachments')
+      .field('ownerType', 'plan')
+      .field('ownerId', plan.id)
+      .field('kind', 'document')
+      .attach('file', text, { filename: 'late.txt', contentType: 'text/plain' });
+    expect(late.status).toBe(409);
+    expect(late.body.error.code).toBe('plan_frozen');
+    expect((await planner.delete(`/api/v1/attachments/${doc.body.attachment.id}`)).status).toBe(409);
   });
 
   it('keeps the fields a partial update leaves out (regression: defaults reset the standard)', async () => {

@@ -23,7 +23,11 @@ export async function benchLists(databaseUrl: string, seconds = 4) {
   });
   try {
     const org = (await OrganizationModel.findOne({ where: { slug: 'harrowmere' } }))!;
-    const site = await SiteModel.create({ organizationId: org.id, name: `Bench district ${Date.now()}`, kind: 'forest-district' });
+    const site = await SiteModel.create({
+      organizationId: org.id,
+      name: `Bench district ${Date.now()}`,
+      kind: 'forest-district',
+    });
     // An invented grid of hilltops, 1 km apart.
     await PostModel.bulkCreate(
       Array.from({ length: POSTS }, (_, i) => ({
@@ -31,7 +35,10 @@ export async function benchLists(databaseUrl: string, seconds = 4) {
         siteId: site.id,
         name: `Hilltop ${String(i + 1).padStart(4, '0')}`,
         kind: 'hilltop' as const,
-        location: { type: 'Point' as const, coordinates: [15 + (i % 40) * 0.014, 51.5 + Math.floor(i / 40) * 0.009] as [number, number] },
+        location: {
+          type: 'Point' as const,
+          coordinates: [15 + (i % 40) * 0.014, 51.5 + Math.floor(i / 40) * 0.009] as [number, number],
+        },
         groundElevationM: 300 + (i % 17) * 10,
         structureHeightM: 0,
         eyeHeightM: 1.6,
@@ -40,7 +47,9 @@ export async function benchLists(databaseUrl: string, seconds = 4) {
         sectorToDeg: null,
       })),
     );
-    const signIn = await request(app).post('/api/auth/sign-in').send({ email: 'planner@demo.kenning.test', password: DEMO_PASSWORD });
+    const signIn = await request(app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'planner@demo.kenning.test', password: DEMO_PASSWORD });
     const cookie = (signIn.headers['set-cookie'] as unknown as string[])[0]!.split(';')[0]!;
     const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api/v1`;
     const pages = [

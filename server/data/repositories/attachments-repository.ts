@@ -1,4 +1,4 @@
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type {
   Attachment,
   AttachmentContentType,
@@ -71,6 +71,24 @@ export const attachmentsRepository = {
     if (ownerType === 'site') return (await SiteModel.count({ where, transaction })) ? { planStatus: null } : null;
     const plan = await PlanModel.findOne({ where, attributes: ['status'], transaction });
     return plan ? { planStatus: plan.status } : null;
+  },
+
+  /** Every live attachment of the given owners, oldest first (for freezing into a plan revision). */
+  async ofOwners(
+    organizationId: string,
+    owners: { ownerType: AttachmentOwnerType; ownerIds: string[] }[],
+    transaction?: Transaction,
+  ): Promise<Attachment[]> {
+    const rows = await AttachmentModel.findAll({
+      where: { organizationId, [Op.or]: owners.map((o) => ({ ownerType: o.ownerType, ownerId: o.ownerIds })) },
+      include,
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+      transaction,
+    });
+    return rows.map((r) => withoutKey(toAttachment(r)));
   },
 
   async page(

@@ -72,6 +72,18 @@ async function requireReadableOwner(actor: Actor, ownerType: AttachmentOwnerType
   }
 }
 
+/** A plan's attachments are part of its record once it is submitted: only a draft or returned plan takes changes. */
+async function requireWritableOwner(actor: Actor, ownerType: AttachmentOwnerType, ownerId: string, t?: Transaction) {
+  const owner = await attachmentsRepository.findOwner(actor.organizationId, ownerType, ownerId, t);
+  if (!owner) throw AppError.notFound(OWNER[ownerType]);
+  if (ownerType === 'plan' && owner.planStatus !== 'draft' && owner.planStatus !== 'returned') {
+    throw AppError.conflict(
+      `The files of a ${owner.planStatus} plan are part of its record and cannot change. Start a new version to change them.`,
+      'plan_frozen',
+    );
+  }
+}
+
 async function findReadable(actor: Actor, id: string, t?: Transaction): Promise<StoredAttachment> {
   const found = await attachmentsRepository.find(actor.organizationId, id, t);
   if (!found) throw AppError.notFound('That attachment');
@@ -117,7 +129,7 @@ export async function uploadAttachment(
   file: ReceivedFile,
 ): Promise<Attachment> {
   const { kind } = fields;
-  await requireReadableOwner(actor, fields.ownerType, fields.ownerId);
+  await requireWritableOwner(actor, fields.ownerType, fields.ownerId);
   if (file.size > MAX_BYTES[kind]) throw fileTooLarge(kind, file.size);
 
   const originalName = cleanFileName(file.originalName);
@@ -144,7 +156,7 @@ export async function uploadAttachment(
   const stored = await files.adopt(file.path);
   try {
     return await db.transaction(async (t) => {
-      await requireReadableOwner(actor, fields.ownerType, fields.ownerId, t);
+      await requireWritableOwner(actor, fields.ownerType, fields.ownerId, t);
       const attachment = await attachmentsRepository.create(
         actor.organizationId,
         actor.userId,
@@ -180,6 +192,7 @@ export async function uploadAttachment(
 export function updateAttachment({ db }: AttachmentDeps, actor: Actor, id: string, input: AttachmentUpdate): Promise<Attachment> {
   return db.transaction(async (t) => {
     const before = attachmentsRepository.withoutKey(await findReadable(actor, id, t));
+    await requireWritableOwner(actor, before.ownerType, before.ownerId, t);
     const { version, ...changes } = input;
     if (changes.bearingDeg != null && before.kind !== 'photo') {
       throw AppError.badRequest('The attachment has invalid fields.', { bearingDeg: 'Only photos have a bearing.' });
@@ -195,6 +208,7 @@ export function updateAttachment({ db }: AttachmentDeps, actor: Actor, id: strin
 export function deleteAttachment({ db }: AttachmentDeps, actor: Actor, id: string): Promise<void> {
   return db.transaction(async (t) => {
     const before = attachmentsRepository.withoutKey(await findReadable(actor, id, t));
+    await requireWritableOwner(actor, before.ownerType, before.ownerId, t);
     await attachmentsRepository.softDelete(actor.organizationId, id, t);
     await auditRepository.record(actor, { action: 'delete', entityType: 'attachment', entityId: id, before }, t);
   });

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { canonicalJson } from '@/shared/plans/canonical-json';
+import type { Attachment } from '@/shared/schemas/attachment';
 import type { ConditionSet, Target } from '@/shared/schemas/library';
 import type { PlanSnapshot, ZoneReach } from '@/shared/schemas/plan';
 import { projectAzimuthalEquidistant } from '@/shared/geo/azimuthal-equidistant';
@@ -27,6 +28,8 @@ export function buildSnapshot(input: {
   posts: Post[];
   targets: Target[];
   conditionSets: ConditionSet[];
+  /** The plan's own files and its posts' photos; default none. */
+  attachments?: Attachment[];
 }): PlanSnapshot {
   let cautions: PlanSnapshot['cautions'] = [];
   const results: PlanSnapshot['results'] = [];
@@ -82,6 +85,17 @@ export function buildSnapshot(input: {
       posts: input.posts.map(strip),
       targets: input.targets.map(strip),
       conditionSets: input.conditionSets.map(strip),
+      attachments: (input.attachments ?? []).map((a) => ({
+        id: a.id,
+        ownerType: a.ownerType,
+        ownerId: a.ownerId,
+        kind: a.kind,
+        name: a.originalName,
+        sha256: a.sha256,
+        bytes: a.bytes,
+        bearingDeg: a.bearingDeg,
+        caption: a.caption,
+      })),
     },
     results,
     cautions,

@@ -1,5 +1,6 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import type { Plan, PlanInput, PlanListQuery, PlanSnapshot, PlanStatus } from '@/shared/schemas/plan';
+import { attachmentsRepository } from '@/server/data/repositories/attachments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
 import { plansRepository } from '@/server/data/repositories/plans-repository';
@@ -44,7 +45,7 @@ export async function getPlan(actor: Actor, id: string): Promise<Plan> {
 /** Loads what the plan refers to, refusing anything outside the organisation or the site. */
 async function loadInputs(
   actor: Actor,
-  p: Pick<PlanInput, 'siteId' | 'postIds' | 'targetIds' | 'conditionSetIds'>,
+  p: Pick<PlanInput, 'siteId' | 'postIds' | 'targetIds' | 'conditionSetIds'> & { id?: string },
   t?: Transaction,
 ) {
   const site = await sitesRepository.findInOrganization(actor.organizationId, p.siteId, t);
@@ -59,9 +60,22 @@ async function loadInputs(
       throw AppError.badRequest('The plan has invalid fields.', { [`${field}.${missing}`]: `No such ${what} here.` });
     return found as T[];
   };
+  const chosenPosts = pick(posts, p.postIds, 'postIds', 'post on this site');
+  // A saved plan's own files and its posts' photos go into the revision (by reference and hash).
+  const attachments = p.id
+    ? await attachmentsRepository.ofOwners(
+        actor.organizationId,
+        [
+          { ownerType: 'plan', ownerIds: [p.id] },
+          { ownerType: 'post', ownerIds: chosenPosts.map((x) => x.id) },
+        ],
+        t,
+      )
+    : [];
   return {
     site,
-    posts: pick(posts, p.postIds, 'postIds', 'post on this site'),
+    attachments,
+    posts: chosenPosts,
     targets: pick(targets, p.targetIds, 'targetIds', 'target in your library'),
     conditionSets: pick(sets, p.conditionSetIds, 'conditionSetIds', 'condition set in your library'),
   };
