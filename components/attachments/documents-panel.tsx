@@ -16,7 +16,7 @@ import { ProgressBar } from '@/components/ui/progress-bar';
 import { ErrorState, FormError, LoadingState } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
 import { formatBytes } from './format';
-import { pickFile } from './pick-file';
+import { pickFile } from '@/components/ui/pick-file';
 
 /**
  * The documents that go with a plan or a site (survey notes, permits,

@@ -12,7 +12,7 @@ import { FormError, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { colors, radius, space } from '@/components/ui/theme';
 import { bearingFromText, formatBytes } from './format';
-import { pickFile } from './pick-file';
+import { pickFile } from '@/components/ui/pick-file';
 
 type Errors = { file?: string; bearingDeg?: string; caption?: string };
 

@@ -7,6 +7,7 @@ import {
   type SiteTerrain,
   type TerrainProfileRequest,
 } from '@/shared/schemas/terrain';
+import { filePart, type PickedFile } from './file-part';
 import { api, ApiRequestError, type UploadProgress } from './api-client';
 import { STALE } from './query-client';
 
@@ -15,12 +16,6 @@ export const terrainKeys = {
   site: (siteId: string) => [...terrainKeys.all, 'site', siteId] as const,
 };
 
-/** A file picked for upload: on the web, a `File` (a Blob with its name). */
-export interface PickedFile {
-  readonly name: string;
-  readonly size: number;
-  readonly blob: Blob;
-}
 
 /** What the terrain upload form sends. */
 export interface TerrainUploadInput {
@@ -57,8 +52,8 @@ export function useUploadTerrain(siteId: string) {
   return useMutation({
     mutationFn: ({ file, prj, epsg, onProgress, signal }: TerrainUploadInput) => {
       const form = new FormData();
-      form.append('file', file.blob, file.name);
-      if (prj) form.append('prj', prj.blob, prj.name);
+      form.append('file', filePart(file) as Blob, file.name);
+      if (prj) form.append('prj', filePart(prj) as Blob, prj.name);
       if (epsg?.trim()) form.append('epsg', epsg.trim());
       return api.upload(`/v1/sites/${siteId}/terrain`, form, SiteTerrainResponseSchema, onProgress, signal);
     },

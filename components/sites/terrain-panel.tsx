@@ -5,14 +5,16 @@ import type { Site } from '@/shared/schemas/site';
 import { TERRAIN_FORMAT_LABELS, type SiteTerrain } from '@/shared/schemas/terrain';
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { ApiRequestError } from '@/components/data/api-client';
-import { useSiteTerrain, useUploadTerrain, type PickedFile } from '@/components/data/terrain';
+import type { PickedFile } from '@/components/data/file-part';
+import { useSiteTerrain, useUploadTerrain } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
+import { FilePickerField } from '@/components/ui/file-picker-field';
+import { ProgressBar } from '@/components/ui/progress-bar';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { EmptyState, ErrorState, FormError, LoadingState, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { colors, radius, space } from '@/components/ui/theme';
-import { CAN_PICK_FILES, FilePickerField } from './terrain-file-picker';
 
 const km = (metres: number) => `${(metres / 1000).toFixed(metres < 10_000 ? 2 : 1)} km`;
 
@@ -127,7 +129,8 @@ function TerrainPicture({ site, terrain }: { site: Site; terrain: SiteTerrain })
   );
 }
 
-const ACCEPTED = '.tif,.tiff,.asc';
+/** File name endings the chooser offers (the server reads the content, whatever the name). */
+const ACCEPTED = ['.tif', '.tiff', '.asc'];
 
 /** Upload (or replace) the site's terrain, with progress and the server's field errors. */
 function TerrainUploadForm({ siteId, replacing }: { siteId: string; replacing: boolean }) {
@@ -140,9 +143,6 @@ function TerrainUploadForm({ siteId, replacing }: { siteId: string; replacing: b
   const [formError, setFormError] = useState('');
   const [done, setDone] = useState('');
   const isAscii = !!file && /\.asc$/i.test(file.name);
-
-  if (!CAN_PICK_FILES)
-    return <FilePickerField label="Terrain file" buttonLabel="" accept={ACCEPTED} file={null} onPick={() => {}} />;
 
   const submit = () => {
     setFormError('');
@@ -172,7 +172,6 @@ function TerrainUploadForm({ siteId, replacing }: { siteId: string; replacing: b
     );
   };
 
-  const sending = upload.isPending && progress < 1;
   const checking = upload.isPending && progress >= 1;
   return (
     <View aria-label={replacing ? 'Replace terrain' : 'Upload terrain'} style={styles.form}>
@@ -190,7 +189,7 @@ function TerrainUploadForm({ siteId, replacing }: { siteId: string; replacing: b
       <FilePickerField
         label="Terrain file"
         buttonLabel="Choose file"
-        accept={ACCEPTED}
+        types={ACCEPTED}
         file={file}
         error={errors.file}
         onPick={(picked) => {
@@ -202,7 +201,7 @@ function TerrainUploadForm({ siteId, replacing }: { siteId: string; replacing: b
         <FilePickerField
           label="Coordinate system (.prj), optional"
           buttonLabel="Choose .prj"
-          accept=".prj"
+          types={['.prj']}
           file={prj}
           error={errors.prj}
           hint="The .prj file that came with the grid."
@@ -218,23 +217,11 @@ function TerrainUploadForm({ siteId, replacing }: { siteId: string; replacing: b
         hint="E.g. 32633 for WGS 84 / UTM zone 33N. Leave empty when the file carries its own."
       />
       {upload.isPending ? (
-        <View style={{ gap: space.xs }} aria-live="polite">
-          <View
-            style={styles.track}
-            role="progressbar"
-            aria-valuemin={0}
-            aria-valuemax={100}
-            aria-valuenow={Math.round(progress * 100)}
-          >
-            <View style={[styles.bar, { width: `${Math.round(progress * 100)}%` }]} />
-          </View>
-          <AppText variant="small" tone="muted">
-            {sending
-              ? `Sending… ${Math.round(progress * 100)} %`
-              : checking
-                ? 'Checking the grid and drawing its hillshade…'
-                : ''}
-          </AppText>
+        <View aria-live="polite">
+          <ProgressBar
+            label={checking ? 'Checking the grid and drawing its hillshade…' : 'Sending the terrain'}
+            fraction={progress}
+          />
         </View>
       ) : null}
       <Button label={replacing ? 'Replace terrain' : 'Upload terrain'} onPress={submit} busy={upload.isPending} />
@@ -247,6 +234,4 @@ const styles = StyleSheet.create({
   facts: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.xl, rowGap: space.sm },
   fact: { flexBasis: '40%', flexGrow: 1, gap: 2 },
   form: { gap: space.md, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.md },
-  track: { height: 8, borderRadius: radius.pill, backgroundColor: colors.paper, overflow: 'hidden' },
-  bar: { height: 8, backgroundColor: colors.moss },
 });

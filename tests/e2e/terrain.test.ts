@@ -101,9 +101,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain on the %s viewp
       // An invented grid, 100 × 80 cells of 25 m in UTM zone 33N, as an ASCII grid without its .prj.
       const terrain = generateSyntheticTerrain({ width: 100, height: 80, cellSize: 25, xll: 600_000, yll: 5_760_000, seed: 12 });
       const { asc } = writeEsriAsciiGrid(terrain, terrain.heights);
-      await panel
-        .getByLabel('Terrain file', { exact: true })
-        .setInputFiles({ name: 'search-area.asc', mimeType: 'text/plain', buffer: Buffer.from(asc) });
+      const chooser = page.waitForEvent('filechooser');
+      await panel.getByRole('button', { name: 'Choose file' }).click();
+      await (await chooser).setFiles({ name: 'search-area.asc', mimeType: 'text/plain', buffer: Buffer.from(asc) });
       await panel.getByText(/search-area\.asc · 0\.\d MB/).waitFor();
       await panel.getByRole('button', { name: 'Upload terrain' }).click();
       // No CRS in the file: the EPSG field says what to give.
