@@ -3,7 +3,8 @@ import type { SightlineResult } from '@/shared/schemas/sightline';
 import { horizonApproxRelativeError } from '@/shared/sightline/horizon-approx-relative-error';
 import type { LengthUnit } from '@/shared/units/length';
 import { AppText } from '@/components/ui/app-text';
-import { colors, radius, space } from '@/components/ui/theme';
+import { tableStyles } from '@/components/ui/table-styles';
+import { colors } from '@/components/ui/theme';
 import type { ConditionLabel } from './check-form-model';
 import { formatAngle, formatLength, LIMIT_LABELS, REGIME_LABELS } from './format';
 
@@ -103,18 +104,11 @@ export function ResultsTable({
   );
 }
 
-const styles = StyleSheet.create({
-  table: {
-    flex: 1,
-    backgroundColor: colors.surface,
-    borderRadius: radius.lg,
-    borderWidth: 1,
-    borderColor: colors.line,
-    overflow: 'hidden',
-  },
-  tr: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.line },
-  head: { backgroundColor: colors.paper },
-  th: { width: 150, padding: space.sm, justifyContent: 'flex-end' },
-  td: { width: 150, padding: space.sm, justifyContent: 'center' },
-  labelCol: { width: 150, borderRightWidth: 1, borderRightColor: colors.line },
-});
+const styles = {
+  ...tableStyles,
+  ...StyleSheet.create({
+    th: { ...tableStyles.th, width: 150 },
+    td: { ...tableStyles.td, width: 150 },
+    labelCol: { width: 150, borderRightWidth: 1, borderRightColor: colors.line },
+  }),
+};

@@ -5,6 +5,7 @@ import { UNIT_SYSTEMS, type UnitSystem } from '@/components/check/check-form-mod
 import { formatLength, LIMIT_LABELS } from '@/components/check/format';
 import { describeCondition } from '@/components/library/describe-condition';
 import { AppText } from '@/components/ui/app-text';
+import { tableStyles } from '@/components/ui/table-styles';
 import { Card } from '@/components/ui/card';
 import { Chip, ChipRow } from '@/components/ui/chip';
 import { EmptyState } from '@/components/ui/states';
@@ -230,24 +231,15 @@ function ReachTag({ zone, withName }: { zone: ZoneReach; withName?: boolean }) {
   );
 }
 
-const styles = StyleSheet.create({
-  table: {
-    flex: 1,
-    backgroundColor: colors.surface,
-    borderRadius: radius.lg,
-    borderWidth: 1,
-    borderColor: colors.line,
-    overflow: 'hidden',
-  },
-  tr: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.line },
-  head: { backgroundColor: colors.paper },
-  th: { padding: space.sm, justifyContent: 'flex-end' },
-  td: { padding: space.sm, justifyContent: 'center' },
-  tag: {
-    paddingHorizontal: space.sm,
-    paddingVertical: 2,
-    borderRadius: radius.pill,
-    overflow: 'hidden',
-    alignSelf: 'flex-start',
-  },
-});
+const styles = {
+  ...tableStyles,
+  ...StyleSheet.create({
+    tag: {
+      paddingHorizontal: space.sm,
+      paddingVertical: 2,
+      borderRadius: radius.pill,
+      overflow: 'hidden',
+      alignSelf: 'flex-start',
+    },
+  }),
+};
