@@ -1,14 +1,26 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { PostListSchema, PostSchema, SiteListSchema, SiteSchema, type Post, type PostInput } from '@/shared/schemas/site';
-import { api } from './api-client';
+import { api, ApiRequestError } from './api-client';
 
 export const siteKeys = {
   all: ['sites'] as const,
   list: (page: number) => [...siteKeys.all, 'list', page] as const,
   detail: (id: string) => [...siteKeys.all, 'detail', id] as const,
   posts: (id: string) => [...siteKeys.all, 'detail', id, 'posts'] as const,
+  postsPage: (id: string, filter: PostFilter) => [...siteKeys.posts(id), 'page', filter] as const,
+  post: (id: string, postId: string) => [...siteKeys.posts(id), 'one', postId] as const,
 };
+
+/** Filter of a site's post list, as the API takes it. */
+export interface PostFilter {
+  q?: string;
+  kind?: string;
+  status?: string;
+  sort?: string;
+  page?: number;
+  pageSize?: number;
+}
 
 export const sitesQuery = (page = 1) =>
   queryOptions({
@@ -28,6 +40,18 @@ export const sitePostsQuery = (id: string) =>
     queryFn: async () => (await api.get(`/v1/sites/${id}/posts`, PostListSchema)).items,
   });
 
+/** One page of a site's posts, filtered and sorted (the list on the site page). */
+export const sitePostsPageQuery = (id: string, filter: PostFilter) =>
+  queryOptions({
+    queryKey: siteKeys.postsPage(id, filter),
+    queryFn: () => {
+      const q = new URLSearchParams();
+      for (const [k, v] of Object.entries(filter)) if (v !== undefined && v !== '') q.set(k, String(v));
+      return api.get(`/v1/sites/${id}/posts?${q}`, PostListSchema);
+    },
+    placeholderData: keepPreviousData,
+  });
+
 export function useSites(page = 1) {
   return useQuery(sitesQuery(page));
 }
@@ -40,9 +64,19 @@ export function useSitePosts(id: string) {
   return useQuery(sitePostsQuery(id));
 }
 
-/** One post of a site, read from the site's post list (null when the site has no such post). */
+/** One post of a site (null when the site has no such post). */
 export function usePost(siteId: string, postId: string) {
-  return useQuery({ ...sitePostsQuery(siteId), select: (posts: Post[]) => posts.find((p) => p.id === postId) ?? null });
+  return useQuery({
+    queryKey: siteKeys.post(siteId, postId),
+    queryFn: async (): Promise<Post | null> => {
+      try {
+        return (await api.get(`/v1/sites/${siteId}/posts/${postId}`, z.object({ post: PostSchema }))).post;
+      } catch (e) {
+        if (e instanceof ApiRequestError && e.status === 404) return null;
+        throw e;
+      }
+    },
+  });
 }
 
 export function useCreatePost(siteId: string) {

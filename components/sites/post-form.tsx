@@ -141,7 +141,9 @@ export function PostForm({
       setFormError(e.message);
     };
     if (post) {
-      update.mutate({ ...(result.data as PostInput), version: post.version }, { onSuccess: () => onDone?.(), onError });
+      // The saved post comes back with a new version, which remounts this form (its key) before a
+      // per-call onSuccess could run; the promise resolves regardless, so the page learns of the save.
+      update.mutateAsync({ ...(result.data as PostInput), version: post.version }).then(() => onDone?.(), onError);
     } else {
       create.mutate(result.data as PostInput, {
         onSuccess: () => {

@@ -9,6 +9,7 @@ import {
   createSite,
   deletePost,
   deleteSite,
+  getPost,
   getSite,
   listPosts,
   updatePost,
@@ -56,6 +57,10 @@ export function siteRoutes(db: Sequelize) {
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
     const input = parseOrThrow(PostInputSchema, req.body, 'post');
     res.status(201).json({ post: await createPost(db, actorOf(req), siteId, input) });
+  });
+  router.get('/sites/:siteId/posts/:postId', requireUser, async (req, res) => {
+    const { siteId, postId } = parseOrThrow(PostParams, req.params, 'address');
+    res.json({ post: await getPost(actorOf(req), siteId, postId) });
   });
   router.patch('/sites/:siteId/posts/:postId', ...write, async (req, res) => {
     const { siteId, postId } = parseOrThrow(PostParams, req.params, 'address');

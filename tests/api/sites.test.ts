@@ -200,6 +200,10 @@ describe('posts of a site', () => {
     expect(names(await planner.get(`/api/v1/sites/${siteId}/posts?q=t%20a`))).toEqual(['Post A']);
     // LIKE wildcards in the search text are taken literally.
     expect(names(await planner.get(`/api/v1/sites/${siteId}/posts?q=%25`))).toEqual([]);
+    const one = (await planner.get(`/api/v1/sites/${siteId}/posts?q=post%20b`)).body.items[0];
+    expect((await planner.get(`/api/v1/sites/${siteId}/posts/${one.id}`).expect(200)).body.post).toEqual(one);
+    const other = await signedInAgent(app, DEMO.otherPlanner);
+    expect((await other.get(`/api/v1/sites/${siteId}/posts/${one.id}`)).status).toBe(404);
     const bad = await planner.get(`/api/v1/sites/${siteId}/posts?sort=height&kind=balloon&pageSize=9999`);
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['sort', 'kind', 'pageSize']));

@@ -62,6 +62,12 @@ export async function listPosts(actor: Actor, siteId: string, query: PostListQue
   return postsRepository.pageInSite(actor.organizationId, siteId, query);
 }
 
+export async function getPost(actor: Actor, siteId: string, id: string): Promise<Post> {
+  const post = await postsRepository.findInSite(actor.organizationId, siteId, id);
+  if (!post) throw AppError.notFound('That post');
+  return post;
+}
+
 export function createPost(db: Sequelize, actor: Actor, siteId: string, input: PostInput): Promise<Post> {
   return db.transaction(async (t) => {
     if (!(await sitesRepository.findInOrganization(actor.organizationId, siteId, t))) throw AppError.notFound('That site');
