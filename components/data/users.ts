@@ -17,7 +17,7 @@ export const userKeys = {
 export const usersQuery = () =>
   queryOptions({
     queryKey: userKeys.list(),
-    queryFn: async () => (await api.get('/v1/users', ManagedUserListSchema)).users,
+    queryFn: async () => (await api.get('/v1/users?pageSize=200', ManagedUserListSchema)).items,
   });
 
 export function useUsers() {

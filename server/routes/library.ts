@@ -4,6 +4,7 @@ import { z } from 'zod';
 import {
   ConditionSetInputSchema,
   ConditionSetUpdateSchema,
+  LibraryListQuerySchema,
   TargetInputSchema,
   TargetUpdateSchema,
   type TargetInput,
@@ -37,7 +38,7 @@ export function libraryRoutes(db: Sequelize) {
     key: string,
   ) => {
     router.get(`/${path}`, requireUser, async (req, res) => {
-      res.json({ items: await uc.list(actorOf(req)) });
+      res.json(await uc.list(actorOf(req), parseOrThrow(LibraryListQuerySchema, req.query, 'query')));
     });
     router.post(`/${path}`, ...write, async (req, res) => {
       res.status(201).json({ [key]: await uc.create(actorOf(req), parseOrThrow(create, req.body, noun)) });

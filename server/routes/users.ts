@@ -1,3 +1,4 @@
+import { PageQuerySchema } from '@/shared/schemas/list';
 import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
@@ -16,7 +17,8 @@ export function userRoutes(db: Sequelize, publicUrl: (req: Request) => string, m
   router.use('/users', requireUser, requireRole('admin'));
 
   router.get('/users', async (req, res) => {
-    res.json({ users: await listUsers(actorOf(req)) });
+    const { page, pageSize } = parseOrThrow(PageQuerySchema, req.query, 'query');
+    res.json(await listUsers(actorOf(req), page, pageSize));
   });
 
   router.post('/users', async (req, res) => {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf } from './list';
 
 export const ROLES = ['admin', 'planner', 'reviewer', 'observer'] as const;
 export const RoleSchema = z.enum(ROLES);
@@ -62,7 +63,7 @@ export const ManagedUserSchema = z.object({
 });
 export type ManagedUser = z.infer<typeof ManagedUserSchema>;
 
-export const ManagedUserListSchema = z.object({ users: z.array(ManagedUserSchema) });
+export const ManagedUserListSchema = pageOf(ManagedUserSchema);
 
 export const InviteUserRequestSchema = z.object({
   email,

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { listQuerySchema, pageOf } from './list';
 import { RefractionConditionSchema, VisibilityKindSchema } from './sightline';
 
 /** Kinds of search object or target a post must detect. */
@@ -98,5 +99,11 @@ export const ConditionSetUpdateSchema = ConditionSetInputSchema.extend({
   version: z.number({ error: 'Send the version you last saw.' }).int(),
 });
 
-export const TargetListSchema = z.object({ items: z.array(TargetSchema) });
-export const ConditionSetListSchema = z.object({ items: z.array(ConditionSetSchema) });
+/** Query of a library list: libraries are small, so a page holds 200 by default. */
+export const LibraryListQuerySchema = listQuerySchema(['name', '-name', '-updatedAt'] as const).extend({
+  pageSize: z.coerce.number().int().min(1).max(500, 'At most 500 per page.').default(200),
+});
+export type LibraryListQuery = z.infer<typeof LibraryListQuerySchema>;
+
+export const TargetListSchema = pageOf(TargetSchema);
+export const ConditionSetListSchema = pageOf(ConditionSetSchema);

@@ -311,7 +311,7 @@ const cases: Case[] = [
     route: 'PATCH /users/:id',
     expect: only(['admin'], 200),
     call: async (a) => {
-      const u = (await agents.admin.get('/api/v1/users')).body.users.find(
+      const u = (await agents.admin.get('/api/v1/users')).body.items.find(
         (x: { email: string }) => x.email === 'lookout.marrow@demo.kenning.test',
       );
       return a.patch(`/api/v1/users/${u.id}`).send({ role: 'observer', version: u.version });

@@ -32,6 +32,17 @@ describe('target and condition libraries', () => {
     expect(mine.filter((id: string) => theirs.includes(id))).toEqual([]);
   });
 
+  it('pages, searches and sorts a library', async () => {
+    const agent = await signedInAgent(app, DEMO.observer);
+    const page = (await agent.get('/api/v1/targets?pageSize=2&sort=-name').expect(200)).body;
+    expect(page).toMatchObject({ total: STARTER_TARGETS.length, page: 1, pageSize: 2 });
+    const names = STARTER_TARGETS.map((t) => t.name).sort((a, b) => b.localeCompare(a, 'en'));
+    expect(page.items.map((t: { name: string }) => t.name)).toEqual(names.slice(0, 2));
+    const found = (await agent.get('/api/v1/conditions?q=inversion').expect(200)).body.items;
+    expect(found.map((c: { name: string }) => c.name)).toEqual(['Cold sea, inversion']);
+    expect((await agent.get('/api/v1/targets?sort=weight')).body.error.fields).toHaveProperty('sort');
+  });
+
   it('a planner adds, edits (with versions) and removes a target; others get 403 or 404', async () => {
     const planner = await signedInAgent(app, DEMO.planner);
     const created = await planner.post('/api/v1/targets').send(target);
@@ -72,13 +83,11 @@ describe('target and condition libraries', () => {
 
   it('a condition set is saved whole and parsed conditions come back', async () => {
     const planner = await signedInAgent(app, DEMO.planner);
-    const res = await planner
-      .post('/api/v1/conditions')
-      .send({
-        name: 'Measured morning',
-        conditions: [{ pressureHpa: 1002, temperatureC: 6, lapseRateKPerM: -0.01 }],
-        visibilityM: 15000,
-      });
+    const res = await planner.post('/api/v1/conditions').send({
+      name: 'Measured morning',
+      conditions: [{ pressureHpa: 1002, temperatureC: 6, lapseRateKPerM: -0.01 }],
+      visibilityM: 15000,
+    });
     expect(res.status).toBe(201);
     expect(res.body.conditionSet).toMatchObject({
       name: 'Measured morning',

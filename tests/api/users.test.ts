@@ -35,11 +35,11 @@ describe('who may manage users (role × organisation)', () => {
   it('an admin lists only the users of their own organisation', async () => {
     const agent = await signedInAgent(app, DEMO.admin);
     const res = await agent.get('/api/v1/users').expect(200);
-    const emails = res.body.users.map((u: { email: string }) => u.email);
+    const emails = res.body.items.map((u: { email: string }) => u.email);
     expect(emails).toEqual(expect.arrayContaining([DEMO.admin, DEMO.planner, DEMO.reviewer, DEMO.observer]));
     expect(emails).not.toContain(DEMO.otherAdmin);
     expect(emails).not.toContain(DEMO.otherPlanner);
-    expect(res.body.users[0]).not.toHaveProperty('passwordHash');
+    expect(res.body.items[0]).not.toHaveProperty('passwordHash');
   });
 
   it("an admin of another organisation gets 404 for this organisation's user", async () => {

@@ -1,4 +1,7 @@
 import type { Transaction } from 'sequelize';
+import { sortOrder } from '@/shared/schemas/list';
+import type { LibraryListQuery } from '@/shared/schemas/library';
+import { containsText } from './like-pattern';
 import type { ConditionSet, ConditionSetInput, Target, TargetInput } from '@/shared/schemas/library';
 import { ConditionSetModel, TargetProfileModel } from '../models';
 
@@ -35,6 +38,20 @@ function libraryOf<M extends typeof TargetProfileModel | typeof ConditionSetMode
   return {
     async list(organizationId: string): Promise<Dto[]> {
       return (await m.findAll({ where: { organizationId }, order: [['name', 'ASC']] })).map(dto);
+    },
+    /** One page, searched by name and sorted as asked. */
+    async page(organizationId: string, query: LibraryListQuery) {
+      const [field, direction] = sortOrder(query.sort);
+      const { rows, count } = await m.findAndCountAll({
+        where: { organizationId, ...(query.q && { name: containsText(query.q) }) },
+        order: [
+          [field, direction],
+          ['id', 'ASC'],
+        ],
+        limit: query.pageSize,
+        offset: (query.page - 1) * query.pageSize,
+      });
+      return { items: rows.map(dto), total: count, page: query.page, pageSize: query.pageSize };
     },
     async find(organizationId: string, id: string, transaction?: Transaction): Promise<Dto | null> {
       const row = await m.findOne({ where: { id, organizationId }, transaction });

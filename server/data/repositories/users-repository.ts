@@ -70,6 +70,19 @@ export const usersRepository = {
     await UserModel.update({ lastSignInAt: at }, { where: { id }, silent: true });
   },
 
+  async pageInOrganization(organizationId: string, page: number, pageSize: number) {
+    const { rows, count } = await UserModel.findAndCountAll({
+      where: { organizationId },
+      order: [
+        ['name', 'ASC'],
+        ['id', 'ASC'],
+      ],
+      limit: pageSize,
+      offset: (page - 1) * pageSize,
+    });
+    return { items: rows.map(toManaged), total: count, page, pageSize };
+  },
+
   async listInOrganization(organizationId: string): Promise<ManagedUser[]> {
     const rows = await UserModel.findAll({ where: { organizationId }, order: [['name', 'ASC']] });
     return rows.map(toManaged);

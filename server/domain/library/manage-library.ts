@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import type { LibraryListQuery } from '@/shared/schemas/library';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import type { LibraryRepository } from '@/server/data/repositories/library-repository';
 import { AppError } from '@/server/http/app-error';
@@ -16,7 +17,7 @@ export function libraryUseCases<Dto extends { id: string }, Input extends object
   check: (merged: Input) => void = () => {},
 ) {
   return {
-    list: (actor: Actor) => repo.list(actor.organizationId),
+    list: (actor: Actor, query: LibraryListQuery) => repo.page(actor.organizationId, query),
     create: (actor: Actor, input: Input) =>
       db.transaction(async (t) => {
         check(input);

@@ -10,8 +10,8 @@ const INVITE_DAYS = 7;
 
 export const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 
-export function listUsers(actor: Actor): Promise<ManagedUser[]> {
-  return usersRepository.listInOrganization(actor.organizationId);
+export function listUsers(actor: Actor, page: number, pageSize: number) {
+  return usersRepository.pageInOrganization(actor.organizationId, page, pageSize);
 }
 
 /** Creates an invited account and returns the one-time token for its set-password link. */
