@@ -1,6 +1,13 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { ConditionSetListSchema, TargetListSchema, TargetSchema, type TargetInput } from '@/shared/schemas/library';
+import {
+  ConditionSetListSchema,
+  ConditionSetSchema,
+  TargetListSchema,
+  TargetSchema,
+  type ConditionSetInput,
+  type TargetInput,
+} from '@/shared/schemas/library';
 import { api } from './api-client';
 import { STALE } from './query-client';
 
@@ -32,5 +39,22 @@ export function useCreateTarget() {
   return useMutation({
     mutationFn: (input: TargetInput) => api.post('/v1/targets', input, z.object({ target: TargetSchema })),
     onSuccess: () => qc.invalidateQueries({ queryKey: libraryKeys.targets() }),
+  });
+}
+
+export function useCreateConditionSet() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: ConditionSetInput) => api.post('/v1/conditions', input, z.object({ conditionSet: ConditionSetSchema })),
+    onSuccess: () => qc.invalidateQueries({ queryKey: libraryKeys.conditions() }),
+  });
+}
+
+/** Removes a target or a condition set (soft: plans that used it keep their frozen copy). */
+export function useRemoveLibraryEntry(kind: 'targets' | 'conditions') {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => api.delete(`/v1/${kind}/${id}`),
+    onSuccess: () => qc.invalidateQueries({ queryKey: kind === 'targets' ? libraryKeys.targets() : libraryKeys.conditions() }),
   });
 }

@@ -1,16 +1,15 @@
-import { useState } from 'react';
 import { View } from 'react-native';
-import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema } from '@/shared/schemas/library';
-import { Segmented } from '@/components/check/unit-switch';
-import { useConditionSets, useCreateTarget, useTargets } from '@/components/data/library';
+import { TARGET_KIND_LABELS } from '@/shared/schemas/library';
+import { useConditionSets, useRemoveLibraryEntry, useTargets } from '@/components/data/library';
 import { useSession } from '@/components/data/session';
+import { ConditionSetForm } from './condition-set-form';
 import { describeCondition } from './describe-condition';
+import { TargetForm } from './target-form';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, FormError, LoadingState } from '@/components/ui/states';
-import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 
@@ -20,11 +19,16 @@ export function LibraryScreen() {
   const sets = useConditionSets();
   const { data: user } = useSession();
   const { wide } = useLayout();
+  const planner = user?.role === 'planner';
+  const removeTarget = useRemoveLibraryEntry('targets');
+  const removeSet = useRemoveLibraryEntry('conditions');
+  const removal = removeTarget.error ?? removeSet.error;
   return (
     <Screen
       title="Library"
       subtitle="Targets your lookouts must detect, and the refraction and visibility conditions plans are judged under."
     >
+      {removal ? <FormError message={removal.message} /> : null}
       <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
         <View style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%', gap: space.sm }}>
           <AppText variant="heading">Targets</AppText>
@@ -37,7 +41,11 @@ export function LibraryScreen() {
           ) : (
             targets.data.map((t) => (
               <Card key={t.id} aria-label={t.name} style={{ gap: 2 }}>
-                <AppText variant="label">{t.name}</AppText>
+                <EntryHead
+                  name={t.name}
+                  onRemove={planner ? () => removeTarget.mutate(t.id) : undefined}
+                  busy={removeTarget.isPending && removeTarget.variables === t.id}
+                />
                 <AppText variant="small" tone="muted">
                   {TARGET_KIND_LABELS[t.kind]} · {t.heightM} m tall, {t.widthM} m wide · top {t.requiredVisibleM} m must show ·{' '}
                   {t.period}
@@ -45,7 +53,7 @@ export function LibraryScreen() {
               </Card>
             ))
           )}
-          {user?.role === 'planner' ? <TargetForm /> : null}
+          {planner ? <TargetForm /> : null}
         </View>
         <View style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%', gap: space.sm }}>
           <AppText variant="heading">Condition sets</AppText>
@@ -56,7 +64,11 @@ export function LibraryScreen() {
           ) : (
             sets.data.map((s) => (
               <Card key={s.id} aria-label={s.name} style={{ gap: 2 }}>
-                <AppText variant="label">{s.name}</AppText>
+                <EntryHead
+                  name={s.name}
+                  onRemove={planner ? () => removeSet.mutate(s.id) : undefined}
+                  busy={removeSet.isPending && removeSet.variables === s.id}
+                />
                 {s.conditions.map((c, i) => (
                   <AppText key={i} variant="small">
                     • {describeCondition(c)}
@@ -71,85 +83,21 @@ export function LibraryScreen() {
               </Card>
             ))
           )}
+          {planner ? <ConditionSetForm /> : null}
         </View>
       </View>
     </Screen>
   );
 }
 
-function TargetForm() {
-  const create = useCreateTarget();
-  const [v, setV] = useState({
-    name: '',
-    kind: 'smoke-column' as (typeof TARGET_KINDS)[number],
-    height: '',
-    width: '',
-    required: '0',
-  });
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [failed, setFailed] = useState('');
-  const set = (k: keyof typeof v) => (t: string) => setV((f) => ({ ...f, [k]: t }));
-  const submit = () => {
-    const n = (t: string) => (t.trim() === '' ? undefined : Number(t));
-    const r = TargetInputSchema.safeParse({
-      name: v.name,
-      kind: v.kind,
-      heightM: n(v.height),
-      widthM: n(v.width),
-      requiredVisibleM: n(v.required),
-    });
-    if (!r.success) {
-      setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
-      return;
-    }
-    setErrors({});
-    create.mutate(r.data, {
-      onSuccess: () => setV({ ...v, name: '', height: '', width: '', required: '0' }),
-      onError: (e) => setFailed(e.message),
-    });
-  };
+/** An entry's name and, for planners, its remove button. */
+function EntryHead({ name, onRemove, busy }: { name: string; onRemove?: () => void; busy: boolean }) {
   return (
-    <Card accent="moss" aria-label="New target">
-      <AppText variant="heading">Add a target</AppText>
-      <FormError message={failed} />
-      <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
-      <Segmented
-        label="Kind"
-        value={v.kind}
-        onChange={(k) => setV((f) => ({ ...f, kind: k }))}
-        options={TARGET_KINDS.slice(0, 4).map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))}
-      />
-      <View style={{ flexDirection: 'row', gap: space.md }}>
-        <View style={{ flex: 1 }}>
-          <TextField
-            label="Height"
-            unit="m"
-            inputMode="decimal"
-            value={v.height}
-            onChangeText={set('height')}
-            error={errors.heightM}
-          />
-        </View>
-        <View style={{ flex: 1 }}>
-          <TextField
-            label="Width"
-            unit="m"
-            inputMode="decimal"
-            value={v.width}
-            onChangeText={set('width')}
-            error={errors.widthM}
-          />
-        </View>
-      </View>
-      <TextField
-        label="Top part that must show"
-        unit="m"
-        inputMode="decimal"
-        value={v.required}
-        onChangeText={set('required')}
-        error={errors.requiredVisibleM}
-      />
-      <Button label="Save target" onPress={submit} busy={create.isPending} />
-    </Card>
+    <View style={{ flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm }}>
+      <AppText variant="label" style={{ flexShrink: 1 }}>
+        {name}
+      </AppText>
+      {onRemove ? <Button kind="quiet" label="Remove" aria-label={`Remove ${name}`} onPress={onRemove} busy={busy} /> : null}
+    </View>
   );
 }

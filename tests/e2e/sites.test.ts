@@ -52,13 +52,13 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a site on the %s viewpo
 });
 
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('the library on the %s viewport', (viewport) => {
-  it('lists the starter targets and condition sets and lets a planner add a target', async () => {
+  it('lists the starter targets and condition sets and lets a planner add and remove entries', async () => {
     const { context, page } = await newPage(browser, viewport);
     try {
       await signIn(page, DEMO.planner);
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Library' }).click();
-      await page.getByLabel('Early smoke column').waitFor();
-      await page.getByLabel('Refraction spread').waitFor();
+      await page.getByLabel('Early smoke column', { exact: true }).waitFor();
+      await page.getByLabel('Refraction spread', { exact: true }).waitFor();
       const form = page.getByLabel('New target');
       await form.getByLabel('Name').fill(`Canoe ${viewport}`);
       await form.getByLabel('Height', { exact: true }).fill('-2');
@@ -67,8 +67,28 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('the library on the %s v
       await form.getByText('Height must be at least 0 m.').waitFor();
       await form.getByLabel('Height', { exact: true }).fill('0.7');
       await form.getByRole('button', { name: 'Save target' }).click();
-      await page.getByLabel(`Canoe ${viewport}`).waitFor();
+      await page.getByLabel(`Canoe ${viewport}`, { exact: true }).waitFor();
+
+      // A condition set: two presets and a k of the planner's own, with a visibility.
+      const sets = page.getByLabel('New condition set');
+      await sets.getByLabel('Name').fill(`Valley fog ${viewport}`);
+      await sets.getByRole('button', { name: 'Save condition set' }).click();
+      await sets.getByText('Give at least one refraction condition.').waitFor();
+      await sets.getByRole('checkbox', { name: 'Standard optical (k = 0.13)' }).click();
+      await sets.getByLabel('Your own k values').fill('0.3 x');
+      await sets.getByRole('button', { name: 'Save condition set' }).click();
+      await sets.getByText(/Type k values as numbers/).waitFor();
+      await sets.getByLabel('Your own k values').fill('0.3');
+      await sets.getByLabel('Visibility').fill('1.5');
+      await sets.getByRole('button', { name: 'Save condition set' }).click();
+      const added = page.getByLabel(`Valley fog ${viewport}`, { exact: true });
+      await added.getByText('• k = 0.3').waitFor();
+      await added.getByText('Visibility 1.5 km (MOR)').waitFor();
       await shot(page, 'library', viewport);
+
+      // Removing an entry leaves the list.
+      await page.getByRole('button', { name: `Remove Canoe ${viewport}` }).click();
+      await page.getByLabel(`Canoe ${viewport}`, { exact: true }).waitFor({ state: 'detached' });
     } finally {
       await context.close();
     }

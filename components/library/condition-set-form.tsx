@@ -1,0 +1,132 @@
+import { useState } from 'react';
+import { View } from 'react-native';
+import { ConditionSetInputSchema } from '@/shared/schemas/library';
+import { REFRACTION_PRESET_IDS, refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
+import { Segmented } from '@/components/check/unit-switch';
+import { ApiRequestError } from '@/components/data/api-client';
+import { useCreateConditionSet } from '@/components/data/library';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { Chip, ChipRow } from '@/components/ui/chip';
+import { FormError } from '@/components/ui/states';
+import { TextField } from '@/components/ui/text-field';
+import { space } from '@/components/ui/theme';
+
+type VisibilityKind = 'mor-5pct' | 'meteorological-range-2pct';
+
+/**
+ * A new condition set: named refraction conditions (presets and any k of
+ * your own) judged together, with the visibility they come with.
+ */
+export function ConditionSetForm() {
+  const create = useCreateConditionSet();
+  const [name, setName] = useState('');
+  const [presets, setPresets] = useState<RefractionPresetId[]>([]);
+  const [ks, setKs] = useState('');
+  const [visibility, setVisibility] = useState('');
+  const [visibilityKind, setVisibilityKind] = useState<VisibilityKind>('mor-5pct');
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [failed, setFailed] = useState('');
+  const [added, setAdded] = useState('');
+
+  const submit = () => {
+    setFailed('');
+    setAdded('');
+    const next: Record<string, string> = {};
+    const own = ks
+      .split(/[;\s]+/)
+      .map((t) => t.trim().replace(',', '.'))
+      .filter(Boolean)
+      .map(Number);
+    if (own.some((k) => !Number.isFinite(k))) next.k = 'Type k values as numbers, separated by spaces (e.g. 0.2 −0.1).';
+    const km = visibility.trim() === '' ? null : Number(visibility.replace(',', '.'));
+    const r = ConditionSetInputSchema.safeParse({
+      name,
+      conditions: [...presets.map((preset) => ({ preset })), ...own.filter(Number.isFinite).map((k) => ({ k }))],
+      visibilityM: km === null ? null : km * 1000,
+      visibilityKind,
+    });
+    if (!r.success) {
+      for (const i of r.error.issues) {
+        const key = i.path[0] === 'conditions' ? (i.path.length > 2 ? 'k' : 'conditions') : String(i.path[0]);
+        next[key] ??= i.message;
+      }
+    }
+    setErrors(next);
+    if (!r.success || Object.keys(next).length) return;
+    create.mutate(r.data, {
+      onSuccess: ({ conditionSet }) => {
+        setName('');
+        setPresets([]);
+        setKs('');
+        setVisibility('');
+        setAdded(`Added ${conditionSet.name}.`);
+      },
+      onError: (e) => {
+        if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
+        setFailed(e.message);
+      },
+    });
+  };
+
+  return (
+    <Card accent="moss" aria-label="New condition set">
+      <AppText variant="heading">Add a condition set</AppText>
+      <FormError message={failed} />
+      {added ? <AppText variant="small">{added}</AppText> : null}
+      <TextField
+        label="Name"
+        value={name}
+        onChangeText={setName}
+        error={errors.name}
+        placeholder="e.g. Autumn morning, valley fog"
+      />
+      <ChipRow label="Refraction conditions">
+        {REFRACTION_PRESET_IDS.map((id) => (
+          <Chip
+            key={id}
+            label={refractionPreset(id).label}
+            on={presets.includes(id)}
+            onPress={() => setPresets((list) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]))}
+          />
+        ))}
+      </ChipRow>
+      {errors.conditions ? (
+        <AppText variant="small" tone="danger" role="alert">
+          {errors.conditions}
+        </AppText>
+      ) : null}
+      <TextField
+        label="Your own k values"
+        value={ks}
+        onChangeText={setKs}
+        error={errors.k}
+        hint="Refraction coefficients, separated by spaces; negative for sub-refraction."
+      />
+      <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap', alignItems: 'flex-start' }}>
+        <View style={{ flex: 1, minWidth: 160 }}>
+          <TextField
+            label="Visibility"
+            unit="km"
+            inputMode="decimal"
+            value={visibility}
+            onChangeText={setVisibility}
+            error={errors.visibilityM}
+            hint="Empty when not stated."
+          />
+        </View>
+        <Segmented
+          label="Reported as"
+          value={visibilityKind}
+          onChange={setVisibilityKind}
+          options={[
+            { value: 'mor-5pct', label: 'MOR (5 %)' },
+            { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
+          ]}
+        />
+      </View>
+      <Button label="Save condition set" onPress={submit} busy={create.isPending} />
+    </Card>
+  );
+}

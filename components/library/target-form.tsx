@@ -1,0 +1,115 @@
+import { useState } from 'react';
+import { View } from 'react-native';
+import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema } from '@/shared/schemas/library';
+import { Segmented } from '@/components/check/unit-switch';
+import { ApiRequestError } from '@/components/data/api-client';
+import { useCreateTarget } from '@/components/data/library';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { FormError } from '@/components/ui/states';
+import { TextField } from '@/components/ui/text-field';
+import { space } from '@/components/ui/theme';
+
+const EMPTY = {
+  name: '',
+  kind: 'smoke-column' as (typeof TARGET_KINDS)[number],
+  period: 'day' as 'day' | 'night',
+  height: '',
+  width: '',
+  required: '0',
+};
+
+/** A new target profile: what it is, how tall and wide, the part that must show, day or night. */
+export function TargetForm() {
+  const create = useCreateTarget();
+  const [v, setV] = useState(EMPTY);
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [failed, setFailed] = useState('');
+  const [added, setAdded] = useState('');
+  const set = (k: keyof typeof v) => (t: string) => setV((f) => ({ ...f, [k]: t }));
+  const submit = () => {
+    setFailed('');
+    setAdded('');
+    const n = (t: string) => (t.trim() === '' ? undefined : Number(t.replace(',', '.')));
+    const r = TargetInputSchema.safeParse({
+      name: v.name,
+      kind: v.kind,
+      heightM: n(v.height),
+      widthM: n(v.width),
+      requiredVisibleM: n(v.required),
+      period: v.period,
+    });
+    if (!r.success) {
+      setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
+      return;
+    }
+    setErrors({});
+    create.mutate(r.data, {
+      onSuccess: ({ target }) => {
+        setV(EMPTY);
+        setAdded(`Added ${target.name}.`);
+      },
+      onError: (e) => {
+        if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
+        setFailed(e.message);
+      },
+    });
+  };
+  return (
+    <Card accent="moss" aria-label="New target">
+      <AppText variant="heading">Add a target</AppText>
+      <FormError message={failed} />
+      {added ? <AppText variant="small">{added}</AppText> : null}
+      <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
+      <Segmented
+        label="Kind"
+        value={v.kind}
+        onChange={(k) => setV((f) => ({ ...f, kind: k }))}
+        options={TARGET_KINDS.map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))}
+      />
+      <View style={{ flexDirection: 'row', gap: space.md }}>
+        <View style={{ flex: 1 }}>
+          <TextField
+            label="Height"
+            unit="m"
+            inputMode="decimal"
+            value={v.height}
+            onChangeText={set('height')}
+            error={errors.heightM}
+          />
+        </View>
+        <View style={{ flex: 1 }}>
+          <TextField
+            label="Width"
+            unit="m"
+            inputMode="decimal"
+            value={v.width}
+            onChangeText={set('width')}
+            error={errors.widthM}
+            hint="The critical size for the eye."
+          />
+        </View>
+      </View>
+      <TextField
+        label="Top part that must show"
+        unit="m"
+        inputMode="decimal"
+        value={v.required}
+        onChangeText={set('required')}
+        error={errors.requiredVisibleM}
+        hint="E.g. the upper 30 m of a smoke column; 0 when any part will do."
+      />
+      <Segmented
+        label="Seen by"
+        value={v.period}
+        onChange={(p) => setV((f) => ({ ...f, period: p }))}
+        options={[
+          { value: 'day', label: 'Day' },
+          { value: 'night', label: 'Night' },
+        ]}
+      />
+      <Button label="Save target" onPress={submit} busy={create.isPending} />
+    </Card>
+  );
+}
