@@ -111,10 +111,11 @@ export const terrainMeshQuery = (siteId: string, maxEdge = 256) =>
     queryKey: terrainKeys.mesh(siteId, maxEdge),
     staleTime: STALE.reference,
     queryFn: async (): Promise<TerrainMesh> => {
-      const { heights, encoding: _encoding, ...grid } = await api.get(
-        `/v1/sites/${siteId}/terrain/mesh?maxEdge=${maxEdge}`,
-        TerrainMeshResponseSchema,
-      );
+      const {
+        heights,
+        encoding: _encoding,
+        ...grid
+      } = await api.get(`/v1/sites/${siteId}/terrain/mesh?maxEdge=${maxEdge}`, TerrainMeshResponseSchema);
       return { ...grid, heights: float32FromBase64(heights) };
     },
   });

@@ -21,7 +21,13 @@ export interface ClassRasterOverlayProps {
  * stretched over the raster's grid rectangle. The web build uses a canvas
  * image instead (class-raster-overlay.web.tsx).
  */
-export const ClassRasterOverlay = memo(function ClassRasterOverlay({ raster, values, palette, camera, size }: ClassRasterOverlayProps) {
+export const ClassRasterOverlay = memo(function ClassRasterOverlay({
+  raster,
+  values,
+  palette,
+  camera,
+  size,
+}: ClassRasterOverlayProps) {
   const runs = useMemo(() => classRuns(values, raster, palette), [values, raster, palette]);
   const fill = useMemo(() => new Map(palette.classes.map((c) => [c.code, c.color])), [palette]);
   const rect = gridRectToScreen(camera, size, classRasterBounds(raster));
@@ -36,7 +42,14 @@ export const ClassRasterOverlay = memo(function ClassRasterOverlay({ raster, val
       opacity={palette.opacity}
     >
       {runs.map((r) => (
-        <Rect key={`${r.row}-${r.col}`} x={r.col} y={r.row} width={r.length} height={1} fill={fill.get(r.code) ?? 'transparent'} />
+        <Rect
+          key={`${r.row}-${r.col}`}
+          x={r.col}
+          y={r.row}
+          width={r.length}
+          height={1}
+          fill={fill.get(r.code) ?? 'transparent'}
+        />
       ))}
     </Svg>
   );

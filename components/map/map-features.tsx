@@ -104,13 +104,34 @@ export const MapFeatures = memo(function MapFeatures({
       ))}
       {frame.boundary ? (
         <G>
-          <Polygon points={points(frame.boundary)} fill="none" stroke={SYMBOL.boundary.halo} strokeWidth={SYMBOL.boundary.width + 3} opacity={0.8} />
-          <Polygon points={points(frame.boundary)} fill="none" stroke={SYMBOL.boundary.stroke} strokeWidth={SYMBOL.boundary.width} />
+          <Polygon
+            points={points(frame.boundary)}
+            fill="none"
+            stroke={SYMBOL.boundary.halo}
+            strokeWidth={SYMBOL.boundary.width + 3}
+            opacity={0.8}
+          />
+          <Polygon
+            points={points(frame.boundary)}
+            fill="none"
+            stroke={SYMBOL.boundary.stroke}
+            strokeWidth={SYMBOL.boundary.width}
+          />
         </G>
       ) : null}
       {frame.zones.map((z) => {
         const c = centroid(z);
-        return <HaloText key={`zone-label-${z.name}`} x={c.x} y={c.y} text={z.name} color={SYMBOL.zone.stroke} anchor="middle" italic />;
+        return (
+          <HaloText
+            key={`zone-label-${z.name}`}
+            x={c.x}
+            y={c.y}
+            text={z.name}
+            color={SYMBOL.zone.stroke}
+            anchor="middle"
+            italic
+          />
+        );
       })}
       {frame.posts.map((p) => {
         if (!p.post.sector) return null;
@@ -160,7 +181,9 @@ export function PostSymbol({ post, at, chosen }: { post: FramedPost; at: { x: nu
   const proposed = post.post.status === 'proposed';
   return (
     <G>
-      {chosen ? <Circle cx={at.x} cy={at.y} r={14} fill="rgba(184, 70, 27, 0.16)" stroke={SYMBOL.chosen} strokeWidth={2} /> : null}
+      {chosen ? (
+        <Circle cx={at.x} cy={at.y} r={14} fill="rgba(184, 70, 27, 0.16)" stroke={SYMBOL.chosen} strokeWidth={2} />
+      ) : null}
       {proposed ? (
         <G>
           <Path d={proposedPostPath(at.x, at.y, 8)} fill="#FFFFFF" stroke={colors.ink} strokeWidth={2.5} />
@@ -209,7 +232,15 @@ export function HaloText({
       >
         {text}
       </SvgText>
-      <SvgText x={x} y={y} fontSize={13} fontFamily={font} fontStyle={italic ? 'italic' : 'normal'} textAnchor={anchor} fill={color}>
+      <SvgText
+        x={x}
+        y={y}
+        fontSize={13}
+        fontFamily={font}
+        fontStyle={italic ? 'italic' : 'normal'}
+        textAnchor={anchor}
+        fill={color}
+      >
         {text}
       </SvgText>
     </G>

@@ -41,7 +41,15 @@ export function ClassLegend({ palette, title }: { palette: ClassPalette; title?:
                 {c.color ? (
                   <Rect x={1} y={1} width={SWATCH - 2} height={SWATCH - 2} fill={c.color} opacity={palette.opacity} />
                 ) : (
-                  <Rect x={1} y={1} width={SWATCH - 2} height={SWATCH - 2} fill="none" stroke={colors.muted} strokeDasharray="3 2" />
+                  <Rect
+                    x={1}
+                    y={1}
+                    width={SWATCH - 2}
+                    height={SWATCH - 2}
+                    fill="none"
+                    stroke={colors.muted}
+                    strokeDasharray="3 2"
+                  />
                 )}
               </Svg>
             }
@@ -55,7 +63,15 @@ export function ClassLegend({ palette, title }: { palette: ClassPalette; title?:
 }
 
 /** The map's own symbols: what the base layer is, boundary, zones, posts, sectors, tapped points and the sight line. */
-export function MapLegend({ hasTerrain, showSectors, palette }: { hasTerrain: boolean; showSectors: boolean; palette: ClassPalette | null }) {
+export function MapLegend({
+  hasTerrain,
+  showSectors,
+  palette,
+}: {
+  hasTerrain: boolean;
+  showSectors: boolean;
+  palette: ClassPalette | null;
+}) {
   const s = SWATCH;
   return (
     <View style={{ gap: space.md }}>
@@ -71,7 +87,9 @@ export function MapLegend({ hasTerrain, showSectors, palette }: { hasTerrain: bo
             </Svg>
           }
           label={hasTerrain ? 'Hillshade of the terrain' : 'No terrain: plain background'}
-          meaning={hasTerrain ? 'Lit from the north-west; grid north up.' : 'Upload a terrain on the site page for relief and profiles.'}
+          meaning={
+            hasTerrain ? 'Lit from the north-west; grid north up.' : 'Upload a terrain on the site page for relief and profiles.'
+          }
         />
         <Row
           symbol={

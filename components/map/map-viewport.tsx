@@ -233,7 +233,11 @@ export function MapViewport(props: MapViewportProps) {
       <View ref={container} style={[styles.fill, { backgroundColor: frame.base ? '#DCDCD6' : '#E4E9E6' }]} onLayout={onLayout}>
         {camera && size ? (
           <GestureDetector gesture={gesture}>
-            <View style={styles.fill} role="application" aria-label="Map: drag to pan, pinch or scroll to zoom, tap a point for its profile">
+            <View
+              style={styles.fill}
+              role="application"
+              aria-label="Map: drag to pan, pinch or scroll to zoom, tap a point for its profile"
+            >
               <Animated.View style={[styles.fill, layerStyle]}>
                 {frame.base && base ? (
                   <Image
@@ -244,9 +248,22 @@ export function MapViewport(props: MapViewportProps) {
                   />
                 ) : null}
                 {shown ? (
-                  <ClassRasterOverlay raster={shown.layer.raster} values={shown.values} palette={shown.layer.palette} camera={camera} size={size} />
+                  <ClassRasterOverlay
+                    raster={shown.layer.raster}
+                    values={shown.values}
+                    palette={shown.layer.palette}
+                    camera={camera}
+                    size={size}
+                  />
                 ) : null}
-                <MapFeatures frame={frame} camera={camera} size={size} margin={margin} chosenPostId={chosenPostId} targets={targets} />
+                <MapFeatures
+                  frame={frame}
+                  camera={camera}
+                  size={size}
+                  margin={margin}
+                  chosenPostId={chosenPostId}
+                  targets={targets}
+                />
               </Animated.View>
             </View>
           </GestureDetector>
@@ -263,19 +280,26 @@ export function MapViewport(props: MapViewportProps) {
 }
 
 /** The read-out for a grid point: its position in the chosen format and the shown layer's class there. */
-function describe(frame: SiteMapFrame, point: { x: number; y: number }, shown: ShownLayer | null, kind: 'pointer' | 'tap'): Readout {
+function describe(
+  frame: SiteMapFrame,
+  point: { x: number; y: number },
+  shown: ShownLayer | null,
+  kind: 'pointer' | 'tap',
+): Readout {
   const latLon = frame.projection.toLatLon(point.x, point.y);
   let layerClass: string | null = null;
   if (shown) {
     const code = classAt(shown.layer.raster, shown.values, point.x, point.y);
     const c = code === null ? null : paletteClass(shown.layer.palette, code);
-    layerClass = code === null ? `${shown.layer.palette.title}: outside the layer` : `${shown.layer.palette.title}: ${c?.label ?? `code ${code}`}`;
+    layerClass =
+      code === null
+        ? `${shown.layer.palette.title}: outside the layer`
+        : `${shown.layer.palette.title}: ${c?.label ?? `code ${code}`}`;
   }
   return { kind, point: latLon, layerClass };
 }
 
 const styles = StyleSheet.create({
-  fill: { ...StyleSheet.absoluteFillObject, overflow: 'hidden' },
+  fill: { position: 'absolute', left: 0, top: 0, right: 0, bottom: 0, overflow: 'hidden' },
   bottom: { position: 'absolute', left: space.sm, right: space.sm, gap: space.xs },
 });
-

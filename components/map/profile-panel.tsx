@@ -29,8 +29,14 @@ export const PROFILE_TARGET_HEIGHTS: readonly { m: number; label: string }[] = [
 
 /** The standing cautions, shown before any answer arrives (the API repeats them with each profile). */
 const STANDING_CAUTIONS = [
-  { code: 'estimates-only', message: 'Estimates only, from the terrain grid: trees, buildings and the grid’s own errors are not included.' },
-  { code: 'refraction-varies', message: 'Refraction near the horizon varies widely; compare several conditions before relying on a line of sight.' },
+  {
+    code: 'estimates-only',
+    message: 'Estimates only, from the terrain grid: trees, buildings and the grid’s own errors are not included.',
+  },
+  {
+    code: 'refraction-varies',
+    message: 'Refraction near the horizon varies widely; compare several conditions before relying on a line of sight.',
+  },
   { code: 'visibility-not-detection', message: 'Visibility is not detection: a target in view can still be missed.' },
   { code: 'follow-procedures', message: 'Follow your agency’s procedures, local regulations and licensed practice.' },
 ];
@@ -44,8 +50,14 @@ export function verdictText(r: ProfileConditionResult, targetHeightM: number): {
   const where = block ? `, blocked by ground ${km(block.distanceM)} out` : '';
   if (targetHeightM > 0) {
     return r.targetTopSeen
-      ? { seen: true, text: `Seen: the top of a ${metres(targetHeightM)} target shows${r.groundSeen ? ' (the ground too)' : ''}.` }
-      : { seen: false, text: `Not seen: a ${metres(targetHeightM)} target stays hidden${where}; it would need ${metres(r.hiddenHeightM)}.` };
+      ? {
+          seen: true,
+          text: `Seen: the top of a ${metres(targetHeightM)} target shows${r.groundSeen ? ' (the ground too)' : ''}.`,
+        }
+      : {
+          seen: false,
+          text: `Not seen: a ${metres(targetHeightM)} target stays hidden${where}; it would need ${metres(r.hiddenHeightM)}.`,
+        };
   }
   return r.groundSeen
     ? { seen: true, text: 'Seen: the ground at the point is in view.' }
@@ -65,7 +77,16 @@ export interface ProfilePanelProps {
 }
 
 /** Profile on tap: conditions and target height by chips, the verdict in words per condition, the side view and the cautions. */
-export function ProfilePanel({ siteId, hasTerrain, post, target, conditions, onConditions, targetHeightM, onTargetHeight }: ProfilePanelProps) {
+export function ProfilePanel({
+  siteId,
+  hasTerrain,
+  post,
+  target,
+  conditions,
+  onConditions,
+  targetHeightM,
+  onTargetHeight,
+}: ProfilePanelProps) {
   const request: TerrainProfileRequest | null =
     hasTerrain && post && target && conditions.length > 0
       ? {
@@ -114,8 +135,8 @@ export function ProfilePanel({ siteId, hasTerrain, post, target, conditions, onC
               From {post.name} to {target.label}
             </AppText>
             <AppText variant="small" tone="muted">
-              {km(profile.data.distanceM)} at {Math.round(profile.data.gridBearingDeg)}° (grid) · eye {metres(profile.data.observer.eyeElevationM)} · point ground{' '}
-              {metres(profile.data.target.groundElevationM)}
+              {km(profile.data.distanceM)} at {Math.round(profile.data.gridBearingDeg)}° (grid) · eye{' '}
+              {metres(profile.data.observer.eyeElevationM)} · point ground {metres(profile.data.target.groundElevationM)}
             </AppText>
           </View>
           <View style={{ gap: space.xs }} role="list" aria-label="Verdict per condition">

@@ -1,4 +1,11 @@
-import { defaultExaggeration, meshElevationAt, sceneFrame, terrainSurface, toScene, type MeshGrid } from '@/scenes/terrain/terrain-geometry';
+import {
+  defaultExaggeration,
+  meshElevationAt,
+  sceneFrame,
+  terrainSurface,
+  toScene,
+  type MeshGrid,
+} from '@/scenes/terrain/terrain-geometry';
 
 // An invented 3 × 2 mesh of 100 m cells; row 0 = north. Plane h = 500 + x_off/10 + 2·y_off/10 is
 // recovered exactly by bilinear interpolation (common practice, no source).
@@ -76,8 +83,12 @@ describe('terrain scene geometry', () => {
   });
 
   test('default exaggeration: relief about a tenth of the width, within ×1 … ×5', () => {
-    expect(defaultExaggeration({ ...mesh, width: 200, height: 200, cellSizeM: 75, minElevationM: 400, maxElevationM: 1000 })).toBe(3);
-    expect(defaultExaggeration({ ...mesh, width: 200, height: 200, cellSizeM: 75, minElevationM: 0, maxElevationM: 3000 })).toBe(1);
+    expect(
+      defaultExaggeration({ ...mesh, width: 200, height: 200, cellSizeM: 75, minElevationM: 400, maxElevationM: 1000 }),
+    ).toBe(3);
+    expect(defaultExaggeration({ ...mesh, width: 200, height: 200, cellSizeM: 75, minElevationM: 0, maxElevationM: 3000 })).toBe(
+      1,
+    );
     expect(defaultExaggeration({ ...mesh, width: 200, height: 200, cellSizeM: 75, minElevationM: 0, maxElevationM: 10 })).toBe(5);
   });
 });
