@@ -1,5 +1,5 @@
 import type { EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
-import { paletteLookup, type ClassPalette } from './class-palettes';
+import { paletteClass, paletteLookup, type ClassPalette } from './class-palettes';
 import type { GridRect } from './map-camera';
 
 /** The grid fields of a class raster (as in `EncodedClassRaster`): size, cell side and lower-left corner in metres. */
@@ -94,4 +94,11 @@ export function classRuns(
     }
   }
   return runs;
+}
+
+/** What the read-out says about a layer at a grid point: "Posts that see the target: 2 posts" (or "outside the layer"). */
+export function classLabelAt(grid: ClassRasterGrid, values: Uint8Array, palette: ClassPalette, x: number, y: number): string {
+  const code = classAt(grid, values, x, y);
+  if (code === null) return `${palette.title}: outside the layer`;
+  return `${palette.title}: ${paletteClass(palette, code)?.label ?? `code ${code}`}`;
 }

@@ -4,8 +4,7 @@ import { Gesture, GestureDetector, GestureHandlerRootView } from 'react-native-g
 import Animated, { useAnimatedStyle, useSharedValue } from 'react-native-reanimated';
 import type { CoordinateFormat } from '@/shared/geo/types';
 import { space } from '@/components/ui/theme';
-import { paletteClass } from './class-palettes';
-import { classAt } from './class-raster-pixels';
+import { classLabelAt } from './class-raster-pixels';
 import { ClassRasterOverlay } from './class-raster-overlay';
 import {
   centerCameraOn,

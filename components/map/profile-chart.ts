@@ -109,6 +109,12 @@ export function profileChart(profile: TerrainProfileResponse, earthRadiusM = MEA
     }
   }
   for (const c of conditions) for (const p of c.sightLine) yMax = Math.max(yMax, p.y);
+  // Show the hidden heights at the point too, unless they would squash the ground (then the view clips them).
+  const span = Math.max(yMax - yMin, 1);
+  for (const c of conditions) {
+    const top = targetGround.y + c.hiddenHeightM;
+    if (top > yMax && top - yMin <= 1.6 * span) yMax = top;
+  }
   const pad = Math.max((yMax - yMin) * 0.08, 5);
   return { distanceM: D, earthRadiusM: R, ground, eye, targetGround, targetTop, conditions, yMin: yMin - pad, yMax: yMax + pad };
 }

@@ -1,4 +1,4 @@
-import { View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import type { Post } from '@/shared/schemas/site';
 import type { ProfileConditionResult, TerrainProfileRequest } from '@/shared/schemas/terrain';
 import { refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
@@ -104,8 +104,8 @@ export function ProfilePanel({
   };
   const labels = conditions.map((id) => PROFILE_CONDITIONS.find((c) => c.id === id)?.short ?? refractionPreset(id).label);
 
-  return (
-    <View style={{ gap: space.md }} aria-label="Terrain profile">
+  const chips = (
+    <View style={{ gap: space.md }}>
       <ChipRow label="Refraction conditions">
         {PROFILE_CONDITIONS.map((c) => (
           <Chip key={c.id} label={c.short} on={conditions.includes(c.id)} onPress={() => toggle(c.id)} />
@@ -116,58 +116,72 @@ export function ProfilePanel({
           <Chip key={h.m} label={h.label} on={targetHeightM === h.m} onPress={() => onTargetHeight(h.m)} />
         ))}
       </ChipRow>
-      {!hasTerrain ? (
-        <Notice tone="info" title="No terrain for this site">
-          <AppText variant="small">A profile needs the site’s elevation grid. A planner can upload one on the site page.</AppText>
-        </Notice>
-      ) : !post ? (
-        <AppText tone="muted">Choose a post, then tap a point on the map.</AppText>
-      ) : !target ? (
-        <AppText tone="muted">Tap a point on the map to see what {post.name} sees of it.</AppText>
-      ) : profile.isPending ? (
-        <LoadingState label="Working out the profile…" />
-      ) : profile.isError ? (
-        <ErrorState error={profile.error} onRetry={() => void profile.refetch()} />
-      ) : (
-        <View style={{ gap: space.md }}>
-          <View style={{ gap: 2 }}>
-            <AppText variant="heading">
-              From {post.name} to {target.label}
-            </AppText>
-            <AppText variant="small" tone="muted">
-              {km(profile.data.distanceM)} at {Math.round(profile.data.gridBearingDeg)}° (grid) · eye{' '}
-              {metres(profile.data.observer.eyeElevationM)} · point ground {metres(profile.data.target.groundElevationM)}
-            </AppText>
-          </View>
-          <View style={{ gap: space.xs }} role="list" aria-label="Verdict per condition">
-            {profile.data.results.map((r, i) => {
-              const v = verdictText(r, targetHeightM);
-              return (
-                <View
-                  key={conditions[i] ?? i}
-                  role="listitem"
-                  style={{
-                    borderLeftWidth: 4,
-                    borderLeftColor: conditionStyle(i).color,
-                    paddingLeft: space.sm,
-                    paddingVertical: 2,
-                    backgroundColor: v.seen ? colors.mossSoft : colors.cautionSoft,
-                    borderRadius: radius.sm,
-                  }}
-                >
-                  <AppText variant="label">
-                    {labels[i]} (k = {r.k.toFixed(2)})
-                  </AppText>
-                  <AppText variant="small">{v.text}</AppText>
-                </View>
-              );
-            })}
-          </View>
-          <ProfileView profile={profile.data} labels={labels} />
-          <CautionsPanel cautions={profile.data.cautions} />
+    </View>
+  );
+
+  let answer: React.ReactNode;
+  if (!hasTerrain) {
+    answer = (
+      <Notice tone="info" title="No terrain for this site">
+        <AppText variant="small">A profile needs the site’s elevation grid. A planner can upload one on the site page.</AppText>
+      </Notice>
+    );
+  } else if (!post) {
+    answer = <AppText tone="muted">Choose a post, then tap a point on the map.</AppText>;
+  } else if (!target) {
+    answer = <AppText tone="muted">Tap a point on the map to see what {post.name} sees of it.</AppText>;
+  } else if (profile.isPending) {
+    answer = <LoadingState label="Working out the profile…" />;
+  } else if (profile.isError) {
+    answer = <ErrorState error={profile.error} onRetry={() => void profile.refetch()} />;
+  } else {
+    const data = profile.data;
+    answer = (
+      <View style={{ gap: space.md }}>
+        <View style={{ gap: 2 }}>
+          <AppText variant="heading">
+            From {post.name} to {target.label}
+          </AppText>
+          <AppText variant="small" tone="muted">
+            {km(data.distanceM)} at {Math.round(data.gridBearingDeg)}° (grid) · eye {metres(data.observer.eyeElevationM)} · point
+            ground {metres(data.target.groundElevationM)}
+          </AppText>
         </View>
-      )}
-      {!request || profile.isPending || profile.isError ? <CautionsPanel cautions={STANDING_CAUTIONS} /> : null}
+        <View style={{ gap: space.xs }} role="list" aria-label="Verdict per condition">
+          {data.results.map((r, i) => {
+            const v = verdictText(r, targetHeightM);
+            return (
+              <View
+                key={conditions[i] ?? i}
+                role="listitem"
+                style={[
+                  styles.verdict,
+                  { borderLeftColor: conditionStyle(i).color, backgroundColor: v.seen ? colors.mossSoft : colors.cautionSoft },
+                ]}
+              >
+                <AppText variant="label">
+                  {labels[i]} (k = {r.k.toFixed(2)})
+                </AppText>
+                <AppText variant="small">{v.text}</AppText>
+              </View>
+            );
+          })}
+        </View>
+        <ProfileView profile={data} labels={labels} />
+      </View>
+    );
+  }
+
+  const answered = !!request && profile.isSuccess;
+  return (
+    <View style={{ gap: space.lg }} aria-label="Terrain profile">
+      {answer}
+      {chips}
+      <CautionsPanel cautions={answered ? profile.data.cautions : STANDING_CAUTIONS} />
     </View>
   );
 }
+
+const styles = StyleSheet.create({
+  verdict: { borderLeftWidth: 4, paddingLeft: space.sm, paddingVertical: 2, borderRadius: radius.sm },
+});

@@ -114,6 +114,18 @@ export function ProfileView({ profile, labels }: { profile: TerrainProfileRespon
               opacity={0.75}
             />
           ) : null}
+          {chart.targetGround.y + hidden > chart.yMax ? (
+            <SvgText
+              x={scale.sx(chart.targetGround.d) - 10}
+              y={PAD.top + 10}
+              fontSize={11}
+              fontFamily={fonts.medium}
+              fill={colors.ink}
+              textAnchor="end"
+            >
+              ↑ hidden {Math.round(hidden)} m
+            </SvgText>
+          ) : null}
           <Line
             x1={scale.sx(chart.targetGround.d) - 3}
             y1={scale.sy(chart.targetGround.y)}

@@ -317,7 +317,7 @@ function MapWorkspace({
 }
 
 /** Height the phone's profile sheet takes over the map, pixels (the read-out moves above it). */
-const SHEET_PEEK = 420;
+const SHEET_PEEK = 380;
 
 function PostChip({ post, on, onPress }: { post: Post; on: boolean; onPress: () => void }) {
   const proposed = post.status === 'proposed';

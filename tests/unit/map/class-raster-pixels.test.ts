@@ -1,5 +1,5 @@
 import { POSTS_PER_CELL_PALETTE } from '@/components/map/class-palettes';
-import { cellAt, classAt, classRasterBounds, classRuns, paintClassRaster } from '@/components/map/class-raster-pixels';
+import { cellAt, classAt, classLabelAt, classRasterBounds, classRuns, paintClassRaster } from '@/components/map/class-raster-pixels';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
 import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
 import { COVERAGE_LAYER } from '@/shared/terrain/posts-per-cell';
@@ -38,6 +38,8 @@ describe('overlay pixel placement', () => {
     expect(cellAt(grid, 600_100, 5_760_030)).toBeNull();
     expect(cellAt(grid, 600_050, 5_759_999.9)).toBeNull();
     expect(classAt(grid, values, 599_999, 5_760_030)).toBeNull();
+    expect(classLabelAt(grid, values, POSTS_PER_CELL_PALETTE, 600_060, 5_760_030)).toBe('Posts that see the target: 2 posts');
+    expect(classLabelAt(grid, values, POSTS_PER_CELL_PALETTE, 0, 0)).toBe('Posts that see the target: outside the layer');
   });
 
   test('runs per row skip undrawn codes and never cross a row end', () => {
