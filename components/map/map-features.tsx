@@ -186,10 +186,22 @@ export function PostSymbol({ post, at, chosen }: { post: FramedPost; at: { x: nu
       ) : null}
       {proposed ? (
         <G>
-          <Path d={proposedPostPath(at.x, at.y, 8)} fill="#FFFFFF" stroke={colors.ink} strokeWidth={2.5} />
+          <Path
+            d={proposedPostPath(at.x, at.y, 8)}
+            fill="#FFFFFF"
+            stroke={colors.ink}
+            strokeWidth={2.5}
+            aria-label={`${post.post.name} symbol`}
+          />
         </G>
       ) : (
-        <Path d={existingPostPath(at.x, at.y, 9)} fill={colors.ink} stroke="#FFFFFF" strokeWidth={1.5} />
+        <Path
+          d={existingPostPath(at.x, at.y, 9)}
+          fill={colors.ink}
+          stroke="#FFFFFF"
+          strokeWidth={1.5}
+          aria-label={`${post.post.name} symbol`}
+        />
       )}
       <HaloText x={at.x + 14} y={at.y + 4} text={post.post.name} color={colors.ink} bold />
       {proposed ? <HaloText x={at.x + 14} y={at.y + 18} text="proposed" color={colors.muted} italic /> : null}

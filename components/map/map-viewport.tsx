@@ -114,6 +114,8 @@ export function MapViewport(props: MapViewportProps) {
     panY: 0,
     panOffX: 0,
     panOffY: 0,
+    beginX: 0,
+    beginY: 0,
     k: 1,
     kOff: 1,
     fx: 0,
@@ -146,19 +148,28 @@ export function MapViewport(props: MapViewportProps) {
       ty.value = zoomed.ty + (g.panY - g.panOffY);
       s.value = zoomed.s;
     };
+    // Translation is measured from where the finger (or button) went down, not from where the pan
+    // activated, so the first few pixels before activation are not lost.
     const pan = Gesture.Pan()
       .runOnJS(true)
       .minDistance(6)
       .averageTouches(true)
-      .onStart(() => {
-        g.panX = 0;
-        g.panY = 0;
+      .onBegin((e) => {
+        g.beginX = e.absoluteX;
+        g.beginY = e.absoluteY;
+      })
+      .onStart((e) => {
         g.panning = true;
         rebase();
+        g.panX = e.absoluteX - g.beginX;
+        g.panY = e.absoluteY - g.beginY;
+        g.panOffX = 0;
+        g.panOffY = 0;
+        apply();
       })
       .onUpdate((e) => {
-        g.panX = e.translationX;
-        g.panY = e.translationY;
+        g.panX = e.absoluteX - g.beginX;
+        g.panY = e.absoluteY - g.beginY;
         apply();
       })
       .onFinalize(() => {
@@ -286,15 +297,7 @@ function describe(
   kind: 'pointer' | 'tap',
 ): Readout {
   const latLon = frame.projection.toLatLon(point.x, point.y);
-  let layerClass: string | null = null;
-  if (shown) {
-    const code = classAt(shown.layer.raster, shown.values, point.x, point.y);
-    const c = code === null ? null : paletteClass(shown.layer.palette, code);
-    layerClass =
-      code === null
-        ? `${shown.layer.palette.title}: outside the layer`
-        : `${shown.layer.palette.title}: ${c?.label ?? `code ${code}`}`;
-  }
+  const layerClass = shown ? classLabelAt(shown.layer.raster, shown.values, shown.layer.palette, point.x, point.y) : null;
   return { kind, point: latLon, layerClass };
 }
 

@@ -210,8 +210,8 @@ function MapWorkspace({
   const toolbar = (
     <View style={styles.toolbar}>
       <Pressable role="link" aria-label={`Back to ${site.name}`} onPress={back} style={styles.back}>
-        <AppText variant="label" tone="ember">
-          ‹
+        <AppText variant="heading" tone="ember">
+          ‹{wide ? ' Site' : ''}
         </AppText>
       </Pressable>
       <View style={{ flex: 1, minWidth: 0 }}>
@@ -317,7 +317,7 @@ function MapWorkspace({
 }
 
 /** Height the phone's profile sheet takes over the map, pixels (the read-out moves above it). */
-const SHEET_PEEK = 380;
+const SHEET_PEEK = 360;
 
 function PostChip({ post, on, onPress }: { post: Post; on: boolean; onPress: () => void }) {
   const proposed = post.status === 'proposed';

@@ -83,7 +83,7 @@ export default function TerrainScene({ mesh, texture, exaggeration, posts, chose
             heightY={heightY}
             proposed={p.proposed}
             chosen={p.id === chosenPostId}
-            size={span * 0.02}
+            size={span * 0.03}
           />
         ))}
         {eye
