@@ -242,7 +242,11 @@ function MapWorkspace({
             role="radio"
             aria-checked={mode === m}
             aria-label={m === '2d' ? '2D map' : '3D view'}
-            onPress={() => setMode(m)}
+            onPress={() => {
+              setMode(m);
+              // The 3D view takes the whole map area on a phone; the profile waits in 2D.
+              if (m === '3d') setSheetOpen(false);
+            }}
             style={[styles.segmentItem, mode === m && { backgroundColor: colors.ink }]}
           >
             <AppText variant="label" style={{ color: mode === m ? colors.surface : colors.ink }}>
@@ -293,7 +297,7 @@ function MapWorkspace({
             </ScrollView>
           </View>
         ) : null}
-        {sheetOpen ? (
+        {mode === '3d' ? null : sheetOpen ? (
           <View style={styles.sheet} aria-label="Profile sheet" role="dialog">
             <View style={styles.sheetHead}>
               <View style={styles.grip} />

@@ -58,12 +58,18 @@ export function decimateTerrain(terrain: TerrainRaster, maxEdge: number): Decima
     const rowEnd = Math.min(H, (py + 1) * factor);
     for (let r = py * factor; r < rowEnd; r++) {
       const base = r * W;
-      for (let c = 0; c < W; c++) {
-        const v = heights[base + c] as number;
-        if (v !== v || v === nodata) continue;
-        const px = (c / factor) | 0;
-        sum[px] = (sum[px] as number) + v;
-        count[px] = (count[px] as number) + 1;
+      for (let px = 0, c0 = 0; px < width; px++, c0 += factor) {
+        const c1 = Math.min(W, c0 + factor);
+        let s = 0;
+        let n = 0;
+        for (let c = c0; c < c1; c++) {
+          const v = heights[base + c] as number;
+          if (v !== v || v === nodata) continue;
+          s += v;
+          n++;
+        }
+        sum[px] = (sum[px] as number) + s;
+        count[px] = (count[px] as number) + n;
       }
     }
     for (let px = 0; px < width; px++) {

@@ -195,6 +195,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s view
       await map.waitFor();
       expect(page.url()).toMatch(/\/sites\/[0-9a-f-]+\/map\?postId=[0-9a-f-]+/);
       expect(await page.getByRole('radio', { name: 'Blackmoss Tower (proposed)' }).getAttribute('aria-checked')).toBe('true');
+      // The coordinate format is remembered for the session.
+      expect(await page.getByRole('radio', { name: 'UTM zone, easting and northing' }).getAttribute('aria-checked')).toBe('true');
       const centred = (await page.locator('[aria-label="Blackmoss Tower symbol"]').boundingBox())!;
       const mapNow = (await map.boundingBox())!;
       expect(Math.abs(centred.x + centred.width / 2 - (mapNow.x + mapNow.width / 2))).toBeLessThan(4);
@@ -204,4 +206,32 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s view
       await context.close();
     }
   });
+});
+
+it('draws a site without terrain on a plain background in its UTM zone, and says a profile needs terrain', async () => {
+  const context = await browser.newContext({ viewport: VIEWPORTS.phone, deviceScaleFactor: 1, hasTouch: true });
+  const page = await context.newPage();
+  const errors = watchErrors(page);
+  try {
+    await signIn(page, DEMO.planner);
+    await page.getByRole('link', { name: 'Tallow Strand' }).click();
+    await page.getByRole('link', { name: 'Open the map' }).click();
+    const map = page.getByRole('application', { name: /^Map: drag to pan/ });
+    await map.waitFor();
+    await page.getByText('No terrain · WGS 84 / UTM zone 33N (EPSG:32633)').waitFor();
+    expect(await page.locator('img[src*="hillshade.png"]').count()).toBe(0);
+    // Tallow Strand's shore posts are drawn (invented coordinates in zone 33N).
+    await page.locator('[aria-label="Gull Point symbol"]').waitFor();
+    // Coast sites measure in nautical miles.
+    expect(await page.getByRole('img', { name: /^Scale bar: / }).getAttribute('aria-label')).toMatch(/ NM$/);
+    const box = (await map.boundingBox())!;
+    await page.touchscreen.tap(box.x + box.width / 2, box.y + box.height * 0.3);
+    await page.getByRole('dialog', { name: 'Profile sheet' }).getByText('No terrain for this site').waitFor();
+    await page.getByRole('button', { name: 'Legend and layers' }).click();
+    await page.getByText('No terrain: plain background').waitFor();
+    await shot(page, 'site-map-no-terrain', 'phone');
+    expect(errors).toEqual([]);
+  } finally {
+    await context.close();
+  }
 });
