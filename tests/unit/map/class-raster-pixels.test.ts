@@ -1,5 +1,12 @@
 import { POSTS_PER_CELL_PALETTE } from '@/components/map/class-palettes';
-import { cellAt, classAt, classLabelAt, classRasterBounds, classRuns, paintClassRaster } from '@/components/map/class-raster-pixels';
+import {
+  cellAt,
+  classAt,
+  classLabelAt,
+  classRasterBounds,
+  classRuns,
+  paintClassRaster,
+} from '@/components/map/class-raster-pixels';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
 import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
 import { COVERAGE_LAYER } from '@/shared/terrain/posts-per-cell';
