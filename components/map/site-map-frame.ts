@@ -81,7 +81,7 @@ function siteCentre(site: Site, posts: readonly Post[]): LatLon | null {
 }
 
 /**
- * Puts a site on one map frame. With a terrain the frame is the terrain's
+ * Puts a site on one map frame (first view: the boundary and zones, else the posts). With a terrain the frame is the terrain's
  * grid CRS and the hillshade lies over its `gridBounds`; without one (or when
  * the browser cannot convert the terrain's CRS) it is the WGS 84 / UTM zone of
  * the site's middle, over a plain background. Returns null for a site with no
@@ -113,12 +113,18 @@ export function siteMapFrame(site: Site, posts: readonly Post[], terrain: SiteTe
     const { x, y } = grid.toGrid(post.location);
     return { post, x, y, convergence: gridConvergence(grid, post.location) };
   });
-  const siteRect = rectOf([...(boundary?.points ?? []), ...zones.flatMap((z) => z.points), ...framedPosts]);
+  // The first view is the site itself: its boundary and zones when drawn (a post far outside, e.g.
+  // one typed with a wrong zone, is still drawn and reached by panning), else the posts.
+  const drawn = [...(boundary?.points ?? []), ...zones.flatMap((z) => z.points)];
+  const siteRect = rectOf(drawn.length > 0 ? drawn : framedPosts);
   const initial = siteRect ? padRect(siteRect, 0.08) : (base?.rect ?? { west: -5000, south: -5000, east: 5000, north: 5000 });
-  const all = base ? rectOf([...cornersOf(initial), ...cornersOf(base.rect)])! : initial;
+  const everything = [...cornersOf(initial), ...(base ? cornersOf(base.rect) : []), ...framedPosts];
+  const all = rectOf(everything)!;
   const span = Math.max(all.east - all.west, all.north - all.south, 1000);
-  // Out until everything there is fits in 150 px; in to 2 px a metre (a 25 m cell 50 px wide).
-  const zoom: ZoomLimits = { minPxPerM: 150 / span, maxPxPerM: 2 };
+  // Out until everything there is fits in 150 px (but at least to a view of the site in 50 px); in to
+  // 2 px a metre (a 25 m cell 50 px wide).
+  const siteSpan = Math.max(initial.east - initial.west, initial.north - initial.south, 1000);
+  const zoom: ZoomLimits = { minPxPerM: Math.min(150 / span, 50 / siteSpan), maxPxPerM: 2 };
   const middle = grid.toLatLon((initial.west + initial.east) / 2, (initial.south + initial.north) / 2);
   return {
     projection: grid,

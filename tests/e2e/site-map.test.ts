@@ -147,7 +147,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s view
       await page.getByLabel('Coordinate read-out').screenshot({ path: `${SCREENSHOT_DIR}/site-map-readout-${viewport}.png` });
 
       // Tap a point: the profile from the chosen post, with a verdict in words that matches the API.
-      await page.getByRole('radio', { name: 'Crane Knoll Tower' }).click();
+      await page.getByRole('radio', { name: 'Crane Knoll Tower', exact: true }).click();
       const answer = page.waitForResponse((r) => r.url().includes('/terrain/profile') && r.request().method() === 'POST');
       const mapBox = (await map.boundingBox())!;
       const target = { x: mapBox.x + mapBox.width * 0.62, y: mapBox.y + mapBox.height * 0.3 };
@@ -194,7 +194,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s view
       await page.getByRole('link', { name: 'Show on the map' }).click();
       await map.waitFor();
       expect(page.url()).toMatch(/\/sites\/[0-9a-f-]+\/map\?postId=[0-9a-f-]+/);
-      expect(await page.getByRole('radio', { name: 'Blackmoss Tower (proposed)' }).getAttribute('aria-checked')).toBe('true');
+      expect(
+        await page.getByRole('radio', { name: 'Blackmoss Tower (proposed)', exact: true }).getAttribute('aria-checked'),
+      ).toBe('true');
       // The coordinate format is remembered for the session.
       expect(await page.getByRole('radio', { name: 'UTM zone, easting and northing' }).getAttribute('aria-checked')).toBe('true');
       const centred = (await page.locator('[aria-label="Blackmoss Tower symbol"]').boundingBox())!;

@@ -81,6 +81,21 @@ describe('siteMapFrame', () => {
     expect(frame.zoom.minPxPerM).toBeLessThan(frame.zoom.maxPxPerM);
   });
 
+  test('a post far outside the boundary is drawn but does not shrink the first view', () => {
+    const far: Post = {
+      ...post,
+      id: '00000000-0000-4000-8000-000000000013',
+      name: 'Far tower',
+      location: { latDeg: 61.05, lonDeg: 14.1 },
+    };
+    const frame = siteMapFrame(site, [post, far], terrain)!;
+    const near = siteMapFrame(site, [post], terrain)!;
+    expect(frame.initial).toEqual(near.initial);
+    expect(frame.posts).toHaveLength(2);
+    expect(frame.posts[1]!.y).toBeGreaterThan(6_700_000); // about 1000 km north, still placed
+    expect(frame.zoom.minPxPerM).toBeLessThan(near.zoom.minPxPerM); // and reachable by zooming out
+  });
+
   test('grid convergence at the post: the demo district lies east of zone 33’s central meridian, so γ > 0', () => {
     // Source: γ = atan(tan Δλ · sin φ) (Snyder, USGS PP 1395, from memory), Δλ from 15° E.
     const frame = siteMapFrame(site, [post], terrain)!;
