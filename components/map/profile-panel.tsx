@@ -176,7 +176,7 @@ export function ProfilePanel({
   return (
     <View style={{ gap: space.lg }} aria-label="Terrain profile">
       {answer}
-      {chips}
+      {hasTerrain ? chips : null}
       <CautionsPanel cautions={answered ? profile.data.cautions : STANDING_CAUTIONS} />
     </View>
   );
