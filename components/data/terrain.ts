@@ -3,8 +3,10 @@ import type { LatLon } from '@/shared/geo/types';
 import {
   ElevationResponseSchema,
   SiteTerrainResponseSchema,
+  TerrainMeshResponseSchema,
   TerrainProfileResponseSchema,
   type SiteTerrain,
+  type TerrainMeshResponse,
   type TerrainProfileRequest,
 } from '@/shared/schemas/terrain';
 import { filePart, type PickedFile } from './file-part';
@@ -14,6 +16,8 @@ import { STALE } from './query-client';
 export const terrainKeys = {
   all: ['terrain'] as const,
   site: (siteId: string) => [...terrainKeys.all, 'site', siteId] as const,
+  mesh: (siteId: string, maxEdge: number) => [...terrainKeys.site(siteId), 'mesh', maxEdge] as const,
+  profile: (siteId: string, request: TerrainProfileRequest) => [...terrainKeys.site(siteId), 'profile', request] as const,
 };
 
 
@@ -80,5 +84,52 @@ export function useTerrainProfile(siteId: string) {
   return useMutation({
     mutationFn: (request: TerrainProfileRequest) =>
       api.post(`/v1/sites/${siteId}/terrain/profile`, request, TerrainProfileResponseSchema),
+  });
+}
+
+/** A terrain mesh with its heights unpacked: width × height metres, row 0 = north, NaN = nodata. */
+export type TerrainMesh = Omit<TerrainMeshResponse, 'heights' | 'encoding'> & { heights: Float32Array };
+
+/** Little-endian Float32 values from base64 (RFC 4648 §4), read explicitly as little-endian. */
+export function float32FromBase64(text: string): Float32Array {
+  const binary = atob(text);
+  const view = new DataView(new ArrayBuffer(binary.length));
+  for (let i = 0; i < binary.length; i++) view.setUint8(i, binary.charCodeAt(i));
+  const out = new Float32Array(Math.floor(binary.length / 4));
+  for (let i = 0; i < out.length; i++) out[i] = view.getFloat32(i * 4, true);
+  return out;
+}
+
+/** The site's terrain decimated to at most `maxEdge` cells a side, for the 3D view. */
+export const terrainMeshQuery = (siteId: string, maxEdge = 256) =>
+  queryOptions({
+    queryKey: terrainKeys.mesh(siteId, maxEdge),
+    staleTime: STALE.reference,
+    queryFn: async (): Promise<TerrainMesh> => {
+      const {
+        heights,
+        encoding: _encoding,
+        ...grid
+      } = await api.get(`/v1/sites/${siteId}/terrain/mesh?maxEdge=${maxEdge}`, TerrainMeshResponseSchema);
+      return { ...grid, heights: float32FromBase64(heights) };
+    },
+  });
+
+export function useTerrainMesh(siteId: string, maxEdge = 256) {
+  return useQuery(terrainMeshQuery(siteId, maxEdge));
+}
+
+/** The profile for one request, cached by its content (switching conditions back does not ask again); off while null. */
+export const terrainProfileQuery = (siteId: string, request: TerrainProfileRequest) =>
+  queryOptions({
+    queryKey: terrainKeys.profile(siteId, request),
+    staleTime: STALE.reference,
+    queryFn: () => api.post(`/v1/sites/${siteId}/terrain/profile`, request, TerrainProfileResponseSchema),
+  });
+
+export function useTerrainProfileFor(siteId: string, request: TerrainProfileRequest | null) {
+  return useQuery({
+    ...terrainProfileQuery(siteId, request ?? { target: { latDeg: 0, lonDeg: 0 }, targetHeightM: 0, conditions: [] }),
+    enabled: request !== null,
   });
 }

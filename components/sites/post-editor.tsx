@@ -23,6 +23,7 @@ import { PostForm } from './post-form';
 export function PostEditor({ siteId, post, onReload }: { siteId: string; post: Post; onReload: () => void }) {
   const { data: user } = useSession();
   const { wide } = useLayout();
+  const router = useRouter();
   const [editing, setEditing] = useState(false);
   const [saved, setSaved] = useState(false);
   const canEdit = user?.role === 'planner';
@@ -50,6 +51,13 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
         </Notice>
       ) : null}
       <PostSummary post={post} />
+      <Button
+        kind="secondary"
+        label="Show on the map"
+        role="link"
+        onPress={() => router.navigate({ pathname: '/sites/[siteId]/map', params: { siteId, postId: post.id } })}
+        style={{ alignSelf: 'flex-start' }}
+      />
       {canEdit && !wide && !editing ? (
         <Button
           kind="secondary"

@@ -3,6 +3,7 @@ import { SITE_KIND_LABELS } from '@/shared/schemas/site';
 import { useSession } from '@/components/data/session';
 import { useSite, useSitePosts } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Screen } from '@/components/ui/screen';
 import { ErrorState, LoadingState } from '@/components/ui/states';
@@ -30,6 +31,13 @@ export function SiteOverview({ siteId }: { siteId: string }) {
         <View style={{ flex: wide ? 3 : undefined, width: wide ? undefined : '100%', gap: space.lg }}>
           <Card>
             <SiteSketch site={s} posts={list} />
+            <Button
+              kind="secondary"
+              label="Open the map"
+              role="link"
+              onPress={() => router.navigate({ pathname: '/sites/[siteId]/map', params: { siteId } })}
+              style={{ alignSelf: 'flex-start' }}
+            />
           </Card>
           <TerrainPanel site={s} canUpload={user?.role === 'planner'} />
           <AppText variant="heading">Coverage plans</AppText>

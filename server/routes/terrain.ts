@@ -1,13 +1,19 @@
 import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
 import { z } from 'zod';
-import { ElevationQuerySchema, TerrainProfileRequestSchema, TerrainUploadFieldsSchema } from '@/shared/schemas/terrain';
+import {
+  ElevationQuerySchema,
+  TerrainMeshQuerySchema,
+  TerrainProfileRequestSchema,
+  TerrainUploadFieldsSchema,
+} from '@/shared/schemas/terrain';
 import { getSite } from '@/server/domain/sites/manage-sites';
 import {
   getActiveTerrain,
   openHillshade,
   profileTerrain,
   terrainElevation,
+  terrainMesh,
   uploadTerrain,
   type TerrainDeps,
 } from '@/server/domain/terrain/manage-terrain';
@@ -32,7 +38,7 @@ const megabytes = (bytes: number) =>
     ? `${Math.floor(bytes / 1_000_000).toLocaleString('en')} MB`
     : `${Math.floor(bytes / 1000).toLocaleString('en')} kB`;
 
-/** A site's terrain: upload (planners), metadata, hillshade, elevation and profile (every role). */
+/** A site's terrain: upload (planners), metadata, hillshade, elevation, mesh and profile (every role). */
 export function terrainRoutes(deps: TerrainDeps, upload: TerrainUploadSettings) {
   const router = Router();
 
@@ -93,6 +99,13 @@ export function terrainRoutes(deps: TerrainDeps, upload: TerrainUploadSettings) 
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
     const query = parseOrThrow(ElevationQuerySchema, req.query, 'query');
     res.json(await terrainElevation(deps, actorOf(req), siteId, query));
+  });
+
+  router.get('/sites/:siteId/terrain/mesh', requireUser, async (req, res) => {
+    const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
+    const { maxEdge } = parseOrThrow(TerrainMeshQuerySchema, req.query, 'query');
+    res.setHeader('Cache-Control', 'private, no-cache');
+    res.json(await terrainMesh(deps, actorOf(req), siteId, maxEdge));
   });
 
   router.post('/sites/:siteId/terrain/profile', requireUser, async (req, res) => {

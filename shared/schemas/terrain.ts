@@ -266,3 +266,43 @@ export const TerrainProfileResponseSchema = z.object({
   cautions: z.array(z.object({ code: z.string(), message: z.string() })),
 });
 export type TerrainProfileResponse = z.infer<typeof TerrainProfileResponseSchema>;
+
+/** Query of GET …/terrain/mesh: the longest edge of the decimated grid, cells (16 … 1024, default 256). */
+export const TerrainMeshQuerySchema = z.object({
+  maxEdge: z.coerce
+    .number({ error: 'maxEdge must be a whole number of cells.' })
+    .int('maxEdge must be a whole number of cells.')
+    .min(16, 'maxEdge must be at least 16 cells.')
+    .max(1024, 'maxEdge must be at most 1024 cells.')
+    .default(256),
+});
+export type TerrainMeshQuery = z.infer<typeof TerrainMeshQuerySchema>;
+
+/** How the heights of a terrain mesh are written: little-endian Float32 bytes (NaN = nodata) as base64 (RFC 4648 §4). */
+export const TERRAIN_MESH_ENCODING = 'float32le-base64';
+
+/**
+ * Body of GET …/terrain/mesh: the site's terrain decimated to at most
+ * `maxEdge` cells a side (block means, see `decimateTerrain`), for a 3D view.
+ * Row 0 = north; cell (col, row) stands for its centre at
+ * `xllM + (col + 0.5)·cellSizeM`, `yllM + (height − row − 0.5)·cellSizeM`.
+ */
+export const TerrainMeshResponseSchema = z.object({
+  terrainId: z.uuid(),
+  width: z.number().int(),
+  height: z.number().int(),
+  /** Terrain cells per mesh cell along each axis. */
+  factor: z.number().int(),
+  /** Side of a mesh cell, metres. */
+  cellSizeM: z.number(),
+  /** Lower-left corner of the mesh grid in the terrain's CRS, metres. */
+  xllM: z.number(),
+  yllM: z.number(),
+  /** Lowest and highest ground of the mesh, metres. */
+  minElevationM: z.number(),
+  maxElevationM: z.number(),
+  encoding: z.literal(TERRAIN_MESH_ENCODING),
+  /** width × height Float32 heights, metres. */
+  heights: z.string(),
+});
+export type TerrainMeshResponse = z.infer<typeof TerrainMeshResponseSchema>;

@@ -5,7 +5,8 @@ import { PNG } from 'pngjs';
 import type { Sequelize } from 'sequelize';
 import request from 'supertest';
 import { fromUtm } from '@/shared/geo/from-utm';
-import { TerrainProfileResponseSchema, SiteTerrainResponseSchema } from '@/shared/schemas/terrain';
+import { TerrainMeshResponseSchema, TerrainProfileResponseSchema, SiteTerrainResponseSchema } from '@/shared/schemas/terrain';
+import { decimateTerrain } from '@/shared/terrain/decimate-terrain';
 import { writeEsriAsciiGrid } from '@/shared/terrain/formats/esri-ascii-grid-writer';
 import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
 import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
@@ -542,5 +543,42 @@ describe('POST /api/v1/sites/:siteId/terrain/profile', () => {
       })
       .expect(404);
     expect(noPost.body.error.fields.postId).toEqual(expect.any(String));
+  });
+});
+
+describe('GET /api/v1/sites/:siteId/terrain/mesh', () => {
+  it('gives the demo terrain decimated to at most maxEdge cells, as little-endian Float32 in base64', async () => {
+    const res = await observer.get(`/api/v1/sites/${demoSiteId}/terrain/mesh`).query({ maxEdge: 256 }).expect(200);
+    const mesh = TerrainMeshResponseSchema.parse(res.body);
+    // 600 × 600 cells of 25 m → factor ceil(600 / 256) = 3 → 200 × 200 cells of 75 m.
+    expect([mesh.width, mesh.height, mesh.factor, mesh.cellSizeM]).toEqual([200, 200, 3, 75]);
+    const bytes = Buffer.from(mesh.heights, 'base64');
+    expect(bytes.length).toBe(200 * 200 * 4);
+    const heights = new Float32Array(200 * 200);
+    for (let i = 0; i < heights.length; i++) heights[i] = bytes.readFloatLE(i * 4);
+    // Source: the decimation core on the same file (itself checked against gdal_translate -r average).
+    const demo = await readGeoTiff(readFileSync(DEMO_TERRAIN_FILE).buffer.slice(0) as ArrayBuffer);
+    const expected = decimateTerrain(demo, 256);
+    expect(heights).toEqual(expected.heights);
+    expect([mesh.xllM, mesh.yllM]).toEqual([expected.xll, expected.yll]);
+    expect(mesh.minElevationM).toBeLessThanOrEqual(mesh.maxElevationM);
+    const small = await observer.get(`/api/v1/sites/${demoSiteId}/terrain/mesh`).query({ maxEdge: 16 }).expect(200);
+    expect([small.body.width, small.body.factor]).toEqual([16, 38]);
+    const standard = await observer.get(`/api/v1/sites/${demoSiteId}/terrain/mesh`).expect(200);
+    expect(standard.body.width).toBe(200); // default maxEdge 256
+  });
+
+  it('refuses a bad maxEdge with a field error, and answers no_terrain and 404 across organisations', async () => {
+    const bad = await observer.get(`/api/v1/sites/${demoSiteId}/terrain/mesh`).query({ maxEdge: 5 }).expect(400);
+    expect(bad.body.error.fields.maxEdge).toMatch(/at least 16/);
+    const notNumber = await observer.get(`/api/v1/sites/${demoSiteId}/terrain/mesh`).query({ maxEdge: 'many' }).expect(400);
+    expect(notNumber.body.error.fields.maxEdge).toEqual(expect.any(String));
+    const bare = await planner
+      .post('/api/v1/sites')
+      .send({ name: 'Bare mesh district', kind: 'search-area', boundary: null, priorityZones: [] })
+      .expect(201);
+    const none = await observer.get(`/api/v1/sites/${bare.body.site.id}/terrain/mesh`).expect(404);
+    expect(none.body.error.code).toBe('no_terrain');
+    await otherPlanner.get(`/api/v1/sites/${demoSiteId}/terrain/mesh`).expect(404);
   });
 });

@@ -2,7 +2,8 @@
  * Terrain benchmark: the hillshade against `gdaldem hillshade` on the same
  * grid, the base-layer picture, the terrain profile, and the whole upload
  * ingest (read, checks, hillshade, PNG, normalised GeoTIFF) of 4000 × 4000
- * grids as GeoTIFF and as ESRI ASCII grid in the worker thread. Speed figures
+ * grids as GeoTIFF and as ESRI ASCII grid in the worker thread, and the 3D
+ * mesh decimation. Speed figures
  * only; nothing passes or fails.
  *
  * Grids are a smooth invented surface (sines), 25 m cells in UTM zone 33N.
@@ -16,6 +17,7 @@ import path from 'node:path';
 import { createTerrainIngestRunner } from '@/server/workers/terrain-ingest-runner';
 import { writeEsriAsciiGrid } from '@/shared/terrain/formats/esri-ascii-grid-writer';
 import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
+import { decimateTerrain } from '@/shared/terrain/decimate-terrain';
 import { computeHillshade } from '@/shared/terrain/hillshade';
 import { hillshadeImage } from '@/shared/terrain/hillshade-image';
 import { terrainProfile } from '@/shared/terrain/terrain-profile';
@@ -87,6 +89,7 @@ export async function benchTerrain(): Promise<Row[]> {
         rows.push({ name: `gdaldem hillshade ${size}² (whole process)`, value: median(gdalTimes), unit: 'ms' });
       const relief = computeHillshade(terrain);
       rows.push({ name: `hillshade picture ${size}² → ≤ 2048 px`, value: timed(() => hillshadeImage(relief), 3), unit: 'ms' });
+      rows.push({ name: `3D mesh ${size}² → ≤ 256 cells`, value: timed(() => decimateTerrain(terrain, 256), 3), unit: 'ms' });
 
       // Corner to corner, three conditions.
       const span = size * 25;

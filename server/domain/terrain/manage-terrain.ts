@@ -2,16 +2,19 @@ import path from 'node:path';
 import type { Readable } from 'node:stream';
 import type { Sequelize } from 'sequelize';
 import type { Site } from '@/shared/schemas/site';
+import { TERRAIN_MESH_ENCODING } from '@/shared/schemas/terrain';
 import type {
   ElevationQuery,
   ElevationResponse,
   SiteTerrain,
   TerrainFormat,
+  TerrainMeshResponse,
   TerrainProfileRequest,
   TerrainProfileResponse,
 } from '@/shared/schemas/terrain';
 import { MEAN_EARTH_RADIUS_M } from '@/shared/sightline';
 import { refractionFromCondition } from '@/shared/sightline/refraction-from-condition';
+import { decimateTerrain } from '@/shared/terrain/decimate-terrain';
 import { gridProjection, TerrainCrsError } from '@/shared/terrain/grid-projection';
 import { elevationAt } from '@/shared/terrain/terrain-elevation';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
@@ -421,4 +424,51 @@ export async function profileTerrain(
     })),
     cautions: PROFILE_CAUTIONS,
   };
+}
+
+/** Meshes recently made, by terrain id and edge (a terrain never changes once stored). */
+const meshes = new Map<string, TerrainMeshResponse>();
+const MESHES_KEPT = 8;
+
+/**
+ * The site's active terrain decimated to at most `maxEdge` cells a side
+ * (block means of the cells with data), as little-endian Float32 heights in
+ * base64, for a 3D view.
+ */
+export async function terrainMesh(
+  deps: Pick<TerrainDeps, 'cache'>,
+  actor: Actor,
+  siteId: string,
+  maxEdge: number,
+): Promise<TerrainMeshResponse> {
+  const { terrain: record } = await activeTerrain(actor, siteId);
+  const key = `${record.id}:${maxEdge}`;
+  const known = meshes.get(key);
+  if (known) return known;
+  const terrain = await deps.cache.loadTerrain(record);
+  const mesh = decimateTerrain(terrain, maxEdge);
+  let min = Infinity;
+  let max = -Infinity;
+  for (const v of mesh.heights) {
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  const bytes = Buffer.from(mesh.heights.buffer, mesh.heights.byteOffset, mesh.heights.byteLength);
+  const response: TerrainMeshResponse = {
+    terrainId: record.id,
+    width: mesh.width,
+    height: mesh.height,
+    factor: mesh.factor,
+    cellSizeM: mesh.cellSize,
+    xllM: mesh.xll,
+    yllM: mesh.yll,
+    minElevationM: Number.isFinite(min) ? min : record.minElevationM,
+    maxElevationM: Number.isFinite(max) ? max : record.maxElevationM,
+    encoding: TERRAIN_MESH_ENCODING,
+    // Float32Array is little-endian on every platform Node runs on; say so explicitly if that ever changes.
+    heights: bytes.toString('base64'),
+  };
+  meshes.set(key, response);
+  if (meshes.size > MESHES_KEPT) meshes.delete(meshes.keys().next().value as string);
+  return response;
 }

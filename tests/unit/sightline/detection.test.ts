@@ -78,7 +78,12 @@ describe('detection range', () => {
   });
 
   it('converts a 2 % meteorological range to the 5 % detection threshold', () => {
-    const r = detectionRange({ observerHeightM: 300, targetHeightM: 50, visibilityM: 10_000, visibilityKind: 'meteorological-range-2pct' });
+    const r = detectionRange({
+      observerHeightM: 300,
+      targetHeightM: 50,
+      visibilityM: 10_000,
+      visibilityKind: 'meteorological-range-2pct',
+    });
     // Source: AMS Glossary (3.912/σ) and CIE/WMO MOR (2.996/σ). Tolerance 0.1 %.
     expectRelative(r.limits.visibilityM, (10_000 * 2.996) / 3.912, 0.001);
   });

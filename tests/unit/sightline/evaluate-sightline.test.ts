@@ -49,21 +49,24 @@ const REQUESTS: SightlineRequest[] = [
 ];
 
 describe('evaluateSightline', () => {
-  it.each(REQUESTS.map((r, i) => [i, r] as const))('request %p: every number is finite and every null is explained', (_i, request) => {
-    const response = evaluateSightline(request);
-    // Source: none — Kenning's contract: never NaN/Infinity, null only with a warning.
-    for (const value of numbersIn(response)) expect(Number.isFinite(value)).toBe(true);
-    const roundTrip = JSON.parse(JSON.stringify(response)) as unknown;
-    expect(roundTrip).toEqual(response);
-    expect(SightlineResponseSchema.safeParse(response).success).toBe(true);
-    expect(response.results).toHaveLength(request.conditions.length);
-    for (const result of response.results) {
-      const nulls = NULLABLE_FIELDS.filter((field) => result[field] === null);
-      if (nulls.length > 0) expect(result.warnings.length).toBeGreaterThan(0);
-      if (result.detectionRangeM === null) expect(result.limitedBy).toBeNull();
-      else expect(result.limitedBy).not.toBeNull();
-    }
-  });
+  it.each(REQUESTS.map((r, i) => [i, r] as const))(
+    'request %p: every number is finite and every null is explained',
+    (_i, request) => {
+      const response = evaluateSightline(request);
+      // Source: none — Kenning's contract: never NaN/Infinity, null only with a warning.
+      for (const value of numbersIn(response)) expect(Number.isFinite(value)).toBe(true);
+      const roundTrip = JSON.parse(JSON.stringify(response)) as unknown;
+      expect(roundTrip).toEqual(response);
+      expect(SightlineResponseSchema.safeParse(response).success).toBe(true);
+      expect(response.results).toHaveLength(request.conditions.length);
+      for (const result of response.results) {
+        const nulls = NULLABLE_FIELDS.filter((field) => result[field] === null);
+        if (nulls.length > 0) expect(result.warnings.length).toBeGreaterThan(0);
+        if (result.detectionRangeM === null) expect(result.limitedBy).toBeNull();
+        else expect(result.limitedBy).not.toBeNull();
+      }
+    },
+  );
 
   it('always includes the four cautions', () => {
     const codes = evaluateSightline(REQUESTS[1] as SightlineRequest).cautions.map((c) => c.code);
@@ -109,7 +112,12 @@ describe('evaluateSightline', () => {
   });
 
   it('flags ducting with nulls and an explanation', () => {
-    const [result] = evaluateSightline({ observerHeightM: 10, targetHeightM: 5, distanceM: 50_000, conditions: [{ k: 1.2 }] }).results;
+    const [result] = evaluateSightline({
+      observerHeightM: 10,
+      targetHeightM: 5,
+      distanceM: 50_000,
+      conditions: [{ k: 1.2 }],
+    }).results;
     // Source: none — Kenning's contract for k ≥ 1.
     expect(result).toMatchObject({
       regime: 'ducting',
@@ -135,7 +143,12 @@ describe('evaluateSightline', () => {
   });
 
   it('reports a target past the effective quarter circle as wholly hidden', () => {
-    const [result] = evaluateSightline({ observerHeightM: 2, targetHeightM: 500, distanceM: 1_500_000, conditions: [{ k: -10 }] }).results;
+    const [result] = evaluateSightline({
+      observerHeightM: 2,
+      targetHeightM: 500,
+      distanceM: 1_500_000,
+      conditions: [{ k: -10 }],
+    }).results;
     // Source: none — contract.
     expect(result?.hiddenHeightM).toBeNull();
     expect(result?.visibleHeightM).toBe(0);

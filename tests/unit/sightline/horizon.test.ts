@@ -153,7 +153,15 @@ describe('effective radius', () => {
 
 describe('ducting and bad input', () => {
   it.each([1, 1.0000001, 1.5, 10])('k = %p gives flagged nulls, never NaN or Infinity', (k) => {
-    for (const result of [effectiveRadius({ k }), horizonDistance(10, { k }), tangentLength(10, { k }), horizonDip(10, { k }), horizonDistanceApprox(10, { k }), horizonApproxRelativeError(10, { k }), horizonSag(10, 1, { k })]) {
+    for (const result of [
+      effectiveRadius({ k }),
+      horizonDistance(10, { k }),
+      tangentLength(10, { k }),
+      horizonDip(10, { k }),
+      horizonDistanceApprox(10, { k }),
+      horizonApproxRelativeError(10, { k }),
+      horizonSag(10, 1, { k }),
+    ]) {
       // Source: none — Kenning's contract for k ≥ 1 (no geometric horizon).
       expect(result).toEqual({ value: null, reason: 'ducting' });
     }

@@ -18,14 +18,22 @@ import { deepFreeze, expectRelative, expectWithin } from '@/tests/unit/sightline
 
 describe('k from pressure, temperature and temperature gradient', () => {
   it('gives k ≈ 0.171 for the standard atmosphere at sea level', () => {
-    const k = refractionFromTemperatureGradient({ pressureHpa: 1013.25, temperatureK: 288.15, temperatureGradientKPerM: -0.0065 });
+    const k = refractionFromTemperatureGradient({
+      pressureHpa: 1013.25,
+      temperatureK: 288.15,
+      temperatureGradientKPerM: -0.0065,
+    });
     // Source: surveying relation k = 503·P/T²·(0.0343 + dT/dh) (from memory), evaluated by hand: 503 · 1013.25 / 288.15² · 0.0278 = 0.1706, with ISO 2533 sea-level P, T and −6.5 K/km. Tolerance 0.0005.
     expectWithin(k, 0.1706, 0.0005);
   });
 
   it('gives k = 0 when air density is constant with height (dT/dh = −0.0343 K/m)', () => {
     // Source: autoconvective gradient g/R_air ≈ 0.0342 K/m (constant density, no refraction). Tolerance 1e-12.
-    expectWithin(refractionFromTemperatureGradient({ pressureHpa: 900, temperatureK: 300, temperatureGradientKPerM: -0.0343 }), 0, 1e-12);
+    expectWithin(
+      refractionFromTemperatureGradient({ pressureHpa: 900, temperatureK: 300, temperatureGradientKPerM: -0.0343 }),
+      0,
+      1e-12,
+    );
   });
 
   it('rises with an inversion and falls over heated ground', () => {
@@ -36,7 +44,13 @@ describe('k from pressure, temperature and temperature gradient', () => {
   });
 
   it('two readings give the same k as their gradient at the mean temperature', () => {
-    const k2 = refractionFromTwoTemperatures({ airTemperatureK: 281, surfaceTemperatureK: 285, airHeightM: 12, surfaceHeightM: 2, pressureHpa: 990 });
+    const k2 = refractionFromTwoTemperatures({
+      airTemperatureK: 281,
+      surfaceTemperatureK: 285,
+      airHeightM: 12,
+      surfaceHeightM: 2,
+      pressureHpa: 990,
+    });
     const k1 = refractionFromTemperatureGradient({ pressureHpa: 990, temperatureK: 283, temperatureGradientKPerM: -0.4 });
     // Source: none — finite-difference definition. Tolerance 1e-12.
     expectWithin(k2, k1, 1e-12);
@@ -44,9 +58,15 @@ describe('k from pressure, temperature and temperature gradient', () => {
 
   it('rejects equal heights, zero pressure and temperatures at or below 0 K', () => {
     // Source: none — input contract.
-    expect(() => refractionFromTwoTemperatures({ airTemperatureK: 281, surfaceTemperatureK: 285, airHeightM: 2, surfaceHeightM: 2 })).toThrow(SightlineInputError);
-    expect(() => refractionFromTemperatureGradient({ pressureHpa: 0, temperatureK: 280, temperatureGradientKPerM: 0 })).toThrow(SightlineInputError);
-    expect(() => refractionFromTemperatureGradient({ pressureHpa: 1000, temperatureK: 0, temperatureGradientKPerM: 0 })).toThrow(SightlineInputError);
+    expect(() =>
+      refractionFromTwoTemperatures({ airTemperatureK: 281, surfaceTemperatureK: 285, airHeightM: 2, surfaceHeightM: 2 }),
+    ).toThrow(SightlineInputError);
+    expect(() => refractionFromTemperatureGradient({ pressureHpa: 0, temperatureK: 280, temperatureGradientKPerM: 0 })).toThrow(
+      SightlineInputError,
+    );
+    expect(() => refractionFromTemperatureGradient({ pressureHpa: 1000, temperatureK: 0, temperatureGradientKPerM: 0 })).toThrow(
+      SightlineInputError,
+    );
   });
 });
 
@@ -138,13 +158,18 @@ describe('named conditions', () => {
   });
 
   it('temperature-defined presets state P, T and dT/dh and match the relation', () => {
-    for (const id of ['standard-atmosphere', 'sub-refraction-heated-ground', 'super-refraction-inversion', 'ducting-strong-inversion'] as const) {
+    for (const id of [
+      'standard-atmosphere',
+      'sub-refraction-heated-ground',
+      'super-refraction-inversion',
+      'ducting-strong-inversion',
+    ] as const) {
       const preset = refractionPreset(id);
       const match = /P = ([\d.]+) hPa, T = ([\d.]+) K, dT\/dh = (-?[\d.]+) K\/m/.exec(preset.definition);
       expect(match).not.toBeNull();
       const [, p, t, g] = match ?? [];
       // Source: surveying relation k = 503·P/T²·(0.0343 + dT/dh) (from memory), re-evaluated from the stated inputs. Tolerance 1e-9.
-      expectWithin(preset.k, (503 * Number(p)) / Number(t) ** 2 * (0.0343 + Number(g)), 1e-9);
+      expectWithin(preset.k, ((503 * Number(p)) / Number(t) ** 2) * (0.0343 + Number(g)), 1e-9);
     }
   });
 

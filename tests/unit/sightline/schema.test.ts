@@ -1,8 +1,4 @@
-import {
-  RefractionPresetListSchema,
-  SightlineRequestSchema,
-  SightlineResponseSchema,
-} from '@/shared/schemas/sightline';
+import { RefractionPresetListSchema, SightlineRequestSchema, SightlineResponseSchema } from '@/shared/schemas/sightline';
 import { REFRACTION_PRESETS } from '@/shared/sightline';
 
 const valid = { observerHeightM: 10, conditions: [{ k: 0.13 }] };
@@ -48,12 +44,24 @@ describe('SightlineRequestSchema', () => {
     ['k out of bounds', { ...valid, conditions: [{ k: 20 }] }, 'conditions.0.k'],
     ['unknown preset', { ...valid, conditions: [{ preset: 'fog' }] }, 'conditions.0.preset'],
     ['missing lapse rate', { ...valid, conditions: [{ pressureHpa: 1000, temperatureC: 10 }] }, 'conditions.0.lapseRateKPerM'],
-    ['missing surface height', { ...valid, conditions: [{ airTemperatureC: 5, surfaceTemperatureC: 9, airHeightM: 3 }] }, 'conditions.0.surfaceHeightM'],
-    ['equal heights', { ...valid, conditions: [{ airTemperatureC: 5, surfaceTemperatureC: 9, airHeightM: 3, surfaceHeightM: 3 }] }, 'conditions.0.airHeightM'],
+    [
+      'missing surface height',
+      { ...valid, conditions: [{ airTemperatureC: 5, surfaceTemperatureC: 9, airHeightM: 3 }] },
+      'conditions.0.surfaceHeightM',
+    ],
+    [
+      'equal heights',
+      { ...valid, conditions: [{ airTemperatureC: 5, surfaceTemperatureC: 9, airHeightM: 3, surfaceHeightM: 3 }] },
+      'conditions.0.airHeightM',
+    ],
     ['mixed kinds', { ...valid, conditions: [{ k: 0.1, preset: 'no-refraction' }] }, 'conditions.0'],
     ['empty condition', { ...valid, conditions: [{}] }, 'conditions.0'],
     ['unknown field', { ...valid, conditions: [{ k: 0.1, kk: 1 }] }, 'conditions.0'],
-    ['absurd pressure', { ...valid, conditions: [{ pressureHpa: 5000, temperatureC: 10, lapseRateKPerM: 0.0065 }] }, 'conditions.0.pressureHpa'],
+    [
+      'absurd pressure',
+      { ...valid, conditions: [{ pressureHpa: 5000, temperatureC: 10, lapseRateKPerM: 0.0065 }] },
+      'conditions.0.pressureHpa',
+    ],
     ['no conditions', { ...valid, conditions: [] }, 'conditions'],
     ['required part above target', { ...valid, targetHeightM: 5, requiredVisibleM: 6 }, 'requiredVisibleM'],
     ['required part without target', { ...valid, requiredVisibleM: 1 }, 'requiredVisibleM'],
@@ -86,13 +94,19 @@ describe('SightlineResponseSchema and the preset list', () => {
   it('accepts a well-formed response and rejects non-finite numbers', () => {
     // Source: none — schema contract.
     expect(SightlineResponseSchema.safeParse({ results: [result], cautions: [] }).success).toBe(true);
-    expect(SightlineResponseSchema.safeParse({ results: [{ ...result, dipDeg: Number.POSITIVE_INFINITY }], cautions: [] }).success).toBe(false);
-    expect(SightlineResponseSchema.safeParse({ results: [{ ...result, horizonDistanceM: Number.NaN }], cautions: [] }).success).toBe(false);
+    expect(
+      SightlineResponseSchema.safeParse({ results: [{ ...result, dipDeg: Number.POSITIVE_INFINITY }], cautions: [] }).success,
+    ).toBe(false);
+    expect(
+      SightlineResponseSchema.safeParse({ results: [{ ...result, horizonDistanceM: Number.NaN }], cautions: [] }).success,
+    ).toBe(false);
   });
 
   it('describes the preset list endpoint body', () => {
     // Source: none — schema contract.
     expect(RefractionPresetListSchema.safeParse({ presets: REFRACTION_PRESETS }).success).toBe(true);
-    expect(RefractionPresetListSchema.safeParse({ presets: [{ id: 'fog', label: 'x', k: 0, definition: 'x', source: 'x' }] }).success).toBe(false);
+    expect(
+      RefractionPresetListSchema.safeParse({ presets: [{ id: 'fog', label: 'x', k: 0, definition: 'x', source: 'x' }] }).success,
+    ).toBe(false);
   });
 });
