@@ -1,3 +1,4 @@
+import { useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { SITE_KIND_LABELS } from '@/shared/schemas/site';
 import { useSession } from '@/components/data/session';
@@ -21,6 +22,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
   const posts = useSitePosts(siteId);
   const { data: user } = useSession();
   const { wide } = useLayout();
+  const router = useRouter();
   if (site.isPending) return <LoadingState label="Loading the site…" />;
   if (site.isError) return <ErrorState error={site.error} onRetry={() => void site.refetch()} />;
   const s = site.data;
