@@ -51,6 +51,8 @@ export async function receiveUpload(req: Request, res: Response, options: Receiv
   const middleware = multer({
     storage: multer.diskStorage({ destination: dir }),
     limits: { fileSize: options.maxBytes, files: options.fileFields.length, fields: 10, fieldSize: 10_000, parts: 20 },
+    // Browsers send UTF-8 file names; busboy would read them as Latin-1.
+    defParamCharset: 'utf8',
   }).fields(options.fileFields.map((name) => ({ name, maxCount: 1 })));
   try {
     await new Promise<void>((resolve, reject) => {

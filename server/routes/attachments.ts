@@ -1,10 +1,8 @@
-import { rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import { create as contentDisposition } from 'content-disposition';
-import { Router, type NextFunction, type Request, type Response } from 'express';
-import multer from 'multer';
+import { Router, type Response } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import {
@@ -23,36 +21,12 @@ import {
   uploadAttachment,
 } from '@/server/domain/attachments/manage-attachments';
 import { AppError, type FieldErrors } from '@/server/http/app-error';
+import { receiveUpload } from '@/server/http/multipart';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { fieldErrors, parseOrThrow } from '@/server/http/validate';
 import type { FileStore } from '@/server/storage/file-store';
 
 const Params = z.object({ id: z.uuid({ error: 'Not an attachment id.' }) });
-
-/** Text fields allowed beside the file, and their longest value in bytes. */
-const FIELD_LIMITS = { fields: 8, fieldSize: 4096, files: 1, parts: 10 };
-
-/** Multer's refusals as API errors; the partial temp file is already removed by multer. */
-function uploadError(err: unknown): unknown {
-  if (err instanceof multer.MulterError) {
-    if (err.code === 'LIMIT_FILE_SIZE') return fileTooLarge(null);
-    if (err.code === 'LIMIT_UNEXPECTED_FILE' || err.code === 'LIMIT_FILE_COUNT') {
-      return AppError.badRequest('Send one file, in the form field "file".', {
-        file: 'Send one file, in the form field "file".',
-      });
-    }
-    return AppError.badRequest(`The upload form is not acceptable (${err.message.toLowerCase()}).`, {
-      ...(err.field && { [err.field]: err.message }),
-    });
-  }
-  // busboy: a body that is not well-formed multipart.
-  if (err instanceof Error && !(err instanceof AppError)) {
-    return new AppError(400, 'malformed_upload', 'The upload was cut off or is not a well-formed multipart form.', undefined, {
-      cause: err,
-    });
-  }
-  return err;
-}
 
 /** Sends a stored file; a failure after the headers went out can only cut the connection. */
 async function sendStream(res: Response, stream: NodeJS.ReadableStream) {
@@ -72,45 +46,38 @@ export function attachmentRoutes(db: Sequelize, files: FileStore, uploadTempDir 
   const router = Router();
   const deps = { db, files };
   const write = [requireUser, requireRole('planner')];
-  const receive = multer({
-    storage: multer.diskStorage({ destination: uploadTempDir }),
-    limits: { ...FIELD_LIMITS, fileSize: DOCUMENT_MAX_BYTES },
-    // Browsers send UTF-8 file names; busboy would read them as Latin-1.
-    defParamCharset: 'utf8',
-  }).single('file');
-
   router.get('/attachments', requireUser, async (req, res) => {
     const query = parseOrThrow(AttachmentListQuerySchema, req.query, 'query');
     res.json(await listAttachments(actorOf(req), query));
   });
 
-  router.post(
-    '/attachments',
-    ...write,
-    (req: Request, res: Response, next: NextFunction) =>
-      receive(req, res, (err?: unknown) => next(err ? uploadError(err) : undefined)),
-    async (req, res) => {
-      const file = req.file;
-      try {
-        const parsed = AttachmentUploadFieldsSchema.safeParse(req.body ?? {});
-        const fields: FieldErrors = parsed.success ? {} : fieldErrors(parsed.error);
-        if (!file) fields.file = 'Choose a file to upload.';
-        else if (file.size === 0) fields.file = 'The file is empty.';
-        if (!parsed.success || !file || Object.keys(fields).length) {
-          throw AppError.badRequest('The upload has invalid fields.', fields);
-        }
-        const attachment = await uploadAttachment(deps, actorOf(req), parsed.data, {
-          path: file.path,
-          originalName: file.originalname,
-          size: file.size,
-        });
-        res.status(201).json({ attachment });
-      } finally {
-        // Adopted files have moved into the store; anything still here is a refusal's leftover.
-        if (file) await rm(file.path, { force: true });
+  router.post('/attachments', ...write, async (req, res) => {
+    const upload = await receiveUpload(req, res, {
+      tmpRoot: uploadTempDir,
+      maxBytes: DOCUMENT_MAX_BYTES,
+      fileFields: ['file'],
+      tooLarge: () => fileTooLarge(null),
+    });
+    try {
+      const file = upload.files.file;
+      const parsed = AttachmentUploadFieldsSchema.safeParse(upload.fields);
+      const fields: FieldErrors = parsed.success ? {} : fieldErrors(parsed.error);
+      if (!file) fields.file = 'Choose a file to upload.';
+      else if (file.bytes === 0) fields.file = 'The file is empty.';
+      if (!parsed.success || !file || Object.keys(fields).length) {
+        throw AppError.badRequest('The upload has invalid fields.', fields);
       }
-    },
-  );
+      const attachment = await uploadAttachment(deps, actorOf(req), parsed.data, {
+        path: file.path,
+        originalName: file.originalName,
+        size: file.bytes,
+      });
+      res.status(201).json({ attachment });
+    } finally {
+      // Adopted files have moved into the store; anything still here is a refusal's leftover.
+      await upload.cleanup();
+    }
+  });
 
   router.get('/attachments/:id', requireUser, async (req, res) => {
     const { id } = parseOrThrow(Params, req.params, 'address');
