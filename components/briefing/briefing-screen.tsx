@@ -1,6 +1,7 @@
 import { useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
+import type { PlanResultRow } from '@/shared/schemas/plan';
 import { POST_KIND_LABELS } from '@/shared/schemas/site';
 import { CautionsPanel } from '@/components/check/cautions-panel';
 import { formatLength, LIMIT_LABELS } from '@/components/check/format';
@@ -26,9 +27,15 @@ export function BriefingScreen() {
   if (briefing.isError) return <ErrorState error={briefing.error} onRetry={() => void briefing.refetch()} />;
   const { assignments, posts } = briefing.data;
   return (
-    <Screen title="Your watch" subtitle="Your posts for the next two weeks and what the approved plans expect you to see from them.">
+    <Screen
+      title="Your watch"
+      subtitle="Your posts for the next two weeks and what the approved plans expect you to see from them."
+    >
       {assignments.length === 0 ? (
-        <EmptyState title="No watches" body="Nobody has put you on a post for the next two weeks. Your supervisor does that on the site's roster." />
+        <EmptyState
+          title="No watches"
+          body="Nobody has put you on a post for the next two weeks. Your supervisor does that on the site's roster."
+        />
       ) : (
         <Card style={{ gap: space.xs }} aria-label="Your watches">
           <AppText variant="heading">Watches</AppText>
@@ -54,23 +61,34 @@ export function BriefingScreen() {
                 Approved plan “{plan.title}” v{plan.version}, revision {plan.revision}, approved {when(plan.approvedAt)}.
               </AppText>
               <View style={{ flexDirection: wide ? 'row' : 'column', flexWrap: 'wrap', gap: space.sm }}>
-                {results.map((r) => (
-                  <Card key={`${r.targetId}|${r.conditionSetId}|${r.conditionIndex}`} style={{ gap: 2, width: wide ? 320 : '100%' }}>
-                    <AppText variant="label">{r.targetName}</AppText>
-                    <AppText variant="small" tone="muted">
-                      {r.conditionSetName} · k = {r.result.k.toFixed(2)}
-                    </AppText>
-                    <AppText variant="figure">{formatLength(r.result.detectionRangeM, 'km')}</AppText>
-                    <AppText variant="small" tone="muted">
-                      {r.result.limitedBy ? `limited by ${LIMIT_LABELS[r.result.limitedBy]}` : 'no limit found'}
-                      {r.zones.length ? ` · ${r.zones.map((z) => `${z.name}: ${z.reach}`).join(', ')}` : ''}
-                    </AppText>
+                {byTarget(results).map(({ targetId, targetName, rows }) => (
+                  <Card key={targetId} style={{ gap: space.xs, width: wide ? 360 : '100%' }} aria-label={targetName}>
+                    <AppText variant="label">{targetName}</AppText>
+                    {rows.map((r) => (
+                      <View
+                        key={`${r.conditionSetId}|${r.conditionIndex}`}
+                        style={{ flexDirection: 'row', gap: space.sm, alignItems: 'baseline' }}
+                      >
+                        <AppText variant="figure" style={{ minWidth: 84 }}>
+                          {formatLength(r.result.detectionRangeM, 'km')}
+                        </AppText>
+                        <AppText variant="small" tone="muted" style={{ flex: 1 }}>
+                          {r.conditionSetName}, k = {r.result.k.toFixed(2)} ·{' '}
+                          {r.result.limitedBy ? `limited by ${LIMIT_LABELS[r.result.limitedBy]}` : 'no limit found'}
+                          {r.zones.length ? ` · ${r.zones.map((z) => `${z.name}: ${z.reach}`).join(', ')}` : ''}
+                        </AppText>
+                      </View>
+                    ))}
                   </Card>
                 ))}
               </View>
               <CautionsPanel cautions={cautions} />
               <View style={{ alignSelf: 'flex-start' }}>
-                <Button kind="secondary" label="Open the plan" onPress={() => router.navigate({ pathname: '/plans/[planId]', params: { planId: plan.id } })} />
+                <Button
+                  kind="secondary"
+                  label="Open the plan"
+                  onPress={() => router.navigate({ pathname: '/plans/[planId]', params: { planId: plan.id } })}
+                />
               </View>
             </>
           ) : (
@@ -82,4 +100,15 @@ export function BriefingScreen() {
       ))}
     </Screen>
   );
+}
+
+/** Result lines grouped by target, in the order they first appear. */
+function byTarget(results: PlanResultRow[]) {
+  const groups = new Map<string, { targetId: string; targetName: string; rows: PlanResultRow[] }>();
+  for (const r of results) {
+    const g = groups.get(r.targetId) ?? { targetId: r.targetId, targetName: r.targetName, rows: [] };
+    g.rows.push(r);
+    groups.set(r.targetId, g);
+  }
+  return [...groups.values()];
 }

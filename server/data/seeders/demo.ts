@@ -310,9 +310,21 @@ async function seedDemoWatches(db: Sequelize, now = new Date()): Promise<boolean
   const day = Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate());
   const at = (days: number, hours: number) => new Date(day + days * 86_400_000 + hours * 3_600_000);
   const watches = [
-    { email: 'observer@demo.kenning.test', post: 'Crane Knoll Tower', startsAt: at(0, 0), endsAt: null, note: 'Fire season watch.' },
-    { email: 'lookout.marrow@demo.kenning.test', post: 'Gull Point', startsAt: at(0, 0), endsAt: null, note: 'Bathing season.' },
-    { email: 'lookout.tolliver@demo.kenning.test', post: 'Sedge Ridge Tower', startsAt: at(1, 6), endsAt: at(4, 18), note: 'Relief cover.' },
+    {
+      email: 'observer@demo.kenning.test',
+      post: 'Crane Knoll Tower',
+      startsAt: at(-1, 0),
+      endsAt: null,
+      note: 'Fire season watch.',
+    },
+    { email: 'lookout.marrow@demo.kenning.test', post: 'Gull Point', startsAt: at(-1, 0), endsAt: null, note: 'Bathing season.' },
+    {
+      email: 'lookout.tolliver@demo.kenning.test',
+      post: 'Sedge Ridge Tower',
+      startsAt: at(1, 6),
+      endsAt: at(4, 18),
+      note: 'Relief cover.',
+    },
   ];
   const posts = await PostModel.findAll({ where: { organizationId: org.id } });
   await db.transaction(async (transaction) => {
