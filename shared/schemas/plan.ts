@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
+import { CoverageSnapshotSchema } from './coverage';
 import { SightlineResultSchema } from './sightline';
 
 export const PLAN_STATUSES = ['draft', 'submitted', 'returned', 'approved', 'superseded'] as const;
@@ -136,6 +137,8 @@ export const PlanSnapshotSchema = z.object({
     attachments: z.array(AttachmentRefSchema).default([]),
   }),
   results: z.array(PlanResultRowSchema),
+  /** The plan's terrain coverage run as it was at submission; null when none was computed (older revisions, sites without terrain). */
+  coverage: CoverageSnapshotSchema.nullable().default(null),
   cautions: z.array(z.object({ code: z.string(), message: z.string() })),
 });
 export type PlanSnapshot = z.infer<typeof PlanSnapshotSchema>;

@@ -1,0 +1,202 @@
+import { z } from 'zod';
+
+/*
+ * Terrain coverage of a plan: a run computes, for every target × condition of
+ * the plan, how many of its posts see each cell of the site, the
+ * cross-bearing quality, each post's visibility classes, the statistics and
+ * the check against the plan's standard. Runs are queued (pg-boss) and
+ * computed by worker processes; a finished run never changes, so a plan
+ * revision can freeze a reference to it. Areas in m², lengths in metres.
+ */
+
+export const COVERAGE_RUN_STATUSES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
+export type CoverageRunStatus = (typeof COVERAGE_RUN_STATUSES)[number];
+
+/** Statuses of a run that may still change. */
+export const ACTIVE_RUN_STATUSES: readonly CoverageRunStatus[] = ['queued', 'running'];
+
+/** Layers a run serves (`GET /coverage-runs/:id/layers/:layer`). */
+export const COVERAGE_LAYER_KINDS = ['posts-per-cell', 'cross-bearing', 'post-visibility'] as const;
+export type CoverageLayerName = (typeof COVERAGE_LAYER_KINDS)[number];
+
+/** What the ground was: the site's terrain, or a flat datum at sea level (a site without terrain). */
+export const COVERAGE_DATUMS = ['terrain', 'flat'] as const;
+
+const MeasureSchema = z.object({ cells: z.number(), area: z.number(), pct: z.number() });
+
+export const AreaCoverageSchema = z.object({
+  total: MeasureSchema,
+  noData: MeasureSchema,
+  unseen: MeasureSchema,
+  seenBy1: MeasureSchema,
+  seenBy2: MeasureSchema,
+  seenBy3: MeasureSchema,
+  goodCrossBearing: MeasureSchema,
+});
+
+export const BlindAreaSchema = z.object({
+  cells: z.number(),
+  area: z.number(),
+  /** Centre of the patch: grid metres and WGS84. */
+  centroid: z.object({ x: z.number(), y: z.number(), latDeg: z.number(), lonDeg: z.number() }),
+});
+
+export const CoverageRuleCheckSchema = z.object({
+  id: z.string(),
+  zoneName: z.string().nullable(),
+  minPosts: z.number(),
+  minPct: z.number(),
+  text: z.string(),
+  actualPct: z.number(),
+  passed: z.boolean(),
+  shortfallPct: z.number(),
+  shortfallArea: z.number(),
+  reasons: z.array(z.string()),
+});
+
+/** One target × one condition of a run: figures and the standard's verdict. */
+export const CoverageCaseSchema = z.object({
+  /** `${targetId}:${conditionSetId}:${conditionIndex}`; the same in every run of plans sharing them. */
+  key: z.string(),
+  targetId: z.uuid(),
+  targetName: z.string(),
+  targetHeightM: z.number(),
+  conditionSetId: z.uuid(),
+  conditionSetName: z.string(),
+  conditionIndex: z.number().int(),
+  /** For people, e.g. "standard optical (k 0.13)". */
+  conditionLabel: z.string(),
+  refractionCoefficient: z.number(),
+  site: AreaCoverageSchema,
+  zones: z.array(AreaCoverageSchema.extend({ name: z.string(), weight: z.number() })),
+  /** Listed blind areas (largest first) and all of them counted. */
+  blindAreas: z.array(BlindAreaSchema),
+  blindSummary: z.object({ count: z.number(), area: z.number(), minArea: z.number() }),
+  check: z.object({
+    interpretation: z.string(),
+    passed: z.boolean(),
+    rules: z.array(CoverageRuleCheckSchema),
+    reasons: z.array(z.string()),
+  }),
+  /** Per post: share of the site where it sees the target (within its sector), percent. */
+  posts: z.array(z.object({ postId: z.uuid(), postName: z.string(), seenPct: z.number() })),
+});
+export type CoverageCase = z.infer<typeof CoverageCaseSchema>;
+
+/** The grid the layers are on (the terrain's, or the flat datum's). */
+export const CoverageGridSchema = z.object({
+  width: z.number().int(),
+  height: z.number().int(),
+  cellSizeM: z.number(),
+  xllM: z.number(),
+  yllM: z.number(),
+  epsg: z.number().int().nullable(),
+});
+
+export const CoverageRunSchema = z.object({
+  id: z.uuid(),
+  planId: z.uuid(),
+  siteId: z.uuid(),
+  /** The terrain computed on, or null for the flat datum. */
+  terrainId: z.uuid().nullable(),
+  datum: z.enum(COVERAGE_DATUMS),
+  /** sha256 of the canonical JSON of every input (terrain, posts, targets, conditions, site, standard). */
+  inputsHash: z.string(),
+  status: z.enum(COVERAGE_RUN_STATUSES),
+  /** 0 … 1. */
+  progress: z.number(),
+  /** What the run is doing, for people. */
+  stage: z.string(),
+  /** Why it failed, for people; null otherwise. */
+  error: z.string().nullable(),
+  requestedBy: z.object({ id: z.uuid().nullable(), name: z.string() }),
+  createdAt: z.string(),
+  startedAt: z.string().nullable(),
+  finishedAt: z.string().nullable(),
+  /** Whether the plan's inputs today are the ones this run computed. */
+  current: z.boolean(),
+  grid: CoverageGridSchema.nullable(),
+  /** Filled when done, in target × condition order. */
+  cases: z.array(CoverageCaseSchema),
+  /** Seconds the computation took (done runs). */
+  elapsedS: z.number().nullable(),
+});
+export type CoverageRun = z.infer<typeof CoverageRunSchema>;
+
+/** Body of GET /plans/:planId/coverage. */
+export const PlanCoverageSchema = z.object({
+  /** Hash of the plan's inputs today. */
+  inputsHash: z.string(),
+  /** The run for today's inputs (any status but failed/cancelled), or null. */
+  current: CoverageRunSchema.nullable(),
+  /** The newest run whatever its status or inputs, or null. */
+  latest: CoverageRunSchema.nullable(),
+  /** Whether the site has terrain (else coverage is on the flat datum and not required for submitting). */
+  hasTerrain: z.boolean(),
+});
+export type PlanCoverage = z.infer<typeof PlanCoverageSchema>;
+
+/** Query of GET /coverage-runs/:id/layers/:layer. */
+export const CoverageLayerQuerySchema = z.object({
+  caseKey: z.string({ error: 'Name the case (caseKey).' }).min(1, 'Name the case (caseKey).'),
+  postId: z.uuid({ error: 'Not a post id.' }).optional(),
+});
+
+/** Query of GET /coverage-compare: run `a` is "before", `b` "after". */
+export const CoverageCompareQuerySchema = z.object({
+  a: z.uuid({ error: 'Not a run id.' }),
+  b: z.uuid({ error: 'Not a run id.' }),
+  caseKey: z.string().min(1, 'Name the case (caseKey).'),
+  /** The case of run b when it differs (other target or condition ids); default caseKey. */
+  caseKeyB: z.string().min(1).optional(),
+});
+
+const ChangeMeasureSchema = z.object({ cells: z.number(), area: z.number() });
+
+/** Body of GET /coverage-compare. */
+export const CoverageComparisonSchema = z.object({
+  a: z.object({ runId: z.uuid(), planId: z.uuid(), caseKey: z.string(), site: AreaCoverageSchema }),
+  b: z.object({ runId: z.uuid(), planId: z.uuid(), caseKey: z.string(), site: AreaCoverageSchema }),
+  /** `kenning-rle8/1` raster of COVERAGE_CHANGE codes. */
+  difference: z.object({
+    format: z.string(),
+    width: z.number(),
+    height: z.number(),
+    cellSize: z.number(),
+    xll: z.number(),
+    yll: z.number(),
+    epsg: z.number().nullable(),
+    data: z.string(),
+  }),
+  statistics: z.object({
+    compared: ChangeMeasureSchema,
+    byChange: z.object({
+      unchanged: ChangeMeasureSchema,
+      gained: ChangeMeasureSchema,
+      lost: ChangeMeasureSchema,
+      morePosts: ChangeMeasureSchema,
+      fewerPosts: ChangeMeasureSchema,
+    }),
+    gainedSeenBy1: ChangeMeasureSchema,
+    lostSeenBy1: ChangeMeasureSchema,
+    gainedSeenBy2: ChangeMeasureSchema,
+    lostSeenBy2: ChangeMeasureSchema,
+    netSeenBy1Area: z.number(),
+    netSeenBy2Area: z.number(),
+  }),
+});
+export type CoverageComparison = z.infer<typeof CoverageComparisonSchema>;
+
+/** What a revision freezes of the plan's coverage run (in `snapshot.coverage`). */
+export const CoverageSnapshotSchema = z.object({
+  runId: z.uuid(),
+  inputsHash: z.string(),
+  datum: z.enum(COVERAGE_DATUMS),
+  terrainId: z.uuid().nullable(),
+  terrainSha256: z.string().nullable(),
+  grid: CoverageGridSchema,
+  cases: z.array(CoverageCaseSchema),
+  /** sha256 of each stored layer, keyed `${layer}:${caseKey}[:${postId}]`. */
+  layerHashes: z.record(z.string(), z.string()),
+});
+export type CoverageSnapshot = z.infer<typeof CoverageSnapshotSchema>;
