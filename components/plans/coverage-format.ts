@@ -173,3 +173,47 @@ export function matchingCase<C extends Pick<CoverageCase, 'key' | 'targetName' |
     null
   );
 }
+
+/** A post as a snapshot freezes it (fields typed loosely there). */
+type SnapshotPost = Record<string, unknown>;
+
+/** One post across two plans: its eye height above the ground in each (null: not in that plan), and the change. */
+export interface PostComparison {
+  readonly id: string;
+  readonly name: string;
+  /** Structure + eye above the ground, metres; null when the plan does not have the post. */
+  readonly a: number | null;
+  readonly b: number | null;
+  /** For people: "+10 m", "new in B", "only in A", or "" when nothing changed. */
+  readonly change: string;
+}
+
+const num = (v: unknown) => (typeof v === 'number' ? v : Number(v));
+
+/** Structure + eye height of a snapshot's post, metres. */
+export const eyeAboveGround = (p: SnapshotPost): number => num(p.structureHeightM) + num(p.eyeHeightM);
+
+/** A length in metres for people: "12 m", "1.7 m". */
+export const formatMetres = (m: number): string => `${Number.isInteger(m) ? m : m.toFixed(1)} m`;
+
+/**
+ * The posts of two plans side by side (a's order, then b's new ones), with
+ * what changed in their height: "what raising a tower by 10 m adds" starts
+ * from this line.
+ */
+export function comparePosts(a: readonly SnapshotPost[], b: readonly SnapshotPost[]): PostComparison[] {
+  const byId = (list: readonly SnapshotPost[]) => new Map(list.map((p) => [String(p.id), p]));
+  const inA = byId(a);
+  const inB = byId(b);
+  const ids = [...inA.keys(), ...[...inB.keys()].filter((id) => !inA.has(id))];
+  return ids.map((id) => {
+    const pa = inA.get(id);
+    const pb = inB.get(id);
+    const ha = pa ? eyeAboveGround(pa) : null;
+    const hb = pb ? eyeAboveGround(pb) : null;
+    const d = ha !== null && hb !== null ? Math.round((hb - ha) * 10) / 10 : null;
+    const change =
+      ha === null ? 'new in B' : hb === null ? 'only in A' : d ? `${d > 0 ? '+' : '−'}${formatMetres(Math.abs(d))}` : '';
+    return { id, name: String((pb ?? pa)?.name ?? id), a: ha, b: hb, change };
+  });
+}
