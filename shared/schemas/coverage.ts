@@ -120,6 +120,10 @@ export const CoverageRunSchema = z.object({
   cases: z.array(CoverageCaseSchema),
   /** Seconds the computation took (done runs). */
   elapsedS: z.number().nullable(),
+  /** Conditions of the plan the terrain coverage leaves out, and why (e.g. a duct, k ≥ 1). */
+  skippedConditions: z
+    .array(z.object({ conditionSetName: z.string(), conditionLabel: z.string(), reason: z.string() }))
+    .default([]),
 });
 export type CoverageRun = z.infer<typeof CoverageRunSchema>;
 

@@ -21,8 +21,7 @@ import { createTerrainCache, type TerrainCache } from '@/server/terrain/terrain-
 import { createTerrainIngestRunner } from '@/server/workers/terrain-ingest-runner';
 import { DEFAULT_HILLSHADE_MAX_EDGE } from '@/shared/terrain/hillshade-image';
 import { requestCoverage } from '@/server/domain/coverage/manage-coverage';
-import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
-import type { CoverageQueue } from '@/server/queue/coverage-queue';
+import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
 import { createViewshedPool } from '@/server/workers/viewshed-pool';
 
 /** The demo terrain (invented, see assets/terrain/README.md), attached to the forest district. */
@@ -246,29 +245,6 @@ async function seedLibraries(db: Sequelize): Promise<boolean> {
 }
 
 /**
- * A queue that computes each run as it is queued, in this process: the
- * seeder's stand-in for the job queue and the worker processes.
- */
-function computeAtOnce(db: Sequelize, files: FileStore | undefined, pool: ReturnType<typeof createViewshedPool>): CoverageQueue {
-  // Without a file store there is no terrain: every run is on the flat datum and never reads one.
-  const cache: TerrainCache = files
-    ? createTerrainCache({ files, maxBytes: 256 * 2 ** 20 })
-    : {
-        loadTerrain: () => Promise.reject(new Error('the seeder has no file store to read terrain from')),
-        stats: () => ({ terrains: 0, bytes: 0, maxBytes: 0 }),
-        clear: () => undefined,
-      };
-  return {
-    async enqueue(runId) {
-      const outcome = await processCoverageRun({ db, cache, computeViewsheds: poolViewsheds(pool) }, runId);
-      if (outcome !== 'done') throw new Error(`demo coverage run ${runId} ended ${outcome}`);
-      return 'seed';
-    },
-    async cancel() {},
-  };
-}
-
-/**
  * One approved, one submitted and one draft plan, made through the same use
  * cases people use; the approved and submitted ones with their terrain
  * coverage computed before submitting (the draft's is left for the planner).
@@ -296,7 +272,15 @@ async function seedDemoPlans(db: Sequelize, files?: FileStore): Promise<boolean>
   const c = (name: string) => sets.filter((x) => x.name === name).map((x) => x.id);
 
   const pool = createViewshedPool();
-  const coverage = { db, queue: computeAtOnce(db, files, pool) };
+  // Without a file store there is no terrain: every run is on the flat datum and never reads one.
+  const cache: TerrainCache = files
+    ? createTerrainCache({ files, maxBytes: 256 * 2 ** 20 })
+    : {
+        loadTerrain: () => Promise.reject(new Error('the seeder has no file store to read terrain from')),
+        stats: () => ({ terrains: 0, bytes: 0, maxBytes: 0 }),
+        clear: () => undefined,
+      };
+  const coverage = { db, queue: inlineCoverageQueue({ db, cache, pool }) };
   try {
     const season = await createPlan(deps, planner, {
       siteId: forest.id,
