@@ -163,7 +163,7 @@ export const CoverageComparisonSchema = z.object({
   b: z.object({ runId: z.uuid(), planId: z.uuid(), caseKey: z.string(), site: AreaCoverageSchema }),
   /** `kenning-rle8/1` raster of COVERAGE_CHANGE codes. */
   difference: z.object({
-    format: z.string(),
+    format: z.literal('kenning-rle8/1'),
     width: z.number(),
     height: z.number(),
     cellSize: z.number(),
