@@ -13,6 +13,8 @@ import type { Mailer } from './mail/mailer';
 import type { FileStore } from './storage/file-store';
 import { attachmentRoutes } from './routes/attachments';
 import { caughtMailRoutes } from './routes/caught-mail';
+import { coverageRoutes } from './routes/coverage';
+import type { CoverageQueue } from './queue/coverage-queue';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
 import { libraryRoutes } from './routes/library';
@@ -37,6 +39,8 @@ export interface AppDeps {
   terrainIngest?: TerrainIngestRunner;
   /** Terrains held in memory; default a cache of TERRAIN_CACHE_MB. */
   terrainCache?: TerrainCache;
+  /** The coverage job queue; null or absent: coverage runs cannot be started (they can still be read). */
+  coverageQueue?: CoverageQueue | null;
   config: Pick<
     Config,
     | 'SESSION_SECRET'
@@ -57,7 +61,16 @@ export interface AppDeps {
 const publicUrl = (req: Request) => `${req.protocol}://${req.get('host') ?? 'localhost'}`;
 
 /** Builds the Express app (API + the exported web app) without listening. */
-export function createApp({ db, config, mailer = null, files, uploadTempDir, terrainIngest, terrainCache }: AppDeps) {
+export function createApp({
+  db,
+  config,
+  mailer = null,
+  files,
+  uploadTempDir,
+  terrainIngest,
+  terrainCache,
+  coverageQueue = null,
+}: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
@@ -115,6 +128,7 @@ export function createApp({ db, config, mailer = null, files, uploadTempDir, ter
   );
   v1.use(libraryRoutes(db));
   v1.use(planRoutes(db, publicUrl, mailer));
+  v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(rosterRoutes(db));
   v1.use(attachmentRoutes(db, files, uploadTempDir));
   v1.use(userRoutes(db, publicUrl, mailer));

@@ -26,6 +26,8 @@ const EnvSchema = z.object({
   TERRAIN_CACHE_MB: z.coerce.number().int().positive().default(512),
   /** Where terrain uploads are received before they are checked (default beside the file store, so moving them in is a rename). */
   TERRAIN_UPLOAD_DIR: z.string().min(1).default(path.join(dataDir, 'uploads')),
+  /** Viewshed threads of one coverage worker process; default every core. */
+  COVERAGE_WORKER_THREADS: z.coerce.number().int().positive().max(64).optional(),
   /** Folder holding the exported web app; the API runs without it. */
   WEB_DIST_DIR: z.string().default(path.join(projectRoot, 'dist', 'web')),
   /** Set when a reverse proxy terminates TLS in front of the server. */

@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { config } from './config';
 import { createDatabase } from './data/database';
 import { createMailer } from './mail/mailer';
+import { startCoverageBoss } from './queue/coverage-queue';
 import { createDiskFileStore } from './storage/file-store';
 
 /** Entry point: serves the API and the web app from one process. */
@@ -19,7 +20,15 @@ async function main() {
         auth: cfg.SMTP_USER && cfg.SMTP_PASSWORD ? { user: cfg.SMTP_USER, pass: cfg.SMTP_PASSWORD } : undefined,
       })
     : null;
-  const app = createApp({ db, config: cfg, mailer, files: createDiskFileStore(cfg.FILE_STORE_DIR) });
+  // The API only queues coverage runs; `npm run worker` processes compute them.
+  const coverage = await startCoverageBoss(cfg.DATABASE_URL);
+  const app = createApp({
+    db,
+    config: cfg,
+    mailer,
+    files: createDiskFileStore(cfg.FILE_STORE_DIR),
+    coverageQueue: coverage.queue,
+  });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(cfg.PORT, cfg.HOST, () => resolve(s));
   });
@@ -31,7 +40,10 @@ async function main() {
     console.log(`[kenning] ${signal}: closing`);
     mailer?.close();
     server.close(() => {
-      void db.close().finally(() => process.exit(0));
+      void coverage
+        .stop()
+        .then(() => db.close())
+        .finally(() => process.exit(0));
     });
     server.closeAllConnections();
     setTimeout(() => process.exit(1), 5000).unref();

@@ -73,7 +73,8 @@ function ensureDebianPackages() {
     if (!commandExists('gdal_viewshed')) wanted.push('gdal-bin');
   }
   if (wanted.length === 0) return;
-  if (!isRoot) fail(`missing Debian packages: ${wanted.join(' ')} — install them with: sudo apt-get install -y ${wanted.join(' ')}`);
+  if (!isRoot)
+    fail(`missing Debian packages: ${wanted.join(' ')} — install them with: sudo apt-get install -y ${wanted.join(' ')}`);
   log(`installing Debian packages: ${wanted.join(' ')}…`);
   run('apt-get', ['update', '-qq']);
   run('apt-get', ['install', '-y', '-qq', '--no-install-recommends', ...wanted], {
@@ -138,8 +139,16 @@ async function ensureCluster() {
     writeFileSync(pwFile, randomBytes(18).toString('base64url') + '\n', { mode: 0o600 });
     if (isRoot) chownSync(pwFile, uidOf('postgres'), gidOf('postgres'));
     const [c, a, o] = asDbOwner(path.join(bin, 'initdb'), [
-      '-D', data, '-U', 'kenning', `--pwfile=${pwFile}`, '--auth-host=scram-sha-256', '--auth-local=peer',
-      '-E', 'UTF8', '--locale=C.UTF-8',
+      '-D',
+      data,
+      '-U',
+      'kenning',
+      `--pwfile=${pwFile}`,
+      '--auth-host=scram-sha-256',
+      '--auth-local=peer',
+      '-E',
+      'UTF8',
+      '--locale=C.UTF-8',
     ]);
     const r = spawnSync(c, a, { ...o, cwd: '/', encoding: 'utf8' });
     if (r.status !== 0) fail(`initdb failed:\n${r.stdout}\n${r.stderr}`);
@@ -158,8 +167,15 @@ async function ensureCluster() {
     writeFileSync(portFile, String(port));
     const logFile = path.join(dir, 'postgres.log');
     const [c, a, o] = asDbOwner(path.join(bin, 'pg_ctl'), [
-      '-D', data, '-l', logFile, '-w', '-t', '60',
-      '-o', `-c listen_addresses=127.0.0.1 -c port=${port} -c unix_socket_directories=${sock} -c fsync=${mode === 'test' ? 'off' : 'on'}`,
+      '-D',
+      data,
+      '-l',
+      logFile,
+      '-w',
+      '-t',
+      '60',
+      '-o',
+      `-c listen_addresses=127.0.0.1 -c port=${port} -c unix_socket_directories=${sock} -c fsync=${mode === 'test' ? 'off' : 'on'}`,
       'start',
     ]);
     const r = spawnSync(c, a, { ...o, cwd: '/', encoding: 'utf8' });
@@ -285,6 +301,15 @@ function serve(extraEnv) {
   });
 }
 
+/** One coverage worker process (`npm run worker`) beside the server, on the same database and file store. */
+function startWorker(extraEnv) {
+  return spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server', 'workers', 'coverage-worker.ts')], {
+    cwd: root,
+    env: { ...env, ...extraEnv },
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+  });
+}
+
 /**
  * `npm` does not always pass SIGTERM on to its script. When the process that
  * started us goes away, we are re-parented: treat that like a stop signal.
@@ -333,7 +358,9 @@ async function start() {
   };
   process.on('exit', stopAll);
   try {
-    tsx('server/scripts/prepare-database.ts', ['--database', 'kenning', '--seed'], { KENNING_ADMIN_DATABASE_URL: pg.url('postgres') });
+    tsx('server/scripts/prepare-database.ts', ['--database', 'kenning', '--seed'], {
+      KENNING_ADMIN_DATABASE_URL: pg.url('postgres'),
+    });
     ensureWebBuild();
   } catch (err) {
     stopAll();
@@ -348,18 +375,21 @@ async function start() {
   // Started only now: the steps above block the event loop, which would starve its ready line.
   mail = env.SMTP_HOST ? null : startMailCatcher();
   const caught = mail ? await mail.ready : null;
-  const server = serve({
+  const serverEnv = {
     DATABASE_URL: pg.url('kenning'),
     PORT: port,
     HOST: '127.0.0.1',
     NODE_ENV: env.NODE_ENV ?? 'development',
     ...(caught && mailEnv(caught)),
-  });
+  };
+  const server = serve(serverEnv);
+  const worker = startWorker(serverEnv);
   let stopping = false;
   const shutdown = (signal) => {
     if (stopping) return;
     stopping = true;
-    log(`${signal}: stopping the server and PostgreSQL…`);
+    log(`${signal}: stopping the server, the coverage worker and PostgreSQL…`);
+    worker.kill('SIGTERM');
     server.kill('SIGTERM');
   };
   process.on('SIGINT', () => shutdown('SIGINT'));
@@ -394,9 +424,11 @@ async function test() {
   const adminUrl = pg.url('postgres');
   let mail = null;
   let server;
+  let worker;
   const cleanup = () => {
     mail?.stop();
     if (server && server.exitCode === null) server.kill('SIGTERM');
+    if (worker && worker.exitCode === null) worker.kill('SIGTERM');
     spawnSync(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/drop-test-databases.ts'), run_id], {
       cwd: root,
       env: { ...env, KENNING_ADMIN_DATABASE_URL: adminUrl },
@@ -427,14 +459,16 @@ async function test() {
       tsx('server/scripts/prepare-database.ts', ['--database', template, '--seed', '--fresh', '--files', testFiles], {
         KENNING_ADMIN_DATABASE_URL: adminUrl,
       });
-      tsx('server/scripts/prepare-database.ts', ['--database', e2eDb, '--from', template], { KENNING_ADMIN_DATABASE_URL: adminUrl });
+      tsx('server/scripts/prepare-database.ts', ['--database', e2eDb, '--from', template], {
+        KENNING_ADMIN_DATABASE_URL: adminUrl,
+      });
     });
     if (!quick) step('web build', ensureWebBuild);
     const port = await freePort();
     const url = `http://127.0.0.1:${port}`;
     mail = startMailCatcher();
     const caught = await mail.ready;
-    server = serve({
+    const serverEnv = {
       DATABASE_URL: pg.url(e2eDb),
       PORT: String(port),
       HOST: '127.0.0.1',
@@ -442,7 +476,10 @@ async function test() {
       SIGN_IN_LIMIT_PER_ADDRESS: '1000',
       FILE_STORE_DIR: testFiles,
       ...mailEnv(caught),
-    });
+    };
+    server = serve(serverEnv);
+    // One viewshed thread: the browser tests and Jest share the two cores with it.
+    worker = startWorker({ ...serverEnv, COVERAGE_WORKER_THREADS: '1' });
     if (!(await waitForHealth(url, server))) throw new Error('the test server did not become healthy');
     const jestArgs = process.argv.slice(3);
     step('jest (unit, components, api, e2e)', () =>
@@ -478,7 +515,10 @@ async function bench() {
     tsx('server/scripts/prepare-database.ts', ['--database', name, '--seed', '--fresh', '--files', benchFiles], {
       KENNING_ADMIN_DATABASE_URL: adminUrl,
     });
-    tsx('tests/bench/run.ts', process.argv.slice(3), { KENNING_BENCH_DATABASE_URL: pg.url(name), KENNING_BENCH_FILES_DIR: benchFiles });
+    tsx('tests/bench/run.ts', process.argv.slice(3), {
+      KENNING_BENCH_DATABASE_URL: pg.url(name),
+      KENNING_BENCH_FILES_DIR: benchFiles,
+    });
   } finally {
     rmSync(benchFiles, { recursive: true, force: true });
     spawnSync(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/drop-test-databases.ts'), runId], {

@@ -30,7 +30,11 @@ export interface ViewshedPool {
    * already live in a SharedArrayBuffer) and reused by later runs on the same
    * object, so treat the terrain as immutable, as the whole core does.
    */
-  run(terrain: TerrainRaster, jobs: readonly ViewshedJob[]): Promise<ViewshedJobResult[]>;
+  run(
+    terrain: TerrainRaster,
+    jobs: readonly ViewshedJob[],
+    options?: { readonly onResult?: (result: ViewshedJobResult, index: number) => void },
+  ): Promise<ViewshedJobResult[]>;
   /** Stops the workers; pending runs are rejected. */
   close(): Promise<void>;
 }
@@ -173,7 +177,7 @@ export function createViewshedPool(options: ViewshedPoolOptions = {}): ViewshedP
 
   return {
     size,
-    async run(terrain, jobs) {
+    async run(terrain, jobs, options = {}) {
       if (closed) throw new ViewshedPoolError('The viewshed pool is closed.');
       const sharedTerrain = shareTerrain(terrain);
       const results: ViewshedJobResult[] = new Array(jobs.length);
@@ -203,6 +207,7 @@ export function createViewshedPool(options: ViewshedPoolOptions = {}): ViewshedP
               maxDistance: conditions.maxDistance ?? Infinity,
             },
           };
+          options.onResult?.(results[index], index);
         }
       };
       await Promise.all(slots.map((_, i) => lane(i)));

@@ -120,6 +120,10 @@ export const CoverageRunSchema = z.object({
   cases: z.array(CoverageCaseSchema),
   /** Seconds the computation took (done runs). */
   elapsedS: z.number().nullable(),
+  /** Conditions of the plan the terrain coverage leaves out, and why (e.g. a duct, k ≥ 1). */
+  skippedConditions: z
+    .array(z.object({ conditionSetName: z.string(), conditionLabel: z.string(), reason: z.string() }))
+    .default([]),
 });
 export type CoverageRun = z.infer<typeof CoverageRunSchema>;
 
@@ -159,7 +163,7 @@ export const CoverageComparisonSchema = z.object({
   b: z.object({ runId: z.uuid(), planId: z.uuid(), caseKey: z.string(), site: AreaCoverageSchema }),
   /** `kenning-rle8/1` raster of COVERAGE_CHANGE codes. */
   difference: z.object({
-    format: z.string(),
+    format: z.literal('kenning-rle8/1'),
     width: z.number(),
     height: z.number(),
     cellSize: z.number(),

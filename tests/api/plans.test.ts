@@ -5,6 +5,9 @@ import type { Sequelize } from 'sequelize';
 import { createApp } from '@/server/app';
 import { startMailCatcher } from '@/server/mail/mail-catcher';
 import { createMailer, type Mailer } from '@/server/mail/mailer';
+import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
+import { createTerrainCache } from '@/server/terrain/terrain-cache';
+import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
 import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
 import { DEMO } from '@/tests/support/agents';
@@ -14,6 +17,7 @@ let db: Sequelize;
 let drop: () => Promise<void>;
 let catcher: Awaited<ReturnType<typeof startMailCatcher>>;
 let mailer: Mailer;
+let pool: ViewshedPool;
 
 const agentFor = async (email: string) => {
   const agent = request.agent(app);
@@ -30,7 +34,11 @@ beforeAll(async () => {
   ({ db, drop } = await createTestDatabase());
   catcher = await startMailCatcher({ port: 0, onError: () => {} });
   mailer = createMailer({ host: '127.0.0.1', port: catcher.port, from: 'Kenning <no-reply@demo.kenning.test>' });
-  app = createApp({ db, config: TEST_CONFIG, mailer, files: scratchFileStore().files });
+  const { files } = scratchFileStore();
+  pool = createViewshedPool({ size: 1 });
+  // Runs are computed as they are requested: these tests are about the review cycle, not the queue.
+  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
+  app = createApp({ db, config: TEST_CONFIG, mailer, files, coverageQueue });
   [planner, reviewer, observer] = await Promise.all([agentFor(DEMO.planner), agentFor(DEMO.reviewer), agentFor(DEMO.observer)]);
   const sites = (await planner.get('/api/v1/sites')).body.items;
   const site = sites.find((s: { name: string }) => s.name === 'Harrowmere Forest District');
@@ -46,10 +54,15 @@ beforeAll(async () => {
   };
 });
 afterAll(async () => {
+  await pool.close();
   mailer.close();
   await catcher.close();
   await drop();
 });
+
+/** The forest district has terrain: its plans are submitted with their coverage. */
+const computeCoverage = async (planId: string) =>
+  (await planner.post(`/api/v1/plans/${planId}/coverage`).send({}).expect(202)).body.run;
 
 const waitForMail = async (to: string, subject: RegExp) => {
   for (let i = 0; i < 50; i++) {
@@ -85,7 +98,9 @@ describe('plan lists', () => {
         .send({ ...body, title: 'Queue test Bravo' })
         .expect(201)
     ).body.plan;
+    await computeCoverage(b.id);
     await planner.post(`/api/v1/plans/${b.id}/submit`).send({ rowVersion: 0 }).expect(200);
+    await computeCoverage(a.id);
     await planner.post(`/api/v1/plans/${a.id}/submit`).send({ rowVersion: 0 }).expect(200);
 
     const found = (await planner.get('/api/v1/plans?q=queue%20test&sort=title')).body;
@@ -145,6 +160,14 @@ describe('coverage plan review cycle', () => {
     expect((await observer.get(`/api/v1/plans/${plan.id}`)).status).toBe(404);
     expect((await observer.get('/api/v1/plans')).body.items.map((p: { id: string }) => p.id)).not.toContain(plan.id);
 
+    // Not without the terrain coverage of these inputs.
+    const early = await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: 0 });
+    expect(early.status).toBe(409);
+    expect(early.body.error.code).toBe('coverage_missing');
+    expect((await planner.get(`/api/v1/plans/${plan.id}`)).body.plan.status).toBe('draft');
+    const run1 = await computeCoverage(plan.id);
+    expect(run1).toMatchObject({ status: 'done', current: true, datum: 'terrain' });
+
     const sub1 = await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: 0 });
     expect(sub1.status).toBe(200);
     expect(sub1.body).toMatchObject({ revision: 1, mailed: true, plan: { status: 'submitted' } });
@@ -156,6 +179,11 @@ describe('coverage plan review cycle', () => {
     expect(rev1.contentHash).toMatch(/^[0-9a-f]{64}$/);
     expect(rev1.snapshot.assumptions.length).toBeGreaterThan(0);
     expect(rev1.snapshot.cautions.map((c: { code: string }) => c.code)).toContain('refraction-varies');
+    // The run's figures and the hash of every layer are frozen with the revision.
+    expect(rev1.snapshot.coverage).toMatchObject({ runId: run1.id, inputsHash: run1.inputsHash, datum: 'terrain' });
+    expect(rev1.snapshot.coverage.cases).toEqual(run1.cases);
+    // Layers: posts per cell and cross-bearings per case, and each post's view per case.
+    expect(Object.keys(rev1.snapshot.coverage.layerHashes)).toHaveLength(run1.cases.length * (2 + 2));
 
     // Submitted plans cannot be edited.
     const frozen = await planner.patch(`/api/v1/plans/${plan.id}`).send({ title: 'x', rowVersion: sub1.body.plan.rowVersion });
@@ -178,6 +206,10 @@ describe('coverage plan review cycle', () => {
       .patch(`/api/v1/plans/${plan.id}`)
       .send({ postIds: posts, rowVersion: returned.body.plan.rowVersion });
     expect(edited.status).toBe(200);
+    // The run of revision 1 no longer matches the plan: a new one is needed.
+    const stale = await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: edited.body.plan.rowVersion });
+    expect(stale.body.error.code).toBe('coverage_missing');
+    await computeCoverage(plan.id);
     const sub2 = await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: edited.body.plan.rowVersion });
     expect(sub2.body.revision).toBe(2);
 
@@ -212,6 +244,7 @@ describe('coverage plan review cycle', () => {
     // Changing an approved plan makes a new version; approving it supersedes the old one.
     const next = await planner.post(`/api/v1/plans/${plan.id}/versions`).send({});
     expect(next.body.plan).toMatchObject({ version: 2, previousId: plan.id, status: 'draft' });
+    await computeCoverage(next.body.plan.id);
     const s3 = await planner.post(`/api/v1/plans/${next.body.plan.id}/submit`).send({ rowVersion: 0 });
     await reviewer
       .post(`/api/v1/plans/${next.body.plan.id}/reviews`)
@@ -248,6 +281,7 @@ describe('coverage plan review cycle', () => {
       .field('kind', 'document')
       .attach('file', text, { filename: 'cab-notes.txt', contentType: 'text/plain' })
       .expect(201);
+    await computeCoverage(plan.id);
     await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: 0 }).expect(200);
     const { revision } = (await reviewer.get(`/api/v1/plans/${plan.id}/revisions/1`).expect(200)).body;
     expect(revision.snapshot.inputs.attachments).toContainEqual(

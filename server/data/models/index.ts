@@ -8,9 +8,12 @@ import { PlanModel, PlanReviewModel, PlanRevisionModel } from './plan';
 import { PostModel } from './post';
 import { PriorityZoneModel, SiteModel } from './site';
 import { SiteTerrainModel } from './site-terrain';
+import { CoverageLayerModel, CoverageRunModel } from './coverage-run';
 import { UserModel } from './user';
 
 export {
+  CoverageLayerModel,
+  CoverageRunModel,
   AssignmentModel,
   AttachmentModel,
   AuditEventModel,
@@ -43,6 +46,8 @@ export function initModels(sequelize: Sequelize): void {
   AssignmentModel.register(sequelize);
   AttachmentModel.register(sequelize);
   SiteTerrainModel.register(sequelize);
+  CoverageRunModel.register(sequelize);
+  CoverageLayerModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });

@@ -17,9 +17,12 @@ import { sitesRepository } from '../repositories/sites-repository';
 import { terrainRepository } from '../repositories/terrain-repository';
 import { uploadTerrain } from '@/server/domain/terrain/manage-terrain';
 import type { FileStore } from '@/server/storage/file-store';
-import { createTerrainCache } from '@/server/terrain/terrain-cache';
+import { createTerrainCache, type TerrainCache } from '@/server/terrain/terrain-cache';
 import { createTerrainIngestRunner } from '@/server/workers/terrain-ingest-runner';
 import { DEFAULT_HILLSHADE_MAX_EDGE } from '@/shared/terrain/hillshade-image';
+import { requestCoverage } from '@/server/domain/coverage/manage-coverage';
+import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
+import { createViewshedPool } from '@/server/workers/viewshed-pool';
 
 /** The demo terrain (invented, see assets/terrain/README.md), attached to the forest district. */
 export const DEMO_TERRAIN_FILE = path.join(__dirname, '..', '..', '..', 'assets', 'terrain', 'demo-forest-district.tif');
@@ -241,8 +244,12 @@ async function seedLibraries(db: Sequelize): Promise<boolean> {
   return added;
 }
 
-/** One approved, one submitted and one draft plan, made through the same use cases people use. */
-async function seedDemoPlans(db: Sequelize): Promise<boolean> {
+/**
+ * One approved, one submitted and one draft plan, made through the same use
+ * cases people use; the approved and submitted ones with their terrain
+ * coverage computed before submitting (the draft's is left for the planner).
+ */
+async function seedDemoPlans(db: Sequelize, files?: FileStore): Promise<boolean> {
   const org = await OrganizationModel.findOne({ where: { slug: DEMO_ORGANIZATIONS[0].slug } });
   if (!org || (await PlanModel.count({ where: { organizationId: org.id } })) > 0) return false;
   const user = async (email: string) => {
@@ -264,39 +271,55 @@ async function seedDemoPlans(db: Sequelize): Promise<boolean> {
   const t = (name: string) => targets.filter((x) => x.name === name).map((x) => x.id);
   const c = (name: string) => sets.filter((x) => x.name === name).map((x) => x.id);
 
-  const season = await createPlan(deps, planner, {
-    siteId: forest.id,
-    title: 'Fire season cover 2026',
-    postIds: await posts(forest.id, 'existing'),
-    targetIds: [...t('Early smoke column'), ...t('Developed smoke column')],
-    conditionSetIds: c('Refraction spread'),
-    standard: { minSeenPct: 70, priorityMinPosts: 2 },
-  });
-  const s1 = await submitPlan(deps, planner, season.id, season.rowVersion);
-  await reviewPlan(deps, reviewer, season.id, {
-    decision: 'approve',
-    comment: 'Meets the district standard.',
-    revision: s1.revision,
-  });
+  const pool = createViewshedPool();
+  // Without a file store there is no terrain: every run is on the flat datum and never reads one.
+  const cache: TerrainCache = files
+    ? createTerrainCache({ files, maxBytes: 256 * 2 ** 20 })
+    : {
+        loadTerrain: () => Promise.reject(new Error('the seeder has no file store to read terrain from')),
+        stats: () => ({ terrains: 0, bytes: 0, maxBytes: 0 }),
+        clear: () => undefined,
+      };
+  const coverage = { db, queue: inlineCoverageQueue({ db, cache, pool }) };
+  try {
+    const season = await createPlan(deps, planner, {
+      siteId: forest.id,
+      title: 'Fire season cover 2026',
+      postIds: await posts(forest.id, 'existing'),
+      targetIds: [...t('Early smoke column'), ...t('Developed smoke column')],
+      conditionSetIds: c('Refraction spread'),
+      standard: { minSeenPct: 70, priorityMinPosts: 2 },
+    });
+    await requestCoverage(coverage, planner, season.id);
+    const s1 = await submitPlan(deps, planner, season.id, season.rowVersion);
+    await reviewPlan(deps, reviewer, season.id, {
+      decision: 'approve',
+      comment: 'Meets the district standard.',
+      revision: s1.revision,
+    });
 
-  const summer = await createPlan(deps, planner, {
-    siteId: coast.id,
-    title: 'Summer watch, Tallow Strand',
-    postIds: await posts(coast.id),
-    targetIds: [...t('Person in the water (head)'), ...t('Six-person life raft'), ...t('Small open boat')],
-    conditionSetIds: [...c('Standard day'), ...c('Cold sea, inversion')],
-    standard: { minSeenPct: 90, priorityMinPosts: 1 },
-  });
-  await submitPlan(deps, planner, summer.id, summer.rowVersion);
+    const summer = await createPlan(deps, planner, {
+      siteId: coast.id,
+      title: 'Summer watch, Tallow Strand',
+      postIds: await posts(coast.id),
+      targetIds: [...t('Person in the water (head)'), ...t('Six-person life raft'), ...t('Small open boat')],
+      conditionSetIds: [...c('Standard day'), ...c('Cold sea, inversion')],
+      standard: { minSeenPct: 90, priorityMinPosts: 1 },
+    });
+    await requestCoverage(coverage, planner, summer.id);
+    await submitPlan(deps, planner, summer.id, summer.rowVersion);
 
-  await createPlan(deps, planner, {
-    siteId: forest.id,
-    title: 'Blackmoss tower proposal',
-    postIds: await posts(forest.id),
-    targetIds: t('Early smoke column'),
-    conditionSetIds: [...c('Refraction spread'), ...c('Hot afternoon, haze')],
-    standard: { minSeenPct: 80, priorityMinPosts: 2 },
-  });
+    await createPlan(deps, planner, {
+      siteId: forest.id,
+      title: 'Blackmoss tower proposal',
+      postIds: await posts(forest.id),
+      targetIds: t('Early smoke column'),
+      conditionSetIds: [...c('Refraction spread'), ...c('Hot afternoon, haze')],
+      standard: { minSeenPct: 80, priorityMinPosts: 2 },
+    });
+  } finally {
+    await pool.close();
+  }
   return true;
 }
 
@@ -400,9 +423,10 @@ export async function seedDemo(db: Sequelize, options: { files?: FileStore } = {
   const accounts = await seedDemoAccounts(db);
   const sites = await seedDemoSites(db);
   const libraries = await seedLibraries(db);
-  const plans = await seedDemoPlans(db);
-  const watches = await seedDemoWatches(db);
+  // Terrain first: the plans are submitted with their terrain coverage.
   const terrain = options.files ? await seedDemoTerrain(db, options.files) : false;
+  const plans = await seedDemoPlans(db, options.files);
+  const watches = await seedDemoWatches(db);
   return accounts || sites || libraries || plans || watches || terrain;
 }
 

@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import { canonicalJson } from '@/shared/plans/canonical-json';
 import type { Attachment } from '@/shared/schemas/attachment';
+import type { CoverageSnapshot } from '@/shared/schemas/coverage';
 import type { ConditionSet, Target } from '@/shared/schemas/library';
 import type { PlanSnapshot, ZoneReach } from '@/shared/schemas/plan';
 import { projectAzimuthalEquidistant } from '@/shared/geo/azimuthal-equidistant';
@@ -10,7 +11,8 @@ import type { Post, Site } from '@/shared/schemas/site';
 import { evaluateSightline } from '@/shared/sightline/evaluate-sightline';
 
 export const SNAPSHOT_ASSUMPTIONS = [
-  'Smooth earth at the datum (sea level or the plain); terrain is not yet included.',
+  'Results per post, target and condition: smooth earth at the datum (sea level or the plain).',
+  'Terrain coverage, when computed: the site’s terrain grid (or the flat datum without terrain), each condition’s refraction applied as a uniform curvature correction, the condition set’s visibility as a range limit.',
   'Height of eye = ground elevation + structure height + eye height above the platform.',
   'Targets stand at the datum; a target is detected when its required top part shows and the visibility and angular-size limits allow.',
   'Refraction is uniform along each sightline under each condition.',
@@ -30,6 +32,8 @@ export function buildSnapshot(input: {
   conditionSets: ConditionSet[];
   /** The plan's own files and its posts' photos; default none. */
   attachments?: Attachment[];
+  /** The plan's finished terrain coverage run for these inputs; default none. */
+  coverage?: CoverageSnapshot | null;
 }): PlanSnapshot {
   let cautions: PlanSnapshot['cautions'] = [];
   const results: PlanSnapshot['results'] = [];
@@ -98,6 +102,7 @@ export function buildSnapshot(input: {
       })),
     },
     results,
+    coverage: input.coverage ?? null,
     cautions,
   };
 }

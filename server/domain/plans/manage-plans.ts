@@ -10,6 +10,7 @@ import { AppError } from '@/server/http/app-error';
 import type { Mailer } from '@/server/mail/mailer';
 import { planSubmitted, reviewDecided } from '@/server/mail/templates';
 import type { Actor } from '../actor';
+import { coverageForSubmit } from '../coverage/coverage-snapshot';
 import { buildSnapshot, contentHash } from './build-snapshot';
 
 const EDITABLE: PlanStatus[] = ['draft', 'returned'];
@@ -43,7 +44,7 @@ export async function getPlan(actor: Actor, id: string): Promise<Plan> {
 }
 
 /** Loads what the plan refers to, refusing anything outside the organisation or the site. */
-async function loadInputs(
+export async function loadPlanInputs(
   actor: Actor,
   p: Pick<PlanInput, 'siteId' | 'postIds' | 'targetIds' | 'conditionSetIds'> & { id?: string },
   t?: Transaction,
@@ -87,13 +88,13 @@ async function loadInputs(
  */
 export async function previewPlan(actor: Actor, id: string): Promise<PlanSnapshot> {
   const plan = await getPlan(actor, id);
-  const inputs = await loadInputs(actor, plan);
+  const inputs = await loadPlanInputs(actor, plan);
   return buildSnapshot({ title: plan.title, standard: plan.standard, ...inputs });
 }
 
 export function createPlan({ db }: PlanDeps, actor: Actor, input: PlanInput): Promise<Plan> {
   return db.transaction(async (t) => {
-    await loadInputs(actor, input, t);
+    await loadPlanInputs(actor, input, t);
     const plan = await plansRepository.create(actor.organizationId, actor.userId, input, t);
     await auditRepository.record(actor, { action: 'create', entityType: 'plan', entityId: plan.id, after: plan }, t);
     return plan;
@@ -116,7 +117,7 @@ export function updatePlan(
       );
     }
     const { rowVersion, ...changes } = input;
-    await loadInputs(actor, { ...before, ...changes }, t);
+    await loadPlanInputs(actor, { ...before, ...changes }, t);
     const after = await plansRepository.updateIfRowVersion(actor.organizationId, id, rowVersion, changes, t);
     if (!after) throw AppError.conflict(STALE, 'stale_version');
     await auditRepository.record(actor, { action: 'update', entityType: 'plan', entityId: id, before, after }, t);
@@ -144,8 +145,17 @@ export async function submitPlan(deps: PlanDeps, actor: Actor, id: string, rowVe
     if (!EDITABLE.includes(before.status))
       throw AppError.conflict(`A ${before.status} plan cannot be submitted.`, 'wrong_status');
     if (before.rowVersion !== rowVersion) throw AppError.conflict(STALE, 'stale_version');
-    const inputs = await loadInputs(actor, before, t);
-    const snapshot = buildSnapshot({ title: before.title, standard: before.standard, ...inputs });
+    const inputs = await loadPlanInputs(actor, before, t);
+    const coverage = await coverageForSubmit(actor.organizationId, before, inputs, t);
+    if (!coverage.snapshot && coverage.required) {
+      throw AppError.conflict(
+        coverage.pending
+          ? 'The terrain coverage for these inputs is still being computed. Submit when it has finished.'
+          : 'Compute the terrain coverage first: a plan on a site with terrain is submitted with its coverage.',
+        'coverage_missing',
+      );
+    }
+    const snapshot = buildSnapshot({ title: before.title, standard: before.standard, ...inputs, coverage: coverage.snapshot });
     const revision = await plansRepository.addRevision(id, actor.userId, snapshot, contentHash(snapshot), t);
     await plansRepository.setStatus(id, 'submitted', t);
     await auditRepository.record(

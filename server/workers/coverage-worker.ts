@@ -1,0 +1,48 @@
+import { config } from '@/server/config';
+import { createDatabase } from '@/server/data/database';
+import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
+import { startCoverageBoss, workCoverageQueue } from '@/server/queue/coverage-queue';
+import { createDiskFileStore } from '@/server/storage/file-store';
+import { createTerrainCache } from '@/server/terrain/terrain-cache';
+import { createViewshedPool } from './viewshed-pool';
+
+/**
+ * A coverage worker process (`npm run worker`): takes plan coverage runs off
+ * the PostgreSQL job queue and computes them with a pool of viewshed threads.
+ * Start more of them, on this machine or others that reach the same database
+ * and file store, to compute more plans at once.
+ */
+async function main() {
+  const cfg = config();
+  const db = createDatabase(cfg.DATABASE_URL);
+  await db.authenticate();
+  const files = createDiskFileStore(cfg.FILE_STORE_DIR);
+  const cache = createTerrainCache({ files, maxBytes: cfg.TERRAIN_CACHE_MB * 2 ** 20 });
+  const pool = createViewshedPool({ size: cfg.COVERAGE_WORKER_THREADS });
+  const { boss, stop } = await startCoverageBoss(cfg.DATABASE_URL);
+  await workCoverageQueue(boss, async (runId) => {
+    const outcome = await processCoverageRun({ db, cache, computeViewsheds: poolViewsheds(pool) }, runId);
+    console.log(`[kenning] coverage run ${runId}: ${outcome}`);
+  });
+  console.log(`[kenning] coverage worker ready (${pool.size} viewshed threads)`);
+
+  let stopping = false;
+  const shutdown = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`[kenning] coverage worker: ${signal}, closing`);
+    setTimeout(() => process.exit(1), 12_000).unref();
+    void stop()
+      .then(() => pool.close())
+      .then(() => db.close())
+      .finally(() => process.exit(0));
+  };
+  process.once('SIGINT', () => shutdown('SIGINT'));
+  process.once('SIGTERM', () => shutdown('SIGTERM'));
+  process.once('disconnect', () => shutdown('supervisor gone'));
+}
+
+main().catch((err: unknown) => {
+  console.error('[kenning] coverage worker could not start:', err);
+  process.exit(1);
+});
