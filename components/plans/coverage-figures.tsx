@@ -27,7 +27,7 @@ export function CoverageFigures({
   caseKey,
   onCase,
 }: {
-  run: Pick<CoverageRun, 'id' | 'siteId' | 'cases' | 'datum'>;
+  run: Pick<CoverageRun, 'id' | 'siteId' | 'cases' | 'datum'> & { skippedConditions?: CoverageRun['skippedConditions'] };
   caseKey: string | null;
   onCase: (key: string) => void;
 }) {
@@ -39,6 +39,15 @@ export function CoverageFigures({
   return (
     <View style={{ gap: space.lg }}>
       <CoverageCasePicker cases={run.cases} value={shown.key} onChange={onCase} />
+      {run.skippedConditions?.length ? (
+        <Notice tone="caution" title="Conditions left out">
+          {run.skippedConditions.map((s) => (
+            <AppText key={`${s.conditionSetName}:${s.conditionLabel}`} variant="small">
+              {s.conditionSetName}: {s.conditionLabel} — {s.reason}
+            </AppText>
+          ))}
+        </Notice>
+      ) : null}
       {run.cases.length === 1 ? <AppText variant="label">{caseLabel(shown)}</AppText> : null}
       <Verdict check={shown.check} />
       <SiteFigures site={shown.site} flat={run.datum === 'flat'} />
