@@ -71,8 +71,8 @@ export function RunMapScreen({
         </Notice>
       ) : (
         <>
-          <CoverageCasePicker cases={done.cases} value={shownCase?.key ?? null} onChange={onCase} label="Case" />
-          {shownCase && done.cases.length === 1 ? <AppText variant="small">{caseLabel(shownCase)}</AppText> : null}
+          <CoverageCasePicker cases={done.cases} value={shownCase?.key ?? null} onChange={onCase} />
+          {shownCase ? <AppText variant="small">Showing {caseLabel(shownCase)}</AppText> : null}
           {layers.pending ? <LoadingState label="Loading the layers…" /> : null}
           {layers.error ? (
             <Notice tone="danger" title="A layer cannot be loaded">

@@ -48,7 +48,7 @@ export function CoverageFigures({
           ))}
         </Notice>
       ) : null}
-      {run.cases.length === 1 ? <AppText variant="label">{caseLabel(shown)}</AppText> : null}
+      <AppText variant="label">{caseLabel(shown)}</AppText>
       <Verdict check={shown.check} />
       <SiteFigures site={shown.site} flat={run.datum === 'flat'} />
       {shown.zones.length ? <ZoneTable zones={shown.zones} /> : null}
@@ -71,10 +71,12 @@ export function CoverageFigures({
 /** The standard's verdict: passed or not, what it means, then each rule with the failing ones first. */
 function Verdict({ check }: { check: CoverageCase['check'] }) {
   const rules = rulesFailingFirst(check.rules);
+  // The verdict's reasons repeat its rules' reasons; only those no rule gives are shown at the top.
+  const ruleReasons = new Set(check.rules.flatMap((r) => r.reasons));
+  const extra = check.reasons.filter((r) => !ruleReasons.has(r));
   return (
     <Notice tone={check.passed ? 'info' : 'danger'} title={check.passed ? 'Meets the standard' : 'Does not meet the standard'}>
-      <AppText variant="small">{check.interpretation}</AppText>
-      {check.reasons.map((r) => (
+      {extra.map((r) => (
         <AppText key={r} variant="small">
           {r}
         </AppText>
@@ -88,7 +90,7 @@ function Verdict({ check }: { check: CoverageCase['check'] }) {
             <View style={{ flex: 1 }}>
               <AppText variant="small">
                 {rule.text} — {formatPct(rule.actualPct)} now
-                {rule.passed ? '' : `, short by ${formatPct(rule.shortfallPct)} (${formatArea(rule.shortfallArea)})`}
+                {rule.passed ? '' : `, ${rule.shortfallPct.toFixed(1)} points short (${formatArea(rule.shortfallArea)})`}
               </AppText>
               {rule.passed
                 ? null
@@ -101,6 +103,9 @@ function Verdict({ check }: { check: CoverageCase['check'] }) {
           </View>
         ))}
       </View>
+      <AppText variant="small" tone="muted">
+        Rules: {check.interpretation}
+      </AppText>
     </Notice>
   );
 }

@@ -93,7 +93,7 @@ export function coverageCardState(coverage: Pick<PlanCoverage, 'current' | 'late
 
 /** Progress for people: "42 % · Viewsheds: post 2 of 3" (the stage alone when it has none yet). */
 export function progressText(run: Pick<CoverageRun, 'status' | 'progress' | 'stage'>): string {
-  if (run.status === 'queued') return run.stage ? `Waiting to start · ${run.stage}` : 'Waiting to start';
+  if (run.status === 'queued') return run.stage || 'Waiting to start';
   const pct = Math.round(Math.min(1, Math.max(0, run.progress)) * 100);
   return run.stage ? `${pct} % · ${run.stage}` : `${pct} %`;
 }
@@ -216,4 +216,39 @@ export function comparePosts(a: readonly SnapshotPost[], b: readonly SnapshotPos
       ha === null ? 'new in B' : hb === null ? 'only in A' : d ? `${d > 0 ? '+' : '−'}${formatMetres(Math.abs(d))}` : '';
     return { id, name: String((pb ?? pa)?.name ?? id), a: ha, b: hb, change };
   });
+}
+
+type CaseLike = Pick<
+  CoverageCase,
+  'key' | 'targetId' | 'targetName' | 'conditionSetId' | 'conditionSetName' | 'conditionIndex' | 'conditionLabel'
+>;
+
+/** The choices of a case picker: targets, then per condition set its conditions for the chosen target. */
+export interface CaseChoices {
+  readonly targets: readonly { id: string; name: string; key: string; on: boolean }[];
+  readonly sets: readonly { id: string; name: string; conditions: readonly { key: string; label: string; on: boolean }[] }[];
+}
+
+/**
+ * A run's cases as two short choices instead of one long list: the target,
+ * and the condition (grouped by condition set) for that target. Picking
+ * another target keeps the same condition when that target has it.
+ */
+export function caseChoices(cases: readonly CaseLike[], key: string | null): CaseChoices {
+  const chosen = pickCase(cases, key);
+  if (!chosen) return { targets: [], sets: [] };
+  const sameCondition = (c: CaseLike) => c.conditionSetId === chosen.conditionSetId && c.conditionIndex === chosen.conditionIndex;
+  const targets = new Map<string, { id: string; name: string; key: string; on: boolean }>();
+  for (const c of cases) {
+    const seen = targets.get(c.targetId);
+    if (!seen) targets.set(c.targetId, { id: c.targetId, name: c.targetName, key: c.key, on: c.targetId === chosen.targetId });
+    else if (sameCondition(c) && !seen.on) seen.key = c.key;
+  }
+  const sets = new Map<string, { id: string; name: string; conditions: { key: string; label: string; on: boolean }[] }>();
+  for (const c of cases.filter((x) => x.targetId === chosen.targetId)) {
+    const set = sets.get(c.conditionSetId) ?? { id: c.conditionSetId, name: c.conditionSetName, conditions: [] };
+    set.conditions.push({ key: c.key, label: c.conditionLabel, on: c.key === chosen.key });
+    sets.set(c.conditionSetId, set);
+  }
+  return { targets: [...targets.values()], sets: [...sets.values()] };
 }

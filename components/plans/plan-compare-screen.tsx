@@ -218,10 +218,10 @@ function Comparison({ a, b }: { a: Plan; b: Plan }) {
                 setCaseKey(k);
                 setCaseKeyB(null);
               }}
-              label="Case (plan A)"
+              label="Plan A"
             />
             {pickedB === null && sb.run.cases.some((c) => c.key === caseA.key) ? null : (
-              <CoverageCasePicker cases={sb.run.cases} value={caseB.key} onChange={setCaseKeyB} label="Case in plan B" />
+              <CoverageCasePicker cases={sb.run.cases} value={caseB.key} onChange={setCaseKeyB} label="Plan B" />
             )}
             {caseB.key !== caseA.key ? (
               <AppText variant="small" tone="muted">

@@ -94,7 +94,7 @@ function CoverageCard({ planId, coverage, canRun }: { planId: string; coverage: 
       ) : state.kind === 'active' ? (
         <>
           <ProgressBar
-            label={state.run.status === 'queued' ? 'Coverage waiting to start' : 'Computing coverage'}
+            label={state.run.status === 'queued' ? 'Coverage queued' : 'Computing coverage'}
             fraction={state.run.progress}
             detail={progressText(state.run)}
           />

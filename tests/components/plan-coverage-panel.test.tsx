@@ -64,7 +64,7 @@ describe('PlanCoveragePanel (editable plan)', () => {
     await screen.findByText('Does not meet the standard', undefined, { timeout: 5000 });
     expect(calls.filter((c) => c === `GET ${coveragePath}`).length).toBeGreaterThanOrEqual(3);
     const rules = within(screen.getByRole('list', { name: 'Rules of the standard' })).getAllByRole('listitem');
-    expect(rules[0]!.textContent).toContain('North block seen by 2 posts or more — 30.0 % now, short by 70.0 % (0.70 km²)');
+    expect(rules[0]!.textContent).toContain('North block seen by 2 posts or more — 30.0 % now, 70.0 points short (0.70 km²)');
     expect(rules[1]!.textContent).toContain('At least 70 % of the site seen by 1 post or more');
     expect(screen.getByRole('listitem', { name: 'Seen by 1 post or more: 72.4 %' })).toBeTruthy();
     expect(screen.getByText(/Seen is not detected/)).toBeTruthy();
@@ -147,7 +147,8 @@ describe('CoverageFigures', () => {
     const run = sampleRun();
     let key: string | null = null;
     const { rerender } = render(<CoverageFigures run={run} caseKey={key} onCase={(k) => (key = k)} />);
-    const chip = screen.getByRole('checkbox', { name: 'Test smoke · Spread: no refraction (k 0)' });
+    const picker = screen.getByRole('group', { name: 'Condition · Spread' });
+    const chip = within(picker).getByRole('checkbox', { name: 'no refraction (k 0)' });
     fireEvent.click(chip);
     expect(key).toBe(run.cases[1]!.key);
     rerender(<CoverageFigures run={run} caseKey={key} onCase={(k) => (key = k)} />);

@@ -1,4 +1,5 @@
 import {
+  caseChoices,
   caseLabel,
   comparableRun,
   compareLines,
@@ -65,6 +66,40 @@ describe('cases', () => {
     expect(sharedCaseKeys([a, sampleCase()], [sampleCase()])).toEqual([sampleCase().key]);
   });
 
+  test('caseChoices: targets, then the chosen target’s conditions by set; another target keeps the condition', () => {
+    const t2 = '00000000-0000-4000-8000-0000000000d2';
+    const set2 = '00000000-0000-4000-8000-0000000000e2';
+    const make = (targetId: string, targetName: string, conditionSetId: string, conditionSetName: string, i: number) => ({
+      key: `${targetId}:${conditionSetId}:${i}`,
+      targetId,
+      targetName,
+      conditionSetId,
+      conditionSetName,
+      conditionIndex: i,
+      conditionLabel: `condition ${i}`,
+    });
+    const cases = [
+      make(IDS.target, 'Early smoke', IDS.set, 'Spread', 0),
+      make(IDS.target, 'Early smoke', IDS.set, 'Spread', 1),
+      make(IDS.target, 'Early smoke', set2, 'Haze', 0),
+      make(t2, 'Developed smoke', IDS.set, 'Spread', 0),
+      make(t2, 'Developed smoke', IDS.set, 'Spread', 1),
+    ];
+    const choices = caseChoices(cases, cases[1]!.key);
+    expect(choices.targets).toEqual([
+      { id: IDS.target, name: 'Early smoke', key: cases[0]!.key, on: true },
+      // Developed smoke has "Spread, condition 1" too: picking it keeps that condition.
+      { id: t2, name: 'Developed smoke', key: cases[4]!.key, on: false },
+    ]);
+    expect(choices.sets.map((s) => [s.name, s.conditions.map((c) => `${c.label}${c.on ? ' *' : ''}`)])).toEqual([
+      ['Spread', ['condition 0', 'condition 1 *']],
+      ['Haze', ['condition 0']],
+    ]);
+    // From "Haze" (which Developed smoke lacks), its first case.
+    expect(caseChoices(cases, cases[2]!.key).targets[1]!.key).toBe(cases[3]!.key);
+    expect(caseChoices([], null)).toEqual({ targets: [], sets: [] });
+  });
+
   test('failing rules come first, each group in its own order, without touching the input', () => {
     const rules = [
       { id: '1', passed: true },
@@ -102,6 +137,7 @@ describe('the coverage card’s state', () => {
   test('progress in words', () => {
     expect(progressText(running)).toBe('42 % · Viewsheds: post 2 of 3');
     expect(progressText(queued)).toBe('Waiting to start');
+    expect(progressText({ ...queued, stage: 'Waiting for a worker' })).toBe('Waiting for a worker');
     expect(progressText({ status: 'running', progress: 1.2, stage: '' })).toBe('100 %');
   });
 });
