@@ -10,6 +10,7 @@ import { Chip } from '@/components/ui/chip';
 import { Notice } from '@/components/ui/states';
 import { tableStyles } from '@/components/ui/table-styles';
 import { colors, radius, space } from '@/components/ui/theme';
+import { useLayout } from '@/components/ui/use-layout';
 import { CoverageCasePicker } from './coverage-case-picker';
 import { caseLabel, COVERAGE_CAUTIONS, formatArea, formatPct, pickCase, rulesFailingFirst } from './coverage-format';
 
@@ -32,6 +33,7 @@ export function CoverageFigures({
   onCase: (key: string) => void;
 }) {
   const router = useRouter();
+  const { wide } = useLayout();
   const shown = pickCase(run.cases, caseKey);
   if (!shown) {
     return <AppText tone="muted">This run has no figures: the plan had no target or condition to compute when it ran.</AppText>;
@@ -49,20 +51,29 @@ export function CoverageFigures({
         </Notice>
       ) : null}
       <AppText variant="label">{caseLabel(shown)}</AppText>
-      <Verdict check={shown.check} />
-      <SiteFigures site={shown.site} flat={run.datum === 'flat'} />
-      {shown.zones.length ? <ZoneTable zones={shown.zones} /> : null}
-      <BlindAreas c={shown} />
-      <PostShares posts={shown.posts} />
-      <Button
-        kind="secondary"
-        label="Open on the map"
-        role="link"
-        onPress={() =>
-          router.navigate({ pathname: '/sites/[siteId]/map', params: { siteId: run.siteId, runId: run.id, caseKey: shown.key } })
-        }
-        style={{ alignSelf: 'flex-start' }}
-      />
+      <View style={wide ? { flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' } : { gap: space.lg }}>
+        <View style={{ flex: wide ? 1 : undefined, gap: space.lg }}>
+          <Verdict check={shown.check} />
+          <SiteFigures site={shown.site} flat={run.datum === 'flat'} />
+          {shown.zones.length ? <ZoneTable zones={shown.zones} /> : null}
+        </View>
+        <View style={{ flex: wide ? 1 : undefined, gap: space.lg }}>
+          <BlindAreas c={shown} />
+          <PostShares posts={shown.posts} />
+          <Button
+            kind="secondary"
+            label="Open on the map"
+            role="link"
+            onPress={() =>
+              router.navigate({
+                pathname: '/sites/[siteId]/map',
+                params: { siteId: run.siteId, runId: run.id, caseKey: shown.key },
+              })
+            }
+            style={{ alignSelf: 'flex-start' }}
+          />
+        </View>
+      </View>
       <CautionsPanel cautions={COVERAGE_CAUTIONS} />
     </View>
   );
