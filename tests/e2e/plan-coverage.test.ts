@@ -60,9 +60,20 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain coverage on the
       const plan = await freshForestDraft(page, viewport);
       await page.goto(`${e2eUrl()}/plans/${plan.id}`);
 
-      // Compute: the bar shows with its stage while the worker runs, then the figures.
+      // Submitting first is refused: the site has terrain and the plan no coverage yet.
       const card = page.getByRole('region', { name: 'Terrain coverage' });
       await card.getByText('Not computed yet.').waitFor();
+      const refused = page.waitForResponse((r) => r.url().endsWith(`/plans/${plan.id}/submit`));
+      await page.getByRole('button', { name: 'Submit for review' }).click();
+      const refusal = await refused;
+      expect(refusal.status()).toBe(409);
+      const { error } = (await refusal.json()) as { error: { code: string; message: string } };
+      expect(error.code).toBe('coverage_missing');
+      const notice = page.getByRole('alert').filter({ hasText: 'Coverage first' });
+      await notice.getByText(error.message).waitFor();
+      await notice.getByText(/Terrain coverage section below/).waitFor();
+
+      // Compute: the bar shows with its stage while the worker runs, then the figures.
       await card.scrollIntoViewIfNeeded();
       const answered = page.waitForResponse(
         (r) => r.url().endsWith(`/plans/${plan.id}/coverage`) && r.request().method() === 'POST',
