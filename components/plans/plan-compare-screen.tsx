@@ -97,7 +97,7 @@ export function PlanCompareScreen({ a, b }: { a: string | null; b: string | null
 
 const planLabel = (p: Plan) => `${p.title} · v${p.version}`;
 
-/** A chip row per side with the site's plans. */
+/** Per side: the chosen plan with a "Change" button, or the site's plans to choose from. */
 function PlanPickers({
   siteId,
   a,
@@ -111,11 +111,26 @@ function PlanPickers({
 }) {
   const plans = usePlans({ siteId, pageSize: 100, sort: '-updatedAt' });
   const { wide } = useLayout();
+  const [open, setOpen] = useState<Side | null>(null);
   if (plans.isPending) return <LoadingState label="Loading the site’s plans…" />;
   if (plans.isError) return <ErrorState error={plans.error} onRetry={() => void plans.refetch()} />;
-  const row = (side: Side, chosen: Plan | undefined, other: Plan | undefined) => (
-    <View style={{ flex: 1 }}>
-      <ChipRow label={side === 'a' ? 'Plan A (before)' : 'Plan B (after)'}>
+  const name = (side: Side) => (side === 'a' ? 'Plan A (before)' : 'Plan B (after)');
+  const row = (side: Side, chosen: Plan | undefined, other: Plan | undefined) =>
+    chosen && open !== side ? (
+      <View style={styles.chosen} role="group" aria-label={name(side)}>
+        <View style={{ flex: 1, minWidth: 0, gap: 2 }}>
+          <AppText variant="label" tone="muted">
+            {name(side)}
+          </AppText>
+          <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center', flexWrap: 'wrap' }}>
+            <AppText variant="label">{planLabel(chosen)}</AppText>
+            <PlanStatusBadge status={chosen.status} />
+          </View>
+        </View>
+        <Button kind="quiet" label="Change" aria-label={`Change plan ${side.toUpperCase()}`} onPress={() => setOpen(side)} />
+      </View>
+    ) : (
+      <ChipRow label={name(side)}>
         {plans.data.items
           .filter((p) => p.id !== other?.id)
           .map((p) => (
@@ -123,16 +138,18 @@ function PlanPickers({
               key={p.id}
               label={`${planLabel(p)} (${p.status})`}
               on={p.id === chosen?.id}
-              onPress={() => onPick(side, p.id)}
+              onPress={() => {
+                setOpen(null);
+                onPick(side, p.id);
+              }}
             />
           ))}
       </ChipRow>
-    </View>
-  );
+    );
   return (
-    <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.lg }}>
-      {row('a', a, b)}
-      {row('b', b, a)}
+    <View style={{ flexDirection: wide ? 'row' : 'column', gap: wide ? space.lg : space.sm }}>
+      <View style={{ flex: wide ? 1 : undefined }}>{row('a', a, b)}</View>
+      <View style={{ flex: wide ? 1 : undefined }}>{row('b', b, a)}</View>
     </View>
   );
 }
@@ -440,6 +457,16 @@ function DifferenceMap({ siteId, layer, values }: { siteId: string; layer: MapCo
 }
 
 const styles = StyleSheet.create({
+  chosen: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.sm,
+    padding: space.md,
+    borderRadius: radius.md,
+    borderWidth: 1,
+    borderColor: colors.line,
+    backgroundColor: colors.surface,
+  },
   figure: { flexDirection: 'row', gap: space.sm, alignItems: 'baseline', flexWrap: 'wrap' },
   map: {
     borderRadius: radius.lg,
