@@ -140,8 +140,8 @@ export interface ChangeLine {
 export function compareLines(statistics: CoverageComparison['statistics']): ChangeLine[] {
   const line = (label: string, gained: number, lost: number, net: number): ChangeLine => ({
     label,
-    gained: formatAreaChange(gained),
-    lost: formatAreaChange(-lost),
+    gained: gained === 0 ? '0 km²' : formatAreaChange(gained),
+    lost: lost === 0 ? '0 km²' : formatAreaChange(-lost),
     net: formatAreaChange(net),
     sign: Math.abs(net) / M2_PER_KM2 < 0.005 ? 0 : net > 0 ? 1 : -1,
   });

@@ -168,6 +168,13 @@ describe('comparison figures', () => {
     ]);
   });
 
+  test('nothing gained or lost reads 0 km², not a signed zero', () => {
+    const s = sampleComparison().statistics;
+    const none = { cells: 0, area: 0 };
+    const [line] = compareLines({ ...s, lostSeenBy1: none, gainedSeenBy1: none, netSeenBy1Area: 0 });
+    expect(line).toEqual({ label: 'Seen by 1 post or more', gained: '0 km²', lost: '0 km²', net: '±0 km²', sign: 0 });
+  });
+
   test('posts: height above the ground in each plan and what changed', () => {
     const post = (id: string, name: string, structureHeightM: number) => ({ id, name, structureHeightM, eyeHeightM: 1.7 });
     const rows = comparePosts(
