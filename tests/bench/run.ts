@@ -52,6 +52,10 @@ async function main() {
     const mod = (await import(coverage)) as { benchCoverage: () => Promise<Row[]> };
     print('Network coverage (10 posts, 2000², after the viewsheds)', await mod.benchCoverage());
   }
+  if (!only || only === 'plan') {
+    const { benchPlanCoverage } = await import('./plan-coverage.bench');
+    print('A plan coverage run as the worker computes it', await benchPlanCoverage());
+  }
   if (!only || only === 'terrain') {
     print('Terrain: hillshade, profile, upload ingest', await benchTerrain());
   }

@@ -1,0 +1,243 @@
+import { createHash } from 'node:crypto';
+import type { CoverageCase, CoverageLayerName } from '@/shared/schemas/coverage';
+import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
+import type { EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
+import { gridConvergence } from '@/shared/terrain/grid-convergence';
+import { gridProjection } from '@/shared/terrain/grid-projection';
+import type { HiddenHeightRaster, LookoutPost, SightConditions } from '@/shared/terrain/hidden-height-raster';
+import { locatePostCell } from '@/shared/terrain/locate-post-cell';
+import { evaluateNetworkCoverage, type NetworkPost } from '@/shared/terrain/network-coverage';
+import { countPostsPerCell } from '@/shared/terrain/posts-per-cell';
+import { rasterizePolygon, type PolygonRing } from '@/shared/terrain/rasterize-polygon';
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
+import { createTerrainRaster, type TerrainRaster } from '@/shared/terrain/terrain-raster';
+import { classifyVisibility, VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
+import type { CoverageRunGrid } from '@/server/data/models/coverage-run';
+import { caseKeyOf, type CoverageRunInputs } from './coverage-inputs';
+
+/** One viewshed the run needs: a post under one condition. */
+export interface CoverageViewshedJob {
+  readonly post: LookoutPost;
+  readonly conditions: SightConditions;
+}
+
+/**
+ * Computes hidden-height rasters for jobs on a terrain (the worker pool on
+ * the server, the same core on one thread elsewhere), calling `onDone` as
+ * each finishes.
+ */
+export type ComputeViewsheds = (
+  terrain: TerrainRaster,
+  jobs: readonly CoverageViewshedJob[],
+  onDone: () => void,
+) => Promise<HiddenHeightRaster[]>;
+
+/** Reports progress (0 … 1) and what is being done; may throw to stop the run (a cancel). */
+export type ReportProgress = (progress: number, stage: string) => Promise<void>;
+
+/** A layer ready to store. */
+export interface ComputedLayer {
+  caseKey: string;
+  layer: CoverageLayerName;
+  /** '' for whole-network layers. */
+  postId: string;
+  encoded: EncodedClassRaster;
+  sha256: string;
+}
+
+export interface ComputedCoverage {
+  grid: CoverageRunGrid;
+  cases: CoverageCase[];
+  layers: ComputedLayer[];
+}
+
+/** A flat terrain at the datum (0 m everywhere) on the run's flat grid. */
+export function flatTerrain(grid: CoverageRunGrid): TerrainRaster {
+  return createTerrainRaster({
+    heights: new Float32Array(grid.width * grid.height),
+    width: grid.width,
+    height: grid.height,
+    cellSize: grid.cellSizeM,
+    xll: grid.xllM,
+    yll: grid.yllM,
+    crs: { epsg: grid.epsg, wkt: null },
+  });
+}
+
+const sha256 = (encoded: EncodedClassRaster) => createHash('sha256').update(encoded.data).digest('hex');
+const round = (value: number, digits: number) => Math.round(value * 10 ** digits) / 10 ** digits;
+const DEG = Math.PI / 180;
+
+/**
+ * A plan's terrain coverage: the hidden-height raster of every post under
+ * every condition (through `computeViewsheds`, one condition at a time so
+ * memory stays at one raster per post), then per target × condition the
+ * network's posts per cell, cross-bearings, statistics and the standard's
+ * check (`evaluateNetworkCoverage`), and the layers for the map.
+ *
+ * Eye heights: on terrain the post's height above the ground of its cell
+ * (structure + eye); on the flat datum the recorded ground elevation is added,
+ * the ground being sea level. A target counts as seen where the part of it
+ * that must show is in view: the classes are made for its height less that
+ * part (`countsFromM`). A condition set's visibility, when given, limits the
+ * range.
+ *
+ * @throws TerrainInputError `post-outside-raster` (with the post's name) and
+ *   whatever the core throws; and whatever `report` throws (a cancel)
+ */
+export async function computeCoverage(
+  inputs: CoverageRunInputs,
+  terrain: TerrainRaster,
+  computeViewsheds: ComputeViewsheds,
+  report: ReportProgress,
+): Promise<ComputedCoverage> {
+  const projection = gridProjection(terrain.crs);
+  const toRing = (ring: [number, number][]): PolygonRing =>
+    ring.map(([lonDeg, latDeg]) => {
+      const { x, y } = projection.toGrid({ latDeg, lonDeg });
+      return [x, y] as const;
+    });
+  const siteMask = inputs.site.boundary ? rasterizePolygon(terrain, [toRing(inputs.site.boundary)]) : null;
+  const zones = inputs.site.zones.map((z) => ({ name: z.name, weight: z.weight, mask: rasterizePolygon(terrain, [toRing(z.ring)]) }));
+  const siteCells = siteMask ? siteMask.reduce((n, v) => n + v, 0) : terrain.width * terrain.height;
+
+  const flat = inputs.terrain === null;
+  const posts = inputs.posts.map((p) => {
+    const { x, y } = projection.toGrid({ latDeg: p.latDeg, lonDeg: p.lonDeg });
+    let cell;
+    try {
+      cell = locatePostCell(terrain, x, y);
+    } catch (error) {
+      if (error instanceof TerrainInputError)
+        throw new TerrainInputError(error.code, `Post “${p.name}” stands outside the terrain grid.`, 'postIds');
+      throw error;
+    }
+    return {
+      input: p,
+      post: { ...cell, eyeHeight: p.aboveGroundM + (flat ? p.groundElevationM : 0) },
+      sector: p.sector && { from: p.sector.fromDeg * DEG, to: p.sector.toDeg * DEG },
+      gridConvergence: gridConvergence(projection, { latDeg: p.latDeg, lonDeg: p.lonDeg }),
+    };
+  });
+
+  const grid: CoverageRunGrid = {
+    width: terrain.width,
+    height: terrain.height,
+    cellSizeM: terrain.cellSize,
+    xllM: terrain.xll,
+    yllM: terrain.yll,
+    epsg: terrain.crs?.epsg ?? null,
+  };
+  const totalJobs = posts.length * inputs.conditions.length;
+  let doneJobs = 0;
+  const cases: CoverageCase[] = [];
+  const layers: ComputedLayer[] = [];
+  const addLayer = (caseKey: string, layer: CoverageLayerName, postId: string, values: Uint8Array) => {
+    const encoded = encodeClassRaster(terrain, values);
+    layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
+  };
+
+  for (const condition of inputs.conditions) {
+    await report((0.9 * doneJobs) / totalJobs, `Viewsheds: ${condition.conditionSetName}, ${condition.label}`);
+    const conditions: SightConditions = {
+      refractionCoefficient: condition.k,
+      earthRadius: inputs.earthRadiusM,
+      ...(condition.maxDistanceM !== null && { maxDistance: condition.maxDistanceM }),
+    };
+    // Reports made as viewsheds finish; the first one that throws (a cancel) stops the run after the batch.
+    const pending: Promise<void>[] = [];
+    let stopped: { reason: unknown } | null = null;
+    const rasters = await computeViewsheds(
+      terrain,
+      posts.map((p) => ({ post: p.post, conditions })),
+      () => {
+        doneJobs += 1;
+        pending.push(
+          report((0.9 * doneJobs) / totalJobs, `Viewsheds: ${doneJobs} of ${totalJobs}`).catch((reason: unknown) => {
+            stopped ??= { reason };
+          }),
+        );
+      },
+    );
+    await Promise.all(pending);
+    if (stopped) throw (stopped as { reason: unknown }).reason;
+    const network: NetworkPost[] = posts.map((p, i) => ({
+      post: p.post,
+      hidden: rasters[i]!,
+      sector: p.sector,
+      gridConvergence: p.gridConvergence,
+    }));
+    for (const target of inputs.targets) {
+      const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex);
+      const coverage = evaluateNetworkCoverage({
+        posts: network,
+        targetHeight: target.countsFromM,
+        siteMask,
+        zones,
+        standard: inputs.standard,
+        blindAreaMinArea: inputs.blindAreaMinAreaM2,
+        maxBlindAreas: 20,
+      });
+      addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
+      addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
+      const perPost = network.map((entry, i) => {
+        const classes = classifyVisibility(entry.hidden, target.countsFromM).classes;
+        addLayer(key, 'post-visibility', posts[i]!.input.id, classes);
+        // Cells where the post sees the target: its classes, and its sector when it has one.
+        const sees = entry.sector
+          ? countPostsPerCell(terrain, [
+              {
+                col: entry.post.col,
+                row: entry.post.row,
+                classes,
+                sector: entry.sector,
+                gridConvergence: entry.gridConvergence,
+                maxDistance: entry.hidden.maxDistance,
+              },
+            ]).counts
+          : classes.map((c) => (c === VISIBILITY_CLASS.seen || c === VISIBILITY_CLASS.targetOnly ? 1 : 0));
+        let seen = 0;
+        for (let j = 0; j < sees.length; j++) if (sees[j]! > 0 && (!siteMask || siteMask[j] === 1)) seen++;
+        return { postId: posts[i]!.input.id, postName: posts[i]!.input.name, seenPct: siteCells ? round((100 * seen) / siteCells, 2) : 0 };
+      });
+      const { statistics, check } = coverage;
+      cases.push({
+        key,
+        targetId: target.id,
+        targetName: target.name,
+        targetHeightM: target.heightM,
+        conditionSetId: condition.conditionSetId,
+        conditionSetName: condition.conditionSetName,
+        conditionIndex: condition.conditionIndex,
+        conditionLabel: condition.label,
+        refractionCoefficient: condition.k,
+        site: statistics.site,
+        zones: statistics.zones.map((z) => ({ ...z })),
+        blindAreas: statistics.blindAreas.map((b) => ({
+          cells: b.cells,
+          area: b.area,
+          centroid: { x: b.centroid.x, y: b.centroid.y, ...projection.toLatLon(b.centroid.x, b.centroid.y) },
+        })),
+        blindSummary: {
+          count: statistics.blindSummary.count,
+          area: statistics.blindSummary.area,
+          minArea: statistics.blindSummary.minArea,
+        },
+        check: {
+          interpretation: check.interpretation,
+          passed: check.passed,
+          rules: check.rules.map((r) => ({ ...r, reasons: [...r.reasons] })),
+          reasons: [...check.reasons],
+        },
+        posts: perPost,
+      });
+    }
+  }
+  // Target × condition order, as the plan lists them.
+  const order = (k: CoverageCase) =>
+    inputs.targets.findIndex((t) => t.id === k.targetId) * inputs.conditions.length +
+    inputs.conditions.findIndex((c) => c.conditionSetId === k.conditionSetId && c.conditionIndex === k.conditionIndex);
+  cases.sort((a, b) => order(a) - order(b));
+  await report(0.99, 'Saving the layers');
+  return { grid, cases, layers };
+}

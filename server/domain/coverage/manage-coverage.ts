@@ -1,0 +1,293 @@
+import type { Sequelize } from 'sequelize';
+import type {
+  CoverageComparison,
+  CoverageLayerName,
+  CoverageRun,
+  PlanCoverage,
+} from '@/shared/schemas/coverage';
+import { ACTIVE_RUN_STATUSES } from '@/shared/schemas/coverage';
+import type { PlanStatus } from '@/shared/schemas/plan';
+import { compareCoverage } from '@/shared/terrain/coverage-difference';
+import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
+import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
+import { gridProjection } from '@/shared/terrain/grid-projection';
+import { COVERAGE_LAYER, type PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';
+import { rasterizePolygon } from '@/shared/terrain/rasterize-polygon';
+import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import { auditRepository } from '@/server/data/repositories/audit-repository';
+import { coverageRepository, type CoverageRunRecord } from '@/server/data/repositories/coverage-repository';
+import { plansRepository } from '@/server/data/repositories/plans-repository';
+import { AppError } from '@/server/http/app-error';
+import type { CoverageQueue } from '@/server/queue/coverage-queue';
+import type { Actor } from '../actor';
+import { getPlan, loadPlanInputs } from '../plans/manage-plans';
+import type { CoverageRunInputs } from './coverage-inputs';
+import { currentCoverageInputs } from './coverage-snapshot';
+
+const EDITABLE: PlanStatus[] = ['draft', 'returned'];
+
+/** What the coverage use cases need. */
+export interface CoverageDeps {
+  db: Sequelize;
+  /** The job queue; null when this server runs without one (runs cannot be started). */
+  queue: CoverageQueue | null;
+}
+
+/** The API shape of a run; `currentHash` is the plan's inputs hash today, when known. */
+export function toCoverageRun(run: CoverageRunRecord, currentHash: string | null): CoverageRun {
+  return {
+    id: run.id,
+    planId: run.planId,
+    siteId: run.siteId,
+    terrainId: run.terrainId,
+    datum: run.datum,
+    inputsHash: run.inputsHash,
+    status: run.status,
+    progress: run.progress,
+    stage: run.stage,
+    error: run.error,
+    requestedBy: run.requestedBy,
+    createdAt: run.createdAt,
+    startedAt: run.startedAt,
+    finishedAt: run.finishedAt,
+    current: currentHash === run.inputsHash,
+    grid: run.grid,
+    cases: run.cases,
+    elapsedS: run.elapsedS,
+    skippedConditions: (run.inputs as CoverageRunInputs).skippedConditions ?? [],
+  };
+}
+
+async function planInputsHash(actor: Actor, planId: string) {
+  const plan = await getPlan(actor, planId);
+  const loaded = await loadPlanInputs(actor, plan);
+  return { plan, ...(await currentCoverageInputs(actor.organizationId, plan, loaded)) };
+}
+
+/** The plan's run for today's inputs, its newest run, and whether its site has terrain. */
+export async function planCoverage(actor: Actor, planId: string): Promise<PlanCoverage> {
+  const { inputsHash, hasTerrain } = await planInputsHash(actor, planId);
+  const [current, latest] = await Promise.all([
+    coverageRepository.findCurrent(planId, inputsHash),
+    coverageRepository.latest(planId),
+  ]);
+  return {
+    inputsHash,
+    current: current && toCoverageRun(current, inputsHash),
+    latest: latest && toCoverageRun(latest, inputsHash),
+    hasTerrain,
+  };
+}
+
+/**
+ * Queues a coverage run for the plan's inputs today, or returns the run
+ * already queued, running or done for exactly these inputs.
+ */
+export async function requestCoverage(
+  deps: CoverageDeps,
+  actor: Actor,
+  planId: string,
+): Promise<{ run: CoverageRun; created: boolean }> {
+  const { plan, inputs, inputsHash } = await planInputsHash(actor, planId);
+  if (!EDITABLE.includes(plan.status)) {
+    throw AppError.conflict(
+      `A ${plan.status} plan keeps the coverage frozen with its revision. Start a new version to compute again.`,
+      'plan_frozen',
+    );
+  }
+  if (!inputs.terrain && !inputs.flatGrid) {
+    throw AppError.conflict(
+      'This site has neither terrain nor a boundary: draw the boundary (or upload terrain) so there is an area to cover.',
+      'site_has_no_area',
+    );
+  }
+  if (inputs.conditions.length === 0) {
+    throw AppError.conflict(
+      'Every condition of this plan is a duct (k ≥ 1), where the seen area is not defined. Add a condition with k below 1.',
+      'no_computable_conditions',
+    );
+  }
+  const existing = await coverageRepository.findCurrent(planId, inputsHash);
+  if (existing) return { run: toCoverageRun(existing, inputsHash), created: false };
+  if (!deps.queue) throw new AppError(503, 'queue_unavailable', 'No coverage workers are configured on this server.');
+  const run = await deps.db.transaction(async (t) => {
+    const created = await coverageRepository.create(
+      {
+        organizationId: actor.organizationId,
+        planId,
+        siteId: plan.siteId,
+        terrainId: inputs.terrain?.id ?? null,
+        datum: inputs.terrain ? 'terrain' : 'flat',
+        inputsHash,
+        inputs,
+        requestedById: actor.userId,
+      },
+      t,
+    );
+    await auditRepository.record(
+      actor,
+      { action: 'coverage-request', entityType: 'plan', entityId: planId, after: { runId: created.id, inputsHash } },
+      t,
+    );
+    return created;
+  });
+  try {
+    const jobId = await deps.queue.enqueue(run.id);
+    await coverageRepository.updateActive(run.id, { jobId });
+  } catch (error) {
+    await coverageRepository.updateActive(run.id, {
+      status: 'failed',
+      error: 'The job queue could not take the run. Try again.',
+      finishedAt: new Date(),
+    });
+    throw error;
+  }
+  return { run: toCoverageRun((await coverageRepository.findById(run.id))!, inputsHash), created: true };
+}
+
+/** A run of the caller's organisation; observers only see runs of approved plans. */
+async function visibleRun(actor: Actor, runId: string): Promise<CoverageRunRecord> {
+  const run = await coverageRepository.find(actor.organizationId, runId);
+  if (!run) throw AppError.notFound('That coverage run');
+  if (actor.role === 'observer') {
+    const plan = await plansRepository.find(actor.organizationId, run.planId);
+    if (plan?.status !== 'approved') throw AppError.notFound('That coverage run');
+  }
+  return run;
+}
+
+export async function getCoverageRun(actor: Actor, runId: string): Promise<CoverageRun> {
+  const run = await visibleRun(actor, runId);
+  // Whether it is current only matters while the plan can change.
+  const plan = await plansRepository.find(actor.organizationId, run.planId);
+  const currentHash =
+    plan && EDITABLE.includes(plan.status) ? (await planInputsHash(actor, run.planId)).inputsHash : run.inputsHash;
+  return toCoverageRun(run, currentHash);
+}
+
+/** Stops a queued or running run; whatever it had computed is dropped. */
+export async function cancelCoverageRun(deps: CoverageDeps, actor: Actor, runId: string): Promise<CoverageRun> {
+  const run = await visibleRun(actor, runId);
+  if (!ACTIVE_RUN_STATUSES.includes(run.status)) {
+    throw AppError.conflict(`This run has already ${run.status === 'done' ? 'finished' : run.status}.`, 'run_ended');
+  }
+  await deps.db.transaction(async (t) => {
+    const stopped = await coverageRepository.updateActive(
+      runId,
+      { status: 'cancelled', stage: 'Cancelled', finishedAt: new Date() },
+      t,
+    );
+    if (!stopped) throw AppError.conflict('This run ended while you were cancelling it.', 'run_ended');
+    await auditRepository.record(
+      actor,
+      { action: 'coverage-cancel', entityType: 'plan', entityId: run.planId, after: { runId } },
+      t,
+    );
+  });
+  if (run.jobId && deps.queue) await deps.queue.cancel(run.jobId).catch(() => undefined);
+  return getCoverageRun(actor, runId);
+}
+
+/** One stored layer of a finished run. */
+export async function coverageLayer(
+  actor: Actor,
+  runId: string,
+  layer: CoverageLayerName,
+  caseKey: string,
+  postId: string | undefined,
+) {
+  const run = await visibleRun(actor, runId);
+  if (run.status !== 'done') throw AppError.conflict('The run has not finished: it has no layers yet.', 'run_not_done');
+  if (!run.cases.some((c) => c.key === caseKey)) {
+    throw AppError.badRequest('No such case in this run.', { caseKey: 'Not a case of this run.' });
+  }
+  if (layer === 'post-visibility') {
+    if (!postId) throw AppError.badRequest('Name the post.', { postId: 'Give the post whose view you want.' });
+    if (!run.cases[0]!.posts.some((p) => p.postId === postId))
+      throw AppError.badRequest('No such post in this run.', { postId: 'Not a post of this run.' });
+  }
+  const encoded = await coverageRepository.layer(runId, caseKey, layer, layer === 'post-visibility' ? postId! : '');
+  if (!encoded) throw AppError.notFound('That layer');
+  return encoded;
+}
+
+const gridOf = (run: CoverageRunRecord): RasterGrid => {
+  const g = run.grid!;
+  return { width: g.width, height: g.height, cellSize: g.cellSizeM, xll: g.xllM, yll: g.yllM, crs: { epsg: g.epsg, wkt: null } };
+};
+
+/** Posts per cell back from the stored layer codes (3 stands for three or more). */
+function postsPerCellOf(grid: RasterGrid, codes: Uint8Array): PostsPerCellRaster {
+  const counts = new Uint8Array(codes.length);
+  const noData = new Uint8Array(codes.length);
+  for (let i = 0; i < codes.length; i++) {
+    const code = codes[i]!;
+    if (code === COVERAGE_LAYER.noData) noData[i] = 1;
+    else counts[i] = code - COVERAGE_LAYER.unseen;
+  }
+  return { ...grid, counts, noData, layer: codes, postCount: 0 };
+}
+
+/**
+ * What changes between two finished runs on the same grid (two plans of a
+ * site, or two versions of one plan) for one case: gained and lost cells of
+ * the site, from run `a` (before) to run `b` (after).
+ */
+export async function compareCoverageRuns(
+  actor: Actor,
+  query: { a: string; b: string; caseKey: string; caseKeyB?: string },
+): Promise<CoverageComparison> {
+  const [a, b] = await Promise.all([visibleRun(actor, query.a), visibleRun(actor, query.b)]);
+  for (const [run, field] of [[a, 'a'], [b, 'b']] as const) {
+    if (run.status !== 'done') {
+      throw AppError.badRequest('Both runs must have finished.', { [field]: 'This run has not finished.' });
+    }
+  }
+  const same =
+    a.siteId === b.siteId &&
+    a.terrainId === b.terrainId &&
+    JSON.stringify(a.grid) === JSON.stringify(b.grid);
+  if (!same) {
+    throw AppError.conflict(
+      'These runs are on different sites or terrain grids, so their cells cannot be compared.',
+      'runs_not_comparable',
+    );
+  }
+  const caseKeyB = query.caseKeyB ?? query.caseKey;
+  const caseA = a.cases.find((c) => c.key === query.caseKey);
+  const caseB = b.cases.find((c) => c.key === caseKeyB);
+  if (!caseA || !caseB) {
+    throw AppError.badRequest('No such case in the runs.', {
+      ...(!caseA && { caseKey: 'Not a case of run a.' }),
+      ...(!caseB && { [query.caseKeyB ? 'caseKeyB' : 'caseKey']: 'Not a case of run b.' }),
+    });
+  }
+  const grid = gridOf(a);
+  const [layerA, layerB] = await Promise.all([
+    coverageRepository.layer(a.id, caseA.key, 'posts-per-cell', ''),
+    coverageRepository.layer(b.id, caseB.key, 'posts-per-cell', ''),
+  ]);
+  if (!layerA || !layerB) throw AppError.notFound('That layer');
+  const boundary = (a.inputs as CoverageRunInputs).site.boundary;
+  let mask: Uint8Array | null = null;
+  if (boundary) {
+    const projection = gridProjection(grid.crs);
+    mask = rasterizePolygon(grid, [
+      boundary.map(([lonDeg, latDeg]) => {
+        const { x, y } = projection.toGrid({ latDeg, lonDeg });
+        return [x, y] as const;
+      }),
+    ]);
+  }
+  const difference = compareCoverage(
+    postsPerCellOf(grid, decodeClassRaster(layerA)),
+    postsPerCellOf(grid, decodeClassRaster(layerB)),
+    mask,
+  );
+  return {
+    a: { runId: a.id, planId: a.planId, caseKey: caseA.key, site: caseA.site },
+    b: { runId: b.id, planId: b.planId, caseKey: caseB.key, site: caseB.site },
+    difference: encodeClassRaster(grid, difference.changes),
+    statistics: difference.statistics,
+  };
+}

@@ -1,0 +1,99 @@
+import type { Sequelize } from 'sequelize';
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
+import { coverageRepository } from '@/server/data/repositories/coverage-repository';
+import { terrainRepository } from '@/server/data/repositories/terrain-repository';
+import type { TerrainCache } from '@/server/terrain/terrain-cache';
+import type { ViewshedPool } from '@/server/workers/viewshed-pool';
+import { computeCoverage, flatTerrain, type ComputeViewsheds } from './compute-coverage';
+import type { CoverageRunInputs } from './coverage-inputs';
+
+/** What a worker needs to compute runs. */
+export interface CoverageWorkerDeps {
+  db: Sequelize;
+  cache: TerrainCache;
+  computeViewsheds: ComputeViewsheds;
+  /** Least time between progress writes, ms; default 400. */
+  progressEveryMs?: number;
+}
+
+/** Thrown inside a run when its status says it was cancelled. */
+class RunCancelled extends Error {}
+
+/** Hidden-height rasters from the worker-thread pool. */
+export const poolViewsheds =
+  (pool: ViewshedPool): ComputeViewsheds =>
+  async (terrain, jobs, onDone) =>
+    (await pool.run(terrain, jobs, { onResult: () => onDone() })).map((r) => r.raster);
+
+/**
+ * Computes one queued run: loads the terrain (or makes the flat datum),
+ * computes the coverage while writing progress, and stores the layers and
+ * figures in one transaction. A run cancelled on the way stops at the next
+ * progress report, and one cancelled at the very end is not written: a
+ * cancelled run leaves no layers. A run whose inputs cannot be computed
+ * (a post off the terrain) fails with the reason for people.
+ *
+ * @returns how the run ended, or `skipped` when it was no longer queued or running
+ */
+export async function processCoverageRun(
+  deps: CoverageWorkerDeps,
+  runId: string,
+): Promise<'done' | 'cancelled' | 'failed' | 'skipped'> {
+  const run = await coverageRepository.findById(runId);
+  if (!run || (run.status !== 'queued' && run.status !== 'running')) return 'skipped';
+  const started = performance.now();
+  const begun = await coverageRepository.updateActive(runId, {
+    status: 'running',
+    progress: 0,
+    stage: 'Loading the terrain',
+    error: null,
+    startedAt: new Date(),
+  });
+  if (!begun) return 'cancelled';
+  const inputs = run.inputs as CoverageRunInputs;
+  const every = deps.progressEveryMs ?? 400;
+  let lastWrite = 0;
+  const report = async (progress: number, stage: string) => {
+    const now = performance.now();
+    if (now - lastWrite < every && progress < 0.99) return;
+    lastWrite = now;
+    if (!(await coverageRepository.updateActive(runId, { progress, stage }))) throw new RunCancelled();
+  };
+  try {
+    let terrain;
+    if (run.terrainId) {
+      const record = await terrainRepository.findInSite(run.organizationId, run.siteId, run.terrainId);
+      if (!record) throw new TerrainInputError('invalid-raster', 'The terrain of this run has been removed.');
+      terrain = await deps.cache.loadTerrain(record);
+    } else {
+      terrain = flatTerrain(inputs.flatGrid!);
+    }
+    const result = await computeCoverage(inputs, terrain, deps.computeViewsheds, report);
+    const written = await deps.db.transaction(async (t) => {
+      const locked = await coverageRepository.findById(runId, t, true);
+      if (locked?.status !== 'running') return false;
+      await coverageRepository.addLayers(runId, result.layers, t);
+      await coverageRepository.finish(
+        runId,
+        { grid: result.grid, cases: result.cases, elapsedS: Math.round(performance.now() - started) / 1000 },
+        t,
+      );
+      return true;
+    });
+    return written ? 'done' : 'cancelled';
+  } catch (error) {
+    if (error instanceof RunCancelled) return 'cancelled';
+    const reason =
+      error instanceof TerrainInputError
+        ? error.message
+        : 'The computation failed on the server. Try again; if it fails again, tell your administrator.';
+    if (!(error instanceof TerrainInputError)) console.error(`[kenning] coverage run ${runId} failed:`, error);
+    const marked = await coverageRepository.updateActive(runId, {
+      status: 'failed',
+      stage: 'Failed',
+      error: reason,
+      finishedAt: new Date(),
+    });
+    return marked ? 'failed' : 'cancelled';
+  }
+}
