@@ -173,7 +173,7 @@ function PlanPage({
         siteId={plan.siteId}
         editable={editable}
         canRun={isPlanner && editable}
-        frozen={editable ? undefined : latestRevision === null ? null : frozen.data?.snapshot.coverage}
+        frozen={editable || !history ? undefined : latestRevision === null ? null : frozen.data?.snapshot.coverage}
       />
 
       <DocumentsPanel

@@ -105,10 +105,26 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain coverage on the
       await card.getByText(/Refraction near the horizon varies widely/).waitFor();
       await shot(page, 'plan-coverage-figures', viewport);
 
+      // A change to the plan's inputs (here its standard) marks the figures out of date until computed again.
+      const { plan: seen } = await apiJson<{ plan: { rowVersion: number } }>(page, 'GET', `/plans/${plan.id}`);
+      const changed = page.request.fetch(`${e2eUrl()}/api/v1/plans/${plan.id}`, {
+        method: 'PATCH',
+        data: { standard: { minSeenPct: 60, priorityMinPosts: 1 }, rowVersion: seen.rowVersion },
+      });
+      expect((await changed).status()).toBe(200);
+      await page.reload();
+      await card.getByText('Out of date').waitFor();
+      await card.getByRole('button', { name: 'Compute again' }).click();
+      await card.getByText('Out of date').waitFor({ state: 'detached', timeout: 180_000 });
+      await verdict.waitFor();
+      const again = await apiJson<{ current: { id: string; status: string } | null }>(page, 'GET', `/plans/${plan.id}/coverage`);
+      expect(again.current?.status).toBe('done');
+      expect(again.current?.id).not.toBe(current.id);
+
       // The map with the run's layers: posts per cell drawn over the hillshade.
       await card.getByRole('link', { name: 'Open on the map' }).click();
       await page.waitForURL(/\/sites\/[0-9a-f-]+\/map\?.*runId=/);
-      expect(new URL(page.url()).searchParams.get('runId')).toBe(current.id);
+      expect(new URL(page.url()).searchParams.get('runId')).toBe(again.current!.id);
       expect(new URL(page.url()).searchParams.get('caseKey')).toBe(first.key);
       const map = page.getByRole('application', { name: /^Map: drag to pan/ });
       await map.waitFor();
