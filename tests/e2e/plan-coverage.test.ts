@@ -194,6 +194,22 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain coverage on the
       await page
         .getByRole('table', { name: 'Change in coverage' })
         .screenshot({ path: `${SCREENSHOT_DIR}/plan-compare-figures-${viewport}.png` });
+
+      // A plan without a finished run is named, with a way to its page; a plan of another site is refused.
+      const bare = await freshForestDraft(page, viewport);
+      await page.goto(`${e2eUrl()}/plans/compare?a=${bare.id}&b=${plan.id}`);
+      const missing = page.getByRole('note').filter({ hasText: 'No coverage to compare for plan A' });
+      await missing.getByText(/has not been computed yet/).waitFor();
+      await missing.getByRole('link', { name: 'Open its plan page' }).waitFor();
+      const coast = await apiJson<{ items: { id: string }[] }>(page, 'GET', `/plans?q=${encodeURIComponent('Summer watch')}`);
+      await page.goto(`${e2eUrl()}/plans/compare?a=${coast.items[0]!.id}&b=${plan.id}`);
+      await page
+        .getByRole('alert')
+        .filter({ hasText: 'Different sites' })
+        .getByText(/choose two plans of the same site/)
+        .waitFor();
+      expect(await page.getByText('What changes from A to B').count()).toBe(0);
+      await shot(page, 'plan-compare-refused', viewport);
       expect(errors).toEqual([]);
     } finally {
       await context.close();
