@@ -1,6 +1,7 @@
 import { useRouter } from 'expo-router';
 import { useCallback, useState } from 'react';
 import { View } from 'react-native';
+import type { LatLon } from '@/shared/geo/types';
 import { useCoverageRun, isActiveRun } from '@/components/data/coverage';
 import { CoverageCasePicker } from '@/components/plans/coverage-case-picker';
 import { caseLabel, pickCase } from '@/components/plans/coverage-format';
@@ -22,11 +23,13 @@ export function RunMapScreen({
   runId,
   caseKey: initialCaseKey,
   focusPostId,
+  focusAt,
 }: {
   siteId: string;
   runId: string;
   caseKey: string | null;
   focusPostId: string | null;
+  focusAt: LatLon | null;
 }) {
   const router = useRouter();
   const run = useCoverageRun(runId);
@@ -102,6 +105,7 @@ export function RunMapScreen({
     <SiteMapScreen
       siteId={siteId}
       focusPostId={focusPostId}
+      focusAt={focusAt}
       coverageLayers={run.data?.siteId === siteId ? layers.layers : []}
       coveragePanel={panel}
       onChosenPost={onChosenPost}

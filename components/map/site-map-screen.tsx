@@ -2,6 +2,7 @@ import { useQueries } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useState, type ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
+import type { LatLon } from '@/shared/geo/types';
 import type { Post, Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
 import type { RefractionPresetId } from '@/shared/sightline/refraction-presets';
@@ -29,6 +30,8 @@ export interface SiteMapScreenProps {
   siteId: string;
   /** A post to centre on and choose at first (from "Show on the map"). */
   focusPostId?: string | null;
+  /** A point to centre on and take as the first tapped point (e.g. a blind area from a plan's coverage). */
+  focusAt?: LatLon | null;
   /**
    * Coverage layers to draw over the map (a coverage run's posts-per-cell,
    * cross-bearing, per-post or difference layers), each with its palette.
@@ -49,6 +52,7 @@ const MAX_TARGETS = 6;
 export function SiteMapScreen({
   siteId,
   focusPostId = null,
+  focusAt = null,
   coverageLayers = [],
   coveragePanel = null,
   onChosenPost,
@@ -66,6 +70,7 @@ export function SiteMapScreen({
       posts={posts.data}
       terrain={terrain.data}
       focusPostId={focusPostId}
+      focusAt={focusAt}
       coverageLayers={coverageLayers}
       coveragePanel={coveragePanel}
       onChosenPost={onChosenPost}
@@ -78,6 +83,7 @@ function MapWorkspace({
   posts,
   terrain,
   focusPostId,
+  focusAt,
   coverageLayers,
   coveragePanel,
   onChosenPost,
@@ -86,6 +92,7 @@ function MapWorkspace({
   posts: Post[];
   terrain: SiteTerrain | null;
   focusPostId: string | null;
+  focusAt: LatLon | null;
   coverageLayers: readonly MapCoverageLayer[];
   coveragePanel: ReactNode;
   onChosenPost?: (postId: string | null) => void;
@@ -98,7 +105,11 @@ function MapWorkspace({
     posts.find((p) => p.id === focusPostId)?.id ?? posts.find((p) => p.status === 'existing')?.id ?? posts[0]?.id ?? null,
   );
   useEffect(() => onChosenPost?.(chosenPostId), [onChosenPost, chosenPostId]);
-  const [targets, setTargets] = useState<MapTarget[]>([]);
+  // A point handed in by address starts as P1 (its profile from the chosen post is one tap away).
+  const [targets, setTargets] = useState<MapTarget[]>(() => {
+    const at = focusAt && frame ? frame.projection.toGrid(focusAt) : null;
+    return at && Number.isFinite(at.x) && Number.isFinite(at.y) ? [{ id: 1, ...at }] : [];
+  });
   const [conditions, setConditions] = useState<RefractionPresetId[]>(['standard-optical', 'no-refraction']);
   const [targetHeightM, setTargetHeightM] = useState(0);
   // undefined: nothing picked yet, so the first layer shows (layers may arrive after the map).
@@ -115,6 +126,7 @@ function MapWorkspace({
   const last = targets.at(-1) ?? null;
   const lastLatLon = last && frame ? { ...frame.projection.toLatLon(last.x, last.y), label: `P${last.id}` } : null;
   const focusPost = frame?.posts.find((p) => p.post.id === focusPostId) ?? null;
+  const focus = focusPost ? { x: focusPost.x, y: focusPost.y } : focusAt ? (targets[0] ?? null) : null;
 
   const back = () => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: site.id } });
 
@@ -208,7 +220,7 @@ function MapWorkspace({
         chosenPostId={chosenPostId}
         targets={targets}
         shown={shown}
-        focus={focusPost ? { x: focusPost.x, y: focusPost.y } : null}
+        focus={focus}
         readout={readout}
         format={format}
         onFormat={setFormat}

@@ -38,6 +38,17 @@ export function CoverageFigures({
   if (!shown) {
     return <AppText tone="muted">This run has no figures: the plan had no target or condition to compute when it ran.</AppText>;
   }
+  // The map with this run's layers for this case; centred on a point (a blind area) when one is given.
+  const openMap = (at: { latDeg: number; lonDeg: number } | null) =>
+    router.navigate({
+      pathname: '/sites/[siteId]/map',
+      params: {
+        siteId: run.siteId,
+        runId: run.id,
+        caseKey: shown.key,
+        ...(at ? { lat: at.latDeg.toFixed(6), lon: at.lonDeg.toFixed(6) } : {}),
+      },
+    });
   return (
     <View style={{ gap: space.lg }}>
       <CoverageCasePicker cases={run.cases} value={shown.key} onChange={onCase} />
@@ -58,18 +69,13 @@ export function CoverageFigures({
           {shown.zones.length ? <ZoneTable zones={shown.zones} /> : null}
         </View>
         <View style={{ flex: wide ? 1 : undefined, gap: space.lg }}>
-          <BlindAreas c={shown} />
+          <BlindAreas c={shown} onMap={openMap} />
           <PostShares posts={shown.posts} />
           <Button
             kind="secondary"
             label="Open on the map"
             role="link"
-            onPress={() =>
-              router.navigate({
-                pathname: '/sites/[siteId]/map',
-                params: { siteId: run.siteId, runId: run.id, caseKey: shown.key },
-              })
-            }
+            onPress={() => openMap(null)}
             style={{ alignSelf: 'flex-start' }}
           />
         </View>
@@ -199,7 +205,7 @@ function ZoneTable({ zones }: { zones: CoverageCase['zones'] }) {
 }
 
 /** The largest patches no post sees, with where they are in the person's coordinate format. */
-function BlindAreas({ c }: { c: CoverageCase }) {
+function BlindAreas({ c, onMap }: { c: CoverageCase; onMap: (at: { latDeg: number; lonDeg: number }) => void }) {
   const [format, setFormat] = useCoordinateFormat();
   const { blindAreas, blindSummary } = c;
   return (
@@ -230,6 +236,14 @@ function BlindAreas({ c }: { c: CoverageCase }) {
                 <AppText variant="small" style={{ flex: 1, fontVariant: ['tabular-nums'] }} selectable>
                   around {formatCoordinate({ latDeg: b.centroid.latDeg, lonDeg: b.centroid.lonDeg }, format)}
                 </AppText>
+                <Button
+                  kind="quiet"
+                  role="link"
+                  label="Map"
+                  aria-label={`Blind area ${i + 1} on the map`}
+                  onPress={() => onMap(b.centroid)}
+                  style={{ minHeight: 32, paddingHorizontal: space.sm }}
+                />
               </View>
             ))}
           </View>

@@ -159,7 +159,13 @@ describe('CoverageFigures', () => {
     });
     const blind = within(screen.getByRole('list', { name: 'Blind areas' })).getAllByRole('listitem');
     // Decimal degrees, 5 decimals (format-coordinate.ts defaults).
-    expect(blind[0]!.textContent).toBe('1. 0.90 km²around 51.81234, 15.23456');
+    expect(blind[0]!.textContent).toContain('1. 0.90 km²around 51.81234, 15.23456');
+    // Its map link opens the run's layers centred there.
+    fireEvent.click(within(blind[0]!).getByRole('link', { name: 'Blind area 1 on the map' }));
+    expect(mockNavigate).toHaveBeenCalledWith({
+      pathname: '/sites/[siteId]/map',
+      params: { siteId: IDS.site, runId: IDS.run, caseKey: run.cases[1]!.key, lat: '51.812340', lon: '15.234560' },
+    });
     expect(screen.getByText(/5 patches of 0.05 km² or more unseen, 2.40 km² in all; the 2 largest:/)).toBeTruthy();
   });
 });

@@ -12,6 +12,9 @@ const Params = z.object({
   /** A coverage run whose layers to draw, and the case (target × condition) to start with. */
   runId: z.uuid().optional(),
   caseKey: z.string().min(1).optional(),
+  /** A point to centre on and start the profile to (e.g. a blind area), degrees. */
+  lat: z.coerce.number().min(-90).max(90).optional(),
+  lon: z.coerce.number().min(-180).max(180).optional(),
 });
 
 export default function SiteMapRoute() {
@@ -25,10 +28,11 @@ export default function SiteMapRoute() {
       </Screen>
     );
   }
-  const { siteId, postId, runId, caseKey } = parsed.data;
+  const { siteId, postId, runId, caseKey, lat, lon } = parsed.data;
+  const at = lat !== undefined && lon !== undefined ? { latDeg: lat, lonDeg: lon } : null;
   return runId ? (
-    <RunMapScreen siteId={siteId} runId={runId} caseKey={caseKey ?? null} focusPostId={postId ?? null} />
+    <RunMapScreen siteId={siteId} runId={runId} caseKey={caseKey ?? null} focusPostId={postId ?? null} focusAt={at} />
   ) : (
-    <SiteMapScreen siteId={siteId} focusPostId={postId ?? null} />
+    <SiteMapScreen siteId={siteId} focusPostId={postId ?? null} focusAt={at} />
   );
 }
