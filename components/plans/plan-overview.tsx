@@ -20,6 +20,8 @@ import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/sta
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { ApiRequestError } from '@/components/data/api-client';
+import { usePlanCoverage } from '@/components/data/coverage';
+import { coverageCardState } from './coverage-format';
 import { PlanCoveragePanel } from './plan-coverage-panel';
 import { PlanResults } from './plan-results';
 import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan-snapshot-panels';
@@ -58,6 +60,9 @@ function PlanPage({
   const [notice, setNotice] = useState('');
   const [error, setError] = useState('');
   const [coverageMissing, setCoverageMissing] = useState('');
+  // The same query as the coverage card (shared cache): the refusal notice goes once coverage is done.
+  const coverage = usePlanCoverage(plan.id, editable);
+  const coverageDone = coverage.data ? coverageCardState(coverage.data).kind === 'done' : false;
   const isPlanner = user?.role === 'planner';
   const canReview = user?.role === 'reviewer' && plan.status === 'submitted' && plan.preparedBy.id !== user.id;
   const lastReview = history?.reviews.at(-1);
@@ -90,7 +95,7 @@ function PlanPage({
       actions={<PlanStatusBadge status={plan.status} />}
     >
       <FormError message={error} />
-      {coverageMissing ? (
+      {coverageMissing && !coverageDone ? (
         <Notice tone="danger" title="Coverage first">
           <AppText>{coverageMissing}</AppText>
           <AppText variant="small">Compute it in the Terrain coverage section below, then submit again.</AppText>
