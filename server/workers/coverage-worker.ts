@@ -1,6 +1,7 @@
 import { config } from '@/server/config';
 import { createDatabase } from '@/server/data/database';
 import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
+import { cachingViewsheds } from '@/server/domain/coverage/viewshed-cache';
 import { startCoverageBoss, workCoverageQueue } from '@/server/queue/coverage-queue';
 import { createDiskFileStore } from '@/server/storage/file-store';
 import { createTerrainCache } from '@/server/terrain/terrain-cache';
@@ -19,9 +20,11 @@ async function main() {
   const files = createDiskFileStore(cfg.FILE_STORE_DIR);
   const cache = createTerrainCache({ files, maxBytes: cfg.TERRAIN_CACHE_MB * 2 ** 20 });
   const pool = createViewshedPool({ size: cfg.COVERAGE_WORKER_THREADS });
+  // Viewsheds kept between runs: a plan changed in one post recomputes that post only.
+  const computeViewsheds = cachingViewsheds(poolViewsheds(pool), cfg.TERRAIN_CACHE_MB * 2 ** 20);
   const { boss, stop } = await startCoverageBoss(cfg.DATABASE_URL);
   await workCoverageQueue(boss, async (runId) => {
-    const outcome = await processCoverageRun({ db, cache, computeViewsheds: poolViewsheds(pool) }, runId);
+    const outcome = await processCoverageRun({ db, cache, computeViewsheds }, runId);
     console.log(`[kenning] coverage run ${runId}: ${outcome}`);
   });
   console.log(`[kenning] coverage worker ready (${pool.size} viewshed threads)`);

@@ -92,6 +92,7 @@ export const CoverageGridSchema = z.object({
   yllM: z.number(),
   epsg: z.number().int().nullable(),
 });
+export type CoverageGrid = z.infer<typeof CoverageGridSchema>;
 
 export const CoverageRunSchema = z.object({
   id: z.uuid(),

@@ -6,18 +6,11 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import type { CoverageCase, CoverageRunStatus } from '@/shared/schemas/coverage';
+import type { CoverageCase, CoverageGrid, CoverageRunStatus } from '@/shared/schemas/coverage';
 import type { EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
 
 /** The grid a run's layers are on (see migration 0010). */
-export interface CoverageRunGrid {
-  width: number;
-  height: number;
-  cellSizeM: number;
-  xllM: number;
-  yllM: number;
-  epsg: number | null;
-}
+export type CoverageRunGrid = CoverageGrid;
 
 /** One terrain coverage run of a plan. Only status, progress and results change, and only until it ends. */
 export class CoverageRunModel extends Model<InferAttributes<CoverageRunModel>, InferCreationAttributes<CoverageRunModel>> {
