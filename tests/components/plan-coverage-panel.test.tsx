@@ -25,10 +25,16 @@ function fakeApi(answers: Record<string, { status?: number; body: unknown }[]>) 
   return calls;
 }
 
-const renderWithQueries = (ui: React.ReactElement) =>
-  render(<QueryClientProvider client={createQueryClient()}>{ui}</QueryClientProvider>);
+/** Query clients made by a test, cleared after it so no garbage-collection timer outlives the test file. */
+const clients: ReturnType<typeof createQueryClient>[] = [];
+const renderWithQueries = (ui: React.ReactElement) => {
+  const client = createQueryClient();
+  clients.push(client);
+  return render(<QueryClientProvider client={client}>{ui}</QueryClientProvider>);
+};
 
 afterEach(() => {
+  for (const c of clients.splice(0)) c.clear();
   jest.restoreAllMocks();
   delete (globalThis as { fetch?: unknown }).fetch;
   mockNavigate.mockReset();
