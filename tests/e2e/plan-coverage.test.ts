@@ -193,6 +193,19 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain coverage on the
         return !!img && img.complete && img.naturalWidth > 0;
       });
       await shot(page, 'plan-compare', viewport);
+
+      // A case plan B does not have (the approved plan also covers a developed smoke): B's own case is compared, named.
+      const other = page.waitForResponse((r) => r.url().includes('/coverage-compare?') && r.url().includes('caseKeyB='));
+      await page.getByRole('group', { name: 'Plan A: Target' }).getByRole('checkbox', { name: 'Developed smoke column' }).click();
+      expect((await other).status()).toBe(200);
+      await page
+        .getByText(/^Plan B has no case with the same target and condition ids; it is compared by “Early smoke column/)
+        .waitFor();
+      await page.getByRole('group', { name: 'Plan B: Case' }).waitFor();
+      await page
+        .getByRole('region', { name: 'Plan A' })
+        .getByText(/^Developed smoke column · /)
+        .waitFor();
       await page
         .getByRole('table', { name: 'Change in coverage' })
         .screenshot({ path: `${SCREENSHOT_DIR}/plan-compare-figures-${viewport}.png` });
