@@ -212,7 +212,7 @@ function Comparison({ a, b }: { a: Plan; b: Plan }) {
           {missing.map(([side, plan, s]) => (
             <Notice key={side} tone="caution" title={`No coverage to compare for plan ${side.toUpperCase()}`}>
               <AppText variant="small">
-                “{planLabel(plan)}”: {s.reason ?? 'it has no finished coverage run.'}
+                {planLabel(plan)}. {s.reason ?? 'It has no finished coverage run.'}
               </AppText>
               <Button
                 kind="quiet"
