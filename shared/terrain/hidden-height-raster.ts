@@ -444,7 +444,14 @@ function sweepOctantByRows(
     const rowCur = (j & 1) * span;
     const minorOffset = j * stepMinor;
     const dropMinor = dropPerCell2 * j * j;
-    let zBelow = 0; // raw height of (i, j − 1)
+    // The sight line of (i, j) crosses column i − 1 between rows aRow and
+    // aRow + 1 (aRow = j − 1, or 0 on row 0); the heights there are the ones
+    // this row read for column i − 1, carried in zLow and zHigh.
+    const aRow = j > 0 ? j - 1 : 0;
+    const lowOffset = aRow * stepMinor;
+    const rowLow = (aRow & 1) * span;
+    let zLow = h[obs + (iStart - 1) * stepMajor + lowOffset] as number; // raw height of (i − 1, aRow)
+    let zHigh = h[obs + (iStart - 1) * stepMajor + minorOffset] as number; // raw height of (i − 1, j)
     for (let i = iStart; i <= iEnd; i++) {
       const invI = reciprocal[i] as number;
       const iPrev = i - 1;
@@ -456,16 +463,22 @@ function sweepOctantByRows(
       const y = j - m;
       const a = y | 0;
       const f = y - a;
-      const p0 = obs + iPrev * stepMajor + a * stepMinor;
-      const z0 = h[p0] as number;
+      let z0 = zLow;
       let z1 = z0;
-      if (f > 0) z1 = h[p0 + stepMinor] as number;
+      if (f > 0) z1 = zHigh;
+      if (a !== aRow) {
+        // Not met on grids under ~10⁸ cells a side (j − j/i rounds into
+        // (j − 1, j)); kept so the result never rests on that rounding.
+        const p0 = obs + iPrev * stepMajor + a * stepMinor;
+        z0 = h[p0] as number;
+        z1 = f > 0 ? (h[p0 + stepMinor] as number) : z0;
+      }
       let best = (z0 + f * (z1 - z0) - dropPrev - dropPerCell2 * y * y - eye) * invIPrev;
       let bestCol = iPrev;
 
       // Obstacles recorded by the previous column's cells a and a + 1,
       // evaluated where this cell's sight line crosses their columns.
-      const kA = rows[(a & 1) * span + iPrev] as number;
+      const kA = rows[(a === aRow ? rowLow : (a & 1) * span) + iPrev] as number;
       if (kA !== iPrev) {
         const yk = kA * m;
         const ak = yk | 0;
@@ -498,7 +511,9 @@ function sweepOctantByRows(
 
       const idx = obs + i * stepMajor + minorOffset;
       const zRaw = h[idx] as number;
-      if (j > 0) zBelow = h[idx - stepMinor] as number;
+      const zBelow = h[idx - minorOffset + lowOffset] as number; // raw height of (i, aRow)
+      zLow = zBelow;
+      zHigh = zRaw;
       const zt = zRaw - dropCur - dropMinor;
       let need = eye + best * i - zt;
       if (f > 0 && j > 0) {
