@@ -359,19 +359,21 @@ function sweepOctant(
         // slope at the target, ∝ qb·i + zt − E, is positive (a back slope).
         const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
         const n0 = qb * i + zt - eye;
-        const qa = n0 > 0 ? m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m) : 0;
-        // Upper bound of the contribution on 0 < v < 1: q(v) − zt ≤ max(qb, 0) + max(qa, 0),
-        // and the factor i/(i − v) adds at most 1/(i − 1) of any excess over the eye.
-        const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
-        const over = zt - eye + rise;
-        if (n0 > 0 && rise + (over > 0 ? over * invIPrev : 0) > need) {
-          const x = n0 / qa;
-          const disc = i * i + x;
-          if (disc >= 0) {
-            const v = -x / (i + Math.sqrt(disc));
-            if (v > 0 && v < 1) {
-              const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
-              if (local > need) need = local;
+        if (n0 > 0) {
+          const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
+          // Upper bound of the contribution on 0 < v < 1: q(v) − zt ≤ max(qb, 0) + max(qa, 0),
+          // and the factor i/(i − v) adds at most 1/(i − 1) of any excess over the eye.
+          const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
+          const over = zt - eye + rise;
+          if (rise + (over > 0 ? over * invIPrev : 0) > need) {
+            const x = n0 / qa;
+            const disc = i * i + x;
+            if (disc >= 0) {
+              const v = -x / (i + Math.sqrt(disc));
+              if (v > 0 && v < 1) {
+                const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
+                if (local > need) need = local;
+              }
             }
           }
         }
@@ -520,17 +522,19 @@ function sweepOctantByRows(
         // Last stretch: see sweepOctant.
         const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
         const n0 = qb * i + zt - eye;
-        const qa = n0 > 0 ? m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m) : 0;
-        const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
-        const over = zt - eye + rise;
-        if (n0 > 0 && rise + (over > 0 ? over * invIPrev : 0) > need) {
-          const x = n0 / qa;
-          const disc = i * i + x;
-          if (disc >= 0) {
-            const v = -x / (i + Math.sqrt(disc));
-            if (v > 0 && v < 1) {
-              const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
-              if (local > need) need = local;
+        if (n0 > 0) {
+          const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
+          const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
+          const over = zt - eye + rise;
+          if (rise + (over > 0 ? over * invIPrev : 0) > need) {
+            const x = n0 / qa;
+            const disc = i * i + x;
+            if (disc >= 0) {
+              const v = -x / (i + Math.sqrt(disc));
+              if (v > 0 && v < 1) {
+                const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
+                if (local > need) need = local;
+              }
             }
           }
         }
