@@ -23,8 +23,8 @@ export interface SweepTerrain {
 
 /**
  * Lays a terrain out for the viewshed sweep (see {@link SweepTerrain}): one
- * pass that looks for nodata, and a copy with nodata replaced only when there
- * is some. The sweep reads this one row-major array in every octant (it walks
+ * pass that looks for nodata (eight cells per test when nodata is NaN), and a
+ * copy with nodata replaced only when there is some. The sweep reads this one row-major array in every octant (it walks
  * the east–west octants grid row by grid row), so no transposed copy is made.
  *
  * Source: sentinel value for missing data (common practice, no source).
@@ -53,10 +53,38 @@ export function prepareSweepTerrain(
 }
 
 function firstNodata(values: Float32Array, marker: number): number {
+  if (marker !== marker) return firstNaN(values);
   for (let i = 0; i < values.length; i++) {
     const v = values[i] as number;
     if (v !== v || v === marker) return i;
   }
+  return -1;
+}
+
+/**
+ * Index of the first NaN, or −1. Eight values at a time: their sum is NaN if
+ * any of them is (or if it mixes +∞ and −∞, which the exact look then clears),
+ * so the common case is one test per eight cells.
+ */
+function firstNaN(values: Float32Array): number {
+  const n = values.length;
+  const n8 = n - (n % 8);
+  let i = 0;
+  for (; i < n8; i += 8) {
+    const sum =
+      (values[i] as number) +
+      (values[i + 1] as number) +
+      (values[i + 2] as number) +
+      (values[i + 3] as number) +
+      (values[i + 4] as number) +
+      (values[i + 5] as number) +
+      (values[i + 6] as number) +
+      (values[i + 7] as number);
+    if (sum !== sum) {
+      for (let k = i; k < i + 8; k++) if ((values[k] as number) !== (values[k] as number)) return k;
+    }
+  }
+  for (; i < n; i++) if ((values[i] as number) !== (values[i] as number)) return i;
   return -1;
 }
 

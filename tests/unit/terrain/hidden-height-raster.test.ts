@@ -1,5 +1,5 @@
 import { computeHiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
-import { prepareSweepTerrain } from '@/shared/terrain/sweep-terrain';
+import { NEVER_BLOCKS, prepareSweepTerrain } from '@/shared/terrain/sweep-terrain';
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
@@ -127,6 +127,41 @@ describe('computeHiddenHeightRaster against the brute-force line-of-sight checke
     expect(stats.seenAgreement(0)).toBeGreaterThanOrEqual(0.995);
     expect(stats.seenAgreement(10)).toBeGreaterThanOrEqual(0.995);
     expect(stats.medianErrorHidden).toBeLessThanOrEqual(1);
+  });
+});
+
+describe('prepareSweepTerrain', () => {
+  // Nodata handling of the sweep layout: common practice, no source.
+  const base = flatTerrain(13, 7, 25, 40); // 91 cells: 11 blocks of eight and a tail of three
+
+  test('shares the heights when there is no nodata, even with ±∞ side by side', () => {
+    const heights = Float32Array.from(base.heights);
+    heights[16] = Infinity;
+    heights[17] = -Infinity; // their sum is NaN, yet neither is nodata
+    const terrain = { ...base, heights };
+    const sweep = prepareSweepTerrain(terrain);
+    expect(sweep.hasNodata).toBe(false);
+    expect(sweep.heights).toBe(heights);
+  });
+
+  test.each([0, 5, 8, 47, 87, 88, 90])('finds a NaN at cell %i and replaces only it', (at) => {
+    const heights = Float32Array.from(base.heights);
+    heights[at] = NaN;
+    const terrain = { ...base, heights };
+    const sweep = prepareSweepTerrain(terrain);
+    expect(sweep.hasNodata).toBe(true);
+    expect(sweep.heights).not.toBe(heights);
+    expect(Number.isNaN(heights[at])).toBe(true); // the input is not modified
+    for (let i = 0; i < heights.length; i++) expect(sweep.heights[i]).toBe(i === at ? NEVER_BLOCKS : 40);
+  });
+
+  test('replaces the nodata marker and NaN alike', () => {
+    const heights = Float32Array.from(base.heights);
+    heights[3] = -9999;
+    heights[60] = NaN;
+    const sweep = prepareSweepTerrain({ ...base, heights, nodata: -9999 });
+    expect(sweep.hasNodata).toBe(true);
+    expect([sweep.heights[3], sweep.heights[60], sweep.heights[4]]).toEqual([NEVER_BLOCKS, NEVER_BLOCKS, 40]);
   });
 });
 
