@@ -189,19 +189,34 @@ describe('computeHiddenHeightRaster options and edge cases', () => {
   });
 
   test('transposing terrain and post transposes the result exactly', () => {
-    // Regression guard for the two sweep layouts (rows and columns): common practice, no source.
+    // Regression guard for the two sweep orders (column by column for north–south octants,
+    // grid row by grid row for east–west ones), which must do the same arithmetic cell for
+    // cell, so the transposed result is bitwise the same: common practice, no source.
     const { width: W, height: H } = terrain;
     const heightsT = new Float32Array(W * H);
     for (let r = 0; r < H; r++) for (let c = 0; c < W; c++) heightsT[c * H + r] = terrain.heights[r * W + c] as number;
     const transposed = { ...terrain, heights: heightsT, width: H, height: W };
-    const a = computeHiddenHeightRaster(terrain, post);
-    const b = computeHiddenHeightRaster(transposed, { col: post.row, row: post.col, eyeHeight: post.eyeHeight });
-    let worst = 0;
-    for (let r = 0; r < H; r++) {
-      for (let c = 0; c < W; c++)
-        worst = Math.max(worst, Math.abs((a.hidden[r * W + c] as number) - (b.hidden[c * H + r] as number)));
+    // Unlimited, and with a range limit that cuts the octants short (the row-by-row sweep keeps its own bounds).
+    for (const conditions of [{}, { maxDistance: 700 }]) {
+      const a = computeHiddenHeightRaster(terrain, post, conditions);
+      const b = computeHiddenHeightRaster(transposed, { col: post.row, row: post.col, eyeHeight: post.eyeHeight }, conditions);
+      let worst = 0;
+      let compared = 0;
+      let nanMismatches = 0;
+      for (let r = 0; r < H; r++) {
+        for (let c = 0; c < W; c++) {
+          const x = a.hidden[r * W + c] as number;
+          const y = b.hidden[c * H + r] as number;
+          if (Number.isNaN(x) !== Number.isNaN(y)) nanMismatches++;
+          if (Number.isNaN(x) || Number.isNaN(y)) continue;
+          worst = Math.max(worst, Math.abs(x - y));
+          compared++;
+        }
+      }
+      expect(nanMismatches).toBe(0);
+      expect(compared).toBeGreaterThan(2000);
+      expect(worst).toBe(0); // metres
     }
-    expect(worst).toBeLessThan(1e-4); // metres
   });
 
   test('maxDistance leaves NaN beyond the range and the same values inside', () => {
