@@ -295,7 +295,7 @@ const mailEnv = (c) => ({
 // glibc's malloc mark its large mappings for transparent huge pages (madvise)
 // cuts those faults 512-fold. Needs glibc ≥ 2.35 and THP "madvise" or
 // "always"; ignored elsewhere. An explicit glibc.malloc.hugetlb in
-// GLIBC_TUNABLES wins (=0 turns it off). Only `start` sets it: the benchmark
+// GLIBC_TUNABLES wins (=0 turns it off). Only the server and the coverage worker get it: the benchmark
 // keeps the plain environment (gdal_viewshed, which it starts, would inherit
 // the setting and gain even more), so its figures stay comparable over time.
 const glibcTunables = (() => {
@@ -320,7 +320,8 @@ function serve(extraEnv) {
 function startWorker(extraEnv) {
   return spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server', 'workers', 'coverage-worker.ts')], {
     cwd: root,
-    env: { ...env, ...extraEnv },
+    // The worker computes the viewsheds: it gains most from huge pages.
+    env: { ...env, GLIBC_TUNABLES: glibcTunables, ...extraEnv },
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
   });
 }
