@@ -33,7 +33,7 @@ const terrains = new Map<number, { terrain: TerrainRaster; sweep: SweepTerrain }
 port.on('message', (message: TerrainMessage | JobMessage | { type: 'forget'; terrainId: number }) => {
   if (message.type === 'terrain') {
     const { type: _type, terrainId, ...terrain } = message;
-    // One terrain at a time per worker; its sweep layout (a column-major copy) is made once.
+    // One terrain at a time per worker; its sweep layout (nodata replaced) is made once.
     terrains.clear();
     terrains.set(terrainId, { terrain, sweep: prepareSweepTerrain(terrain) });
     return;

@@ -80,10 +80,12 @@ export interface HiddenHeightRaster extends RasterGrid {
  * hidden-height error over hidden cells is below 1 mm
  * (`tests/unit/terrain/hidden-height-raster.test.ts`).
  *
- * Memory: north–south octants read the row-major heights, east–west octants
- * a column-major copy (see `sweep-terrain.ts`), so every sweep reads
- * contiguous memory; the result (4 bytes per cell) is the only other large
- * allocation.
+ * Memory: every octant reads the row-major heights along contiguous memory —
+ * north–south octants one sweep column (a grid row) after the other,
+ * east–west octants grid row by grid row, which their dependencies allow —
+ * so no transposed copy is needed. The result (4 bytes per cell) is the only
+ * large allocation; a copy of the heights is made only when the terrain has
+ * nodata (see `sweep-terrain.ts`).
  *
  * Nodata cells do not block sight (the grid-line segments touching them are
  * left out) and get NaN in the result. Cells farther than `maxDistance` get
@@ -126,7 +128,7 @@ export function computeHiddenHeightRaster(
 
   const c0 = post.col;
   const r0 = post.row;
-  const groundAtPost = sweep.rowMajor[r0 * W + c0] as number;
+  const groundAtPost = sweep.heights[r0 * W + c0] as number;
   if (groundAtPost === NEVER_BLOCKS) {
     throw new TerrainInputError('post-on-nodata', `The post's cell (col ${post.col}, row ${post.row}) has no ground height.`);
   }
@@ -138,23 +140,25 @@ export function computeHiddenHeightRaster(
   const maxSpan = Math.max(W, H) + 2;
   const prevObstacle = new Int32Array(maxSpan);
   const curObstacle = new Int32Array(maxSpan);
+  const rowObstacles = new Int32Array(2 * maxSpan);
+  const columnEnd = new Int32Array(maxSpan);
   const reciprocal = new Float64Array(maxSpan);
   for (let i = 1; i < maxSpan; i++) reciprocal[i] = 1 / i;
 
   const hidden = new Float32Array(W * H);
-  const sweepArgs = { eye, dropPerCell2, rangeCells, prevObstacle, curObstacle, reciprocal };
+  const sweepArgs = { eye, dropPerCell2, rangeCells, prevObstacle, curObstacle, rowObstacles, columnEnd, reciprocal };
   const obs = r0 * W + c0;
-  // North–south octants sweep the rows of the row-major heights; east–west
-  // octants sweep the columns of the column-major copy (reading contiguous
-  // memory either way) and write the result in place.
+  // Every octant reads and writes the row-major grids along contiguous
+  // memory: north–south octants column by column of the sweep (which are
+  // grid rows), east–west octants grid row by grid row (see sweepOctantByRows).
   for (const sR of [1, -1]) {
     for (const sC of [1, -1]) {
       const iMax = Math.min(sR > 0 ? H - 1 - r0 : r0, iLimit);
       const jMax = sC > 0 ? W - 1 - c0 : c0;
-      sweepOctant(sweep.rowMajor, obs, sR * W, sC, iMax, jMax, sweepArgs, hidden, obs, sR * W, sC);
+      sweepOctant(sweep.heights, obs, sR * W, sC, iMax, jMax, sweepArgs, hidden);
       const iMaxT = Math.min(sC > 0 ? W - 1 - c0 : c0, iLimit);
       const jMaxT = sR > 0 ? H - 1 - r0 : r0;
-      sweepOctant(sweep.columnMajor, c0 * H + r0, sC * H, sR, iMaxT, jMaxT, sweepArgs, hidden, obs, sC, sR * W);
+      sweepOctantByRows(sweep.heights, obs, sC, sR * W, iMaxT, jMaxT, sweepArgs, hidden);
     }
   }
   hidden[r0 * W + c0] = 0;
@@ -239,6 +243,10 @@ interface SweepArgs {
   readonly rangeCells: number;
   readonly prevObstacle: Int32Array;
   readonly curObstacle: Int32Array;
+  /** Obstacle columns of two consecutive grid rows, `maxSpan` apart (row-by-row sweep). */
+  readonly rowObstacles: Int32Array;
+  /** Last minor index j of each sweep column i (row-by-row sweep). */
+  readonly columnEnd: Int32Array;
   readonly reciprocal: Float64Array;
 }
 
@@ -248,7 +256,8 @@ interface SweepArgs {
  * metres; distances in cells; `dropPerCell2` turns squared cell distance into
  * the curvature drop. Sight-line slopes are measured per major-axis cell,
  * which along one sight line is proportional to the true slope. The hidden
- * height of cell (i, j) goes to `out[outObs + i·outMajor + j·outMinor]`.
+ * height of cell (i, j) goes to `out` at the same index. Sweep columns are
+ * taken one after the other, so `stepMinor` should be ±1 (contiguous).
  */
 function sweepOctant(
   h: Float32Array,
@@ -259,9 +268,6 @@ function sweepOctant(
   jMax: number,
   args: SweepArgs,
   out: Float32Array,
-  outObs: number,
-  outMajor: number,
-  outMinor: number,
 ): void {
   const { eye, dropPerCell2, rangeCells, reciprocal } = args;
   if (iMax < 1) return;
@@ -274,7 +280,7 @@ function sweepOctant(
   // Column 1: nothing lies between the eye and these cells.
   const j1 = Math.min(1, jMax);
   for (let j = 0; j <= j1; j++) {
-    out[outObs + outMajor + j * outMinor] = 0;
+    out[obs + stepMajor + j * stepMinor] = 0;
     prev[j] = 1;
   }
   let prevEnd = j1;
@@ -293,7 +299,6 @@ function sweepOctant(
     const colCur = obs + i * stepMajor;
     const dropCur = dropPerCell2 * i * i;
     const dropPrev = dropPerCell2 * iPrev * iPrev;
-    const outBase = outObs + i * outMajor;
     let zBelow = 0; // raw height of (i, j − 1)
     for (let j = 0; j <= jEnd; j++) {
       const m = j * invI; // sight-line direction: minor cells per major cell
@@ -354,24 +359,26 @@ function sweepOctant(
         // slope at the target, ∝ qb·i + zt − E, is positive (a back slope).
         const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
         const n0 = qb * i + zt - eye;
-        const qa = n0 > 0 ? m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m) : 0;
-        // Upper bound of the contribution on 0 < v < 1: q(v) − zt ≤ max(qb, 0) + max(qa, 0),
-        // and the factor i/(i − v) adds at most 1/(i − 1) of any excess over the eye.
-        const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
-        const over = zt - eye + rise;
-        if (n0 > 0 && rise + (over > 0 ? over * invIPrev : 0) > need) {
-          const x = n0 / qa;
-          const disc = i * i + x;
-          if (disc >= 0) {
-            const v = -x / (i + Math.sqrt(disc));
-            if (v > 0 && v < 1) {
-              const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
-              if (local > need) need = local;
+        if (n0 > 0) {
+          const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
+          // Upper bound of the contribution on 0 < v < 1: q(v) − zt ≤ max(qb, 0) + max(qa, 0),
+          // and the factor i/(i − v) adds at most 1/(i − 1) of any excess over the eye.
+          const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
+          const over = zt - eye + rise;
+          if (rise + (over > 0 ? over * invIPrev : 0) > need) {
+            const x = n0 / qa;
+            const disc = i * i + x;
+            if (disc >= 0) {
+              const v = -x / (i + Math.sqrt(disc));
+              if (v > 0 && v < 1) {
+                const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
+                if (local > need) need = local;
+              }
             }
           }
         }
       }
-      out[outBase + j * outMinor] = need > 0 ? need : 0;
+      out[idx] = need > 0 ? need : 0;
       if ((zt - eye) * invI > best) bestCol = i;
       cur[j] = bestCol;
       zBelow = zRaw;
@@ -380,5 +387,161 @@ function sweepOctant(
     prev = cur;
     cur = t;
     prevEnd = jEnd;
+  }
+}
+
+/**
+ * The same octant sweep as {@link sweepOctant}, cell for cell and operation
+ * for operation (so the results are bitwise the same), but taken grid row by
+ * grid row: for octants whose main direction runs along the grid rows
+ * (`stepMajor` = ±1), walking each sweep column would stride across rows.
+ * Cell (i, j) needs only cells (i − 1, j − 1) and (i − 1, j) of the sweep, so
+ * rows in order of j, each in order of i, respect every dependency; the
+ * obstacle columns of the current and the previous row are kept.
+ */
+function sweepOctantByRows(
+  h: Float32Array,
+  obs: number,
+  stepMajor: number,
+  stepMinor: number,
+  iMax: number,
+  jMax: number,
+  args: SweepArgs,
+  out: Float32Array,
+): void {
+  const { eye, dropPerCell2, rangeCells, reciprocal, rowObstacles: rows, columnEnd } = args;
+  if (iMax < 1) return;
+  const span = rows.length >> 1;
+  const range2 = rangeCells * rangeCells;
+  const limited = Number.isFinite(rangeCells);
+  const twoDrop = 2 * dropPerCell2;
+
+  // Last j of every sweep column, as the column-by-column sweep bounds it.
+  columnEnd[1] = Math.min(1, jMax);
+  let iLast = 1;
+  for (let i = 2; i <= iMax; i++) {
+    let jEnd = i < jMax ? i : jMax;
+    if (limited) {
+      const lim = Math.floor(Math.sqrt(Math.max(0, range2 - i * i)));
+      if (lim < jEnd) jEnd = lim;
+    }
+    if (jEnd < 0) break;
+    columnEnd[i] = jEnd;
+    iLast = i;
+  }
+
+  // Column 1: nothing lies between the eye and these cells.
+  const j1 = columnEnd[1] as number;
+  for (let j = 0; j <= j1; j++) {
+    out[obs + stepMajor + j * stepMinor] = 0;
+    rows[(j & 1) * span + 1] = 1;
+  }
+
+  // Row j holds the cells max(2, j) ≤ i ≤ iEnd; iEnd only shrinks as j grows.
+  let iEnd = iLast;
+  for (let j = 0; ; j++) {
+    while (iEnd >= 2 && (columnEnd[iEnd] as number) < j) iEnd--;
+    const iStart = j > 2 ? j : 2;
+    if (iStart > iEnd) break;
+    const rowCur = (j & 1) * span;
+    const minorOffset = j * stepMinor;
+    const dropMinor = dropPerCell2 * j * j;
+    // The sight line of (i, j) crosses column i − 1 between rows aRow and
+    // aRow + 1 (aRow = j − 1, or 0 on row 0); the heights there are the ones
+    // this row read for column i − 1, carried in zLow and zHigh.
+    const aRow = j > 0 ? j - 1 : 0;
+    const lowOffset = aRow * stepMinor;
+    const rowLow = (aRow & 1) * span;
+    let zLow = h[obs + (iStart - 1) * stepMajor + lowOffset] as number; // raw height of (i − 1, aRow)
+    let zHigh = h[obs + (iStart - 1) * stepMajor + minorOffset] as number; // raw height of (i − 1, j)
+    for (let i = iStart; i <= iEnd; i++) {
+      const invI = reciprocal[i] as number;
+      const iPrev = i - 1;
+      const invIPrev = reciprocal[iPrev] as number;
+      const dropCur = dropPerCell2 * i * i;
+      const dropPrev = dropPerCell2 * iPrev * iPrev;
+      const m = j * invI; // sight-line direction: minor cells per major cell
+      // Crossing of the previous column, between minor rows a and a + 1.
+      const y = j - m;
+      const a = y | 0;
+      const f = y - a;
+      let z0 = zLow;
+      let z1 = z0;
+      if (f > 0) z1 = zHigh;
+      if (a !== aRow) {
+        // Not met on grids under ~10⁸ cells a side (j − j/i rounds into
+        // (j − 1, j)); kept so the result never rests on that rounding.
+        const p0 = obs + iPrev * stepMajor + a * stepMinor;
+        z0 = h[p0] as number;
+        z1 = f > 0 ? (h[p0 + stepMinor] as number) : z0;
+      }
+      let best = (z0 + f * (z1 - z0) - dropPrev - dropPerCell2 * y * y - eye) * invIPrev;
+      let bestCol = iPrev;
+
+      // Obstacles recorded by the previous column's cells a and a + 1,
+      // evaluated where this cell's sight line crosses their columns.
+      const kA = rows[(a === aRow ? rowLow : (a & 1) * span) + iPrev] as number;
+      if (kA !== iPrev) {
+        const yk = kA * m;
+        const ak = yk | 0;
+        const fk = yk - ak;
+        const pk = obs + kA * stepMajor + ak * stepMinor;
+        const zk0 = h[pk] as number;
+        const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
+        const s = (zk - dropPerCell2 * (kA * kA + yk * yk) - eye) * (reciprocal[kA] as number);
+        if (s > best) {
+          best = s;
+          bestCol = kA;
+        }
+      }
+      if (f > 0 && a < (columnEnd[iPrev] as number)) {
+        const kB = rows[((a + 1) & 1) * span + iPrev] as number;
+        if (kB !== iPrev && kB !== kA) {
+          const yk = kB * m;
+          const ak = yk | 0;
+          const fk = yk - ak;
+          const pk = obs + kB * stepMajor + ak * stepMinor;
+          const zk0 = h[pk] as number;
+          const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
+          const s = (zk - dropPerCell2 * (kB * kB + yk * yk) - eye) * (reciprocal[kB] as number);
+          if (s > best) {
+            best = s;
+            bestCol = kB;
+          }
+        }
+      }
+
+      const idx = obs + i * stepMajor + minorOffset;
+      const zRaw = h[idx] as number;
+      const zBelow = h[idx - minorOffset + lowOffset] as number; // raw height of (i, aRow)
+      zLow = zBelow;
+      zHigh = zRaw;
+      const zt = zRaw - dropCur - dropMinor;
+      let need = eye + best * i - zt;
+      if (f > 0 && j > 0) {
+        // Last stretch: see sweepOctant.
+        const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
+        const n0 = qb * i + zt - eye;
+        if (n0 > 0) {
+          const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
+          const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
+          const over = zt - eye + rise;
+          if (rise + (over > 0 ? over * invIPrev : 0) > need) {
+            const x = n0 / qa;
+            const disc = i * i + x;
+            if (disc >= 0) {
+              const v = -x / (i + Math.sqrt(disc));
+              if (v > 0 && v < 1) {
+                const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
+                if (local > need) need = local;
+              }
+            }
+          }
+        }
+      }
+      out[idx] = need > 0 ? need : 0;
+      if ((zt - eye) * invI > best) bestCol = i;
+      rows[rowCur + i] = bestCol;
+    }
   }
 }

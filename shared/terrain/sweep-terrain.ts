@@ -4,37 +4,34 @@ import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 export const NEVER_BLOCKS = Math.fround(-1e30);
 
 /**
- * A terrain laid out for the viewshed sweep: the heights twice, row-major and
- * column-major, with nodata replaced by {@link NEVER_BLOCKS}. Build it once
- * with {@link prepareSweepTerrain} and pass it to many
- * `computeHiddenHeightRaster` calls on the same terrain (the worker pool does).
+ * A terrain laid out for the viewshed sweep: the row-major heights with
+ * nodata replaced by {@link NEVER_BLOCKS}. Build it once with
+ * {@link prepareSweepTerrain} and pass it to many `computeHiddenHeightRaster`
+ * calls on the same terrain (the worker pool does).
  */
 export interface SweepTerrain {
   /** The terrain it was made from (not copied). */
   readonly source: TerrainRaster;
-  /** Heights, metres, index `row * width + col`; nodata → NEVER_BLOCKS. */
-  readonly rowMajor: Float32Array;
-  /** Heights, metres, index `col * height + row`; nodata → NEVER_BLOCKS. */
-  readonly columnMajor: Float32Array;
+  /**
+   * Heights, metres, index `row * width + col`; nodata → NEVER_BLOCKS. The
+   * terrain's own array when it has no nodata (then nothing is copied).
+   */
+  readonly heights: Float32Array;
   /** Whether any cell is nodata. */
   readonly hasNodata: boolean;
 }
 
-/** Edge of the square blocks of the cache-friendly transposition, cells. */
-const BLOCK = 64;
-
 /**
- * Lays a terrain out for the viewshed sweep (see {@link SweepTerrain}). The
- * sweep walks every octant along contiguous memory — rows for the octants
- * whose main direction is north–south, the column-major copy for east–west —
- * which keeps it fast on large grids, where strided access would stall on
- * memory. The row-major array is the input's own array when it has no nodata.
+ * Lays a terrain out for the viewshed sweep (see {@link SweepTerrain}): one
+ * pass that looks for nodata (eight cells per test when nodata is NaN), and a
+ * copy with nodata replaced only when there is some. The sweep reads this one row-major array in every octant (it walks
+ * the east–west octants grid row by grid row), so no transposed copy is made.
  *
- * Source: blocked matrix transposition (common practice, no source).
+ * Source: sentinel value for missing data (common practice, no source).
  *
  * @param terrain ground heights, metres (not modified)
- * @param allocate makes the Float32Arrays of the copies; default `new Float32Array(n)`
- *   (the worker pool passes one over a SharedArrayBuffer)
+ * @param allocate makes the Float32Array of the copy when one is needed;
+ *   default `new Float32Array(n)`
  * @returns the prepared terrain
  * @example
  * const sweep = prepareSweepTerrain(terrain);
@@ -45,26 +42,18 @@ export function prepareSweepTerrain(
   terrain: TerrainRaster,
   allocate: (length: number) => Float32Array = (length) => new Float32Array(length),
 ): SweepTerrain {
-  const { width: W, height: H, heights: source } = terrain;
+  const source = terrain.heights;
   const marker = terrain.nodata ?? NaN;
-  const hasNodata = firstNodata(source, marker) >= 0;
-  let rowMajor = source;
-  if (hasNodata) {
-    rowMajor = allocate(source.length);
-    replaceNodata(source, rowMajor, marker);
-  }
-  const columnMajor = allocate(source.length);
-  // Small blocks in a small function: V8 optimises it after a few calls.
-  for (let r0 = 0; r0 < H; r0 += BLOCK) {
-    const r1 = Math.min(H, r0 + BLOCK);
-    for (let c0 = 0; c0 < W; c0 += BLOCK) {
-      transposeBlock(rowMajor, columnMajor, W, H, r0, r1, c0, Math.min(W, c0 + BLOCK));
-    }
-  }
-  return { source: terrain, rowMajor, columnMajor, hasNodata };
+  const first = firstNodata(source, marker);
+  if (first < 0) return { source: terrain, heights: source, hasNodata: false };
+  const heights = allocate(source.length);
+  heights.set(source.subarray(0, first));
+  replaceNodata(source, heights, marker, first);
+  return { source: terrain, heights, hasNodata: true };
 }
 
 function firstNodata(values: Float32Array, marker: number): number {
+  if (marker !== marker) return firstNaN(values);
   for (let i = 0; i < values.length; i++) {
     const v = values[i] as number;
     if (v !== v || v === marker) return i;
@@ -72,25 +61,36 @@ function firstNodata(values: Float32Array, marker: number): number {
   return -1;
 }
 
-function replaceNodata(source: Float32Array, target: Float32Array, marker: number): void {
-  for (let i = 0; i < source.length; i++) {
-    const v = source[i] as number;
-    target[i] = v !== v || v === marker ? NEVER_BLOCKS : v;
+/**
+ * Index of the first NaN, or −1. Eight values at a time: their sum is NaN if
+ * any of them is (or if it mixes +∞ and −∞, which the exact look then clears),
+ * so the common case is one test per eight cells.
+ */
+function firstNaN(values: Float32Array): number {
+  const n = values.length;
+  const n8 = n - (n % 8);
+  let i = 0;
+  for (; i < n8; i += 8) {
+    const sum =
+      (values[i] as number) +
+      (values[i + 1] as number) +
+      (values[i + 2] as number) +
+      (values[i + 3] as number) +
+      (values[i + 4] as number) +
+      (values[i + 5] as number) +
+      (values[i + 6] as number) +
+      (values[i + 7] as number);
+    if (sum !== sum) {
+      for (let k = i; k < i + 8; k++) if ((values[k] as number) !== (values[k] as number)) return k;
+    }
   }
+  for (; i < n; i++) if ((values[i] as number) !== (values[i] as number)) return i;
+  return -1;
 }
 
-function transposeBlock(
-  rowMajor: Float32Array,
-  columnMajor: Float32Array,
-  W: number,
-  H: number,
-  r0: number,
-  r1: number,
-  c0: number,
-  c1: number,
-): void {
-  for (let c = c0; c < c1; c++) {
-    const base = c * H;
-    for (let r = r0; r < r1; r++) columnMajor[base + r] = rowMajor[r * W + c] as number;
+function replaceNodata(source: Float32Array, target: Float32Array, marker: number, from: number): void {
+  for (let i = from; i < source.length; i++) {
+    const v = source[i] as number;
+    target[i] = v !== v || v === marker ? NEVER_BLOCKS : v;
   }
 }

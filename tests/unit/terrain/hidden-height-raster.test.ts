@@ -1,5 +1,5 @@
 import { computeHiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
-import { prepareSweepTerrain } from '@/shared/terrain/sweep-terrain';
+import { NEVER_BLOCKS, prepareSweepTerrain } from '@/shared/terrain/sweep-terrain';
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
@@ -130,6 +130,41 @@ describe('computeHiddenHeightRaster against the brute-force line-of-sight checke
   });
 });
 
+describe('prepareSweepTerrain', () => {
+  // Nodata handling of the sweep layout: common practice, no source.
+  const base = flatTerrain(13, 7, 25, 40); // 91 cells: 11 blocks of eight and a tail of three
+
+  test('shares the heights when there is no nodata, even with ±∞ side by side', () => {
+    const heights = Float32Array.from(base.heights);
+    heights[16] = Infinity;
+    heights[17] = -Infinity; // their sum is NaN, yet neither is nodata
+    const terrain = { ...base, heights };
+    const sweep = prepareSweepTerrain(terrain);
+    expect(sweep.hasNodata).toBe(false);
+    expect(sweep.heights).toBe(heights);
+  });
+
+  test.each([0, 5, 8, 47, 87, 88, 90])('finds a NaN at cell %i and replaces only it', (at) => {
+    const heights = Float32Array.from(base.heights);
+    heights[at] = NaN;
+    const terrain = { ...base, heights };
+    const sweep = prepareSweepTerrain(terrain);
+    expect(sweep.hasNodata).toBe(true);
+    expect(sweep.heights).not.toBe(heights);
+    expect(Number.isNaN(heights[at])).toBe(true); // the input is not modified
+    for (let i = 0; i < heights.length; i++) expect(sweep.heights[i]).toBe(i === at ? NEVER_BLOCKS : 40);
+  });
+
+  test('replaces the nodata marker and NaN alike', () => {
+    const heights = Float32Array.from(base.heights);
+    heights[3] = -9999;
+    heights[60] = NaN;
+    const sweep = prepareSweepTerrain({ ...base, heights, nodata: -9999 });
+    expect(sweep.hasNodata).toBe(true);
+    expect([sweep.heights[3], sweep.heights[60], sweep.heights[4]]).toEqual([NEVER_BLOCKS, NEVER_BLOCKS, 40]);
+  });
+});
+
 describe('computeHiddenHeightRaster options and edge cases', () => {
   const terrain = generateSyntheticTerrain({ width: 90, height: 70, seed: 5 });
   const post = { col: 30, row: 40, eyeHeight: 15 };
@@ -154,19 +189,34 @@ describe('computeHiddenHeightRaster options and edge cases', () => {
   });
 
   test('transposing terrain and post transposes the result exactly', () => {
-    // Regression guard for the two sweep layouts (rows and columns): common practice, no source.
+    // Regression guard for the two sweep orders (column by column for north–south octants,
+    // grid row by grid row for east–west ones), which must do the same arithmetic cell for
+    // cell, so the transposed result is bitwise the same: common practice, no source.
     const { width: W, height: H } = terrain;
     const heightsT = new Float32Array(W * H);
     for (let r = 0; r < H; r++) for (let c = 0; c < W; c++) heightsT[c * H + r] = terrain.heights[r * W + c] as number;
     const transposed = { ...terrain, heights: heightsT, width: H, height: W };
-    const a = computeHiddenHeightRaster(terrain, post);
-    const b = computeHiddenHeightRaster(transposed, { col: post.row, row: post.col, eyeHeight: post.eyeHeight });
-    let worst = 0;
-    for (let r = 0; r < H; r++) {
-      for (let c = 0; c < W; c++)
-        worst = Math.max(worst, Math.abs((a.hidden[r * W + c] as number) - (b.hidden[c * H + r] as number)));
+    // Unlimited, and with a range limit that cuts the octants short (the row-by-row sweep keeps its own bounds).
+    for (const conditions of [{}, { maxDistance: 700 }]) {
+      const a = computeHiddenHeightRaster(terrain, post, conditions);
+      const b = computeHiddenHeightRaster(transposed, { col: post.row, row: post.col, eyeHeight: post.eyeHeight }, conditions);
+      let worst = 0;
+      let compared = 0;
+      let nanMismatches = 0;
+      for (let r = 0; r < H; r++) {
+        for (let c = 0; c < W; c++) {
+          const x = a.hidden[r * W + c] as number;
+          const y = b.hidden[c * H + r] as number;
+          if (Number.isNaN(x) !== Number.isNaN(y)) nanMismatches++;
+          if (Number.isNaN(x) || Number.isNaN(y)) continue;
+          worst = Math.max(worst, Math.abs(x - y));
+          compared++;
+        }
+      }
+      expect(nanMismatches).toBe(0);
+      expect(compared).toBeGreaterThan(2000);
+      expect(worst).toBe(0); // metres
     }
-    expect(worst).toBeLessThan(1e-4); // metres
   });
 
   test('maxDistance leaves NaN beyond the range and the same values inside', () => {
