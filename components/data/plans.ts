@@ -77,7 +77,7 @@ export const planRevisionQuery = (id: string, n: number) =>
 export const usePlans = (filter: PlanFilter = {}) => useQuery(plansQuery(filter));
 export const usePlan = (id: string) => useQuery(planQuery(id));
 export const usePlanPreview = (id: string, enabled = true) => useQuery({ ...planPreviewQuery(id), enabled });
-export const usePlanHistory = (id: string) => useQuery(planHistoryQuery(id));
+export const usePlanHistory = (id: string, enabled = true) => useQuery({ ...planHistoryQuery(id), enabled });
 export const usePlanRevision = (id: string, n: number | null) =>
   useQuery({ ...planRevisionQuery(id, n ?? 0), enabled: n !== null && n > 0 });
 

@@ -1,7 +1,8 @@
 import { useQueries } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState, type ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
+import type { LatLon } from '@/shared/geo/types';
 import type { Post, Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
 import type { RefractionPresetId } from '@/shared/sightline/refraction-presets';
@@ -29,20 +30,33 @@ export interface SiteMapScreenProps {
   siteId: string;
   /** A post to centre on and choose at first (from "Show on the map"). */
   focusPostId?: string | null;
+  /** A point to centre on and take as the first tapped point (e.g. a blind area from a plan's coverage). */
+  focusAt?: LatLon | null;
   /**
    * Coverage layers to draw over the map (a coverage run's posts-per-cell,
    * cross-bearing, per-post or difference layers), each with its palette.
-   * The plan page passes a run's layers here once the coverage API serves
-   * them; the map route alone has none yet.
+   * The first is drawn until the person picks another (or none); ids that
+   * stay the same across cases keep the pick.
    */
   coverageLayers?: readonly MapCoverageLayer[];
+  /** Shown above the layer chips (e.g. the run's case picker and its state). */
+  coveragePanel?: ReactNode;
+  /** Told when the chosen post changes (e.g. to load that post's visibility layer). */
+  onChosenPost?: (postId: string | null) => void;
 }
 
 /** Taps kept on the map (and as sight lines in 3D). */
 const MAX_TARGETS = 6;
 
 /** The site map: loads the site, its posts and terrain, then the map workspace. */
-export function SiteMapScreen({ siteId, focusPostId = null, coverageLayers = [] }: SiteMapScreenProps) {
+export function SiteMapScreen({
+  siteId,
+  focusPostId = null,
+  focusAt = null,
+  coverageLayers = [],
+  coveragePanel = null,
+  onChosenPost,
+}: SiteMapScreenProps) {
   const site = useSite(siteId);
   const posts = useSitePosts(siteId);
   const terrain = useSiteTerrain(siteId);
@@ -56,7 +70,10 @@ export function SiteMapScreen({ siteId, focusPostId = null, coverageLayers = [] 
       posts={posts.data}
       terrain={terrain.data}
       focusPostId={focusPostId}
+      focusAt={focusAt}
       coverageLayers={coverageLayers}
+      coveragePanel={coveragePanel}
+      onChosenPost={onChosenPost}
     />
   );
 }
@@ -66,13 +83,19 @@ function MapWorkspace({
   posts,
   terrain,
   focusPostId,
+  focusAt,
   coverageLayers,
+  coveragePanel,
+  onChosenPost,
 }: {
   site: Site;
   posts: Post[];
   terrain: SiteTerrain | null;
   focusPostId: string | null;
+  focusAt: LatLon | null;
   coverageLayers: readonly MapCoverageLayer[];
+  coveragePanel: ReactNode;
+  onChosenPost?: (postId: string | null) => void;
 }) {
   const { wide } = useLayout();
   const router = useRouter();
@@ -81,22 +104,29 @@ function MapWorkspace({
   const [chosenPostId, setChosenPostId] = useState<string | null>(
     posts.find((p) => p.id === focusPostId)?.id ?? posts.find((p) => p.status === 'existing')?.id ?? posts[0]?.id ?? null,
   );
-  const [targets, setTargets] = useState<MapTarget[]>([]);
+  useEffect(() => onChosenPost?.(chosenPostId), [onChosenPost, chosenPostId]);
+  // A point handed in by address starts as P1 (its profile from the chosen post is one tap away).
+  const [targets, setTargets] = useState<MapTarget[]>(() => {
+    const at = focusAt && frame ? frame.projection.toGrid(focusAt) : null;
+    return at && Number.isFinite(at.x) && Number.isFinite(at.y) ? [{ id: 1, ...at }] : [];
+  });
   const [conditions, setConditions] = useState<RefractionPresetId[]>(['standard-optical', 'no-refraction']);
   const [targetHeightM, setTargetHeightM] = useState(0);
-  const [layerId, setLayerId] = useState<string | null>(coverageLayers[0]?.id ?? null);
+  // undefined: nothing picked yet, so the first layer shows (layers may arrive after the map).
+  const [layerId, setLayerId] = useState<string | null | undefined>(undefined);
   const [sheetOpen, setSheetOpen] = useState(false);
   const [legendOpen, setLegendOpen] = useState(false);
   const [format, setFormat] = useCoordinateFormat();
   const [readout] = useState(createReadoutStore);
 
-  const layer = coverageLayers.find((l) => l.id === layerId) ?? null;
+  const layer = (layerId === undefined ? coverageLayers[0] : coverageLayers.find((l) => l.id === layerId)) ?? null;
   const decoded = useDecodedRaster(layer?.raster ?? null);
   const shown: ShownLayer | null = layer && decoded.values ? { layer, values: decoded.values } : null;
   const chosen = posts.find((p) => p.id === chosenPostId) ?? null;
   const last = targets.at(-1) ?? null;
   const lastLatLon = last && frame ? { ...frame.projection.toLatLon(last.x, last.y), label: `P${last.id}` } : null;
   const focusPost = frame?.posts.find((p) => p.post.id === focusPostId) ?? null;
+  const focus = focusPost ? { x: focusPost.x, y: focusPost.y } : focusAt ? (targets[0] ?? null) : null;
 
   const back = () => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: site.id } });
 
@@ -133,14 +163,15 @@ function MapWorkspace({
     <ChipRow label="Coverage layer">
       <Chip label="None" on={layer === null} onPress={() => setLayerId(null)} />
       {coverageLayers.map((l) => (
-        <Chip key={l.id} label={l.title} on={l.id === layerId} onPress={() => setLayerId(l.id)} />
+        <Chip key={l.id} label={l.title} on={l.id === layer?.id} onPress={() => setLayerId(l.id)} />
       ))}
     </ChipRow>
   );
   const legend = (
     <View style={{ gap: space.md }}>
+      {coveragePanel}
       {layers}
-      {coverageLayers.length === 0 ? (
+      {coverageLayers.length === 0 && !coveragePanel ? (
         <AppText variant="small" tone="muted">
           No coverage layers here yet: they come with a plan’s coverage run.
         </AppText>
@@ -189,7 +220,7 @@ function MapWorkspace({
         chosenPostId={chosenPostId}
         targets={targets}
         shown={shown}
-        focus={focusPost ? { x: focusPost.x, y: focusPost.y } : null}
+        focus={focus}
         readout={readout}
         format={format}
         onFormat={setFormat}
@@ -204,6 +235,7 @@ function MapWorkspace({
         targets={targets}
         conditions={conditions}
         targetHeightM={targetHeightM}
+        drape={shown}
       />
     );
 
@@ -350,6 +382,7 @@ function Map3d({
   targets,
   conditions,
   targetHeightM,
+  drape,
 }: {
   siteId: string;
   frame: SiteMapFrame;
@@ -357,6 +390,8 @@ function Map3d({
   targets: readonly MapTarget[];
   conditions: readonly RefractionPresetId[];
   targetHeightM: number;
+  /** The coverage layer shown on the 2D map, draped over the terrain too. */
+  drape: ShownLayer | null;
 }) {
   const verdicts = useQueries({
     queries: targets.map((t) => ({
@@ -381,7 +416,9 @@ function Map3d({
     const r = verdicts[i]?.data?.results[0];
     return { id: t.id, x: t.x, y: t.y, seen: r ? (targetHeightM > 0 ? r.targetTopSeen : r.groundSeen) : null };
   });
-  return <Terrain3d siteId={siteId} frame={frame} posts={posts} chosenPostId={chosenPostId} targets={sceneTargets} />;
+  return (
+    <Terrain3d siteId={siteId} frame={frame} posts={posts} chosenPostId={chosenPostId} targets={sceneTargets} drape={drape} />
+  );
 }
 
 const styles = StyleSheet.create({

@@ -1,11 +1,13 @@
 import { Component, lazy, Suspense, useMemo, type ReactNode } from 'react';
 import { View } from 'react-native';
+import type { SceneDrape } from '@/scenes/terrain/coverage-drape';
 import type { ScenePost, SceneTarget } from '@/scenes/terrain/terrain-scene';
 import { defaultExaggeration } from '@/scenes/terrain/terrain-geometry';
 import { useTerrainMesh } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { colors, radius, space } from '@/components/ui/theme';
+import type { ShownLayer } from './map-viewport';
 import type { SiteMapFrame } from './site-map-frame';
 
 // Loaded on demand: three.js and the scene stay out of the first bundle and never block first paint.
@@ -49,14 +51,24 @@ export function Terrain3d({
   posts,
   chosenPostId,
   targets,
+  drape = null,
 }: {
   siteId: string;
   frame: SiteMapFrame;
   posts: readonly ScenePost[];
   chosenPostId: string | null;
   targets: readonly SceneTarget[];
+  /** The coverage layer chosen on the map, laid over the ground (null: the hillshade alone). */
+  drape?: ShownLayer | null;
 }) {
   const webgl = useMemo(hasWebGL, []);
+  const drapeRaster = drape?.layer.raster ?? null;
+  const drapeValues = drape?.values ?? null;
+  const drapePalette = drape?.layer.palette ?? null;
+  const sceneDrape = useMemo<SceneDrape | null>(
+    () => (drapeRaster && drapeValues && drapePalette ? { grid: drapeRaster, values: drapeValues, palette: drapePalette } : null),
+    [drapeRaster, drapeValues, drapePalette],
+  );
   const mesh = useTerrainMesh(siteId);
   if (!frame.base) return <Fallback reason="This site has no terrain yet, so there is nothing to show in 3D." />;
   if (!webgl) return <Fallback reason="This browser cannot draw 3D (WebGL is off or missing)." />;
@@ -75,6 +87,7 @@ export function Terrain3d({
               posts={posts}
               chosenPostId={chosenPostId}
               targets={targets}
+              drape={sceneDrape}
             />
           </Suspense>
         </SceneBoundary>
@@ -98,6 +111,7 @@ export function Terrain3d({
           closer. Cones: existing posts; open diamonds: proposed. Lines from the chosen post: blue seen, orange not seen, grey not
           yet worked out (first condition; the profile has the detail). Lines run straight from the eye; the earth’s curve and
           refraction are in the profile.
+          {drape ? ` Coloured ground: ${drape.layer.title} (the legend names the colours).` : ''}
         </AppText>
       </View>
     </View>

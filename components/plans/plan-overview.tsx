@@ -19,6 +19,10 @@ import { Screen } from '@/components/ui/screen';
 import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { ApiRequestError } from '@/components/data/api-client';
+import { usePlanCoverage } from '@/components/data/coverage';
+import { coverageCardState } from './coverage-format';
+import { PlanCoveragePanel } from './plan-coverage-panel';
 import { PlanResults } from './plan-results';
 import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan-snapshot-panels';
 import { PlanStatusBadge } from './plan-status';
@@ -55,6 +59,10 @@ function PlanPage({
   const newVersion = useNewPlanVersion(plan.id);
   const [notice, setNotice] = useState('');
   const [error, setError] = useState('');
+  const [coverageMissing, setCoverageMissing] = useState('');
+  // The same query as the coverage card (shared cache): the refusal notice goes once coverage is done.
+  const coverage = usePlanCoverage(plan.id, editable);
+  const coverageDone = coverage.data ? coverageCardState(coverage.data).kind === 'done' : false;
   const isPlanner = user?.role === 'planner';
   const canReview = user?.role === 'reviewer' && plan.status === 'submitted' && plan.preparedBy.id !== user.id;
   const lastReview = history?.reviews.at(-1);
@@ -64,12 +72,14 @@ function PlanPage({
 
   const onSubmit = () => {
     setError('');
+    setCoverageMissing('');
     submit.mutate(plan.rowVersion, {
       onSuccess: (r) =>
         setNotice(
           `Revision ${r.revision} is frozen and waiting for review.${r.mailed ? ' The reviewers were e-mailed.' : ' No e-mail went out; tell the reviewers.'}`,
         ),
-      onError: (e) => setError(e.message),
+      onError: (e) =>
+        e instanceof ApiRequestError && e.code === 'coverage_missing' ? setCoverageMissing(e.message) : setError(e.message),
     });
   };
   const onNewVersion = () =>
@@ -85,6 +95,12 @@ function PlanPage({
       actions={<PlanStatusBadge status={plan.status} />}
     >
       <FormError message={error} />
+      {coverageMissing && !coverageDone ? (
+        <Notice tone="danger" title="Coverage first">
+          <AppText>{coverageMissing}</AppText>
+          <AppText variant="small">Compute it in the Terrain coverage section below, then submit again.</AppText>
+        </Notice>
+      ) : null}
       {notice ? (
         <Notice tone="info" title="Submitted">
           <AppText>{notice}</AppText>
@@ -122,6 +138,17 @@ function PlanPage({
           />
         ) : null}
         <Button
+          label="Compare with…"
+          kind="quiet"
+          role="link"
+          onPress={() =>
+            router.navigate({
+              pathname: '/plans/compare',
+              params: plan.previousId ? { a: plan.previousId, b: plan.id } : { b: plan.id },
+            })
+          }
+        />
+        <Button
           label="History and signatures"
           kind="quiet"
           onPress={() => router.navigate({ pathname: '/plans/[planId]/history', params: { planId: plan.id } })}
@@ -145,6 +172,14 @@ function PlanPage({
               : 'Loading the frozen revision…'}
         </AppText>
       </Card>
+
+      <PlanCoveragePanel
+        planId={plan.id}
+        siteId={plan.siteId}
+        editable={editable}
+        canRun={isPlanner && editable}
+        frozen={editable || !history ? undefined : latestRevision === null ? null : frozen.data?.snapshot.coverage}
+      />
 
       <DocumentsPanel
         owner={{ ownerType: 'plan', ownerId: plan.id }}

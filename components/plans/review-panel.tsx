@@ -13,6 +13,7 @@ import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/sta
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { PlanCoveragePanel } from './plan-coverage-panel';
 import { PlanResults } from './plan-results';
 import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan-snapshot-panels';
 import { PlanStatusBadge } from './plan-status';
@@ -87,6 +88,7 @@ export function ReviewPanel({ planId }: { planId: string }) {
   const results = (
     <>
       <SnapshotCautions snapshot={snapshot} />
+      <PlanCoveragePanel planId={p.id} siteId={p.siteId} editable={false} canRun={false} frozen={snapshot.coverage} />
       <PlanResults snapshot={snapshot} units={unitsOf(snapshot)} />
     </>
   );

@@ -35,6 +35,8 @@ export function ChipRow({ label, children }: { label: string; children: React.Re
 const styles = StyleSheet.create({
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   chip: {
+    // A long label wraps inside the chip instead of running off a narrow screen.
+    maxWidth: '100%',
     minHeight: TOUCH - 6,
     justifyContent: 'center',
     paddingHorizontal: space.md,

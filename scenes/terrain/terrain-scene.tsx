@@ -1,6 +1,7 @@
 import { Canvas } from '@react-three/fiber';
 import { Suspense, useMemo, useRef } from 'react';
 import type { Group } from 'three';
+import { CoverageDrape, type SceneDrape } from './coverage-drape';
 import { OrbitDrag } from './orbit-drag';
 import { PostPin } from './post-pin';
 import { SightRay } from './sight-ray';
@@ -34,13 +35,23 @@ export interface TerrainSceneProps {
   posts: readonly ScenePost[];
   chosenPostId: string | null;
   targets: readonly SceneTarget[];
+  /** A coverage layer laid over the ground, or null. */
+  drape?: SceneDrape | null;
 }
 
 /** Colours of the sight lines: seen, not seen, not known (the caption says which is which). */
 export const RAY_COLOURS = { seen: '#1E5A9E', hidden: '#C2410C', unknown: '#54646B' } as const;
 
 /** The site's terrain in 3D: the draped mesh, the posts, and sight lines from the chosen post to the tapped points. */
-export default function TerrainScene({ mesh, texture, exaggeration, posts, chosenPostId, targets }: TerrainSceneProps) {
+export default function TerrainScene({
+  mesh,
+  texture,
+  exaggeration,
+  posts,
+  chosenPostId,
+  targets,
+  drape = null,
+}: TerrainSceneProps) {
   const group = useRef<Group>(null);
   const frame = useMemo(() => sceneFrame(mesh, exaggeration), [mesh, exaggeration]);
   const span = Math.max(frame.halfWidth, frame.halfDepth) * 2;
@@ -76,6 +87,7 @@ export default function TerrainScene({ mesh, texture, exaggeration, posts, chose
         <Suspense fallback={null}>
           <TerrainSurface mesh={mesh} frame={frame} textureUrl={texture.url} textureBounds={texture.bounds} />
         </Suspense>
+        {drape ? <CoverageDrape mesh={mesh} frame={frame} drape={drape} /> : null}
         {pins.map(({ p, foot, heightY }) => (
           <PostPin
             key={p.id}

@@ -1,11 +1,21 @@
 import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
+import { RunMapScreen } from '@/components/map/run-map-screen';
 import { SiteMapScreen } from '@/components/map/site-map-screen';
 import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
 
-const Params = z.object({ siteId: z.uuid(), postId: z.uuid().optional() });
+const Params = z.object({
+  siteId: z.uuid(),
+  postId: z.uuid().optional(),
+  /** A coverage run whose layers to draw, and the case (target × condition) to start with. */
+  runId: z.uuid().optional(),
+  caseKey: z.string().min(1).optional(),
+  /** A point to centre on and start the profile to (e.g. a blind area), degrees. */
+  lat: z.coerce.number().min(-90).max(90).optional(),
+  lon: z.coerce.number().min(-180).max(180).optional(),
+});
 
 export default function SiteMapRoute() {
   const parsed = Params.safeParse(useLocalSearchParams());
@@ -13,10 +23,16 @@ export default function SiteMapRoute() {
     return (
       <Screen title="Map">
         <Notice tone="danger">
-          <AppText>This address does not name a site (or names a post wrongly).</AppText>
+          <AppText>This address does not name a site (or names a post or a coverage run wrongly).</AppText>
         </Notice>
       </Screen>
     );
   }
-  return <SiteMapScreen siteId={parsed.data.siteId} focusPostId={parsed.data.postId ?? null} />;
+  const { siteId, postId, runId, caseKey, lat, lon } = parsed.data;
+  const at = lat !== undefined && lon !== undefined ? { latDeg: lat, lonDeg: lon } : null;
+  return runId ? (
+    <RunMapScreen siteId={siteId} runId={runId} caseKey={caseKey ?? null} focusPostId={postId ?? null} focusAt={at} />
+  ) : (
+    <SiteMapScreen siteId={siteId} focusPostId={postId ?? null} focusAt={at} />
+  );
 }
