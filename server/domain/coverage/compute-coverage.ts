@@ -64,6 +64,25 @@ export function flatTerrain(grid: CoverageRunGrid): TerrainRaster {
   });
 }
 
+const SEEN = VISIBILITY_CLASS.seen;
+const TARGET_ONLY = VISIBILITY_CLASS.targetOnly;
+
+/**
+ * Site cells where a post sees the target: from its posts-per-cell counts
+ * (`kind` 1: count > 0) or straight from its visibility classes (`kind` 0:
+ * seen or target only). A plain loop: this runs on every cell for every post
+ * and case.
+ */
+function countSeen(values: Uint8Array, kind: 0 | 1, siteMask: Uint8Array | null): number {
+  let seen = 0;
+  for (let j = 0; j < values.length; j++) {
+    const v = values[j]!;
+    const sees = kind === 1 ? v > 0 : v === SEEN || v === TARGET_ONLY;
+    if (sees && (siteMask === null || siteMask[j] === 1)) seen++;
+  }
+  return seen;
+}
+
 const sha256 = (encoded: EncodedClassRaster) => createHash('sha256').update(encoded.data).digest('hex');
 const round = (value: number, digits: number) => Math.round(value * 10 ** digits) / 10 ** digits;
 const DEG = Math.PI / 180;
@@ -98,7 +117,11 @@ export async function computeCoverage(
       return [x, y] as const;
     });
   const siteMask = inputs.site.boundary ? rasterizePolygon(terrain, [toRing(inputs.site.boundary)]) : null;
-  const zones = inputs.site.zones.map((z) => ({ name: z.name, weight: z.weight, mask: rasterizePolygon(terrain, [toRing(z.ring)]) }));
+  const zones = inputs.site.zones.map((z) => ({
+    name: z.name,
+    weight: z.weight,
+    mask: rasterizePolygon(terrain, [toRing(z.ring)]),
+  }));
   const siteCells = siteMask ? siteMask.reduce((n, v) => n + v, 0) : terrain.width * terrain.height;
 
   const flat = inputs.terrain === null;
@@ -184,21 +207,27 @@ export async function computeCoverage(
         const classes = classifyVisibility(entry.hidden, target.countsFromM).classes;
         addLayer(key, 'post-visibility', posts[i]!.input.id, classes);
         // Cells where the post sees the target: its classes, and its sector when it has one.
-        const sees = entry.sector
-          ? countPostsPerCell(terrain, [
-              {
-                col: entry.post.col,
-                row: entry.post.row,
-                classes,
-                sector: entry.sector,
-                gridConvergence: entry.gridConvergence,
-                maxDistance: entry.hidden.maxDistance,
-              },
-            ]).counts
-          : classes.map((c) => (c === VISIBILITY_CLASS.seen || c === VISIBILITY_CLASS.targetOnly ? 1 : 0));
-        let seen = 0;
-        for (let j = 0; j < sees.length; j++) if (sees[j]! > 0 && (!siteMask || siteMask[j] === 1)) seen++;
-        return { postId: posts[i]!.input.id, postName: posts[i]!.input.name, seenPct: siteCells ? round((100 * seen) / siteCells, 2) : 0 };
+        const seen = entry.sector
+          ? countSeen(
+              countPostsPerCell(terrain, [
+                {
+                  col: entry.post.col,
+                  row: entry.post.row,
+                  classes,
+                  sector: entry.sector,
+                  gridConvergence: entry.gridConvergence,
+                  maxDistance: entry.hidden.maxDistance,
+                },
+              ]).counts,
+              1,
+              siteMask,
+            )
+          : countSeen(classes, 0, siteMask);
+        return {
+          postId: posts[i]!.input.id,
+          postName: posts[i]!.input.name,
+          seenPct: siteCells ? round((100 * seen) / siteCells, 2) : 0,
+        };
       });
       const { statistics, check } = coverage;
       cases.push({
