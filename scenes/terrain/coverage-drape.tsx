@@ -1,9 +1,10 @@
 import { useEffect, useMemo } from 'react';
-import { BufferAttribute, BufferGeometry, DataTexture, LinearFilter, NearestFilter, RGBAFormat, SRGBColorSpace } from 'three';
+import { DataTexture, LinearFilter, NearestFilter, RGBAFormat, SRGBColorSpace } from 'three';
 import type { ClassPalette } from '@/components/map/class-palettes';
 import { classRasterBounds, type ClassRasterGrid } from '@/components/map/class-raster-pixels';
 import { drapePixels } from './coverage-drape-pixels';
-import { terrainSurface, type MeshGrid, type SceneFrame } from './terrain-geometry';
+import type { MeshGrid, SceneFrame } from './terrain-geometry';
+import { useSurfaceGeometry } from './use-surface-geometry';
 
 /** A decoded coverage layer to lay over the terrain. */
 export interface SceneDrape {
@@ -22,15 +23,7 @@ export interface SceneDrape {
  */
 export function CoverageDrape({ mesh, frame, drape }: { mesh: MeshGrid; frame: SceneFrame; drape: SceneDrape }) {
   const bounds = useMemo(() => classRasterBounds(drape.grid), [drape.grid]);
-  const geometry = useMemo(() => {
-    const surface = terrainSurface(mesh, frame, bounds);
-    const g = new BufferGeometry();
-    g.setAttribute('position', new BufferAttribute(surface.positions, 3));
-    g.setAttribute('uv', new BufferAttribute(surface.uvs, 2));
-    g.setIndex(new BufferAttribute(surface.indices, 1));
-    g.computeVertexNormals();
-    return g;
-  }, [mesh, frame, bounds]);
+  const geometry = useSurfaceGeometry(mesh, frame, bounds);
   const texture = useMemo(() => {
     const { width, height, rgba } = drapePixels(drape.values, drape.grid, drape.palette);
     const t = new DataTexture(rgba, width, height, RGBAFormat);
@@ -41,7 +34,6 @@ export function CoverageDrape({ mesh, frame, drape }: { mesh: MeshGrid; frame: S
     t.needsUpdate = true;
     return t;
   }, [drape]);
-  useEffect(() => () => geometry.dispose(), [geometry]);
   useEffect(() => () => texture.dispose(), [texture]);
   return (
     <mesh geometry={geometry} renderOrder={1}>

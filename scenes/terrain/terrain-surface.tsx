@@ -1,7 +1,8 @@
 import { useLoader } from '@react-three/fiber';
-import { useEffect, useMemo } from 'react';
-import { BufferAttribute, BufferGeometry, SRGBColorSpace, TextureLoader } from 'three';
-import { terrainSurface, type MeshGrid, type SceneFrame } from './terrain-geometry';
+import { useMemo } from 'react';
+import { SRGBColorSpace, TextureLoader } from 'three';
+import type { MeshGrid, SceneFrame } from './terrain-geometry';
+import { useSurfaceGeometry } from './use-surface-geometry';
 
 /** The terrain mesh with the hillshade (or, later, a coverage picture) draped over it. */
 export function TerrainSurface({
@@ -16,16 +17,7 @@ export function TerrainSurface({
   textureBounds: { west: number; south: number; east: number; north: number };
 }) {
   const texture = useLoader(TextureLoader, textureUrl);
-  const geometry = useMemo(() => {
-    const surface = terrainSurface(mesh, frame, textureBounds);
-    const g = new BufferGeometry();
-    g.setAttribute('position', new BufferAttribute(surface.positions, 3));
-    g.setAttribute('uv', new BufferAttribute(surface.uvs, 2));
-    g.setIndex(new BufferAttribute(surface.indices, 1));
-    g.computeVertexNormals();
-    return g;
-  }, [mesh, frame, textureBounds]);
-  useEffect(() => () => geometry.dispose(), [geometry]);
+  const geometry = useSurfaceGeometry(mesh, frame, textureBounds);
   useMemo(() => {
     texture.colorSpace = SRGBColorSpace;
   }, [texture]);
