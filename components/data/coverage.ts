@@ -5,29 +5,17 @@ import {
   ACTIVE_RUN_STATUSES,
   CoverageComparisonSchema,
   CoverageRunSchema,
+  EncodedClassRasterSchema,
   PlanCoverageSchema,
   type CoverageLayerName,
   type CoverageRun,
   type PlanCoverage,
 } from '@/shared/schemas/coverage';
-import { CLASS_RASTER_ENCODING, type EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
 import { api } from './api-client';
 import { STALE } from './query-client';
 
 /** How often an active run is asked for its progress, ms. */
 export const RUN_POLL_MS = 1000;
-
-/** A layer as `GET /coverage-runs/:id/layers/:layer` sends it (`kenning-rle8/1`). */
-export const EncodedClassRasterSchema = z.object({
-  format: z.literal(CLASS_RASTER_ENCODING),
-  width: z.number().int().positive(),
-  height: z.number().int().positive(),
-  cellSize: z.number().positive(),
-  xll: z.number(),
-  yll: z.number(),
-  epsg: z.number().int().nullable(),
-  data: z.string(),
-}) satisfies z.ZodType<EncodedClassRaster>;
 
 /** Which layer of which case (and, for one post's classes, which post). */
 export interface CoverageLayerRequest {

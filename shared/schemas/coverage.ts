@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { CLASS_RASTER_ENCODING, type EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
 
 /*
  * Terrain coverage of a plan: a run computes, for every target × condition of
@@ -156,6 +157,18 @@ export const CoverageCompareQuerySchema = z.object({
   caseKeyB: z.string().min(1).optional(),
 });
 
+/** A layer as `GET /coverage-runs/:id/layers/:layer` sends it (`kenning-rle8/1`). */
+export const EncodedClassRasterSchema = z.object({
+  format: z.literal(CLASS_RASTER_ENCODING),
+  width: z.number().int().positive(),
+  height: z.number().int().positive(),
+  cellSize: z.number().positive(),
+  xll: z.number(),
+  yll: z.number(),
+  epsg: z.number().int().nullable(),
+  data: z.string(),
+}) satisfies z.ZodType<EncodedClassRaster>;
+
 const ChangeMeasureSchema = z.object({ cells: z.number(), area: z.number() });
 
 /** Body of GET /coverage-compare. */
@@ -163,16 +176,7 @@ export const CoverageComparisonSchema = z.object({
   a: z.object({ runId: z.uuid(), planId: z.uuid(), caseKey: z.string(), site: AreaCoverageSchema }),
   b: z.object({ runId: z.uuid(), planId: z.uuid(), caseKey: z.string(), site: AreaCoverageSchema }),
   /** `kenning-rle8/1` raster of COVERAGE_CHANGE codes. */
-  difference: z.object({
-    format: z.literal('kenning-rle8/1'),
-    width: z.number(),
-    height: z.number(),
-    cellSize: z.number(),
-    xll: z.number(),
-    yll: z.number(),
-    epsg: z.number().nullable(),
-    data: z.string(),
-  }),
+  difference: EncodedClassRasterSchema,
   statistics: z.object({
     compared: ChangeMeasureSchema,
     byChange: z.object({

@@ -1,6 +1,7 @@
 import { CROSS_BEARING_PALETTE, POST_VISIBILITY_PALETTE, POSTS_PER_CELL_PALETTE } from '@/components/map/class-palettes';
 import { coverageLayersOf } from '@/components/map/coverage-run-layers';
-import { EncodedClassRasterSchema, coverageKeys } from '@/components/data/coverage';
+import { coverageKeys } from '@/components/data/coverage';
+import { EncodedClassRasterSchema } from '@/shared/schemas/coverage';
 import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
 
 // An invented 2 × 1 raster.
