@@ -3,7 +3,7 @@ import type { CoverageCase, CoverageLayerName } from '@/shared/schemas/coverage'
 import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
 import type { EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
 import { gridConvergence } from '@/shared/terrain/grid-convergence';
-import { gridProjection } from '@/shared/terrain/grid-projection';
+import { gridProjection, type GridProjection } from '@/shared/terrain/grid-projection';
 import type { HiddenHeightRaster, LookoutPost, SightConditions } from '@/shared/terrain/hidden-height-raster';
 import { locatePostCell } from '@/shared/terrain/locate-post-cell';
 import { evaluateNetworkCoverage, type NetworkPost } from '@/shared/terrain/network-coverage';
@@ -83,6 +83,14 @@ function countSeen(values: Uint8Array, kind: 0 | 1, siteMask: Uint8Array | null)
   return seen;
 }
 
+/** A WGS84 ring (`[lon, lat]` pairs, as sites store them) in a grid's projected metres. */
+export function ringOnGrid(projection: GridProjection, ring: readonly (readonly [number, number])[]): PolygonRing {
+  return ring.map(([lonDeg, latDeg]) => {
+    const { x, y } = projection.toGrid({ latDeg, lonDeg });
+    return [x, y] as const;
+  });
+}
+
 const sha256 = (encoded: EncodedClassRaster) => createHash('sha256').update(encoded.data).digest('hex');
 const round = (value: number, digits: number) => Math.round(value * 10 ** digits) / 10 ** digits;
 const DEG = Math.PI / 180;
@@ -111,11 +119,7 @@ export async function computeCoverage(
   report: ReportProgress,
 ): Promise<ComputedCoverage> {
   const projection = gridProjection(terrain.crs);
-  const toRing = (ring: [number, number][]): PolygonRing =>
-    ring.map(([lonDeg, latDeg]) => {
-      const { x, y } = projection.toGrid({ latDeg, lonDeg });
-      return [x, y] as const;
-    });
+  const toRing = (ring: [number, number][]) => ringOnGrid(projection, ring);
   const siteMask = inputs.site.boundary ? rasterizePolygon(terrain, [toRing(inputs.site.boundary)]) : null;
   const zones = inputs.site.zones.map((z) => ({
     name: z.name,

@@ -71,8 +71,7 @@ export const caseKeyOf = (targetId: string, conditionSetId: string, conditionInd
   `${targetId}:${conditionSetId}:${conditionIndex}`;
 
 /** sha256 of the canonical JSON of the inputs, hex. */
-export const coverageInputsHash = (inputs: CoverageRunInputs) =>
-  createHash('sha256').update(canonicalJson(inputs)).digest('hex');
+export const coverageInputsHash = (inputs: CoverageRunInputs) => createHash('sha256').update(canonicalJson(inputs)).digest('hex');
 
 const conditionLabel = (condition: RefractionCondition, k: number): string => {
   if ('preset' in condition) {

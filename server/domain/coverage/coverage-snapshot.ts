@@ -62,6 +62,7 @@ export async function coverageForSubmit(
 ): Promise<{ snapshot: CoverageSnapshot | null; required: boolean; pending: boolean }> {
   const { inputs, inputsHash, hasTerrain } = await currentCoverageInputs(organizationId, plan, loaded, transaction);
   const run = await coverageRepository.findCurrent(plan.id, inputsHash, transaction);
-  if (run?.status === 'done') return { snapshot: await coverageSnapshotOf(run, inputs, transaction), required: hasTerrain, pending: false };
+  if (run?.status === 'done')
+    return { snapshot: await coverageSnapshotOf(run, inputs, transaction), required: hasTerrain, pending: false };
   return { snapshot: null, required: hasTerrain, pending: run !== null };
 }

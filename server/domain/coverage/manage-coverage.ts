@@ -1,12 +1,6 @@
 import type { Sequelize } from 'sequelize';
-import type {
-  CoverageComparison,
-  CoverageLayerName,
-  CoverageRun,
-  PlanCoverage,
-} from '@/shared/schemas/coverage';
+import type { CoverageComparison, CoverageLayerName, CoverageRun, PlanCoverage } from '@/shared/schemas/coverage';
 import { ACTIVE_RUN_STATUSES } from '@/shared/schemas/coverage';
-import type { PlanStatus } from '@/shared/schemas/plan';
 import { compareCoverage } from '@/shared/terrain/coverage-difference';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
 import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
@@ -20,11 +14,10 @@ import { plansRepository } from '@/server/data/repositories/plans-repository';
 import { AppError } from '@/server/http/app-error';
 import type { CoverageQueue } from '@/server/queue/coverage-queue';
 import type { Actor } from '../actor';
-import { getPlan, loadPlanInputs } from '../plans/manage-plans';
+import { EDITABLE, getPlan, loadPlanInputs } from '../plans/manage-plans';
+import { ringOnGrid } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
 import { currentCoverageInputs } from './coverage-snapshot';
-
-const EDITABLE: PlanStatus[] = ['draft', 'returned'];
 
 /** What the coverage use cases need. */
 export interface CoverageDeps {
@@ -238,15 +231,15 @@ export async function compareCoverageRuns(
   query: { a: string; b: string; caseKey: string; caseKeyB?: string },
 ): Promise<CoverageComparison> {
   const [a, b] = await Promise.all([visibleRun(actor, query.a), visibleRun(actor, query.b)]);
-  for (const [run, field] of [[a, 'a'], [b, 'b']] as const) {
+  for (const [run, field] of [
+    [a, 'a'],
+    [b, 'b'],
+  ] as const) {
     if (run.status !== 'done') {
       throw AppError.badRequest('Both runs must have finished.', { [field]: 'This run has not finished.' });
     }
   }
-  const same =
-    a.siteId === b.siteId &&
-    a.terrainId === b.terrainId &&
-    JSON.stringify(a.grid) === JSON.stringify(b.grid);
+  const same = a.siteId === b.siteId && a.terrainId === b.terrainId && JSON.stringify(a.grid) === JSON.stringify(b.grid);
   if (!same) {
     throw AppError.conflict(
       'These runs are on different sites or terrain grids, so their cells cannot be compared.',
@@ -269,16 +262,7 @@ export async function compareCoverageRuns(
   ]);
   if (!layerA || !layerB) throw AppError.notFound('That layer');
   const boundary = (a.inputs as CoverageRunInputs).site.boundary;
-  let mask: Uint8Array | null = null;
-  if (boundary) {
-    const projection = gridProjection(grid.crs);
-    mask = rasterizePolygon(grid, [
-      boundary.map(([lonDeg, latDeg]) => {
-        const { x, y } = projection.toGrid({ latDeg, lonDeg });
-        return [x, y] as const;
-      }),
-    ]);
-  }
+  const mask = boundary ? rasterizePolygon(grid, [ringOnGrid(gridProjection(grid.crs), boundary)]) : null;
   const difference = compareCoverage(
     postsPerCellOf(grid, decodeClassRaster(layerA)),
     postsPerCellOf(grid, decodeClassRaster(layerB)),

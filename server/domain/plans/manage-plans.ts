@@ -13,7 +13,8 @@ import type { Actor } from '../actor';
 import { coverageForSubmit } from '../coverage/coverage-snapshot';
 import { buildSnapshot, contentHash } from './build-snapshot';
 
-const EDITABLE: PlanStatus[] = ['draft', 'returned'];
+/** Statuses in which a plan (and its coverage) may still change. */
+export const EDITABLE: PlanStatus[] = ['draft', 'returned'];
 const STALE = 'Someone else changed this plan since you opened it. Reload to see their change, then try again.';
 
 export interface PlanDeps {
