@@ -15,7 +15,22 @@ export function formatAngle(deg: number | null): string {
   return Math.abs(arcmin) < 60 ? `${arcmin.toFixed(2)}′` : `${deg.toFixed(3)}°`;
 }
 
-export const LIMIT_LABELS = { horizon: 'horizon', visibility: 'visibility', 'angular-size': 'angular size' } as const;
+export const LIMIT_LABELS = {
+  horizon: 'horizon',
+  visibility: 'visibility',
+  'angular-size': 'angular size',
+  'luminous-range': 'luminous range',
+  'sea-state': 'sea state',
+} as const;
+
+/** What each limit means, in a sentence, for a person reading a result. */
+export const LIMIT_EXPLANATIONS = {
+  horizon: 'The earth (the horizon) hides the target beyond this range.',
+  visibility: 'The haze of the air (the visibility) hides the target beyond this range.',
+  'angular-size': 'Beyond this range the target is too small for the eye to make out at the resolving angle.',
+  'luminous-range': 'At night the light is too faint beyond this range (Allard’s law, night threshold).',
+  'sea-state': 'Wave crests hide the part of the target that must show.',
+} as const;
 
 export const REGIME_LABELS = {
   'sub-refraction': 'sub-refraction',

@@ -264,6 +264,29 @@ export const SightlineRequestSchema = z
       .min(0.1, 'Resolution must be at least 0.1′.')
       .max(60, 'Resolution must be at most 60′.')
       .optional(),
+    /** Day (default) or night: at night only a light is seen, out to its luminous range. */
+    period: z.enum(['day', 'night'], { error: 'Period must be day or night.' }).optional(),
+    /** Luminous intensity of the target's light towards the lookout, candela, 0…10⁹ (a hand flare ≈ 15 000 cd). */
+    lightIntensityCd: z
+      .number({ error: 'Light intensity must be a number of candela.' })
+      .min(0, 'Light intensity cannot be negative.')
+      .max(1e9, 'Light intensity must be at most 10⁹ cd.')
+      .optional(),
+    /** Lights behind the target at night: none (default), some (×10 threshold) or much (×100). */
+    backgroundLighting: z.enum(['none', 'some', 'much'], { error: 'Background lighting must be none, some or much.' }).optional(),
+    /** Sea state, Douglas degree 0–9 (WMO code table 3700): screens the lower part of a target on the water. */
+    seaState: z
+      .number({ error: 'Sea state must be a whole degree 0–9.' })
+      .int('Sea state must be a whole degree 0–9.')
+      .min(0, 'Sea state must be 0 to 9.')
+      .max(9, 'Sea state must be 0 to 9.')
+      .optional(),
+    /** Significant wave height, metres, 0…30; instead of `seaState`. */
+    significantWaveHeightM: z
+      .number({ error: 'Wave height must be a number of metres.' })
+      .min(0, 'Wave height cannot be negative.')
+      .max(30, 'Wave height must be at most 30 m.')
+      .optional(),
     /** Refraction conditions to evaluate, 1…50; one result each, in order. */
     conditions: z
       .array(RefractionConditionSchema, { error: 'Conditions must be a list.' })
@@ -280,6 +303,9 @@ export const SightlineRequestSchema = z
       request.requiredVisibleM > request.targetHeightM
     ) {
       ctx.addIssue({ code: 'custom', path: ['requiredVisibleM'], message: 'The required visible part cannot exceed the target height.' });
+    }
+    if (request.seaState !== undefined && request.significantWaveHeightM !== undefined) {
+      ctx.addIssue({ code: 'custom', path: ['significantWaveHeightM'], message: 'Give the sea state or the wave height, not both.' });
     }
     if (request.visibilityKind !== undefined && request.visibilityM === undefined) {
       ctx.addIssue({ code: 'custom', path: ['visibilityKind'], message: 'Give the visibility with its kind.' });
@@ -300,6 +326,9 @@ export const SIGHTLINE_WARNING_CODES = [
   'beyond-effective-quarter',
   'required-part-exceeds-target',
   'detection-unbounded',
+  'near-ducting',
+  'screened-by-waves',
+  'unlit-at-night',
 ] as const;
 
 /** Caution codes attached to every response. */
@@ -319,7 +348,8 @@ export const SightlineCautionSchema = z.object({ code: z.enum(SIGHTLINE_CAUTION_
 export type SightlineCaution = z.infer<typeof SightlineCautionSchema>;
 
 /** Which limit sets the detection range. */
-export const DetectionLimitSchema = z.enum(['horizon', 'visibility', 'angular-size']);
+export const DetectionLimitSchema = z.enum(['horizon', 'visibility', 'angular-size', 'luminous-range', 'sea-state']);
+export type DetectionLimitValue = z.infer<typeof DetectionLimitSchema>;
 
 /** Refraction regime by k: sub (k < 0), standard (0 ≤ k < 0.5), super (0.5 ≤ k < 1), ducting (k ≥ 1). */
 export const RefractionRegimeSchema = z.enum(['sub-refraction', 'standard', 'super-refraction', 'ducting']);
@@ -349,6 +379,14 @@ export const SightlineResultSchema = z.object({
   detectionRangeM: metres,
   /** Which limit sets `detectionRangeM`. */
   limitedBy: DetectionLimitSchema.nullable(),
+  /** By day: the visibility limit at the 5 % threshold, metres (null without a visibility, or at night). */
+  visibilityLimitM: metres.default(null),
+  /** By day: the angular-size limit for the target's size at the resolving angle, metres. */
+  angularSizeLimitM: metres.default(null),
+  /** At night: the light's luminous range (Allard's law, IALA threshold), metres; 0 for a target without a light. */
+  luminousRangeM: metres.default(null),
+  /** Height of the wave crests screening a target on the water, metres (0 without a sea). */
+  waveScreenM: z.number().default(0),
   warnings: z.array(SightlineWarningSchema),
 });
 export type SightlineResult = z.infer<typeof SightlineResultSchema>;

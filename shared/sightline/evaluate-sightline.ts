@@ -19,8 +19,20 @@ import {
   visibleHeight,
   type SphereOptions,
 } from '@/shared/sightline';
+import { formatK } from '@/shared/sightline/format-k';
 import { refractionFromCondition } from '@/shared/sightline/refraction-from-condition';
+import { waveScreenHeight } from '@/shared/sightline/wave-screen';
 import { convertAngle } from '@/shared/units/angle';
+
+/** From this k on, the model warns that a duct is near (the horizon runs away as k → 1). */
+const NEAR_DUCT_FROM_K = 0.9;
+
+/** The wave screen of a request: from its sea state or significant wave height, else 0. */
+export function waveScreenOf(request: Pick<SightlineRequest, 'seaState' | 'significantWaveHeightM'>): number {
+  if (request.significantWaveHeightM !== undefined) return waveScreenHeight({ significantWaveHeightM: request.significantWaveHeightM });
+  if (request.seaState !== undefined) return waveScreenHeight({ seaState: request.seaState });
+  return 0;
+}
 
 /** Standing cautions returned with every evaluation. */
 const CAUTIONS: readonly SightlineCaution[] = Object.freeze([
@@ -45,7 +57,6 @@ const CAUTIONS: readonly SightlineCaution[] = Object.freeze([
   },
 ] satisfies SightlineCaution[]);
 
-const format = (value: number, digits = 3) => Number(value.toPrecision(digits)).toString();
 
 function evaluateCondition(request: SightlineRequest, condition: RefractionCondition): SightlineResult {
   const earthRadiusM = request.earthRadiusM ?? MEAN_EARTH_RADIUS_M;
@@ -61,20 +72,29 @@ function evaluateCondition(request: SightlineRequest, condition: RefractionCondi
     warnings.push({
       code: 'ducting',
       message:
-        `k = ${format(k)} ≥ 1 (ducting): rays bend at least as fast as the surface, so there is no geometric horizon. ` +
+        `k = ${formatK(k)} ≥ 1 (ducting): rays bend at least as fast as the surface, so there is no geometric horizon. ` +
         'Effective radius, horizon distance, tangent length, dip and geographic range do not exist, and nothing is hidden by curvature in this model; ' +
         'real ducts trap light in layers this model does not describe.',
     });
   } else if (regime === 'sub-refraction') {
     warnings.push({
       code: 'sub-refraction',
-      message: `k = ${format(k)} < 0 (sub-refraction): rays bend upward, horizons come closer and distant targets sink.`,
+      message: `k = ${formatK(k)} < 0 (sub-refraction): rays bend upward, horizons come closer and distant targets sink.`,
     });
   } else if (regime === 'super-refraction') {
     warnings.push({
       code: 'super-refraction',
-      message: `k = ${format(k)} (super-refraction): rays bend more than standard, horizons recede and hidden targets may loom into view.`,
+      message: `k = ${formatK(k)} (super-refraction): rays bend more than standard, horizons recede and hidden targets may loom into view.`,
     });
+    if (k >= NEAR_DUCT_FROM_K) {
+      warnings.push({
+        code: 'near-ducting',
+        message:
+          `k = ${formatK(k)} is close to 1, where the sight line bends as fast as the earth: the horizon and ranges below grow without bound ` +
+          `as k nears 1 (the effective radius is ${Math.round(1 / (1 - k))} times the earth's). Such a gradient does not hold over long ranges; ` +
+          'read these distances as "very far, unreliable", not as figures.',
+      });
+    }
   }
 
   const dip = horizonDip(h, sphere);
@@ -99,6 +119,10 @@ function evaluateCondition(request: SightlineRequest, condition: RefractionCondi
   let geographic: number | null = null;
   let detection: number | null = null;
   let limitedBy: SightlineResult['limitedBy'] = null;
+  let limits = { visibilityLimitM: null, angularSizeLimitM: null, luminousRangeM: null, waveScreenM: 0 } as Pick<
+    SightlineResult,
+    'visibilityLimitM' | 'angularSizeLimitM' | 'luminousRangeM' | 'waveScreenM'
+  >;
   if (target === undefined) {
     warnings.push({
       code: 'target-height-not-given',
@@ -114,10 +138,33 @@ function evaluateCondition(request: SightlineRequest, condition: RefractionCondi
       visibilityKind: request.visibilityKind,
       targetSizeM: request.targetSizeM,
       resolutionRad: convertAngle(request.resolutionArcmin ?? 1, 'arcmin', 'rad'),
+      period: request.period ?? 'day',
+      lightIntensityCd: request.lightIntensityCd,
+      backgroundLighting: request.backgroundLighting,
+      waveScreenM: waveScreenOf(request),
       ...sphere,
     });
     detection = result.rangeM;
     limitedBy = result.limitedBy;
+    limits = {
+      visibilityLimitM: result.limits.visibilityM,
+      angularSizeLimitM: result.limits.angularSizeM,
+      luminousRangeM: result.limits.luminousRangeM,
+      waveScreenM: result.limits.waveScreenM,
+    };
+    if (result.reason === 'screened-by-waves') {
+      warnings.push({
+        code: 'screened-by-waves',
+        message:
+          `Wave crests about ${Number(result.limits.waveScreenM.toPrecision(3))} m above the mean surface hide the part of the target that must show, ` +
+          'so it is not counted as detectable in this sea (it may show now and then between crests).',
+      });
+    } else if (result.reason === 'unlit-at-night') {
+      warnings.push({
+        code: 'unlit-at-night',
+        message: 'At night a target without a light is not detected by eye in this model: give the light’s intensity (cd).',
+      });
+    }
     if (result.reason === 'required-part-exceeds-target') {
       warnings.push({
         code: 'required-part-exceeds-target',
@@ -143,6 +190,7 @@ function evaluateCondition(request: SightlineRequest, condition: RefractionCondi
     geographicRangeM: geographic,
     detectionRangeM: detection,
     limitedBy,
+    ...limits,
     warnings,
   };
 }

@@ -22,6 +22,14 @@
 export type AbsentReason = 'ducting' | 'beyond-effective-quarter' | 'required-part-exceeds-target' | 'unbounded';
 
 /**
+ * Why a detection range is 0 although the geometry would allow more:
+ * - `screened-by-waves`: the wave crests stand as high as the part of the
+ *   target that must show;
+ * - `unlit-at-night`: at night a target without a light is not detected by eye.
+ */
+export type NoDetectionReason = 'screened-by-waves' | 'unlit-at-night';
+
+/**
  * A quantity that may not exist under the given conditions. Never NaN and
  * never ±Infinity: either a finite `value` with `reason: null`, or
  * `value: null` with the reason.
@@ -42,7 +50,10 @@ export interface SphereOptions {
 export type RefractionRegime = 'sub-refraction' | 'standard' | 'super-refraction' | 'ducting';
 
 /** Which limit sets a detection range. */
-export type DetectionLimit = 'horizon' | 'visibility' | 'angular-size';
+export type DetectionLimit = 'horizon' | 'visibility' | 'angular-size' | 'luminous-range' | 'sea-state';
+
+/** Day or night: by day a target is seen by its contrast and size, at night only by its light. */
+export type Period = 'day' | 'night';
 
 /** The two kinds of reported visibility Kenning accepts. */
 export type VisibilityKind = 'meteorological-range-2pct' | 'mor-5pct';
