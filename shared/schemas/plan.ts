@@ -7,13 +7,52 @@ import { SightlineResultSchema } from './sightline';
 export const PLAN_STATUSES = ['draft', 'submitted', 'returned', 'approved', 'superseded'] as const;
 export type PlanStatus = (typeof PLAN_STATUSES)[number];
 
+const percent = z.number({ error: 'Give a percentage.' }).min(0, '0 to 100 %.').max(100, '0 to 100 %.');
+const postCount = z.number({ error: '1 to 3 posts.' }).int('1 to 3 posts.').min(1, '1 to 3 posts.').max(3, '1 to 3 posts.');
+
+/** A rule of the standard for one target, e.g. "person in the water: 60 % of the priority zones by ≥ 1 post". */
+export const TargetRuleSchema = z.object({
+  targetId: z.uuid({ error: 'Choose a target.' }),
+  /** Where the share is measured: the whole site, or each priority zone. */
+  area: z.enum(['site', 'priority-zones'], { error: 'Site or priority zones.' }),
+  minPosts: postCount,
+  minPct: percent,
+});
+export type TargetRule = z.infer<typeof TargetRuleSchema>;
+
 /** The standard a plan must meet. */
 export const PlanStandardSchema = z.object({
   /** Least share of the site seen by at least one post, percent. */
-  minSeenPct: z.number({ error: 'Give a percentage.' }).min(0, '0 to 100 %.').max(100, '0 to 100 %.'),
+  minSeenPct: percent,
   /** Posts that must see each priority zone (for cross-bearings: 2). */
-  priorityMinPosts: z.number().int().min(1, '1 to 3 posts.').max(3, '1 to 3 posts.'),
+  priorityMinPosts: postCount,
+  /** Rules for single targets, checked in that target's cases only. */
+  targetRules: z.array(TargetRuleSchema).max(50, 'At most 50 target rules.').default([]),
+  /** Least share of each priority zone with good cross-bearings, percent; null = no such rule. */
+  crossBearingMinPct: percent.nullable().default(null),
 });
+export type PlanStandard = z.infer<typeof PlanStandardSchema>;
+
+/**
+ * The lookout the plan assumes: the eye's resolving angle and any optics.
+ * Binoculars of magnification M are taken to divide the resolving angle by M
+ * (an ideal instrument; real gain is less, and the narrow field slows the
+ * search) — the definition of angular magnification, common practice.
+ */
+export const PlanLookoutSchema = z.object({
+  /** Resolving angle of the unaided eye for detection, minutes of arc (1′ = 20/20 acuity). */
+  resolutionArcmin: z
+    .number({ error: 'Resolution must be a number of arcminutes.' })
+    .min(0.1, 'At least 0.1′.')
+    .max(60, 'At most 60′.')
+    .default(1),
+  /** Magnification of the optics used for the search, 1 = unaided. */
+  magnification: z.number({ error: 'Magnification must be a number.' }).min(1, 'At least 1×.').max(50, 'At most 50×.').default(1),
+});
+export type PlanLookout = z.infer<typeof PlanLookoutSchema>;
+
+/** Resolving angle in object space, arcminutes: the eye's divided by the magnification. */
+export const effectiveResolutionArcmin = (lookout: PlanLookout) => lookout.resolutionArcmin / lookout.magnification;
 
 const ids = (what: string) =>
   z
@@ -27,7 +66,8 @@ export const PlanInputSchema = z.object({
   postIds: ids('post'),
   targetIds: ids('target'),
   conditionSetIds: ids('condition set'),
-  standard: PlanStandardSchema.default({ minSeenPct: 70, priorityMinPosts: 2 }),
+  standard: PlanStandardSchema.default({ minSeenPct: 70, priorityMinPosts: 2, targetRules: [], crossBearingMinPct: null }),
+  lookout: PlanLookoutSchema.default({ resolutionArcmin: 1, magnification: 1 }),
 });
 export type PlanInput = z.infer<typeof PlanInputSchema>;
 
@@ -46,6 +86,7 @@ export const PlanSchema = z.object({
   targetIds: z.array(z.uuid()),
   conditionSetIds: z.array(z.uuid()),
   standard: PlanStandardSchema,
+  lookout: PlanLookoutSchema.default({ resolutionArcmin: 1, magnification: 1 }),
   status: z.enum(PLAN_STATUSES),
   /** Plan version: 1, then +1 each time an approved plan is changed. */
   version: z.number().int(),
@@ -128,7 +169,14 @@ export type PlanResultRow = z.infer<typeof PlanResultRowSchema>;
 export const PlanSnapshotSchema = z.object({
   assumptions: z.array(z.string()),
   inputs: z.object({
-    plan: z.object({ title: z.string(), standard: PlanStandardSchema }),
+    plan: z.object({
+      title: z.string(),
+      standard: PlanStandardSchema,
+      /** Absent in revisions made before the lookout was a plan setting (then 1′, unaided). */
+      lookout: PlanLookoutSchema.optional(),
+      /** The detection model the figures were made with; absent in older revisions. */
+      detectionModel: z.string().optional(),
+    }),
     site: z.record(z.string(), z.unknown()),
     posts: z.array(z.record(z.string(), z.unknown())),
     targets: z.array(z.record(z.string(), z.unknown())),

@@ -56,6 +56,10 @@ export const SiteSchema = z.object({
   defaultUnits: z.enum(UNIT_SYSTEM_IDS),
   /** IANA time zone, e.g. Europe/Oslo. */
   timeZone: z.string(),
+  /** Land/sea mask from the terrain: cells at or below this height are sea, metres; null = not stated. */
+  seaLevelMaxM: z.number().nullable().default(null),
+  /** The sea part of the site as a ring ([lon, lat], WGS84); null = not drawn. */
+  seaArea: z.array(z.tuple([z.number(), z.number()])).nullable().default(null),
   version: z.number().int(),
   /** ISO 8601. */
   updatedAt: z.string(),
@@ -84,6 +88,18 @@ export const SiteInputSchema = z.object({
   priorityZones: z.array(PriorityZoneSchema).max(50, 'At most 50 zones.').default([]),
   defaultUnits: z.enum(UNIT_SYSTEM_IDS).default('metric'),
   timeZone: z.string().refine(isTimeZone, 'Not a time zone name (use e.g. Europe/Oslo).').default('UTC'),
+  /**
+   * Land/sea mask from the terrain: cells at or below this height are sea, metres (−500…100); null = not
+   * stated. Targets on the water count only on sea cells.
+   */
+  seaLevelMaxM: z
+    .number({ error: 'Sea level must be a number of metres.' })
+    .min(-500, 'At least −500 m.')
+    .max(100, 'At most 100 m.')
+    .nullable()
+    .default(null),
+  /** The sea part of the site, a ring ([lon, lat], WGS84) drawn or imported; null = none. */
+  seaArea: RingSchema.nullable().default(null),
 });
 export type SiteInput = z.infer<typeof SiteInputSchema>;
 

@@ -53,7 +53,7 @@ export async function benchPlanCoverage(): Promise<Row[]> {
     })),
     skippedConditions: [],
     earthRadiusM: 6_371_008.8,
-    standard: { minSeenPct: 70, priorityMinPosts: 2 },
+    standard: { minSeenPct: 70, priorityMinPosts: 2, targetRules: [], crossBearingMinPct: null },
     blindAreaMinAreaM2: 10_000,
   };
   const pool = createViewshedPool();

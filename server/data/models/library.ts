@@ -27,6 +27,8 @@ export class TargetProfileModel extends Model<InferAttributes<TargetProfileModel
   declare widthM: number;
   declare requiredVisibleM: number;
   declare period: 'day' | 'night';
+  declare lightIntensityCd: CreationOptional<number | null>;
+  declare onWater: CreationOptional<boolean>;
   declare version: CreationOptional<number>;
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -41,6 +43,8 @@ export class TargetProfileModel extends Model<InferAttributes<TargetProfileModel
         widthM: { type: DataTypes.DOUBLE, allowNull: false },
         requiredVisibleM: { type: DataTypes.DOUBLE, allowNull: false },
         period: { type: DataTypes.STRING(8), allowNull: false },
+        lightIntensityCd: { type: DataTypes.DOUBLE, allowNull: true },
+        onWater: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       },
       { sequelize, tableName: 'target_profiles', paranoid: true },
     );
@@ -54,6 +58,9 @@ export class ConditionSetModel extends Model<InferAttributes<ConditionSetModel>,
   declare conditions: Record<string, number | string>[];
   declare visibilityM: number | null;
   declare visibilityKind: 'mor-5pct' | 'meteorological-range-2pct';
+  declare seaState: CreationOptional<number | null>;
+  declare significantWaveHeightM: CreationOptional<number | null>;
+  declare backgroundLighting: CreationOptional<'none' | 'some' | 'much'>;
   declare version: CreationOptional<number>;
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -66,6 +73,9 @@ export class ConditionSetModel extends Model<InferAttributes<ConditionSetModel>,
         conditions: { type: DataTypes.JSONB, allowNull: false },
         visibilityM: { type: DataTypes.DOUBLE, allowNull: true },
         visibilityKind: { type: DataTypes.STRING(32), allowNull: false },
+        seaState: { type: DataTypes.SMALLINT, allowNull: true },
+        significantWaveHeightM: { type: DataTypes.DOUBLE, allowNull: true },
+        backgroundLighting: { type: DataTypes.STRING(8), allowNull: false, defaultValue: 'none' },
       },
       { sequelize, tableName: 'condition_sets', paranoid: true },
     );

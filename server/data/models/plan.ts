@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { PlanStatus } from '@/shared/schemas/plan';
+import type { PlanLookout, PlanStandard, PlanStatus } from '@/shared/schemas/plan';
 
 export class PlanModel extends Model<InferAttributes<PlanModel>, InferCreationAttributes<PlanModel>> {
   declare id: CreationOptional<string>;
@@ -10,7 +10,8 @@ export class PlanModel extends Model<InferAttributes<PlanModel>, InferCreationAt
   declare postIds: string[];
   declare targetIds: string[];
   declare conditionSetIds: string[];
-  declare standard: { minSeenPct: number; priorityMinPosts: number };
+  declare standard: PlanStandard;
+  declare lookout: CreationOptional<PlanLookout>;
   declare status: CreationOptional<PlanStatus>;
   declare version: CreationOptional<number>;
   declare rowVersion: CreationOptional<number>;
@@ -30,6 +31,7 @@ export class PlanModel extends Model<InferAttributes<PlanModel>, InferCreationAt
         targetIds: { type: DataTypes.JSONB, allowNull: false },
         conditionSetIds: { type: DataTypes.JSONB, allowNull: false },
         standard: { type: DataTypes.JSONB, allowNull: false },
+        lookout: { type: DataTypes.JSONB, allowNull: false, defaultValue: { resolutionArcmin: 1, magnification: 1 } },
         status: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'draft' },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         rowVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },

@@ -27,6 +27,8 @@ export class SiteModel extends Model<InferAttributes<SiteModel>, InferCreationAt
   declare boundary: CreationOptional<PolygonGeometry | null>;
   declare defaultUnits: CreationOptional<'metric' | 'nautical' | 'imperial'>;
   declare timeZone: CreationOptional<string>;
+  declare seaLevelMaxM: CreationOptional<number | null>;
+  declare seaArea: CreationOptional<[number, number][] | null>;
   declare version: CreationOptional<number>;
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -43,6 +45,8 @@ export class SiteModel extends Model<InferAttributes<SiteModel>, InferCreationAt
         boundary: { type: DataTypes.GEOMETRY('POLYGON', 4326), allowNull: true },
         defaultUnits: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'metric' },
         timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'UTC' },
+        seaLevelMaxM: { type: DataTypes.DOUBLE, allowNull: true },
+        seaArea: { type: DataTypes.JSONB, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         deletedAt: DataTypes.DATE,
         createdAt: DataTypes.DATE,

@@ -13,6 +13,8 @@ const toTarget = (r: TargetProfileModel): Target => ({
   widthM: r.widthM,
   requiredVisibleM: r.requiredVisibleM,
   period: r.period,
+  lightIntensityCd: r.lightIntensityCd ?? null,
+  onWater: r.onWater,
   version: r.version,
   updatedAt: r.updatedAt.toISOString(),
 });
@@ -23,6 +25,9 @@ const toConditionSet = (r: ConditionSetModel): ConditionSet => ({
   conditions: r.conditions,
   visibilityM: r.visibilityM,
   visibilityKind: r.visibilityKind,
+  seaState: r.seaState ?? null,
+  significantWaveHeightM: r.significantWaveHeightM ?? null,
+  backgroundLighting: r.backgroundLighting,
   version: r.version,
   updatedAt: r.updatedAt.toISOString(),
 });

@@ -1,3 +1,4 @@
+import { PlanStandardSchema } from '@/shared/schemas/plan';
 import { col, fn, literal, Op, type Transaction } from 'sequelize';
 import { sortOrder } from '@/shared/schemas/list';
 import type { Plan, PlanInput, PlanListQuery, PlanRevision, PlanSnapshot, PlanStatus } from '@/shared/schemas/plan';
@@ -52,7 +53,8 @@ async function toPlans(rows: PlanModel[], transaction?: Transaction): Promise<Pl
     postIds: r.postIds,
     targetIds: r.targetIds,
     conditionSetIds: r.conditionSetIds,
-    standard: r.standard,
+    standard: PlanStandardSchema.parse(r.standard),
+    lookout: r.lookout ?? { resolutionArcmin: 1, magnification: 1 },
     status: r.status,
     version: r.version,
     previousId: r.previousId,

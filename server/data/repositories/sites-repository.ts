@@ -19,6 +19,8 @@ function toSite(row: SiteModel, zones: PriorityZoneModel[]): Site {
       .map((z) => ({ name: z.name, weight: z.weight, ring: ringOf(z.area) ?? [] })),
     defaultUnits: row.defaultUnits,
     timeZone: row.timeZone,
+    seaLevelMaxM: row.seaLevelMaxM ?? null,
+    seaArea: row.seaArea ?? null,
     version: row.version,
     updatedAt: row.updatedAt.toISOString(),
   };
@@ -85,6 +87,8 @@ export const sitesRepository = {
         boundary: input.boundary ? polygon(input.boundary) : null,
         defaultUnits: input.defaultUnits,
         timeZone: input.timeZone,
+        seaLevelMaxM: input.seaLevelMaxM,
+        seaArea: input.seaArea,
       },
       { transaction },
     );

@@ -95,6 +95,8 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
       ],
       defaultUnits: 'metric',
       timeZone: 'Europe/Berlin',
+      seaLevelMaxM: null,
+      seaArea: null,
     },
     posts: [
       {
@@ -143,6 +145,16 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
       priorityZones: [],
       defaultUnits: 'nautical',
       timeZone: 'Europe/Berlin',
+      seaLevelMaxM: null,
+      // North of an invented shoreline that runs a little inland of the two shore posts' beaches.
+      seaArea: ring([
+        [529_000, 5_751_500],
+        [536_000, 5_751_600],
+        [541_000, 5_751_900],
+        [549_000, 5_752_100],
+        [549_000, 5_763_000],
+        [529_000, 5_763_000],
+      ]),
     },
     posts: [
       {
@@ -197,33 +209,62 @@ async function seedDemoSites(db: Sequelize): Promise<boolean> {
  * for the demo (invented, not from a standard); agencies edit them to their own.
  */
 export const STARTER_TARGETS: TargetInput[] = [
-  { name: 'Early smoke column', kind: 'smoke-column', heightM: 60, widthM: 8, requiredVisibleM: 30, period: 'day' },
-  { name: 'Developed smoke column', kind: 'smoke-column', heightM: 300, widthM: 40, requiredVisibleM: 50, period: 'day' },
-  { name: 'Person in the water (head)', kind: 'person-in-water', heightM: 0.3, widthM: 0.3, requiredVisibleM: 0, period: 'day' },
-  { name: 'Six-person life raft', kind: 'raft', heightM: 1.2, widthM: 2, requiredVisibleM: 0, period: 'day' },
-  { name: 'Small open boat', kind: 'small-craft', heightM: 1.5, widthM: 5, requiredVisibleM: 0.5, period: 'day' },
-  { name: 'Hand flare', kind: 'light', heightM: 0, widthM: 0.05, requiredVisibleM: 0, period: 'night' },
+  { name: 'Early smoke column', kind: 'smoke-column', heightM: 60, widthM: 8, requiredVisibleM: 30, period: 'day', lightIntensityCd: null, onWater: false },
+  { name: 'Developed smoke column', kind: 'smoke-column', heightM: 300, widthM: 40, requiredVisibleM: 50, period: 'day', lightIntensityCd: null, onWater: false },
+  { name: 'Person in the water (head)', kind: 'person-in-water', heightM: 0.3, widthM: 0.3, requiredVisibleM: 0, period: 'day', lightIntensityCd: null, onWater: true },
+  { name: 'Six-person life raft', kind: 'raft', heightM: 1.2, widthM: 2, requiredVisibleM: 0, period: 'day', lightIntensityCd: null, onWater: true },
+  { name: 'Small open boat', kind: 'small-craft', heightM: 1.5, widthM: 5, requiredVisibleM: 0.5, period: 'day', lightIntensityCd: null, onWater: true },
+  // 15 000 cd: the least a hand flare must give under the IMO LSA Code (3.2); held about 1 m above the water.
+  { name: 'Hand flare', kind: 'light', heightM: 1, widthM: 0.05, requiredVisibleM: 0, period: 'night', lightIntensityCd: 15_000, onWater: true },
 ];
 
+const dayDefaults = { seaState: null, significantWaveHeightM: null, backgroundLighting: 'none' } as const;
+
 export const STARTER_CONDITION_SETS: ConditionSetInput[] = [
-  { name: 'Standard day', conditions: [{ preset: 'standard-optical' }], visibilityM: 20_000, visibilityKind: 'mor-5pct' },
+  { name: 'Standard day', conditions: [{ preset: 'standard-optical' }], visibilityM: 20_000, visibilityKind: 'mor-5pct', ...dayDefaults },
   {
     name: 'Refraction spread',
     conditions: [{ preset: 'no-refraction' }, { preset: 'standard-optical' }, { preset: 'radio-four-thirds' }],
     visibilityM: 20_000,
     visibilityKind: 'mor-5pct',
+    ...dayDefaults,
   },
   {
     name: 'Hot afternoon, haze',
     conditions: [{ preset: 'sub-refraction-heated-ground' }, { preset: 'no-refraction' }],
     visibilityM: 8_000,
     visibilityKind: 'mor-5pct',
+    ...dayDefaults,
   },
   {
     name: 'Cold sea, inversion',
     conditions: [{ preset: 'super-refraction-inversion' }, { preset: 'ducting-strong-inversion' }],
     visibilityM: null,
     visibilityKind: 'mor-5pct',
+    ...dayDefaults,
+  },
+  {
+    name: 'Breezy day, slight sea',
+    conditions: [{ preset: 'standard-optical' }],
+    visibilityM: 20_000,
+    visibilityKind: 'mor-5pct',
+    ...dayDefaults,
+    seaState: 3,
+  },
+  {
+    name: 'Clear night',
+    conditions: [{ preset: 'standard-optical' }],
+    visibilityM: 40_000,
+    visibilityKind: 'mor-5pct',
+    ...dayDefaults,
+  },
+  {
+    name: 'Hazy night, harbour lights',
+    conditions: [{ preset: 'standard-optical' }],
+    visibilityM: 3_000,
+    visibilityKind: 'mor-5pct',
+    ...dayDefaults,
+    backgroundLighting: 'some',
   },
 ];
 
@@ -288,7 +329,8 @@ async function seedDemoPlans(db: Sequelize, files?: FileStore): Promise<boolean>
       postIds: await posts(forest.id, 'existing'),
       targetIds: [...t('Early smoke column'), ...t('Developed smoke column')],
       conditionSetIds: c('Refraction spread'),
-      standard: { minSeenPct: 70, priorityMinPosts: 2 },
+      standard: { minSeenPct: 70, priorityMinPosts: 2, targetRules: [], crossBearingMinPct: null },
+      lookout: { resolutionArcmin: 1, magnification: 1 },
     });
     await requestCoverage(coverage, planner, season.id);
     const s1 = await submitPlan(deps, planner, season.id, season.rowVersion);
@@ -304,7 +346,14 @@ async function seedDemoPlans(db: Sequelize, files?: FileStore): Promise<boolean>
       postIds: await posts(coast.id),
       targetIds: [...t('Person in the water (head)'), ...t('Six-person life raft'), ...t('Small open boat')],
       conditionSetIds: [...c('Standard day'), ...c('Cold sea, inversion')],
-      standard: { minSeenPct: 90, priorityMinPosts: 1 },
+      standard: {
+        minSeenPct: 90,
+        priorityMinPosts: 1,
+        // The person in the water only near the beaches' posts: a head is lost among the waves far out.
+        targetRules: t('Person in the water (head)').map((targetId) => ({ targetId, area: 'site' as const, minPosts: 1, minPct: 10 })),
+        crossBearingMinPct: null,
+      },
+      lookout: { resolutionArcmin: 1, magnification: 1 },
     });
     await requestCoverage(coverage, planner, summer.id);
     await submitPlan(deps, planner, summer.id, summer.rowVersion);
@@ -315,7 +364,8 @@ async function seedDemoPlans(db: Sequelize, files?: FileStore): Promise<boolean>
       postIds: await posts(forest.id),
       targetIds: t('Early smoke column'),
       conditionSetIds: [...c('Refraction spread'), ...c('Hot afternoon, haze')],
-      standard: { minSeenPct: 80, priorityMinPosts: 2 },
+      standard: { minSeenPct: 80, priorityMinPosts: 2, targetRules: [], crossBearingMinPct: 50 },
+      lookout: { resolutionArcmin: 1, magnification: 1 },
     });
   } finally {
     await pool.close();

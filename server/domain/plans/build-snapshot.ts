@@ -8,13 +8,17 @@ import { projectAzimuthalEquidistant } from '@/shared/geo/azimuthal-equidistant'
 import { ringReach } from '@/shared/geo/ring-reach';
 import type { RefractionCondition } from '@/shared/schemas/sightline';
 import type { Post, Site } from '@/shared/schemas/site';
+import { effectiveResolutionArcmin, type PlanLookout } from '@/shared/schemas/plan';
+import { DETECTION_MODEL_VERSION } from '@/shared/sightline/constants';
 import { evaluateSightline } from '@/shared/sightline/evaluate-sightline';
+import { detectionInputsOf } from '@/shared/sightline/detection-inputs';
 
 export const SNAPSHOT_ASSUMPTIONS = [
   'Results per post, target and condition: smooth earth at the datum (sea level or the plain).',
   'Terrain coverage, when computed: the site’s terrain grid (or the flat datum without terrain), each condition’s refraction applied as a uniform curvature correction, the condition set’s visibility as a range limit.',
   'Height of eye = ground elevation + structure height + eye height above the platform.',
-  'Targets stand at the datum; a target is detected when its required top part shows and the visibility and angular-size limits allow.',
+  'Targets stand at the datum; by day a target is detected when its required top part shows and the visibility (at the 5 % contrast threshold) and the angular-size limit at the lookout’s resolving angle allow; at night only a light is detected, out to the lesser of its luminous range (Allard’s law, IALA night threshold) and its geographic range.',
+  'On the water, wave crests of half the significant wave height hide the lower part of a target; a target whose required part is below them is not counted.',
   'Refraction is uniform along each sightline under each condition.',
   'Priority zones: the share of each zone within the detection range and the post’s viewing sector, on the smooth earth (terrain that hides ground is not counted).',
 ];
@@ -26,6 +30,8 @@ export const SNAPSHOT_ASSUMPTIONS = [
 export function buildSnapshot(input: {
   title: string;
   standard: PlanSnapshot['inputs']['plan']['standard'];
+  /** The lookout the plan assumes (resolving angle, optics); default 1′, unaided. */
+  lookout?: PlanLookout;
   site: Site;
   posts: Post[];
   targets: Target[];
@@ -36,6 +42,8 @@ export function buildSnapshot(input: {
   coverage?: CoverageSnapshot | null;
 }): PlanSnapshot {
   let cautions: PlanSnapshot['cautions'] = [];
+  const lookout = input.lookout ?? { resolutionArcmin: 1, magnification: 1 };
+  const resolutionArcmin = effectiveResolutionArcmin(lookout);
   const results: PlanSnapshot['results'] = [];
   for (const post of input.posts) {
     const observerHeightM = Math.max(0, post.groundElevationM + post.structureHeightM + post.eyeHeightM);
@@ -56,10 +64,7 @@ export function buildSnapshot(input: {
       for (const set of input.conditionSets) {
         const response = evaluateSightline({
           observerHeightM,
-          targetHeightM: target.heightM,
-          requiredVisibleM: target.requiredVisibleM,
-          targetSizeM: target.widthM,
-          ...(set.visibilityM !== null && { visibilityM: set.visibilityM, visibilityKind: set.visibilityKind }),
+          ...detectionInputsOf(target, set, resolutionArcmin),
           conditions: set.conditions as RefractionCondition[],
         });
         cautions = response.cautions;
@@ -84,7 +89,7 @@ export function buildSnapshot(input: {
   return {
     assumptions: SNAPSHOT_ASSUMPTIONS,
     inputs: {
-      plan: { title: input.title, standard: input.standard },
+      plan: { title: input.title, standard: input.standard, lookout, detectionModel: DETECTION_MODEL_VERSION },
       site: strip(input.site),
       posts: input.posts.map(strip),
       targets: input.targets.map(strip),

@@ -90,7 +90,7 @@ export async function loadPlanInputs(
 export async function previewPlan(actor: Actor, id: string): Promise<PlanSnapshot> {
   const plan = await getPlan(actor, id);
   const inputs = await loadPlanInputs(actor, plan);
-  return buildSnapshot({ title: plan.title, standard: plan.standard, ...inputs });
+  return buildSnapshot({ title: plan.title, standard: plan.standard, lookout: plan.lookout, ...inputs });
 }
 
 export function createPlan({ db }: PlanDeps, actor: Actor, input: PlanInput): Promise<Plan> {
@@ -156,7 +156,13 @@ export async function submitPlan(deps: PlanDeps, actor: Actor, id: string, rowVe
         'coverage_missing',
       );
     }
-    const snapshot = buildSnapshot({ title: before.title, standard: before.standard, ...inputs, coverage: coverage.snapshot });
+    const snapshot = buildSnapshot({
+      title: before.title,
+      standard: before.standard,
+      lookout: before.lookout,
+      ...inputs,
+      coverage: coverage.snapshot,
+    });
     const revision = await plansRepository.addRevision(id, actor.userId, snapshot, contentHash(snapshot), t);
     await plansRepository.setStatus(id, 'submitted', t);
     await auditRepository.record(
@@ -242,11 +248,11 @@ export function newPlanVersion({ db }: PlanDeps, actor: Actor, id: string): Prom
     if (!before) throw AppError.notFound('That plan');
     if (before.status !== 'approved')
       throw AppError.conflict('Only an approved plan gets a new version; edit this one directly.', 'wrong_status');
-    const { siteId, title, postIds, targetIds, conditionSetIds, standard } = before;
+    const { siteId, title, postIds, targetIds, conditionSetIds, standard, lookout } = before;
     const plan = await plansRepository.create(
       actor.organizationId,
       actor.userId,
-      { siteId, title, postIds, targetIds, conditionSetIds, standard, version: before.version + 1, previousId: before.id },
+      { siteId, title, postIds, targetIds, conditionSetIds, standard, lookout, version: before.version + 1, previousId: before.id },
       t,
     );
     await auditRepository.record(

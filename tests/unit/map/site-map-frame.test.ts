@@ -36,6 +36,8 @@ const site: Site = {
   ],
   defaultUnits: 'metric',
   timeZone: 'Europe/Berlin',
+  seaLevelMaxM: null,
+  seaArea: null,
   version: 1,
   updatedAt: '2025-01-01T00:00:00Z',
 };

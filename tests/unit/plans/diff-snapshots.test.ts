@@ -20,6 +20,8 @@ const site: Site = {
   priorityZones: [{ name: 'North block', weight: 5, ring }],
   defaultUnits: 'metric',
   timeZone: 'UTC',
+  seaLevelMaxM: null,
+  seaArea: null,
   version: 0,
   updatedAt: '2026-01-01T00:00:00.000Z',
 };
@@ -46,6 +48,8 @@ const smoke: Target = {
   widthM: 200,
   requiredVisibleM: 10,
   period: 'day',
+  lightIntensityCd: null,
+  onWater: false,
   version: 0,
   updatedAt: site.updatedAt,
 };
@@ -55,13 +59,16 @@ const standard: ConditionSet = {
   conditions: [{ preset: 'standard-optical' }, { k: 0 }],
   visibilityM: null,
   visibilityKind: 'mor-5pct',
+  seaState: null,
+  significantWaveHeightM: null,
+  backgroundLighting: 'none',
   version: 0,
   updatedAt: site.updatedAt,
 };
 const snap = (posts: Post[], minSeenPct = 70) =>
   buildSnapshot({
     title: 'Cover',
-    standard: { minSeenPct, priorityMinPosts: 2 },
+    standard: { minSeenPct, priorityMinPosts: 2, targetRules: [], crossBearingMinPct: null },
     site,
     posts,
     targets: [smoke],
@@ -100,7 +107,11 @@ describe('diffSnapshots', () => {
   it('reports the plan’s own fields and a removed post', () => {
     const d = diffSnapshots(snap([post(1, 20), post(2, 20)], 70), snap([post(1, 20)], 80));
     expect(d.plan).toEqual([
-      { field: 'standard', before: { minSeenPct: 70, priorityMinPosts: 2 }, after: { minSeenPct: 80, priorityMinPosts: 2 } },
+      {
+        field: 'standard',
+        before: { minSeenPct: 70, priorityMinPosts: 2, targetRules: [], crossBearingMinPct: null },
+        after: { minSeenPct: 80, priorityMinPosts: 2, targetRules: [], crossBearingMinPct: null },
+      },
     ]);
     expect(d.posts.map((p) => p.change)).toEqual(['removed']);
     expect(d.results.every((r) => r.change === 'removed' && r.detectionRangeM.after === null)).toBe(true);
