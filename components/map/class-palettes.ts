@@ -129,6 +129,12 @@ export const POST_VISIBILITY_PALETTE: ClassPalette = {
     },
     { code: VISIBILITY_CLASS.blind, label: 'Blind', meaning: 'Not even the top of the target is in view.', color: AMBER },
     {
+      code: VISIBILITY_CLASS.outOfRange,
+      label: 'Too far',
+      meaning: 'Beyond the target’s detection range from this post (visibility, size, light or waves), in view or not.',
+      color: '#332233',
+    },
+    {
       code: VISIBILITY_CLASS.none,
       label: 'Not computed',
       meaning: 'No terrain data, or beyond the post’s range limit.',

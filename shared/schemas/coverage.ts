@@ -55,6 +55,28 @@ export const CoverageRuleCheckSchema = z.object({
   reasons: z.array(z.string()),
 });
 
+/** What decided the undetected part of a case: the view, or the target's range limit. */
+export const CASE_LIMITS = ['view', 'visibility', 'angular-size', 'luminous-range', 'sea-state'] as const;
+
+/** How far the target can be detected in one case, and what decided the area not covered. */
+export const CaseDetectionSchema = z.object({
+  /** Detection range from any post apart from the geometry, metres; null = only the view limits it. */
+  rangeLimitM: z.number().nullable(),
+  /** Which limit sets `rangeLimitM`. */
+  rangeLimitedBy: z.enum(['visibility', 'angular-size', 'luminous-range', 'sea-state']).nullable(),
+  /** Wave crests screening the target, metres (0 on land or a calm sea). */
+  waveScreenM: z.number(),
+  /** Why the target is never detected in this case, if so. */
+  reason: z.enum(['screened-by-waves', 'unlit-at-night']).nullable(),
+  /** What decided most of the undetected area; null when everything is detected. */
+  decidedBy: z.enum(CASE_LIMITS).nullable(),
+  /** Areas of the site (or its sea), m²: detected, without terrain data, hidden from posts in range (view), beyond every post's range. */
+  areaM2: z.object({ detected: z.number(), noData: z.number(), view: z.number(), range: z.number() }),
+  /** Counted on the sea part of the site only (a target on the water on a site with a land/sea mask). */
+  seaOnly: z.boolean(),
+});
+export type CaseDetection = z.infer<typeof CaseDetectionSchema>;
+
 /** One target × one condition of a run: figures and the standard's verdict. */
 export const CoverageCaseSchema = z.object({
   /** `${targetId}:${conditionSetId}:${conditionIndex}`; the same in every run of plans sharing them. */
@@ -81,6 +103,10 @@ export const CoverageCaseSchema = z.object({
   }),
   /** Per post: share of the site where it sees the target (within its sector), percent. */
   posts: z.array(z.object({ postId: z.uuid(), postName: z.string(), seenPct: z.number() })),
+  /** What limits detection in this case; null in runs made before the detection model (view and visibility only). */
+  detection: CaseDetectionSchema.nullable().default(null),
+  /** The detection model the figures were made with; null in older runs. */
+  detectionModel: z.string().nullable().default(null),
 });
 export type CoverageCase = z.infer<typeof CoverageCaseSchema>;
 

@@ -21,18 +21,12 @@ import {
 } from '@/shared/sightline';
 import { formatK } from '@/shared/sightline/format-k';
 import { refractionFromCondition } from '@/shared/sightline/refraction-from-condition';
-import { waveScreenHeight } from '@/shared/sightline/wave-screen';
+import { waveScreenOf } from '@/shared/sightline/wave-screen';
 import { convertAngle } from '@/shared/units/angle';
 
 /** From this k on, the model warns that a duct is near (the horizon runs away as k → 1). */
 const NEAR_DUCT_FROM_K = 0.9;
 
-/** The wave screen of a request: from its sea state or significant wave height, else 0. */
-export function waveScreenOf(request: Pick<SightlineRequest, 'seaState' | 'significantWaveHeightM'>): number {
-  if (request.significantWaveHeightM !== undefined) return waveScreenHeight({ significantWaveHeightM: request.significantWaveHeightM });
-  if (request.seaState !== undefined) return waveScreenHeight({ seaState: request.seaState });
-  return 0;
-}
 
 /** Standing cautions returned with every evaluation. */
 const CAUTIONS: readonly SightlineCaution[] = Object.freeze([

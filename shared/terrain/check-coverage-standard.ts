@@ -7,6 +7,19 @@ export interface CoverageStandard {
   readonly minSeenPct: number;
   /** Posts that must see each priority zone, 1–3. */
   readonly priorityMinPosts: number;
+  /** Least share of each priority zone with good cross-bearings, percent; null or absent = no such rule. */
+  readonly crossBearingMinPct?: number | null;
+  /**
+   * Rules for the target being checked (the caller passes only the rules of
+   * this case's target): the share of the site, or of each priority zone,
+   * seen by at least `minPosts` posts.
+   */
+  readonly targetRules?: readonly {
+    readonly targetName: string;
+    readonly area: 'site' | 'priority-zones';
+    readonly minPosts: number;
+    readonly minPct: number;
+  }[];
 }
 
 /**
@@ -15,7 +28,7 @@ export interface CoverageStandard {
  * reading; change it whenever a rule changes).
  */
 export const COVERAGE_STANDARD_RULES = {
-  version: 'kenning-coverage-standard/1',
+  version: 'kenning-coverage-standard/2',
   rules: [
     {
       id: 'site-seen',
@@ -31,12 +44,34 @@ export const COVERAGE_STANDARD_RULES = {
       minPct: 'minSeenPct',
       text: 'At least {minPct} % of priority zone “{zone}” is seen by at least {minPosts} posts.',
     },
+    {
+      id: 'priority-zone-cross-bearing',
+      appliesTo: 'each priority zone',
+      minPosts: '2',
+      minPct: 'crossBearingMinPct',
+      text: 'At least {minPct} % of priority zone “{zone}” has good cross-bearings.',
+    },
+    {
+      id: 'target-site-seen',
+      appliesTo: 'site, one target',
+      minPosts: 'targetRules[].minPosts',
+      minPct: 'targetRules[].minPct',
+      text: '{target}: at least {minPct} % of the site is seen by at least {minPosts} posts.',
+    },
+    {
+      id: 'target-zone-seen',
+      appliesTo: 'each priority zone, one target',
+      minPosts: 'targetRules[].minPosts',
+      minPct: 'targetRules[].minPct',
+      text: '{target}: at least {minPct} % of priority zone “{zone}” is seen by at least {minPosts} posts.',
+    },
   ],
   notes: [
     'A cell counts as seen by a post when the target of the chosen height is seen there (ground seen or target only) and the cell lies in the post’s viewing sector.',
     'Shares are of all cells of the area on the terrain grid; cells without terrain data count as not seen.',
     'A site or zone with no cells on the terrain grid fails: nothing of it can be judged.',
-    'The check is made for one target height and one set of conditions at a time.',
+    'The check is made for one target and one set of conditions at a time; a cell counts only where the target is detectable (in view, and within the visibility, angular-size or luminous range, and above the wave crests).',
+    'A target rule applies only in that target’s cases.',
   ],
 } as const;
 
@@ -117,7 +152,17 @@ export function checkCoverageStandard(statistics: CoverageStatistics, standard: 
       'standard.priorityMinPosts',
     );
   }
-  const [siteRule, zoneRule] = COVERAGE_STANDARD_RULES.rules;
+  const [siteRule, zoneRule, crossRule, targetSiteRule, targetZoneRule] = COVERAGE_STANDARD_RULES.rules;
+  const crossBearingMinPct = standard.crossBearingMinPct ?? null;
+  if (crossBearingMinPct !== null && !(crossBearingMinPct >= 0 && crossBearingMinPct <= 100)) {
+    throw new TerrainInputError(
+      'invalid-standard',
+      `crossBearingMinPct must be 0 to 100 %, got ${crossBearingMinPct}.`,
+      'standard.crossBearingMinPct',
+    );
+  }
+  const targetRules = standard.targetRules ?? [];
+  const zoneLabel = (name: string) => `Priority zone “${name}”`;
   const rules: CoverageRuleCheck[] = [
     applyRule({
       id: siteRule.id,
@@ -133,7 +178,7 @@ export function checkCoverageStandard(statistics: CoverageStatistics, standard: 
       applyRule({
         id: zoneRule.id,
         zoneName: zone.name,
-        label: `Priority zone “${zone.name}”`,
+        label: zoneLabel(zone.name),
         text: fill(zoneRule.text, minSeenPct, priorityMinPosts, zone.name),
         area: zone,
         minPosts: priorityMinPosts,
@@ -141,10 +186,55 @@ export function checkCoverageStandard(statistics: CoverageStatistics, standard: 
         blindAreas: [],
       }),
     ),
+    ...(crossBearingMinPct === null
+      ? []
+      : statistics.zones.map((zone) =>
+          applyRule({
+            id: crossRule.id,
+            zoneName: zone.name,
+            label: zoneLabel(zone.name),
+            text: fill(crossRule.text, crossBearingMinPct, 2, zone.name),
+            area: zone,
+            minPosts: 2,
+            minPct: crossBearingMinPct,
+            blindAreas: [],
+            measure: 'goodCrossBearing',
+          }),
+        )),
+    ...targetRules.flatMap((rule, r) => {
+      if (!(rule.minPct >= 0 && rule.minPct <= 100) || ![1, 2, 3].includes(rule.minPosts)) {
+        throw new TerrainInputError('invalid-standard', `Target rule ${r}: 1–3 posts and 0–100 %.`, `standard.targetRules.${r}`);
+      }
+      return rule.area === 'site'
+        ? [
+            applyRule({
+              id: targetSiteRule.id,
+              zoneName: null,
+              label: `${rule.targetName}, the site`,
+              text: fill(targetSiteRule.text, rule.minPct, rule.minPosts, '', rule.targetName),
+              area: statistics.site,
+              minPosts: rule.minPosts,
+              minPct: rule.minPct,
+              blindAreas: statistics.blindAreas,
+            }),
+          ]
+        : statistics.zones.map((zone) =>
+            applyRule({
+              id: targetZoneRule.id,
+              zoneName: zone.name,
+              label: `${rule.targetName}, ${zoneLabel(zone.name).toLowerCase()}`,
+              text: fill(targetZoneRule.text, rule.minPct, rule.minPosts, zone.name, rule.targetName),
+              area: zone,
+              minPosts: rule.minPosts,
+              minPct: rule.minPct,
+              blindAreas: [],
+            }),
+          );
+    }),
   ];
   return {
     interpretation: COVERAGE_STANDARD_RULES.version,
-    standard: { minSeenPct, priorityMinPosts },
+    standard: { minSeenPct, priorityMinPosts, crossBearingMinPct, targetRules: targetRules.map((r) => ({ ...r })) },
     passed: rules.every((r) => r.passed),
     rules,
     reasons: [...rules.filter((r) => !r.passed), ...rules.filter((r) => r.passed)].flatMap((r) => r.reasons),
@@ -160,14 +250,21 @@ interface RuleInput {
   readonly minPosts: number;
   readonly minPct: number;
   readonly blindAreas: readonly BlindArea[];
+  /** What counts: seen by `minPosts` (default) or good cross-bearings. */
+  readonly measure?: 'seen' | 'goodCrossBearing';
 }
 
 function applyRule(input: RuleInput): CoverageRuleCheck {
   const { area, minPosts, minPct, label } = input;
-  const seen = minPosts === 1 ? area.seenBy1 : minPosts === 2 ? area.seenBy2 : area.seenBy3;
+  const crossing = input.measure === 'goodCrossBearing';
+  const seen = crossing ? area.goodCrossBearing : minPosts === 1 ? area.seenBy1 : minPosts === 2 ? area.seenBy2 : area.seenBy3;
   const total = area.total.cells;
   const cellArea = total === 0 ? 0 : area.total.area / total;
-  const byWhom = minPosts === 1 ? 'at least one post' : `at least ${minPosts} posts`;
+  const byWhom = crossing
+    ? 'two or more posts with good cross-bearings'
+    : minPosts === 1
+      ? 'at least one post'
+      : `at least ${minPosts} posts`;
   const base = { id: input.id, zoneName: input.zoneName, minPosts, minPct, text: input.text };
   if (total === 0) {
     return {
@@ -202,8 +299,12 @@ function applyRule(input: RuleInput): CoverageRuleCheck {
   return { ...base, actualPct: seen.pct, passed, shortfallPct, shortfallArea: neededCells * cellArea, reasons };
 }
 
-function fill(template: string, minPct: number, minPosts: number, zone: string): string {
-  return template.replace('{minPct}', String(minPct)).replace('{minPosts}', String(minPosts)).replace('{zone}', zone);
+function fill(template: string, minPct: number, minPosts: number, zone: string, target = ''): string {
+  return template
+    .replace('{minPct}', String(minPct))
+    .replace('{minPosts}', String(minPosts))
+    .replace('{zone}', zone)
+    .replace('{target}', target);
 }
 
 function pct(value: number): string {

@@ -44,6 +44,30 @@ export interface NetworkCoverageInput {
   readonly maxBlindAreas?: number;
   /** Hidden heights up to this count as ground seen, metres; default 0.001. */
   readonly groundTolerance?: number;
+  /**
+   * The target's detection range from every post, metres (visibility,
+   * angular size or luminous range, whichever is least); beyond it a post
+   * does not count the cell. Default: none (the rasters' own range only).
+   */
+  readonly rangeLimit?: number | null;
+}
+
+/**
+ * What decided the cells of the site (1 in the site mask) that no post
+ * detects: the view (terrain, horizon or sector: some post is within range
+ * but does not see the target) or the range (every post is too far).
+ */
+export interface LimitShares {
+  /** Cells where at least one post detects the target. */
+  readonly detectedCells: number;
+  /** Cells without terrain data. */
+  readonly noDataCells: number;
+  /** Undetected cells within some post's range: the view decides. */
+  readonly viewCells: number;
+  /** Undetected cells beyond every post's range: the range decides. */
+  readonly rangeCells: number;
+  /** Area of one cell, m². */
+  readonly cellArea: number;
 }
 
 /** Everything about one network for one condition and one target height. */
@@ -54,6 +78,10 @@ export interface NetworkCoverage {
   readonly crossBearings: CrossBearingRaster;
   readonly statistics: CoverageStatistics;
   readonly check: CoverageStandardCheck;
+  /** Each post's visibility classes for the target (same order as the posts). */
+  readonly postClasses: readonly Uint8Array[];
+  /** What decided the undetected part of the site. */
+  readonly limits: LimitShares;
 }
 
 /**
@@ -113,7 +141,11 @@ export function evaluateNetworkCoverage(input: NetworkCoverageInput): NetworkCov
         `posts.${p}.hidden`,
       );
     }
-    const classes = classifyVisibility(hidden, targetHeight, { groundTolerance: input.groundTolerance }).classes;
+    const rangeLimit = input.rangeLimit ?? null;
+    const classes = classifyVisibility(hidden, targetHeight, {
+      groundTolerance: input.groundTolerance,
+      rangeLimit: rangeLimit === null ? null : { col: post.col, row: post.row, maxDistance: rangeLimit },
+    }).classes;
     return {
       col: post.col,
       row: post.row,
@@ -135,5 +167,26 @@ export function evaluateNetworkCoverage(input: NetworkCoverageInput): NetworkCov
     crossBearings,
     statistics,
     check: checkCoverageStandard(statistics, input.standard),
+    postClasses: coveragePosts.map((p) => p.classes),
+    limits: limitShares(postsPerCell, input.siteMask),
   };
+}
+
+/** Splits the site's cells by what decided them (see {@link LimitShares}); one pass. */
+function limitShares(counts: PostsPerCellRaster, siteMask: Uint8Array | null): LimitShares {
+  let detectedCells = 0;
+  let noDataCells = 0;
+  let viewCells = 0;
+  let rangeCells = 0;
+  const { counts: c, noData } = counts;
+  // countPostsPerCell always fills it; a raster rebuilt from a stored layer has none, and then every cell is "in reach".
+  const reach = counts.reach ?? new Uint8Array(c.length).fill(1);
+  for (let i = 0; i < c.length; i++) {
+    if (siteMask !== null && siteMask[i] !== 1) continue;
+    if (c[i]! > 0) detectedCells++;
+    else if (noData[i] === 1) noDataCells++;
+    else if (reach[i] === 1) viewCells++;
+    else rangeCells++;
+  }
+  return { detectedCells, noDataCells, viewCells, rangeCells, cellArea: counts.cellSize * counts.cellSize };
 }

@@ -33,6 +33,13 @@ export interface PostsPerCellRaster extends RasterGrid {
   readonly noData: Uint8Array;
   /** {@link COVERAGE_LAYER} code per cell, for the map. */
   readonly layer: Uint8Array;
+  /**
+   * 1 where at least one post has the cell within its range limits and
+   * computed (seen, target only or blind for it), else 0: an unseen cell with
+   * 0 here is beyond every post's detection range, so range, not the view,
+   * decides it.
+   */
+  readonly reach?: Uint8Array;
   /** Number of posts counted. */
   readonly postCount: number;
 }
@@ -85,8 +92,10 @@ export function countPostsPerCell(grid: RasterGrid, posts: readonly CoveragePost
   // Up to 65 535 posts without overflow; clamped to 255 below.
   const tally = new Uint16Array(W * H);
   const noData = new Uint8Array(W * H);
+  const reach = new Uint8Array(W * H);
   const SEEN = VISIBILITY_CLASS.seen;
   const TARGET_ONLY = VISIBILITY_CLASS.targetOnly;
+  const BLIND = VISIBILITY_CLASS.blind;
   const NONE = VISIBILITY_CLASS.none;
 
   for (const post of prepared) {
@@ -113,7 +122,10 @@ export function countPostsPerCell(grid: RasterGrid, posts: readonly CoveragePost
         const i = base + col;
         const c = classes[i];
         if (c === SEEN || c === TARGET_ONLY) {
+          reach[i] = 1;
           if (allRound || insideSector(post, col - post.col, dy)) tally[i]!++;
+        } else if (c === BLIND) {
+          reach[i] = 1;
         } else if (c === NONE && col >= c0 && col <= c1) {
           const dx = col - post.col;
           if (dx * dx + dy * dy <= post.range2) noData[i] = 1;
@@ -144,6 +156,7 @@ export function countPostsPerCell(grid: RasterGrid, posts: readonly CoveragePost
     counts,
     noData,
     layer,
+    reach,
     postCount: prepared.length,
   };
 }

@@ -12,6 +12,11 @@ export const VISIBILITY_CLASS = {
   targetOnly: 2,
   /** Blind: not even the top of the target is seen. */
   blind: 3,
+  /**
+   * Beyond the target's detection range from this post (visibility, angular
+   * size, luminous range), whether or not it would be in view.
+   */
+  outOfRange: 4,
 } as const;
 
 /** One of the {@link VISIBILITY_CLASS} codes. */
@@ -32,6 +37,12 @@ export interface ClassifyOptions {
    * absorb floating-point rounding; default 0.001 m (1 mm).
    */
   readonly groundTolerance?: number;
+  /**
+   * The target's detection range from the post, beyond which cells are
+   * {@link VISIBILITY_CLASS.outOfRange}: the post's cell and the range in
+   * metres, measured from cell centre to cell centre in the grid; default none.
+   */
+  readonly rangeLimit?: { readonly col: number; readonly row: number; readonly maxDistance: number } | null;
 }
 
 /**
@@ -42,6 +53,10 @@ export interface ClassifyOptions {
  *   seen        if hidden ≤ tolerance
  *   target-only if tolerance < hidden ≤ targetHeight + tolerance
  *   blind       otherwise; `none` where hidden is NaN.
+ *
+ * With a `rangeLimit`, cells farther than it from the post (centre to centre)
+ * are `outOfRange` instead, whatever their hidden height: the target is too
+ * far to be detected there.
  *
  * Source: definition of the hidden height (the height a target must reach to
  * be seen) — common practice, no source.
@@ -70,12 +85,41 @@ export function classifyVisibility(
   const values = hidden.hidden;
   const classes = new Uint8Array(values.length);
   const targetLimit = targetHeight + tolerance;
-  for (let i = 0; i < values.length; i++) {
-    const v = values[i] as number;
-    if (v !== v) classes[i] = VISIBILITY_CLASS.none;
-    else if (v <= tolerance) classes[i] = VISIBILITY_CLASS.seen;
-    else if (v <= targetLimit) classes[i] = VISIBILITY_CLASS.targetOnly;
-    else classes[i] = VISIBILITY_CLASS.blind;
+  const limit = options.rangeLimit ?? null;
+  if (limit !== null && !(limit.maxDistance >= 0)) {
+    throw new TerrainInputError('invalid-option', `The range limit must be ≥ 0 m, got ${limit.maxDistance}.`);
+  }
+  const W = hidden.width;
+  const range2 = limit === null ? Infinity : (limit.maxDistance / hidden.cellSize) ** 2;
+  for (let row = 0; row < hidden.height; row++) {
+    // Columns within the range on this row: [c0, c1], by the circle's chord (cells outside it are out of range).
+    let c0 = 0;
+    let c1 = W - 1;
+    if (limit !== null) {
+      const dy = row - limit.row;
+      const span2 = range2 - dy * dy;
+      if (span2 < 0) {
+        c0 = W;
+        c1 = -1;
+      } else {
+        const span = Math.sqrt(span2);
+        c0 = Math.max(0, Math.ceil(limit.col - span));
+        c1 = Math.min(W - 1, Math.floor(limit.col + span));
+      }
+    }
+    const base = row * W;
+    for (let col = 0; col < W; col++) {
+      const i = base + col;
+      if (col < c0 || col > c1) {
+        classes[i] = VISIBILITY_CLASS.outOfRange;
+        continue;
+      }
+      const v = values[i] as number;
+      if (v !== v) classes[i] = VISIBILITY_CLASS.none;
+      else if (v <= tolerance) classes[i] = VISIBILITY_CLASS.seen;
+      else if (v <= targetLimit) classes[i] = VISIBILITY_CLASS.targetOnly;
+      else classes[i] = VISIBILITY_CLASS.blind;
+    }
   }
   return {
     width: hidden.width,

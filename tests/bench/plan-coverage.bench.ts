@@ -33,7 +33,12 @@ export async function benchPlanCoverage(): Promise<Row[]> {
   const inputs: CoverageRunInputs = {
     terrain: { id: uuid(1), sha256: 'bench' },
     flatGrid: null,
-    site: { boundary: ring(50, 50, 1950, 1950), zones: [{ name: 'Zone A', weight: 5, ring: ring(600, 600, 1100, 1000) }] },
+    site: {
+      boundary: ring(50, 50, 1950, 1950),
+      zones: [{ name: 'Zone A', weight: 5, ring: ring(600, 600, 1100, 1000) }],
+      seaLevelMaxM: null,
+      seaArea: null,
+    },
     posts: Array.from({ length: 10 }, (_, p) => ({
       id: uuid(100 + p),
       name: `Post ${p + 1}`,
@@ -42,18 +47,38 @@ export async function benchPlanCoverage(): Promise<Row[]> {
       aboveGroundM: 15,
       sector: null,
     })),
-    targets: [{ id: uuid(200), name: 'Smoke 30 m', heightM: 30, countsFromM: 0 }],
+    // Wide enough (200 m: 687 km at 1′) that the angular size never cuts the viewsheds short: the run does
+    // the same viewshed work as before the detection model, so the figure shows what the model itself costs.
+    targets: [
+      {
+        id: uuid(200),
+        name: 'Smoke 30 m',
+        heightM: 30,
+        countsFromM: 0,
+        requiredVisibleM: 30,
+        widthM: 200,
+        period: 'day',
+        lightIntensityCd: null,
+        onWater: false,
+      },
+    ],
     conditions: [0.13, 0, -0.2].map((k, i) => ({
       conditionSetId: uuid(300),
       conditionSetName: 'Spread',
       conditionIndex: i,
       label: `k = ${k}`,
       k,
-      maxDistanceM: null,
+      visibilityM: null,
+      visibilityKind: 'mor-5pct' as const,
+      seaState: null,
+      significantWaveHeightM: null,
+      backgroundLighting: 'none' as const,
     })),
     skippedConditions: [],
     earthRadiusM: 6_371_008.8,
     standard: { minSeenPct: 70, priorityMinPosts: 2, targetRules: [], crossBearingMinPct: null },
+    resolutionArcmin: 1,
+    detectionModel: 'bench',
     blindAreaMinAreaM2: 10_000,
   };
   const pool = createViewshedPool();

@@ -40,6 +40,8 @@ const area = (seen1: number, seen2: number, good: number, total = 10_000) => ({
 
 export function sampleCase(overrides: Partial<CoverageCase> = {}, conditionIndex = 0): CoverageCase {
   return {
+    detection: null,
+    detectionModel: null,
     key: `${IDS.target}:${IDS.set}:${conditionIndex}`,
     targetId: IDS.target,
     targetName: 'Test smoke',

@@ -6,12 +6,14 @@ import { gridConvergence } from '@/shared/terrain/grid-convergence';
 import { gridProjection, type GridProjection } from '@/shared/terrain/grid-projection';
 import type { HiddenHeightRaster, LookoutPost, SightConditions } from '@/shared/terrain/hidden-height-raster';
 import { locatePostCell } from '@/shared/terrain/locate-post-cell';
-import { evaluateNetworkCoverage, type NetworkPost } from '@/shared/terrain/network-coverage';
+import { evaluateNetworkCoverage, type LimitShares, type NetworkPost } from '@/shared/terrain/network-coverage';
 import { countPostsPerCell } from '@/shared/terrain/posts-per-cell';
 import { rasterizePolygon, type PolygonRing } from '@/shared/terrain/rasterize-polygon';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { createTerrainRaster, type TerrainRaster } from '@/shared/terrain/terrain-raster';
-import { classifyVisibility, VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
+import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
+import { rangeLimitsOf } from '@/shared/sightline/detection-inputs';
+import type { DetectionRange } from '@/shared/sightline/detection-range';
 import type { CoverageRunGrid } from '@/server/data/models/coverage-run';
 import { caseKeyOf, type CoverageRunInputs } from './coverage-inputs';
 
@@ -67,6 +69,7 @@ export function flatTerrain(grid: CoverageRunGrid): TerrainRaster {
 const SEEN = VISIBILITY_CLASS.seen;
 const TARGET_ONLY = VISIBILITY_CLASS.targetOnly;
 
+
 /**
  * Site cells where a post sees the target: from its posts-per-cell counts
  * (`kind` 1: count > 0) or straight from its visibility classes (`kind` 0:
@@ -91,6 +94,86 @@ export function ringOnGrid(projection: GridProjection, ring: readonly (readonly 
   });
 }
 
+/**
+ * How far the viewsheds of one condition must reach: the farthest of its
+ * targets' range limits (a target nothing but the geometry limits: no
+ * limit), at least one cell.
+ */
+function viewshedRange(detections: readonly DetectionRange[], cellSizeM: number): number | null {
+  let farthest = 0;
+  for (const d of detections) {
+    if (d.rangeLimit.rangeM === null) return null;
+    farthest = Math.max(farthest, d.rangeLimit.rangeM);
+  }
+  return Math.max(farthest, cellSizeM);
+}
+
+/** The plan's standard as the core reads it for one target: its own target rules only, with its name. */
+function standardFor(standard: CoverageRunInputs['standard'], target: CoverageRunInputs['targets'][number]) {
+  return {
+    minSeenPct: standard.minSeenPct,
+    priorityMinPosts: standard.priorityMinPosts,
+    crossBearingMinPct: standard.crossBearingMinPct ?? null,
+    targetRules: (standard.targetRules ?? [])
+      .filter((r) => r.targetId === target.id)
+      .map((r) => ({ targetName: target.name, area: r.area, minPosts: r.minPosts, minPct: r.minPct })),
+  };
+}
+
+/**
+ * The land/sea mask of a site that states one: cells inside its sea area
+ * (when drawn) and at or below its sea level (when stated; the flat datum is
+ * at 0 m). Null when the site states neither.
+ */
+export function seaMaskOf(
+  inputs: Pick<CoverageRunInputs, 'site'>,
+  terrain: TerrainRaster,
+  toRing: (ring: [number, number][]) => PolygonRing,
+): Uint8Array | null {
+  const { seaArea, seaLevelMaxM } = inputs.site;
+  if (seaArea === null && seaLevelMaxM === null) return null;
+  const mask = seaArea ? rasterizePolygon(terrain, [toRing(seaArea)]) : new Uint8Array(terrain.width * terrain.height).fill(1);
+  if (seaLevelMaxM !== null) {
+    const heights = terrain.heights;
+    for (let i = 0; i < mask.length; i++) if (!(heights[i]! <= seaLevelMaxM)) mask[i] = 0;
+  }
+  return mask;
+}
+
+/** Cells in both masks (a null mask is the whole grid). */
+function intersect(mask: Uint8Array | null, other: Uint8Array): Uint8Array {
+  if (mask === null) return other;
+  const out = new Uint8Array(mask.length);
+  for (let i = 0; i < mask.length; i++) out[i] = mask[i]! & other[i]!;
+  return out;
+}
+
+/**
+ * What limits detection in one case: the target's range limit (visibility,
+ * angular size, luminous range or wave screen) and which limit decided most
+ * of the undetected area — the view (terrain, horizon, sectors) or that range.
+ */
+function detectionOfCase(detection: DetectionRange, limits: LimitShares, seaOnly: boolean): CoverageCase['detection'] {
+  const rangeLimitedBy = detection.rangeLimit.limitedBy;
+  const { viewCells, rangeCells, cellArea } = limits;
+  const decidedBy =
+    viewCells + rangeCells === 0 ? null : rangeLimitedBy !== null && rangeCells > viewCells ? rangeLimitedBy : 'view';
+  return {
+    rangeLimitM: detection.rangeLimit.rangeM,
+    rangeLimitedBy,
+    waveScreenM: detection.limits.waveScreenM,
+    reason: detection.reason === 'screened-by-waves' || detection.reason === 'unlit-at-night' ? detection.reason : null,
+    decidedBy,
+    areaM2: {
+      detected: limits.detectedCells * cellArea,
+      noData: limits.noDataCells * cellArea,
+      view: viewCells * cellArea,
+      range: rangeCells * cellArea,
+    },
+    seaOnly,
+  };
+}
+
 const sha256 = (encoded: EncodedClassRaster) => createHash('sha256').update(encoded.data).digest('hex');
 const round = (value: number, digits: number) => Math.round(value * 10 ** digits) / 10 ** digits;
 const DEG = Math.PI / 180;
@@ -104,10 +187,15 @@ const DEG = Math.PI / 180;
  *
  * Eye heights: on terrain the post's height above the ground of its cell
  * (structure + eye); on the flat datum the recorded ground elevation is added,
- * the ground being sea level. A target counts as seen where the part of it
- * that must show is in view: the classes are made for its height less that
- * part (`countsFromM`). A condition set's visibility, when given, limits the
- * range.
+ * the ground being sea level. A target counts as detected where the part of
+ * it that must show is in view (the classes are made for its height less that
+ * part, `countsFromM`) and within the limits that do not depend on the
+ * ground — visibility at the 5 % threshold and the angular size by day, the
+ * luminous range at night, the wave screen on the water (`rangeLimitsOf`,
+ * the same model as the plan's results). Viewsheds are computed once per
+ * condition out to the farthest of its targets' ranges; each target is then
+ * cut at its own. A target on the water counts on the sea part of the site
+ * only, when the site states one (`seaMaskOf`).
  *
  * @throws TerrainInputError `post-outside-raster` (with the post's name) and
  *   whatever the core throws; and whatever `report` throws (a cancel)
@@ -126,7 +214,13 @@ export async function computeCoverage(
     weight: z.weight,
     mask: rasterizePolygon(terrain, [toRing(z.ring)]),
   }));
-  const siteCells = siteMask ? siteMask.reduce((n, v) => n + v, 0) : terrain.width * terrain.height;
+  const seaMask = seaMaskOf(inputs, terrain, toRing);
+  const onSea = (mask: Uint8Array | null) => (seaMask === null ? mask : intersect(mask, seaMask));
+  const areas = {
+    land: { siteMask, zones },
+    sea: seaMask && { siteMask: onSea(siteMask), zones: zones.map((z) => ({ ...z, mask: onSea(z.mask)! })) },
+  };
+  const countCells = (mask: Uint8Array | null) => (mask ? mask.reduce((n, v) => n + v, 0) : terrain.width * terrain.height);
 
   const flat = inputs.terrain === null;
   const posts = inputs.posts.map((p) => {
@@ -166,10 +260,12 @@ export async function computeCoverage(
 
   for (const condition of inputs.conditions) {
     await report((0.9 * doneJobs) / totalJobs, `Viewsheds: ${condition.conditionSetName}, ${condition.label}`);
+    const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
+    const maxDistance = viewshedRange(detections, terrain.cellSize);
     const conditions: SightConditions = {
       refractionCoefficient: condition.k,
       earthRadius: inputs.earthRadiusM,
-      ...(condition.maxDistanceM !== null && { maxDistance: condition.maxDistanceM }),
+      ...(maxDistance !== null && { maxDistance }),
     };
     // Reports made as viewsheds finish; the first one that throws (a cancel) stops the run after the batch.
     const pending: Promise<void>[] = [];
@@ -194,21 +290,25 @@ export async function computeCoverage(
       sector: p.sector,
       gridConvergence: p.gridConvergence,
     }));
-    for (const target of inputs.targets) {
+    inputs.targets.forEach((target, t) => {
+      const detection = detections[t]!;
       const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex);
+      const area = target.onWater && areas.sea ? areas.sea : areas.land;
       const coverage = evaluateNetworkCoverage({
         posts: network,
         targetHeight: target.countsFromM,
-        siteMask,
-        zones,
-        standard: inputs.standard,
+        siteMask: area.siteMask,
+        zones: area.zones,
+        standard: standardFor(inputs.standard, target),
         blindAreaMinArea: inputs.blindAreaMinAreaM2,
         maxBlindAreas: 20,
+        rangeLimit: detection.rangeLimit.rangeM,
       });
       addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
       addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
+      const siteCells = countCells(area.siteMask);
       const perPost = network.map((entry, i) => {
-        const classes = classifyVisibility(entry.hidden, target.countsFromM).classes;
+        const classes = coverage.postClasses[i]!;
         addLayer(key, 'post-visibility', posts[i]!.input.id, classes);
         // Cells where the post sees the target: its classes, and its sector when it has one.
         const seen = entry.sector
@@ -224,9 +324,9 @@ export async function computeCoverage(
                 },
               ]).counts,
               1,
-              siteMask,
+              area.siteMask,
             )
-          : countSeen(classes, 0, siteMask);
+          : countSeen(classes, 0, area.siteMask);
         return {
           postId: posts[i]!.input.id,
           postName: posts[i]!.input.name,
@@ -263,8 +363,10 @@ export async function computeCoverage(
           reasons: [...check.reasons],
         },
         posts: perPost,
+        detection: detectionOfCase(detection, coverage.limits, target.onWater && areas.sea !== null),
+        detectionModel: inputs.detectionModel,
       });
-    }
+    });
   }
   // Target × condition order, as the plan lists them.
   const order = (k: CoverageCase) =>

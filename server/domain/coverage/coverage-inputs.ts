@@ -4,7 +4,9 @@ import type { ConditionSet, Target } from '@/shared/schemas/library';
 import type { Plan } from '@/shared/schemas/plan';
 import type { RefractionCondition } from '@/shared/schemas/sightline';
 import type { Post, Site } from '@/shared/schemas/site';
-import { MEAN_EARTH_RADIUS_M } from '@/shared/sightline';
+import { DETECTION_MODEL_VERSION, MEAN_EARTH_RADIUS_M } from '@/shared/sightline';
+import { effectiveResolutionArcmin, type PlanLookout } from '@/shared/schemas/plan';
+import { formatK } from '@/shared/sightline/format-k';
 import { refractionFromCondition } from '@/shared/sightline/refraction-from-condition';
 import { REFRACTION_PRESETS } from '@/shared/sightline/refraction-presets';
 import { utmZoneFor } from '@/shared/geo/utm-zone-for';
@@ -27,7 +29,14 @@ export interface CoverageRunInputs {
   terrain: { id: string; sha256: string } | null;
   /** The flat datum's grid (UTM metres), when there is no terrain. */
   flatGrid: CoverageRunGrid | null;
-  site: { boundary: [number, number][] | null; zones: { name: string; weight: number; ring: [number, number][] }[] };
+  site: {
+    boundary: [number, number][] | null;
+    zones: { name: string; weight: number; ring: [number, number][] }[];
+    /** Land/sea mask: cells at or below this height are sea, metres; null = not stated. */
+    seaLevelMaxM: number | null;
+    /** Land/sea mask: the sea part as a WGS84 ring; null = not drawn. */
+    seaArea: [number, number][] | null;
+  };
   posts: {
     id: string;
     name: string;
@@ -45,6 +54,14 @@ export interface CoverageRunInputs {
     heightM: number;
     /** Height above ground that must be in view to count, metres: the target's height less the part that must show. */
     countsFromM: number;
+    requiredVisibleM: number;
+    /** Critical width for the angular-size limit, metres. */
+    widthM: number;
+    period: 'day' | 'night';
+    /** Candela, or null for no light. */
+    lightIntensityCd: number | null;
+    /** Floats on the water: the wave screen and the sea mask apply. */
+    onWater: boolean;
   }[];
   conditions: {
     conditionSetId: string;
@@ -52,13 +69,21 @@ export interface CoverageRunInputs {
     conditionIndex: number;
     label: string;
     k: number;
-    /** The set's meteorological visibility, metres, as a range limit; null = none. */
-    maxDistanceM: number | null;
+    /** The set's visibility, metres; null = not stated. */
+    visibilityM: number | null;
+    visibilityKind: 'mor-5pct' | 'meteorological-range-2pct';
+    seaState: number | null;
+    significantWaveHeightM: number | null;
+    backgroundLighting: 'none' | 'some' | 'much';
   }[];
   /** Conditions left out of the terrain coverage, and why. */
   skippedConditions: { conditionSetName: string; conditionLabel: string; reason: string }[];
   earthRadiusM: number;
   standard: Plan['standard'];
+  /** The lookout's resolving angle in object space (the eye's over the optics' magnification), arcminutes. */
+  resolutionArcmin: number;
+  /** `DETECTION_MODEL_VERSION` the run was asked with: a new model gives new figures. */
+  detectionModel: string;
   blindAreaMinAreaM2: number;
 }
 
@@ -78,7 +103,7 @@ const conditionLabel = (condition: RefractionCondition, k: number): string => {
     const preset = REFRACTION_PRESETS.find((p) => p.id === condition.preset);
     if (preset) return preset.label;
   }
-  return `k = ${Math.round(k * 1000) / 1000}`;
+  return `k = ${formatK(k)}`;
 };
 
 /**
@@ -126,6 +151,7 @@ export function buildCoverageInputs(input: {
   targets: Target[];
   conditionSets: ConditionSet[];
   standard: Plan['standard'];
+  lookout?: PlanLookout;
 }): CoverageRunInputs {
   const earthRadiusM = MEAN_EARTH_RADIUS_M;
   const conditions = input.conditionSets.flatMap((set) =>
@@ -137,7 +163,11 @@ export function buildCoverageInputs(input: {
         conditionIndex,
         label: conditionLabel(condition, k),
         k,
-        maxDistanceM: set.visibilityM,
+        visibilityM: set.visibilityM,
+        visibilityKind: set.visibilityKind,
+        seaState: set.seaState,
+        significantWaveHeightM: set.significantWaveHeightM,
+        backgroundLighting: set.backgroundLighting,
       };
     }),
   );
@@ -147,6 +177,8 @@ export function buildCoverageInputs(input: {
     site: {
       boundary: input.site.boundary,
       zones: input.site.priorityZones.map((z) => ({ name: z.name, weight: z.weight, ring: z.ring })),
+      seaLevelMaxM: input.site.seaLevelMaxM,
+      seaArea: input.site.seaArea,
     },
     posts: input.posts.map((p) => ({
       id: p.id,
@@ -162,6 +194,11 @@ export function buildCoverageInputs(input: {
       name: t.name,
       heightM: t.heightM,
       countsFromM: Math.max(0, t.heightM - t.requiredVisibleM),
+      requiredVisibleM: t.requiredVisibleM,
+      widthM: t.widthM,
+      period: t.period,
+      lightIntensityCd: t.lightIntensityCd,
+      onWater: t.onWater,
     })),
     conditions: conditions.filter((c) => c.k < 1),
     skippedConditions: conditions
@@ -169,6 +206,8 @@ export function buildCoverageInputs(input: {
       .map((c) => ({ conditionSetName: c.conditionSetName, conditionLabel: c.label, reason: DUCT_REASON })),
     earthRadiusM,
     standard: input.standard,
+    resolutionArcmin: effectiveResolutionArcmin(input.lookout ?? { resolutionArcmin: 1, magnification: 1 }),
+    detectionModel: DETECTION_MODEL_VERSION,
     blindAreaMinAreaM2: BLIND_AREA_MIN_M2,
   };
 }

@@ -18,7 +18,7 @@ export interface LoadedPlanInputs {
 /** The coverage inputs of a plan today, their hash, and whether the site has terrain. */
 export async function currentCoverageInputs(
   organizationId: string,
-  plan: Pick<Plan, 'standard'>,
+  plan: Pick<Plan, 'standard' | 'lookout'>,
   loaded: LoadedPlanInputs,
   transaction?: Transaction,
 ): Promise<{ inputs: CoverageRunInputs; inputsHash: string; hasTerrain: boolean }> {
@@ -27,6 +27,7 @@ export async function currentCoverageInputs(
     ...loaded,
     terrain: terrain && { id: terrain.id, sha256: terrain.sha256 },
     standard: plan.standard,
+    lookout: plan.lookout,
   });
   return { inputs, inputsHash: coverageInputsHash(inputs), hasTerrain: terrain !== null };
 }
@@ -56,7 +57,7 @@ export async function coverageSnapshotOf(
  */
 export async function coverageForSubmit(
   organizationId: string,
-  plan: Pick<Plan, 'id' | 'standard'>,
+  plan: Pick<Plan, 'id' | 'standard' | 'lookout'>,
   loaded: LoadedPlanInputs,
   transaction: Transaction,
 ): Promise<{ snapshot: CoverageSnapshot | null; required: boolean; pending: boolean }> {

@@ -204,7 +204,7 @@ describe('checkCoverageStandard', () => {
     const alone = checkCoverageStandard(siteOnly, { minSeenPct: 50, priorityMinPosts: 2 });
     expect(alone.rules).toHaveLength(1);
     expect(alone.passed).toBe(true);
-    expect(alone.standard).toEqual({ minSeenPct: 50, priorityMinPosts: 2 });
+    expect(alone.standard).toEqual({ minSeenPct: 50, priorityMinPosts: 2, crossBearingMinPct: null, targetRules: [] });
   });
 
   test('a zone with no cells on the grid fails with a reason', () => {
