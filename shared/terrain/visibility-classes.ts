@@ -56,7 +56,7 @@ export interface ClassifyOptions {
  *
  * With a `rangeLimit`, cells farther than it from the post (centre to centre)
  * are `outOfRange` instead, whatever their hidden height: the target is too
- * far to be detected there.
+ * far to be detected there. A range of 0 m puts every cell out of range.
  *
  * Source: definition of the hidden height (the height a target must reach to
  * be seen) — common practice, no source.
@@ -95,7 +95,11 @@ export function classifyVisibility(
     // Columns within the range on this row: [c0, c1], by the circle's chord (cells outside it are out of range).
     let c0 = 0;
     let c1 = W - 1;
-    if (limit !== null) {
+    if (limit !== null && limit.maxDistance <= 0) {
+      // A range of zero (an unlit target at night, one screened by waves) reaches no cell, not even the post's own.
+      c0 = W;
+      c1 = -1;
+    } else if (limit !== null) {
       const dy = row - limit.row;
       const span2 = range2 - dy * dy;
       if (span2 < 0) {
