@@ -7,7 +7,7 @@ import type { HiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
 import { checkCoverageStandard } from '@/shared/terrain/check-coverage-standard';
 import { computeCoverageStatistics } from '@/shared/terrain/coverage-statistics';
 import { evaluateNetworkCoverage } from '@/shared/terrain/network-coverage';
-import { rasterizePolygon } from '@/shared/terrain/rasterize-polygon';
+import { rasterizePolygon, type PolygonRing } from '@/shared/terrain/rasterize-polygon';
 import { classifyVisibility, VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 import { PLAIN_CELL, PLAIN_POSTS, PLAIN_RANGE, PLAIN_TARGET, flatPlain, plainHiddenRasters } from '@/tests/unit/terrain/flat-plain';
 
@@ -122,7 +122,7 @@ describe('checkCoverageStandard: target rules and the cross-bearing share', () =
   const posts = hidden.map((h, i) => ({ post: PLAIN_POSTS[i]!, hidden: h }));
   // A zone square in the A–B overlap off their axis, where bearings cross steeply (cols 200–220, rows 60–90), another far east beyond C's reach.
   const grid = terrain;
-  const square = (x0: number, y0: number, x1: number, y1: number) => [
+  const square = (x0: number, y0: number, x1: number, y1: number): PolygonRing[] => [
     [
       [grid.xll + x0 * PLAIN_CELL, grid.yll + (grid.height - y0) * PLAIN_CELL],
       [grid.xll + x1 * PLAIN_CELL, grid.yll + (grid.height - y0) * PLAIN_CELL],
