@@ -14,6 +14,21 @@ import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 
 type VisibilityKind = 'mor-5pct' | 'meteorological-range-2pct';
+type Lighting = 'none' | 'some' | 'much';
+
+/** Douglas sea-state degrees with the WMO code table 3700 descriptions. */
+const SEA_STATES = [
+  'Calm (glassy)',
+  'Calm (rippled)',
+  'Smooth',
+  'Slight',
+  'Moderate',
+  'Rough',
+  'Very rough',
+  'High',
+  'Very high',
+  'Phenomenal',
+] as const;
 
 /**
  * A new condition set: named refraction conditions (presets and any k of
@@ -26,6 +41,9 @@ export function ConditionSetForm() {
   const [ks, setKs] = useState('');
   const [visibility, setVisibility] = useState('');
   const [visibilityKind, setVisibilityKind] = useState<VisibilityKind>('mor-5pct');
+  const [seaState, setSeaState] = useState<number | null>(null);
+  const [waveHeight, setWaveHeight] = useState('');
+  const [lighting, setLighting] = useState<Lighting>('none');
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [failed, setFailed] = useState('');
   const [added, setAdded] = useState('');
@@ -46,6 +64,9 @@ export function ConditionSetForm() {
       conditions: [...presets.map((preset) => ({ preset })), ...own.filter(Number.isFinite).map((k) => ({ k }))],
       visibilityM: km === null ? null : km * 1000,
       visibilityKind,
+      seaState,
+      significantWaveHeightM: waveHeight.trim() === '' ? null : Number(waveHeight.replace(',', '.')),
+      backgroundLighting: lighting,
     });
     if (!r.success) {
       for (const i of r.error.issues) {
@@ -61,6 +82,9 @@ export function ConditionSetForm() {
         setPresets([]);
         setKs('');
         setVisibility('');
+        setSeaState(null);
+        setWaveHeight('');
+        setLighting('none');
         setAdded(`Added ${conditionSet.name}.`);
       },
       onError: (e) => {
@@ -126,6 +150,46 @@ export function ConditionSetForm() {
           ]}
         />
       </View>
+      <ChipRow label="Sea state (Douglas degree)">
+        {SEA_STATES.map((label, degree) => (
+          <Chip
+            key={label}
+            label={`${degree} ${label}`}
+            on={seaState === degree}
+            onPress={() => {
+              setSeaState((s) => (s === degree ? null : degree));
+              setWaveHeight('');
+            }}
+          />
+        ))}
+      </ChipRow>
+      {errors.seaState ? (
+        <AppText variant="small" tone="danger" role="alert">
+          {errors.seaState}
+        </AppText>
+      ) : null}
+      <TextField
+        label="Or the significant wave height"
+        unit="m"
+        inputMode="decimal"
+        value={waveHeight}
+        onChangeText={(t) => {
+          setWaveHeight(t);
+          if (t.trim() !== '') setSeaState(null);
+        }}
+        error={errors.significantWaveHeightM}
+        hint="Waves hide the lower part of targets on the water (half the wave height). Leave both empty on land."
+      />
+      <Segmented
+        label="Lights behind a target at night"
+        value={lighting}
+        onChange={setLighting}
+        options={[
+          { value: 'none', label: 'Dark' },
+          { value: 'some', label: 'Some shore lights' },
+          { value: 'much', label: 'Bright town' },
+        ]}
+      />
       <Button label="Save condition set" onPress={submit} busy={create.isPending} />
     </Card>
   );

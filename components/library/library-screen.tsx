@@ -49,6 +49,8 @@ export function LibraryScreen() {
                 <AppText variant="small" tone="muted">
                   {TARGET_KIND_LABELS[t.kind]} · {t.heightM} m tall, {t.widthM} m wide · top {t.requiredVisibleM} m must show ·{' '}
                   {t.period}
+                  {t.lightIntensityCd !== null ? ` · light ${t.lightIntensityCd.toLocaleString('en')} cd` : ''}
+                  {t.onWater ? ' · floats' : ''}
                 </AppText>
               </Card>
             ))
@@ -79,6 +81,11 @@ export function LibraryScreen() {
                   {s.visibilityM === null
                     ? 'not stated'
                     : `${(s.visibilityM / 1000).toLocaleString('en')} km (${s.visibilityKind === 'mor-5pct' ? 'MOR' : 'met. range'})`}
+                  {s.seaState !== null ? ` · sea state ${s.seaState}` : ''}
+                  {s.significantWaveHeightM !== null ? ` · waves ${s.significantWaveHeightM} m` : ''}
+                  {s.backgroundLighting !== 'none'
+                    ? ` · ${s.backgroundLighting === 'some' ? 'some shore lights' : 'bright town'} behind`
+                    : ''}
                 </AppText>
               </Card>
             ))

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { View } from 'react-native';
-import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema } from '@/shared/schemas/library';
+import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema, WATER_TARGET_KINDS } from '@/shared/schemas/library';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
 import { useCreateTarget } from '@/components/data/library';
@@ -18,9 +18,15 @@ const EMPTY = {
   height: '',
   width: '',
   required: '0',
+  light: '',
+  onWater: null as boolean | null,
 };
 
-/** A new target profile: what it is, how tall and wide, the part that must show, day or night. */
+/**
+ * A new target profile: what it is, how tall and wide, the part that must
+ * show, day or night, its light in candela (needed at night) and whether it
+ * floats (the waves hide its lower part, and it counts only on the sea).
+ */
 export function TargetForm() {
   const create = useCreateTarget();
   const [v, setV] = useState(EMPTY);
@@ -28,6 +34,8 @@ export function TargetForm() {
   const [failed, setFailed] = useState('');
   const [added, setAdded] = useState('');
   const set = (k: keyof typeof v) => (t: string) => setV((f) => ({ ...f, [k]: t }));
+  // Floats by default for kinds found on the water, until the planner says otherwise.
+  const onWater = v.onWater ?? WATER_TARGET_KINDS.includes(v.kind);
   const submit = () => {
     setFailed('');
     setAdded('');
@@ -39,6 +47,8 @@ export function TargetForm() {
       widthM: n(v.width),
       requiredVisibleM: n(v.required),
       period: v.period,
+      lightIntensityCd: n(v.light) ?? null,
+      onWater: v.onWater ?? undefined,
     });
     if (!r.success) {
       setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
@@ -109,6 +119,31 @@ export function TargetForm() {
           { value: 'night', label: 'Night' },
         ]}
       />
+      {v.period === 'night' || v.kind === 'light' ? (
+        <TextField
+          label="Light intensity"
+          unit="cd"
+          inputMode="decimal"
+          value={v.light}
+          onChangeText={set('light')}
+          error={errors.lightIntensityCd}
+          hint="Candela, from the maker's data (a hand flare is thousands, a lifejacket light a few). Needed at night: an unlit target is not detected."
+        />
+      ) : null}
+      <Segmented
+        label="On the water"
+        value={onWater ? 'yes' : 'no'}
+        onChange={(w) => setV((f) => ({ ...f, onWater: w === 'yes' }))}
+        options={[
+          { value: 'yes', label: 'Floats' },
+          { value: 'no', label: 'On land or in the air' },
+        ]}
+      />
+      <AppText variant="small" tone="muted">
+        {onWater
+          ? 'Waves hide its lower part, and on a coast site it counts only over the sea.'
+          : 'Counted over the whole site; waves do not hide it.'}
+      </AppText>
       <Button label="Save target" onPress={submit} busy={create.isPending} />
     </Card>
   );

@@ -12,7 +12,15 @@ import { tableStyles } from '@/components/ui/table-styles';
 import { colors, radius, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { CoverageCasePicker } from './coverage-case-picker';
-import { caseLabel, COVERAGE_CAUTIONS, formatArea, formatPct, pickCase, rulesFailingFirst } from './coverage-format';
+import {
+  caseLabel,
+  COVERAGE_CAUTIONS,
+  describeDetection,
+  formatArea,
+  formatPct,
+  pickCase,
+  rulesFailingFirst,
+} from './coverage-format';
 
 type Area = CoverageCase['site'];
 
@@ -65,6 +73,7 @@ export function CoverageFigures({
       <View style={wide ? { flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' } : { gap: space.lg }}>
         <View style={{ flex: wide ? 1 : undefined, gap: space.lg }}>
           <Verdict check={shown.check} />
+          <DetectionLimits c={shown} />
           <SiteFigures site={shown.site} flat={run.datum === 'flat'} />
           {shown.zones.length ? <ZoneTable zones={shown.zones} /> : null}
         </View>
@@ -296,3 +305,43 @@ const styles = StyleSheet.create({
   barTrack: { height: 6, borderRadius: radius.pill, backgroundColor: colors.line, overflow: 'hidden' },
   barFill: { height: '100%', backgroundColor: colors.moss },
 });
+
+/** What limits detection in this case: the range and its limit, what decided the rest, the areas. */
+function DetectionLimits({ c }: { c: CoverageCase }) {
+  const lines = describeDetection(c);
+  if (!lines) {
+    return (
+      <Notice tone="caution" title="Made before the detection model">
+        <AppText variant="small">
+          This run counted the view and the visibility only, not the target’s size, light or the sea. Compute again for figures of
+          detectable targets.
+        </AppText>
+      </Notice>
+    );
+  }
+  return (
+    <View style={{ gap: space.xs }} aria-label="What limits detection">
+      <AppText variant="heading">What limits detection</AppText>
+      <AppText>{lines.range}</AppText>
+      {lines.decided ? <AppText variant="small">{lines.decided}</AppText> : null}
+      {lines.waves ? <AppText variant="small">{lines.waves}</AppText> : null}
+      {lines.sea ? <AppText variant="small">{lines.sea}</AppText> : null}
+      <View style={tableStyles.table}>
+        {lines.areas.map((a) => (
+          <View key={a.label} style={tableStyles.tr}>
+            <View style={[tableStyles.td, { flex: 1 }]}>
+              <AppText variant="small">{a.label}</AppText>
+            </View>
+            <View style={tableStyles.td}>
+              <AppText variant="small">{a.area}</AppText>
+            </View>
+          </View>
+        ))}
+      </View>
+      <AppText variant="small" tone="muted">
+        Detection model {c.detectionModel ?? 'unknown'}: visibility is not detection; a lookout searching a wide arc sees less
+        than these limits.
+      </AppText>
+    </View>
+  );
+}

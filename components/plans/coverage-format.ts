@@ -1,4 +1,5 @@
 import type { CoverageCase, CoverageComparison, CoverageRun, PlanCoverage, CoverageSnapshot } from '@/shared/schemas/coverage';
+import { LIMIT_LABELS } from '@/components/check/format';
 
 /**
  * Pure helpers for the coverage screens: words and numbers for people
@@ -252,3 +253,64 @@ export function caseChoices(cases: readonly CaseLike[], key: string | null): Cas
   }
   return { targets: [...targets.values()], sets: [...sets.values()] };
 }
+
+/** What decided a case's undetected area, in words. */
+export const DECIDED_BY_WORDS = {
+  view: 'the view: terrain, the horizon or a post’s sector hides it from every post within range',
+  visibility: 'the visibility: the haze hides the target beyond every post’s reach',
+  'angular-size': 'the target’s size: it is too small to make out beyond every post’s reach',
+  'luminous-range': 'the light: it is too faint beyond every post’s reach at night',
+  'sea-state': 'the sea: wave crests hide the part of the target that must show',
+} as const;
+
+/** One case's detection limits as lines for people (see {@link CoverageCase.detection}). */
+export interface DetectionLines {
+  /** "Detected out to 0.69 km from a post (angular size)", or why never. */
+  readonly range: string;
+  /** "Most of the undetected area: …", or null when all is detected. */
+  readonly decided: string | null;
+  /** Areas by what decided them. */
+  readonly areas: readonly { label: string; area: string }[];
+  /** "Counted over the sea only.", or null. */
+  readonly sea: string | null;
+  /** "Waves hide the lowest 0.63 m.", or null. */
+  readonly waves: string | null;
+}
+
+/**
+ * Describes a case's detection limits, or returns null for runs made before
+ * the detection model (their figures count the view and visibility only).
+ */
+export function describeDetection(c: Pick<CoverageCase, 'detection' | 'targetName'>): DetectionLines | null {
+  const d = c.detection;
+  if (!d) return null;
+  const limit = (by: NonNullable<typeof d.rangeLimitedBy>) => LIMIT_LABELS[by];
+  const range =
+    d.reason === 'unlit-at-night'
+      ? `${c.targetName} has no light: at night it is not detected anywhere.`
+      : d.reason === 'screened-by-waves'
+        ? `Wave crests hide ${c.targetName}: it is not detected anywhere in this sea.`
+        : d.rangeLimitM === null
+          ? `${c.targetName}: only the view limits detection (no stated visibility, size or light limit).`
+          : `${c.targetName} is detected out to ${formatKm(d.rangeLimitM)} from a post at most (${limit(d.rangeLimitedBy!)}).`;
+  const total = d.areaM2.detected + d.areaM2.noData + d.areaM2.view + d.areaM2.range;
+  const areas = [
+    { label: 'Detected', area: d.areaM2.detected },
+    { label: 'Hidden from posts in range', area: d.areaM2.view },
+    { label: 'Beyond every post’s range', area: d.areaM2.range },
+    { label: 'Without terrain data', area: d.areaM2.noData },
+  ]
+    .filter((a) => a.area > 0 || a.label === 'Detected')
+    .map((a) => ({ label: a.label, area: `${formatArea(a.area)}${total > 0 ? ` (${formatPct((100 * a.area) / total)})` : ''}` }));
+  return {
+    range,
+    decided: d.decidedBy === null ? null : `Most of the undetected area is decided by ${DECIDED_BY_WORDS[d.decidedBy]}.`,
+    areas,
+    sea: d.seaOnly ? 'A target on the water: counted over the site’s sea only, not its land.' : null,
+    waves:
+      d.waveScreenM > 0 ? `Waves hide the lowest ${formatMetres(Math.round(d.waveScreenM * 100) / 100)} of the target.` : null,
+  };
+}
+
+const formatKm = (m: number) =>
+  m >= 10_000 ? `${(m / 1000).toFixed(0)} km` : m >= 1000 ? `${(m / 1000).toFixed(1)} km` : `${Math.round(m)} m`;

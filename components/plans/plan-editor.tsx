@@ -18,6 +18,7 @@ import { Card } from '@/components/ui/card';
 import { CheckGroup, CheckRow } from '@/components/ui/check-row';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { ErrorState, FormError, LoadingState } from '@/components/ui/states';
+import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 
 interface Values {
@@ -28,6 +29,18 @@ interface Values {
   conditionSetIds: string[];
   minSeenPct: string;
   priorityMinPosts: '1' | '2' | '3';
+  /** Empty = no cross-bearing rule. */
+  crossBearingMinPct: string;
+  /** One optional rule per target, keyed by target id. */
+  targetRules: Record<string, RuleValues>;
+  resolutionArcmin: string;
+  magnification: string;
+}
+
+interface RuleValues {
+  area: 'site' | 'priority-zones';
+  minPosts: '1' | '2' | '3';
+  minPct: string;
 }
 
 /** Where an API or schema field path shows its error on this form. */
@@ -39,8 +52,15 @@ const FIELD_OF: Record<string, Path<Values>> = {
   conditionSetIds: 'conditionSetIds',
   'standard.minSeenPct': 'minSeenPct',
   'standard.priorityMinPosts': 'priorityMinPosts',
+  'standard.crossBearingMinPct': 'crossBearingMinPct',
+  'standard.targetRules': 'targetRules',
+  'lookout.resolutionArcmin': 'resolutionArcmin',
+  'lookout.magnification': 'magnification',
 };
-const fieldOf = (path: string) => FIELD_OF[path] ?? FIELD_OF[path.replace(/\.\d+$/, '')];
+const fieldOf = (path: string) =>
+  FIELD_OF[path] ?? FIELD_OF[path.replace(/\.\d+$/, '')] ?? (path.startsWith('standard.targetRules') ? 'targetRules' : undefined);
+
+const numberOf = (text: string) => (text.trim() === '' ? NaN : Number(text.replace(',', '.')));
 
 const toggled = (list: string[], id: string) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]);
 
@@ -62,9 +82,19 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
       conditionSetIds: plan?.conditionSetIds ?? [],
       minSeenPct: String(plan?.standard.minSeenPct ?? 70),
       priorityMinPosts: String(plan?.standard.priorityMinPosts ?? 2) as Values['priorityMinPosts'],
+      crossBearingMinPct: plan?.standard.crossBearingMinPct == null ? '' : String(plan.standard.crossBearingMinPct),
+      targetRules: Object.fromEntries(
+        (plan?.standard.targetRules ?? []).map((r) => [
+          r.targetId,
+          { area: r.area, minPosts: String(r.minPosts) as RuleValues['minPosts'], minPct: String(r.minPct) },
+        ]),
+      ),
+      resolutionArcmin: String(plan?.lookout.resolutionArcmin ?? 1),
+      magnification: String(plan?.lookout.magnification ?? 1),
     },
   });
   const siteId = watch('siteId');
+  const targetIds = watch('targetIds');
   const sites = useSites(1);
   const posts = useQuery({ ...sitePostsQuery(siteId), enabled: siteId !== '' });
   const targets = useTargets();
@@ -80,9 +110,15 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
       targetIds: v.targetIds,
       conditionSetIds: v.conditionSetIds,
       standard: {
-        minSeenPct: v.minSeenPct.trim() === '' ? NaN : Number(v.minSeenPct.replace(',', '.')),
+        minSeenPct: numberOf(v.minSeenPct),
         priorityMinPosts: Number(v.priorityMinPosts),
+        crossBearingMinPct: v.crossBearingMinPct.trim() === '' ? null : numberOf(v.crossBearingMinPct),
+        // Rules of targets no longer in the plan are dropped with them.
+        targetRules: Object.entries(v.targetRules)
+          .filter(([targetId]) => v.targetIds.includes(targetId))
+          .map(([targetId, r]) => ({ targetId, area: r.area, minPosts: Number(r.minPosts), minPct: numberOf(r.minPct) })),
       },
+      lookout: { resolutionArcmin: numberOf(v.resolutionArcmin), magnification: numberOf(v.magnification) },
     };
     const parsed = PlanInputSchema.safeParse(candidate);
     if (!parsed.success) {
@@ -260,6 +296,43 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
             </View>
           )}
         />
+        <FormTextField
+          control={control}
+          name="crossBearingMinPct"
+          label="Share of each priority zone with good cross-bearings"
+          unit="%"
+          inputMode="decimal"
+          hint="Empty for no such rule. Good: two bearings crossing steeply enough to fix a smoke."
+        />
+        <Controller
+          control={control}
+          name="targetRules"
+          render={({ field, fieldState }) => (
+            <TargetRulesField
+              rules={field.value}
+              onChange={field.onChange}
+              targets={(targets.data ?? []).filter((t) => targetIds.includes(t.id))}
+              error={fieldState.error?.message}
+            />
+          )}
+        />
+      </View>
+
+      <View style={{ gap: space.sm }}>
+        <AppText variant="heading">The lookout</AppText>
+        <AppText variant="small" tone="muted">
+          A target is detected only while it looks big enough: its width must subtend at least this angle. 1′ is the normal eye;
+          binoculars divide it by their magnification (an ideal instrument — real gain is less, and the narrow field slows the
+          search).
+        </AppText>
+        <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
+          <View style={{ flex: 1, minWidth: 140 }}>
+            <FormTextField control={control} name="resolutionArcmin" label="Eye’s resolving angle" unit="′" inputMode="decimal" />
+          </View>
+          <View style={{ flex: 1, minWidth: 140 }}>
+            <FormTextField control={control} name="magnification" label="Optics magnification" unit="×" inputMode="decimal" />
+          </View>
+        </View>
       </View>
 
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
@@ -267,5 +340,82 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
         <Button kind="quiet" label="Cancel" onPress={() => (router.canGoBack() ? router.back() : router.replace('/plans'))} />
       </View>
     </Card>
+  );
+}
+
+/**
+ * One optional rule per chosen target: "this target: x % of the site (or of
+ * each priority zone) seen by at least n posts".
+ */
+function TargetRulesField({
+  rules,
+  onChange,
+  targets,
+  error,
+}: {
+  rules: Record<string, RuleValues>;
+  onChange: (next: Record<string, RuleValues>) => void;
+  targets: { id: string; name: string }[];
+  error?: string;
+}) {
+  if (targets.length === 0) return null;
+  const put = (id: string, rule: RuleValues | null) => {
+    const next = { ...rules };
+    if (rule) next[id] = rule;
+    else delete next[id];
+    onChange(next);
+  };
+  return (
+    <View style={{ gap: space.sm }} aria-label="Rules per target">
+      <AppText variant="label">Rules per target</AppText>
+      {targets.map((t) => {
+        const rule = rules[t.id];
+        return (
+          <View key={t.id} style={{ gap: space.xs }}>
+            <CheckRow
+              label={t.name}
+              detail={rule ? 'Has its own rule' : 'Only the rules above'}
+              checked={rule !== undefined}
+              onToggle={() => put(t.id, rule ? null : { area: 'site', minPosts: '1', minPct: '50' })}
+            />
+            {rule ? (
+              <View style={{ gap: space.xs, paddingLeft: space.lg }}>
+                <TextField
+                  label={`Share ${t.name} must be detected over`}
+                  unit="%"
+                  inputMode="decimal"
+                  value={rule.minPct}
+                  onChangeText={(minPct) => put(t.id, { ...rule, minPct })}
+                />
+                <Segmented
+                  label="Of"
+                  value={rule.area}
+                  options={[
+                    { value: 'site', label: 'The site' },
+                    { value: 'priority-zones', label: 'Each priority zone' },
+                  ]}
+                  onChange={(area) => put(t.id, { ...rule, area })}
+                />
+                <Segmented
+                  label="By at least"
+                  value={rule.minPosts}
+                  options={[
+                    { value: '1', label: '1 post' },
+                    { value: '2', label: '2 posts' },
+                    { value: '3', label: '3 posts' },
+                  ]}
+                  onChange={(minPosts) => put(t.id, { ...rule, minPosts })}
+                />
+              </View>
+            ) : null}
+          </View>
+        );
+      })}
+      {error ? (
+        <AppText variant="small" tone="danger" role="alert">
+          {error}
+        </AppText>
+      ) : null}
+    </View>
   );
 }

@@ -278,6 +278,8 @@ describe('comparing two plans', () => {
 describe('a site without terrain', () => {
   it('is covered on the flat datum out to the horizon and the geographic range', async () => {
     // An invented stretch of open sea, about 104 km × 111 km, with one post in the middle: wider than both ranges.
+    // The targets are wide (the sea surface itself, a 150 m ship) and the air has no stated visibility, so that
+    // only the geometry limits them: at 1′ their angular-size limits are thousands of kilometres.
     const centre = { latDeg: 48.0, lonDeg: -4.5 };
     const ring = [
       [-5.2, 47.5],
@@ -308,13 +310,13 @@ describe('a site without terrain', () => {
     const ground = (
       await planner
         .post('/api/v1/targets')
-        .send({ name: 'Sea surface', kind: 'light', heightM: 0, widthM: 0.1, requiredVisibleM: 0, period: 'day' })
+        .send({ name: 'Sea surface', kind: 'light', heightM: 0, widthM: 5000, requiredVisibleM: 0, period: 'day' })
         .expect(201)
     ).body.target;
     const mast = (
       await planner
         .post('/api/v1/targets')
-        .send({ name: 'Mast top 30 m', kind: 'vessel', heightM: 30, widthM: 1, requiredVisibleM: 0, period: 'day' })
+        .send({ name: 'Ship 30 m', kind: 'vessel', heightM: 30, widthM: 150, requiredVisibleM: 0, period: 'day' })
         .expect(201)
     ).body.target;
     const k = 0.13;

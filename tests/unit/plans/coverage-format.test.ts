@@ -14,6 +14,7 @@ import {
   rulesFailingFirst,
   sharedCaseKeys,
 } from '@/components/plans/coverage-format';
+import { describeDetection } from '@/components/plans/coverage-format';
 import { IDS, sampleCase, sampleComparison, sampleRun } from '@/tests/support/coverage-samples';
 
 describe('areas and shares for people', () => {
@@ -188,5 +189,49 @@ describe('comparison figures', () => {
     ]);
     expect(comparePosts([post('1', 'Tower A', 12)], [])[0]!.change).toBe('only in A');
     expect(comparePosts([post('1', 'Tower A', 12)], [post('1', 'Tower A', 9.5)])[0]!.change).toBe('−2.5 m');
+  });
+});
+
+describe('describeDetection', () => {
+  const base = {
+    targetName: 'Person in the water',
+    detection: {
+      rangeLimitM: 687.5,
+      rangeLimitedBy: 'angular-size' as const,
+      waveScreenM: 0.625,
+      reason: null,
+      decidedBy: 'angular-size' as const,
+      areaM2: { detected: 2_000_000, noData: 0, view: 500_000, range: 7_500_000 },
+      seaOnly: true,
+    },
+  };
+  test('says how far, which limit, what decided the rest, and the areas with their shares', () => {
+    // common practice, no source: a share is the area over the area judged.
+    const lines = describeDetection(base)!;
+    expect(lines.range).toBe('Person in the water is detected out to 688 m from a post at most (angular size).');
+    expect(lines.decided).toMatch(/decided by the target’s size/);
+    expect(lines.areas).toEqual([
+      { label: 'Detected', area: '2.00 km² (20.0 %)' },
+      { label: 'Hidden from posts in range', area: '0.50 km² (5.0 %)' },
+      { label: 'Beyond every post’s range', area: '7.50 km² (75.0 %)' },
+    ]);
+    expect(lines.sea).toMatch(/sea only/);
+    expect(lines.waves).toBe('Waves hide the lowest 0.6 m of the target.');
+  });
+  test('an unlit target at night and a run made before the model are said so', () => {
+    const unlit = describeDetection({
+      ...base,
+      detection: { ...base.detection, rangeLimitM: 0, reason: 'unlit-at-night', rangeLimitedBy: 'luminous-range' },
+    })!;
+    expect(unlit.range).toMatch(/no light: at night it is not detected anywhere/);
+    expect(describeDetection({ targetName: 'x', detection: null })).toBeNull();
+    const free = describeDetection({
+      ...base,
+      detection: { ...base.detection, rangeLimitM: null, rangeLimitedBy: null, decidedBy: null, waveScreenM: 0, seaOnly: false },
+    })!;
+    expect(free.range).toMatch(/only the view limits/);
+    expect(free.decided).toBeNull();
+    expect(free.waves).toBeNull();
+    expect(free.sea).toBeNull();
   });
 });

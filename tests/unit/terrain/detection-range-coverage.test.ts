@@ -9,7 +9,14 @@ import { computeCoverageStatistics } from '@/shared/terrain/coverage-statistics'
 import { evaluateNetworkCoverage } from '@/shared/terrain/network-coverage';
 import { rasterizePolygon, type PolygonRing } from '@/shared/terrain/rasterize-polygon';
 import { classifyVisibility, VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
-import { PLAIN_CELL, PLAIN_POSTS, PLAIN_RANGE, PLAIN_TARGET, flatPlain, plainHiddenRasters } from '@/tests/unit/terrain/flat-plain';
+import {
+  PLAIN_CELL,
+  PLAIN_POSTS,
+  PLAIN_RANGE,
+  PLAIN_TARGET,
+  flatPlain,
+  plainHiddenRasters,
+} from '@/tests/unit/terrain/flat-plain';
 
 jest.setTimeout(60_000);
 
@@ -70,7 +77,13 @@ describe('evaluateNetworkCoverage with a detection range on the flat plain', () 
     // geographic range (3000 m here, see flat-plain.ts) is in view, so a 1500 m detection
     // range leaves three discs of 1500 m that do not overlap (posts 4000 m apart).
     const range = 1500;
-    const result = evaluateNetworkCoverage({ posts, targetHeight: PLAIN_TARGET, siteMask: null, standard: STANDARD, rangeLimit: range });
+    const result = evaluateNetworkCoverage({
+      posts,
+      targetHeight: PLAIN_TARGET,
+      siteMask: null,
+      standard: STANDARD,
+      rangeLimit: range,
+    });
     const seenArea = result.statistics.site.seenBy1.area;
     const discs = 3 * Math.PI * range * range;
     expect(Math.abs(seenArea / discs - 1)).toBeLessThan(0.01);
@@ -104,12 +117,24 @@ describe('evaluateNetworkCoverage with a detection range on the flat plain', () 
     // A two-post overlap exists at the full range (A–B, 4000 m apart, 3000 m each) …
     expect(free.statistics.site.seenBy2.cells).toBeGreaterThan(0);
     // … and vanishes when the detection range is under half the spacing.
-    const short = evaluateNetworkCoverage({ posts, targetHeight: PLAIN_TARGET, siteMask: null, standard: STANDARD, rangeLimit: 1900 });
+    const short = evaluateNetworkCoverage({
+      posts,
+      targetHeight: PLAIN_TARGET,
+      siteMask: null,
+      standard: STANDARD,
+      rangeLimit: 1900,
+    });
     expect(short.statistics.site.seenBy2.cells).toBe(0);
   });
 
   test('a range of 0 m detects nothing anywhere', () => {
-    const none = evaluateNetworkCoverage({ posts, targetHeight: PLAIN_TARGET, siteMask: null, standard: STANDARD, rangeLimit: 0 });
+    const none = evaluateNetworkCoverage({
+      posts,
+      targetHeight: PLAIN_TARGET,
+      siteMask: null,
+      standard: STANDARD,
+      rangeLimit: 0,
+    });
     expect(none.statistics.site.seenBy1.cells).toBe(0);
     expect(none.limits.rangeCells).toBe(none.postsPerCell.counts.length);
     expect(none.check.passed).toBe(false);
