@@ -22,6 +22,14 @@ export interface CheckFormValues {
   visibilityKind: 'mor-5pct' | 'meteorological-range-2pct';
   targetSize: string;
   resolutionArcmin: string;
+  period: 'day' | 'night';
+  /** Candela; only sent at night. */
+  lightIntensity: string;
+  backgroundLighting: 'none' | 'some' | 'much';
+  /** Douglas degree 0–9 as text, '' = not stated. */
+  seaState: string;
+  /** Significant wave height in the height unit, '' = not stated. */
+  waveHeight: string;
   presets: RefractionPresetId[];
   customK: string;
   weather: { enabled: boolean; pressureHpa: string; temperatureC: string; lapseRateKPerM: string };
@@ -37,6 +45,11 @@ export const DEFAULT_FORM: CheckFormValues = {
   visibilityKind: 'mor-5pct',
   targetSize: '3',
   resolutionArcmin: '1',
+  period: 'day',
+  lightIntensity: '',
+  backgroundLighting: 'none',
+  seaState: '',
+  waveHeight: '',
   presets: ['no-refraction', 'standard-optical', 'radio-four-thirds'],
   customK: '',
   weather: { enabled: false, pressureHpa: '1013.25', temperatureC: '15', lapseRateKPerM: '0.0065' },
@@ -51,6 +64,9 @@ const FIELD_OF: Record<string, keyof CheckFormValues | 'weather'> = {
   visibilityM: 'visibility',
   targetSizeM: 'targetSize',
   resolutionArcmin: 'resolutionArcmin',
+  lightIntensityCd: 'lightIntensity',
+  seaState: 'seaState',
+  significantWaveHeightM: 'waveHeight',
   conditions: 'presets',
 };
 
@@ -93,6 +109,9 @@ export function buildRequest(
   const visibilityM = read('visibility', v.visibility, du);
   const targetSizeM = read('targetSize', v.targetSize, hu);
   const resolutionArcmin = read('resolutionArcmin', v.resolutionArcmin, null);
+  const lightIntensityCd = v.period === 'night' ? read('lightIntensity', v.lightIntensity, null) : undefined;
+  const seaState = read('seaState', v.seaState, null);
+  const significantWaveHeightM = read('waveHeight', v.waveHeight, hu);
 
   const conditions: RefractionCondition[] = [];
   const labels: ConditionLabel[] = [];
@@ -127,6 +146,11 @@ export function buildRequest(
     visibilityKind: visibilityM === undefined ? undefined : v.visibilityKind,
     targetSizeM,
     resolutionArcmin,
+    period: v.period,
+    lightIntensityCd,
+    backgroundLighting: v.period === 'night' ? v.backgroundLighting : undefined,
+    seaState,
+    significantWaveHeightM,
     conditions,
   };
   const parsed = SightlineRequestSchema.safeParse(candidate);
@@ -162,6 +186,7 @@ export function switchUnits(v: CheckFormValues, units: UnitSystem): CheckFormVal
     targetHeight: conv(v.targetHeight, from.height, to.height),
     requiredVisible: conv(v.requiredVisible, from.height, to.height),
     targetSize: conv(v.targetSize, from.height, to.height),
+    waveHeight: conv(v.waveHeight, from.height, to.height),
     distance: conv(v.distance, from.distance, to.distance),
     visibility: conv(v.visibility, from.distance, to.distance),
   };

@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
-import type { SightlineRequest } from '@/shared/schemas/sightline';
+import type { SightlineRequest, SightlineResult } from '@/shared/schemas/sightline';
 import { refractionPreset } from '@/shared/sightline/refraction-presets';
 import { useSightline } from '@/components/data/sightline';
 import { AppText } from '@/components/ui/app-text';
@@ -21,6 +21,7 @@ import {
   type UnitSystem,
 } from './check-form-model';
 import { CautionsPanel } from './cautions-panel';
+import { formatLength, LIMIT_EXPLANATIONS, LIMIT_LABELS } from './format';
 import { conditionStyle } from './condition-colors';
 import { ConditionPicker } from './condition-picker';
 import { RefractionBandPanel } from './refraction-band-panel';
@@ -145,6 +146,62 @@ export function QuickCheck() {
         error={errors.resolutionArcmin}
         hint="1′ is normal acuity; lookouts searching need several."
       />
+      <Segmented
+        label="Searching by"
+        value={form.period}
+        onChange={set('period')}
+        options={[
+          { value: 'day', label: 'Day' },
+          { value: 'night', label: 'Night (a light)' },
+        ]}
+      />
+      {form.period === 'night' ? (
+        <>
+          <TextField
+            label="Light intensity"
+            unit="cd"
+            inputMode="decimal"
+            value={form.lightIntensity}
+            onChangeText={set('lightIntensity')}
+            error={errors.lightIntensity}
+            hint="Candela, from the maker's data. Empty: the target is unlit and is not detected at night."
+          />
+          <Segmented
+            label="Lights behind it"
+            value={form.backgroundLighting}
+            onChange={set('backgroundLighting')}
+            options={[
+              { value: 'none', label: 'Dark' },
+              { value: 'some', label: 'Some shore lights' },
+              { value: 'much', label: 'Bright town' },
+            ]}
+          />
+        </>
+      ) : null}
+      <View style={styles.pair}>
+        <View style={styles.half}>
+          <TextField
+            label="Sea state"
+            unit="0–9"
+            inputMode="numeric"
+            value={form.seaState}
+            onChangeText={(t) => setForm((f) => ({ ...f, seaState: t, waveHeight: t.trim() === '' ? f.waveHeight : '' }))}
+            error={errors.seaState}
+            hint="Douglas degree, for a target on the water."
+          />
+        </View>
+        <View style={styles.half}>
+          <TextField
+            label="Or wave height"
+            unit={units.height}
+            inputMode="decimal"
+            value={form.waveHeight}
+            onChangeText={(t) => setForm((f) => ({ ...f, waveHeight: t, seaState: t.trim() === '' ? f.seaState : '' }))}
+            error={errors.waveHeight}
+            hint="Significant height; crests hide half of it."
+          />
+        </View>
+      </View>
       <View style={{ gap: space.sm }}>
         <AppText variant="label">Refraction conditions</AppText>
         <ConditionPicker value={form.presets} onChange={set('presets')} />
@@ -232,6 +289,7 @@ function Answer({
         observerHeightM={request.observerHeightM}
         earthRadiusM={request.earthRadiusM}
       />
+      <LimitWords results={data.results} labels={labels} units={units} />
       {warnings.length ? (
         <Notice tone="caution" title="Notes on these results">
           {warnings.map((w, i) => (
@@ -339,3 +397,37 @@ const styles = StyleSheet.create({
   pair: { flexDirection: 'row', gap: space.md },
   half: { flex: 1 },
 });
+
+/** The limiting factor of each result in words: how far, and why not farther. */
+function LimitWords({
+  results,
+  labels,
+  units,
+}: {
+  results: SightlineResult[];
+  labels: ConditionLabel[];
+  units: (typeof UNIT_SYSTEMS)[UnitSystem];
+}) {
+  const lines = results.flatMap((r, i) =>
+    r.limitedBy === null || r.detectionRangeM === null
+      ? []
+      : [
+          `${labels[i]?.label ?? ''}: detected out to ${formatLength(r.detectionRangeM, units.distance)}, limited by the ${LIMIT_LABELS[r.limitedBy]}. ${LIMIT_EXPLANATIONS[r.limitedBy]}`,
+        ],
+  );
+  if (lines.length === 0) return null;
+  return (
+    <Card style={{ gap: space.xs }} aria-label="What limits detection">
+      <AppText variant="heading">What limits detection</AppText>
+      {lines.map((line) => (
+        <AppText key={line} variant="small">
+          {line}
+        </AppText>
+      ))}
+      <AppText variant="small" tone="muted">
+        Detection here means a lookout who looks at the right place could make the target out; searching a wide arc, people detect
+        less, and less often.
+      </AppText>
+    </Card>
+  );
+}

@@ -56,6 +56,24 @@ export function ResultsTable({
           ? '—'
           : `${formatLength(r.detectionRangeM, units.distance)} (${r.limitedBy ? LIMIT_LABELS[r.limitedBy] : '—'})`,
     },
+    ...(results.some((r) => r.luminousRangeM !== null)
+      ? [
+          {
+            label: 'Luminous range',
+            hint: 'of the light, Allard’s law',
+            cell: (r: SightlineResult) => formatLength(r.luminousRangeM, units.distance),
+          },
+        ]
+      : []),
+    ...(results.some((r) => r.waveScreenM > 0)
+      ? [
+          {
+            label: 'Wave screen',
+            hint: 'crests hide the lowest',
+            cell: (r: SightlineResult) => formatLength(r.waveScreenM, units.height),
+          },
+        ]
+      : []),
     {
       label: '√(2R′h) error',
       hint: 'short formula vs exact',

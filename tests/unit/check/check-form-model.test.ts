@@ -44,6 +44,36 @@ describe('buildRequest', () => {
   });
 });
 
+describe('buildRequest: night, lights and sea', () => {
+  it('sends the light and the background only at night, and the wave height in metres', () => {
+    // Source: 1 ft = 0.3048 m exactly (international yard and pound agreement, 1959).
+    const night: CheckFormValues = {
+      ...DEFAULT_FORM,
+      units: 'nautical',
+      period: 'night',
+      lightIntensity: '15000',
+      backgroundLighting: 'some',
+      waveHeight: '5',
+    };
+    const out = buildRequest(night, label);
+    if (!('request' in out)) throw new Error(JSON.stringify(out.errors));
+    expect(out.request).toMatchObject({ period: 'night', lightIntensityCd: 15000, backgroundLighting: 'some' });
+    expect(out.request.significantWaveHeightM).toBeCloseTo(1.524, 9);
+    const day = buildRequest({ ...night, period: 'day' }, label);
+    if (!('request' in day)) throw new Error(JSON.stringify(day.errors));
+    expect(day.request.lightIntensityCd).toBeUndefined();
+    expect(day.request.backgroundLighting).toBeUndefined();
+  });
+  it('puts a bad sea state and a doubled sea under their own fields', () => {
+    const bad = buildRequest({ ...DEFAULT_FORM, seaState: '12' }, label);
+    expect('errors' in bad && bad.errors.seaState).toBeTruthy();
+    const both = buildRequest({ ...DEFAULT_FORM, seaState: '3', waveHeight: '1' }, label);
+    expect('errors' in both && both.errors.waveHeight).toMatch(/not both/);
+    const text = buildRequest({ ...DEFAULT_FORM, period: 'night', lightIntensity: 'bright' }, label);
+    expect('errors' in text && text.errors.lightIntensity).toBe('Enter a number.');
+  });
+});
+
 describe('switchUnits', () => {
   it('keeps the question the same when the units change', () => {
     const ft = switchUnits(DEFAULT_FORM, 'imperial');
