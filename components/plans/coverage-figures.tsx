@@ -14,6 +14,7 @@ import { useLayout } from '@/components/ui/use-layout';
 import { CoverageCasePicker } from './coverage-case-picker';
 import {
   caseLabel,
+  conditionSpread,
   COVERAGE_CAUTIONS,
   describeDetection,
   formatArea,
@@ -74,6 +75,7 @@ export function CoverageFigures({
         <View style={{ flex: wide ? 1 : undefined, gap: space.lg }}>
           <Verdict check={shown.check} />
           <DetectionLimits c={shown} />
+          <ConditionBand cases={run.cases} shown={shown} onCase={onCase} />
           <SiteFigures site={shown.site} flat={run.datum === 'flat'} />
           {shown.zones.length ? <ZoneTable zones={shown.zones} /> : null}
         </View>
@@ -341,6 +343,55 @@ function DetectionLimits({ c }: { c: CoverageCase }) {
       <AppText variant="small" tone="muted">
         Detection model {c.detectionModel ?? 'unknown'}: visibility is not detection; a lookout searching a wide arc sees less
         than these limits.
+      </AppText>
+    </View>
+  );
+}
+
+/**
+ * The shown target under every condition of the run, by k: how far the seen
+ * share and the verdict move with refraction and weather. A reviewer reads
+ * here whether the verdict holds across the plan's conditions.
+ */
+function ConditionBand({
+  cases,
+  shown,
+  onCase,
+}: {
+  cases: readonly CoverageCase[];
+  shown: CoverageCase;
+  onCase: (key: string) => void;
+}) {
+  const spread = conditionSpread(cases, shown.targetId);
+  if (!spread) return null;
+  return (
+    <View style={{ gap: space.xs }} aria-label="Sensitivity to conditions">
+      <AppText variant="heading">Across the plan’s conditions</AppText>
+      <AppText>
+        {shown.targetName}: {formatPct(spread.minPct)} – {formatPct(spread.maxPct)} of the site seen. {spread.verdict}
+      </AppText>
+      <View style={tableStyles.table}>
+        {spread.rows.map((r) => (
+          <View key={r.key} style={[tableStyles.tr, r.key === shown.key ? { backgroundColor: colors.paper } : null]}>
+            <View style={[tableStyles.td, { flex: 1 }]}>
+              <AppText variant="small" onPress={() => onCase(r.key)} role="link">
+                {r.label}
+              </AppText>
+            </View>
+            <View style={tableStyles.td}>
+              <AppText variant="small">{formatPct(r.seenPct)}</AppText>
+            </View>
+            <View style={tableStyles.td}>
+              <AppText variant="small" tone={r.passed ? 'moss' : 'danger'}>
+                {r.passed ? 'meets' : 'fails'}
+              </AppText>
+            </View>
+          </View>
+        ))}
+      </View>
+      <AppText variant="small" tone="muted">
+        Refraction near the horizon varies widely from hour to hour; a plan that meets its standard only under some conditions
+        should say which ones it relies on.
       </AppText>
     </View>
   );

@@ -314,3 +314,60 @@ export function describeDetection(c: Pick<CoverageCase, 'detection' | 'targetNam
 
 const formatKm = (m: number) =>
   m >= 10_000 ? `${(m / 1000).toFixed(0)} km` : m >= 1000 ? `${(m / 1000).toFixed(1)} km` : `${Math.round(m)} m`;
+
+/** One target's figures across every condition of a run (its sensitivity to refraction and weather). */
+export interface ConditionSpread {
+  readonly rows: readonly {
+    key: string;
+    label: string;
+    k: number;
+    seenPct: number;
+    passed: boolean;
+  }[];
+  /** Least and greatest share of the site seen by ≥ 1 post. */
+  readonly minPct: number;
+  readonly maxPct: number;
+  /** Conditions under which the standard passes, of all. */
+  readonly passes: number;
+  /** "Passes under 2 of 3 conditions" etc. */
+  readonly verdict: string;
+}
+
+/**
+ * The shown case's target across all the run's conditions, ordered by k:
+ * the share seen and the verdict under each, and how many pass. Null when
+ * the target has a single case (nothing to compare).
+ */
+export function conditionSpread(
+  cases: readonly Pick<
+    CoverageCase,
+    'key' | 'targetId' | 'conditionSetName' | 'conditionLabel' | 'refractionCoefficient' | 'site' | 'check'
+  >[],
+  targetId: string,
+): ConditionSpread | null {
+  const mine = cases.filter((c) => c.targetId === targetId);
+  if (mine.length < 2) return null;
+  const rows = mine
+    .map((c) => ({
+      key: c.key,
+      label: `${c.conditionSetName}: ${c.conditionLabel}`,
+      k: c.refractionCoefficient,
+      seenPct: c.site.seenBy1.pct,
+      passed: c.check.passed,
+    }))
+    .sort((a, b) => a.k - b.k || a.label.localeCompare(b.label));
+  const passes = rows.filter((r) => r.passed).length;
+  const shares = rows.map((r) => r.seenPct);
+  return {
+    rows,
+    minPct: Math.min(...shares),
+    maxPct: Math.max(...shares),
+    passes,
+    verdict:
+      passes === rows.length
+        ? `Meets the standard under all ${rows.length} conditions.`
+        : passes === 0
+          ? `Fails the standard under all ${rows.length} conditions.`
+          : `Meets the standard under ${passes} of ${rows.length} conditions only: the verdict depends on the refraction and the weather.`,
+  };
+}

@@ -4,6 +4,7 @@ import type { PlanResultRow, PlanSnapshot, ZoneReach } from '@/shared/schemas/pl
 import { UNIT_SYSTEMS, type UnitSystem } from '@/components/check/check-form-model';
 import { formatLength, LIMIT_LABELS } from '@/components/check/format';
 import { describeCondition } from '@/components/library/describe-condition';
+import { bandLines } from './result-band';
 import { AppText } from '@/components/ui/app-text';
 import { tableStyles } from '@/components/ui/table-styles';
 import { Card } from '@/components/ui/card';
@@ -132,6 +133,7 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
                   lines={[
                     r.result.limitedBy ? `limit: ${LIMIT_LABELS[r.result.limitedBy]}` : 'no limit found',
                     `geographic ${formatLength(r.result.geographicRangeM, u.distance)}`,
+                    ...bandLines(r, u.distance),
                   ]}
                 >
                   {formatLength(r.result.detectionRangeM, u.distance)}
@@ -166,6 +168,11 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
                   {formatLength(r.result.geographicRangeM, u.distance)}
                 </AppText>
               </View>
+              {bandLines(r, u.distance).map((line) => (
+                <AppText key={line} variant="small" tone="muted">
+                  {line}
+                </AppText>
+              ))}
               {r.zones.length ? (
                 <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.xs }}>
                   {r.zones.map((z) => (

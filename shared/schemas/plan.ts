@@ -150,6 +150,18 @@ export const ZoneReachSchema = z.object({
 });
 export type ZoneReach = z.infer<typeof ZoneReachSchema>;
 
+const BandSpanSchema = z.object({ min: z.number(), kAtMin: z.number(), max: z.number(), kAtMax: z.number() });
+
+/** How a result moves with refraction: k 0 … 0.3 and the set's own conditions (`detectionSensitivity`). */
+export const DetectionSensitivitySchema = z.object({
+  ks: z.array(z.number()),
+  detectionRangeM: BandSpanSchema.nullable(),
+  geographicRangeM: BandSpanSchema.nullable(),
+  limitedBy: z.array(z.enum(['horizon', 'visibility', 'angular-size', 'luminous-range', 'sea-state'])),
+  spreadPct: z.number().nullable(),
+});
+export type DetectionSensitivityValue = z.infer<typeof DetectionSensitivitySchema>;
+
 /** One line of the frozen results: a post seeing a target under one condition. */
 export const PlanResultRowSchema = z.object({
   postId: z.uuid(),
@@ -163,6 +175,8 @@ export const PlanResultRowSchema = z.object({
   result: SightlineResultSchema,
   /** The site's priority zones as seen from this post (smooth earth); empty in revisions made before zones were measured. */
   zones: z.array(ZoneReachSchema).default([]),
+  /** The same post, target and set across the k band; null in revisions made before it was computed. */
+  sensitivity: DetectionSensitivitySchema.nullable().default(null),
 });
 export type PlanResultRow = z.infer<typeof PlanResultRowSchema>;
 

@@ -11,6 +11,7 @@ import type { Post, Site } from '@/shared/schemas/site';
 import { effectiveResolutionArcmin, type PlanLookout } from '@/shared/schemas/plan';
 import { DETECTION_MODEL_VERSION } from '@/shared/sightline/constants';
 import { evaluateSightline } from '@/shared/sightline/evaluate-sightline';
+import { detectionSensitivity } from '@/shared/sightline/detection-sensitivity';
 import { detectionInputsOf } from '@/shared/sightline/detection-inputs';
 
 export const SNAPSHOT_ASSUMPTIONS = [
@@ -62,12 +63,18 @@ export function buildSnapshot(input: {
       });
     for (const target of input.targets) {
       for (const set of input.conditionSets) {
-        const response = evaluateSightline({
+        const request = {
           observerHeightM,
           ...detectionInputsOf(target, set, resolutionArcmin),
           conditions: set.conditions as RefractionCondition[],
-        });
+        };
+        const response = evaluateSightline(request);
         cautions = response.cautions;
+        const band = detectionSensitivity(
+          request,
+          response.results.map((r) => r.k),
+        );
+        const sensitivity = { ...band, ks: [...band.ks], limitedBy: [...band.limitedBy] };
         response.results.forEach((result, conditionIndex) =>
           results.push({
             postId: post.id,
@@ -80,6 +87,7 @@ export function buildSnapshot(input: {
             observerHeightM,
             result,
             zones: zonesFor(result.detectionRangeM),
+            sensitivity,
           }),
         );
       }

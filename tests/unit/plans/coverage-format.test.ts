@@ -14,7 +14,7 @@ import {
   rulesFailingFirst,
   sharedCaseKeys,
 } from '@/components/plans/coverage-format';
-import { describeDetection } from '@/components/plans/coverage-format';
+import { conditionSpread, describeDetection } from '@/components/plans/coverage-format';
 import { IDS, sampleCase, sampleComparison, sampleRun } from '@/tests/support/coverage-samples';
 
 describe('areas and shares for people', () => {
@@ -233,5 +233,29 @@ describe('describeDetection', () => {
     expect(free.decided).toBeNull();
     expect(free.waves).toBeNull();
     expect(free.sea).toBeNull();
+  });
+});
+
+describe('conditionSpread', () => {
+  const at = (key: string, targetId: string, k: number, pct: number, passed: boolean) => ({
+    key,
+    targetId,
+    conditionSetName: 'Spread',
+    conditionLabel: `k ${k}`,
+    refractionCoefficient: k,
+    site: { ...sampleCase().site, seenBy1: { ...sampleCase().site.seenBy1, pct } },
+    check: { ...sampleCase().check, passed },
+  });
+  test('orders one target’s cases by k, gives the least and greatest share and how many pass', () => {
+    // common practice, no source: a verdict that flips within the conditions is sensitive to them.
+    const spread = conditionSpread(
+      [at('a', 'T', 0.25, 74, true), at('b', 'T', 0, 61, false), at('c', 'T', 0.13, 70.5, true), at('d', 'U', 0, 10, false)],
+      'T',
+    )!;
+    expect(spread.rows.map((r) => r.k)).toEqual([0, 0.13, 0.25]);
+    expect([spread.minPct, spread.maxPct, spread.passes]).toEqual([61, 74, 2]);
+    expect(spread.verdict).toMatch(/under 2 of 3 conditions only/);
+    expect(conditionSpread([at('d', 'U', 0, 10, false)], 'U')).toBeNull();
+    expect(conditionSpread([at('a', 'T', 0, 1, true), at('b', 'T', 0.1, 2, true)], 'T')!.verdict).toMatch(/under all 2/);
   });
 });
