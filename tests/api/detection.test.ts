@@ -1,5 +1,6 @@
 import type { Express } from 'express';
 import { PlanCoverageSchema, type CoverageCase } from '@/shared/schemas/coverage';
+import { PlanSnapshotSchema } from '@/shared/schemas/plan';
 import { SightlineResponseSchema } from '@/shared/schemas/sightline';
 import { PlanModel } from '@/server/data/models';
 import { createTestApp } from '@/tests/support/test-db';
@@ -74,6 +75,33 @@ describe('coverage of the demo coast plan counts detectable targets', () => {
     expect(boat.detection!.seaOnly).toBe(true);
     expect(Math.abs(boat.site.total.area / 1e6 / seaKm2 - 1)).toBeLessThan(0.02);
     expect(boat.site.total.area / 1e6).toBeLessThan(216 * 0.9);
+  });
+});
+
+describe('plan results across the k band', () => {
+  it('each result gives its detection range from k 0 to 0.3 and the set’s own conditions, with every limit met', async () => {
+    const plan = await PlanModel.findOne({ where: { title: 'Summer watch, Tallow Strand' } });
+    const preview = (await planner.get(`/api/v1/plans/${plan!.id}/preview`).expect(200)).body;
+    const rows = PlanSnapshotSchema.parse(preview.snapshot).results;
+    expect(rows.length).toBeGreaterThan(0);
+    for (const row of rows) {
+      const band = row.sensitivity!;
+      expect(band.ks[0]).toBe(0);
+      expect(band.ks).toContain(0.3);
+      // A duct (k ≥ 1, here the cold-sea inversion) has no horizon and is left out of the band.
+      if (row.result.k < 1) expect(band.ks).toContain(row.result.k);
+      else expect(band.ks.every((k) => k < 1)).toBe(true);
+      // The result itself lies within its band.
+      if (row.result.detectionRangeM !== null) {
+        expect(row.result.detectionRangeM).toBeGreaterThanOrEqual(band.detectionRangeM!.min - 1e-6);
+        expect(row.result.detectionRangeM).toBeLessThanOrEqual(band.detectionRangeM!.max + 1e-6);
+        expect(band.limitedBy).toContain(row.result.limitedBy);
+      }
+    }
+    // A head in the water is limited by its size at every k: refraction does not move it.
+    const head = rows.find((r) => r.targetName === 'Person in the water (head)' && r.conditionSetName === 'Standard day')!;
+    expect(head.sensitivity!.limitedBy).toEqual(['angular-size']);
+    expect(head.sensitivity!.spreadPct).toBeCloseTo(0, 9);
   });
 });
 
