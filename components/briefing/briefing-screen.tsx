@@ -52,7 +52,7 @@ export function BriefingScreen() {
           <AppText variant="title">{post.name}</AppText>
           <AppText tone="muted">
             {POST_KIND_LABELS[post.kind]} · {siteName} · {formatCoordinate(post.location, 'ddm')} · eye{' '}
-            {(post.groundElevationM + post.structureHeightM + post.eyeHeightM).toFixed(1)} m above datum
+            {(post.groundElevationM + post.structureHeightM + post.eyeHeightM).toFixed(1)} m above sea level
             {post.sector ? ` · watch ${post.sector.fromDeg}°–${post.sector.toDeg}°` : ' · all round'}
           </AppText>
           {plan ? (

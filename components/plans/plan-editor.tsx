@@ -205,7 +205,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
                   <CheckRow
                     key={p.id}
                     label={p.name}
-                    detail={`${POST_KIND_LABELS[p.kind]} · ${p.status} · eye ${(p.groundElevationM + p.structureHeightM + p.eyeHeightM).toFixed(1)} m above datum`}
+                    detail={`${POST_KIND_LABELS[p.kind]} · ${p.status} · eye ${(p.groundElevationM + p.structureHeightM + p.eyeHeightM).toFixed(1)} m above sea level`}
                     checked={field.value.includes(p.id)}
                     onToggle={() => field.onChange(toggled(field.value, p.id))}
                   />

@@ -4,7 +4,7 @@ import type { PlanResultRow, PlanSnapshot, ZoneReach } from '@/shared/schemas/pl
 import { UNIT_SYSTEMS, type UnitSystem } from '@/components/check/check-form-model';
 import { formatLength, LIMIT_LABELS } from '@/components/check/format';
 import { describeCondition } from '@/components/library/describe-condition';
-import { bandLines } from './result-band';
+import { bandLines, datumLine } from './result-band';
 import { AppText } from '@/components/ui/app-text';
 import { tableStyles } from '@/components/ui/table-styles';
 import { Card } from '@/components/ui/card';
@@ -117,11 +117,7 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
             </View>
             {rows.map((r) => (
               <View key={`${r.postId}|${r.targetId}|${r.conditionSetId}|${r.conditionIndex}`} style={styles.tr} role="row">
-                <Cell
-                  column={0}
-                  strong
-                  lines={[`→ ${r.targetName}`, `eye ${formatLength(r.observerHeightM, u.height)} above datum`]}
-                >
+                <Cell column={0} strong lines={[`→ ${r.targetName}`, datumLine(r, u.height)]}>
                   {r.postName}
                 </Cell>
                 <Cell column={1} lines={[conditionOf(r)]}>
@@ -160,6 +156,9 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
               </AppText>
               <AppText variant="small" tone="muted">
                 {r.conditionSetName} · {conditionOf(r)}
+              </AppText>
+              <AppText variant="small" tone="muted">
+                {datumLine(r, u.height)}
               </AppText>
               <View style={{ flexDirection: 'row', alignItems: 'baseline', gap: space.sm, flexWrap: 'wrap' }}>
                 <AppText variant="figure">{formatLength(r.result.detectionRangeM, u.distance)}</AppText>

@@ -1,4 +1,5 @@
 import type { PlanResultRow } from '@/shared/schemas/plan';
+import { GROUND_BASIS_WORDS } from '@/shared/plans/smooth-earth-ground';
 import type { LengthUnit } from '@/shared/units/length';
 import { formatLength, LIMIT_LABELS } from '@/components/check/format';
 
@@ -14,4 +15,14 @@ export function bandLines(r: PlanResultRow, unit: LengthUnit): string[] {
   const limits = band.limitedBy.map((l) => LIMIT_LABELS[l]).join(', ');
   if (max - min < 1e-6 * Math.max(1, max)) return [`${ks}: unchanged (${limits})`];
   return [`${ks}: ${formatLength(min, unit)} – ${formatLength(max, unit)} (${limits}; spread ${band.spreadPct!.toFixed(0)} %)`];
+}
+
+/** The row's datum in words: "eye 21.6 m above the post's own ground (578 m)"; older revisions: "above sea level". */
+export function datumLine(r: PlanResultRow, unit: LengthUnit): string {
+  const eye = `eye ${formatLength(r.observerHeightM, unit)}`;
+  if (!r.datum) return `${eye} above sea level`;
+  const ground = formatLength(r.datum.groundM, unit);
+  return r.datum.basis === 'sea-level'
+    ? `${eye} above sea level (${GROUND_BASIS_WORDS['sea-level']})`
+    : `${eye} above ${r.datum.basis === 'stated' ? 'the site’s stated ground' : 'the post’s own ground'} at ${ground}`;
 }

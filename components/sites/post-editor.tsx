@@ -99,7 +99,7 @@ function PostSummary({ post }: { post: Post }) {
   const eye = post.groundElevationM + post.structureHeightM + post.eyeHeightM;
   const rows: [string, string][] = [
     ['Location', `${formatCoordinate(post.location, 'ddm')}\n${formatCoordinate(post.location, 'utm')}`],
-    ['Eye above datum', `${eye.toFixed(1)} m`],
+    ['Eye above sea level', `${eye.toFixed(1)} m`],
     ['Made up of', `ground ${post.groundElevationM} m + structure ${post.structureHeightM} m + eye ${post.eyeHeightM} m`],
     ['Sector watched', post.sector ? `${post.sector.fromDeg}° to ${post.sector.toDeg}° (clockwise)` : 'All round'],
     ['Last changed', new Date(post.updatedAt).toLocaleString()],

@@ -99,7 +99,7 @@ export function SitePosts({ siteId }: { siteId: string }) {
                   {POST_KIND_LABELS[p.kind]} · {p.status} · {formatCoordinate(p.location, 'ddm')}
                 </AppText>
                 <AppText variant="small">
-                  Eye {eye(p).toFixed(1)} m above datum (ground {p.groundElevationM} m + structure {p.structureHeightM} m + eye{' '}
+                  Eye {eye(p).toFixed(1)} m above sea level (ground {p.groundElevationM} m + structure {p.structureHeightM} m + eye{' '}
                   {p.eyeHeightM} m)
                   {p.sector ? ` · sector ${p.sector.fromDeg}°–${p.sector.toDeg}°` : ' · all round'}
                 </AppText>

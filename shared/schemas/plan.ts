@@ -171,12 +171,18 @@ export const PlanResultRowSchema = z.object({
   conditionSetId: z.uuid(),
   conditionSetName: z.string(),
   conditionIndex: z.number().int(),
+  /** Height of eye above the datum, metres. */
   observerHeightM: z.number(),
   result: SightlineResultSchema,
   /** The site's priority zones as seen from this post (smooth earth); empty in revisions made before zones were measured. */
   zones: z.array(ZoneReachSchema).default([]),
   /** The same post, target and set across the k band; null in revisions made before it was computed. */
   sensitivity: DetectionSensitivitySchema.nullable().default(null),
+  /** The ground the targets stand on; `observerHeightM` is counted above it. Null in older revisions (sea level). */
+  datum: z
+    .object({ groundM: z.number(), basis: z.enum(['sea-level', 'stated', 'post-ground']) })
+    .nullable()
+    .default(null),
 });
 export type PlanResultRow = z.infer<typeof PlanResultRowSchema>;
 

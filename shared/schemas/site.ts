@@ -59,7 +59,12 @@ export const SiteSchema = z.object({
   /** Land/sea mask from the terrain: cells at or below this height are sea, metres; null = not stated. */
   seaLevelMaxM: z.number().nullable().default(null),
   /** The sea part of the site as a ring ([lon, lat], WGS84); null = not drawn. */
-  seaArea: z.array(z.tuple([z.number(), z.number()])).nullable().default(null),
+  seaArea: z
+    .array(z.tuple([z.number(), z.number()]))
+    .nullable()
+    .default(null),
+  /** Ground height where targets stand, for smooth-earth figures, metres above sea level; null = see `smoothEarthGround`. */
+  targetGroundM: z.number().nullable().default(null),
   version: z.number().int(),
   /** ISO 8601. */
   updatedAt: z.string(),
@@ -100,6 +105,16 @@ export const SiteInputSchema = z.object({
     .default(null),
   /** The sea part of the site, a ring ([lon, lat], WGS84) drawn or imported; null = none. */
   seaArea: RingSchema.nullable().default(null),
+  /**
+   * Ground height where targets stand, for the smooth-earth plan results, metres above sea level
+   * (−500…9000); null = sea level on a coast, each post's own ground inland.
+   */
+  targetGroundM: z
+    .number({ error: 'Ground height must be a number of metres.' })
+    .min(-500, 'At least −500 m.')
+    .max(9000, 'At most 9 000 m.')
+    .nullable()
+    .default(null),
 });
 export type SiteInput = z.infer<typeof SiteInputSchema>;
 

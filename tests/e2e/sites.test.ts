@@ -41,7 +41,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a site on the %s viewpo
       await page.getByLabel(`Lookout ${viewport}`).first().waitFor();
       // 530 + 15 + 1.6 (the default eye height) = 546.6 m.
       await page
-        .getByText(/Eye 546\.6 m above datum/)
+        .getByText(/Eye 546\.6 m above sea level/)
         .first()
         .waitFor();
       expect(errors).toEqual([]);

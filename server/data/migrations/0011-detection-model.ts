@@ -4,7 +4,8 @@ import type { Migration } from '../migrator';
 /**
  * The detection model reaches the libraries, sites and plans: a target's
  * light and whether it floats on the water; a condition set's sea and the
- * lights behind a target at night; a coast site's land/sea mask; a plan's
+ * lights behind a target at night; a coast site's land/sea mask and an
+ * inland site's stated ground height for smooth-earth figures; a plan's
  * lookout (resolving angle, optics).
  */
 export const up: Migration = async ({ context: qi }) => {
@@ -22,6 +23,7 @@ export const up: Migration = async ({ context: qi }) => {
   });
   await qi.addColumn('sites', 'sea_level_max_m', { type: DataTypes.DOUBLE, allowNull: true });
   await qi.addColumn('sites', 'sea_area', { type: DataTypes.JSONB, allowNull: true });
+  await qi.addColumn('sites', 'target_ground_m', { type: DataTypes.DOUBLE, allowNull: true });
   await qi.addColumn('plans', 'lookout', {
     type: DataTypes.JSONB,
     allowNull: false,
@@ -31,6 +33,7 @@ export const up: Migration = async ({ context: qi }) => {
 
 export const down: Migration = async ({ context: qi }) => {
   await qi.removeColumn('plans', 'lookout');
+  await qi.removeColumn('sites', 'target_ground_m');
   await qi.removeColumn('sites', 'sea_area');
   await qi.removeColumn('sites', 'sea_level_max_m');
   await qi.removeColumn('condition_sets', 'background_lighting');

@@ -28,6 +28,7 @@ export class SiteModel extends Model<InferAttributes<SiteModel>, InferCreationAt
   declare defaultUnits: CreationOptional<'metric' | 'nautical' | 'imperial'>;
   declare timeZone: CreationOptional<string>;
   declare seaLevelMaxM: CreationOptional<number | null>;
+  declare targetGroundM: CreationOptional<number | null>;
   declare seaArea: CreationOptional<[number, number][] | null>;
   declare version: CreationOptional<number>;
   declare deletedAt: CreationOptional<Date | null>;
@@ -46,6 +47,7 @@ export class SiteModel extends Model<InferAttributes<SiteModel>, InferCreationAt
         defaultUnits: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'metric' },
         timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'UTC' },
         seaLevelMaxM: { type: DataTypes.DOUBLE, allowNull: true },
+        targetGroundM: { type: DataTypes.DOUBLE, allowNull: true },
         seaArea: { type: DataTypes.JSONB, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         deletedAt: DataTypes.DATE,

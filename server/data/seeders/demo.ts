@@ -96,6 +96,7 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
       defaultUnits: 'metric',
       timeZone: 'Europe/Berlin',
       seaLevelMaxM: null,
+      targetGroundM: null,
       seaArea: null,
     },
     posts: [
@@ -146,6 +147,7 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
       defaultUnits: 'nautical',
       timeZone: 'Europe/Berlin',
       seaLevelMaxM: null,
+      targetGroundM: null,
       // North of an invented shoreline that runs a little inland of the two shore posts' beaches.
       seaArea: ring([
         [529_000, 5_751_500],

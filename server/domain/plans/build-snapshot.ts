@@ -11,14 +11,15 @@ import type { Post, Site } from '@/shared/schemas/site';
 import { effectiveResolutionArcmin, type PlanLookout } from '@/shared/schemas/plan';
 import { DETECTION_MODEL_VERSION } from '@/shared/sightline/constants';
 import { evaluateSightline } from '@/shared/sightline/evaluate-sightline';
+import { smoothEarthGround } from '@/shared/plans/smooth-earth-ground';
 import { detectionSensitivity } from '@/shared/sightline/detection-sensitivity';
 import { detectionInputsOf } from '@/shared/sightline/detection-inputs';
 
 export const SNAPSHOT_ASSUMPTIONS = [
-  'Results per post, target and condition: smooth earth at the datum (sea level or the plain).',
+  'Results per post, target and condition: smooth earth at each result’s datum — the ground its targets stand on: the site’s stated ground height, else sea level on a coast and the post’s own ground inland.',
   'Terrain coverage, when computed: the site’s terrain grid (or the flat datum without terrain), each condition’s refraction applied as a uniform curvature correction, the condition set’s visibility as a range limit.',
-  'Height of eye = ground elevation + structure height + eye height above the platform.',
-  'Targets stand at the datum; by day a target is detected when its required top part shows and the visibility (at the 5 % contrast threshold) and the angular-size limit at the lookout’s resolving angle allow; at night only a light is detected, out to the lesser of its luminous range (Allard’s law, IALA night threshold) and its geographic range.',
+  'Height of eye = ground elevation + structure height + eye height above the platform, counted above the result’s datum.',
+  'Targets stand on the datum; by day a target is detected when its required top part shows and the visibility (at the 5 % contrast threshold) and the angular-size limit at the lookout’s resolving angle allow; at night only a light is detected, out to the lesser of its luminous range (Allard’s law, IALA night threshold) and its geographic range.',
   'On the water, wave crests of half the significant wave height hide the lower part of a target; a target whose required part is below them is not counted.',
   'Refraction is uniform along each sightline under each condition.',
   'Priority zones: the share of each zone within the detection range and the post’s viewing sector, on the smooth earth (terrain that hides ground is not counted).',
@@ -47,7 +48,8 @@ export function buildSnapshot(input: {
   const resolutionArcmin = effectiveResolutionArcmin(lookout);
   const results: PlanSnapshot['results'] = [];
   for (const post of input.posts) {
-    const observerHeightM = Math.max(0, post.groundElevationM + post.structureHeightM + post.eyeHeightM);
+    const datum = smoothEarthGround(input.site, post);
+    const observerHeightM = Math.max(0, post.groundElevationM + post.structureHeightM + post.eyeHeightM - datum.groundM);
     const zoneRings = input.site.priorityZones.map((z) =>
       projectAzimuthalEquidistant(
         post.location,
@@ -88,6 +90,7 @@ export function buildSnapshot(input: {
             result,
             zones: zonesFor(result.detectionRangeM),
             sensitivity,
+            datum,
           }),
         );
       }

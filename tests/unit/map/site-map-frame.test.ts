@@ -38,6 +38,7 @@ const site: Site = {
   timeZone: 'Europe/Berlin',
   seaLevelMaxM: null,
   seaArea: null,
+  targetGroundM: null,
   version: 1,
   updatedAt: '2025-01-01T00:00:00Z',
 };

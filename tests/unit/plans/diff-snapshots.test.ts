@@ -22,6 +22,7 @@ const site: Site = {
   timeZone: 'UTC',
   seaLevelMaxM: null,
   seaArea: null,
+  targetGroundM: null,
   version: 0,
   updatedAt: '2026-01-01T00:00:00.000Z',
 };
