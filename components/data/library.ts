@@ -42,6 +42,16 @@ export function useCreateTarget() {
   });
 }
 
+/** Saves changes to a target; `version` is the one last seen (409 when someone else saved first). */
+export function useUpdateTarget(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: TargetInput & { version: number }) =>
+      api.patch(`/v1/targets/${id}`, input, z.object({ target: TargetSchema })),
+    onSuccess: () => qc.invalidateQueries({ queryKey: libraryKeys.targets() }),
+  });
+}
+
 export function useCreateConditionSet() {
   const qc = useQueryClient();
   return useMutation({

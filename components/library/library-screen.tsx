@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { View } from 'react-native';
 import { TARGET_KIND_LABELS } from '@/shared/schemas/library';
 import { useConditionSets, useRemoveLibraryEntry, useTargets } from '@/components/data/library';
@@ -23,6 +24,7 @@ export function LibraryScreen() {
   const removeTarget = useRemoveLibraryEntry('targets');
   const removeSet = useRemoveLibraryEntry('conditions');
   const removal = removeTarget.error ?? removeSet.error;
+  const [editing, setEditing] = useState<string | null>(null);
   return (
     <Screen
       title="Library"
@@ -39,21 +41,26 @@ export function LibraryScreen() {
           ) : targets.data.length === 0 ? (
             <EmptyState title="No targets" body="Add the objects your posts must detect." />
           ) : (
-            targets.data.map((t) => (
-              <Card key={t.id} aria-label={t.name} style={{ gap: 2 }}>
-                <EntryHead
-                  name={t.name}
-                  onRemove={planner ? () => removeTarget.mutate(t.id) : undefined}
-                  busy={removeTarget.isPending && removeTarget.variables === t.id}
-                />
-                <AppText variant="small" tone="muted">
-                  {TARGET_KIND_LABELS[t.kind]} · {t.heightM} m tall, {t.widthM} m wide · top {t.requiredVisibleM} m must show ·{' '}
-                  {t.period}
-                  {t.lightIntensityCd !== null ? ` · light ${t.lightIntensityCd.toLocaleString('en')} cd` : ''}
-                  {t.onWater ? ' · floats' : ''}
-                </AppText>
-              </Card>
-            ))
+            targets.data.map((t) =>
+              editing === t.id ? (
+                <TargetForm key={t.id} target={t} onDone={() => setEditing(null)} />
+              ) : (
+                <Card key={t.id} aria-label={t.name} style={{ gap: 2 }}>
+                  <EntryHead
+                    name={t.name}
+                    onEdit={planner ? () => setEditing(t.id) : undefined}
+                    onRemove={planner ? () => removeTarget.mutate(t.id) : undefined}
+                    busy={removeTarget.isPending && removeTarget.variables === t.id}
+                  />
+                  <AppText variant="small" tone="muted">
+                    {TARGET_KIND_LABELS[t.kind]} · {t.heightM} m tall, {t.widthM} m wide · top {t.requiredVisibleM} m must show ·{' '}
+                    {t.period}
+                    {t.lightIntensityCd !== null ? ` · light ${t.lightIntensityCd.toLocaleString('en')} cd` : ''}
+                    {t.onWater ? ' · floats' : ''}
+                  </AppText>
+                </Card>
+              ),
+            )
           )}
           {planner ? <TargetForm /> : null}
         </View>
@@ -97,14 +104,27 @@ export function LibraryScreen() {
   );
 }
 
-/** An entry's name and, for planners, its remove button. */
-function EntryHead({ name, onRemove, busy }: { name: string; onRemove?: () => void; busy: boolean }) {
+/** An entry's name and, for planners, its edit and remove buttons. */
+function EntryHead({
+  name,
+  onEdit,
+  onRemove,
+  busy,
+}: {
+  name: string;
+  onEdit?: () => void;
+  onRemove?: () => void;
+  busy: boolean;
+}) {
   return (
     <View style={{ flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm }}>
       <AppText variant="label" style={{ flexShrink: 1 }}>
         {name}
       </AppText>
-      {onRemove ? <Button kind="quiet" label="Remove" aria-label={`Remove ${name}`} onPress={onRemove} busy={busy} /> : null}
+      <View style={{ flexDirection: 'row', gap: space.xs }}>
+        {onEdit ? <Button kind="quiet" label="Edit" aria-label={`Edit ${name}`} onPress={onEdit} /> : null}
+        {onRemove ? <Button kind="quiet" label="Remove" aria-label={`Remove ${name}`} onPress={onRemove} busy={busy} /> : null}
+      </View>
     </View>
   );
 }

@@ -1,9 +1,9 @@
 import { useState } from 'react';
 import { View } from 'react-native';
-import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema, WATER_TARGET_KINDS } from '@/shared/schemas/library';
+import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema, WATER_TARGET_KINDS, type Target } from '@/shared/schemas/library';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
-import { useCreateTarget } from '@/components/data/library';
+import { useCreateTarget, useUpdateTarget } from '@/components/data/library';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -22,14 +22,28 @@ const EMPTY = {
   onWater: null as boolean | null,
 };
 
+const valuesOf = (t: Target): typeof EMPTY => ({
+  name: t.name,
+  kind: t.kind,
+  period: t.period,
+  height: String(t.heightM),
+  width: String(t.widthM),
+  required: String(t.requiredVisibleM),
+  light: t.lightIntensityCd === null ? '' : String(t.lightIntensityCd),
+  onWater: t.onWater,
+});
+
 /**
- * A new target profile: what it is, how tall and wide, the part that must
- * show, day or night, its light in candela (needed at night) and whether it
- * floats (the waves hide its lower part, and it counts only on the sea).
+ * A target profile, new or (given `target`) edited: what it is, how tall and
+ * wide, the part that must show, day or night, its light in candela (needed
+ * at night) and whether it floats (the waves hide its lower part, and it
+ * counts only on the sea). Plans using an edited target see their coverage
+ * go out of date.
  */
-export function TargetForm() {
+export function TargetForm({ target, onDone }: { target?: Target; onDone?: () => void } = {}) {
   const create = useCreateTarget();
-  const [v, setV] = useState(EMPTY);
+  const update = useUpdateTarget(target?.id ?? '');
+  const [v, setV] = useState(target ? valuesOf(target) : EMPTY);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [failed, setFailed] = useState('');
   const [added, setAdded] = useState('');
@@ -55,20 +69,25 @@ export function TargetForm() {
       return;
     }
     setErrors({});
+    const onError = (e: Error) => {
+      if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
+      setFailed(e.message);
+    };
+    if (target) {
+      update.mutate({ ...r.data, version: target.version }, { onSuccess: () => onDone?.(), onError });
+      return;
+    }
     create.mutate(r.data, {
-      onSuccess: ({ target }) => {
+      onSuccess: ({ target: added }) => {
         setV(EMPTY);
-        setAdded(`Added ${target.name}.`);
+        setAdded(`Added ${added.name}.`);
       },
-      onError: (e) => {
-        if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
-        setFailed(e.message);
-      },
+      onError,
     });
   };
   return (
-    <Card accent="moss" aria-label="New target">
-      <AppText variant="heading">Add a target</AppText>
+    <Card accent="moss" aria-label={target ? `Edit ${target.name}` : 'New target'}>
+      <AppText variant="heading">{target ? `Edit ${target.name}` : 'Add a target'}</AppText>
       <FormError message={failed} />
       {added ? <AppText variant="small">{added}</AppText> : null}
       <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
@@ -144,7 +163,10 @@ export function TargetForm() {
           ? 'Waves hide its lower part, and on a coast site it counts only over the sea.'
           : 'Counted over the whole site; waves do not hide it.'}
       </AppText>
-      <Button label="Save target" onPress={submit} busy={create.isPending} />
+      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+        <Button label={target ? 'Save changes' : 'Save target'} onPress={submit} busy={create.isPending || update.isPending} />
+        {target ? <Button kind="quiet" label="Cancel" onPress={() => onDone?.()} /> : null}
+      </View>
     </Card>
   );
 }
