@@ -106,6 +106,8 @@ export function toSweepRequest(
     for (const issue of parsed.error.issues) {
       const path = issue.path.join('.');
       const field = formFieldOf(path, values.source);
+      // Without a chosen row the missing sweep width is already said by the table or row error.
+      if (path === 'sweepWidthM' && (errors.tableId || errors.rowIndex)) continue;
       if (field && !errors[field]) errors[field] = curvePointMessage(path, issue.message);
     }
   }

@@ -1,0 +1,80 @@
+import type { Browser } from 'playwright-core';
+import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { DEMO } from '@/tests/support/agents';
+
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+});
+afterAll(() => close());
+
+describe.each(Object.keys(VIEWPORTS) as ViewportName[])('search effort on the %s viewport', (viewport) => {
+  it('computes W, C and POD from a table row, a typed W and a curve, with the cautions and field errors', async () => {
+    const { context, page } = await newPage(browser, viewport);
+    const errors = watchErrors(page);
+    try {
+      await signIn(page, DEMO.planner);
+      await page.getByText('Your sites').first().waitFor();
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Search effort' }).click();
+      await page.getByText('Estimates only').waitFor();
+      await page
+        .getByText(/Visibility is not detection/)
+        .first()
+        .waitFor();
+
+      // The demo's starter table is marked as an example wherever it is shown.
+      await page.getByRole('checkbox', { name: /^Example — invented sweep widths/ }).click();
+      await page.getByText('Example values').waitFor();
+      await page.getByRole('checkbox', { name: 'Life raft, 4 persons · visibility 5 km · height 10 m → W 2 km' }).click();
+      await page.getByLabel('Track spacing S').fill('2000');
+      await page.getByRole('button', { name: 'Compute POD' }).click();
+      const result = page.getByLabel('Search effort result');
+      await result.waitFor();
+      // C = 2000 / 2000 = 1. Source: Koopman, Search and Screening — inverse-cube parallel sweep
+      // erf(√π/2) ≈ 0.79 and random search 1 − e⁻¹ ≈ 0.63 (from memory; see tests/unit/sightline/sweep-width.test.ts).
+      await result.getByLabel('Coverage factor C: 1.00').waitFor();
+      await result.getByLabel('POD: 79 %').waitFor();
+      await result.getByLabel('POD, random search: 63 %').waitFor();
+      await shot(page, 'search-effort-table', viewport);
+
+      // Phone first: nothing runs off the side of a 390-pixel screen.
+      const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+      expect(overflow).toBeLessThanOrEqual(0);
+
+      // A typed sweep width with the definite-range law: W = 1500, S = 3000 → C = 0.5, POD = min(1, C) = 50 %.
+      // Source: definite-range law (Koopman, from memory).
+      await page.getByRole('radio', { name: 'Sweep width' }).click();
+      await page.getByLabel('Sweep width W').fill('1500');
+      await page.getByRole('radio', { name: 'Definite range' }).click();
+      await page.getByLabel('Track spacing S').fill('3000');
+      await page.getByRole('button', { name: 'Compute POD' }).click();
+      await result.getByLabel('POD: 50 %').waitFor();
+
+      // Bad input is refused under its field and the last answer stays.
+      await page.getByLabel('Track spacing S').fill('0');
+      await page.getByRole('button', { name: 'Compute POD' }).click();
+      await page.getByText('The track spacing must be more than 0 m.').waitFor();
+      await result.getByLabel('POD: 50 %').waitFor();
+
+      // A lateral-range curve; a spacing that would need too many tracks is the server's 422 on the spacing.
+      await page.getByRole('radio', { name: 'Lateral-range curve' }).click();
+      await page.getByLabel('Lateral-range curve').fill('0, 1\n10000, 0');
+      await page.getByLabel('Track spacing S').fill('1');
+      await page.getByRole('button', { name: 'Compute POD' }).click();
+      await page.getByText(/at most 2000: use a spacing of at least 5\.00 m/).waitFor();
+      // The triangle 1 − x/10 km has W = 10 km; with S = 20 km the tracks never overlap and POD = W/S = 50 %.
+      // Source: common practice, no source (area under the curve over the spacing).
+      await page.getByLabel('Track spacing S').fill('20000');
+      await page.getByRole('button', { name: 'Compute POD' }).click();
+      await result.getByLabel('Sweep width W: 10 km').waitFor();
+      await result.getByLabel('POD: 50 %').waitFor();
+      await shot(page, 'search-effort-curve', viewport);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
