@@ -29,7 +29,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('search effort on the %s
       await page.getByRole('checkbox', { name: /^Example — invented sweep widths/ }).click();
       await page.getByText('Example values').waitFor();
       await page.getByRole('checkbox', { name: 'Life raft, 4 persons · visibility 5 km · height 10 m → W 2 km' }).click();
-      await page.getByLabel('Track spacing S').fill('2000');
+      await page.getByRole('textbox', { name: 'Track spacing S' }).fill('2000');
       await page.getByRole('button', { name: 'Compute POD' }).click();
       const result = page.getByLabel('Search effort result');
       await result.waitFor();
@@ -47,27 +47,27 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('search effort on the %s
       // A typed sweep width with the definite-range law: W = 1500, S = 3000 → C = 0.5, POD = min(1, C) = 50 %.
       // Source: definite-range law (Koopman, from memory).
       await page.getByRole('radio', { name: 'Sweep width' }).click();
-      await page.getByLabel('Sweep width W').fill('1500');
+      await page.getByRole('textbox', { name: 'Sweep width W' }).fill('1500');
       await page.getByRole('radio', { name: 'Definite range' }).click();
-      await page.getByLabel('Track spacing S').fill('3000');
+      await page.getByRole('textbox', { name: 'Track spacing S' }).fill('3000');
       await page.getByRole('button', { name: 'Compute POD' }).click();
       await result.getByLabel('POD: 50 %').waitFor();
 
       // Bad input is refused under its field and the last answer stays.
-      await page.getByLabel('Track spacing S').fill('0');
+      await page.getByRole('textbox', { name: 'Track spacing S' }).fill('0');
       await page.getByRole('button', { name: 'Compute POD' }).click();
       await page.getByText('The track spacing must be more than 0 m.').waitFor();
       await result.getByLabel('POD: 50 %').waitFor();
 
       // A lateral-range curve; a spacing that would need too many tracks is the server's 422 on the spacing.
       await page.getByRole('radio', { name: 'Lateral-range curve' }).click();
-      await page.getByLabel('Lateral-range curve').fill('0, 1\n10000, 0');
-      await page.getByLabel('Track spacing S').fill('1');
+      await page.getByRole('textbox', { name: 'Lateral-range curve' }).fill('0, 1\n10000, 0');
+      await page.getByRole('textbox', { name: 'Track spacing S' }).fill('1');
       await page.getByRole('button', { name: 'Compute POD' }).click();
       await page.getByText(/at most 2000: use a spacing of at least 5\.00 m/).waitFor();
       // The triangle 1 − x/10 km has W = 10 km; with S = 20 km the tracks never overlap and POD = W/S = 50 %.
       // Source: common practice, no source (area under the curve over the spacing).
-      await page.getByLabel('Track spacing S').fill('20000');
+      await page.getByRole('textbox', { name: 'Track spacing S' }).fill('20000');
       await page.getByRole('button', { name: 'Compute POD' }).click();
       await result.getByLabel('Sweep width W: 10 km').waitFor();
       await result.getByLabel('POD: 50 %').waitFor();
