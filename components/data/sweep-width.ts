@@ -1,8 +1,11 @@
-import { queryOptions, useMutation, useQuery } from '@tanstack/react-query';
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { z } from 'zod';
 import {
   SweepWidthResultSchema,
   SweepWidthTableListSchema,
+  SweepWidthTableSchema,
   type SweepWidthRequest,
+  type SweepWidthTableInput,
   type SweepWidthResult,
 } from '@/shared/schemas/sweep-width';
 import { evaluateSweep } from '@/shared/sightline/evaluate-sweep';
@@ -39,5 +42,26 @@ export function useEvaluateSweep() {
         throw e;
       }
     },
+  });
+}
+
+const TableAnswer = z.object({ table: SweepWidthTableSchema });
+
+/** Adds a sweep-width table (planners). */
+export function useCreateSweepWidthTable() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: SweepWidthTableInput) => api.post('/v1/sweep-width-tables', input, TableAnswer),
+    onSuccess: () => qc.invalidateQueries({ queryKey: sweepWidthKeys.tables() }),
+  });
+}
+
+/** Retires a table (planners): kept for the record, no longer offered. */
+export function useRetireSweepWidthTable() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, version }: { id: string; version: number }) =>
+      api.post(`/v1/sweep-width-tables/${id}/retire`, { version }, TableAnswer),
+    onSuccess: () => qc.invalidateQueries({ queryKey: sweepWidthKeys.tables() }),
   });
 }

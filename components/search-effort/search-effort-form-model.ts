@@ -61,6 +61,32 @@ export function parseCurveText(text: string): { points: { rangeM: number; pod: n
   return { points };
 }
 
+/**
+ * Reads table rows typed one a line, "search object; visibility m; height m;
+ * sweep width m" (semicolons or tabs between the four, so the object's name
+ * may hold commas).
+ *
+ * @returns the rows (numbers unchecked: the shared schema checks them), or the first line that cannot be read
+ */
+export function parseTableRowsText(
+  text: string,
+): { rows: { searchObject: string; visibilityM: number; heightM: number; sweepWidthM: number }[] } | { error: string } {
+  const rows: { searchObject: string; visibilityM: number; heightM: number; sweepWidthM: number }[] = [];
+  const lines = text.split(/\r?\n/);
+  for (let i = 0; i < lines.length; i++) {
+    const line = lines[i]!.trim();
+    if (line === '') continue;
+    const parts = line.split(/\s*[;\t]\s*/);
+    const [searchObject, ...numbers] = parts;
+    const [visibilityM, heightM, sweepWidthM] = numbers.map((n) => Number(n.replace(',', '.')));
+    if (parts.length !== 4 || [visibilityM, heightM, sweepWidthM].some((n) => !Number.isFinite(n))) {
+      return { error: `Line ${i + 1}: write “search object; visibility m; height m; sweep width m”.` };
+    }
+    rows.push({ searchObject: searchObject!, visibilityM: visibilityM!, heightM: heightM!, sweepWidthM: sweepWidthM! });
+  }
+  return { rows };
+}
+
 /** Which form field shows an API field error (`lateralRangeCurve.2.rangeM` → the curve). */
 export function formFieldOf(apiPath: string, source: SweepSource): SearchEffortField | null {
   if (apiPath === 'trackSpacingM') return 'trackSpacing';

@@ -4,7 +4,8 @@ import { View } from 'react-native';
 import { SWEEP_MODEL_LABELS, SWEEP_MODELS } from '@/shared/schemas/sweep-width';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
-import { useEvaluateSweep, useSweepWidthTables } from '@/components/data/sweep-width';
+import { useSession } from '@/components/data/session';
+import { useEvaluateSweep, useRetireSweepWidthTable, useSweepWidthTables } from '@/components/data/sweep-width';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -22,6 +23,7 @@ import {
 } from './search-effort-form-model';
 import { SweepCautions } from './sweep-cautions';
 import { SweepResult } from './sweep-result';
+import { SweepWidthTableForm } from './sweep-width-table-form';
 import { TableRowPicker } from './table-row-picker';
 
 const SOURCES: { value: SweepSource; label: string }[] = [
@@ -39,6 +41,9 @@ export function SearchEffortScreen() {
   const { wide } = useLayout();
   const tables = useSweepWidthTables();
   const evaluate = useEvaluateSweep();
+  const retire = useRetireSweepWidthTable();
+  const { data: user } = useSession();
+  const planner = user?.role === 'planner';
   const [formError, setFormError] = useState('');
   const { control, handleSubmit, setError, clearErrors, watch, setValue, formState } = useForm<SearchEffortValues>({
     defaultValues: SEARCH_EFFORT_DEFAULTS,
@@ -106,6 +111,19 @@ export function SearchEffortScreen() {
             onRow={(i) => setValue('rowIndex', i)}
             tableError={formState.errors.tableId?.message}
             rowError={formState.errors.rowIndex?.message}
+            retiring={retire.isPending}
+            onRetire={
+              planner
+                ? (table) =>
+                    retire.mutate(
+                      { id: table.id, version: table.version },
+                      {
+                        onSuccess: () => setValue('tableId', ''),
+                        onError: (e) => setFormError(e.message),
+                      },
+                    )
+                : undefined
+            }
           />
         )
       ) : null}
@@ -163,6 +181,15 @@ export function SearchEffortScreen() {
     <View style={{ gap: space.lg }}>
       {evaluate.data ? <SweepResult result={evaluate.data} /> : null}
       <SweepCautions caution={evaluate.data?.caution} />
+      {planner ? (
+        <SweepWidthTableForm
+          onAdded={(id) => {
+            setValue('source', 'table');
+            setValue('tableId', id);
+            setValue('rowIndex', '');
+          }}
+        />
+      ) : null}
     </View>
   );
 

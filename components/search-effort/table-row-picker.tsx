@@ -1,6 +1,7 @@
 import { View } from 'react-native';
 import type { SweepWidthTable } from '@/shared/schemas/sweep-width';
 import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
 import { Chip, ChipRow } from '@/components/ui/chip';
 import { Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
@@ -15,6 +16,8 @@ export function TableRowPicker({
   onRow,
   tableError,
   rowError,
+  onRetire,
+  retiring,
 }: {
   tables: readonly SweepWidthTable[];
   tableId: string;
@@ -23,6 +26,9 @@ export function TableRowPicker({
   onRow: (index: string) => void;
   tableError?: string;
   rowError?: string;
+  /** Planners may retire the chosen table. */
+  onRetire?: (table: SweepWidthTable) => void;
+  retiring?: boolean;
 }) {
   const table = tables.find((t) => t.id === tableId);
   return (
@@ -58,6 +64,11 @@ export function TableRowPicker({
             <AppText variant="small" tone="danger" role="alert">
               {rowError}
             </AppText>
+          ) : null}
+          {onRetire ? (
+            <View style={{ alignItems: 'flex-start' }}>
+              <Button kind="quiet" label="Retire this table" onPress={() => onRetire(table)} busy={retiring} />
+            </View>
           ) : null}
         </View>
       ) : null}

@@ -72,6 +72,25 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('search effort on the %s
       await result.getByLabel('Sweep width W: 10 km').waitFor();
       await result.getByLabel('POD: 50 %').waitFor();
       await shot(page, 'search-effort-curve', viewport);
+
+      // A planner enters a table from a publication (edition and source required), uses it, and retires it.
+      const form = page.getByLabel('New sweep-width table');
+      await form.getByRole('textbox', { name: 'Table name' }).fill(`Trial table ${viewport}`);
+      await form.getByRole('textbox', { name: 'Rows' }).fill('Test raft; 10000; 15; 3000');
+      await form.getByRole('button', { name: 'Save table' }).click();
+      await form.getByText('Give the edition.').waitFor();
+      await form.getByText('Give the source.').waitFor();
+      await form.getByRole('textbox', { name: 'Edition' }).fill('Trial edition 1');
+      await form.getByRole('textbox', { name: 'Source' }).fill('Own trials (invented for this test)');
+      await form.getByRole('button', { name: 'Save table' }).click();
+      await form.getByText(`Added Trial table ${viewport}.`).waitFor();
+      await page.getByRole('checkbox', { name: 'Test raft · visibility 10 km · height 15 m → W 3 km' }).click();
+      await page.getByRole('textbox', { name: 'Track spacing S' }).fill('3000');
+      await page.getByRole('radio', { name: 'Inverse-cube law (Koopman)' }).click();
+      await page.getByRole('button', { name: 'Compute POD' }).click();
+      await result.getByLabel('POD: 79 %').waitFor();
+      await page.getByRole('button', { name: 'Retire this table' }).click();
+      await page.getByRole('checkbox', { name: `Trial table ${viewport}` }).waitFor({ state: 'detached' });
       expect(errors).toEqual([]);
     } finally {
       await context.close();

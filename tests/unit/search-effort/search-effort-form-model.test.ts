@@ -3,6 +3,7 @@ import {
   describeRow,
   formFieldOf,
   parseCurveText,
+  parseTableRowsText,
   SEARCH_EFFORT_DEFAULTS,
   toSweepRequest,
 } from '@/components/search-effort/search-effort-form-model';
@@ -51,6 +52,16 @@ describe('search-effort form', () => {
     expect(formFieldOf('lateralRangeCurve.3.rangeM', 'curve')).toBe('curve');
     expect(formFieldOf('sweepWidthM', 'table')).toBe('rowIndex');
     expect(formFieldOf('somethingElse', 'width')).toBeNull();
+  });
+
+  it('reads table rows one a line, separated by semicolons or tabs', () => {
+    expect(parseTableRowsText('Raft, 6 persons; 10000; 15; 3700\nPerson\t5000\t2\t300,5')).toEqual({
+      rows: [
+        { searchObject: 'Raft, 6 persons', visibilityM: 10000, heightM: 15, sweepWidthM: 3700 },
+        { searchObject: 'Person', visibilityM: 5000, heightM: 2, sweepWidthM: 300.5 },
+      ],
+    });
+    expect(parseTableRowsText('Raft; 10000; 15')).toEqual({ error: expect.stringMatching(/^Line 1:/) });
   });
 
   it('describes a row in words', () => {
