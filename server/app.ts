@@ -22,6 +22,7 @@ import { planRoutes } from './routes/plans';
 import { rosterRoutes } from './routes/roster';
 import { sightlineRoutes } from './routes/sightline';
 import { siteRoutes } from './routes/sites';
+import { sweepWidthRoutes } from './routes/sweep-width';
 import { terrainRoutes } from './routes/terrain';
 import { createTerrainCache, type TerrainCache } from './terrain/terrain-cache';
 import { createTerrainIngestRunner, type TerrainIngestRunner } from './workers/terrain-ingest-runner';
@@ -127,6 +128,7 @@ export function createApp({
     ),
   );
   v1.use(libraryRoutes(db));
+  v1.use(sweepWidthRoutes(db));
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(rosterRoutes(db));

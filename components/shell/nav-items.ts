@@ -8,6 +8,7 @@ import {
   PersonIcon,
   PlanIcon,
   SightlineIcon,
+  SweepIcon,
   TowerIcon,
   type IconProps,
 } from '@/components/ui/icons';
@@ -27,6 +28,13 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/briefing', match: '/briefing', label: 'My watch', Icon: BriefingIcon, roles: ['observer'] },
   { href: '/plans', match: '/plans', label: 'Plans', Icon: PlanIcon, roles: ['planner', 'reviewer', 'observer'] },
   { href: '/library', match: '/library', label: 'Library', Icon: LibraryIcon, roles: ['planner', 'reviewer'] },
+  {
+    href: '/search-effort',
+    match: '/search-effort',
+    label: 'Search effort',
+    Icon: SweepIcon,
+    roles: ['planner', 'reviewer', 'observer'],
+  },
   { href: '/admin/users', match: '/admin/users', label: 'Users', Icon: PeopleIcon, roles: ['admin'] },
   { href: '/admin/mail', match: '/admin/mail', label: 'Mail', Icon: MailIcon, roles: ['admin'] },
   { href: '/account', match: '/account', label: 'Account', Icon: PersonIcon },

@@ -106,6 +106,15 @@ export function LibraryIcon(p: IconProps) {
   );
 }
 
+/** Search effort: parallel search legs joined at their ends. */
+export function SweepIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Polyline points="4,4 4,20 10,20 10,4 16,4 16,20 20,20" />
+    </Frame>
+  );
+}
+
 /** Plans: a folded sheet with two sight lines crossing on it. */
 export function PlanIcon(p: IconProps) {
   return (

@@ -121,6 +121,18 @@ const newWatch = async () => {
       .expect(201)
   ).body.assignment;
 };
+const newSweepTable = async () =>
+  (
+    await planner()
+      .post('/api/v1/sweep-width-tables')
+      .send({
+        name: 'Matrix table',
+        edition: 'Matrix edition',
+        sourceName: 'Invented for the access matrix',
+        rows: [{ searchObject: 'Matrix raft', visibilityM: 5000, heightM: 5, sweepWidthM: 1000 }],
+      })
+      .expect(201)
+  ).body.table;
 const newTarget = async () =>
   (await planner().post('/api/v1/targets').send({ name: 'Matrix buoy', kind: 'small-craft', heightM: 1, widthM: 1 }).expect(201))
     .body.target;
@@ -318,11 +330,49 @@ const cases: Case[] = [
     },
   },
 
+  // Sweep-width tables: every role reads its own organisation's, planners write
+  {
+    route: 'GET /sweep-width-tables',
+    expect: { ...everyone(200), otherAdmin: 200, otherPlanner: 200 },
+    call: (a) => a.get('/api/v1/sweep-width-tables'),
+  },
+  {
+    route: 'POST /sweep-width-tables',
+    expect: { ...only(['planner'], 201), otherPlanner: 201 },
+    call: (a) =>
+      a.post('/api/v1/sweep-width-tables').send({
+        name: 'M',
+        edition: 'E',
+        sourceName: 'S',
+        rows: [{ searchObject: 'O', visibilityM: 1000, heightM: 1, sweepWidthM: 100 }],
+      }),
+  },
+  {
+    route: 'PATCH /sweep-width-tables/:id',
+    expect: only(['planner'], 200),
+    call: async (a) => {
+      const t = await newSweepTable();
+      return a.patch(`/api/v1/sweep-width-tables/${t.id}`).send({ notes: 'x', version: t.version });
+    },
+  },
+  {
+    route: 'POST /sweep-width-tables/:id/retire',
+    expect: only(['planner'], 200),
+    call: async (a) => {
+      const t = await newSweepTable();
+      return a.post(`/api/v1/sweep-width-tables/${t.id}/retire`).send({ version: t.version });
+    },
+  },
   // The calculator is for everyone signed in
   {
     route: 'POST /sightline',
     expect: { ...everyone(200), otherAdmin: 200, otherPlanner: 200 },
     call: (a) => a.post('/api/v1/sightline').send({ observerHeightM: 20, conditions: [{ k: 0.13 }] }),
+  },
+  {
+    route: 'POST /sweep-width',
+    expect: { ...everyone(200), otherAdmin: 200, otherPlanner: 200 },
+    call: (a) => a.post('/api/v1/sweep-width').send({ sweepWidthM: 1000, trackSpacingM: 2000 }),
   },
 ];
 
@@ -336,7 +386,14 @@ describe('route × role × organisation', () => {
   it('lists never show another organisation’s records', async () => {
     const theirs = async (path: string) => (await agents.otherPlanner.get(path)).body.items.map((x: { id: string }) => x.id);
     const ours = async (path: string) => (await agents.planner.get(path)).body.items.map((x: { id: string }) => x.id);
-    for (const path of ['/api/v1/sites', '/api/v1/plans', '/api/v1/targets', '/api/v1/conditions', '/api/v1/assignments']) {
+    for (const path of [
+      '/api/v1/sites',
+      '/api/v1/plans',
+      '/api/v1/targets',
+      '/api/v1/conditions',
+      '/api/v1/assignments',
+      '/api/v1/sweep-width-tables',
+    ]) {
       const mine = await ours(path);
       expect(mine.length).toBeGreaterThan(0);
       expect((await theirs(path)).filter((id: string) => mine.includes(id))).toEqual([]);
@@ -349,6 +406,7 @@ describe('route × role × organisation', () => {
       '/api/v1/sites',
       '/api/v1/plans',
       '/api/v1/targets',
+      '/api/v1/sweep-width-tables',
       '/api/v1/assignments',
       '/api/v1/briefing',
       '/api/v1/people',

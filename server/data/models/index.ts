@@ -8,6 +8,7 @@ import { PlanModel, PlanReviewModel, PlanRevisionModel } from './plan';
 import { PostModel } from './post';
 import { PriorityZoneModel, SiteModel } from './site';
 import { SiteTerrainModel } from './site-terrain';
+import { SweepWidthTableModel } from './sweep-width-table';
 import { CoverageLayerModel, CoverageRunModel } from './coverage-run';
 import { UserModel } from './user';
 
@@ -27,6 +28,7 @@ export {
   PriorityZoneModel,
   SiteModel,
   SiteTerrainModel,
+  SweepWidthTableModel,
   UserModel,
 };
 
@@ -48,6 +50,7 @@ export function initModels(sequelize: Sequelize): void {
   SiteTerrainModel.register(sequelize);
   CoverageRunModel.register(sequelize);
   CoverageLayerModel.register(sequelize);
+  SweepWidthTableModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });

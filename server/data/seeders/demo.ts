@@ -23,6 +23,7 @@ import { DEFAULT_HILLSHADE_MAX_EDGE } from '@/shared/terrain/hillshade-image';
 import { requestCoverage } from '@/server/domain/coverage/manage-coverage';
 import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
 import { createViewshedPool } from '@/server/workers/viewshed-pool';
+import { seedSweepWidthExamples } from './sweep-width-examples';
 
 /** The demo terrain (invented, see assets/terrain/README.md), attached to the forest district. */
 export const DEMO_TERRAIN_FILE = path.join(__dirname, '..', '..', '..', 'assets', 'terrain', 'demo-forest-district.tif');
@@ -475,11 +476,12 @@ export async function seedDemo(db: Sequelize, options: { files?: FileStore } = {
   const accounts = await seedDemoAccounts(db);
   const sites = await seedDemoSites(db);
   const libraries = await seedLibraries(db);
+  const sweepWidthTables = await seedSweepWidthExamples(db);
   // Terrain first: the plans are submitted with their terrain coverage.
   const terrain = options.files ? await seedDemoTerrain(db, options.files) : false;
   const plans = await seedDemoPlans(db, options.files);
   const watches = await seedDemoWatches(db);
-  return accounts || sites || libraries || plans || watches || terrain;
+  return accounts || sites || libraries || sweepWidthTables || plans || watches || terrain;
 }
 
 async function seedDemoAccounts(db: Sequelize): Promise<boolean> {

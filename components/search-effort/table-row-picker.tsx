@@ -1,0 +1,77 @@
+import { View } from 'react-native';
+import type { SweepWidthTable } from '@/shared/schemas/sweep-width';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { Chip, ChipRow } from '@/components/ui/chip';
+import { Notice } from '@/components/ui/states';
+import { space } from '@/components/ui/theme';
+import { describeRow } from './search-effort-form-model';
+
+/** Chooses a table of the library and one of its rows. */
+export function TableRowPicker({
+  tables,
+  tableId,
+  rowIndex,
+  onTable,
+  onRow,
+  tableError,
+  rowError,
+  onRetire,
+  retiring,
+}: {
+  tables: readonly SweepWidthTable[];
+  tableId: string;
+  rowIndex: string;
+  onTable: (id: string) => void;
+  onRow: (index: string) => void;
+  tableError?: string;
+  rowError?: string;
+  /** Planners may retire the chosen table. */
+  onRetire?: (table: SweepWidthTable) => void;
+  retiring?: boolean;
+}) {
+  const table = tables.find((t) => t.id === tableId);
+  return (
+    <View style={{ gap: space.md }}>
+      <ChipRow label="Sweep-width table">
+        {tables.map((t) => (
+          <Chip key={t.id} label={t.name} on={t.id === tableId} onPress={() => onTable(t.id)} />
+        ))}
+      </ChipRow>
+      {tableError ? (
+        <AppText variant="small" tone="danger" role="alert">
+          {tableError}
+        </AppText>
+      ) : null}
+      {table ? (
+        <View style={{ gap: space.sm }}>
+          <AppText variant="small" tone="muted">
+            {table.sourceName} · {table.edition}
+          </AppText>
+          {table.isExample ? (
+            <Notice tone="danger" title="Example values">
+              <AppText variant="small">
+                This table is an invented example, not published values. Do not plan a search with it: use your agency’s tables.
+              </AppText>
+            </Notice>
+          ) : null}
+          <ChipRow label="Row">
+            {table.rows.map((row, i) => (
+              <Chip key={i} label={describeRow(row)} on={rowIndex === String(i)} onPress={() => onRow(String(i))} />
+            ))}
+          </ChipRow>
+          {rowError ? (
+            <AppText variant="small" tone="danger" role="alert">
+              {rowError}
+            </AppText>
+          ) : null}
+          {onRetire ? (
+            <View style={{ alignItems: 'flex-start' }}>
+              <Button kind="quiet" label="Retire this table" onPress={() => onRetire(table)} busy={retiring} />
+            </View>
+          ) : null}
+        </View>
+      ) : null}
+    </View>
+  );
+}
