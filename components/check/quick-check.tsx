@@ -26,7 +26,7 @@ import { conditionStyle } from './condition-colors';
 import { ConditionPicker } from './condition-picker';
 import { RefractionBandPanel } from './refraction-band-panel';
 import { ResultsTable } from './results-table';
-import { SideViewDiagram } from './side-view-diagram';
+import { LookoutView } from './lookout-view';
 import { Sightline3d } from './sightline-3d';
 import { Segmented } from './unit-switch';
 
@@ -300,12 +300,12 @@ function Answer({
         </Notice>
       ) : null}
       <Card>
-        <AppText variant="heading">Side view</AppText>
-        <SideViewDiagram
+        <AppText variant="heading">As the lookout sees it</AppText>
+        <LookoutView
           observerHeightM={request.observerHeightM}
           targetHeightM={request.targetHeightM}
           distanceM={request.distanceM}
-          earthRadiusM={request.earthRadiusM}
+          targetSizeM={request.targetSizeM}
           results={data.results}
           labels={labels}
           units={units}

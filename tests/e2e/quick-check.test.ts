@@ -18,7 +18,7 @@ const R = 6371008.8;
 const geometricHorizonKm = (R * Math.acos(R / (R + 30))) / 1000;
 
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s viewport', (viewport) => {
-  it('answers, shows cautions, side view and 3D, flags bad input, and works offline', async () => {
+  it('answers, shows cautions, the lookout's view and 3D, flags bad input, and works offline', async () => {
     const { context, page } = await newPage(browser, viewport);
     const errors = watchErrors(page);
     try {
@@ -38,10 +38,14 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
         .waitFor();
       await shot(page, 'quick-check', viewport);
       await table.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-table-${viewport}.png` });
-      const side = page.getByRole('img', { name: /Side view/ });
-      await side.scrollIntoViewIfNeeded();
-      await page.getByText(/Vertical scale exaggerated/).waitFor();
-      await side.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-side-view-${viewport}.png` });
+      // The view as the lookout sees it: at k = 0 the horizon of a 30 m eye lies √(2h/R) = 10.6′ below eye level.
+      // Source: dip of the horizon, √(2h/R) radians for small angles — common practice, no source.
+      const dip = ((Math.sqrt((2 * 30) / R) * 180 * 60) / Math.PI).toFixed(1);
+      const view = page.getByLabel('The target as the lookout sees it');
+      await view.scrollIntoViewIfNeeded();
+      await view.getByRole('img', { name: new RegExp(`^Horizon −${dip.replace('.', '\\.')}′ below eye level\\.`) }).waitFor();
+      await view.getByRole('img', { name: /detected .* km/ }).first().waitFor();
+      await view.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-lookout-view-${viewport}.png` });
 
       // A negative height is refused under its field; the last answer stays.
       const eye = page.getByLabel('Height of eye');
