@@ -18,7 +18,7 @@ const R = 6371008.8;
 const geometricHorizonKm = (R * Math.acos(R / (R + 30))) / 1000;
 
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s viewport', (viewport) => {
-  it('answers, shows cautions, the lookout's view and 3D, flags bad input, and works offline', async () => {
+  it('answers, shows cautions, the lookout’s view and 3D, flags bad input, and works offline', async () => {
     const { context, page } = await newPage(browser, viewport);
     const errors = watchErrors(page);
     try {
@@ -44,7 +44,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
       const view = page.getByLabel('The target as the lookout sees it');
       await view.scrollIntoViewIfNeeded();
       await view.getByRole('img', { name: new RegExp(`^Horizon −${dip.replace('.', '\\.')}′ below eye level\\.`) }).waitFor();
-      await view.getByRole('img', { name: /detected .* km/ }).first().waitFor();
+      await view
+        .getByRole('img', { name: /detected .* km/ })
+        .first()
+        .waitFor();
       await view.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-lookout-view-${viewport}.png` });
 
       // A negative height is refused under its field; the last answer stays.
