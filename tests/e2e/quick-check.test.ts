@@ -41,14 +41,14 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
       // The view as the lookout sees it: at k = 0 the horizon of a 30 m eye lies √(2h/R) = 10.6′ below eye level.
       // Source: dip of the horizon, √(2h/R) radians for small angles — common practice, no source.
       const dip = ((Math.sqrt((2 * 30) / R) * 180 * 60) / Math.PI).toFixed(1);
-      const view = page.getByLabel('The target as the lookout sees it');
-      await view.scrollIntoViewIfNeeded();
-      await view.getByRole('img', { name: new RegExp(`^Horizon −${dip.replace('.', '\\.')}′ below eye level\\.`) }).waitFor();
-      await view
+      const seen = page.getByLabel('The target as the lookout sees it');
+      await seen.scrollIntoViewIfNeeded();
+      await seen.getByRole('img', { name: new RegExp(`^Horizon −${dip.replace('.', '\\.')}′ below eye level\\.`) }).waitFor();
+      await seen
         .getByRole('img', { name: /detected .* km/ })
         .first()
         .waitFor();
-      await view.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-lookout-view-${viewport}.png` });
+      await seen.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-lookout-view-${viewport}.png` });
 
       // A negative height is refused under its field; the last answer stays.
       const eye = page.getByLabel('Height of eye');
