@@ -1,10 +1,27 @@
 import type { NextFunction, Request, Response } from 'express';
+import { ConnectionAcquireTimeoutError, DatabaseError } from 'sequelize';
 import { AppError } from './app-error';
+
+/** Seconds a client is asked to wait before retrying a 503. */
+const RETRY_AFTER_S = 2;
 
 /** The one error middleware: consistent `{ error: { code, message, fields? } }` bodies. */
 export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
   if (err instanceof AppError) {
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields && { fields: err.fields }) } });
+    return;
+  }
+  if (err instanceof ConnectionAcquireTimeoutError) {
+    res.setHeader('Retry-After', String(RETRY_AFTER_S));
+    res.status(503).json({ error: { code: 'busy', message: 'The server is busy. Try again in a moment.' } });
+    return;
+  }
+  if (err instanceof DatabaseError && (err.parent as { code?: string }).code === '55P03') {
+    // lock_not_available: another request is writing the same record right now (NOWAIT locks).
+    res.setHeader('Retry-After', '1');
+    res
+      .status(409)
+      .json({ error: { code: 'busy', message: 'Someone else is saving this right now. Reload and try again in a moment.' } });
     return;
   }
   // Body-parser failures carry a status and a type.

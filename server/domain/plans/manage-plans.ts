@@ -52,9 +52,11 @@ export async function loadPlanInputs(
 ) {
   const site = await sitesRepository.findInOrganization(actor.organizationId, p.siteId, t);
   if (!site) throw AppError.badRequest('The plan has invalid fields.', { siteId: 'No such site in your organisation.' });
-  const posts = await postsRepository.listInSite(actor.organizationId, site.id);
-  const targets = await targetsRepository.list(actor.organizationId);
-  const sets = await conditionSetsRepository.list(actor.organizationId);
+  // Every read goes through the write's transaction: a second connection taken while the
+  // plan row is locked can exhaust the pool under a burst of writes to one plan.
+  const posts = await postsRepository.listInSite(actor.organizationId, site.id, t);
+  const targets = await targetsRepository.list(actor.organizationId, t);
+  const sets = await conditionSetsRepository.list(actor.organizationId, t);
   const pick = <T extends { id: string }>(all: T[], ids: string[], field: string, what: string) => {
     const found = ids.map((id) => all.find((x) => x.id === id));
     const missing = found.findIndex((x) => !x);
