@@ -1,14 +1,44 @@
 import type { NextFunction, Request, Response } from 'express';
-import { ConnectionAcquireTimeoutError, DatabaseError } from 'sequelize';
+import { ConnectionAcquireTimeoutError, DatabaseError, ExclusionConstraintError, UniqueConstraintError } from 'sequelize';
 import { AppError } from './app-error';
 
 /** Seconds a client is asked to wait before retrying a 503. */
 const RETRY_AFTER_S = 2;
 
+/**
+ * Constraints that refuse a duplicate a concurrent request slipped past the use
+ * case's own check; anything else unique is a generic 409 `duplicate`.
+ */
+const CONSTRAINT_ANSWERS: Record<string, { code: string; message: string; fields?: Record<string, string> }> = {
+  post_assignments_no_overlap: {
+    code: 'assignment_overlap',
+    message: 'This person already has a watch at that time. Reload the roster to see it.',
+  },
+  users_email_key: {
+    code: 'email_taken',
+    message: 'An account with this e-mail address already exists.',
+    fields: { email: 'Already in use.' },
+  },
+};
+
+function constraintOf(err: UniqueConstraintError | ExclusionConstraintError): string {
+  const parent = (err as { parent?: { constraint?: string } }).parent;
+  return parent?.constraint ?? ('constraint' in err ? String(err.constraint ?? '') : '');
+}
+
 /** The one error middleware: consistent `{ error: { code, message, fields? } }` bodies. */
 export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
   if (err instanceof AppError) {
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields && { fields: err.fields }) } });
+    return;
+  }
+  if (err instanceof UniqueConstraintError || err instanceof ExclusionConstraintError) {
+    const known = CONSTRAINT_ANSWERS[constraintOf(err)];
+    const answer = known ?? {
+      code: 'duplicate',
+      message: 'That already exists (someone saved the same thing at the same moment).',
+    };
+    res.status(409).json({ error: { ...answer } });
     return;
   }
   if (err instanceof ConnectionAcquireTimeoutError) {

@@ -111,10 +111,13 @@ export const plansRepository = {
    */
   async find(organizationId: string, id: string, transaction?: Transaction): Promise<Plan | null> {
     if (transaction) {
-      await PlanModel.sequelize!.query('SELECT 1 FROM plans WHERE id = :id AND organization_id = :organizationId FOR UPDATE NOWAIT', {
-        replacements: { id, organizationId },
-        transaction,
-      });
+      await PlanModel.sequelize!.query(
+        'SELECT 1 FROM plans WHERE id = :id AND organization_id = :organizationId FOR UPDATE NOWAIT',
+        {
+          replacements: { id, organizationId },
+          transaction,
+        },
+      );
     }
     const row = await PlanModel.findOne({ where: { id, organizationId }, transaction });
     return row ? (await toPlans([row], transaction))[0]! : null;
