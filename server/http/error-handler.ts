@@ -46,6 +46,11 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
     res.status(503).json({ error: { code: 'busy', message: 'The server is busy. Try again in a moment.' } });
     return;
   }
+  if (err instanceof DatabaseError && (err.parent as { code?: string }).code === '22003') {
+    // numeric_value_out_of_range: a number the schema let through does not fit its column.
+    res.status(400).json({ error: { code: 'invalid_input', message: 'A number in the request is out of range.' } });
+    return;
+  }
   if (err instanceof DatabaseError && (err.parent as { code?: string }).code === '55P03') {
     // lock_not_available: another request is writing the same record right now (NOWAIT locks).
     res.setHeader('Retry-After', '1');
@@ -62,6 +67,22 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
   }
   if (e.type === 'entity.too.large') {
     res.status(413).json({ error: { code: 'too_large', message: 'The request body is too large.' } });
+    return;
+  }
+  if (e.type === 'charset.unsupported') {
+    res.status(415).json({ error: { code: 'unsupported_charset', message: 'Send the request body as UTF-8.' } });
+    return;
+  }
+  if (e.type === 'encoding.unsupported') {
+    res.status(415).json({
+      error: { code: 'unsupported_encoding', message: 'Send the request body uncompressed, or gzip, deflate or br.' },
+    });
+    return;
+  }
+  // Any other client error from the HTTP layer (aborted or truncated bodies, bad URL encoding…).
+  const status = e.status ?? (err as { statusCode?: number }).statusCode;
+  if (status && status >= 400 && status < 500 && (err as { expose?: boolean }).expose) {
+    res.status(status).json({ error: { code: 'bad_request', message: (err as Error).message || 'The request is malformed.' } });
     return;
   }
   console.error(`[kenning] ${req.method} ${req.originalUrl} failed:`, err);

@@ -18,10 +18,13 @@ import {
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 import type { Mailer } from '@/server/mail/mailer';
+import { INT_COLUMN_MAX, SeenVersionSchema } from '@/shared/schemas/seen-version';
 
 const IdParams = z.object({ planId: z.uuid({ error: 'Not a plan id.' }) });
-const RevisionParams = IdParams.extend({ number: z.coerce.number().int().min(1, 'Revisions start at 1.') });
-const SubmitBody = z.object({ rowVersion: z.number({ error: 'Send the version you last saw.' }).int() });
+const RevisionParams = IdParams.extend({
+  number: z.coerce.number().int().min(1, 'Revisions start at 1.').max(INT_COLUMN_MAX, 'No such revision.'),
+});
+const SubmitBody = z.object({ rowVersion: SeenVersionSchema });
 
 /** Coverage plans: planners prepare and submit, reviewers approve or return, observers read approved ones. */
 export function planRoutes(db: Sequelize, publicUrl: (req: Request) => string, mailer: Mailer | null) {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { pageOf } from './list';
+import { SeenVersionSchema } from './seen-version';
 
 export const ROLES = ['admin', 'planner', 'reviewer', 'observer'] as const;
 export const RoleSchema = z.enum(ROLES);
@@ -85,7 +86,7 @@ export const UpdateUserRequestSchema = z
     role: RoleSchema.optional(),
     active: z.boolean().optional(),
     /** The version the client last saw; a different current version is a 409. */
-    version: z.number({ error: 'Send the version you last saw.' }).int(),
+    version: SeenVersionSchema,
   })
   .refine((v) => v.role !== undefined || v.active !== undefined, {
     message: 'Change the role or the active state.',

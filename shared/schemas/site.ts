@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { LatLonSchema } from './coordinate';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
+import { SeenVersionSchema } from './seen-version';
 
 export const SITE_KINDS = ['forest-district', 'coast-stretch', 'search-area'] as const;
 export const SiteKindSchema = z.enum(SITE_KINDS, { error: `Choose one of: ${SITE_KINDS.join(', ')}.` });
@@ -59,7 +60,10 @@ export const SiteSchema = z.object({
   /** Land/sea mask from the terrain: cells at or below this height are sea, metres; null = not stated. */
   seaLevelMaxM: z.number().nullable().default(null),
   /** The sea part of the site as a ring ([lon, lat], WGS84); null = not drawn. */
-  seaArea: z.array(z.tuple([z.number(), z.number()])).nullable().default(null),
+  seaArea: z
+    .array(z.tuple([z.number(), z.number()]))
+    .nullable()
+    .default(null),
   version: z.number().int(),
   /** ISO 8601. */
   updatedAt: z.string(),
@@ -105,7 +109,7 @@ export type SiteInput = z.infer<typeof SiteInputSchema>;
 
 /** Changes to a site (a field left out stays as it is) and the version last seen. */
 export const SiteUpdateSchema = patchOf(SiteInputSchema).extend({
-  version: z.number({ error: 'Send the version you last saw.' }).int(),
+  version: SeenVersionSchema,
 });
 
 export const SiteListSchema = pageOf(SiteSummarySchema);
@@ -170,7 +174,7 @@ export type PostInput = z.infer<typeof PostInputSchema>;
 
 /** Changes to a post (a field left out stays as it is) and the version last seen. */
 export const PostUpdateSchema = patchOf(PostInputSchema).extend({
-  version: z.number({ error: 'Send the version you last saw.' }).int(),
+  version: SeenVersionSchema,
 });
 
 export const POST_SORTS = ['name', '-name', 'kind', 'status', '-updatedAt'] as const;

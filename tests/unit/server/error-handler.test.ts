@@ -32,6 +32,12 @@ describe('errorHandler: database conditions become answers a client can act on',
     expect(res.body.error.code).toBe('busy');
   });
 
+  it('answers numeric_value_out_of_range with 400, not 500', async () => {
+    const res = await request(throwing(() => pgError('22003'))).post('/x');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('invalid_input');
+  });
+
   it('still answers an unknown failure with a generic 500', async () => {
     const spy = jest.spyOn(console, 'error').mockImplementation(() => {});
     const res = await request(throwing(() => new Error('boom'))).post('/x');
