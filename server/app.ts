@@ -6,7 +6,8 @@ import type { Sequelize } from 'sequelize';
 import { DEFAULT_HILLSHADE_MAX_EDGE } from '@/shared/terrain/hillshade-image';
 import type { Config } from './config';
 import { createSignInLimiter } from './domain/auth/sign-in-limiter';
-import { errorHandler, notFoundHandler } from './http/error-handler';
+import { createErrorHandler, notFoundHandler } from './http/error-handler';
+import { watchDatabaseOutage } from './http/database-outage';
 import { sessionMiddleware } from './http/session';
 import { createCaughtMailClient } from './mail/caught-mail-client';
 import type { Mailer } from './mail/mailer';
@@ -73,6 +74,7 @@ export function createApp({
 }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
+  const outage = watchDatabaseOutage(db);
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
 
   // The web bundle is ~2 MB of JavaScript; gzip brings it under 0.5 MB for phones.
@@ -158,6 +160,6 @@ export function createApp({
     });
   }
 
-  app.use(errorHandler);
+  app.use(createErrorHandler(outage));
   return app;
 }

@@ -1,6 +1,7 @@
 import type { NextFunction, Request, Response } from 'express';
 import { ConnectionAcquireTimeoutError, DatabaseError, ExclusionConstraintError, UniqueConstraintError } from 'sequelize';
 import { AppError } from './app-error';
+import { isDatabaseAway, type DatabaseOutage } from './database-outage';
 
 /** Seconds a client is asked to wait before retrying a 503. */
 const RETRY_AFTER_S = 2;
@@ -26,8 +27,27 @@ function constraintOf(err: UniqueConstraintError | ExclusionConstraintError): st
   return parent?.constraint ?? ('constraint' in err ? String(err.constraint ?? '') : '');
 }
 
-/** The one error middleware: consistent `{ error: { code, message, fields? } }` bodies. */
-export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
+/**
+ * The one error middleware: consistent `{ error: { code, message, fields? } }` bodies.
+ * With an outage watch, requests that fail because PostgreSQL is away are answered
+ * 503 `database_unavailable` and logged once per outage, not once each.
+ */
+export function createErrorHandler(outage?: DatabaseOutage) {
+  return (err: unknown, req: Request, res: Response, next: NextFunction) => handleError(err, req, res, next, outage);
+}
+
+/** The error middleware without an outage watch (every database outage is still a 503). */
+export const errorHandler = createErrorHandler();
+
+function handleError(err: unknown, req: Request, res: Response, _next: NextFunction, outage?: DatabaseOutage) {
+  if (isDatabaseAway(err)) {
+    outage?.refused(err);
+    res.setHeader('Retry-After', String(RETRY_AFTER_S));
+    res.status(503).json({
+      error: { code: 'database_unavailable', message: 'The database cannot be reached right now. Try again shortly.' },
+    });
+    return;
+  }
   if (err instanceof AppError) {
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields && { fields: err.fields }) } });
     return;

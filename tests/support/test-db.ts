@@ -13,7 +13,9 @@ import { createDiskFileStore } from '@/server/storage/file-store';
  * A disposable database per test file, copied from the migrated and seeded
  * template that `npm test` prepares (KENNING_TEST_TEMPLATE_DB).
  */
-export async function createTestDatabase(): Promise<{ db: Sequelize; url: string; drop: () => Promise<void> }> {
+export async function createTestDatabase(
+  options: { connectThrough?: (url: URL) => URL } = {},
+): Promise<{ db: Sequelize; url: string; drop: () => Promise<void> }> {
   const adminUrl = process.env.KENNING_ADMIN_DATABASE_URL;
   const template = process.env.KENNING_TEST_TEMPLATE_DB;
   if (!adminUrl || !template) {
@@ -40,7 +42,8 @@ export async function createTestDatabase(): Promise<{ db: Sequelize; url: string
   }
   const url = new URL(adminUrl);
   url.pathname = `/${name}`;
-  const db = createDatabase(url.toString());
+  // The app may reach it another way (a fault-injecting proxy); the drop goes direct.
+  const db = createDatabase((options.connectThrough?.(new URL(url)) ?? url).toString());
   return {
     db,
     url: url.toString(),
