@@ -60,6 +60,10 @@ export async function updateUser(db: Sequelize, actor: Actor, id: string, input:
         'stale_version',
       );
     }
+    // A new role or a deactivation takes effect on the person's open sessions too: they sign in again.
+    const roleChanged = changes.role !== undefined && changes.role !== current.role;
+    const activeChanged = changes.active !== undefined && changes.active !== (current.status !== 'deactivated');
+    if (roleChanged || activeChanged) await usersRepository.endSessions(id, transaction);
     return updated;
   });
 }
@@ -77,5 +81,6 @@ export async function setPasswordWithToken(db: Sequelize, token: string, passwor
       );
     }
     await usersRepository.setPassword(found.id, passwordHash, transaction);
+    await usersRepository.endSessions(found.id, transaction);
   });
 }
