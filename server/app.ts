@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import compression from 'compression';
-import express, { type Request } from 'express';
+import express from 'express';
 import type { Sequelize } from 'sequelize';
 import { DEFAULT_HILLSHADE_MAX_EDGE } from '@/shared/terrain/hillshade-image';
 import type { Config } from './config';
@@ -45,6 +45,7 @@ export interface AppDeps {
   config: Pick<
     Config,
     | 'SESSION_SECRET'
+    | 'PUBLIC_URL'
     | 'TRUST_PROXY'
     | 'WEB_DIST_DIR'
     | 'SIGN_IN_LIMIT_PER_ADDRESS'
@@ -58,8 +59,6 @@ export interface AppDeps {
     | 'TERRAIN_UPLOAD_DIR'
   >;
 }
-
-const publicUrl = (req: Request) => `${req.protocol}://${req.get('host') ?? 'localhost'}`;
 
 /** Builds the Express app (API + the exported web app) without listening. */
 export function createApp({
@@ -75,6 +74,8 @@ export function createApp({
   const app = express();
   app.disable('x-powered-by');
   const outage = watchDatabaseOutage(db);
+  // Links in mail use the configured address: a request's Host header is the client's to choose.
+  const publicUrl = () => config.PUBLIC_URL;
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
 
   // The web bundle is ~2 MB of JavaScript; gzip brings it under 0.5 MB for phones.

@@ -59,6 +59,7 @@ export async function createTestDatabase(
 
 export const TEST_CONFIG: AppDeps['config'] = {
   SESSION_SECRET: 'test-secret-'.padEnd(48, 'x'),
+  PUBLIC_URL: 'https://kenning.test',
   TRUST_PROXY: false,
   WEB_DIST_DIR: '/nonexistent',
   SIGN_IN_LIMIT_PER_ADDRESS: 1000,

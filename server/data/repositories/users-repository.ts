@@ -62,7 +62,12 @@ export const usersRepository = {
       raw: true,
       nest: true,
     })) as unknown as
-      (Pick<User, 'id' | 'email' | 'name' | 'role'> & { organization: User['organization']; sessionGeneration: number }) | null;
+      | (Pick<User, 'id' | 'email' | 'name' | 'role'> & {
+          organization: User['organization'];
+          sessionGeneration: number;
+          sessionEnded?: boolean;
+        })
+      | null;
     return row
       ? {
           id: row.id,
