@@ -8,6 +8,7 @@ import type { Config } from './config';
 import { createSignInLimiter } from './domain/auth/sign-in-limiter';
 import { createErrorHandler, notFoundHandler } from './http/error-handler';
 import { watchDatabaseOutage } from './http/database-outage';
+import { originCheck } from './http/origin-check';
 import { sessionMiddleware } from './http/session';
 import { createCaughtMailClient } from './mail/caught-mail-client';
 import type { Mailer } from './mail/mailer';
@@ -44,6 +45,7 @@ export interface AppDeps {
   coverageQueue?: CoverageQueue | null;
   config: Pick<
     Config,
+    | 'NODE_ENV'
     | 'SESSION_SECRET'
     | 'PUBLIC_URL'
     | 'TRUST_PROXY'
@@ -51,6 +53,7 @@ export interface AppDeps {
     | 'SIGN_IN_LIMIT_PER_ADDRESS'
     | 'SIGN_IN_LIMIT_PER_ACCOUNT'
     | 'SIGN_IN_WINDOW_SECONDS'
+    | 'SIGN_IN_STORE'
     | 'LOG_REQUESTS'
     | 'CAUGHT_MAIL_URL'
     | 'TERRAIN_MAX_UPLOAD_BYTES'
@@ -101,9 +104,12 @@ export function createApp({
     perAddress: config.SIGN_IN_LIMIT_PER_ADDRESS,
     perAccount: config.SIGN_IN_LIMIT_PER_ACCOUNT,
     windowSeconds: config.SIGN_IN_WINDOW_SECONDS,
+    store: config.SIGN_IN_STORE === 'memory' ? 'memory' : db,
   });
 
   const api = express.Router();
+  // Production refuses writes a browser sent from another site (before any body is read).
+  if (config.NODE_ENV === 'production') api.use(originCheck(config.PUBLIC_URL));
   api.use(express.json({ limit: '1mb' }));
   api.use(sessionMiddleware(config.SESSION_SECRET));
   api.use((_req, res, next) => {

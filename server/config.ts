@@ -41,10 +41,12 @@ const EnvSchema = z.object({
     .enum(['0', '1', 'true', 'false'])
     .default('0')
     .transform((v) => v === '1' || v === 'true'),
-  /** Sign-in attempts allowed per client address per window. */
+  /** Failed sign-ins from one client address per window before progressive delays begin. */
   SIGN_IN_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(30),
-  /** Failed sign-ins allowed per account per window. */
-  SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
+  /** Failed sign-ins on one account per window before progressive delays begin. */
+  SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
+  /** Where sign-in counts live: 'database' (shared by every server process) or 'memory' (one process). */
+  SIGN_IN_STORE: z.enum(['database', 'memory']).default('database'),
   SIGN_IN_WINDOW_SECONDS: z.coerce
     .number()
     .int()

@@ -49,6 +49,7 @@ function handleError(err: unknown, req: Request, res: Response, _next: NextFunct
     return;
   }
   if (err instanceof AppError) {
+    if (err.retryAfterS) res.setHeader('Retry-After', String(err.retryAfterS));
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields && { fields: err.fields }) } });
     return;
   }

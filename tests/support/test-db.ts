@@ -58,6 +58,7 @@ export async function createTestDatabase(
 }
 
 export const TEST_CONFIG: AppDeps['config'] = {
+  NODE_ENV: 'test',
   SESSION_SECRET: 'test-secret-'.padEnd(48, 'x'),
   PUBLIC_URL: 'https://kenning.test',
   TRUST_PROXY: false,
@@ -65,6 +66,8 @@ export const TEST_CONFIG: AppDeps['config'] = {
   SIGN_IN_LIMIT_PER_ADDRESS: 1000,
   SIGN_IN_LIMIT_PER_ACCOUNT: 1000,
   SIGN_IN_WINDOW_SECONDS: 900,
+  // Each test app keeps its own counts; tests/api/sign-in-delays.test.ts checks the shared store.
+  SIGN_IN_STORE: 'memory',
   LOG_REQUESTS: false,
   CAUGHT_MAIL_URL: undefined,
   TERRAIN_MAX_UPLOAD_BYTES: 400_000_000,

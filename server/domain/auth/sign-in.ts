@@ -19,7 +19,7 @@ export async function signIn(
   const found = await usersRepository.credentialsByEmail(input.email);
   const ok = await verifyPassword(input.password, found?.passwordHash ?? null);
   if (!found || !ok || !found.active) {
-    await limiter.failed(input.email);
+    await limiter.failed(address, input.email);
     throw new AppError(401, 'wrong_credentials', WRONG);
   }
   await limiter.succeeded(input.email);
