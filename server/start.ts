@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import { config } from './config';
 import { createDatabase } from './data/database';
+import { startStaleRunReaper } from './domain/coverage/run-heartbeat';
 import { createMailer } from './mail/mailer';
 import { startCoverageBoss } from './queue/coverage-queue';
 import { createDiskFileStore } from './storage/file-store';
@@ -22,6 +23,8 @@ async function main() {
     : null;
   // The API only queues coverage runs; `npm run worker` processes compute them.
   const coverage = await startCoverageBoss(cfg.DATABASE_URL);
+  // Fails runs whose worker died, even when no worker is left to notice.
+  const reaper = startStaleRunReaper(db);
   const app = createApp({
     db,
     config: cfg,
@@ -39,6 +42,7 @@ async function main() {
   const stop = (signal: string) => {
     console.log(`[kenning] ${signal}: closing`);
     mailer?.close();
+    reaper.stop();
     server.close(() => {
       void coverage
         .stop()
