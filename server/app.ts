@@ -9,6 +9,7 @@ import { createSignInLimiter } from './domain/auth/sign-in-limiter';
 import { createErrorHandler, notFoundHandler } from './http/error-handler';
 import { watchDatabaseOutage } from './http/database-outage';
 import { originCheck } from './http/origin-check';
+import { securityHeaders } from './http/security-headers';
 import { sessionMiddleware } from './http/session';
 import { createCaughtMailClient } from './mail/caught-mail-client';
 import type { Mailer } from './mail/mailer';
@@ -83,12 +84,7 @@ export function createApp({
 
   // The web bundle is ~2 MB of JavaScript; gzip brings it under 0.5 MB for phones.
   app.use(compression());
-  app.use((_req, res, next) => {
-    res.setHeader('X-Content-Type-Options', 'nosniff');
-    res.setHeader('Referrer-Policy', 'same-origin');
-    res.setHeader('X-Frame-Options', 'DENY');
-    next();
-  });
+  app.use(securityHeaders({ production: config.NODE_ENV === 'production' }));
   if (config.LOG_REQUESTS) {
     app.use((req, res, next) => {
       const started = process.hrtime.bigint();
