@@ -31,9 +31,9 @@ beforeAll(async () => {
   );
 });
 afterAll(async () => {
-  await proxy.start().catch(() => {});
   await live.close();
   await drop();
+  await proxy.stop();
 });
 
 const waitFor = async (ok: () => Promise<boolean>, seconds: number) => {
