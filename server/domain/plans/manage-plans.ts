@@ -12,6 +12,7 @@ import { planSubmitted, reviewDecided } from '@/server/mail/templates';
 import type { Actor } from '../actor';
 import { coverageForSubmit } from '../coverage/coverage-snapshot';
 import { buildSnapshot, contentHash } from './build-snapshot';
+import { verifiedRevision } from './verify-revision';
 
 /** Statuses in which a plan (and its coverage) may still change. */
 export const EDITABLE: PlanStatus[] = ['draft', 'returned'];
@@ -254,7 +255,17 @@ export function newPlanVersion({ db }: PlanDeps, actor: Actor, id: string): Prom
     const plan = await plansRepository.create(
       actor.organizationId,
       actor.userId,
-      { siteId, title, postIds, targetIds, conditionSetIds, standard, lookout, version: before.version + 1, previousId: before.id },
+      {
+        siteId,
+        title,
+        postIds,
+        targetIds,
+        conditionSetIds,
+        standard,
+        lookout,
+        version: before.version + 1,
+        previousId: before.id,
+      },
       t,
     );
     await auditRepository.record(
@@ -300,5 +311,5 @@ export async function planRevision(actor: Actor, id: string, number: number) {
   await getPlan(actor, id);
   const found = (await plansRepository.revisions(id, true)).find((r) => r.number === number);
   if (!found) throw AppError.notFound('That revision');
-  return found;
+  return verifiedRevision(id, found);
 }
