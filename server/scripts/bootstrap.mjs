@@ -333,6 +333,42 @@ function startWorker(extraEnv) {
 }
 
 /**
+ * Keeps a child running: one that exits while we are not stopping is started
+ * again after 1 s, then 2, 4 … up to 30 s while it keeps dying (back to 1 s once
+ * it has run for a minute). `onStopped` is called when it exits during a stop.
+ */
+function supervise(name, start, isStopping) {
+  let child;
+  let delayMs = 1000;
+  let startedAt = 0;
+  let stopped = () => {};
+  const launch = () => {
+    startedAt = Date.now();
+    child = start();
+    child.on('exit', (code, signal) => {
+      if (isStopping()) return stopped(code);
+      if (Date.now() - startedAt > 60_000) delayMs = 1000;
+      log(`${name} stopped unexpectedly (${signal ?? `exit code ${code}`}); starting it again in ${delayMs / 1000} s`);
+      setTimeout(() => (isStopping() ? stopped(code) : launch()), delayMs);
+      delayMs = Math.min(delayMs * 2, 30_000);
+    });
+  };
+  launch();
+  return {
+    get child() {
+      return child;
+    },
+    kill(signal) {
+      if (child && child.exitCode === null && child.signalCode === null) child.kill(signal);
+      else stopped(child?.exitCode ?? 0);
+    },
+    onStopped(callback) {
+      stopped = callback;
+    },
+  };
+}
+
+/**
  * `npm` does not always pass SIGTERM on to its script. When the process that
  * started us goes away, we are re-parented: treat that like a stop signal.
  */
@@ -405,9 +441,17 @@ async function start() {
     NODE_ENV: env.NODE_ENV ?? 'development',
     ...(caught && mailEnv(caught)),
   };
-  const server = serve(serverEnv);
-  const worker = startWorker(serverEnv);
   let stopping = false;
+  const server = supervise(
+    'the server',
+    () => serve(serverEnv),
+    () => stopping,
+  );
+  const worker = supervise(
+    'the coverage worker',
+    () => startWorker(serverEnv),
+    () => stopping,
+  );
   const shutdown = (signal) => {
     if (stopping) return;
     stopping = true;
@@ -419,12 +463,12 @@ async function start() {
   process.on('SIGTERM', () => shutdown('SIGTERM'));
   process.on('SIGHUP', () => shutdown('SIGHUP'));
   onParentGone(() => shutdown('parent process gone'));
-  server.on('exit', (code) => {
+  server.onStopped(() => {
     stopAll();
     log('stopped.');
-    process.exit(stopping ? 0 : (code ?? 1));
+    process.exit(0);
   });
-  if (await waitForHealth(url, server)) {
+  if (await waitForHealth(url, server.child)) {
     console.log('');
     log(`Kenning is up: ${url}`);
     log('Demo sign-ins (password for all: kenning-demo):');
