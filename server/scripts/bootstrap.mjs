@@ -11,7 +11,18 @@
 
 import { execFileSync, spawn, spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
-import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import {
+  chownSync,
+  existsSync,
+  lstatSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  realpathSync,
+  rmSync,
+  statSync,
+  writeFileSync,
+} from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -42,6 +53,15 @@ function ensureNpmPackages() {
   const marker = path.join(root, 'node_modules', '.package-lock.json');
   const lock = path.join(root, 'package-lock.json');
   if (existsSync(marker) && statSync(marker).mtimeMs >= statSync(lock).mtimeMs) return;
+  // A worktree sharing another checkout's packages through a symlink: `npm ci` would first
+  // empty the linked folder (under every checkout that uses it), then replace the link.
+  const modules = path.join(root, 'node_modules');
+  if (existsSync(modules) && lstatSync(modules).isSymbolicLink()) {
+    log(
+      `node_modules is a link to ${realpathSync(modules)}; not running npm ci here (run it in that checkout if packages are missing)`,
+    );
+    return;
+  }
   log('installing npm packages (npm ci)…');
   run('npm', ['ci', '--no-audit', '--no-fund']);
 }
