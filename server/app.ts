@@ -1,12 +1,15 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import compression from 'compression';
-import express, { type Request } from 'express';
+import express from 'express';
 import type { Sequelize } from 'sequelize';
 import { DEFAULT_HILLSHADE_MAX_EDGE } from '@/shared/terrain/hillshade-image';
 import type { Config } from './config';
 import { createSignInLimiter } from './domain/auth/sign-in-limiter';
-import { errorHandler, notFoundHandler } from './http/error-handler';
+import { createErrorHandler, notFoundHandler } from './http/error-handler';
+import { watchDatabaseOutage } from './http/database-outage';
+import { originCheck } from './http/origin-check';
+import { securityHeaders } from './http/security-headers';
 import { sessionMiddleware } from './http/session';
 import { createCaughtMailClient } from './mail/caught-mail-client';
 import type { Mailer } from './mail/mailer';
@@ -44,12 +47,15 @@ export interface AppDeps {
   coverageQueue?: CoverageQueue | null;
   config: Pick<
     Config,
+    | 'NODE_ENV'
     | 'SESSION_SECRET'
+    | 'PUBLIC_URL'
     | 'TRUST_PROXY'
     | 'WEB_DIST_DIR'
     | 'SIGN_IN_LIMIT_PER_ADDRESS'
     | 'SIGN_IN_LIMIT_PER_ACCOUNT'
     | 'SIGN_IN_WINDOW_SECONDS'
+    | 'SIGN_IN_STORE'
     | 'LOG_REQUESTS'
     | 'CAUGHT_MAIL_URL'
     | 'TERRAIN_MAX_UPLOAD_BYTES'
@@ -58,8 +64,6 @@ export interface AppDeps {
     | 'TERRAIN_UPLOAD_DIR'
   >;
 }
-
-const publicUrl = (req: Request) => `${req.protocol}://${req.get('host') ?? 'localhost'}`;
 
 /** Builds the Express app (API + the exported web app) without listening. */
 export function createApp({
@@ -74,16 +78,14 @@ export function createApp({
 }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
+  const outage = watchDatabaseOutage(db);
+  // Links in mail use the configured address: a request's Host header is the client's to choose.
+  const publicUrl = () => config.PUBLIC_URL;
   app.set('trust proxy', config.TRUST_PROXY ? 1 : false);
 
   // The web bundle is ~2 MB of JavaScript; gzip brings it under 0.5 MB for phones.
   app.use(compression());
-  app.use((_req, res, next) => {
-    res.setHeader('X-Content-Type-Options', 'nosniff');
-    res.setHeader('Referrer-Policy', 'same-origin');
-    res.setHeader('X-Frame-Options', 'DENY');
-    next();
-  });
+  app.use(securityHeaders({ production: config.NODE_ENV === 'production' }));
   if (config.LOG_REQUESTS) {
     app.use((req, res, next) => {
       const started = process.hrtime.bigint();
@@ -99,9 +101,12 @@ export function createApp({
     perAddress: config.SIGN_IN_LIMIT_PER_ADDRESS,
     perAccount: config.SIGN_IN_LIMIT_PER_ACCOUNT,
     windowSeconds: config.SIGN_IN_WINDOW_SECONDS,
+    store: config.SIGN_IN_STORE === 'memory' ? 'memory' : db,
   });
 
   const api = express.Router();
+  // Production refuses writes a browser sent from another site (before any body is read).
+  if (config.NODE_ENV === 'production') api.use(originCheck(config.PUBLIC_URL));
   api.use(express.json({ limit: '1mb' }));
   api.use(sessionMiddleware(config.SESSION_SECRET));
   api.use((_req, res, next) => {
@@ -160,6 +165,6 @@ export function createApp({
     });
   }
 
-  app.use(errorHandler);
+  app.use(createErrorHandler(outage));
   return app;
 }

@@ -30,15 +30,23 @@ const EnvSchema = z.object({
   COVERAGE_WORKER_THREADS: z.coerce.number().int().positive().max(64).optional(),
   /** Folder holding the exported web app; the API runs without it. */
   WEB_DIST_DIR: z.string().default(path.join(projectRoot, 'dist', 'web')),
+  /**
+   * The address people reach Kenning at (e.g. https://kenning.example.org): links in
+   * invitation and review mail are built from it, never from the request's Host header.
+   * Required in production; elsewhere it defaults to http://HOST:PORT.
+   */
+  PUBLIC_URL: z.url({ protocol: /^https?$/, error: 'Give the full address, e.g. https://kenning.example.org' }).optional(),
   /** Set when a reverse proxy terminates TLS in front of the server. */
   TRUST_PROXY: z
     .enum(['0', '1', 'true', 'false'])
     .default('0')
     .transform((v) => v === '1' || v === 'true'),
-  /** Sign-in attempts allowed per client address per window. */
+  /** Failed sign-ins from one client address per window before progressive delays begin. */
   SIGN_IN_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(30),
-  /** Failed sign-ins allowed per account per window. */
-  SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
+  /** Failed sign-ins on one account per window before progressive delays begin. */
+  SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
+  /** Where sign-in counts live: 'database' (shared by every server process) or 'memory' (one process). */
+  SIGN_IN_STORE: z.enum(['database', 'memory']).default('database'),
   SIGN_IN_WINDOW_SECONDS: z.coerce
     .number()
     .int()
@@ -63,7 +71,11 @@ const EnvSchema = z.object({
     .transform((v) => v === '1'),
 });
 
-export type Config = Omit<z.infer<typeof EnvSchema>, 'SESSION_SECRET'> & { SESSION_SECRET: string };
+export type Config = Omit<z.infer<typeof EnvSchema>, 'SESSION_SECRET' | 'PUBLIC_URL'> & {
+  SESSION_SECRET: string;
+  /** Without a trailing slash. */
+  PUBLIC_URL: string;
+};
 
 export class ConfigError extends Error {
   override name = 'ConfigError';
@@ -93,13 +105,17 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
   if (!cfg.SESSION_SECRET && cfg.NODE_ENV === 'production') {
     throw new ConfigError('SESSION_SECRET must be set (32+ characters) when NODE_ENV=production');
   }
+  if (!cfg.PUBLIC_URL && cfg.NODE_ENV === 'production') {
+    throw new ConfigError('PUBLIC_URL must be set when NODE_ENV=production (the address mail links point to)');
+  }
   if (cfg.CAUGHT_MAIL_URL && cfg.NODE_ENV === 'production') {
     throw new ConfigError('CAUGHT_MAIL_URL is for development and tests only; unset it when NODE_ENV=production');
   }
   if (Boolean(cfg.SMTP_USER) !== Boolean(cfg.SMTP_PASSWORD)) {
     throw new ConfigError('Set both SMTP_USER and SMTP_PASSWORD, or neither');
   }
-  return { ...cfg, SESSION_SECRET: cfg.SESSION_SECRET ?? localSessionSecret() };
+  const publicUrl = (cfg.PUBLIC_URL ?? `http://${cfg.HOST}:${cfg.PORT}`).replace(/\/+$/, '');
+  return { ...cfg, SESSION_SECRET: cfg.SESSION_SECRET ?? localSessionSecret(), PUBLIC_URL: publicUrl };
 }
 
 let cached: Config | undefined;

@@ -2,8 +2,11 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import { config } from './config';
 import { createDatabase } from './data/database';
+import { startStaleRunReaper } from './domain/coverage/run-heartbeat';
 import { createMailer } from './mail/mailer';
 import { startCoverageBoss } from './queue/coverage-queue';
+import { DEFAULT_ATTACHMENT_UPLOAD_DIR } from './routes/attachments';
+import { cleanStaleUploads } from './storage/clean-stale-uploads';
 import { createDiskFileStore } from './storage/file-store';
 
 /** Entry point: serves the API and the web app from one process. */
@@ -22,6 +25,19 @@ async function main() {
     : null;
   // The API only queues coverage runs; `npm run worker` processes compute them.
   const coverage = await startCoverageBoss(cfg.DATABASE_URL);
+  // Fails runs whose worker died, even when no worker is left to notice.
+  const reaper = startStaleRunReaper(db);
+  // Uploads a killed server left half-received; again every half hour.
+  const uploadRoots = [cfg.TERRAIN_UPLOAD_DIR, DEFAULT_ATTACHMENT_UPLOAD_DIR];
+  const sweepUploads = () =>
+    cleanStaleUploads(uploadRoots)
+      .then(({ folders, bytes }) => {
+        if (folders) console.log(`[kenning] removed ${folders} unfinished upload(s), ${(bytes / 2 ** 20).toFixed(1)} MB`);
+      })
+      .catch((error: unknown) => console.error('[kenning] could not clean unfinished uploads:', error));
+  await sweepUploads();
+  const uploadSweeper = setInterval(() => void sweepUploads(), 30 * 60 * 1000);
+  uploadSweeper.unref();
   const app = createApp({
     db,
     config: cfg,
@@ -39,6 +55,8 @@ async function main() {
   const stop = (signal: string) => {
     console.log(`[kenning] ${signal}: closing`);
     mailer?.close();
+    reaper.stop();
+    clearInterval(uploadSweeper);
     server.close(() => {
       void coverage
         .stop()

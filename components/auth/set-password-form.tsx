@@ -61,7 +61,7 @@ export function SetPasswordForm({ token }: { token: string }) {
         label="New password"
         secureTextEntry
         autoComplete="new-password"
-        hint="At least 10 characters."
+        hint="10 to 72 characters (accented letters and emoji count as 2 to 4)."
       />
       <FormTextField
         control={control}

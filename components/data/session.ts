@@ -54,6 +54,18 @@ export function useSignOut() {
   });
 }
 
+/** Ends every session of this account on the server (other browsers and phones too), then this one. */
+export function useSignOutEverywhere() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api.post('/auth/sign-out-everywhere', {}, null),
+    onSuccess: () => {
+      forgetOtherUsersData(qc);
+      qc.setQueryData(sessionKeys.me(), null);
+    },
+  });
+}
+
 export function useSetPassword() {
   return useMutation({
     mutationFn: (input: { token: string; password: string }) => api.post('/auth/set-password', input, null),

@@ -33,7 +33,12 @@ export class AppError extends Error {
   static conflict(message: string, code = 'conflict') {
     return new AppError(409, code, message);
   }
-  static tooManyRequests(message: string) {
-    return new AppError(429, 'too_many_requests', message);
+  static tooManyRequests(message: string, retryAfterS?: number) {
+    const error = new AppError(429, 'too_many_requests', message);
+    error.retryAfterS = retryAfterS;
+    return error;
   }
+
+  /** Seconds the client should wait before trying again (sent as Retry-After). */
+  retryAfterS?: number;
 }

@@ -3,16 +3,18 @@ import { getIronSession, type IronSession } from 'iron-session';
 import type { Role, User } from '@/shared/schemas/auth';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 import type { Actor } from '@/server/domain/actor';
+import { SESSION_TTL_SECONDS, sessionIsLive } from '@/server/domain/auth/end-sessions';
 import { AppError } from './app-error';
 
 export interface SessionData {
   userId?: string;
   /** Random per sign-in, so every sign-in issues a new cookie value. */
   nonce?: string;
+  /** The user's session generation at sign-in; a later bump ends this session. */
+  generation?: number;
 }
 
 export const SESSION_COOKIE = 'kenning_session';
-const SESSION_TTL_SECONDS = 12 * 60 * 60;
 
 declare module 'express-serve-static-core' {
   interface Request {
@@ -40,11 +42,13 @@ export function sessionMiddleware(password: string) {
 export async function requireUser(req: Request, _res: Response, next: NextFunction) {
   const userId = req.session.userId;
   if (!userId) throw AppError.unauthenticated();
-  const user = await usersRepository.activeById(userId);
-  if (!user) {
+  const found = await usersRepository.activeById(userId, req.session.nonce);
+  // Signed out, or signed out everywhere / new password / new role / deactivated since this cookie was issued.
+  if (!found || !sessionIsLive(found, req.session)) {
     req.session.destroy();
     throw AppError.unauthenticated('Your session has ended. Sign in again.');
   }
+  const { sessionGeneration: _generation, sessionEnded: _ended, ...user } = found;
   req.user = user;
   req.actor = { userId: user.id, organizationId: user.organization.id, role: user.role };
   next();

@@ -42,7 +42,10 @@ async function sendStream(res: Response, stream: NodeJS.ReadableStream) {
  * Photos and documents of posts, sites and plans. Planners upload, edit and
  * delete; every role of the organisation reads (observers: plans once approved).
  */
-export function attachmentRoutes(db: Sequelize, files: FileStore, uploadTempDir = path.join(os.tmpdir(), 'kenning-uploads')) {
+/** Where attachment uploads are received unless the app is given another folder. */
+export const DEFAULT_ATTACHMENT_UPLOAD_DIR = path.join(os.tmpdir(), 'kenning-uploads');
+
+export function attachmentRoutes(db: Sequelize, files: FileStore, uploadTempDir = DEFAULT_ATTACHMENT_UPLOAD_DIR) {
   const router = Router();
   const deps = { db, files };
   const write = [requireUser, requireRole('planner')];

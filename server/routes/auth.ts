@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { SetPasswordRequestSchema, SignInRequestSchema } from '@/shared/schemas/auth';
+import { endAllSessions, endSession } from '@/server/domain/auth/end-sessions';
 import { signIn } from '@/server/domain/auth/sign-in';
 import type { SignInLimiter } from '@/server/domain/auth/sign-in-limiter';
 import { setPasswordWithToken } from '@/server/domain/users/manage-users';
@@ -13,15 +14,24 @@ export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
 
   router.post('/auth/sign-in', async (req, res) => {
     const input = parseOrThrow(SignInRequestSchema, req.body, 'sign-in form');
-    const user = await signIn(input, req.ip ?? 'unknown', limiter);
+    const { user, sessionGeneration } = await signIn(input, req.ip ?? 'unknown', limiter);
     // A fresh session on every sign-in: new nonce, newly sealed cookie value.
     req.session.userId = user.id;
     req.session.nonce = randomBytes(12).toString('base64url');
+    req.session.generation = sessionGeneration;
     await req.session.save();
     res.json({ user });
   });
 
+  // Both end sessions on the server: a copy of the cookie is refused afterwards, not only forgotten here.
   router.post('/auth/sign-out', async (req, res) => {
+    await endSession(req.session);
+    req.session.destroy();
+    res.status(204).end();
+  });
+
+  router.post('/auth/sign-out-everywhere', requireUser, async (req, res) => {
+    await endAllSessions(req.session);
     req.session.destroy();
     res.status(204).end();
   });

@@ -1,4 +1,4 @@
-import { Router, type Request } from 'express';
+import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { PlanInputSchema, PlanListQuerySchema, PlanUpdateSchema, ReviewInputSchema } from '@/shared/schemas/plan';
@@ -18,22 +18,25 @@ import {
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 import type { Mailer } from '@/server/mail/mailer';
+import { INT_COLUMN_MAX, SeenVersionSchema } from '@/shared/schemas/seen-version';
 
 const IdParams = z.object({ planId: z.uuid({ error: 'Not a plan id.' }) });
-const RevisionParams = IdParams.extend({ number: z.coerce.number().int().min(1, 'Revisions start at 1.') });
-const SubmitBody = z.object({ rowVersion: z.number({ error: 'Send the version you last saw.' }).int() });
+const RevisionParams = IdParams.extend({
+  number: z.coerce.number().int().min(1, 'Revisions start at 1.').max(INT_COLUMN_MAX, 'No such revision.'),
+});
+const SubmitBody = z.object({ rowVersion: SeenVersionSchema });
 
 /** Coverage plans: planners prepare and submit, reviewers approve or return, observers read approved ones. */
-export function planRoutes(db: Sequelize, publicUrl: (req: Request) => string, mailer: Mailer | null) {
+export function planRoutes(db: Sequelize, publicUrl: () => string, mailer: Mailer | null) {
   const router = Router();
-  const deps = (req: Request): PlanDeps => ({ db, mailer, planUrl: (id) => `${publicUrl(req)}/plans/${id}` });
+  const deps = (): PlanDeps => ({ db, mailer, planUrl: (id) => `${publicUrl()}/plans/${id}` });
   const planner = [requireUser, requireRole('planner')];
 
   router.get('/plans', requireUser, async (req, res) => {
     res.json(await listPlans(actorOf(req), parseOrThrow(PlanListQuerySchema, req.query, 'query')));
   });
   router.post('/plans', ...planner, async (req, res) => {
-    res.status(201).json({ plan: await createPlan(deps(req), actorOf(req), parseOrThrow(PlanInputSchema, req.body, 'plan')) });
+    res.status(201).json({ plan: await createPlan(deps(), actorOf(req), parseOrThrow(PlanInputSchema, req.body, 'plan')) });
   });
   router.get('/plans/:planId', requireUser, async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');
@@ -45,20 +48,20 @@ export function planRoutes(db: Sequelize, publicUrl: (req: Request) => string, m
   });
   router.patch('/plans/:planId', ...planner, async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');
-    res.json({ plan: await updatePlan(deps(req), actorOf(req), planId, parseOrThrow(PlanUpdateSchema, req.body, 'plan')) });
+    res.json({ plan: await updatePlan(deps(), actorOf(req), planId, parseOrThrow(PlanUpdateSchema, req.body, 'plan')) });
   });
   router.post('/plans/:planId/submit', ...planner, async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');
     const { rowVersion } = parseOrThrow(SubmitBody, req.body, 'submission');
-    res.json(await submitPlan(deps(req), actorOf(req), planId, rowVersion));
+    res.json(await submitPlan(deps(), actorOf(req), planId, rowVersion));
   });
   router.post('/plans/:planId/reviews', requireUser, requireRole('reviewer'), async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');
-    res.status(201).json(await reviewPlan(deps(req), actorOf(req), planId, parseOrThrow(ReviewInputSchema, req.body, 'review')));
+    res.status(201).json(await reviewPlan(deps(), actorOf(req), planId, parseOrThrow(ReviewInputSchema, req.body, 'review')));
   });
   router.post('/plans/:planId/versions', ...planner, async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');
-    res.status(201).json({ plan: await newPlanVersion(deps(req), actorOf(req), planId) });
+    res.status(201).json({ plan: await newPlanVersion(deps(), actorOf(req), planId) });
   });
   router.get('/plans/:planId/revisions', requireUser, async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');

@@ -1,5 +1,5 @@
 import { PageQuerySchema } from '@/shared/schemas/list';
-import { Router, type Request } from 'express';
+import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { InviteUserRequestSchema, UpdateUserRequestSchema } from '@/shared/schemas/auth';
@@ -12,7 +12,7 @@ import { invitation } from '@/server/mail/templates';
 const IdParam = z.object({ userId: z.uuid({ error: 'Not a user id.' }) });
 
 /** The administrator's user management, scoped to the admin's organisation. */
-export function userRoutes(db: Sequelize, publicUrl: (req: Request) => string, mailer: Mailer | null) {
+export function userRoutes(db: Sequelize, publicUrl: () => string, mailer: Mailer | null) {
   const router = Router();
   router.use('/users', requireUser, requireRole('admin'));
 
@@ -24,7 +24,7 @@ export function userRoutes(db: Sequelize, publicUrl: (req: Request) => string, m
   router.post('/users', async (req, res) => {
     const input = parseOrThrow(InviteUserRequestSchema, req.body, 'invitation');
     const { user, token } = await inviteUser(db, actorOf(req), input);
-    const setPasswordUrl = `${publicUrl(req)}/set-password?token=${token}`;
+    const setPasswordUrl = `${publicUrl()}/set-password?token=${token}`;
     // Sent after the account is committed; a mail failure still leaves the link for the admin to pass on.
     let mailed = false;
     if (mailer && req.user) {

@@ -7,13 +7,16 @@
  *   --seed            seed the demo scenario (idempotent)
  *   --files DIR       the file store the demo terrain goes to (default .kenning/files, the server's default)
  *
- * Reads KENNING_ADMIN_DATABASE_URL (a URL to the maintenance database).
+ * Reads KENNING_ADMIN_DATABASE_URL (a URL to the maintenance database, as the owner).
+ * With KENNING_APP_DATABASE_PASSWORD it also makes the login role the server and
+ * workers connect as (`kenning_app`, a member of `kenning_application`).
  */
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { Client } from 'pg';
 import { dataDir } from '../config';
 import { createDatabase } from '../data/database';
+import { APPLICATION_LOGIN, applyApplicationGrants, ensureApplicationLogin } from '../data/application-role';
 import { migrate } from '../data/migrator';
 import { seedDemo } from '../data/seeders/demo';
 import { createDiskFileStore } from '../storage/file-store';
@@ -49,14 +52,20 @@ async function main() {
   } finally {
     await admin.end();
   }
-  if (values.from) return;
-
   const url = new URL(adminUrl);
   url.pathname = `/${name}`;
   const db = createDatabase(url.toString());
   try {
-    const applied = await migrate(db);
-    if (applied.length) console.log(`[kenning] ${name}: applied ${applied.length} migration(s)`);
+    if (!values.from) {
+      const applied = await migrate(db);
+      if (applied.length) console.log(`[kenning] ${name}: applied ${applied.length} migration(s)`);
+    }
+    // Again after every run and copy: tables of later migrations, and database-level
+    // grants (which a copy from a template does not carry).
+    await applyApplicationGrants(db);
+    const appPassword = process.env.KENNING_APP_DATABASE_PASSWORD;
+    if (appPassword) await ensureApplicationLogin(db, APPLICATION_LOGIN, appPassword);
+    if (values.from) return;
     if (values.seed) {
       const files = createDiskFileStore(path.resolve(values.files ?? path.join(dataDir, 'files')));
       const seeded = await seedDemo(db, { files });

@@ -1,6 +1,7 @@
 import { config } from '@/server/config';
 import { createDatabase } from '@/server/data/database';
 import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
+import { startStaleRunReaper, withHeartbeat } from '@/server/domain/coverage/run-heartbeat';
 import { cachingViewsheds } from '@/server/domain/coverage/viewshed-cache';
 import { startCoverageBoss, workCoverageQueue } from '@/server/queue/coverage-queue';
 import { createDiskFileStore } from '@/server/storage/file-store';
@@ -24,9 +25,11 @@ async function main() {
   const computeViewsheds = cachingViewsheds(poolViewsheds(pool), cfg.TERRAIN_CACHE_MB * 2 ** 20);
   const { boss, stop } = await startCoverageBoss(cfg.DATABASE_URL);
   await workCoverageQueue(boss, async (runId) => {
-    const outcome = await processCoverageRun({ db, cache, computeViewsheds }, runId);
+    const outcome = await withHeartbeat(db, runId, () => processCoverageRun({ db, cache, computeViewsheds }, runId));
     console.log(`[kenning] coverage run ${runId}: ${outcome}`);
   });
+  // Any live worker fails the runs of workers that died mid-run.
+  const reaper = startStaleRunReaper(db);
   console.log(`[kenning] coverage worker ready (${pool.size} viewshed threads)`);
 
   let stopping = false;
@@ -35,6 +38,7 @@ async function main() {
     stopping = true;
     console.log(`[kenning] coverage worker: ${signal}, closing`);
     setTimeout(() => process.exit(1), 12_000).unref();
+    reaper.stop();
     void stop()
       .then(() => pool.close())
       .then(() => db.close())
@@ -44,6 +48,12 @@ async function main() {
   process.once('SIGTERM', () => shutdown('SIGTERM'));
   process.once('disconnect', () => shutdown('supervisor gone'));
 }
+
+// A lost database connection mid-run surfaces as rejected promises in the driver and the
+// queue: log them and carry on (pg-boss reconnects; the run is retried or failed cleanly).
+process.on('unhandledRejection', (reason) => {
+  console.error('[kenning] coverage worker: unhandled rejection (carrying on):', reason);
+});
 
 main().catch((err: unknown) => {
   console.error('[kenning] coverage worker could not start:', err);

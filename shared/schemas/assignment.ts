@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { listQuerySchema, pageOf } from './list';
 import { PlanResultRowSchema } from './plan';
 import { PostSchema } from './site';
+import { SeenVersionSchema } from './seen-version';
 
 const instant = (what: string) => z.iso.datetime({ offset: true, error: `${what} must be a date and time (ISO 8601).` });
 
@@ -28,7 +29,7 @@ export const AssignmentUpdateSchema = z
     note: z.string().trim().max(500, 'At most 500 characters.'),
   })
   .partial()
-  .extend({ version: z.number({ error: 'Send the version you last saw.' }).int() });
+  .extend({ version: SeenVersionSchema });
 
 const Person = z.object({ id: z.uuid(), name: z.string(), role: z.string() });
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { PageQuerySchema, pageOf } from './list';
+import { SeenVersionSchema } from './seen-version';
 
 /** What an attachment belongs to. */
 export const ATTACHMENT_OWNER_TYPES = ['post', 'site', 'plan'] as const;
@@ -92,7 +93,7 @@ export type AttachmentUploadFields = z.infer<typeof AttachmentUploadFieldsSchema
 export const AttachmentUpdateSchema = z.object({
   caption: caption.optional(),
   bearingDeg: bearing.nullable().optional(),
-  version: z.number({ error: 'Send the version you last saw.' }).int(),
+  version: SeenVersionSchema,
 });
 export type AttachmentUpdate = z.infer<typeof AttachmentUpdateSchema>;
 

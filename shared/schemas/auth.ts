@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { pageOf } from './list';
+import { SeenVersionSchema } from './seen-version';
 
 export const ROLES = ['admin', 'planner', 'reviewer', 'observer'] as const;
 export const RoleSchema = z.enum(ROLES);
@@ -20,11 +21,20 @@ const email = z
   .max(254, 'That e-mail address is too long.')
   .pipe(z.email({ error: 'That is not an e-mail address.' }));
 
+/** bcrypt reads only the first 72 bytes of a password; a longer one would be silently cut. */
+export const PASSWORD_MAX_BYTES = 72;
+
+/** UTF-8 length, which is what bcrypt counts. */
+export const passwordBytes = (password: string) => new TextEncoder().encode(password).length;
+
 /** A new password: long enough to resist guessing, short enough for bcrypt (72 bytes). */
 export const NewPasswordSchema = z
   .string({ error: 'Choose a password.' })
   .min(10, 'Use at least 10 characters.')
-  .max(72, 'Use at most 72 characters.');
+  .refine(
+    (p) => passwordBytes(p) <= PASSWORD_MAX_BYTES,
+    `Use at most ${PASSWORD_MAX_BYTES} bytes: that is 72 plain letters, digits and signs; accented letters, other scripts and emoji take 2 to 4 bytes each.`,
+  );
 
 export const SignInRequestSchema = z.object({
   email,
@@ -85,7 +95,7 @@ export const UpdateUserRequestSchema = z
     role: RoleSchema.optional(),
     active: z.boolean().optional(),
     /** The version the client last saw; a different current version is a 409. */
-    version: z.number({ error: 'Send the version you last saw.' }).int(),
+    version: SeenVersionSchema,
   })
   .refine((v) => v.role !== undefined || v.active !== undefined, {
     message: 'Change the role or the active state.',

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { listQuerySchema, pageOf } from './list';
 import { RefractionConditionSchema, VisibilityKindSchema } from './sightline';
+import { SeenVersionSchema } from './seen-version';
 
 /** Kinds of search object or target a post must detect. */
 export const TARGET_KINDS = ['smoke-column', 'vessel', 'small-craft', 'raft', 'person-in-water', 'vehicle', 'light'] as const;
@@ -142,11 +143,11 @@ export const TargetUpdateSchema = z
     onWater: z.boolean(),
   })
   .partial()
-  .extend({ version: z.number({ error: 'Send the version you last saw.' }).int() });
+  .extend({ version: SeenVersionSchema });
 
 /** A condition set is replaced whole; `version` is the one last seen. */
 export const ConditionSetUpdateSchema = ConditionSetFieldsSchema.extend({
-  version: z.number({ error: 'Send the version you last saw.' }).int(),
+  version: SeenVersionSchema,
 }).refine(oneSea, ONE_SEA);
 
 /** Query of a library list: libraries are small, so a page holds 200 by default. */

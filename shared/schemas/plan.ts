@@ -3,6 +3,7 @@ import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
 import { CoverageSnapshotSchema } from './coverage';
 import { SightlineResultSchema } from './sightline';
+import { SeenVersionSchema } from './seen-version';
 
 export const PLAN_STATUSES = ['draft', 'submitted', 'returned', 'approved', 'superseded'] as const;
 export type PlanStatus = (typeof PLAN_STATUSES)[number];
@@ -73,7 +74,7 @@ export type PlanInput = z.infer<typeof PlanInputSchema>;
 
 /** Changes to a plan: a field left out stays as stored (no defaults). */
 export const PlanUpdateSchema = patchOf(PlanInputSchema.omit({ siteId: true })).extend({
-  rowVersion: z.number({ error: 'Send the version you last saw.' }).int(),
+  rowVersion: SeenVersionSchema,
 });
 
 const Person = z.object({ id: z.uuid(), name: z.string(), role: z.string() });

@@ -48,10 +48,7 @@ export type RefractionPresetList = z.infer<typeof RefractionPresetListSchema>;
 // ---------------------------------------------------------------------------
 // Refraction conditions of a request
 
-const kValue = z
-  .number({ error: 'k must be a number.' })
-  .min(-10, 'k must be at least −10.')
-  .max(10, 'k must be at most 10.');
+const kValue = z.number({ error: 'k must be a number.' }).min(-10, 'k must be at least −10.').max(10, 'k must be at most 10.');
 /** Air pressure, hPa. */
 const pressure = z
   .number({ error: 'Pressure must be a number of hPa.' })
@@ -214,7 +211,6 @@ export const RefractionConditionSchema = ConditionFieldsSchema.transform((f, ctx
   return z.NEVER;
 });
 
-
 // ---------------------------------------------------------------------------
 // Request
 
@@ -295,17 +291,29 @@ export const SightlineRequestSchema = z
   })
   .superRefine((request, ctx) => {
     if (request.requiredVisibleM !== undefined && request.targetHeightM === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['requiredVisibleM'], message: 'Give the target height with the required visible part.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['requiredVisibleM'],
+        message: 'Give the target height with the required visible part.',
+      });
     }
     if (
       request.requiredVisibleM !== undefined &&
       request.targetHeightM !== undefined &&
       request.requiredVisibleM > request.targetHeightM
     ) {
-      ctx.addIssue({ code: 'custom', path: ['requiredVisibleM'], message: 'The required visible part cannot exceed the target height.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['requiredVisibleM'],
+        message: 'The required visible part cannot exceed the target height.',
+      });
     }
     if (request.seaState !== undefined && request.significantWaveHeightM !== undefined) {
-      ctx.addIssue({ code: 'custom', path: ['significantWaveHeightM'], message: 'Give the sea state or the wave height, not both.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['significantWaveHeightM'],
+        message: 'Give the sea state or the wave height, not both.',
+      });
     }
     if (request.visibilityKind !== undefined && request.visibilityM === undefined) {
       ctx.addIssue({ code: 'custom', path: ['visibilityKind'], message: 'Give the visibility with its kind.' });

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { LatLonSchema } from './coordinate';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
+import { SeenVersionSchema } from './seen-version';
 
 export const SITE_KINDS = ['forest-district', 'coast-stretch', 'search-area'] as const;
 export const SiteKindSchema = z.enum(SITE_KINDS, { error: `Choose one of: ${SITE_KINDS.join(', ')}.` });
@@ -120,7 +121,7 @@ export type SiteInput = z.infer<typeof SiteInputSchema>;
 
 /** Changes to a site (a field left out stays as it is) and the version last seen. */
 export const SiteUpdateSchema = patchOf(SiteInputSchema).extend({
-  version: z.number({ error: 'Send the version you last saw.' }).int(),
+  version: SeenVersionSchema,
 });
 
 export const SiteListSchema = pageOf(SiteSummarySchema);
@@ -185,7 +186,7 @@ export type PostInput = z.infer<typeof PostInputSchema>;
 
 /** Changes to a post (a field left out stays as it is) and the version last seen. */
 export const PostUpdateSchema = patchOf(PostInputSchema).extend({
-  version: z.number({ error: 'Send the version you last saw.' }).int(),
+  version: SeenVersionSchema,
 });
 
 export const POST_SORTS = ['name', '-name', 'kind', 'status', '-updatedAt'] as const;

@@ -278,7 +278,9 @@ describe('GET /caught-mail (admin route)', () => {
   const users: Record<string, User> = { 'admin-id': user('admin-id', 'admin'), 'planner-id': user('planner-id', 'planner') };
 
   beforeAll(() => {
-    jest.mocked(usersRepository.activeById).mockImplementation(async (id: string) => users[id] ?? null);
+    jest
+      .mocked(usersRepository.activeById)
+      .mockImplementation(async (id: string) => (users[id] ? { ...users[id], sessionGeneration: 0 } : null));
     // The admin's organisation holds the planner and the reviewer, not the outsider.
     jest.mocked(usersRepository.emailsInOrganization).mockResolvedValue([PLANNER, REVIEWER]);
   });

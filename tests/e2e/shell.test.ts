@@ -49,7 +49,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
 
       await nav.getByRole('link', { name: 'Account' }).click();
       await page.getByText('Harrowmere Lookout Service').first().waitFor();
-      await page.getByRole('button', { name: 'Sign out' }).click();
+      await page.getByRole('button', { name: 'Sign out', exact: true }).click();
       await page.getByRole('button', { name: 'Sign in' }).waitFor();
       expect(errors).toEqual([]);
     } finally {

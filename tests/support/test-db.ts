@@ -13,7 +13,9 @@ import { createDiskFileStore } from '@/server/storage/file-store';
  * A disposable database per test file, copied from the migrated and seeded
  * template that `npm test` prepares (KENNING_TEST_TEMPLATE_DB).
  */
-export async function createTestDatabase(): Promise<{ db: Sequelize; url: string; drop: () => Promise<void> }> {
+export async function createTestDatabase(
+  options: { connectThrough?: (url: URL) => URL } = {},
+): Promise<{ db: Sequelize; url: string; drop: () => Promise<void> }> {
   const adminUrl = process.env.KENNING_ADMIN_DATABASE_URL;
   const template = process.env.KENNING_TEST_TEMPLATE_DB;
   if (!adminUrl || !template) {
@@ -40,7 +42,8 @@ export async function createTestDatabase(): Promise<{ db: Sequelize; url: string
   }
   const url = new URL(adminUrl);
   url.pathname = `/${name}`;
-  const db = createDatabase(url.toString());
+  // The app may reach it another way (a fault-injecting proxy); the drop goes direct.
+  const db = createDatabase((options.connectThrough?.(new URL(url)) ?? url).toString());
   return {
     db,
     url: url.toString(),
@@ -55,12 +58,16 @@ export async function createTestDatabase(): Promise<{ db: Sequelize; url: string
 }
 
 export const TEST_CONFIG: AppDeps['config'] = {
+  NODE_ENV: 'test',
   SESSION_SECRET: 'test-secret-'.padEnd(48, 'x'),
+  PUBLIC_URL: 'https://kenning.test',
   TRUST_PROXY: false,
   WEB_DIST_DIR: '/nonexistent',
   SIGN_IN_LIMIT_PER_ADDRESS: 1000,
   SIGN_IN_LIMIT_PER_ACCOUNT: 1000,
   SIGN_IN_WINDOW_SECONDS: 900,
+  // Each test app keeps its own counts; tests/api/sign-in-delays.test.ts checks the shared store.
+  SIGN_IN_STORE: 'memory',
   LOG_REQUESTS: false,
   CAUGHT_MAIL_URL: undefined,
   TERRAIN_MAX_UPLOAD_BYTES: 400_000_000,

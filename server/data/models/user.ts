@@ -26,6 +26,8 @@ export class UserModel extends Model<InferAttributes<UserModel>, InferCreationAt
   declare inviteExpiresAt: Date | null;
   declare lastSignInAt: Date | null;
   declare version: CreationOptional<number>;
+  /** Sealed into session cookies at sign-in; bumping it ends every earlier session. */
+  declare sessionGeneration: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -44,6 +46,7 @@ export class UserModel extends Model<InferAttributes<UserModel>, InferCreationAt
         inviteExpiresAt: { type: DataTypes.DATE, allowNull: true },
         lastSignInAt: { type: DataTypes.DATE, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        sessionGeneration: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

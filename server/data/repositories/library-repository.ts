@@ -41,8 +41,8 @@ function libraryOf<M extends typeof TargetProfileModel | typeof ConditionSetMode
   const m = model as unknown as typeof TargetProfileModel;
   const dto = toDto as unknown as (row: TargetProfileModel) => Dto;
   return {
-    async list(organizationId: string): Promise<Dto[]> {
-      return (await m.findAll({ where: { organizationId }, order: [['name', 'ASC']] })).map(dto);
+    async list(organizationId: string, transaction?: Transaction): Promise<Dto[]> {
+      return (await m.findAll({ where: { organizationId }, order: [['name', 'ASC']], transaction })).map(dto);
     },
     /** One page, searched by name and sorted as asked. */
     async page(organizationId: string, query: LibraryListQuery) {

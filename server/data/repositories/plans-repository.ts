@@ -104,12 +104,22 @@ export const plansRepository = {
     return PlanModel.count({ where: { siteId, status: { [Op.in]: statuses } }, transaction });
   },
 
+  /**
+   * Inside a transaction the plan row is locked for the write, without waiting: a second
+   * writer of the same plan gets PostgreSQL's lock_not_available (answered 409 `busy`)
+   * at once instead of holding a pooled connection while it queues behind the first.
+   */
   async find(organizationId: string, id: string, transaction?: Transaction): Promise<Plan | null> {
-    const row = await PlanModel.findOne({
-      where: { id, organizationId },
-      transaction,
-      ...(transaction && { lock: transaction.LOCK.UPDATE }),
-    });
+    if (transaction) {
+      await PlanModel.sequelize!.query(
+        'SELECT 1 FROM plans WHERE id = :id AND organization_id = :organizationId FOR UPDATE NOWAIT',
+        {
+          replacements: { id, organizationId },
+          transaction,
+        },
+      );
+    }
+    const row = await PlanModel.findOne({ where: { id, organizationId }, transaction });
     return row ? (await toPlans([row], transaction))[0]! : null;
   },
 

@@ -35,8 +35,8 @@ const columns = (input: Partial<PostInput>) => {
 };
 
 export const postsRepository = {
-  async listInSite(organizationId: string, siteId: string): Promise<Post[]> {
-    const rows = await PostModel.findAll({ where: { organizationId, siteId }, order: [['name', 'ASC']] });
+  async listInSite(organizationId: string, siteId: string, transaction?: Transaction): Promise<Post[]> {
+    const rows = await PostModel.findAll({ where: { organizationId, siteId }, order: [['name', 'ASC']], transaction });
     return rows.map(toPost);
   },
 

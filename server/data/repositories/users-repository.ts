@@ -1,4 +1,4 @@
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction } from 'sequelize';
 import type { ManagedUser, Role, User } from '@/shared/schemas/auth';
 import { OrganizationModel, UserModel } from '../models';
 
@@ -7,6 +7,7 @@ export interface Credentials {
   user: User;
   passwordHash: string | null;
   active: boolean;
+  sessionGeneration: number;
 }
 
 function toUser(row: UserModel): User {
@@ -33,21 +34,40 @@ const withOrg = { include: [{ model: OrganizationModel, as: 'organization' }] };
 export const usersRepository = {
   async credentialsByEmail(email: string): Promise<Credentials | null> {
     const row = await UserModel.findOne({ where: { email }, ...withOrg });
-    return row ? { user: toUser(row), passwordHash: row.passwordHash, active: row.active } : null;
+    return row
+      ? { user: toUser(row), passwordHash: row.passwordHash, active: row.active, sessionGeneration: row.sessionGeneration }
+      : null;
   },
 
   /**
    * The signed-in user, or null when the account is gone or deactivated. Runs
    * on every authenticated request, so it reads plain rows (no model instances).
    */
-  async activeById(id: string): Promise<User | null> {
+  async activeById(
+    id: string,
+    sessionNonce?: string,
+  ): Promise<(User & { sessionGeneration: number; sessionEnded?: boolean }) | null> {
+    const ended = sessionNonce
+      ? [
+          [
+            literal(`EXISTS (SELECT 1 FROM ended_sessions WHERE nonce = ${UserModel.sequelize!.escape(sessionNonce)})`),
+            'sessionEnded',
+          ] as const,
+        ]
+      : [];
     const row = (await UserModel.findOne({
       where: { id, active: true },
-      attributes: ['id', 'email', 'name', 'role'],
+      attributes: ['id', 'email', 'name', 'role', 'sessionGeneration', ...ended],
       include: [{ model: OrganizationModel, as: 'organization', attributes: ['id', 'name'] }],
       raw: true,
       nest: true,
-    })) as unknown as (Pick<User, 'id' | 'email' | 'name' | 'role'> & { organization: User['organization'] }) | null;
+    })) as unknown as
+      | (Pick<User, 'id' | 'email' | 'name' | 'role'> & {
+          organization: User['organization'];
+          sessionGeneration: number;
+          sessionEnded?: boolean;
+        })
+      | null;
     return row
       ? {
           id: row.id,
@@ -55,8 +75,26 @@ export const usersRepository = {
           name: row.name,
           role: row.role,
           organization: { id: row.organization.id, name: row.organization.name },
+          sessionGeneration: row.sessionGeneration,
+          sessionEnded: row.sessionEnded === true,
         }
       : null;
+  },
+
+  /** Ends one session (by its cookie's nonce) until `expiresAt`, when its cookie has lapsed anyway. */
+  async endSession(userId: string, nonce: string, expiresAt: Date): Promise<void> {
+    const db = UserModel.sequelize!;
+    await db.query('DELETE FROM ended_sessions WHERE expires_at < now()');
+    await db.query(
+      'INSERT INTO ended_sessions (nonce, user_id, expires_at) VALUES (:nonce, :userId, :expiresAt) ON CONFLICT DO NOTHING',
+      { replacements: { nonce, userId, expiresAt } },
+    );
+  },
+
+  /** Ends every session of the user issued so far (their cookies carry an older generation). */
+  async endSessions(id: string, transaction?: Transaction): Promise<void> {
+    // Not an edit of the account: no version bump, no updatedAt.
+    await UserModel.increment({ sessionGeneration: 1 }, { where: { id }, transaction, silent: true });
   },
 
   /** Every e-mail address of the organisation's accounts (any status). */

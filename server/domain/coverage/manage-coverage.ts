@@ -1,4 +1,4 @@
-import type { Sequelize } from 'sequelize';
+import { UniqueConstraintError, type Sequelize } from 'sequelize';
 import type { CoverageComparison, CoverageLayerName, CoverageRun, PlanCoverage } from '@/shared/schemas/coverage';
 import { ACTIVE_RUN_STATUSES } from '@/shared/schemas/coverage';
 import { compareCoverage } from '@/shared/terrain/coverage-difference';
@@ -73,6 +73,17 @@ export async function planCoverage(actor: Actor, planId: string): Promise<PlanCo
 }
 
 /**
+ * When an identical request inserted its run first (the unique index on a plan's
+ * queued/running runs per inputs hash refused ours), the run it created.
+ */
+const orRunThatWonTheRace = (planId: string, inputsHash: string) => async (error: unknown) => {
+  if (!(error instanceof UniqueConstraintError)) throw error;
+  const existing = await coverageRepository.findCurrent(planId, inputsHash);
+  if (!existing) throw error;
+  return { ...existing, raced: true as const };
+};
+
+/**
  * Queues a coverage run for the plan's inputs today, or returns the run
  * already queued, running or done for exactly these inputs.
  */
@@ -103,27 +114,30 @@ export async function requestCoverage(
   const existing = await coverageRepository.findCurrent(planId, inputsHash);
   if (existing) return { run: toCoverageRun(existing, inputsHash), created: false };
   if (!deps.queue) throw new AppError(503, 'queue_unavailable', 'No coverage workers are configured on this server.');
-  const run = await deps.db.transaction(async (t) => {
-    const created = await coverageRepository.create(
-      {
-        organizationId: actor.organizationId,
-        planId,
-        siteId: plan.siteId,
-        terrainId: inputs.terrain?.id ?? null,
-        datum: inputs.terrain ? 'terrain' : 'flat',
-        inputsHash,
-        inputs,
-        requestedById: actor.userId,
-      },
-      t,
-    );
-    await auditRepository.record(
-      actor,
-      { action: 'coverage-request', entityType: 'plan', entityId: planId, after: { runId: created.id, inputsHash } },
-      t,
-    );
-    return created;
-  });
+  const run = await deps.db
+    .transaction(async (t) => {
+      const created = await coverageRepository.create(
+        {
+          organizationId: actor.organizationId,
+          planId,
+          siteId: plan.siteId,
+          terrainId: inputs.terrain?.id ?? null,
+          datum: inputs.terrain ? 'terrain' : 'flat',
+          inputsHash,
+          inputs,
+          requestedById: actor.userId,
+        },
+        t,
+      );
+      await auditRepository.record(
+        actor,
+        { action: 'coverage-request', entityType: 'plan', entityId: planId, after: { runId: created.id, inputsHash } },
+        t,
+      );
+      return created;
+    })
+    .catch(orRunThatWonTheRace(planId, inputsHash));
+  if ('raced' in run) return { run: toCoverageRun(run, inputsHash), created: false };
   try {
     const jobId = await deps.queue.enqueue(run.id);
     await coverageRepository.updateActive(run.id, { jobId });

@@ -12,6 +12,7 @@ import { planSubmitted, reviewDecided } from '@/server/mail/templates';
 import type { Actor } from '../actor';
 import { coverageForSubmit } from '../coverage/coverage-snapshot';
 import { buildSnapshot, contentHash } from './build-snapshot';
+import { verifiedRevision } from './verify-revision';
 
 /** Statuses in which a plan (and its coverage) may still change. */
 export const EDITABLE: PlanStatus[] = ['draft', 'returned'];
@@ -52,9 +53,11 @@ export async function loadPlanInputs(
 ) {
   const site = await sitesRepository.findInOrganization(actor.organizationId, p.siteId, t);
   if (!site) throw AppError.badRequest('The plan has invalid fields.', { siteId: 'No such site in your organisation.' });
-  const posts = await postsRepository.listInSite(actor.organizationId, site.id);
-  const targets = await targetsRepository.list(actor.organizationId);
-  const sets = await conditionSetsRepository.list(actor.organizationId);
+  // Every read goes through the write's transaction: a second connection taken while the
+  // plan row is locked can exhaust the pool under a burst of writes to one plan.
+  const posts = await postsRepository.listInSite(actor.organizationId, site.id, t);
+  const targets = await targetsRepository.list(actor.organizationId, t);
+  const sets = await conditionSetsRepository.list(actor.organizationId, t);
   const pick = <T extends { id: string }>(all: T[], ids: string[], field: string, what: string) => {
     const found = ids.map((id) => all.find((x) => x.id === id));
     const missing = found.findIndex((x) => !x);
@@ -252,7 +255,17 @@ export function newPlanVersion({ db }: PlanDeps, actor: Actor, id: string): Prom
     const plan = await plansRepository.create(
       actor.organizationId,
       actor.userId,
-      { siteId, title, postIds, targetIds, conditionSetIds, standard, lookout, version: before.version + 1, previousId: before.id },
+      {
+        siteId,
+        title,
+        postIds,
+        targetIds,
+        conditionSetIds,
+        standard,
+        lookout,
+        version: before.version + 1,
+        previousId: before.id,
+      },
       t,
     );
     await auditRepository.record(
@@ -298,5 +311,5 @@ export async function planRevision(actor: Actor, id: string, number: number) {
   await getPlan(actor, id);
   const found = (await plansRepository.revisions(id, true)).find((r) => r.number === number);
   if (!found) throw AppError.notFound('That revision');
-  return found;
+  return verifiedRevision(id, found);
 }

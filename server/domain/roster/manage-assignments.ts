@@ -9,6 +9,7 @@ import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 import { AppError } from '@/server/http/app-error';
 import type { Actor } from '../actor';
+import { verifiedRevision } from '../plans/verify-revision';
 
 const DAY = 24 * 3600_000;
 /** Hand-overs shorter than this are not reported as gaps. */
@@ -163,7 +164,8 @@ export async function briefingFor(actor: Actor, now = Date.now()): Promise<Brief
       const post = await postsRepository.findInOrganization(actor.organizationId, postId);
       if (!post) return null;
       const plan = await plansRepository.latestApprovedWithPost(actor.organizationId, postId);
-      const revision = plan ? (await plansRepository.revisions(plan.id, true)).at(-1) : undefined;
+      const latest = plan ? (await plansRepository.revisions(plan.id, true)).at(-1) : undefined;
+      const revision = plan && latest ? verifiedRevision(plan.id, latest) : undefined;
       const approval = plan ? (await plansRepository.reviews(plan.id)).filter((r) => r.decision === 'approve').at(-1) : undefined;
       const snapshot = revision?.snapshot;
       return {

@@ -1,6 +1,7 @@
 import { createHash, randomBytes } from 'node:crypto';
 import type { Sequelize } from 'sequelize';
 import type { InviteUserRequest, ManagedUser, UpdateUserRequest } from '@/shared/schemas/auth';
+import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 import { AppError } from '@/server/http/app-error';
 import { hashPassword } from '../auth/passwords';
@@ -27,7 +28,7 @@ export async function inviteUser(
         email: 'Already in use.',
       });
     }
-    return usersRepository.createInvited(
+    const invited = await usersRepository.createInvited(
       {
         ...input,
         organizationId: actor.organizationId,
@@ -36,6 +37,18 @@ export async function inviteUser(
       },
       transaction,
     );
+    // Never the token: the audit trail is readable by people who must not use the link.
+    await auditRepository.record(
+      actor,
+      {
+        action: 'invite',
+        entityType: 'user',
+        entityId: invited.id,
+        after: { email: invited.email, name: invited.name, role: invited.role },
+      },
+      transaction,
+    );
+    return invited;
   });
   return { user, token };
 }
@@ -60,6 +73,36 @@ export async function updateUser(db: Sequelize, actor: Actor, id: string, input:
         'stale_version',
       );
     }
+    // A new role or a deactivation takes effect on the person's open sessions too: they sign in again.
+    const roleChanged = changes.role !== undefined && changes.role !== current.role;
+    const activeChanged = changes.active !== undefined && changes.active !== (current.status !== 'deactivated');
+    if (roleChanged || activeChanged) await usersRepository.endSessions(id, transaction);
+    if (roleChanged) {
+      await auditRepository.record(
+        actor,
+        {
+          action: 'change-role',
+          entityType: 'user',
+          entityId: id,
+          before: { role: current.role },
+          after: { role: updated.role },
+        },
+        transaction,
+      );
+    }
+    if (activeChanged) {
+      await auditRepository.record(
+        actor,
+        {
+          action: changes.active ? 'reactivate' : 'deactivate',
+          entityType: 'user',
+          entityId: id,
+          before: { status: current.status },
+          after: { status: updated.status },
+        },
+        transaction,
+      );
+    }
     return updated;
   });
 }
@@ -77,5 +120,6 @@ export async function setPasswordWithToken(db: Sequelize, token: string, passwor
       );
     }
     await usersRepository.setPassword(found.id, passwordHash, transaction);
+    await usersRepository.endSessions(found.id, transaction);
   });
 }

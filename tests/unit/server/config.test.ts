@@ -26,6 +26,14 @@ describe('loadConfig', () => {
     expect(() => loadConfig({ ...base, NODE_ENV: 'production' })).toThrow(/SESSION_SECRET must be set/);
   });
 
+  it('builds mail links from PUBLIC_URL: required in production, http://HOST:PORT elsewhere, no trailing slash', () => {
+    const prod = { ...base, NODE_ENV: 'production', SESSION_SECRET: 'x'.repeat(32) };
+    expect(() => loadConfig(prod)).toThrow(/PUBLIC_URL must be set/);
+    expect(loadConfig({ ...prod, PUBLIC_URL: 'https://kenning.example.org/' }).PUBLIC_URL).toBe('https://kenning.example.org');
+    expect(loadConfig({ ...base, SESSION_SECRET: 'x'.repeat(32), PORT: '9000' }).PUBLIC_URL).toBe('http://127.0.0.1:9000');
+    expect(() => loadConfig({ ...base, SESSION_SECRET: 'x'.repeat(32), PUBLIC_URL: 'ftp://x' })).toThrow(/PUBLIC_URL/);
+  });
+
   it('does not mutate the environment object it is given', () => {
     const env = { ...base, SESSION_SECRET: 'y'.repeat(40), PORT: '9000' };
     const copy = { ...env };
