@@ -1,7 +1,13 @@
 import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { PlanInputSchema, PlanListQuerySchema, PlanUpdateSchema, ReviewInputSchema } from '@/shared/schemas/plan';
+import {
+  PlanInputSchema,
+  PlanListQuerySchema,
+  PlanUpdateSchema,
+  ReviewInputSchema,
+  SubmitInputSchema,
+} from '@/shared/schemas/plan';
 import {
   createPlan,
   getPlan,
@@ -21,7 +27,6 @@ import type { Mailer } from '@/server/mail/mailer';
 
 const IdParams = z.object({ planId: z.uuid({ error: 'Not a plan id.' }) });
 const RevisionParams = IdParams.extend({ number: z.coerce.number().int().min(1, 'Revisions start at 1.') });
-const SubmitBody = z.object({ rowVersion: z.number({ error: 'Send the version you last saw.' }).int() });
 
 /** Coverage plans: planners prepare and submit, reviewers approve or return, observers read approved ones. */
 export function planRoutes(db: Sequelize, publicUrl: (req: Request) => string, mailer: Mailer | null) {
@@ -49,8 +54,7 @@ export function planRoutes(db: Sequelize, publicUrl: (req: Request) => string, m
   });
   router.post('/plans/:planId/submit', ...planner, async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');
-    const { rowVersion } = parseOrThrow(SubmitBody, req.body, 'submission');
-    res.json(await submitPlan(deps(req), actorOf(req), planId, rowVersion));
+    res.json(await submitPlan(deps(req), actorOf(req), planId, parseOrThrow(SubmitInputSchema, req.body, 'submission')));
   });
   router.post('/plans/:planId/reviews', requireUser, requireRole('reviewer'), async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');
