@@ -284,6 +284,11 @@ describe('coverage plan review cycle', () => {
     const plan = (await planner.post('/api/v1/plans').send(strict).expect(201)).body.plan;
     const run = await computeCoverage(plan.id);
     expect(run.cases.some((c: { check: { passed: boolean } }) => !c.check.passed)).toBe(true);
+    // Each listed blind area carries a point inside it for the map link, in grid metres and degrees.
+    const blind = run.cases.flatMap((c: { blindAreas: { interior?: { latDeg: number } }[] }) => c.blindAreas);
+    expect(blind.length).toBeGreaterThan(0);
+    for (const b of blind)
+      expect(b.interior).toEqual(expect.objectContaining({ latDeg: expect.any(Number), x: expect.any(Number) }));
 
     // Submitting without a note is refused on the note's field, and nothing is frozen.
     const bare = await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: plan.rowVersion });

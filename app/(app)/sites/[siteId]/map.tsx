@@ -15,6 +15,8 @@ const Params = z.object({
   /** A point to centre on and start the profile to (e.g. a blind area), degrees. */
   lat: z.coerce.number().min(-90).max(90).optional(),
   lon: z.coerce.number().min(-180).max(180).optional(),
+  /** `1`: the point is inside a blind area of the case; outline it. */
+  blind: z.literal('1').optional(),
 });
 
 export default function SiteMapRoute() {
@@ -28,10 +30,17 @@ export default function SiteMapRoute() {
       </Screen>
     );
   }
-  const { siteId, postId, runId, caseKey, lat, lon } = parsed.data;
+  const { siteId, postId, runId, caseKey, lat, lon, blind } = parsed.data;
   const at = lat !== undefined && lon !== undefined ? { latDeg: lat, lonDeg: lon } : null;
   return runId ? (
-    <RunMapScreen siteId={siteId} runId={runId} caseKey={caseKey ?? null} focusPostId={postId ?? null} focusAt={at} />
+    <RunMapScreen
+      siteId={siteId}
+      runId={runId}
+      caseKey={caseKey ?? null}
+      focusPostId={postId ?? null}
+      focusAt={at}
+      outlineBlindArea={blind === '1'}
+    />
   ) : (
     <SiteMapScreen siteId={siteId} focusPostId={postId ?? null} focusAt={at} />
   );
