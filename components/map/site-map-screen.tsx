@@ -26,6 +26,7 @@ import { ProfilePanel } from './profile-panel';
 import { createReadoutStore } from './readout-store';
 import { siteMapFrame, type SiteMapFrame } from './site-map-frame';
 import { Terrain3d } from './terrain-3d';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
 export interface SiteMapScreenProps {
   siteId: string;
@@ -263,6 +264,7 @@ function MapWorkspace({
 
   const toolbar = (
     <View style={styles.toolbar}>
+      <PageTitle title={documentTitle(`${site.name}: map`)} />
       <Pressable role="link" aria-label={`Back to ${site.name}`} onPress={back} style={styles.back}>
         <AppText variant="heading" tone="ember">
           ‹{wide ? ' Site' : ''}

@@ -1,5 +1,6 @@
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { AppText } from './app-text';
+import { documentTitle, PageTitle } from './page-title';
 import { colors, space } from './theme';
 import { useLayout } from './use-layout';
 
@@ -20,6 +21,7 @@ export function Screen({
   const { wide } = useLayout();
   return (
     <ScrollView style={styles.scroll} contentContainerStyle={[styles.content, { padding: wide ? space.xxl : space.lg }]}>
+      <PageTitle title={documentTitle(title)} />
       <View style={[styles.inner, { maxWidth }]}>
         <View style={styles.header}>
           <View style={{ flex: 1, gap: space.xs }}>

@@ -5,6 +5,7 @@ import { SiteMapScreen } from '@/components/map/site-map-screen';
 import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
 const Params = z.object({
   siteId: z.uuid(),
@@ -19,7 +20,7 @@ const Params = z.object({
   blind: z.literal('1').optional(),
 });
 
-export default function SiteMapRoute() {
+function SiteMapRouteContent() {
   const parsed = Params.safeParse(useLocalSearchParams());
   if (!parsed.success) {
     return (
@@ -43,5 +44,15 @@ export default function SiteMapRoute() {
     />
   ) : (
     <SiteMapScreen siteId={siteId} focusPostId={postId ?? null} focusAt={at} />
+  );
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function SiteMapRoute() {
+  return (
+    <>
+      <PageTitle title={documentTitle('Site map')} />
+      <SiteMapRouteContent />
+    </>
   );
 }
