@@ -124,8 +124,25 @@ function PlanPage({
       onError: (e) => setError(e.message),
     });
 
+  // The plan's next step; on a phone it stays in a bar at the bottom while the page scrolls.
+  const decisionButtons = [
+    isPlanner && editable ? <Button key="submit" label="Submit for review" onPress={askSubmit} busy={submit.isPending} /> : null,
+    isPlanner && plan.status === 'approved' ? (
+      <Button key="version" label="Start a new version" kind="secondary" onPress={onNewVersion} busy={newVersion.isPending} />
+    ) : null,
+    canReview ? (
+      <Button
+        key="review"
+        label="Review this plan"
+        onPress={() => router.navigate({ pathname: '/plans/[planId]/review', params: { planId: plan.id } })}
+      />
+    ) : null,
+  ].filter((b) => b !== null);
+  const decision = decisionButtons.length > 0 ? <>{decisionButtons}</> : null;
+
   return (
     <Screen
+      footer={wide ? undefined : decision}
       title={`${plan.title} · v${plan.version}`}
       subtitle={`${plan.siteName} · prepared by ${plan.preparedBy.name} · updated ${when(plan.updatedAt)}`}
       actions={<PlanStatusBadge status={plan.status} />}
@@ -182,24 +199,13 @@ function PlanPage({
 
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         {isPlanner && editable ? (
-          <>
-            <Button
-              label="Edit"
-              kind="secondary"
-              onPress={() => router.navigate({ pathname: '/plans/[planId]/edit', params: { planId: plan.id } })}
-            />
-            <Button label="Submit for review" onPress={askSubmit} busy={submit.isPending} />
-          </>
-        ) : null}
-        {isPlanner && plan.status === 'approved' ? (
-          <Button label="Start a new version" kind="secondary" onPress={onNewVersion} busy={newVersion.isPending} />
-        ) : null}
-        {canReview ? (
           <Button
-            label="Review this plan"
-            onPress={() => router.navigate({ pathname: '/plans/[planId]/review', params: { planId: plan.id } })}
+            label="Edit"
+            kind="secondary"
+            onPress={() => router.navigate({ pathname: '/plans/[planId]/edit', params: { planId: plan.id } })}
           />
         ) : null}
+        {wide ? decision : null}
         <Button
           label="Compare with…"
           kind="quiet"

@@ -73,14 +73,16 @@ export function ReviewPanel({ planId }: { planId: string }) {
     setCommentError('');
     setDialogError('');
     setJustificationError('');
-    if (decision === 'return' && comment.trim() === '') {
-      setCommentError('Say what needs to change before returning the plan.');
-      return;
-    }
     setAsking(decision);
   };
   const decide = (decision: 'approve' | 'return') => {
     setDialogError('');
+    setCommentError('');
+    setJustificationError('');
+    if (decision === 'return' && comment.trim() === '') {
+      setCommentError('Say what needs to change before returning the plan.');
+      return;
+    }
     const why = justification.trim();
     if (decision === 'approve' && failing && why === '') {
       setJustificationError('Write why this plan is approved although it does not meet its standard.');
@@ -98,53 +100,33 @@ export function ReviewPanel({ planId }: { planId: string }) {
             setJustificationError(e.fields.justification);
             setDialogError(e.message);
           } else if (e instanceof ApiRequestError && e.fields.comment) {
-            setAsking(null);
             setCommentError(e.fields.comment);
           } else setDialogError(e.message);
         },
       },
     );
   };
-
-  const inputs = (
+  const commentField = (hint: string) => (
+    <TextField
+      label="Comment"
+      hint={hint}
+      value={comment}
+      onChangeText={setComment}
+      error={commentError}
+      multiline
+      numberOfLines={4}
+      style={{ minHeight: 96, paddingTop: space.sm, textAlignVertical: 'top' }}
+    />
+  );
+  const decisionButtons = (
     <>
-      {revision.data.exceptionNote ? (
-        <Notice tone="caution" title={`Submitted as an exception by ${revision.data.submittedBy.name}`}>
-          <AppText>{revision.data.exceptionNote}</AppText>
-        </Notice>
-      ) : null}
-      <InputsPanel snapshot={snapshot} />
-      <AssumptionsPanel snapshot={snapshot} />
-      {previous.data ? (
-        <SnapshotDiffView diff={diffSnapshots(previous.data.snapshot, snapshot)} from={latest - 1} to={latest} />
-      ) : null}
+      <Button label={failing ? 'Approve as an exception' : 'Approve'} onPress={() => ask('approve')} />
+      <Button label="Return for changes" kind="secondary" onPress={() => ask('return')} />
     </>
   );
-  const results = (
+  // Both decisions are asked in a dialog that says what will happen; the comment is written there.
+  const dialogs = open ? (
     <>
-      <SnapshotCautions snapshot={snapshot} />
-      <PlanCoveragePanel planId={p.id} siteId={p.siteId} editable={false} canRun={false} frozen={snapshot.coverage} />
-      <PlanResults snapshot={snapshot} units={unitsOf(snapshot)} />
-    </>
-  );
-  const decision = open ? (
-    <Card accent="ember" style={{ gap: space.md }}>
-      <AppText variant="heading">Your decision on revision {latest}</AppText>
-      <FormError message={formError} />
-      <TextField
-        label="Comment"
-        hint="Required when you return the plan; kept with the revision in the plan's history."
-        value={comment}
-        onChangeText={setComment}
-        error={commentError}
-        multiline
-        numberOfLines={4}
-        style={{ minHeight: 96, paddingTop: space.sm, textAlignVertical: 'top' }}
-      />
-      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button label={failing ? 'Approve as an exception' : 'Approve'} onPress={() => ask('approve')} />
-        <Button label="Return for changes" kind="secondary" onPress={() => ask('return')} />
-      </View>
       <ConfirmDialog
         visible={asking === 'approve'}
         title={failing ? 'Approve as an exception?' : `Approve revision ${latest}?`}
@@ -172,6 +154,7 @@ export function ReviewPanel({ planId }: { planId: string }) {
             style={{ minHeight: 96, paddingTop: space.sm, textAlignVertical: 'top' }}
           />
         ) : null}
+        {commentField('Optional; kept with the revision in the plan’s history.')}
       </ConfirmDialog>
       <ConfirmDialog
         visible={asking === 'return'}
@@ -183,12 +166,52 @@ export function ReviewPanel({ planId }: { planId: string }) {
         onConfirm={() => decide('return')}
         onCancel={() => setAsking(null)}
       >
-        <Notice tone="info" title="Your comment">
-          <AppText variant="small">{comment.trim()}</AppText>
-        </Notice>
+        {commentField('Say what needs to change; kept with the revision in the plan’s history.')}
       </ConfirmDialog>
+    </>
+  ) : null;
+
+  const inputs = (
+    <>
+      {revision.data.exceptionNote ? (
+        <Notice tone="caution" title={`Submitted as an exception by ${revision.data.submittedBy.name}`}>
+          <AppText>{revision.data.exceptionNote}</AppText>
+        </Notice>
+      ) : null}
+      <InputsPanel snapshot={snapshot} />
+      <AssumptionsPanel snapshot={snapshot} />
+      {previous.data ? (
+        <SnapshotDiffView diff={diffSnapshots(previous.data.snapshot, snapshot)} from={latest - 1} to={latest} />
+      ) : null}
+    </>
+  );
+  const results = (
+    <>
+      <SnapshotCautions snapshot={snapshot} />
+      <PlanCoveragePanel planId={p.id} siteId={p.siteId} editable={false} canRun={false} frozen={snapshot.coverage} />
+      <PlanResults snapshot={snapshot} units={unitsOf(snapshot)} />
+    </>
+  );
+  const decision = open ? (
+    <Card accent="ember" style={{ gap: space.md }}>
+      <AppText variant="heading">Your decision on revision {latest}</AppText>
+      <AppText variant="small" tone="muted">
+        Approving or returning asks once more and says what will happen; your comment is written there.
+      </AppText>
+      <FormError message={formError} />
+      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>{decisionButtons}</View>
     </Card>
   ) : null;
+  // On a phone the decision stays at the bottom of the screen while the revision scrolls above it.
+  const footer =
+    open && !wide ? (
+      <>
+        <AppText variant="label" style={{ flexBasis: '100%' }}>
+          Your decision on revision {latest}
+        </AppText>
+        {decisionButtons}
+      </>
+    ) : undefined;
 
   return (
     <Screen
@@ -196,7 +219,9 @@ export function ReviewPanel({ planId }: { planId: string }) {
       subtitle={`${p.siteName} · revision ${latest} submitted by ${revision.data.submittedBy.name}, ${when(revision.data.submittedAt)}`}
       actions={<PlanStatusBadge status={p.status} />}
       maxWidth={1400}
+      footer={footer}
     >
+      {dialogs}
       {!open ? (
         <Notice tone="caution">
           <AppText>
@@ -222,7 +247,6 @@ export function ReviewPanel({ planId }: { planId: string }) {
         <>
           {results}
           {inputs}
-          {decision}
         </>
       )}
     </Screen>

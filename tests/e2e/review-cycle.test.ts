@@ -119,12 +119,19 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])(
         await r.getByRole('button', { name: 'Review this plan' }).click();
         await r.getByText('Your decision on revision 1').waitFor();
         await shot(r, 'cycle-review-1', viewport);
-        await r.getByRole('button', { name: 'Return for changes' }).click();
-        await r.getByText('Say what needs to change before returning the plan.').waitFor();
-        await r.getByLabel('Comment').fill('Add the small open boat as a second target.');
+        if (viewport === 'phone') {
+          // On a phone the decision stays in a bar at the bottom of the screen, in view without scrolling.
+          const bar = r.getByRole('toolbar', { name: 'Page actions' });
+          const box = (await bar.boundingBox())!;
+          expect(box.y + box.height).toBeLessThanOrEqual(VIEWPORTS.phone.height);
+          expect(box.y).toBeGreaterThan(VIEWPORTS.phone.height / 2);
+        }
         await r.getByRole('button', { name: 'Return for changes' }).click();
         const returnDialog = r.getByRole('dialog', { name: 'Return for changes?' });
-        await returnDialog.getByText('Add the small open boat as a second target.').waitFor();
+        await returnDialog.getByRole('button', { name: 'Return for changes' }).click();
+        await returnDialog.getByText('Say what needs to change before returning the plan.').waitFor();
+        await returnDialog.getByLabel('Comment').fill('Add the small open boat as a second target.');
+        await shot(r, 'cycle-return-dialog', viewport);
         await returnDialog.getByRole('button', { name: 'Return for changes' }).click();
         await r.getByText('Returned', { exact: true }).waitFor();
 
