@@ -1,4 +1,11 @@
-import { buildRequest, DEFAULT_FORM, switchUnits, type CheckFormValues } from '@/components/check/check-form-model';
+import {
+  buildRequest,
+  convertedText,
+  DEFAULT_FORM,
+  significantDigits,
+  switchUnits,
+  type CheckFormValues,
+} from '@/components/check/check-form-model';
 
 const label = (id: string) => `label:${id}`;
 
@@ -48,10 +55,35 @@ describe('switchUnits', () => {
   it('keeps the question the same when the units change', () => {
     const ft = switchUnits(DEFAULT_FORM, 'imperial');
     // Source: 30 m = 98.4252 ft; 25 km = 15.5343 statute miles (international definitions).
-    expect(Number(ft.observerHeight)).toBeCloseTo(98.4252, 3);
-    expect(Number(ft.distance)).toBeCloseTo(15.5343, 3);
+    // Shown to three significant digits: 98.4 ft, 15.5 mi.
+    expect(Number(ft.observerHeight)).toBeCloseTo(98.4252, 1);
+    expect(Number(ft.distance)).toBeCloseTo(15.5343, 1);
     const back = switchUnits(ft, 'metric');
-    expect(Number(back.observerHeight)).toBeCloseTo(30, 3);
-    expect(Number(back.distance)).toBeCloseTo(25, 3);
+    // Switching back gives the typed text back exactly.
+    expect(back.observerHeight).toBe('30');
+    expect(back.distance).toBe('25');
+  });
+
+  it('rounds converted values to the precision typed, at least three significant digits (no "984.252 ft")', () => {
+    // Source: 1 ft = 0.3048 m exactly, 1 nmi = 1852 m exactly (international definitions).
+    const ft = switchUnits({ ...DEFAULT_FORM, observerHeight: '300', targetHeight: '1.75', distance: '1234.5' }, 'nautical');
+    expect(ft.observerHeight).toBe('984'); // 984.252 ft
+    expect(ft.targetHeight).toBe('5.74'); // 5.7415 ft
+    expect(ft.distance).toBe('666.58'); // 1234.5 km = 666.577 nmi, five digits as typed
+  });
+
+  it('converts again from an edited field instead of restoring the old text', () => {
+    const ft = switchUnits(DEFAULT_FORM, 'imperial');
+    const back = switchUnits({ ...ft, observerHeight: '100' }, 'metric');
+    expect(back.observerHeight).toBe('30.5'); // 100 ft = 30.48 m
+    expect(back.targetHeight).toBe('10');
+  });
+
+  it('counts significant digits as typed', () => {
+    expect(significantDigits('300')).toBe(1);
+    expect(significantDigits('300.0')).toBe(4);
+    expect(significantDigits('0.050')).toBe(2);
+    expect(significantDigits('-12.5')).toBe(3);
+    expect(convertedText(984.2519685, '300')).toBe('984');
   });
 });
