@@ -197,3 +197,78 @@ export function switchUnits(v: CheckFormValues, units: UnitSystem): CheckFormVal
   const typed = Object.fromEntries(LENGTH_FIELDS.map((f) => [f, v[f]])) as Record<LengthField, string>;
   return { ...v, ...next, units, beforeSwitch: { units: v.units, typed, shown: next } };
 }
+
+/** A length from the library (metres) as text in the form's unit. */
+function fromMetres(metres: number, unit: LengthUnit): string {
+  return convertedText(convertLength(metres, 'm', unit), String(metres));
+}
+
+/** A target of the organisation's library, as the quick check needs it. */
+export interface LibraryTarget {
+  heightM: number;
+  widthM: number;
+  requiredVisibleM: number;
+}
+
+/** Fills the target's height, width and the part that must show from a library target, in the form's units. */
+export function applyLibraryTarget(v: CheckFormValues, target: LibraryTarget): CheckFormValues {
+  const { height } = UNIT_SYSTEMS[v.units];
+  return {
+    ...v,
+    targetHeight: fromMetres(target.heightM, height),
+    targetSize: fromMetres(target.widthM, height),
+    requiredVisible: fromMetres(target.requiredVisibleM, height),
+    beforeSwitch: undefined,
+  };
+}
+
+/** A condition set of the organisation's library, as the quick check needs it. */
+export interface LibraryConditionSet {
+  conditions: Record<string, number | string>[];
+  visibilityM: number | null;
+  visibilityKind: CheckFormValues['visibilityKind'];
+}
+
+/**
+ * Takes a library condition set's refraction conditions and visibility into
+ * the form: presets as presets, the first k as the custom k, the first lapse
+ * rate as the weather. `left` counts conditions the quick check has no field
+ * for (a second k, temperature pairs), which are left out.
+ */
+export function applyLibraryConditionSet(v: CheckFormValues, set: LibraryConditionSet): { form: CheckFormValues; left: number } {
+  const presets: RefractionPresetId[] = [];
+  let customK = '';
+  let weather = { ...v.weather, enabled: false };
+  let left = 0;
+  for (const c of set.conditions) {
+    if (typeof c.preset === 'string') {
+      if (!presets.includes(c.preset as RefractionPresetId)) presets.push(c.preset as RefractionPresetId);
+    } else if (typeof c.k === 'number' && customK === '') customK = String(c.k);
+    else if (
+      typeof c.pressureHpa === 'number' &&
+      typeof c.temperatureC === 'number' &&
+      typeof c.lapseRateKPerM === 'number' &&
+      !weather.enabled
+    ) {
+      weather = {
+        enabled: true,
+        pressureHpa: String(c.pressureHpa),
+        temperatureC: String(c.temperatureC),
+        lapseRateKPerM: String(c.lapseRateKPerM),
+      };
+    } else left++;
+  }
+  const { distance } = UNIT_SYSTEMS[v.units];
+  return {
+    form: {
+      ...v,
+      presets,
+      customK,
+      weather,
+      visibility: set.visibilityM === null ? '' : fromMetres(set.visibilityM, distance),
+      visibilityKind: set.visibilityKind,
+      beforeSwitch: undefined,
+    },
+    left,
+  };
+}

@@ -1,4 +1,6 @@
 import {
+  applyLibraryConditionSet,
+  applyLibraryTarget,
   buildRequest,
   convertedText,
   DEFAULT_FORM,
@@ -85,5 +87,43 @@ describe('switchUnits', () => {
     expect(significantDigits('0.050')).toBe(2);
     expect(significantDigits('-12.5')).toBe(3);
     expect(convertedText(984.2519685, '300')).toBe('984');
+  });
+});
+
+describe('library picks', () => {
+  it('fills the target from a library entry in the form’s units, rounded sensibly', () => {
+    // Source: 1 ft = 0.3048 m exactly; 30 m = 98.4 ft, 8 m = 26.2 ft (three significant digits).
+    const ft = applyLibraryTarget(switchUnits(DEFAULT_FORM, 'nautical'), { heightM: 30, widthM: 8, requiredVisibleM: 0 });
+    expect([ft.targetHeight, ft.targetSize, ft.requiredVisible]).toEqual(['98.4', '26.2', '0']);
+    const m = applyLibraryTarget(DEFAULT_FORM, { heightM: 1.2, widthM: 0.5, requiredVisibleM: 0.3 });
+    expect([m.targetHeight, m.targetSize, m.requiredVisible]).toEqual(['1.2', '0.5', '0.3']);
+    expect(buildRequest(m, label)).toHaveProperty('request');
+  });
+
+  it('takes a condition set’s presets, first k, first lapse rate and visibility, and counts what it leaves out', () => {
+    const { form, left } = applyLibraryConditionSet(DEFAULT_FORM, {
+      conditions: [
+        { preset: 'standard-optical' },
+        { k: 0.25 },
+        { k: -0.5 },
+        { pressureHpa: 1013, temperatureC: 20, lapseRateKPerM: 0.01 },
+        { airTemperatureC: 20, surfaceTemperatureC: 12, airHeightM: 10, surfaceHeightM: 0 },
+      ],
+      visibilityM: 18_520,
+      visibilityKind: 'meteorological-range-2pct',
+    });
+    expect(form.presets).toEqual(['standard-optical']);
+    expect(form.customK).toBe('0.25');
+    expect(form.weather).toEqual({ enabled: true, pressureHpa: '1013', temperatureC: '20', lapseRateKPerM: '0.01' });
+    expect(form.visibility).toBe('18.52'); // km, as precise as the stored 18 520 m
+    expect(form.visibilityKind).toBe('meteorological-range-2pct');
+    expect(left).toBe(2);
+    const none = applyLibraryConditionSet(DEFAULT_FORM, {
+      conditions: [{ preset: 'no-refraction' }],
+      visibilityM: null,
+      visibilityKind: 'mor-5pct',
+    });
+    expect(none.form.visibility).toBe('');
+    expect(none.form.weather.enabled).toBe(false);
   });
 });
