@@ -167,7 +167,10 @@ function PlanPage({
             label="Exception note"
             hint="Why the reviewers should consider it anyway. Frozen with the revision and shown in the plan's history."
             value={exceptionNote}
-            onChangeText={setExceptionNote}
+            onChangeText={(text) => {
+              setExceptionNote(text);
+              setNoteError('');
+            }}
             error={noteError}
             multiline
             numberOfLines={4}

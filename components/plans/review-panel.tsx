@@ -111,7 +111,10 @@ export function ReviewPanel({ planId }: { planId: string }) {
       label="Comment"
       hint={hint}
       value={comment}
-      onChangeText={setComment}
+      onChangeText={(text) => {
+        setComment(text);
+        setCommentError('');
+      }}
       error={commentError}
       multiline
       numberOfLines={4}
@@ -147,7 +150,10 @@ export function ReviewPanel({ planId }: { planId: string }) {
             label="Justification"
             hint="Why the plan is approved although it does not meet its standard. Frozen with your decision and shown in the history."
             value={justification}
-            onChangeText={setJustification}
+            onChangeText={(text) => {
+              setJustification(text);
+              setJustificationError('');
+            }}
             error={justificationError}
             multiline
             numberOfLines={4}

@@ -46,7 +46,7 @@ export function ConfirmDialog({
   children,
 }: ConfirmDialogProps) {
   return (
-    <Modal visible={visible} transparent animationType="fade" onRequestClose={onCancel}>
+    <Modal visible={visible} transparent animationType="none" onRequestClose={onCancel}>
       <View style={styles.backdrop}>
         <View style={styles.sheet} role="dialog" aria-modal aria-label={title}>
           <ScrollView contentContainerStyle={styles.body}>

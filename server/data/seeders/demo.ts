@@ -348,7 +348,7 @@ async function seedLibraries(db: Sequelize): Promise<boolean> {
 
 /** The first three failing rules in words, for a demo exception note. */
 function shortfallLines(verdict: StandardVerdict): string {
-  const lines = verdict.failing.slice(0, 3).map(failingRuleLine);
+  const lines = verdict.failing.slice(0, 3).map((r) => failingRuleLine(r).replace(/\.$/, ''));
   const more = verdict.failing.length - lines.length;
   return lines.join('; ') + (more > 0 ? `; and ${more} more` : '');
 }
