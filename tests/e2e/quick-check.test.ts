@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 import { SCREENSHOT_DIR } from '@/tests/support/browser';
 
@@ -55,7 +55,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
       await shot(page, 'quick-check-library-ft', viewport);
       await page.getByRole('radiogroup', { name: 'Units' }).getByRole('radio', { name: 'm · km' }).click();
       expect(await page.getByLabel('Height of eye').inputValue()).toBe('30');
+      // Back to the default target for what follows.
       await page.getByLabel('Target height').fill('10');
+      await page.getByLabel('Target size').fill('3');
+      await page.getByLabel('Part that must show').fill('0');
       const side = page.getByRole('img', { name: /Side view/ });
       await side.scrollIntoViewIfNeeded();
       await page.getByText(/Vertical scale exaggerated/).waitFor();
