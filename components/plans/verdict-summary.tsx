@@ -16,7 +16,7 @@ export function VerdictSummary({ verdict }: { verdict: StandardVerdict | null })
     return (
       <Notice tone="caution" title="Standard not checked">
         <AppText variant="small">
-          No terrain coverage was computed for these inputs, so the coverage standard was not checked.
+          No coverage run was computed for these inputs, so the coverage standard was not checked.
         </AppText>
       </Notice>
     );
