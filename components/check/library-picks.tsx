@@ -51,7 +51,7 @@ export function LibraryPicks({
 function Row({ label, children }: { label: string; children: React.ReactNode }) {
   return (
     <ScrollView horizontal showsHorizontalScrollIndicator={false} style={{ flexGrow: 0 }}>
-      <View role="radiogroup" aria-label={label} style={{ flexDirection: 'row', gap: space.xs }}>
+      <View role="group" aria-label={label} style={{ flexDirection: 'row', gap: space.xs }}>
         {children}
       </View>
     </ScrollView>

@@ -47,7 +47,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
         heightM: number;
       }[];
       const smoke = targets.find((t) => t.name === 'Early smoke column')!;
-      await page.getByRole('radiogroup', { name: 'Library targets' }).getByRole('radio', { name: smoke.name }).click();
+      await page.getByRole('group', { name: 'Library targets' }).getByRole('checkbox', { name: smoke.name }).click();
       expect(Number(await page.getByLabel('Target height').inputValue())).toBe(smoke.heightM);
       await page.getByRole('radiogroup', { name: 'Units' }).getByRole('radio', { name: 'ft · nmi' }).click();
       // Source: 30 m = 98.425 ft (1 ft = 0.3048 m exactly), shown to three significant digits.
