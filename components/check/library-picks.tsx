@@ -30,14 +30,14 @@ export function LibraryPicks({
     <View style={{ gap: space.sm }} aria-label="From your library">
       <AppText variant="label">From your library</AppText>
       {targetItems.length > 0 ? (
-        <Row label="Library targets">
+        <Row label="Library targets" title="Targets">
           {targetItems.map((t) => (
             <Chip key={t.id} label={t.name} on={t.id === targetId} onPress={() => onTarget(t)} />
           ))}
         </Row>
       ) : null}
       {setItems.length > 0 ? (
-        <Row label="Library condition sets">
+        <Row label="Library condition sets" title="Conditions">
           {setItems.map((s) => (
             <Chip key={s.id} label={s.name} on={s.id === conditionSetId} onPress={() => onConditionSet(s)} />
           ))}
@@ -48,12 +48,17 @@ export function LibraryPicks({
 }
 
 /** One line of chips that scrolls sideways on a phone. */
-function Row({ label, children }: { label: string; children: React.ReactNode }) {
+function Row({ label, title, children }: { label: string; title: string; children: React.ReactNode }) {
   return (
-    <ScrollView horizontal showsHorizontalScrollIndicator={false} style={{ flexGrow: 0 }}>
-      <View role="group" aria-label={label} style={{ flexDirection: 'row', gap: space.xs }}>
-        {children}
-      </View>
-    </ScrollView>
+    <View style={{ gap: 2 }}>
+      <AppText variant="small" tone="muted">
+        {title}
+      </AppText>
+      <ScrollView horizontal showsHorizontalScrollIndicator={false} style={{ flexGrow: 0 }}>
+        <View role="group" aria-label={label} style={{ flexDirection: 'row', gap: space.xs }}>
+          {children}
+        </View>
+      </ScrollView>
+    </View>
   );
 }
