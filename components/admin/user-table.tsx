@@ -26,15 +26,18 @@ const ROLE_POWERS: Record<ManagedUser['role'], string> = {
   observer: 'read sites and approved plans, without changing anything',
 };
 
+const article = (word: string) => (/^[aeiou]/i.test(word) ? 'an' : 'a');
+
 /** The dialog's words for a role change or a deactivation. */
 function confirmText(u: ManagedUser, changes: Changes) {
   if (changes.role) {
+    const to = changes.role;
     return {
-      title: `Make ${u.name} ${changes.role === 'admin' ? 'an' : 'a'} ${changes.role}?`,
+      title: `Make ${u.name} ${article(to)} ${to}?`,
       consequence:
-        `${u.name} is ${u.role === 'admin' ? 'an' : 'a'} ${u.role} now. As ${changes.role === 'admin' ? 'an' : 'a'} ${changes.role} ` +
-        `they can ${ROLE_POWERS[changes.role]}, from their next step in Kenning; what they could do as ${u.role === 'admin' ? 'an' : 'a'} ${u.role} and no longer can stops at once.`,
-      confirmLabel: `Make ${changes.role}`,
+        `${u.name} is ${article(u.role)} ${u.role} now. As ${article(to)} ${to} they can ${ROLE_POWERS[to]}. ` +
+        'The change applies from their next step in Kenning.',
+      confirmLabel: `Make ${to}`,
       tone: 'primary' as const,
     };
   }
