@@ -94,7 +94,7 @@ describe('the demo scenario', () => {
     expect(revision.verdict.failing.map((r: { ruleId: string }) => r.ruleId)).toContain('site-seen');
     expect(revision.exceptionNote).toMatch(/Short of the standard/);
     expect(review.decision).toBe('approve');
-    expect(review.justification).toMatch(/exception/);
+    expect(review.justification).toMatch(/season only/);
     expect(review.comment).not.toMatch(/meets/i);
   });
 

@@ -420,7 +420,7 @@ async function seedDemoPlans(db: Sequelize, files?: FileStore): Promise<boolean>
       revision: s1.revision,
       ...(!seasonVerdict.passed && {
         justification:
-          'Approved as an exception for the 2026 season: no other tower can be staffed before the season opens, and ' +
+          'For the 2026 season only: no other tower can be staffed before the season opens, and ' +
           'the unseen ground is to be covered by patrols on high-danger days as the district procedures say. ' +
           'To be reviewed again when the Blackmoss tower proposal is decided.',
       }),
