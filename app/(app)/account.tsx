@@ -1,5 +1,16 @@
 import { AccountPanel } from '@/components/auth/account-panel';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
-export default function AccountScreen() {
+function AccountScreenContent() {
   return <AccountPanel />;
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function AccountScreen() {
+  return (
+    <>
+      <PageTitle title={documentTitle('Your account')} />
+      <AccountScreenContent />
+    </>
+  );
 }

@@ -1,5 +1,16 @@
 import { QuickCheck } from '@/components/check/quick-check';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
-export default function QuickCheckScreen() {
+function QuickCheckScreenContent() {
   return <QuickCheck />;
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function QuickCheckScreen() {
+  return (
+    <>
+      <PageTitle title={documentTitle('Quick check')} />
+      <QuickCheckScreenContent />
+    </>
+  );
 }

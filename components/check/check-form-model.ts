@@ -33,6 +33,40 @@ export interface CheckFormValues {
   presets: RefractionPresetId[];
   customK: string;
   weather: { enabled: boolean; pressureHpa: string; temperatureC: string; lapseRateKPerM: string };
+  /**
+   * What was typed before the last unit switch and what the switch showed:
+   * switching back gives the typed text back unchanged where it was not edited.
+   */
+  beforeSwitch?: { units: UnitSystem; typed: Record<LengthField, string>; shown: Record<LengthField, string> };
+}
+
+/** The fields typed as lengths, converted when the units change. */
+const LENGTH_FIELDS = [
+  'observerHeight',
+  'targetHeight',
+  'requiredVisible',
+  'targetSize',
+  'waveHeight',
+  'distance',
+  'visibility',
+] as const;
+type LengthField = (typeof LENGTH_FIELDS)[number];
+
+/** Significant digits of a typed number, leading zeros and an integer's trailing zeros left out ("300" → 1, "0.050" → 2). */
+export function significantDigits(text: string): number {
+  const t = text.trim().replace(/^[-+]/, '').replace(/e.*$/i, '');
+  const digits = t.replace('.', '').replace(/^0+/, '');
+  const kept = t.includes('.') ? digits : digits.replace(/0+$/, '');
+  return Math.max(kept.length, 1);
+}
+
+/**
+ * A converted length as text, as precise as what was typed but never below
+ * three significant digits: 300 m → "984" ft, 1.75 m → "5.74" ft, 1234.5 m →
+ * "4050.2" ft (no "984.252").
+ */
+export function convertedText(value: number, typed: string): string {
+  return String(Number(value.toPrecision(Math.min(15, Math.max(3, significantDigits(typed))))));
 }
 
 export const DEFAULT_FORM: CheckFormValues = {
@@ -169,25 +203,114 @@ export function buildRequest(
   return { request: parsed.data, labels };
 }
 
-/** Switches unit system, converting what was typed so the question stays the same. */
+/**
+ * Switches unit system, converting what was typed so the question stays the
+ * same (rounded to the precision typed); switching back restores the text
+ * typed before, where it was not edited in between.
+ */
 export function switchUnits(v: CheckFormValues, units: UnitSystem): CheckFormValues {
+  if (units === v.units) return v;
   const from = UNIT_SYSTEMS[v.units];
   const to = UNIT_SYSTEMS[units];
-  const conv = (text: string, a: LengthUnit, b: LengthUnit) => {
+  const unitOf = (field: LengthField) =>
+    field === 'distance' || field === 'visibility'
+      ? ([from.distance, to.distance] as const)
+      : ([from.height, to.height] as const);
+  const back = v.beforeSwitch?.units === units ? v.beforeSwitch : null;
+  const next = {} as Record<LengthField, string>;
+  for (const field of LENGTH_FIELDS) {
+    const text = v[field];
+    const [a, b] = unitOf(field);
     const n = number(text);
-    if (n == null || a === b) return text;
-    const c = convertLength(n, a, b);
-    return String(Number(c.toPrecision(6)));
-  };
+    if (back && back.shown[field] === text) next[field] = back.typed[field];
+    else if (n == null || a === b) next[field] = text;
+    else next[field] = convertedText(convertLength(n, a, b), text);
+  }
+  const typed = Object.fromEntries(LENGTH_FIELDS.map((f) => [f, v[f]])) as Record<LengthField, string>;
+  return { ...v, ...next, units, beforeSwitch: { units: v.units, typed, shown: next } };
+}
+
+/** A length from the library (metres) as text in the form's unit. */
+function fromMetres(metres: number, unit: LengthUnit): string {
+  return convertedText(convertLength(metres, 'm', unit), String(metres));
+}
+
+/** A target of the organisation's library, as the quick check needs it. */
+export interface LibraryTarget {
+  heightM: number;
+  widthM: number;
+  requiredVisibleM: number;
+  period?: 'day' | 'night';
+  lightIntensityCd?: number | null;
+}
+
+/** Fills the target's height, width and the part that must show from a library target, in the form's units. */
+export function applyLibraryTarget(v: CheckFormValues, target: LibraryTarget): CheckFormValues {
+  const { height } = UNIT_SYSTEMS[v.units];
   return {
     ...v,
-    units,
-    observerHeight: conv(v.observerHeight, from.height, to.height),
-    targetHeight: conv(v.targetHeight, from.height, to.height),
-    requiredVisible: conv(v.requiredVisible, from.height, to.height),
-    targetSize: conv(v.targetSize, from.height, to.height),
-    waveHeight: conv(v.waveHeight, from.height, to.height),
-    distance: conv(v.distance, from.distance, to.distance),
-    visibility: conv(v.visibility, from.distance, to.distance),
+    targetHeight: fromMetres(target.heightM, height),
+    targetSize: fromMetres(target.widthM, height),
+    requiredVisible: fromMetres(target.requiredVisibleM, height),
+    period: target.period ?? v.period,
+    lightIntensity: target.lightIntensityCd == null ? '' : String(target.lightIntensityCd),
+    beforeSwitch: undefined,
+  };
+}
+
+/** A condition set of the organisation's library, as the quick check needs it. */
+export interface LibraryConditionSet {
+  conditions: Record<string, number | string>[];
+  visibilityM: number | null;
+  visibilityKind: CheckFormValues['visibilityKind'];
+  seaState?: number | null;
+  significantWaveHeightM?: number | null;
+  backgroundLighting?: CheckFormValues['backgroundLighting'];
+}
+
+/**
+ * Takes a library condition set's refraction conditions and visibility into
+ * the form: presets as presets, the first k as the custom k, the first lapse
+ * rate as the weather. `left` counts conditions the quick check has no field
+ * for (a second k, temperature pairs), which are left out.
+ */
+export function applyLibraryConditionSet(v: CheckFormValues, set: LibraryConditionSet): { form: CheckFormValues; left: number } {
+  const presets: RefractionPresetId[] = [];
+  let customK = '';
+  let weather = { ...v.weather, enabled: false };
+  let left = 0;
+  for (const c of set.conditions) {
+    if (typeof c.preset === 'string') {
+      if (!presets.includes(c.preset as RefractionPresetId)) presets.push(c.preset as RefractionPresetId);
+    } else if (typeof c.k === 'number' && customK === '') customK = String(c.k);
+    else if (
+      typeof c.pressureHpa === 'number' &&
+      typeof c.temperatureC === 'number' &&
+      typeof c.lapseRateKPerM === 'number' &&
+      !weather.enabled
+    ) {
+      weather = {
+        enabled: true,
+        pressureHpa: String(c.pressureHpa),
+        temperatureC: String(c.temperatureC),
+        lapseRateKPerM: String(c.lapseRateKPerM),
+      };
+    } else left++;
+  }
+  const { distance } = UNIT_SYSTEMS[v.units];
+  return {
+    form: {
+      ...v,
+      presets,
+      customK,
+      weather,
+      visibility: set.visibilityM === null ? '' : fromMetres(set.visibilityM, distance),
+      visibilityKind: set.visibilityKind,
+      seaState: set.seaState == null ? '' : String(set.seaState),
+      waveHeight: set.significantWaveHeightM == null ? '' : fromMetres(set.significantWaveHeightM, UNIT_SYSTEMS[v.units].height),
+      backgroundLighting: set.backgroundLighting ?? 'none',
+      beforeSwitch: undefined,
+    },
+    left,
   };
 }

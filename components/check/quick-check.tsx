@@ -12,6 +12,8 @@ import { TextField } from '@/components/ui/text-field';
 import { colors, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import {
+  applyLibraryConditionSet,
+  applyLibraryTarget,
   buildRequest,
   DEFAULT_FORM,
   switchUnits,
@@ -29,6 +31,7 @@ import { ResultsTable } from './results-table';
 import { LookoutView } from './lookout-view';
 import { Sightline3d } from './sightline-3d';
 import { Segmented } from './unit-switch';
+import { LibraryPicks } from './library-picks';
 
 const presetLabel = (id: Parameters<typeof refractionPreset>[0]) => refractionPreset(id).label;
 
@@ -51,13 +54,45 @@ export function QuickCheck() {
   const settled = useSettled(valid);
   const evaluation = useSightline(settled?.request ?? null, settled?.labels ?? []);
   const units = UNIT_SYSTEMS[form.units];
+  // The library entries last taken into the form; typing in one of their fields lets go of the pick.
+  const [picked, setPicked] = useState<{ targetId: string | null; setId: string | null; left: number }>({
+    targetId: null,
+    setId: null,
+    left: 0,
+  });
+  const TARGET_FIELDS: (keyof CheckFormValues)[] = ['targetHeight', 'targetSize', 'requiredVisible'];
+  const SET_FIELDS: (keyof CheckFormValues)[] = ['presets', 'customK', 'weather', 'visibility', 'visibilityKind'];
   const set =
     <K extends keyof CheckFormValues>(key: K) =>
-    (value: CheckFormValues[K]) =>
+    (value: CheckFormValues[K]) => {
       setForm((f) => ({ ...f, [key]: value }));
+      if (TARGET_FIELDS.includes(key)) setPicked((p) => ({ ...p, targetId: null }));
+      if (SET_FIELDS.includes(key)) setPicked((p) => ({ ...p, setId: null, left: 0 }));
+    };
 
   const formPane = (
     <Card style={{ gap: space.lg }}>
+      <LibraryPicks
+        targetId={picked.targetId}
+        conditionSetId={picked.setId}
+        onTarget={(t) => {
+          setForm((f) => applyLibraryTarget(f, t));
+          setPicked((p) => ({ ...p, targetId: t.id }));
+        }}
+        onConditionSet={(c) => {
+          const { form: next, left } = applyLibraryConditionSet(form, c);
+          setForm(next);
+          setPicked((p) => ({ ...p, setId: c.id, left }));
+        }}
+      />
+      {picked.setId && picked.left > 0 ? (
+        <Notice tone="caution">
+          <AppText variant="small">
+            {picked.left} condition{picked.left === 1 ? '' : 's'} of that set cannot be entered here (the quick check takes the
+            presets, one k and one lapse rate); plans use the whole set.
+          </AppText>
+        </Notice>
+      ) : null}
       <Segmented<UnitSystem>
         label="Units"
         value={form.units}

@@ -1,4 +1,4 @@
-import { ScrollView, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import type { SightlineResult } from '@/shared/schemas/sightline';
 import { horizonApproxRelativeError } from '@/shared/sightline/horizon-approx-relative-error';
 import type { LengthUnit } from '@/shared/units/length';
@@ -7,6 +7,7 @@ import { tableStyles } from '@/components/ui/table-styles';
 import { colors } from '@/components/ui/theme';
 import type { ConditionLabel } from './check-form-model';
 import { formatAngle, formatLength, LIMIT_LABELS, REGIME_LABELS } from './format';
+import { HorizontalScrollCue } from '@/components/ui/scroll-cue';
 
 interface Row {
   label: string;
@@ -84,7 +85,7 @@ export function ResultsTable({
     },
   ];
   return (
-    <ScrollView horizontal contentContainerStyle={{ minWidth: '100%' }}>
+    <HorizontalScrollCue label="conditions">
       <View style={styles.table} role="table" aria-label="Sightline results">
         <View style={[styles.tr, styles.head]} role="row">
           <View style={[styles.th, styles.labelCol]} role="columnheader">
@@ -118,7 +119,7 @@ export function ResultsTable({
           </View>
         ))}
       </View>
-    </ScrollView>
+    </HorizontalScrollCue>
   );
 }
 

@@ -107,12 +107,12 @@ export const useUpdatePlan = (id: string) =>
   );
 
 export const useSubmitPlan = (id: string) =>
-  usePlanMutation((rowVersion: number) =>
-    api.post(`/v1/plans/${id}/submit`, { rowVersion }, PlanBody.extend({ revision: z.number().int(), mailed: z.boolean() })),
+  usePlanMutation((input: { rowVersion: number; exceptionNote?: string }) =>
+    api.post(`/v1/plans/${id}/submit`, input, PlanBody.extend({ revision: z.number().int(), mailed: z.boolean() })),
   );
 
 export const useReviewPlan = (id: string) =>
-  usePlanMutation((review: { decision: 'approve' | 'return'; comment: string; revision: number }) =>
+  usePlanMutation((review: { decision: 'approve' | 'return'; comment: string; revision: number; justification?: string }) =>
     api.post(`/v1/plans/${id}/reviews`, review, PlanBody.extend({ mailed: z.boolean() })),
   );
 

@@ -1,12 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import {
-  AssignmentSchema,
-  BriefingSchema,
-  PeopleSchema,
-  RosterSchema,
-  type AssignmentInput,
-} from '@/shared/schemas/assignment';
+import { AssignmentSchema, BriefingSchema, PeopleSchema, RosterSchema, type AssignmentInput } from '@/shared/schemas/assignment';
 import { api } from './api-client';
 import { STALE } from './query-client';
 

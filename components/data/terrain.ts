@@ -20,7 +20,6 @@ export const terrainKeys = {
   profile: (siteId: string, request: TerrainProfileRequest) => [...terrainKeys.site(siteId), 'profile', request] as const,
 };
 
-
 /** What the terrain upload form sends. */
 export interface TerrainUploadInput {
   file: PickedFile;

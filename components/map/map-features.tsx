@@ -18,6 +18,7 @@ export const SYMBOL = {
   sector: { fill: 'rgba(232, 176, 74, 0.30)', stroke: '#8A6A12' },
   chosen: colors.ember,
   target: colors.ember,
+  outline: { stroke: colors.ink, halo: colors.lantern, width: 2 },
 } as const;
 
 /** Sector wedge radius, pixels (a fixed size on screen: it shows a direction, not a range). */
@@ -61,6 +62,7 @@ export const MapFeatures = memo(function MapFeatures({
   margin,
   chosenPostId,
   targets,
+  outline = null,
 }: {
   frame: SiteMapFrame;
   camera: MapCamera;
@@ -68,6 +70,8 @@ export const MapFeatures = memo(function MapFeatures({
   margin: number;
   chosenPostId: string | null;
   targets: readonly MapTarget[];
+  /** Edges to outline (a blind area), `x1, y1, x2, y2` each, grid metres. */
+  outline?: Float64Array | null;
 }) {
   const at = (x: number, y: number) => {
     const p = gridToScreen(camera, size, x, y);
@@ -146,6 +150,7 @@ export const MapFeatures = memo(function MapFeatures({
           />
         );
       })}
+      {outline && outline.length > 0 ? <AreaOutline d={outlinePath(outline, at)} /> : null}
       {chosen && last ? <SightLineMark from={at(chosen.x, chosen.y)} to={at(last.x, last.y)} /> : null}
       {targets.map((t) => {
         const s = at(t.x, t.y);
@@ -166,6 +171,27 @@ export const MapFeatures = memo(function MapFeatures({
     </Svg>
   );
 });
+
+/** An SVG path of separate edges, in screen pixels. */
+function outlinePath(segments: Float64Array, at: (x: number, y: number) => { x: number; y: number }): string {
+  const parts: string[] = [];
+  for (let i = 0; i + 3 < segments.length; i += 4) {
+    const a = at(segments[i] as number, segments[i + 1] as number);
+    const b = at(segments[i + 2] as number, segments[i + 3] as number);
+    parts.push(`M${a.x.toFixed(1)} ${a.y.toFixed(1)}L${b.x.toFixed(1)} ${b.y.toFixed(1)}`);
+  }
+  return parts.join('');
+}
+
+/** A blind area's edge: dark over a light halo, so it reads on hillshade and on any layer. */
+function AreaOutline({ d }: { d: string }) {
+  return (
+    <G>
+      <Path d={d} stroke={SYMBOL.outline.halo} strokeWidth={SYMBOL.outline.width + 3} fill="none" strokeLinecap="square" />
+      <Path d={d} stroke={SYMBOL.outline.stroke} strokeWidth={SYMBOL.outline.width} fill="none" strokeLinecap="square" />
+    </G>
+  );
+}
 
 function SightLineMark({ from, to }: { from: { x: number; y: number }; to: { x: number; y: number } }) {
   return (

@@ -49,6 +49,8 @@ export interface MapViewportProps {
   onTap: (point: { x: number; y: number }) => void;
   /** Space kept free at the bottom for a sheet over the map, pixels. */
   bottomInset?: number;
+  /** An area to outline (a blind area): `x1, y1, x2, y2` per edge, grid metres. */
+  outline?: Float64Array | null;
 }
 
 /** Wheel zooms wait this long for the next notch before the map is redrawn for the new zoom, ms. */
@@ -273,6 +275,7 @@ export function MapViewport(props: MapViewportProps) {
                   margin={margin}
                   chosenPostId={chosenPostId}
                   targets={targets}
+                  outline={props.outline ?? null}
                 />
               </Animated.View>
             </View>

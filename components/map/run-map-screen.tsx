@@ -24,12 +24,15 @@ export function RunMapScreen({
   caseKey: initialCaseKey,
   focusPostId,
   focusAt,
+  outlineBlindArea = false,
 }: {
   siteId: string;
   runId: string;
   caseKey: string | null;
   focusPostId: string | null;
   focusAt: LatLon | null;
+  /** `focusAt` is inside a blind area of this case: outline it. */
+  outlineBlindArea?: boolean;
 }) {
   const router = useRouter();
   const run = useCoverageRun(runId);
@@ -109,6 +112,7 @@ export function RunMapScreen({
       coverageLayers={run.data?.siteId === siteId ? layers.layers : []}
       coveragePanel={panel}
       onChosenPost={onChosenPost}
+      outlineBlindArea={outlineBlindArea && caseKey === initialCaseKey}
     />
   );
 }

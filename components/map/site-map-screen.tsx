@@ -18,6 +18,7 @@ import { colors, radius, space, TOUCH } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { useCoordinateFormat } from './coordinate-format';
 import { useDecodedRaster, type MapCoverageLayer } from './map-coverage-layer';
+import { blindAreaOutline } from './blind-area-outline';
 import type { MapTarget } from './map-features';
 import { MapLegend } from './map-legend';
 import { MapViewport, type ShownLayer } from './map-viewport';
@@ -25,6 +26,7 @@ import { ProfilePanel } from './profile-panel';
 import { createReadoutStore } from './readout-store';
 import { siteMapFrame, type SiteMapFrame } from './site-map-frame';
 import { Terrain3d } from './terrain-3d';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
 export interface SiteMapScreenProps {
   siteId: string;
@@ -43,6 +45,8 @@ export interface SiteMapScreenProps {
   coveragePanel?: ReactNode;
   /** Told when the chosen post changes (e.g. to load that post's visibility layer). */
   onChosenPost?: (postId: string | null) => void;
+  /** `focusAt` is a point inside a blind area: outline that area (from the posts-per-cell layer). */
+  outlineBlindArea?: boolean;
 }
 
 /** Taps kept on the map (and as sight lines in 3D). */
@@ -56,6 +60,7 @@ export function SiteMapScreen({
   coverageLayers = [],
   coveragePanel = null,
   onChosenPost,
+  outlineBlindArea = false,
 }: SiteMapScreenProps) {
   const site = useSite(siteId);
   const posts = useSitePosts(siteId);
@@ -74,6 +79,7 @@ export function SiteMapScreen({
       coverageLayers={coverageLayers}
       coveragePanel={coveragePanel}
       onChosenPost={onChosenPost}
+      outlineBlindArea={outlineBlindArea}
     />
   );
 }
@@ -87,6 +93,7 @@ function MapWorkspace({
   coverageLayers,
   coveragePanel,
   onChosenPost,
+  outlineBlindArea,
 }: {
   site: Site;
   posts: Post[];
@@ -96,6 +103,7 @@ function MapWorkspace({
   coverageLayers: readonly MapCoverageLayer[];
   coveragePanel: ReactNode;
   onChosenPost?: (postId: string | null) => void;
+  outlineBlindArea: boolean;
 }) {
   const { wide } = useLayout();
   const router = useRouter();
@@ -122,6 +130,20 @@ function MapWorkspace({
   const layer = (layerId === undefined ? coverageLayers[0] : coverageLayers.find((l) => l.id === layerId)) ?? null;
   const decoded = useDecodedRaster(layer?.raster ?? null);
   const shown: ShownLayer | null = layer && decoded.values ? { layer, values: decoded.values } : null;
+  // The blind area the address points into, outlined whatever layer is shown.
+  const postsLayer = outlineBlindArea && focusAt ? (coverageLayers.find((l) => l.id === 'posts-per-cell') ?? null) : null;
+  const postsValues = useDecodedRaster(postsLayer?.raster ?? null).values;
+  const outline = useMemo(() => {
+    const at = focusAt && frame ? frame.projection.toGrid(focusAt) : null;
+    if (!postsLayer || !postsValues || !frame || !at) return null;
+    const r = postsLayer.raster;
+    return blindAreaOutline(
+      postsValues,
+      { width: r.width, height: r.height, cellSize: r.cellSize, xll: r.xll, yll: r.yll },
+      frame.boundary?.points ?? null,
+      at,
+    );
+  }, [postsLayer, postsValues, frame, focusAt]);
   const chosen = posts.find((p) => p.id === chosenPostId) ?? null;
   const last = targets.at(-1) ?? null;
   const lastLatLon = last && frame ? { ...frame.projection.toLatLon(last.x, last.y), label: `P${last.id}` } : null;
@@ -225,6 +247,7 @@ function MapWorkspace({
         format={format}
         onFormat={setFormat}
         onTap={onTap}
+        outline={outline?.segments ?? null}
         bottomInset={!wide && sheetOpen ? SHEET_PEEK : 0}
       />
     ) : (
@@ -241,6 +264,7 @@ function MapWorkspace({
 
   const toolbar = (
     <View style={styles.toolbar}>
+      <PageTitle title={documentTitle(`${site.name}: map`)} />
       <Pressable role="link" aria-label={`Back to ${site.name}`} onPress={back} style={styles.back}>
         <AppText variant="heading" tone="ember">
           ‹{wide ? ' Site' : ''}

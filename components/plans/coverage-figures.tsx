@@ -47,8 +47,8 @@ export function CoverageFigures({
   if (!shown) {
     return <AppText tone="muted">This run has no figures: the plan had no target or condition to compute when it ran.</AppText>;
   }
-  // The map with this run's layers for this case; centred on a point (a blind area) when one is given.
-  const openMap = (at: { latDeg: number; lonDeg: number } | null) =>
+  // The map with this run's layers for this case; centred on a point inside a blind area (outlined) when one is given.
+  const openMap = (at: { latDeg: number; lonDeg: number; blind: boolean } | null) =>
     router.navigate({
       pathname: '/sites/[siteId]/map',
       params: {
@@ -56,6 +56,7 @@ export function CoverageFigures({
         runId: run.id,
         caseKey: shown.key,
         ...(at ? { lat: at.latDeg.toFixed(6), lon: at.lonDeg.toFixed(6) } : {}),
+        ...(at?.blind ? { blind: '1' } : {}),
       },
     });
   return (
@@ -216,7 +217,7 @@ function ZoneTable({ zones }: { zones: CoverageCase['zones'] }) {
 }
 
 /** The largest patches no post sees, with where they are in the person's coordinate format. */
-function BlindAreas({ c, onMap }: { c: CoverageCase; onMap: (at: { latDeg: number; lonDeg: number }) => void }) {
+function BlindAreas({ c, onMap }: { c: CoverageCase; onMap: (at: { latDeg: number; lonDeg: number; blind: boolean }) => void }) {
   const [format, setFormat] = useCoordinateFormat();
   const { blindAreas, blindSummary } = c;
   return (
@@ -245,14 +246,19 @@ function BlindAreas({ c, onMap }: { c: CoverageCase; onMap: (at: { latDeg: numbe
                   {i + 1}. {formatArea(b.area)}
                 </AppText>
                 <AppText variant="small" style={{ flex: 1, fontVariant: ['tabular-nums'] }} selectable>
-                  around {formatCoordinate({ latDeg: b.centroid.latDeg, lonDeg: b.centroid.lonDeg }, format)}
+                  {b.interior ? 'in it at' : 'around'}{' '}
+                  {formatCoordinate(
+                    { latDeg: (b.interior ?? b.centroid).latDeg, lonDeg: (b.interior ?? b.centroid).lonDeg },
+                    format,
+                  )}
                 </AppText>
                 <Button
                   kind="quiet"
                   role="link"
                   label="Map"
                   aria-label={`Blind area ${i + 1} on the map`}
-                  onPress={() => onMap(b.centroid)}
+                  // Older runs have only the centroid, which may lie outside a non-convex area: no outline then.
+                  onPress={() => onMap(b.interior ? { ...b.interior, blind: true } : { ...b.centroid, blind: false })}
                   style={{ minHeight: 32, paddingHorizontal: space.sm }}
                 />
               </View>

@@ -11,6 +11,7 @@ import { colors, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { PlanStatusBadge } from './plan-status';
 import { SnapshotDiffView } from './snapshot-diff-view';
+import { VerdictSummary } from './verdict-summary';
 import { when } from './when';
 
 const STEP = { prepared: 'Prepared', submitted: 'Submitted', returned: 'Returned', approved: 'Approved' } as const;
@@ -65,13 +66,31 @@ export function PlanHistory({ planId }: { planId: string }) {
                   <AppText variant="small">
                     {s.person.name} ({s.person.role}) · {when(s.at)}
                   </AppText>
+                  {s.step === 'submitted'
+                    ? revisions
+                        .filter((r) => r.number === s.revision && r.exceptionNote)
+                        .map((r) => (
+                          <AppText key={r.number} variant="small" tone="danger">
+                            Submitted as an exception: “{r.exceptionNote}”
+                          </AppText>
+                        ))
+                    : null}
                   {s.step === 'returned' || s.step === 'approved'
                     ? reviews
-                        .filter((r) => r.at === s.at && r.comment)
+                        .filter((r) => r.at === s.at)
                         .map((r) => (
-                          <AppText key={r.at} variant="small" tone="muted">
-                            “{r.comment}”
-                          </AppText>
+                          <View key={r.at} style={{ gap: 2 }}>
+                            {r.comment ? (
+                              <AppText variant="small" tone="muted">
+                                “{r.comment}”
+                              </AppText>
+                            ) : null}
+                            {r.justification ? (
+                              <AppText variant="small" tone="danger">
+                                Approved as an exception: “{r.justification}”
+                              </AppText>
+                            ) : null}
+                          </View>
                         ))
                     : null}
                 </View>
@@ -89,6 +108,7 @@ export function PlanHistory({ planId }: { planId: string }) {
                 <AppText variant="small" tone="muted" selectable>
                   by {r.submittedBy.name} · sha256 {r.contentHash}
                 </AppText>
+                {r.verdict ? <VerdictSummary verdict={r.verdict} /> : null}
               </View>
             ))}
           </Card>

@@ -21,6 +21,10 @@ import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { ApiRequestError } from '@/components/data/api-client';
 import { usePlanCoverage } from '@/components/data/coverage';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { TextField } from '@/components/ui/text-field';
+import { standardVerdict } from '@/shared/plans/standard-verdict';
+import { VerdictSummary } from './verdict-summary';
 import { coverageCardState } from './coverage-format';
 import { PlanCoveragePanel } from './plan-coverage-panel';
 import { PlanResults } from './plan-results';
@@ -70,17 +74,49 @@ function PlanPage({
   const snapshot: PlanSnapshot | undefined = editable ? preview.data : frozen.data?.snapshot;
   const results = editable ? preview : frozen;
 
-  const onSubmit = () => {
+  const [confirming, setConfirming] = useState(false);
+  const [exceptionNote, setExceptionNote] = useState('');
+  const [noteError, setNoteError] = useState('');
+  const [dialogError, setDialogError] = useState('');
+  // What submitting now would freeze: today's finished run against the standard.
+  const current = coverage.data?.current;
+  const verdict = current?.status === 'done' ? standardVerdict(current.cases) : null;
+  const failing = verdict !== null && !verdict.passed;
+
+  const askSubmit = () => {
     setError('');
+    setDialogError('');
+    setNoteError('');
+    setConfirming(true);
+  };
+  const onSubmit = () => {
     setCoverageMissing('');
-    submit.mutate(plan.rowVersion, {
-      onSuccess: (r) =>
-        setNotice(
-          `Revision ${r.revision} is frozen and waiting for review.${r.mailed ? ' The reviewers were e-mailed.' : ' No e-mail went out; tell the reviewers.'}`,
-        ),
-      onError: (e) =>
-        e instanceof ApiRequestError && e.code === 'coverage_missing' ? setCoverageMissing(e.message) : setError(e.message),
-    });
+    setDialogError('');
+    if (failing && exceptionNote.trim() === '') {
+      setNoteError('Say why this plan should be reviewed although it does not meet its standard.');
+      return;
+    }
+    submit.mutate(
+      { rowVersion: plan.rowVersion, ...(failing && { exceptionNote: exceptionNote.trim() }) },
+      {
+        onSuccess: (r) => {
+          setConfirming(false);
+          setExceptionNote('');
+          setNotice(
+            `Revision ${r.revision} is frozen and waiting for review.${r.mailed ? ' The reviewers were e-mailed.' : ' No e-mail went out; tell the reviewers.'}`,
+          );
+        },
+        onError: (e) => {
+          if (e instanceof ApiRequestError && e.code === 'coverage_missing') {
+            setConfirming(false);
+            setCoverageMissing(e.message);
+          } else if (e instanceof ApiRequestError && e.fields.exceptionNote) {
+            setNoteError(e.fields.exceptionNote);
+            setDialogError(e.message);
+          } else setDialogError(e.message);
+        },
+      },
+    );
   };
   const onNewVersion = () =>
     newVersion.mutate(undefined, {
@@ -88,13 +124,60 @@ function PlanPage({
       onError: (e) => setError(e.message),
     });
 
+  // The plan's next step; on a phone it stays in a bar at the bottom while the page scrolls.
+  const decisionButtons = [
+    isPlanner && editable ? <Button key="submit" label="Submit for review" onPress={askSubmit} busy={submit.isPending} /> : null,
+    isPlanner && plan.status === 'approved' ? (
+      <Button key="version" label="Start a new version" kind="secondary" onPress={onNewVersion} busy={newVersion.isPending} />
+    ) : null,
+    canReview ? (
+      <Button
+        key="review"
+        label="Review this plan"
+        onPress={() => router.navigate({ pathname: '/plans/[planId]/review', params: { planId: plan.id } })}
+      />
+    ) : null,
+  ].filter((b) => b !== null);
+  const decision = decisionButtons.length > 0 ? <>{decisionButtons}</> : null;
+
   return (
     <Screen
+      footer={wide ? undefined : decision}
       title={`${plan.title} · v${plan.version}`}
       subtitle={`${plan.siteName} · prepared by ${plan.preparedBy.name} · updated ${when(plan.updatedAt)}`}
       actions={<PlanStatusBadge status={plan.status} />}
     >
       <FormError message={error} />
+      <ConfirmDialog
+        visible={confirming}
+        title={failing ? 'Submit as an exception?' : 'Submit this plan for review?'}
+        consequence={
+          'Every input and result is frozen in a new revision and the plan goes to the reviewers. ' +
+          'Nobody can edit it until a reviewer returns it.'
+        }
+        confirmLabel={failing ? 'Submit as an exception' : 'Submit for review'}
+        busy={submit.isPending}
+        error={dialogError}
+        onConfirm={onSubmit}
+        onCancel={() => setConfirming(false)}
+      >
+        <VerdictSummary verdict={verdict} />
+        {failing ? (
+          <TextField
+            label="Exception note"
+            hint="Why the reviewers should consider it anyway. Frozen with the revision and shown in the plan's history."
+            value={exceptionNote}
+            onChangeText={(text) => {
+              setExceptionNote(text);
+              setNoteError('');
+            }}
+            error={noteError}
+            multiline
+            numberOfLines={4}
+            style={{ minHeight: 96, paddingTop: space.sm, textAlignVertical: 'top' }}
+          />
+        ) : null}
+      </ConfirmDialog>
       {coverageMissing && !coverageDone ? (
         <Notice tone="danger" title="Coverage first">
           <AppText>{coverageMissing}</AppText>
@@ -119,24 +202,13 @@ function PlanPage({
 
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         {isPlanner && editable ? (
-          <>
-            <Button
-              label="Edit"
-              kind="secondary"
-              onPress={() => router.navigate({ pathname: '/plans/[planId]/edit', params: { planId: plan.id } })}
-            />
-            <Button label="Submit for review" onPress={onSubmit} busy={submit.isPending} />
-          </>
-        ) : null}
-        {isPlanner && plan.status === 'approved' ? (
-          <Button label="Start a new version" kind="secondary" onPress={onNewVersion} busy={newVersion.isPending} />
-        ) : null}
-        {canReview ? (
           <Button
-            label="Review this plan"
-            onPress={() => router.navigate({ pathname: '/plans/[planId]/review', params: { planId: plan.id } })}
+            label="Edit"
+            kind="secondary"
+            onPress={() => router.navigate({ pathname: '/plans/[planId]/edit', params: { planId: plan.id } })}
           />
         ) : null}
+        {wide ? decision : null}
         <Button
           label="Compare with…"
           kind="quiet"

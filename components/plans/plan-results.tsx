@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { ScrollView, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import type { PlanResultRow, PlanSnapshot, ZoneReach } from '@/shared/schemas/plan';
 import { UNIT_SYSTEMS, type UnitSystem } from '@/components/check/check-form-model';
 import { formatLength, LIMIT_LABELS } from '@/components/check/format';
@@ -12,6 +12,7 @@ import { Chip, ChipRow } from '@/components/ui/chip';
 import { EmptyState } from '@/components/ui/states';
 import { colors, radius, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { HorizontalScrollCue } from '@/components/ui/scroll-cue';
 
 type SortKey = 'post' | 'range-asc' | 'range-desc';
 
@@ -104,7 +105,7 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
       </View>
 
       {wide ? (
-        <ScrollView horizontal contentContainerStyle={{ minWidth: '100%' }}>
+        <HorizontalScrollCue label="columns">
           <View style={styles.table} role="table" aria-label="Plan results">
             <View style={[styles.tr, styles.head]} role="row">
               {['Post → target', 'Condition', 'Detection range', ...zoneNames].map((h, i) => (
@@ -142,7 +143,7 @@ export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnap
               </View>
             ))}
           </View>
-        </ScrollView>
+        </HorizontalScrollCue>
       ) : (
         <View style={{ gap: space.sm }} role="list" aria-label="Plan results">
           {rows.map((r) => (

@@ -11,6 +11,9 @@ import { Card } from '@/components/ui/card';
 import { Screen } from '@/components/ui/screen';
 import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { standardVerdict } from '@/shared/plans/standard-verdict';
+import { VerdictSummary } from './verdict-summary';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { PlanCoveragePanel } from './plan-coverage-panel';
@@ -37,6 +40,10 @@ export function ReviewPanel({ planId }: { planId: string }) {
   const [comment, setComment] = useState('');
   const [commentError, setCommentError] = useState('');
   const [formError, setFormError] = useState('');
+  const [asking, setAsking] = useState<'approve' | 'return' | null>(null);
+  const [justification, setJustification] = useState('');
+  const [justificationError, setJustificationError] = useState('');
+  const [dialogError, setDialogError] = useState('');
 
   if (plan.isPending || history.isPending) return <LoadingState label="Loading the plan…" />;
   if (plan.isError) return <ErrorState error={plan.error} onRetry={() => void plan.refetch()} />;
@@ -57,27 +64,126 @@ export function ReviewPanel({ planId }: { planId: string }) {
   const own = p.preparedBy.id === user?.id;
   const open = p.status === 'submitted' && user?.role === 'reviewer' && !own;
 
-  const decide = (decision: 'approve' | 'return') => {
+  // The verdict frozen with the revision; revisions from before verdicts were frozen are judged from their coverage.
+  const verdict = revision.data.verdict ?? standardVerdict(snapshot.coverage?.cases);
+  const failing = !verdict.passed;
+
+  const ask = (decision: 'approve' | 'return') => {
     setFormError('');
     setCommentError('');
+    setDialogError('');
+    setJustificationError('');
+    setAsking(decision);
+  };
+  const decide = (decision: 'approve' | 'return') => {
+    setDialogError('');
+    setCommentError('');
+    setJustificationError('');
     if (decision === 'return' && comment.trim() === '') {
       setCommentError('Say what needs to change before returning the plan.');
       return;
     }
+    const why = justification.trim();
+    if (decision === 'approve' && failing && why === '') {
+      setJustificationError('Write why this plan is approved although it does not meet its standard.');
+      return;
+    }
     review.mutate(
-      { decision, comment: comment.trim(), revision: latest },
+      { decision, comment: comment.trim(), revision: latest, ...(decision === 'approve' && failing && { justification: why }) },
       {
-        onSuccess: () => router.replace({ pathname: '/plans/[planId]', params: { planId } }),
+        onSuccess: () => {
+          setAsking(null);
+          router.replace({ pathname: '/plans/[planId]', params: { planId } });
+        },
         onError: (e) => {
-          if (e instanceof ApiRequestError && e.fields.comment) setCommentError(e.fields.comment);
-          else setFormError(e.message);
+          if (e instanceof ApiRequestError && e.fields.justification) {
+            setJustificationError(e.fields.justification);
+            setDialogError(e.message);
+          } else if (e instanceof ApiRequestError && e.fields.comment) {
+            setCommentError(e.fields.comment);
+          } else setDialogError(e.message);
         },
       },
     );
   };
+  const commentField = (hint: string) => (
+    <TextField
+      label="Comment"
+      hint={hint}
+      value={comment}
+      onChangeText={(text) => {
+        setComment(text);
+        setCommentError('');
+      }}
+      error={commentError}
+      multiline
+      numberOfLines={4}
+      style={{ minHeight: 96, paddingTop: space.sm, textAlignVertical: 'top' }}
+    />
+  );
+  const decisionButtons = (
+    <>
+      <Button label={failing ? 'Approve as an exception' : 'Approve'} onPress={() => ask('approve')} />
+      <Button label="Return for changes" kind="secondary" onPress={() => ask('return')} />
+    </>
+  );
+  // Both decisions are asked in a dialog that says what will happen; the comment is written there.
+  const dialogs = open ? (
+    <>
+      <ConfirmDialog
+        visible={asking === 'approve'}
+        title={failing ? 'Approve as an exception?' : `Approve revision ${latest}?`}
+        consequence={
+          `${p.title} becomes the approved plan` +
+          (p.previousId ? ', replacing the version it changes' : '') +
+          `, and ${p.preparedBy.name} is told. The decision is kept with revision ${latest} and cannot be changed.`
+        }
+        confirmLabel={failing ? 'Approve as an exception' : 'Approve'}
+        busy={review.isPending}
+        error={dialogError}
+        onConfirm={() => decide('approve')}
+        onCancel={() => setAsking(null)}
+      >
+        <VerdictSummary verdict={verdict} />
+        {failing ? (
+          <TextField
+            label="Justification"
+            hint="Why the plan is approved although it does not meet its standard. Frozen with your decision and shown in the history."
+            value={justification}
+            onChangeText={(text) => {
+              setJustification(text);
+              setJustificationError('');
+            }}
+            error={justificationError}
+            multiline
+            numberOfLines={4}
+            style={{ minHeight: 96, paddingTop: space.sm, textAlignVertical: 'top' }}
+          />
+        ) : null}
+        {commentField('Optional; kept with the revision in the plan’s history.')}
+      </ConfirmDialog>
+      <ConfirmDialog
+        visible={asking === 'return'}
+        title="Return for changes?"
+        consequence={`The plan goes back to ${p.preparedBy.name} with your comment; they can change it and submit it again. Revision ${latest} stays on record as it is.`}
+        confirmLabel="Return for changes"
+        busy={review.isPending}
+        error={dialogError}
+        onConfirm={() => decide('return')}
+        onCancel={() => setAsking(null)}
+      >
+        {commentField('Say what needs to change; kept with the revision in the plan’s history.')}
+      </ConfirmDialog>
+    </>
+  ) : null;
 
   const inputs = (
     <>
+      {revision.data.exceptionNote ? (
+        <Notice tone="caution" title={`Submitted as an exception by ${revision.data.submittedBy.name}`}>
+          <AppText>{revision.data.exceptionNote}</AppText>
+        </Notice>
+      ) : null}
       <InputsPanel snapshot={snapshot} />
       <AssumptionsPanel snapshot={snapshot} />
       {previous.data ? (
@@ -95,32 +201,23 @@ export function ReviewPanel({ planId }: { planId: string }) {
   const decision = open ? (
     <Card accent="ember" style={{ gap: space.md }}>
       <AppText variant="heading">Your decision on revision {latest}</AppText>
+      <AppText variant="small" tone="muted">
+        Approving or returning asks once more and says what will happen; your comment is written there.
+      </AppText>
       <FormError message={formError} />
-      <TextField
-        label="Comment"
-        hint="Required when you return the plan; kept with the revision in the plan's history."
-        value={comment}
-        onChangeText={setComment}
-        error={commentError}
-        multiline
-        numberOfLines={4}
-        style={{ minHeight: 96, paddingTop: space.sm, textAlignVertical: 'top' }}
-      />
-      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button
-          label="Approve"
-          onPress={() => decide('approve')}
-          busy={review.isPending && review.variables?.decision === 'approve'}
-        />
-        <Button
-          label="Return for changes"
-          kind="secondary"
-          onPress={() => decide('return')}
-          busy={review.isPending && review.variables?.decision === 'return'}
-        />
-      </View>
+      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>{decisionButtons}</View>
     </Card>
   ) : null;
+  // On a phone the decision stays at the bottom of the screen while the revision scrolls above it.
+  const footer =
+    open && !wide ? (
+      <>
+        <AppText variant="label" style={{ flexBasis: '100%' }}>
+          Your decision on revision {latest}
+        </AppText>
+        {decisionButtons}
+      </>
+    ) : undefined;
 
   return (
     <Screen
@@ -128,7 +225,9 @@ export function ReviewPanel({ planId }: { planId: string }) {
       subtitle={`${p.siteName} · revision ${latest} submitted by ${revision.data.submittedBy.name}, ${when(revision.data.submittedAt)}`}
       actions={<PlanStatusBadge status={p.status} />}
       maxWidth={1400}
+      footer={footer}
     >
+      {dialogs}
       {!open ? (
         <Notice tone="caution">
           <AppText>
@@ -154,7 +253,6 @@ export function ReviewPanel({ planId }: { planId: string }) {
         <>
           {results}
           {inputs}
-          {decision}
         </>
       )}
     </Screen>

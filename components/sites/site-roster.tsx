@@ -6,6 +6,7 @@ import { useSession } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { colors, radius, space } from '@/components/ui/theme';
 import { showWatchTime, weekFrom } from './watch-time';
@@ -26,12 +27,15 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
   const window = useMemo(() => weekFrom(timeZone, week * 7), [timeZone, week]);
   const roster = useSiteRoster(siteId, window.from, window.to);
   const remove = useDeleteAssignment();
+  const [takingOff, setTakingOff] = useState<{ id: string; who: string; post: string; until: string } | null>(null);
   const { data: user } = useSession();
   const planner = user?.role === 'planner';
 
   return (
     <Card style={{ gap: space.md }} aria-label="Watch roster">
-      <View style={{ flexDirection: 'row', justifyContent: 'space-between', alignItems: 'center', flexWrap: 'wrap', gap: space.sm }}>
+      <View
+        style={{ flexDirection: 'row', justifyContent: 'space-between', alignItems: 'center', flexWrap: 'wrap', gap: space.sm }}
+      >
         <View style={{ gap: 2 }}>
           <AppText variant="heading">Watch roster</AppText>
           <AppText variant="small" tone="muted">
@@ -69,7 +73,10 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
                   {p.gaps.map((g) => (
                     <View
                       key={g.from}
-                      style={[styles.gap, { left: `${at(g.from, from, to)}%`, width: `${at(g.to, from, to) - at(g.from, from, to)}%` }]}
+                      style={[
+                        styles.gap,
+                        { left: `${at(g.from, from, to)}%`, width: `${at(g.to, from, to) - at(g.from, from, to)}%` },
+                      ]}
                     />
                   ))}
                   {p.assignments.map((a) => {
@@ -87,7 +94,8 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
                 {p.assignments.map((a) => (
                   <View key={a.id} style={styles.line}>
                     <AppText variant="small" style={{ flex: 1 }}>
-                      {a.person.name}: {showWatchTime(a.startsAt, timeZone)} → {a.endsAt ? showWatchTime(a.endsAt, timeZone) : 'until further notice'}
+                      {a.person.name}: {showWatchTime(a.startsAt, timeZone)} →{' '}
+                      {a.endsAt ? showWatchTime(a.endsAt, timeZone) : 'until further notice'}
                       {a.note ? ` · ${a.note}` : ''}
                     </AppText>
                     {planner ? (
@@ -96,7 +104,14 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
                         label="Take off"
                         aria-label={`Take ${a.person.name} off ${p.postName}`}
                         busy={remove.isPending && remove.variables === a.id}
-                        onPress={() => remove.mutate(a.id)}
+                        onPress={() =>
+                          setTakingOff({
+                            id: a.id,
+                            who: a.person.name,
+                            post: p.postName,
+                            until: a.endsAt ? `until ${showWatchTime(a.endsAt, timeZone)}` : 'until further notice',
+                          })
+                        }
                       />
                     ) : null}
                   </View>
@@ -111,6 +126,25 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
           ) : null}
         </>
       )}
+      {takingOff ? (
+        <ConfirmDialog
+          visible
+          title={`Take ${takingOff.who} off ${takingOff.post}?`}
+          consequence={
+            `The watch (${takingOff.until}) is removed from the roster, and the hours it covered show as uncovered ` +
+            'unless someone else is on the post.'
+          }
+          confirmLabel="Take off the watch"
+          tone="danger"
+          busy={remove.isPending}
+          error={remove.isError ? remove.error.message : undefined}
+          onConfirm={() => remove.mutate(takingOff.id, { onSuccess: () => setTakingOff(null) })}
+          onCancel={() => {
+            remove.reset();
+            setTakingOff(null);
+          }}
+        />
+      ) : null}
       {planner && roster.data ? <WatchForm posts={roster.data.posts} timeZone={timeZone} /> : null}
     </Card>
   );
@@ -144,7 +178,21 @@ function GapSummary({ roster, timeZone }: { roster: Roster; timeZone: string }) 
 const styles = StyleSheet.create({
   days: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: colors.line, paddingBottom: 2 },
   bar: { height: 26, backgroundColor: colors.paper, borderRadius: radius.sm, overflow: 'hidden', position: 'relative' },
-  gap: { position: 'absolute', top: 0, bottom: 0, backgroundColor: colors.dangerSoft, borderTopWidth: 3, borderTopColor: colors.danger },
-  watch: { position: 'absolute', top: 3, bottom: 3, backgroundColor: colors.moss, borderRadius: radius.sm, justifyContent: 'center' },
+  gap: {
+    position: 'absolute',
+    top: 0,
+    bottom: 0,
+    backgroundColor: colors.dangerSoft,
+    borderTopWidth: 3,
+    borderTopColor: colors.danger,
+  },
+  watch: {
+    position: 'absolute',
+    top: 3,
+    bottom: 3,
+    backgroundColor: colors.moss,
+    borderRadius: radius.sm,
+    justifyContent: 'center',
+  },
   line: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
 });

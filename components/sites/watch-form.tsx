@@ -55,7 +55,10 @@ export function WatchForm({ posts, timeZone }: { posts: Roster['posts']; timeZon
   };
 
   return (
-    <View style={{ gap: space.md, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.md }} aria-label="Put someone on a post">
+    <View
+      style={{ gap: space.md, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.md }}
+      aria-label="Put someone on a post"
+    >
       <AppText variant="heading">Put someone on a post</AppText>
       <FormError message={formError} />
       <ChipRow label="Post">
@@ -80,7 +83,13 @@ export function WatchForm({ posts, timeZone }: { posts: Roster['posts']; timeZon
       ) : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         <View style={{ flex: 1, minWidth: 160 }}>
-          <TextField label="From" value={start} onChangeText={setStart} placeholder={WATCH_TIME_FORMAT.toLowerCase()} error={errors.startsAt} />
+          <TextField
+            label="From"
+            value={start}
+            onChangeText={setStart}
+            placeholder={WATCH_TIME_FORMAT.toLowerCase()}
+            error={errors.startsAt}
+          />
         </View>
         <View style={{ flex: 1, minWidth: 160 }}>
           <TextField

@@ -40,7 +40,9 @@ export function FilePickerField({
           }}
         />
         <AppText variant="small" tone={file ? 'ink' : 'muted'} style={{ flexShrink: 1 }}>
-          {file ? `${file.name}${file.size !== undefined ? ` · ${(file.size / 1_000_000).toFixed(1)} MB` : ''}` : 'No file chosen'}
+          {file
+            ? `${file.name}${file.size !== undefined ? ` · ${(file.size / 1_000_000).toFixed(1)} MB` : ''}`
+            : 'No file chosen'}
         </AppText>
       </View>
       {error ? (

@@ -1,7 +1,13 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { PlanInputSchema, PlanListQuerySchema, PlanUpdateSchema, ReviewInputSchema } from '@/shared/schemas/plan';
+import {
+  PlanInputSchema,
+  PlanListQuerySchema,
+  PlanUpdateSchema,
+  ReviewInputSchema,
+  SubmitInputSchema,
+} from '@/shared/schemas/plan';
 import {
   createPlan,
   getPlan,
@@ -18,13 +24,12 @@ import {
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 import type { Mailer } from '@/server/mail/mailer';
-import { INT_COLUMN_MAX, SeenVersionSchema } from '@/shared/schemas/seen-version';
+import { INT_COLUMN_MAX } from '@/shared/schemas/seen-version';
 
 const IdParams = z.object({ planId: z.uuid({ error: 'Not a plan id.' }) });
 const RevisionParams = IdParams.extend({
   number: z.coerce.number().int().min(1, 'Revisions start at 1.').max(INT_COLUMN_MAX, 'No such revision.'),
 });
-const SubmitBody = z.object({ rowVersion: SeenVersionSchema });
 
 /** Coverage plans: planners prepare and submit, reviewers approve or return, observers read approved ones. */
 export function planRoutes(db: Sequelize, publicUrl: () => string, mailer: Mailer | null) {
@@ -52,8 +57,7 @@ export function planRoutes(db: Sequelize, publicUrl: () => string, mailer: Maile
   });
   router.post('/plans/:planId/submit', ...planner, async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');
-    const { rowVersion } = parseOrThrow(SubmitBody, req.body, 'submission');
-    res.json(await submitPlan(deps(), actorOf(req), planId, rowVersion));
+    res.json(await submitPlan(deps(), actorOf(req), planId, parseOrThrow(SubmitInputSchema, req.body, 'submission')));
   });
   router.post('/plans/:planId/reviews', requireUser, requireRole('reviewer'), async (req, res) => {
     const { planId } = parseOrThrow(IdParams, req.params, 'address');

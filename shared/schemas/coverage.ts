@@ -38,8 +38,10 @@ export const AreaCoverageSchema = z.object({
 export const BlindAreaSchema = z.object({
   cells: z.number(),
   area: z.number(),
-  /** Centre of the patch: grid metres and WGS84. */
+  /** Centre of mass of the patch: grid metres and WGS84. May lie outside a C- or U-shaped patch. */
   centroid: z.object({ x: z.number(), y: z.number(), latDeg: z.number(), lonDeg: z.number() }),
+  /** A point surely inside the patch (its cell farthest from the edge): grid metres and WGS84; absent in older runs. */
+  interior: z.object({ x: z.number(), y: z.number(), latDeg: z.number(), lonDeg: z.number() }).optional(),
 });
 
 export const CoverageRuleCheckSchema = z.object({

@@ -4,6 +4,7 @@ import { patchOf } from './patch-of';
 import { CoverageSnapshotSchema } from './coverage';
 import { SightlineResultSchema } from './sightline';
 import { SeenVersionSchema } from './seen-version';
+import type { StandardVerdict } from '@/shared/plans/standard-verdict';
 
 export const PLAN_STATUSES = ['draft', 'submitted', 'returned', 'approved', 'superseded'] as const;
 export type PlanStatus = (typeof PLAN_STATUSES)[number];
@@ -212,6 +213,29 @@ export const PlanSnapshotSchema = z.object({
 });
 export type PlanSnapshot = z.infer<typeof PlanSnapshotSchema>;
 
+/** The plan's coverage against its standard (`standardVerdict` in shared/plans). */
+export const StandardVerdictSchema = z.object({
+  /** False when no terrain coverage was computed: nothing was checked. */
+  checked: z.boolean(),
+  passed: z.boolean(),
+  caseCount: z.number().int(),
+  failingCaseCount: z.number().int(),
+  failing: z.array(
+    z.object({
+      caseKey: z.string(),
+      targetName: z.string(),
+      conditionSetName: z.string(),
+      conditionLabel: z.string(),
+      ruleId: z.string(),
+      text: z.string(),
+      actualPct: z.number().nullable(),
+      minPct: z.number().nullable(),
+    }),
+  ),
+}) satisfies z.ZodType<StandardVerdict>;
+
+const exceptionText = (error: string) => z.string({ error }).trim().max(5000, 'At most 5 000 characters.');
+
 export const PlanRevisionSchema = z.object({
   number: z.number().int(),
   /** sha256 of the canonical JSON of the snapshot. */
@@ -219,6 +243,10 @@ export const PlanRevisionSchema = z.object({
   snapshot: PlanSnapshotSchema,
   submittedBy: Person,
   submittedAt: z.string(),
+  /** The verdict frozen at submission; null in revisions made before verdicts were frozen. */
+  verdict: StandardVerdictSchema.nullable().default(null),
+  /** Why a plan that fails its standard was submitted anyway (the planner's exception note); null otherwise. */
+  exceptionNote: z.string().nullable().default(null),
 });
 export type PlanRevision = z.infer<typeof PlanRevisionSchema>;
 
@@ -228,13 +256,24 @@ export const ReviewInputSchema = z
     comment: z.string().trim().max(5000, 'At most 5 000 characters.').default(''),
     /** The revision the reviewer read. */
     revision: z.number({ error: 'Send the revision you reviewed.' }).int().min(1),
+    /** Required to approve a revision that fails its standard: why it is approved as an exception. */
+    justification: exceptionText('Write the justification as text.').optional(),
   })
   .refine((r) => r.decision === 'approve' || r.comment.length > 0, { message: 'Say what needs to change.', path: ['comment'] });
+
+/** Body of POST /plans/:planId/submit. */
+export const SubmitInputSchema = z.object({
+  rowVersion: SeenVersionSchema,
+  /** Required when the plan fails its standard: why it is submitted anyway. */
+  exceptionNote: exceptionText('Write the exception note as text.').optional(),
+});
 
 export const ReviewSchema = z.object({
   revision: z.number().int(),
   decision: z.enum(['approve', 'return']),
   comment: z.string(),
+  /** Why a revision failing its standard was approved as an exception; null otherwise. */
+  justification: z.string().nullable().default(null),
   reviewer: Person,
   at: z.string(),
 });

@@ -3,6 +3,7 @@ import { checkSameGrid } from '@/shared/terrain/check-same-grid';
 import { CROSS_BEARING_CLASS, type CrossBearingRaster } from '@/shared/terrain/cross-bearing-quality';
 import type { PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
+import { patchInteriorPoint } from '@/shared/terrain/patch-interior-point';
 
 /** A share of an area: cells, square metres and percent of the area's cells. */
 export interface CoverageMeasure {
@@ -58,6 +59,19 @@ export interface BlindArea {
    * `row` in fractional cells (a cell's centre is at its integer index).
    */
   readonly centroid: { readonly x: number; readonly y: number; readonly col: number; readonly row: number };
+  /**
+   * A point surely inside the patch, for links and labels: the centre of its
+   * cell farthest from the patch's edge (`patchInteriorPoint`); `x`, `y` in
+   * metres, `col`, `row` whole cells, `edgeDistance` metres to the nearest
+   * cell outside. (The centroid of a C- or U-shaped patch lies outside it.)
+   */
+  readonly interior: {
+    readonly x: number;
+    readonly y: number;
+    readonly col: number;
+    readonly row: number;
+    readonly edgeDistance: number;
+  };
   /**
    * Bounding box: first and last column and row (inclusive), and the outer
    * edges of those cells in metres (west < east, south < north).
@@ -216,7 +230,7 @@ export function computeCoverageStatistics(
     };
   }
 
-  const patches = findBlindAreas(postsPerCell, siteMask);
+  const { patches, labels } = findBlindAreas(postsPerCell, siteMask);
   const minCells = minArea / cellArea;
   const large = patches.filter((p) => p.cells >= minCells - 1e-9);
   large.sort((a, b) => b.cells - a.cells || a.first - b.first);
@@ -231,26 +245,36 @@ export function computeCoverageStatistics(
     site,
     zones: zoneResults,
     zonesWeighted,
-    blindAreas: listed.map((p) => ({
-      cells: p.cells,
-      area: p.cells * cellArea,
-      centroid: {
-        x: xll + (p.sumCol / p.cells + 0.5) * cellSize,
-        y: yTop - (p.sumRow / p.cells + 0.5) * cellSize,
-        col: p.sumCol / p.cells,
-        row: p.sumRow / p.cells,
-      },
-      bounds: {
-        minCol: p.minCol,
-        maxCol: p.maxCol,
-        minRow: p.minRow,
-        maxRow: p.maxRow,
-        west: xll + p.minCol * cellSize,
-        east: xll + (p.maxCol + 1) * cellSize,
-        south: yTop - (p.maxRow + 1) * cellSize,
-        north: yTop - p.minRow * cellSize,
-      },
-    })),
+    blindAreas: listed.map((p) => {
+      const inside = interiorCell(p, labels, postsPerCell.width);
+      return {
+        cells: p.cells,
+        area: p.cells * cellArea,
+        centroid: {
+          x: xll + (p.sumCol / p.cells + 0.5) * cellSize,
+          y: yTop - (p.sumRow / p.cells + 0.5) * cellSize,
+          col: p.sumCol / p.cells,
+          row: p.sumRow / p.cells,
+        },
+        interior: {
+          x: xll + (inside.col + 0.5) * cellSize,
+          y: yTop - (inside.row + 0.5) * cellSize,
+          col: inside.col,
+          row: inside.row,
+          edgeDistance: inside.edgeDistanceCells * cellSize,
+        },
+        bounds: {
+          minCol: p.minCol,
+          maxCol: p.maxCol,
+          minRow: p.minRow,
+          maxRow: p.maxRow,
+          west: xll + p.minCol * cellSize,
+          east: xll + (p.maxCol + 1) * cellSize,
+          south: yTop - (p.maxRow + 1) * cellSize,
+          north: yTop - p.minRow * cellSize,
+        },
+      };
+    }),
     blindSummary: {
       count: patches.length,
       area: sumCells(patches) * cellArea,
@@ -309,7 +333,21 @@ function areaCoverage(mask: Uint8Array | null, { counts, noData, cross }: Layers
   };
 }
 
+/** The patch's cell farthest from its edge, on its bounding box (other patches there count as outside). */
+function interiorCell(p: Patch, labels: Int32Array, W: number) {
+  const w = p.maxCol - p.minCol + 1;
+  const h = p.maxRow - p.minRow + 1;
+  const mask = new Uint8Array(w * h);
+  for (let r = 0; r < h; r++) {
+    for (let c = 0; c < w; c++) mask[r * w + c] = labels[(p.minRow + r) * W + p.minCol + c] === p.label ? 1 : 0;
+  }
+  const inside = patchInteriorPoint(mask, w, h)!;
+  return { col: p.minCol + inside.col, row: p.minRow + inside.row, edgeDistanceCells: inside.edgeDistanceCells };
+}
+
 interface Patch {
+  /** 1-based label of the patch's cells in `labels`. */
+  label: number;
   cells: number;
   first: number;
   sumCol: number;
@@ -321,7 +359,7 @@ interface Patch {
 }
 
 /** 8-connected patches of site cells with data that no post sees (iterative flood fill). */
-function findBlindAreas(postsPerCell: PostsPerCellRaster, siteMask: Uint8Array | null): Patch[] {
+function findBlindAreas(postsPerCell: PostsPerCellRaster, siteMask: Uint8Array | null): { patches: Patch[]; labels: Int32Array } {
   const { width: W, height: H, counts, noData } = postsPerCell;
   // 1 = blind and not yet visited.
   const open = new Uint8Array(W * H);
@@ -329,6 +367,7 @@ function findBlindAreas(postsPerCell: PostsPerCellRaster, siteMask: Uint8Array |
     if ((siteMask === null || siteMask[i] !== 0) && counts[i] === 0 && noData[i] === 0) open[i] = 1;
   }
   const stack = new Int32Array(W * H);
+  const labels = new Int32Array(W * H);
   const patches: Patch[] = [];
   for (let start = 0; start < open.length; start++) {
     if (open[start] === 0) continue;
@@ -336,6 +375,7 @@ function findBlindAreas(postsPerCell: PostsPerCellRaster, siteMask: Uint8Array |
     let top = 0;
     stack[top++] = start;
     const patch: Patch = {
+      label: patches.length + 1,
       cells: 0,
       first: start,
       sumCol: 0,
@@ -350,6 +390,7 @@ function findBlindAreas(postsPerCell: PostsPerCellRaster, siteMask: Uint8Array |
       const col = i % W;
       const row = (i - col) / W;
       patch.cells++;
+      labels[i] = patch.label;
       patch.sumCol += col;
       patch.sumRow += row;
       if (col < patch.minCol) patch.minCol = col;
@@ -372,5 +413,5 @@ function findBlindAreas(postsPerCell: PostsPerCellRaster, siteMask: Uint8Array |
     }
     patches.push(patch);
   }
-  return patches;
+  return { patches, labels };
 }

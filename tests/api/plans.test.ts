@@ -28,7 +28,14 @@ const agentFor = async (email: string) => {
 let planner: request.Agent;
 let reviewer: request.Agent;
 let observer: request.Agent;
-let body: { siteId: string; title: string; postIds: string[]; targetIds: string[]; conditionSetIds: string[] };
+let body: {
+  siteId: string;
+  title: string;
+  postIds: string[];
+  targetIds: string[];
+  conditionSetIds: string[];
+  standard: { minSeenPct: number; priorityMinPosts: number };
+};
 
 beforeAll(async () => {
   ({ db, drop } = await createTestDatabase());
@@ -51,6 +58,8 @@ beforeAll(async () => {
     postIds: posts.slice(0, 2).map((p: { id: string }) => p.id),
     targetIds: [targets.find((t: { name: string }) => t.name === 'Early smoke column').id],
     conditionSetIds: [sets.find((s: { name: string }) => s.name === 'Refraction spread').id],
+    // A standard every run meets: these tests are about the review cycle; the exceptions have their own below.
+    standard: { minSeenPct: 0, priorityMinPosts: 1 },
   };
 });
 afterAll(async () => {
@@ -74,6 +83,21 @@ const waitForMail = async (to: string, subject: RegExp) => {
 };
 
 describe('the demo scenario', () => {
+  it('records the approved forest plan as an approved exception when it fails its standard, never as meeting it', async () => {
+    const plans = (await reviewer.get('/api/v1/plans?status=approved')).body.items;
+    const season = plans.find((p: { title: string }) => p.title === 'Fire season cover 2026');
+    const history = (await reviewer.get(`/api/v1/plans/${season.id}/revisions`)).body;
+    const revision = history.revisions.at(-1);
+    const review = history.reviews.at(-1);
+    // The demo towers see well under the district's 70 % on the demo terrain.
+    expect(revision.verdict).toMatchObject({ checked: true, passed: false });
+    expect(revision.verdict.failing.map((r: { ruleId: string }) => r.ruleId)).toContain('site-seen');
+    expect(revision.exceptionNote).toMatch(/Short of the standard/);
+    expect(review.decision).toBe('approve');
+    expect(review.justification).toMatch(/season only/);
+    expect(review.comment).not.toMatch(/meets/i);
+  });
+
   it('has one approved, one submitted and one draft plan; observers see only the approved one', async () => {
     const all = (await reviewer.get('/api/v1/plans')).body.items.filter((p: { title: string }) => !p.title.includes('test'));
     expect(all.map((p: { status: string }) => p.status).sort()).toEqual(['approved', 'draft', 'submitted']);
@@ -251,6 +275,86 @@ describe('coverage plan review cycle', () => {
       .send({ decision: 'approve', revision: s3.body.revision })
       .expect(201);
     expect((await planner.get(`/api/v1/plans/${plan.id}`)).body.plan.status).toBe('superseded');
+  });
+
+  it('lets a plan that fails its standard through only as a recorded exception, frozen and shown in the history', async () => {
+    // 100 % of a hilly district seen by two towers cannot be met: every case fails its site rule.
+    // Source: common practice, no source — terrain hides some ground from any tower.
+    const strict = { ...body, title: 'Exception test', standard: { minSeenPct: 100, priorityMinPosts: 2 } };
+    const plan = (await planner.post('/api/v1/plans').send(strict).expect(201)).body.plan;
+    const run = await computeCoverage(plan.id);
+    expect(run.cases.some((c: { check: { passed: boolean } }) => !c.check.passed)).toBe(true);
+    // Each listed blind area carries a point inside it for the map link, in grid metres and degrees.
+    const blind = run.cases.flatMap((c: { blindAreas: { interior?: { latDeg: number } }[] }) => c.blindAreas);
+    expect(blind.length).toBeGreaterThan(0);
+    for (const b of blind)
+      expect(b.interior).toEqual(expect.objectContaining({ latDeg: expect.any(Number), x: expect.any(Number) }));
+
+    // Submitting without a note is refused on the note's field, and nothing is frozen.
+    const bare = await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: plan.rowVersion });
+    expect(bare.status).toBe(422);
+    expect(bare.body.error.code).toBe('exception_required');
+    expect(bare.body.error.fields).toHaveProperty('exceptionNote');
+    const blank = await planner
+      .post(`/api/v1/plans/${plan.id}/submit`)
+      .send({ rowVersion: plan.rowVersion, exceptionNote: '   ' });
+    expect(blank.status).toBe(422);
+    expect((await planner.get(`/api/v1/plans/${plan.id}`)).body.plan.status).toBe('draft');
+    expect((await planner.get(`/api/v1/plans/${plan.id}/revisions`)).body.revisions).toHaveLength(0);
+
+    const note = 'Two towers are all the district has; submitted as an exception.';
+    const sub = await planner
+      .post(`/api/v1/plans/${plan.id}/submit`)
+      .send({ rowVersion: plan.rowVersion, exceptionNote: `  ${note} ` });
+    expect(sub.status).toBe(200);
+    expect(sub.body.verdict).toMatchObject({ checked: true, passed: false });
+    const rev = (await reviewer.get(`/api/v1/plans/${plan.id}/revisions/1`)).body.revision;
+    expect(rev.exceptionNote).toBe(note);
+    expect(rev.verdict.failingCaseCount).toBe(run.cases.filter((c: { check: { passed: boolean } }) => !c.check.passed).length);
+    expect(rev.verdict.failing[0]).toMatchObject({ ruleId: 'site-seen', minPct: 100 });
+    expect(rev.verdict.failing[0].actualPct).toBeLessThan(100);
+
+    // Approving without a justification is refused; returning needs none.
+    const noWhy = await reviewer.post(`/api/v1/plans/${plan.id}/reviews`).send({ decision: 'approve', revision: 1 });
+    expect(noWhy.status).toBe(422);
+    expect(noWhy.body.error).toMatchObject({ code: 'exception_required', fields: { justification: expect.any(String) } });
+    expect((await planner.get(`/api/v1/plans/${plan.id}`)).body.plan.status).toBe('submitted');
+    const why = 'Approved for this season only: no third tower can be staffed before it opens.';
+    const approved = await reviewer
+      .post(`/api/v1/plans/${plan.id}/reviews`)
+      .send({ decision: 'approve', revision: 1, comment: 'Short of the standard.', justification: why });
+    expect(approved.status).toBe(201);
+
+    // The history shows the verdict, the note and the justification.
+    const history = (await observer.get(`/api/v1/plans/${plan.id}/revisions`)).body;
+    expect(history.revisions[0]).toMatchObject({ exceptionNote: note, verdict: { passed: false } });
+    expect(history.reviews[0]).toMatchObject({ decision: 'approve', justification: why });
+
+    // The review is frozen in the database itself, like the revision.
+    await expect(db.query(`UPDATE plan_reviews SET exception_justification = 'x' WHERE plan_id = '${plan.id}'`)).rejects.toThrow(
+      /cannot be changed/,
+    );
+    await expect(db.query(`DELETE FROM plan_reviews WHERE plan_id = '${plan.id}'`)).rejects.toThrow(/cannot be changed/);
+    expect((await observer.get(`/api/v1/plans/${plan.id}/revisions`)).body.reviews[0].justification).toBe(why);
+  });
+
+  it('keeps no exception for a plan that meets its standard', async () => {
+    const plan = (
+      await planner
+        .post('/api/v1/plans')
+        .send({ ...body, title: 'Meets test' })
+        .expect(201)
+    ).body.plan;
+    await computeCoverage(plan.id);
+    const sub = await planner
+      .post(`/api/v1/plans/${plan.id}/submit`)
+      .send({ rowVersion: plan.rowVersion, exceptionNote: 'Not needed.' })
+      .expect(200);
+    expect(sub.body.verdict).toMatchObject({ checked: true, passed: true, failing: [] });
+    const rev = (await reviewer.get(`/api/v1/plans/${plan.id}/revisions/1`)).body.revision;
+    expect(rev.exceptionNote).toBeNull();
+    await reviewer.post(`/api/v1/plans/${plan.id}/reviews`).send({ decision: 'approve', revision: 1 }).expect(201);
+    expect((await reviewer.get(`/api/v1/plans/${plan.id}/revisions`)).body.reviews[0].justification).toBeNull();
   });
 
   it('refuses inputs from outside the site or the organisation, on the right field', async () => {

@@ -65,6 +65,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain coverage on the
       await card.getByText('Not computed yet.').waitFor();
       const refused = page.waitForResponse((r) => r.url().endsWith(`/plans/${plan.id}/submit`));
       await page.getByRole('button', { name: 'Submit for review' }).click();
+      const submitDialog = page.getByRole('dialog', { name: 'Submit this plan for review?' });
+      await submitDialog.getByText('Standard not checked').waitFor();
+      await submitDialog.getByRole('button', { name: 'Submit for review' }).click();
       const refusal = await refused;
       expect(refusal.status()).toBe(409);
       const { error } = (await refusal.json()) as { error: { code: string; message: string } };

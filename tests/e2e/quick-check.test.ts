@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 import { SCREENSHOT_DIR } from '@/tests/support/browser';
 
@@ -38,6 +38,27 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
         .waitFor();
       await shot(page, 'quick-check', viewport);
       await table.screenshot({ path: `${SCREENSHOT_DIR}/quick-check-table-${viewport}.png` });
+      // On a phone the three condition columns do not fit: the table says so.
+      if (viewport === 'phone') await page.getByText('More conditions → scroll sideways').waitFor();
+
+      // One tap takes a library target into the form; converted lengths are rounded sensibly.
+      const targets = (await (await page.request.get(`${e2eUrl()}/api/v1/targets`)).json()).items as {
+        name: string;
+        heightM: number;
+      }[];
+      const smoke = targets.find((t) => t.name === 'Early smoke column')!;
+      await page.getByRole('group', { name: 'Library targets' }).getByRole('checkbox', { name: smoke.name }).click();
+      expect(Number(await page.getByLabel('Target height').inputValue())).toBe(smoke.heightM);
+      await page.getByRole('radiogroup', { name: 'Units' }).getByRole('radio', { name: 'ft · nmi' }).click();
+      // Source: 30 m = 98.425 ft (1 ft = 0.3048 m exactly), shown to three significant digits.
+      expect(await page.getByLabel('Height of eye').inputValue()).toBe('98.4');
+      await shot(page, 'quick-check-library-ft', viewport);
+      await page.getByRole('radiogroup', { name: 'Units' }).getByRole('radio', { name: 'm · km' }).click();
+      expect(await page.getByLabel('Height of eye').inputValue()).toBe('30');
+      // Back to the default target for what follows.
+      await page.getByLabel('Target height').fill('10');
+      await page.getByLabel('Target size').fill('3');
+      await page.getByLabel('Part that must show').fill('0');
       // The view as the lookout sees it: at k = 0 the horizon of a 30 m eye lies √(2h/R) = 10.6′ below eye level.
       // Source: dip of the horizon, √(2h/R) radians for small angles — common practice, no source.
       const dip = ((Math.sqrt((2 * 30) / R) * 180 * 60) / Math.PI).toFixed(1);

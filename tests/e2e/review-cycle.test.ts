@@ -101,6 +101,12 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])(
         await p.getByText('2 of 2 lines').waitFor();
         await shot(p, 'cycle-draft', viewport);
         await p.getByRole('button', { name: 'Submit for review' }).click();
+        // The dialog says what submitting does; the coast has no terrain, so the standard is not checked.
+        const submitDialog = p.getByRole('dialog', { name: 'Submit this plan for review?' });
+        await submitDialog.getByText(/Nobody can edit it until a reviewer returns it/).waitFor();
+        await submitDialog.getByText('Standard not checked').waitFor();
+        await shot(p, 'cycle-submit-dialog', viewport);
+        await submitDialog.getByRole('button', { name: 'Submit for review' }).click();
         await p.getByText(/Revision 1 is frozen and waiting for review\. The reviewers were e-mailed\./).waitFor();
         const planUrl = p.url();
 
@@ -113,10 +119,20 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])(
         await r.getByRole('button', { name: 'Review this plan' }).click();
         await r.getByText('Your decision on revision 1').waitFor();
         await shot(r, 'cycle-review-1', viewport);
+        if (viewport === 'phone') {
+          // On a phone the decision stays in a bar at the bottom of the screen, in view without scrolling.
+          const bar = r.getByRole('toolbar', { name: 'Page actions' });
+          const box = (await bar.boundingBox())!;
+          expect(box.y + box.height).toBeLessThanOrEqual(VIEWPORTS.phone.height);
+          expect(box.y).toBeGreaterThan(VIEWPORTS.phone.height / 2);
+        }
         await r.getByRole('button', { name: 'Return for changes' }).click();
-        await r.getByText('Say what needs to change before returning the plan.').waitFor();
-        await r.getByLabel('Comment').fill('Add the small open boat as a second target.');
-        await r.getByRole('button', { name: 'Return for changes' }).click();
+        const returnDialog = r.getByRole('dialog', { name: 'Return for changes?' });
+        await returnDialog.getByRole('button', { name: 'Return for changes' }).click();
+        await returnDialog.getByText('Say what needs to change before returning the plan.').waitFor();
+        await returnDialog.getByLabel('Comment').fill('Add the small open boat as a second target.');
+        await shot(r, 'cycle-return-dialog', viewport);
+        await returnDialog.getByRole('button', { name: 'Return for changes' }).click();
         await r.getByText('Returned', { exact: true }).waitFor();
 
         // 5. The planner reads the decision, fixes the plan and submits again.
@@ -130,6 +146,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])(
         await p.getByRole('button', { name: 'Save changes' }).click();
         await p.getByText('4 of 4 lines').waitFor();
         await p.getByRole('button', { name: 'Submit for review' }).click();
+        await p
+          .getByRole('dialog', { name: 'Submit this plan for review?' })
+          .getByRole('button', { name: 'Submit for review' })
+          .click();
         await p.getByText(/Revision 2 is frozen/).waitFor();
 
         // 6. The reviewer finds it in the queue, sees what changed, and approves.
@@ -140,6 +160,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])(
         await changes.getByText('Added: Small open boat').waitFor();
         await shot(r, 'cycle-review-2', viewport);
         await r.getByRole('button', { name: 'Approve' }).click();
+        const approveDialog = r.getByRole('dialog', { name: 'Approve revision 2?' });
+        await approveDialog.getByText(/becomes the approved plan/).waitFor();
+        await shot(r, 'cycle-approve-dialog', viewport);
+        await approveDialog.getByRole('button', { name: 'Approve' }).click();
         await r.getByText('Approved', { exact: true }).waitFor();
         await mailTo(DEMO.planner, new RegExp(`Approved: ${title.replace(/[()]/g, '\\$&')}`));
 

@@ -77,6 +77,30 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       await page.getByLabel('E-mail').fill(email);
       await page.getByRole('button', { name: 'Create invitation' }).click();
       await page.getByText('We e-mailed this one-time link').waitFor();
+
+      // Changing a role and deactivating ask first and say what will happen; Cancel changes nothing.
+      const name = `New ${viewport} watcher`;
+      const roles = page.getByRole('radiogroup', { name: `Role of ${name}` });
+      await roles.waitFor();
+      await roles.getByRole('radio', { name: 'reviewer' }).click();
+      const roleDialog = page.getByRole('dialog', { name: `Make ${name} a reviewer?` });
+      await roleDialog.getByText(/approve and return plans other people submitted/).waitFor();
+      await shot(page, 'role-change-dialog', viewport);
+      await roleDialog.getByRole('button', { name: 'Cancel' }).click();
+      await roleDialog.waitFor({ state: 'detached' });
+      expect(await roles.getByRole('radio', { name: 'reviewer' }).getAttribute('aria-checked')).toBe('false');
+      await roles.getByRole('radio', { name: 'reviewer' }).click();
+      await page
+        .getByRole('dialog', { name: `Make ${name} a reviewer?` })
+        .getByRole('button', { name: 'Make reviewer' })
+        .click();
+      await roles.locator('[role="radio"][aria-checked="true"]', { hasText: 'reviewer' }).waitFor();
+      const row = viewport === 'wide' ? page.getByRole('row').filter({ hasText: email }) : page.getByLabel(name, { exact: true });
+      await row.getByRole('button', { name: 'Deactivate' }).click();
+      const off = page.getByRole('dialog', { name: `Deactivate ${name}?` });
+      await off.getByText(/signed out at once and can no longer sign in/).waitFor();
+      await off.getByRole('button', { name: 'Deactivate' }).click();
+      await row.getByRole('button', { name: 'Reactivate' }).waitFor();
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Mail' }).click();
       await page.getByText('Set up your Kenning account for Harrowmere Lookout Service').first().waitFor();
       await page.getByText(`To ${email}`, { exact: false }).first().click();

@@ -1,5 +1,16 @@
 import { UserAdmin } from '@/components/admin/user-admin';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
-export default function UsersScreen() {
+function UsersScreenContent() {
   return <UserAdmin />;
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function UsersScreen() {
+  return (
+    <>
+      <PageTitle title={documentTitle('People and roles')} />
+      <UsersScreenContent />
+    </>
+  );
 }

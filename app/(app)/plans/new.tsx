@@ -2,10 +2,11 @@ import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
 import { PlanEditor } from '@/components/plans/plan-editor';
 import { Screen } from '@/components/ui/screen';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
 const Params = z.object({ siteId: z.uuid().optional().catch(undefined) });
 
-export default function NewPlanRoute() {
+function NewPlanRouteContent() {
   const { siteId } = Params.parse(useLocalSearchParams());
   return (
     <Screen
@@ -15,5 +16,15 @@ export default function NewPlanRoute() {
     >
       <PlanEditor siteId={siteId} />
     </Screen>
+  );
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function NewPlanRoute() {
+  return (
+    <>
+      <PageTitle title={documentTitle('New coverage plan')} />
+      <NewPlanRouteContent />
+    </>
   );
 }

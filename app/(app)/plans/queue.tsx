@@ -1,5 +1,16 @@
 import { ReviewQueue } from '@/components/plans/review-queue';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
-export default function ReviewQueueRoute() {
+function ReviewQueueRouteContent() {
   return <ReviewQueue />;
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function ReviewQueueRoute() {
+  return (
+    <>
+      <PageTitle title={documentTitle('Review queue')} />
+      <ReviewQueueRouteContent />
+    </>
+  );
 }

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import type { PlanLookout, PlanStandard, PlanStatus } from '@/shared/schemas/plan';
 
 export class PlanModel extends Model<InferAttributes<PlanModel>, InferCreationAttributes<PlanModel>> {
@@ -51,6 +58,9 @@ export class PlanRevisionModel extends Model<InferAttributes<PlanRevisionModel>,
   declare contentHash: string;
   declare snapshot: object;
   declare submittedById: string;
+  /** `StandardVerdict` frozen at submission; null in older revisions. */
+  declare standardVerdict: CreationOptional<object | null>;
+  declare exceptionNote: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
 
   static register(sequelize: Sequelize) {
@@ -62,6 +72,8 @@ export class PlanRevisionModel extends Model<InferAttributes<PlanRevisionModel>,
         contentHash: { type: DataTypes.STRING(64), allowNull: false },
         snapshot: { type: DataTypes.JSONB, allowNull: false },
         submittedById: { type: DataTypes.UUID, allowNull: false },
+        standardVerdict: { type: DataTypes.JSONB, allowNull: true, field: 'standard_verdict' },
+        exceptionNote: { type: DataTypes.TEXT, allowNull: true, field: 'exception_note' },
         createdAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'plan_revisions', updatedAt: false },
@@ -76,6 +88,7 @@ export class PlanReviewModel extends Model<InferAttributes<PlanReviewModel>, Inf
   declare decision: 'approve' | 'return';
   declare comment: string;
   declare reviewerId: string;
+  declare exceptionJustification: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
 
   static register(sequelize: Sequelize) {
@@ -87,6 +100,7 @@ export class PlanReviewModel extends Model<InferAttributes<PlanReviewModel>, Inf
         decision: { type: DataTypes.STRING(8), allowNull: false },
         comment: { type: DataTypes.TEXT, allowNull: false },
         reviewerId: { type: DataTypes.UUID, allowNull: false },
+        exceptionJustification: { type: DataTypes.TEXT, allowNull: true, field: 'exception_justification' },
         createdAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'plan_reviews', updatedAt: false },

@@ -2,6 +2,7 @@ import { PlanStandardSchema } from '@/shared/schemas/plan';
 import { col, fn, literal, Op, type Transaction } from 'sequelize';
 import { sortOrder } from '@/shared/schemas/list';
 import type { Plan, PlanInput, PlanListQuery, PlanRevision, PlanSnapshot, PlanStatus } from '@/shared/schemas/plan';
+import type { StandardVerdict } from '@/shared/plans/standard-verdict';
 import { PlanModel, PlanReviewModel, PlanRevisionModel, SiteModel, UserModel } from '../models';
 import { containsText } from './like-pattern';
 
@@ -160,12 +161,34 @@ export const plansRepository = {
     submittedById: string,
     snapshot: PlanSnapshot,
     hash: string,
+    frozen: { verdict: StandardVerdict; exceptionNote: string | null },
     transaction: Transaction,
   ): Promise<number> {
     const last = (await PlanRevisionModel.max('number', { where: { planId }, transaction })) as number | null;
     const number = (last ?? 0) + 1;
-    await PlanRevisionModel.create({ planId, number, contentHash: hash, snapshot, submittedById }, { transaction });
+    await PlanRevisionModel.create(
+      {
+        planId,
+        number,
+        contentHash: hash,
+        snapshot,
+        submittedById,
+        standardVerdict: frozen.verdict,
+        exceptionNote: frozen.exceptionNote,
+      },
+      { transaction },
+    );
     return number;
+  },
+
+  /** The verdict frozen with a revision (null: none was frozen, an older revision). */
+  async revisionVerdict(planId: string, number: number, transaction?: Transaction): Promise<StandardVerdict | null> {
+    const row = await PlanRevisionModel.findOne({
+      where: { planId, number },
+      attributes: ['standardVerdict'],
+      transaction,
+    });
+    return (row?.standardVerdict as StandardVerdict | null | undefined) ?? null;
   },
 
   async revisions(
@@ -175,7 +198,9 @@ export const plansRepository = {
     const rows = await PlanRevisionModel.findAll({
       where: { planId },
       order: [['number', 'ASC']],
-      attributes: withSnapshot ? undefined : ['number', 'contentHash', 'submittedById', 'createdAt'],
+      attributes: withSnapshot
+        ? undefined
+        : ['number', 'contentHash', 'submittedById', 'createdAt', 'standardVerdict', 'exceptionNote'],
     });
     const who = await people(rows.map((r) => r.submittedById));
     return rows.map((r) => ({
@@ -184,6 +209,8 @@ export const plansRepository = {
       ...(withSnapshot && { snapshot: r.snapshot as PlanSnapshot }),
       submittedBy: someone(who, r.submittedById),
       submittedAt: r.createdAt.toISOString(),
+      verdict: (r.standardVerdict as StandardVerdict | null) ?? null,
+      exceptionNote: r.exceptionNote ?? null,
     }));
   },
 
@@ -193,7 +220,13 @@ export const plansRepository = {
 
   async addReview(
     planId: string,
-    review: { revision: number; decision: 'approve' | 'return'; comment: string; reviewerId: string },
+    review: {
+      revision: number;
+      decision: 'approve' | 'return';
+      comment: string;
+      reviewerId: string;
+      exceptionJustification: string | null;
+    },
     transaction: Transaction,
   ) {
     await PlanReviewModel.create({ planId, ...review }, { transaction });
@@ -206,6 +239,7 @@ export const plansRepository = {
       revision: r.revision,
       decision: r.decision,
       comment: r.comment,
+      justification: r.exceptionJustification ?? null,
       reviewer: someone(who, r.reviewerId),
       at: r.createdAt.toISOString(),
     }));

@@ -350,6 +350,7 @@ export async function computeCoverage(
           cells: b.cells,
           area: b.area,
           centroid: { x: b.centroid.x, y: b.centroid.y, ...projection.toLatLon(b.centroid.x, b.centroid.y) },
+          interior: { x: b.interior.x, y: b.interior.y, ...projection.toLatLon(b.interior.x, b.interior.y) },
         })),
         blindSummary: {
           count: statistics.blindSummary.count,

@@ -11,6 +11,7 @@ import type { Mailer } from '@/server/mail/mailer';
 import { planSubmitted, reviewDecided } from '@/server/mail/templates';
 import type { Actor } from '../actor';
 import { coverageForSubmit } from '../coverage/coverage-snapshot';
+import { standardVerdict, type StandardVerdict } from '@/shared/plans/standard-verdict';
 import { buildSnapshot, contentHash } from './build-snapshot';
 import { verifiedRevision } from './verify-revision';
 
@@ -141,9 +142,31 @@ async function notify(deps: PlanDeps, to: string[], message: () => { subject: st
   }
 }
 
-/** Freezes every input and result in a new revision and hands the plan to the reviewers. */
-export async function submitPlan(deps: PlanDeps, actor: Actor, id: string, rowVersion: number) {
-  const { plan, revision, siteName } = await deps.db.transaction(async (t) => {
+/** Plain words for the plan's failing rules, for the 422 answers. */
+function shortfall(verdict: StandardVerdict): string {
+  const n = verdict.failingCaseCount;
+  return `The plan does not meet its coverage standard in ${n} of ${verdict.caseCount} case${verdict.caseCount === 1 ? '' : 's'}`;
+}
+
+/** 422 `exception_required`: a plan that fails its standard goes on only as a recorded exception. */
+function exceptionRequired(message: string, field: string, reason: string) {
+  return new AppError(422, 'exception_required', message, { [field]: reason });
+}
+
+/**
+ * Freezes every input and result in a new revision, with the plan's verdict
+ * against its standard, and hands the plan to the reviewers. A plan that
+ * fails its standard is submitted only with an exception note saying why
+ * (422 `exception_required` otherwise); the note is frozen with the revision.
+ */
+export async function submitPlan(
+  deps: PlanDeps,
+  actor: Actor,
+  id: string,
+  input: { rowVersion: number; exceptionNote?: string },
+) {
+  const { rowVersion } = input;
+  const { plan, revision, siteName, verdict } = await deps.db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That plan');
     if (!EDITABLE.includes(before.status))
@@ -159,6 +182,15 @@ export async function submitPlan(deps: PlanDeps, actor: Actor, id: string, rowVe
         'coverage_missing',
       );
     }
+    const verdict = standardVerdict(coverage.snapshot?.cases);
+    const note = input.exceptionNote?.trim() ?? '';
+    if (!verdict.passed && note === '') {
+      throw exceptionRequired(
+        `${shortfall(verdict)}. Submit it only as an exception: say why in an exception note, or change the plan.`,
+        'exceptionNote',
+        'Say why this plan should be reviewed although it does not meet its standard.',
+      );
+    }
     const snapshot = buildSnapshot({
       title: before.title,
       standard: before.standard,
@@ -166,7 +198,16 @@ export async function submitPlan(deps: PlanDeps, actor: Actor, id: string, rowVe
       ...inputs,
       coverage: coverage.snapshot,
     });
-    const revision = await plansRepository.addRevision(id, actor.userId, snapshot, contentHash(snapshot), t);
+    // A note on a plan that meets its standard has nothing to except: it is not kept as one.
+    const exceptionNote = verdict.passed ? null : note;
+    const revision = await plansRepository.addRevision(
+      id,
+      actor.userId,
+      snapshot,
+      contentHash(snapshot),
+      { verdict, exceptionNote },
+      t,
+    );
     await plansRepository.setStatus(id, 'submitted', t);
     await auditRepository.record(
       actor,
@@ -175,11 +216,16 @@ export async function submitPlan(deps: PlanDeps, actor: Actor, id: string, rowVe
         entityType: 'plan',
         entityId: id,
         before: { status: before.status },
-        after: { status: 'submitted', revision },
+        after: { status: 'submitted', revision, verdictPassed: verdict.passed, exceptionNote },
       },
       t,
     );
-    return { plan: (await plansRepository.find(actor.organizationId, id, t))!, revision, siteName: inputs.site.name };
+    return {
+      plan: (await plansRepository.find(actor.organizationId, id, t))!,
+      revision,
+      siteName: inputs.site.name,
+      verdict,
+    };
   });
   const message = () =>
     planSubmitted({
@@ -190,15 +236,33 @@ export async function submitPlan(deps: PlanDeps, actor: Actor, id: string, rowVe
       reviewUrl: deps.planUrl(id),
     });
   const mailed = await notify(deps, await plansRepository.reviewerEmails(actor.organizationId), message);
-  return { plan, revision, mailed };
+  return { plan, revision, verdict, mailed };
 }
 
-/** A reviewer approves or returns the revision they read. */
+/**
+ * The verdict submitting the plan now would freeze: its finished coverage
+ * run for today's inputs against its standard (not checked without one).
+ */
+export async function submitVerdict(deps: Pick<PlanDeps, 'db'>, actor: Actor, id: string): Promise<StandardVerdict> {
+  return deps.db.transaction(async (t) => {
+    const plan = await getPlan(actor, id);
+    const inputs = await loadPlanInputs(actor, plan, t);
+    const coverage = await coverageForSubmit(actor.organizationId, plan, inputs, t);
+    return standardVerdict(coverage.snapshot?.cases);
+  });
+}
+
+/**
+ * A reviewer approves or returns the revision they read. Approving a
+ * revision that fails its standard needs a written justification (422
+ * `exception_required` otherwise), kept with the review, which the database
+ * never lets change.
+ */
 export async function reviewPlan(
   deps: PlanDeps,
   actor: Actor,
   id: string,
-  input: { decision: 'approve' | 'return'; comment: string; revision: number },
+  input: { decision: 'approve' | 'return'; comment: string; revision: number; justification?: string },
 ) {
   const plan = await deps.db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
@@ -212,7 +276,28 @@ export async function reviewPlan(
         'stale_revision',
       );
     }
-    await plansRepository.addReview(id, { ...input, reviewerId: actor.userId }, t);
+    const verdict = await plansRepository.revisionVerdict(id, input.revision, t);
+    const failing = verdict !== null && !verdict.passed;
+    const justification = input.justification?.trim() ?? '';
+    if (failing && input.decision === 'approve' && justification === '') {
+      throw exceptionRequired(
+        `${shortfall(verdict)}. Approve it only as an exception, with a written justification, or return it.`,
+        'justification',
+        'Write why this plan is approved although it does not meet its standard.',
+      );
+    }
+    const exceptionJustification = failing && input.decision === 'approve' ? justification : null;
+    await plansRepository.addReview(
+      id,
+      {
+        revision: input.revision,
+        decision: input.decision,
+        comment: input.comment,
+        reviewerId: actor.userId,
+        exceptionJustification,
+      },
+      t,
+    );
     const status = input.decision === 'approve' ? 'approved' : 'returned';
     await plansRepository.setStatus(id, status, t);
     // An approved new version supersedes the approved plan it replaces.
@@ -224,7 +309,7 @@ export async function reviewPlan(
         entityType: 'plan',
         entityId: id,
         before: { status: before.status },
-        after: { status, revision: input.revision, comment: input.comment },
+        after: { status, revision: input.revision, comment: input.comment, exceptionJustification },
       },
       t,
     );

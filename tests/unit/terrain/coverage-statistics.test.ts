@@ -122,6 +122,45 @@ describe('computeCoverageStatistics on a hand-counted grid', () => {
     expect(p1!.centroid.row).toBeCloseTo(1 / 3, 12);
   });
 
+  test('each blind area has an interior point in one of its own cells (regression: the map link landed on seen ground)', () => {
+    const [p2, p1] = stats.blindAreas;
+    // P2's cell farthest from its edge: every cell of it touches seen ground, so 1 cell, and the
+    // tie goes to the cell nearest its centroid (3, 2), which is in it.
+    expect(p2!.interior).toMatchObject({ col: 3, row: 2, edgeDistance: 10 });
+    expect(p2!.interior.x).toBeCloseTo(500_000 + 3.5 * 10, 9);
+    expect(p1!.interior).toMatchObject({ col: 0, row: 0 });
+
+    // A U-shaped blind patch on a 7 × 6 grid: its centroid (col 3, row ≈ 2.6) is seen ground.
+    const u = [
+      [1, 1, 1, 1, 1, 1, 1],
+      [1, 0, 1, 1, 1, 0, 1],
+      [1, 0, 1, 1, 1, 0, 1],
+      [1, 0, 1, 1, 1, 0, 1],
+      [1, 0, 0, 0, 0, 0, 1],
+      [1, 1, 1, 1, 1, 1, 1],
+    ].flat();
+    const uGrid = gridOf(7, 6, 10, 500_000, 5_700_000);
+    const uCounts = Uint8Array.from(u);
+    const uPosts: PostsPerCellRaster = {
+      ...uGrid,
+      counts: uCounts,
+      noData: new Uint8Array(42),
+      layer: new Uint8Array(42),
+      postCount: 1,
+    };
+    const uCross: CrossBearingRaster = {
+      ...uGrid,
+      classes: new Uint8Array(42),
+      bestAngle: new Float32Array(42),
+      minCrossingAngle: Math.PI / 6,
+    };
+    const [patch] = computeCoverageStatistics(uPosts, uCross, null, [], { blindAreaMinArea: 0 }).blindAreas;
+    expect(patch!.cells).toBe(11);
+    const at = (col: number, row: number) => uCounts[row * 7 + col];
+    expect(at(Math.round(patch!.centroid.col), Math.round(patch!.centroid.row))).toBe(1); // centroid on seen ground
+    expect(at(patch!.interior.col, patch!.interior.row)).toBe(0); // interior point blind
+  });
+
   test('the list is cut at maxBlindAreas; without a site mask the whole grid counts', () => {
     const cut = computeCoverageStatistics(postsPerCell, crossBearings, siteMask, [], { blindAreaMinArea: 0, maxBlindAreas: 1 });
     expect(cut.blindAreas.map((b) => b.cells)).toEqual([5]);

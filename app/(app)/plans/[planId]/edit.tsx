@@ -5,8 +5,9 @@ import { AppText } from '@/components/ui/app-text';
 import { BadAddress } from '@/components/ui/bad-address';
 import { Screen } from '@/components/ui/screen';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
-export default function EditPlanRoute() {
+function EditPlanRouteContent() {
   const planId = usePlanId();
   return planId ? <EditPlan planId={planId} /> : <BadAddress title="Edit plan" what="a plan" />;
 }
@@ -28,5 +29,15 @@ function EditPlan({ planId }: { planId: string }) {
         </Notice>
       )}
     </Screen>
+  );
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function EditPlanRoute() {
+  return (
+    <>
+      <PageTitle title={documentTitle('Edit plan')} />
+      <EditPlanRouteContent />
+    </>
   );
 }

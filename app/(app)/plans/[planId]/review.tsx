@@ -1,8 +1,19 @@
 import { ReviewPanel } from '@/components/plans/review-panel';
 import { usePlanId } from '@/components/plans/use-plan-id';
 import { BadAddress } from '@/components/ui/bad-address';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
-export default function ReviewRoute() {
+function ReviewRouteContent() {
   const planId = usePlanId();
   return planId ? <ReviewPanel planId={planId} /> : <BadAddress title="Review" what="a plan" />;
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function ReviewRoute() {
+  return (
+    <>
+      <PageTitle title={documentTitle('Review a plan')} />
+      <ReviewRouteContent />
+    </>
+  );
 }

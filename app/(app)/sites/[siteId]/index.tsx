@@ -4,10 +4,11 @@ import { SiteOverview } from '@/components/sites/site-overview';
 import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
 import { AppText } from '@/components/ui/app-text';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
 const Params = z.object({ siteId: z.uuid() });
 
-export default function SiteScreen() {
+function SiteScreenContent() {
   const parsed = Params.safeParse(useLocalSearchParams());
   if (!parsed.success) {
     return (
@@ -19,4 +20,14 @@ export default function SiteScreen() {
     );
   }
   return <SiteOverview siteId={parsed.data.siteId} />;
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function SiteScreen() {
+  return (
+    <>
+      <PageTitle title={documentTitle('Site')} />
+      <SiteScreenContent />
+    </>
+  );
 }

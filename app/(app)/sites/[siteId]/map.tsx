@@ -5,6 +5,7 @@ import { SiteMapScreen } from '@/components/map/site-map-screen';
 import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
 const Params = z.object({
   siteId: z.uuid(),
@@ -15,9 +16,11 @@ const Params = z.object({
   /** A point to centre on and start the profile to (e.g. a blind area), degrees. */
   lat: z.coerce.number().min(-90).max(90).optional(),
   lon: z.coerce.number().min(-180).max(180).optional(),
+  /** `1`: the point is inside a blind area of the case; outline it. */
+  blind: z.literal('1').optional(),
 });
 
-export default function SiteMapRoute() {
+function SiteMapRouteContent() {
   const parsed = Params.safeParse(useLocalSearchParams());
   if (!parsed.success) {
     return (
@@ -28,11 +31,28 @@ export default function SiteMapRoute() {
       </Screen>
     );
   }
-  const { siteId, postId, runId, caseKey, lat, lon } = parsed.data;
+  const { siteId, postId, runId, caseKey, lat, lon, blind } = parsed.data;
   const at = lat !== undefined && lon !== undefined ? { latDeg: lat, lonDeg: lon } : null;
   return runId ? (
-    <RunMapScreen siteId={siteId} runId={runId} caseKey={caseKey ?? null} focusPostId={postId ?? null} focusAt={at} />
+    <RunMapScreen
+      siteId={siteId}
+      runId={runId}
+      caseKey={caseKey ?? null}
+      focusPostId={postId ?? null}
+      focusAt={at}
+      outlineBlindArea={blind === '1'}
+    />
   ) : (
     <SiteMapScreen siteId={siteId} focusPostId={postId ?? null} focusAt={at} />
+  );
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function SiteMapRoute() {
+  return (
+    <>
+      <PageTitle title={documentTitle('Site map')} />
+      <SiteMapRouteContent />
+    </>
   );
 }

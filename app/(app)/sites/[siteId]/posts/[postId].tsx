@@ -5,10 +5,11 @@ import { PostEditor } from '@/components/sites/post-editor';
 import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
 const Params = z.object({ siteId: z.uuid(), postId: z.uuid() });
 
-export default function PostScreen() {
+function PostScreenContent() {
   const parsed = Params.safeParse(useLocalSearchParams());
   if (!parsed.success) {
     return (
@@ -34,4 +35,14 @@ function PostRoute({ siteId, postId }: z.infer<typeof Params>) {
     );
   }
   return <PostEditor siteId={siteId} post={post.data} onReload={() => void post.refetch()} />;
+}
+
+/** The tab's title until the page below names itself more precisely. */
+export default function PostScreen() {
+  return (
+    <>
+      <PageTitle title={documentTitle('Post')} />
+      <PostScreenContent />
+    </>
+  );
 }
