@@ -105,3 +105,23 @@ export function rangeMarks(
     .filter((m): m is RangeMark => m !== null && Number.isFinite(m.distanceM))
     .sort((a, b) => a.distanceM - b.distanceM);
 }
+
+/** Label rows of the range strip, nearest the line first: y of the text baseline. */
+export const LABEL_ROWS = [24, 54, 11, 67] as const;
+export const LINE_Y = 34;
+
+/**
+ * Places each mark's label on the first row where it does not overlap the
+ * labels already there (labels about 5.6 px a character at 10.5 px).
+ */
+export function placeLabels(marks: { text: string; x: number }[], width: number): { x: number; y: number }[] {
+  const ends: number[] = LABEL_ROWS.map(() => -Infinity);
+  return marks.map((m) => {
+    const w = m.text.length * 5.6;
+    const x0 = Math.min(Math.max(0, m.x - w / 2), Math.max(0, width - w));
+    let row = ends.findIndex((end) => x0 > end + 6);
+    if (row < 0) row = ends.indexOf(Math.min(...ends));
+    ends[row] = x0 + w;
+    return { x: x0, y: LABEL_ROWS[row]! };
+  });
+}

@@ -7,10 +7,10 @@ import { AppText } from '@/components/ui/app-text';
 import { colors, fonts, space } from '@/components/ui/theme';
 import type { ConditionLabel } from './check-form-model';
 import { formatLength } from './format';
-import { lookoutScene, rangeMarks, type LookoutScene, type RangeMark } from './lookout-view-model';
+import { LINE_Y, lookoutScene, placeLabels, rangeMarks, type LookoutScene, type RangeMark } from './lookout-view-model';
 
 const STRIP_H = 112;
-const RANGE_H = 58;
+const RANGE_H = 74;
 
 const arcmin = (v: number) => `${v >= 0 ? '+' : '−'}${Math.abs(v) >= 100 ? Math.abs(v).toFixed(0) : Math.abs(v).toFixed(1)}′`;
 
@@ -150,40 +150,37 @@ function RangeStrip({ marks, width, farthest, unit }: { marks: RangeMark[]; widt
   const pad = 8;
   const x = (d: number) => pad + (d / (farthest * 1.04)) * (width - 2 * pad);
   const detected = marks.find((m) => m.key === 'detection');
+  const texts = marks.map((m) => `${m.label} ${formatLength(m.distanceM, unit)}`);
+  const placed = placeLabels(
+    marks.map((m, i) => ({ text: texts[i]!, x: x(m.distanceM) })),
+    width,
+  );
   return (
-    <Svg
-      width={width}
-      height={RANGE_H}
-      role="img"
-      aria-label={marks.map((m) => `${m.label} ${formatLength(m.distanceM, unit)}`).join(', ')}
-    >
-      <Line x1={pad} x2={width - pad} y1={26} y2={26} stroke={colors.lineStrong} strokeWidth={2} />
-      {detected ? <Rect x={pad} y={22} width={Math.max(0, x(detected.distanceM) - pad)} height={8} fill={colors.moss} /> : null}
-      {marks.map((m, i) => {
-        const above = i % 2 === 0;
-        const xx = x(m.distanceM);
-        const anchor = xx > width * 0.8 ? 'end' : xx < width * 0.2 ? 'start' : 'middle';
-        return (
-          <SvgText
-            key={m.key}
-            x={xx}
-            y={above ? 14 : 48}
-            fontSize={10.5}
-            fontFamily={fonts.medium}
-            textAnchor={anchor}
-            fill={m.key === 'target' ? colors.emberDeep : colors.ink}
-          >
-            {`${m.label} ${formatLength(m.distanceM, unit)}`}
-          </SvgText>
-        );
-      })}
+    <Svg width={width} height={RANGE_H} role="img" aria-label={texts.join(', ')}>
+      <Line x1={pad} x2={width - pad} y1={LINE_Y} y2={LINE_Y} stroke={colors.lineStrong} strokeWidth={2} />
+      {detected ? (
+        <Rect x={pad} y={LINE_Y - 4} width={Math.max(0, x(detected.distanceM) - pad)} height={8} fill={colors.moss} />
+      ) : null}
+      {marks.map((m, i) => (
+        <SvgText
+          key={m.key}
+          x={placed[i]!.x}
+          y={placed[i]!.y}
+          fontSize={10.5}
+          fontFamily={fonts.medium}
+          textAnchor="start"
+          fill={m.key === 'target' ? colors.emberDeep : colors.ink}
+        >
+          {texts[i]}
+        </SvgText>
+      ))}
       {marks.map((m) => (
         <Line
           key={`tick-${m.key}`}
           x1={x(m.distanceM)}
           x2={x(m.distanceM)}
-          y1={18}
-          y2={34}
+          y1={LINE_Y - 8}
+          y2={LINE_Y + 8}
           stroke={m.key === 'target' ? colors.ember : colors.ink}
           strokeWidth={m.key === 'target' ? 2.5 : 1.5}
         />

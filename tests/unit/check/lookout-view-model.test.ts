@@ -1,4 +1,4 @@
-import { ARCMIN_PER_RAD, lookoutScene, rangeMarks } from '@/components/check/lookout-view-model';
+import { ARCMIN_PER_RAD, lookoutScene, placeLabels, rangeMarks } from '@/components/check/lookout-view-model';
 import { SightlineRequestSchema } from '@/shared/schemas/sightline';
 import { evaluateSightline } from '@/shared/sightline/evaluate-sightline';
 
@@ -64,5 +64,23 @@ describe('rangeMarks', () => {
     const detection = marks.find((m) => m.key === 'detection')!;
     expect(detection.distanceM).toBe(r.detectionRangeM);
     expect(rangeMarks(r).some((m) => m.key === 'target')).toBe(false);
+  });
+});
+
+describe('placeLabels', () => {
+  test('labels on one row never overlap, and none leaves the strip', () => {
+    // common practice, no source: labels that overlap cannot be read.
+    const marks = [3.4, 19.6, 20, 25, 30.8, 31].map((km) => ({ text: `mark ${km} km`, x: km * 10 }));
+    const placed = placeLabels(marks, 320);
+    const spans = placed.map((p, i) => ({ y: p.y, x0: p.x, x1: p.x + marks[i]!.text.length * 5.6 }));
+    for (let i = 0; i < spans.length; i++) {
+      expect(spans[i]!.x0).toBeGreaterThanOrEqual(0);
+      expect(spans[i]!.x1).toBeLessThanOrEqual(320 + 1e-9);
+      for (let j = i + 1; j < spans.length; j++) {
+        if (spans[i]!.y !== spans[j]!.y) continue;
+        expect(spans[i]!.x1 < spans[j]!.x0 || spans[j]!.x1 < spans[i]!.x0).toBe(true);
+      }
+    }
+    expect(new Set(placed.map((p) => p.y)).size).toBeGreaterThan(1);
   });
 });
