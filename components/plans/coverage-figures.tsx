@@ -396,8 +396,8 @@ function ConditionBand({
         ))}
       </View>
       <AppText variant="small" tone="muted">
-        Refraction near the horizon varies widely from hour to hour; a plan that meets its standard only under some conditions
-        should say which ones it relies on.
+        Refraction changes from hour to hour; a plan that meets its standard only under some conditions should say which ones it
+        relies on.
       </AppText>
     </View>
   );
