@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ringSelfIntersection } from '@/shared/geo/ring-self-intersection';
 import { LatLonSchema } from './coordinate';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
@@ -34,7 +35,16 @@ export const RingSchema = z
   .refine(
     (ring) => new Set(ring.slice(0, -1).map((p) => p.join(','))).size >= 3,
     'A boundary needs at least three distinct corners.',
-  );
+  )
+  .superRefine((ring, ctx) => {
+    const crossing = ringSelfIntersection(ring);
+    if (crossing) {
+      ctx.addIssue({
+        code: 'custom',
+        message: `The ring crosses itself near ${crossing[1].toFixed(5)}, ${crossing[0].toFixed(5)} (latitude, longitude): move a corner so its sides do not cross.`,
+      });
+    }
+  });
 
 export const PriorityZoneSchema = z.object({
   name: z.string().trim().min(1, 'Name the zone.').max(120),
@@ -59,7 +69,10 @@ export const SiteSchema = z.object({
   /** Land/sea mask from the terrain: cells at or below this height are sea, metres; null = not stated. */
   seaLevelMaxM: z.number().nullable().default(null),
   /** The sea part of the site as a ring ([lon, lat], WGS84); null = not drawn. */
-  seaArea: z.array(z.tuple([z.number(), z.number()])).nullable().default(null),
+  seaArea: z
+    .array(z.tuple([z.number(), z.number()]))
+    .nullable()
+    .default(null),
   version: z.number().int(),
   /** ISO 8601. */
   updatedAt: z.string(),
