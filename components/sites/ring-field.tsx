@@ -5,9 +5,11 @@ import { Segmented } from '@/components/check/unit-switch';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { colors, radius, space } from '@/components/ui/theme';
+import { GeoJsonImport } from './geojson-import';
+import { RingDrawMap, type RingDrawContext } from './ring-draw-map';
 import { RingTextEntry, type Ring } from './ring-text-entry';
 
-type Mode = 'type';
+type Mode = 'draw' | 'type' | 'import';
 
 /** How many distinct corners a ring has (a closing corner is not counted). */
 export function cornerCount(ring: Ring | null): number {
@@ -28,14 +30,17 @@ export function RingField({
   onChange,
   error,
   optional,
+  drawContext,
 }: {
   label: string;
   ring: Ring | null;
   onChange: (ring: Ring | null) => void;
   error?: string;
   optional?: boolean;
+  /** What the drawing map shows around the outline. */
+  drawContext: RingDrawContext;
 }) {
-  const [mode, setMode] = useState<Mode>('type');
+  const [mode, setMode] = useState<Mode>('draw');
   const [editing, setEditing] = useState(false);
   const n = cornerCount(ring);
   return (
@@ -67,8 +72,33 @@ export function RingField({
             label="Enter it by"
             value={mode}
             onChange={setMode}
-            options={[{ value: 'type', label: 'Typing corners' }]}
+            options={[
+              { value: 'draw', label: 'Drawing on the map' },
+              { value: 'type', label: 'Typing corners' },
+              { value: 'import', label: 'Importing GeoJSON' },
+            ]}
           />
+          {mode === 'draw' ? (
+            <RingDrawMap
+              label={label}
+              ring={ring}
+              context={drawContext}
+              onDone={(r) => {
+                onChange(r);
+                setEditing(false);
+              }}
+              onCancel={() => setEditing(false)}
+            />
+          ) : null}
+          {mode === 'import' ? (
+            <GeoJsonImport
+              label={`${label} from a file`}
+              onUse={(p) => {
+                onChange(p.ring);
+                setEditing(false);
+              }}
+            />
+          ) : null}
           {mode === 'type' ? (
             <RingTextEntry
               label={label}
@@ -79,7 +109,9 @@ export function RingField({
               }}
             />
           ) : null}
-          <Button kind="quiet" label="Close" onPress={() => setEditing(false)} style={{ alignSelf: 'flex-start' }} />
+          {mode !== 'draw' ? (
+            <Button kind="quiet" label="Close" onPress={() => setEditing(false)} style={{ alignSelf: 'flex-start' }} />
+          ) : null}
         </View>
       ) : (
         <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>

@@ -1,4 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useQuery } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { Controller, useFieldArray, useForm, type Path } from 'react-hook-form';
@@ -17,14 +18,17 @@ import {
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
 import { applyServerErrors } from '@/components/data/server-errors';
-import { useCreateSite, useUpdateSite } from '@/components/data/sites';
+import { sitePostsQuery, useCreateSite, useUpdateSite } from '@/components/data/sites';
+import { siteTerrainQuery } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
+import { GeoJsonImport } from './geojson-import';
 import { RingField } from './ring-field';
+import type { RingDrawContext } from './ring-draw-map';
 
 type UnitSystem = (typeof UNIT_SYSTEM_IDS)[number];
 export const UNIT_SYSTEM_LABELS: Record<UnitSystem, string> = {
@@ -98,11 +102,24 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
   const saving = site ? update : create;
   const [formError, setFormError] = useState('');
   const [stale, setStale] = useState(false);
-  const { control, handleSubmit, setError, formState } = useForm<FormIn, unknown, FormOut>({
+  const [importing, setImporting] = useState(false);
+  const { control, handleSubmit, setError, formState, watch } = useForm<FormIn, unknown, FormOut>({
     resolver: zodResolver(SiteFormSchema),
     defaultValues: valuesOf(site),
   });
   const zones = useFieldArray({ control, name: 'priorityZones' });
+  const posts = useQuery({ ...sitePostsQuery(site?.id ?? ''), enabled: !!site });
+  const terrain = useQuery({ ...siteTerrainQuery(site?.id ?? ''), enabled: !!site });
+  const boundary = watch('boundary') ?? null;
+  const zoneValues = watch('priorityZones');
+  /** The drawing map's surroundings for one outline: the site's terrain and posts and the form's other outlines. */
+  const drawContext = (editing: 'boundary' | number): RingDrawContext => ({
+    site: site ?? null,
+    posts: posts.data ?? [],
+    terrain: terrain.data ?? null,
+    boundary: editing === 'boundary' ? null : boundary,
+    zones: zoneValues.flatMap((z, i) => (i !== editing && z.ring ? [{ name: z.name || `Zone ${i + 1}`, ring: z.ring }] : [])),
+  });
 
   const submit = handleSubmit((v) => {
     setFormError('');
@@ -169,6 +186,7 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
             onChange={field.onChange}
             error={fieldState.error?.message}
             optional
+            drawContext={drawContext('boundary')}
           />
         )}
       />
@@ -207,6 +225,7 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
                   ring={field.value ?? null}
                   onChange={field.onChange}
                   error={fieldState.error?.message}
+                  drawContext={drawContext(i)}
                 />
               )}
             />
@@ -224,6 +243,22 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
           onPress={() => zones.append({ name: '', weight: '5', ring: null })}
           style={{ alignSelf: 'flex-start' }}
         />
+        {importing ? (
+          <GeoJsonImport
+            label="Zones from a GeoJSON file"
+            onUseAll={(found) => {
+              zones.append(found.map((p) => ({ name: p.name, weight: '5', ring: p.ring })));
+              setImporting(false);
+            }}
+          />
+        ) : (
+          <Button
+            kind="quiet"
+            label="Import zones from a GeoJSON file"
+            onPress={() => setImporting(true)}
+            style={{ alignSelf: 'flex-start' }}
+          />
+        )}
       </View>
       {stale ? (
         <Notice tone="danger" title="Not saved: this site changed">

@@ -1,4 +1,7 @@
 import type { Express } from 'express';
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { polygonsFromGeoJson } from '@/shared/geo/polygons-from-geojson';
 import { AuditEventModel, SiteModel } from '@/server/data/models';
 import { createTestApp } from '@/tests/support/test-db';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
@@ -94,15 +97,13 @@ describe('site setup through the API', () => {
       .send({ name: ' ', timeZone: 'Nowhere/Land', defaultUnits: 'cubits', version: body.site.version });
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['name', 'timeZone', 'defaultUnits']));
-    const good = await planner
-      .patch(`/api/v1/sites/${body.site.id}`)
-      .send({
-        name: 'Edited',
-        timeZone: 'America/Anchorage',
-        defaultUnits: 'imperial',
-        boundary: RING,
-        version: body.site.version,
-      });
+    const good = await planner.patch(`/api/v1/sites/${body.site.id}`).send({
+      name: 'Edited',
+      timeZone: 'America/Anchorage',
+      defaultUnits: 'imperial',
+      boundary: RING,
+      version: body.site.version,
+    });
     expect(good.status).toBe(200);
     expect(good.body.site).toMatchObject({ name: 'Edited', timeZone: 'America/Anchorage', defaultUnits: 'imperial', version: 1 });
     expect(await AuditEventModel.count({ where: { entityId: body.site.id, action: 'update' } })).toBe(1);
@@ -115,6 +116,40 @@ describe('site setup through the API', () => {
     expect(res.body.error.code).toBe('site_has_approved_plans');
     expect(res.body.error.message).toMatch(/approved plan.*cannot be deleted/);
     expect(await SiteModel.findByPk(demo!.id)).not.toBeNull();
+  });
+
+  it('takes outlines imported from GeoJSON: a polygon with a hole as the boundary, a MultiPolygon’s parts as zones', async () => {
+    // The app reads the file with the shared importer and sends rings; the server checks them with the same ring schema.
+    const read = (name: string) =>
+      polygonsFromGeoJson(readFileSync(path.join(__dirname, '..', 'fixtures', 'geojson', name), 'utf8'));
+    const [district] = read('lake-district-with-hole.geojson');
+    const parts = read('island-parts.geojson');
+    // Source: tests/fixtures/geojson/README.md (GDAL 3.6.2): 1 hole; 3 parts.
+    expect(district!.holes).toBe(1);
+    expect(parts).toHaveLength(3);
+    const res = await planner.post('/api/v1/sites').send({
+      name: district!.name,
+      kind: 'coast-stretch',
+      boundary: district!.ring,
+      priorityZones: parts.map((p) => ({ name: p.name, weight: 4, ring: p.ring })),
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.site.boundary).toEqual(district!.ring);
+    expect(res.body.site.priorityZones.map((z: { name: string }) => z.name)).toEqual([
+      'Skerry group, part 1',
+      'Skerry group, part 2',
+      'Skerry group, part 3',
+    ]);
+    expect(res.body.site.priorityZones[1].ring).toEqual(parts[1]!.ring);
+  });
+
+  it('refuses the crossed GeoJSON outline when sent as a boundary', async () => {
+    const text = readFileSync(path.join(__dirname, '..', 'fixtures', 'geojson', 'crossed-outline.geojson'), 'utf8');
+    const ring = JSON.parse(text).coordinates[0];
+    const res = await planner.post('/api/v1/sites').send({ name: 'Crossed import', kind: 'search-area', boundary: ring });
+    expect(res.status).toBe(400);
+    // Source: tests/fixtures/geojson/README.md — SpatiaLite reports Self-intersection[13.2 60.6].
+    expect(res.body.error.fields.boundary).toMatch(/crosses itself near 60\.60000, 13\.20000/);
   });
 
   it('lets only planners create, edit or delete sites', async () => {
