@@ -138,7 +138,8 @@ export function useDeleteSite(siteId: string) {
     mutationFn: () => api.delete(`/v1/sites/${siteId}`),
     onSuccess: () => {
       qc.removeQueries({ queryKey: siteKeys.detail(siteId) });
-      return qc.invalidateQueries({ queryKey: siteKeys.all });
+      // Not awaited: the screen leaves the deleted record before the lists refetch.
+      void qc.invalidateQueries({ queryKey: siteKeys.all });
     },
   });
 }
@@ -150,7 +151,8 @@ export function useDeletePost(siteId: string, postId: string) {
     mutationFn: () => api.delete(`/v1/sites/${siteId}/posts/${postId}`),
     onSuccess: () => {
       qc.removeQueries({ queryKey: siteKeys.post(siteId, postId) });
-      return qc.invalidateQueries({ queryKey: siteKeys.all });
+      // Not awaited: the screen leaves the deleted record before the lists refetch.
+      void qc.invalidateQueries({ queryKey: siteKeys.all });
     },
   });
 }

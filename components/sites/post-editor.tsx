@@ -13,6 +13,7 @@ import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { PostDelete } from './post-delete';
 import { PostForm } from './post-form';
 
 /**
@@ -69,6 +70,7 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
         />
       ) : null}
       {form}
+      {canEdit ? <PostDelete siteId={siteId} post={post} /> : null}
     </View>
   );
   const photos = <PhotoPanel owner={{ ownerType: 'post', ownerId: post.id }} canEdit={canEdit} columns={2} />;

@@ -2,7 +2,7 @@ import type { Express } from 'express';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { polygonsFromGeoJson } from '@/shared/geo/polygons-from-geojson';
-import { AuditEventModel, SiteModel } from '@/server/data/models';
+import { AuditEventModel, PlanModel, PostModel, SiteModel } from '@/server/data/models';
 import { createTestApp } from '@/tests/support/test-db';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
 
@@ -155,5 +155,34 @@ describe('site setup through the API', () => {
   it('lets only planners create, edit or delete sites', async () => {
     const reviewer = await signedInAgent(app, DEMO.reviewer);
     expect((await reviewer.post('/api/v1/sites').send({ name: 'Nope', kind: 'search-area' })).status).toBe(403);
+  });
+});
+
+describe('deleting posts', () => {
+  it.each(['approved', 'submitted'] as const)(
+    'refuses a post used by a %s plan with 409, naming the plan, and keeps it',
+    async (status) => {
+      const plan = await PlanModel.findOne({ where: { status } });
+      const postId = plan!.postIds[0]!;
+      const post = await PostModel.findByPk(postId);
+      const res = await planner.delete(`/api/v1/sites/${post!.siteId}/posts/${postId}`);
+      expect(res.status).toBe(409);
+      expect(res.body.error.code).toBe('post_in_frozen_plan');
+      expect(res.body.error.message).toContain(`“${plan!.title}” (${status})`);
+      expect(res.body.error.message).toMatch(/cannot be deleted/);
+      expect((await planner.get(`/api/v1/sites/${post!.siteId}/posts/${postId}`)).status).toBe(200);
+      expect(await AuditEventModel.count({ where: { entityId: postId, action: 'delete' } })).toBe(0);
+    },
+  );
+
+  it('soft-deletes a post no submitted or approved plan uses', async () => {
+    const { body } = await planner.post('/api/v1/sites').send({ name: 'Post host', kind: 'forest-district' }).expect(201);
+    const created = await planner
+      .post(`/api/v1/sites/${body.site.id}/posts`)
+      .send({ name: 'Spare hill', kind: 'hilltop', location: { latDeg: 60.1, lonDeg: 12.1 }, groundElevationM: 300 })
+      .expect(201);
+    await planner.delete(`/api/v1/sites/${body.site.id}/posts/${created.body.post.id}`).expect(204);
+    expect((await planner.get(`/api/v1/sites/${body.site.id}/posts/${created.body.post.id}`)).status).toBe(404);
+    expect(await PostModel.findByPk(created.body.post.id, { paranoid: false })).not.toBeNull();
   });
 });
