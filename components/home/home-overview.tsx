@@ -30,22 +30,30 @@ export function HomeOverview() {
         <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%', gap: space.md }}>
           <SiteList />
         </View>
-        <Pressable
-          role="link"
-          onPress={() => router.navigate('/check')}
-          style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%' }}
-        >
-          <Card accent="ember">
-            <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
-              <SightlineIcon color={colors.ember} />
-              <AppText variant="heading">Quick check</AppText>
-            </View>
-            <AppText tone="muted">
-              Horizon, dip, hidden height and detection range for one height of eye and one target, under several refraction
-              conditions.
-            </AppText>
-          </Card>
-        </Pressable>
+        <View style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%', gap: space.md }}>
+          <Pressable role="link" onPress={() => router.navigate('/check')}>
+            <Card accent="ember">
+              <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
+                <SightlineIcon color={colors.ember} />
+                <AppText variant="heading">Quick check</AppText>
+              </View>
+              <AppText tone="muted">
+                Horizon, dip, hidden height and detection range for one height of eye and one target, under several refraction
+                conditions.
+              </AppText>
+            </Card>
+          </Pressable>
+          {user?.role === 'admin' || user?.role === 'reviewer' ? (
+            <Pressable role="link" aria-label="History" onPress={() => router.navigate('/history')}>
+              <Card>
+                <AppText variant="heading">History</AppText>
+                <AppText tone="muted">
+                  Who changed what and when, across the organisation: sites, posts, plans and libraries.
+                </AppText>
+              </Card>
+            </Pressable>
+          ) : null}
+        </View>
       </View>
     </Screen>
   );

@@ -27,6 +27,7 @@ import { PlanResults } from './plan-results';
 import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan-snapshot-panels';
 import { PlanStatusBadge } from './plan-status';
 import { when } from './when';
+import { HistoryLink } from '@/components/audit/history-link';
 
 const EDITABLE = new Set(['draft', 'returned']);
 
@@ -137,6 +138,7 @@ function PlanPage({
             onPress={() => router.navigate({ pathname: '/plans/[planId]/review', params: { planId: plan.id } })}
           />
         ) : null}
+        <HistoryLink entityType="plan" entityId={plan.id} />
         <Button
           label="Compare with…"
           kind="quiet"

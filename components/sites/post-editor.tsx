@@ -4,6 +4,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { POST_KIND_LABELS, type Post } from '@/shared/schemas/site';
 import { PhotoPanel } from '@/components/attachments/photo-panel';
+import { HistoryLink } from '@/components/audit/history-link';
 import { useSession } from '@/components/data/session';
 import { useSite } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
@@ -59,6 +60,7 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
         onPress={() => router.navigate({ pathname: '/sites/[siteId]/map', params: { siteId, postId: post.id } })}
         style={{ alignSelf: 'flex-start' }}
       />
+      <HistoryLink entityType="post" entityId={post.id} />
       {canEdit && !wide && !editing ? (
         <Button
           kind="secondary"

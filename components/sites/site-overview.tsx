@@ -1,6 +1,7 @@
 import { useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { SITE_KIND_LABELS } from '@/shared/schemas/site';
+import { HistoryLink } from '@/components/audit/history-link';
 import { useSession } from '@/components/data/session';
 import { useSite, useSitePosts } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
@@ -32,14 +33,17 @@ export function SiteOverview({ siteId }: { siteId: string }) {
       title={s.name}
       subtitle={`${SITE_KIND_LABELS[s.kind]} · ${s.timeZone}${s.notes ? ` · ${s.notes}` : ''}`}
       actions={
-        user?.role === 'planner' ? (
-          <Button
-            kind="secondary"
-            label="Edit site"
-            role="link"
-            onPress={() => router.navigate({ pathname: '/sites/[siteId]/edit', params: { siteId } })}
-          />
-        ) : undefined
+        <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+          <HistoryLink entityType="site" entityId={siteId} />
+          {user?.role === 'planner' ? (
+            <Button
+              kind="secondary"
+              label="Edit site"
+              role="link"
+              onPress={() => router.navigate({ pathname: '/sites/[siteId]/edit', params: { siteId } })}
+            />
+          ) : null}
+        </View>
       }
     >
       {!s.boundary && user?.role === 'planner' ? (

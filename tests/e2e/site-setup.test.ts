@@ -111,7 +111,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site setup on the %s vi
         .getByLabel('Zone 1 outline: corners, one per line')
         .fill('52.100, -9.910\n52.100, -9.900\n52.105, -9.900\n52.105, -9.910');
       await form.getByRole('button', { name: 'Use these corners' }).click();
-      await form.getByText("4 corners, from 52.10000, -9.91000.").waitFor();
+      await form.getByText('4 corners, from 52.10000, -9.91000.').waitFor();
       await shot(page, 'site-setup-form', viewport);
 
       await form.getByRole('button', { name: 'Create site' }).click();
