@@ -6,6 +6,7 @@ import { POST_KIND_LABELS, type Post } from '@/shared/schemas/site';
 import { PhotoPanel } from '@/components/attachments/photo-panel';
 import { HistoryLink } from '@/components/audit/history-link';
 import { useSession } from '@/components/data/session';
+import { formatPosition } from '@/components/map/map-chrome';
 import { useSite } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -102,7 +103,10 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
 function PostSummary({ post }: { post: Post }) {
   const eye = post.groundElevationM + post.structureHeightM + post.eyeHeightM;
   const rows: [string, string][] = [
-    ['Location', `${formatCoordinate(post.location, 'ddm')}\n${formatCoordinate(post.location, 'utm')}`],
+    [
+      'Location (WGS 84)',
+      `${formatCoordinate(post.location, 'ddm')}\n${formatCoordinate(post.location, 'utm')}\n${formatPosition(post.location, 'mgrs')} (MGRS)`,
+    ],
     ['Eye above datum', `${eye.toFixed(1)} m`],
     ['Made up of', `ground ${post.groundElevationM} m + structure ${post.structureHeightM} m + eye ${post.eyeHeightM} m`],
     ['Sector watched', post.sector ? `${post.sector.fromDeg}° to ${post.sector.toDeg}° (clockwise)` : 'All round'],

@@ -153,7 +153,7 @@ export function RingDrawMap({
           onSubmitEditing={show}
           autoCapitalize="characters"
           error={startError || undefined}
-          hint="Latitude first: decimal degrees (61.05, 14.1), degrees-minutes, DMS or UTM."
+          hint="WGS 84, latitude first: decimal degrees (61.05, 14.1), degrees-minutes, DMS, UTM or MGRS."
         />
         <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
           <Button kind="secondary" label="Show the map there" onPress={show} />

@@ -41,7 +41,7 @@ export function RingTextEntry({ label, ring, onRing }: { label: string; ring: Ri
         style={{ minHeight: 120, paddingTop: space.sm, textAlignVertical: 'top' }}
         autoCapitalize="characters"
         error={error || undefined}
-        hint="Latitude first: decimal degrees (61.05, 14.1), degrees-minutes, DMS or UTM (33V 505400 6766000). The ring closes itself."
+        hint="WGS 84, latitude first: decimal degrees (61.05, 14.1), degrees-minutes, DMS, UTM (33V 505400 6766000) or MGRS. The ring closes itself."
       />
       <Button kind="secondary" label="Use these corners" onPress={use} style={{ alignSelf: 'flex-start' }} />
     </View>
