@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { View } from 'react-native';
 import { TARGET_KIND_LABELS } from '@/shared/schemas/library';
 import { useConditionSets, useRemoveLibraryEntry, useTargets } from '@/components/data/library';
@@ -23,6 +24,7 @@ export function LibraryScreen() {
   const removeTarget = useRemoveLibraryEntry('targets');
   const removeSet = useRemoveLibraryEntry('conditions');
   const removal = removeTarget.error ?? removeSet.error;
+  const [editing, setEditing] = useState<string | null>(null);
   return (
     <Screen
       title="Library"
@@ -39,19 +41,24 @@ export function LibraryScreen() {
           ) : targets.data.length === 0 ? (
             <EmptyState title="No targets" body="Add the objects your posts must detect." />
           ) : (
-            targets.data.map((t) => (
-              <Card key={t.id} aria-label={t.name} style={{ gap: 2 }}>
-                <EntryHead
-                  name={t.name}
-                  onRemove={planner ? () => removeTarget.mutate(t.id) : undefined}
-                  busy={removeTarget.isPending && removeTarget.variables === t.id}
-                />
-                <AppText variant="small" tone="muted">
-                  {TARGET_KIND_LABELS[t.kind]} · {t.heightM} m tall, {t.widthM} m wide · top {t.requiredVisibleM} m must show ·{' '}
-                  {t.period}
-                </AppText>
-              </Card>
-            ))
+            targets.data.map((t) =>
+              editing === t.id ? (
+                <TargetForm key={`${t.id}-${t.version}`} target={t} onDone={() => setEditing(null)} />
+              ) : (
+                <Card key={t.id} aria-label={t.name} style={{ gap: 2 }}>
+                  <EntryHead
+                    name={t.name}
+                    onEdit={planner ? () => setEditing(t.id) : undefined}
+                    onRemove={planner ? () => removeTarget.mutate(t.id) : undefined}
+                    busy={removeTarget.isPending && removeTarget.variables === t.id}
+                  />
+                  <AppText variant="small" tone="muted">
+                    {TARGET_KIND_LABELS[t.kind]} · {t.heightM} m tall, {t.widthM} m wide · top {t.requiredVisibleM} m must show ·{' '}
+                    {t.period}
+                  </AppText>
+                </Card>
+              ),
+            )
           )}
           {planner ? <TargetForm /> : null}
         </View>
@@ -62,26 +69,31 @@ export function LibraryScreen() {
           ) : sets.isError ? (
             <ErrorState error={sets.error} onRetry={() => void sets.refetch()} />
           ) : (
-            sets.data.map((s) => (
-              <Card key={s.id} aria-label={s.name} style={{ gap: 2 }}>
-                <EntryHead
-                  name={s.name}
-                  onRemove={planner ? () => removeSet.mutate(s.id) : undefined}
-                  busy={removeSet.isPending && removeSet.variables === s.id}
-                />
-                {s.conditions.map((c, i) => (
-                  <AppText key={i} variant="small">
-                    • {describeCondition(c)}
+            sets.data.map((s) =>
+              editing === s.id ? (
+                <ConditionSetForm key={`${s.id}-${s.version}`} set={s} onDone={() => setEditing(null)} />
+              ) : (
+                <Card key={s.id} aria-label={s.name} style={{ gap: 2 }}>
+                  <EntryHead
+                    name={s.name}
+                    onEdit={planner ? () => setEditing(s.id) : undefined}
+                    onRemove={planner ? () => removeSet.mutate(s.id) : undefined}
+                    busy={removeSet.isPending && removeSet.variables === s.id}
+                  />
+                  {s.conditions.map((c, i) => (
+                    <AppText key={i} variant="small">
+                      • {describeCondition(c)}
+                    </AppText>
+                  ))}
+                  <AppText variant="small" tone="muted">
+                    Visibility{' '}
+                    {s.visibilityM === null
+                      ? 'not stated'
+                      : `${(s.visibilityM / 1000).toLocaleString('en')} km (${s.visibilityKind === 'mor-5pct' ? 'MOR' : 'met. range'})`}
                   </AppText>
-                ))}
-                <AppText variant="small" tone="muted">
-                  Visibility{' '}
-                  {s.visibilityM === null
-                    ? 'not stated'
-                    : `${(s.visibilityM / 1000).toLocaleString('en')} km (${s.visibilityKind === 'mor-5pct' ? 'MOR' : 'met. range'})`}
-                </AppText>
-              </Card>
-            ))
+                </Card>
+              ),
+            )
           )}
           {planner ? <ConditionSetForm /> : null}
         </View>
@@ -90,14 +102,27 @@ export function LibraryScreen() {
   );
 }
 
-/** An entry's name and, for planners, its remove button. */
-function EntryHead({ name, onRemove, busy }: { name: string; onRemove?: () => void; busy: boolean }) {
+/** An entry's name and, for planners, its edit and retire buttons. Retiring keeps the entry in the plans that used it. */
+function EntryHead({
+  name,
+  onEdit,
+  onRemove,
+  busy,
+}: {
+  name: string;
+  onEdit?: () => void;
+  onRemove?: () => void;
+  busy: boolean;
+}) {
   return (
     <View style={{ flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm }}>
       <AppText variant="label" style={{ flexShrink: 1 }}>
         {name}
       </AppText>
-      {onRemove ? <Button kind="quiet" label="Remove" aria-label={`Remove ${name}`} onPress={onRemove} busy={busy} /> : null}
+      <View style={{ flexDirection: 'row', gap: space.xs }}>
+        {onEdit ? <Button kind="quiet" label="Edit" aria-label={`Edit ${name}`} onPress={onEdit} /> : null}
+        {onRemove ? <Button kind="quiet" label="Retire" aria-label={`Retire ${name}`} onPress={onRemove} busy={busy} /> : null}
+      </View>
     </View>
   );
 }

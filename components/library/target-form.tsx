@@ -1,13 +1,14 @@
 import { useState } from 'react';
 import { View } from 'react-native';
-import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema } from '@/shared/schemas/library';
+import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema, TargetUpdateSchema, type Target } from '@/shared/schemas/library';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
-import { useCreateTarget } from '@/components/data/library';
+import { useCreateTarget, useReloadLibrary, useUpdateTarget } from '@/components/data/library';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/states';
+import { StaleNotice } from './stale-notice';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 
@@ -20,45 +21,81 @@ const EMPTY = {
   required: '0',
 };
 
-/** A new target profile: what it is, how tall and wide, the part that must show, day or night. */
-export function TargetForm() {
+/** The form's text values for a saved target. */
+const valuesOf = (t: Target): typeof EMPTY => ({
+  name: t.name,
+  kind: t.kind,
+  period: t.period,
+  height: String(t.heightM),
+  width: String(t.widthM),
+  required: String(t.requiredVisibleM),
+});
+
+/**
+ * A target profile: a new one, or — given `target` — an edit of it saved with
+ * the version it was loaded at (what it is, how tall and wide, the part that
+ * must show, day or night). The server's field errors show under each field;
+ * when someone else saved first, the form says so and keeps what was typed.
+ */
+export function TargetForm({ target, onDone }: { target?: Target; onDone?: () => void }) {
   const create = useCreateTarget();
-  const [v, setV] = useState(EMPTY);
+  const update = useUpdateTarget(target?.id ?? '');
+  const reload = useReloadLibrary();
+  const saving = target ? update : create;
+  const [v, setV] = useState(target ? valuesOf(target) : EMPTY);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [failed, setFailed] = useState('');
+  const [stale, setStale] = useState(false);
   const [added, setAdded] = useState('');
   const set = (k: keyof typeof v) => (t: string) => setV((f) => ({ ...f, [k]: t }));
   const submit = () => {
     setFailed('');
     setAdded('');
+    setStale(false);
     const n = (t: string) => (t.trim() === '' ? undefined : Number(t.replace(',', '.')));
-    const r = TargetInputSchema.safeParse({
+    const fields = {
       name: v.name,
       kind: v.kind,
       heightM: n(v.height),
       widthM: n(v.width),
       requiredVisibleM: n(v.required),
       period: v.period,
-    });
+    };
+    const onError = (e: Error) => {
+      if (e instanceof ApiRequestError && e.code === 'stale_version') {
+        setStale(true);
+        return;
+      }
+      if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
+      setFailed(e.message);
+    };
+    if (target) {
+      const r = TargetUpdateSchema.safeParse({ ...fields, version: target.version });
+      if (!r.success) {
+        setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
+        return;
+      }
+      setErrors({});
+      update.mutate(r.data, { onSuccess: () => onDone?.(), onError });
+      return;
+    }
+    const r = TargetInputSchema.safeParse(fields);
     if (!r.success) {
       setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
       return;
     }
     setErrors({});
     create.mutate(r.data, {
-      onSuccess: ({ target }) => {
+      onSuccess: ({ target: saved }) => {
         setV(EMPTY);
-        setAdded(`Added ${target.name}.`);
+        setAdded(`Added ${saved.name}.`);
       },
-      onError: (e) => {
-        if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
-        setFailed(e.message);
-      },
+      onError,
     });
   };
   return (
-    <Card accent="moss" aria-label="New target">
-      <AppText variant="heading">Add a target</AppText>
+    <Card accent="moss" aria-label={target ? `Edit ${target.name}` : 'New target'}>
+      <AppText variant="heading">{target ? 'Edit this target' : 'Add a target'}</AppText>
       <FormError message={failed} />
       {added ? <AppText variant="small">{added}</AppText> : null}
       <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
@@ -109,7 +146,16 @@ export function TargetForm() {
           { value: 'night', label: 'Night' },
         ]}
       />
-      <Button label="Save target" onPress={submit} busy={create.isPending} />
+      {stale ? <StaleNotice what="target" onReload={() => void reload()} /> : null}
+      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+        <Button
+          label={target ? 'Save changes' : 'Save target'}
+          onPress={submit}
+          busy={saving.isPending}
+          disabled={saving.isPending}
+        />
+        {target && onDone ? <Button kind="quiet" label="Cancel" onPress={onDone} /> : null}
+      </View>
     </Card>
   );
 }
