@@ -44,7 +44,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('library editing on the 
       await shot(page, 'library-edit-conflict', viewport);
       await form.getByRole('button', { name: 'Reload the target' }).click();
       const fresh = page.getByLabel(`Edit ${name}`);
-      await expect.poll(() => fresh.getByLabel('Width').inputValue()).toBe('2.5');
+      // The form starts again from their version.
+      await page.waitForFunction(() => [...document.querySelectorAll('input')].some((i) => i.value === '2.5'));
+      expect(await fresh.getByLabel('Width').inputValue()).toBe('2.5');
       await fresh.getByLabel('Height', { exact: true }).fill('1.5');
       await fresh.getByRole('button', { name: 'Save changes' }).click();
       const card = page.getByLabel(name, { exact: true });
