@@ -1,4 +1,5 @@
 import type { Browser, CDPSession, Page } from 'playwright-core';
+import { toUtm } from '@/shared/geo/to-utm';
 import { DEMO } from '@/tests/support/agents';
 import { launchBrowser, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
@@ -88,16 +89,22 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site setup on the %s vi
       await page.waitForTimeout(200);
       await shot(page, 'site-setup-drawn', viewport);
       await map.screenshot({ path: `${__dirname}/screenshots/site-setup-map-${viewport}.png` });
-      // Undo takes the drag back, then the drag is made again.
+      // Undo takes the drag back, then the drag is made again (pressing Undo may scroll the page: measure anew).
       await form.getByRole('button', { name: 'Undo' }).click();
       await page.waitForTimeout(100);
-      if (phone) await touchDrag(cdp, from, to);
+      await map.scrollIntoViewIfNeeded();
+      const again = (await map.boundingBox())!;
+      const from2 = { x: again.x + again.width * 0.7, y: again.y + again.height * 0.6 };
+      const to2 = { x: from2.x + 40, y: from2.y + 30 };
+      if (phone) await touchDrag(cdp, from2, to2);
       else {
-        await page.mouse.move(from.x, from.y);
+        await page.mouse.move(from2.x, from2.y);
         await page.mouse.down();
-        await page.mouse.move(to.x, to.y, { steps: 8 });
+        await page.mouse.move(to2.x, to2.y, { steps: 8 });
         await page.mouse.up();
       }
+      await page.waitForTimeout(200);
+      await map.screenshot({ path: `${__dirname}/screenshots/site-setup-map-after-undo-${viewport}.png` });
       await form.getByRole('button', { name: 'Use this outline' }).click();
       await form.getByText(/^4 corners, from /).waitFor();
 
@@ -121,15 +128,18 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site setup on the %s vi
       expect(siteId).toBeDefined();
       await shot(page, 'site-setup-created', viewport);
 
-      // What was saved: the dragged corner moved east and south of where it was tapped; the rest stayed square.
+      // What was saved: the map is drawn in the UTM grid (grid north, not true north), so corners tapped on
+      // one screen row share a northing and those in one column an easting; the dragged corner moved
+      // east and south of where it was tapped.
       const res = await page.request.get(`${e2eUrl()}/api/v1/sites/${siteId}`);
       const site = (await res.json()).site as { boundary: [number, number][]; priorityZones: { name: string; weight: number }[] };
       expect(site.boundary).toHaveLength(5);
-      const [c0, c1, c2, c3] = site.boundary as [number, number][];
-      expect(c1![1]).toBeCloseTo(c0![1], 4); // same row of taps: same latitude
-      expect(c3![0]).toBeCloseTo(c0![0], 4); // same column: same longitude
-      expect(c2![0]).toBeGreaterThan(c1![0] + 1e-4); // dragged east
-      expect(c2![1]).toBeLessThan(c3![1] - 1e-4); // and south
+      const [g0, g1, g2, g3] = site.boundary.slice(0, 4).map(([lonDeg, latDeg]) => toUtm({ latDeg, lonDeg }, 29));
+      // Taps land on whole pixels of about 20 m; the saved degrees keep 7 decimals (about 1 cm).
+      expect(Math.abs(g1!.northing - g0!.northing)).toBeLessThan(1);
+      expect(Math.abs(g3!.easting - g0!.easting)).toBeLessThan(1);
+      expect(g2!.easting).toBeGreaterThan(g1!.easting + 100);
+      expect(g2!.northing).toBeLessThan(g3!.northing - 100);
       expect(site.priorityZones).toEqual([expect.objectContaining({ name: 'Harbour mouth', weight: 8 })]);
       expect(errors).toEqual([]);
     } finally {
