@@ -1,6 +1,6 @@
 import { useMemo, useRef, useState } from 'react';
 import { View } from 'react-native';
-import Svg, { Circle, Polygon, Polyline } from 'react-native-svg';
+import Svg, { Circle, Line, Polygon, Polyline } from 'react-native-svg';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { parseCoordinate } from '@/shared/geo/parse-coordinate';
@@ -8,6 +8,7 @@ import type { LatLon } from '@/shared/geo/types';
 import { RingSchema, type Post, type PriorityZone, type Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
 import { useCoordinateFormat } from '@/components/map/coordinate-format';
+import { gridLines } from '@/components/map/grid-lines';
 import { gridToScreen } from '@/components/map/map-camera';
 import { HANDLE_REACH_PX, MapViewport, type MapHandles } from '@/components/map/map-viewport';
 import { createReadoutStore } from '@/components/map/readout-store';
@@ -281,14 +282,26 @@ function Drawer({
             };
             const pts = drawing.points.map(at);
             const list = pts.map((p) => `${p.x.toFixed(1)},${p.y.toFixed(1)}`).join(' ');
+            // Without terrain the ground is a plain grid of round eastings and northings.
+            const grid = frame.base ? null : gridLines(camera, size, margin);
+            const W = size.width + 2 * margin;
+            const H = size.height + 2 * margin;
             return (
               <Svg
-                width={size.width + 2 * margin}
-                height={size.height + 2 * margin}
+                width={W}
+                height={H}
                 style={{ position: 'absolute', left: -margin, top: -margin }}
                 pointerEvents="none"
                 aria-hidden
               >
+                {grid?.eastings.map((e) => {
+                  const x = at({ x: e, y: 0 }).x;
+                  return <Line key={`e${e}`} x1={x} y1={0} x2={x} y2={H} stroke="#C9D1CD" strokeWidth={1} />;
+                })}
+                {grid?.northings.map((n2) => {
+                  const y = at({ x: 0, y: n2 }).y;
+                  return <Line key={`n${n2}`} x1={0} y1={y} x2={W} y2={y} stroke="#C9D1CD" strokeWidth={1} />;
+                })}
                 {drawing.closed ? (
                   <Polygon points={list} fill="rgba(196, 84, 36, 0.15)" stroke={colors.ember} strokeWidth={3} />
                 ) : n > 1 ? (
