@@ -39,10 +39,11 @@ export function PostDelete({ siteId, post }: { siteId: string; post: Post }) {
               label="Yes, delete the post"
               busy={remove.isPending}
               onPress={() =>
-                remove.mutate(undefined, {
-                  onSuccess: () => router.replace({ pathname: '/sites/[siteId]', params: { siteId } }),
-                  onSettled: () => setAsking(false),
-                })
+                // mutateAsync: the screen may unmount this card when the record goes, before a per-call callback ran.
+                remove.mutateAsync().then(
+                  () => router.replace({ pathname: '/sites/[siteId]', params: { siteId } }),
+                  () => setAsking(false),
+                )
               }
             />
             <Button kind="quiet" label="Keep it" onPress={() => setAsking(false)} />

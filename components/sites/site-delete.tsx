@@ -44,10 +44,11 @@ export function SiteDelete({ site }: { site: Site }) {
               label="Yes, delete the site"
               busy={remove.isPending}
               onPress={() =>
-                remove.mutate(undefined, {
-                  onSuccess: () => router.replace('/'),
-                  onSettled: () => setAsking(false),
-                })
+                // mutateAsync: the screen may unmount this card when the record goes, before a per-call callback ran.
+                remove.mutateAsync().then(
+                  () => router.replace('/'),
+                  () => setAsking(false),
+                )
               }
             />
             <Button kind="quiet" label="Keep it" onPress={() => setAsking(false)} />

@@ -133,8 +133,10 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
       setFormError(applyServerErrors(e, setError, fieldOf));
     };
     const open = (id: string) => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: id } });
-    if (site) update.mutate({ ...input, version: site.version }, { onSuccess: (s) => open(s.id), onError });
-    else create.mutate(input, { onSuccess: (s) => open(s.id), onError });
+    // The saved site comes back with a new version, which remounts this form (its key on the edit
+    // screen) before a per-call onSuccess could run; the promise resolves regardless.
+    const saved = site ? update.mutateAsync({ ...input, version: site.version }) : create.mutateAsync(input);
+    saved.then((s) => open(s.id), onError);
   });
 
   const rootZoneError = formState.errors.priorityZones?.root?.message ?? formState.errors.priorityZones?.message;

@@ -47,8 +47,10 @@ export type AuditEventQuery = z.infer<typeof AuditEventQuerySchema>;
 /** One changed field of a record: its value before and after (JSON values; absent = not set). */
 export const AuditChangeSchema = z.object({
   field: z.string(),
-  before: z.unknown(),
-  after: z.unknown(),
+  /** Absent when the field had no value before (a create). */
+  before: z.unknown().optional(),
+  /** Absent when the field has no value after (a delete). */
+  after: z.unknown().optional(),
 });
 export type AuditChange = z.infer<typeof AuditChangeSchema>;
 

@@ -1,5 +1,6 @@
 import type { Express } from 'express';
 import request from 'supertest';
+import { AuditEventListSchema } from '@/shared/schemas/audit';
 import { UserModel } from '@/server/data/models';
 import { createTestApp } from '@/tests/support/test-db';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
@@ -32,6 +33,8 @@ describe('GET /api/v1/audit-events', () => {
       const agent = await signedInAgent(app, email);
       const res = await agent.get(`/api/v1/audit-events?entityType=site&entityId=${siteId}`).expect(200);
       expect(res.body.total).toBe(2);
+      // The app reads the answer with the shared schema.
+      expect(AuditEventListSchema.safeParse(res.body).error?.issues ?? []).toEqual([]);
       const [update, create] = res.body.items;
       expect(create).toMatchObject({ action: 'create', entityType: 'site', entityId: siteId, entityName: 'Audited district' });
       expect(update).toMatchObject({
