@@ -15,6 +15,7 @@ import { createCaughtMailClient } from './mail/caught-mail-client';
 import type { Mailer } from './mail/mailer';
 import type { FileStore } from './storage/file-store';
 import { attachmentRoutes } from './routes/attachments';
+import { auditRoutes } from './routes/audit';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { coverageRoutes } from './routes/coverage';
 import type { CoverageQueue } from './queue/coverage-queue';
@@ -139,6 +140,7 @@ export function createApp({
   v1.use(rosterRoutes(db));
   v1.use(attachmentRoutes(db, files, uploadTempDir));
   v1.use(userRoutes(db, publicUrl, mailer));
+  v1.use(auditRoutes());
   v1.use(caughtMailRoutes(config.CAUGHT_MAIL_URL ? createCaughtMailClient(config.CAUGHT_MAIL_URL) : null));
   api.use('/v1', v1);
 

@@ -5,7 +5,9 @@ import {
   ConditionSetSchema,
   TargetListSchema,
   TargetSchema,
+  type ConditionSet,
   type ConditionSetInput,
+  type Target,
   type TargetInput,
 } from '@/shared/schemas/library';
 import { api } from './api-client';
@@ -42,16 +44,6 @@ export function useCreateTarget() {
   });
 }
 
-/** Saves changes to a target; `version` is the one last seen (409 when someone else saved first). */
-export function useUpdateTarget(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: TargetInput & { version: number }) =>
-      api.patch(`/v1/targets/${id}`, input, z.object({ target: TargetSchema })),
-    onSuccess: () => qc.invalidateQueries({ queryKey: libraryKeys.targets() }),
-  });
-}
-
 export function useCreateConditionSet() {
   const qc = useQueryClient();
   return useMutation({
@@ -60,7 +52,33 @@ export function useCreateConditionSet() {
   });
 }
 
-/** Removes a target or a condition set (soft: plans that used it keep their frozen copy). */
+/** Saves changes to a target with the version last seen (409 `stale_version` when someone else saved first). */
+export function useUpdateTarget(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: Partial<TargetInput> & { version: number }): Promise<Target> =>
+      (await api.patch(`/v1/targets/${id}`, input, z.object({ target: TargetSchema }))).target,
+    onSuccess: () => qc.invalidateQueries({ queryKey: libraryKeys.targets() }),
+  });
+}
+
+/** Replaces a condition set, with the version last seen (409 `stale_version` when someone else saved first). */
+export function useUpdateConditionSet(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: ConditionSetInput & { version: number }): Promise<ConditionSet> =>
+      (await api.patch(`/v1/conditions/${id}`, input, z.object({ conditionSet: ConditionSetSchema }))).conditionSet,
+    onSuccess: () => qc.invalidateQueries({ queryKey: libraryKeys.conditions() }),
+  });
+}
+
+/** Re-reads the library lists (after a version conflict). */
+export function useReloadLibrary() {
+  const qc = useQueryClient();
+  return () => qc.invalidateQueries({ queryKey: libraryKeys.all });
+}
+
+/** Retires (removes) a target or a condition set (soft: plans that used it keep their frozen copy). */
 export function useRemoveLibraryEntry(kind: 'targets' | 'conditions') {
   const qc = useQueryClient();
   return useMutation({

@@ -1,6 +1,15 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { PostListSchema, PostSchema, SiteListSchema, SiteSchema, type Post, type PostInput } from '@/shared/schemas/site';
+import {
+  PostListSchema,
+  PostSchema,
+  SiteListSchema,
+  SiteSchema,
+  type Post,
+  type PostInput,
+  type Site,
+  type SiteInput,
+} from '@/shared/schemas/site';
 import { api, ApiRequestError } from './api-client';
 
 export const siteKeys = {
@@ -94,5 +103,56 @@ export function useUpdatePost(siteId: string, postId: string) {
     mutationFn: async (input: Partial<PostInput> & { version: number }) =>
       (await api.patch(`/v1/sites/${siteId}/posts/${postId}`, input, z.object({ post: PostSchema }))).post,
     onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.detail(siteId) }),
+  });
+}
+
+const SiteBody = z.object({ site: SiteSchema });
+
+/** Creates a site (planners); the lists refresh. */
+export function useCreateSite() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: Partial<SiteInput> & Pick<SiteInput, 'name' | 'kind'>): Promise<Site> =>
+      (await api.post('/v1/sites', input, SiteBody)).site,
+    onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.all }),
+  });
+}
+
+/** Saves changes to a site with the version last seen (409 `stale_version` when someone else saved first). */
+export function useUpdateSite(siteId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: async (input: Partial<SiteInput> & { version: number }): Promise<Site> =>
+      (await api.patch(`/v1/sites/${siteId}`, input, SiteBody)).site,
+    onSuccess: (site) => {
+      qc.setQueryData(siteKeys.detail(siteId), site);
+      return qc.invalidateQueries({ queryKey: siteKeys.all });
+    },
+  });
+}
+
+/** Deletes a site (soft); refused with 409 `site_has_approved_plans` while approved plans depend on it. */
+export function useDeleteSite(siteId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api.delete(`/v1/sites/${siteId}`),
+    onSuccess: () => {
+      qc.removeQueries({ queryKey: siteKeys.detail(siteId) });
+      // Not awaited: the screen leaves the deleted record before the lists refetch.
+      void qc.invalidateQueries({ queryKey: siteKeys.all });
+    },
+  });
+}
+
+/** Deletes a post (soft); refused with 409 `post_in_frozen_plan` while a submitted or approved plan uses it. */
+export function useDeletePost(siteId: string, postId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api.delete(`/v1/sites/${siteId}/posts/${postId}`),
+    onSuccess: () => {
+      qc.removeQueries({ queryKey: siteKeys.post(siteId, postId) });
+      // Not awaited: the screen leaves the deleted record before the lists refetch.
+      void qc.invalidateQueries({ queryKey: siteKeys.all });
+    },
   });
 }

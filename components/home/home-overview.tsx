@@ -4,6 +4,7 @@ import { SITE_KIND_LABELS } from '@/shared/schemas/site';
 import { useSession } from '@/components/data/session';
 import { useSites } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { SightlineIcon } from '@/components/ui/icons';
 import { Screen } from '@/components/ui/screen';
@@ -16,27 +17,43 @@ export function HomeOverview() {
   const { wide } = useLayout();
   const router = useRouter();
   return (
-    <Screen title="Your sites" subtitle={user ? `${user.organization.name} · signed in as ${user.name}` : undefined}>
+    <Screen
+      title="Your sites"
+      subtitle={user ? `${user.organization.name} · signed in as ${user.name}` : undefined}
+      actions={
+        user?.role === 'planner' ? (
+          <Button label="New site" role="link" onPress={() => router.navigate('/sites/new')} />
+        ) : undefined
+      }
+    >
       <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
         <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%', gap: space.md }}>
           <SiteList />
         </View>
-        <Pressable
-          role="link"
-          onPress={() => router.navigate('/check')}
-          style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%' }}
-        >
-          <Card accent="ember">
-            <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
-              <SightlineIcon color={colors.ember} />
-              <AppText variant="heading">Quick check</AppText>
-            </View>
-            <AppText tone="muted">
-              Horizon, dip, hidden height and detection range for one height of eye and one target, under several refraction
-              conditions.
-            </AppText>
-          </Card>
-        </Pressable>
+        <View style={{ flex: wide ? 1 : undefined, width: wide ? undefined : '100%', gap: space.md }}>
+          <Pressable role="link" onPress={() => router.navigate('/check')}>
+            <Card accent="ember">
+              <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
+                <SightlineIcon color={colors.ember} />
+                <AppText variant="heading">Quick check</AppText>
+              </View>
+              <AppText tone="muted">
+                Horizon, dip, hidden height and detection range for one height of eye and one target, under several refraction
+                conditions.
+              </AppText>
+            </Card>
+          </Pressable>
+          {user?.role === 'admin' || user?.role === 'reviewer' ? (
+            <Pressable role="link" aria-label="History" onPress={() => router.navigate('/history')}>
+              <Card>
+                <AppText variant="heading">History</AppText>
+                <AppText tone="muted">
+                  Who changed what and when, across the organisation: sites, posts, plans and libraries.
+                </AppText>
+              </Card>
+            </Pressable>
+          ) : null}
+        </View>
       </View>
     </Screen>
   );
@@ -45,13 +62,23 @@ export function HomeOverview() {
 function SiteList() {
   const sites = useSites();
   const router = useRouter();
+  const { data: user } = useSession();
   if (sites.isPending) return <LoadingState label="Loading sites…" />;
   if (sites.isError) return <ErrorState error={sites.error} onRetry={() => void sites.refetch()} />;
   if (sites.data.items.length === 0) {
     return (
       <EmptyState
         title="No sites yet"
-        body="A site is a forest district, a coast stretch or a search area your organisation watches. Planners add sites; then posts, targets and coverage plans go inside them."
+        body={
+          user?.role === 'planner'
+            ? 'A site is a forest district, a coast stretch or a search area your organisation watches. Start with a new site: name it, draw or import its boundary and mark its priority zones. Then upload its terrain, place posts, and build a coverage plan.'
+            : 'A site is a forest district, a coast stretch or a search area your organisation watches. Your planners create the sites; once they have, they appear here.'
+        }
+        action={
+          user?.role === 'planner' ? (
+            <Button label="Create the first site" role="link" onPress={() => router.navigate('/sites/new')} />
+          ) : undefined
+        }
       />
     );
   }

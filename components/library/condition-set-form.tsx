@@ -1,10 +1,12 @@
 import { useState } from 'react';
 import { View } from 'react-native';
-import { ConditionSetInputSchema } from '@/shared/schemas/library';
+import { ConditionSetInputSchema, type ConditionSet, type ConditionSetInput } from '@/shared/schemas/library';
 import { REFRACTION_PRESET_IDS, refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
+import { describeCondition } from './describe-condition';
+import { StaleNotice } from './stale-notice';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
-import { useCreateConditionSet } from '@/components/data/library';
+import { useCreateConditionSet, useReloadLibrary, useUpdateConditionSet } from '@/components/data/library';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -14,6 +16,8 @@ import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 
 type VisibilityKind = 'mor-5pct' | 'meteorological-range-2pct';
+
+type Condition = ConditionSetInput['conditions'][number];
 type Lighting = 'none' | 'some' | 'much';
 
 /** Douglas sea-state degrees with the WMO code table 3700 descriptions. */
@@ -29,28 +33,48 @@ const SEA_STATES = [
   'Very high',
   'Phenomenal',
 ] as const;
+const isPreset = (c: Record<string, unknown>): c is { preset: RefractionPresetId } =>
+  Object.keys(c).length === 1 && typeof c.preset === 'string' && (REFRACTION_PRESET_IDS as readonly string[]).includes(c.preset);
+const isOwnK = (c: Record<string, unknown>): c is { k: number } => Object.keys(c).length === 1 && typeof c.k === 'number';
 
 /**
- * A new condition set: named refraction conditions (presets and any k of
- * your own) judged together, with the visibility they come with.
+ * A condition set: a new one, or — given `set` — an edit of it (saved whole,
+ * with the version it was loaded at): named refraction conditions (presets and
+ * any k of your own) judged together, with the visibility they come with.
+ * with the sea (a Douglas degree or a wave height) and the lights behind a
+ * target at night. Conditions of other kinds in an edited set are kept as
+ * they are. When someone else saved first, the form says so.
  */
-export function ConditionSetForm() {
+export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?: () => void }) {
   const create = useCreateConditionSet();
-  const [name, setName] = useState('');
-  const [presets, setPresets] = useState<RefractionPresetId[]>([]);
-  const [ks, setKs] = useState('');
-  const [visibility, setVisibility] = useState('');
-  const [visibilityKind, setVisibilityKind] = useState<VisibilityKind>('mor-5pct');
-  const [seaState, setSeaState] = useState<number | null>(null);
-  const [waveHeight, setWaveHeight] = useState('');
-  const [lighting, setLighting] = useState<Lighting>('none');
+  const update = useUpdateConditionSet(set?.id ?? '');
+  const reload = useReloadLibrary();
+  const saving = set ? update : create;
+  const [name, setName] = useState(set?.name ?? '');
+  const [presets, setPresets] = useState<RefractionPresetId[]>(() =>
+    (set?.conditions ?? []).filter(isPreset).map((c) => c.preset),
+  );
+  const [ks, setKs] = useState(() =>
+    (set?.conditions ?? [])
+      .filter(isOwnK)
+      .map((c) => String(c.k))
+      .join(' '),
+  );
+  const kept = (set?.conditions ?? []).filter((c) => !isPreset(c) && !isOwnK(c)) as unknown as Condition[];
+  const [visibility, setVisibility] = useState(set?.visibilityM == null ? '' : String(set.visibilityM / 1000));
+  const [visibilityKind, setVisibilityKind] = useState<VisibilityKind>(set?.visibilityKind ?? 'mor-5pct');
+  const [seaState, setSeaState] = useState<number | null>(set?.seaState ?? null);
+  const [waveHeight, setWaveHeight] = useState(set?.significantWaveHeightM == null ? '' : String(set.significantWaveHeightM));
+  const [lighting, setLighting] = useState<Lighting>(set?.backgroundLighting ?? 'none');
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [failed, setFailed] = useState('');
+  const [stale, setStale] = useState(false);
   const [added, setAdded] = useState('');
 
   const submit = () => {
     setFailed('');
     setAdded('');
+    setStale(false);
     const next: Record<string, string> = {};
     const own = ks
       .split(/[;\s]+/)
@@ -61,7 +85,7 @@ export function ConditionSetForm() {
     const km = visibility.trim() === '' ? null : Number(visibility.replace(',', '.'));
     const r = ConditionSetInputSchema.safeParse({
       name,
-      conditions: [...presets.map((preset) => ({ preset })), ...own.filter(Number.isFinite).map((k) => ({ k }))],
+      conditions: [...presets.map((preset) => ({ preset })), ...own.filter(Number.isFinite).map((k) => ({ k })), ...kept],
       visibilityM: km === null ? null : km * 1000,
       visibilityKind,
       seaState,
@@ -76,6 +100,18 @@ export function ConditionSetForm() {
     }
     setErrors(next);
     if (!r.success || Object.keys(next).length) return;
+    const onError = (e: Error) => {
+      if (e instanceof ApiRequestError && e.code === 'stale_version') {
+        setStale(true);
+        return;
+      }
+      if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
+      setFailed(e.message);
+    };
+    if (set) {
+      update.mutate({ ...r.data, version: set.version }, { onSuccess: () => onDone?.(), onError });
+      return;
+    }
     create.mutate(r.data, {
       onSuccess: ({ conditionSet }) => {
         setName('');
@@ -87,16 +123,13 @@ export function ConditionSetForm() {
         setLighting('none');
         setAdded(`Added ${conditionSet.name}.`);
       },
-      onError: (e) => {
-        if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
-        setFailed(e.message);
-      },
+      onError,
     });
   };
 
   return (
-    <Card accent="moss" aria-label="New condition set">
-      <AppText variant="heading">Add a condition set</AppText>
+    <Card accent="moss" aria-label={set ? `Edit ${set.name}` : 'New condition set'}>
+      <AppText variant="heading">{set ? 'Edit this condition set' : 'Add a condition set'}</AppText>
       <FormError message={failed} />
       {added ? <AppText variant="small">{added}</AppText> : null}
       <TextField
@@ -121,6 +154,11 @@ export function ConditionSetForm() {
           {errors.conditions}
         </AppText>
       ) : null}
+      {kept.map((c, i) => (
+        <AppText key={i} variant="small" tone="muted">
+          Kept as it is: {describeCondition(c as never)}
+        </AppText>
+      ))}
       <TextField
         label="Your own k values"
         value={ks}
@@ -190,7 +228,16 @@ export function ConditionSetForm() {
           { value: 'much', label: 'Bright town' },
         ]}
       />
-      <Button label="Save condition set" onPress={submit} busy={create.isPending} />
+      {stale ? <StaleNotice what="condition set" onReload={() => void reload()} /> : null}
+      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+        <Button
+          label={set ? 'Save changes' : 'Save condition set'}
+          onPress={submit}
+          busy={saving.isPending}
+          disabled={saving.isPending}
+        />
+        {set && onDone ? <Button kind="quiet" label="Cancel" onPress={onDone} /> : null}
+      </View>
     </Card>
   );
 }

@@ -43,7 +43,7 @@ export function LibraryScreen() {
           ) : (
             targets.data.map((t) =>
               editing === t.id ? (
-                <TargetForm key={t.id} target={t} onDone={() => setEditing(null)} />
+                <TargetForm key={`${t.id}-${t.version}`} target={t} onDone={() => setEditing(null)} />
               ) : (
                 <Card key={t.id} aria-label={t.name} style={{ gap: 2 }}>
                   <EntryHead
@@ -71,31 +71,36 @@ export function LibraryScreen() {
           ) : sets.isError ? (
             <ErrorState error={sets.error} onRetry={() => void sets.refetch()} />
           ) : (
-            sets.data.map((s) => (
-              <Card key={s.id} aria-label={s.name} style={{ gap: 2 }}>
-                <EntryHead
-                  name={s.name}
-                  onRemove={planner ? () => removeSet.mutate(s.id) : undefined}
-                  busy={removeSet.isPending && removeSet.variables === s.id}
-                />
-                {s.conditions.map((c, i) => (
-                  <AppText key={i} variant="small">
-                    • {describeCondition(c)}
+            sets.data.map((s) =>
+              editing === s.id ? (
+                <ConditionSetForm key={`${s.id}-${s.version}`} set={s} onDone={() => setEditing(null)} />
+              ) : (
+                <Card key={s.id} aria-label={s.name} style={{ gap: 2 }}>
+                  <EntryHead
+                    name={s.name}
+                    onEdit={planner ? () => setEditing(s.id) : undefined}
+                    onRemove={planner ? () => removeSet.mutate(s.id) : undefined}
+                    busy={removeSet.isPending && removeSet.variables === s.id}
+                  />
+                  {s.conditions.map((c, i) => (
+                    <AppText key={i} variant="small">
+                      • {describeCondition(c)}
+                    </AppText>
+                  ))}
+                  <AppText variant="small" tone="muted">
+                    Visibility{' '}
+                    {s.visibilityM === null
+                      ? 'not stated'
+                      : `${(s.visibilityM / 1000).toLocaleString('en')} km (${s.visibilityKind === 'mor-5pct' ? 'MOR' : 'met. range'})`}
+                    {s.seaState !== null ? ` · sea state ${s.seaState}` : ''}
+                    {s.significantWaveHeightM !== null ? ` · waves ${s.significantWaveHeightM} m` : ''}
+                    {s.backgroundLighting !== 'none'
+                      ? ` · ${s.backgroundLighting === 'some' ? 'some shore lights' : 'bright town'} behind`
+                      : ''}
                   </AppText>
-                ))}
-                <AppText variant="small" tone="muted">
-                  Visibility{' '}
-                  {s.visibilityM === null
-                    ? 'not stated'
-                    : `${(s.visibilityM / 1000).toLocaleString('en')} km (${s.visibilityKind === 'mor-5pct' ? 'MOR' : 'met. range'})`}
-                  {s.seaState !== null ? ` · sea state ${s.seaState}` : ''}
-                  {s.significantWaveHeightM !== null ? ` · waves ${s.significantWaveHeightM} m` : ''}
-                  {s.backgroundLighting !== 'none'
-                    ? ` · ${s.backgroundLighting === 'some' ? 'some shore lights' : 'bright town'} behind`
-                    : ''}
-                </AppText>
-              </Card>
-            ))
+                </Card>
+              ),
+            )
           )}
           {planner ? <ConditionSetForm /> : null}
         </View>
@@ -104,7 +109,7 @@ export function LibraryScreen() {
   );
 }
 
-/** An entry's name and, for planners, its edit and remove buttons. */
+/** An entry's name and, for planners, its edit and retire buttons. Retiring keeps the entry in the plans that used it. */
 function EntryHead({
   name,
   onEdit,
@@ -123,7 +128,7 @@ function EntryHead({
       </AppText>
       <View style={{ flexDirection: 'row', gap: space.xs }}>
         {onEdit ? <Button kind="quiet" label="Edit" aria-label={`Edit ${name}`} onPress={onEdit} /> : null}
-        {onRemove ? <Button kind="quiet" label="Remove" aria-label={`Remove ${name}`} onPress={onRemove} busy={busy} /> : null}
+        {onRemove ? <Button kind="quiet" label="Retire" aria-label={`Retire ${name}`} onPress={onRemove} busy={busy} /> : null}
       </View>
     </View>
   );

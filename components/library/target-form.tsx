@@ -1,13 +1,21 @@
 import { useState } from 'react';
 import { View } from 'react-native';
-import { TARGET_KIND_LABELS, TARGET_KINDS, TargetInputSchema, WATER_TARGET_KINDS, type Target } from '@/shared/schemas/library';
+import {
+  TARGET_KIND_LABELS,
+  TARGET_KINDS,
+  TargetInputSchema,
+  TargetUpdateSchema,
+  WATER_TARGET_KINDS,
+  type Target,
+} from '@/shared/schemas/library';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
-import { useCreateTarget, useUpdateTarget } from '@/components/data/library';
+import { useCreateTarget, useReloadLibrary, useUpdateTarget } from '@/components/data/library';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/states';
+import { StaleNotice } from './stale-notice';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 
@@ -22,6 +30,7 @@ const EMPTY = {
   onWater: null as boolean | null,
 };
 
+/** The form's text values for a saved target. */
 const valuesOf = (t: Target): typeof EMPTY => ({
   name: t.name,
   kind: t.kind,
@@ -34,18 +43,22 @@ const valuesOf = (t: Target): typeof EMPTY => ({
 });
 
 /**
- * A target profile, new or (given `target`) edited: what it is, how tall and
- * wide, the part that must show, day or night, its light in candela (needed
- * at night) and whether it floats (the waves hide its lower part, and it
- * counts only on the sea). Plans using an edited target see their coverage
- * go out of date.
+ * A target profile: a new one, or — given `target` — an edit of it saved with
+ * the version it was loaded at (what it is, how tall and wide, the part that
+ * must show, day or night, its light in candela — needed at night — and
+ * whether it floats: the waves hide its lower part, and on a coast it counts
+ * over the sea only). The server's field errors show under each field;
+ * when someone else saved first, the form says so and keeps what was typed.
  */
-export function TargetForm({ target, onDone }: { target?: Target; onDone?: () => void } = {}) {
+export function TargetForm({ target, onDone }: { target?: Target; onDone?: () => void }) {
   const create = useCreateTarget();
   const update = useUpdateTarget(target?.id ?? '');
+  const reload = useReloadLibrary();
+  const saving = target ? update : create;
   const [v, setV] = useState(target ? valuesOf(target) : EMPTY);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [failed, setFailed] = useState('');
+  const [stale, setStale] = useState(false);
   const [added, setAdded] = useState('');
   const set = (k: keyof typeof v) => (t: string) => setV((f) => ({ ...f, [k]: t }));
   // Floats by default for kinds found on the water, until the planner says otherwise.
@@ -53,8 +66,9 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
   const submit = () => {
     setFailed('');
     setAdded('');
+    setStale(false);
     const n = (t: string) => (t.trim() === '' ? undefined : Number(t.replace(',', '.')));
-    const r = TargetInputSchema.safeParse({
+    const fields = {
       name: v.name,
       kind: v.kind,
       heightM: n(v.height),
@@ -63,31 +77,42 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
       period: v.period,
       lightIntensityCd: n(v.light) ?? null,
       onWater: v.onWater ?? undefined,
-    });
+    };
+    const onError = (e: Error) => {
+      if (e instanceof ApiRequestError && e.code === 'stale_version') {
+        setStale(true);
+        return;
+      }
+      if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
+      setFailed(e.message);
+    };
+    if (target) {
+      const r = TargetUpdateSchema.safeParse({ ...fields, version: target.version });
+      if (!r.success) {
+        setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
+        return;
+      }
+      setErrors({});
+      update.mutate(r.data, { onSuccess: () => onDone?.(), onError });
+      return;
+    }
+    const r = TargetInputSchema.safeParse(fields);
     if (!r.success) {
       setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
       return;
     }
     setErrors({});
-    const onError = (e: Error) => {
-      if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
-      setFailed(e.message);
-    };
-    if (target) {
-      update.mutate({ ...r.data, version: target.version }, { onSuccess: () => onDone?.(), onError });
-      return;
-    }
     create.mutate(r.data, {
-      onSuccess: ({ target: added }) => {
+      onSuccess: ({ target: saved }) => {
         setV(EMPTY);
-        setAdded(`Added ${added.name}.`);
+        setAdded(`Added ${saved.name}.`);
       },
       onError,
     });
   };
   return (
     <Card accent="moss" aria-label={target ? `Edit ${target.name}` : 'New target'}>
-      <AppText variant="heading">{target ? `Edit ${target.name}` : 'Add a target'}</AppText>
+      <AppText variant="heading">{target ? 'Edit this target' : 'Add a target'}</AppText>
       <FormError message={failed} />
       {added ? <AppText variant="small">{added}</AppText> : null}
       <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
@@ -163,9 +188,15 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
           ? 'Waves hide its lower part, and on a coast site it counts only over the sea.'
           : 'Counted over the whole site; waves do not hide it.'}
       </AppText>
+      {stale ? <StaleNotice what="target" onReload={() => void reload()} /> : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button label={target ? 'Save changes' : 'Save target'} onPress={submit} busy={create.isPending || update.isPending} />
-        {target ? <Button kind="quiet" label="Cancel" onPress={() => onDone?.()} /> : null}
+        <Button
+          label={target ? 'Save changes' : 'Save target'}
+          onPress={submit}
+          busy={saving.isPending}
+          disabled={saving.isPending}
+        />
+        {target && onDone ? <Button kind="quiet" label="Cancel" onPress={onDone} /> : null}
       </View>
     </Card>
   );

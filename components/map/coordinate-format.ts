@@ -7,7 +7,11 @@ export const COORDINATE_FORMATS: readonly { id: CoordinateFormat; label: string;
   { id: 'ddm', label: 'DDM', name: 'Degrees and decimal minutes' },
   { id: 'dms', label: 'DMS', name: 'Degrees, minutes and seconds' },
   { id: 'utm', label: 'UTM', name: 'UTM zone, easting and northing' },
+  { id: 'mgrs', label: 'MGRS', name: 'MGRS (USNG) grid reference' },
 ];
+
+/** The datum every coordinate in Kenning is written on. */
+export const DATUM_LABEL = 'WGS 84';
 
 const KEY = 'kenning.map.coordinateFormat';
 const listeners = new Set<() => void>();

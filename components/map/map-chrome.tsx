@@ -4,7 +4,7 @@ import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import type { CoordinateFormat, LatLon } from '@/shared/geo/types';
 import { AppText } from '@/components/ui/app-text';
 import { colors, fonts, radius, space, TOUCH } from '@/components/ui/theme';
-import { COORDINATE_FORMATS } from './coordinate-format';
+import { COORDINATE_FORMATS, DATUM_LABEL } from './coordinate-format';
 import { useReadout, type ReadoutStore } from './readout-store';
 import { scaleBar, type ScaleUnits } from './scale-bar';
 
@@ -105,9 +105,14 @@ export function ReadoutBar({
   return (
     <View style={styles.readout}>
       <View style={{ flexShrink: 1, minWidth: 0 }} aria-live="polite" aria-label="Coordinate read-out">
-        <AppText variant="small" tone="muted" style={{ fontSize: 12, lineHeight: 15 }}>
-          {readout ? (readout.kind === 'tap' ? 'Tapped point' : 'Pointer') : 'Tap or point at the map'}
-        </AppText>
+        <View style={{ flexDirection: 'row', gap: space.xs }}>
+          <AppText variant="small" tone="muted" style={{ fontSize: 12, lineHeight: 15 }}>
+            {readout ? (readout.kind === 'tap' ? 'Tapped point' : 'Pointer') : 'Tap or point at the map'}
+          </AppText>
+          <AppText variant="small" tone="muted" style={{ fontSize: 12, lineHeight: 15 }} aria-label={`Datum ${DATUM_LABEL}`}>
+            · {DATUM_LABEL}
+          </AppText>
+        </View>
         <AppText variant="label" style={{ fontVariant: ['tabular-nums'] }} numberOfLines={1}>
           {readout ? formatPosition(readout.point, format) : '—'}
         </AppText>

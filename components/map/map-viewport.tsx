@@ -1,4 +1,4 @@
-import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Image, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import { Gesture, GestureDetector, GestureHandlerRootView } from 'react-native-gesture-handler';
 import Animated, { useAnimatedStyle, useSharedValue } from 'react-native-reanimated';
@@ -45,13 +45,32 @@ export interface MapViewportProps {
   readout: ReadoutStore;
   format: CoordinateFormat;
   onFormat: (format: CoordinateFormat) => void;
-  /** A tap (or click) on the map, in grid metres. */
-  onTap: (point: { x: number; y: number }) => void;
+  /** A tap (or click) on the map, in grid metres, with the scale it was made at. */
+  onTap: (point: { x: number; y: number }, at: { metresPerPx: number }) => void;
+  /**
+   * Points that can be dragged (an outline's corners while it is drawn): a drag
+   * that starts within a finger's reach of one moves it instead of the map.
+   */
+  handles?: MapHandles;
+  /** More drawing over the features, for the committed camera (same margin as the features' SVG). */
+  overlay?: (view: { camera: MapCamera; size: MapSize; margin: number }) => ReactNode;
+  /** What the map's label says it does (for screen readers). */
+  label?: string;
   /** Space kept free at the bottom for a sheet over the map, pixels. */
   bottomInset?: number;
   /** An area to outline (a blind area): `x1, y1, x2, y2` per edge, grid metres. */
   outline?: Float64Array | null;
 }
+
+/** Points a drag moves, grid metres, and where each drag goes. */
+export interface MapHandles {
+  readonly points: readonly { x: number; y: number }[];
+  onDrag(index: number, point: { x: number; y: number }): void;
+  onDragEnd?(index: number): void;
+}
+
+/** How near a press must start to a handle to grab it, pixels (a fingertip). */
+export const HANDLE_REACH_PX = 22;
 
 /** Wheel zooms wait this long for the next notch before the map is redrawn for the new zoom, ms. */
 const WHEEL_SETTLE_MS = 180;
@@ -64,7 +83,8 @@ const WHEEL_SETTLE_MS = 180;
  * camera is committed once and the layer redrawn crisp (`commitLive`).
  */
 export function MapViewport(props: MapViewportProps) {
-  const { frame, units, chosenPostId, targets, shown, focus, readout, format, onFormat, onTap, bottomInset = 0 } = props;
+  const { frame, units, chosenPostId, targets, shown, focus, readout, format, onFormat, onTap, handles, overlay, label } = props;
+  const bottomInset = props.bottomInset ?? 0;
   const [size, setSize] = useState<MapSize | null>(null);
   const [camera, setCamera] = useState<MapCamera | null>(null);
   const container = useRef<View>(null);
@@ -77,8 +97,8 @@ export function MapViewport(props: MapViewportProps) {
   }));
 
   // Latest values for the gesture callbacks, which are built once.
-  const latest = useRef({ camera, size, frame, shown, onTap });
-  latest.current = { camera, size, frame, shown, onTap };
+  const latest = useRef({ camera, size, frame, shown, onTap, handles });
+  latest.current = { camera, size, frame, shown, onTap, handles };
 
   const onLayout = (e: LayoutChangeEvent) => {
     const { width, height } = e.nativeEvent.layout;
@@ -122,6 +142,8 @@ export function MapViewport(props: MapViewportProps) {
     kOff: 1,
     fx: 0,
     fy: 0,
+    /** The handle a drag holds, or -1 while the drag pans the map. */
+    dragIndex: -1,
   });
   const wheelTimer = useRef<ReturnType<typeof setTimeout> | null>(null);
 
@@ -152,6 +174,31 @@ export function MapViewport(props: MapViewportProps) {
     };
     // Translation is measured from where the finger (or button) went down, not from where the pan
     // activated, so the first few pixels before activation are not lost.
+    const gridAt = (x: number, y: number) => {
+      const { camera: cam, size: sz } = latest.current;
+      return cam && sz ? liveScreenToGrid(cam, sz, { tx: tx.value, ty: ty.value, s: s.value }, x, y) : null;
+    };
+    /** The nearest handle within reach of a screen point, or -1. */
+    const handleAt = (x: number, y: number) => {
+      const { camera: cam, handles: hs } = latest.current;
+      const at = gridAt(x, y);
+      if (!hs || !cam || !at) return -1;
+      const reachM = HANDLE_REACH_PX / (cam.pxPerM * s.value);
+      let best = -1;
+      let bestD = reachM;
+      hs.points.forEach((p, i) => {
+        const d = Math.hypot(p.x - at.x, p.y - at.y);
+        if (d <= bestD) {
+          best = i;
+          bestD = d;
+        }
+      });
+      return best;
+    };
+    const drag = (x: number, y: number) => {
+      const at = gridAt(x, y);
+      if (at && g.dragIndex >= 0) latest.current.handles?.onDrag(g.dragIndex, at);
+    };
     const pan = Gesture.Pan()
       .runOnJS(true)
       .minDistance(6)
@@ -159,8 +206,13 @@ export function MapViewport(props: MapViewportProps) {
       .onBegin((e) => {
         g.beginX = e.absoluteX;
         g.beginY = e.absoluteY;
+        g.dragIndex = handleAt(e.x, e.y);
       })
       .onStart((e) => {
+        if (g.dragIndex >= 0) {
+          drag(e.x, e.y);
+          return;
+        }
         g.panning = true;
         rebase();
         g.panX = e.absoluteX - g.beginX;
@@ -170,11 +222,21 @@ export function MapViewport(props: MapViewportProps) {
         apply();
       })
       .onUpdate((e) => {
+        if (g.dragIndex >= 0) {
+          drag(e.x, e.y);
+          return;
+        }
         g.panX = e.absoluteX - g.beginX;
         g.panY = e.absoluteY - g.beginY;
         apply();
       })
       .onFinalize(() => {
+        if (g.dragIndex >= 0) {
+          const index = g.dragIndex;
+          g.dragIndex = -1;
+          latest.current.handles?.onDragEnd?.(index);
+          return;
+        }
         if (!g.panning) return;
         g.panning = false;
         commit();
@@ -207,7 +269,7 @@ export function MapViewport(props: MapViewportProps) {
         if (!success || !cam || !sz) return;
         const point = liveScreenToGrid(cam, sz, { tx: tx.value, ty: ty.value, s: s.value }, e.x, e.y);
         readout.set(describe(fr, point, sh, 'tap'));
-        tapped(point);
+        tapped(point, { metresPerPx: 1 / (cam.pxPerM * s.value) });
       });
     return Gesture.Race(Gesture.Simultaneous(pan, pinch), tap);
   }, [tx, ty, s, commit, readout]);
@@ -248,7 +310,7 @@ export function MapViewport(props: MapViewportProps) {
             <View
               style={styles.fill}
               role="application"
-              aria-label="Map: drag to pan, pinch or scroll to zoom, tap a point for its profile"
+              aria-label={label ?? 'Map: drag to pan, pinch or scroll to zoom, tap a point for its profile'}
             >
               <Animated.View style={[styles.fill, layerStyle]}>
                 {frame.base && base ? (
@@ -277,6 +339,7 @@ export function MapViewport(props: MapViewportProps) {
                   targets={targets}
                   outline={props.outline ?? null}
                 />
+                {overlay ? overlay({ camera, size, margin }) : null}
               </Animated.View>
             </View>
           </GestureDetector>

@@ -157,7 +157,7 @@ function MapWorkspace({
       <Screen title={`${site.name}: map`}>
         <EmptyState
           title="Nothing to map yet"
-          body="This site has no boundary, priority zones, posts or terrain. Add a boundary or a post on the site page first."
+          body="This site has no boundary, priority zones, posts or terrain. Edit the site to draw its boundary (or type its corners), or add a post on the site page."
           action={<Button kind="secondary" label="Back to the site" onPress={back} />}
         />
       </Screen>

@@ -31,6 +31,7 @@ import { PlanResults } from './plan-results';
 import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan-snapshot-panels';
 import { PlanStatusBadge } from './plan-status';
 import { when } from './when';
+import { HistoryLink } from '@/components/audit/history-link';
 
 const EDITABLE = new Set(['draft', 'returned']);
 
@@ -209,6 +210,7 @@ function PlanPage({
           />
         ) : null}
         {wide ? decision : null}
+        <HistoryLink entityType="plan" entityId={plan.id} />
         <Button
           label="Compare with…"
           kind="quiet"

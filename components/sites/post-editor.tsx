@@ -4,7 +4,9 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { POST_KIND_LABELS, type Post } from '@/shared/schemas/site';
 import { PhotoPanel } from '@/components/attachments/photo-panel';
+import { HistoryLink } from '@/components/audit/history-link';
 import { useSession } from '@/components/data/session';
+import { formatPosition } from '@/components/map/map-chrome';
 import { useSite } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -13,6 +15,7 @@ import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { PostDelete } from './post-delete';
 import { PostForm } from './post-form';
 
 /**
@@ -58,6 +61,7 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
         onPress={() => router.navigate({ pathname: '/sites/[siteId]/map', params: { siteId, postId: post.id } })}
         style={{ alignSelf: 'flex-start' }}
       />
+      <HistoryLink entityType="post" entityId={post.id} />
       {canEdit && !wide && !editing ? (
         <Button
           kind="secondary"
@@ -69,6 +73,7 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
         />
       ) : null}
       {form}
+      {canEdit ? <PostDelete siteId={siteId} post={post} /> : null}
     </View>
   );
   const photos = <PhotoPanel owner={{ ownerType: 'post', ownerId: post.id }} canEdit={canEdit} columns={2} />;
@@ -98,7 +103,10 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
 function PostSummary({ post }: { post: Post }) {
   const eye = post.groundElevationM + post.structureHeightM + post.eyeHeightM;
   const rows: [string, string][] = [
-    ['Location', `${formatCoordinate(post.location, 'ddm')}\n${formatCoordinate(post.location, 'utm')}`],
+    [
+      'Location (WGS 84)',
+      `${formatCoordinate(post.location, 'ddm')}\n${formatCoordinate(post.location, 'utm')}\n${formatPosition(post.location, 'mgrs')} (MGRS)`,
+    ],
     ['Eye above sea level', `${eye.toFixed(1)} m`],
     ['Made up of', `ground ${post.groundElevationM} m + structure ${post.structureHeightM} m + eye ${post.eyeHeightM} m`],
     ['Sector watched', post.sector ? `${post.sector.fromDeg}° to ${post.sector.toDeg}° (clockwise)` : 'All round'],

@@ -13,6 +13,7 @@ import { Card } from '@/components/ui/card';
 import { FormError, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
+import { formatPosition } from '@/components/map/map-chrome';
 import { GroundFromTerrain } from './ground-from-terrain';
 
 type Kind = (typeof POST_KINDS)[number];
@@ -173,8 +174,8 @@ export function PostForm({
         error={errors.location ?? (locationError || undefined)}
         hint={
           parsed
-            ? `Read as ${formatCoordinate(parsed, 'dd')} · ${formatCoordinate(parsed, 'utm')}`
-            : 'Decimal degrees, degrees-minutes, DMS or UTM (e.g. 33U 516200 5741300).'
+            ? `Read as ${formatCoordinate(parsed, 'dd')} · ${formatCoordinate(parsed, 'utm')} · ${formatPosition(parsed, 'mgrs')} (WGS 84)`
+            : 'WGS 84: decimal degrees, degrees-minutes, DMS, UTM (e.g. 33U 516200 5741300) or MGRS (33U WT 16200 41300).'
         }
         autoCapitalize="characters"
       />

@@ -1,13 +1,14 @@
 import { useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { SITE_KIND_LABELS } from '@/shared/schemas/site';
+import { HistoryLink } from '@/components/audit/history-link';
 import { useSession } from '@/components/data/session';
 import { useSite, useSitePosts } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Screen } from '@/components/ui/screen';
-import { ErrorState, LoadingState } from '@/components/ui/states';
+import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { PostForm } from './post-form';
@@ -28,7 +29,31 @@ export function SiteOverview({ siteId }: { siteId: string }) {
   const s = site.data;
   const list = posts.data ?? [];
   return (
-    <Screen title={s.name} subtitle={`${SITE_KIND_LABELS[s.kind]} · ${s.timeZone}${s.notes ? ` · ${s.notes}` : ''}`}>
+    <Screen
+      title={s.name}
+      subtitle={`${SITE_KIND_LABELS[s.kind]} · ${s.timeZone}${s.notes ? ` · ${s.notes}` : ''}`}
+      actions={
+        <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+          <HistoryLink entityType="site" entityId={siteId} />
+          {user?.role === 'planner' ? (
+            <Button
+              kind="secondary"
+              label="Edit site"
+              role="link"
+              onPress={() => router.navigate({ pathname: '/sites/[siteId]/edit', params: { siteId } })}
+            />
+          ) : null}
+        </View>
+      }
+    >
+      {!s.boundary && user?.role === 'planner' ? (
+        <Notice tone="info" title="Next: the boundary">
+          <AppText>
+            This site has no boundary yet. Edit the site to draw it on the map, type its corners or import a GeoJSON file;
+            coverage figures are worked out inside it.
+          </AppText>
+        </Notice>
+      ) : null}
       <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
         <View style={{ flex: wide ? 3 : undefined, width: wide ? undefined : '100%', gap: space.lg }}>
           <Card>

@@ -1,6 +1,7 @@
 import { checkLatLon } from '@/shared/geo/check-lat-lon';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
 import { isBandSNorthing } from '@/shared/geo/is-band-s-northing';
+import { formatMgrs } from '@/shared/geo/mgrs';
 import { toUtm } from '@/shared/geo/to-utm';
 import type { CoordinateFormat, LatLon } from '@/shared/geo/types';
 
@@ -27,9 +28,11 @@ export interface FormatCoordinateOptions {
   readonly utmLetter?: 'band' | 'hemisphere';
   /** UTM: write in this zone (1–60) instead of the position's own. */
   readonly zone?: number;
+  /** MGRS: digits of easting and of northing, 1–5 (10 km … 1 m squares); default 5. */
+  readonly mgrsDigits?: number;
 }
 
-const DEFAULT_DECIMALS: Readonly<Record<CoordinateFormat, number>> = { dd: 5, ddm: 3, dms: 1, utm: 0 };
+const DEFAULT_DECIMALS: Readonly<Record<CoordinateFormat, number>> = { dd: 5, ddm: 3, dms: 1, utm: 0, mgrs: 0 };
 
 /** `value` to `decimals` places, zero-padded to `integerDigits` before the point. */
 function fixed(value: number, decimals: number, integerDigits = 1): string {
@@ -98,7 +101,7 @@ function axis(
  * `parseCoordinate` to within half its last digit.
  *
  * @param point - `{ latDeg, lonDeg }`, degrees (latitude −90…90, longitude −180…180); not changed
- * @param format - `'dd' | 'ddm' | 'dms' | 'utm'`
+ * @param format - `'dd' | 'ddm' | 'dms' | 'utm' | 'mgrs'`
  * @param options - see {@link FormatCoordinateOptions}
  * @returns the text, ASCII apart from the degree sign
  * @throws {CoordinateError} `not-finite`, `latitude-out-of-range`,
@@ -118,7 +121,7 @@ export function formatCoordinate(point: LatLon, format: CoordinateFormat, option
     throw new CoordinateError(
       'unknown-format',
       'options',
-      `Unknown coordinate format ${String(format)}; use dd, ddm, dms or utm.`,
+      `Unknown coordinate format ${String(format)}; use dd, ddm, dms, utm or mgrs.`,
     );
   }
   const decimals = options.decimals ?? DEFAULT_DECIMALS[format];
@@ -141,6 +144,8 @@ export function formatCoordinate(point: LatLon, format: CoordinateFormat, option
   }
   const { latDeg, lonDeg } = point;
   checkLatLon(latDeg, lonDeg);
+
+  if (format === 'mgrs') return formatMgrs({ latDeg, lonDeg }, options.mgrsDigits ?? 5);
 
   if (format === 'utm') {
     const utm = toUtm({ latDeg, lonDeg }, options.zone);

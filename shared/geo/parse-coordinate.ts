@@ -1,4 +1,5 @@
 import { CoordinateError } from '@/shared/geo/coordinate-error';
+import { looksLikeMgrs, parseMgrs } from '@/shared/geo/mgrs';
 import { parseLatLonText } from '@/shared/geo/parse-lat-lon-text';
 import { parseUtmText } from '@/shared/geo/parse-utm-text';
 import type { CoordinateFormat, ParsedCoordinate } from '@/shared/geo/types';
@@ -6,12 +7,13 @@ import type { CoordinateFormat, ParsedCoordinate } from '@/shared/geo/types';
 /** Longest text accepted, characters: a coordinate fits on a line. */
 export const MAX_COORDINATE_TEXT_LENGTH = 120;
 
-const FORMATS: readonly (CoordinateFormat | 'auto')[] = ['dd', 'ddm', 'dms', 'utm', 'auto'];
+const FORMATS: readonly (CoordinateFormat | 'auto')[] = ['dd', 'ddm', 'dms', 'utm', 'mgrs', 'auto'];
 const FORMAT_NAMES: Readonly<Record<CoordinateFormat, string>> = {
   dd: 'decimal degrees (DD)',
   ddm: 'degrees and decimal minutes (DDM)',
   dms: 'degrees, minutes and seconds (DMS)',
   utm: 'UTM',
+  mgrs: 'MGRS',
 };
 
 /**
@@ -20,6 +22,7 @@ const FORMAT_NAMES: Readonly<Record<CoordinateFormat, string>> = {
  * - DD: `61.2345, -149.8765`, `61.2345N 149.8765W`, `N61.2345 W149.8765`
  * - DDM: `61°14.07'N 149°52.59'W`, `N61 14.070 W149 52.590`
  * - DMS: `61°14'04.2"N 149°52'35.4"W`, with ′ ″ or ' " or spaces
+ * - MGRS / USNG: `33U XP 05004 44998`, `33UXP0500444998` (the middle of the square named)
  * - UTM: `33N 500000 6800000`, `33V 500000E 6800000N` (zone with a
  *   hemisphere N/S or an MGRS latitude band letter)
  *
@@ -72,6 +75,10 @@ export function parseCoordinate(text: string, format: CoordinateFormat | 'auto' 
     );
   }
 
+  if (format === 'mgrs' || (format === 'auto' && looksLikeMgrs(cleaned))) {
+    const p = parseMgrs(cleaned);
+    return { latDeg: p.latDeg, lonDeg: p.lonDeg, format: 'mgrs' };
+  }
   if (format === 'utm' || format === 'auto') {
     const utm = parseUtmText(cleaned, format === 'utm');
     if (utm) return { latDeg: utm.latDeg, lonDeg: utm.lonDeg, format: 'utm' };

@@ -37,14 +37,14 @@ interface Half {
   readonly text: string;
   readonly letter: Letter | null;
   readonly valueDeg: number;
-  readonly format: Exclude<CoordinateFormat, 'utm'>;
+  readonly format: Exclude<CoordinateFormat, 'utm' | 'mgrs'>;
 }
 
 /** Latitude, longitude and the format they were written in. */
 export interface LatLonText {
   readonly latDeg: number;
   readonly lonDeg: number;
-  readonly format: Exclude<CoordinateFormat, 'utm'>;
+  readonly format: Exclude<CoordinateFormat, 'utm' | 'mgrs'>;
 }
 
 const DEGREE_MARKS = '°º˚';

@@ -15,7 +15,7 @@ export interface LatLon {
  * minutes (DDM), degrees, minutes and seconds (DMS), or UTM zone, easting
  * and northing.
  */
-export type CoordinateFormat = 'dd' | 'ddm' | 'dms' | 'utm';
+export type CoordinateFormat = 'dd' | 'ddm' | 'dms' | 'utm' | 'mgrs';
 
 /** A parsed position and the format it was written in. */
 export interface ParsedCoordinate extends LatLon {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ringSelfIntersection } from '@/shared/geo/ring-self-intersection';
 import { LatLonSchema } from './coordinate';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
@@ -35,7 +36,16 @@ export const RingSchema = z
   .refine(
     (ring) => new Set(ring.slice(0, -1).map((p) => p.join(','))).size >= 3,
     'A boundary needs at least three distinct corners.',
-  );
+  )
+  .superRefine((ring, ctx) => {
+    const crossing = ringSelfIntersection(ring);
+    if (crossing) {
+      ctx.addIssue({
+        code: 'custom',
+        message: `The ring crosses itself near ${crossing[1].toFixed(5)}, ${crossing[0].toFixed(5)} (latitude, longitude): move a corner so its sides do not cross.`,
+      });
+    }
+  });
 
 export const PriorityZoneSchema = z.object({
   name: z.string().trim().min(1, 'Name the zone.').max(120),

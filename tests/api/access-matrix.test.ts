@@ -307,6 +307,16 @@ const cases: Case[] = [
     call: async (a) => a.delete(`/api/v1/assignments/${(await newWatch()).id}`),
   },
   {
+    route: 'GET /audit-events?entityId (one record’s history)',
+    expect: only(['admin', 'reviewer'], 200),
+    call: async (a) => a.get(`/api/v1/audit-events?entityType=site&entityId=${(await newSite()).id}`),
+  },
+  {
+    route: 'GET /audit-events (the organisation’s trail)',
+    expect: { ...only(['admin', 'reviewer'], 200), otherAdmin: 200 },
+    call: (a) => a.get('/api/v1/audit-events'),
+  },
+  {
     route: 'GET /people',
     expect: { ...only(['planner', 'reviewer', 'admin'], 200), otherAdmin: 200, otherPlanner: 200 },
     call: (a) => a.get('/api/v1/people'),

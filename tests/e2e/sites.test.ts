@@ -86,8 +86,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('the library on the %s v
       await added.getByText('Visibility 1.5 km (MOR)').waitFor();
       await shot(page, 'library', viewport);
 
-      // Removing an entry leaves the list.
-      await page.getByRole('button', { name: `Remove Canoe ${viewport}` }).click();
+      // Retiring an entry takes it off the list.
+      await page.getByRole('button', { name: `Retire Canoe ${viewport}` }).click();
       await page.getByLabel(`Canoe ${viewport}`, { exact: true }).waitFor({ state: 'detached' });
     } finally {
       await context.close();

@@ -101,6 +101,23 @@ export const plansRepository = {
     return row ? (await toPlans([row]))[0]! : null;
   },
 
+  /** Titles and statuses of the organisation's plans with these statuses that use the post. */
+  async withPost(
+    organizationId: string,
+    postId: string,
+    statuses: PlanStatus[],
+    transaction?: Transaction,
+  ): Promise<{ id: string; title: string; status: PlanStatus }[]> {
+    const rows = await PlanModel.findAll({
+      where: { organizationId, status: { [Op.in]: statuses }, postIds: { [Op.contains]: [postId] } },
+      attributes: ['id', 'title', 'status'],
+      order: [['title', 'ASC']],
+      raw: true,
+      transaction,
+    });
+    return rows.map((r) => ({ id: r.id, title: r.title, status: r.status }));
+  },
+
   async countInSite(siteId: string, statuses: PlanStatus[], transaction?: Transaction): Promise<number> {
     return PlanModel.count({ where: { siteId, status: { [Op.in]: statuses } }, transaction });
   },

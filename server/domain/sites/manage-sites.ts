@@ -95,10 +95,19 @@ export function updatePost(
   });
 }
 
+/** Soft delete: the post leaves the lists, its history stays. A post in a submitted or approved plan is kept. */
 export function deletePost(db: Sequelize, actor: Actor, siteId: string, id: string): Promise<void> {
   return db.transaction(async (t) => {
     const before = await postsRepository.findInSite(actor.organizationId, siteId, id, t);
     if (!before) throw AppError.notFound('That post');
+    const frozen = await plansRepository.withPost(actor.organizationId, id, ['submitted', 'approved'], t);
+    if (frozen.length > 0) {
+      const named = frozen.map((p) => `“${p.title}” (${p.status})`).join(', ');
+      throw AppError.conflict(
+        `This post is used by ${frozen.length === 1 ? 'a plan' : `${frozen.length} plans`} that ${frozen.length === 1 ? 'is' : 'are'} submitted or approved — ${named} — so it cannot be deleted: a submitted or approved plan keeps the posts it was built on.`,
+        'post_in_frozen_plan',
+      );
+    }
     await postsRepository.softDelete(actor.organizationId, siteId, id, t);
     await auditRepository.record(actor, { action: 'delete', entityType: 'post', entityId: id, before }, t);
   });

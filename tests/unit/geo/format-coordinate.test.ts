@@ -85,7 +85,7 @@ describe('formatCoordinate', () => {
     ).toMatch(/Latitude 95° is beyond 90°/);
     expectCoordinateError(() => formatCoordinate({ latDeg: 0, lonDeg: 200 }, 'dd'), 'longitude-out-of-range', 'longitude');
     expectCoordinateError(() => formatCoordinate({ latDeg: Number.NaN, lonDeg: 0 }, 'dms'), 'not-finite', 'latitude');
-    expectCoordinateError(() => formatCoordinate(POST, 'mgrs' as never), 'unknown-format', 'options');
+    expectCoordinateError(() => formatCoordinate(POST, 'georef' as never), 'unknown-format', 'options');
     expectCoordinateError(() => formatCoordinate(POST, 'dd', { decimals: 1.5 }), 'invalid-option', 'options');
     expectCoordinateError(() => formatCoordinate(POST, 'dd', { decimals: 12 }), 'invalid-option', 'options');
     expectCoordinateError(() => formatCoordinate(POST, 'dd', { style: 'roman' as never }), 'invalid-option', 'options');

@@ -73,7 +73,7 @@ describe('parseCoordinate — latitude and longitude', () => {
     );
     expectCoordinateError(() => parseCoordinate('33N 500000 6800000', 'dd'), 'cannot-split');
     expectCoordinateError(() => parseCoordinate('61.2345, -149.8765', 'utm'), 'not-utm', 'text');
-    expectCoordinateError(() => parseCoordinate('61, 0', 'mgrs' as never), 'unknown-format', 'options');
+    expectCoordinateError(() => parseCoordinate('61, 0', 'georef' as never), 'unknown-format', 'options');
   });
 });
 

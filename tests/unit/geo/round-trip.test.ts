@@ -12,7 +12,7 @@ import { expectWithin } from './expect-close';
  * DMS 1 decimal of seconds → 0.05″; UTM whole metres → 0.5 m in easting
  * and northing (compared on the ground, below).
  */
-const HALF_DIGIT_DEG: Readonly<Record<Exclude<CoordinateFormat, 'utm'>, number>> = {
+const HALF_DIGIT_DEG: Readonly<Record<Exclude<CoordinateFormat, 'utm' | 'mgrs'>, number>> = {
   dd: 0.5e-5,
   ddm: 0.0005 / 60,
   dms: 0.05 / 3600,
@@ -72,7 +72,7 @@ function groundDistanceM(a: LatLon, b: LatLon): number {
  */
 const UTM_HALF_METRE_GROUND_M = 0.72;
 
-const DEGREE_CASES: [Exclude<CoordinateFormat, 'utm'>, FormatCoordinateOptions][] = [
+const DEGREE_CASES: [Exclude<CoordinateFormat, 'utm' | 'mgrs'>, FormatCoordinateOptions][] = [
   ['dd', {}],
   ['dd', { style: 'letters' }],
   ['ddm', {}],

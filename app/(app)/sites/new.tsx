@@ -1,0 +1,17 @@
+import { SiteForm } from '@/components/sites/site-form';
+import { Screen } from '@/components/ui/screen';
+import { RequirePlanner } from '@/components/sites/require-planner';
+
+export default function NewSiteScreen() {
+  return (
+    <Screen
+      title="New site"
+      subtitle="Name it, say what kind it is, then give its boundary and the zones that matter most."
+      maxWidth={820}
+    >
+      <RequirePlanner what="create sites">
+        <SiteForm />
+      </RequirePlanner>
+    </Screen>
+  );
+}

@@ -1,0 +1,128 @@
+import { useState } from 'react';
+import { View } from 'react-native';
+import { formatCoordinate } from '@/shared/geo/format-coordinate';
+import { Segmented } from '@/components/check/unit-switch';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { colors, radius, space } from '@/components/ui/theme';
+import { GeoJsonImport } from './geojson-import';
+import { RingDrawMap, type RingDrawContext } from './ring-draw-map';
+import { RingTextEntry, type Ring } from './ring-text-entry';
+
+type Mode = 'draw' | 'type' | 'import';
+
+/** How many distinct corners a ring has (a closing corner is not counted). */
+export function cornerCount(ring: Ring | null): number {
+  if (!ring || ring.length === 0) return 0;
+  const first = ring[0]!;
+  const last = ring[ring.length - 1]!;
+  return ring.length > 1 && first[0] === last[0] && first[1] === last[1] ? ring.length - 1 : ring.length;
+}
+
+/**
+ * One outline (the site's boundary or a priority zone): what it is now and the
+ * ways to enter it. The error (from the form's schema or the server) shows
+ * under it and is announced.
+ */
+export function RingField({
+  label,
+  ring,
+  onChange,
+  error,
+  optional,
+  drawContext,
+}: {
+  label: string;
+  ring: Ring | null;
+  onChange: (ring: Ring | null) => void;
+  error?: string;
+  optional?: boolean;
+  /** What the drawing map shows around the outline. */
+  drawContext: RingDrawContext;
+}) {
+  const [mode, setMode] = useState<Mode>('draw');
+  const [editing, setEditing] = useState(false);
+  const n = cornerCount(ring);
+  return (
+    <View
+      style={{
+        gap: space.sm,
+        padding: space.md,
+        borderRadius: radius.md,
+        borderWidth: 1,
+        borderColor: error ? colors.danger : colors.line,
+      }}
+    >
+      <AppText variant="label">{label}</AppText>
+      <AppText tone="muted" aria-live="polite">
+        {ring && n > 0
+          ? `${n} corners, from ${formatCoordinate({ latDeg: ring[0]![1], lonDeg: ring[0]![0] }, 'dd')}.`
+          : optional
+            ? 'None yet: draw it, type its corners or import it.'
+            : 'No outline yet: draw it, type its corners or import it.'}
+      </AppText>
+      {error ? (
+        <AppText variant="small" tone="danger" role="alert">
+          {error}
+        </AppText>
+      ) : null}
+      {editing ? (
+        <View style={{ gap: space.sm }}>
+          <Segmented<Mode>
+            label="Enter it by"
+            value={mode}
+            onChange={setMode}
+            options={[
+              { value: 'draw', label: 'Drawing on the map' },
+              { value: 'type', label: 'Typing corners' },
+              { value: 'import', label: 'Importing GeoJSON' },
+            ]}
+          />
+          {mode === 'draw' ? (
+            <RingDrawMap
+              label={label}
+              ring={ring}
+              context={drawContext}
+              onDone={(r) => {
+                onChange(r);
+                setEditing(false);
+              }}
+              onCancel={() => setEditing(false)}
+            />
+          ) : null}
+          {mode === 'import' ? (
+            <GeoJsonImport
+              label={`${label} from a file`}
+              onUse={(p) => {
+                onChange(p.ring);
+                setEditing(false);
+              }}
+            />
+          ) : null}
+          {mode === 'type' ? (
+            <RingTextEntry
+              label={label}
+              ring={ring}
+              onRing={(r) => {
+                onChange(r);
+                setEditing(false);
+              }}
+            />
+          ) : null}
+          {mode !== 'draw' ? (
+            <Button kind="quiet" label="Close" onPress={() => setEditing(false)} style={{ alignSelf: 'flex-start' }} />
+          ) : null}
+        </View>
+      ) : (
+        <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+          <Button
+            kind="secondary"
+            label={n > 0 ? `Change ${label.toLowerCase()}` : `Enter ${label.toLowerCase()}`}
+            onPress={() => setEditing(true)}
+          />
+          {n > 0 && optional ? <Button kind="quiet" label="Remove" onPress={() => onChange(null)} /> : null}
+        </View>
+      )}
+    </View>
+  );
+}

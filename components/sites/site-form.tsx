@@ -1,0 +1,282 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useQuery } from '@tanstack/react-query';
+import { useRouter } from 'expo-router';
+import { useState } from 'react';
+import { Controller, useFieldArray, useForm, type Path } from 'react-hook-form';
+import { View } from 'react-native';
+import { z } from 'zod';
+import {
+  PriorityZoneSchema,
+  RingSchema,
+  SITE_KIND_LABELS,
+  SITE_KINDS,
+  SiteInputSchema,
+  UNIT_SYSTEM_IDS,
+  type Site,
+  type SiteKind,
+} from '@/shared/schemas/site';
+import { Segmented } from '@/components/check/unit-switch';
+import { ApiRequestError } from '@/components/data/api-client';
+import { applyServerErrors } from '@/components/data/server-errors';
+import { sitePostsQuery, useCreateSite, useUpdateSite } from '@/components/data/sites';
+import { siteTerrainQuery } from '@/components/data/terrain';
+import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { FormTextField } from '@/components/ui/form-text-field';
+import { FormError, Notice } from '@/components/ui/states';
+import { space } from '@/components/ui/theme';
+import { GeoJsonImport } from './geojson-import';
+import { RingField } from './ring-field';
+import type { RingDrawContext } from './ring-draw-map';
+
+type UnitSystem = (typeof UNIT_SYSTEM_IDS)[number];
+export const UNIT_SYSTEM_LABELS: Record<UnitSystem, string> = {
+  metric: 'Metric (m, km)',
+  nautical: 'Nautical (m, nmi)',
+  imperial: 'Imperial (ft, mi)',
+};
+
+/** The form's own schema: the shared site schema, with a zone's weight typed as text and its outline required. */
+export const SiteFormSchema = SiteInputSchema.pick({
+  name: true,
+  kind: true,
+  notes: true,
+  boundary: true,
+  defaultUnits: true,
+  timeZone: true,
+}).extend({
+  priorityZones: z
+    .array(
+      PriorityZoneSchema.extend({
+        weight: z.coerce.number({ error: 'Weight is 1 to 10.' }).pipe(PriorityZoneSchema.shape.weight),
+        ring: RingSchema.nullable().refine((r) => r !== null, 'Draw, type or import the zone’s outline.'),
+      }),
+    )
+    .max(50, 'At most 50 zones.'),
+});
+type FormIn = z.input<typeof SiteFormSchema>;
+type FormOut = z.output<typeof SiteFormSchema>;
+
+const browserTimeZone = () => {
+  try {
+    return Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+  } catch {
+    return 'UTC';
+  }
+};
+
+function valuesOf(site: Site | undefined): FormIn {
+  return {
+    name: site?.name ?? '',
+    kind: site?.kind ?? 'forest-district',
+    notes: site?.notes ?? '',
+    boundary: site?.boundary ?? null,
+    defaultUnits: site?.defaultUnits ?? 'metric',
+    timeZone: site?.timeZone ?? browserTimeZone(),
+    priorityZones: (site?.priorityZones ?? []).map((z) => ({ name: z.name, weight: String(z.weight), ring: z.ring })),
+  };
+}
+
+const ROOT_FIELDS = ['name', 'kind', 'notes', 'boundary', 'defaultUnits', 'timeZone', 'priorityZones'] as const;
+
+/** Where a server field path shows on this form: a zone's part under that part, a corner's under its outline. */
+function fieldOf(path: string): Path<FormIn> | undefined {
+  const [root, index, part] = path.split('.');
+  if (root === 'priorityZones' && index !== undefined && (part === 'name' || part === 'weight' || part === 'ring')) {
+    return `priorityZones.${Number(index)}.${part}`;
+  }
+  return (ROOT_FIELDS as readonly string[]).includes(root ?? '') ? (root as Path<FormIn>) : undefined;
+}
+
+/**
+ * Creates a site or — given `site` — edits it, saved with the version it was
+ * loaded at: name, kind, default units, time zone, notes, the boundary and the
+ * named priority zones with their weights. A failed save keeps everything
+ * typed and says which field and why.
+ */
+export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => void }) {
+  const router = useRouter();
+  const create = useCreateSite();
+  const update = useUpdateSite(site?.id ?? '');
+  const saving = site ? update : create;
+  const [formError, setFormError] = useState('');
+  const [stale, setStale] = useState(false);
+  const [importing, setImporting] = useState(false);
+  const { control, handleSubmit, setError, formState, watch } = useForm<FormIn, unknown, FormOut>({
+    resolver: zodResolver(SiteFormSchema),
+    defaultValues: valuesOf(site),
+  });
+  const zones = useFieldArray({ control, name: 'priorityZones' });
+  const posts = useQuery({ ...sitePostsQuery(site?.id ?? ''), enabled: !!site });
+  const terrain = useQuery({ ...siteTerrainQuery(site?.id ?? ''), enabled: !!site });
+  const boundary = watch('boundary') ?? null;
+  const zoneValues = watch('priorityZones');
+  /** The drawing map's surroundings for one outline: the site's terrain and posts and the form's other outlines. */
+  const drawContext = (editing: 'boundary' | number): RingDrawContext => ({
+    site: site ?? null,
+    posts: posts.data ?? [],
+    terrain: terrain.data ?? null,
+    boundary: editing === 'boundary' ? null : boundary,
+    zones: zoneValues.flatMap((z, i) => (i !== editing && z.ring ? [{ name: z.name || `Zone ${i + 1}`, ring: z.ring }] : [])),
+  });
+
+  const submit = handleSubmit((v) => {
+    setFormError('');
+    setStale(false);
+    const input = { ...v, priorityZones: v.priorityZones.map((z) => ({ name: z.name, weight: z.weight, ring: z.ring! })) };
+    const onError = (e: unknown) => {
+      if (e instanceof ApiRequestError && e.code === 'stale_version') {
+        setStale(true);
+        return;
+      }
+      setFormError(applyServerErrors(e, setError, fieldOf));
+    };
+    const open = (id: string) => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: id } });
+    // The saved site comes back with a new version, which remounts this form (its key on the edit
+    // screen) before a per-call onSuccess could run; the promise resolves regardless.
+    const saved = site ? update.mutateAsync({ ...input, version: site.version }) : create.mutateAsync(input);
+    saved.then((s) => open(s.id), onError);
+  });
+
+  const rootZoneError = formState.errors.priorityZones?.root?.message ?? formState.errors.priorityZones?.message;
+
+  return (
+    <Card accent="moss" aria-label={site ? 'Edit site' : 'New site'} style={{ gap: space.lg }}>
+      <FormError message={formError} />
+      <FormTextField control={control} name="name" label="Name" onSubmitEditing={() => void submit()} />
+      <Controller
+        control={control}
+        name="kind"
+        render={({ field }) => (
+          <Segmented<SiteKind>
+            label="Kind"
+            value={field.value}
+            onChange={field.onChange}
+            options={SITE_KINDS.map((k) => ({ value: k, label: SITE_KIND_LABELS[k] }))}
+          />
+        )}
+      />
+      <Controller
+        control={control}
+        name="defaultUnits"
+        render={({ field }) => (
+          <Segmented<UnitSystem>
+            label="Default units"
+            value={field.value ?? 'metric'}
+            onChange={field.onChange}
+            options={UNIT_SYSTEM_IDS.map((u) => ({ value: u, label: UNIT_SYSTEM_LABELS[u] }))}
+          />
+        )}
+      />
+      <FormTextField
+        control={control}
+        name="timeZone"
+        label="Time zone"
+        autoCapitalize="none"
+        hint="IANA name, e.g. Europe/Oslo or America/Anchorage; watches and plans show times in it."
+        onSubmitEditing={() => void submit()}
+      />
+      <FormTextField control={control} name="notes" label="Notes" multiline numberOfLines={3} style={{ minHeight: 72 }} />
+      <Controller
+        control={control}
+        name="boundary"
+        render={({ field, fieldState }) => (
+          <RingField
+            label="Boundary"
+            ring={field.value ?? null}
+            onChange={field.onChange}
+            error={fieldState.error?.message}
+            optional
+            drawContext={drawContext('boundary')}
+          />
+        )}
+      />
+      <View style={{ gap: space.sm }}>
+        <AppText variant="heading">Priority zones</AppText>
+        <AppText tone="muted">
+          Parts of the site that matter most (a village edge, a bathing beach), each with a weight from 1 (low) to 10 (high).
+        </AppText>
+        {rootZoneError ? (
+          <AppText tone="danger" role="alert">
+            {rootZoneError}
+          </AppText>
+        ) : null}
+        {zones.fields.map((f, i) => (
+          <View key={f.id} style={{ gap: space.sm }} aria-label={`Priority zone ${i + 1}`}>
+            <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
+              <View style={{ flex: 3, minWidth: 180 }}>
+                <FormTextField control={control} name={`priorityZones.${i}.name`} label={`Zone ${i + 1} name`} />
+              </View>
+              <View style={{ flex: 1, minWidth: 100 }}>
+                <FormTextField
+                  control={control}
+                  name={`priorityZones.${i}.weight`}
+                  label="Weight"
+                  inputMode="numeric"
+                  hint="1–10"
+                />
+              </View>
+            </View>
+            <Controller
+              control={control}
+              name={`priorityZones.${i}.ring`}
+              render={({ field, fieldState }) => (
+                <RingField
+                  label={`Zone ${i + 1} outline`}
+                  ring={field.value ?? null}
+                  onChange={field.onChange}
+                  error={fieldState.error?.message}
+                  drawContext={drawContext(i)}
+                />
+              )}
+            />
+            <Button
+              kind="quiet"
+              label={`Remove zone ${i + 1}`}
+              onPress={() => zones.remove(i)}
+              style={{ alignSelf: 'flex-start' }}
+            />
+          </View>
+        ))}
+        <Button
+          kind="secondary"
+          label="Add a priority zone"
+          onPress={() => zones.append({ name: '', weight: '5', ring: null })}
+          style={{ alignSelf: 'flex-start' }}
+        />
+        {importing ? (
+          <GeoJsonImport
+            label="Zones from a GeoJSON file"
+            onUseAll={(found) => {
+              zones.append(found.map((p) => ({ name: p.name, weight: '5', ring: p.ring })));
+              setImporting(false);
+            }}
+          />
+        ) : (
+          <Button
+            kind="quiet"
+            label="Import zones from a GeoJSON file"
+            onPress={() => setImporting(true)}
+            style={{ alignSelf: 'flex-start' }}
+          />
+        )}
+      </View>
+      {stale ? (
+        <Notice tone="danger" title="Not saved: this site changed">
+          <AppText>
+            Someone else saved this site after you opened it, so your changes were not saved. Reload to see their version, then
+            make your change again.
+          </AppText>
+          {onReload ? <Button kind="secondary" label="Reload the site" onPress={onReload} /> : null}
+        </Notice>
+      ) : null}
+      <Button
+        label={site ? 'Save changes' : 'Create site'}
+        onPress={() => void submit()}
+        busy={saving.isPending}
+        disabled={saving.isPending}
+      />
+    </Card>
+  );
+}
