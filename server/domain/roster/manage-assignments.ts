@@ -201,7 +201,7 @@ export async function briefingFor(actor: Actor, now = Date.now()): Promise<Brief
         basis: terrainView ? ('terrain' as const) : ('smooth-earth' as const),
         terrainView,
         siteHasTerrain: terrain !== null,
-        cautions: snapshot?.cautions ?? [],
+        cautions: terrainView ? onTerrain(snapshot?.cautions ?? []) : (snapshot?.cautions ?? []),
       };
     }),
   );
@@ -233,3 +233,16 @@ async function terrainViewOf(
 }
 
 const BoundarySchema = z.array(z.tuple([z.number(), z.number()])).min(3);
+
+/** The plan's cautions for figures over terrain: the smooth-sphere wording of `estimates-only` does not fit them. */
+function onTerrain(cautions: { code: string; message: string }[]) {
+  return cautions.map((c) =>
+    c.code === 'estimates-only'
+      ? {
+          code: c.code,
+          message:
+            'These figures are estimates from the site’s terrain model at its cell size with uniform refraction; trees, buildings and ground finer than the cells are not included.',
+        }
+      : c,
+  );
+}
