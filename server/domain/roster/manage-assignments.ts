@@ -9,6 +9,7 @@ import type {
   Roster,
 } from '@/shared/schemas/assignment';
 import type { PlanResultRow, PlanSnapshot } from '@/shared/schemas/plan';
+import { LatLonSchema } from '@/shared/schemas/coordinate';
 import type { Post } from '@/shared/schemas/site';
 import type { TerrainCrs } from '@/shared/terrain/terrain-raster';
 import { findWatchGaps } from '@/shared/roster/find-watch-gaps';
@@ -229,7 +230,11 @@ async function terrainViewOf(
   const boundary = frozen.success
     ? frozen.data
     : ((await sitesRepository.findInOrganization(actor.organizationId, post.siteId))?.boundary ?? null);
-  return postTerrainView({ coverage, crs, post, boundary, results });
+  // Where the post stood when the revision was made (the run was computed there), today's place otherwise.
+  const frozenPost = snapshot.inputs.posts.find((p) => p.id === post.id);
+  const place = LatLonSchema.safeParse(frozenPost?.location);
+  const location = place.success ? place.data : post.location;
+  return postTerrainView({ coverage, crs, post: { ...post, location }, boundary, results });
 }
 
 const BoundarySchema = z.array(z.tuple([z.number(), z.number()])).min(3);

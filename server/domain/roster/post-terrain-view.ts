@@ -8,6 +8,7 @@ import { gridConvergence } from '@/shared/terrain/grid-convergence';
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { locatePostCell } from '@/shared/terrain/locate-post-cell';
 import { rasterizePolygon } from '@/shared/terrain/rasterize-polygon';
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { seenShareByBearing } from '@/shared/terrain/seen-share-by-bearing';
 import type { RasterGrid, TerrainCrs } from '@/shared/terrain/terrain-raster';
 import { coverageRepository } from '@/server/data/repositories/coverage-repository';
@@ -42,7 +43,14 @@ export async function postTerrainView(args: {
   const grid: RasterGrid = { width: g.width, height: g.height, cellSize: g.cellSizeM, xll: g.xllM, yll: g.yllM, crs };
   const projection = gridProjection(crs);
   const { x, y } = projection.toGrid(post.location);
-  const cell = locatePostCell(grid, x, y);
+  let cell;
+  try {
+    cell = locatePostCell(grid, x, y);
+  } catch (error) {
+    // A post the run placed on the grid always is; refuse quietly if the frozen data says otherwise.
+    if (error instanceof TerrainInputError) return null;
+    throw error;
+  }
   const gamma = gridConvergence(projection, post.location);
   const siteMask = boundary ? rasterizePolygon(grid, [ringOnGrid(projection, boundary)]) : null;
   const cases: BriefingTerrainView['cases'] = [];
