@@ -39,7 +39,7 @@ export function SeenShareRose({
 }) {
   const c = size / 2;
   const r0 = size * 0.08;
-  const r1 = size * 0.4;
+  const r1 = size * 0.36;
   const reach = (pct: number) => r0 + ((r1 - r0) * pct) / 100;
   const blindList = view.blindSectors.map((b) => `${b.fromDeg}°–${b.toDeg}°`).join(', ');
   return (
@@ -74,7 +74,7 @@ export function SeenShareRose({
       {[0, 90, 180, 270].map((b) => {
         const p = at(c, c, r1, b);
         const q = at(c, c, r1 + 10, b);
-        const t = at(c, c, r1 + 20, b);
+        const t = at(c, c, r1 + 19, b);
         return (
           <G key={b}>
             <Line x1={p.x} y1={p.y} x2={q.x} y2={q.y} stroke={colors.ink} strokeWidth={1.5} />

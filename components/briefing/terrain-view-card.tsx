@@ -68,7 +68,7 @@ export function TerrainViewCard({
               {pct(current.seenPct)} of {siteName}
             </AppText>
             <AppText variant="small" tone="muted">
-              where you see a {current.targetName.toLowerCase()} ({current.conditionLabel})
+              where you see the target: {current.targetName}, {current.conditionLabel}
             </AppText>
           </View>
           <View aria-label="Blind sectors">
@@ -78,7 +78,7 @@ export function TerrainViewCard({
             ) : (
               current.blindSectors.map((b) => (
                 <AppText key={b.fromDeg} variant="small">
-                  {bearing(b.fromDeg)} → {bearing(b.toDeg)} true · {pct(b.seenPct)} seen
+                  {bearing(b.fromDeg)} → {bearing(b.toDeg)} true · {b.seenPct.toFixed(1)} % seen
                 </AppText>
               ))
             )}

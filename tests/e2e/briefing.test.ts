@@ -40,7 +40,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       // common practice, no source).
       expect(shown.seenPct).toBeLessThan(35);
       await card.getByText(`${Math.round(shown.seenPct)} % of Harrowmere Forest District`).waitFor();
-      for (const b of shown.blindSectors) await card.getByText(`${bearing(b.fromDeg)} → ${bearing(b.toDeg)} true`).waitFor();
+      for (const b of shown.blindSectors)
+        await card.getByText(`${bearing(b.fromDeg)} → ${bearing(b.toDeg)} true · ${b.seenPct.toFixed(1)} % seen`).waitFor();
       expect(shown.blindSectors.length).toBeGreaterThan(0);
       await page.getByRole('img', { name: /Seen share by bearing, true north up/ }).waitFor();
       await page.getByText('Detection ranges per target').waitFor();
@@ -54,6 +55,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
         .first()
         .waitFor();
       await shot(page, 'briefing-terrain', viewport);
+      await page.getByRole('img', { name: /Seen share by bearing/ }).scrollIntoViewIfNeeded();
+      await shot(page, 'briefing-terrain-rose', viewport);
+      await page.getByText('Detection ranges per target').scrollIntoViewIfNeeded();
+      await shot(page, 'briefing-terrain-ranges', viewport);
 
       // Another condition: the chips switch the figures.
       const other = crane.terrainView!.cases.find((c) => c.targetId === shown.targetId && c.caseKey !== shown.caseKey)!;
