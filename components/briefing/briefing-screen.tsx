@@ -14,6 +14,7 @@ import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { TerrainViewCard } from './terrain-view-card';
 
 /**
  * A lookout's own briefing: their watches for the next two weeks and, for each
@@ -47,7 +48,7 @@ export function BriefingScreen() {
           ))}
         </Card>
       )}
-      {posts.map(({ post, siteName, plan, results, cautions }) => (
+      {posts.map(({ post, siteName, plan, results, cautions, basis, terrainView, siteHasTerrain }) => (
         <View key={post.id} style={{ gap: space.md }}>
           <AppText variant="title">{post.name}</AppText>
           <AppText tone="muted">
@@ -60,6 +61,26 @@ export function BriefingScreen() {
               <AppText>
                 Approved plan “{plan.title}” v{plan.version}, revision {plan.revision}, approved {when(plan.approvedAt)}.
               </AppText>
+              {terrainView ? (
+                <TerrainViewCard view={terrainView} siteName={siteName} wide={wide} watch={post.sector} />
+              ) : siteHasTerrain ? (
+                <Notice tone="caution">
+                  <AppText>
+                    The site has terrain, but this plan was approved without terrain coverage: the figures below are for a smooth
+                    earth and leave out every hill and valley. Ask your supervisor for a plan with terrain coverage.
+                  </AppText>
+                </Notice>
+              ) : null}
+              <View style={{ gap: space.xs }}>
+                <AppText variant="heading">
+                  {basis === 'terrain' ? 'Detection ranges per target' : 'Ranges per target — smooth earth, no terrain'}
+                </AppText>
+                <AppText variant="small" tone="muted">
+                  {basis === 'terrain'
+                    ? 'How far each target can be detected from this post when nothing is in the way (the terrain view above says where something is).'
+                    : 'Figures for a smooth earth: they hold over open sea and flat ground, not where hills or trees are in the way.'}
+                </AppText>
+              </View>
               <View style={{ flexDirection: wide ? 'row' : 'column', flexWrap: 'wrap', gap: space.sm }}>
                 {byTarget(results).map(({ targetId, targetName, rows }) => (
                   <Card key={targetId} style={{ gap: space.xs, width: wide ? 360 : '100%' }} aria-label={targetName}>
@@ -75,7 +96,9 @@ export function BriefingScreen() {
                         <AppText variant="small" tone="muted" style={{ flex: 1 }}>
                           {r.conditionSetName}, k = {r.result.k.toFixed(2)} ·{' '}
                           {r.result.limitedBy ? `limited by ${LIMIT_LABELS[r.result.limitedBy]}` : 'no limit found'}
-                          {r.zones.length ? ` · ${r.zones.map((z) => `${z.name}: ${z.reach}`).join(', ')}` : ''}
+                          {basis === 'smooth-earth' && r.zones.length
+                            ? ` · ${r.zones.map((z) => `${z.name}: ${z.reach}`).join(', ')}`
+                            : ''}
                         </AppText>
                       </View>
                     ))}

@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { MeResponseSchema, type SignInRequest, type User } from '@/shared/schemas/auth';
+import { resetLanding } from './first-landing';
 import { api, ApiRequestError } from './api-client';
 import { STALE } from './query-client';
 
@@ -29,6 +30,7 @@ export function useSession() {
 
 /** Drops every cached query that belonged to the previous user, keeping the session query observed. */
 function forgetOtherUsersData(qc: ReturnType<typeof useQueryClient>) {
+  resetLanding();
   qc.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionKeys.all[0] });
 }
 

@@ -23,7 +23,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s v
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.observer);
-      await page.getByText('Your sites').first().waitFor();
+      await page.waitForURL(/\/briefing$/);
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Quick check' }).click();
       const table = page.getByRole('table', { name: 'Sightline results' });
       await table.waitFor();

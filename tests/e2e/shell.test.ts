@@ -116,7 +116,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
     const observer = await newPage(browser, viewport);
     try {
       await signIn(observer.page, DEMO.observer);
-      await observer.page.getByText('Your sites').first().waitFor();
+      await observer.page.waitForURL(/\/briefing$/);
       await observer.page.goto(`${e2eUrl()}/admin/users`);
       await observer.page.getByText('Not available to your role').waitFor();
       await shot(observer.page, 'observer-admin', viewport);

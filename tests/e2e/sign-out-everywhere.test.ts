@@ -53,7 +53,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
     try {
       for (const { page } of [here, there]) {
         await signIn(page, person.email, person.password);
-        await page.getByText('Your watches').or(page.getByText('Your sites')).first().waitFor();
+        // A new observer lands on their (empty) watch and briefing.
+        await page.getByText('No watches').or(page.getByText('Your sites')).first().waitFor();
       }
       await here.page.goto(`${e2eUrl()}/account`);
       await here.page.getByRole('button', { name: 'Sign out everywhere' }).waitFor();

@@ -1,15 +1,29 @@
 import type { Sequelize, Transaction } from 'sequelize';
-import type { Assignment, AssignmentInput, AssignmentListQuery, Briefing, Roster } from '@/shared/schemas/assignment';
+import { z } from 'zod';
+import type {
+  Assignment,
+  AssignmentInput,
+  AssignmentListQuery,
+  Briefing,
+  BriefingTerrainView,
+  Roster,
+} from '@/shared/schemas/assignment';
+import type { PlanResultRow, PlanSnapshot } from '@/shared/schemas/plan';
+import { LatLonSchema } from '@/shared/schemas/coordinate';
+import type { Post } from '@/shared/schemas/site';
+import type { TerrainCrs } from '@/shared/terrain/terrain-raster';
 import { findWatchGaps } from '@/shared/roster/find-watch-gaps';
 import { assignmentsRepository } from '@/server/data/repositories/assignments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { plansRepository } from '@/server/data/repositories/plans-repository';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
+import { terrainRepository } from '@/server/data/repositories/terrain-repository';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 import { AppError } from '@/server/http/app-error';
 import type { Actor } from '../actor';
 import { verifiedRevision } from '../plans/verify-revision';
+import { postTerrainView } from './post-terrain-view';
 
 const DAY = 24 * 3600_000;
 /** Hand-overs shorter than this are not reported as gaps. */
@@ -168,6 +182,9 @@ export async function briefingFor(actor: Actor, now = Date.now()): Promise<Brief
       const revision = plan && latest ? verifiedRevision(plan.id, latest) : undefined;
       const approval = plan ? (await plansRepository.reviews(plan.id)).filter((r) => r.decision === 'approve').at(-1) : undefined;
       const snapshot = revision?.snapshot;
+      const results = snapshot ? snapshot.results.filter((r) => r.postId === postId) : [];
+      const terrain = await terrainRepository.findActive(actor.organizationId, post.siteId);
+      const terrainView = snapshot?.coverage ? await terrainViewOf(actor, post, snapshot, results) : null;
       return {
         post,
         siteName: assignments.find((a) => a.postId === postId)!.siteName,
@@ -181,10 +198,56 @@ export async function briefingFor(actor: Actor, now = Date.now()): Promise<Brief
                 approvedAt: approval?.at ?? plan.updatedAt,
               }
             : null,
-        results: snapshot ? snapshot.results.filter((r) => r.postId === postId) : [],
-        cautions: snapshot?.cautions ?? [],
+        results,
+        basis: terrainView ? ('terrain' as const) : ('smooth-earth' as const),
+        terrainView,
+        siteHasTerrain: terrain !== null,
+        cautions: terrainView ? onTerrain(snapshot?.cautions ?? []) : (snapshot?.cautions ?? []),
       };
     }),
   );
   return { assignments, posts: posts.filter((p): p is NonNullable<typeof p> => p !== null) };
+}
+
+/** The post's view over the terrain from the revision's frozen coverage run (null on the flat datum). */
+async function terrainViewOf(
+  actor: Actor,
+  post: Post,
+  snapshot: PlanSnapshot,
+  results: PlanResultRow[],
+): Promise<BriefingTerrainView | null> {
+  const coverage = snapshot.coverage;
+  if (!coverage || coverage.datum !== 'terrain' || coverage.terrainId === null) return null;
+  let crs: TerrainCrs;
+  if (coverage.grid.epsg !== null) crs = { epsg: coverage.grid.epsg, wkt: null };
+  else {
+    const terrain = await terrainRepository.findInSite(actor.organizationId, post.siteId, coverage.terrainId);
+    if (!terrain) return null;
+    crs = { epsg: terrain.epsg, wkt: terrain.crsWkt };
+  }
+  // The boundary as the revision froze it; today's when the revision did not keep one.
+  const frozen = BoundarySchema.safeParse(snapshot.inputs.site.boundary);
+  const boundary = frozen.success
+    ? frozen.data
+    : ((await sitesRepository.findInOrganization(actor.organizationId, post.siteId))?.boundary ?? null);
+  // Where the post stood when the revision was made (the run was computed there), today's place otherwise.
+  const frozenPost = snapshot.inputs.posts.find((p) => p.id === post.id);
+  const place = LatLonSchema.safeParse(frozenPost?.location);
+  const location = place.success ? place.data : post.location;
+  return postTerrainView({ coverage, crs, post: { ...post, location }, boundary, results });
+}
+
+const BoundarySchema = z.array(z.tuple([z.number(), z.number()])).min(3);
+
+/** The plan's cautions for figures over terrain: the smooth-sphere wording of `estimates-only` does not fit them. */
+function onTerrain(cautions: { code: string; message: string }[]) {
+  return cautions.map((c) =>
+    c.code === 'estimates-only'
+      ? {
+          code: c.code,
+          message:
+            'These figures are estimates from the site’s terrain model at its cell size with uniform refraction; trees, buildings and ground finer than the cells are not included.',
+        }
+      : c,
+  );
 }
