@@ -37,6 +37,16 @@ export const UNIT_SYSTEM_LABELS: Record<UnitSystem, string> = {
   imperial: 'Imperial (ft, mi)',
 };
 
+/** A typed number or nothing: '' → null, '12,5' → 12.5, anything else as typed (the schema says why). */
+function optionalNumber(v: unknown): unknown {
+  if (v === null || v === undefined || (typeof v === 'string' && v.trim() === '')) return null;
+  if (typeof v === 'string') {
+    const n = Number(v.trim().replace(',', '.'));
+    return Number.isFinite(n) ? n : v;
+  }
+  return v;
+}
+
 /** The form's own schema: the shared site schema, with a zone's weight typed as text and its outline required. */
 export const SiteFormSchema = SiteInputSchema.pick({
   name: true,
@@ -45,7 +55,10 @@ export const SiteFormSchema = SiteInputSchema.pick({
   boundary: true,
   defaultUnits: true,
   timeZone: true,
+  seaArea: true,
 }).extend({
+  seaLevelMaxM: z.preprocess(optionalNumber, SiteInputSchema.shape.seaLevelMaxM),
+  targetGroundM: z.preprocess(optionalNumber, SiteInputSchema.shape.targetGroundM),
   priorityZones: z
     .array(
       PriorityZoneSchema.extend({
@@ -74,11 +87,25 @@ function valuesOf(site: Site | undefined): FormIn {
     boundary: site?.boundary ?? null,
     defaultUnits: site?.defaultUnits ?? 'metric',
     timeZone: site?.timeZone ?? browserTimeZone(),
+    seaArea: site?.seaArea ?? null,
+    seaLevelMaxM: site?.seaLevelMaxM == null ? '' : String(site.seaLevelMaxM),
+    targetGroundM: site?.targetGroundM == null ? '' : String(site.targetGroundM),
     priorityZones: (site?.priorityZones ?? []).map((z) => ({ name: z.name, weight: String(z.weight), ring: z.ring })),
   };
 }
 
-const ROOT_FIELDS = ['name', 'kind', 'notes', 'boundary', 'defaultUnits', 'timeZone', 'priorityZones'] as const;
+const ROOT_FIELDS = [
+  'name',
+  'kind',
+  'notes',
+  'boundary',
+  'defaultUnits',
+  'timeZone',
+  'priorityZones',
+  'seaArea',
+  'seaLevelMaxM',
+  'targetGroundM',
+] as const;
 
 /** Where a server field path shows on this form: a zone's part under that part, a corner's under its outline. */
 function fieldOf(path: string): Path<FormIn> | undefined {
@@ -113,7 +140,7 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
   const boundary = watch('boundary') ?? null;
   const zoneValues = watch('priorityZones');
   /** The drawing map's surroundings for one outline: the site's terrain and posts and the form's other outlines. */
-  const drawContext = (editing: 'boundary' | number): RingDrawContext => ({
+  const drawContext = (editing: 'boundary' | 'sea' | number): RingDrawContext => ({
     site: site ?? null,
     posts: posts.data ?? [],
     terrain: terrain.data ?? null,
@@ -192,6 +219,43 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
           />
         )}
       />
+      <View style={{ gap: space.sm }} aria-label="Sea and ground for detection">
+        <AppText variant="heading">Sea and ground</AppText>
+        <AppText tone="muted">
+          On a coast, targets on the water (a swimmer, a raft, a boat) count over the sea only. Give the sea as an outline, or as
+          the height at or below which the terrain is sea, or both (then the cells in both).
+        </AppText>
+        <Controller
+          control={control}
+          name="seaArea"
+          render={({ field, fieldState }) => (
+            <RingField
+              label="Sea area"
+              ring={field.value ?? null}
+              onChange={field.onChange}
+              error={fieldState.error?.message}
+              optional
+              drawContext={drawContext('sea')}
+            />
+          )}
+        />
+        <FormTextField
+          control={control}
+          name="seaLevelMaxM"
+          label="Terrain at or below this height is sea"
+          unit="m"
+          inputMode="decimal"
+          hint="Empty: no sea from the terrain. Usually a little above mean sea level (tide, spray)."
+        />
+        <FormTextField
+          control={control}
+          name="targetGroundM"
+          label="Ground the targets stand on, for smooth-earth figures"
+          unit="m"
+          inputMode="decimal"
+          hint="Empty: sea level on a coast, each post’s own ground inland. Terrain coverage uses the terrain itself."
+        />
+      </View>
       <View style={{ gap: space.sm }}>
         <AppText variant="heading">Priority zones</AppText>
         <AppText tone="muted">
