@@ -55,7 +55,7 @@ export function adjustFix(lines: readonly BearingLine[], start: LatLon): Adjuste
   const all = lines.map((_, i) => i);
   let position = start;
   for (let iteration = 1; iteration <= MAX_ITERATIONS; iteration++) {
-    const { normal, gradient, residualsRad } = linearise(lines, position);
+    const { normal, gradient } = linearise(lines, position);
     const [nee, nen, nnn] = normal;
     const det = nee * nnn - nen * nen;
     // Relative test: the normal matrix of two lines crossing at angle θ has det ∝ sin²θ.

@@ -26,7 +26,10 @@ export const ERROR_QUADRILATERAL_METHOD =
  * errorQuadrilateral(a, b).areaM2; // m²
  */
 export function errorQuadrilateral(a: BearingLine, b: BearingLine): GeodesicRing {
-  const turned = (line: BearingLine, sign: 1 | -1): BearingLine => ({ ...line, bearingRad: line.bearingRad + sign * line.sigmaRad });
+  const turned = (line: BearingLine, sign: 1 | -1): BearingLine => ({
+    ...line,
+    bearingRad: line.bearingRad + sign * line.sigmaRad,
+  });
   const signs: [1 | -1, 1 | -1][] = [
     [1, 1],
     [1, -1],

@@ -1,9 +1,7 @@
 import type { LatLon } from '@/shared/geo/types';
 import { adjustFix, type AdjustedFix } from './adjust-fix';
-import { wrapPi } from './angles';
 import { FixError } from './fix-error';
 import { intersectBearings } from './intersect-bearings';
-import { sightToPoint } from './sight-to-point';
 import type { BearingLine } from './types';
 
 /** A bearing whose residual exceeds this many σ disagrees with the others (common practice, no source). */
@@ -15,11 +13,14 @@ export interface LeastSquaresFix extends AdjustedFix {
   readonly start: { readonly position: LatLon; readonly pair: readonly [number, number] };
   /** Each bearing's residual in units of its σ (signed). */
   readonly normalisedResiduals: readonly number[];
-  /** Bearings whose |residual| exceeds {@link DISAGREEMENT_SIGMAS} σ. */
+  /**
+   * Bearings whose |residual| exceeds {@link DISAGREEMENT_SIGMAS} σ. Least squares spreads one gross error
+   * over every residual, so the wrong bearing is not always among them: see `disagreeing`.
+   */
   readonly flagged: readonly number[];
   /**
    * The bearing that disagrees most, when any is flagged: with four or more,
-   * the one farthest (in its σ) from the fix of all the others; with three,
+   * the one whose removal leaves the others most consistent (the largest fall of Σ(r/σ)²); with three,
    * the largest normalised residual. Null when none is flagged.
    */
   readonly disagreeing: number | null;
@@ -32,8 +33,8 @@ export interface LeastSquaresFix extends AdjustedFix {
  * residual and a flag on those beyond 3σ.
  *
  * Sources: least squares and the 3σ outlier rule: Ghilani, "Adjustment
- * Computations" (2010) (from memory); leave-one-out residuals to pick the
- * disagreeing bearing: common practice, no source.
+ * Computations" (2010) (from memory); leaving each bearing out in turn to pick
+ * the disagreeing one (the fall of the misfit): common practice, no source.
  *
  * @param lines three or more bearing lines (radians), not modified
  * @throws {FixError} `too-few-bearings`, `parallel` (no pair crosses), and those of `adjustFix`
@@ -48,7 +49,8 @@ export function leastSquaresFix(lines: readonly BearingLine[]): LeastSquaresFix 
   const flagged = normalisedResiduals.flatMap((z, i) => (Math.abs(z) > DISAGREEMENT_SIGMAS ? [i] : []));
   let disagreeing: number | null = null;
   if (flagged.length > 0) {
-    const score = lines.length >= 4 ? leaveOneOutScores(lines, fix.position) : normalisedResiduals.map(Math.abs);
+    const score =
+      lines.length >= 4 ? leaveOneOutScores(lines, fix.position, fix.residualsRad) : normalisedResiduals.map(Math.abs);
     disagreeing = score.reduce((best, s, i) => (s > score[best]! ? i : best), 0);
   }
   return { ...fix, start: { position: start.position, pair: start.pair }, normalisedResiduals, flagged, disagreeing };
@@ -79,16 +81,21 @@ function bestPairCrossing(lines: readonly BearingLine[]) {
   return best;
 }
 
-/** |residual|/σ of each bearing against the fix of all the others (0 where the others do not fix a point). */
-function leaveOneOutScores(lines: readonly BearingLine[], start: LatLon): number[] {
-  return lines.map((line, i) => {
-    const others = lines.filter((_, j) => j !== i);
+/**
+ * For each bearing, how much the misfit Σ(r/σ)² of the others falls when it is left out (the larger, the more
+ * that bearing alone explains the disagreement); −∞ where the others do not fix a point.
+ */
+function leaveOneOutScores(lines: readonly BearingLine[], start: LatLon, residualsRad: readonly number[]): number[] {
+  const misfit = (rs: readonly number[], ls: readonly BearingLine[]) =>
+    rs.reduce((sum, r, i) => sum + (r / ls[i]!.sigmaRad) ** 2, 0);
+  const whole = misfit(residualsRad, lines);
+  return lines.map((_, i) => {
+    const others = lines.filter((__, j) => j !== i);
     try {
-      const { position } = adjustFix(others, start);
-      return Math.abs(wrapPi(line.bearingRad - sightToPoint(line.from, position).azimuthAtFromRad)) / line.sigmaRad;
+      return whole - misfit(adjustFix(others, start).residualsRad, others);
     } catch (error) {
       if (!(error instanceof FixError)) throw error;
-      return 0;
+      return Number.NEGATIVE_INFINITY;
     }
   });
 }

@@ -22,6 +22,12 @@ const DEG = 180 / Math.PI;
 export function offsetPoint(origin: LatLon, eastM: number, northM: number): LatLon {
   const s = Math.hypot(eastM, northM);
   if (s === 0) return { latDeg: origin.latDeg, lonDeg: origin.lonDeg };
-  const r = Geodesic.WGS84.Direct(origin.latDeg, origin.lonDeg, Math.atan2(eastM, northM) * DEG, s, Geodesic.LATITUDE | Geodesic.LONGITUDE);
+  const r = Geodesic.WGS84.Direct(
+    origin.latDeg,
+    origin.lonDeg,
+    Math.atan2(eastM, northM) * DEG,
+    s,
+    Geodesic.LATITUDE | Geodesic.LONGITUDE,
+  );
   return { latDeg: r.lat2 ?? origin.latDeg, lonDeg: r.lon2 ?? origin.lonDeg };
 }

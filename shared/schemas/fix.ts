@@ -53,7 +53,11 @@ export const FixBearingSchema = z
   })
   .superRefine((b, ctx) => {
     if (b.postId === undefined && b.observer === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['postId'], message: 'Give the post, or the observer’s position { latDeg, lonDeg }.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['postId'],
+        message: 'Give the post, or the observer’s position { latDeg, lonDeg }.',
+      });
     }
     if (b.postId !== undefined && b.observer !== undefined) {
       ctx.addIssue({ code: 'custom', path: ['observer'], message: 'Give either a post or an observer’s position, not both.' });
