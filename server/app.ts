@@ -17,6 +17,7 @@ import type { FileStore } from './storage/file-store';
 import { attachmentRoutes } from './routes/attachments';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { coverageRoutes } from './routes/coverage';
+import { fixRoutes } from './routes/fixes';
 import type { CoverageQueue } from './queue/coverage-queue';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
@@ -134,6 +135,7 @@ export function createApp({
   );
   v1.use(libraryRoutes(db));
   v1.use(sweepWidthRoutes(db));
+  v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(rosterRoutes(db));

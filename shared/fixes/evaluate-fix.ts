@@ -1,5 +1,5 @@
 import type { LatLon } from '@/shared/geo/types';
-import type { Fix, FixBearing, FixReport, FixResult } from '@/shared/schemas/fix';
+import type { Fix, FixBearing, FixCaution, FixReport, FixResult } from '@/shared/schemas/fix';
 import { RAD_PER_DEG, wrap360Deg, wrapPi } from './angles';
 import { errorEllipse, ERROR_ELLIPSE_METHOD } from './error-ellipse';
 import { errorQuadrilateral, ERROR_QUADRILATERAL_METHOD } from './error-quadrilateral';
@@ -14,11 +14,18 @@ import type { BearingLine } from './types';
 export const GOOD_CUT_ANGLE_DEG = { min: 30, max: 150 } as const;
 
 /** The standing cautions of every fix. */
-export const FIX_CAUTIONS: readonly string[] = [
-  'A fix is an estimate: it is only as good as the bearings, the positions of the posts and the declination used.',
-  'Every bearing from a lookout has its own error (the instrument, its alignment, the reading, a smoke leaning in the wind); ' +
-    'the error area shows only the uncertainties entered.',
-  'Follow your agency’s procedures for confirming a fix and sending anyone to it.',
+export const FIX_CAUTIONS: readonly FixCaution[] = [
+  {
+    code: 'estimates-only',
+    message: 'A fix is an estimate: it is only as good as the bearings, the positions of the posts and the declination used.',
+  },
+  {
+    code: 'bearing-error',
+    message:
+      'Every bearing from a lookout has its own error (the instrument, its alignment, the reading, a smoke leaning in the wind); ' +
+      'the error area shows only the uncertainties entered.',
+  },
+  { code: 'follow-procedures', message: 'Follow your agency’s procedures for confirming a fix and sending anyone to it.' },
 ];
 
 /** A bearing of the request with where it was taken from (the post's location, or the typed observer). */
@@ -151,5 +158,5 @@ export function evaluateFix(observedAt: string, bearings: readonly ResolvedFixBe
       flagged: flagged.includes(i),
     };
   });
-  return { observedAt, fix, reports, cautions: [...FIX_CAUTIONS] };
+  return { observedAt, fix, reports, cautions: FIX_CAUTIONS.map((c) => ({ ...c })) };
 }

@@ -143,11 +143,16 @@ export const FixReportSchema = z.object({
 });
 export type FixReport = z.infer<typeof FixReportSchema>;
 
+export const FIX_CAUTION_CODES = ['estimates-only', 'bearing-error', 'follow-procedures'] as const;
+/** A standing caution shown with every fix. */
+export const FixCautionSchema = z.object({ code: z.enum(FIX_CAUTION_CODES), message: z.string() });
+export type FixCaution = z.infer<typeof FixCautionSchema>;
+
 /** Body of the answer to POST /api/v1/fixes. */
 export const FixResultSchema = z.object({
   observedAt: z.string(),
   fix: FixSchema,
   reports: z.array(FixReportSchema),
-  cautions: z.array(z.string()),
+  cautions: z.array(FixCautionSchema),
 });
 export type FixResult = z.infer<typeof FixResultSchema>;

@@ -253,7 +253,7 @@ describe('evaluateFix', () => {
     expectWithin(result.reports[1]!.distanceM, 24_000, 1);
     expect(result.fix.method).toBe('two-bearing-intersection');
     expect(result.fix.errorArea.coordinates[0]).toHaveLength(5);
-    expect(result.cautions.join(' ')).toMatch(/estimate/);
+    expect(result.cautions.map((c) => c.message).join(' ')).toMatch(/estimate/);
   });
 
   it('warns on a cut angle below 30° and above 150°, not at 80°', () => {
