@@ -1,6 +1,14 @@
 /** Why a fix cannot be computed. */
 export type FixErrorCode =
-  'too-few-bearings' | 'bad-input' | 'parallel' | 'diverging' | 'too-far' | 'at-post' | 'no-convergence' | 'error-area-unbounded';
+  | 'too-few-bearings'
+  | 'bad-input'
+  | 'parallel'
+  | 'diverging'
+  | 'same-position'
+  | 'too-far'
+  | 'at-post'
+  | 'no-convergence'
+  | 'error-area-unbounded';
 
 /**
  * Thrown by the bearing-fix core on bearings it cannot fix. `code` is stable;

@@ -24,7 +24,7 @@ const MIN_SIN_CROSSING = Math.sin((0.05 * Math.PI) / 180);
  * @param b second line (radians)
  * @param indexes the two lines' indexes in the caller's list, for errors
  * @returns the crossing, WGS84 degrees
- * @throws {FixError} `parallel` (within 0.05° of parallel), `diverging` (the lines cross behind a post),
+ * @throws {FixError} `same-position` (origins within 1 m), `parallel` (within 0.05° of parallel), `diverging` (the lines cross behind a post),
  *   `too-far` (beyond {@link MAX_FIX_DISTANCE_M})
  * @example
  * planarCrossing(
@@ -34,6 +34,9 @@ const MIN_SIN_CROSSING = Math.sin((0.05 * Math.PI) / 180);
  */
 export function planarCrossing(a: BearingLine, b: BearingLine, indexes: readonly [number, number] = [0, 1]): LatLon {
   const [[bx, by]] = projectAzimuthalEquidistant(a.from, [b.from]) as [[number, number]];
+  if (Math.hypot(bx, by) < 1) {
+    throw new FixError('same-position', 'These bearings were taken from the same place: they cannot fix a position.', indexes);
+  }
   const ux = Math.sin(a.bearingRad);
   const uy = Math.cos(a.bearingRad);
   const vx = Math.sin(b.bearingRad);

@@ -109,6 +109,10 @@ describe('intersectBearings: geodesic round trips at 30 km', () => {
       code = (error as FixError).code;
     }
     expect(code).toBe('diverging');
+    // Two bearings from one place fix nothing.
+    expect(() =>
+      intersectBearings({ from: postA, bearingRad: 0, sigmaRad: 0.01 }, { from: postA, bearingRad: RAD * 90, sigmaRad: 0.01 }),
+    ).toThrow(/same place/);
   });
 });
 
