@@ -5,7 +5,7 @@ import { geodesicRing, type GeodesicRing } from './ring-area';
 /** How the least-squares error area is drawn, in words (returned with every such fix). */
 export const ERROR_ELLIPSE_METHOD =
   'Standard error ellipse (1σ, about 39 % probability for a two-dimensional normal error) of the least-squares ' +
-  'position, from the bearings’ uncertainties; after C. D. Ghilani, Adjustment Computations (from memory).';
+  'position, from the bearings’ uncertainties, as in least-squares adjustment (C. D. Ghilani, Adjustment Computations).';
 
 /** Vertices of the polygon drawn for an ellipse. */
 const ELLIPSE_VERTICES = 72;
