@@ -18,6 +18,7 @@ import { attachmentRoutes } from './routes/attachments';
 import { auditRoutes } from './routes/audit';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { coverageRoutes } from './routes/coverage';
+import { fixRoutes } from './routes/fixes';
 import type { CoverageQueue } from './queue/coverage-queue';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
@@ -135,6 +136,7 @@ export function createApp({
   );
   v1.use(libraryRoutes(db));
   v1.use(sweepWidthRoutes(db));
+  v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(rosterRoutes(db));

@@ -380,6 +380,21 @@ const cases: Case[] = [
     call: (a) => a.post('/api/v1/sightline').send({ observerHeightM: 20, conditions: [{ k: 0.13 }] }),
   },
   {
+    // A fix from two of the organisation's posts: the other organisation cannot name them.
+    route: 'POST /fixes',
+    expect: everyone(200),
+    call: async (a) => {
+      const fenwick = (await PostModel.findOne({ where: { name: 'Fenwick Head' } }))!.id;
+      return a.post('/api/v1/fixes').send({
+        observedAt: '2026-07-14T10:00:00Z',
+        bearings: [
+          { postId: coastPostId, bearingDeg: 45, bearingReference: 'true', bearingSigmaDeg: 1 },
+          { postId: fenwick, bearingDeg: 315, bearingReference: 'true', bearingSigmaDeg: 1 },
+        ],
+      });
+    },
+  },
+  {
     route: 'POST /sweep-width',
     expect: { ...everyone(200), otherAdmin: 200, otherPlanner: 200 },
     call: (a) => a.post('/api/v1/sweep-width').send({ sweepWidthM: 1000, trackSpacingM: 2000 }),

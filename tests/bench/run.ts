@@ -5,6 +5,7 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { benchApi } from './api.bench';
+import { benchFixes } from './fixes.bench';
 import { benchLists } from './lists.bench';
 import { benchSightline } from './sightline.bench';
 import { benchTerrain } from './terrain.bench';
@@ -31,6 +32,9 @@ async function main() {
       'Sightline core',
       (await benchSightline()).map((r) => ({ name: r.name, value: r.opsPerSec, unit: 'ops/s' })),
     );
+  }
+  if (!only || only === 'fixes') {
+    print('Bearing fixes', (await benchFixes()).map((r) => ({ name: r.name, value: r.opsPerSec, unit: 'ops/s' })));
   }
   if ((!only || only === 'api') && process.env.KENNING_BENCH_DATABASE_URL) {
     print(

@@ -1,0 +1,52 @@
+import { evaluateFix, FixError, type ResolvedFixBearing } from '@/shared/fixes';
+import type { FixRequest, FixResult } from '@/shared/schemas/fix';
+import { postsRepository } from '@/server/data/repositories/posts-repository';
+import type { Actor } from '@/server/domain/actor';
+import { AppError } from '@/server/http/app-error';
+
+/**
+ * A fix from bearings, stored nowhere: each `postId` is looked up in the
+ * caller's organisation (its location and eye height), typed observers are
+ * taken as given, and the pure core does the rest.
+ *
+ * @throws {AppError} 404 `not_found` with `bearings.N.postId` for a post that is not the organisation's;
+ *   422 `fix_input` with the bearings at fault when the core cannot fix them (parallel, diverging, …)
+ */
+export async function computeFix(actor: Actor, request: FixRequest): Promise<FixResult> {
+  const resolved: ResolvedFixBearing[] = [];
+  for (const [i, bearing] of request.bearings.entries()) {
+    if (bearing.postId !== undefined) {
+      const post = await postsRepository.findInOrganization(actor.organizationId, bearing.postId);
+      if (!post) {
+        throw new AppError(404, 'not_found', 'That post was not found.', { [`bearings.${i}.postId`]: 'No such post.' });
+      }
+      resolved.push({
+        ...bearing,
+        from: post.location,
+        postName: post.name,
+        eyeHeightM: post.structureHeightM + post.eyeHeightM,
+      });
+    } else {
+      const observer = bearing.observer!;
+      resolved.push({
+        ...bearing,
+        from: { latDeg: observer.latDeg, lonDeg: observer.lonDeg },
+        postName: null,
+        eyeHeightM: observer.eyeHeightM ?? null,
+      });
+    }
+  }
+  try {
+    return evaluateFix(request.observedAt, resolved);
+  } catch (error) {
+    if (!(error instanceof FixError)) throw error;
+    const indexes = error.bearingIndexes.length > 0 ? error.bearingIndexes : [];
+    const fields = Object.fromEntries(indexes.map((i) => [`bearings.${i}.bearingDeg`, error.message]));
+    throw new AppError(
+      422,
+      'fix_input',
+      'These bearings do not give a fix.',
+      indexes.length ? fields : { bearings: error.message },
+    );
+  }
+}

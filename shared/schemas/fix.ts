@@ -1,0 +1,158 @@
+import { z } from 'zod';
+import { LatLonSchema } from './coordinate';
+
+/*
+ * Bearing fixes (POST /api/v1/fixes): bearings from posts or typed
+ * positions → the fix, its error area and one report per bearing. Angles in
+ * degrees (bearings clockwise from north, declination east positive),
+ * lengths in metres, areas in square metres at this edge; the core in
+ * shared/fixes works in radians.
+ */
+
+/** The most bearings one fix may take. */
+export const MAX_FIX_BEARINGS = 20;
+
+export const BEARING_REFERENCES = ['true', 'magnetic'] as const;
+export type BearingReference = (typeof BEARING_REFERENCES)[number];
+
+const degrees = (what: string, min: number, max: number) =>
+  z
+    .number({ error: `${what} must be a number of degrees.` })
+    .min(min, `${what} must be at least ${min}°.`)
+    .max(max, `${what} must be at most ${max}°.`);
+
+/** A position a bearing was taken from when it is not one of the organisation's posts. */
+export const FixObserverSchema = z.strictObject({
+  latDeg: LatLonSchema.shape.latDeg,
+  lonDeg: LatLonSchema.shape.lonDeg,
+  /** Eye above the ground, metres (kept with the report; a fix on the ellipsoid does not use it). */
+  eyeHeightM: z
+    .number({ error: 'Eye height must be a number of metres.' })
+    .min(0, 'Eye height cannot be negative.')
+    .max(10_000, 'Eye height must be at most 10 000 m.')
+    .optional(),
+});
+
+/** One bearing: from a post (`postId`) or a typed position (`observer`), never both. */
+export const FixBearingSchema = z
+  .strictObject({
+    postId: z.uuid({ error: 'Not a post id.' }).optional(),
+    observer: FixObserverSchema.optional(),
+    /** The bearing as read, degrees clockwise from north (true or magnetic, see `bearingReference`), 0…360. */
+    bearingDeg: degrees('The bearing', 0, 360),
+    bearingReference: z.enum(BEARING_REFERENCES, { error: 'The bearing reference is true or magnetic.' }),
+    /** Magnetic declination at the post and date, degrees, east positive (true = magnetic + declination). */
+    declinationDeg: degrees('The declination', -90, 90).optional(),
+    /** Standard uncertainty of the bearing, degrees (a tripod-mounted sight about 0.5°, a hand compass 1–2°). */
+    bearingSigmaDeg: z
+      .number({ error: 'The bearing uncertainty must be a number of degrees.' })
+      .positive('The bearing uncertainty must be more than 0°.')
+      .max(20, 'The bearing uncertainty must be at most 20°.'),
+    /** Angle of the sighting below (−) or above (+) the horizontal, degrees (kept with the report; not used by the fix yet). */
+    verticalAngleDeg: degrees('The vertical angle', -90, 90).optional(),
+  })
+  .superRefine((b, ctx) => {
+    if (b.postId === undefined && b.observer === undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['postId'],
+        message: 'Give the post, or the observer’s position { latDeg, lonDeg }.',
+      });
+    }
+    if (b.postId !== undefined && b.observer !== undefined) {
+      ctx.addIssue({ code: 'custom', path: ['observer'], message: 'Give either a post or an observer’s position, not both.' });
+    }
+    if (b.bearingReference === 'magnetic' && b.declinationDeg === undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['declinationDeg'],
+        message: 'A magnetic bearing needs the declination at the post and date (east positive).',
+      });
+    }
+  });
+export type FixBearing = z.infer<typeof FixBearingSchema>;
+
+/** Body of POST /api/v1/fixes. */
+export const FixRequestSchema = z.strictObject({
+  /** When the bearings were taken (ISO 8601 with offset). */
+  observedAt: z.iso.datetime({ offset: true, error: 'The time must be a date and time (ISO 8601).' }),
+  bearings: z
+    .array(FixBearingSchema, { error: 'Bearings must be a list.' })
+    .min(2, 'A fix needs at least two bearings.')
+    .max(MAX_FIX_BEARINGS, `At most ${MAX_FIX_BEARINGS} bearings per fix.`),
+});
+export type FixRequest = z.infer<typeof FixRequestSchema>;
+
+export const FIX_METHODS = ['two-bearing-intersection', 'least-squares'] as const;
+export type FixMethod = (typeof FIX_METHODS)[number];
+
+/** A GeoJSON polygon: one counter-clockwise ring of [longitude, latitude] degrees, closed. */
+export const GeoJsonPolygonSchema = z.object({
+  type: z.literal('Polygon'),
+  coordinates: z.array(z.array(z.tuple([z.number(), z.number()]))),
+});
+export type GeoJsonPolygon = z.infer<typeof GeoJsonPolygonSchema>;
+
+/** The fix itself. */
+export const FixSchema = z.object({
+  latDeg: z.number(),
+  lonDeg: z.number(),
+  /** The error area (quadrilateral for two bearings, standard error ellipse for more). */
+  errorArea: GeoJsonPolygonSchema,
+  /** Its area on the WGS84 ellipsoid, square metres. */
+  errorAreaM2: z.number(),
+  /** How the error area is drawn and its source, in words. */
+  errorAreaMethod: z.string(),
+  /** Angle between the two bearings at the fix, degrees 0…180 (two bearings only). */
+  cutAngleDeg: z.number().optional(),
+  /** Observed minus computed true bearing per bearing, degrees (three or more bearings). */
+  residualsDeg: z.array(z.number()).optional(),
+  /** Error ellipse axes, metres, and the major axis' true bearing, degrees (three or more bearings). */
+  errorEllipse: z.object({ semiMajorM: z.number(), semiMinorM: z.number(), majorAxisDeg: z.number() }).optional(),
+  method: z.enum(FIX_METHODS),
+  warnings: z.array(z.string()),
+});
+export type Fix = z.infer<typeof FixSchema>;
+
+/** What each bearing says, with the fix. */
+export const FixReportSchema = z.object({
+  /** Position in the request's list, from 0. */
+  index: z.number().int(),
+  postId: z.uuid().nullable(),
+  postName: z.string().nullable(),
+  /** Where the bearing was taken, WGS84 degrees. */
+  from: LatLonSchema,
+  /** Eye above the ground, metres (the post's structure + eye height, or the observer's), null when not given. */
+  eyeHeightM: z.number().nullable(),
+  bearingDeg: z.number(),
+  bearingReference: z.enum(BEARING_REFERENCES),
+  /** Declination used, degrees east positive (0 for a true bearing). */
+  declinationDeg: z.number(),
+  /** The bearing from true north, degrees 0…360. */
+  trueBearingDeg: z.number(),
+  bearingSigmaDeg: z.number(),
+  verticalAngleDeg: z.number().nullable(),
+  /** Geodesic distance from where the bearing was taken to the fix, metres. */
+  distanceM: z.number(),
+  /** True bearing from there to the fix, degrees 0…360. */
+  bearingToFixDeg: z.number(),
+  /** trueBearingDeg − bearingToFixDeg, degrees −180…180. */
+  residualDeg: z.number(),
+  /** True when this bearing disagrees with the others (beyond 3σ). */
+  flagged: z.boolean(),
+});
+export type FixReport = z.infer<typeof FixReportSchema>;
+
+export const FIX_CAUTION_CODES = ['estimates-only', 'bearing-error', 'follow-procedures'] as const;
+/** A standing caution shown with every fix. */
+export const FixCautionSchema = z.object({ code: z.enum(FIX_CAUTION_CODES), message: z.string() });
+export type FixCaution = z.infer<typeof FixCautionSchema>;
+
+/** Body of the answer to POST /api/v1/fixes. */
+export const FixResultSchema = z.object({
+  observedAt: z.string(),
+  fix: FixSchema,
+  reports: z.array(FixReportSchema),
+  cautions: z.array(FixCautionSchema),
+});
+export type FixResult = z.infer<typeof FixResultSchema>;
