@@ -1,11 +1,13 @@
 import { usePlan } from '@/components/data/plans';
-import { PlanEditor } from '@/components/plans/plan-editor';
 import { usePlanId } from '@/components/plans/use-plan-id';
 import { AppText } from '@/components/ui/app-text';
 import { BadAddress } from '@/components/ui/bad-address';
 import { Screen } from '@/components/ui/screen';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const PlanEditor = deferredScreen('PlanEditor');
 
 function EditPlanRouteContent() {
   const planId = usePlanId();
