@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { LatLonSchema } from './coordinate';
+import { LatLonSchema } from './lat-lon';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
 import { SeenVersionSchema } from './seen-version';
