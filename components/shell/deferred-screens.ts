@@ -13,6 +13,7 @@ export { QuickCheck } from '@/components/check/quick-check';
 export { LibraryScreen } from '@/components/library/library-screen';
 export { RunMapScreen } from '@/components/map/run-map-screen';
 export { SiteMapScreen } from '@/components/map/site-map-screen';
+export { EditPlanScreen } from '@/components/plans/edit-plan-screen';
 export { PlanCompareScreen } from '@/components/plans/plan-compare-screen';
 export { PlanEditor } from '@/components/plans/plan-editor';
 export { PlanHistory } from '@/components/plans/plan-history';
