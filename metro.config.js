@@ -11,4 +11,16 @@ const escape = (s) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 const own = (folder) => new RegExp(`^${escape(path.join(__dirname, folder))}\\/.*`);
 config.resolver.blockList = ['.kenning', 'server', 'tests', 'dist'].map(own);
 
+// zod re-exports all of its ~50 message locales as `z.locales` (≈ 270 KB of the first bundle); the app
+// uses zod's English messages only, which zod sets up itself. The web bundle gets an English-only namespace.
+const zodLocales = path.join(__dirname, 'metro', 'zod-locales-en.js');
+const zodApi = /[\\/]node_modules[\\/]zod[\\/]v4[\\/](classic|core|mini)[\\/][^\\/]+$/;
+const resolveRequest = config.resolver.resolveRequest;
+config.resolver.resolveRequest = (context, moduleName, platform) => {
+  if (moduleName === '../locales/index.js' && zodApi.test(context.originModulePath)) {
+    return { type: 'sourceFile', filePath: zodLocales };
+  }
+  return (resolveRequest ?? context.resolveRequest)(context, moduleName, platform);
+};
+
 module.exports = config;

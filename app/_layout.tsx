@@ -9,15 +9,22 @@ import { StatusBar } from 'expo-status-bar';
 import { useState } from 'react';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { createQueryClient } from '@/components/data/query-client';
-import { useSession } from '@/components/data/session';
+import { meQuery, useSession } from '@/components/data/session';
 import { RootErrorBoundary } from '@/components/shell/root-error-boundary';
 import { SplashView } from '@/components/shell/splash-view';
 import { ErrorState } from '@/components/ui/states';
 
 export { RootErrorBoundary as ErrorBoundary };
 
+/** The app's one query client; the session question goes out at once, beside the fonts rather than after them. */
+function createAppQueryClient() {
+  const client = createQueryClient();
+  void client.prefetchQuery(meQuery());
+  return client;
+}
+
 export default function RootLayout() {
-  const [queryClient] = useState(createQueryClient);
+  const [queryClient] = useState(createAppQueryClient);
   const [fontsLoaded, fontError] = useFonts({ Barlow_400Regular, Barlow_500Medium, Barlow_600SemiBold, Barlow_700Bold });
   return (
     <SafeAreaProvider>

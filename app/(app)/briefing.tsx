@@ -1,5 +1,7 @@
-import { BriefingScreen } from '@/components/briefing/briefing-screen';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const BriefingScreen = deferredScreen('BriefingScreen');
 
 function BriefingRouteContent() {
   return <BriefingScreen />;

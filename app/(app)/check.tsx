@@ -1,5 +1,7 @@
-import { QuickCheck } from '@/components/check/quick-check';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const QuickCheck = deferredScreen('QuickCheck');
 
 function QuickCheckScreenContent() {
   return <QuickCheck />;

@@ -1,10 +1,12 @@
 import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
 import { AUDIT_ENTITY_TYPES } from '@/shared/schemas/audit';
-import { HistoryScreen } from '@/components/audit/history-screen';
+import { deferredScreen } from '@/components/shell/deferred-screen';
 import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
+
+const HistoryScreen = deferredScreen('HistoryScreen');
 
 const Params = z.object({ entityType: z.enum(AUDIT_ENTITY_TYPES).optional(), entityId: z.uuid().optional() });
 

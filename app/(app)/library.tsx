@@ -1,5 +1,7 @@
-import { LibraryScreen } from '@/components/library/library-screen';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const LibraryScreen = deferredScreen('LibraryScreen');
 
 function LibraryRouteContent() {
   return <LibraryScreen />;

@@ -1,4 +1,6 @@
-import { SearchEffortScreen } from '@/components/search-effort/search-effort-screen';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const SearchEffortScreen = deferredScreen('SearchEffortScreen');
 
 export default function SearchEffortRoute() {
   return <SearchEffortScreen />;

@@ -6,8 +6,9 @@ import { Button } from '@/components/ui/button';
 import { LoadingState, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 
-// Loaded on demand, so three.js is not part of the first bundle.
-const SightlineScene = lazy(() => import('@/scenes/sightline/sightline-scene'));
+// Loaded on demand, so three.js is not part of the first bundle; through the one 3D module
+// (see scenes/scenes-3d.ts), so three.js is in one async chunk.
+const SightlineScene = lazy(() => import('@/scenes/scenes-3d').then((m) => ({ default: m.SightlineScene })));
 
 function hasWebGL(): boolean {
   if (typeof document === 'undefined') return false;

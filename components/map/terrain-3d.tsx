@@ -11,7 +11,8 @@ import type { ShownLayer } from './map-viewport';
 import type { SiteMapFrame } from './site-map-frame';
 
 // Loaded on demand: three.js and the scene stay out of the first bundle and never block first paint.
-const TerrainScene = lazy(() => import('@/scenes/terrain/terrain-scene'));
+// Through the one 3D module (see scenes/scenes-3d.ts), so three.js is in one async chunk.
+const TerrainScene = lazy(() => import('@/scenes/scenes-3d').then((m) => ({ default: m.TerrainScene })));
 
 /** Whether the browser can draw WebGL at all (checked before loading three.js). */
 export function hasWebGL(): boolean {

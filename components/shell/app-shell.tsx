@@ -1,4 +1,5 @@
 import { Slot, usePathname, useRouter } from 'expo-router';
+import { useEffect } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { useSession } from '@/components/data/session';
@@ -6,7 +7,11 @@ import { AppText } from '@/components/ui/app-text';
 import { Wordmark } from '@/components/ui/logo';
 import { colors, radius, space, TOUCH } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { preloadDeferredScreens } from './deferred-screen';
 import { isActive, NAV_ITEMS } from './nav-items';
+
+/** After the first signed-in screen is up (its target is 1.2 s), the other screens' chunk is fetched in the background. */
+const PRELOAD_SCREENS_AFTER_MS = 1500;
 
 /** Signed-in frame: a bottom bar on phones, a side rail from the wide breakpoint. */
 export function AppShell() {
@@ -16,6 +21,10 @@ export function AppShell() {
   const insets = useSafeAreaInsets();
   const { data: user } = useSession();
   const items = NAV_ITEMS.filter((i) => !i.roles || (user && i.roles.includes(user.role)));
+  useEffect(() => {
+    const timer = setTimeout(preloadDeferredScreens, PRELOAD_SCREENS_AFTER_MS);
+    return () => clearTimeout(timer);
+  }, []);
 
   if (wide) {
     return (

@@ -600,6 +600,9 @@ async function bench() {
   const name = `kenning_${runId}`;
   const adminUrl = pg.url('postgres');
   const benchFiles = path.join(local, `bench-files-${process.pid}`);
+  const only = process.argv[3];
+  // The web figures measure the built app: build it first if the sources changed.
+  if (!only || only === 'web') ensureWebBuild();
   try {
     tsx('server/scripts/prepare-database.ts', ['--database', name, '--seed', '--fresh', '--files', benchFiles], {
       KENNING_ADMIN_DATABASE_URL: adminUrl,

@@ -27,17 +27,6 @@ export const CoordinateTextSchema = z
   });
 export type CoordinateText = z.infer<typeof CoordinateTextSchema>;
 
-/** A WGS84 position as numbers. */
-export const LatLonSchema = z.strictObject({
-  /** Latitude, degrees north, −90…90. */
-  latDeg: z
-    .number({ error: 'Latitude must be a number of degrees.' })
-    .min(-90, 'Latitude must be at least −90° (90°S).')
-    .max(90, 'Latitude must be at most 90° (90°N).'),
-  /** Longitude, degrees east, −180…180. */
-  lonDeg: z
-    .number({ error: 'Longitude must be a number of degrees.' })
-    .min(-180, 'Longitude must be at least −180° (180°W).')
-    .max(180, 'Longitude must be at most 180° (180°E).'),
-});
-export type LatLonValue = z.infer<typeof LatLonSchema>;
+// The numeric position lives in its own module so that schemas needing only it (sites, terrain) do not
+// pull the text parser and proj4 into the web app's first bundle.
+export { LatLonSchema, type LatLonValue } from './lat-lon';

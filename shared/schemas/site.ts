@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ringSelfIntersection } from '@/shared/geo/ring-self-intersection';
-import { LatLonSchema } from './coordinate';
+import { LatLonSchema } from './lat-lon';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
 import { SeenVersionSchema } from './seen-version';

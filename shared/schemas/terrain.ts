@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { LatLonSchema } from './coordinate';
+import { LatLonSchema } from './lat-lon';
 import { RefractionConditionSchema } from './sightline';
 
 /*

@@ -63,6 +63,10 @@ async function main() {
   if (!only || only === 'terrain') {
     print('Terrain: hillshade, profile, upload ingest', await benchTerrain());
   }
+  if ((!only || only === 'web') && process.env.KENNING_BENCH_DATABASE_URL) {
+    const { benchWeb } = await import('./web.bench');
+    print('First screens of the built web app (headless Chromium, 390×844, loopback, empty cache)', await benchWeb(process.env.KENNING_BENCH_DATABASE_URL));
+  }
 }
 
 main().catch((e: unknown) => {

@@ -1,5 +1,7 @@
-import { CaughtMailList } from '@/components/admin/caught-mail-list';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const CaughtMailList = deferredScreen('CaughtMailList');
 
 function MailScreenContent() {
   return <CaughtMailList />;

@@ -1,5 +1,7 @@
-import { UserAdmin } from '@/components/admin/user-admin';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const UserAdmin = deferredScreen('UserAdmin');
 
 function UsersScreenContent() {
   return <UserAdmin />;

@@ -1,8 +1,10 @@
 import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
-import { PlanCompareScreen } from '@/components/plans/plan-compare-screen';
 import { BadAddress } from '@/components/ui/bad-address';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const PlanCompareScreen = deferredScreen('PlanCompareScreen');
 
 const Params = z.object({ a: z.uuid().optional(), b: z.uuid().optional() });
 

@@ -1,5 +1,7 @@
-import { PlansScreen } from '@/components/plans/plans-screen';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const PlansScreen = deferredScreen('PlansScreen');
 
 function PlansRouteContent() {
   return <PlansScreen />;

@@ -1,8 +1,10 @@
 import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
-import { PlanEditor } from '@/components/plans/plan-editor';
 import { Screen } from '@/components/ui/screen';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const PlanEditor = deferredScreen('PlanEditor');
 
 const Params = z.object({ siteId: z.uuid().optional().catch(undefined) });
 

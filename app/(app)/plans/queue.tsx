@@ -1,5 +1,7 @@
-import { ReviewQueue } from '@/components/plans/review-queue';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const ReviewQueue = deferredScreen('ReviewQueue');
 
 function ReviewQueueRouteContent() {
   return <ReviewQueue />;

@@ -1,17 +1,7 @@
-import { SiteForm } from '@/components/sites/site-form';
-import { Screen } from '@/components/ui/screen';
-import { RequirePlanner } from '@/components/sites/require-planner';
+import { deferredScreen } from '@/components/shell/deferred-screen';
 
-export default function NewSiteScreen() {
-  return (
-    <Screen
-      title="New site"
-      subtitle="Name it, say what kind it is, then give its boundary and the zones that matter most."
-      maxWidth={820}
-    >
-      <RequirePlanner what="create sites">
-        <SiteForm />
-      </RequirePlanner>
-    </Screen>
-  );
+const NewSiteScreen = deferredScreen('NewSiteScreen');
+
+export default function NewSiteRoute() {
+  return <NewSiteScreen />;
 }

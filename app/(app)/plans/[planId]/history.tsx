@@ -1,7 +1,9 @@
-import { PlanHistory } from '@/components/plans/plan-history';
 import { usePlanId } from '@/components/plans/use-plan-id';
 import { BadAddress } from '@/components/ui/bad-address';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const PlanHistory = deferredScreen('PlanHistory');
 
 function PlanHistoryRouteContent() {
   const planId = usePlanId();

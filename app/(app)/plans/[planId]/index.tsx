@@ -1,7 +1,9 @@
-import { PlanOverview } from '@/components/plans/plan-overview';
 import { usePlanId } from '@/components/plans/use-plan-id';
 import { BadAddress } from '@/components/ui/bad-address';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const PlanOverview = deferredScreen('PlanOverview');
 
 function PlanRouteContent() {
   const planId = usePlanId();

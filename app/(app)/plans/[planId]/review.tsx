@@ -1,7 +1,9 @@
-import { ReviewPanel } from '@/components/plans/review-panel';
 import { usePlanId } from '@/components/plans/use-plan-id';
 import { BadAddress } from '@/components/ui/bad-address';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const ReviewPanel = deferredScreen('ReviewPanel');
 
 function ReviewRouteContent() {
   const planId = usePlanId();

@@ -1,9 +1,11 @@
 import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
-import { SiteEditScreen } from '@/components/sites/site-edit-screen';
+import { deferredScreen } from '@/components/shell/deferred-screen';
 import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
+
+const SiteEditScreen = deferredScreen('SiteEditScreen');
 
 const Params = z.object({ siteId: z.uuid() });
 

@@ -1,10 +1,12 @@
 import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
-import { SiteOverview } from '@/components/sites/site-overview';
 import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
 import { AppText } from '@/components/ui/app-text';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const SiteOverview = deferredScreen('SiteOverview');
 
 const Params = z.object({ siteId: z.uuid() });
 

@@ -1,11 +1,13 @@
 import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
-import { RunMapScreen } from '@/components/map/run-map-screen';
-import { SiteMapScreen } from '@/components/map/site-map-screen';
 import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const RunMapScreen = deferredScreen('RunMapScreen');
+const SiteMapScreen = deferredScreen('SiteMapScreen');
 
 const Params = z.object({
   siteId: z.uuid(),

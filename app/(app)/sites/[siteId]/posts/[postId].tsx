@@ -1,11 +1,13 @@
 import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
 import { usePost } from '@/components/data/sites';
-import { PostEditor } from '@/components/sites/post-editor';
 import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+import { deferredScreen } from '@/components/shell/deferred-screen';
+
+const PostEditor = deferredScreen('PostEditor');
 
 const Params = z.object({ siteId: z.uuid(), postId: z.uuid() });
 

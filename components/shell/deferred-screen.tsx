@@ -1,0 +1,53 @@
+import { lazy, Suspense, type ComponentType } from 'react';
+import { LoadingState } from '@/components/ui/states';
+
+type Screens = typeof import('@/components/shell/deferred-screens');
+
+let loading: Promise<Screens> | null = null;
+/** The chunk's exports once it has loaded: later screens render at once, without suspending. */
+let loaded: Screens | null = null;
+
+/** The deferred chunk, fetched once; a failed fetch is forgotten so the next use tries again. */
+function loadScreens(): Promise<Screens> {
+  loading ??= import('@/components/shell/deferred-screens').then(
+    (screens) => (loaded = screens),
+    (error: unknown) => {
+      loading = null;
+      throw error;
+    },
+  );
+  return loading;
+}
+
+/**
+ * Fetches the deferred chunk without showing anything, so the next screen
+ * opens without waiting for it. A failure is left to the screen that needs it.
+ */
+export function preloadDeferredScreens() {
+  loadScreens().catch(() => undefined);
+}
+
+/**
+ * A screen component from `deferred-screens`, loaded on first use (one async
+ * chunk for all of them) and shown behind a loading state meanwhile; typed as
+ * the screen itself. A chunk that fails to load throws to the route's error
+ * boundary.
+ *
+ * @example const SiteMapScreen = deferredScreen('SiteMapScreen');
+ */
+export function deferredScreen<K extends keyof Screens>(name: K): Screens[K] {
+  const Lazy = lazy(() => loadScreens().then((m) => ({ default: m[name] as ComponentType<object> })));
+  function DeferredScreen(props: object) {
+    // Once loaded (e.g. preloaded by the shell), no Suspense round: React holds a revealed
+    // fallback for a moment (≈ 300 ms) before it shows the content.
+    const Loaded = loaded?.[name] as ComponentType<object> | undefined;
+    if (Loaded) return <Loaded {...props} />;
+    return (
+      <Suspense fallback={<LoadingState />}>
+        <Lazy {...props} />
+      </Suspense>
+    );
+  }
+  DeferredScreen.displayName = `Deferred(${name})`;
+  return DeferredScreen as unknown as Screens[K];
+}

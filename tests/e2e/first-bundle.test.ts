@@ -1,0 +1,85 @@
+/**
+ * The first screens load without the heavy code: the sign-in page without
+ * three.js (the `scenes-3d` chunk) or the deferred signed-in screens (the
+ * `deferred-screens` chunk); the home fetches the deferred chunk in the
+ * background once it is up; three.js comes only with a 3D view. Sizes and times are
+ * figures for `npm run bench -- web`, not assertions here.
+ *
+ * Chunk names are the module names Metro's web export gives async chunks
+ * (`scenes/scenes-3d.ts`, `components/shell/deferred-screens.ts`).
+ * Source: issue 12 ("keep 3D and other heavy code out of the first bundle");
+ * the split itself is common practice, no source.
+ */
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { DEMO } from '@/tests/support/agents';
+
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+});
+afterAll(() => close());
+
+/** Every script the page requests, by file name. */
+function watchScripts(page: Page): string[] {
+  const scripts: string[] = [];
+  page.on('request', (r) => {
+    if (r.resourceType() === 'script') scripts.push(new URL(r.url()).pathname.split('/').pop()!);
+  });
+  return scripts;
+}
+const has = (scripts: string[], chunk: string) => scripts.some((s) => s.startsWith(`${chunk}-`));
+
+describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+  it('signs in without the 3D and deferred chunks, preloads the deferred one after the home, and loads 3D where needed', async () => {
+    const { context, page } = await newPage(browser, viewport);
+    const errors = watchErrors(page);
+    const scripts = watchScripts(page);
+    try {
+      await page.goto(`${e2eUrl()}/sign-in`);
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      expect(has(scripts, 'entry')).toBe(true);
+      expect(has(scripts, 'scenes-3d')).toBe(false);
+      expect(has(scripts, 'deferred-screens')).toBe(false);
+
+      await signIn(page, DEMO.planner);
+      await page.getByText('Harrowmere Forest District').first().waitFor();
+      expect(has(scripts, 'scenes-3d')).toBe(false);
+      // Once the home is up, the other screens' chunk is fetched in the background (not three.js).
+      await page.waitForRequest((r) => /\/deferred-screens-[^/]*\.js$/.test(r.url()), { timeout: 15_000 }).catch(() => null);
+      expect(has(scripts, 'deferred-screens')).toBe(true);
+      expect(has(scripts, 'scenes-3d')).toBe(false);
+
+      // A deferred screen: the chunk arrives, the screen works.
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Quick check' }).click();
+      await page.getByRole('table', { name: 'Sightline results' }).waitFor();
+      expect(has(scripts, 'scenes-3d')).toBe(false);
+
+      // The 3D view: three.js arrives only now.
+      await page.getByRole('button', { name: 'Show in 3D' }).click();
+      await page.getByLabel('3D sightline view').locator('canvas').waitFor();
+      expect(has(scripts, 'scenes-3d')).toBe(true);
+
+      // The edit-plan route (plan data loaded inside the deferred chunk), opened by address.
+      const list = (await (await page.request.get(`${e2eUrl()}/api/v1/plans`)).json()) as {
+        items: Array<{ id: string; status: string }>;
+      };
+      const plan = list.items[0];
+      expect(plan).toBeDefined();
+      await page.goto(`${e2eUrl()}/plans/${plan!.id}/edit`);
+      await page.getByText('Edit coverage plan').first().waitFor();
+      if (plan!.status === 'draft' || plan!.status === 'returned') {
+        await page.getByLabel('Title').waitFor();
+      } else {
+        await page.getByText(`A ${plan!.status} plan cannot be edited.`, { exact: false }).waitFor();
+      }
+      await shot(page, 'first-bundle-edit-plan', viewport);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
