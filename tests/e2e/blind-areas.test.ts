@@ -1,9 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
 import { COVERAGE_LAYER } from '@/shared/terrain/posts-per-cell';
 import { DEMO } from '@/tests/support/agents';
 import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 let browser: Browser;
 let close: () => Promise<void>;
@@ -12,12 +12,6 @@ beforeAll(async () => {
   ({ browser, close } = await launchBrowser());
 });
 afterAll(() => close());
-
-async function apiJson<T>(page: Page, path: string): Promise<T> {
-  const res = await page.request.get(`${e2eUrl()}/api/v1${path}`);
-  if (!res.ok()) throw new Error(`GET ${path}: ${res.status()} ${await res.text()}`);
-  return (await res.json()) as T;
-}
 
 interface BlindArea {
   area: number;
@@ -32,18 +26,19 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
     try {
       await signIn(page, DEMO.reviewer);
       await page.getByText('Harrowmere Forest District').first().waitFor();
-      const plans = await apiJson<{ items: { id: string; title: string }[] }>(page, '/plans?status=approved');
+      const plans = await apiJson<{ items: { id: string; title: string }[] }>(page, 'GET', '/plans?status=approved');
       const season = plans.items.find((p) => p.title === 'Fire season cover 2026')!;
-      const history = await apiJson<{ revisions: { number: number }[] }>(page, `/plans/${season.id}/revisions`);
+      const history = await apiJson<{ revisions: { number: number }[] }>(page, 'GET', `/plans/${season.id}/revisions`);
       const { revision } = await apiJson<{
         revision: { snapshot: { coverage: { runId: string; cases: { key: string; blindAreas: BlindArea[] }[] } } };
-      }>(page, `/plans/${season.id}/revisions/${history.revisions.at(-1)!.number}`);
+      }>(page, 'GET', `/plans/${season.id}/revisions/${history.revisions.at(-1)!.number}`);
       const shown = revision.snapshot.coverage.cases[0]!;
       const first = shown.blindAreas[0]!;
 
       // The point the link uses is a blind cell of this case's posts-per-cell layer.
       const layer = await apiJson<Parameters<typeof decodeClassRaster>[0]>(
         page,
+        'GET',
         `/coverage-runs/${revision.snapshot.coverage.runId}/layers/posts-per-cell?caseKey=${encodeURIComponent(shown.key)}`,
       );
       const values = decodeClassRaster(layer);

@@ -1,8 +1,8 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import type { Briefing } from '@/shared/schemas/assignment';
 import { DEMO } from '@/tests/support/agents';
 import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { apiJson, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 let browser: Browser;
 let close: () => Promise<void>;
@@ -11,12 +11,6 @@ beforeAll(async () => {
   ({ browser, close } = await launchBrowser());
 });
 afterAll(() => close());
-
-async function apiJson<T>(page: Page, path: string): Promise<T> {
-  const res = await page.request.get(`${e2eUrl()}/api/v1${path}`);
-  if (!res.ok()) throw new Error(`GET ${path}: ${res.status()} ${await res.text()}`);
-  return (await res.json()) as T;
-}
 
 const bearing = (deg: number) => `${String(Math.round(deg) % 360).padStart(3, '0')}°`;
 
@@ -31,7 +25,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       await card.getByText('What you see from here, over the terrain').waitFor();
 
       // The figures on screen are the API's for this post (standard optical case of the first target).
-      const briefing = await apiJson<Briefing>(page, '/briefing');
+      const briefing = await apiJson<Briefing>(page, 'GET', '/briefing');
       const crane = briefing.posts.find((p) => p.post.name === 'Crane Knoll Tower')!;
       const shown = crane.terrainView!.cases.find(
         (c) => c.targetId === crane.terrainView!.cases[0]!.targetId && /standard/i.test(c.conditionLabel),

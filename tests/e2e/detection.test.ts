@@ -1,7 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
 import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 let browser: Browser;
 let close: () => Promise<void>;
@@ -10,13 +10,6 @@ beforeAll(async () => {
   ({ browser, close } = await launchBrowser());
 });
 afterAll(() => close());
-
-/** The API as the signed-in page (its session cookie), answering JSON or failing loudly. */
-async function apiJson<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
-  const res = await page.request.fetch(`${e2eUrl()}/api/v1${path}`, { method, data: body });
-  if (!res.ok()) throw new Error(`${method} ${path}: ${res.status()} ${await res.text()}`);
-  return (await res.json()) as T;
-}
 
 interface PlanBody {
   id: string;

@@ -30,3 +30,10 @@ export function watchErrors(page: Page): string[] {
   page.on('pageerror', (e) => errors.push(e.message));
   return errors;
 }
+
+/** The API as the signed-in page (its session cookie), answering JSON or failing loudly with the status and body. */
+export async function apiJson<T>(page: Page, method: 'GET' | 'POST' | 'PATCH', path: string, body?: unknown): Promise<T> {
+  const res = await page.request.fetch(`${e2eUrl()}/api/v1${path}`, { method, data: body });
+  if (!res.ok()) throw new Error(`${method} ${path}: ${res.status()} ${await res.text()}`);
+  return (await res.json()) as T;
+}

@@ -3,7 +3,6 @@
  * post's seen area, the site's undetected cells are split by what decided
  * them, and the standard's target rules and cross-bearing share are checked.
  */
-import type { HiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
 import { checkCoverageStandard } from '@/shared/terrain/check-coverage-standard';
 import { computeCoverageStatistics } from '@/shared/terrain/coverage-statistics';
 import { evaluateNetworkCoverage } from '@/shared/terrain/network-coverage';
@@ -17,31 +16,15 @@ import {
   flatPlain,
   plainHiddenRasters,
 } from '@/tests/unit/terrain/flat-plain';
+import { oneRowHidden } from '@/tests/unit/terrain/one-row-raster';
 
 jest.setTimeout(60_000);
 
 const STANDARD = { minSeenPct: 70, priorityMinPosts: 2 };
 
-function row(values: number[]): HiddenHeightRaster {
-  return {
-    width: values.length,
-    height: 1,
-    cellSize: 25,
-    xll: 0,
-    yll: 0,
-    crs: null,
-    hidden: Float32Array.from(values),
-    post: { col: 0, row: 0, eyeHeight: 10 },
-    eyeElevation: 110,
-    refractionCoefficient: 0.13,
-    earthRadius: 6_371_008.8,
-    maxDistance: Infinity,
-  };
-}
-
 describe('classifyVisibility with a detection range', () => {
   // common practice, no source: a cell farther than the detection range cannot count, whatever the view.
-  const raster = row([0, 0, 5, 50, 0, NaN]);
+  const raster = oneRowHidden([0, 0, 5, 50, 0, NaN]);
   test('cells beyond the range (centre to centre) are out of range, the rest keep their class', () => {
     const classes = classifyVisibility(raster, 30, { rangeLimit: { col: 0, row: 0, maxDistance: 60 } }).classes;
     expect(Array.from(classes)).toEqual([

@@ -1,5 +1,4 @@
 import { curvatureDrop } from '@/shared/terrain/curvature-drop';
-import type { HiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
 import { locatePostCell } from '@/shared/terrain/locate-post-cell';
 import { computeMultiConditionViewsheds } from '@/shared/terrain/multi-condition-viewshed';
 import { computeHiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
@@ -7,23 +6,7 @@ import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import { targetVisibilityMask } from '@/shared/terrain/target-visibility-mask';
 import { createTerrainRaster } from '@/shared/terrain/terrain-raster';
 import { classifyVisibility, VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
-
-function hiddenRaster(values: number[]): HiddenHeightRaster {
-  return {
-    width: values.length,
-    height: 1,
-    cellSize: 25,
-    xll: 0,
-    yll: 0,
-    crs: null,
-    hidden: Float32Array.from(values),
-    post: { col: 0, row: 0, eyeHeight: 10 },
-    eyeElevation: 110,
-    refractionCoefficient: 0.13,
-    earthRadius: 6_371_008.8,
-    maxDistance: Infinity,
-  };
-}
+import { oneRowHidden } from '@/tests/unit/terrain/one-row-raster';
 
 describe('curvatureDrop', () => {
   test('matches the surveyors’ rule of 0.0675·K² metres (K in km, k ≈ 0.14)', () => {
@@ -44,7 +27,7 @@ describe('curvatureDrop', () => {
 
 describe('classifyVisibility and targetVisibilityMask', () => {
   // common practice, no source: seen when hidden ≤ 1 mm, target-only when hidden ≤ target.
-  const raster = hiddenRaster([0, 0.0005, 0.5, 30, 30.5, NaN]);
+  const raster = oneRowHidden([0, 0.0005, 0.5, 30, 30.5, NaN]);
   test('sorts cells into seen, target-only, blind and none', () => {
     const classes = classifyVisibility(raster, 30);
     expect(Array.from(classes.classes)).toEqual([
