@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
+import { BACKGROUND_LIGHTING_LABELS } from '@/shared/schemas/library';
 import type { SightlineRequest, SightlineResult } from '@/shared/schemas/sightline';
 import { refractionPreset } from '@/shared/sightline/refraction-presets';
 import { useSightline } from '@/components/data/sightline';
@@ -205,11 +206,10 @@ export function QuickCheck() {
             label="Lights behind it"
             value={form.backgroundLighting}
             onChange={set('backgroundLighting')}
-            options={[
-              { value: 'none', label: 'Dark' },
-              { value: 'some', label: 'Some shore lights' },
-              { value: 'much', label: 'Bright town' },
-            ]}
+            options={Object.entries(BACKGROUND_LIGHTING_LABELS).map(([value, label]) => ({
+              value: value as CheckFormValues['backgroundLighting'],
+              label,
+            }))}
           />
         </>
       ) : null}

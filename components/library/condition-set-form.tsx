@@ -1,6 +1,11 @@
 import { useState } from 'react';
 import { View } from 'react-native';
-import { ConditionSetInputSchema, type ConditionSet, type ConditionSetInput } from '@/shared/schemas/library';
+import {
+  BACKGROUND_LIGHTING_LABELS,
+  ConditionSetInputSchema,
+  type ConditionSet,
+  type ConditionSetInput,
+} from '@/shared/schemas/library';
 import { REFRACTION_PRESET_IDS, refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import { describeCondition } from './describe-condition';
 import { StaleNotice } from './stale-notice';
@@ -18,7 +23,11 @@ import { space } from '@/components/ui/theme';
 type VisibilityKind = 'mor-5pct' | 'meteorological-range-2pct';
 
 type Condition = ConditionSetInput['conditions'][number];
-type Lighting = 'none' | 'some' | 'much';
+type Lighting = keyof typeof BACKGROUND_LIGHTING_LABELS;
+const LIGHTING_OPTIONS = Object.entries(BACKGROUND_LIGHTING_LABELS).map(([value, label]) => ({
+  value: value as Lighting,
+  label,
+}));
 
 /** Douglas sea-state degrees with the WMO code table 3700 descriptions. */
 const SEA_STATES = [
@@ -218,16 +227,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
         error={errors.significantWaveHeightM}
         hint="Waves hide the lower part of targets on the water (half the wave height). Leave both empty on land."
       />
-      <Segmented
-        label="Lights behind a target at night"
-        value={lighting}
-        onChange={setLighting}
-        options={[
-          { value: 'none', label: 'Dark' },
-          { value: 'some', label: 'Some shore lights' },
-          { value: 'much', label: 'Bright town' },
-        ]}
-      />
+      <Segmented label="Lights behind a target at night" value={lighting} onChange={setLighting} options={LIGHTING_OPTIONS} />
       {stale ? <StaleNotice what="condition set" onReload={() => void reload()} /> : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         <Button

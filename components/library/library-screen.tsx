@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { View } from 'react-native';
-import { TARGET_KIND_LABELS } from '@/shared/schemas/library';
+import { BACKGROUND_LIGHTING_LABELS, TARGET_KIND_LABELS } from '@/shared/schemas/library';
 import { useConditionSets, useRemoveLibraryEntry, useTargets } from '@/components/data/library';
 import { useSession } from '@/components/data/session';
 import { ConditionSetForm } from './condition-set-form';
@@ -95,7 +95,7 @@ export function LibraryScreen() {
                     {s.seaState !== null ? ` · sea state ${s.seaState}` : ''}
                     {s.significantWaveHeightM !== null ? ` · waves ${s.significantWaveHeightM} m` : ''}
                     {s.backgroundLighting !== 'none'
-                      ? ` · ${s.backgroundLighting === 'some' ? 'some shore lights' : 'bright town'} behind`
+                      ? ` · ${BACKGROUND_LIGHTING_LABELS[s.backgroundLighting].toLowerCase()} behind`
                       : ''}
                   </AppText>
                 </Card>

@@ -73,6 +73,9 @@ export const TargetSchema = z.object({
 export type Target = z.infer<typeof TargetSchema>;
 
 /** Lights behind a target at night: none, some (× 10 threshold) or much (× 100). */
+/** Lights behind a target at night, for people (options and descriptions). */
+export const BACKGROUND_LIGHTING_LABELS = { none: 'Dark', some: 'Some shore lights', much: 'Bright town' } as const;
+
 export const BackgroundLightingSchema = z.enum(['none', 'some', 'much'], { error: 'Background lighting: none, some or much.' });
 
 /** A named set of refraction conditions with a visibility, in the organisation's library. */

@@ -1,9 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
 import { z } from 'zod';
 import { deferredScreen } from '@/components/shell/deferred-screen';
-import { AppText } from '@/components/ui/app-text';
-import { Screen } from '@/components/ui/screen';
-import { Notice } from '@/components/ui/states';
+import { BadAddress } from '@/components/ui/bad-address';
 
 const SiteEditScreen = deferredScreen('SiteEditScreen');
 
@@ -12,13 +10,7 @@ const Params = z.object({ siteId: z.uuid() });
 export default function EditSiteRoute() {
   const parsed = Params.safeParse(useLocalSearchParams());
   if (!parsed.success) {
-    return (
-      <Screen title="Edit site">
-        <Notice tone="danger">
-          <AppText>This address does not name a site.</AppText>
-        </Notice>
-      </Screen>
-    );
+    return <BadAddress title="Edit site" what="a site" />;
   }
   return <SiteEditScreen siteId={parsed.data.siteId} />;
 }
