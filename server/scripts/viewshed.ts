@@ -18,7 +18,7 @@ import { writeEsriAsciiGrid } from '@/shared/terrain/formats/esri-ascii-grid-wri
 import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
 import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
 import { TerrainFormatError } from '@/shared/terrain/formats/terrain-format-error';
-import { DEFAULT_EARTH_RADIUS, DEFAULT_REFRACTION_COEFFICIENT } from '@/shared/terrain/curvature-drop';
+import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import { computeHiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
 import { locatePostCell } from '@/shared/terrain/locate-post-cell';
 import { targetVisibilityMask } from '@/shared/terrain/target-visibility-mask';
@@ -40,8 +40,8 @@ Options:
   --mode hidden|visible  hidden  = hidden height in metres, 0 where the ground is seen (default)
                          visible = 1 where a target of --target metres is seen, 0 where not
   --target <m>           target height above ground for --mode visible, metres (default 0)
-  --k <k>                refraction coefficient (default ${DEFAULT_REFRACTION_COEFFICIENT})
-  --earth-radius <m>     earth radius, metres (default ${DEFAULT_EARTH_RADIUS})
+  --k <k>                refraction coefficient (default ${STANDARD_OPTICAL_K})
+  --earth-radius <m>     earth radius, metres (default ${MEAN_EARTH_RADIUS_M})
   --max-distance <m>     compute only within this distance of the post; cells beyond are nodata
   --help                 this text
 `;
@@ -145,9 +145,9 @@ function parseCommandLine(argv: string[]): Arguments | null {
   if (v.target !== undefined && mode === 'hidden') {
     throw new UsageError('--target only applies to --mode visible (the hidden-height raster serves every target height).');
   }
-  const k = number('k', v.k, 'refraction coefficient') ?? DEFAULT_REFRACTION_COEFFICIENT;
+  const k = number('k', v.k, 'refraction coefficient') ?? STANDARD_OPTICAL_K;
   if (k >= 1) throw new UsageError(`--k must be below 1, got ${k}.`);
-  const earthRadius = number('earth-radius', v['earth-radius'], 'metres') ?? DEFAULT_EARTH_RADIUS;
+  const earthRadius = number('earth-radius', v['earth-radius'], 'metres') ?? MEAN_EARTH_RADIUS_M;
   if (!(earthRadius > 0)) throw new UsageError(`--earth-radius must be > 0 metres, got ${earthRadius}.`);
   const maxDistance = number('max-distance', v['max-distance'], 'metres');
   if (maxDistance !== undefined && !(maxDistance > 0)) {

@@ -1,7 +1,7 @@
 import os from 'node:os';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { DEFAULT_EARTH_RADIUS, DEFAULT_REFRACTION_COEFFICIENT } from '@/shared/terrain/curvature-drop';
+import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import type { HiddenHeightRaster, LookoutPost, SightConditions } from '@/shared/terrain/hidden-height-raster';
 import { TerrainInputError, type TerrainInputErrorCode } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
@@ -202,8 +202,8 @@ export function createViewshedPool(options: ViewshedPoolOptions = {}): ViewshedP
               hidden: reply.hidden,
               post: { ...job.post },
               eyeElevation: reply.eyeElevation,
-              refractionCoefficient: conditions.refractionCoefficient ?? DEFAULT_REFRACTION_COEFFICIENT,
-              earthRadius: conditions.earthRadius ?? DEFAULT_EARTH_RADIUS,
+              refractionCoefficient: conditions.refractionCoefficient ?? STANDARD_OPTICAL_K,
+              earthRadius: conditions.earthRadius ?? MEAN_EARTH_RADIUS_M,
               maxDistance: conditions.maxDistance ?? Infinity,
             },
           };

@@ -1,4 +1,4 @@
-import { DEFAULT_EARTH_RADIUS, DEFAULT_REFRACTION_COEFFICIENT } from '@/shared/terrain/curvature-drop';
+import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { RasterGrid, TerrainRaster } from '@/shared/terrain/terrain-raster';
 import { NEVER_BLOCKS, prepareSweepTerrain, type SweepTerrain } from '@/shared/terrain/sweep-terrain';
@@ -117,8 +117,8 @@ export function computeHiddenHeightRaster(
   prepared?: SweepTerrain,
 ): HiddenHeightRaster {
   const { width: W, height: H, cellSize, nodata } = terrain;
-  const k = conditions.refractionCoefficient ?? DEFAULT_REFRACTION_COEFFICIENT;
-  const R = conditions.earthRadius ?? DEFAULT_EARTH_RADIUS;
+  const k = conditions.refractionCoefficient ?? STANDARD_OPTICAL_K;
+  const R = conditions.earthRadius ?? MEAN_EARTH_RADIUS_M;
   const maxDistance = conditions.maxDistance ?? Infinity;
   validate(terrain, post, k, R, maxDistance);
   if (prepared && prepared.source !== terrain) {

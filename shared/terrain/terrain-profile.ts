@@ -1,4 +1,4 @@
-import { DEFAULT_EARTH_RADIUS } from '@/shared/terrain/curvature-drop';
+import { MEAN_EARTH_RADIUS_M } from '@/shared/physics/constants';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 
@@ -134,7 +134,7 @@ export function terrainProfile(terrain: TerrainRaster, input: TerrainProfileInpu
     if (!Number.isFinite(c.refractionCoefficient)) {
       throw new TerrainInputError('invalid-condition', `Refraction coefficient must be finite, got ${c.refractionCoefficient}.`);
     }
-    const R = c.earthRadius ?? DEFAULT_EARTH_RADIUS;
+    const R = c.earthRadius ?? MEAN_EARTH_RADIUS_M;
     if (!(R > 0) || !Number.isFinite(R)) {
       throw new TerrainInputError('invalid-condition', `Earth radius must be a positive number of metres, got ${R}.`);
     }
@@ -258,7 +258,7 @@ export function terrainProfile(terrain: TerrainRaster, input: TerrainProfileInpu
 
   const results: ProfileCondition[] = conditions.map((condition) => {
     const k = condition.refractionCoefficient;
-    const R = condition.earthRadius ?? DEFAULT_EARTH_RADIUS;
+    const R = condition.earthRadius ?? MEAN_EARTH_RADIUS_M;
     const a = (1 - k) / (2 * R); // drop per squared metre
     const dropAt = (t: number): number => a * D * D * t * t;
     const targetLowered = targetGround - dropAt(1);
