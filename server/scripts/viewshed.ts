@@ -23,7 +23,8 @@ import { computeHiddenHeightRaster } from '@/shared/terrain/hidden-height-raster
 import { locatePostCell } from '@/shared/terrain/locate-post-cell';
 import { targetVisibilityMask } from '@/shared/terrain/target-visibility-mask';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid, TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 const USAGE = `Usage: npm run viewshed -- --dem <file.tif|file.asc> --x <easting> --y <northing> --eye <m> --out <file.asc|file.tif> [options]
 
@@ -169,7 +170,7 @@ async function readTerrain(file: string): Promise<TerrainRaster> {
   return readGeoTiff(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
 }
 
-function writeResult(file: string, grid: RasterGrid, values: Float32Array, decimals: number): string[] {
+function writeResult(file: string, grid: GridSpec, values: Float32Array, decimals: number): string[] {
   const notes: string[] = [];
   if (/\.asc$/i.test(file)) {
     const { asc, prj } = writeEsriAsciiGrid(grid, values, { decimals });
@@ -217,7 +218,7 @@ async function main(): Promise<number> {
   }
   const t1 = performance.now();
   let values: Float32Array;
-  let grid: RasterGrid;
+  let grid: GridSpec;
   try {
     const cell = locatePostCell(terrain, args.x, args.y);
     const hidden = computeHiddenHeightRaster(

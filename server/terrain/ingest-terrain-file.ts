@@ -11,7 +11,8 @@ import { gridProjection, TerrainCrsError, type GridProjection } from '@/shared/t
 import { computeHillshade } from '@/shared/terrain/hillshade';
 import { hillshadeImage } from '@/shared/terrain/hillshade-image';
 import { elevationAt } from '@/shared/terrain/terrain-elevation';
-import type { TerrainCrs, TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainCrs } from '@/shared/terrain/grid-spec';
 
 /** Ground elevations outside this range are taken for a unit or nodata mistake, metres. */
 const PLAUSIBLE_ELEVATION_M = { min: -12_000, max: 9_000 } as const;

@@ -16,6 +16,7 @@ import { rangeLimitsOf } from '@/shared/sightline/detection-inputs';
 import type { DetectionRange } from '@/shared/sightline/detection-range';
 import type { CoverageRunGrid } from '@/server/data/models/coverage-run';
 import { caseKeyOf, type CoverageRunInputs } from './coverage-inputs';
+import { gridSpecFromM, gridSpecToM } from '@/shared/terrain/grid-spec';
 
 /** One viewshed the run needs: a post under one condition. */
 export interface CoverageViewshedJob {
@@ -57,12 +58,7 @@ export interface ComputedCoverage {
 export function flatTerrain(grid: CoverageRunGrid): TerrainRaster {
   return createTerrainRaster({
     heights: new Float32Array(grid.width * grid.height),
-    width: grid.width,
-    height: grid.height,
-    cellSize: grid.cellSizeM,
-    xll: grid.xllM,
-    yll: grid.yllM,
-    crs: { epsg: grid.epsg, wkt: null },
+    ...gridSpecFromM(grid, { epsg: grid.epsg, wkt: null }),
   });
 }
 
@@ -241,14 +237,7 @@ export async function computeCoverage(
     };
   });
 
-  const grid: CoverageRunGrid = {
-    width: terrain.width,
-    height: terrain.height,
-    cellSizeM: terrain.cellSize,
-    xllM: terrain.xll,
-    yllM: terrain.yll,
-    epsg: terrain.crs?.epsg ?? null,
-  };
+  const grid: CoverageRunGrid = { ...gridSpecToM(terrain), epsg: terrain.crs?.epsg ?? null };
   const totalJobs = posts.length * inputs.conditions.length;
   let doneJobs = 0;
   const cases: CoverageCase[] = [];

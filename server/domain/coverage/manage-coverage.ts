@@ -7,7 +7,7 @@ import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { COVERAGE_LAYER, type PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';
 import { rasterizePolygon } from '@/shared/terrain/rasterize-polygon';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import { gridSpecFromM, type GridSpec } from '@/shared/terrain/grid-spec';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { coverageRepository, type CoverageRunRecord } from '@/server/data/repositories/coverage-repository';
 import { plansRepository } from '@/server/data/repositories/plans-repository';
@@ -218,13 +218,10 @@ export async function coverageLayer(
   return encoded;
 }
 
-const gridOf = (run: CoverageRunRecord): RasterGrid => {
-  const g = run.grid!;
-  return { width: g.width, height: g.height, cellSize: g.cellSizeM, xll: g.xllM, yll: g.yllM, crs: { epsg: g.epsg, wkt: null } };
-};
+const gridOf = (run: CoverageRunRecord): GridSpec => gridSpecFromM(run.grid!, { epsg: run.grid!.epsg, wkt: null });
 
 /** Posts per cell back from the stored layer codes (3 stands for three or more). */
-function postsPerCellOf(grid: RasterGrid, codes: Uint8Array): PostsPerCellRaster {
+function postsPerCellOf(grid: GridSpec, codes: Uint8Array): PostsPerCellRaster {
   const counts = new Uint8Array(codes.length);
   const noData = new Uint8Array(codes.length);
   for (let i = 0; i < codes.length; i++) {

@@ -11,7 +11,7 @@ import type {
 import type { PlanResultRow, PlanSnapshot } from '@/shared/schemas/plan';
 import { LatLonSchema } from '@/shared/schemas/coordinate';
 import type { Post } from '@/shared/schemas/site';
-import type { TerrainCrs } from '@/shared/terrain/terrain-raster';
+import type { TerrainCrs } from '@/shared/terrain/grid-spec';
 import { findWatchGaps } from '@/shared/roster/find-watch-gaps';
 import { assignmentsRepository } from '@/server/data/repositories/assignments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';

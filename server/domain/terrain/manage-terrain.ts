@@ -30,6 +30,7 @@ import type { TerrainCache } from '@/server/terrain/terrain-cache';
 import type { TerrainIngestRunner } from '@/server/workers/terrain-ingest-runner';
 import type { Actor } from '../actor';
 import { getSite } from '../sites/manage-sites';
+import { gridBoundsM, gridSpecToM } from '@/shared/terrain/grid-spec';
 
 /** What the terrain use cases need. */
 export interface TerrainDeps {
@@ -95,8 +96,6 @@ const PROFILE_CAUTIONS = [
 
 /** The API shape of a stored terrain. */
 export function toSiteTerrain(record: TerrainRecord): SiteTerrain {
-  const east = record.xllM + record.width * record.cellSizeM;
-  const north = record.yllM + record.height * record.cellSizeM;
   return {
     id: record.id,
     siteId: record.siteId,
@@ -123,7 +122,7 @@ export function toSiteTerrain(record: TerrainRecord): SiteTerrain {
       url: `/api/v1/sites/${record.siteId}/terrain/hillshade.png?terrainId=${record.id}`,
       widthPx: record.hillshadeWidth,
       heightPx: record.hillshadeHeight,
-      gridBounds: { west: record.xllM, south: record.yllM, east, north },
+      gridBounds: gridBoundsM(record),
       corners: record.corners,
     },
   };
@@ -214,11 +213,7 @@ export async function uploadTerrain(
           originalName: upload.file.originalName.slice(0, 255),
           originalFormat: format,
           originalBytes: upload.file.bytes,
-          width: result.width,
-          height: result.height,
-          cellSizeM: result.cellSize,
-          xllM: result.xll,
-          yllM: result.yll,
+          ...gridSpecToM(result),
           epsg: result.epsg,
           crsWkt: result.wkt,
           crsLabel: result.crsLabel,
@@ -456,12 +451,8 @@ export async function terrainMesh(
   const bytes = Buffer.from(mesh.heights.buffer, mesh.heights.byteOffset, mesh.heights.byteLength);
   const response: TerrainMeshResponse = {
     terrainId: record.id,
-    width: mesh.width,
-    height: mesh.height,
+    ...gridSpecToM(mesh),
     factor: mesh.factor,
-    cellSizeM: mesh.cellSize,
-    xllM: mesh.xll,
-    yllM: mesh.yll,
     minElevationM: Number.isFinite(min) ? min : record.minElevationM,
     maxElevationM: Number.isFinite(max) ? max : record.maxElevationM,
     encoding: TERRAIN_MESH_ENCODING,
