@@ -4,7 +4,7 @@ import type { Role, User } from '@/shared/schemas/auth';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 import type { Actor } from '@/server/domain/actor';
 import { SESSION_TTL_SECONDS, sessionIsLive } from '@/server/domain/auth/end-sessions';
-import { AppError } from './app-error';
+import { AppError } from '@/server/domain/app-error';
 
 export interface SessionData {
   userId?: string;

@@ -1,4 +1,6 @@
 import nodemailer from 'nodemailer';
+import type { Mailer } from '@/server/domain/ports/mailer';
+export type { MailMessage, SentMail, Mailer } from '@/server/domain/ports/mailer';
 
 /** What went wrong, for programs; `message` is for people. */
 export type MailErrorCode =
@@ -25,29 +27,6 @@ export class MailError extends Error {
     super(message, { cause: options?.cause });
     this.responseCode = options?.responseCode;
   }
-}
-
-export interface MailMessage {
-  /** Bare addresses; at least one. */
-  to: string[];
-  subject: string;
-  text: string;
-  html?: string;
-}
-
-export interface SentMail {
-  messageId: string;
-  /** Recipients the server accepted. */
-  accepted: string[];
-  /** Recipients the server refused while accepting others (the send still counts as sent). */
-  rejected: string[];
-}
-
-export interface Mailer {
-  /** Sends one message; throws `MailError` and never resolves on failure. */
-  send(message: MailMessage): Promise<SentMail>;
-  /** Closes the transport's open connections. */
-  close(): void;
 }
 
 export interface MailerOptions {

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { CaughtMailList } from '@/shared/schemas/mail';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import type { CaughtMailClient } from '@/server/mail/caught-mail-client';

@@ -11,7 +11,7 @@ import {
 } from '@/shared/schemas/library';
 import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
 import { libraryUseCases } from '@/server/domain/library/manage-library';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 

@@ -16,7 +16,7 @@ import {
   retireSweepWidthTable,
   updateSweepWidthTable,
 } from '@/server/domain/sweep-width/manage-sweep-width-tables';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 

@@ -6,7 +6,7 @@ import { InviteUserRequestSchema, UpdateUserRequestSchema } from '@/shared/schem
 import { inviteUser, listUsers, updateUser } from '@/server/domain/users/manage-users';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
-import type { Mailer } from '@/server/mail/mailer';
+import type { Mailer } from '@/server/domain/ports/mailer';
 import { invitation } from '@/server/mail/templates';
 
 const IdParam = z.object({ userId: z.uuid({ error: 'Not a user id.' }) });

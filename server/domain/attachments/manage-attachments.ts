@@ -15,8 +15,8 @@ import {
 } from '@/shared/schemas/attachment';
 import { attachmentsRepository, type StoredAttachment } from '@/server/data/repositories/attachments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
-import { AppError } from '@/server/http/app-error';
-import type { FileStore } from '@/server/storage/file-store';
+import { AppError } from '@/server/domain/app-error';
+import type { FileStore } from '@/server/domain/ports/file-store';
 import type { Actor } from '../actor';
 import { checkImage, ImageCheckError, type ImageContentType } from './check-image';
 import { cleanFileName } from './clean-file-name';

@@ -2,8 +2,8 @@ import type { Sequelize } from 'sequelize';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { coverageRepository } from '@/server/data/repositories/coverage-repository';
 import { terrainRepository } from '@/server/data/repositories/terrain-repository';
-import type { TerrainCache } from '@/server/terrain/terrain-cache';
-import type { ViewshedPool } from '@/server/workers/viewshed-pool';
+import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
+import type { ViewshedPool } from '@/server/domain/ports/viewshed-pool';
 import { computeCoverage, flatTerrain, type ComputeViewsheds } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
 

@@ -2,7 +2,7 @@ import type { Sequelize } from 'sequelize';
 import type { LibraryListQuery } from '@/shared/schemas/library';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import type { LibraryRepository } from '@/server/data/repositories/library-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 
 /**

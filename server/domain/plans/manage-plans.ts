@@ -6,8 +6,8 @@ import { conditionSetsRepository, targetsRepository } from '@/server/data/reposi
 import { plansRepository } from '@/server/data/repositories/plans-repository';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
-import { AppError } from '@/server/http/app-error';
-import type { Mailer } from '@/server/mail/mailer';
+import { AppError } from '@/server/domain/app-error';
+import type { Mailer } from '@/server/domain/ports/mailer';
 import { planSubmitted, reviewDecided } from '@/server/mail/templates';
 import type { Actor } from '../actor';
 import { coverageForSubmit } from '../coverage/coverage-snapshot';

@@ -20,7 +20,7 @@ import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import { terrainRepository } from '@/server/data/repositories/terrain-repository';
 import { usersRepository } from '@/server/data/repositories/users-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 import { verifiedRevision } from '../plans/verify-revision';
 import { postTerrainView } from './post-terrain-view';

@@ -4,7 +4,7 @@ import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { plansRepository } from '@/server/data/repositories/plans-repository';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 
 const STALE = 'Someone else changed this since you opened it. Reload to see their change, then try again.';

@@ -2,7 +2,7 @@ import type { Sequelize } from 'sequelize';
 import type { SweepWidthTableInput, SweepWidthTableListQuery, SweepWidthTableUpdate } from '@/shared/schemas/sweep-width';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { sweepWidthTablesRepository as repo } from '@/server/data/repositories/sweep-width-tables-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 
 const WHAT = 'That sweep-width table';

@@ -3,7 +3,7 @@ import type { Sequelize } from 'sequelize';
 import type { InviteUserRequest, ManagedUser, UpdateUserRequest } from '@/shared/schemas/auth';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { usersRepository } from '@/server/data/repositories/users-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import { hashPassword } from '../auth/passwords';
 import type { Actor } from '../actor';
 
