@@ -3,7 +3,6 @@ import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { PageQuerySchema } from '@/shared/schemas/list';
 import { PostInputSchema, PostListQuerySchema, PostUpdateSchema, SiteInputSchema, SiteUpdateSchema } from '@/shared/schemas/site';
-import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import {
   createPost,
   createSite,
@@ -12,6 +11,7 @@ import {
   getPost,
   getSite,
   listPosts,
+  listSites,
   updatePost,
   updateSite,
 } from '@/server/domain/sites/manage-sites';
@@ -28,7 +28,7 @@ export function siteRoutes(db: Sequelize) {
 
   router.get('/sites', requireUser, async (req, res) => {
     const { page, pageSize } = parseOrThrow(PageQuerySchema, req.query, 'query');
-    res.json(await sitesRepository.pageInOrganization(actorOf(req).organizationId, page, pageSize));
+    res.json(await listSites(actorOf(req), page, pageSize));
   });
   router.post('/sites', ...write, async (req, res) => {
     const input = parseOrThrow(SiteInputSchema, req.body, 'site');

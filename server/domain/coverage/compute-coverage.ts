@@ -14,7 +14,7 @@ import { createTerrainRaster, type TerrainRaster } from '@/shared/terrain/terrai
 import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 import { rangeLimitsOf } from '@/shared/sightline/detection-inputs';
 import type { DetectionRange } from '@/shared/sightline/detection-range';
-import type { CoverageRunGrid } from '@/server/data/models/coverage-run';
+import type { CoverageGrid as CoverageRunGrid } from '@/shared/schemas/coverage';
 import { caseKeyOf, type CoverageRunInputs } from './coverage-inputs';
 import { gridSpecFromM, gridSpecToM } from '@/shared/terrain/grid-spec';
 

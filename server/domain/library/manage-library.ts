@@ -1,7 +1,11 @@
 import type { Sequelize } from 'sequelize';
-import type { LibraryListQuery } from '@/shared/schemas/library';
+import type { ConditionSet, ConditionSetInput, LibraryListQuery, Target, TargetInput } from '@/shared/schemas/library';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
-import type { LibraryRepository } from '@/server/data/repositories/library-repository';
+import {
+  conditionSetsRepository,
+  targetsRepository,
+  type LibraryRepository,
+} from '@/server/data/repositories/library-repository';
 import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 
@@ -49,3 +53,19 @@ export function libraryUseCases<Dto extends { id: string }, Input extends object
       }),
   };
 }
+
+const checkTarget = (t: TargetInput) => {
+  if (t.requiredVisibleM > t.heightM) {
+    throw AppError.badRequest('The target has invalid fields.', {
+      requiredVisibleM: 'The part that must show cannot exceed the height.',
+    });
+  }
+};
+
+/** The organisation's target profiles. */
+export const targetUseCases = (db: Sequelize) =>
+  libraryUseCases<Target, TargetInput>(db, targetsRepository, 'target', 'That target', checkTarget);
+
+/** The organisation's condition sets. */
+export const conditionSetUseCases = (db: Sequelize) =>
+  libraryUseCases<ConditionSet, ConditionSetInput>(db, conditionSetsRepository, 'condition-set', 'That condition set');

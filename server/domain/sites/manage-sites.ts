@@ -9,6 +9,11 @@ import type { Actor } from '../actor';
 
 const STALE = 'Someone else changed this since you opened it. Reload to see their change, then try again.';
 
+/** The organisation's sites, a page at a time. */
+export function listSites(actor: Actor, page: number, pageSize: number) {
+  return sitesRepository.pageInOrganization(actor.organizationId, page, pageSize);
+}
+
 export async function getSite(actor: Actor, id: string): Promise<Site> {
   const site = await sitesRepository.findInOrganization(actor.organizationId, id);
   if (!site) throw AppError.notFound('That site');

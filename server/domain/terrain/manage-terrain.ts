@@ -19,9 +19,9 @@ import { gridProjection, TerrainCrsError } from '@/shared/terrain/grid-projectio
 import { elevationAt } from '@/shared/terrain/terrain-elevation';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { terrainProfile } from '@/shared/terrain/terrain-profile';
-import { SiteModel } from '@/server/data/models';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
+import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import { terrainRepository, type TerrainRecord } from '@/server/data/repositories/terrain-repository';
 import { AppError } from '@/server/domain/app-error';
 import type { FileStore, StoredFile } from '@/server/domain/ports/file-store';
@@ -197,11 +197,7 @@ export async function uploadTerrain(
     stored.push(picture);
     const record = await deps.db.transaction(async (t) => {
       // One upload at a time per site: the site row is the lock.
-      await SiteModel.findOne({
-        where: { id: siteId, organizationId: actor.organizationId },
-        lock: t.LOCK.UPDATE,
-        transaction: t,
-      });
+      await sitesRepository.lockForUpdate(actor.organizationId, siteId, t);
       const { created, replacedId } = await terrainRepository.createActive(
         actor.organizationId,
         siteId,
