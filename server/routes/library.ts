@@ -44,7 +44,7 @@ export function libraryRoutes(db: Sequelize) {
   };
   mount(
     'targets',
-    targetUseCases(db),
+    targetUseCases({ db }),
     TargetInputSchema,
     TargetUpdateSchema,
     'target',
@@ -52,7 +52,7 @@ export function libraryRoutes(db: Sequelize) {
   );
   mount(
     'conditions',
-    conditionSetUseCases(db),
+    conditionSetUseCases({ db }),
     ConditionSetInputSchema,
     ConditionSetUpdateSchema,
     'condition set',

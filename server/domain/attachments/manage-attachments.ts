@@ -1,6 +1,6 @@
 import { readFile } from 'node:fs/promises';
 import type { Readable } from 'node:stream';
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import {
   ACCEPTS,
   ALLOWED_CONTENT_TYPES,
@@ -22,9 +22,9 @@ import { checkImage, ImageCheckError, type ImageContentType } from './check-imag
 import { cleanFileName } from './clean-file-name';
 import { sniffContentType } from './sniff-content-type';
 import { typeOfExtension } from './type-of-extension';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
-export interface AttachmentDeps {
-  db: Sequelize;
+export interface AttachmentDeps extends UseCaseDeps {
   files: FileStore;
 }
 

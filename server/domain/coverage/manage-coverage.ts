@@ -1,4 +1,4 @@
-import { UniqueConstraintError, type Sequelize } from 'sequelize';
+import { UniqueConstraintError } from 'sequelize';
 import type { CoverageComparison, CoverageLayerName, CoverageRun, PlanCoverage } from '@/shared/schemas/coverage';
 import { ACTIVE_RUN_STATUSES } from '@/shared/schemas/coverage';
 import { compareCoverage } from '@/shared/terrain/coverage-difference';
@@ -18,10 +18,10 @@ import { EDITABLE, getPlan, loadPlanInputs } from '../plans/manage-plans';
 import { ringOnGrid } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
 import { currentCoverageInputs } from './coverage-snapshot';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
 /** What the coverage use cases need. */
-export interface CoverageDeps {
-  db: Sequelize;
+export interface CoverageDeps extends UseCaseDeps {
   /** The job queue; null when this server runs without one (runs cannot be started). */
   queue: CoverageQueue | null;
 }

@@ -1,4 +1,3 @@
-import type { Sequelize } from 'sequelize';
 import type { ConditionSet, ConditionSetInput, LibraryListQuery, Target, TargetInput } from '@/shared/schemas/library';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import {
@@ -8,13 +7,14 @@ import {
 } from '@/server/data/repositories/library-repository';
 import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
 /**
  * Create, edit and remove entries of an organisation library (targets, condition sets):
  * one transaction per write, optimistic versions, an audit event each.
  */
 export function libraryUseCases<Dto extends { id: string }, Input extends object>(
-  db: Sequelize,
+  { db }: UseCaseDeps,
   repo: LibraryRepository<Dto, Input>,
   entityType: string,
   what: string,
@@ -63,9 +63,9 @@ const checkTarget = (t: TargetInput) => {
 };
 
 /** The organisation's target profiles. */
-export const targetUseCases = (db: Sequelize) =>
-  libraryUseCases<Target, TargetInput>(db, targetsRepository, 'target', 'That target', checkTarget);
+export const targetUseCases = (deps: UseCaseDeps) =>
+  libraryUseCases<Target, TargetInput>(deps, targetsRepository, 'target', 'That target', checkTarget);
 
 /** The organisation's condition sets. */
-export const conditionSetUseCases = (db: Sequelize) =>
-  libraryUseCases<ConditionSet, ConditionSetInput>(db, conditionSetsRepository, 'condition-set', 'That condition set');
+export const conditionSetUseCases = (deps: UseCaseDeps) =>
+  libraryUseCases<ConditionSet, ConditionSetInput>(deps, conditionSetsRepository, 'condition-set', 'That condition set');

@@ -1,4 +1,4 @@
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import type { Plan, PlanInput, PlanListQuery, PlanSnapshot, PlanStatus } from '@/shared/schemas/plan';
 import { attachmentsRepository } from '@/server/data/repositories/attachments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
@@ -14,13 +14,13 @@ import { coverageForSubmit } from '../coverage/coverage-snapshot';
 import { standardVerdict, type StandardVerdict } from '@/shared/plans/standard-verdict';
 import { buildSnapshot, contentHash } from './build-snapshot';
 import { verifiedRevision } from './verify-revision';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
 /** Statuses in which a plan (and its coverage) may still change. */
 export const EDITABLE: PlanStatus[] = ['draft', 'returned'];
 const STALE = 'Someone else changed this plan since you opened it. Reload to see their change, then try again.';
 
-export interface PlanDeps {
-  db: Sequelize;
+export interface PlanDeps extends UseCaseDeps {
   mailer: Mailer | null;
   /** Absolute URL of a plan's page, for e-mails. */
   planUrl: (planId: string) => string;

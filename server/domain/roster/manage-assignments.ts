@@ -1,4 +1,4 @@
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import { z } from 'zod';
 import type {
   Assignment,
@@ -24,6 +24,7 @@ import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 import { verifiedRevision } from '../plans/verify-revision';
 import { postTerrainView } from './post-terrain-view';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
 const DAY = 24 * 3600_000;
 /** Hand-overs shorter than this are not reported as gaps. */
@@ -65,7 +66,7 @@ async function refuseClash(
   }
 }
 
-export function createAssignment(db: Sequelize, actor: Actor, input: AssignmentInput): Promise<Assignment> {
+export function createAssignment({ db }: UseCaseDeps, actor: Actor, input: AssignmentInput): Promise<Assignment> {
   return db.transaction(async (t) => {
     const post = await postsRepository.findInOrganization(actor.organizationId, input.postId, t);
     const person = await usersRepository.findInOrganization(actor.organizationId, input.userId, t);
@@ -88,7 +89,7 @@ export function createAssignment(db: Sequelize, actor: Actor, input: AssignmentI
 }
 
 export function updateAssignment(
-  db: Sequelize,
+  { db }: UseCaseDeps,
   actor: Actor,
   id: string,
   input: { startsAt?: string; endsAt?: string | null; note?: string; version: number },
@@ -116,7 +117,7 @@ export function updateAssignment(
   });
 }
 
-export function deleteAssignment(db: Sequelize, actor: Actor, id: string): Promise<void> {
+export function deleteAssignment({ db }: UseCaseDeps, actor: Actor, id: string): Promise<void> {
   return db.transaction(async (t) => {
     const before = await assignmentsRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That watch');

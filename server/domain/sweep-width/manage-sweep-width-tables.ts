@@ -1,9 +1,9 @@
-import type { Sequelize } from 'sequelize';
 import type { SweepWidthTableInput, SweepWidthTableListQuery, SweepWidthTableUpdate } from '@/shared/schemas/sweep-width';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { sweepWidthTablesRepository as repo } from '@/server/data/repositories/sweep-width-tables-repository';
 import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
 const WHAT = 'That sweep-width table';
 const ENTITY = 'sweep-width-table';
@@ -19,7 +19,7 @@ const retired = () => AppError.conflict('This table is retired: it is kept for t
 export const listSweepWidthTables = (actor: Actor, query: SweepWidthTableListQuery) => repo.page(actor.organizationId, query);
 
 /** Adds a table (edition and source required by the schema), with its audit event, in one transaction. */
-export const createSweepWidthTable = (db: Sequelize, actor: Actor, input: SweepWidthTableInput) =>
+export const createSweepWidthTable = ({ db }: UseCaseDeps, actor: Actor, input: SweepWidthTableInput) =>
   db.transaction(async (t) => {
     const after = await repo.create(actor.organizationId, input, t);
     await auditRepository.record(actor, { action: 'create', entityType: ENTITY, entityId: after.id, after }, t);
@@ -27,7 +27,7 @@ export const createSweepWidthTable = (db: Sequelize, actor: Actor, input: SweepW
   });
 
 /** Edits a table that is not retired, if nobody changed it since `version`. */
-export const updateSweepWidthTable = (db: Sequelize, actor: Actor, id: string, input: SweepWidthTableUpdate) =>
+export const updateSweepWidthTable = ({ db }: UseCaseDeps, actor: Actor, id: string, input: SweepWidthTableUpdate) =>
   db.transaction(async (t) => {
     const before = await repo.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound(WHAT);
@@ -40,7 +40,7 @@ export const updateSweepWidthTable = (db: Sequelize, actor: Actor, id: string, i
   });
 
 /** Retires a table: kept, listed only on request, no longer editable. */
-export const retireSweepWidthTable = (db: Sequelize, actor: Actor, id: string, version: number) =>
+export const retireSweepWidthTable = ({ db }: UseCaseDeps, actor: Actor, id: string, version: number) =>
   db.transaction(async (t) => {
     const before = await repo.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound(WHAT);

@@ -1,6 +1,5 @@
 import path from 'node:path';
 import type { Readable } from 'node:stream';
-import type { Sequelize } from 'sequelize';
 import type { Site } from '@/shared/schemas/site';
 import { TERRAIN_MESH_ENCODING } from '@/shared/schemas/terrain';
 import type {
@@ -31,10 +30,10 @@ import type { TerrainIngestRunner } from '@/server/domain/ports/terrain-ingest';
 import type { Actor } from '../actor';
 import { getSite } from '../sites/manage-sites';
 import { gridBoundsM, gridSpecToM } from '@/shared/terrain/grid-spec';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
 /** What the terrain use cases need. */
-export interface TerrainDeps {
-  db: Sequelize;
+export interface TerrainDeps extends UseCaseDeps {
   files: FileStore;
   ingest: TerrainIngestRunner;
   cache: TerrainCache;

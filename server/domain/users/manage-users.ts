@@ -1,11 +1,11 @@
 import { createHash, randomBytes } from 'node:crypto';
-import type { Sequelize } from 'sequelize';
 import type { InviteUserRequest, ManagedUser, UpdateUserRequest } from '@/shared/schemas/auth';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 import { AppError } from '@/server/domain/app-error';
 import { hashPassword } from '../auth/passwords';
 import type { Actor } from '../actor';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
 const INVITE_DAYS = 7;
 
@@ -17,7 +17,7 @@ export function listUsers(actor: Actor, page: number, pageSize: number) {
 
 /** Creates an invited account and returns the one-time token for its set-password link. */
 export async function inviteUser(
-  db: Sequelize,
+  { db }: UseCaseDeps,
   actor: Actor,
   input: InviteUserRequest,
 ): Promise<{ user: ManagedUser; token: string }> {
@@ -54,7 +54,7 @@ export async function inviteUser(
 }
 
 /** Changes role or active state, refusing stale versions and the last active admin. */
-export async function updateUser(db: Sequelize, actor: Actor, id: string, input: UpdateUserRequest): Promise<ManagedUser> {
+export async function updateUser({ db }: UseCaseDeps, actor: Actor, id: string, input: UpdateUserRequest): Promise<ManagedUser> {
   return db.transaction(async (transaction) => {
     const current = await usersRepository.findInOrganization(actor.organizationId, id, transaction);
     if (!current) throw AppError.notFound('That user');
@@ -108,7 +108,7 @@ export async function updateUser(db: Sequelize, actor: Actor, id: string, input:
 }
 
 /** Redeems a set-password link. */
-export async function setPasswordWithToken(db: Sequelize, token: string, password: string): Promise<void> {
+export async function setPasswordWithToken({ db }: UseCaseDeps, token: string, password: string): Promise<void> {
   const passwordHash = await hashPassword(password);
   await db.transaction(async (transaction) => {
     const found = await usersRepository.findByInviteToken(hashToken(token), transaction);
