@@ -27,7 +27,7 @@ import { createViewshedPool } from '@/server/workers/viewshed-pool';
 import { seedSweepWidthExamples } from './sweep-width-examples';
 
 /** The demo terrain (invented, see assets/terrain/README.md), attached to the forest district. */
-export const DEMO_TERRAIN_FILE = path.join(__dirname, '..', '..', '..', 'assets', 'terrain', 'demo-forest-district.tif');
+export const DEMO_TERRAIN_FILE = path.join(__dirname, '..', '..', 'assets', 'terrain', 'demo-forest-district.tif');
 
 /** Invented demo scenario. Every demo account uses this password. */
 export const DEMO_PASSWORD = 'kenning-demo';
