@@ -23,6 +23,7 @@ import { cleanFileName } from './clean-file-name';
 import { sniffContentType } from './sniff-content-type';
 import { typeOfExtension } from './type-of-extension';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
 
 export interface AttachmentDeps extends UseCaseDeps {
   files: FileStore;
@@ -35,7 +36,7 @@ export interface ReceivedFile {
   size: number;
 }
 
-const STALE = 'Someone else changed this attachment since you opened it. Reload to see their change, then try again.';
+const STALE = staleMessage('this attachment');
 const OWNER: Record<AttachmentOwnerType, string> = { post: 'That post', site: 'That site', plan: 'That plan' };
 const KIND: Record<AttachmentKind, string> = { photo: 'Photos', document: 'Documents' };
 const TYPE_NAME: Record<string, string> = {
@@ -197,10 +198,9 @@ export function updateAttachment({ db }: AttachmentDeps, actor: Actor, id: strin
     if (changes.bearingDeg != null && before.kind !== 'photo') {
       throw AppError.badRequest('The attachment has invalid fields.', { bearingDeg: 'Only photos have a bearing.' });
     }
-    const after = await attachmentsRepository.updateIfVersion(actor.organizationId, id, version, changes, t);
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'attachment', entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { entityType: 'attachment', entityId: id, before, stale: STALE }, () =>
+      attachmentsRepository.updateIfVersion(actor.organizationId, id, version, changes, t),
+    );
   });
 }
 

@@ -8,6 +8,7 @@ import {
 import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { writeVersioned } from '@/server/domain/audit/versioned-write';
 
 /**
  * Create, edit and remove entries of an organisation library (targets, condition sets):
@@ -35,14 +36,9 @@ export function libraryUseCases<Dto extends { id: string }, Input extends object
         if (!before) throw AppError.notFound(what);
         const { version, ...changes } = input;
         check({ ...(before as unknown as Input), ...(changes as Partial<Input>) });
-        const after = await repo.updateIfVersion(actor.organizationId, id, version, changes as Partial<Input>, t);
-        if (!after)
-          throw AppError.conflict(
-            'Someone else changed this since you opened it. Reload to see their change, then try again.',
-            'stale_version',
-          );
-        await auditRepository.record(actor, { action: 'update', entityType, entityId: id, before, after }, t);
-        return after;
+        return writeVersioned(actor, t, { entityType, entityId: id, before }, () =>
+          repo.updateIfVersion(actor.organizationId, id, version, changes as Partial<Input>, t),
+        );
       }),
     remove: (actor: Actor, id: string) =>
       db.transaction(async (t) => {

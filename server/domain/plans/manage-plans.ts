@@ -15,10 +15,11 @@ import { standardVerdict, type StandardVerdict } from '@/shared/plans/standard-v
 import { buildSnapshot, contentHash } from './build-snapshot';
 import { verifiedRevision } from './verify-revision';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
 
 /** Statuses in which a plan (and its coverage) may still change. */
 export const EDITABLE: PlanStatus[] = ['draft', 'returned'];
-const STALE = 'Someone else changed this plan since you opened it. Reload to see their change, then try again.';
+const STALE = staleMessage('this plan');
 
 export interface PlanDeps extends UseCaseDeps {
   mailer: Mailer | null;
@@ -123,10 +124,9 @@ export function updatePlan(
     }
     const { rowVersion, ...changes } = input;
     await loadPlanInputs(actor, { ...before, ...changes }, t);
-    const after = await plansRepository.updateIfRowVersion(actor.organizationId, id, rowVersion, changes, t);
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'plan', entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { entityType: 'plan', entityId: id, before, stale: STALE }, () =>
+      plansRepository.updateIfRowVersion(actor.organizationId, id, rowVersion, changes, t),
+    );
   });
 }
 

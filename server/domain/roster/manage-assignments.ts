@@ -25,11 +25,12 @@ import type { Actor } from '../actor';
 import { verifiedRevision } from '../plans/verify-revision';
 import { postTerrainView } from './post-terrain-view';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
 
 const DAY = 24 * 3600_000;
 /** Hand-overs shorter than this are not reported as gaps. */
 const MIN_GAP_MS = 5 * 60_000;
-const STALE = 'Someone else changed this watch since you opened it. Reload to see their change, then try again.';
+const STALE = staleMessage('this watch');
 
 /** A window from the query, defaulting to the next seven days. */
 function windowOf(q: { from?: string; to?: string }, now = Date.now()) {
@@ -104,16 +105,15 @@ export function updateAssignment(
       throw AppError.badRequest('The watch has invalid fields.', { endsAt: 'The watch must end after it starts.' });
     }
     await refuseClash(actor, before.person.id, startsAt, endsAt, id, t);
-    const after = await assignmentsRepository.updateIfVersion(
-      actor.organizationId,
-      id,
-      input.version,
-      { startsAt, endsAt, ...(input.note !== undefined && { note: input.note }) },
-      t,
+    return writeVersioned(actor, t, { entityType: 'assignment', entityId: id, before, stale: STALE }, () =>
+      assignmentsRepository.updateIfVersion(
+        actor.organizationId,
+        id,
+        input.version,
+        { startsAt, endsAt, ...(input.note !== undefined && { note: input.note }) },
+        t,
+      ),
     );
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'assignment', entityId: id, before, after }, t);
-    return after;
   });
 }
 

@@ -6,8 +6,9 @@ import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
 
-const STALE = 'Someone else changed this since you opened it. Reload to see their change, then try again.';
+const STALE = staleMessage();
 
 /** The organisation's sites, a page at a time. */
 export function listSites(actor: Actor, page: number, pageSize: number) {
@@ -38,10 +39,9 @@ export function updateSite(
     const before = await sitesRepository.findInOrganization(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That site');
     const { version, ...changes } = input;
-    const after = await sitesRepository.updateIfVersion(actor.organizationId, id, version, changes, t);
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'site', entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { entityType: 'site', entityId: id, before, stale: STALE }, () =>
+      sitesRepository.updateIfVersion(actor.organizationId, id, version, changes, t),
+    );
   });
 }
 
@@ -93,10 +93,9 @@ export function updatePost(
     const before = await postsRepository.findInSite(actor.organizationId, siteId, id, t);
     if (!before) throw AppError.notFound('That post');
     const { version, ...changes } = input;
-    const after = await postsRepository.updateIfVersion(actor.organizationId, siteId, id, version, changes, t);
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'post', entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { entityType: 'post', entityId: id, before, stale: STALE }, () =>
+      postsRepository.updateIfVersion(actor.organizationId, siteId, id, version, changes, t),
+    );
   });
 }
 

@@ -4,15 +4,11 @@ import { sweepWidthTablesRepository as repo } from '@/server/data/repositories/s
 import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { writeVersioned } from '@/server/domain/audit/versioned-write';
 
 const WHAT = 'That sweep-width table';
 const ENTITY = 'sweep-width-table';
 
-const stale = () =>
-  AppError.conflict(
-    'Someone else changed this since you opened it. Reload to see their change, then try again.',
-    'stale_version',
-  );
 const retired = () => AppError.conflict('This table is retired: it is kept for the record and cannot change.', 'table_retired');
 
 /** The organisation's sweep-width tables. */
@@ -33,10 +29,9 @@ export const updateSweepWidthTable = ({ db }: UseCaseDeps, actor: Actor, id: str
     if (!before) throw AppError.notFound(WHAT);
     if (before.retiredAt) throw retired();
     const { version, ...changes } = input;
-    const after = await repo.updateIfVersion(actor.organizationId, id, version, changes, t);
-    if (!after) throw stale();
-    await auditRepository.record(actor, { action: 'update', entityType: ENTITY, entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { entityType: ENTITY, entityId: id, before }, () =>
+      repo.updateIfVersion(actor.organizationId, id, version, changes, t),
+    );
   });
 
 /** Retires a table: kept, listed only on request, no longer editable. */
@@ -45,8 +40,7 @@ export const retireSweepWidthTable = ({ db }: UseCaseDeps, actor: Actor, id: str
     const before = await repo.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound(WHAT);
     if (before.retiredAt) throw retired();
-    const after = await repo.updateIfVersion(actor.organizationId, id, version, { retiredAt: new Date() }, t);
-    if (!after) throw stale();
-    await auditRepository.record(actor, { action: 'retire', entityType: ENTITY, entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { action: 'retire', entityType: ENTITY, entityId: id, before }, () =>
+      repo.updateIfVersion(actor.organizationId, id, version, { retiredAt: new Date() }, t),
+    );
   });

@@ -6,6 +6,7 @@ import { AppError } from '@/server/domain/app-error';
 import { hashPassword } from '../auth/passwords';
 import type { Actor } from '../actor';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage } from '@/server/domain/audit/versioned-write';
 
 const INVITE_DAYS = 7;
 
@@ -68,10 +69,7 @@ export async function updateUser({ db }: UseCaseDeps, actor: Actor, id: string, 
     const { version, ...changes } = input;
     const updated = await usersRepository.updateIfVersion(actor.organizationId, id, version, changes, transaction);
     if (!updated) {
-      throw AppError.conflict(
-        'Someone else changed this user since you opened it. Reload to see their change, then try again.',
-        'stale_version',
-      );
+      throw AppError.conflict(staleMessage('this user'), 'stale_version');
     }
     // A new role or a deactivation takes effect on the person's open sessions too: they sign in again.
     const roleChanged = changes.role !== undefined && changes.role !== current.role;
