@@ -24,6 +24,7 @@ import { sniffContentType } from './sniff-content-type';
 import { typeOfExtension } from './type-of-extension';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
+import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 
 export interface AttachmentDeps extends UseCaseDeps {
   files: FileStore;
@@ -77,7 +78,7 @@ async function requireReadableOwner(actor: Actor, ownerType: AttachmentOwnerType
 async function requireWritableOwner(actor: Actor, ownerType: AttachmentOwnerType, ownerId: string, t?: Transaction) {
   const owner = await attachmentsRepository.findOwner(actor.organizationId, ownerType, ownerId, t);
   if (!owner) throw AppError.notFound(OWNER[ownerType]);
-  if (ownerType === 'plan' && owner.planStatus !== 'draft' && owner.planStatus !== 'returned') {
+  if (ownerType === 'plan' && !(owner.planStatus && isEditablePlanStatus(owner.planStatus))) {
     throw AppError.conflict(
       `The files of a ${owner.planStatus} plan are part of its record and cannot change. Start a new version to change them.`,
       'plan_frozen',

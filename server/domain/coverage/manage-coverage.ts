@@ -14,11 +14,12 @@ import { plansRepository } from '@/server/data/repositories/plans-repository';
 import { AppError } from '@/server/domain/app-error';
 import type { CoverageQueue } from '@/server/domain/ports/coverage-queue';
 import type { Actor } from '../actor';
-import { EDITABLE, getPlan, loadPlanInputs } from '../plans/manage-plans';
+import { getPlan, loadPlanInputs } from '../plans/manage-plans';
 import { ringOnGrid } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
 import { currentCoverageInputs } from './coverage-snapshot';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 
 /** What the coverage use cases need. */
 export interface CoverageDeps extends UseCaseDeps {
@@ -93,7 +94,7 @@ export async function requestCoverage(
   planId: string,
 ): Promise<{ run: CoverageRun; created: boolean }> {
   const { plan, inputs, inputsHash } = await planInputsHash(actor, planId);
-  if (!EDITABLE.includes(plan.status)) {
+  if (!isEditablePlanStatus(plan.status)) {
     throw AppError.conflict(
       `A ${plan.status} plan keeps the coverage frozen with its revision. Start a new version to compute again.`,
       'plan_frozen',
@@ -168,7 +169,7 @@ export async function getCoverageRun(actor: Actor, runId: string): Promise<Cover
   // Whether it is current only matters while the plan can change.
   const plan = await plansRepository.find(actor.organizationId, run.planId);
   const currentHash =
-    plan && EDITABLE.includes(plan.status) ? (await planInputsHash(actor, run.planId)).inputsHash : run.inputsHash;
+    plan && isEditablePlanStatus(plan.status) ? (await planInputsHash(actor, run.planId)).inputsHash : run.inputsHash;
   return toCoverageRun(run, currentHash);
 }
 

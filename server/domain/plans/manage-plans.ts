@@ -16,9 +16,9 @@ import { buildSnapshot, contentHash } from './build-snapshot';
 import { verifiedRevision } from './verify-revision';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
+import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 
 /** Statuses in which a plan (and its coverage) may still change. */
-export const EDITABLE: PlanStatus[] = ['draft', 'returned'];
 const STALE = staleMessage('this plan');
 
 export interface PlanDeps extends UseCaseDeps {
@@ -116,7 +116,7 @@ export function updatePlan(
   return db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That plan');
-    if (!EDITABLE.includes(before.status)) {
+    if (!isEditablePlanStatus(before.status)) {
       throw AppError.conflict(
         `A ${before.status} plan cannot be edited. Start a new version to change an approved plan.`,
         'plan_frozen',
@@ -169,7 +169,7 @@ export async function submitPlan(
   const { plan, revision, siteName, verdict } = await deps.db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That plan');
-    if (!EDITABLE.includes(before.status))
+    if (!isEditablePlanStatus(before.status))
       throw AppError.conflict(`A ${before.status} plan cannot be submitted.`, 'wrong_status');
     if (before.rowVersion !== rowVersion) throw AppError.conflict(STALE, 'stale_version');
     const inputs = await loadPlanInputs(actor, before, t);
