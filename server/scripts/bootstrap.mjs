@@ -1,3 +1,4 @@
+// Over 300 lines: one self-contained script by design — it runs before dependencies are installed, so it imports nothing of ours.
 // Bootstrap for `npm start` and `npm test`.
 //
 // Plain JavaScript on purpose: it runs before `npm ci`, when TypeScript tooling

@@ -1,3 +1,4 @@
+// Over 300 lines: mostly invented demo data (organisations, people, sites, posts, libraries, plans), not logic.
 import { copyFile, mkdtemp, rm, stat } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';

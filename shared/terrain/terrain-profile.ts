@@ -1,3 +1,4 @@
+// Over 300 lines: one exact profile on the bilinear surface; the grid-crossing walk and the horizon maxima share state.
 import { MEAN_EARTH_RADIUS_M } from '@/shared/physics/constants';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';

@@ -1,3 +1,4 @@
+// Over 300 lines: one plan life cycle (draft, edit, submit, review, new version) whose steps share guards, snapshot and mail.
 import type { Transaction } from 'sequelize';
 import type { Plan, PlanInput, PlanListQuery, PlanSnapshot, PlanStatus } from '@/shared/schemas/plan';
 import { attachmentsRepository } from '@/server/data/repositories/attachments-repository';
