@@ -1,4 +1,4 @@
-// Over 300 lines: the viewshed engine's octant sweep, kept in one module so the hot loops stay monomorphic and inlined.
+// Over 300 lines: the viewshed engine — one entry point and its two octant sweeps (by columns, by rows), one algorithm.
 import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
