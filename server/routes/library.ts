@@ -42,14 +42,7 @@ export function libraryRoutes(db: Sequelize) {
       res.status(204).end();
     });
   };
-  mount(
-    'targets',
-    targetUseCases({ db }),
-    TargetInputSchema,
-    TargetUpdateSchema,
-    'target',
-    'target',
-  );
+  mount('targets', targetUseCases({ db }), TargetInputSchema, TargetUpdateSchema, 'target', 'target');
   mount(
     'conditions',
     conditionSetUseCases({ db }),

@@ -12,7 +12,11 @@ import { MailError, type CaughtMailClient } from '@/server/domain/ports/mailer';
  */
 export async function readCaughtMail(client: CaughtMailClient | null, actor: Actor): Promise<CaughtMailList> {
   if (!client) {
-    throw new AppError(404, 'mail_catcher_off', 'No mail catcher is configured on this server, so there is no caught mail to show.');
+    throw new AppError(
+      404,
+      'mail_catcher_off',
+      'No mail catcher is configured on this server, so there is no caught mail to show.',
+    );
   }
   try {
     const [messages, own] = await Promise.all([client.list(), usersRepository.emailsInOrganization(actor.organizationId)]);
