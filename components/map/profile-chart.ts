@@ -1,5 +1,5 @@
 import type { TerrainProfileResponse } from '@/shared/schemas/terrain';
-import { MEAN_EARTH_RADIUS_M } from '@/shared/sightline/constants';
+import { MEAN_EARTH_RADIUS_M } from '@/shared/physics/constants';
 
 /**
  * Geometry of the profile side view, pure. Drawn in the **true-earth frame**:

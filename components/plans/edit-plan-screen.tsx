@@ -1,3 +1,4 @@
+import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 import { usePlan } from '@/components/data/plans';
 import { PlanEditor } from '@/components/plans/plan-editor';
 import { AppText } from '@/components/ui/app-text';
@@ -9,7 +10,7 @@ export function EditPlanScreen({ planId }: { planId: string }) {
   const plan = usePlan(planId);
   if (plan.isPending) return <LoadingState label="Loading the plan…" />;
   if (plan.isError) return <ErrorState error={plan.error} onRetry={() => void plan.refetch()} />;
-  const editable = plan.data.status === 'draft' || plan.data.status === 'returned';
+  const editable = isEditablePlanStatus(plan.data.status);
   return (
     <Screen title="Edit coverage plan" subtitle={plan.data.siteName} maxWidth={760}>
       {editable ? (

@@ -1,6 +1,7 @@
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { View } from 'react-native';
+import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 import type { Plan, PlanSnapshot } from '@/shared/schemas/plan';
 import {
   useNewPlanVersion,
@@ -33,8 +34,6 @@ import { PlanStatusBadge } from './plan-status';
 import { when } from './when';
 import { HistoryLink } from '@/components/audit/history-link';
 
-const EDITABLE = new Set(['draft', 'returned']);
-
 /** A plan's page: status, what to do next, and its results (frozen once submitted). */
 export function PlanOverview({ planId }: { planId: string }) {
   const plan = usePlan(planId);
@@ -57,7 +56,7 @@ function PlanPage({
   const router = useRouter();
   const { data: user } = useSession();
   const { wide } = useLayout();
-  const editable = EDITABLE.has(plan.status);
+  const editable = isEditablePlanStatus(plan.status);
   const preview = usePlanPreview(plan.id, editable);
   const frozen = usePlanRevision(plan.id, editable ? null : latestRevision);
   const submit = useSubmitPlan(plan.id);

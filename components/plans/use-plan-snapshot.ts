@@ -1,10 +1,9 @@
 import type { Plan, PlanSnapshot } from '@/shared/schemas/plan';
+import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 import { usePlanHistory, usePlanPreview, usePlanRevision } from '@/components/data/plans';
 
-const EDITABLE = new Set(['draft', 'returned']);
-
 /** Whether a plan can still change (draft or returned). */
-export const isEditablePlan = (plan: Pick<Plan, 'status'>) => EDITABLE.has(plan.status);
+export const isEditablePlan = (plan: Pick<Plan, 'status'>) => isEditablePlanStatus(plan.status);
 
 /**
  * What a plan stands on: today's preview for a draft or returned plan, its

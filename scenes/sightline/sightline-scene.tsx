@@ -2,7 +2,7 @@ import { Canvas, useThree } from '@react-three/fiber';
 import { useEffect, useMemo, useRef } from 'react';
 import type { Group } from 'three';
 import type { SightlineResult } from '@/shared/schemas/sightline';
-import { MEAN_EARTH_RADIUS_M } from '@/shared/sightline/constants';
+import { MEAN_EARTH_RADIUS_M } from '@/shared/physics/constants';
 import { EarthPatch } from './earth-patch';
 import { PostMarker } from './post-marker';
 import { surfaceY, type SceneScale } from './scene-geometry';

@@ -1,3 +1,5 @@
+import type { GridSpecM } from '@/shared/terrain/grid-spec';
+
 /**
  * Pure data → geometry for the 3D terrain scene. Scene units: 1 = 1 km; x
  * east, y up, z south (three.js looks down −z, so north is "away"); origin at
@@ -7,12 +9,7 @@
  */
 
 /** The decimated terrain the scene is built from (metres, grid CRS). */
-export interface MeshGrid {
-  readonly width: number;
-  readonly height: number;
-  readonly cellSizeM: number;
-  readonly xllM: number;
-  readonly yllM: number;
+export interface MeshGrid extends GridSpecM {
   readonly minElevationM: number;
   readonly maxElevationM: number;
   /** width × height heights, metres, row 0 = north; NaN = nodata. */

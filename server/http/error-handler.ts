@@ -1,6 +1,6 @@
 import type { NextFunction, Request, Response } from 'express';
 import { ConnectionAcquireTimeoutError, DatabaseError, ExclusionConstraintError, UniqueConstraintError } from 'sequelize';
-import { AppError } from './app-error';
+import { AppError } from '@/server/domain/app-error';
 import { isDatabaseAway, type DatabaseOutage } from './database-outage';
 
 /** Seconds a client is asked to wait before retrying a 503. */

@@ -2,7 +2,7 @@ import { mkdir, mkdtemp, rm } from 'node:fs/promises';
 import path from 'node:path';
 import type { Request, Response } from 'express';
 import multer, { MulterError } from 'multer';
-import { AppError } from './app-error';
+import { AppError } from '@/server/domain/app-error';
 
 /** One received file, on local disk until the upload's `cleanup`. */
 export interface ReceivedFile {

@@ -1,5 +1,5 @@
 import type { NextFunction, Request, Response } from 'express';
-import { AppError } from './app-error';
+import { AppError } from '@/server/domain/app-error';
 
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS']);
 

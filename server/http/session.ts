@@ -1,10 +1,9 @@
 import type { NextFunction, Request, Response } from 'express';
 import { getIronSession, type IronSession } from 'iron-session';
 import type { Role, User } from '@/shared/schemas/auth';
-import { usersRepository } from '@/server/data/repositories/users-repository';
 import type { Actor } from '@/server/domain/actor';
-import { SESSION_TTL_SECONDS, sessionIsLive } from '@/server/domain/auth/end-sessions';
-import { AppError } from './app-error';
+import { liveSessionUser, SESSION_TTL_SECONDS } from '@/server/domain/auth/end-sessions';
+import { AppError } from '@/server/domain/app-error';
 
 export interface SessionData {
   userId?: string;
@@ -42,13 +41,12 @@ export function sessionMiddleware(password: string) {
 export async function requireUser(req: Request, _res: Response, next: NextFunction) {
   const userId = req.session.userId;
   if (!userId) throw AppError.unauthenticated();
-  const found = await usersRepository.activeById(userId, req.session.nonce);
+  const user = await liveSessionUser(req.session);
   // Signed out, or signed out everywhere / new password / new role / deactivated since this cookie was issued.
-  if (!found || !sessionIsLive(found, req.session)) {
+  if (!user) {
     req.session.destroy();
     throw AppError.unauthenticated('Your session has ended. Sign in again.');
   }
-  const { sessionGeneration: _generation, sessionEnded: _ended, ...user } = found;
   req.user = user;
   req.actor = { userId: user.id, organizationId: user.organization.id, role: user.role };
   next();

@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { AppError, type FieldErrors } from './app-error';
+import { AppError, type FieldErrors } from '@/server/domain/app-error';
 
 /** Flattens zod issues to `{ "a.b": "why" }`, first message per path. */
 export function fieldErrors(error: z.ZodError): FieldErrors {

@@ -1,12 +1,6 @@
-import { CaughtMailListSchema, type CaughtMail } from '@/shared/schemas/mail';
-import { MailError } from './mailer';
-
-export interface CaughtMailClient {
-  /** Every caught message, newest first. */
-  list(): Promise<CaughtMail[]>;
-  /** Forgets every caught message. */
-  clear(): Promise<void>;
-}
+import { CaughtMailListSchema } from '@/shared/schemas/mail';
+import { MailError, type CaughtMailClient } from '@/server/domain/ports/mailer';
+export type { CaughtMailClient } from '@/server/domain/ports/mailer';
 
 const TIMEOUT_MS = 5_000;
 

@@ -1,18 +1,12 @@
 import PgBoss from 'pg-boss';
+import type { CoverageQueue } from '@/server/domain/ports/coverage-queue';
+export type { CoverageQueue } from '@/server/domain/ports/coverage-queue';
 
 /** The pg-boss queue of plan coverage runs. */
 export const COVERAGE_QUEUE = 'plan-coverage';
 
 /** Longest a worker may hold a job before pg-boss hands it to another worker, seconds. */
 const JOB_EXPIRY_S = 30 * 60;
-
-/** What the API needs of the queue. */
-export interface CoverageQueue {
-  /** Queues a run; returns the job id. */
-  enqueue(runId: string): Promise<string>;
-  /** Withdraws a queued or running job (the worker also notices the run's status). */
-  cancel(jobId: string): Promise<void>;
-}
 
 /** A started pg-boss with the coverage queue created. */
 export interface CoverageBoss {

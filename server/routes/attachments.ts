@@ -20,11 +20,11 @@ import {
   updateAttachment,
   uploadAttachment,
 } from '@/server/domain/attachments/manage-attachments';
-import { AppError, type FieldErrors } from '@/server/http/app-error';
+import { AppError, type FieldErrors } from '@/server/domain/app-error';
 import { receiveUpload } from '@/server/http/multipart';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { fieldErrors, parseOrThrow } from '@/server/http/validate';
-import type { FileStore } from '@/server/storage/file-store';
+import type { FileStore } from '@/server/domain/ports/file-store';
 
 const Params = z.object({ id: z.uuid({ error: 'Not an attachment id.' }) });
 

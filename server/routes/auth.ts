@@ -38,7 +38,7 @@ export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
 
   router.post('/auth/set-password', async (req, res) => {
     const input = parseOrThrow(SetPasswordRequestSchema, req.body, 'password form');
-    await setPasswordWithToken(db, input.token, input.password);
+    await setPasswordWithToken({ db }, input.token, input.password);
     res.status(204).end();
   });
 

@@ -7,23 +7,12 @@ import {
   LibraryListQuerySchema,
   TargetInputSchema,
   TargetUpdateSchema,
-  type TargetInput,
 } from '@/shared/schemas/library';
-import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
-import { libraryUseCases } from '@/server/domain/library/manage-library';
-import { AppError } from '@/server/http/app-error';
+import { conditionSetUseCases, libraryUseCases, targetUseCases } from '@/server/domain/library/manage-library';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 
 const IdParams = z.object({ id: z.uuid({ error: 'Not an id.' }) });
-
-const checkTarget = (t: TargetInput) => {
-  if (t.requiredVisibleM > t.heightM) {
-    throw AppError.badRequest('The target has invalid fields.', {
-      requiredVisibleM: 'The part that must show cannot exceed the height.',
-    });
-  }
-};
 
 /** The organisation's target profiles and condition sets: every role reads, planners write. */
 export function libraryRoutes(db: Sequelize) {
@@ -53,17 +42,10 @@ export function libraryRoutes(db: Sequelize) {
       res.status(204).end();
     });
   };
-  mount(
-    'targets',
-    libraryUseCases(db, targetsRepository, 'target', 'That target', checkTarget),
-    TargetInputSchema,
-    TargetUpdateSchema,
-    'target',
-    'target',
-  );
+  mount('targets', targetUseCases({ db }), TargetInputSchema, TargetUpdateSchema, 'target', 'target');
   mount(
     'conditions',
-    libraryUseCases(db, conditionSetsRepository, 'condition-set', 'That condition set'),
+    conditionSetUseCases({ db }),
     ConditionSetInputSchema,
     ConditionSetUpdateSchema,
     'condition set',

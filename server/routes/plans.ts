@@ -23,7 +23,7 @@ import {
 } from '@/server/domain/plans/manage-plans';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
-import type { Mailer } from '@/server/mail/mailer';
+import type { Mailer } from '@/server/domain/ports/mailer';
 import { INT_COLUMN_MAX } from '@/shared/schemas/seen-version';
 
 const IdParams = z.object({ planId: z.uuid({ error: 'Not a plan id.' }) });

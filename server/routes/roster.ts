@@ -32,16 +32,16 @@ export function rosterRoutes(db: Sequelize) {
   });
   router.post('/assignments', ...planner, async (req, res) => {
     const input = parseOrThrow(AssignmentInputSchema, req.body, 'watch');
-    res.status(201).json({ assignment: await createAssignment(db, actorOf(req), input) });
+    res.status(201).json({ assignment: await createAssignment({ db }, actorOf(req), input) });
   });
   router.patch('/assignments/:assignmentId', ...planner, async (req, res) => {
     const { assignmentId } = parseOrThrow(IdParams, req.params, 'address');
     const input = parseOrThrow(AssignmentUpdateSchema, req.body, 'watch');
-    res.json({ assignment: await updateAssignment(db, actorOf(req), assignmentId, input) });
+    res.json({ assignment: await updateAssignment({ db }, actorOf(req), assignmentId, input) });
   });
   router.delete('/assignments/:assignmentId', ...planner, async (req, res) => {
     const { assignmentId } = parseOrThrow(IdParams, req.params, 'address');
-    await deleteAssignment(db, actorOf(req), assignmentId);
+    await deleteAssignment({ db }, actorOf(req), assignmentId);
     res.status(204).end();
   });
   router.get('/sites/:siteId/roster', requireUser, async (req, res) => {

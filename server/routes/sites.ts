@@ -3,7 +3,6 @@ import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { PageQuerySchema } from '@/shared/schemas/list';
 import { PostInputSchema, PostListQuerySchema, PostUpdateSchema, SiteInputSchema, SiteUpdateSchema } from '@/shared/schemas/site';
-import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import {
   createPost,
   createSite,
@@ -12,6 +11,7 @@ import {
   getPost,
   getSite,
   listPosts,
+  listSites,
   updatePost,
   updateSite,
 } from '@/server/domain/sites/manage-sites';
@@ -28,11 +28,11 @@ export function siteRoutes(db: Sequelize) {
 
   router.get('/sites', requireUser, async (req, res) => {
     const { page, pageSize } = parseOrThrow(PageQuerySchema, req.query, 'query');
-    res.json(await sitesRepository.pageInOrganization(actorOf(req).organizationId, page, pageSize));
+    res.json(await listSites(actorOf(req), page, pageSize));
   });
   router.post('/sites', ...write, async (req, res) => {
     const input = parseOrThrow(SiteInputSchema, req.body, 'site');
-    res.status(201).json({ site: await createSite(db, actorOf(req), input) });
+    res.status(201).json({ site: await createSite({ db }, actorOf(req), input) });
   });
   router.get('/sites/:siteId', requireUser, async (req, res) => {
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
@@ -41,11 +41,11 @@ export function siteRoutes(db: Sequelize) {
   router.patch('/sites/:siteId', ...write, async (req, res) => {
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
     const input = parseOrThrow(SiteUpdateSchema, req.body, 'site');
-    res.json({ site: await updateSite(db, actorOf(req), siteId, input) });
+    res.json({ site: await updateSite({ db }, actorOf(req), siteId, input) });
   });
   router.delete('/sites/:siteId', ...write, async (req, res) => {
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
-    await deleteSite(db, actorOf(req), siteId);
+    await deleteSite({ db }, actorOf(req), siteId);
     res.status(204).end();
   });
 
@@ -56,7 +56,7 @@ export function siteRoutes(db: Sequelize) {
   router.post('/sites/:siteId/posts', ...write, async (req, res) => {
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
     const input = parseOrThrow(PostInputSchema, req.body, 'post');
-    res.status(201).json({ post: await createPost(db, actorOf(req), siteId, input) });
+    res.status(201).json({ post: await createPost({ db }, actorOf(req), siteId, input) });
   });
   router.get('/sites/:siteId/posts/:postId', requireUser, async (req, res) => {
     const { siteId, postId } = parseOrThrow(PostParams, req.params, 'address');
@@ -65,11 +65,11 @@ export function siteRoutes(db: Sequelize) {
   router.patch('/sites/:siteId/posts/:postId', ...write, async (req, res) => {
     const { siteId, postId } = parseOrThrow(PostParams, req.params, 'address');
     const input = parseOrThrow(PostUpdateSchema, req.body, 'post');
-    res.json({ post: await updatePost(db, actorOf(req), siteId, postId, input) });
+    res.json({ post: await updatePost({ db }, actorOf(req), siteId, postId, input) });
   });
   router.delete('/sites/:siteId/posts/:postId', ...write, async (req, res) => {
     const { siteId, postId } = parseOrThrow(PostParams, req.params, 'address');
-    await deletePost(db, actorOf(req), siteId, postId);
+    await deletePost({ db }, actorOf(req), siteId, postId);
     res.status(204).end();
   });
   return router;

@@ -16,7 +16,7 @@ import {
   retireSweepWidthTable,
   updateSweepWidthTable,
 } from '@/server/domain/sweep-width/manage-sweep-width-tables';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 
@@ -50,17 +50,17 @@ export function sweepWidthRoutes(db: Sequelize) {
   });
   router.post('/sweep-width-tables', ...write, async (req, res) => {
     const input = parseOrThrow(SweepWidthTableInputSchema, req.body, 'sweep-width table');
-    res.status(201).json({ table: await createSweepWidthTable(db, actorOf(req), input) });
+    res.status(201).json({ table: await createSweepWidthTable({ db }, actorOf(req), input) });
   });
   router.patch('/sweep-width-tables/:id', ...write, async (req, res) => {
     const { id } = parseOrThrow(IdParams, req.params, 'address');
     const input = parseOrThrow(SweepWidthTableUpdateSchema, req.body, 'sweep-width table');
-    res.json({ table: await updateSweepWidthTable(db, actorOf(req), id, input) });
+    res.json({ table: await updateSweepWidthTable({ db }, actorOf(req), id, input) });
   });
   router.post('/sweep-width-tables/:id/retire', ...write, async (req, res) => {
     const { id } = parseOrThrow(IdParams, req.params, 'address');
     const { version } = parseOrThrow(SweepWidthTableRetireSchema, req.body, 'retire request');
-    res.json({ table: await retireSweepWidthTable(db, actorOf(req), id, version) });
+    res.json({ table: await retireSweepWidthTable({ db }, actorOf(req), id, version) });
   });
   return router;
 }

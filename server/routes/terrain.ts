@@ -17,7 +17,7 @@ import {
   uploadTerrain,
   type TerrainDeps,
 } from '@/server/domain/terrain/manage-terrain';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import { receiveUpload } from '@/server/http/multipart';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';

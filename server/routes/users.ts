@@ -6,7 +6,7 @@ import { InviteUserRequestSchema, UpdateUserRequestSchema } from '@/shared/schem
 import { inviteUser, listUsers, updateUser } from '@/server/domain/users/manage-users';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
-import type { Mailer } from '@/server/mail/mailer';
+import type { Mailer } from '@/server/domain/ports/mailer';
 import { invitation } from '@/server/mail/templates';
 
 const IdParam = z.object({ userId: z.uuid({ error: 'Not a user id.' }) });
@@ -23,7 +23,7 @@ export function userRoutes(db: Sequelize, publicUrl: () => string, mailer: Maile
 
   router.post('/users', async (req, res) => {
     const input = parseOrThrow(InviteUserRequestSchema, req.body, 'invitation');
-    const { user, token } = await inviteUser(db, actorOf(req), input);
+    const { user, token } = await inviteUser({ db }, actorOf(req), input);
     const setPasswordUrl = `${publicUrl()}/set-password?token=${token}`;
     // Sent after the account is committed; a mail failure still leaves the link for the admin to pass on.
     let mailed = false;
@@ -47,7 +47,7 @@ export function userRoutes(db: Sequelize, publicUrl: () => string, mailer: Maile
   router.patch('/users/:userId', async (req, res) => {
     const { userId } = parseOrThrow(IdParam, req.params, 'address');
     const input = parseOrThrow(UpdateUserRequestSchema, req.body, 'change');
-    res.json({ user: await updateUser(db, actorOf(req), userId, input) });
+    res.json({ user: await updateUser({ db }, actorOf(req), userId, input) });
   });
 
   return router;

@@ -1,3 +1,4 @@
+// Over 300 lines: one self-contained script by design — it runs before dependencies are installed, so it imports nothing of ours.
 // Bootstrap for `npm start` and `npm test`.
 //
 // Plain JavaScript on purpose: it runs before `npm ci`, when TypeScript tooling
@@ -541,6 +542,7 @@ async function test() {
     if (quick) log('quick run: skipping type-check, lint and the web build (browser tests will not find the app)');
     if (!quick) step('type-check', () => run('npx', ['tsc', '--noEmit', '-p', 'tsconfig.json']));
     if (!quick) step('lint', () => run('npx', ['eslint', '.', '--max-warnings', '0']));
+    if (!quick) step('layering', () => run('npm', ['run', '-s', 'lint:boundaries']));
     step('test databases', () => {
       // The demo terrain goes to this run's file store, which the test server and the API tests' stores copy.
       tsx('server/scripts/prepare-database.ts', ['--database', template, '--seed', '--fresh', '--files', testFiles], {

@@ -18,7 +18,7 @@ import { dataDir } from '../config';
 import { createDatabase } from '../data/database';
 import { APPLICATION_LOGIN, applyApplicationGrants, ensureApplicationLogin } from '../data/application-role';
 import { migrate } from '../data/migrator';
-import { seedDemo } from '../data/seeders/demo';
+import { seedDemo } from '../seeders/demo';
 import { createDiskFileStore } from '../storage/file-store';
 
 const { values } = parseArgs({

@@ -18,12 +18,13 @@ import { writeEsriAsciiGrid } from '@/shared/terrain/formats/esri-ascii-grid-wri
 import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
 import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
 import { TerrainFormatError } from '@/shared/terrain/formats/terrain-format-error';
-import { DEFAULT_EARTH_RADIUS, DEFAULT_REFRACTION_COEFFICIENT } from '@/shared/terrain/curvature-drop';
+import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import { computeHiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
 import { locatePostCell } from '@/shared/terrain/locate-post-cell';
 import { targetVisibilityMask } from '@/shared/terrain/target-visibility-mask';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid, TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 const USAGE = `Usage: npm run viewshed -- --dem <file.tif|file.asc> --x <easting> --y <northing> --eye <m> --out <file.asc|file.tif> [options]
 
@@ -40,8 +41,8 @@ Options:
   --mode hidden|visible  hidden  = hidden height in metres, 0 where the ground is seen (default)
                          visible = 1 where a target of --target metres is seen, 0 where not
   --target <m>           target height above ground for --mode visible, metres (default 0)
-  --k <k>                refraction coefficient (default ${DEFAULT_REFRACTION_COEFFICIENT})
-  --earth-radius <m>     earth radius, metres (default ${DEFAULT_EARTH_RADIUS})
+  --k <k>                refraction coefficient (default ${STANDARD_OPTICAL_K})
+  --earth-radius <m>     earth radius, metres (default ${MEAN_EARTH_RADIUS_M})
   --max-distance <m>     compute only within this distance of the post; cells beyond are nodata
   --help                 this text
 `;
@@ -145,9 +146,9 @@ function parseCommandLine(argv: string[]): Arguments | null {
   if (v.target !== undefined && mode === 'hidden') {
     throw new UsageError('--target only applies to --mode visible (the hidden-height raster serves every target height).');
   }
-  const k = number('k', v.k, 'refraction coefficient') ?? DEFAULT_REFRACTION_COEFFICIENT;
+  const k = number('k', v.k, 'refraction coefficient') ?? STANDARD_OPTICAL_K;
   if (k >= 1) throw new UsageError(`--k must be below 1, got ${k}.`);
-  const earthRadius = number('earth-radius', v['earth-radius'], 'metres') ?? DEFAULT_EARTH_RADIUS;
+  const earthRadius = number('earth-radius', v['earth-radius'], 'metres') ?? MEAN_EARTH_RADIUS_M;
   if (!(earthRadius > 0)) throw new UsageError(`--earth-radius must be > 0 metres, got ${earthRadius}.`);
   const maxDistance = number('max-distance', v['max-distance'], 'metres');
   if (maxDistance !== undefined && !(maxDistance > 0)) {
@@ -169,7 +170,7 @@ async function readTerrain(file: string): Promise<TerrainRaster> {
   return readGeoTiff(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
 }
 
-function writeResult(file: string, grid: RasterGrid, values: Float32Array, decimals: number): string[] {
+function writeResult(file: string, grid: GridSpec, values: Float32Array, decimals: number): string[] {
   const notes: string[] = [];
   if (/\.asc$/i.test(file)) {
     const { asc, prj } = writeEsriAsciiGrid(grid, values, { decimals });
@@ -217,7 +218,7 @@ async function main(): Promise<number> {
   }
   const t1 = performance.now();
   let values: Float32Array;
-  let grid: RasterGrid;
+  let grid: GridSpec;
   try {
     const cell = locatePostCell(terrain, args.x, args.y);
     const hidden = computeHiddenHeightRaster(

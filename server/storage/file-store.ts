@@ -4,15 +4,8 @@ import { mkdir, rename, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
 import { Readable, Transform } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-
-/** What the store knows of one stored file. */
-export interface StoredFile {
-  /** Opaque key, e.g. `3f/3f2a…`; the only handle callers keep (in PostgreSQL). */
-  readonly key: string;
-  readonly bytes: number;
-  /** sha256 of the content, hex. */
-  readonly sha256: string;
-}
+import type { FileStore } from '@/server/domain/ports/file-store';
+export type { StoredFile, FileStore } from '@/server/domain/ports/file-store';
 
 /** Thrown when a write exceeds its byte limit; nothing is left stored. */
 export class FileTooLargeError extends Error {
@@ -20,24 +13,6 @@ export class FileTooLargeError extends Error {
   constructor(readonly limitBytes: number) {
     super(`The file is larger than ${limitBytes} bytes.`);
   }
-}
-
-/**
- * Where uploaded bytes live (attachments, terrain). Metadata belongs in
- * PostgreSQL; the store only keeps bytes under opaque keys, so a cloud bucket
- * can replace the disk later without touching callers.
- */
-export interface FileStore {
-  /** Streams `source` into a new file; either the whole file is stored or nothing. */
-  put(source: Readable | Buffer, options?: { maxBytes?: number }): Promise<StoredFile>;
-  /** Moves a file already on this machine (an upload's temp file) into the store. */
-  adopt(localPath: string): Promise<StoredFile>;
-  /** A stream of the file's bytes; rejects with code `ENOENT` when the key is unknown. */
-  open(key: string): Promise<Readable>;
-  /** A local path to read the file from (workers map terrain from it). */
-  localPath(key: string): string;
-  /** Removes the file; removing a missing key is not an error. */
-  remove(key: string): Promise<void>;
 }
 
 const KEY = /^[0-9a-f]{2}\/[0-9a-f]{32}$/;

@@ -1,7 +1,6 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { PNG } from 'pngjs';
-import type { TerrainFormat } from '@/shared/schemas/terrain';
 import { readEsriAsciiGrid } from '@/shared/terrain/formats/esri-ascii-grid-reader';
 import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
 import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
@@ -11,82 +10,14 @@ import { gridProjection, TerrainCrsError, type GridProjection } from '@/shared/t
 import { computeHillshade } from '@/shared/terrain/hillshade';
 import { hillshadeImage } from '@/shared/terrain/hillshade-image';
 import { elevationAt } from '@/shared/terrain/terrain-elevation';
-import type { TerrainCrs, TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainCrs } from '@/shared/terrain/grid-spec';
+import { TerrainIngestError, type TerrainIngestRequest, type TerrainIngestResult } from '@/server/domain/ports/terrain-ingest';
+export type { TerrainIngestRequest, TerrainIngestResult, TerrainIngestErrorCode } from '@/server/domain/ports/terrain-ingest';
+export { TerrainIngestError } from '@/server/domain/ports/terrain-ingest';
 
 /** Ground elevations outside this range are taken for a unit or nodata mistake, metres. */
 const PLAUSIBLE_ELEVATION_M = { min: -12_000, max: 9_000 } as const;
-
-/** What to ingest: the uploaded file(s) on local disk and the uploader's settings. */
-export interface TerrainIngestRequest {
-  /** The grid file (.tif, .tiff or .asc). */
-  readonly filePath: string;
-  readonly format: TerrainFormat;
-  /** The .prj beside an ASCII grid, or null. */
-  readonly prjPath: string | null;
-  /** EPSG code given by the uploader for a grid without a CRS, or null. */
-  readonly epsg: number | null;
-  /** Largest grid accepted, cells. */
-  readonly maxCells: number;
-  /** Longest edge of the hillshade picture, pixels. */
-  readonly hillshadeMaxEdge: number;
-  /** The site's boundary as [lon, lat] pairs, or null. */
-  readonly boundary: readonly (readonly [number, number])[] | null;
-  /** Folder the normalised grid and the picture are written to. */
-  readonly outDir: string;
-}
-
-/** What the ingest produced. */
-export interface TerrainIngestResult {
-  readonly width: number;
-  readonly height: number;
-  readonly cellSize: number;
-  readonly xll: number;
-  readonly yll: number;
-  readonly epsg: number | null;
-  readonly wkt: string | null;
-  readonly crsLabel: string;
-  readonly nodataValue: number | null;
-  readonly nodataCells: number;
-  readonly minElevation: number;
-  readonly maxElevation: number;
-  readonly coversBoundary: boolean | null;
-  readonly corners: Record<'northWest' | 'northEast' | 'southEast' | 'southWest', { latDeg: number; lonDeg: number }>;
-  /** Normalised Float32 GeoTIFF (nodata = NaN). */
-  readonly gridPath: string;
-  /** Hillshade PNG (grey + alpha). */
-  readonly hillshadePath: string;
-  readonly hillshadeWidth: number;
-  readonly hillshadeHeight: number;
-  /** Milliseconds spent reading, shading and writing. */
-  readonly timings: { readonly readMs: number; readonly hillshadeMs: number; readonly writeMs: number };
-}
-
-/** Reasons an upload cannot become a terrain. */
-export type TerrainIngestErrorCode =
-  | 'wrong-type'
-  | 'corrupt'
-  | 'truncated'
-  | 'unsupported'
-  | 'oversize'
-  | 'in-degrees'
-  | 'crs-missing'
-  | 'crs-unsupported'
-  | 'crs-conflict'
-  | 'outside-crs'
-  | 'implausible'
-  | 'empty';
-
-/** A terrain upload refused for a reason the uploader can fix; `field` names the form field at fault. */
-export class TerrainIngestError extends Error {
-  readonly code: TerrainIngestErrorCode;
-  readonly field: 'file' | 'prj' | 'epsg';
-  constructor(code: TerrainIngestErrorCode, field: 'file' | 'prj' | 'epsg', message: string) {
-    super(message);
-    this.name = 'TerrainIngestError';
-    this.code = code;
-    this.field = field;
-  }
-}
 
 /**
  * Turns an uploaded terrain file into what Kenning stores: reads it (GeoTIFF

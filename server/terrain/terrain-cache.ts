@@ -2,29 +2,8 @@ import { readFile } from 'node:fs/promises';
 import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 import type { FileStore } from '@/server/storage/file-store';
-
-/** The fields of a stored terrain the cache needs (a `site_terrains` row as the repository returns it). */
-export interface CachedTerrainSource {
-  readonly id: string;
-  readonly storeKey: string;
-  readonly epsg: number | null;
-  readonly crsWkt: string | null;
-}
-
-/** Terrains held in memory, least recently used first out. */
-export interface TerrainCache {
-  /**
-   * The terrain of a stored row: from memory when held, otherwise read from
-   * the file store (the normalised Float32 GeoTIFF, the reader's fast path) and
-   * kept. Concurrent loads of one terrain share one read. The raster is shared:
-   * treat it as immutable, as the whole terrain core does.
-   */
-  loadTerrain(source: CachedTerrainSource): Promise<TerrainRaster>;
-  /** Terrains held and their bytes. */
-  stats(): { terrains: number; bytes: number; maxBytes: number };
-  /** Drops everything. */
-  clear(): void;
-}
+import type { CachedTerrainSource, TerrainCache } from '@/server/domain/ports/terrain-cache';
+export type { CachedTerrainSource, TerrainCache } from '@/server/domain/ports/terrain-cache';
 
 /**
  * An LRU cache of terrain rasters keyed by terrain id, bounded by the bytes of

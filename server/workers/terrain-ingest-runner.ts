@@ -5,10 +5,9 @@ import {
   type TerrainIngestErrorCode,
   type TerrainIngestRequest,
   type TerrainIngestResult,
-} from '@/server/terrain/ingest-terrain-file';
-
-/** Runs terrain ingests off the request thread. */
-export type TerrainIngestRunner = (request: TerrainIngestRequest) => Promise<TerrainIngestResult>;
+  type TerrainIngestRunner,
+} from '@/server/domain/ports/terrain-ingest';
+export type { TerrainIngestRunner } from '@/server/domain/ports/terrain-ingest';
 
 /** Error for an ingest worker that failed outside the ingest itself (crash, out of memory). */
 export class TerrainWorkerError extends Error {

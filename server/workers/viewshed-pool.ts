@@ -1,43 +1,11 @@
 import os from 'node:os';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { DEFAULT_EARTH_RADIUS, DEFAULT_REFRACTION_COEFFICIENT } from '@/shared/terrain/curvature-drop';
-import type { HiddenHeightRaster, LookoutPost, SightConditions } from '@/shared/terrain/hidden-height-raster';
+import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import { TerrainInputError, type TerrainInputErrorCode } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
-
-/** One viewshed to compute: a post under one set of conditions. */
-export interface ViewshedJob {
-  readonly post: LookoutPost;
-  readonly conditions?: SightConditions;
-}
-
-/** Result of one job, in the order the jobs were given. */
-export interface ViewshedJobResult {
-  readonly job: ViewshedJob;
-  readonly raster: HiddenHeightRaster;
-  /** Compute time inside the worker, milliseconds. */
-  readonly elapsedMs: number;
-}
-
-/** A pool of viewshed worker threads. */
-export interface ViewshedPool {
-  /** Number of worker threads. */
-  readonly size: number;
-  /**
-   * Computes every job on the terrain, spreading them over the workers. The
-   * heights are copied into shared memory once per terrain object (unless they
-   * already live in a SharedArrayBuffer) and reused by later runs on the same
-   * object, so treat the terrain as immutable, as the whole core does.
-   */
-  run(
-    terrain: TerrainRaster,
-    jobs: readonly ViewshedJob[],
-    options?: { readonly onResult?: (result: ViewshedJobResult, index: number) => void },
-  ): Promise<ViewshedJobResult[]>;
-  /** Stops the workers; pending runs are rejected. */
-  close(): Promise<void>;
-}
+import type { ViewshedJob, ViewshedJobResult, ViewshedPool } from '@/server/domain/ports/viewshed-pool';
+export type { ViewshedJob, ViewshedJobResult, ViewshedPool } from '@/server/domain/ports/viewshed-pool';
 
 /** Settings of {@link createViewshedPool}. */
 export interface ViewshedPoolOptions {
@@ -202,8 +170,8 @@ export function createViewshedPool(options: ViewshedPoolOptions = {}): ViewshedP
               hidden: reply.hidden,
               post: { ...job.post },
               eyeElevation: reply.eyeElevation,
-              refractionCoefficient: conditions.refractionCoefficient ?? DEFAULT_REFRACTION_COEFFICIENT,
-              earthRadius: conditions.earthRadius ?? DEFAULT_EARTH_RADIUS,
+              refractionCoefficient: conditions.refractionCoefficient ?? STANDARD_OPTICAL_K,
+              earthRadius: conditions.earthRadius ?? MEAN_EARTH_RADIUS_M,
               maxDistance: conditions.maxDistance ?? Infinity,
             },
           };

@@ -1,3 +1,4 @@
+// Over 300 lines: one grammar for typed coordinates (DD, DDM, DMS, hemisphere letters); its cases share one tokenizer.
 import { CoordinateError } from '@/shared/geo/coordinate-error';
 import type { CoordinateFormat } from '@/shared/geo/types';
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { GridSpecMSchema } from './grid-spec';
 import { CLASS_RASTER_ENCODING, type EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
 
 /*
@@ -113,12 +114,7 @@ export const CoverageCaseSchema = z.object({
 export type CoverageCase = z.infer<typeof CoverageCaseSchema>;
 
 /** The grid the layers are on (the terrain's, or the flat datum's). */
-export const CoverageGridSchema = z.object({
-  width: z.number().int(),
-  height: z.number().int(),
-  cellSizeM: z.number(),
-  xllM: z.number(),
-  yllM: z.number(),
+export const CoverageGridSchema = GridSpecMSchema.extend({
   epsg: z.number().int().nullable(),
 });
 export type CoverageGrid = z.infer<typeof CoverageGridSchema>;

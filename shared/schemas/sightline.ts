@@ -1,3 +1,4 @@
+// Over 300 lines: the whole sightline request and result contract, field by field with units and docs.
 import { z } from 'zod';
 
 import { REFRACTION_PRESET_IDS } from '@/shared/sightline/refraction-presets';

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { GridSpecMSchema } from './grid-spec';
 import { LatLonSchema } from './lat-lon';
 import { RefractionConditionSchema } from './sightline';
 
@@ -66,14 +67,8 @@ export const SiteTerrainSchema = z.object({
   /** File name as uploaded. */
   originalName: z.string(),
   originalFormat: TerrainFormatSchema,
-  /** Columns (west → east) and rows (north → south). */
-  width: z.number().int(),
-  height: z.number().int(),
-  /** Side of a square cell, metres. */
-  cellSizeM: z.number(),
-  /** Lower-left (south-west) corner of the grid, metres in its CRS. */
-  xllM: z.number(),
-  yllM: z.number(),
+  /** Size, cell size and lower-left corner of the grid (metres in its CRS). */
+  ...GridSpecMSchema.shape,
   crs: z.object({
     epsg: z.number().int().nullable(),
     /** Well-known text when the upload carried one (.prj). */
@@ -289,15 +284,10 @@ export const TERRAIN_MESH_ENCODING = 'float32le-base64';
  */
 export const TerrainMeshResponseSchema = z.object({
   terrainId: z.uuid(),
-  width: z.number().int(),
-  height: z.number().int(),
+  /** The mesh grid: size, side of a mesh cell and lower-left corner, metres in the terrain's CRS. */
+  ...GridSpecMSchema.shape,
   /** Terrain cells per mesh cell along each axis. */
   factor: z.number().int(),
-  /** Side of a mesh cell, metres. */
-  cellSizeM: z.number(),
-  /** Lower-left corner of the mesh grid in the terrain's CRS, metres. */
-  xllM: z.number(),
-  yllM: z.number(),
   /** Lowest and highest ground of the mesh, metres. */
   minElevationM: z.number(),
   maxElevationM: z.number(),

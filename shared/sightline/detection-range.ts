@@ -1,10 +1,5 @@
-import {
-  BACKGROUND_LIGHTING_FACTOR,
-  NIGHT_THRESHOLD_ILLUMINANCE_LUX,
-  ONE_ARCMINUTE_RAD,
-  VISIBILITY_CONTRAST_THRESHOLD,
-  type BackgroundLighting,
-} from '@/shared/sightline/constants';
+import { ONE_ARCMINUTE_RAD } from '@/shared/physics/constants';
+import { BACKGROUND_LIGHTING_FACTOR, NIGHT_THRESHOLD_ILLUMINANCE_LUX, VISIBILITY_CONTRAST_THRESHOLD, type BackgroundLighting } from '@/shared/sightline/constants';
 import { checkInput } from '@/shared/sightline/check-input';
 import { convertVisibility } from '@/shared/sightline/convert-visibility';
 import { extinctionFromVisibility } from '@/shared/sightline/extinction-from-visibility';

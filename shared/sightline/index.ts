@@ -4,6 +4,7 @@
  * (metres, radians, kelvin; pressure in hPa). Convert at the edges with
  * `@/shared/units`.
  */
+export * from '@/shared/physics/constants';
 export * from '@/shared/sightline/constants';
 export type * from '@/shared/sightline/types';
 export { SightlineInputError } from '@/shared/sightline/sightline-error';

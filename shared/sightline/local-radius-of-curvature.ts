@@ -1,5 +1,5 @@
 import { checkInput } from '@/shared/sightline/check-input';
-import { WGS84_FLATTENING, WGS84_SEMI_MAJOR_AXIS_M } from '@/shared/sightline/constants';
+import { WGS84_FLATTENING, WGS84_SEMI_MAJOR_AXIS_M } from '@/shared/physics/constants';
 
 /**
  * Radius of curvature of the WGS 84 ellipsoid along a normal section at a

@@ -1,5 +1,6 @@
 import { checkInput } from '@/shared/sightline/check-input';
-import { NAUTICAL_MILE_M, NIGHT_THRESHOLD_ILLUMINANCE_LUX } from '@/shared/sightline/constants';
+import { NAUTICAL_MILE_M } from '@/shared/physics/constants';
+import { NIGHT_THRESHOLD_ILLUMINANCE_LUX } from '@/shared/sightline/constants';
 
 /** Inputs of {@link luminousRange}. */
 export interface LuminousRangeInput {

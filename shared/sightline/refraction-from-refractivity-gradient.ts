@@ -1,5 +1,5 @@
 import { checkInput } from '@/shared/sightline/check-input';
-import { MEAN_EARTH_RADIUS_M } from '@/shared/sightline/constants';
+import { MEAN_EARTH_RADIUS_M } from '@/shared/physics/constants';
 
 /**
  * Refraction coefficient from a vertical gradient of refractivity

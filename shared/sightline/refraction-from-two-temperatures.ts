@@ -1,5 +1,5 @@
 import { checkInput } from '@/shared/sightline/check-input';
-import { STANDARD_PRESSURE_HPA } from '@/shared/sightline/constants';
+import { STANDARD_PRESSURE_HPA } from '@/shared/physics/constants';
 import { refractionFromTemperatureGradient } from '@/shared/sightline/refraction-from-temperature-gradient';
 import { SightlineInputError } from '@/shared/sightline/sightline-error';
 

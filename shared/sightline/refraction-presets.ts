@@ -1,4 +1,4 @@
-import { RADIO_FOUR_THIRDS_K, STANDARD_OPTICAL_K, STANDARD_PRESSURE_HPA, STANDARD_TEMPERATURE_GRADIENT_K_PER_M, STANDARD_TEMPERATURE_K } from '@/shared/sightline/constants';
+import { RADIO_FOUR_THIRDS_K, STANDARD_OPTICAL_K, STANDARD_PRESSURE_HPA, STANDARD_TEMPERATURE_GRADIENT_K_PER_M, STANDARD_TEMPERATURE_K } from '@/shared/physics/constants';
 import { refractionFromTemperatureGradient } from '@/shared/sightline/refraction-from-temperature-gradient';
 import { SightlineInputError } from '@/shared/sightline/sightline-error';
 

@@ -1,5 +1,5 @@
 import { checkInput } from '@/shared/sightline/check-input';
-import { ONE_ARCMINUTE_RAD } from '@/shared/sightline/constants';
+import { ONE_ARCMINUTE_RAD } from '@/shared/physics/constants';
 
 /**
  * Angular-size limit: the greatest range at which a target of size s still

@@ -1,5 +1,5 @@
 import { checkInput } from '@/shared/sightline/check-input';
-import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/sightline/constants';
+import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import type { SphereOptions } from '@/shared/sightline/types';
 
 /** Validated sphere options with the effective radius worked out. */

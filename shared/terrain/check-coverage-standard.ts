@@ -1,3 +1,4 @@
+// Over 300 lines: one documented pure function with its rule types and the people-facing reasons it writes.
 import type { AreaCoverage, BlindArea, CoverageStatistics } from '@/shared/terrain/coverage-statistics';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 

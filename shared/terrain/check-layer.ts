@@ -1,5 +1,5 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /**
  * Checks that `grid` is a usable raster geometry (positive integer size,
@@ -7,7 +7,7 @@ import type { RasterGrid } from '@/shared/terrain/terrain-raster';
  * array of the given kind holding one value per cell of it. Shared by the
  * coverage modules, which take plain typed-array layers (masks, class and
  * count rasters) laid out like every Kenning raster: row-major, row 0 = north
- * (see {@link RasterGrid}).
+ * (see {@link GridSpec}).
  *
  * Source: none needed (input checking).
  *
@@ -20,7 +20,7 @@ import type { RasterGrid } from '@/shared/terrain/terrain-raster';
  * @example
  * checkLayer(grid, siteMask, 'Uint8Array', 'siteMask'); // returns nothing, or throws
  */
-export function checkLayer(grid: RasterGrid, values: unknown, kind: 'Uint8Array' | 'Float32Array', field: string): void {
+export function checkLayer(grid: GridSpec, values: unknown, kind: 'Uint8Array' | 'Float32Array', field: string): void {
   const { width, height, cellSize, xll, yll } = grid;
   if (!Number.isInteger(width) || width < 1 || !Number.isInteger(height) || height < 1) {
     throw new TerrainInputError('invalid-raster', `Raster size must be positive integers, got ${width} × ${height}.`, field);

@@ -1,5 +1,5 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /**
  * Checks that two rasters share one grid: the same size, cell size and
@@ -16,7 +16,7 @@ import type { RasterGrid } from '@/shared/terrain/terrain-raster';
  * @example
  * checkSameGrid(before, after, 'after'); // returns nothing, or throws
  */
-export function checkSameGrid(a: RasterGrid, b: RasterGrid, field: string): void {
+export function checkSameGrid(a: GridSpec, b: GridSpec, field: string): void {
   const tolerance = 0.001; // metres; common practice, no source
   if (
     a.width !== b.width ||

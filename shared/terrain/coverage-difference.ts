@@ -1,7 +1,7 @@
 import { checkLayer } from '@/shared/terrain/check-layer';
 import { checkSameGrid } from '@/shared/terrain/check-same-grid';
 import type { PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /** Change codes stored in {@link CoverageDifference.changes}. */
 export const COVERAGE_CHANGE = {
@@ -30,7 +30,7 @@ export interface ChangeMeasure {
 }
 
 /** Per-cell change between two coverage rasters, with totals. */
-export interface CoverageDifference extends RasterGrid {
+export interface CoverageDifference extends GridSpec {
   /** {@link COVERAGE_CHANGE} code per cell, row 0 = north. */
   readonly changes: Uint8Array;
   readonly statistics: {

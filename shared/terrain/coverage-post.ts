@@ -1,6 +1,6 @@
 import { checkLayer } from '@/shared/terrain/check-layer';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /**
  * The part of the horizon a post watches, as true bearings: clockwise from
@@ -97,7 +97,7 @@ export interface PreparedCoveragePost {
  * const [prepared] = prepareCoveragePosts(grid, [{ col: 10, row: 10, classes }]);
  * insideSector(prepared, 2, 0); // is the cell 2 east of the post inside its sector?
  */
-export function prepareCoveragePosts(grid: RasterGrid, posts: readonly CoveragePost[]): PreparedCoveragePost[] {
+export function prepareCoveragePosts(grid: GridSpec, posts: readonly CoveragePost[]): PreparedCoveragePost[] {
   if (!Array.isArray(posts) || posts.length === 0) {
     throw new TerrainInputError('invalid-post', 'At least one post is needed.', 'posts');
   }

@@ -1,3 +1,4 @@
+// Over 300 lines: site, zone and blind-area statistics come from one labelling pass over the grid.
 import { checkLayer } from '@/shared/terrain/check-layer';
 import { checkSameGrid } from '@/shared/terrain/check-same-grid';
 import { CROSS_BEARING_CLASS, type CrossBearingRaster } from '@/shared/terrain/cross-bearing-quality';

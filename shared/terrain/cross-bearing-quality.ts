@@ -3,7 +3,7 @@ import { prepareCoveragePosts, type CoveragePost } from '@/shared/terrain/covera
 import { insideSector } from '@/shared/terrain/inside-sector';
 import type { PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 
 /** Class codes stored in {@link CrossBearingRaster.classes}. */
@@ -35,7 +35,7 @@ export interface CrossBearingOptions {
 }
 
 /** Cross-bearing quality per cell for one target height and condition. */
-export interface CrossBearingRaster extends RasterGrid {
+export interface CrossBearingRaster extends GridSpec {
   /** {@link CROSS_BEARING_CLASS} code per cell, row 0 = north. */
   readonly classes: Uint8Array;
   /**

@@ -1,7 +1,4 @@
-/** Default coefficient of terrestrial refraction (dimensionless). */
-export const DEFAULT_REFRACTION_COEFFICIENT = 0.13;
-/** Default earth radius, metres: the IUGG mean radius R1 of the GRS 80 ellipsoid. */
-export const DEFAULT_EARTH_RADIUS = 6_371_008.8;
+import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 
 /**
  * How far the ground at horizontal distance `distance` from an observer lies
@@ -27,8 +24,8 @@ export const DEFAULT_EARTH_RADIUS = 6_371_008.8;
  */
 export function curvatureDrop(
   distance: number,
-  refractionCoefficient: number = DEFAULT_REFRACTION_COEFFICIENT,
-  earthRadius: number = DEFAULT_EARTH_RADIUS,
+  refractionCoefficient: number = STANDARD_OPTICAL_K,
+  earthRadius: number = MEAN_EARTH_RADIUS_M,
 ): number {
   return ((1 - refractionCoefficient) * distance * distance) / (2 * earthRadius);
 }

@@ -1,6 +1,6 @@
 import { checkLayer } from '@/shared/terrain/check-layer';
 import { BASE64_ALPHABET, CLASS_RASTER_ENCODING, type EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /**
  * Packs a Uint8 class raster for the map client: run-length bytes (value,
@@ -22,7 +22,7 @@ import type { RasterGrid } from '@/shared/terrain/terrain-raster';
  * const packed = encodeClassRaster(counts, counts.layer);
  * JSON.stringify(packed); // { format: 'kenning-rle8/1', width: 600, height: 600, …, data: 'AYDU…' }
  */
-export function encodeClassRaster(grid: RasterGrid, values: Uint8Array): EncodedClassRaster {
+export function encodeClassRaster(grid: GridSpec, values: Uint8Array): EncodedClassRaster {
   checkLayer(grid, values, 'Uint8Array', 'values');
   const n = values.length;
   // Pass 1: size of the run bytes.

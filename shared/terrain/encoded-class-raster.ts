@@ -4,7 +4,7 @@ export const CLASS_RASTER_ENCODING = 'kenning-rle8/1';
 /**
  * A Uint8 class raster (coverage layer, cross-bearing classes, change codes,
  * visibility classes) packed for the map client. Grid fields as in
- * `RasterGrid` (row 0 = north; cell size and origin in metres of the CRS
+ * `GridSpec` (row 0 = north; cell size and origin in metres of the CRS
  * with EPSG code `epsg`).
  *
  * `data` format ({@link CLASS_RASTER_ENCODING}): the cells in row-major order

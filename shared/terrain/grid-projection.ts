@@ -1,7 +1,7 @@
 import proj4 from 'proj4';
 import type { LatLon } from '@/shared/geo/types';
 import { utmProjection } from '@/shared/geo/utm-projection';
-import type { TerrainCrs } from '@/shared/terrain/terrain-raster';
+import type { TerrainCrs } from '@/shared/terrain/grid-spec';
 
 /** Converts between WGS84 latitude/longitude and one terrain grid's projected coordinates. */
 export interface GridProjection {

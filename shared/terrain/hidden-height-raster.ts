@@ -1,7 +1,9 @@
-import { DEFAULT_EARTH_RADIUS, DEFAULT_REFRACTION_COEFFICIENT } from '@/shared/terrain/curvature-drop';
+// Over 300 lines: the viewshed engine — one entry point and its two octant sweeps (by columns, by rows), one algorithm.
+import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid, TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 import { NEVER_BLOCKS, prepareSweepTerrain, type SweepTerrain } from '@/shared/terrain/sweep-terrain';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /** A lookout post on the terrain grid. */
 export interface LookoutPost {
@@ -27,7 +29,7 @@ export interface SightConditions {
  * Hidden heights for one post: the grid of the terrain it was computed on
  * (same orientation, cell size and origin) plus one Float32 value per cell.
  */
-export interface HiddenHeightRaster extends RasterGrid {
+export interface HiddenHeightRaster extends GridSpec {
   /**
    * Height above the ground, metres, that a target in the cell must reach to
    * be seen from the eye; 0 where the ground itself is seen. NaN where the
@@ -117,8 +119,8 @@ export function computeHiddenHeightRaster(
   prepared?: SweepTerrain,
 ): HiddenHeightRaster {
   const { width: W, height: H, cellSize, nodata } = terrain;
-  const k = conditions.refractionCoefficient ?? DEFAULT_REFRACTION_COEFFICIENT;
-  const R = conditions.earthRadius ?? DEFAULT_EARTH_RADIUS;
+  const k = conditions.refractionCoefficient ?? STANDARD_OPTICAL_K;
+  const R = conditions.earthRadius ?? MEAN_EARTH_RADIUS_M;
   const maxDistance = conditions.maxDistance ?? Infinity;
   validate(terrain, post, k, R, maxDistance);
   if (prepared && prepared.source !== terrain) {

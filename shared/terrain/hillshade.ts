@@ -1,5 +1,6 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid, TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /** Light and scaling of {@link computeHillshade}. */
 export interface HillshadeOptions {
@@ -14,7 +15,7 @@ export interface HillshadeOptions {
 }
 
 /** A shaded-relief raster on the grid of the terrain it was computed from. */
-export interface HillshadeRaster extends RasterGrid {
+export interface HillshadeRaster extends GridSpec {
   /**
    * Brightness per cell, row 0 = north: 1 (full shadow) … 255 (facing the
    * light), 0 where the terrain has no data.

@@ -1,5 +1,5 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /**
  * Finds the cell that contains the point (x, y):
@@ -19,7 +19,7 @@ import type { RasterGrid } from '@/shared/terrain/terrain-raster';
  * locatePostCell({ width: 10, height: 10, cellSize: 25, xll: 0, yll: 0, crs: null }, 30, 240);
  * // → { col: 1, row: 0 }
  */
-export function locatePostCell(grid: RasterGrid, x: number, y: number): { col: number; row: number } {
+export function locatePostCell(grid: GridSpec, x: number, y: number): { col: number; row: number } {
   const xEast = grid.xll + grid.width * grid.cellSize;
   const yTop = grid.yll + grid.height * grid.cellSize;
   if (!(x >= grid.xll && x <= xEast && y >= grid.yll && y <= yTop)) {

@@ -1,7 +1,7 @@
 import { prepareCoveragePosts, SECTOR_KIND, type CoveragePost } from '@/shared/terrain/coverage-post';
 import { insideSector } from '@/shared/terrain/inside-sector';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 
 /**
@@ -26,7 +26,7 @@ export const COVERAGE_LAYER = {
 export type CoverageLayerCode = (typeof COVERAGE_LAYER)[keyof typeof COVERAGE_LAYER];
 
 /** How many posts of a network see the target in each cell (one target height, one condition). */
-export interface PostsPerCellRaster extends RasterGrid {
+export interface PostsPerCellRaster extends GridSpec {
   /** Posts that see the target, per cell, saturating at 255; 0 on no-data cells. Row 0 = north. */
   readonly counts: Uint8Array;
   /** 1 where the terrain has no data (see {@link countPostsPerCell}), else 0. */
@@ -85,7 +85,7 @@ export interface PostsPerCellRaster extends RasterGrid {
  * ]);
  * counts.counts[row * grid.width + col]; // 0, 1 or 2 posts see a 30 m smoke there
  */
-export function countPostsPerCell(grid: RasterGrid, posts: readonly CoveragePost[]): PostsPerCellRaster {
+export function countPostsPerCell(grid: GridSpec, posts: readonly CoveragePost[]): PostsPerCellRaster {
   const prepared = prepareCoveragePosts(grid, posts);
   if (prepared.length > 65_535) throw new TerrainInputError('invalid-post', 'At most 65 535 posts can be counted.', 'posts');
   const { width: W, height: H } = grid;

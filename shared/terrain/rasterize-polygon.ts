@@ -1,5 +1,5 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /** A polygon ring as `[x, y]` corners in the grid's CRS (projected metres); closed or not. */
 export type PolygonRing = ReadonlyArray<readonly [number, number]>;
@@ -28,7 +28,7 @@ export type PolygonRing = ReadonlyArray<readonly [number, number]>;
  * merely touched by the polygon (GDAL's "all touched") are not burned.
  *
  * Orientation of the result: row-major, row 0 = north, the layout of every
- * Kenning raster (see {@link RasterGrid}); centre of (col, row) at
+ * Kenning raster (see {@link GridSpec}); centre of (col, row) at
  * `x = xll + (col + 0.5)·cellSize`, `y = yll + (height − row − 0.5)·cellSize`.
  * Parts of the polygon outside the grid are ignored.
  *
@@ -52,7 +52,7 @@ export type PolygonRing = ReadonlyArray<readonly [number, number]>;
  * rasterizePolygon(grid, [[[0, 0], [20, 0], [20, 20], [0, 20]]]);
  * // rows 2 and 3 (the south half), columns 0 and 1: [0,0,0,0, 0,0,0,0, 1,1,0,0, 1,1,0,0]
  */
-export function rasterizePolygon(grid: RasterGrid, rings: readonly PolygonRing[]): Uint8Array {
+export function rasterizePolygon(grid: GridSpec, rings: readonly PolygonRing[]): Uint8Array {
   const { width: W, height: H, cellSize, xll, yll } = grid;
   if (!Number.isInteger(W) || W < 1 || !Number.isInteger(H) || H < 1 || !(cellSize > 0) || !Number.isFinite(cellSize)) {
     throw new TerrainInputError(

@@ -1,5 +1,6 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import type { TerrainCrs, TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import type { TerrainCrs } from '@/shared/terrain/grid-spec';
 
 /** Settings of {@link generateSyntheticTerrain}. */
 export interface SyntheticTerrainOptions {

@@ -1,5 +1,6 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import { bilinearSample } from '@/shared/terrain/bilinear-sample';
 
 /**
  * Ground elevation at a point of the terrain, by bilinear interpolation of the
@@ -35,27 +36,8 @@ export function elevationAt(terrain: TerrainRaster, x: number, y: number): numbe
       `Point (${x.toFixed(1)}, ${y.toFixed(1)}) is outside the terrain, which spans x ${xll} … ${xll + W * cellSize} and y ${yll} … ${yTop}.`,
     );
   }
-  const u = Math.min(W - 1, Math.max(0, (x - xll) / cellSize - 0.5));
-  const v = Math.min(H - 1, Math.max(0, (yTop - y) / cellSize - 0.5));
-  const c = Math.min(Math.floor(u), Math.max(0, W - 2));
-  const r = Math.min(Math.floor(v), Math.max(0, H - 2));
-  const fx = u - c;
-  const fy = v - r;
-  const c1 = Math.min(c + 1, W - 1);
-  const r1 = Math.min(r + 1, H - 1);
-  const marker = terrain.nodata;
-  let z = 0;
-  const nodes: readonly [number, number, number][] = [
-    [c, r, (1 - fx) * (1 - fy)],
-    [c1, r, fx * (1 - fy)],
-    [c, r1, (1 - fx) * fy],
-    [c1, r1, fx * fy],
-  ];
-  for (const [col, row, weight] of nodes) {
-    if (weight === 0) continue;
-    const value = terrain.heights[row * W + col] as number;
-    if (Number.isNaN(value) || value === marker) return null;
-    z += weight * value;
-  }
-  return z;
+  const u = (x - xll) / cellSize - 0.5;
+  const v = (yTop - y) / cellSize - 0.5;
+  const z = bilinearSample(terrain.heights, W, H, terrain.nodata, u, v);
+  return Number.isNaN(z) ? null : z;
 }

@@ -1,6 +1,8 @@
-import { DEFAULT_EARTH_RADIUS } from '@/shared/terrain/curvature-drop';
+// Over 300 lines: one exact profile on the bilinear surface; the grid-crossing walk and the horizon maxima share state.
+import { MEAN_EARTH_RADIUS_M } from '@/shared/physics/constants';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import { bilinearSample } from '@/shared/terrain/bilinear-sample';
 
 /** Default largest number of samples a profile returns. */
 export const DEFAULT_PROFILE_MAX_SAMPLES = 2001;
@@ -134,7 +136,7 @@ export function terrainProfile(terrain: TerrainRaster, input: TerrainProfileInpu
     if (!Number.isFinite(c.refractionCoefficient)) {
       throw new TerrainInputError('invalid-condition', `Refraction coefficient must be finite, got ${c.refractionCoefficient}.`);
     }
-    const R = c.earthRadius ?? DEFAULT_EARTH_RADIUS;
+    const R = c.earthRadius ?? MEAN_EARTH_RADIUS_M;
     if (!(R > 0) || !Number.isFinite(R)) {
       throw new TerrainInputError('invalid-condition', `Earth radius must be a positive number of metres, got ${R}.`);
     }
@@ -162,28 +164,7 @@ export function terrainProfile(terrain: TerrainRaster, input: TerrainProfileInpu
   const clampU = (u: number): number => (u < 0 ? 0 : u > W - 1 ? W - 1 : u);
   const clampV = (v: number): number => (v < 0 ? 0 : v > H - 1 ? H - 1 : v);
   /** Bilinear surface at grid position (u, v); NaN when a node it uses is nodata. */
-  const surface = (uRaw: number, vRaw: number): number => {
-    const u = clampU(uRaw);
-    const v = clampV(vRaw);
-    const c = Math.min(Math.floor(u), Math.max(0, W - 2));
-    const r = Math.min(Math.floor(v), Math.max(0, H - 2));
-    const fx = u - c;
-    const fy = v - r;
-    const c1 = Math.min(c + 1, W - 1);
-    const r1 = Math.min(r + 1, H - 1);
-    let z = 0;
-    const add = (col: number, row: number, w: number): boolean => {
-      if (w === 0) return true;
-      const value = heights[row * W + col] as number;
-      if (isNodata(value)) return false;
-      z += w * value;
-      return true;
-    };
-    if (!add(c, r, (1 - fx) * (1 - fy)) || !add(c1, r, fx * (1 - fy)) || !add(c, r1, (1 - fx) * fy) || !add(c1, r1, fx * fy)) {
-      return NaN;
-    }
-    return z;
-  };
+  const surface = (u: number, v: number): number => bilinearSample(heights, W, H, marker, u, v);
 
   const observerGround = surface(u0, v0);
   if (Number.isNaN(observerGround)) {
@@ -258,7 +239,7 @@ export function terrainProfile(terrain: TerrainRaster, input: TerrainProfileInpu
 
   const results: ProfileCondition[] = conditions.map((condition) => {
     const k = condition.refractionCoefficient;
-    const R = condition.earthRadius ?? DEFAULT_EARTH_RADIUS;
+    const R = condition.earthRadius ?? MEAN_EARTH_RADIUS_M;
     const a = (1 - k) / (2 * R); // drop per squared metre
     const dropAt = (t: number): number => a * D * D * t * t;
     const targetLowered = targetGround - dropAt(1);

@@ -1,45 +1,12 @@
+import type { GridSpec, TerrainCrs } from '@/shared/terrain/grid-spec';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 
 /**
- * Coordinate reference system of a raster, as far as Kenning needs it.
- * `epsg` is the EPSG code when known (e.g. 32633 for WGS 84 / UTM zone 33N);
- * `wkt` is the well-known text when the source supplied one (an ESRI `.prj`).
- */
-export interface TerrainCrs {
-  readonly epsg: number | null;
-  readonly wkt: string | null;
-}
-
-/**
- * Geometry shared by every Kenning raster.
- *
- * Orientation: cells are stored row-major; row 0 is the northernmost (top)
- * row, column 0 the westernmost. The value of cell (col, row) is at index
- * `row * width + col` and stands for the cell's centre, whose coordinates are
- * `x = xll + (col + 0.5) * cellSize`, `y = yll + (height - row - 0.5) * cellSize`.
- * Cells are square. Coordinates are projected metres (e.g. UTM).
- */
-export interface RasterGrid {
-  /** Number of columns (cells west → east). */
-  readonly width: number;
-  /** Number of rows (cells north → south). */
-  readonly height: number;
-  /** Side of a square cell, metres. */
-  readonly cellSize: number;
-  /** Easting of the lower-left (south-west) corner of the grid, metres (ESRI `xllcorner`). */
-  readonly xll: number;
-  /** Northing of the lower-left (south-west) corner of the grid, metres (ESRI `yllcorner`). */
-  readonly yll: number;
-  /** Coordinate reference system, or null when unknown. */
-  readonly crs: TerrainCrs | null;
-}
-
-/**
  * A digital elevation model: ground heights in metres above the vertical
- * datum, one per cell (see {@link RasterGrid} for orientation).
+ * datum, one per cell (see {@link GridSpec} for orientation).
  * A cell is nodata when its value is NaN or equals `nodata`.
  */
-export interface TerrainRaster extends RasterGrid {
+export interface TerrainRaster extends GridSpec {
   /** Ground heights, metres, `width * height` values, row 0 = north. */
   readonly heights: Float32Array;
   /** Marker value for cells without data, or null when only NaN marks them. */

@@ -1,6 +1,6 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { HiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /** Class codes stored in {@link VisibilityClassRaster.classes}. */
 export const VISIBILITY_CLASS = {
@@ -23,7 +23,7 @@ export const VISIBILITY_CLASS = {
 export type VisibilityClass = (typeof VISIBILITY_CLASS)[keyof typeof VISIBILITY_CLASS];
 
 /** Visibility classes for one post and one target height, same grid as the hidden heights. */
-export interface VisibilityClassRaster extends RasterGrid {
+export interface VisibilityClassRaster extends GridSpec {
   /** One {@link VISIBILITY_CLASS} code per cell, row 0 = north. */
   readonly classes: Uint8Array;
   /** Target height the classes were made for, metres above ground. */

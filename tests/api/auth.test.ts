@@ -2,7 +2,7 @@ import request from 'supertest';
 import type { Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import { UserModel } from '@/server/data/models';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import { createApp } from '@/server/app';
 import type { FileStore } from '@/server/storage/file-store';
 import { createTestApp, TEST_CONFIG } from '@/tests/support/test-db';

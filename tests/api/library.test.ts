@@ -1,6 +1,6 @@
 import type { Express } from 'express';
 import { AuditEventModel, TargetProfileModel } from '@/server/data/models';
-import { STARTER_CONDITION_SETS, STARTER_TARGETS } from '@/server/data/seeders/demo';
+import { STARTER_CONDITION_SETS, STARTER_TARGETS } from '@/server/seeders/demo';
 import { createTestApp } from '@/tests/support/test-db';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
 

@@ -9,7 +9,7 @@ import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
 import { createTerrainCache } from '@/server/terrain/terrain-cache';
 import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
 import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import { DEMO } from '@/tests/support/agents';
 
 let app: Express;

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { createApp } from '@/server/app';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import { createTestApp, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
 

@@ -1,7 +1,7 @@
 import type { Express } from 'express';
 import request from 'supertest';
 import { AuditEventModel, SweepWidthTableModel } from '@/server/data/models';
-import { EXAMPLE_SWEEP_WIDTH_TABLE } from '@/server/data/seeders/sweep-width-examples';
+import { EXAMPLE_SWEEP_WIDTH_TABLE } from '@/server/seeders/sweep-width-examples';
 import { SweepWidthResultSchema, SweepWidthTableListSchema } from '@/shared/schemas/sweep-width';
 import { createTestApp } from '@/tests/support/test-db';
 import { DEMO, signedInAgent } from '@/tests/support/agents';

@@ -17,7 +17,7 @@ import { terrainProfile } from '@/shared/terrain/terrain-profile';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 import { createApp } from '@/server/app';
 import { AuditEventModel, SiteTerrainModel } from '@/server/data/models';
-import { DEMO_SITES, DEMO_TERRAIN_FILE } from '@/server/data/seeders/demo';
+import { DEMO_SITES, DEMO_TERRAIN_FILE } from '@/server/seeders/demo';
 import type { FileStore } from '@/server/storage/file-store';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
 import { createTestApp, TEST_CONFIG } from '@/tests/support/test-db';

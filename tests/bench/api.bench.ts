@@ -9,7 +9,7 @@ import express from 'express';
 import request from 'supertest';
 import { createApp } from '@/server/app';
 import { createDatabase } from '@/server/data/database';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import { scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 
 const BODY = JSON.stringify({

@@ -10,7 +10,7 @@ import request from 'supertest';
 import { createApp } from '@/server/app';
 import { createDatabase } from '@/server/data/database';
 import { OrganizationModel, PostModel, SiteModel } from '@/server/data/models';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import { scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 
 const POSTS = 1000;

@@ -24,7 +24,7 @@ import { gzipSync } from 'node:zlib';
 import type { Browser, Page } from 'playwright-core';
 import { createApp } from '@/server/app';
 import { createDatabase } from '@/server/data/database';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import { launchBrowser, newPage } from '@/tests/support/browser';
 import { scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 

@@ -3,7 +3,7 @@ import type { Browser } from 'playwright-core';
 import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 
 // "Sign out everywhere" on the account page ends the person's session in another
 // browser too. A person of its own (invited here), so the demo accounts other

@@ -6,7 +6,7 @@ import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import { elevationAt } from '@/shared/terrain/terrain-elevation';
-import { DEMO_TERRAIN_FILE } from '@/server/data/seeders/demo';
+import { DEMO_TERRAIN_FILE } from '@/server/seeders/demo';
 import { DEMO } from '@/tests/support/agents';
 import { launchBrowser, newPage, SCREENSHOT_DIR, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';

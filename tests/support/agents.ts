@@ -1,6 +1,6 @@
 import request from 'supertest';
 import type { Express } from 'express';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 
 /** A supertest agent that keeps cookies, signed in as `email`. */
 export async function signedInAgent(app: Express, email: string) {

@@ -1,7 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import { SCREENSHOT_DIR, type ViewportName } from './browser';
 
 /** The server `npm test` started, serving the built web app against a seeded database. */

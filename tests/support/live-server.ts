@@ -1,6 +1,6 @@
 import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
-import { DEMO_PASSWORD } from '@/server/data/seeders/demo';
+import { DEMO_PASSWORD } from '@/server/seeders/demo';
 
 export interface LiveResponse {
   status: number;

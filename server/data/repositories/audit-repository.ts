@@ -1,7 +1,6 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { auditChanges } from '@/shared/audit/audit-changes';
 import type { AuditEvent, AuditEventQuery } from '@/shared/schemas/audit';
-import type { Actor } from '@/server/domain/actor';
 import { AuditEventModel, UserModel } from '../models';
 
 /** The record's name or title as recorded, if it had one. */
@@ -26,7 +25,7 @@ export interface AuditEntry {
 
 export const auditRepository = {
   /** Records one write inside the caller's transaction, so it lands or fails with it. */
-  async record(actor: Actor, entry: AuditEntry, transaction: Transaction): Promise<void> {
+  async record(actor: { userId: string; organizationId: string }, entry: AuditEntry, transaction: Transaction): Promise<void> {
     await AuditEventModel.create(
       {
         organizationId: actor.organizationId,

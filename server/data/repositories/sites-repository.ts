@@ -36,6 +36,11 @@ async function replaceZones(siteId: string, zones: SiteInput['priorityZones'], t
 }
 
 export const sitesRepository = {
+  /** Locks the site's row until the transaction ends (one terrain upload at a time per site). */
+  async lockForUpdate(organizationId: string, id: string, transaction: Transaction): Promise<void> {
+    await SiteModel.findOne({ where: { id, organizationId }, attributes: ['id'], lock: transaction.LOCK.UPDATE, transaction });
+  },
+
   async pageInOrganization(
     organizationId: string,
     page: number,

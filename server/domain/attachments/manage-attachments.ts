@@ -1,6 +1,6 @@
 import { readFile } from 'node:fs/promises';
 import type { Readable } from 'node:stream';
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import {
   ACCEPTS,
   ALLOWED_CONTENT_TYPES,
@@ -15,16 +15,18 @@ import {
 } from '@/shared/schemas/attachment';
 import { attachmentsRepository, type StoredAttachment } from '@/server/data/repositories/attachments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
-import { AppError } from '@/server/http/app-error';
-import type { FileStore } from '@/server/storage/file-store';
+import { AppError } from '@/server/domain/app-error';
+import type { FileStore } from '@/server/domain/ports/file-store';
 import type { Actor } from '../actor';
 import { checkImage, ImageCheckError, type ImageContentType } from './check-image';
 import { cleanFileName } from './clean-file-name';
 import { sniffContentType } from './sniff-content-type';
 import { typeOfExtension } from './type-of-extension';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
+import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 
-export interface AttachmentDeps {
-  db: Sequelize;
+export interface AttachmentDeps extends UseCaseDeps {
   files: FileStore;
 }
 
@@ -35,7 +37,7 @@ export interface ReceivedFile {
   size: number;
 }
 
-const STALE = 'Someone else changed this attachment since you opened it. Reload to see their change, then try again.';
+const STALE = staleMessage('this attachment');
 const OWNER: Record<AttachmentOwnerType, string> = { post: 'That post', site: 'That site', plan: 'That plan' };
 const KIND: Record<AttachmentKind, string> = { photo: 'Photos', document: 'Documents' };
 const TYPE_NAME: Record<string, string> = {
@@ -76,7 +78,7 @@ async function requireReadableOwner(actor: Actor, ownerType: AttachmentOwnerType
 async function requireWritableOwner(actor: Actor, ownerType: AttachmentOwnerType, ownerId: string, t?: Transaction) {
   const owner = await attachmentsRepository.findOwner(actor.organizationId, ownerType, ownerId, t);
   if (!owner) throw AppError.notFound(OWNER[ownerType]);
-  if (ownerType === 'plan' && owner.planStatus !== 'draft' && owner.planStatus !== 'returned') {
+  if (ownerType === 'plan' && !(owner.planStatus && isEditablePlanStatus(owner.planStatus))) {
     throw AppError.conflict(
       `The files of a ${owner.planStatus} plan are part of its record and cannot change. Start a new version to change them.`,
       'plan_frozen',
@@ -197,10 +199,9 @@ export function updateAttachment({ db }: AttachmentDeps, actor: Actor, id: strin
     if (changes.bearingDeg != null && before.kind !== 'photo') {
       throw AppError.badRequest('The attachment has invalid fields.', { bearingDeg: 'Only photos have a bearing.' });
     }
-    const after = await attachmentsRepository.updateIfVersion(actor.organizationId, id, version, changes, t);
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'attachment', entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { entityType: 'attachment', entityId: id, before, stale: STALE }, () =>
+      attachmentsRepository.updateIfVersion(actor.organizationId, id, version, changes, t),
+    );
   });
 }
 

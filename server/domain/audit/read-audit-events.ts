@@ -1,6 +1,6 @@
 import type { AuditEventQuery } from '@/shared/schemas/audit';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 
 /**

@@ -1,3 +1,4 @@
+import type { User } from '@/shared/schemas/auth';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 
 /** What a session cookie says about its session. */
@@ -30,4 +31,17 @@ export async function endAllSessions(cookie: SessionCookie): Promise<void> {
   if (!cookie.userId) return;
   const user = await usersRepository.activeById(cookie.userId, cookie.nonce);
   if (user && sessionIsLive(user, cookie)) await usersRepository.endSessions(cookie.userId);
+}
+
+/**
+ * The signed-in user a session cookie stands for, or null when the session has
+ * ended (signed out, signed out everywhere, new password or role, deactivated).
+ * The session middleware asks this on every request.
+ */
+export async function liveSessionUser(cookie: SessionCookie): Promise<User | null> {
+  if (!cookie.userId) return null;
+  const found = await usersRepository.activeById(cookie.userId, cookie.nonce);
+  if (!found || !sessionIsLive(found, cookie)) return null;
+  const { sessionGeneration: _generation, sessionEnded: _ended, ...user } = found;
+  return user;
 }

@@ -5,7 +5,7 @@ import {
   type RateLimiterAbstract,
 } from 'rate-limiter-flexible';
 import type { Sequelize } from 'sequelize';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 
 export interface SignInLimits {
   /** Failed sign-ins from one address before delays begin. */

@@ -1,6 +1,6 @@
 import type { SignInRequest, User } from '@/shared/schemas/auth';
 import { usersRepository } from '@/server/data/repositories/users-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import { verifyPassword } from './passwords';
 import type { SignInLimiter } from './sign-in-limiter';
 

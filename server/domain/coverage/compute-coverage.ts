@@ -6,16 +6,16 @@ import { gridConvergence } from '@/shared/terrain/grid-convergence';
 import { gridProjection, type GridProjection } from '@/shared/terrain/grid-projection';
 import type { HiddenHeightRaster, LookoutPost, SightConditions } from '@/shared/terrain/hidden-height-raster';
 import { locatePostCell } from '@/shared/terrain/locate-post-cell';
-import { evaluateNetworkCoverage, type LimitShares, type NetworkPost } from '@/shared/terrain/network-coverage';
-import { countPostsPerCell } from '@/shared/terrain/posts-per-cell';
+import { evaluateNetworkCoverage, type NetworkPost } from '@/shared/terrain/network-coverage';
 import { rasterizePolygon, type PolygonRing } from '@/shared/terrain/rasterize-polygon';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { createTerrainRaster, type TerrainRaster } from '@/shared/terrain/terrain-raster';
-import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 import { rangeLimitsOf } from '@/shared/sightline/detection-inputs';
 import type { DetectionRange } from '@/shared/sightline/detection-range';
-import type { CoverageRunGrid } from '@/server/data/models/coverage-run';
+import type { CoverageGrid as CoverageRunGrid } from '@/shared/schemas/coverage';
+import { coverageCaseOf, postSeenShares } from './coverage-case';
 import { caseKeyOf, type CoverageRunInputs } from './coverage-inputs';
+import { gridSpecFromM, gridSpecToM } from '@/shared/terrain/grid-spec';
 
 /** One viewshed the run needs: a post under one condition. */
 export interface CoverageViewshedJob {
@@ -57,33 +57,8 @@ export interface ComputedCoverage {
 export function flatTerrain(grid: CoverageRunGrid): TerrainRaster {
   return createTerrainRaster({
     heights: new Float32Array(grid.width * grid.height),
-    width: grid.width,
-    height: grid.height,
-    cellSize: grid.cellSizeM,
-    xll: grid.xllM,
-    yll: grid.yllM,
-    crs: { epsg: grid.epsg, wkt: null },
+    ...gridSpecFromM(grid, { epsg: grid.epsg, wkt: null }),
   });
-}
-
-const SEEN = VISIBILITY_CLASS.seen;
-const TARGET_ONLY = VISIBILITY_CLASS.targetOnly;
-
-
-/**
- * Site cells where a post sees the target: from its posts-per-cell counts
- * (`kind` 1: count > 0) or straight from its visibility classes (`kind` 0:
- * seen or target only). A plain loop: this runs on every cell for every post
- * and case.
- */
-function countSeen(values: Uint8Array, kind: 0 | 1, siteMask: Uint8Array | null): number {
-  let seen = 0;
-  for (let j = 0; j < values.length; j++) {
-    const v = values[j]!;
-    const sees = kind === 1 ? v > 0 : v === SEEN || v === TARGET_ONLY;
-    if (sees && (siteMask === null || siteMask[j] === 1)) seen++;
-  }
-  return seen;
 }
 
 /** A WGS84 ring (`[lon, lat]` pairs, as sites store them) in a grid's projected metres. */
@@ -148,34 +123,7 @@ function intersect(mask: Uint8Array | null, other: Uint8Array): Uint8Array {
   return out;
 }
 
-/**
- * What limits detection in one case: the target's range limit (visibility,
- * angular size, luminous range or wave screen) and which limit decided most
- * of the undetected area — the view (terrain, horizon, sectors) or that range.
- */
-function detectionOfCase(detection: DetectionRange, limits: LimitShares, seaOnly: boolean): CoverageCase['detection'] {
-  const rangeLimitedBy = detection.rangeLimit.limitedBy;
-  const { viewCells, rangeCells, cellArea } = limits;
-  const decidedBy =
-    viewCells + rangeCells === 0 ? null : rangeLimitedBy !== null && rangeCells > viewCells ? rangeLimitedBy : 'view';
-  return {
-    rangeLimitM: detection.rangeLimit.rangeM,
-    rangeLimitedBy,
-    waveScreenM: detection.limits.waveScreenM,
-    reason: detection.reason === 'screened-by-waves' || detection.reason === 'unlit-at-night' ? detection.reason : null,
-    decidedBy,
-    areaM2: {
-      detected: limits.detectedCells * cellArea,
-      noData: limits.noDataCells * cellArea,
-      view: viewCells * cellArea,
-      range: rangeCells * cellArea,
-    },
-    seaOnly,
-  };
-}
-
 const sha256 = (encoded: EncodedClassRaster) => createHash('sha256').update(encoded.data).digest('hex');
-const round = (value: number, digits: number) => Math.round(value * 10 ** digits) / 10 ** digits;
 const DEG = Math.PI / 180;
 
 /**
@@ -207,6 +155,62 @@ export async function computeCoverage(
   report: ReportProgress,
 ): Promise<ComputedCoverage> {
   const projection = gridProjection(terrain.crs);
+  const areas = coverageAreas(inputs, terrain, projection);
+  const posts = placePosts(inputs, terrain, projection);
+  const grid: CoverageRunGrid = { ...gridSpecToM(terrain), epsg: terrain.crs?.epsg ?? null };
+  const progress = { done: 0, total: posts.length * inputs.conditions.length };
+  const cases: CoverageCase[] = [];
+  const layers: ComputedLayer[] = [];
+  const addLayer = (caseKey: string, layer: CoverageLayerName, postId: string, values: Uint8Array) => {
+    const encoded = encodeClassRaster(terrain, values);
+    layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
+  };
+
+  for (const condition of inputs.conditions) {
+    await report((0.9 * progress.done) / progress.total, `Viewsheds: ${condition.conditionSetName}, ${condition.label}`);
+    const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
+    const maxDistance = viewshedRange(detections, terrain.cellSize);
+    const conditions: SightConditions = {
+      refractionCoefficient: condition.k,
+      earthRadius: inputs.earthRadiusM,
+      ...(maxDistance !== null && { maxDistance }),
+    };
+    const network = await networkOf(posts, terrain, conditions, computeViewsheds, report, progress);
+    inputs.targets.forEach((target, t) => {
+      const detection = detections[t]!;
+      const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex);
+      const seaOnly = target.onWater && areas.sea !== null;
+      const area = seaOnly ? areas.sea! : areas.land;
+      const coverage = evaluateNetworkCoverage({
+        posts: network,
+        targetHeight: target.countsFromM,
+        siteMask: area.siteMask,
+        zones: area.zones,
+        standard: standardFor(inputs.standard, target),
+        blindAreaMinArea: inputs.blindAreaMinAreaM2,
+        maxBlindAreas: 20,
+        rangeLimit: detection.rangeLimit.rangeM,
+      });
+      addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
+      addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
+      coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', posts[i]!.input.id, classes));
+      const perPost = postSeenShares(terrain, network, coverage.postClasses, area.siteMask, posts.map((p) => p.input));
+      cases.push(
+        coverageCaseOf({ key, target, condition, coverage, perPost, detection, seaOnly, projection, detectionModel: inputs.detectionModel }),
+      );
+    });
+  }
+  // Target × condition order, as the plan lists them.
+  const order = (k: CoverageCase) =>
+    inputs.targets.findIndex((t) => t.id === k.targetId) * inputs.conditions.length +
+    inputs.conditions.findIndex((c) => c.conditionSetId === k.conditionSetId && c.conditionIndex === k.conditionIndex);
+  cases.sort((a, b) => order(a) - order(b));
+  await report(0.99, 'Saving the layers');
+  return { grid, cases, layers };
+}
+
+/** The site, its zones and (for targets on water) their sea parts as masks on the terrain grid. */
+function coverageAreas(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
   const toRing = (ring: [number, number][]) => ringOnGrid(projection, ring);
   const siteMask = inputs.site.boundary ? rasterizePolygon(terrain, [toRing(inputs.site.boundary)]) : null;
   const zones = inputs.site.zones.map((z) => ({
@@ -216,14 +220,16 @@ export async function computeCoverage(
   }));
   const seaMask = seaMaskOf(inputs, terrain, toRing);
   const onSea = (mask: Uint8Array | null) => (seaMask === null ? mask : intersect(mask, seaMask));
-  const areas = {
+  return {
     land: { siteMask, zones },
     sea: seaMask && { siteMask: onSea(siteMask), zones: zones.map((z) => ({ ...z, mask: onSea(z.mask)! })) },
   };
-  const countCells = (mask: Uint8Array | null) => (mask ? mask.reduce((n, v) => n + v, 0) : terrain.width * terrain.height);
+}
 
+/** Each post's cell, eye height, sector (radians) and grid convergence; a post off the grid is refused by name. */
+function placePosts(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
   const flat = inputs.terrain === null;
-  const posts = inputs.posts.map((p) => {
+  return inputs.posts.map((p) => {
     const { x, y } = projection.toGrid({ latDeg: p.latDeg, lonDeg: p.lonDeg });
     let cell;
     try {
@@ -240,140 +246,38 @@ export async function computeCoverage(
       gridConvergence: gridConvergence(projection, { latDeg: p.latDeg, lonDeg: p.lonDeg }),
     };
   });
+}
 
-  const grid: CoverageRunGrid = {
-    width: terrain.width,
-    height: terrain.height,
-    cellSizeM: terrain.cellSize,
-    xllM: terrain.xll,
-    yllM: terrain.yll,
-    epsg: terrain.crs?.epsg ?? null,
-  };
-  const totalJobs = posts.length * inputs.conditions.length;
-  let doneJobs = 0;
-  const cases: CoverageCase[] = [];
-  const layers: ComputedLayer[] = [];
-  const addLayer = (caseKey: string, layer: CoverageLayerName, postId: string, values: Uint8Array) => {
-    const encoded = encodeClassRaster(terrain, values);
-    layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
-  };
-
-  for (const condition of inputs.conditions) {
-    await report((0.9 * doneJobs) / totalJobs, `Viewsheds: ${condition.conditionSetName}, ${condition.label}`);
-    const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
-    const maxDistance = viewshedRange(detections, terrain.cellSize);
-    const conditions: SightConditions = {
-      refractionCoefficient: condition.k,
-      earthRadius: inputs.earthRadiusM,
-      ...(maxDistance !== null && { maxDistance }),
-    };
-    // Reports made as viewsheds finish; the first one that throws (a cancel) stops the run after the batch.
-    const pending: Promise<void>[] = [];
-    let stopped: { reason: unknown } | null = null;
-    const rasters = await computeViewsheds(
-      terrain,
-      posts.map((p) => ({ post: p.post, conditions })),
-      () => {
-        doneJobs += 1;
-        pending.push(
-          report((0.9 * doneJobs) / totalJobs, `Viewsheds: ${doneJobs} of ${totalJobs}`).catch((reason: unknown) => {
+/**
+ * Every post's viewshed under one condition, as the network the coverage core
+ * evaluates. Progress is reported as viewsheds finish; the first report that
+ * throws (a cancel) stops the run after the batch.
+ */
+async function networkOf(
+  posts: ReturnType<typeof placePosts>,
+  terrain: TerrainRaster,
+  conditions: SightConditions,
+  computeViewsheds: ComputeViewsheds,
+  report: ReportProgress,
+  progress: { done: number; total: number },
+): Promise<NetworkPost[]> {
+  const pending: Promise<void>[] = [];
+  let stopped: { reason: unknown } | null = null;
+  const rasters = await computeViewsheds(
+    terrain,
+    posts.map((p) => ({ post: p.post, conditions })),
+    () => {
+      progress.done += 1;
+      pending.push(
+        report((0.9 * progress.done) / progress.total, `Viewsheds: ${progress.done} of ${progress.total}`).catch(
+          (reason: unknown) => {
             stopped ??= { reason };
-          }),
-        );
-      },
-    );
-    await Promise.all(pending);
-    if (stopped) throw (stopped as { reason: unknown }).reason;
-    const network: NetworkPost[] = posts.map((p, i) => ({
-      post: p.post,
-      hidden: rasters[i]!,
-      sector: p.sector,
-      gridConvergence: p.gridConvergence,
-    }));
-    inputs.targets.forEach((target, t) => {
-      const detection = detections[t]!;
-      const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex);
-      const area = target.onWater && areas.sea ? areas.sea : areas.land;
-      const coverage = evaluateNetworkCoverage({
-        posts: network,
-        targetHeight: target.countsFromM,
-        siteMask: area.siteMask,
-        zones: area.zones,
-        standard: standardFor(inputs.standard, target),
-        blindAreaMinArea: inputs.blindAreaMinAreaM2,
-        maxBlindAreas: 20,
-        rangeLimit: detection.rangeLimit.rangeM,
-      });
-      addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
-      addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
-      const siteCells = countCells(area.siteMask);
-      const perPost = network.map((entry, i) => {
-        const classes = coverage.postClasses[i]!;
-        addLayer(key, 'post-visibility', posts[i]!.input.id, classes);
-        // Cells where the post sees the target: its classes, and its sector when it has one.
-        const seen = entry.sector
-          ? countSeen(
-              countPostsPerCell(terrain, [
-                {
-                  col: entry.post.col,
-                  row: entry.post.row,
-                  classes,
-                  sector: entry.sector,
-                  gridConvergence: entry.gridConvergence,
-                  maxDistance: entry.hidden.maxDistance,
-                },
-              ]).counts,
-              1,
-              area.siteMask,
-            )
-          : countSeen(classes, 0, area.siteMask);
-        return {
-          postId: posts[i]!.input.id,
-          postName: posts[i]!.input.name,
-          seenPct: siteCells ? round((100 * seen) / siteCells, 2) : 0,
-        };
-      });
-      const { statistics, check } = coverage;
-      cases.push({
-        key,
-        targetId: target.id,
-        targetName: target.name,
-        targetHeightM: target.heightM,
-        conditionSetId: condition.conditionSetId,
-        conditionSetName: condition.conditionSetName,
-        conditionIndex: condition.conditionIndex,
-        conditionLabel: condition.label,
-        refractionCoefficient: condition.k,
-        site: statistics.site,
-        zones: statistics.zones.map((z) => ({ ...z })),
-        blindAreas: statistics.blindAreas.map((b) => ({
-          cells: b.cells,
-          area: b.area,
-          centroid: { x: b.centroid.x, y: b.centroid.y, ...projection.toLatLon(b.centroid.x, b.centroid.y) },
-          interior: { x: b.interior.x, y: b.interior.y, ...projection.toLatLon(b.interior.x, b.interior.y) },
-        })),
-        blindSummary: {
-          count: statistics.blindSummary.count,
-          area: statistics.blindSummary.area,
-          minArea: statistics.blindSummary.minArea,
-        },
-        check: {
-          interpretation: check.interpretation,
-          passed: check.passed,
-          rules: check.rules.map((r) => ({ ...r, reasons: [...r.reasons] })),
-          reasons: [...check.reasons],
-        },
-        posts: perPost,
-        detection: detectionOfCase(detection, coverage.limits, target.onWater && areas.sea !== null),
-        detectionModel: inputs.detectionModel,
-      });
-    });
-  }
-  // Target × condition order, as the plan lists them.
-  const order = (k: CoverageCase) =>
-    inputs.targets.findIndex((t) => t.id === k.targetId) * inputs.conditions.length +
-    inputs.conditions.findIndex((c) => c.conditionSetId === k.conditionSetId && c.conditionIndex === k.conditionIndex);
-  cases.sort((a, b) => order(a) - order(b));
-  await report(0.99, 'Saving the layers');
-  return { grid, cases, layers };
+          },
+        ),
+      );
+    },
+  );
+  await Promise.all(pending);
+  if (stopped) throw (stopped as { reason: unknown }).reason;
+  return posts.map((p, i) => ({ post: p.post, hidden: rasters[i]!, sector: p.sector, gridConvergence: p.gridConvergence }));
 }

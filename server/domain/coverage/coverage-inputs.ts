@@ -11,7 +11,7 @@ import { refractionFromCondition } from '@/shared/sightline/refraction-from-cond
 import { REFRACTION_PRESETS } from '@/shared/sightline/refraction-presets';
 import { utmZoneFor } from '@/shared/geo/utm-zone-for';
 import { gridProjection } from '@/shared/terrain/grid-projection';
-import type { CoverageRunGrid } from '@/server/data/models/coverage-run';
+import type { CoverageGrid as CoverageRunGrid } from '@/shared/schemas/coverage';
 
 /** Longest side of the flat datum's grid, cells: fine enough for a coast stretch, quick to compute. */
 export const FLAT_GRID_MAX_EDGE = 800;

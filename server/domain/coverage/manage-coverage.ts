@@ -1,4 +1,4 @@
-import { UniqueConstraintError, type Sequelize } from 'sequelize';
+import { UniqueConstraintError } from 'sequelize';
 import type { CoverageComparison, CoverageLayerName, CoverageRun, PlanCoverage } from '@/shared/schemas/coverage';
 import { ACTIVE_RUN_STATUSES } from '@/shared/schemas/coverage';
 import { compareCoverage } from '@/shared/terrain/coverage-difference';
@@ -7,21 +7,22 @@ import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { COVERAGE_LAYER, type PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';
 import { rasterizePolygon } from '@/shared/terrain/rasterize-polygon';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import { gridSpecFromM, type GridSpec } from '@/shared/terrain/grid-spec';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { coverageRepository, type CoverageRunRecord } from '@/server/data/repositories/coverage-repository';
 import { plansRepository } from '@/server/data/repositories/plans-repository';
-import { AppError } from '@/server/http/app-error';
-import type { CoverageQueue } from '@/server/queue/coverage-queue';
+import { AppError } from '@/server/domain/app-error';
+import type { CoverageQueue } from '@/server/domain/ports/coverage-queue';
 import type { Actor } from '../actor';
-import { EDITABLE, getPlan, loadPlanInputs } from '../plans/manage-plans';
+import { getPlan, loadPlanInputs } from '../plans/manage-plans';
 import { ringOnGrid } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
 import { currentCoverageInputs } from './coverage-snapshot';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 
 /** What the coverage use cases need. */
-export interface CoverageDeps {
-  db: Sequelize;
+export interface CoverageDeps extends UseCaseDeps {
   /** The job queue; null when this server runs without one (runs cannot be started). */
   queue: CoverageQueue | null;
 }
@@ -93,7 +94,7 @@ export async function requestCoverage(
   planId: string,
 ): Promise<{ run: CoverageRun; created: boolean }> {
   const { plan, inputs, inputsHash } = await planInputsHash(actor, planId);
-  if (!EDITABLE.includes(plan.status)) {
+  if (!isEditablePlanStatus(plan.status)) {
     throw AppError.conflict(
       `A ${plan.status} plan keeps the coverage frozen with its revision. Start a new version to compute again.`,
       'plan_frozen',
@@ -168,7 +169,7 @@ export async function getCoverageRun(actor: Actor, runId: string): Promise<Cover
   // Whether it is current only matters while the plan can change.
   const plan = await plansRepository.find(actor.organizationId, run.planId);
   const currentHash =
-    plan && EDITABLE.includes(plan.status) ? (await planInputsHash(actor, run.planId)).inputsHash : run.inputsHash;
+    plan && isEditablePlanStatus(plan.status) ? (await planInputsHash(actor, run.planId)).inputsHash : run.inputsHash;
   return toCoverageRun(run, currentHash);
 }
 
@@ -218,13 +219,10 @@ export async function coverageLayer(
   return encoded;
 }
 
-const gridOf = (run: CoverageRunRecord): RasterGrid => {
-  const g = run.grid!;
-  return { width: g.width, height: g.height, cellSize: g.cellSizeM, xll: g.xllM, yll: g.yllM, crs: { epsg: g.epsg, wkt: null } };
-};
+const gridOf = (run: CoverageRunRecord): GridSpec => gridSpecFromM(run.grid!, { epsg: run.grid!.epsg, wkt: null });
 
 /** Posts per cell back from the stored layer codes (3 stands for three or more). */
-function postsPerCellOf(grid: RasterGrid, codes: Uint8Array): PostsPerCellRaster {
+function postsPerCellOf(grid: GridSpec, codes: Uint8Array): PostsPerCellRaster {
   const counts = new Uint8Array(codes.length);
   const noData = new Uint8Array(codes.length);
   for (let i = 0; i < codes.length; i++) {

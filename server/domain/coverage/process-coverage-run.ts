@@ -1,15 +1,14 @@
-import type { Sequelize } from 'sequelize';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { coverageRepository } from '@/server/data/repositories/coverage-repository';
 import { terrainRepository } from '@/server/data/repositories/terrain-repository';
-import type { TerrainCache } from '@/server/terrain/terrain-cache';
-import type { ViewshedPool } from '@/server/workers/viewshed-pool';
+import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
+import type { ViewshedPool } from '@/server/domain/ports/viewshed-pool';
 import { computeCoverage, flatTerrain, type ComputeViewsheds } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
 /** What a worker needs to compute runs. */
-export interface CoverageWorkerDeps {
-  db: Sequelize;
+export interface CoverageWorkerDeps extends UseCaseDeps {
   cache: TerrainCache;
   computeViewsheds: ComputeViewsheds;
   /** Least time between progress writes, ms; default 400. */

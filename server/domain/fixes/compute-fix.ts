@@ -2,7 +2,7 @@ import { evaluateFix, FixError, type ResolvedFixBearing } from '@/shared/fixes';
 import type { FixRequest, FixResult } from '@/shared/schemas/fix';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import type { Actor } from '@/server/domain/actor';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 
 /**
  * A fix from bearings, stored nowhere: each `postId` is looked up in the

@@ -1,16 +1,21 @@
-import type { Sequelize } from 'sequelize';
-import type { LibraryListQuery } from '@/shared/schemas/library';
+import type { ConditionSet, ConditionSetInput, LibraryListQuery, Target, TargetInput } from '@/shared/schemas/library';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
-import type { LibraryRepository } from '@/server/data/repositories/library-repository';
-import { AppError } from '@/server/http/app-error';
+import {
+  conditionSetsRepository,
+  targetsRepository,
+  type LibraryRepository,
+} from '@/server/data/repositories/library-repository';
+import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { writeVersioned } from '@/server/domain/audit/versioned-write';
 
 /**
  * Create, edit and remove entries of an organisation library (targets, condition sets):
  * one transaction per write, optimistic versions, an audit event each.
  */
 export function libraryUseCases<Dto extends { id: string }, Input extends object>(
-  db: Sequelize,
+  { db }: UseCaseDeps,
   repo: LibraryRepository<Dto, Input>,
   entityType: string,
   what: string,
@@ -31,14 +36,9 @@ export function libraryUseCases<Dto extends { id: string }, Input extends object
         if (!before) throw AppError.notFound(what);
         const { version, ...changes } = input;
         check({ ...(before as unknown as Input), ...(changes as Partial<Input>) });
-        const after = await repo.updateIfVersion(actor.organizationId, id, version, changes as Partial<Input>, t);
-        if (!after)
-          throw AppError.conflict(
-            'Someone else changed this since you opened it. Reload to see their change, then try again.',
-            'stale_version',
-          );
-        await auditRepository.record(actor, { action: 'update', entityType, entityId: id, before, after }, t);
-        return after;
+        return writeVersioned(actor, t, { entityType, entityId: id, before }, () =>
+          repo.updateIfVersion(actor.organizationId, id, version, changes as Partial<Input>, t),
+        );
       }),
     remove: (actor: Actor, id: string) =>
       db.transaction(async (t) => {
@@ -49,3 +49,19 @@ export function libraryUseCases<Dto extends { id: string }, Input extends object
       }),
   };
 }
+
+const checkTarget = (t: TargetInput) => {
+  if (t.requiredVisibleM > t.heightM) {
+    throw AppError.badRequest('The target has invalid fields.', {
+      requiredVisibleM: 'The part that must show cannot exceed the height.',
+    });
+  }
+};
+
+/** The organisation's target profiles. */
+export const targetUseCases = (deps: UseCaseDeps) =>
+  libraryUseCases<Target, TargetInput>(deps, targetsRepository, 'target', 'That target', checkTarget);
+
+/** The organisation's condition sets. */
+export const conditionSetUseCases = (deps: UseCaseDeps) =>
+  libraryUseCases<ConditionSet, ConditionSetInput>(deps, conditionSetsRepository, 'condition-set', 'That condition set');

@@ -1,4 +1,5 @@
-import type { Sequelize, Transaction } from 'sequelize';
+// Over 300 lines: one plan life cycle (draft, edit, submit, review, new version) whose steps share guards, snapshot and mail.
+import type { Transaction } from 'sequelize';
 import type { Plan, PlanInput, PlanListQuery, PlanSnapshot, PlanStatus } from '@/shared/schemas/plan';
 import { attachmentsRepository } from '@/server/data/repositories/attachments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
@@ -6,21 +7,22 @@ import { conditionSetsRepository, targetsRepository } from '@/server/data/reposi
 import { plansRepository } from '@/server/data/repositories/plans-repository';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
-import { AppError } from '@/server/http/app-error';
-import type { Mailer } from '@/server/mail/mailer';
+import { AppError } from '@/server/domain/app-error';
+import type { Mailer } from '@/server/domain/ports/mailer';
 import { planSubmitted, reviewDecided } from '@/server/mail/templates';
 import type { Actor } from '../actor';
 import { coverageForSubmit } from '../coverage/coverage-snapshot';
 import { standardVerdict, type StandardVerdict } from '@/shared/plans/standard-verdict';
 import { buildSnapshot, contentHash } from './build-snapshot';
 import { verifiedRevision } from './verify-revision';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
+import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 
 /** Statuses in which a plan (and its coverage) may still change. */
-export const EDITABLE: PlanStatus[] = ['draft', 'returned'];
-const STALE = 'Someone else changed this plan since you opened it. Reload to see their change, then try again.';
+const STALE = staleMessage('this plan');
 
-export interface PlanDeps {
-  db: Sequelize;
+export interface PlanDeps extends UseCaseDeps {
   mailer: Mailer | null;
   /** Absolute URL of a plan's page, for e-mails. */
   planUrl: (planId: string) => string;
@@ -115,7 +117,7 @@ export function updatePlan(
   return db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That plan');
-    if (!EDITABLE.includes(before.status)) {
+    if (!isEditablePlanStatus(before.status)) {
       throw AppError.conflict(
         `A ${before.status} plan cannot be edited. Start a new version to change an approved plan.`,
         'plan_frozen',
@@ -123,10 +125,9 @@ export function updatePlan(
     }
     const { rowVersion, ...changes } = input;
     await loadPlanInputs(actor, { ...before, ...changes }, t);
-    const after = await plansRepository.updateIfRowVersion(actor.organizationId, id, rowVersion, changes, t);
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'plan', entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { entityType: 'plan', entityId: id, before, stale: STALE }, () =>
+      plansRepository.updateIfRowVersion(actor.organizationId, id, rowVersion, changes, t),
+    );
   });
 }
 
@@ -169,7 +170,7 @@ export async function submitPlan(
   const { plan, revision, siteName, verdict } = await deps.db.transaction(async (t) => {
     const before = await plansRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That plan');
-    if (!EDITABLE.includes(before.status))
+    if (!isEditablePlanStatus(before.status))
       throw AppError.conflict(`A ${before.status} plan cannot be submitted.`, 'wrong_status');
     if (before.rowVersion !== rowVersion) throw AppError.conflict(STALE, 'stale_version');
     const inputs = await loadPlanInputs(actor, before, t);

@@ -1,5 +1,5 @@
 import type { PlanSnapshot } from '@/shared/schemas/plan';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import { contentHash } from './build-snapshot';
 
 /**

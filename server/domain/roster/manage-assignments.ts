@@ -1,4 +1,4 @@
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import { z } from 'zod';
 import type {
   Assignment,
@@ -11,7 +11,7 @@ import type {
 import type { PlanResultRow, PlanSnapshot } from '@/shared/schemas/plan';
 import { LatLonSchema } from '@/shared/schemas/coordinate';
 import type { Post } from '@/shared/schemas/site';
-import type { TerrainCrs } from '@/shared/terrain/terrain-raster';
+import type { TerrainCrs } from '@/shared/terrain/grid-spec';
 import { findWatchGaps } from '@/shared/roster/find-watch-gaps';
 import { assignmentsRepository } from '@/server/data/repositories/assignments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
@@ -20,15 +20,17 @@ import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import { terrainRepository } from '@/server/data/repositories/terrain-repository';
 import { usersRepository } from '@/server/data/repositories/users-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 import { verifiedRevision } from '../plans/verify-revision';
 import { postTerrainView } from './post-terrain-view';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
 
 const DAY = 24 * 3600_000;
 /** Hand-overs shorter than this are not reported as gaps. */
 const MIN_GAP_MS = 5 * 60_000;
-const STALE = 'Someone else changed this watch since you opened it. Reload to see their change, then try again.';
+const STALE = staleMessage('this watch');
 
 /** A window from the query, defaulting to the next seven days. */
 function windowOf(q: { from?: string; to?: string }, now = Date.now()) {
@@ -65,7 +67,7 @@ async function refuseClash(
   }
 }
 
-export function createAssignment(db: Sequelize, actor: Actor, input: AssignmentInput): Promise<Assignment> {
+export function createAssignment({ db }: UseCaseDeps, actor: Actor, input: AssignmentInput): Promise<Assignment> {
   return db.transaction(async (t) => {
     const post = await postsRepository.findInOrganization(actor.organizationId, input.postId, t);
     const person = await usersRepository.findInOrganization(actor.organizationId, input.userId, t);
@@ -88,7 +90,7 @@ export function createAssignment(db: Sequelize, actor: Actor, input: AssignmentI
 }
 
 export function updateAssignment(
-  db: Sequelize,
+  { db }: UseCaseDeps,
   actor: Actor,
   id: string,
   input: { startsAt?: string; endsAt?: string | null; note?: string; version: number },
@@ -103,20 +105,19 @@ export function updateAssignment(
       throw AppError.badRequest('The watch has invalid fields.', { endsAt: 'The watch must end after it starts.' });
     }
     await refuseClash(actor, before.person.id, startsAt, endsAt, id, t);
-    const after = await assignmentsRepository.updateIfVersion(
-      actor.organizationId,
-      id,
-      input.version,
-      { startsAt, endsAt, ...(input.note !== undefined && { note: input.note }) },
-      t,
+    return writeVersioned(actor, t, { entityType: 'assignment', entityId: id, before, stale: STALE }, () =>
+      assignmentsRepository.updateIfVersion(
+        actor.organizationId,
+        id,
+        input.version,
+        { startsAt, endsAt, ...(input.note !== undefined && { note: input.note }) },
+        t,
+      ),
     );
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'assignment', entityId: id, before, after }, t);
-    return after;
   });
 }
 
-export function deleteAssignment(db: Sequelize, actor: Actor, id: string): Promise<void> {
+export function deleteAssignment({ db }: UseCaseDeps, actor: Actor, id: string): Promise<void> {
   return db.transaction(async (t) => {
     const before = await assignmentsRepository.find(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That watch');

@@ -10,7 +10,7 @@ import { locatePostCell } from '@/shared/terrain/locate-post-cell';
 import { rasterizePolygon } from '@/shared/terrain/rasterize-polygon';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { seenShareByBearing } from '@/shared/terrain/seen-share-by-bearing';
-import type { RasterGrid, TerrainCrs } from '@/shared/terrain/terrain-raster';
+import { gridSpecFromM, type TerrainCrs } from '@/shared/terrain/grid-spec';
 import { coverageRepository } from '@/server/data/repositories/coverage-repository';
 import { ringOnGrid } from '../coverage/compute-coverage';
 
@@ -39,8 +39,7 @@ export async function postTerrainView(args: {
 }): Promise<BriefingTerrainView | null> {
   const { coverage, crs, post, boundary, results } = args;
   if (coverage.datum !== 'terrain' || coverage.terrainId === null) return null;
-  const g = coverage.grid;
-  const grid: RasterGrid = { width: g.width, height: g.height, cellSize: g.cellSizeM, xll: g.xllM, yll: g.yllM, crs };
+  const grid = gridSpecFromM(coverage.grid, crs);
   const projection = gridProjection(crs);
   const { x, y } = projection.toGrid(post.location);
   let cell;
@@ -61,8 +60,8 @@ export async function postTerrainView(args: {
     if (!encoded) continue;
     const seaOnly = c.detection?.seaOnly ?? false;
     const sectors = seenShareByBearing({
-      width: g.width,
-      height: g.height,
+      width: grid.width,
+      height: grid.height,
       classes: decodeClassRaster(encoded),
       col: cell.col,
       row: cell.row,

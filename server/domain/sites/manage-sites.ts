@@ -1,13 +1,19 @@
-import type { Sequelize } from 'sequelize';
 import type { Post, PostInput, PostListQuery, Site, SiteInput } from '@/shared/schemas/site';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { plansRepository } from '@/server/data/repositories/plans-repository';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
 
-const STALE = 'Someone else changed this since you opened it. Reload to see their change, then try again.';
+const STALE = staleMessage();
+
+/** The organisation's sites, a page at a time. */
+export function listSites(actor: Actor, page: number, pageSize: number) {
+  return sitesRepository.pageInOrganization(actor.organizationId, page, pageSize);
+}
 
 export async function getSite(actor: Actor, id: string): Promise<Site> {
   const site = await sitesRepository.findInOrganization(actor.organizationId, id);
@@ -15,7 +21,7 @@ export async function getSite(actor: Actor, id: string): Promise<Site> {
   return site;
 }
 
-export function createSite(db: Sequelize, actor: Actor, input: SiteInput): Promise<Site> {
+export function createSite({ db }: UseCaseDeps, actor: Actor, input: SiteInput): Promise<Site> {
   return db.transaction(async (t) => {
     const site = await sitesRepository.create(actor.organizationId, input, t);
     await auditRepository.record(actor, { action: 'create', entityType: 'site', entityId: site.id, after: site }, t);
@@ -24,7 +30,7 @@ export function createSite(db: Sequelize, actor: Actor, input: SiteInput): Promi
 }
 
 export function updateSite(
-  db: Sequelize,
+  { db }: UseCaseDeps,
   actor: Actor,
   id: string,
   input: Partial<SiteInput> & { version: number },
@@ -33,15 +39,14 @@ export function updateSite(
     const before = await sitesRepository.findInOrganization(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That site');
     const { version, ...changes } = input;
-    const after = await sitesRepository.updateIfVersion(actor.organizationId, id, version, changes, t);
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'site', entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { entityType: 'site', entityId: id, before, stale: STALE }, () =>
+      sitesRepository.updateIfVersion(actor.organizationId, id, version, changes, t),
+    );
   });
 }
 
 /** Soft delete: the site leaves the lists, its history stays. A site with an approved plan is kept. */
-export function deleteSite(db: Sequelize, actor: Actor, id: string): Promise<void> {
+export function deleteSite({ db }: UseCaseDeps, actor: Actor, id: string): Promise<void> {
   return db.transaction(async (t) => {
     const before = await sitesRepository.findInOrganization(actor.organizationId, id, t);
     if (!before) throw AppError.notFound('That site');
@@ -68,7 +73,7 @@ export async function getPost(actor: Actor, siteId: string, id: string): Promise
   return post;
 }
 
-export function createPost(db: Sequelize, actor: Actor, siteId: string, input: PostInput): Promise<Post> {
+export function createPost({ db }: UseCaseDeps, actor: Actor, siteId: string, input: PostInput): Promise<Post> {
   return db.transaction(async (t) => {
     if (!(await sitesRepository.findInOrganization(actor.organizationId, siteId, t))) throw AppError.notFound('That site');
     const post = await postsRepository.create(actor.organizationId, siteId, input, t);
@@ -78,7 +83,7 @@ export function createPost(db: Sequelize, actor: Actor, siteId: string, input: P
 }
 
 export function updatePost(
-  db: Sequelize,
+  { db }: UseCaseDeps,
   actor: Actor,
   siteId: string,
   id: string,
@@ -88,15 +93,14 @@ export function updatePost(
     const before = await postsRepository.findInSite(actor.organizationId, siteId, id, t);
     if (!before) throw AppError.notFound('That post');
     const { version, ...changes } = input;
-    const after = await postsRepository.updateIfVersion(actor.organizationId, siteId, id, version, changes, t);
-    if (!after) throw AppError.conflict(STALE, 'stale_version');
-    await auditRepository.record(actor, { action: 'update', entityType: 'post', entityId: id, before, after }, t);
-    return after;
+    return writeVersioned(actor, t, { entityType: 'post', entityId: id, before, stale: STALE }, () =>
+      postsRepository.updateIfVersion(actor.organizationId, siteId, id, version, changes, t),
+    );
   });
 }
 
 /** Soft delete: the post leaves the lists, its history stays. A post in a submitted or approved plan is kept. */
-export function deletePost(db: Sequelize, actor: Actor, siteId: string, id: string): Promise<void> {
+export function deletePost({ db }: UseCaseDeps, actor: Actor, siteId: string, id: string): Promise<void> {
   return db.transaction(async (t) => {
     const before = await postsRepository.findInSite(actor.organizationId, siteId, id, t);
     if (!before) throw AppError.notFound('That post');

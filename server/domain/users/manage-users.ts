@@ -1,11 +1,12 @@
 import { createHash, randomBytes } from 'node:crypto';
-import type { Sequelize } from 'sequelize';
 import type { InviteUserRequest, ManagedUser, UpdateUserRequest } from '@/shared/schemas/auth';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { usersRepository } from '@/server/data/repositories/users-repository';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 import { hashPassword } from '../auth/passwords';
 import type { Actor } from '../actor';
+import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { staleMessage } from '@/server/domain/audit/versioned-write';
 
 const INVITE_DAYS = 7;
 
@@ -17,7 +18,7 @@ export function listUsers(actor: Actor, page: number, pageSize: number) {
 
 /** Creates an invited account and returns the one-time token for its set-password link. */
 export async function inviteUser(
-  db: Sequelize,
+  { db }: UseCaseDeps,
   actor: Actor,
   input: InviteUserRequest,
 ): Promise<{ user: ManagedUser; token: string }> {
@@ -54,7 +55,7 @@ export async function inviteUser(
 }
 
 /** Changes role or active state, refusing stale versions and the last active admin. */
-export async function updateUser(db: Sequelize, actor: Actor, id: string, input: UpdateUserRequest): Promise<ManagedUser> {
+export async function updateUser({ db }: UseCaseDeps, actor: Actor, id: string, input: UpdateUserRequest): Promise<ManagedUser> {
   return db.transaction(async (transaction) => {
     const current = await usersRepository.findInOrganization(actor.organizationId, id, transaction);
     if (!current) throw AppError.notFound('That user');
@@ -68,10 +69,7 @@ export async function updateUser(db: Sequelize, actor: Actor, id: string, input:
     const { version, ...changes } = input;
     const updated = await usersRepository.updateIfVersion(actor.organizationId, id, version, changes, transaction);
     if (!updated) {
-      throw AppError.conflict(
-        'Someone else changed this user since you opened it. Reload to see their change, then try again.',
-        'stale_version',
-      );
+      throw AppError.conflict(staleMessage('this user'), 'stale_version');
     }
     // A new role or a deactivation takes effect on the person's open sessions too: they sign in again.
     const roleChanged = changes.role !== undefined && changes.role !== current.role;
@@ -108,7 +106,7 @@ export async function updateUser(db: Sequelize, actor: Actor, id: string, input:
 }
 
 /** Redeems a set-password link. */
-export async function setPasswordWithToken(db: Sequelize, token: string, password: string): Promise<void> {
+export async function setPasswordWithToken({ db }: UseCaseDeps, token: string, password: string): Promise<void> {
   const passwordHash = await hashPassword(password);
   await db.transaction(async (transaction) => {
     const found = await usersRepository.findByInviteToken(hashToken(token), transaction);

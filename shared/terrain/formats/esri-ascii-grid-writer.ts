@@ -1,6 +1,6 @@
 import { wktForEpsg } from '@/shared/terrain/formats/wkt-for-epsg';
 import { TerrainFormatError } from '@/shared/terrain/formats/terrain-format-error';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /** Settings of {@link writeEsriAsciiGrid}. */
 export interface EsriAsciiWriteOptions {
@@ -34,7 +34,7 @@ export interface EsriAsciiWriteOptions {
  * // asc ends with "0 12.5\n"
  */
 export function writeEsriAsciiGrid(
-  grid: RasterGrid,
+  grid: GridSpec,
   values: Float32Array,
   options: EsriAsciiWriteOptions = {},
 ): { asc: string; prj: string | null } {

@@ -1,5 +1,5 @@
 import { TerrainFormatError } from '@/shared/terrain/formats/terrain-format-error';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /** Settings of {@link writeGeoTiff}. */
 export interface GeoTiffWriteOptions {
@@ -43,7 +43,7 @@ interface Entry {
  * @example
  * const bytes = writeGeoTiff(hidden, hidden.hidden); // Float32 GeoTIFF of hidden heights
  */
-export function writeGeoTiff(grid: RasterGrid, values: Float32Array, options: GeoTiffWriteOptions = {}): ArrayBuffer {
+export function writeGeoTiff(grid: GridSpec, values: Float32Array, options: GeoTiffWriteOptions = {}): ArrayBuffer {
   const { width, height, cellSize } = grid;
   if (values.length !== width * height) {
     throw new TerrainFormatError(

@@ -1,5 +1,5 @@
 import { ACCOUNT_MAX_DELAY_S, createSignInLimiter, progressiveDelayS } from '@/server/domain/auth/sign-in-limiter';
-import { AppError } from '@/server/http/app-error';
+import { AppError } from '@/server/domain/app-error';
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 

@@ -2,7 +2,7 @@
  * Helpers for the network-coverage tests: a seeded random generator and
  * class rasters built from simple rules.
  */
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec as RasterGrid } from '@/shared/terrain/grid-spec';
 
 /** Deterministic pseudo-random numbers in [0, 1) (mulberry32, public domain). */
 export function seededRandom(seed: number): () => number {

@@ -4,7 +4,7 @@ jest.mock('quick-lru', () => ({ __esModule: true, default: class QuickLRU extend
 
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { DEMO_SITES } from '@/server/data/seeders/demo';
+import { DEMO_SITES } from '@/server/seeders/demo';
 import { toUtm } from '@/shared/geo/to-utm';
 import { utmGridConvergence } from '@/shared/geo/utm-grid-convergence';
 import { computeNetworkCoverage, type NetworkPostSetup } from '@/shared/terrain/compute-network-coverage';

@@ -6,7 +6,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
 import { rasterizePolygon, type PolygonRing } from '@/shared/terrain/rasterize-polygon';
-import type { RasterGrid } from '@/shared/terrain/terrain-raster';
+import type { GridSpec as RasterGrid } from '@/shared/terrain/grid-spec';
 import { describeWithGdal, gdal, temporaryFolder } from '@/tests/unit/terrain/gdal-tools';
 import { seededRandom } from '@/tests/unit/terrain/coverage-fixtures';
 

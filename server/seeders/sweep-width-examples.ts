@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import type { SweepWidthTableInput } from '@/shared/schemas/sweep-width';
-import { OrganizationModel } from '../models';
-import { sweepWidthTablesRepository } from '../repositories/sweep-width-tables-repository';
+import { OrganizationModel } from '@/server/data/models';
+import { sweepWidthTablesRepository } from '@/server/data/repositories/sweep-width-tables-repository';
 
 /**
  * The starter sweep-width table: invented numbers that only show how a table

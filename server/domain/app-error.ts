@@ -2,7 +2,7 @@
 export type FieldErrors = Record<string, string>;
 
 /**
- * The one error type routes and use cases throw. `code` is stable and meant for
+ * The one error type use cases and routes throw (a domain type: the HTTP status it carries is what the error handler answers with). `code` is stable and meant for
  * programs; `message` is for people.
  */
 export class AppError extends Error {

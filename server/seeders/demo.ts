@@ -1,3 +1,4 @@
+// Over 300 lines: mostly invented demo data (organisations, people, sites, posts, libraries, plans), not logic.
 import { copyFile, mkdtemp, rm, stat } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
@@ -7,15 +8,15 @@ import { hashPassword } from '@/server/domain/auth/passwords';
 import { fromUtm } from '@/shared/geo/from-utm';
 import type { PostInput, SiteInput } from '@/shared/schemas/site';
 import type { ConditionSetInput, TargetInput } from '@/shared/schemas/library';
-import { ConditionSetModel, OrganizationModel, SiteModel, TargetProfileModel, UserModel } from '../models';
-import { conditionSetsRepository, targetsRepository } from '../repositories/library-repository';
+import { ConditionSetModel, OrganizationModel, SiteModel, TargetProfileModel, UserModel } from '@/server/data/models';
+import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
 import { createPlan, reviewPlan, submitPlan, submitVerdict, type PlanDeps } from '@/server/domain/plans/manage-plans';
 import { failingRuleLine, type StandardVerdict } from '@/shared/plans/standard-verdict';
-import { AssignmentModel, PlanModel, PostModel } from '../models';
-import { assignmentsRepository } from '../repositories/assignments-repository';
-import { postsRepository } from '../repositories/posts-repository';
-import { sitesRepository } from '../repositories/sites-repository';
-import { terrainRepository } from '../repositories/terrain-repository';
+import { AssignmentModel, PlanModel, PostModel } from '@/server/data/models';
+import { assignmentsRepository } from '@/server/data/repositories/assignments-repository';
+import { postsRepository } from '@/server/data/repositories/posts-repository';
+import { sitesRepository } from '@/server/data/repositories/sites-repository';
+import { terrainRepository } from '@/server/data/repositories/terrain-repository';
 import { uploadTerrain } from '@/server/domain/terrain/manage-terrain';
 import type { FileStore } from '@/server/storage/file-store';
 import { createTerrainCache, type TerrainCache } from '@/server/terrain/terrain-cache';
@@ -27,7 +28,7 @@ import { createViewshedPool } from '@/server/workers/viewshed-pool';
 import { seedSweepWidthExamples } from './sweep-width-examples';
 
 /** The demo terrain (invented, see assets/terrain/README.md), attached to the forest district. */
-export const DEMO_TERRAIN_FILE = path.join(__dirname, '..', '..', '..', 'assets', 'terrain', 'demo-forest-district.tif');
+export const DEMO_TERRAIN_FILE = path.join(__dirname, '..', '..', 'assets', 'terrain', 'demo-forest-district.tif');
 
 /** Invented demo scenario. Every demo account uses this password. */
 export const DEMO_PASSWORD = 'kenning-demo';
