@@ -1,0 +1,102 @@
+import { Client } from 'pg';
+import type { Sequelize, Transaction } from 'sequelize';
+
+/** The PostgreSQL channel on which ended sessions are announced; the payload is the user id. */
+export const SESSIONS_ENDED_CHANNEL = 'kenning_sessions_ended';
+
+/**
+ * Tells every API process that sessions of `userId` ended (sign-out, sign-out
+ * everywhere, a new password, a role change, deactivation). NOTIFY is
+ * transactional: inside `transaction` it is delivered when that commits, and
+ * not at all when it rolls back.
+ */
+export async function announceSessionsEnded(db: Sequelize, userId: string, transaction?: Transaction): Promise<void> {
+  await db.query('SELECT pg_notify(:channel, :userId)', {
+    replacements: { channel: SESSIONS_ENDED_CHANNEL, userId },
+    transaction,
+  });
+}
+
+export interface SessionNoticeHandlers {
+  /** Sessions of this user ended somewhere. */
+  onEnded(userId: string): void;
+  /** Listening (again): notices from now on arrive. Anything before may have been missed. */
+  onListening(): void;
+  /** The connection is gone: notices may be missed until `onListening`. */
+  onLost(): void;
+}
+
+/** How often the listening connection is checked, ms (a connection can die without a word). */
+const PING_EVERY_MS = 5_000;
+
+/**
+ * Keeps one connection LISTENing on {@link SESSIONS_ENDED_CHANNEL}, reconnecting
+ * after 0.5 s, then 1, 2 … up to 30 s while PostgreSQL is away.
+ *
+ * @example
+ * const listener = listenForEndedSessions(url, { onEnded: evict, onListening: trust, onLost: distrust });
+ * await listener.ready; // first LISTEN done (or failed: it keeps trying)
+ */
+export function listenForEndedSessions(databaseUrl: string, handlers: SessionNoticeHandlers) {
+  let client: Client | null = null;
+  let stopped = false;
+  let delayMs = 500;
+  let retry: NodeJS.Timeout | undefined;
+  let ping: NodeJS.Timeout | undefined;
+  let resolveReady: () => void = () => {};
+  const ready = new Promise<void>((resolve) => {
+    resolveReady = resolve;
+  });
+
+  const lost = (c: Client) => {
+    if (client !== c) return; // an older connection, already replaced
+    client = null;
+    clearInterval(ping);
+    handlers.onLost();
+    c.end().catch(() => {});
+    if (!stopped) retry = setTimeout(() => void connect(), delayMs);
+    delayMs = Math.min(delayMs * 2, 30_000);
+  };
+
+  const connect = async () => {
+    const c = new Client({ connectionString: databaseUrl, keepAlive: true });
+    client = c;
+    c.on('error', () => lost(c));
+    c.on('end', () => lost(c));
+    c.on('notification', (n) => {
+      if (n.channel === SESSIONS_ENDED_CHANNEL && n.payload) handlers.onEnded(n.payload);
+    });
+    try {
+      await c.connect();
+      await c.query(`LISTEN ${SESSIONS_ENDED_CHANNEL}`);
+    } catch {
+      lost(c);
+      resolveReady();
+      return;
+    }
+    if (stopped || client !== c) {
+      await c.end().catch(() => {});
+      return;
+    }
+    delayMs = 500;
+    handlers.onListening();
+    resolveReady();
+    ping = setInterval(() => {
+      c.query('SELECT 1').catch(() => lost(c));
+    }, PING_EVERY_MS);
+    ping.unref();
+  };
+  void connect();
+
+  return {
+    ready,
+    async stop() {
+      stopped = true;
+      clearTimeout(retry);
+      clearInterval(ping);
+      const c = client;
+      client = null;
+      if (c) await c.end().catch(() => {});
+    },
+  };
+}

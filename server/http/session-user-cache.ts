@@ -1,0 +1,117 @@
+import { listenForEndedSessions } from '@/server/data/session-notices';
+
+/** What requireUser needs to know about a cookie's user (see usersRepository.activeById). */
+export type SessionUserLoader<U> = (userId: string, nonce: string | undefined) => Promise<U | null>;
+
+/**
+ * Keeps the users that signed-in requests loaded, per (user, session nonce), for
+ * `ttlMs` in this process, so a busy client does not cost a database round trip
+ * per request. Correct only while `trusted`: the owner evicts a user as soon as
+ * PostgreSQL announces that sessions of theirs ended (`evict`), and calls
+ * `distrust` when it may miss announcements (nothing is served from memory until
+ * `trust`). A load that overlapped any eviction is not kept, so a read that began
+ * before a sign-out cannot put the old answer back.
+ */
+export function createSessionUserCache<U>(
+  load: SessionUserLoader<U>,
+  { ttlMs, maxUsers = 10_000, now = Date.now }: { ttlMs: number; maxUsers?: number; now?: () => number },
+) {
+  const byUser = new Map<string, Map<string, { user: U; until: number }>>();
+  let trusted = false;
+  /** Bumped by every eviction: a load that saw it change is not kept. */
+  let epoch = 0;
+  const waiters = new Map<string, Set<() => void>>();
+
+  const cache = {
+    /** The user for this cookie: from memory when fresh, else loaded (and kept when live). */
+    async get(userId: string, nonce: string | undefined, keep: (user: U) => boolean): Promise<U | null> {
+      const key = nonce ?? '';
+      if (trusted && ttlMs > 0) {
+        const hit = byUser.get(userId)?.get(key);
+        if (hit && hit.until > now()) return hit.user;
+      }
+      const started = epoch;
+      const user = await load(userId, nonce);
+      if (user && trusted && ttlMs > 0 && started === epoch && keep(user)) {
+        if (!byUser.has(userId) && byUser.size >= maxUsers) byUser.delete(byUser.keys().next().value!);
+        let sessions = byUser.get(userId);
+        if (!sessions) byUser.set(userId, (sessions = new Map()));
+        sessions.set(key, { user, until: now() + ttlMs });
+      }
+      return user;
+    },
+    /** Sessions of `userId` ended somewhere: forget them here. */
+    evict(userId: string) {
+      epoch++;
+      byUser.delete(userId);
+      const waiting = waiters.get(userId);
+      waiters.delete(userId);
+      waiting?.forEach((resolve) => resolve());
+    },
+    /** Announcements may be missed from now on: forget everything and stop keeping users. */
+    distrust() {
+      epoch++;
+      trusted = false;
+      byUser.clear();
+    },
+    /** Announcements arrive (again). */
+    trust() {
+      epoch++;
+      byUser.clear();
+      trusted = true;
+    },
+    /**
+     * Resolves when this process hears that sessions of `userId` ended, or after
+     * `timeoutMs`. Call before the write that announces it, await after.
+     */
+    heard(userId: string, timeoutMs = 250): () => Promise<void> {
+      if (!trusted) return () => Promise.resolve();
+      let resolve: () => void = () => {};
+      const done = new Promise<void>((r) => {
+        resolve = r;
+      });
+      let set = waiters.get(userId);
+      if (!set) waiters.set(userId, (set = new Set()));
+      set.add(resolve);
+      return async () => {
+        const timer = setTimeout(resolve, timeoutMs);
+        await done;
+        clearTimeout(timer);
+        waiters.get(userId)?.delete(resolve);
+      };
+    },
+    get size() {
+      let n = 0;
+      for (const sessions of byUser.values()) n += sessions.size;
+      return n;
+    },
+  };
+  return cache;
+}
+
+export type SessionUserCache<U> = ReturnType<typeof createSessionUserCache<U>>;
+
+/**
+ * A session-user cache fed by PostgreSQL's LISTEN/NOTIFY: one connection per
+ * process listens for ended sessions. Trusted only while that connection is up.
+ */
+export function startSessionUserCache<U>(databaseUrl: string, load: SessionUserLoader<U>, ttlSeconds: number) {
+  const cache = createSessionUserCache(load, { ttlMs: ttlSeconds * 1000 });
+  const listener =
+    ttlSeconds > 0
+      ? listenForEndedSessions(databaseUrl, {
+          onEnded: (userId) => cache.evict(userId),
+          onListening: () => cache.trust(),
+          onLost: () => cache.distrust(),
+        })
+      : null;
+  return {
+    cache,
+    /** The first LISTEN is done (or failed and is being retried). */
+    ready: listener?.ready ?? Promise.resolve(),
+    stop: async () => {
+      cache.distrust();
+      await listener?.stop();
+    },
+  };
+}
