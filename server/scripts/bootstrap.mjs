@@ -562,6 +562,8 @@ async function test() {
       PORT: String(port),
       HOST: '127.0.0.1',
       NODE_ENV: 'test',
+      // One API process: the browser tests and Jest share the two cores with it.
+      WEB_CONCURRENCY: '1',
       SIGN_IN_LIMIT_PER_ADDRESS: '1000',
       FILE_STORE_DIR: testFiles,
       ...mailEnv(caught),
