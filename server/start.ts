@@ -8,7 +8,7 @@ import { startStaleRunReaper } from './domain/coverage/run-heartbeat';
 import { loadSessionUser } from './http/session';
 import { startSessionUserCache } from './http/session-user-cache';
 import { createMailer } from './mail/mailer';
-import { startCoverageBoss } from './queue/coverage-queue';
+import { startCoverageBoss, type CoverageQueue } from './queue/coverage-queue';
 import { DEFAULT_ATTACHMENT_UPLOAD_DIR } from './routes/attachments';
 import { cleanStaleUploads } from './storage/clean-stale-uploads';
 import { createDiskFileStore } from './storage/file-store';
@@ -29,12 +29,12 @@ async function main() {
   return serveApi(cfg, { chores: false });
 }
 
-/** The chores done once per server: fail runs of dead workers, remove unfinished uploads. */
-async function startChores(cfg: Config) {
+/** The chores done once per server: runs of dead workers, unfinished uploads. */
+async function startChores(cfg: Config, queue: CoverageQueue) {
   const db = createDatabase(cfg.DATABASE_URL);
   await db.authenticate();
-  // Fails runs whose worker died, even when no worker is left to notice.
-  const reaper = startStaleRunReaper(db);
+  // Queues again (once), then fails, runs whose worker died, even when no worker is left to notice.
+  const reaper = startStaleRunReaper(db, { requeue: (runId, attempt) => queue.enqueue(runId, attempt) });
   // Uploads a killed server left half-received; again every half hour.
   const uploadRoots = [cfg.TERRAIN_UPLOAD_DIR, DEFAULT_ATTACHMENT_UPLOAD_DIR];
   const sweepUploads = () =>
@@ -72,7 +72,7 @@ async function serveApi(cfg: Config, { chores }: { chores: boolean }) {
   const coverage = await startCoverageBoss(cfg.DATABASE_URL);
   const sessionUsers = startSessionUserCache(cfg.DATABASE_URL, loadSessionUser, cfg.SESSION_CACHE_SECONDS);
   await sessionUsers.ready;
-  const once = chores ? await startChores(cfg) : null;
+  const once = chores ? await startChores(cfg, coverage.queue) : null;
   const app = createApp({
     db,
     config: cfg,
@@ -119,7 +119,8 @@ function serveAlone(cfg: Config) {
 
 /** The cluster's primary: keeps `processes` API processes running, does the chores, stops them all. */
 async function supervise(cfg: Config, processes: number) {
-  const chores = await startChores(cfg);
+  const coverage = await startCoverageBoss(cfg.DATABASE_URL);
+  const chores = await startChores(cfg, coverage.queue);
   let stopping = false;
   let announced = false;
   const slots = Array.from({ length: processes }, () => ({ delayMs: 1000, startedAt: 0, worker: null as Worker | null }));
