@@ -608,9 +608,12 @@ async function bench() {
   try {
     tsx('server/scripts/prepare-database.ts', ['--database', name, '--seed', '--fresh', '--files', benchFiles], {
       KENNING_ADMIN_DATABASE_URL: adminUrl,
+      KENNING_APP_DATABASE_PASSWORD: pg.appPassword,
     });
     tsx('tests/bench/run.ts', process.argv.slice(3), {
       KENNING_BENCH_DATABASE_URL: pg.url(name),
+      // The API benchmark runs the server as production does: as the application's role.
+      KENNING_BENCH_APP_DATABASE_URL: pg.appUrl(name),
       KENNING_BENCH_FILES_DIR: benchFiles,
     });
   } finally {
