@@ -1,6 +1,7 @@
 import cluster, { type Worker } from 'node:cluster';
 import type { Server } from 'node:http';
 import { availableParallelism } from 'node:os';
+import type { Sequelize } from 'sequelize';
 import { createApp } from './app';
 import { config, type Config } from './config';
 import { createDatabase } from './data/database';
@@ -30,9 +31,7 @@ async function main() {
 }
 
 /** The chores done once per server: runs of dead workers, unfinished uploads. */
-async function startChores(cfg: Config, queue: CoverageQueue) {
-  const db = createDatabase(cfg.DATABASE_URL);
-  await db.authenticate();
+async function startChores(cfg: Config, db: Sequelize, queue: CoverageQueue) {
   // Queues again (once), then fails, runs whose worker died, even when no worker is left to notice.
   const reaper = startStaleRunReaper(db, { requeue: (runId, attempt) => queue.enqueue(runId, attempt) });
   // Uploads a killed server left half-received; again every half hour.
@@ -47,10 +46,9 @@ async function startChores(cfg: Config, queue: CoverageQueue) {
   const uploadSweeper = setInterval(() => void sweepUploads(), 30 * 60 * 1000);
   uploadSweeper.unref();
   return {
-    async stop() {
+    stop() {
       reaper.stop();
       clearInterval(uploadSweeper);
-      await db.close();
     },
   };
 }
@@ -72,7 +70,8 @@ async function serveApi(cfg: Config, { chores }: { chores: boolean }) {
   const coverage = await startCoverageBoss(cfg.DATABASE_URL);
   const sessionUsers = startSessionUserCache(cfg.DATABASE_URL, loadSessionUser, cfg.SESSION_CACHE_SECONDS);
   await sessionUsers.ready;
-  const once = chores ? await startChores(cfg, coverage.queue) : null;
+  // Models are bound to one Sequelize per process: the chores share the app's.
+  const once = chores ? await startChores(cfg, db, coverage.queue) : null;
   const app = createApp({
     db,
     config: cfg,
@@ -95,8 +94,10 @@ async function serveApi(cfg: Config, { chores }: { chores: boolean }) {
     if (!cluster.isWorker) console.log(`[kenning] ${signal}: closing`);
     mailer?.close();
     // Answers in progress finish; idle keep-alive connections close now.
+    once?.stop();
     server.close(() => {
-      void Promise.allSettled([coverage.stop(), sessionUsers.stop(), once?.stop()])
+      // A client that hung up leaves its request running: let it finish with the database first.
+      void Promise.allSettled([coverage.stop(), sessionUsers.stop(), poolDrained(db, 4000)])
         .then(() => db.close())
         .finally(() => process.exit(0));
     });
@@ -112,6 +113,15 @@ async function serveApi(cfg: Config, { chores }: { chores: boolean }) {
   process.once('disconnect', () => stop('supervisor gone'));
 }
 
+/** Resolves once no query holds or waits for a pooled connection, or after `timeoutMs`. */
+async function poolDrained(db: Sequelize, timeoutMs: number) {
+  const pool = (db.connectionManager as unknown as { pool?: { using?: number; waiting?: number } }).pool;
+  const until = Date.now() + timeoutMs;
+  while (pool && ((pool.using ?? 0) > 0 || (pool.waiting ?? 0) > 0) && Date.now() < until) {
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
 /** Without a cluster: one process serves and does the chores. */
 function serveAlone(cfg: Config) {
   return serveApi(cfg, { chores: true });
@@ -119,8 +129,10 @@ function serveAlone(cfg: Config) {
 
 /** The cluster's primary: keeps `processes` API processes running, does the chores, stops them all. */
 async function supervise(cfg: Config, processes: number) {
+  const db = createDatabase(cfg.DATABASE_URL);
+  await db.authenticate();
   const coverage = await startCoverageBoss(cfg.DATABASE_URL);
-  const chores = await startChores(cfg, coverage.queue);
+  const chores = await startChores(cfg, db, coverage.queue);
   let stopping = false;
   let announced = false;
   const slots = Array.from({ length: processes }, () => ({ delayMs: 1000, startedAt: 0, worker: null as Worker | null }));
