@@ -27,8 +27,10 @@ export function createSessionUserCache<U>(
     async get(userId: string, nonce: string | undefined, keep: (user: U) => boolean): Promise<U | null> {
       const key = nonce ?? '';
       if (trusted && ttlMs > 0) {
-        const hit = byUser.get(userId)?.get(key);
+        const sessions = byUser.get(userId);
+        const hit = sessions?.get(key);
         if (hit && hit.until > now()) return hit.user;
+        if (hit) sessions!.delete(key);
       }
       const started = epoch;
       const user = await load(userId, nonce);
