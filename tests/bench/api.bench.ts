@@ -9,7 +9,7 @@
  * - the bare handler at 50 connections (the reference),
  * - both API routes alternating for 60 s at 200 connections (errors, timeouts, non-2xx).
  *
- * Each short load runs KENNING_BENCH_RUNS times (default 3) for KENNING_BENCH_SECONDS
+ * After a 5 s warm-up of each route, each short load runs KENNING_BENCH_RUNS times (default 3) for KENNING_BENCH_SECONDS
  * (default 10); the medians are printed with the load average, because the machine is
  * shared. KENNING_BENCH_CPU_PROF=DIR writes a V8 CPU profile of every server process
  * there (`--cpu-prof`). Measurement only, never a pass or fail.
@@ -171,6 +171,9 @@ export async function benchApi(appDatabaseUrl: string, filesDir: string) {
     };
     const sites = { method: 'GET' as const, path: '/api/v1/sites', headers: { cookie } };
 
+    // Warm-up, not counted: each process compiles (tsx) and optimises (V8) on its first requests.
+    await load({ url: base, connections: 50, duration: 5, requests: [sightline] });
+    await load({ url: base, connections: 50, duration: 5, requests: [sites] });
     const sightlineRuns: Load[] = [];
     const siteRuns: Load[] = [];
     const bareRuns: Load[] = [];
