@@ -1,8 +1,15 @@
+import { randomBytes } from 'node:crypto';
 import { Client } from 'pg';
 import type { Sequelize, Transaction } from 'sequelize';
 
 /** The PostgreSQL channel on which ended sessions are announced; the payload is the user id. */
 export const SESSIONS_ENDED_CHANNEL = 'kenning_sessions_ended';
+
+/** Each listener says here that it has forgotten a user: payload `userId listenerId`. */
+export const SESSIONS_HEARD_CHANNEL = 'kenning_sessions_heard';
+
+/** The listening connections' application_name, by which they are counted. */
+const LISTENER_NAME = 'kenning-session-listener';
 
 /**
  * Tells every API process that sessions of `userId` ended (sign-out, sign-out
@@ -18,8 +25,10 @@ export async function announceSessionsEnded(db: Sequelize, userId: string, trans
 }
 
 export interface SessionNoticeHandlers {
-  /** Sessions of this user ended somewhere. */
+  /** Sessions of this user ended somewhere (this process then acknowledges it to every process). */
   onEnded(userId: string): void;
+  /** A listener (maybe this one) has forgotten the user. */
+  onHeard?(userId: string, listenerId: string): void;
   /** Listening (again): notices from now on arrive. Anything before may have been missed. */
   onListening(): void;
   /** The connection is gone: notices may be missed until `onListening`. */
@@ -58,17 +67,25 @@ export function listenForEndedSessions(databaseUrl: string, handlers: SessionNot
     delayMs = Math.min(delayMs * 2, 30_000);
   };
 
+  const listenerId = randomBytes(6).toString('hex');
   const connect = async () => {
-    const c = new Client({ connectionString: databaseUrl, keepAlive: true });
+    const c = new Client({ connectionString: databaseUrl, keepAlive: true, application_name: LISTENER_NAME });
     client = c;
     c.on('error', () => lost(c));
     c.on('end', () => lost(c));
     c.on('notification', (n) => {
-      if (n.channel === SESSIONS_ENDED_CHANNEL && n.payload) handlers.onEnded(n.payload);
+      if (!n.payload) return;
+      if (n.channel === SESSIONS_ENDED_CHANNEL) {
+        handlers.onEnded(n.payload);
+        c.query('SELECT pg_notify($1, $2)', [SESSIONS_HEARD_CHANNEL, `${n.payload} ${listenerId}`]).catch(() => lost(c));
+      } else if (n.channel === SESSIONS_HEARD_CHANNEL) {
+        const [userId, by] = n.payload.split(' ');
+        if (userId && by) handlers.onHeard?.(userId, by);
+      }
     });
     try {
       await c.connect();
-      await c.query(`LISTEN ${SESSIONS_ENDED_CHANNEL}`);
+      await c.query(`LISTEN ${SESSIONS_ENDED_CHANNEL}; LISTEN ${SESSIONS_HEARD_CHANNEL}`);
     } catch {
       lost(c);
       resolveReady();
@@ -90,6 +107,16 @@ export function listenForEndedSessions(databaseUrl: string, handlers: SessionNot
 
   return {
     ready,
+    /** How many processes listen on this database now (this one included). */
+    async listeners(): Promise<number> {
+      const c = client;
+      if (!c) return 1;
+      const { rows } = await c.query<{ n: number }>(
+        'SELECT count(*)::int AS n FROM pg_stat_activity WHERE application_name = $1 AND datname = current_database()',
+        [LISTENER_NAME],
+      );
+      return rows[0]?.n ?? 1;
+    },
     async stop() {
       stopped = true;
       clearTimeout(retry);

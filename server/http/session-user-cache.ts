@@ -14,13 +14,19 @@ export type SessionUserLoader<U> = (userId: string, nonce: string | undefined) =
  */
 export function createSessionUserCache<U>(
   load: SessionUserLoader<U>,
-  { ttlMs, maxUsers = 10_000, now = Date.now }: { ttlMs: number; maxUsers?: number; now?: () => number },
+  {
+    ttlMs,
+    maxUsers = 10_000,
+    now = Date.now,
+    listeners = async () => 1,
+  }: { ttlMs: number; maxUsers?: number; now?: () => number; listeners?: () => Promise<number> },
 ) {
   const byUser = new Map<string, Map<string, { user: U; until: number }>>();
   let trusted = false;
   /** Bumped by every eviction: a load that saw it change is not kept. */
   let epoch = 0;
-  const waiters = new Map<string, Set<() => void>>();
+  /** Sign-outs waiting for every process to say it has forgotten the user. */
+  const waiters = new Map<string, Set<{ heardBy: Set<string>; check: () => void }>>();
 
   const cache = {
     /** The user for this cookie: from memory when fresh, else loaded (and kept when live). */
@@ -46,9 +52,13 @@ export function createSessionUserCache<U>(
     evict(userId: string) {
       epoch++;
       byUser.delete(userId);
-      const waiting = waiters.get(userId);
-      waiters.delete(userId);
-      waiting?.forEach((resolve) => resolve());
+    },
+    /** The process listening as `listenerId` has forgotten `userId`. */
+    acknowledged(userId: string, listenerId: string) {
+      for (const w of waiters.get(userId) ?? []) {
+        w.heardBy.add(listenerId);
+        w.check();
+      }
     },
     /** Announcements may be missed from now on: forget everything and stop keeping users. */
     distrust() {
@@ -63,23 +73,32 @@ export function createSessionUserCache<U>(
       trusted = true;
     },
     /**
-     * Resolves when this process hears that sessions of `userId` ended, or after
-     * `timeoutMs`. Call before the write that announces it, await after.
+     * Resolves when every process listening on the database has said it forgot
+     * `userId` (or after `timeoutMs`). Call before the write that announces it,
+     * await after it has committed.
      */
-    heard(userId: string, timeoutMs = 250): () => Promise<void> {
+    heard(userId: string, timeoutMs = 500): () => Promise<void> {
       if (!trusted) return () => Promise.resolve();
+      let needed = Infinity;
       let resolve: () => void = () => {};
       const done = new Promise<void>((r) => {
         resolve = r;
       });
+      const waiter = { heardBy: new Set<string>(), check: () => waiter.heardBy.size >= needed && resolve() };
       let set = waiters.get(userId);
       if (!set) waiters.set(userId, (set = new Set()));
-      set.add(resolve);
+      set.add(waiter);
       return async () => {
         const timer = setTimeout(resolve, timeoutMs);
-        await done;
-        clearTimeout(timer);
-        waiters.get(userId)?.delete(resolve);
+        try {
+          needed = await listeners().catch(() => 1);
+          waiter.check();
+          await done;
+        } finally {
+          clearTimeout(timer);
+          set.delete(waiter);
+          if (!set.size && waiters.get(userId) === set) waiters.delete(userId);
+        }
       };
     },
     get size() {
@@ -98,11 +117,16 @@ export type SessionUserCache<U> = ReturnType<typeof createSessionUserCache<U>>;
  * process listens for ended sessions. Trusted only while that connection is up.
  */
 export function startSessionUserCache<U>(databaseUrl: string, load: SessionUserLoader<U>, ttlSeconds: number) {
-  const cache = createSessionUserCache(load, { ttlMs: ttlSeconds * 1000 });
-  const listener =
+  let listener: ReturnType<typeof listenForEndedSessions> | null = null;
+  const cache = createSessionUserCache(load, {
+    ttlMs: ttlSeconds * 1000,
+    listeners: () => listener?.listeners() ?? Promise.resolve(1),
+  });
+  listener =
     ttlSeconds > 0
       ? listenForEndedSessions(databaseUrl, {
           onEnded: (userId) => cache.evict(userId),
+          onHeard: (userId, listenerId) => cache.acknowledged(userId, listenerId),
           onListening: () => cache.trust(),
           onLost: () => cache.distrust(),
         })

@@ -121,9 +121,9 @@ export async function requireUser(req: Request, _res: Response, next: NextFuncti
 
 /**
  * Runs `end` (a write that ends sessions of `userId`) and, when this app keeps a
- * session-user cache, waits (briefly) until this process has heard PostgreSQL
- * announce it: the announcement reaches every process's listener together, so
- * by the time the answer leaves, a copied cookie meets evicted caches everywhere.
+ * session-user cache, waits (at most 0.5 s) until every process listening on the
+ * database has acknowledged the announcement: by the time the answer leaves, a
+ * copied cookie meets evicted caches everywhere.
  */
 export async function endingSessionsOf<T>(req: Request, userId: string | undefined, end: () => Promise<T>): Promise<T> {
   const heard = userId && req.sessionUsers ? req.sessionUsers.heard(userId) : null;

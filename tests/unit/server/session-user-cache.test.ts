@@ -91,16 +91,21 @@ it('does not keep a load that overlapped an eviction (a read begun before a sign
   expect(t.loads).toHaveLength(2);
 });
 
-it('heard() resolves when the announcement for that user arrives, or after the timeout', async () => {
-  const t = setup();
-  const heard = t.cache.heard('u1', 10_000);
+it('heard() resolves once every listening process has acknowledged the user, or after the timeout', async () => {
+  const cache = createSessionUserCache(async () => null, { ttlMs: 5000, listeners: async () => 2 });
+  cache.trust();
+  const heard = cache.heard('u1', 10_000);
   let done = false;
   const waiting = heard().then(() => (done = true));
-  await Promise.resolve();
+  await new Promise((r) => setTimeout(r, 5));
+  cache.evict('u1');
+  cache.acknowledged('u1', 'process-a');
+  cache.acknowledged('u2', 'process-b'); // another user's
+  await new Promise((r) => setTimeout(r, 5));
   expect(done).toBe(false);
-  t.cache.evict('u1');
+  cache.acknowledged('u1', 'process-b');
   await waiting;
   expect(done).toBe(true);
-  const timedOut = t.cache.heard('u2', 5);
-  await timedOut(); // nobody announces u2: returns after 5 ms
+  const timedOut = cache.heard('u3', 5);
+  await timedOut(); // nobody acknowledges u3: returns after 5 ms
 });
