@@ -10,7 +10,8 @@ import { createErrorHandler, notFoundHandler } from './http/error-handler';
 import { watchDatabaseOutage } from './http/database-outage';
 import { originCheck } from './http/origin-check';
 import { securityHeaders } from './http/security-headers';
-import { sessionMiddleware } from './http/session';
+import { sessionMiddleware, type SessionUser } from './http/session';
+import type { SessionUserCache } from './http/session-user-cache';
 import { createCaughtMailClient } from './mail/caught-mail-client';
 import type { Mailer } from './mail/mailer';
 import type { FileStore } from './storage/file-store';
@@ -47,6 +48,8 @@ export interface AppDeps {
   terrainCache?: TerrainCache;
   /** The coverage job queue; null or absent: coverage runs cannot be started (they can still be read). */
   coverageQueue?: CoverageQueue | null;
+  /** Signed-in users kept for a few seconds (`startSessionUserCache`); absent: loaded on every request. */
+  sessionUsers?: SessionUserCache<SessionUser> | null;
   config: Pick<
     Config,
     | 'NODE_ENV'
@@ -77,6 +80,7 @@ export function createApp({
   terrainIngest,
   terrainCache,
   coverageQueue = null,
+  sessionUsers = null,
 }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
@@ -110,7 +114,7 @@ export function createApp({
   // Production refuses writes a browser sent from another site (before any body is read).
   if (config.NODE_ENV === 'production') api.use(originCheck(config.PUBLIC_URL));
   api.use(express.json({ limit: '1mb' }));
-  api.use(sessionMiddleware(config.SESSION_SECRET));
+  api.use(sessionMiddleware(config.SESSION_SECRET, sessionUsers));
   api.use((_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
     next();

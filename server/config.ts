@@ -28,6 +28,13 @@ const EnvSchema = z.object({
   TERRAIN_UPLOAD_DIR: z.string().min(1).default(path.join(dataDir, 'uploads')),
   /** Viewshed threads of one coverage worker process; default every core. */
   COVERAGE_WORKER_THREADS: z.coerce.number().int().positive().max(64).optional(),
+  /** API processes (one per core by default; they share the port). 1 serves from one process. */
+  WEB_CONCURRENCY: z.coerce.number().int().positive().max(64).optional(),
+  /**
+   * How long each API process keeps a signed-in user after loading it, seconds (0: load on every
+   * request). Sign-out and the rest reach every process at once through PostgreSQL notifications.
+   */
+  SESSION_CACHE_SECONDS: z.coerce.number().min(0).max(60).default(5),
   /** Folder holding the exported web app; the API runs without it. */
   WEB_DIST_DIR: z.string().default(path.join(projectRoot, 'dist', 'web')),
   /**

@@ -20,7 +20,8 @@ export interface CoverageBoss {
  * created or migrated on first start) and makes sure the coverage queue
  * exists. Jobs live in PostgreSQL, so queued runs survive a restart of the
  * server or the workers; a job held by a worker that died is handed out
- * again after {@link JOB_EXPIRY_S}, once.
+ * again after {@link JOB_EXPIRY_S}, once (the job then finds its run taken over, see processCoverageRun). A run whose worker
+ * stopped beating is queued again much sooner by the reaper (server/domain/coverage/run-heartbeat.ts).
  *
  * @example
  * const { queue, stop } = await startCoverageBoss(config.DATABASE_URL);
@@ -32,8 +33,8 @@ export async function startCoverageBoss(databaseUrl: string, options: { supervis
   await boss.start();
   await boss.createQueue(COVERAGE_QUEUE, { name: COVERAGE_QUEUE, retryLimit: 1, retryDelay: 5, expireInSeconds: JOB_EXPIRY_S });
   const queue: CoverageQueue = {
-    async enqueue(runId) {
-      const id = await boss.send(COVERAGE_QUEUE, { runId });
+    async enqueue(runId, attempt = 1) {
+      const id = await boss.send(COVERAGE_QUEUE, { runId, attempt });
       if (!id) throw new Error('The job queue did not accept the run.');
       return id;
     },
@@ -48,8 +49,15 @@ export async function startCoverageBoss(databaseUrl: string, options: { supervis
  * Takes coverage jobs off the queue one at a time (a run already uses every
  * core through the viewshed pool) and hands each run id to `handle`.
  */
-export async function workCoverageQueue(boss: PgBoss, handle: (runId: string) => Promise<void>): Promise<string> {
-  return boss.work<{ runId: string }>(COVERAGE_QUEUE, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
-    if (job) await handle(job.data.runId);
-  });
+export async function workCoverageQueue(
+  boss: PgBoss,
+  handle: (runId: string, attempt: number | undefined) => Promise<void>,
+): Promise<string> {
+  return boss.work<{ runId: string; attempt?: number }>(
+    COVERAGE_QUEUE,
+    { batchSize: 1, pollingIntervalSeconds: 1 },
+    async ([job]) => {
+      if (job) await handle(job.data.runId, job.data.attempt);
+    },
+  );
 }

@@ -6,7 +6,7 @@ import { endAllSessions, endSession } from '@/server/domain/auth/end-sessions';
 import { signIn } from '@/server/domain/auth/sign-in';
 import type { SignInLimiter } from '@/server/domain/auth/sign-in-limiter';
 import { setPasswordWithToken } from '@/server/domain/users/manage-users';
-import { requireUser } from '@/server/http/session';
+import { endingSessionsOf, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 
 export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
@@ -25,13 +25,13 @@ export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
 
   // Both end sessions on the server: a copy of the cookie is refused afterwards, not only forgotten here.
   router.post('/auth/sign-out', async (req, res) => {
-    await endSession(req.session);
+    await endingSessionsOf(req, req.session.userId, () => endSession(req.session));
     req.session.destroy();
     res.status(204).end();
   });
 
   router.post('/auth/sign-out-everywhere', requireUser, async (req, res) => {
-    await endAllSessions(req.session);
+    await endingSessionsOf(req, req.session.userId, () => endAllSessions(req.session));
     req.session.destroy();
     res.status(204).end();
   });

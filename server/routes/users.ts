@@ -4,7 +4,7 @@ import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { InviteUserRequestSchema, UpdateUserRequestSchema } from '@/shared/schemas/auth';
 import { inviteUser, listUsers, updateUser } from '@/server/domain/users/manage-users';
-import { actorOf, requireRole, requireUser } from '@/server/http/session';
+import { actorOf, endingSessionsOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 import type { Mailer } from '@/server/domain/ports/mailer';
 import { invitation } from '@/server/mail/templates';
@@ -47,7 +47,10 @@ export function userRoutes(db: Sequelize, publicUrl: () => string, mailer: Maile
   router.patch('/users/:userId', async (req, res) => {
     const { userId } = parseOrThrow(IdParam, req.params, 'address');
     const input = parseOrThrow(UpdateUserRequestSchema, req.body, 'change');
-    res.json({ user: await updateUser({ db }, actorOf(req), userId, input) });
+    // A new role or (de)activation ends the person's sessions: answer once every process has forgotten them.
+    const endsSessions = input.role !== undefined || input.active !== undefined;
+    const change = () => updateUser({ db }, actorOf(req), userId, input);
+    res.json({ user: await (endsSessions ? endingSessionsOf(req, userId, change) : change()) });
   });
 
   return router;

@@ -564,6 +564,8 @@ async function test() {
       PORT: String(port),
       HOST: '127.0.0.1',
       NODE_ENV: 'test',
+      // One API process: the browser tests and Jest share the two cores with it.
+      WEB_CONCURRENCY: '1',
       SIGN_IN_LIMIT_PER_ADDRESS: '1000',
       FILE_STORE_DIR: testFiles,
       ...mailEnv(caught),
@@ -608,9 +610,12 @@ async function bench() {
   try {
     tsx('server/scripts/prepare-database.ts', ['--database', name, '--seed', '--fresh', '--files', benchFiles], {
       KENNING_ADMIN_DATABASE_URL: adminUrl,
+      KENNING_APP_DATABASE_PASSWORD: pg.appPassword,
     });
     tsx('tests/bench/run.ts', process.argv.slice(3), {
       KENNING_BENCH_DATABASE_URL: pg.url(name),
+      // The API benchmark runs the server as production does: as the application's role.
+      KENNING_BENCH_APP_DATABASE_URL: pg.appUrl(name),
       KENNING_BENCH_FILES_DIR: benchFiles,
     });
   } finally {

@@ -23,13 +23,15 @@ async function main() {
   const pool = createViewshedPool({ size: cfg.COVERAGE_WORKER_THREADS });
   // Viewsheds kept between runs: a plan changed in one post recomputes that post only.
   const computeViewsheds = cachingViewsheds(poolViewsheds(pool), cfg.TERRAIN_CACHE_MB * 2 ** 20);
-  const { boss, stop } = await startCoverageBoss(cfg.DATABASE_URL);
-  await workCoverageQueue(boss, async (runId) => {
-    const outcome = await withHeartbeat(db, runId, () => processCoverageRun({ db, cache, computeViewsheds }, runId));
+  const { boss, queue, stop } = await startCoverageBoss(cfg.DATABASE_URL);
+  await workCoverageQueue(boss, async (runId, attempt) => {
+    const outcome = await withHeartbeat(db, runId, () => processCoverageRun({ db, cache, computeViewsheds }, runId, attempt), {
+      attempt,
+    });
     console.log(`[kenning] coverage run ${runId}: ${outcome}`);
   });
-  // Any live worker fails the runs of workers that died mid-run.
-  const reaper = startStaleRunReaper(db);
+  // Any live worker queues again (once), then fails, the runs of workers that died mid-run.
+  const reaper = startStaleRunReaper(db, { requeue: (runId, next) => queue.enqueue(runId, next) });
   console.log(`[kenning] coverage worker ready (${pool.size} viewshed threads)`);
 
   let stopping = false;

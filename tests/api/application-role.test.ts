@@ -103,6 +103,15 @@ describe('the application role', () => {
     expect(await attempt(sql)).toBe('42501');
   });
 
+  it('cannot change or remove a coverage run that has ended', async () => {
+    const { rows } = await asApp.query("SELECT count(*)::int AS n FROM coverage_runs WHERE status = 'done'");
+    expect(rows[0].n).toBeGreaterThan(0); // the demo's computed runs
+    // P0001 = raise_exception, from the coverage_runs_finished_frozen trigger (migration 0019).
+    expect(await attempt("UPDATE coverage_runs SET status = 'queued' WHERE status = 'done'")).toBe('P0001');
+    expect(await attempt("UPDATE coverage_runs SET cases = '[]' WHERE status = 'done'")).toBe('P0001');
+    expect(await attempt("DELETE FROM coverage_runs WHERE status = 'done'")).not.toBe('ok');
+  });
+
   it('may read, add audit events and edit ordinary rows', async () => {
     expect(await attempt('SELECT count(*) FROM plans')).toBe('ok');
     expect(await attempt("UPDATE plans SET title = title WHERE status = 'draft'")).toBe('ok');

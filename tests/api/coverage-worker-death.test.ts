@@ -3,15 +3,16 @@ import path from 'node:path';
 import type { Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '@/server/app';
-import { startStaleRunReaper, WORKER_STOPPED } from '@/server/domain/coverage/run-heartbeat';
+import { MAX_ATTEMPTS, REQUEUED_STAGE, startStaleRunReaper, WORKER_STOPPED } from '@/server/domain/coverage/run-heartbeat';
 import { startCoverageBoss, type CoverageBoss } from '@/server/queue/coverage-queue';
 import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
 
 // A coverage worker process killed with SIGKILL in the middle of a run: its run
 // must not stay "running" (which blocked submitting for half an hour). Its
-// heartbeat stops, and the server's reaper fails the run with the reason within a
-// minute; the plan can then be computed again.
+// heartbeat stops, and within a minute the server's reaper queues the run again
+// for another worker; when that one is killed too, the run fails with the reason
+// within a minute, and the plan can be computed again.
 
 let db: Sequelize;
 let url: string;
@@ -19,7 +20,7 @@ let drop: () => Promise<void>;
 let filesDir: string;
 let boss: CoverageBoss;
 let app: Express;
-let worker: ChildProcess | null = null;
+const workers: ChildProcess[] = [];
 
 beforeAll(async () => {
   ({ db, url, drop } = await createTestDatabase());
@@ -29,7 +30,7 @@ beforeAll(async () => {
   app = createApp({ db, config: TEST_CONFIG, files: store.files, coverageQueue: boss.queue });
 });
 afterAll(async () => {
-  if (worker && worker.exitCode === null && worker.signalCode === null) worker.kill('SIGKILL');
+  for (const w of workers) if (w.exitCode === null && w.signalCode === null) w.kill('SIGKILL');
   await boss.stop();
   await drop();
 });
@@ -42,6 +43,7 @@ function startWorkerProcess(): Promise<ChildProcess> {
     env: { ...process.env, DATABASE_URL: url, FILE_STORE_DIR: filesDir, COVERAGE_WORKER_THREADS: '1', NODE_ENV: 'test' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
+  workers.push(child);
   return new Promise((resolve, reject) => {
     const timer = setTimeout(() => reject(new Error('the worker did not start')), 60_000);
     child.stdout!.on('data', (chunk: Buffer) => {
@@ -56,12 +58,23 @@ function startWorkerProcess(): Promise<ChildProcess> {
 }
 
 const runRow = async (id: string) =>
-  (await db.query('SELECT status, error, heartbeat_at FROM coverage_runs WHERE id = :id', {
+  (await db.query('SELECT status, error, stage, attempts, heartbeat_at FROM coverage_runs WHERE id = :id', {
     replacements: { id },
     plain: true,
-  })) as { status: string; error: string | null; heartbeat_at: Date | null };
+  })) as { status: string; error: string | null; stage: string; attempts: number; heartbeat_at: Date | null };
 
-it('fails the run of a worker killed mid-run within a minute, with the reason, and computes it again on request', async () => {
+/** Polls the run until `done` says so, at most `ms`; returns the last row. */
+async function waitForRun(id: string, done: (row: Awaited<ReturnType<typeof runRow>>) => boolean, ms: number) {
+  const until = Date.now() + ms;
+  let row = await runRow(id);
+  while (!done(row) && Date.now() < until) {
+    await new Promise((r) => setTimeout(r, 200));
+    row = await runRow(id);
+  }
+  return row;
+}
+
+it('queues the run of a worker killed mid-run again for another worker within a minute, and fails it with the reason when that one dies too', async () => {
   const planner = await signedInAgent(app, DEMO.planner);
   const sites = (await planner.get('/api/v1/sites')).body.items;
   const site = sites.find((s: { name: string }) => s.name === 'Harrowmere Forest District');
@@ -79,31 +92,36 @@ it('fails the run of a worker killed mid-run within a minute, with the reason, a
   expect(plan.status).toBe(201);
   const planId = plan.body.plan.id;
 
-  worker = await startWorkerProcess();
+  const first = await startWorkerProcess();
   const requested = await planner.post(`/api/v1/plans/${planId}/coverage`).send({});
   expect(requested.status).toBe(202);
   const runId = requested.body.run.id as string;
 
   // Wait until the worker is on it and beating, then kill it outright.
-  for (let i = 0; ; i++) {
-    const row = await runRow(runId);
-    if (row.status === 'running' && row.heartbeat_at) break;
-    if (i > 600 || row.status !== 'queued') throw new Error(`the run never ran: ${row.status}`);
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  worker.kill('SIGKILL');
-  const killedAt = Date.now();
+  const taken = await waitForRun(runId, (r) => r.status !== 'queued', 120_000);
+  expect(taken).toMatchObject({ status: 'running', attempts: 1 });
+  first.kill('SIGKILL');
+  let killedAt = Date.now();
+  // Another worker is there to take it again.
+  const second = await startWorkerProcess();
 
-  // The API server's reaper (as server/start.ts runs it).
-  const reaper = startStaleRunReaper(db);
+  // The API server's reaper, as server/start.ts runs it.
+  const reaper = startStaleRunReaper(db, { requeue: (id, attempt) => boss.queue.enqueue(id, attempt) });
   try {
-    let row = await runRow(runId);
-    while (row.status === 'running' && Date.now() - killedAt < 60_000) {
-      await new Promise((r) => setTimeout(r, 500));
-      row = await runRow(runId);
-    }
-    expect(row.status).toBe('failed');
-    expect(row.error).toBe(WORKER_STOPPED);
+    const retried = await waitForRun(runId, (r) => r.attempts === 2, 60_000);
+    expect(Date.now() - killedAt).toBeLessThan(60_000);
+    expect(retried.attempts).toBe(MAX_ATTEMPTS);
+    expect(['queued', 'running']).toContain(retried.status);
+    if (retried.status === 'queued') expect(retried.stage).toBe(REQUEUED_STAGE);
+    // The second worker computes it from the start.
+    const resumed = await waitForRun(runId, (r) => r.status === 'running' && r.heartbeat_at !== null, 30_000);
+    expect(resumed).toMatchObject({ status: 'running', attempts: 2 });
+
+    second.kill('SIGKILL');
+    killedAt = Date.now();
+    const failed = await waitForRun(runId, (r) => r.status !== 'running', 60_000);
+    expect(failed.status).toBe('failed');
+    expect(failed.error).toBe(WORKER_STOPPED);
     expect(Date.now() - killedAt).toBeLessThan(60_000);
   } finally {
     reaper.stop();
@@ -115,4 +133,4 @@ it('fails the run of a worker killed mid-run within a minute, with the reason, a
   const again = await planner.post(`/api/v1/plans/${planId}/coverage`).send({});
   expect(again.status).toBe(202);
   expect(again.body.run.id).not.toBe(runId);
-}, 150_000);
+}, 300_000);

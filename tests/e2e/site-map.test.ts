@@ -11,7 +11,7 @@ beforeAll(async () => {
 });
 afterAll(() => close());
 
-// The demo district's tower (server/data/seeders/demo.ts): UTM zone 33N, invented coordinates.
+// The demo district's tower (server/seeders/demo.ts): UTM zone 33N, invented coordinates.
 const CRANE_KNOLL = { easting: 516_200, northing: 5_741_300 };
 
 /** Reads the scale bar: its ground length and drawn length, so metres per pixel. */

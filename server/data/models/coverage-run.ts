@@ -27,6 +27,8 @@ export class CoverageRunModel extends Model<InferAttributes<CoverageRunModel>, I
   declare stage: CreationOptional<string>;
   declare error: CreationOptional<string | null>;
   declare jobId: CreationOptional<string | null>;
+  /** How often the run was handed to a worker (1, or 2 after the first worker died). */
+  declare attempts: CreationOptional<number>;
   declare requestedById: string | null;
   declare grid: CreationOptional<CoverageRunGrid | null>;
   declare cases: CreationOptional<CoverageCase[]>;
@@ -52,6 +54,7 @@ export class CoverageRunModel extends Model<InferAttributes<CoverageRunModel>, I
         stage: { type: DataTypes.STRING(200), allowNull: false, defaultValue: 'Waiting for a worker' },
         error: { type: DataTypes.TEXT, allowNull: true },
         jobId: { type: DataTypes.STRING(64), allowNull: true },
+        attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         requestedById: { type: DataTypes.UUID, allowNull: true },
         grid: { type: DataTypes.JSONB, allowNull: true },
         cases: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },

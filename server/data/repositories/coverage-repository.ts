@@ -19,6 +19,8 @@ export interface CoverageRunRecord {
   stage: string;
   error: string | null;
   jobId: string | null;
+  /** How often the run was handed to a worker. */
+  attempts: number;
   requestedBy: { id: string | null; name: string };
   grid: CoverageRunGrid | null;
   cases: CoverageCase[];
@@ -50,6 +52,7 @@ async function toRecords(rows: CoverageRunModel[], transaction?: Transaction): P
     stage: r.stage,
     error: r.error,
     jobId: r.jobId,
+    attempts: r.attempts,
     requestedBy: { id: r.requestedById, name: r.requestedById ? (names.get(r.requestedById) ?? '(removed user)') : '(seed)' },
     grid: r.grid,
     cases: r.cases,
@@ -99,14 +102,19 @@ export const coverageRepository = {
     return one(await CoverageRunModel.findOne({ where: { planId }, order: [['createdAt', 'DESC']], transaction }), transaction);
   },
 
-  /** Changes a run that has not ended; returns false when it had (nothing changed). */
+  /**
+   * Changes a run that has not ended (and, given `attempt`, is still that attempt: a worker
+   * whose run was handed to another after it went quiet changes nothing); returns false
+   * when it had (nothing changed).
+   */
   async updateActive(
     id: string,
     changes: Partial<Pick<CoverageRunModel, 'status' | 'progress' | 'stage' | 'error' | 'jobId' | 'startedAt' | 'finishedAt'>>,
     transaction?: Transaction,
+    attempt?: number,
   ): Promise<boolean> {
     const [count] = await CoverageRunModel.update(changes, {
-      where: { id, status: { [Op.in]: ['queued', 'running'] } },
+      where: { id, status: { [Op.in]: ['queued', 'running'] }, ...(attempt !== undefined && { attempts: attempt }) },
       transaction,
     });
     return count > 0;

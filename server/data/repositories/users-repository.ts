@@ -1,6 +1,7 @@
 import { literal, Op, type Transaction } from 'sequelize';
 import type { ManagedUser, Role, User } from '@/shared/schemas/auth';
 import { OrganizationModel, UserModel } from '../models';
+import { announceSessionsEnded } from '../session-notices';
 
 /** What sign-in needs to know about an account. */
 export interface Credentials {
@@ -89,12 +90,15 @@ export const usersRepository = {
       'INSERT INTO ended_sessions (nonce, user_id, expires_at) VALUES (:nonce, :userId, :expiresAt) ON CONFLICT DO NOTHING',
       { replacements: { nonce, userId, expiresAt } },
     );
+    await announceSessionsEnded(db, userId);
   },
 
   /** Ends every session of the user issued so far (their cookies carry an older generation). */
   async endSessions(id: string, transaction?: Transaction): Promise<void> {
     // Not an edit of the account: no version bump, no updatedAt.
     await UserModel.increment({ sessionGeneration: 1 }, { where: { id }, transaction, silent: true });
+    // Every API process forgets the user's cached sessions when this commits.
+    await announceSessionsEnded(UserModel.sequelize!, id, transaction);
   },
 
   /** Every e-mail address of the organisation's accounts (any status). */

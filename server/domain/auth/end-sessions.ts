@@ -38,9 +38,28 @@ export async function endAllSessions(cookie: SessionCookie): Promise<void> {
  * ended (signed out, signed out everywhere, new password or role, deactivated).
  * The session middleware asks this on every request.
  */
-export async function liveSessionUser(cookie: SessionCookie): Promise<User | null> {
-  if (!cookie.userId) return null;
-  const found = await usersRepository.activeById(cookie.userId, cookie.nonce);
+/** A user as a session check loads it: the account plus what decides whether a cookie is still live. */
+export type SessionUser = NonNullable<Awaited<ReturnType<typeof usersRepository.activeById>>>;
+
+/** Loads a cookie's user from the database (also the loader of the HTTP layer's session-user cache). */
+export const loadSessionUser = (userId: string, nonce: string | undefined): Promise<SessionUser | null> =>
+  usersRepository.activeById(userId, nonce);
+
+/** Somewhere recently loaded session users are remembered for a few seconds (one per process). */
+export interface SessionUserSource {
+  get(userId: string, nonce: string | undefined, keep: (user: SessionUser) => boolean): Promise<SessionUser | null>;
+}
+
+/**
+ * The cookie's user when the cookie is still live: signed in, not signed out (here or everywhere), no new
+ * password or role since, still active. `recent` answers from its short memory when it can.
+ */
+export async function liveSessionUser(cookie: SessionCookie, recent?: SessionUserSource | null): Promise<User | null> {
+  const { userId } = cookie;
+  if (!userId) return null;
+  const found = recent
+    ? await recent.get(userId, cookie.nonce, (u) => sessionIsLive(u, cookie))
+    : await loadSessionUser(userId, cookie.nonce);
   if (!found || !sessionIsLive(found, cookie)) return null;
   const { sessionGeneration: _generation, sessionEnded: _ended, ...user } = found;
   return user;

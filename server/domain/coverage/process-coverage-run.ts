@@ -37,17 +37,21 @@ export const poolViewsheds =
 export async function processCoverageRun(
   deps: CoverageWorkerDeps,
   runId: string,
+  jobAttempt?: number,
 ): Promise<'done' | 'cancelled' | 'failed' | 'skipped'> {
   const run = await coverageRepository.findById(runId);
   if (!run || (run.status !== 'queued' && run.status !== 'running')) return 'skipped';
+  // A job of an earlier attempt (pg-boss hands out a dead worker's job again much later) finds
+  // the run queued again under a newer attempt, which another job carries.
+  if (jobAttempt !== undefined && jobAttempt !== run.attempts) return 'skipped';
+  const attempt = run.attempts;
   const started = performance.now();
-  const begun = await coverageRepository.updateActive(runId, {
-    status: 'running',
-    progress: 0,
-    stage: 'Loading the terrain',
-    error: null,
-    startedAt: new Date(),
-  });
+  const begun = await coverageRepository.updateActive(
+    runId,
+    { status: 'running', progress: 0, stage: 'Loading the terrain', error: null, startedAt: new Date() },
+    undefined,
+    attempt,
+  );
   if (!begun) return 'cancelled';
   const inputs = run.inputs as CoverageRunInputs;
   const every = deps.progressEveryMs ?? 400;
@@ -56,7 +60,7 @@ export async function processCoverageRun(
     const now = performance.now();
     if (now - lastWrite < every && progress < 0.99) return;
     lastWrite = now;
-    if (!(await coverageRepository.updateActive(runId, { progress, stage }))) throw new RunCancelled();
+    if (!(await coverageRepository.updateActive(runId, { progress, stage }, undefined, attempt))) throw new RunCancelled();
   };
   try {
     let terrain;
@@ -70,7 +74,7 @@ export async function processCoverageRun(
     const result = await computeCoverage(inputs, terrain, deps.computeViewsheds, report);
     const written = await deps.db.transaction(async (t) => {
       const locked = await coverageRepository.findById(runId, t, true);
-      if (locked?.status !== 'running') return false;
+      if (locked?.status !== 'running' || locked.attempts !== attempt) return false;
       await coverageRepository.addLayers(runId, result.layers, t);
       await coverageRepository.finish(
         runId,
@@ -87,12 +91,12 @@ export async function processCoverageRun(
         ? error.message
         : 'The computation failed on the server. Try again; if it fails again, tell your administrator.';
     if (!(error instanceof TerrainInputError)) console.error(`[kenning] coverage run ${runId} failed:`, error);
-    const marked = await coverageRepository.updateActive(runId, {
-      status: 'failed',
-      stage: 'Failed',
-      error: reason,
-      finishedAt: new Date(),
-    });
+    const marked = await coverageRepository.updateActive(
+      runId,
+      { status: 'failed', stage: 'Failed', error: reason, finishedAt: new Date() },
+      undefined,
+      attempt,
+    );
     return marked ? 'failed' : 'cancelled';
   }
 }

@@ -10,7 +10,7 @@ const ring = (corners: [number, number][]) =>
     return [p.lonDeg, p.latDeg] as [number, number];
   });
 
-// The invented demo district (server/data/seeders/demo.ts), in UTM zone 33N.
+// The invented demo district (server/seeders/demo.ts), in UTM zone 33N.
 const site: Site = {
   id: '00000000-0000-4000-8000-000000000010',
   name: 'Harrowmere Forest District',
