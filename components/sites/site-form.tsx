@@ -15,6 +15,7 @@ import {
   type Site,
   type SiteKind,
 } from '@/shared/schemas/site';
+import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
 import { applyServerErrors } from '@/components/data/server-errors';
@@ -29,13 +30,6 @@ import { space } from '@/components/ui/theme';
 import { GeoJsonImport } from './geojson-import';
 import { RingField } from './ring-field';
 import type { RingDrawContext } from './ring-draw-map';
-
-type UnitSystem = (typeof UNIT_SYSTEM_IDS)[number];
-export const UNIT_SYSTEM_LABELS: Record<UnitSystem, string> = {
-  metric: 'Metric (m, km)',
-  nautical: 'Nautical (m, nmi)',
-  imperial: 'Imperial (ft, mi)',
-};
 
 /** A typed number or nothing: '' → null, '12,5' → 12.5, anything else as typed (the schema says why). */
 function optionalNumber(v: unknown): unknown {
@@ -192,7 +186,7 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
             label="Default units"
             value={field.value ?? 'metric'}
             onChange={field.onChange}
-            options={UNIT_SYSTEM_IDS.map((u) => ({ value: u, label: UNIT_SYSTEM_LABELS[u] }))}
+            options={UNIT_SYSTEM_IDS.map((u) => ({ value: u, label: UNIT_SYSTEMS[u].name }))}
           />
         )}
       />
