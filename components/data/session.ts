@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { MeResponseSchema, type SignInRequest, type User } from '@/shared/schemas/auth';
+import { MeResponseSchema, type MeUpdate, type SignInRequest, type User } from '@/shared/schemas/auth';
+import { unitSystemFor, type UnitSystem } from '@/shared/units/unit-systems';
 import { resetLanding } from './first-landing';
 import { api, ApiRequestError } from './api-client';
 import { STALE } from './query-client';
@@ -72,4 +73,22 @@ export function useSetPassword() {
   return useMutation({
     mutationFn: (input: { token: string; password: string }) => api.post('/auth/set-password', input, null),
   });
+}
+
+/** Saves the person's own settings (their unit system; null = each site's default). */
+export function useUpdateMe() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: MeUpdate) => api.patch('/me', input, MeResponseSchema),
+    onSuccess: ({ user }) => qc.setQueryData(sessionKeys.me(), user),
+  });
+}
+
+/**
+ * The unit system a person sees: their own choice (account page), else the
+ * site's default units, else metric.
+ */
+export function useUnitSystem(siteDefault?: UnitSystem | null): UnitSystem {
+  const { data: user } = useSession();
+  return unitSystemFor(user?.unitPreference, siteDefault);
 }

@@ -1,4 +1,4 @@
-import { convertLength, type LengthUnit } from '@/shared/units/length';
+import type { LengthUnit } from '@/shared/units/length';
 
 /** The unit systems a site defaults to and a person may prefer (`Site.defaultUnits`, `User.unitPreference`). */
 export const UNIT_SYSTEM_IDS = ['metric', 'nautical', 'imperial'] as const;

@@ -1,0 +1,65 @@
+import { useEffect, useRef } from 'react';
+import { Controller, type Control, type FieldValues, type Path } from 'react-hook-form';
+import type { LengthUnit } from '@/shared/units/length';
+import { restateLengths, retypeLength } from '@/shared/units/typed-lengths';
+import { TextField, type TextFieldProps } from './text-field';
+
+type Props<T extends FieldValues> = { control: Control<T>; name: Path<T>; unit: LengthUnit } & Omit<
+  TextFieldProps,
+  'value' | 'onChangeText' | 'onBlur' | 'error' | 'unit' | 'inputMode'
+>;
+
+/**
+ * A length typed in the person's unit, bound to a react-hook-form field that
+ * holds the text. The unit is written in the field; when `unit` changes the
+ * text is re-typed in the new unit (the same length, rounded to the precision
+ * typed — never "984.252 ft"); errors, the form's or the server's (which
+ * speak metres), are restated in the field's unit and announced as alerts.
+ * The form turns the text into metres when it saves (`typedToMetres`).
+ */
+export function UnitNumberField<T extends FieldValues>({ control, name, unit, ...props }: Props<T>) {
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field, fieldState }) => (
+        <RetypedOnUnitChange unit={unit} text={String(field.value ?? '')} onRetype={field.onChange}>
+          <TextField
+            {...props}
+            ref={field.ref}
+            unit={unit}
+            inputMode="decimal"
+            value={String(field.value ?? '')}
+            onChangeText={field.onChange}
+            onBlur={field.onBlur}
+            error={fieldState.error?.message ? restateLengths(fieldState.error.message, unit) : undefined}
+          />
+        </RetypedOnUnitChange>
+      )}
+    />
+  );
+}
+
+function RetypedOnUnitChange({
+  unit,
+  text,
+  onRetype,
+  children,
+}: {
+  unit: LengthUnit;
+  text: string;
+  onRetype: (text: string) => void;
+  children: React.ReactNode;
+}) {
+  const shownIn = useRef(unit);
+  useEffect(() => {
+    const from = shownIn.current;
+    if (from === unit) return;
+    shownIn.current = unit;
+    const retyped = retypeLength(text, from, unit);
+    if (retyped !== text) onRetype(retyped);
+    // Only a change of unit re-types; typing does not.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [unit]);
+  return <>{children}</>;
+}
