@@ -4,7 +4,7 @@ import type { LengthUnit } from '@/shared/units/length';
 import { restateLengths, retypeLength } from '@/shared/units/typed-lengths';
 import { TextField, type TextFieldProps } from './text-field';
 
-type Props<T extends FieldValues> = { control: Control<T>; name: Path<T>; unit: LengthUnit } & Omit<
+type Props<T extends FieldValues, TOut> = { control: Control<T, unknown, TOut>; name: Path<T>; unit: LengthUnit } & Omit<
   TextFieldProps,
   'value' | 'onChangeText' | 'onBlur' | 'error' | 'unit' | 'inputMode'
 >;
@@ -17,7 +17,7 @@ type Props<T extends FieldValues> = { control: Control<T>; name: Path<T>; unit: 
  * speak metres), are restated in the field's unit and announced as alerts.
  * The form turns the text into metres when it saves (`typedToMetres`).
  */
-export function UnitNumberField<T extends FieldValues>({ control, name, unit, ...props }: Props<T>) {
+export function UnitNumberField<T extends FieldValues, TOut = T>({ control, name, unit, ...props }: Props<T, TOut>) {
   return (
     <Controller
       control={control}

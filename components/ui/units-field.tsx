@@ -9,7 +9,7 @@ import { Segmented } from '@/components/check/unit-switch';
  * `UnitNumberField` of the form is typed in (they re-type what was typed when
  * it changes). Starts at the person's choice or the site's default.
  */
-export function UnitsField<T extends FieldValues>({ control, name }: { control: Control<T>; name: Path<T> }) {
+export function UnitsField<T extends FieldValues, TOut = T>({ control, name }: { control: Control<T, unknown, TOut>; name: Path<T> }) {
   return (
     <Controller
       control={control}
@@ -34,7 +34,7 @@ export function UnitsField<T extends FieldValues>({ control, name }: { control: 
  * field error lands under the field of the same name.
  */
 export function unitsResolver<In extends FieldValues & { units: UnitSystem }, Out>(
-  schemaFor: (units: UnitSystem) => z.ZodType<Out, In>,
+  schemaFor: (units: UnitSystem) => z.ZodType<Out>,
 ): Resolver<In, unknown, Out> {
   const schemas = new Map<UnitSystem, Resolver<In, unknown, Out>>();
   return (values, context, options) => {
