@@ -4,7 +4,13 @@ import type { LengthUnit } from '@/shared/units/length';
 import { restateLengths, retypeLength } from '@/shared/units/typed-lengths';
 import { TextField, type TextFieldProps } from './text-field';
 
-type Props<T extends FieldValues, TOut> = { control: Control<T, unknown, TOut>; name: Path<T>; unit: LengthUnit } & Omit<
+type Props<T extends FieldValues, TOut> = {
+  control: Control<T, unknown, TOut>;
+  name: Path<T>;
+  unit: LengthUnit;
+  /** Called with the new text after the field takes it (e.g. to clear a field it excludes). */
+  onChangeTextAlso?: (text: string) => void;
+} & Omit<
   TextFieldProps,
   'value' | 'onChangeText' | 'onBlur' | 'error' | 'unit' | 'inputMode'
 >;
@@ -17,7 +23,7 @@ type Props<T extends FieldValues, TOut> = { control: Control<T, unknown, TOut>; 
  * speak metres), are restated in the field's unit and announced as alerts.
  * The form turns the text into metres when it saves (`typedToMetres`).
  */
-export function UnitNumberField<T extends FieldValues, TOut = T>({ control, name, unit, ...props }: Props<T, TOut>) {
+export function UnitNumberField<T extends FieldValues, TOut = T>({ control, name, unit, onChangeTextAlso, ...props }: Props<T, TOut>) {
   return (
     <Controller
       control={control}
@@ -30,7 +36,10 @@ export function UnitNumberField<T extends FieldValues, TOut = T>({ control, name
             unit={unit}
             inputMode="decimal"
             value={String(field.value ?? '')}
-            onChangeText={field.onChange}
+            onChangeText={(text) => {
+              field.onChange(text);
+              onChangeTextAlso?.(text);
+            }}
             onBlur={field.onBlur}
             error={fieldState.error?.message ? restateLengths(fieldState.error.message, unit) : undefined}
           />
