@@ -96,8 +96,8 @@ function UnitPreferenceForm({ user }: { user: User }) {
     <Card accent="moss" aria-label="Units">
       <AppText variant="heading">Units</AppText>
       <AppText variant="small" tone="muted">
-        Heights, distances and visibility in every form and result are shown and typed in these units. Kenning stores
-        metres either way.
+        Heights, distances and visibility in every form and result are shown and typed in these units. Kenning stores metres
+        either way.
       </AppText>
       <FormError message={formError} />
       <Controller

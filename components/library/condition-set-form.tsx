@@ -206,7 +206,9 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
                 key={id}
                 label={refractionPreset(id).label}
                 on={field.value.includes(id)}
-                onPress={() => field.onChange(field.value.includes(id) ? field.value.filter((x) => x !== id) : [...field.value, id])}
+                onPress={() =>
+                  field.onChange(field.value.includes(id) ? field.value.filter((x) => x !== id) : [...field.value, id])
+                }
               />
             ))}
           </ChipRow>
@@ -298,7 +300,12 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
         control={control}
         name="backgroundLighting"
         render={({ field }) => (
-          <Segmented label="Lights behind a target at night" value={field.value} onChange={field.onChange} options={LIGHTING_OPTIONS} />
+          <Segmented
+            label="Lights behind a target at night"
+            value={field.value}
+            onChange={field.onChange}
+            options={LIGHTING_OPTIONS}
+          />
         )}
       />
       {stale ? <StaleNotice what="condition set" onReload={() => void reload()} /> : null}

@@ -242,7 +242,13 @@ export function PostForm({
           />
         </View>
         <View style={{ flex: 1, minWidth: 140 }}>
-          <UnitNumberField control={control} name="eyeHeightM" unit={heightUnit} label="Eye above platform" onSubmitEditing={submit} />
+          <UnitNumberField
+            control={control}
+            name="eyeHeightM"
+            unit={heightUnit}
+            label="Eye above platform"
+            onSubmitEditing={submit}
+          />
         </View>
       </View>
       <View style={{ flexDirection: 'row', gap: space.md }}>

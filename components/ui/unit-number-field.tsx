@@ -10,10 +10,7 @@ type Props<T extends FieldValues, TOut> = {
   unit: LengthUnit;
   /** Called with the new text after the field takes it (e.g. to clear a field it excludes). */
   onChangeTextAlso?: (text: string) => void;
-} & Omit<
-  TextFieldProps,
-  'value' | 'onChangeText' | 'onBlur' | 'error' | 'unit' | 'inputMode'
->;
+} & Omit<TextFieldProps, 'value' | 'onChangeText' | 'onBlur' | 'error' | 'unit' | 'inputMode'>;
 
 /**
  * A length typed in the person's unit, bound to a react-hook-form field that
@@ -23,7 +20,13 @@ type Props<T extends FieldValues, TOut> = {
  * speak metres), are restated in the field's unit and announced as alerts.
  * The form turns the text into metres when it saves (`typedToMetres`).
  */
-export function UnitNumberField<T extends FieldValues, TOut = T>({ control, name, unit, onChangeTextAlso, ...props }: Props<T, TOut>) {
+export function UnitNumberField<T extends FieldValues, TOut = T>({
+  control,
+  name,
+  unit,
+  onChangeTextAlso,
+  ...props
+}: Props<T, TOut>) {
   return (
     <Controller
       control={control}

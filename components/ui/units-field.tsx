@@ -9,7 +9,13 @@ import { Segmented } from '@/components/check/unit-switch';
  * `UnitNumberField` of the form is typed in (they re-type what was typed when
  * it changes). Starts at the person's choice or the site's default.
  */
-export function UnitsField<T extends FieldValues, TOut = T>({ control, name }: { control: Control<T, unknown, TOut>; name: Path<T> }) {
+export function UnitsField<T extends FieldValues, TOut = T>({
+  control,
+  name,
+}: {
+  control: Control<T, unknown, TOut>;
+  name: Path<T>;
+}) {
   return (
     <Controller
       control={control}
