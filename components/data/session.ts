@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { MeResponseSchema, type MeUpdate, type SignInRequest, type User } from '@/shared/schemas/auth';
-import { unitSystemFor, type UnitSystem } from '@/shared/units/unit-systems';
+import type { LengthUnit } from '@/shared/units/length';
+import { UNIT_SYSTEMS, unitSystemFor, type UnitSystem } from '@/shared/units/unit-systems';
 import { resetLanding } from './first-landing';
 import { api, ApiRequestError } from './api-client';
 import { STALE } from './query-client';
@@ -91,4 +92,14 @@ export function useUpdateMe() {
 export function useUnitSystem(siteDefault?: UnitSystem | null): UnitSystem {
   const { data: user } = useSession();
   return unitSystemFor(user?.unitPreference, siteDefault);
+}
+
+/** The length units a person reads heights and distances in (see {@link useUnitSystem}). */
+export function useLengthUnits(siteDefault?: UnitSystem | null): {
+  height: LengthUnit;
+  distance: LengthUnit;
+  system: UnitSystem;
+} {
+  const system = useUnitSystem(siteDefault);
+  return { height: UNIT_SYSTEMS[system].height, distance: UNIT_SYSTEMS[system].distance, system };
 }
