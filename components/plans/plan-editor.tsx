@@ -7,9 +7,9 @@ import { TARGET_KIND_LABELS } from '@/shared/schemas/library';
 import { PlanInputSchema, type Plan } from '@/shared/schemas/plan';
 import { POST_KIND_LABELS } from '@/shared/schemas/site';
 import { Segmented } from '@/components/check/unit-switch';
-import { ApiRequestError } from '@/components/data/api-client';
 import { useConditionSets, useTargets } from '@/components/data/library';
 import { useCreatePlan, useUpdatePlan } from '@/components/data/plans';
+import { applyServerErrors } from '@/components/data/server-errors';
 import { sitePostsQuery, useSites } from '@/components/data/sites';
 import { describeCondition } from '@/components/library/describe-condition';
 import { AppText } from '@/components/ui/app-text';
@@ -128,19 +128,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
       }
       return;
     }
-    const onError = (e: unknown) => {
-      if (e instanceof ApiRequestError) {
-        let placed = 0;
-        for (const [path, message] of Object.entries(e.fields)) {
-          const field = fieldOf(path);
-          if (field) {
-            setError(field, { type: 'server', message });
-            placed++;
-          }
-        }
-        if (placed === 0 || placed < Object.keys(e.fields).length) setFormError(e.message);
-      } else setFormError(e instanceof Error ? e.message : 'Something went wrong.');
-    };
+    const onError = (e: unknown) => setFormError(applyServerErrors(e, setError, fieldOf));
     const open = (id: string) => router.replace({ pathname: '/plans/[planId]', params: { planId: id } });
     if (plan) {
       const { siteId: _site, ...changes } = parsed.data;
