@@ -64,11 +64,16 @@ function RetypedOnUnitChange({
   children: React.ReactNode;
 }) {
   const shownIn = useRef(unit);
+  // What was typed before the last switch and what the switch showed: switching back gives the
+  // typed text back where it was not edited (no 50 ft → 15.2 m → 49.9 ft drift).
+  const before = useRef<{ unit: LengthUnit; typed: string; shown: string } | null>(null);
   useEffect(() => {
     const from = shownIn.current;
     if (from === unit) return;
     shownIn.current = unit;
-    const retyped = retypeLength(text, from, unit);
+    const back = before.current?.unit === unit && before.current.shown === text ? before.current.typed : null;
+    const retyped = back ?? retypeLength(text, from, unit);
+    before.current = { unit: from, typed: text, shown: retyped };
     if (retyped !== text) onRetype(retyped);
     // Only a change of unit re-types; typing does not.
     // eslint-disable-next-line react-hooks/exhaustive-deps

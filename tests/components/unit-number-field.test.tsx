@@ -77,6 +77,20 @@ describe('UnitNumberField', () => {
     await waitFor(() => expect(input().value).toBe('1.52'));
   });
 
+  it('gives back what was typed when switching back without editing (no rounding drift)', async () => {
+    render(<Harness onSave={() => {}} />);
+    fireEvent.change(input(), { target: { value: '15.24' } });
+    fireEvent.click(screen.getByRole('radio', { name: 'ft · mi' }));
+    // Source: 15.24 m / 0.3048 = 50 ft exactly (NIST SP 811 B.8).
+    await waitFor(() => expect(input().value).toBe('50'));
+    fireEvent.click(screen.getByRole('radio', { name: 'm · km' }));
+    await waitFor(() => expect(input().value).toBe('15.24'));
+    fireEvent.change(input(), { target: { value: '2' } });
+    fireEvent.click(screen.getByRole('radio', { name: 'ft · nmi' }));
+    // Source: 2 m / 0.3048 = 6.5617 ft, three significant digits (the edited text is converted, not restored).
+    await waitFor(() => expect(input().value).toBe('6.56'));
+  });
+
   it('shows the schema’s error under the field, in the unit typed', async () => {
     const onSave = jest.fn();
     render(<Harness onSave={onSave} />);

@@ -104,7 +104,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('units on the %s viewpor
       await shot(page, 'units-post-form-metres', viewport);
       await switcher.getByRole('radio', { name: 'ft · mi' }).click();
       await until(async () => (await form.getByLabel('Eye above platform').inputValue()) === '6');
-      await form.getByLabel('Ground elevation').fill('1000');
+      // Back in feet, what was typed comes back as typed (no 50 ft → 15.2 m → 49.9 ft drift).
+      expect(await form.getByLabel('Ground elevation').inputValue()).toBe('1000');
+      expect(await form.getByLabel('Structure height').inputValue()).toBe('50');
       await shot(page, 'units-post-form-feet', viewport);
       // Enter in a field saves the form.
       await form.getByLabel('Eye above platform').press('Enter');
