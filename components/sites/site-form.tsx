@@ -42,25 +42,25 @@ import type { RingDrawContext } from './ring-draw-map';
  */
 export const siteFormSchema = (heightUnit: LengthUnit) =>
   SiteInputSchema.pick({
-  name: true,
-  kind: true,
-  notes: true,
-  boundary: true,
-  defaultUnits: true,
-  timeZone: true,
-  seaArea: true,
-}).extend({
-  seaLevelMaxM: z.preprocess((t) => typedToMetres(t, heightUnit), SiteInputSchema.shape.seaLevelMaxM),
-  targetGroundM: z.preprocess((t) => typedToMetres(t, heightUnit), SiteInputSchema.shape.targetGroundM),
-  priorityZones: z
-    .array(
-      PriorityZoneSchema.extend({
-        weight: z.coerce.number({ error: 'Weight is 1 to 10.' }).pipe(PriorityZoneSchema.shape.weight),
-        ring: RingSchema.nullable().refine((r) => r !== null, 'Draw, type or import the zone’s outline.'),
-      }),
-    )
-    .max(50, 'At most 50 zones.'),
-});
+    name: true,
+    kind: true,
+    notes: true,
+    boundary: true,
+    defaultUnits: true,
+    timeZone: true,
+    seaArea: true,
+  }).extend({
+    seaLevelMaxM: z.preprocess((t) => typedToMetres(t, heightUnit), SiteInputSchema.shape.seaLevelMaxM),
+    targetGroundM: z.preprocess((t) => typedToMetres(t, heightUnit), SiteInputSchema.shape.targetGroundM),
+    priorityZones: z
+      .array(
+        PriorityZoneSchema.extend({
+          weight: z.coerce.number({ error: 'Weight is 1 to 10.' }).pipe(PriorityZoneSchema.shape.weight),
+          ring: RingSchema.nullable().refine((r) => r !== null, 'Draw, type or import the zone’s outline.'),
+        }),
+      )
+      .max(50, 'At most 50 zones.'),
+  });
 export const SiteFormSchema = siteFormSchema('m');
 
 type FormIn = z.input<typeof SiteFormSchema>;

@@ -63,7 +63,9 @@ export type User = z.infer<typeof UserSchema>;
 /** `PATCH /me`: the signed-in person's own settings. */
 export const MeUpdateSchema = z.object({
   /** metric (m, km), nautical (ft, nmi) or imperial (ft, mi); null = follow each site's default units. */
-  unitPreference: z.enum(UNIT_SYSTEM_IDS, { error: 'Choose metric, nautical or imperial, or none to follow each site.' }).nullable(),
+  unitPreference: z
+    .enum(UNIT_SYSTEM_IDS, { error: 'Choose metric, nautical or imperial, or none to follow each site.' })
+    .nullable(),
 });
 export type MeUpdate = z.infer<typeof MeUpdateSchema>;
 
