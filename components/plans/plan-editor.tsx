@@ -10,7 +10,9 @@ import { Segmented } from '@/components/check/unit-switch';
 import { useConditionSets, useTargets } from '@/components/data/library';
 import { useCreatePlan, useUpdatePlan } from '@/components/data/plans';
 import { applyServerErrors } from '@/components/data/server-errors';
-import { sitePostsQuery, useSites } from '@/components/data/sites';
+import { useLengthUnits } from '@/components/data/session';
+import { lengthIn } from '@/components/check/format';
+import { siteQuery, sitePostsQuery, useSites } from '@/components/data/sites';
 import { describeCondition } from '@/components/library/describe-condition';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -96,6 +98,8 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
   const siteId = watch('siteId');
   const targetIds = watch('targetIds');
   const sites = useSites(1);
+  const chosenSite = useQuery({ ...siteQuery(siteId), enabled: siteId !== '' });
+  const { height } = useLengthUnits(chosenSite.data?.defaultUnits);
   const posts = useQuery({ ...sitePostsQuery(siteId), enabled: siteId !== '' });
   const targets = useTargets();
   const sets = useConditionSets();
@@ -193,7 +197,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
                   <CheckRow
                     key={p.id}
                     label={p.name}
-                    detail={`${POST_KIND_LABELS[p.kind]} · ${p.status} · eye ${(p.groundElevationM + p.structureHeightM + p.eyeHeightM).toFixed(1)} m above sea level`}
+                    detail={`${POST_KIND_LABELS[p.kind]} · ${p.status} · eye ${lengthIn(p.groundElevationM + p.structureHeightM + p.eyeHeightM, height, (m) => `${m.toFixed(1)} m`)} above sea level`}
                     checked={field.value.includes(p.id)}
                     onToggle={() => field.onChange(toggled(field.value, p.id))}
                   />
@@ -218,7 +222,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
                 <CheckRow
                   key={t.id}
                   label={t.name}
-                  detail={`${TARGET_KIND_LABELS[t.kind]} · ${t.heightM} m high, ${t.widthM} m wide · ${t.period}`}
+                  detail={`${TARGET_KIND_LABELS[t.kind]} · ${lengthIn(t.heightM, height)} high, ${lengthIn(t.widthM, height)} wide · ${t.period}`}
                   checked={field.value.includes(t.id)}
                   onToggle={() => field.onChange(toggled(field.value, t.id))}
                 />
