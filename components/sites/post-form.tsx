@@ -138,7 +138,7 @@ export function PostForm({
   const create = useCreatePost(siteId);
   const update = useUpdatePost(siteId, post?.id ?? '');
   const saving = post ? update : create;
-  const { control, handleSubmit, setError, setValue, reset, watch, getValues } = useForm<
+  const { control, handleSubmit, setError, setValue, reset, watch, getValues, formState } = useForm<
     PostFormValues,
     unknown,
     z.output<ReturnType<typeof postFormSchema>>
@@ -211,7 +211,7 @@ export function PostForm({
         }
         autoCapitalize="characters"
       />
-      {typeof located === 'string' ? (
+      {typeof located === 'string' && !formState.errors.location ? (
         <AppText variant="small" tone="danger" role="alert">
           {located}
         </AppText>
