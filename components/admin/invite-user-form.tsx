@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { InviteUserRequestSchema, type InviteUserRequest } from '@/shared/schemas/auth';
-import { applyServerErrors } from '@/components/auth/use-server-errors';
+import { applyServerErrors } from '@/components/data/server-errors';
 import { useInviteUser } from '@/components/data/users';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';

@@ -1,11 +1,18 @@
+import { useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';
-import { ROLE_LABELS } from '@/shared/schemas/auth';
-import { useSession, useSignOut, useSignOutEverywhere } from '@/components/data/session';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { MeUpdateSchema, ROLE_LABELS, type MeUpdate, type User } from '@/shared/schemas/auth';
+import { UNIT_SYSTEM_IDS, UNIT_SYSTEMS } from '@/shared/units/unit-systems';
+import { Segmented } from '@/components/check/unit-switch';
+import { applyServerErrors } from '@/components/data/server-errors';
+import { useSession, useSignOut, useSignOutEverywhere, useUpdateMe } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { SignOutIcon } from '@/components/ui/icons';
 import { Screen } from '@/components/ui/screen';
+import { FormError } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
 
 export function AccountPanel() {
@@ -31,6 +38,7 @@ export function AccountPanel() {
           </View>
         ))}
       </Card>
+      <UnitPreferenceForm user={user} />
       <Button
         kind="secondary"
         label="Sign out"
@@ -60,5 +68,68 @@ export function AccountPanel() {
         Kenning gives estimates for planning. Follow your agency's procedures and local regulations.
       </AppText>
     </Screen>
+  );
+}
+
+/**
+ * The person's own units for every form and read-out, saved on the server;
+ * "Each site's default" follows the units each site sets.
+ */
+function UnitPreferenceForm({ user }: { user: User }) {
+  const update = useUpdateMe();
+  const [formError, setFormError] = useState('');
+  const [saved, setSaved] = useState('');
+  const { control, handleSubmit, setError } = useForm<MeUpdate>({
+    resolver: zodResolver(MeUpdateSchema),
+    defaultValues: { unitPreference: user.unitPreference ?? null },
+  });
+  const save = handleSubmit((input) => {
+    setFormError('');
+    setSaved('');
+    update.mutate(input, {
+      onSuccess: ({ user: u }) =>
+        setSaved(u.unitPreference ? `Saved: ${UNIT_SYSTEMS[u.unitPreference].name}.` : "Saved: each site's default units."),
+      onError: (e) => setFormError(applyServerErrors(e, setError, ['unitPreference'])),
+    });
+  });
+  return (
+    <Card accent="moss" aria-label="Units">
+      <AppText variant="heading">Units</AppText>
+      <AppText variant="small" tone="muted">
+        Heights, distances and visibility in every form and result are shown and typed in these units. Kenning stores metres
+        either way.
+      </AppText>
+      <FormError message={formError} />
+      <Controller
+        control={control}
+        name="unitPreference"
+        render={({ field, fieldState }) => (
+          <View style={{ gap: space.xs }}>
+            <Segmented<string>
+              label="Your units"
+              value={field.value ?? 'site'}
+              onChange={(v) => field.onChange(v === 'site' ? null : v)}
+              options={[
+                { value: 'site', label: "Each site's default" },
+                ...UNIT_SYSTEM_IDS.map((u) => ({ value: u, label: UNIT_SYSTEMS[u].name })),
+              ]}
+            />
+            {fieldState.error ? (
+              <AppText variant="small" tone="danger" role="alert">
+                {fieldState.error.message}
+              </AppText>
+            ) : null}
+          </View>
+        )}
+      />
+      <View aria-live="polite">{saved ? <AppText variant="small">{saved}</AppText> : null}</View>
+      <Button
+        label="Save units"
+        onPress={() => void save()}
+        busy={update.isPending}
+        disabled={update.isPending}
+        style={{ alignSelf: 'flex-start' }}
+      />
+    </Card>
   );
 }

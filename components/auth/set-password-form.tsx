@@ -11,7 +11,7 @@ import { Button } from '@/components/ui/button';
 import { FormError, Notice } from '@/components/ui/states';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { colors, space } from '@/components/ui/theme';
-import { applyServerErrors } from './use-server-errors';
+import { applyServerErrors } from '@/components/data/server-errors';
 
 const FormSchema = z
   .object({ password: NewPasswordSchema, repeat: z.string() })

@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/states';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { space } from '@/components/ui/theme';
-import { applyServerErrors } from './use-server-errors';
+import { applyServerErrors } from '@/components/data/server-errors';
 
 export function SignInForm() {
   const signIn = useSignIn();

@@ -4,7 +4,8 @@ import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import type { PlanResultRow } from '@/shared/schemas/plan';
 import { POST_KIND_LABELS } from '@/shared/schemas/site';
 import { CautionsPanel } from '@/components/check/cautions-panel';
-import { formatLength, LIMIT_LABELS } from '@/components/check/format';
+import { formatLength, lengthIn, LIMIT_LABELS } from '@/components/check/format';
+import { useLengthUnits } from '@/components/data/session';
 import { useBriefing } from '@/components/data/roster';
 import { when } from '@/components/plans/when';
 import { AppText } from '@/components/ui/app-text';
@@ -24,6 +25,7 @@ export function BriefingScreen() {
   const briefing = useBriefing();
   const router = useRouter();
   const { wide } = useLayout();
+  const { height, distance } = useLengthUnits();
   if (briefing.isPending) return <LoadingState label="Loading your briefing…" />;
   if (briefing.isError) return <ErrorState error={briefing.error} onRetry={() => void briefing.refetch()} />;
   const { assignments, posts } = briefing.data;
@@ -53,7 +55,8 @@ export function BriefingScreen() {
           <AppText variant="title">{post.name}</AppText>
           <AppText tone="muted">
             {POST_KIND_LABELS[post.kind]} · {siteName} · {formatCoordinate(post.location, 'ddm')} · eye{' '}
-            {(post.groundElevationM + post.structureHeightM + post.eyeHeightM).toFixed(1)} m above sea level
+            {lengthIn(post.groundElevationM + post.structureHeightM + post.eyeHeightM, height, (m) => `${m.toFixed(1)} m`)} above
+            sea level
             {post.sector ? ` · watch ${post.sector.fromDeg}°–${post.sector.toDeg}°` : ' · all round'}
           </AppText>
           {plan ? (
@@ -62,7 +65,7 @@ export function BriefingScreen() {
                 Approved plan “{plan.title}” v{plan.version}, revision {plan.revision}, approved {when(plan.approvedAt)}.
               </AppText>
               {terrainView ? (
-                <TerrainViewCard view={terrainView} siteName={siteName} wide={wide} watch={post.sector} />
+                <TerrainViewCard view={terrainView} siteName={siteName} wide={wide} watch={post.sector} distance={distance} />
               ) : siteHasTerrain ? (
                 <Notice tone="caution">
                   <AppText>
@@ -91,7 +94,7 @@ export function BriefingScreen() {
                         style={{ flexDirection: 'row', gap: space.sm, alignItems: 'baseline' }}
                       >
                         <AppText variant="figure" style={{ minWidth: 84 }}>
-                          {formatLength(r.result.detectionRangeM, 'km')}
+                          {formatLength(r.result.detectionRangeM, distance)}
                         </AppText>
                         <AppText variant="small" tone="muted" style={{ flex: 1 }}>
                           {r.conditionSetName}, k = {r.result.k.toFixed(2)} ·{' '}

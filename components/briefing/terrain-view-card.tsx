@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { View } from 'react-native';
 import type { BriefingTerrainView } from '@/shared/schemas/assignment';
+import type { LengthUnit } from '@/shared/units/length';
 import { formatLength, LIMIT_LABELS } from '@/components/check/format';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
@@ -22,11 +23,14 @@ export function TerrainViewCard({
   siteName,
   wide,
   watch,
+  distance = 'km',
 }: {
   view: BriefingTerrainView;
   siteName: string;
   wide: boolean;
   watch: { fromDeg: number; toDeg: number } | null;
+  /** The person's distance unit. */
+  distance?: LengthUnit;
 }) {
   const targets = [...new Map(view.cases.map((c) => [c.targetId, c.targetName])).entries()];
   const [targetId, setTargetId] = useState(targets[0]![0]);
@@ -86,7 +90,7 @@ export function TerrainViewCard({
           <View>
             <AppText variant="label">Detection range</AppText>
             <AppText variant="small">
-              {formatLength(current.detectionRangeM, 'km')}
+              {formatLength(current.detectionRangeM, distance)}
               {current.limitedBy ? `, limited by ${LIMIT_LABELS[current.limitedBy]}` : ', no limit found'}
             </AppText>
           </View>

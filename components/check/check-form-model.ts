@@ -2,14 +2,11 @@ import type { RefractionCondition, SightlineRequest } from '@/shared/schemas/sig
 import { SightlineRequestSchema } from '@/shared/schemas/sightline';
 import type { RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import { convertLength, type LengthUnit } from '@/shared/units/length';
+import { convertedText } from '@/shared/units/typed-lengths';
+import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 
-/** Unit systems the quick check offers for heights and distances. */
-export const UNIT_SYSTEMS = {
-  metric: { height: 'm', distance: 'km', label: 'm · km' },
-  nautical: { height: 'ft', distance: 'nmi', label: 'ft · nmi' },
-  imperial: { height: 'ft', distance: 'mi', label: 'ft · mi' },
-} as const satisfies Record<string, { height: LengthUnit; distance: LengthUnit; label: string }>;
-export type UnitSystem = keyof typeof UNIT_SYSTEMS;
+/** Unit systems the quick check offers for heights and distances: the one list in `@/shared/units`. */
+export { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 
 /** What the person typed: text, in the chosen units. */
 export interface CheckFormValues {
@@ -52,22 +49,7 @@ const LENGTH_FIELDS = [
 ] as const;
 type LengthField = (typeof LENGTH_FIELDS)[number];
 
-/** Significant digits of a typed number, leading zeros and an integer's trailing zeros left out ("300" → 1, "0.050" → 2). */
-export function significantDigits(text: string): number {
-  const t = text.trim().replace(/^[-+]/, '').replace(/e.*$/i, '');
-  const digits = t.replace('.', '').replace(/^0+/, '');
-  const kept = t.includes('.') ? digits : digits.replace(/0+$/, '');
-  return Math.max(kept.length, 1);
-}
-
-/**
- * A converted length as text, as precise as what was typed but never below
- * three significant digits: 300 m → "984" ft, 1.75 m → "5.74" ft, 1234.5 m →
- * "4050.2" ft (no "984.252").
- */
-export function convertedText(value: number, typed: string): string {
-  return String(Number(value.toPrecision(Math.min(15, Math.max(3, significantDigits(typed))))));
-}
+export { significantDigits, convertedText } from '@/shared/units/typed-lengths';
 
 export const DEFAULT_FORM: CheckFormValues = {
   units: 'metric',

@@ -38,3 +38,12 @@ export const REGIME_LABELS = {
   'super-refraction': 'super-refraction',
   ducting: 'ducting',
 } as const;
+
+/**
+ * A stored length for a read-out in the person's `unit`: in metres as the
+ * screen has always written it (`metric`, e.g. one decimal), in other units
+ * rounded like {@link formatLength} ("1,793 ft", never "1793.3071 ft").
+ */
+export function lengthIn(metres: number, unit: LengthUnit, metric: (m: number) => string = (m) => `${m} m`): string {
+  return unit === 'm' ? metric(metres) : formatLength(metres, unit);
+}

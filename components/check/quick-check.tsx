@@ -3,6 +3,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { BACKGROUND_LIGHTING_LABELS } from '@/shared/schemas/library';
 import type { SightlineRequest, SightlineResult } from '@/shared/schemas/sightline';
 import { refractionPreset } from '@/shared/sightline/refraction-presets';
+import { useUnitSystem } from '@/components/data/session';
 import { useSightline } from '@/components/data/sightline';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
@@ -48,7 +49,11 @@ function useSettled<T>(value: T, ms = 250): T {
 
 export function QuickCheck() {
   const { wide } = useLayout();
-  const [form, setForm] = useState<CheckFormValues>(DEFAULT_FORM);
+  const preferred = useUnitSystem();
+  // Starts in the person's own units (account page); the switch below changes them for this check.
+  const [form, setForm] = useState<CheckFormValues>(() =>
+    preferred === DEFAULT_FORM.units ? DEFAULT_FORM : { ...switchUnits(DEFAULT_FORM, preferred), beforeSwitch: undefined },
+  );
   const built = useMemo(() => buildRequest(form, presetLabel), [form]);
   const errors = 'errors' in built ? built.errors : {};
   const valid = 'request' in built ? built : null;

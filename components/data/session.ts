@@ -1,5 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { MeResponseSchema, type SignInRequest, type User } from '@/shared/schemas/auth';
+import { MeResponseSchema, type MeUpdate, type SignInRequest, type User } from '@/shared/schemas/auth';
+import type { LengthUnit } from '@/shared/units/length';
+import { UNIT_SYSTEMS, unitSystemFor, type UnitSystem } from '@/shared/units/unit-systems';
 import { resetLanding } from './first-landing';
 import { api, ApiRequestError } from './api-client';
 import { STALE } from './query-client';
@@ -72,4 +74,32 @@ export function useSetPassword() {
   return useMutation({
     mutationFn: (input: { token: string; password: string }) => api.post('/auth/set-password', input, null),
   });
+}
+
+/** Saves the person's own settings (their unit system; null = each site's default). */
+export function useUpdateMe() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: MeUpdate) => api.patch('/me', input, MeResponseSchema),
+    onSuccess: ({ user }) => qc.setQueryData(sessionKeys.me(), user),
+  });
+}
+
+/**
+ * The unit system a person sees: their own choice (account page), else the
+ * site's default units, else metric.
+ */
+export function useUnitSystem(siteDefault?: UnitSystem | null): UnitSystem {
+  const { data: user } = useSession();
+  return unitSystemFor(user?.unitPreference, siteDefault);
+}
+
+/** The length units a person reads heights and distances in (see {@link useUnitSystem}). */
+export function useLengthUnits(siteDefault?: UnitSystem | null): {
+  height: LengthUnit;
+  distance: LengthUnit;
+  system: UnitSystem;
+} {
+  const system = useUnitSystem(siteDefault);
+  return { height: UNIT_SYSTEMS[system].height, distance: UNIT_SYSTEMS[system].distance, system };
 }

@@ -1,24 +1,32 @@
 import { useState } from 'react';
+import { Controller, useForm, type Path } from 'react-hook-form';
 import { View } from 'react-native';
+import { z } from 'zod';
 import {
   BACKGROUND_LIGHTING_LABELS,
   ConditionSetInputSchema,
   type ConditionSet,
   type ConditionSetInput,
 } from '@/shared/schemas/library';
+import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
+import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { REFRACTION_PRESET_IDS, refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import { describeCondition } from './describe-condition';
 import { StaleNotice } from './stale-notice';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
 import { useCreateConditionSet, useReloadLibrary, useUpdateConditionSet } from '@/components/data/library';
+import { applyServerErrors } from '@/components/data/server-errors';
+import { useUnitSystem } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Chip, ChipRow } from '@/components/ui/chip';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError } from '@/components/ui/states';
-import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
+import { UnitNumberField } from '@/components/ui/unit-number-field';
+import { UnitsField, unitsResolver } from '@/components/ui/units-field';
 
 type VisibilityKind = 'mor-5pct' | 'meteorological-range-2pct';
 
@@ -46,121 +54,169 @@ const isPreset = (c: Record<string, unknown>): c is { preset: RefractionPresetId
   Object.keys(c).length === 1 && typeof c.preset === 'string' && (REFRACTION_PRESET_IDS as readonly string[]).includes(c.preset);
 const isOwnK = (c: Record<string, unknown>): c is { k: number } => Object.keys(c).length === 1 && typeof c.k === 'number';
 
+/** What the form holds: the chosen presets as `conditions`, k values and lengths as typed, in the form's `units`. */
+interface ConditionSetFormValues {
+  units: UnitSystem;
+  name: string;
+  conditions: RefractionPresetId[];
+  ks: string;
+  visibilityM: string;
+  visibilityKind: VisibilityKind;
+  seaState: number | null;
+  significantWaveHeightM: string;
+  backgroundLighting: Lighting;
+}
+
+const K_MESSAGE = 'Type k values as numbers, separated by spaces (e.g. 0.2 −0.1).';
+const kTokens = (ks: string) =>
+  ks
+    .split(/[;\s]+/)
+    .map((t) => t.trim().replace(',', '.').replace('−', '-'))
+    .filter(Boolean);
+
+/**
+ * The shared condition-set schema behind the form's text: the visibility
+ * typed in the distance unit of `units`, the wave height in its height unit,
+ * both to metres; `kept` are conditions of other kinds an edited set keeps.
+ */
+export function conditionSetFormSchema(units: UnitSystem, kept: readonly Condition[] = []) {
+  const { height, distance } = UNIT_SYSTEMS[units];
+  return z.preprocess((form, ctx) => {
+    const v = form as ConditionSetFormValues;
+    const own = kTokens(v.ks).map(Number);
+    if (own.some((k) => !Number.isFinite(k))) ctx.addIssue({ code: 'custom', message: K_MESSAGE, path: ['ks'], input: v.ks });
+    return {
+      name: v.name,
+      conditions: [...v.conditions.map((preset) => ({ preset })), ...own.filter(Number.isFinite).map((k) => ({ k })), ...kept],
+      visibilityM: typedToMetres(v.visibilityM, distance),
+      visibilityKind: v.visibilityKind,
+      seaState: v.seaState,
+      significantWaveHeightM: typedToMetres(v.significantWaveHeightM, height),
+      backgroundLighting: v.backgroundLighting,
+    };
+  }, ConditionSetInputSchema);
+}
+
+/** The form's values for a saved set (or a new one), lengths in `units`. */
+function valuesOf(set: ConditionSet | undefined, units: UnitSystem): ConditionSetFormValues {
+  const { height, distance } = UNIT_SYSTEMS[units];
+  return {
+    units,
+    name: set?.name ?? '',
+    conditions: (set?.conditions ?? []).filter(isPreset).map((c) => c.preset),
+    ks: (set?.conditions ?? [])
+      .filter(isOwnK)
+      .map((c) => String(c.k))
+      .join(' '),
+    visibilityM: lengthText(set?.visibilityM, distance),
+    visibilityKind: set?.visibilityKind ?? 'mor-5pct',
+    seaState: set?.seaState ?? null,
+    significantWaveHeightM: lengthText(set?.significantWaveHeightM, height),
+    backgroundLighting: set?.backgroundLighting ?? 'none',
+  };
+}
+
 /**
  * A condition set: a new one, or — given `set` — an edit of it (saved whole,
  * with the version it was loaded at): named refraction conditions (presets and
- * any k of your own) judged together, with the visibility they come with.
- * with the sea (a Douglas degree or a wave height) and the lights behind a
- * target at night. Conditions of other kinds in an edited set are kept as
- * they are. When someone else saved first, the form says so.
+ * any k of your own) judged together, with the visibility they come with (in
+ * the person's distance unit), the sea (a Douglas degree or a wave height) and
+ * the lights behind a target at night. Conditions of other kinds in an edited
+ * set are kept as they are. When someone else saved first, the form says so
+ * and keeps what was typed.
  */
 export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?: () => void }) {
   const create = useCreateConditionSet();
   const update = useUpdateConditionSet(set?.id ?? '');
   const reload = useReloadLibrary();
   const saving = set ? update : create;
-  const [name, setName] = useState(set?.name ?? '');
-  const [presets, setPresets] = useState<RefractionPresetId[]>(() =>
-    (set?.conditions ?? []).filter(isPreset).map((c) => c.preset),
+  const preferred = useUnitSystem();
+  const [kept] = useState(() => (set?.conditions ?? []).filter((c) => !isPreset(c) && !isOwnK(c)) as unknown as Condition[]);
+  const [resolver] = useState(() =>
+    unitsResolver<ConditionSetFormValues, ConditionSetInput>((units) => conditionSetFormSchema(units, kept)),
   );
-  const [ks, setKs] = useState(() =>
-    (set?.conditions ?? [])
-      .filter(isOwnK)
-      .map((c) => String(c.k))
-      .join(' '),
-  );
-  const kept = (set?.conditions ?? []).filter((c) => !isPreset(c) && !isOwnK(c)) as unknown as Condition[];
-  const [visibility, setVisibility] = useState(set?.visibilityM == null ? '' : String(set.visibilityM / 1000));
-  const [visibilityKind, setVisibilityKind] = useState<VisibilityKind>(set?.visibilityKind ?? 'mor-5pct');
-  const [seaState, setSeaState] = useState<number | null>(set?.seaState ?? null);
-  const [waveHeight, setWaveHeight] = useState(set?.significantWaveHeightM == null ? '' : String(set.significantWaveHeightM));
-  const [lighting, setLighting] = useState<Lighting>(set?.backgroundLighting ?? 'none');
-  const [errors, setErrors] = useState<Record<string, string>>({});
   const [failed, setFailed] = useState('');
   const [stale, setStale] = useState(false);
   const [added, setAdded] = useState('');
+  const { control, handleSubmit, setError, reset, watch, setValue, getValues, formState } = useForm<
+    ConditionSetFormValues,
+    unknown,
+    ConditionSetInput
+  >({ resolver, defaultValues: valuesOf(set, preferred) });
+  const units = watch('units');
+  const { height, distance } = UNIT_SYSTEMS[units];
+  const presetCount = watch('conditions').length;
 
-  const submit = () => {
+  /** A server path under this form: an own k (after the presets) under the k field, other conditions under the chips. */
+  const fieldOf = (path: string): Path<ConditionSetFormValues> | undefined => {
+    const [root, index] = path.split('.');
+    if (root === 'conditions') return index !== undefined && Number(index) >= presetCount ? 'ks' : 'conditions';
+    const known = ['name', 'visibilityM', 'visibilityKind', 'seaState', 'significantWaveHeightM', 'backgroundLighting'];
+    return known.includes(root ?? '') ? (root as Path<ConditionSetFormValues>) : undefined;
+  };
+  const onError = (e: Error) => {
+    if (e instanceof ApiRequestError && e.code === 'stale_version') {
+      setStale(true);
+      return;
+    }
+    setFailed(applyServerErrors(e, setError, fieldOf));
+  };
+  const save = handleSubmit((input) => {
     setFailed('');
     setAdded('');
     setStale(false);
-    const next: Record<string, string> = {};
-    const own = ks
-      .split(/[;\s]+/)
-      .map((t) => t.trim().replace(',', '.'))
-      .filter(Boolean)
-      .map(Number);
-    if (own.some((k) => !Number.isFinite(k))) next.k = 'Type k values as numbers, separated by spaces (e.g. 0.2 −0.1).';
-    const km = visibility.trim() === '' ? null : Number(visibility.replace(',', '.'));
-    const r = ConditionSetInputSchema.safeParse({
-      name,
-      conditions: [...presets.map((preset) => ({ preset })), ...own.filter(Number.isFinite).map((k) => ({ k })), ...kept],
-      visibilityM: km === null ? null : km * 1000,
-      visibilityKind,
-      seaState,
-      significantWaveHeightM: waveHeight.trim() === '' ? null : Number(waveHeight.replace(',', '.')),
-      backgroundLighting: lighting,
-    });
-    if (!r.success) {
-      for (const i of r.error.issues) {
-        const key = i.path[0] === 'conditions' ? (i.path.length > 2 ? 'k' : 'conditions') : String(i.path[0]);
-        next[key] ??= i.message;
-      }
-    }
-    setErrors(next);
-    if (!r.success || Object.keys(next).length) return;
-    const onError = (e: Error) => {
-      if (e instanceof ApiRequestError && e.code === 'stale_version') {
-        setStale(true);
-        return;
-      }
-      if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
-      setFailed(e.message);
-    };
     if (set) {
-      update.mutate({ ...r.data, version: set.version }, { onSuccess: () => onDone?.(), onError });
+      update.mutate({ ...input, version: set.version }, { onSuccess: () => onDone?.(), onError });
       return;
     }
-    create.mutate(r.data, {
+    create.mutate(input, {
       onSuccess: ({ conditionSet }) => {
-        setName('');
-        setPresets([]);
-        setKs('');
-        setVisibility('');
-        setSeaState(null);
-        setWaveHeight('');
-        setLighting('none');
+        reset(valuesOf(undefined, getValues('units')));
         setAdded(`Added ${conditionSet.name}.`);
       },
       onError,
     });
-  };
+  });
+  const submit = () => void save();
+  const conditionsError = formState.errors.conditions;
+  const conditionsMessage =
+    conditionsError?.message ??
+    (Array.isArray(conditionsError) ? conditionsError.find((x) => x)?.message : undefined) ??
+    conditionsError?.root?.message;
 
   return (
     <Card accent="moss" aria-label={set ? `Edit ${set.name}` : 'New condition set'}>
       <AppText variant="heading">{set ? 'Edit this condition set' : 'Add a condition set'}</AppText>
       <FormError message={failed} />
-      {added ? <AppText variant="small">{added}</AppText> : null}
-      <TextField
+      <View aria-live="polite">{added ? <AppText variant="small">{added}</AppText> : null}</View>
+      <FormTextField
+        control={control}
+        name="name"
         label="Name"
-        value={name}
-        onChangeText={setName}
-        error={errors.name}
         placeholder="e.g. Autumn morning, valley fog"
+        onSubmitEditing={submit}
       />
-      <ChipRow label="Refraction conditions">
-        {REFRACTION_PRESET_IDS.map((id) => (
-          <Chip
-            key={id}
-            label={refractionPreset(id).label}
-            on={presets.includes(id)}
-            onPress={() => setPresets((list) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]))}
-          />
-        ))}
-      </ChipRow>
-      {errors.conditions ? (
+      <Controller
+        control={control}
+        name="conditions"
+        render={({ field }) => (
+          <ChipRow label="Refraction conditions">
+            {REFRACTION_PRESET_IDS.map((id) => (
+              <Chip
+                key={id}
+                label={refractionPreset(id).label}
+                on={field.value.includes(id)}
+                onPress={() =>
+                  field.onChange(field.value.includes(id) ? field.value.filter((x) => x !== id) : [...field.value, id])
+                }
+              />
+            ))}
+          </ChipRow>
+        )}
+      />
+      {conditionsMessage ? (
         <AppText variant="small" tone="danger" role="alert">
-          {errors.conditions}
+          {conditionsMessage}
         </AppText>
       ) : null}
       {kept.map((c, i) => (
@@ -168,66 +224,90 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
           Kept as it is: {describeCondition(c as never)}
         </AppText>
       ))}
-      <TextField
+      <FormTextField
+        control={control}
+        name="ks"
         label="Your own k values"
-        value={ks}
-        onChangeText={setKs}
-        error={errors.k}
         hint="Refraction coefficients, separated by spaces; negative for sub-refraction."
+        onSubmitEditing={submit}
       />
+      <UnitsField control={control} name="units" />
       <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap', alignItems: 'flex-start' }}>
         <View style={{ flex: 1, minWidth: 160 }}>
-          <TextField
+          <UnitNumberField
+            control={control}
+            name="visibilityM"
+            unit={distance}
             label="Visibility"
-            unit="km"
-            inputMode="decimal"
-            value={visibility}
-            onChangeText={setVisibility}
-            error={errors.visibilityM}
             hint="Empty when not stated."
+            onSubmitEditing={submit}
           />
         </View>
-        <Segmented
-          label="Reported as"
-          value={visibilityKind}
-          onChange={setVisibilityKind}
-          options={[
-            { value: 'mor-5pct', label: 'MOR (5 %)' },
-            { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
-          ]}
+        <Controller
+          control={control}
+          name="visibilityKind"
+          render={({ field }) => (
+            <Segmented
+              label="Reported as"
+              value={field.value}
+              onChange={field.onChange}
+              options={[
+                { value: 'mor-5pct', label: 'MOR (5 %)' },
+                { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
+              ]}
+            />
+          )}
         />
       </View>
-      <ChipRow label="Sea state (Douglas degree)">
-        {SEA_STATES.map((label, degree) => (
-          <Chip
-            key={label}
-            label={`${degree} ${label}`}
-            on={seaState === degree}
-            onPress={() => {
-              setSeaState((s) => (s === degree ? null : degree));
-              setWaveHeight('');
-            }}
-          />
-        ))}
-      </ChipRow>
-      {errors.seaState ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {errors.seaState}
-        </AppText>
-      ) : null}
-      <TextField
-        label="Or the significant wave height"
-        unit="m"
-        inputMode="decimal"
-        value={waveHeight}
-        onChangeText={(t) => {
-          setWaveHeight(t);
-          if (t.trim() !== '') setSeaState(null);
-        }}
-        error={errors.significantWaveHeightM}
-        hint="Waves hide the lower part of targets on the water (half the wave height). Leave both empty on land."
+      <Controller
+        control={control}
+        name="seaState"
+        render={({ field, fieldState }) => (
+          <>
+            <ChipRow label="Sea state (Douglas degree)">
+              {SEA_STATES.map((label, degree) => (
+                <Chip
+                  key={label}
+                  label={`${degree} ${label}`}
+                  on={field.value === degree}
+                  onPress={() => {
+                    field.onChange(field.value === degree ? null : degree);
+                    setValue('significantWaveHeightM', '');
+                  }}
+                />
+              ))}
+            </ChipRow>
+            {fieldState.error ? (
+              <AppText variant="small" tone="danger" role="alert">
+                {fieldState.error.message}
+              </AppText>
+            ) : null}
+          </>
+        )}
       />
-      <Segmented label="Lights behind a target at night" value={lighting} onChange={setLighting} options={LIGHTING_OPTIONS} />
+      <UnitNumberField
+        control={control}
+        name="significantWaveHeightM"
+        unit={height}
+        label="Or the significant wave height"
+        hint="Waves hide the lower part of targets on the water (half the wave height). Leave both empty on land."
+        onChangeTextAlso={(t) => {
+          if (t.trim() !== '') setValue('seaState', null);
+        }}
+        onSubmitEditing={submit}
+      />
+      <Controller
+        control={control}
+        name="backgroundLighting"
+        render={({ field }) => (
+          <Segmented
+            label="Lights behind a target at night"
+            value={field.value}
+            onChange={field.onChange}
+            options={LIGHTING_OPTIONS}
+          />
+        )}
+      />
       {stale ? <StaleNotice what="condition set" onReload={() => void reload()} /> : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         <Button

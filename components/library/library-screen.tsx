@@ -2,7 +2,8 @@ import { useState } from 'react';
 import { View } from 'react-native';
 import { BACKGROUND_LIGHTING_LABELS, TARGET_KIND_LABELS } from '@/shared/schemas/library';
 import { useConditionSets, useRemoveLibraryEntry, useTargets } from '@/components/data/library';
-import { useSession } from '@/components/data/session';
+import { useLengthUnits, useSession } from '@/components/data/session';
+import { lengthIn } from '@/components/check/format';
 import { ConditionSetForm } from './condition-set-form';
 import { describeCondition } from './describe-condition';
 import { TargetForm } from './target-form';
@@ -20,6 +21,7 @@ export function LibraryScreen() {
   const sets = useConditionSets();
   const { data: user } = useSession();
   const { wide } = useLayout();
+  const { height, distance } = useLengthUnits();
   const planner = user?.role === 'planner';
   const removeTarget = useRemoveLibraryEntry('targets');
   const removeSet = useRemoveLibraryEntry('conditions');
@@ -53,8 +55,8 @@ export function LibraryScreen() {
                     busy={removeTarget.isPending && removeTarget.variables === t.id}
                   />
                   <AppText variant="small" tone="muted">
-                    {TARGET_KIND_LABELS[t.kind]} · {t.heightM} m tall, {t.widthM} m wide · top {t.requiredVisibleM} m must show ·{' '}
-                    {t.period}
+                    {TARGET_KIND_LABELS[t.kind]} · {lengthIn(t.heightM, height)} tall, {lengthIn(t.widthM, height)} wide · top{' '}
+                    {lengthIn(t.requiredVisibleM, height)} must show · {t.period}
                     {t.lightIntensityCd !== null ? ` · light ${t.lightIntensityCd.toLocaleString('en')} cd` : ''}
                     {t.onWater ? ' · floats' : ''}
                   </AppText>
@@ -91,9 +93,9 @@ export function LibraryScreen() {
                     Visibility{' '}
                     {s.visibilityM === null
                       ? 'not stated'
-                      : `${(s.visibilityM / 1000).toLocaleString('en')} km (${s.visibilityKind === 'mor-5pct' ? 'MOR' : 'met. range'})`}
+                      : `${lengthIn(s.visibilityM, distance, (m) => `${(m / 1000).toLocaleString('en')} km`)} (${s.visibilityKind === 'mor-5pct' ? 'MOR' : 'met. range'})`}
                     {s.seaState !== null ? ` · sea state ${s.seaState}` : ''}
-                    {s.significantWaveHeightM !== null ? ` · waves ${s.significantWaveHeightM} m` : ''}
+                    {s.significantWaveHeightM !== null ? ` · waves ${lengthIn(s.significantWaveHeightM, height)}` : ''}
                     {s.backgroundLighting !== 'none'
                       ? ` · ${BACKGROUND_LIGHTING_LABELS[s.backgroundLighting].toLowerCase()} behind`
                       : ''}

@@ -1,183 +1,213 @@
 import { useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';
+import { z } from 'zod';
 import {
   TARGET_KIND_LABELS,
   TARGET_KINDS,
   TargetInputSchema,
-  TargetUpdateSchema,
   WATER_TARGET_KINDS,
   type Target,
+  type TargetInput,
 } from '@/shared/schemas/library';
+import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
+import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
 import { useCreateTarget, useReloadLibrary, useUpdateTarget } from '@/components/data/library';
+import { applyServerErrors } from '@/components/data/server-errors';
+import { useUnitSystem } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError } from '@/components/ui/states';
-import { StaleNotice } from './stale-notice';
-import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
+import { UnitNumberField } from '@/components/ui/unit-number-field';
+import { UnitsField, unitsResolver } from '@/components/ui/units-field';
+import { StaleNotice } from './stale-notice';
 
-const EMPTY = {
-  name: '',
-  kind: 'smoke-column' as (typeof TARGET_KINDS)[number],
-  period: 'day' as 'day' | 'night',
-  height: '',
-  width: '',
-  required: '0',
-  light: '',
-  onWater: null as boolean | null,
+type Kind = (typeof TARGET_KINDS)[number];
+
+/** What the form holds: text as typed, lengths in the form's `units`; `onWater` null = by kind. */
+interface TargetFormValues {
+  units: UnitSystem;
+  name: string;
+  kind: Kind;
+  period: 'day' | 'night';
+  heightM: string;
+  widthM: string;
+  requiredVisibleM: string;
+  lightIntensityCd: string;
+  onWater: boolean | null;
+}
+
+/** A typed number, '' → null (no light), anything else as typed (the schema says why). */
+const typedOrNull = (t: string) => {
+  if (t.trim() === '') return null;
+  const n = Number(t.trim().replace(',', '.'));
+  return Number.isFinite(n) ? n : t;
 };
 
-/** The form's text values for a saved target. */
-const valuesOf = (t: Target): typeof EMPTY => ({
-  name: t.name,
-  kind: t.kind,
-  period: t.period,
-  height: String(t.heightM),
-  width: String(t.widthM),
-  required: String(t.requiredVisibleM),
-  light: t.lightIntensityCd === null ? '' : String(t.lightIntensityCd),
-  onWater: t.onWater,
-});
+/** The shared target schema behind the form's text: lengths typed in `units` become metres first. */
+export function targetFormSchema(units: UnitSystem) {
+  const unit = UNIT_SYSTEMS[units].height;
+  const metres = (t: string) => typedToMetres(t, unit) ?? undefined;
+  return z.preprocess((form) => {
+    const { units: _units, onWater, ...v } = form as TargetFormValues;
+    return {
+      ...v,
+      heightM: metres(v.heightM),
+      widthM: metres(v.widthM),
+      requiredVisibleM: metres(v.requiredVisibleM),
+      lightIntensityCd: typedOrNull(v.lightIntensityCd),
+      onWater: onWater ?? undefined,
+    };
+  }, TargetInputSchema);
+}
+
+/** The form's values for a saved target (or a new one), lengths in `units`. */
+function valuesOf(t: Target | undefined, units: UnitSystem): TargetFormValues {
+  const unit = UNIT_SYSTEMS[units].height;
+  return {
+    units,
+    name: t?.name ?? '',
+    kind: t?.kind ?? 'smoke-column',
+    period: t?.period ?? 'day',
+    heightM: t ? lengthText(t.heightM, unit) : '',
+    widthM: t ? lengthText(t.widthM, unit) : '',
+    requiredVisibleM: lengthText(t?.requiredVisibleM ?? 0, unit),
+    lightIntensityCd: t?.lightIntensityCd == null ? '' : String(t.lightIntensityCd),
+    onWater: t?.onWater ?? null,
+  };
+}
+
+const FIELDS = ['name', 'kind', 'period', 'heightM', 'widthM', 'requiredVisibleM', 'lightIntensityCd', 'onWater'] as const;
 
 /**
  * A target profile: a new one, or — given `target` — an edit of it saved with
- * the version it was loaded at (what it is, how tall and wide, the part that
- * must show, day or night, its light in candela — needed at night — and
- * whether it floats: the waves hide its lower part, and on a coast it counts
- * over the sea only). The server's field errors show under each field;
- * when someone else saved first, the form says so and keeps what was typed.
+ * the version it was loaded at (what it is, how tall and wide in the person's
+ * units, the part that must show, day or night, its light in candela — needed
+ * at night — and whether it floats: the waves hide its lower part, and on a
+ * coast it counts over the sea only). The server's field errors show under
+ * each field; when someone else saved first, the form says so and keeps what
+ * was typed.
  */
 export function TargetForm({ target, onDone }: { target?: Target; onDone?: () => void }) {
   const create = useCreateTarget();
   const update = useUpdateTarget(target?.id ?? '');
   const reload = useReloadLibrary();
   const saving = target ? update : create;
-  const [v, setV] = useState(target ? valuesOf(target) : EMPTY);
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const preferred = useUnitSystem();
   const [failed, setFailed] = useState('');
   const [stale, setStale] = useState(false);
   const [added, setAdded] = useState('');
-  const set = (k: keyof typeof v) => (t: string) => setV((f) => ({ ...f, [k]: t }));
+  const { control, handleSubmit, setError, reset, watch, setValue, getValues } = useForm<TargetFormValues, unknown, TargetInput>({
+    resolver: unitsResolver<TargetFormValues, TargetInput>(targetFormSchema),
+    defaultValues: valuesOf(target, preferred),
+  });
+  const [units, kind, period, chosenWater] = watch(['units', 'kind', 'period', 'onWater']);
+  const heightUnit = UNIT_SYSTEMS[units].height;
   // Floats by default for kinds found on the water, until the planner says otherwise.
-  const onWater = v.onWater ?? WATER_TARGET_KINDS.includes(v.kind);
-  const submit = () => {
+  const onWater = chosenWater ?? WATER_TARGET_KINDS.includes(kind);
+
+  const onError = (e: Error) => {
+    if (e instanceof ApiRequestError && e.code === 'stale_version') {
+      setStale(true);
+      return;
+    }
+    setFailed(applyServerErrors(e, setError, FIELDS));
+  };
+  const save = handleSubmit((input) => {
     setFailed('');
     setAdded('');
     setStale(false);
-    const n = (t: string) => (t.trim() === '' ? undefined : Number(t.replace(',', '.')));
-    const fields = {
-      name: v.name,
-      kind: v.kind,
-      heightM: n(v.height),
-      widthM: n(v.width),
-      requiredVisibleM: n(v.required),
-      period: v.period,
-      lightIntensityCd: n(v.light) ?? null,
-      onWater: v.onWater ?? undefined,
-    };
-    const onError = (e: Error) => {
-      if (e instanceof ApiRequestError && e.code === 'stale_version') {
-        setStale(true);
-        return;
-      }
-      if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields);
-      setFailed(e.message);
-    };
     if (target) {
-      const r = TargetUpdateSchema.safeParse({ ...fields, version: target.version });
-      if (!r.success) {
-        setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
-        return;
-      }
-      setErrors({});
-      update.mutate(r.data, { onSuccess: () => onDone?.(), onError });
+      update.mutate({ ...input, version: target.version }, { onSuccess: () => onDone?.(), onError });
       return;
     }
-    const r = TargetInputSchema.safeParse(fields);
-    if (!r.success) {
-      setErrors(Object.fromEntries(r.error.issues.map((i) => [String(i.path[0]), i.message])));
-      return;
-    }
-    setErrors({});
-    create.mutate(r.data, {
+    create.mutate(input, {
       onSuccess: ({ target: saved }) => {
-        setV(EMPTY);
+        reset(valuesOf(undefined, getValues('units')));
         setAdded(`Added ${saved.name}.`);
       },
       onError,
     });
-  };
+  });
+  const submit = () => void save();
+
   return (
     <Card accent="moss" aria-label={target ? `Edit ${target.name}` : 'New target'}>
       <AppText variant="heading">{target ? 'Edit this target' : 'Add a target'}</AppText>
       <FormError message={failed} />
-      {added ? <AppText variant="small">{added}</AppText> : null}
-      <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
-      <Segmented
-        label="Kind"
-        value={v.kind}
-        onChange={(k) => setV((f) => ({ ...f, kind: k }))}
-        options={TARGET_KINDS.map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))}
+      <View aria-live="polite">{added ? <AppText variant="small">{added}</AppText> : null}</View>
+      <FormTextField control={control} name="name" label="Name" onSubmitEditing={submit} />
+      <Controller
+        control={control}
+        name="kind"
+        render={({ field }) => (
+          <Segmented<Kind>
+            label="Kind"
+            value={field.value}
+            onChange={field.onChange}
+            options={TARGET_KINDS.map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))}
+          />
+        )}
       />
+      <UnitsField control={control} name="units" />
       <View style={{ flexDirection: 'row', gap: space.md }}>
         <View style={{ flex: 1 }}>
-          <TextField
-            label="Height"
-            unit="m"
-            inputMode="decimal"
-            value={v.height}
-            onChangeText={set('height')}
-            error={errors.heightM}
-          />
+          <UnitNumberField control={control} name="heightM" unit={heightUnit} label="Height" onSubmitEditing={submit} />
         </View>
         <View style={{ flex: 1 }}>
-          <TextField
+          <UnitNumberField
+            control={control}
+            name="widthM"
+            unit={heightUnit}
             label="Width"
-            unit="m"
-            inputMode="decimal"
-            value={v.width}
-            onChangeText={set('width')}
-            error={errors.widthM}
             hint="The critical size for the eye."
+            onSubmitEditing={submit}
           />
         </View>
       </View>
-      <TextField
+      <UnitNumberField
+        control={control}
+        name="requiredVisibleM"
+        unit={heightUnit}
         label="Top part that must show"
-        unit="m"
-        inputMode="decimal"
-        value={v.required}
-        onChangeText={set('required')}
-        error={errors.requiredVisibleM}
-        hint="E.g. the upper 30 m of a smoke column; 0 when any part will do."
+        hint={`E.g. the upper ${heightUnit === 'ft' ? '100 ft' : '30 m'} of a smoke column; 0 when any part will do.`}
+        onSubmitEditing={submit}
       />
-      <Segmented
-        label="Seen by"
-        value={v.period}
-        onChange={(p) => setV((f) => ({ ...f, period: p }))}
-        options={[
-          { value: 'day', label: 'Day' },
-          { value: 'night', label: 'Night' },
-        ]}
+      <Controller
+        control={control}
+        name="period"
+        render={({ field }) => (
+          <Segmented
+            label="Seen by"
+            value={field.value}
+            onChange={field.onChange}
+            options={[
+              { value: 'day', label: 'Day' },
+              { value: 'night', label: 'Night' },
+            ]}
+          />
+        )}
       />
-      {v.period === 'night' || v.kind === 'light' ? (
-        <TextField
+      {period === 'night' || kind === 'light' ? (
+        <FormTextField
+          control={control}
+          name="lightIntensityCd"
           label="Light intensity"
           unit="cd"
           inputMode="decimal"
-          value={v.light}
-          onChangeText={set('light')}
-          error={errors.lightIntensityCd}
           hint="Candela, from the maker's data (a hand flare is thousands, a lifejacket light a few). Needed at night: an unlit target is not detected."
+          onSubmitEditing={submit}
         />
       ) : null}
       <Segmented
         label="On the water"
         value={onWater ? 'yes' : 'no'}
-        onChange={(w) => setV((f) => ({ ...f, onWater: w === 'yes' }))}
+        onChange={(w) => setValue('onWater', w === 'yes')}
         options={[
           { value: 'yes', label: 'Floats' },
           { value: 'no', label: 'On land or in the air' },

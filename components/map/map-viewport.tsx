@@ -25,6 +25,7 @@ import { MapFeatures, type MapTarget } from './map-features';
 import { useMapPointer, type MapPointerHandlers } from './map-pointer';
 import type { Readout, ReadoutStore } from './readout-store';
 import type { ScaleUnits } from './scale-bar';
+import { useUnitSystem } from '@/components/data/session';
 import type { SiteMapFrame } from './site-map-frame';
 
 /** A coverage layer ready to draw: the layer and its decoded codes. */
@@ -35,6 +36,7 @@ export interface ShownLayer {
 
 export interface MapViewportProps {
   frame: SiteMapFrame;
+  /** The site's default units; the person's own choice (account page) wins. */
   units: ScaleUnits;
   chosenPostId: string | null;
   targets: readonly MapTarget[];
@@ -84,6 +86,7 @@ const WHEEL_SETTLE_MS = 180;
  */
 export function MapViewport(props: MapViewportProps) {
   const { frame, units, chosenPostId, targets, shown, focus, readout, format, onFormat, onTap, handles, overlay, label } = props;
+  const shownUnits = useUnitSystem(units);
   const bottomInset = props.bottomInset ?? 0;
   const [size, setSize] = useState<MapSize | null>(null);
   const [camera, setCamera] = useState<MapCamera | null>(null);
@@ -347,7 +350,7 @@ export function MapViewport(props: MapViewportProps) {
         <NorthArrow convergence={frame.convergence} />
         <ZoomButtons onZoom={zoomBy} onFit={fit} />
         <View style={[styles.bottom, { bottom: space.sm + bottomInset }]} pointerEvents="box-none">
-          {camera ? <ScaleBarView metresPerPx={1 / camera.pxPerM} units={units} /> : null}
+          {camera ? <ScaleBarView metresPerPx={1 / camera.pxPerM} units={shownUnits} /> : null}
           <ReadoutBar store={readout} format={format} onFormat={onFormat} />
         </View>
       </View>

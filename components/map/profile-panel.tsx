@@ -1,5 +1,10 @@
 import { StyleSheet, View } from 'react-native';
 import type { Post } from '@/shared/schemas/site';
+import type { LengthUnit } from '@/shared/units/length';
+import { restateLengths } from '@/shared/units/typed-lengths';
+import { formatLength, lengthIn } from '@/components/check/format';
+import { useLengthUnits } from '@/components/data/session';
+import { useSite } from '@/components/data/sites';
 import type { ProfileConditionResult, TerrainProfileRequest } from '@/shared/schemas/terrain';
 import { refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import { CautionsPanel } from '@/components/check/cautions-panel';
@@ -41,11 +46,24 @@ const STANDING_CAUTIONS = [
   { code: 'follow-procedures', message: 'Follow your agency’s procedures, local regulations and licensed practice.' },
 ];
 
-const km = (m: number) => (m >= 1000 ? `${(m / 1000).toFixed(m >= 10_000 ? 1 : 2)} km` : `${Math.round(m)} m`);
-const metres = (m: number) => `${m.toLocaleString('en', { maximumFractionDigits: m >= 100 ? 0 : 1 })} m`;
+const kmText = (m: number) => (m >= 1000 ? `${(m / 1000).toFixed(m >= 10_000 ? 1 : 2)} km` : `${Math.round(m)} m`);
+const metresText = (m: number) => `${m.toLocaleString('en', { maximumFractionDigits: m >= 100 ? 0 : 1 })} m`;
 
-/** One condition's answer in words. */
-export function verdictText(r: ProfileConditionResult, targetHeightM: number): { seen: boolean; text: string } {
+/** The person's length units for the read-outs (metric unless given). */
+export interface ReadoutUnits {
+  height: LengthUnit;
+  distance: LengthUnit;
+}
+const METRIC: ReadoutUnits = { height: 'm', distance: 'km' };
+
+/** One condition's answer in words, heights and distances in `units`. */
+export function verdictText(
+  r: ProfileConditionResult,
+  targetHeightM: number,
+  units: ReadoutUnits = METRIC,
+): { seen: boolean; text: string } {
+  const km = (m: number) => (units.distance === 'km' ? kmText(m) : formatLength(m, units.distance));
+  const metres = (m: number) => lengthIn(m, units.height, metresText);
   const block = r.firstObstruction ?? r.horizon;
   const where = block ? `, blocked by ground ${km(block.distanceM)} out` : '';
   if (targetHeightM > 0) {
@@ -87,6 +105,10 @@ export function ProfilePanel({
   targetHeightM,
   onTargetHeight,
 }: ProfilePanelProps) {
+  const { height, distance } = useLengthUnits(useSite(siteId).data?.defaultUnits);
+  const units = { height, distance };
+  const km = (m: number) => (distance === 'km' ? kmText(m) : formatLength(m, distance));
+  const metres = (m: number) => lengthIn(m, height, metresText);
   const request: TerrainProfileRequest | null =
     hasTerrain && post && target && conditions.length > 0
       ? {
@@ -113,7 +135,12 @@ export function ProfilePanel({
       </ChipRow>
       <ChipRow label="Target height above the ground">
         {PROFILE_TARGET_HEIGHTS.map((h) => (
-          <Chip key={h.m} label={h.label} on={targetHeightM === h.m} onPress={() => onTargetHeight(h.m)} />
+          <Chip
+            key={h.m}
+            label={restateLengths(h.label, height)}
+            on={targetHeightM === h.m}
+            onPress={() => onTargetHeight(h.m)}
+          />
         ))}
       </ChipRow>
     </View>
@@ -149,7 +176,7 @@ export function ProfilePanel({
         </View>
         <View style={{ gap: space.xs }} role="list" aria-label="Verdict per condition">
           {data.results.map((r, i) => {
-            const v = verdictText(r, targetHeightM);
+            const v = verdictText(r, targetHeightM, units);
             return (
               <View
                 key={conditions[i] ?? i}

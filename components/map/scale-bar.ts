@@ -1,5 +1,8 @@
-/** Unit systems a site can choose (`Site.defaultUnits`). */
-export type ScaleUnits = 'metric' | 'nautical' | 'imperial';
+import { METRES_PER_LENGTH_UNIT } from '@/shared/units/length';
+import type { UnitSystem } from '@/shared/units/unit-systems';
+
+/** Unit systems a site or a person can choose: the one list in `@/shared/units`. */
+export type ScaleUnits = UnitSystem;
 
 /** A scale bar: a round length and how long it is drawn. */
 export interface ScaleBar {
@@ -11,11 +14,10 @@ export interface ScaleBar {
   readonly label: string;
 }
 
-// Exact by definition: 1 international nautical mile = 1852 m; 1 international foot = 0.3048 m,
-// 1 mile = 5280 ft = 1609.344 m (common practice, no source).
-const NAUTICAL_MILE_M = 1852;
-const FOOT_M = 0.3048;
-const MILE_M = 1609.344;
+// Exact by definition (`METRES_PER_LENGTH_UNIT`): 1 international nautical mile = 1852 m; 1 foot = 0.3048 m; 1 mile = 1609.344 m.
+const NAUTICAL_MILE_M = METRES_PER_LENGTH_UNIT.nmi;
+const FOOT_M = METRES_PER_LENGTH_UNIT.ft;
+const MILE_M = METRES_PER_LENGTH_UNIT.mi;
 
 /** The largest 1, 2 or 5 × 10ⁿ not above `value` (value > 0). */
 function roundDown125(value: number): number {

@@ -5,11 +5,14 @@ import { StyleSheet, View } from 'react-native';
 import type { CoverageComparison, CoverageRun } from '@/shared/schemas/coverage';
 import type { Plan } from '@/shared/schemas/plan';
 import type { EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
+import { restateLengths } from '@/shared/units/typed-lengths';
 import { useCoverageCompare, useCoverageRun, usePlanCoverage } from '@/components/data/coverage';
 import { planQuery, usePlans } from '@/components/data/plans';
+import { useLengthUnits } from '@/components/data/session';
 import { useSite, useSitePosts } from '@/components/data/sites';
 import { useSiteTerrain } from '@/components/data/terrain';
 import { CautionsPanel } from '@/components/check/cautions-panel';
+import { lengthIn } from '@/components/check/format';
 import { COVERAGE_CHANGE_PALETTE } from '@/components/map/class-palettes';
 import { useCoordinateFormat } from '@/components/map/coordinate-format';
 import { ClassLegend } from '@/components/map/map-legend';
@@ -266,6 +269,7 @@ function Comparison({ a, b }: { a: Plan; b: Plan }) {
 /** Each post's height above its ground in A and B, and what changed. */
 function PostsTable({ a, b }: { a: readonly Record<string, unknown>[]; b: readonly Record<string, unknown>[] }) {
   const rows = comparePosts(a, b);
+  const { height } = useLengthUnits();
   if (!rows.length) return null;
   const Head = ({ children, flex = 1 }: { children: string; flex?: number }) => (
     <View style={[tableStyles.th, { flex }]} role="columnheader">
@@ -294,9 +298,9 @@ function PostsTable({ a, b }: { a: readonly Record<string, unknown>[]; b: readon
         {rows.map((r) => (
           <View key={r.id} style={tableStyles.tr} role="row">
             <Cell flex={2}>{r.name}</Cell>
-            <Cell tone={r.a === null ? 'muted' : undefined}>{r.a === null ? '—' : formatMetres(r.a)}</Cell>
-            <Cell tone={r.b === null ? 'muted' : undefined}>{r.b === null ? '—' : formatMetres(r.b)}</Cell>
-            <Cell tone="ember">{r.change}</Cell>
+            <Cell tone={r.a === null ? 'muted' : undefined}>{r.a === null ? '—' : lengthIn(r.a, height, formatMetres)}</Cell>
+            <Cell tone={r.b === null ? 'muted' : undefined}>{r.b === null ? '—' : lengthIn(r.b, height, formatMetres)}</Cell>
+            <Cell tone="ember">{restateLengths(r.change, height)}</Cell>
           </View>
         ))}
       </View>

@@ -7,10 +7,12 @@ import { TARGET_KIND_LABELS } from '@/shared/schemas/library';
 import { PlanInputSchema, type Plan } from '@/shared/schemas/plan';
 import { POST_KIND_LABELS } from '@/shared/schemas/site';
 import { Segmented } from '@/components/check/unit-switch';
-import { ApiRequestError } from '@/components/data/api-client';
 import { useConditionSets, useTargets } from '@/components/data/library';
 import { useCreatePlan, useUpdatePlan } from '@/components/data/plans';
-import { sitePostsQuery, useSites } from '@/components/data/sites';
+import { applyServerErrors } from '@/components/data/server-errors';
+import { useLengthUnits } from '@/components/data/session';
+import { lengthIn } from '@/components/check/format';
+import { siteQuery, sitePostsQuery, useSites } from '@/components/data/sites';
 import { describeCondition } from '@/components/library/describe-condition';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -96,6 +98,8 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
   const siteId = watch('siteId');
   const targetIds = watch('targetIds');
   const sites = useSites(1);
+  const chosenSite = useQuery({ ...siteQuery(siteId), enabled: siteId !== '' });
+  const { height } = useLengthUnits(chosenSite.data?.defaultUnits);
   const posts = useQuery({ ...sitePostsQuery(siteId), enabled: siteId !== '' });
   const targets = useTargets();
   const sets = useConditionSets();
@@ -128,19 +132,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
       }
       return;
     }
-    const onError = (e: unknown) => {
-      if (e instanceof ApiRequestError) {
-        let placed = 0;
-        for (const [path, message] of Object.entries(e.fields)) {
-          const field = fieldOf(path);
-          if (field) {
-            setError(field, { type: 'server', message });
-            placed++;
-          }
-        }
-        if (placed === 0 || placed < Object.keys(e.fields).length) setFormError(e.message);
-      } else setFormError(e instanceof Error ? e.message : 'Something went wrong.');
-    };
+    const onError = (e: unknown) => setFormError(applyServerErrors(e, setError, fieldOf));
     const open = (id: string) => router.replace({ pathname: '/plans/[planId]', params: { planId: id } });
     if (plan) {
       const { siteId: _site, ...changes } = parsed.data;
@@ -205,7 +197,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
                   <CheckRow
                     key={p.id}
                     label={p.name}
-                    detail={`${POST_KIND_LABELS[p.kind]} · ${p.status} · eye ${(p.groundElevationM + p.structureHeightM + p.eyeHeightM).toFixed(1)} m above sea level`}
+                    detail={`${POST_KIND_LABELS[p.kind]} · ${p.status} · eye ${lengthIn(p.groundElevationM + p.structureHeightM + p.eyeHeightM, height, (m) => `${m.toFixed(1)} m`)} above sea level`}
                     checked={field.value.includes(p.id)}
                     onToggle={() => field.onChange(toggled(field.value, p.id))}
                   />
@@ -230,7 +222,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
                 <CheckRow
                   key={t.id}
                   label={t.name}
-                  detail={`${TARGET_KIND_LABELS[t.kind]} · ${t.heightM} m high, ${t.widthM} m wide · ${t.period}`}
+                  detail={`${TARGET_KIND_LABELS[t.kind]} · ${lengthIn(t.heightM, height)} high, ${lengthIn(t.widthM, height)} wide · ${t.period}`}
                   checked={field.value.includes(t.id)}
                   onToggle={() => field.onChange(toggled(field.value, t.id))}
                 />

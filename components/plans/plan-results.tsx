@@ -1,7 +1,8 @@
 import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { PlanResultRow, PlanSnapshot, ZoneReach } from '@/shared/schemas/plan';
-import { UNIT_SYSTEMS, type UnitSystem } from '@/components/check/check-form-model';
+import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
+import { useUnitSystem } from '@/components/data/session';
 import { formatLength, LIMIT_LABELS } from '@/components/check/format';
 import { describeCondition } from '@/components/library/describe-condition';
 import { bandLines, datumLine } from './result-band';
@@ -46,13 +47,15 @@ const toggle = (set: Set<string>, id: string) => {
  * target or condition set; sort by post or by range. A table on wide
  * screens, cards on a phone.
  */
+/** `units`: the plan site's default units; the person's own choice (account page) wins. */
 export function PlanResults({ snapshot, units = 'metric' }: { snapshot: PlanSnapshot; units?: UnitSystem }) {
   const { wide } = useLayout();
+  const system = useUnitSystem(units);
   const [posts, setPosts] = useState<Set<string>>(new Set());
   const [targets, setTargets] = useState<Set<string>>(new Set());
   const [sets, setSets] = useState<Set<string>>(new Set());
   const [sort, setSort] = useState<SortKey>('post');
-  const u = UNIT_SYSTEMS[units];
+  const u = UNIT_SYSTEMS[system];
   const conditionOf = useMemo(() => conditionLabels(snapshot), [snapshot]);
 
   const options = (key: 'postId' | 'targetId' | 'conditionSetId', name: 'postName' | 'targetName' | 'conditionSetName') => [

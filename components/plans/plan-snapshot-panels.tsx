@@ -1,6 +1,8 @@
 import { View } from 'react-native';
 import type { PlanSnapshot } from '@/shared/schemas/plan';
-import { UNIT_SYSTEMS, type UnitSystem } from '@/components/check/check-form-model';
+import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
+import { lengthIn } from '@/components/check/format';
+import { useLengthUnits } from '@/components/data/session';
 import { CautionsPanel } from '@/components/check/cautions-panel';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
@@ -23,7 +25,8 @@ export function AssumptionsPanel({ snapshot }: { snapshot: PlanSnapshot }) {
 /** The inputs a revision froze: posts with their heights, targets, condition sets and the standard. */
 export function InputsPanel({ snapshot }: { snapshot: PlanSnapshot }) {
   const { plan, posts, targets, conditionSets } = snapshot.inputs;
-  const n = (v: unknown) => (typeof v === 'number' ? v : Number(v));
+  const { height, distance } = useLengthUnits(unitsOf(snapshot));
+  const n = (v: unknown) => lengthIn(typeof v === 'number' ? v : Number(v), height);
   return (
     <Card style={{ gap: space.sm }}>
       <AppText variant="heading">Inputs</AppText>
@@ -35,7 +38,7 @@ export function InputsPanel({ snapshot }: { snapshot: PlanSnapshot }) {
         <AppText variant="label">Posts</AppText>
         {posts.map((p) => (
           <AppText key={String(p.id)} variant="small">
-            {String(p.name)} — ground {n(p.groundElevationM)} m + structure {n(p.structureHeightM)} m + eye {n(p.eyeHeightM)} m
+            {String(p.name)} — ground {n(p.groundElevationM)} + structure {n(p.structureHeightM)} + eye {n(p.eyeHeightM)}
             {p.status === 'proposed' ? ' (proposed)' : ''}
           </AppText>
         ))}
@@ -44,7 +47,7 @@ export function InputsPanel({ snapshot }: { snapshot: PlanSnapshot }) {
         <AppText variant="label">Targets</AppText>
         {targets.map((t) => (
           <AppText key={String(t.id)} variant="small">
-            {String(t.name)} — {n(t.heightM)} m high, {n(t.widthM)} m wide, top {n(t.requiredVisibleM)} m must show
+            {String(t.name)} — {n(t.heightM)} high, {n(t.widthM)} wide, top {n(t.requiredVisibleM)} must show
           </AppText>
         ))}
       </View>
@@ -53,7 +56,9 @@ export function InputsPanel({ snapshot }: { snapshot: PlanSnapshot }) {
         {conditionSets.map((c) => (
           <AppText key={String(c.id)} variant="small">
             {String(c.name)}
-            {c.visibilityM ? ` — visibility ${(n(c.visibilityM) / 1000).toFixed(1)} km` : ''}
+            {c.visibilityM
+              ? ` — visibility ${lengthIn(Number(c.visibilityM), distance, (m) => `${(m / 1000).toFixed(1)} km`)}`
+              : ''}
           </AppText>
         ))}
       </View>

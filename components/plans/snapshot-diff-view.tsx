@@ -1,6 +1,8 @@
 import { View } from 'react-native';
 import type { EntityChange, FieldChange, SnapshotDiff } from '@/shared/plans/diff-snapshots';
-import { formatLength, LIMIT_LABELS } from '@/components/check/format';
+import type { LengthUnit } from '@/shared/units/length';
+import { formatLength, lengthIn, LIMIT_LABELS } from '@/components/check/format';
+import { useLengthUnits } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import { space } from '@/components/ui/theme';
@@ -8,12 +10,21 @@ import { space } from '@/components/ui/theme';
 const show = (v: unknown) => (v === null || v === undefined ? '—' : typeof v === 'object' ? JSON.stringify(v) : String(v));
 const CHANGE = { added: 'Added', removed: 'Removed', changed: 'Changed' } as const;
 
+/** Which unit a changed field's metres are shown in: distances (visibility, ranges) or heights (any other `…M`). */
+const unitOfField = (field: string, units: { height: LengthUnit; distance: LengthUnit }): LengthUnit | null =>
+  !field.endsWith('M') ? null : /visibility|range|distance/i.test(field) ? units.distance : units.height;
+
 function Fields({ fields }: { fields: readonly FieldChange[] }) {
+  const units = useLengthUnits();
+  const showField = (field: string, v: unknown) => {
+    const unit = unitOfField(field, units);
+    return unit && typeof v === 'number' ? lengthIn(v, unit, show) : show(v);
+  };
   return (
     <>
       {fields.map((f) => (
         <AppText key={f.field} variant="small">
-          {f.field}: {show(f.before)} → {show(f.after)}
+          {f.field}: {showField(f.field, f.before)} → {showField(f.field, f.after)}
         </AppText>
       ))}
     </>
@@ -41,6 +52,7 @@ function Entities({ title, list }: { title: string; list: readonly EntityChange[
 
 /** What changed between two revisions: inputs first, then the result lines whose figures moved. */
 export function SnapshotDiffView({ diff, from, to }: { diff: SnapshotDiff; from: number; to: number }) {
+  const { distance } = useLengthUnits();
   return (
     <Card style={{ gap: space.sm }} aria-label={`Changes from revision ${from} to ${to}`}>
       <AppText variant="heading">
@@ -83,7 +95,7 @@ export function SnapshotDiffView({ diff, from, to }: { diff: SnapshotDiff; from:
           {diff.results.map((r) => (
             <AppText key={r.key} variant="small">
               {CHANGE[r.change]}: {r.postName} → {r.targetName}, {r.conditionSetName} #{r.conditionIndex + 1}:{' '}
-              {formatLength(r.detectionRangeM.before, 'km')} → {formatLength(r.detectionRangeM.after, 'km')}
+              {formatLength(r.detectionRangeM.before, distance)} → {formatLength(r.detectionRangeM.after, distance)}
               {r.limitedBy.before !== r.limitedBy.after
                 ? ` (limit ${r.limitedBy.before ? LIMIT_LABELS[r.limitedBy.before as keyof typeof LIMIT_LABELS] : '—'} → ${r.limitedBy.after ? LIMIT_LABELS[r.limitedBy.after as keyof typeof LIMIT_LABELS] : '—'})`
                 : ''}

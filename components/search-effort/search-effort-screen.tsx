@@ -3,7 +3,7 @@ import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { SWEEP_MODEL_LABELS, SWEEP_MODELS } from '@/shared/schemas/sweep-width';
 import { Segmented } from '@/components/check/unit-switch';
-import { ApiRequestError } from '@/components/data/api-client';
+import { applyServerErrors } from '@/components/data/server-errors';
 import { useSession } from '@/components/data/session';
 import { useEvaluateSweep, useRetireSweepWidthTable, useSweepWidthTables } from '@/components/data/sweep-width';
 import { AppText } from '@/components/ui/app-text';
@@ -63,18 +63,7 @@ export function SearchEffortScreen() {
       return;
     }
     evaluate.mutate(built.request, {
-      onError: (e) => {
-        if (e instanceof ApiRequestError && Object.keys(e.fields).length) {
-          let unplaced = false;
-          for (const [path, message] of Object.entries(e.fields)) {
-            const field = formFieldOf(path, values.source);
-            if (field) setError(field, { type: 'server', message });
-            else unplaced = true;
-          }
-          if (!unplaced) return;
-        }
-        setFormError(e.message);
-      },
+      onError: (e) => setFormError(applyServerErrors(e, setError, (path) => formFieldOf(path, values.source) ?? undefined)),
     });
   });
 

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { SweepWidthTableInputSchema } from '@/shared/schemas/sweep-width';
-import { applyServerErrors } from '@/components/auth/use-server-errors';
+import { applyServerErrors } from '@/components/data/server-errors';
 import { useCreateSweepWidthTable } from '@/components/data/sweep-width';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';

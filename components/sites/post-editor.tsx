@@ -7,6 +7,8 @@ import { PhotoPanel } from '@/components/attachments/photo-panel';
 import { HistoryLink } from '@/components/audit/history-link';
 import { useSession } from '@/components/data/session';
 import { formatPosition } from '@/components/map/map-chrome';
+import { lengthIn } from '@/components/check/format';
+import { useLengthUnits } from '@/components/data/session';
 import { useSite } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -53,7 +55,7 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
           <AppText>Changes saved.</AppText>
         </Notice>
       ) : null}
-      <PostSummary post={post} />
+      <PostSummary post={post} siteId={siteId} />
       <Button
         kind="secondary"
         label="Show on the map"
@@ -100,15 +102,19 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
   );
 }
 
-function PostSummary({ post }: { post: Post }) {
+function PostSummary({ post, siteId }: { post: Post; siteId: string }) {
+  const { height } = useLengthUnits(useSite(siteId).data?.defaultUnits);
   const eye = post.groundElevationM + post.structureHeightM + post.eyeHeightM;
   const rows: [string, string][] = [
     [
       'Location (WGS 84)',
       `${formatCoordinate(post.location, 'ddm')}\n${formatCoordinate(post.location, 'utm')}\n${formatPosition(post.location, 'mgrs')} (MGRS)`,
     ],
-    ['Eye above sea level', `${eye.toFixed(1)} m`],
-    ['Made up of', `ground ${post.groundElevationM} m + structure ${post.structureHeightM} m + eye ${post.eyeHeightM} m`],
+    ['Eye above sea level', lengthIn(eye, height, (m) => `${m.toFixed(1)} m`)],
+    [
+      'Made up of',
+      `ground ${lengthIn(post.groundElevationM, height)} + structure ${lengthIn(post.structureHeightM, height)} + eye ${lengthIn(post.eyeHeightM, height)}`,
+    ],
     ['Sector watched', post.sector ? `${post.sector.fromDeg}° to ${post.sector.toDeg}° (clockwise)` : 'All round'],
     ['Last changed', new Date(post.updatedAt).toLocaleString()],
   ];

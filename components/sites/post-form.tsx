@@ -1,68 +1,123 @@
 import { useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';
+import { z } from 'zod';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { parseCoordinate } from '@/shared/geo/parse-coordinate';
 import { POST_KIND_LABELS, POST_KINDS, PostInputSchema, type Post, type PostInput } from '@/shared/schemas/site';
+import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
+import { UNIT_SYSTEM_IDS, UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { ApiRequestError } from '@/components/data/api-client';
-import { useCreatePost, useUpdatePost } from '@/components/data/sites';
+import { applyServerErrors } from '@/components/data/server-errors';
+import { useUnitSystem } from '@/components/data/session';
+import { useCreatePost, useSite, useUpdatePost } from '@/components/data/sites';
 import { Segmented } from '@/components/check/unit-switch';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError, Notice } from '@/components/ui/states';
-import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
+import { UnitNumberField } from '@/components/ui/unit-number-field';
+import { UnitsField, unitsResolver } from '@/components/ui/units-field';
 import { formatPosition } from '@/components/map/map-chrome';
 import { GroundFromTerrain } from './ground-from-terrain';
 
 type Kind = (typeof POST_KINDS)[number];
-const EMPTY = {
-  name: '',
-  kind: 'tower' as Kind,
-  location: '',
-  ground: '',
-  structure: '0',
-  eye: '1.6',
-  status: 'existing' as 'existing' | 'proposed',
-  sectorFrom: '',
-  sectorTo: '',
-};
-type Values = typeof EMPTY;
-type Errors = Partial<Record<keyof Values, string>>;
 
-/** The form's text values for an existing post. */
-function valuesOf(p: Post): Values {
+/** What the form holds: text as typed, lengths in the form's `units`. */
+interface PostFormValues {
+  units: UnitSystem;
+  name: string;
+  kind: Kind;
+  location: string;
+  groundElevationM: string;
+  structureHeightM: string;
+  eyeHeightM: string;
+  status: 'existing' | 'proposed';
+  sector: { fromDeg: string; toDeg: string };
+}
+
+/** A typed number, '' left out (so the schema's default applies), anything else as typed. */
+const typedNumber = (t: unknown) => {
+  if (typeof t !== 'string') return t;
+  const s = t.trim().replace(',', '.');
+  if (s === '') return undefined;
+  return Number.isFinite(Number(s)) ? Number(s) : t;
+};
+
+/** The coordinate typed, in any usual format, or why it is not one. */
+function readLocation(text: string): { latDeg: number; lonDeg: number } | string {
+  if (!text.trim()) return 'Enter where the post is.';
+  try {
+    const p = parseCoordinate(text);
+    return { latDeg: p.latDeg, lonDeg: p.lonDeg };
+  } catch (e) {
+    return e instanceof CoordinateError ? e.message : 'Not a coordinate.';
+  }
+}
+
+/** The shared post schema with the form's text: lengths typed in `units`, the location in any format. */
+export function postFormSchema(units: UnitSystem) {
+  const unit = UNIT_SYSTEMS[units].height;
+  const length = <S extends z.ZodType>(schema: S) => z.preprocess((t) => typedToMetres(t, unit) ?? undefined, schema);
+  return PostInputSchema.extend({
+    units: z.enum(UNIT_SYSTEM_IDS),
+    location: z.string().transform((text, ctx) => {
+      const read = readLocation(text);
+      if (typeof read === 'string') {
+        ctx.addIssue({ code: 'custom', message: read });
+        return z.NEVER;
+      }
+      return read;
+    }),
+    groundElevationM: length(PostInputSchema.shape.groundElevationM),
+    structureHeightM: length(PostInputSchema.shape.structureHeightM),
+    eyeHeightM: length(PostInputSchema.shape.eyeHeightM),
+    sector: z.preprocess((s) => {
+      const { fromDeg = '', toDeg = '' } = (s ?? {}) as { fromDeg?: string; toDeg?: string };
+      return fromDeg.trim() || toDeg.trim() ? { fromDeg: typedNumber(fromDeg), toDeg: typedNumber(toDeg) } : null;
+    }, PostInputSchema.shape.sector),
+  });
+}
+
+/** The form's values for an existing post (or a new one), lengths in `units`. */
+function valuesOf(p: Post | undefined, units: UnitSystem): PostFormValues {
+  const unit = UNIT_SYSTEMS[units].height;
   return {
-    name: p.name,
-    kind: p.kind,
-    location: formatCoordinate(p.location, 'dd'),
-    ground: String(p.groundElevationM),
-    structure: String(p.structureHeightM),
-    eye: String(p.eyeHeightM),
-    status: p.status,
-    sectorFrom: p.sector ? String(p.sector.fromDeg) : '',
-    sectorTo: p.sector ? String(p.sector.toDeg) : '',
+    units,
+    name: p?.name ?? '',
+    kind: p?.kind ?? 'tower',
+    location: p ? formatCoordinate(p.location, 'dd') : '',
+    groundElevationM: p ? lengthText(p.groundElevationM, unit) : '',
+    structureHeightM: lengthText(p?.structureHeightM ?? 0, unit),
+    eyeHeightM: lengthText(p?.eyeHeightM ?? 1.6, unit),
+    status: p?.status ?? 'existing',
+    sector: { fromDeg: p?.sector ? String(p.sector.fromDeg) : '', toDeg: p?.sector ? String(p.sector.toDeg) : '' },
   };
 }
 
-const FIELD: Record<string, keyof typeof EMPTY> = {
-  name: 'name',
-  kind: 'kind',
-  location: 'location',
-  groundElevationM: 'ground',
-  structureHeightM: 'structure',
-  eyeHeightM: 'eye',
-  'sector.fromDeg': 'sectorFrom',
-  'sector.toDeg': 'sectorTo',
-};
+const FIELDS = [
+  'name',
+  'kind',
+  'location',
+  'groundElevationM',
+  'structureHeightM',
+  'eyeHeightM',
+  'status',
+  'sector.fromDeg',
+  'sector.toDeg',
+  'sector',
+] as const;
 
 /**
  * A post's form: a new post, or — given `post` — an edit of that post saved
  * with the version it was loaded at. Coordinates in any usual format (DD,
- * DDM, DMS, UTM), heights in metres. When someone else saved the post first
- * the form says so and offers `onReload` (the parent remounts the form with
- * the new version).
+ * DDM, DMS, UTM), heights in the person's units (their own choice, else the
+ * site's), stored in metres. When someone else saved the post first the form
+ * says so and offers `onReload` (the parent remounts the form with the new
+ * version). A failed save keeps everything typed.
  */
 export function PostForm({
   siteId,
@@ -75,103 +130,80 @@ export function PostForm({
   onDone?: () => void;
   onReload?: () => void;
 }) {
-  const initial = post ? valuesOf(post) : EMPTY;
-  const [v, setV] = useState(initial);
-  const [errors, setErrors] = useState<Errors>({});
+  const site = useSite(siteId);
+  const preferred = useUnitSystem(site.data?.defaultUnits);
+  const [initial] = useState(() => valuesOf(post, preferred));
   const [formError, setFormError] = useState('');
   const [stale, setStale] = useState(false);
   const create = useCreatePost(siteId);
   const update = useUpdatePost(siteId, post?.id ?? '');
   const saving = post ? update : create;
-  const set = (k: keyof typeof EMPTY) => (text: string) => setV((f) => ({ ...f, [k]: text }));
+  const { control, handleSubmit, setError, setValue, reset, watch, getValues, formState } = useForm<
+    PostFormValues,
+    unknown,
+    z.output<ReturnType<typeof postFormSchema>>
+  >({
+    resolver: unitsResolver<PostFormValues, z.output<ReturnType<typeof postFormSchema>>>(postFormSchema),
+    defaultValues: initial,
+  });
+  const units = watch('units');
+  const heightUnit = UNIT_SYSTEMS[units].height;
+  const locationText = watch('location');
+  const located = locationText.trim() ? readLocation(locationText) : null;
+  const parsed = located && typeof located !== 'string' ? located : null;
 
-  let parsed: ReturnType<typeof parseCoordinate> | null = null;
-  let locationError = '';
-  if (v.location.trim()) {
-    try {
-      parsed = parseCoordinate(v.location);
-    } catch (e) {
-      locationError = e instanceof CoordinateError ? e.message : 'Not a coordinate.';
+  const onError = (e: Error) => {
+    if (e instanceof ApiRequestError && e.code === 'stale_version') {
+      setStale(true);
+      return;
     }
-  }
+    setFormError(applyServerErrors(e, setError, FIELDS));
+  };
 
-  const submit = () => {
+  const save = handleSubmit((out) => {
     setFormError('');
     setStale(false);
-    const num = (t: string) => (t.trim() === '' ? undefined : Number(t.replace(',', '.')));
-    const candidate = {
-      name: v.name,
-      kind: v.kind,
-      // An untouched location keeps its full precision (the text shows it rounded to about a metre).
-      location:
-        post && v.location === initial.location
-          ? post.location
-          : parsed
-            ? { latDeg: parsed.latDeg, lonDeg: parsed.lonDeg }
-            : undefined,
-      groundElevationM: num(v.ground),
-      structureHeightM: num(v.structure),
-      eyeHeightM: num(v.eye),
-      status: v.status,
-      sector: v.sectorFrom || v.sectorTo ? { fromDeg: num(v.sectorFrom), toDeg: num(v.sectorTo) } : null,
-    };
-    const result = PostInputSchema.safeParse(candidate);
-    const next: Errors = {};
-    if (!parsed) next.location = locationError || 'Enter where the post is.';
-    if (!result.success) {
-      for (const i of result.error.issues) {
-        const key = FIELD[i.path.join('.')] ?? FIELD[String(i.path[0])];
-        if (key && !next[key]) next[key] = i.message;
-      }
-    }
-    setErrors(next);
-    if (!result.success || Object.keys(next).length) return;
-    const onError = (e: Error) => {
-      if (e instanceof ApiRequestError) {
-        if (e.code === 'stale_version') {
-          setStale(true);
-          return;
-        }
-        const fromServer: Errors = {};
-        for (const [path, msg] of Object.entries(e.fields)) {
-          const key = FIELD[path] ?? FIELD[path.split('.')[0] ?? ''];
-          if (key) fromServer[key] = msg;
-        }
-        setErrors(fromServer);
-      }
-      setFormError(e.message);
-    };
+    const { units: _units, ...fields } = out;
+    // An untouched location keeps its full precision (the text shows it rounded to about a metre).
+    const input: PostInput = post && getValues('location') === initial.location ? { ...fields, location: post.location } : fields;
     if (post) {
       // The saved post comes back with a new version, which remounts this form (its key) before a
       // per-call onSuccess could run; the promise resolves regardless, so the page learns of the save.
-      update.mutateAsync({ ...(result.data as PostInput), version: post.version }).then(() => onDone?.(), onError);
+      update.mutateAsync({ ...input, version: post.version }).then(() => onDone?.(), onError);
     } else {
-      create.mutate(result.data as PostInput, {
+      create.mutate(input, {
         onSuccess: () => {
-          setV(EMPTY);
+          reset(valuesOf(undefined, getValues('units')));
           onDone?.();
         },
         onError,
       });
     }
-  };
+  });
+  const submit = () => void save();
 
   return (
     <Card accent="moss" aria-label={post ? 'Edit post' : 'New post'}>
       <AppText variant="heading">{post ? 'Edit this post' : 'Add a post'}</AppText>
       <FormError message={formError} />
-      <TextField label="Name" value={v.name} onChangeText={set('name')} error={errors.name} />
-      <Segmented<Kind>
-        label="Kind"
-        value={v.kind}
-        onChange={(k) => setV((f) => ({ ...f, kind: k }))}
-        options={POST_KINDS.map((k) => ({ value: k, label: POST_KIND_LABELS[k] }))}
+      <FormTextField control={control} name="name" label="Name" onSubmitEditing={submit} />
+      <Controller
+        control={control}
+        name="kind"
+        render={({ field }) => (
+          <Segmented<Kind>
+            label="Kind"
+            value={field.value}
+            onChange={field.onChange}
+            options={POST_KINDS.map((k) => ({ value: k, label: POST_KIND_LABELS[k] }))}
+          />
+        )}
       />
-      <TextField
+      <FormTextField
+        control={control}
+        name="location"
         label="Location"
-        value={v.location}
-        onChangeText={set('location')}
-        error={errors.location ?? (locationError || undefined)}
+        onSubmitEditing={submit}
         hint={
           parsed
             ? `Read as ${formatCoordinate(parsed, 'dd')} · ${formatCoordinate(parsed, 'utm')} · ${formatPosition(parsed, 'mgrs')} (WGS 84)`
@@ -179,70 +211,83 @@ export function PostForm({
         }
         autoCapitalize="characters"
       />
+      {typeof located === 'string' && !formState.errors.location ? (
+        <AppText variant="small" tone="danger" role="alert">
+          {located}
+        </AppText>
+      ) : null}
+      <UnitsField control={control} name="units" />
       <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
         <View style={{ flex: 1, minWidth: 140 }}>
-          <TextField
+          <UnitNumberField
+            control={control}
+            name="groundElevationM"
+            unit={heightUnit}
             label="Ground elevation"
-            unit="m"
-            inputMode="decimal"
-            value={v.ground}
-            onChangeText={set('ground')}
-            error={errors.ground}
+            onSubmitEditing={submit}
           />
-          <GroundFromTerrain siteId={siteId} location={parsed} onElevation={(m) => setV((f) => ({ ...f, ground: String(m) }))} />
+          <GroundFromTerrain
+            siteId={siteId}
+            location={parsed}
+            onElevation={(m) => setValue('groundElevationM', lengthText(m, heightUnit), { shouldValidate: false })}
+          />
         </View>
         <View style={{ flex: 1, minWidth: 140 }}>
-          <TextField
+          <UnitNumberField
+            control={control}
+            name="structureHeightM"
+            unit={heightUnit}
             label="Structure height"
-            unit="m"
-            inputMode="decimal"
-            value={v.structure}
-            onChangeText={set('structure')}
-            error={errors.structure}
+            onSubmitEditing={submit}
           />
         </View>
         <View style={{ flex: 1, minWidth: 140 }}>
-          <TextField
+          <UnitNumberField
+            control={control}
+            name="eyeHeightM"
+            unit={heightUnit}
             label="Eye above platform"
-            unit="m"
-            inputMode="decimal"
-            value={v.eye}
-            onChangeText={set('eye')}
-            error={errors.eye}
+            onSubmitEditing={submit}
           />
         </View>
       </View>
       <View style={{ flexDirection: 'row', gap: space.md }}>
         <View style={{ flex: 1 }}>
-          <TextField
+          <FormTextField
+            control={control}
+            name="sector.fromDeg"
             label="Sector from"
             unit="°"
             inputMode="decimal"
-            value={v.sectorFrom}
-            onChangeText={set('sectorFrom')}
-            error={errors.sectorFrom}
             hint="Leave both empty for all round."
+            onSubmitEditing={submit}
           />
         </View>
         <View style={{ flex: 1 }}>
-          <TextField
+          <FormTextField
+            control={control}
+            name="sector.toDeg"
             label="Sector to"
             unit="°"
             inputMode="decimal"
-            value={v.sectorTo}
-            onChangeText={set('sectorTo')}
-            error={errors.sectorTo}
+            onSubmitEditing={submit}
           />
         </View>
       </View>
-      <Segmented
-        label="Status"
-        value={v.status}
-        onChange={(s) => setV((f) => ({ ...f, status: s }))}
-        options={[
-          { value: 'existing', label: 'Existing' },
-          { value: 'proposed', label: 'Proposed' },
-        ]}
+      <Controller
+        control={control}
+        name="status"
+        render={({ field }) => (
+          <Segmented
+            label="Status"
+            value={field.value}
+            onChange={field.onChange}
+            options={[
+              { value: 'existing', label: 'Existing' },
+              { value: 'proposed', label: 'Proposed' },
+            ]}
+          />
+        )}
       />
       {/* Beside the button just pressed, so it is seen on a phone too. */}
       {stale ? (
@@ -255,14 +300,18 @@ export function PostForm({
         </Notice>
       ) : null}
       <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-        <Button label={post ? 'Save changes' : 'Save post'} onPress={submit} busy={saving.isPending} />
+        <Button
+          label={post ? 'Save changes' : 'Save post'}
+          onPress={submit}
+          busy={saving.isPending}
+          disabled={saving.isPending}
+        />
         {post ? (
           <Button
             kind="quiet"
             label="Discard changes"
             onPress={() => {
-              setV(initial);
-              setErrors({});
+              reset(valuesOf(post, getValues('units')));
               setFormError('');
             }}
           />

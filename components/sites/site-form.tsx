@@ -15,59 +15,54 @@ import {
   type Site,
   type SiteKind,
 } from '@/shared/schemas/site';
+import type { LengthUnit } from '@/shared/units/length';
+import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
+import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
 import { applyServerErrors } from '@/components/data/server-errors';
+import { useSession } from '@/components/data/session';
 import { sitePostsQuery, useCreateSite, useUpdateSite } from '@/components/data/sites';
 import { siteTerrainQuery } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormTextField } from '@/components/ui/form-text-field';
+import { UnitNumberField } from '@/components/ui/unit-number-field';
 import { FormError, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 import { GeoJsonImport } from './geojson-import';
 import { RingField } from './ring-field';
 import type { RingDrawContext } from './ring-draw-map';
 
-type UnitSystem = (typeof UNIT_SYSTEM_IDS)[number];
-export const UNIT_SYSTEM_LABELS: Record<UnitSystem, string> = {
-  metric: 'Metric (m, km)',
-  nautical: 'Nautical (m, nmi)',
-  imperial: 'Imperial (ft, mi)',
-};
+/**
+ * The form's own schema: the shared site schema, with a zone's weight typed
+ * as text and its outline required, and the two heights typed in `heightUnit`
+ * (stored in metres).
+ */
+export const siteFormSchema = (heightUnit: LengthUnit) =>
+  SiteInputSchema.pick({
+    name: true,
+    kind: true,
+    notes: true,
+    boundary: true,
+    defaultUnits: true,
+    timeZone: true,
+    seaArea: true,
+  }).extend({
+    seaLevelMaxM: z.preprocess((t) => typedToMetres(t, heightUnit), SiteInputSchema.shape.seaLevelMaxM),
+    targetGroundM: z.preprocess((t) => typedToMetres(t, heightUnit), SiteInputSchema.shape.targetGroundM),
+    priorityZones: z
+      .array(
+        PriorityZoneSchema.extend({
+          weight: z.coerce.number({ error: 'Weight is 1 to 10.' }).pipe(PriorityZoneSchema.shape.weight),
+          ring: RingSchema.nullable().refine((r) => r !== null, 'Draw, type or import the zone’s outline.'),
+        }),
+      )
+      .max(50, 'At most 50 zones.'),
+  });
+export const SiteFormSchema = siteFormSchema('m');
 
-/** A typed number or nothing: '' → null, '12,5' → 12.5, anything else as typed (the schema says why). */
-function optionalNumber(v: unknown): unknown {
-  if (v === null || v === undefined || (typeof v === 'string' && v.trim() === '')) return null;
-  if (typeof v === 'string') {
-    const n = Number(v.trim().replace(',', '.'));
-    return Number.isFinite(n) ? n : v;
-  }
-  return v;
-}
-
-/** The form's own schema: the shared site schema, with a zone's weight typed as text and its outline required. */
-export const SiteFormSchema = SiteInputSchema.pick({
-  name: true,
-  kind: true,
-  notes: true,
-  boundary: true,
-  defaultUnits: true,
-  timeZone: true,
-  seaArea: true,
-}).extend({
-  seaLevelMaxM: z.preprocess(optionalNumber, SiteInputSchema.shape.seaLevelMaxM),
-  targetGroundM: z.preprocess(optionalNumber, SiteInputSchema.shape.targetGroundM),
-  priorityZones: z
-    .array(
-      PriorityZoneSchema.extend({
-        weight: z.coerce.number({ error: 'Weight is 1 to 10.' }).pipe(PriorityZoneSchema.shape.weight),
-        ring: RingSchema.nullable().refine((r) => r !== null, 'Draw, type or import the zone’s outline.'),
-      }),
-    )
-    .max(50, 'At most 50 zones.'),
-});
 type FormIn = z.input<typeof SiteFormSchema>;
 type FormOut = z.output<typeof SiteFormSchema>;
 
@@ -79,7 +74,7 @@ const browserTimeZone = () => {
   }
 };
 
-function valuesOf(site: Site | undefined): FormIn {
+function valuesOf(site: Site | undefined, heightUnit: LengthUnit): FormIn {
   return {
     name: site?.name ?? '',
     kind: site?.kind ?? 'forest-district',
@@ -88,8 +83,8 @@ function valuesOf(site: Site | undefined): FormIn {
     defaultUnits: site?.defaultUnits ?? 'metric',
     timeZone: site?.timeZone ?? browserTimeZone(),
     seaArea: site?.seaArea ?? null,
-    seaLevelMaxM: site?.seaLevelMaxM == null ? '' : String(site.seaLevelMaxM),
-    targetGroundM: site?.targetGroundM == null ? '' : String(site.targetGroundM),
+    seaLevelMaxM: lengthText(site?.seaLevelMaxM, heightUnit),
+    targetGroundM: lengthText(site?.targetGroundM, heightUnit),
     priorityZones: (site?.priorityZones ?? []).map((z) => ({ name: z.name, weight: String(z.weight), ring: z.ring })),
   };
 }
@@ -130,10 +125,15 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
   const [formError, setFormError] = useState('');
   const [stale, setStale] = useState(false);
   const [importing, setImporting] = useState(false);
+  // Heights are typed in the person's own units, else in the units this form gives the site.
+  const preference = useSession().data?.unitPreference ?? null;
+  const heightUnitOf = (defaultUnits: UnitSystem) => UNIT_SYSTEMS[preference ?? defaultUnits].height;
   const { control, handleSubmit, setError, formState, watch } = useForm<FormIn, unknown, FormOut>({
-    resolver: zodResolver(SiteFormSchema),
-    defaultValues: valuesOf(site),
+    resolver: (values, context, options) =>
+      zodResolver(siteFormSchema(heightUnitOf(values.defaultUnits ?? 'metric')))(values, context, options),
+    defaultValues: valuesOf(site, heightUnitOf(site?.defaultUnits ?? 'metric')),
   });
+  const heightUnit = heightUnitOf(watch('defaultUnits') ?? 'metric');
   const zones = useFieldArray({ control, name: 'priorityZones' });
   const posts = useQuery({ ...sitePostsQuery(site?.id ?? ''), enabled: !!site });
   const terrain = useQuery({ ...siteTerrainQuery(site?.id ?? ''), enabled: !!site });
@@ -192,7 +192,7 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
             label="Default units"
             value={field.value ?? 'metric'}
             onChange={field.onChange}
-            options={UNIT_SYSTEM_IDS.map((u) => ({ value: u, label: UNIT_SYSTEM_LABELS[u] }))}
+            options={UNIT_SYSTEM_IDS.map((u) => ({ value: u, label: UNIT_SYSTEMS[u].name }))}
           />
         )}
       />
@@ -239,20 +239,18 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
             />
           )}
         />
-        <FormTextField
+        <UnitNumberField
           control={control}
           name="seaLevelMaxM"
           label="Terrain at or below this height is sea"
-          unit="m"
-          inputMode="decimal"
+          unit={heightUnit}
           hint="Empty: no sea from the terrain. Usually a little above mean sea level (tide, spray)."
         />
-        <FormTextField
+        <UnitNumberField
           control={control}
           name="targetGroundM"
           label="Ground the targets stand on, for smooth-earth figures"
-          unit="m"
-          inputMode="decimal"
+          unit={heightUnit}
           hint="Empty: sea level on a coast, each post’s own ground inland. Terrain coverage uses the terrain itself."
         />
       </View>

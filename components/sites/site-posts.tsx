@@ -4,7 +4,9 @@ import { useState } from 'react';
 import { Pressable, View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { POST_KIND_LABELS, POST_KINDS, type Post } from '@/shared/schemas/site';
-import { sitePostsPageQuery } from '@/components/data/sites';
+import { lengthIn } from '@/components/check/format';
+import { useLengthUnits } from '@/components/data/session';
+import { sitePostsPageQuery, useSite } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import { Chip, ChipRow } from '@/components/ui/chip';
@@ -25,6 +27,7 @@ const eye = (p: Post) => p.groundElevationM + p.structureHeightM + p.eyeHeightM;
 /** A site's posts as cards: search by name, filter by kind and status, sort, and page through a large site. */
 export function SitePosts({ siteId }: { siteId: string }) {
   const router = useRouter();
+  const { height } = useLengthUnits(useSite(siteId).data?.defaultUnits);
   const [q, setQ] = useState('');
   const [kind, setKind] = useState<string | undefined>();
   const [status, setStatus] = useState<string | undefined>();
@@ -99,8 +102,9 @@ export function SitePosts({ siteId }: { siteId: string }) {
                   {POST_KIND_LABELS[p.kind]} · {p.status} · {formatCoordinate(p.location, 'ddm')}
                 </AppText>
                 <AppText variant="small">
-                  Eye {eye(p).toFixed(1)} m above sea level (ground {p.groundElevationM} m + structure {p.structureHeightM} m + eye{' '}
-                  {p.eyeHeightM} m)
+                  Eye {lengthIn(eye(p), height, (m) => `${m.toFixed(1)} m`)} above sea level (ground{' '}
+                  {lengthIn(p.groundElevationM, height)} + structure {lengthIn(p.structureHeightM, height)} + eye{' '}
+                  {lengthIn(p.eyeHeightM, height)})
                   {p.sector ? ` · sector ${p.sector.fromDeg}°–${p.sector.toDeg}°` : ' · all round'}
                 </AppText>
               </Card>

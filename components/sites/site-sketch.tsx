@@ -2,6 +2,8 @@ import { useState } from 'react';
 import { View, type LayoutChangeEvent } from 'react-native';
 import Svg, { Circle, G, Path, Polygon, Text as SvgText } from 'react-native-svg';
 import type { Post, Site } from '@/shared/schemas/site';
+import { useLengthUnits } from '@/components/data/session';
+import { scaleBar } from '@/components/map/scale-bar';
 import { AppText } from '@/components/ui/app-text';
 import { colors, fonts, space } from '@/components/ui/theme';
 
@@ -12,6 +14,7 @@ import { colors, fonts, space } from '@/components/ui/theme';
  */
 export function SiteSketch({ site, posts }: { site: Site; posts: Post[] }) {
   const [width, setWidth] = useState(0);
+  const { system } = useLengthUnits(site.defaultUnits);
   const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
   const pts: [number, number][] = [
     ...(site.boundary ?? []),
@@ -40,6 +43,11 @@ export function SiteSketch({ site, posts }: { site: Site; posts: Post[] }) {
   // Kilometres per degree of latitude: 2πR/360 with R = 6 371 km (common practice, no source).
   const kmPerPx = 111.195 / scale;
   const barKm = [1, 2, 5, 10, 20, 50].find((k) => k / kmPerPx > 60) ?? 50;
+  // Metric keeps the sketch's own kilometre bar; feet, miles and nautical miles come from the map's scale bar.
+  const bar =
+    system === 'metric'
+      ? { px: barKm / kmPerPx, label: `${barKm} km` }
+      : scaleBar(kmPerPx * 1000, Math.max(width / 3, 60), system);
 
   const wedge = (p: Post) => {
     if (!p.sector) return null;
@@ -93,9 +101,9 @@ export function SiteSketch({ site, posts }: { site: Site; posts: Post[] }) {
           <SvgText x={width - 16} y={46} fontSize={11} fontFamily={fonts.semibold} fill={colors.ink} textAnchor="middle">
             N
           </SvgText>
-          <Path d={`M${pad},${height - 12} h${barKm / kmPerPx}`} stroke={colors.ink} strokeWidth={3} />
+          <Path d={`M${pad},${height - 12} h${bar.px}`} stroke={colors.ink} strokeWidth={3} />
           <SvgText x={pad} y={height - 18} fontSize={11} fontFamily={fonts.regular} fill={colors.ink}>
-            {barKm} km
+            {bar.label}
           </SvgText>
         </Svg>
       ) : (

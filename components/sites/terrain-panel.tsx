@@ -6,6 +6,8 @@ import { TERRAIN_FORMAT_LABELS, type SiteTerrain } from '@/shared/schemas/terrai
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { ApiRequestError } from '@/components/data/api-client';
 import type { PickedFile } from '@/components/data/file-part';
+import { formatLength } from '@/components/check/format';
+import { useLengthUnits } from '@/components/data/session';
 import { useSiteTerrain, useUploadTerrain } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
 import { FilePickerField } from '@/components/ui/file-picker-field';
@@ -44,6 +46,7 @@ export function TerrainPanel({ site, canUpload }: { site: Site; canUpload: boole
 }
 
 function TerrainFacts({ site, terrain }: { site: Site; terrain: SiteTerrain }) {
+  const { height } = useLengthUnits(site.defaultUnits);
   const layer = terrain.baseLayer;
   const widthM = terrain.width * terrain.cellSizeM;
   const heightM = terrain.height * terrain.cellSizeM;
@@ -59,7 +62,14 @@ function TerrainFacts({ site, terrain }: { site: Site; terrain: SiteTerrain }) {
         <Fact label="Grid" value={`${terrain.width} × ${terrain.height} cells · ${km(widthM)} × ${km(heightM)}`} />
         <Fact label="Cell size" value={`${terrain.cellSizeM} m`} />
         <Fact label="Coordinate system" value={terrain.crs.label} />
-        <Fact label="Ground" value={`${Math.round(terrain.minElevationM)} – ${Math.round(terrain.maxElevationM)} m`} />
+        <Fact
+          label="Ground"
+          value={
+            height === 'm'
+              ? `${Math.round(terrain.minElevationM)} – ${Math.round(terrain.maxElevationM)} m`
+              : `${formatLength(terrain.minElevationM, height)} – ${formatLength(terrain.maxElevationM, height)}`
+          }
+        />
         {terrain.nodataCells > 0 ? <Fact label="Cells without data" value={terrain.nodataCells.toLocaleString('en')} /> : null}
         <Fact label="File" value={`${terrain.originalName} (${TERRAIN_FORMAT_LABELS[terrain.originalFormat]})`} />
         <Fact

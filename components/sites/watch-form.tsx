@@ -1,58 +1,84 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';
-import { AssignmentInputSchema, type Roster } from '@/shared/schemas/assignment';
-import { ApiRequestError } from '@/components/data/api-client';
+import { z } from 'zod';
+import { AssignmentInputSchema, type AssignmentInput, type Roster } from '@/shared/schemas/assignment';
 import { useCreateAssignment, usePeople } from '@/components/data/roster';
+import { applyServerErrors } from '@/components/data/server-errors';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Chip, ChipRow } from '@/components/ui/chip';
+import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError } from '@/components/ui/states';
-import { TextField } from '@/components/ui/text-field';
 import { colors, space } from '@/components/ui/theme';
 import { parseWatchTime, WATCH_TIME_FORMAT } from './watch-time';
 
-type Field = 'postId' | 'userId' | 'startsAt' | 'endsAt' | 'note';
+/** What the form holds: the chosen post and person, the times as typed in the site's local time. */
+interface WatchFormValues {
+  postId: string;
+  userId: string;
+  startsAt: string;
+  endsAt: string;
+  note: string;
+}
+const EMPTY: WatchFormValues = { postId: '', userId: '', startsAt: '', endsAt: '', note: '' };
+const FIELDS = ['postId', 'userId', 'startsAt', 'endsAt', 'note'] as const;
+
+/** The shared assignment schema behind the form's text: times typed in `timeZone` become instants first. */
+export function watchFormSchema(timeZone: string) {
+  return z.preprocess((form, ctx) => {
+    const v = form as WatchFormValues;
+    const startsAt = parseWatchTime(v.startsAt, timeZone);
+    const endsAt = v.endsAt.trim() ? parseWatchTime(v.endsAt, timeZone) : null;
+    if (!startsAt) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['startsAt'],
+        input: v.startsAt,
+        message: `Type the start as ${WATCH_TIME_FORMAT}, e.g. 2026-12-03 08:00.`,
+      });
+    }
+    if (v.endsAt.trim() && !endsAt) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['endsAt'],
+        input: v.endsAt,
+        message: `Type the end as ${WATCH_TIME_FORMAT}, or leave it empty for until further notice.`,
+      });
+    }
+    return { postId: v.postId, userId: v.userId, startsAt: startsAt ?? '', endsAt, note: v.note };
+  }, AssignmentInputSchema);
+}
+
+/** An error under a chip row, announced. */
+function ChoiceError({ message }: { message?: string }) {
+  return message ? (
+    <AppText variant="small" tone="danger" role="alert">
+      {message}
+    </AppText>
+  ) : null;
+}
 
 /** Puts someone on a post: which post, who, from when to when (the site's local time), and a note. */
 export function WatchForm({ posts, timeZone }: { posts: Roster['posts']; timeZone: string }) {
   const people = usePeople(true);
   const create = useCreateAssignment();
-  const [postId, setPostId] = useState('');
-  const [userId, setUserId] = useState('');
-  const [start, setStart] = useState('');
-  const [end, setEnd] = useState('');
-  const [note, setNote] = useState('');
-  const [errors, setErrors] = useState<Partial<Record<Field, string>>>({});
   const [formError, setFormError] = useState('');
+  const { control, handleSubmit, setError, reset, getValues } = useForm<WatchFormValues, unknown, AssignmentInput>({
+    resolver: zodResolver(watchFormSchema(timeZone) as never) as never,
+    defaultValues: EMPTY,
+  });
 
-  const submit = () => {
+  const save = handleSubmit((input) => {
     setFormError('');
-    const next: Partial<Record<Field, string>> = {};
-    const startsAt = parseWatchTime(start, timeZone);
-    const endsAt = end.trim() ? parseWatchTime(end, timeZone) : null;
-    if (!startsAt) next.startsAt = `Type the start as ${WATCH_TIME_FORMAT}, e.g. 2026-12-03 08:00.`;
-    if (end.trim() && !endsAt) next.endsAt = `Type the end as ${WATCH_TIME_FORMAT}, or leave it empty for until further notice.`;
-    const parsed = AssignmentInputSchema.safeParse({ postId, userId, startsAt: startsAt ?? '', endsAt, note });
-    if (!parsed.success) {
-      for (const i of parsed.error.issues) {
-        const key = String(i.path[0]) as Field;
-        next[key] ??= key === 'postId' ? 'Choose a post.' : key === 'userId' ? 'Choose a person.' : i.message;
-      }
-    }
-    setErrors(next);
-    if (Object.keys(next).length || !parsed.success) return;
-    create.mutate(parsed.data, {
-      onSuccess: () => {
-        setStart('');
-        setEnd('');
-        setNote('');
-      },
-      onError: (e) => {
-        if (e instanceof ApiRequestError && Object.keys(e.fields).length) setErrors(e.fields as Partial<Record<Field, string>>);
-        else setFormError(e.message);
-      },
+    create.mutate(input, {
+      // The same post and person stay chosen for the next watch.
+      onSuccess: () => reset({ ...EMPTY, postId: getValues('postId'), userId: getValues('userId') }),
+      onError: (e) => setFormError(applyServerErrors(e, setError, FIELDS)),
     });
-  };
+  });
+  const submit = () => void save();
 
   return (
     <View
@@ -61,49 +87,57 @@ export function WatchForm({ posts, timeZone }: { posts: Roster['posts']; timeZon
     >
       <AppText variant="heading">Put someone on a post</AppText>
       <FormError message={formError} />
-      <ChipRow label="Post">
-        {posts.map((p) => (
-          <Chip key={p.postId} label={p.postName} on={postId === p.postId} onPress={() => setPostId(p.postId)} />
-        ))}
-      </ChipRow>
-      {errors.postId ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {errors.postId}
-        </AppText>
-      ) : null}
-      <ChipRow label="Person">
-        {(people.data ?? []).map((p) => (
-          <Chip key={p.id} label={p.name} on={userId === p.id} onPress={() => setUserId(p.id)} />
-        ))}
-      </ChipRow>
-      {errors.userId ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {errors.userId}
-        </AppText>
-      ) : null}
+      <Controller
+        control={control}
+        name="postId"
+        render={({ field, fieldState }) => (
+          <>
+            <ChipRow label="Post">
+              {posts.map((p) => (
+                <Chip key={p.postId} label={p.postName} on={field.value === p.postId} onPress={() => field.onChange(p.postId)} />
+              ))}
+            </ChipRow>
+            <ChoiceError message={fieldState.error?.message} />
+          </>
+        )}
+      />
+      <Controller
+        control={control}
+        name="userId"
+        render={({ field, fieldState }) => (
+          <>
+            <ChipRow label="Person">
+              {(people.data ?? []).map((p) => (
+                <Chip key={p.id} label={p.name} on={field.value === p.id} onPress={() => field.onChange(p.id)} />
+              ))}
+            </ChipRow>
+            <ChoiceError message={fieldState.error?.message} />
+          </>
+        )}
+      />
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         <View style={{ flex: 1, minWidth: 160 }}>
-          <TextField
+          <FormTextField
+            control={control}
+            name="startsAt"
             label="From"
-            value={start}
-            onChangeText={setStart}
             placeholder={WATCH_TIME_FORMAT.toLowerCase()}
-            error={errors.startsAt}
+            onSubmitEditing={submit}
           />
         </View>
         <View style={{ flex: 1, minWidth: 160 }}>
-          <TextField
+          <FormTextField
+            control={control}
+            name="endsAt"
             label="To"
-            value={end}
-            onChangeText={setEnd}
             placeholder="empty: until further notice"
-            error={errors.endsAt}
+            onSubmitEditing={submit}
           />
         </View>
       </View>
-      <TextField label="Note" value={note} onChangeText={setNote} error={errors.note} />
+      <FormTextField control={control} name="note" label="Note" onSubmitEditing={submit} />
       <View style={{ alignSelf: 'flex-start' }}>
-        <Button label="Put on watch" onPress={submit} busy={create.isPending} />
+        <Button label="Put on watch" onPress={submit} busy={create.isPending} disabled={create.isPending} />
       </View>
     </View>
   );

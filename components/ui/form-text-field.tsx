@@ -2,11 +2,11 @@ import { Controller, type Control, type FieldValues, type Path } from 'react-hoo
 import { TextField, type TextFieldProps } from './text-field';
 
 /** A TextField bound to a react-hook-form field; shows that field's error under it. */
-export function FormTextField<T extends FieldValues>({
+export function FormTextField<T extends FieldValues, TOut = T>({
   control,
   name,
   ...props
-}: { control: Control<T>; name: Path<T> } & Omit<TextFieldProps, 'value' | 'onChangeText' | 'onBlur' | 'error'>) {
+}: { control: Control<T, unknown, TOut>; name: Path<T> } & Omit<TextFieldProps, 'value' | 'onChangeText' | 'onBlur' | 'error'>) {
   return (
     <Controller
       control={control}

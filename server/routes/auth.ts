@@ -1,12 +1,12 @@
 import { randomBytes } from 'node:crypto';
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
-import { SetPasswordRequestSchema, SignInRequestSchema } from '@/shared/schemas/auth';
+import { MeUpdateSchema, SetPasswordRequestSchema, SignInRequestSchema } from '@/shared/schemas/auth';
 import { endAllSessions, endSession } from '@/server/domain/auth/end-sessions';
 import { signIn } from '@/server/domain/auth/sign-in';
 import type { SignInLimiter } from '@/server/domain/auth/sign-in-limiter';
-import { setPasswordWithToken } from '@/server/domain/users/manage-users';
-import { endingSessionsOf, requireUser } from '@/server/http/session';
+import { setPasswordWithToken, updateOwnSettings } from '@/server/domain/users/manage-users';
+import { actorOf, endingSessionsOf, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 
 export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
@@ -44,6 +44,14 @@ export function authRoutes(db: Sequelize, limiter: SignInLimiter) {
 
   router.get('/me', requireUser, (req, res) => {
     res.json({ user: req.user });
+  });
+
+  /** The person's own settings: `{ unitPreference: 'metric' | 'nautical' | 'imperial' | null }`. */
+  router.patch('/me', requireUser, async (req, res) => {
+    const input = parseOrThrow(MeUpdateSchema, req.body, 'account settings');
+    // Answer once every process has dropped its cached copy, so the next request anywhere sees the change.
+    const user = await endingSessionsOf(req, req.user!.id, () => updateOwnSettings({ db }, actorOf(req), req.user!, input));
+    res.json({ user });
   });
 
   return router;

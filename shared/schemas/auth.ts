@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { pageOf } from './list';
+import { UNIT_SYSTEM_IDS } from '@/shared/units/unit-systems';
 import { SeenVersionSchema } from './seen-version';
 
 export const ROLES = ['admin', 'planner', 'reviewer', 'observer'] as const;
@@ -54,8 +55,19 @@ export const UserSchema = z.object({
   name: z.string(),
   role: RoleSchema,
   organization: OrganizationSchema,
+  /** The person's own unit system for forms and read-outs; absent or null = each site's default units. */
+  unitPreference: z.enum(UNIT_SYSTEM_IDS).nullish(),
 });
 export type User = z.infer<typeof UserSchema>;
+
+/** `PATCH /me`: the signed-in person's own settings. */
+export const MeUpdateSchema = z.object({
+  /** metric (m, km), nautical (ft, nmi) or imperial (ft, mi); null = follow each site's default units. */
+  unitPreference: z
+    .enum(UNIT_SYSTEM_IDS, { error: 'Choose metric, nautical or imperial, or none to follow each site.' })
+    .nullable(),
+});
+export type MeUpdate = z.infer<typeof MeUpdateSchema>;
 
 export const MeResponseSchema = z.object({ user: UserSchema });
 export type MeResponse = z.infer<typeof MeResponseSchema>;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ringSelfIntersection } from '@/shared/geo/ring-self-intersection';
+import { UNIT_SYSTEM_IDS } from '@/shared/units/unit-systems';
 import { LatLonSchema } from './lat-lon';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
@@ -15,7 +16,7 @@ export const SITE_KIND_LABELS: Record<SiteKind, string> = {
   'search-area': 'Search area',
 };
 
-export const UNIT_SYSTEM_IDS = ['metric', 'nautical', 'imperial'] as const;
+export { UNIT_SYSTEM_IDS } from '@/shared/units/unit-systems';
 
 /**
  * A polygon ring as [longitude, latitude] pairs (GeoJSON order, WGS84 degrees),

@@ -55,7 +55,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site setup on the %s vi
       const name = `Gull Point ${viewport}`;
       await form.getByLabel('Name').fill(name);
       await form.getByRole('radio', { name: 'Coast stretch' }).click();
-      await form.getByRole('radio', { name: 'Nautical (m, nmi)' }).click();
+      await form.getByRole('radio', { name: 'Nautical (ft, nmi)' }).click();
       await form.getByLabel('Time zone').fill('Europe/Dublin');
 
       // Boundary: drawn on a plain grid around a typed point, with taps.

@@ -9,6 +9,7 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { Role } from '@/shared/schemas/auth';
+import type { UnitSystem } from '@/shared/units/unit-systems';
 import type { OrganizationModel } from './organization';
 
 export class UserModel extends Model<InferAttributes<UserModel>, InferCreationAttributes<UserModel>> {
@@ -28,6 +29,8 @@ export class UserModel extends Model<InferAttributes<UserModel>, InferCreationAt
   declare version: CreationOptional<number>;
   /** Sealed into session cookies at sign-in; bumping it ends every earlier session. */
   declare sessionGeneration: CreationOptional<number>;
+  /** The person's own unit system; null = each site's default units. */
+  declare unitPreference: CreationOptional<UnitSystem | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -47,6 +50,7 @@ export class UserModel extends Model<InferAttributes<UserModel>, InferCreationAt
         lastSignInAt: { type: DataTypes.DATE, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         sessionGeneration: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        unitPreference: { type: DataTypes.STRING(16), allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -1,5 +1,6 @@
 import { literal, Op, type Transaction } from 'sequelize';
 import type { ManagedUser, Role, User } from '@/shared/schemas/auth';
+import type { UnitSystem } from '@/shared/units/unit-systems';
 import { OrganizationModel, UserModel } from '../models';
 import { announceSessionsEnded } from '../session-notices';
 
@@ -11,10 +12,20 @@ export interface Credentials {
   sessionGeneration: number;
 }
 
+/** The person's unit system when they chose one (left out otherwise: each site's default applies). */
+const ownUnits = (unitPreference: User['unitPreference']) => (unitPreference ? { unitPreference } : {});
+
 function toUser(row: UserModel): User {
   const org = row.organization;
   if (!org) throw new Error('users-repository: organization not loaded');
-  return { id: row.id, email: row.email, name: row.name, role: row.role, organization: { id: org.id, name: org.name } };
+  return {
+    id: row.id,
+    email: row.email,
+    name: row.name,
+    role: row.role,
+    organization: { id: org.id, name: org.name },
+    ...ownUnits(row.unitPreference),
+  };
 }
 
 function toManaged(row: UserModel): ManagedUser {
@@ -58,12 +69,12 @@ export const usersRepository = {
       : [];
     const row = (await UserModel.findOne({
       where: { id, active: true },
-      attributes: ['id', 'email', 'name', 'role', 'sessionGeneration', ...ended],
+      attributes: ['id', 'email', 'name', 'role', 'unitPreference', 'sessionGeneration', ...ended],
       include: [{ model: OrganizationModel, as: 'organization', attributes: ['id', 'name'] }],
       raw: true,
       nest: true,
     })) as unknown as
-      | (Pick<User, 'id' | 'email' | 'name' | 'role'> & {
+      | (Pick<User, 'id' | 'email' | 'name' | 'role' | 'unitPreference'> & {
           organization: User['organization'];
           sessionGeneration: number;
           sessionEnded?: boolean;
@@ -76,10 +87,29 @@ export const usersRepository = {
           name: row.name,
           role: row.role,
           organization: { id: row.organization.id, name: row.organization.name },
+          ...ownUnits(row.unitPreference),
           sessionGeneration: row.sessionGeneration,
           sessionEnded: row.sessionEnded === true,
         }
       : null;
+  },
+
+  /**
+   * Sets the person's own unit system (null = each site's default); returns
+   * the previous one, or undefined when the account is gone. A personal
+   * setting, not an edit of the account: no version bump.
+   */
+  async setUnitPreference(
+    id: string,
+    unitPreference: UnitSystem | null,
+    transaction: Transaction,
+  ): Promise<UnitSystem | null | undefined> {
+    const row = await UserModel.findOne({ where: { id }, attributes: ['id', 'unitPreference'], transaction, lock: true });
+    if (!row) return undefined;
+    await UserModel.update({ unitPreference }, { where: { id }, transaction, silent: true });
+    // Every process forgets its cached copy of this person (the cached row carries the preference).
+    await announceSessionsEnded(UserModel.sequelize!, id, transaction);
+    return row.unitPreference ?? null;
   },
 
   /** Ends one session (by its cookie's nonce) until `expiresAt`, when its cookie has lapsed anyway. */

@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
-import type { InviteUserRequest, ManagedUser, UpdateUserRequest } from '@/shared/schemas/auth';
+import type { InviteUserRequest, ManagedUser, MeUpdate, UpdateUserRequest, User } from '@/shared/schemas/auth';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { usersRepository } from '@/server/data/repositories/users-repository';
 import { AppError } from '@/server/domain/app-error';
@@ -119,5 +119,30 @@ export async function setPasswordWithToken({ db }: UseCaseDeps, token: string, p
     }
     await usersRepository.setPassword(found.id, passwordHash, transaction);
     await usersRepository.endSessions(found.id, transaction);
+  });
+}
+
+/**
+ * The signed-in person's own settings (`PATCH /me`): their unit system, or
+ * null to follow each site's default units. Recorded in the audit trail.
+ */
+export async function updateOwnSettings({ db }: UseCaseDeps, actor: Actor, user: User, input: MeUpdate): Promise<User> {
+  return db.transaction(async (transaction) => {
+    const before = await usersRepository.setUnitPreference(actor.userId, input.unitPreference, transaction);
+    if (before === undefined) throw AppError.notFound('That user');
+    if (before !== input.unitPreference) {
+      await auditRepository.record(
+        actor,
+        {
+          action: 'set-unit-preference',
+          entityType: 'user',
+          entityId: actor.userId,
+          before: { unitPreference: before },
+          after: { unitPreference: input.unitPreference },
+        },
+        transaction,
+      );
+    }
+    return { ...user, unitPreference: input.unitPreference };
   });
 }
