@@ -9,6 +9,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import { Chip, ChipRow } from '@/components/ui/chip';
 import { Pager } from '@/components/ui/pager';
+import { useSession } from '@/components/data/session';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
@@ -25,6 +26,7 @@ const eye = (p: Post) => p.groundElevationM + p.structureHeightM + p.eyeHeightM;
 /** A site's posts as cards: search by name, filter by kind and status, sort, and page through a large site. */
 export function SitePosts({ siteId }: { siteId: string }) {
   const router = useRouter();
+  const planner = useSession().data?.role === 'planner';
   const [q, setQ] = useState('');
   const [kind, setKind] = useState<string | undefined>();
   const [status, setStatus] = useState<string | undefined>();
@@ -81,7 +83,7 @@ export function SitePosts({ siteId }: { siteId: string }) {
           body={
             filtered
               ? 'Loosen the search or the filters.'
-              : 'A post is a tower, hilltop, shore post, vessel or aircraft someone watches from.'
+              : `A post is a tower, hilltop, shore post, vessel or aircraft someone watches from. ${planner ? 'Add the first with the New post form on this page (its place in any coordinate format; its ground can come from the terrain), or duplicate a post later to make a similar one.' : 'A planner adds them.'}`
           }
         />
       ) : (
@@ -99,8 +101,8 @@ export function SitePosts({ siteId }: { siteId: string }) {
                   {POST_KIND_LABELS[p.kind]} · {p.status} · {formatCoordinate(p.location, 'ddm')}
                 </AppText>
                 <AppText variant="small">
-                  Eye {eye(p).toFixed(1)} m above sea level (ground {p.groundElevationM} m + structure {p.structureHeightM} m + eye{' '}
-                  {p.eyeHeightM} m)
+                  Eye {eye(p).toFixed(1)} m above sea level (ground {p.groundElevationM} m + structure {p.structureHeightM} m +
+                  eye {p.eyeHeightM} m)
                   {p.sector ? ` · sector ${p.sector.fromDeg}°–${p.sector.toDeg}°` : ' · all round'}
                 </AppText>
               </Card>
