@@ -126,6 +126,7 @@ function MapWorkspace({
     const shifted = posts.map((p) => (p.id === drag.postId ? { ...p, location: { latDeg: to.latDeg, lonDeg: to.lonDeg } } : p));
     return siteMapFrame(site, shifted, terrain);
   }, [drag, savedFrame, posts, site, terrain]);
+  useEffect(() => setDrag(null), [posts]);
   const [mode, setMode] = useState<'2d' | '3d'>('2d');
   const [chosenPostId, setChosenPostId] = useState<string | null>(
     posts.find((p) => p.id === focusPostId)?.id ?? posts.find((p) => p.status === 'existing')?.id ?? posts[0]?.id ?? null,
@@ -199,9 +200,13 @@ function MapWorkspace({
           },
         }
       : undefined;
-  const endMove = (message: string) => {
+  const cancelMove = () => {
     setPendingMove(null);
     setDrag(null);
+  };
+  // A saved move keeps the pin where it was dropped until the posts come back from the server.
+  const savedMove = (message: string) => {
+    setPendingMove(null);
     setMoveMessage(message);
   };
 
@@ -333,7 +338,7 @@ function MapWorkspace({
       </View>
     ) : null;
   const moveDialog = (
-    <PostMoveDialog siteId={site.id} hasTerrain={!!terrain} pending={pendingMove} onDone={endMove} onCancel={() => endMove('')} />
+    <PostMoveDialog siteId={site.id} hasTerrain={!!terrain} pending={pendingMove} onDone={savedMove} onCancel={cancelMove} />
   );
 
   const toolbar = (
