@@ -4,6 +4,7 @@ import { compassPoint } from '@/shared/geo/compass-point';
 import { geodesicInverse } from '@/shared/geo/geodesic-inverse';
 import type { LatLon } from '@/shared/geo/types';
 import type { Post } from '@/shared/schemas/site';
+import { ApiRequestError } from '@/components/data/api-client';
 import { useMovePost } from '@/components/data/placement';
 import { useTerrainElevation } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
@@ -63,6 +64,7 @@ export function PostMoveDialog({
 
   if (!pending) return null;
   const { post, to } = pending;
+  const refused = move.error instanceof ApiRequestError && move.error.code === 'post_in_frozen_plan';
   const leg = geodesicInverse(post.location, to);
   const groundKnown = hasTerrain ? (ground?.to === to ? ground : null) : null;
   const groundLine = !hasTerrain
@@ -94,7 +96,8 @@ export function PostMoveDialog({
       confirmLabel="Move post"
       busy={move.isPending}
       error={move.error?.message}
-      confirmDisabled={hasTerrain && groundKnown?.elevationM == null}
+      // A post of a submitted or approved plan stays put whatever is tried again; Cancel puts the pin back.
+      confirmDisabled={(hasTerrain && groundKnown?.elevationM == null) || refused}
       onConfirm={confirm}
       onCancel={onCancel}
     >

@@ -260,6 +260,22 @@ function MapWorkspace({
 
   const postChips = (
     <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={styles.chips} style={{ flexGrow: 0 }}>
+      {canMove && posts.length > 0 && mode === '2d' ? (
+        <Pressable
+          role="switch"
+          aria-checked={moving}
+          aria-label="Move posts by dragging"
+          onPress={() => {
+            setMoving((m) => !m);
+            setMoveMessage('');
+          }}
+          style={[styles.postChip, moving && { backgroundColor: colors.ember, borderColor: colors.ember }]}
+        >
+          <AppText variant="label" style={{ color: moving ? colors.surface : colors.ink }}>
+            {moving ? 'Moving posts: on' : 'Move posts'}
+          </AppText>
+        </Pressable>
+      ) : null}
       <View
         role="radiogroup"
         aria-label="Profile from post"
@@ -277,22 +293,6 @@ function MapWorkspace({
           </AppText>
         ) : null}
       </View>
-      {canMove && posts.length > 0 && mode === '2d' ? (
-        <Pressable
-          role="switch"
-          aria-checked={moving}
-          aria-label="Move posts by dragging"
-          onPress={() => {
-            setMoving((m) => !m);
-            setMoveMessage('');
-          }}
-          style={[styles.postChip, moving && { backgroundColor: colors.ember, borderColor: colors.ember }]}
-        >
-          <AppText variant="label" style={{ color: moving ? colors.surface : colors.ink }}>
-            {moving ? 'Moving posts: on' : 'Move posts'}
-          </AppText>
-        </Pressable>
-      ) : null}
     </ScrollView>
   );
 

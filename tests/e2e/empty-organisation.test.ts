@@ -82,8 +82,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation o
     const reviewerContext = await browser.newContext({ viewport: VIEWPORTS[viewport], deviceScaleFactor: 1, hasTouch: phone });
     const r = await reviewerContext.newPage();
     const reviewerErrors = watchErrors(r);
-    const run = `${viewport} ${Date.now().toString(36)}`;
-    const siteName = `Carrig Head ${run}`;
+    const siteName = `Carrig Head (${viewport})`;
     const hillName = `Carrig Hill ${viewport}`;
     const ridgeName = `Seal Ridge ${viewport}`;
     const title = `Carrig Head watch (${viewport})`;
@@ -116,7 +115,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation o
       await drawMap.scrollIntoViewIfNeeded();
       const box = (await drawMap.boundingBox())!;
       const at = (fx: number, fy: number) => ({ x: box.x + box.width * fx, y: box.y + box.height * fy });
-      const corners = [at(0.32, 0.3), at(0.68, 0.28), at(0.7, 0.7), at(0.3, 0.68)];
+      // About 3.6 km × 3 km on either screen, inside the 4.8 km × 4.5 km terrain (the drawing map shows more on a wide one).
+      const [x0, x1, y0, y1] = phone ? [0.31, 0.69, 0.38, 0.62] : [0.38, 0.62, 0.36, 0.64];
+      const corners = [at(x0, y0), at(x1, y0 - 0.01), at(x1 + 0.01, y1), at(x0, y1)];
       for (const c of corners) {
         await tapAt(page, phone, c);
         await page.waitForTimeout(150);
@@ -299,6 +300,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation o
       await refuse.getByText(/^Ground from the terrain there:/).waitFor();
       await refuse.getByRole('button', { name: 'Move post' }).click();
       await refuse.getByText(new RegExp(`submitted or approved — “${title.replace(/[()]/g, '\\$&')}” \\(approved\\)`)).waitFor();
+      expect(await refuse.getByRole('button', { name: 'Move post' }).isDisabled()).toBe(true);
       await shot(page, 'empty-org-14-move-refused', viewport);
       await refuse.getByRole('button', { name: 'Cancel' }).click();
       const back = await symbolCentre(page, hillName);
@@ -308,6 +310,13 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation o
       expect(planUrl).toContain('/plans/');
       expect(errors).toEqual([]);
       expect(reviewerErrors).toEqual([]);
+    } catch (error) {
+      // What the screens showed when a step failed, and any page errors, to read beside the failure.
+      await shot(page, 'empty-org-failed-planner', viewport).catch(() => undefined);
+      await shot(r, 'empty-org-failed-reviewer', viewport).catch(() => undefined);
+      throw new Error(`${(error as Error).message}\npage errors: ${JSON.stringify([...errors, ...reviewerErrors])}`, {
+        cause: error,
+      });
     } finally {
       await context.close();
       await reviewerContext.close();
