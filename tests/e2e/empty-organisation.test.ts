@@ -194,6 +194,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation o
       await page.getByRole('button', { name: 'Duplicate' }).click();
       await page.getByRole('heading', { name: `${hillName} (copy)` }).waitFor();
       await page.getByText(/This post was made with the same settings as the one you duplicated/).waitFor();
+      await shot(page, 'empty-org-7-copy-opened', viewport);
       const edit = page.getByLabel('Edit post');
       await edit.getByLabel('Name').fill(ridgeName);
       await edit.getByLabel('Location').fill(RIDGE.text);
