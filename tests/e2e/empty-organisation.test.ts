@@ -96,6 +96,11 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation o
         await page.getByText('No sites yet').waitFor();
         await page.getByText(/Start with a new site: name it, draw or import its boundary/).waitFor();
         await page.getByRole('link', { name: 'Create the first site' }).waitFor();
+        // A plan cannot come first: the new-plan form says what to make before it.
+        await page.goto(`${e2eUrl()}/plans/new`);
+        await page.getByText(/No sites yet: a plan is made for a site with posts/).waitFor();
+        await shot(page, 'empty-org-1-new-plan-without-sites', viewport);
+        await page.goto(`${e2eUrl()}/`);
       }
       await shot(page, 'empty-org-1-sites', viewport);
 
