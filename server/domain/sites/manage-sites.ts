@@ -160,7 +160,7 @@ export async function refuseIfInFrozenPlan(
   if (frozen.length === 0) return;
   const named = frozen.map((p) => `“${p.title}” (${p.status})`).join(', ');
   throw AppError.conflict(
-    `This post is used by ${frozen.length === 1 ? 'a plan' : `${frozen.length} plans`} that ${frozen.length === 1 ? 'is' : 'are'} submitted or approved — ${named} — so it cannot be ${doing}: a submitted or approved plan keeps the posts it was built on. Return the plan or make a new version first, or duplicate the post and move the copy.`,
+    `This post is used by ${frozen.length === 1 ? 'a plan' : `${frozen.length} plans`} that ${frozen.length === 1 ? 'is' : 'are'} submitted or approved — ${named} — so it cannot be ${doing}: a submitted or approved plan keeps the posts it was built on. To place it elsewhere, duplicate the post, move the copy and use it in a new version of the plan.`,
     'post_in_frozen_plan',
   );
 }
