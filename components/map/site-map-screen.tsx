@@ -1,12 +1,13 @@
 import { useQueries } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
-import { useEffect, useMemo, useState, type ReactNode } from 'react';
+import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 import type { LatLon } from '@/shared/geo/types';
 import type { Post, Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
 import type { RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import type { ScenePost, SceneTarget } from '@/scenes/terrain/terrain-scene';
+import { useSession } from '@/components/data/session';
 import { useSite, useSitePosts } from '@/components/data/sites';
 import { terrainProfileQuery, useSiteTerrain } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
@@ -21,7 +22,8 @@ import { useDecodedRaster, type MapCoverageLayer } from './map-coverage-layer';
 import { blindAreaOutline } from './blind-area-outline';
 import type { MapTarget } from './map-features';
 import { MapLegend } from './map-legend';
-import { MapViewport, type ShownLayer } from './map-viewport';
+import { MapViewport, type MapHandles, type ShownLayer } from './map-viewport';
+import { PostMoveDialog, type PendingMove } from './post-move';
 import { ProfilePanel } from './profile-panel';
 import { createReadoutStore } from './readout-store';
 import { siteMapFrame, type SiteMapFrame } from './site-map-frame';
@@ -107,7 +109,24 @@ function MapWorkspace({
 }) {
   const { wide } = useLayout();
   const router = useRouter();
-  const frame = useMemo(() => siteMapFrame(site, posts, terrain), [site, posts, terrain]);
+  const { data: user } = useSession();
+  const canMove = user?.role === 'planner';
+  // Moving posts by dragging (planners): off by default, so a pan that starts on a pin never moves it.
+  const [moving, setMoving] = useState(false);
+  const [drag, setDrag] = useState<{ postId: string; x: number; y: number } | null>(null);
+  const dragRef = useRef(drag);
+  dragRef.current = drag;
+  const [pendingMove, setPendingMove] = useState<PendingMove | null>(null);
+  const [moveMessage, setMoveMessage] = useState('');
+  const savedFrame = useMemo(() => siteMapFrame(site, posts, terrain), [site, posts, terrain]);
+  // While a pin is dragged (and until the move is confirmed or cancelled) the post is drawn where it was dropped.
+  const frame = useMemo(() => {
+    if (!drag || !savedFrame) return savedFrame;
+    const to = savedFrame.projection.toLatLon(drag.x, drag.y);
+    const shifted = posts.map((p) => (p.id === drag.postId ? { ...p, location: { latDeg: to.latDeg, lonDeg: to.lonDeg } } : p));
+    return siteMapFrame(site, shifted, terrain);
+  }, [drag, savedFrame, posts, site, terrain]);
+  useEffect(() => setDrag(null), [posts]);
   const [mode, setMode] = useState<'2d' | '3d'>('2d');
   const [chosenPostId, setChosenPostId] = useState<string | null>(
     posts.find((p) => p.id === focusPostId)?.id ?? posts.find((p) => p.status === 'existing')?.id ?? posts[0]?.id ?? null,
@@ -164,6 +183,33 @@ function MapWorkspace({
     );
   }
 
+  const handles: MapHandles | undefined =
+    canMove && moving && savedFrame
+      ? {
+          points: savedFrame.posts.map((p) => ({ x: p.x, y: p.y })),
+          onDrag: (index, point) => {
+            const held = savedFrame.posts[index];
+            if (held) setDrag({ postId: held.post.id, ...point });
+          },
+          onDragEnd: (index) => {
+            const held = savedFrame.posts[index];
+            const at = dragRef.current;
+            if (!held || !at || at.postId !== held.post.id) return;
+            setMoveMessage('');
+            setPendingMove({ post: held.post, to: savedFrame.projection.toLatLon(at.x, at.y) });
+          },
+        }
+      : undefined;
+  const cancelMove = () => {
+    setPendingMove(null);
+    setDrag(null);
+  };
+  // A saved move keeps the pin where it was dropped until the posts come back from the server.
+  const savedMove = (message: string) => {
+    setPendingMove(null);
+    setMoveMessage(message);
+  };
+
   const onTap = (point: { x: number; y: number }) => {
     setTargets((old) => [...old, { id: (old.at(-1)?.id ?? 0) + 1, ...point }].slice(-MAX_TARGETS));
     setSheetOpen(true);
@@ -214,6 +260,22 @@ function MapWorkspace({
 
   const postChips = (
     <ScrollView horizontal showsHorizontalScrollIndicator={false} contentContainerStyle={styles.chips} style={{ flexGrow: 0 }}>
+      {canMove && posts.length > 0 && mode === '2d' ? (
+        <Pressable
+          role="switch"
+          aria-checked={moving}
+          aria-label="Move posts by dragging"
+          onPress={() => {
+            setMoving((m) => !m);
+            setMoveMessage('');
+          }}
+          style={[styles.postChip, moving && { backgroundColor: colors.ember, borderColor: colors.ember }]}
+        >
+          <AppText variant="label" style={{ color: moving ? colors.surface : colors.ink }}>
+            {moving ? 'Moving posts: on' : 'Move posts'}
+          </AppText>
+        </Pressable>
+      ) : null}
       <View
         role="radiogroup"
         aria-label="Profile from post"
@@ -249,6 +311,8 @@ function MapWorkspace({
         onTap={onTap}
         outline={outline?.segments ?? null}
         bottomInset={!wide && sheetOpen ? SHEET_PEEK : 0}
+        handles={handles}
+        label={handles ? 'Map: drag a post’s pin to move it, drag elsewhere to pan, tap a point for its profile' : undefined}
       />
     ) : (
       <Map3d
@@ -261,6 +325,21 @@ function MapWorkspace({
         drape={shown}
       />
     );
+
+  const moveBanner =
+    mode === '2d' && ((canMove && moving) || moveMessage) ? (
+      <View style={styles.moveBanner} pointerEvents="box-none">
+        <Notice tone="info">
+          <AppText variant="small" aria-live="polite">
+            {moveMessage ||
+              'Drag a post’s pin to its new place. The ground is read from the terrain there, and you confirm before anything is saved.'}
+          </AppText>
+        </Notice>
+      </View>
+    ) : null;
+  const moveDialog = (
+    <PostMoveDialog siteId={site.id} hasTerrain={!!terrain} pending={pendingMove} onDone={savedMove} onCancel={cancelMove} />
+  );
 
   const toolbar = (
     <View style={styles.toolbar}>
@@ -320,7 +399,11 @@ function MapWorkspace({
         <View style={{ flex: 1 }}>
           {toolbar}
           {postChips}
-          <View style={{ flex: 1 }}>{view}</View>
+          <View style={{ flex: 1 }}>
+            {view}
+            {moveBanner}
+          </View>
+          {moveDialog}
         </View>
         <ScrollView style={styles.side} contentContainerStyle={{ padding: space.lg, gap: space.xl }} aria-label="Map panel">
           <View style={{ gap: space.sm }}>
@@ -340,8 +423,10 @@ function MapWorkspace({
     <View style={styles.phone}>
       {toolbar}
       {postChips}
+      {moveDialog}
       <View style={{ flex: 1 }}>
         {view}
+        {moveBanner}
         {legendOpen ? (
           <View style={styles.legendSheet} aria-label="Legend and layers">
             <ScrollView contentContainerStyle={{ padding: space.md, gap: space.md }}>
@@ -527,4 +612,5 @@ const styles = StyleSheet.create({
     backgroundColor: colors.lineStrong,
   },
   reopen: { position: 'absolute', right: space.sm, bottom: 120 },
+  moveBanner: { position: 'absolute', top: space.sm, left: space.sm, right: 60 },
 });

@@ -156,6 +156,11 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
               <ErrorState error={sites.error} onRetry={() => void sites.refetch()} />
             ) : (
               <CheckGroup label="Site" single error={fieldState.error?.message}>
+                {siteList.length === 0 ? (
+                  <AppText tone="muted" style={{ padding: space.md }}>
+                    No sites yet: a plan is made for a site with posts. Create the site first (Sites, then New site).
+                  </AppText>
+                ) : null}
                 {siteList.map((s) => (
                   <CheckRow
                     key={s.id}

@@ -112,7 +112,7 @@ export function PlansScreen() {
               body={
                 statuses.length || text
                   ? 'Loosen the filters to see more.'
-                  : 'A coverage plan picks posts, targets and conditions on a site and is checked against your standard.'
+                  : `A coverage plan picks posts, targets and conditions on a site and is checked against your standard.${user?.role === 'planner' ? ' Start one with New plan once a site has posts.' : ' Planners prepare them; they appear here once they exist.'}`
               }
             />
           ) : (

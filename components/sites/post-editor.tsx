@@ -1,10 +1,11 @@
-import { useRouter } from 'expo-router';
+import { useLocalSearchParams, useRouter } from 'expo-router';
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { POST_KIND_LABELS, type Post } from '@/shared/schemas/site';
 import { PhotoPanel } from '@/components/attachments/photo-panel';
 import { HistoryLink } from '@/components/audit/history-link';
+import { useDuplicatePost } from '@/components/data/placement';
 import { useSession } from '@/components/data/session';
 import { formatPosition } from '@/components/map/map-chrome';
 import { lengthIn } from '@/components/check/format';
@@ -14,7 +15,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Screen } from '@/components/ui/screen';
-import { Notice } from '@/components/ui/states';
+import { FormError, Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { PostDelete } from './post-delete';
@@ -29,9 +30,17 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
   const { data: user } = useSession();
   const { wide } = useLayout();
   const router = useRouter();
-  const [editing, setEditing] = useState(false);
+  // A fresh copy (from “Duplicate”) opens with its form, to change what differs from the original.
+  const isCopy = useLocalSearchParams<{ copy?: string }>().copy === '1';
+  const [editing, setEditing] = useState(isCopy);
   const [saved, setSaved] = useState(false);
   const canEdit = user?.role === 'planner';
+  const duplicate = useDuplicatePost(siteId, post.id);
+  const makeCopy = () =>
+    duplicate.mutate(undefined, {
+      onSuccess: (copy) =>
+        router.navigate({ pathname: '/sites/[siteId]/posts/[postId]', params: { siteId, postId: copy.id, copy: '1' } }),
+    });
   const showForm = canEdit && (wide || editing);
 
   const form = showForm ? (
@@ -55,6 +64,14 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
           <AppText>Changes saved.</AppText>
         </Notice>
       ) : null}
+      {isCopy && !saved ? (
+        <Notice tone="info" title="A copy">
+          <AppText>
+            This post was made with the same settings as the one you duplicated. Change its name, place or heights below, then
+            save.
+          </AppText>
+        </Notice>
+      ) : null}
       <PostSummary post={post} siteId={siteId} />
       <Button
         kind="secondary"
@@ -75,6 +92,22 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
         />
       ) : null}
       {form}
+      {canEdit ? (
+        <View style={{ gap: space.xs }}>
+          <Button
+            kind="secondary"
+            label="Duplicate"
+            onPress={makeCopy}
+            busy={duplicate.isPending}
+            style={{ alignSelf: 'flex-start' }}
+          />
+          <AppText variant="small" tone="muted">
+            A new post with the same kind, place, heights, sector and status, named “{post.name} (copy)”. Photos and watches stay
+            with this one.
+          </AppText>
+          <FormError message={duplicate.error?.message ?? ''} />
+        </View>
+      ) : null}
       {canEdit ? <PostDelete siteId={siteId} post={post} /> : null}
     </View>
   );

@@ -26,7 +26,7 @@ export function SitePlans({ siteId }: { siteId: string }) {
     return (
       <EmptyState
         title="No plans yet"
-        body="A coverage plan picks posts, targets and conditions and is checked against your standard."
+        body={`A coverage plan picks posts, targets and conditions and is checked against your standard. ${add ? 'Place the site’s posts first, then start one here.' : 'A planner prepares them; you see them here once they exist.'}`}
         action={add}
       />
     );

@@ -11,6 +11,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import { Chip, ChipRow } from '@/components/ui/chip';
 import { Pager } from '@/components/ui/pager';
+import { useSession } from '@/components/data/session';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
@@ -28,6 +29,7 @@ const eye = (p: Post) => p.groundElevationM + p.structureHeightM + p.eyeHeightM;
 export function SitePosts({ siteId }: { siteId: string }) {
   const router = useRouter();
   const { height } = useLengthUnits(useSite(siteId).data?.defaultUnits);
+  const planner = useSession().data?.role === 'planner';
   const [q, setQ] = useState('');
   const [kind, setKind] = useState<string | undefined>();
   const [status, setStatus] = useState<string | undefined>();
@@ -84,7 +86,7 @@ export function SitePosts({ siteId }: { siteId: string }) {
           body={
             filtered
               ? 'Loosen the search or the filters.'
-              : 'A post is a tower, hilltop, shore post, vessel or aircraft someone watches from.'
+              : `A post is a tower, hilltop, shore post, vessel or aircraft someone watches from. ${planner ? 'Add the first with the New post form on this page (its place in any coordinate format; its ground can come from the terrain), or duplicate a post later to make a similar one.' : 'A planner adds them.'}`
           }
         />
       ) : (

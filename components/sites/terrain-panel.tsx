@@ -8,7 +8,9 @@ import { ApiRequestError } from '@/components/data/api-client';
 import type { PickedFile } from '@/components/data/file-part';
 import { formatLength } from '@/components/check/format';
 import { useLengthUnits } from '@/components/data/session';
+import { useBoundaryFromTerrain } from '@/components/data/placement';
 import { useSiteTerrain, useUploadTerrain } from '@/components/data/terrain';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { AppText } from '@/components/ui/app-text';
 import { FilePickerField } from '@/components/ui/file-picker-field';
 import { ProgressBar } from '@/components/ui/progress-bar';
@@ -33,10 +35,13 @@ export function TerrainPanel({ site, canUpload }: { site: Site; canUpload: boole
       ) : terrain.data === null ? (
         <EmptyState
           title="No terrain yet"
-          body="An elevation grid of the site lets Kenning look up ground heights, draw terrain profiles and, later, work out what each post sees."
+          body={`An elevation grid of the site lets Kenning look up ground heights, draw terrain profiles and work out what each post sees.${canUpload ? ` Upload one below${site.boundary ? '' : '; its extent can then become the site’s boundary'}.` : ' A planner can upload one.'}`}
         />
       ) : (
-        <TerrainFacts site={site} terrain={terrain.data} />
+        <>
+          <TerrainFacts site={site} terrain={terrain.data} />
+          {canUpload ? <BoundaryFromTerrain site={site} /> : null}
+        </>
       )}
       {canUpload && !terrain.isPending && !terrain.isError ? (
         <TerrainUploadForm siteId={site.id} replacing={terrain.data !== null} />
@@ -84,6 +89,56 @@ function TerrainFacts({ site, terrain }: { site: Site; terrain: SiteTerrain }) {
           </AppText>
         </Notice>
       ) : null}
+    </View>
+  );
+}
+
+/** “Use the terrain’s extent as the boundary”: the grid's rectangle reprojected to WGS 84, after a confirmation. */
+function BoundaryFromTerrain({ site }: { site: Site }) {
+  const apply = useBoundaryFromTerrain(site.id);
+  const [asking, setAsking] = useState(false);
+  const [done, setDone] = useState(false);
+  const explanation =
+    'The boundary becomes the terrain grid’s rectangle — through the centres of its outermost cells, so every point of it has a ground height — reprojected to WGS 84 (its sides are slightly curved in degrees). Cells without data at the grid’s edges fall inside it. You can edit the boundary afterwards.';
+  return (
+    <View style={styles.form} aria-label="Boundary from the terrain">
+      {done ? (
+        <Notice tone="info">
+          <AppText variant="small">The site’s boundary is now the terrain’s extent.</AppText>
+        </Notice>
+      ) : null}
+      {!site.boundary ? (
+        <AppText variant="small">This site has no boundary yet: the terrain’s extent can be its boundary.</AppText>
+      ) : null}
+      <Button
+        kind={site.boundary ? 'secondary' : 'primary'}
+        label="Use the terrain’s extent as the boundary"
+        onPress={() => {
+          apply.reset();
+          setAsking(true);
+        }}
+        style={{ alignSelf: 'flex-start' }}
+      />
+      <AppText variant="small" tone="muted">
+        {explanation}
+      </AppText>
+      <ConfirmDialog
+        visible={asking}
+        title={site.boundary ? 'Replace the boundary with the terrain’s extent?' : 'Use the terrain’s extent as the boundary?'}
+        consequence={`${site.boundary ? 'The boundary drawn now is replaced. ' : ''}${explanation}`}
+        confirmLabel="Use the extent"
+        busy={apply.isPending}
+        error={apply.error?.message}
+        onConfirm={() =>
+          apply.mutate(site.version, {
+            onSuccess: () => {
+              setAsking(false);
+              setDone(true);
+            },
+          })
+        }
+        onCancel={() => setAsking(false)}
+      />
     </View>
   );
 }

@@ -8,6 +8,7 @@ import {
   createSite,
   deletePost,
   deleteSite,
+  duplicatePost,
   getPost,
   getSite,
   listPosts,
@@ -66,6 +67,10 @@ export function siteRoutes(db: Sequelize) {
     const { siteId, postId } = parseOrThrow(PostParams, req.params, 'address');
     const input = parseOrThrow(PostUpdateSchema, req.body, 'post');
     res.json({ post: await updatePost({ db }, actorOf(req), siteId, postId, input) });
+  });
+  router.post('/sites/:siteId/posts/:postId/duplicate', ...write, async (req, res) => {
+    const { siteId, postId } = parseOrThrow(PostParams, req.params, 'address');
+    res.status(201).json({ post: await duplicatePost({ db }, actorOf(req), siteId, postId) });
   });
   router.delete('/sites/:siteId/posts/:postId', ...write, async (req, res) => {
     const { siteId, postId } = parseOrThrow(PostParams, req.params, 'address');

@@ -7,7 +7,9 @@ import {
   TerrainProfileRequestSchema,
   TerrainUploadFieldsSchema,
 } from '@/shared/schemas/terrain';
+import { BoundaryFromTerrainSchema, PostMoveSchema } from '@/shared/schemas/post-actions';
 import { getSite } from '@/server/domain/sites/manage-sites';
+import { boundaryFromTerrain, movePost } from '@/server/domain/terrain/place-on-terrain';
 import {
   getActiveTerrain,
   openHillshade,
@@ -23,6 +25,7 @@ import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 
 const SiteParams = z.object({ siteId: z.uuid({ error: 'Not a site id.' }) });
+const PostParams = SiteParams.extend({ postId: z.uuid({ error: 'Not a post id.' }) });
 const HillshadeQuery = z.object({ terrainId: z.uuid({ error: 'Not a terrain id.' }).optional() });
 
 /** Settings of the terrain upload route. */
@@ -112,6 +115,19 @@ export function terrainRoutes(deps: TerrainDeps, upload: TerrainUploadSettings) 
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
     const body = parseOrThrow(TerrainProfileRequestSchema, req.body, 'profile');
     res.json(await profileTerrain(deps, actorOf(req), siteId, body));
+  });
+
+  // A post dragged on the map: its ground comes from the terrain at the new place.
+  router.post('/sites/:siteId/posts/:postId/move', requireUser, requireRole('planner'), async (req, res) => {
+    const { siteId, postId } = parseOrThrow(PostParams, req.params, 'address');
+    const move = parseOrThrow(PostMoveSchema, req.body, 'move');
+    res.json(await movePost(deps, actorOf(req), siteId, postId, move));
+  });
+
+  router.post('/sites/:siteId/boundary-from-terrain', requireUser, requireRole('planner'), async (req, res) => {
+    const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
+    const { version } = parseOrThrow(BoundaryFromTerrainSchema, req.body, 'site');
+    res.json(await boundaryFromTerrain(deps, actorOf(req), siteId, version));
   });
 
   return router;

@@ -52,6 +52,7 @@ export const DEMO_ORGANIZATIONS = [
     users: [
       { email: 'admin@tallon.kenning.test', name: 'Orla Brennick', role: 'admin' },
       { email: 'planner@tallon.kenning.test', name: 'Joss Fenwright', role: 'planner' },
+      { email: 'reviewer@tallon.kenning.test', name: 'Wren Achterly', role: 'reviewer' },
     ],
   },
 ] as const satisfies ReadonlyArray<{
@@ -585,7 +586,7 @@ export async function seedDemo(db: Sequelize, options: { files?: FileStore } = {
 }
 
 async function seedDemoAccounts(db: Sequelize): Promise<boolean> {
-  if (await OrganizationModel.findOne({ where: { slug: DEMO_ORGANIZATIONS[0].slug } })) return false;
+  if (await OrganizationModel.findOne({ where: { slug: DEMO_ORGANIZATIONS[0].slug } })) return seedMissingDemoUsers(db);
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await db.transaction(async (transaction) => {
     for (const org of DEMO_ORGANIZATIONS) {
@@ -606,4 +607,31 @@ async function seedDemoAccounts(db: Sequelize): Promise<boolean> {
     }
   });
   return true;
+}
+
+/** Demo accounts added to the list after a database was seeded (e.g. the second organisation's reviewer). */
+async function seedMissingDemoUsers(db: Sequelize): Promise<boolean> {
+  let added = false;
+  await db.transaction(async (transaction) => {
+    for (const org of DEMO_ORGANIZATIONS) {
+      const row = await OrganizationModel.findOne({ where: { slug: org.slug }, transaction });
+      if (!row) continue;
+      for (const u of org.users) {
+        if (await UserModel.findOne({ where: { email: u.email }, paranoid: false, transaction })) continue;
+        await UserModel.create(
+          {
+            ...u,
+            organizationId: row.id,
+            passwordHash: await hashPassword(DEMO_PASSWORD),
+            inviteTokenHash: null,
+            inviteExpiresAt: null,
+            lastSignInAt: null,
+          },
+          { transaction },
+        );
+        added = true;
+      }
+    }
+  });
+  return added;
 }

@@ -17,4 +17,5 @@ export const DEMO = {
   observer: 'observer@demo.kenning.test',
   otherAdmin: 'admin@tallon.kenning.test',
   otherPlanner: 'planner@tallon.kenning.test',
+  otherReviewer: 'reviewer@tallon.kenning.test',
 } as const;

@@ -116,3 +116,55 @@ export function deletePost({ db }: UseCaseDeps, actor: Actor, siteId: string, id
     await auditRepository.record(actor, { action: 'delete', entityType: 'post', entityId: id, before }, t);
   });
 }
+
+/** The name of a copy: “Name (copy)”, or “Name (copy 2)”, “(copy 3)” … when that is taken; at most 120 characters. */
+export function copyName(name: string, taken: ReadonlySet<string>): string {
+  const base = name.replace(/ \(copy(?: \d+)?\)$/, '');
+  for (let n = 1; ; n++) {
+    const suffix = n === 1 ? ' (copy)' : ` (copy ${n})`;
+    const candidate = `${base.slice(0, 120 - suffix.length).trimEnd()}${suffix}`;
+    if (!taken.has(candidate)) return candidate;
+  }
+}
+
+/**
+ * A new post with the same settings as another of the site (kind, place,
+ * heights, sector, status), named “… (copy)”; its photos and watches stay
+ * with the original. Audited as a create that names the original.
+ */
+export function duplicatePost({ db }: UseCaseDeps, actor: Actor, siteId: string, id: string): Promise<Post> {
+  return db.transaction(async (t) => {
+    const original = await postsRepository.findInSite(actor.organizationId, siteId, id, t);
+    if (!original) throw AppError.notFound('That post');
+    const taken = new Set((await postsRepository.listInSite(actor.organizationId, siteId, t)).map((p) => p.name));
+    const { name, kind, location, groundElevationM, structureHeightM, eyeHeightM, sector, status } = original;
+    const post = await postsRepository.create(
+      actor.organizationId,
+      siteId,
+      { name: copyName(name, taken), kind, location, groundElevationM, structureHeightM, eyeHeightM, sector, status },
+      t,
+    );
+    await auditRepository.record(
+      actor,
+      { action: 'create', entityType: 'post', entityId: post.id, after: { ...post, duplicatedFrom: original.id } },
+      t,
+    );
+    return post;
+  });
+}
+
+/** Refuses a change to a post that a submitted or approved plan uses, naming the plans (409 `post_in_frozen_plan`). */
+export async function refuseIfInFrozenPlan(
+  actor: Actor,
+  postId: string,
+  doing: string,
+  t: Parameters<typeof plansRepository.withPost>[3],
+): Promise<void> {
+  const frozen = await plansRepository.withPost(actor.organizationId, postId, ['submitted', 'approved'], t);
+  if (frozen.length === 0) return;
+  const named = frozen.map((p) => `“${p.title}” (${p.status})`).join(', ');
+  throw AppError.conflict(
+    `This post is used by ${frozen.length === 1 ? 'a plan' : `${frozen.length} plans`} that ${frozen.length === 1 ? 'is' : 'are'} submitted or approved — ${named} — so it cannot be ${doing}: a submitted or approved plan keeps the posts it was built on. To place it elsewhere, duplicate the post, move the copy and use it in a new version of the plan.`,
+    'post_in_frozen_plan',
+  );
+}

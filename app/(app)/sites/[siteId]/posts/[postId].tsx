@@ -36,7 +36,8 @@ function PostRoute({ siteId, postId }: z.infer<typeof Params>) {
       </Screen>
     );
   }
-  return <PostEditor siteId={siteId} post={post.data} onReload={() => void post.refetch()} />;
+  // Keyed by post: a copy opened from “Duplicate” starts with its own state (its form open).
+  return <PostEditor key={postId} siteId={siteId} post={post.data} onReload={() => void post.refetch()} />;
 }
 
 /** The tab's title until the page below names itself more precisely. */
