@@ -249,6 +249,7 @@ function MapWorkspace({
         onTap={onTap}
         outline={outline?.segments ?? null}
         bottomInset={!wide && sheetOpen ? SHEET_PEEK : 0}
+        keepInView={!wide && sheetOpen ? last : null}
       />
     ) : (
       <Map3d
