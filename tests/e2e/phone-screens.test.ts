@@ -144,9 +144,12 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       await page.waitForURL(/\/search-effort$/);
       await list.waitFor({ state: 'detached' });
       // More is marked while one of its places is open.
-      expect(await more.locator('div').first().evaluate((el) => getComputedStyle(el).backgroundColor)).not.toBe(
-        'rgba(0, 0, 0, 0)',
-      );
+      expect(
+        await more
+          .locator('div')
+          .first()
+          .evaluate((el) => getComputedStyle(el).backgroundColor),
+      ).not.toBe('rgba(0, 0, 0, 0)');
       expect(errors).toEqual([]);
     } finally {
       await context.close();
@@ -164,8 +167,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       const map = page.getByRole('application', { name: /^Map: drag to pan/ });
       await map.waitFor();
       const box = (await map.boundingBox())!;
-      // Low on the map: where the phone's profile sheet comes up.
-      const at = { x: box.x + box.width * 0.6, y: box.y + box.height * 0.88 };
+      // Low on the map, above the scale bar and read-out: where the phone's profile sheet comes up.
+      const at = { x: box.x + box.width * 0.3, y: box.y + box.height - 230 };
       if (phone) await page.touchscreen.tap(at.x, at.y);
       else await page.mouse.click(at.x, at.y);
       const marker = page.locator('svg text', { hasText: /^P1$/ }).last();
@@ -197,12 +200,11 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       const cue = page.getByRole('status').filter({ hasText: /scroll sideways|to the left/ });
       if (phone) {
         await cue.getByText('More conditions → scroll sideways').waitFor();
-        // Scrolled to the end, the cue points the other way.
-        await table.evaluate((el) => {
-          let s: Element | null = el;
-          while (s && s.scrollWidth <= s.clientWidth) s = s.parentElement;
-          s?.scrollTo({ left: s.scrollWidth });
-        });
+        // Scrolled to the end (a sideways wheel over the table), the cue points the other way.
+        await table.scrollIntoViewIfNeeded();
+        const tableBox = (await table.boundingBox())!;
+        await page.mouse.move(tableBox.x + tableBox.width / 2, tableBox.y + 20);
+        await page.mouse.wheel(600, 0);
         await cue.getByText('← more conditions to the left').waitFor();
         await table.screenshot({ path: `${SCREENSHOT_DIR}/results-scroll-cue-end-${viewport}.png` });
       } else {
