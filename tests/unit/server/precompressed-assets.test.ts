@@ -83,7 +83,7 @@ describe('precompressed scripts', () => {
   it('sends the plain script to a client that accepts no compression', async () => {
     const res = await get(url, 'identity');
     expect(res.headers['content-encoding']).toBeUndefined();
-    expect((res.body).toString()).toBe(SCRIPT);
+    expect(res.body.toString()).toBe(SCRIPT);
   });
 
   it('leaves a script without copies to the compression middleware', async () => {
