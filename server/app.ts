@@ -9,6 +9,7 @@ import { createSignInLimiter } from './domain/auth/sign-in-limiter';
 import { createErrorHandler, notFoundHandler } from './http/error-handler';
 import { watchDatabaseOutage } from './http/database-outage';
 import { originCheck } from './http/origin-check';
+import { precompressedAssets } from './http/precompressed-assets';
 import { securityHeaders } from './http/security-headers';
 import { sessionMiddleware, type SessionUser } from './http/session';
 import type { SessionUserCache } from './http/session-user-cache';
@@ -157,6 +158,7 @@ export function createApp({
   const webDir = config.WEB_DIST_DIR;
   const index = path.join(webDir, 'index.html');
   if (existsSync(index)) {
+    app.use(precompressedAssets(webDir));
     app.use(
       express.static(webDir, {
         index: false,

@@ -176,3 +176,28 @@ export function liveScreenToGrid(
   const drawn = screenToDrawn(live, size, sx, sy);
   return screenToGrid(camera, size, drawn.x, drawn.y);
 }
+
+/**
+ * The camera moved as little as needed for the grid point (x, y) to show in
+ * the part of the view a sheet leaves free: `marginPx` from every edge and
+ * above the bottom `bottomInsetPx`. The same camera when the point already
+ * shows there; when the free part is too small for the margins, the point
+ * goes to its middle. The zoom never changes.
+ *
+ * @example keepPointInView(camera, { width: 390, height: 600 }, p.x, p.y, 360, 32) // a tapped point above the profile sheet
+ */
+export function keepPointInView(
+  camera: MapCamera,
+  size: MapSize,
+  x: number,
+  y: number,
+  bottomInsetPx: number,
+  marginPx: number,
+): MapCamera {
+  const at = gridToScreen(camera, size, x, y);
+  const shiftInto = (v: number, low: number, high: number) =>
+    high < low ? (low + high) / 2 - v : v < low ? low - v : v > high ? high - v : 0;
+  const dx = shiftInto(at.x, marginPx, size.width - marginPx);
+  const dy = shiftInto(at.y, marginPx, size.height - Math.max(bottomInsetPx, 0) - marginPx);
+  return dx === 0 && dy === 0 ? camera : panCamera(camera, dx, dy);
+}

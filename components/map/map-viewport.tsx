@@ -1,4 +1,4 @@
-import { useCallback, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Image, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import { Gesture, GestureDetector, GestureHandlerRootView } from 'react-native-gesture-handler';
 import Animated, { useAnimatedStyle, useSharedValue } from 'react-native-reanimated';
@@ -12,6 +12,7 @@ import {
   fitCamera,
   gridRectToScreen,
   IDENTITY_LIVE,
+  keepPointInView,
   liveScreenToGrid,
   zoomCameraAt,
   zoomLiveAt,
@@ -60,6 +61,8 @@ export interface MapViewportProps {
   label?: string;
   /** Space kept free at the bottom for a sheet over the map, pixels. */
   bottomInset?: number;
+  /** A grid point the view keeps clear of the edges and of `bottomInset` (the point a sheet describes): the map pans to it when it changes. */
+  keepInView?: { x: number; y: number } | null;
   /** An area to outline (a blind area): `x1, y1, x2, y2` per edge, grid metres. */
   outline?: Float64Array | null;
 }
@@ -73,6 +76,9 @@ export interface MapHandles {
 
 /** How near a press must start to a handle to grab it, pixels (a fingertip). */
 export const HANDLE_REACH_PX = 22;
+
+/** How far from the view's edges (and from a sheet) a kept point stays, pixels: its marker and label fit. */
+const KEEP_IN_VIEW_MARGIN_PX = 36;
 
 /** Wheel zooms wait this long for the next notch before the map is redrawn for the new zoom, ms. */
 const WHEEL_SETTLE_MS = 180;
@@ -123,6 +129,20 @@ export function MapViewport(props: MapViewportProps) {
     ty.value = 0;
     s.value = 1;
   }, [camera, tx, ty, s]);
+
+  // The point a sheet describes stays in sight above the sheet (the map pans, the zoom stays).
+  const keepX = props.keepInView?.x;
+  const keepY = props.keepInView?.y;
+  useEffect(() => {
+    if (keepX === undefined || keepY === undefined || !size) return;
+    setCamera((old) => {
+      if (!old) return old;
+      const l = { tx: tx.value, ty: ty.value, s: s.value };
+      const shown = l.tx === 0 && l.ty === 0 && l.s === 1 ? old : commitLive(old, size, l);
+      const kept = keepPointInView(shown, size, keepX, keepY, bottomInset, KEEP_IN_VIEW_MARGIN_PX);
+      return kept === shown ? old : kept;
+    });
+  }, [keepX, keepY, bottomInset, size, tx, ty, s]);
 
   const live = (): LiveTransform => ({ tx: tx.value, ty: ty.value, s: s.value });
   const setLive = (l: LiveTransform) => {

@@ -313,6 +313,7 @@ function MapWorkspace({
         bottomInset={!wide && sheetOpen ? SHEET_PEEK : 0}
         handles={handles}
         label={handles ? 'Map: drag a post’s pin to move it, drag elsewhere to pan, tap a point for its profile' : undefined}
+        keepInView={!wide && sheetOpen ? last : null}
       />
     ) : (
       <Map3d

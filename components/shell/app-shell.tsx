@@ -1,14 +1,15 @@
 import { Slot, usePathname, useRouter } from 'expo-router';
-import { useEffect } from 'react';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { useEffect, useState } from 'react';
+import { Modal, Pressable, StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { useSession } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
+import { MoreIcon } from '@/components/ui/icons';
 import { Wordmark } from '@/components/ui/logo';
 import { colors, radius, space, TOUCH } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { preloadDeferredScreens } from './deferred-screen';
-import { isActive, NAV_ITEMS } from './nav-items';
+import { isActive, NAV_ITEMS, phoneBarItems, type NavItem } from './nav-items';
 
 /** After the first signed-in screen is up (its target is 1.2 s), the other screens' chunk is fetched in the background. */
 const PRELOAD_SCREENS_AFTER_MS = 1500;
@@ -73,33 +74,105 @@ export function AppShell() {
     );
   }
 
+  return <PhoneShell items={items} pathname={pathname} bottomInset={insets.bottom} />;
+}
+
+/**
+ * Phones: a bottom bar of at most five places with one-line labels; when a
+ * role has more, the last slot is "More", a list of the rest over the page.
+ */
+function PhoneShell({ items, pathname, bottomInset }: { items: NavItem[]; pathname: string; bottomInset: number }) {
+  const router = useRouter();
+  const [moreOpen, setMoreOpen] = useState(false);
+  const { bar, more } = phoneBarItems(items);
+  const moreActive = more.some((i) => isActive(i, pathname));
+  const go = (item: NavItem) => {
+    setMoreOpen(false);
+    router.navigate(item.href);
+  };
   return (
     <View style={styles.phoneRoot}>
       <View style={{ flex: 1 }} role="main">
         <Slot />
       </View>
-      <View style={[styles.bar, { paddingBottom: Math.max(insets.bottom, space.xs) }]} role="navigation" aria-label="Main">
-        {items.map((item) => {
-          const active = isActive(item, pathname);
-          return (
-            <Pressable
-              key={item.label}
-              role="link"
-              aria-label={item.label}
-              aria-current={active ? 'page' : undefined}
-              onPress={() => router.navigate(item.href)}
-              style={styles.barItem}
-            >
-              <View style={[styles.barMark, active && { backgroundColor: colors.lantern }]} />
-              <item.Icon color={active ? colors.lantern : colors.railText} />
-              <AppText variant="small" style={{ color: active ? colors.lantern : colors.railText, fontSize: 12, lineHeight: 15 }}>
-                {item.label}
-              </AppText>
-            </Pressable>
-          );
-        })}
+      <View style={[styles.bar, { paddingBottom: Math.max(bottomInset, space.xs) }]} role="navigation" aria-label="Main">
+        {bar.map((item) => (
+          <BarItem
+            key={item.label}
+            label={item.label}
+            Icon={item.Icon}
+            active={isActive(item, pathname)}
+            role="link"
+            onPress={() => go(item)}
+          />
+        ))}
+        {more.length > 0 ? (
+          <BarItem label="More" Icon={MoreIcon} active={moreActive} role="button" onPress={() => setMoreOpen(true)} />
+        ) : null}
       </View>
+      <Modal visible={moreOpen} transparent animationType="none" onRequestClose={() => setMoreOpen(false)}>
+        <View style={styles.moreRoot}>
+          <Pressable style={styles.moreBackdrop} aria-label="Close the list" onPress={() => setMoreOpen(false)} />
+          <View
+            style={[styles.moreSheet, { paddingBottom: Math.max(bottomInset, space.md) }]}
+            role="navigation"
+            aria-label="More places"
+          >
+            {more.map((item) => {
+              const active = isActive(item, pathname);
+              return (
+                <Pressable
+                  key={item.label}
+                  role="link"
+                  aria-current={active ? 'page' : undefined}
+                  onPress={() => go(item)}
+                  style={({ pressed }) => [styles.moreItem, (active || pressed) && { backgroundColor: colors.nightRaised }]}
+                >
+                  <item.Icon color={active ? colors.lantern : colors.railText} />
+                  <AppText variant="label" style={{ color: active ? colors.lantern : colors.surface, fontSize: 17 }}>
+                    {item.label}
+                  </AppText>
+                </Pressable>
+              );
+            })}
+          </View>
+        </View>
+      </Modal>
     </View>
+  );
+}
+
+function BarItem({
+  label,
+  Icon,
+  active,
+  role,
+  onPress,
+}: {
+  label: string;
+  Icon: NavItem['Icon'];
+  active: boolean;
+  role: 'link' | 'button';
+  onPress: () => void;
+}) {
+  return (
+    <Pressable
+      role={role}
+      aria-label={label}
+      aria-current={active && role === 'link' ? 'page' : undefined}
+      onPress={onPress}
+      style={styles.barItem}
+    >
+      <View style={[styles.barMark, active && { backgroundColor: colors.lantern }]} />
+      <Icon color={active ? colors.lantern : colors.railText} />
+      <AppText
+        variant="small"
+        numberOfLines={1}
+        style={{ color: active ? colors.lantern : colors.railText, fontSize: 12, lineHeight: 15 }}
+      >
+        {label}
+      </AppText>
+    </Pressable>
   );
 }
 
@@ -121,4 +194,22 @@ const styles = StyleSheet.create({
   bar: { flexDirection: 'row', backgroundColor: colors.night, paddingTop: 2 },
   barItem: { flex: 1, minHeight: TOUCH + 12, alignItems: 'center', justifyContent: 'center', gap: 2 },
   barMark: { position: 'absolute', top: 0, width: 28, height: 3, borderRadius: 2 },
+  moreRoot: { flex: 1, justifyContent: 'flex-end' },
+  moreBackdrop: { position: 'absolute', top: 0, right: 0, bottom: 0, left: 0, backgroundColor: 'rgba(23, 37, 43, 0.55)' },
+  moreSheet: {
+    backgroundColor: colors.night,
+    borderTopLeftRadius: radius.lg,
+    borderTopRightRadius: radius.lg,
+    paddingTop: space.sm,
+    paddingHorizontal: space.sm,
+    gap: space.xs,
+  },
+  moreItem: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    minHeight: TOUCH + 4,
+    paddingHorizontal: space.lg,
+    borderRadius: radius.md,
+  },
 });

@@ -43,3 +43,15 @@ export const NAV_ITEMS: NavItem[] = [
 export function isActive(item: NavItem, pathname: string) {
   return item.match === '/' ? pathname === '/' || pathname.startsWith('/sites') : pathname.startsWith(item.match);
 }
+
+/** Places a phone's bottom bar holds before the rest go under "More": five fit 390 px with one-line labels. */
+export const PHONE_BAR_SLOTS = 5;
+
+/**
+ * A phone's bottom bar: all the items when they fit, otherwise the first
+ * `slots − 1` and the rest for the "More" list (the bar's last slot).
+ */
+export function phoneBarItems(items: readonly NavItem[], slots = PHONE_BAR_SLOTS): { bar: NavItem[]; more: NavItem[] } {
+  if (items.length <= slots) return { bar: [...items], more: [] };
+  return { bar: items.slice(0, slots - 1), more: items.slice(slots - 1) };
+}

@@ -165,3 +165,14 @@ export function OfflineIcon(p: IconProps) {
     </Frame>
   );
 }
+
+/** More: the rest of the places, three marks in a row. */
+export function MoreIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Rect x="3.5" y="10.5" width="3" height="3" />
+      <Rect x="10.5" y="10.5" width="3" height="3" />
+      <Rect x="17.5" y="10.5" width="3" height="3" />
+    </Frame>
+  );
+}

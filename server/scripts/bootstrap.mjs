@@ -262,6 +262,8 @@ function ensureWebBuild() {
   run('npx', ['expo', 'export', '--platform', 'web', '--output-dir', out], {
     env: { ...env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1', NODE_ENV: 'production' },
   });
+  // Brotli (quality 11) and gzip (level 9) copies of the scripts, sent as they are (server/http/precompressed-assets.ts).
+  tsx('server/scripts/precompress-web.ts', [out]);
   writeFileSync(stamp, fp);
   log(`web app built in ${((Date.now() - started) / 1000).toFixed(0)} s`);
 }

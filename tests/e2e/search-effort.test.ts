@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { openPlace, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 
 let browser: Browser;
@@ -18,7 +18,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('search effort on the %s
     try {
       await signIn(page, DEMO.planner);
       await page.getByText('Your sites').first().waitFor();
-      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Search effort' }).click();
+      await openPlace(page, 'Search effort');
       await page.getByText('Estimates only').waitFor();
       await page
         .getByText(/Visibility is not detection/)

@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { e2eUrl, openPlace, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 
 let browser: Browser;
@@ -47,7 +47,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       expect(await nav.getByRole('link', { name: 'Users' }).count()).toBe(0);
       await shot(page, 'home', viewport);
 
-      await nav.getByRole('link', { name: 'Account' }).click();
+      // On a phone a planner's Account is under More (six places, five slots).
+      await openPlace(page, 'Account');
       await page.getByText('Harrowmere Lookout Service').first().waitFor();
       await page.getByRole('button', { name: 'Sign out', exact: true }).click();
       await page.getByRole('button', { name: 'Sign in' }).waitFor();

@@ -37,3 +37,13 @@ export async function apiJson<T>(page: Page, method: 'GET' | 'POST' | 'PATCH', p
   if (!res.ok()) throw new Error(`${method} ${path}: ${res.status()} ${await res.text()}`);
   return (await res.json()) as T;
 }
+
+/** Goes to a place of the main navigation: its link on the bar or rail, or under "More" on a phone's bar. */
+export async function openPlace(page: Page, name: string) {
+  const nav = page.getByRole('navigation', { name: 'Main' });
+  await nav.waitFor();
+  const link = nav.getByRole('link', { name, exact: true });
+  if ((await link.count()) > 0) return link.click();
+  await nav.getByRole('button', { name: 'More' }).click();
+  await page.getByRole('navigation', { name: 'More places' }).getByRole('link', { name, exact: true }).click();
+}

@@ -4,6 +4,7 @@ import {
   gridRectToScreen,
   gridToScreen,
   IDENTITY_LIVE,
+  keepPointInView,
   liveScreenToGrid,
   liveToScreen,
   panCamera,
@@ -74,6 +75,39 @@ describe('zoom and pan', () => {
     expect(moved.centerX).toBeCloseTo(519_000, 6);
     expect(moved.centerY).toBeCloseTo(5_739_500, 6); // drag up by 10 px: the drawing moves up, ground 500 m south comes to the centre
     expect(gridToScreen(moved, size, 520_000, 5_740_000)).toEqual({ x: 220, y: 140 });
+  });
+});
+
+describe('a point kept clear of a sheet over the map', () => {
+  // common practice, no source: a bottom sheet must not hide the point it describes; the view pans, the zoom stays.
+  const inset = 180; // a sheet over the bottom 180 px of the 300 px view leaves 120 px
+  const margin = 20;
+
+  test('a point already in the free part leaves the camera as it was', () => {
+    const p = screenToGrid(camera, size, 100, 60);
+    expect(keepPointInView(camera, size, p.x, p.y, inset, margin)).toBe(camera);
+  });
+
+  test('a point under the sheet comes up to just above it, and nothing else moves', () => {
+    const p = screenToGrid(camera, size, 300, 250); // 250 px down: under the sheet (which starts at 120 px)
+    const kept = keepPointInView(camera, size, p.x, p.y, inset, margin);
+    expect(kept.pxPerM).toBe(camera.pxPerM);
+    const at = gridToScreen(kept, size, p.x, p.y);
+    expect(at.x).toBeCloseTo(300, 9);
+    expect(at.y).toBeCloseTo(300 - inset - margin, 9); // 100 px: the lowest place the sheet and margin leave
+  });
+
+  test('a point near an edge comes in by the margin', () => {
+    const p = screenToGrid(camera, size, 5, 10);
+    const at = gridToScreen(keepPointInView(camera, size, p.x, p.y, 0, margin), size, p.x, p.y);
+    expect(at.x).toBeCloseTo(margin, 9);
+    expect(at.y).toBeCloseTo(margin, 9);
+  });
+
+  test('when the free part is smaller than the margins, the point goes to its middle', () => {
+    const p = screenToGrid(camera, size, 200, 280);
+    const at = gridToScreen(keepPointInView(camera, size, p.x, p.y, 270, margin), size, p.x, p.y);
+    expect(at.y).toBeCloseTo((margin + (300 - 270 - margin)) / 2, 9);
   });
 });
 
