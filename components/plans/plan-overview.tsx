@@ -32,6 +32,7 @@ import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan
 import { PlanStatusBadge } from './plan-status';
 import { when } from './when';
 import { HistoryLink } from '@/components/audit/history-link';
+import { PlanPackageLink } from '@/components/reports/plan-package-link';
 
 const EDITABLE = new Set(['draft', 'returned']);
 
@@ -247,6 +248,7 @@ function PlanPage({
         </AppText>
       </Card>
 
+      <PlanPackageLink planId={plan.id} revision={editable ? null : (latestRevision ?? undefined)} />
       <PlanCoveragePanel
         planId={plan.id}
         siteId={plan.siteId}

@@ -20,8 +20,8 @@ export interface MapOverlays {
   rings?: { x: number; y: number; radii: { m: number; label: string }[] } | null;
 }
 
-/** Print resolution of the raster, pixels per point (2 ≈ 144 dpi). */
-const PIXELS_PER_POINT = 2;
+/** Print resolution of the raster, pixels per point (1.5 ≈ 108 dpi, finer than the cells at the scales printed). */
+const PIXELS_PER_POINT = 1.5;
 
 /**
  * Draws one map into `frame.box`: the raster (hillshade and a coverage layer),
@@ -89,6 +89,12 @@ export function drawMap(
       label(r, ring.label, cx + radius * Math.SQRT1_2 + 2, cy - radius * Math.SQRT1_2 - 8, 6.5);
     });
   }
+  for (const zone of overlays.zones) {
+    const n = zone.ring.length;
+    if (n === 0) continue;
+    const [zx, zy] = toPaper(frame, zone.ring.reduce((s, p) => s + p[0], 0) / n, zone.ring.reduce((s, p) => s + p[1], 0) / n);
+    label(r, zone.name, zx - 20, zy - 4, 6.5, 'italic');
+  }
   for (const post of overlays.posts) {
     const [px, py] = toPaper(frame, post.x, post.y);
     if (post.sector && post.reachM) {
@@ -133,7 +139,7 @@ export function drawMap(
 
   northArrow(r, x + width - 22, y + 30, args.gridConvergenceRad);
 
-  // Scale bar: four segments, alternately filled.
+  // Scale bar: four segments, alternately filled; under it the stated scale and the grid.
   const barM = roundStep((width * frame.metresPerPoint) / 3, 1);
   const barPt = barM / frame.metresPerPoint;
   const barY = y + height + 14;
@@ -149,21 +155,21 @@ export function drawMap(
   doc
     .font('bold')
     .fontSize(7.5)
-    .text(`Scale 1 : ${frame.scale.toLocaleString('en-GB')} (printed at 100 % on ${args.paperName})`, x + barPt + 30, barY - 1, {
-      width: width - barPt - 30,
+    .text(`Scale 1 : ${frame.scale.toLocaleString('en-GB').replace(/,/g, ' ')} printed at 100 % on ${args.paperName}`, x + barPt + 24, barY - 1, {
+      width: Math.max(60, width - barPt - 24),
       lineBreak: false,
+      ellipsis: true,
     });
   doc
     .font('body')
     .fontSize(6.5)
     .fillColor(MUTED)
-    .text(
-      printable(`Grid: ${args.crsLabel}. Ticks every ${formatDistance(step)}. North arrow: true north.`),
-      x + barPt + 30,
-      barY + 9,
-      { width: width - barPt - 30, lineBreak: false, ellipsis: true },
-    );
-  let bottom = barY + 20;
+    .text(printable(`Grid ${args.crsLabel}, ticks every ${formatDistance(step)}. Arrow: true north.`), x, barY + 14, {
+      width,
+      lineBreak: false,
+      ellipsis: true,
+    });
+  let bottom = barY + 24;
 
   if (args.layer) bottom = legend(r, args.layer.palette, x, bottom + 2, width);
   doc.fillColor(INK).font('body').fontSize(9);
@@ -173,9 +179,9 @@ export function drawMap(
 }
 
 /** Text on a white patch so it reads over the raster. */
-function label(r: ReportDocument, text: string, x: number, y: number, size: number) {
+function label(r: ReportDocument, text: string, x: number, y: number, size: number, font = 'bold') {
   const { doc } = r;
-  doc.font('bold').fontSize(size);
+  doc.font(font).fontSize(size);
   const t = printable(text);
   const w = doc.widthOfString(t);
   doc.save();
@@ -184,7 +190,7 @@ function label(r: ReportDocument, text: string, x: number, y: number, size: numb
     .fillOpacity(0.8)
     .fill('#FFFFFF');
   doc.restore();
-  doc.fillColor(INK).text(t, x, y, { lineBreak: false });
+  doc.fillColor(INK).font(font).text(t, x, y, { lineBreak: false });
 }
 
 function northArrow(r: ReportDocument, cx: number, cy: number, gridConvergenceRad: number) {

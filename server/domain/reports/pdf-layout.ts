@@ -206,7 +206,9 @@ export function finishPages(r: ReportDocument, furniture: { head: string; foot: 
       doc.fillOpacity(1);
     }
     doc.font('body').fontSize(7.5).fillColor(MUTED);
-    doc.text(printable(furniture.head), r.margin, r.margin - 6, { width: r.width, lineBreak: false, ellipsis: true });
+    // The watermark's words in the head too: a faint diagonal can vanish on a poor copy.
+    const head = furniture.watermark ? `${furniture.watermark} · ${furniture.head}` : furniture.head;
+    doc.text(printable(head), r.margin, r.margin - 6, { width: r.width, lineBreak: false, ellipsis: true });
     doc
       .moveTo(r.margin, r.margin + 5)
       .lineTo(width - r.margin, r.margin + 5)

@@ -1,4 +1,3 @@
-import { failingRuleLine } from '@/shared/plans/standard-verdict';
 import type { CoverageCase } from '@/shared/schemas/coverage';
 import { effectiveResolutionArcmin, type PlanResultRow } from '@/shared/schemas/plan';
 import { MEAN_EARTH_RADIUS_M } from '@/shared/sightline/constants';
@@ -446,10 +445,6 @@ function verdictSection(r: ReportDocument, data: PlanPackageData) {
       [...caseOnly.map((f) => ['FAILS', `${f.targetName} — ${f.conditionSetName}: ${f.conditionLabel}`, f.text, '—', '—']), ...ordered.map((x) => x.cells)],
     );
   }
-  if (!verdict.passed) {
-    heading(r, 'Failing rules in words', 2);
-    for (const f of verdict.failing) paragraph(r, `• ${failingRuleLine(f)}`, { size: 8.5 });
-  }
   const note = data.revision?.exceptionNote;
   if (note) {
     heading(r, 'Exception note (planner, frozen with the revision)', 2);
@@ -591,33 +586,41 @@ async function caseSection(
   const middle = data.projection.toLatLon((extent.west + extent.east) / 2, (extent.south + extent.north) / 2);
   const gamma = gridConvergence(data.projection, middle);
   const overlays = overlaysOf(data, posts, false);
-  const overhead = 58;
+  // The two layers side by side, each on a square frame at the same scale.
+  const overhead = 70;
+  const gap = 14;
+  let side = Math.min((r.width - 10 - gap) / 2, r.bottom - doc.y - 12 - overhead);
+  if (side < 170) {
+    doc.addPage();
+    side = Math.min((r.width - 10 - gap) / 2, r.bottom - doc.y - 12 - overhead);
+  }
+  doc.moveDown(0.4);
+  const top = doc.y;
+  let below = top;
   const layers = [
-    { name: 'posts-per-cell' as const, palette: POSTS_PER_CELL_PRINT },
-    { name: 'cross-bearing' as const, palette: CROSS_BEARING_PRINT },
+    { name: 'posts-per-cell' as const, palette: POSTS_PER_CELL_PRINT, title: 'Posts that see the target' },
+    { name: 'cross-bearing' as const, palette: CROSS_BEARING_PRINT, title: 'Cross-bearings' },
   ];
   for (const [i, l] of layers.entries()) {
     const raster = await data.layer(c.key, l.name);
     if (!raster) continue;
-    let left = r.bottom - doc.y - 12;
-    let h = Math.min(r.width * 0.62, (i === 0 ? left / 2 : left) - overhead);
-    if (h < 170) {
-      doc.addPage();
-      left = r.bottom - doc.y - 12;
-      h = Math.min(r.width * 0.62, left / 2 - overhead);
-    }
-    doc.moveDown(0.3);
-    const frame = fitFrame(extent, { x: r.margin + 10, y: doc.y, width: r.width - 10, height: h });
-    drawMap(r, {
-      frame,
-      hillshade: data.hillshade,
-      layer: { raster, palette: l.palette },
-      overlays,
-      gridConvergenceRad: gamma,
-      crsLabel: crsLabel(data),
-      paperName: PAPER_NAMES[data.options.paper],
-    });
+    const left = r.margin + 10 + i * (side + gap);
+    const frame = fitFrame(extent, { x: left, y: top, width: side, height: side });
+    below = Math.max(
+      below,
+      drawMap(r, {
+        frame,
+        hillshade: data.hillshade,
+        layer: { raster, palette: l.palette },
+        overlays,
+        gridConvergenceRad: gamma,
+        crsLabel: crsLabel(data),
+        paperName: PAPER_NAMES[data.options.paper],
+      }),
+    );
   }
+  doc.x = r.margin;
+  doc.y = below;
 
   heading(r, 'Blind areas', 2);
   const format = data.options.coordinateFormat;
