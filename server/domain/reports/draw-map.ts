@@ -16,6 +16,8 @@ export interface MapOverlays {
     /** Sector wedge and ring radius, metres. */
     reachM: number | null;
   }[];
+  /** Numbered points (blind areas), grid metres. */
+  marks?: { x: number; y: number; label: string }[];
   /** Range rings around one point (the crew card): metres and a label each. */
   rings?: { x: number; y: number; radii: { m: number; label: string }[] } | null;
 }
@@ -95,6 +97,15 @@ export function drawMap(
     const [zx, zy] = toPaper(frame, zone.ring.reduce((s, p) => s + p[0], 0) / n, zone.ring.reduce((s, p) => s + p[1], 0) / n);
     label(r, zone.name, zx - 20, zy - 4, 6.5, 'italic');
   }
+  for (const mark of overlays.marks ?? []) {
+    const [mx, my] = toPaper(frame, mark.x, mark.y);
+    doc.circle(mx, my, 5).lineWidth(0.8).fillAndStroke('#FFFFFF', INK);
+    doc
+      .font('bold')
+      .fontSize(6)
+      .fillColor(INK)
+      .text(mark.label, mx - 5, my - 3, { width: 10, align: 'center', lineBreak: false });
+  }
   for (const post of overlays.posts) {
     const [px, py] = toPaper(frame, post.x, post.y);
     if (post.sector && post.reachM) {
@@ -114,27 +125,36 @@ export function drawMap(
       .polygon([px, py - 5.5], [px + 4.8, py + 3], [px - 4.8, py + 3])
       .lineWidth(1)
       .fillAndStroke(INK, '#FFFFFF');
-    label(r, post.name, px + 6, py - 4, 7);
+    // Beside the marker, on its left when the name would run off the frame.
+    doc.font('bold').fontSize(7);
+    const w = doc.widthOfString(printable(post.name));
+    label(r, post.name, px + 6 + w > x + width - 2 ? px - 8 - w : px + 6, py - 4, 7);
   }
   doc.restore();
   doc.rect(x, y, width, height).lineWidth(0.8).strokeColor(INK).stroke();
 
   // Grid ticks with their coordinates (grid metres, whole kilometres where the step allows).
-  const step = roundStep(frame.extent.east - frame.extent.west, 5);
+  // About one labelled tick per 60 points, so the labels never run into each other.
+  const step = roundStep(frame.extent.east - frame.extent.west, Math.max(2, Math.floor(width / 60)));
   doc.font('body').fontSize(6.5).fillColor(MUTED);
   const tickText = (v: number) => (step >= 1000 ? `${Math.round(v / 1000)} km` : `${Math.round(v)} m`);
   for (const e of gridValues(frame.extent.west, frame.extent.east, step)) {
     const [px] = toPaper(frame, e, frame.extent.north);
     doc.moveTo(px, y).lineTo(px, y + 5).moveTo(px, y + height).lineTo(px, y + height - 5).lineWidth(0.7).strokeColor(INK).stroke();
-    doc.text(`E ${tickText(e)}`, px - 30, y + height + 2, { width: 60, align: 'center', lineBreak: false });
+    // Labels whose text would stick out past the frame's corners are left out (the tick stays).
+    if (px - x > 24 && x + width - px > 24) {
+      doc.text(`E ${tickText(e)}`, px - 30, y + height + 2, { width: 60, align: 'center', lineBreak: false });
+    }
   }
   for (const n of gridValues(frame.extent.south, frame.extent.north, step)) {
     const [, py] = toPaper(frame, frame.extent.west, n);
     doc.moveTo(x, py).lineTo(x + 5, py).moveTo(x + width, py).lineTo(x + width - 5, py).lineWidth(0.7).strokeColor(INK).stroke();
-    doc.save();
-    doc.rotate(-90, { origin: [x - 3, py] });
-    doc.text(`N ${tickText(n)}`, x - 33, py - 7, { width: 60, align: 'center', lineBreak: false });
-    doc.restore();
+    if (py - y > 30 && y + height - py > 30) {
+      doc.save();
+      doc.rotate(-90, { origin: [x - 3, py] });
+      doc.text(`N ${tickText(n)}`, x - 33, py - 7, { width: 60, align: 'center', lineBreak: false });
+      doc.restore();
+    }
   }
 
   northArrow(r, x + width - 22, y + 30, args.gridConvergenceRad);

@@ -80,7 +80,7 @@ export async function renderCrewCard(
     const projection = mapProjection(null, terrain, { boundary: site.boundary ?? [[ll.lonDeg, ll.latDeg]] });
     const at = projection.toGrid(post.location);
     const reach = Math.max(...rings.map((x) => x.m)) * 1.08;
-    const height = Math.min(r.width * 0.62, r.bottom - doc.y - 60);
+    const height = Math.min(r.width * 0.85, r.bottom - doc.y - 60);
     doc.moveDown(0.3);
     const frame = fitFrame(
       { west: at.x - reach, east: at.x + reach, south: at.y - reach, north: at.y + reach },
@@ -172,7 +172,10 @@ export async function renderCrewCard(
   return documentBytes(r);
 }
 
-/** One ring per target (at most four): its detection range under k nearest standard refraction. */
+/**
+ * One ring per target (at most four rings): its detection range under the k
+ * nearest standard refraction; targets with the same range share a ring.
+ */
 function ringsOf(card: CrewCard): { m: number; label: string }[] {
   const byTarget = new Map<string, CrewCard['rows'][number]>();
   for (const row of card.rows) {
@@ -180,7 +183,15 @@ function ringsOf(card: CrewCard): { m: number; label: string }[] {
     const best = byTarget.get(row.targetName);
     if (!best || Math.abs(row.k - RING_K) < Math.abs(best.k - RING_K)) byTarget.set(row.targetName, row);
   }
-  return [...byTarget.values()]
+  const rings = new Map<string, { m: number; names: string[] }>();
+  for (const row of byTarget.values()) {
+    const key = formatDistance(row.detectionRangeM);
+    const ring = rings.get(key) ?? { m: row.detectionRangeM!, names: [] };
+    ring.names.push(row.targetName);
+    rings.set(key, ring);
+  }
+  return [...rings.entries()]
+    .sort((a, b) => a[1].m - b[1].m)
     .slice(0, 4)
-    .map((row) => ({ m: row.detectionRangeM!, label: `${row.targetName} ${formatDistance(row.detectionRangeM)}` }));
+    .map(([distance, ring]) => ({ m: ring.m, label: `${ring.names.join(', ')}: ${distance}` }));
 }

@@ -612,7 +612,11 @@ async function caseSection(
         frame,
         hillshade: data.hillshade,
         layer: { raster, palette: l.palette },
-        overlays,
+        // The blind areas, numbered as in the table below, on the posts-per-cell map.
+        overlays:
+          i === 0
+            ? { ...overlays, marks: c.blindAreas.map((b, n) => ({ ...pointOf(b), label: String(n + 1) })) }
+            : overlays,
         gridConvergenceRad: gamma,
         crsLabel: crsLabel(data),
         paperName: PAPER_NAMES[data.options.paper],
@@ -626,14 +630,14 @@ async function caseSection(
   const format = data.options.coordinateFormat;
   paragraph(
     r,
-    `${c.blindSummary.count} blind area${c.blindSummary.count === 1 ? '' : 's'} of at least ${formatArea(c.blindSummary.minArea)}, ${formatArea(c.blindSummary.area)} in all; the largest listed with a point inside each (${COORDINATE_FORMAT_NAMES[format]}, WGS 84).`,
+    `${c.blindSummary.count} blind area${c.blindSummary.count === 1 ? '' : 's'} of at least ${formatArea(c.blindSummary.minArea)}, ${formatArea(c.blindSummary.area)} in all; the largest listed with a point inside each (${COORDINATE_FORMAT_NAMES[format]}, WGS 84), numbered as on the posts-per-cell map.`,
     { size: 8.5 },
   );
   if (c.blindAreas.length > 0) {
     table(
       r,
       [
-        { title: '#', weight: 0.3, align: 'right' },
+        { title: '# on the map', weight: 0.5, align: 'right' },
         { title: 'Area', weight: 1, align: 'right' },
         { title: 'A point inside', weight: 3 },
       ],
@@ -642,3 +646,6 @@ async function caseSection(
     );
   }
 }
+
+/** A point surely inside a blind area (older runs: its centre of mass), grid metres. */
+const pointOf = (b: CoverageCase['blindAreas'][number]) => ({ x: (b.interior ?? b.centroid).x, y: (b.interior ?? b.centroid).y });
