@@ -110,7 +110,8 @@ describe('GET /plans/:planId/revisions/:n/report.pdf', () => {
     }
     // The terrain the coverage was computed on, by its sha256, and every case of the run.
     expect(flat).toContain(revision.snapshot.coverage!.terrainSha256!);
-    for (const c of revision.snapshot.coverage!.cases) expect(flat).toContain(`${c.targetName} — ${c.conditionSetName}, ${c.conditionLabel}`);
+    for (const c of revision.snapshot.coverage!.cases)
+      expect(flat).toContain(`${c.targetName} — ${c.conditionSetName}, ${c.conditionLabel}`);
     // The standing cautions.
     expect(flat).toContain('Estimates only');
     expect(flat).toContain('Refraction near the horizon varies widely');
@@ -136,7 +137,11 @@ describe('GET /plans/:planId/revisions/:n/report.pdf', () => {
 
   it('prints on US Letter when asked, and refuses other paper by field', async () => {
     const plan = await planTitled(reviewer, 'Fire season cover 2026');
-    const { info } = await pdf(reviewer, `/api/v1/plans/${plan.id}/revisions/1/report.pdf?paper=letter&coords=mgrs`, 'forest-letter.pdf');
+    const { info } = await pdf(
+      reviewer,
+      `/api/v1/plans/${plan.id}/revisions/1/report.pdf?paper=letter&coords=mgrs`,
+      'forest-letter.pdf',
+    );
     // US Letter: 8.5 × 11 in = 612 × 792 pt. Source: ANSI/ASME Y14.1 size A (Letter), 72 pt to the inch.
     const [w, h] = pageSize(info);
     expect(w).toBeCloseTo(612, 0);
@@ -176,7 +181,9 @@ describe('GET /plans/:planId/preview/report.pdf', () => {
     const draft = await planTitled(planner, 'Blackmoss tower proposal');
     expect(draft.status).toBe('draft');
     const { res, text, info } = await pdf(planner, `/api/v1/plans/${draft.id}/preview/report.pdf`, 'draft-preview.pdf');
-    expect(res.headers['content-disposition']).toMatch(/=harrowmere-forest-district_blackmoss-tower-proposal_v1-draft-preview_\d{4}-\d{2}-\d{2}\.pdf$/);
+    expect(res.headers['content-disposition']).toMatch(
+      /=harrowmere-forest-district_blackmoss-tower-proposal_v1-draft-preview_\d{4}-\d{2}-\d{2}\.pdf$/,
+    );
     const flat = squeeze(text);
     expect(flat).toContain('Blackmoss tower proposal');
     expect(flat).toContain('DRAFT — NOT APPROVED');
@@ -189,7 +196,10 @@ describe('GET /plans/:planId/preview/report.pdf', () => {
 describe('GET /sites/:siteId/posts/:postId/card(.pdf)', () => {
   it('gives an observer the crew card of a post from the approved plan, on A5', async () => {
     const approved = await planTitled(observer, 'Fire season cover 2026');
-    const posts = (await observer.get(`/api/v1/sites/${approved.siteId}/posts`).expect(200)).body.items as { id: string; name: string }[];
+    const posts = (await observer.get(`/api/v1/sites/${approved.siteId}/posts`).expect(200)).body.items as {
+      id: string;
+      name: string;
+    }[];
     const crane = posts.find((p) => p.name === 'Crane Knoll Tower')!;
     const card = CrewCardSchema.parse(
       (await observer.get(`/api/v1/sites/${approved.siteId}/posts/${crane.id}/card`).expect(200)).body.card,
@@ -203,7 +213,11 @@ describe('GET /sites/:siteId/posts/:postId/card(.pdf)', () => {
     // No magnetic model: the card says so rather than guess.
     expect(card.declination).toBeNull();
 
-    const { res, text, info } = await pdf(observer, `/api/v1/sites/${approved.siteId}/posts/${crane.id}/card.pdf?coords=utm`, 'crane-card.pdf');
+    const { res, text, info } = await pdf(
+      observer,
+      `/api/v1/sites/${approved.siteId}/posts/${crane.id}/card.pdf?coords=utm`,
+      'crane-card.pdf',
+    );
     expect(res.headers['content-disposition']).toMatch(
       /=harrowmere-forest-district_crane-knoll-tower_fire-season-cover-2026-v1-rev1_crew-card_\d{4}-\d{2}-\d{2}\.pdf$/,
     );
@@ -222,7 +236,10 @@ describe('GET /sites/:siteId/posts/:postId/card(.pdf)', () => {
 
   it('computes the card of a post no approved plan uses, and says so', async () => {
     const draft = await planTitled(planner, 'Blackmoss tower proposal');
-    const posts = (await planner.get(`/api/v1/sites/${draft.siteId}/posts`).expect(200)).body.items as { id: string; name: string }[];
+    const posts = (await planner.get(`/api/v1/sites/${draft.siteId}/posts`).expect(200)).body.items as {
+      id: string;
+      name: string;
+    }[];
     const blackmoss = posts.find((p) => p.name === 'Blackmoss Tower')!;
     const card = CrewCardSchema.parse(
       (await planner.get(`/api/v1/sites/${draft.siteId}/posts/${blackmoss.id}/card`).expect(200)).body.card,

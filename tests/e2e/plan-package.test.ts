@@ -35,7 +35,9 @@ it('lets a reviewer download the package of the approved demo plan', async () =>
     await link.waitFor();
     await shot(page, 'plan-package-link', 'wide');
     const [download] = await Promise.all([page.waitForEvent('download'), link.click()]);
-    expect(download.suggestedFilename()).toMatch(/^harrowmere-forest-district_fire-season-cover-2026_v1-rev1_\d{4}-\d{2}-\d{2}\.pdf$/);
+    expect(download.suggestedFilename()).toMatch(
+      /^harrowmere-forest-district_fire-season-cover-2026_v1-rev1_\d{4}-\d{2}-\d{2}\.pdf$/,
+    );
     const file = path.join(work, download.suggestedFilename());
     await download.saveAs(file);
 

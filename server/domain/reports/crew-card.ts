@@ -93,9 +93,9 @@ async function cardFigures(actor: Actor, site: Site, post: Post): Promise<{ basi
   const plans =
     actor.role === 'observer'
       ? []
-      : (await plansRepository.page(actor.organizationId, { siteId: site.id, page: 1, pageSize: 100, sort: '-updatedAt' })).items.filter(
-          (p) => p.postIds.includes(post.id),
-        );
+      : (
+          await plansRepository.page(actor.organizationId, { siteId: site.id, page: 1, pageSize: 100, sort: '-updatedAt' })
+        ).items.filter((p) => p.postIds.includes(post.id));
   const targetIds = new Set(plans.flatMap((p) => p.targetIds));
   const setIds = new Set(plans.flatMap((p) => p.conditionSetIds));
   const chosenTargets = targetIds.size > 0 ? targets.filter((t) => targetIds.has(t.id)) : targets;
@@ -133,6 +133,9 @@ export async function crewCard(
   const others = (await postsRepository.listInSite(actor.organizationId, siteId)).filter((p) => p.id !== postId);
   const pdf = await renderCrewCard(deps, actor, { card, site, others }, options);
   const day = isoDateIn(new Date(card.generatedAt), card.site.timeZone);
-  const plan = card.basis.kind === 'approved-plan' ? `_${slug(card.basis.planTitle)}-v${card.basis.version}-rev${card.basis.revision}` : '_no-approved-plan';
+  const plan =
+    card.basis.kind === 'approved-plan'
+      ? `_${slug(card.basis.planTitle)}-v${card.basis.version}-rev${card.basis.revision}`
+      : '_no-approved-plan';
   return { fileName: `${slug(card.site.name)}_${slug(card.post.name)}${plan}_crew-card_${day}.pdf`, pdf };
 }

@@ -140,7 +140,14 @@ export function drawMap(
   const tickText = (v: number) => (step >= 1000 ? `${Math.round(v / 1000)} km` : `${Math.round(v)} m`);
   for (const e of gridValues(frame.extent.west, frame.extent.east, step)) {
     const [px] = toPaper(frame, e, frame.extent.north);
-    doc.moveTo(px, y).lineTo(px, y + 5).moveTo(px, y + height).lineTo(px, y + height - 5).lineWidth(0.7).strokeColor(INK).stroke();
+    doc
+      .moveTo(px, y)
+      .lineTo(px, y + 5)
+      .moveTo(px, y + height)
+      .lineTo(px, y + height - 5)
+      .lineWidth(0.7)
+      .strokeColor(INK)
+      .stroke();
     // Labels whose text would stick out past the frame's corners are left out (the tick stays).
     if (px - x > 24 && x + width - px > 24) {
       doc.text(`E ${tickText(e)}`, px - 30, y + height + 2, { width: 60, align: 'center', lineBreak: false });
@@ -148,7 +155,14 @@ export function drawMap(
   }
   for (const n of gridValues(frame.extent.south, frame.extent.north, step)) {
     const [, py] = toPaper(frame, frame.extent.west, n);
-    doc.moveTo(x, py).lineTo(x + 5, py).moveTo(x + width, py).lineTo(x + width - 5, py).lineWidth(0.7).strokeColor(INK).stroke();
+    doc
+      .moveTo(x, py)
+      .lineTo(x + 5, py)
+      .moveTo(x + width, py)
+      .lineTo(x + width - 5, py)
+      .lineWidth(0.7)
+      .strokeColor(INK)
+      .stroke();
     if (py - y > 30 && y + height - py > 30) {
       doc.save();
       doc.rotate(-90, { origin: [x - 3, py] });
@@ -175,11 +189,16 @@ export function drawMap(
   doc
     .font('bold')
     .fontSize(7.5)
-    .text(`Scale 1 : ${frame.scale.toLocaleString('en-GB').replace(/,/g, ' ')} printed at 100 % on ${args.paperName}`, x + barPt + 24, barY - 1, {
-      width: Math.max(60, width - barPt - 24),
-      lineBreak: false,
-      ellipsis: true,
-    });
+    .text(
+      `Scale 1 : ${frame.scale.toLocaleString('en-GB').replace(/,/g, ' ')} printed at 100 % on ${args.paperName}`,
+      x + barPt + 24,
+      barY - 1,
+      {
+        width: Math.max(60, width - barPt - 24),
+        lineBreak: false,
+        ellipsis: true,
+      },
+    );
   doc
     .font('body')
     .fontSize(6.5)
@@ -227,7 +246,10 @@ function northArrow(r: ReportDocument, cx: number, cy: number, gridConvergenceRa
   const tail: [number, number] = [cx - ux * len * 0.5, cy - uy * len * 0.5];
   const side = (s: number): [number, number] => [tail[0] + -uy * 4.5 * s, tail[1] + ux * 4.5 * s];
   doc.polygon(tip, side(1), [cx - ux * 2, cy - uy * 2]).fill(INK);
-  doc.polygon(tip, side(-1), [cx - ux * 2, cy - uy * 2]).lineWidth(0.6).fillAndStroke('#FFFFFF', INK);
+  doc
+    .polygon(tip, side(-1), [cx - ux * 2, cy - uy * 2])
+    .lineWidth(0.6)
+    .fillAndStroke('#FFFFFF', INK);
   doc
     .font('bold')
     .fontSize(7)

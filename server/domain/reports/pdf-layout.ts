@@ -146,7 +146,13 @@ export function table(r: ReportDocument, columns: Column[], rows: string[][], op
       .strokeColor(RULE)
       .stroke();
   };
-  ensureSpace(r, rowHeight(columns.map((c) => c.title), 'bold') + rowHeight(rows[0] ?? [''], 'body'));
+  ensureSpace(
+    r,
+    rowHeight(
+      columns.map((c) => c.title),
+      'bold',
+    ) + rowHeight(rows[0] ?? [''], 'body'),
+  );
   doc.x = r.margin;
   header();
   rows.forEach((row, index) => {
@@ -175,7 +181,10 @@ export function cautionsBox(r: ReportDocument, cautions: readonly string[], size
     .fontSize(size + 0.5)
     .fillColor(INK)
     .text('Cautions', r.margin + 8, y + 6, { width: r.width - 16 });
-  doc.font('body').fontSize(size).text(text, r.margin + 8, doc.y + 2, { width: r.width - 16 });
+  doc
+    .font('body')
+    .fontSize(size)
+    .text(text, r.margin + 8, doc.y + 2, { width: r.width - 16 });
   doc.y = y + h + 6;
   doc.x = r.margin;
 }

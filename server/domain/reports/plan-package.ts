@@ -121,7 +121,9 @@ export async function planPackage(
   const site = await frozenSite(actor, plan, snapshot);
   const coverage = snapshot.coverage;
   const terrain =
-    coverage?.terrainId != null ? await terrainRepository.findInSite(actor.organizationId, plan.siteId, coverage.terrainId) : null;
+    coverage?.terrainId != null
+      ? await terrainRepository.findInSite(actor.organizationId, plan.siteId, coverage.terrainId)
+      : null;
   const organization = await OrganizationModel.findByPk(actor.organizationId, { attributes: ['name'], raw: true });
 
   const data: PlanPackageData = {
@@ -186,7 +188,11 @@ export async function readHillshade(files: FileStore, terrain: TerrainRecord): P
 }
 
 /** The terrain's grid CRS, the run's, or for a plan without coverage the UTM zone of the site's middle. */
-export function mapProjection(coverage: CoverageSnapshot | null, terrain: TerrainRecord | null, site: Pick<Site, 'boundary'>): GridProjection {
+export function mapProjection(
+  coverage: CoverageSnapshot | null,
+  terrain: TerrainRecord | null,
+  site: Pick<Site, 'boundary'>,
+): GridProjection {
   if (terrain) return gridProjection({ epsg: terrain.epsg, wkt: terrain.crsWkt });
   if (coverage?.grid.epsg) return gridProjection({ epsg: coverage.grid.epsg, wkt: null });
   const points = site.boundary ?? [];
@@ -202,7 +208,9 @@ function layerReader(coverage: CoverageSnapshot) {
     const frozen = coverage.layerHashes[`${layer}:${caseKey}`];
     const actual = createHash('sha256').update(encoded.data).digest('hex');
     if (frozen !== undefined && frozen !== actual) {
-      console.error(`[kenning] INTEGRITY: coverage run ${coverage.runId} layer ${layer}:${caseKey} no longer matches its frozen sha256.`);
+      console.error(
+        `[kenning] INTEGRITY: coverage run ${coverage.runId} layer ${layer}:${caseKey} no longer matches its frozen sha256.`,
+      );
       throw new AppError(
         500,
         'revision_tampered',

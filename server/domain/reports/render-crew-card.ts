@@ -43,17 +43,27 @@ export async function renderCrewCard(
   const { card, site, others } = input;
   const { post } = card;
   const tz = card.site.timeZone;
-  const r = newReportDocument({ paper: 'A5', title: `${post.name} — crew card`, subject: `Crew card of ${post.name}, ${card.site.name}` });
+  const r = newReportDocument({
+    paper: 'A5',
+    title: `${post.name} — crew card`,
+    subject: `Crew card of ${post.name}, ${card.site.name}`,
+  });
   const { doc } = r;
 
   doc.font('bold').fontSize(7.5).fillColor(MUTED).text('CREW CARD', r.margin, doc.y, { characterSpacing: 1.2 });
   doc.font('bold').fontSize(17).fillColor(INK).text(printable(post.name), { width: r.width });
-  doc.font('body').fontSize(10).text(printable(`${card.site.name}${post.status === 'proposed' ? ' · proposed post' : ''}`));
+  doc
+    .font('body')
+    .fontSize(10)
+    .text(printable(`${card.site.name}${post.status === 'proposed' ? ' · proposed post' : ''}`));
   doc.moveDown(0.4);
   keyValues(
     r,
     [
-      [`Position (${COORDINATE_FORMAT_NAMES[options.coordinateFormat]})`, `${formatPosition(post.location, options.coordinateFormat)} (WGS 84)`],
+      [
+        `Position (${COORDINATE_FORMAT_NAMES[options.coordinateFormat]})`,
+        `${formatPosition(post.location, options.coordinateFormat)} (WGS 84)`,
+      ],
       ['MGRS', card.mgrs],
       ['Ground elevation', formatHeight(post.groundElevationM)],
       ['Structure, eye above platform', `${formatHeight(post.structureHeightM)}, ${formatHeight(post.eyeHeightM)}`],
@@ -68,7 +78,11 @@ export async function renderCrewCard(
     card.basis.kind === 'approved-plan'
       ? `Figures from the approved plan “${card.basis.planTitle}”, version ${card.basis.version}, revision ${card.basis.revision}, approved ${formatTimeIn(card.basis.approvedAt, tz)}; sha256 ${card.basis.contentHash}.`
       : `No approved plan uses this post: figures computed when printed with Kenning’s sightline core on smooth earth, for ${card.basis.scope}. Not reviewed.`,
-    { size: 7.5, color: card.basis.kind === 'approved-plan' ? INK : '#7A3E00', font: card.basis.kind === 'approved-plan' ? 'body' : 'bold' },
+    {
+      size: 7.5,
+      color: card.basis.kind === 'approved-plan' ? INK : '#7A3E00',
+      font: card.basis.kind === 'approved-plan' ? 'body' : 'bold',
+    },
   );
 
   // Range rings: each target's detection range under standard refraction (or its set's first condition).
@@ -133,7 +147,10 @@ export async function renderCrewCard(
 
   heading(r, 'Marks seen from the post', 2);
   if (card.marks.length === 0) {
-    paragraph(r, 'None recorded: add photos of landmarks with the bearing they look along on the post’s page.', { size: 7.5, color: MUTED });
+    paragraph(r, 'None recorded: add photos of landmarks with the bearing they look along on the post’s page.', {
+      size: 7.5,
+      color: MUTED,
+    });
   } else {
     table(
       r,

@@ -97,7 +97,10 @@ function cover(r: ReportDocument, data: PlanPackageData, which: string) {
   doc.font('bold').fontSize(9).fillColor(MUTED).text('COVERAGE PLAN PACKAGE', r.margin, doc.y, { characterSpacing: 1.2 });
   doc.moveDown(0.3);
   doc.font('bold').fontSize(22).fillColor(INK).text(printable(plan.title), { width: r.width });
-  doc.font('body').fontSize(12).text(printable(`${site.name} · ${data.organizationName}`), { width: r.width });
+  doc
+    .font('body')
+    .fontSize(12)
+    .text(printable(`${site.name} · ${data.organizationName}`), { width: r.width });
   doc.moveDown(0.6);
   keyValues(r, [
     ['Version and revision', revision ? which : `${which} — not a revision: figures as the plan stands now`],
@@ -206,7 +209,9 @@ function assumptionSheet(r: ReportDocument, data: PlanPackageData, posts: Frozen
       [
         `at least ${standard.minSeenPct} % of the site seen by at least one post`,
         `each priority zone seen by at least ${standard.priorityMinPosts} post${standard.priorityMinPosts === 1 ? '' : 's'}`,
-        standard.crossBearingMinPct === null ? null : `at least ${standard.crossBearingMinPct} % of each priority zone with good cross-bearings`,
+        standard.crossBearingMinPct === null
+          ? null
+          : `at least ${standard.crossBearingMinPct} % of each priority zone with good cross-bearings`,
         ...standard.targetRules.map(
           (t) =>
             `${targetNames.get(t.targetId) ?? 'a target'}: ${t.minPct} % of the ${t.area === 'site' ? 'site' : 'priority zones'} by at least ${t.minPosts} post${t.minPosts === 1 ? '' : 's'}`,
@@ -366,7 +371,10 @@ function overlaysOf(data: PlanPackageData, posts: FrozenPost[], withSectors: boo
     posts: posts.map((p) => {
       const at = projection.toGrid(p.location);
       const gamma = gridConvergence(projection, p.location);
-      const reach = Math.max(0, ...data.snapshot.results.filter((x) => x.postId === p.id).map((x) => x.result.detectionRangeM ?? 0));
+      const reach = Math.max(
+        0,
+        ...data.snapshot.results.filter((x) => x.postId === p.id).map((x) => x.result.detectionRangeM ?? 0),
+      );
       const rad = (deg: number) => (deg * Math.PI) / 180 - gamma;
       return {
         name: p.name,
@@ -404,11 +412,9 @@ function siteMap(r: ReportDocument, data: PlanPackageData, posts: FrozenPost[], 
     paperName: PAPER_NAMES[data.options.paper],
   });
   if (data.site.priorityZones.length > 0) {
-    paragraph(
-      r,
-      `Priority zones: ${data.site.priorityZones.map((z) => `${z.name} (weight ${z.weight})`).join('; ')}.`,
-      { size: 8.5 },
-    );
+    paragraph(r, `Priority zones: ${data.site.priorityZones.map((z) => `${z.name} (weight ${z.weight})`).join('; ')}.`, {
+      size: 8.5,
+    });
   }
 }
 
@@ -442,7 +448,10 @@ function verdictSection(r: ReportDocument, data: PlanPackageData) {
         { title: 'Reached', weight: 0.8, align: 'right' },
         { title: 'Asked', weight: 0.8, align: 'right' },
       ],
-      [...caseOnly.map((f) => ['FAILS', `${f.targetName} — ${f.conditionSetName}: ${f.conditionLabel}`, f.text, '—', '—']), ...ordered.map((x) => x.cells)],
+      [
+        ...caseOnly.map((f) => ['FAILS', `${f.targetName} — ${f.conditionSetName}: ${f.conditionLabel}`, f.text, '—', '—']),
+        ...ordered.map((x) => x.cells),
+      ],
     );
   }
   const note = data.revision?.exceptionNote;
@@ -550,7 +559,9 @@ async function caseSection(
       (detection?.rangeLimitM != null
         ? ` Detection range from any post at most ${formatDistance(detection.rangeLimitM)} (${LIMIT_WORDS[detection.rangeLimitedBy ?? ''] ?? 'range'}).`
         : '') +
-      (detection?.decidedBy ? ` Most of the area not covered is decided by: ${LIMIT_WORDS[detection.decidedBy] ?? detection.decidedBy}.` : ''),
+      (detection?.decidedBy
+        ? ` Most of the area not covered is decided by: ${LIMIT_WORDS[detection.decidedBy] ?? detection.decidedBy}.`
+        : ''),
     { size: 8.5 },
   );
   const area = (m: { area: number; pct: number }) => `${formatPct(m.pct)}`;
@@ -565,10 +576,7 @@ async function caseSection(
       { title: 'Good crossing', weight: 1, align: 'right' },
       { title: 'No data', weight: 0.8, align: 'right' },
     ],
-    [
-      { name: 'Site', ...c.site },
-      ...c.zones.map((z) => ({ ...z, name: `${z.name} (weight ${z.weight})` })),
-    ].map((a) => [
+    [{ name: 'Site', ...c.site }, ...c.zones.map((z) => ({ ...z, name: `${z.name} (weight ${z.weight})` }))].map((a) => [
       a.name,
       formatArea(a.total.area),
       area(a.seenBy1),
@@ -614,9 +622,7 @@ async function caseSection(
         layer: { raster, palette: l.palette },
         // The blind areas, numbered as in the table below, on the posts-per-cell map.
         overlays:
-          i === 0
-            ? { ...overlays, marks: c.blindAreas.map((b, n) => ({ ...pointOf(b), label: String(n + 1) })) }
-            : overlays,
+          i === 0 ? { ...overlays, marks: c.blindAreas.map((b, n) => ({ ...pointOf(b), label: String(n + 1) })) } : overlays,
         gridConvergenceRad: gamma,
         crsLabel: crsLabel(data),
         paperName: PAPER_NAMES[data.options.paper],
