@@ -88,7 +88,10 @@ export function drawMap(
         .strokeColor(INK)
         .stroke()
         .undash();
-      label(r, ring.label, cx + radius * Math.SQRT1_2 + 2, cy - radius * Math.SQRT1_2 - 8, 6.5);
+      // Centred just inside the ring's northern edge, so it stays on the map.
+      doc.font('bold').fontSize(6.5);
+      const w = doc.widthOfString(printable(ring.label));
+      label(r, ring.label, cx - w / 2, cy - radius + 3, 6.5);
     });
   }
   for (const zone of overlays.zones) {
