@@ -8,14 +8,13 @@ import { colors, radius, space, TOUCH } from '@/components/ui/theme';
  * the file with the name the server gives and the page stays; elsewhere it
  * opens the address.
  */
-export function DownloadLink({ href, label, hint }: { href: string; label: string; hint?: string }) {
+export function DownloadLink({ href, label }: { href: string; label: string }) {
   const web = Platform.OS === 'web';
   const anchor = web ? ({ href, hrefAttrs: { download: '' } } as object) : {};
   return (
     <Pressable
       role="link"
       aria-label={label}
-      aria-description={hint}
       {...anchor}
       onPress={web ? undefined : () => void Linking.openURL(href)}
       style={({ pressed }) => ({

@@ -33,7 +33,6 @@ export function PlanPackageLink({ planId, revision }: { planId: string; revision
         <DownloadLink
           href={planPackageUrl(planId, revision, paper, coords)}
           label={revision === null ? 'Download draft preview (PDF)' : 'Download plan package (PDF)'}
-          hint={revision === null ? 'Watermarked: draft, not approved.' : `Revision ${revision}, with its content hash.`}
         />
         <Chip label="A4" on={paper === 'a4'} onPress={() => setPaper('a4')} />
         <Chip label="US Letter" on={paper === 'letter'} onPress={() => setPaper('letter')} />
