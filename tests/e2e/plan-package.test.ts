@@ -50,3 +50,26 @@ it('lets a reviewer download the package of the approved demo plan', async () =>
     await context.close();
   }
 });
+
+it('shows an observer their post’s crew card on a phone, with the PDF beside it', async () => {
+  const { context, page } = await newPage(browser, 'phone');
+  const errors = watchErrors(page);
+  try {
+    await signIn(page, DEMO.observer);
+    await page.waitForURL(/\/briefing$/);
+    // The briefing's first post (the observer keeps watch at Crane Knoll Tower in the demo).
+    await page.getByRole('link', { name: 'Crew card', exact: true }).first().click();
+    await page.waitForURL(/\/sites\/[^/]+\/crew-card\/[^/]+$/);
+    await page.getByText('How far from here').waitFor();
+    await page.getByText(/^MGRS 33U /).waitFor();
+    await page.getByText(/From the approved plan “Fire season cover 2026”/).waitFor();
+    await page.getByText(/Magnetic bearings: not available/).waitFor();
+    await page.getByText('Read before you rely on this').waitFor();
+    const pdfLink = page.getByRole('link', { name: 'Crew card (PDF, A5)' });
+    expect(await pdfLink.getAttribute('href')).toMatch(/\/card\.pdf\?coords=/);
+    await shot(page, 'crew-card', 'phone');
+    expect(errors).toEqual([]);
+  } finally {
+    await context.close();
+  }
+});
