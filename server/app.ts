@@ -26,6 +26,7 @@ import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
 import { libraryRoutes } from './routes/library';
 import { planRoutes } from './routes/plans';
+import { reportRoutes } from './routes/reports';
 import { rosterRoutes } from './routes/roster';
 import { sightlineRoutes } from './routes/sightline';
 import { siteRoutes } from './routes/sites';
@@ -143,6 +144,7 @@ export function createApp({
   v1.use(sweepWidthRoutes(db));
   v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
+  v1.use(reportRoutes(db, files));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(rosterRoutes(db));
   v1.use(attachmentRoutes(db, files, uploadTempDir));

@@ -16,6 +16,7 @@ import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/st
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { TerrainViewCard } from './terrain-view-card';
+import { CrewCardLinks } from '@/components/reports/crew-card-links';
 
 /**
  * A lookout's own briefing: their watches for the next two weeks and, for each
@@ -53,6 +54,7 @@ export function BriefingScreen() {
       {posts.map(({ post, siteName, plan, results, cautions, basis, terrainView, siteHasTerrain }) => (
         <View key={post.id} style={{ gap: space.md }}>
           <AppText variant="title">{post.name}</AppText>
+          <CrewCardLinks siteId={post.siteId} postId={post.id} />
           <AppText tone="muted">
             {POST_KIND_LABELS[post.kind]} · {siteName} · {formatCoordinate(post.location, 'ddm')} · eye{' '}
             {lengthIn(post.groundElevationM + post.structureHeightM + post.eyeHeightM, height, (m) => `${m.toFixed(1)} m`)} above

@@ -33,6 +33,7 @@ import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan
 import { PlanStatusBadge } from './plan-status';
 import { when } from './when';
 import { HistoryLink } from '@/components/audit/history-link';
+import { PlanPackageLink } from '@/components/reports/plan-package-link';
 
 /** A plan's page: status, what to do next, and its results (frozen once submitted). */
 export function PlanOverview({ planId }: { planId: string }) {
@@ -246,6 +247,7 @@ function PlanPage({
         </AppText>
       </Card>
 
+      <PlanPackageLink planId={plan.id} revision={editable ? null : (latestRevision ?? undefined)} />
       <PlanCoveragePanel
         planId={plan.id}
         siteId={plan.siteId}

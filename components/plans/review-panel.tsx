@@ -22,6 +22,7 @@ import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan
 import { PlanStatusBadge } from './plan-status';
 import { SnapshotDiffView } from './snapshot-diff-view';
 import { when } from './when';
+import { PlanPackageLink } from '@/components/reports/plan-package-link';
 
 /**
  * The reviewer's screen: the frozen revision's inputs and assumptions beside
@@ -184,6 +185,7 @@ export function ReviewPanel({ planId }: { planId: string }) {
           <AppText>{revision.data.exceptionNote}</AppText>
         </Notice>
       ) : null}
+      <PlanPackageLink planId={p.id} revision={latest} />
       <InputsPanel snapshot={snapshot} />
       <AssumptionsPanel snapshot={snapshot} />
       {previous.data ? (

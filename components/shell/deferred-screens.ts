@@ -25,5 +25,6 @@ export { ReviewQueue } from '@/components/plans/review-queue';
 export { SearchEffortScreen } from '@/components/search-effort/search-effort-screen';
 export { NewSiteScreen } from '@/components/sites/new-site-screen';
 export { PostEditor } from '@/components/sites/post-editor';
+export { CrewCardScreen } from '@/components/reports/crew-card-screen';
 export { SiteEditScreen } from '@/components/sites/site-edit-screen';
 export { SiteOverview } from '@/components/sites/site-overview';

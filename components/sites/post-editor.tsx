@@ -6,6 +6,7 @@ import { POST_KIND_LABELS, type Post } from '@/shared/schemas/site';
 import { PhotoPanel } from '@/components/attachments/photo-panel';
 import { HistoryLink } from '@/components/audit/history-link';
 import { useDuplicatePost } from '@/components/data/placement';
+import { CrewCardLinks } from '@/components/reports/crew-card-links';
 import { useSession } from '@/components/data/session';
 import { formatPosition } from '@/components/map/map-chrome';
 import { lengthIn } from '@/components/check/format';
@@ -81,6 +82,7 @@ export function PostEditor({ siteId, post, onReload }: { siteId: string; post: P
         style={{ alignSelf: 'flex-start' }}
       />
       <HistoryLink entityType="post" entityId={post.id} />
+      <CrewCardLinks siteId={siteId} postId={post.id} />
       {canEdit && !wide && !editing ? (
         <Button
           kind="secondary"

@@ -69,6 +69,13 @@ async function main() {
   if (!only || only === 'terrain') {
     print('Terrain: hillshade, profile, upload ingest', await benchTerrain());
   }
+  if ((!only || only === 'reports') && process.env.KENNING_BENCH_DATABASE_URL && process.env.KENNING_BENCH_FILES_DIR) {
+    const { benchReports } = await import('./reports.bench');
+    print(
+      'Printed reports (PDF, pdfkit): the demo forest plan package and a crew card',
+      await benchReports(process.env.KENNING_BENCH_DATABASE_URL, process.env.KENNING_BENCH_FILES_DIR),
+    );
+  }
   if ((!only || only === 'web') && process.env.KENNING_BENCH_DATABASE_URL) {
     const { benchWeb } = await import('./web.bench');
     print(

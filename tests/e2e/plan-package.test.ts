@@ -1,0 +1,75 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { Browser } from 'playwright-core';
+import type { Plan } from '@/shared/schemas/plan';
+import { DEMO } from '@/tests/support/agents';
+import { launchBrowser, newPage } from '@/tests/support/browser';
+import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+
+let browser: Browser;
+let close: () => Promise<void>;
+let work: string;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+  work = mkdtempSync(path.join(os.tmpdir(), 'kenning-e2e-package-'));
+});
+afterAll(async () => {
+  rmSync(work, { recursive: true, force: true });
+  await close();
+});
+
+it('lets a reviewer download the package of the approved demo plan', async () => {
+  const { context, page } = await newPage(browser, 'wide');
+  const errors = watchErrors(page);
+  try {
+    await signIn(page, DEMO.reviewer);
+    await page.waitForURL((url) => !url.pathname.endsWith('/sign-in'));
+    const { items } = await apiJson<{ items: Plan[] }>(page, 'GET', '/plans?status=approved');
+    const plan = items.find((p) => p.title === 'Fire season cover 2026')!;
+    await page.goto(`${e2eUrl()}/plans/${plan.id}`);
+
+    const link = page.getByRole('link', { name: 'Download plan package (PDF)' });
+    await link.waitFor();
+    await shot(page, 'plan-package-link', 'wide');
+    const [download] = await Promise.all([page.waitForEvent('download'), link.click()]);
+    expect(download.suggestedFilename()).toMatch(
+      /^harrowmere-forest-district_fire-season-cover-2026_v1-rev1_\d{4}-\d{2}-\d{2}\.pdf$/,
+    );
+    const file = path.join(work, download.suggestedFilename());
+    await download.saveAs(file);
+
+    const bytes = readFileSync(file);
+    expect(bytes.subarray(0, 4).toString('latin1')).toBe('%PDF');
+    const text = execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' });
+    expect(text).toContain('Fire season cover 2026');
+    expect(errors).toEqual([]);
+  } finally {
+    await context.close();
+  }
+});
+
+it('shows an observer their post’s crew card on a phone, with the PDF beside it', async () => {
+  const { context, page } = await newPage(browser, 'phone');
+  const errors = watchErrors(page);
+  try {
+    await signIn(page, DEMO.observer);
+    await page.waitForURL(/\/briefing$/);
+    // The briefing's first post (the observer keeps watch at Crane Knoll Tower in the demo).
+    await page.getByRole('link', { name: 'Crew card', exact: true }).first().click();
+    await page.waitForURL(/\/sites\/[^/]+\/crew-card\/[^/]+$/);
+    await page.getByText('How far from here').waitFor();
+    await page.getByText(/^MGRS 33U /).waitFor();
+    await page.getByText(/From the approved plan “Fire season cover 2026”/).waitFor();
+    await page.getByText(/Magnetic bearings: not available/).waitFor();
+    await page.getByText('Read before you rely on this').waitFor();
+    const pdfLink = page.getByRole('link', { name: 'Crew card (PDF, A5)' });
+    expect(await pdfLink.getAttribute('href')).toMatch(/\/card\.pdf\?coords=/);
+    await shot(page, 'crew-card', 'phone');
+    expect(errors).toEqual([]);
+  } finally {
+    await context.close();
+  }
+});
