@@ -15,12 +15,16 @@ export interface ExportNameParts {
   extension: string;
 }
 
-/** Characters file systems refuse or treat specially, and runs of spaces. */
-const UNSAFE = /[\\/:*?"<>|\u0000-\u001f\u007f]+/g;
+/** Characters file systems refuse or treat specially. */
+const UNSAFE = /[\\/:*?"<>|]+/g;
+
+/** Control characters (C0 and DEL) to spaces. */
+const withoutControls = (text: string) =>
+  Array.from(text, (ch) => (ch.charCodeAt(0) < 0x20 || ch.charCodeAt(0) === 0x7f ? ' ' : ch)).join('');
 
 /** A name part: trimmed, unsafe characters and spaces to hyphens, at most 60 characters. */
 export function namePart(text: string): string {
-  const part = text
+  const part = withoutControls(text)
     .normalize('NFC')
     .replace(UNSAFE, '-')
     .replace(/\s+/g, '-')
