@@ -29,13 +29,23 @@ async function approvedRevisionOf(plan: Plan) {
 }
 
 /**
- * The approved plan people should work from instead of `plan`: the plan
- * itself while it is approved, else the approved one among the versions
- * that followed it (breadth first: a newer version of a newer version).
+ * The approved plan people should work from instead of `plan`: the approved
+ * version among all versions of the plan — back through the versions it
+ * replaces to the first, then forward through every newer version (breadth
+ * first). Null when none is approved.
  */
 async function currentApprovedOf(actor: Actor, plan: Plan) {
   if (plan.status === 'approved') return approvedRevisionOf(plan);
-  const queue = [plan.id];
+  let first = plan;
+  const walked = new Set([plan.id]);
+  while (first.previousId && !walked.has(first.previousId)) {
+    walked.add(first.previousId);
+    const previous = await plansRepository.find(actor.organizationId, first.previousId);
+    if (!previous) break;
+    first = previous;
+  }
+  if (first.status === 'approved') return approvedRevisionOf(first);
+  const queue = [first.id];
   const seen = new Set(queue);
   while (queue.length > 0) {
     for (const next of await revisionLookupRepository.successors(actor.organizationId, queue.shift()!)) {
