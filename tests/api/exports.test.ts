@@ -140,33 +140,36 @@ const shoelace = (ring: number[][]) =>
 
 const decimals = (v: number) => (String(v).split('.')[1] ?? '').length;
 
-/** Checks one position against RFC 7946. */
-function checkPosition(p: unknown) {
+/** What is wrong with one position by RFC 7946, if anything (collected, then asserted once: Jest's expect is slow per call). */
+function positionProblem(p: unknown): string | null {
   // Source: RFC 7946 §3.1.1 — a position is [longitude, latitude(, altitude)], numbers; §4 WGS84 degrees.
-  expect(Array.isArray(p)).toBe(true);
+  if (!Array.isArray(p) || p.length !== 2 || !p.every((v) => typeof v === 'number')) return `not [lon, lat]: ${JSON.stringify(p)}`;
   const [lon, lat] = p as number[];
-  expect((p as number[]).length).toBe(2);
-  expect(lon).toBeGreaterThanOrEqual(-180);
-  expect(lon).toBeLessThanOrEqual(180);
-  expect(lat).toBeGreaterThanOrEqual(-90);
-  expect(lat).toBeLessThanOrEqual(90);
+  if (lon! < -180 || lon! > 180 || lat! < -90 || lat! > 90) return `out of range: ${JSON.stringify(p)}`;
   // Source: RFC 7946 §11.2 — 6 decimal places (about 10 cm) are enough; the brief asks for no more.
-  expect(decimals(lon!)).toBeLessThanOrEqual(6);
-  expect(decimals(lat!)).toBeLessThanOrEqual(6);
+  if (decimals(lon!) > 6 || decimals(lat!) > 6) return `more than 6 decimals: ${JSON.stringify(p)}`;
+  return null;
 }
 
-/** Checks a Polygon's rings against RFC 7946. */
-function checkPolygon(rings: number[][][]) {
+/** What is wrong with a Polygon's rings by RFC 7946. */
+function polygonProblems(rings: number[][][]): string[] {
+  const problems: string[] = [];
   rings.forEach((ring, i) => {
     // Source: RFC 7946 §3.1.6 — a linear ring is closed, with four or more positions, first = last.
-    expect(ring.length).toBeGreaterThanOrEqual(4);
-    expect(ring[0]).toEqual(ring[ring.length - 1]);
-    ring.forEach(checkPosition);
+    if (ring.length < 4) problems.push(`ring ${i} has ${ring.length} positions`);
+    if (JSON.stringify(ring[0]) !== JSON.stringify(ring[ring.length - 1])) problems.push(`ring ${i} is not closed`);
+    for (const p of ring) {
+      const problem = positionProblem(p);
+      if (problem) problems.push(problem);
+    }
     // Source: RFC 7946 §3.1.6 — right-hand rule: exterior rings counter-clockwise, holes clockwise.
-    if (i === 0) expect(shoelace(ring)).toBeGreaterThan(0);
-    else expect(shoelace(ring)).toBeLessThan(0);
+    const area = shoelace(ring);
+    if (i === 0 ? area <= 0 : area >= 0) problems.push(`ring ${i} winds the wrong way`);
   });
+  return problems;
 }
+
+const checkPolygon = (rings: number[][][]) => expect(polygonProblems(rings)).toEqual([]);
 
 const gdalinfo = (file: string) => JSON.parse(execFileSync('gdalinfo', ['-json', file], { encoding: 'utf8' }));
 const gdalValue = (file: string, col: number, row: number) =>
@@ -234,15 +237,17 @@ describe('GET /plans/:planId/revisions/:n/features.geojson', () => {
     // Source: RFC 7946 §3.3 — a FeatureCollection has "features", an array of Features (§3.2).
     expect(collection.type).toBe('FeatureCollection');
     const kinds = new Set<string>();
+    const problems: string[] = [];
     for (const f of collection.features) {
-      expect(f.type).toBe('Feature');
+      if (f.type !== 'Feature') problems.push(`a ${f.type} among the features`);
       kinds.add(f.properties.kind);
       const g = f.geometry;
-      if (g.type === 'Point') checkPosition(g.coordinates);
-      else if (g.type === 'Polygon') checkPolygon(g.coordinates);
-      else if (g.type === 'MultiPolygon') g.coordinates.forEach(checkPolygon);
-      else throw new Error(`unexpected geometry ${g.type}`);
+      if (g.type === 'Point') problems.push(...[positionProblem(g.coordinates)].filter((x): x is string => x !== null));
+      else if (g.type === 'Polygon') problems.push(...polygonProblems(g.coordinates));
+      else if (g.type === 'MultiPolygon') for (const polygon of g.coordinates) problems.push(...polygonProblems(polygon));
+      else problems.push(`unexpected geometry ${g.type}`);
     }
+    expect(problems).toEqual([]);
     expect([...kinds].sort()).toEqual(['blind-area', 'boundary', 'post', 'priority-zone', 'range-ring']);
 
     // Longitude first: the demo forest lies near 51.8° N, 15.2° E (an invented district), so a post's
@@ -289,6 +294,35 @@ describe('GET /plans/:planId/revisions/:n/features.geojson', () => {
     writeFileSync(file, res.text);
     const summary = execFileSync('ogrinfo', ['-ro', '-so', '-al', file], { encoding: 'utf8' });
     expect(summary).toMatch(new RegExp(`Feature Count: ${collection.features.length}\\b`));
+  });
+});
+
+describe('sectors in the GeoJSON', () => {
+  it('draws each post’s viewing sector as a geodesic wedge between its bearings, out to its farthest range', async () => {
+    // The coast plan (submitted, read by a reviewer): its shore posts watch sectors across north.
+    const res = await reviewer.get(`/api/v1/plans/${submitted.id}/revisions/1/features.geojson`).expect(200);
+    const features = JSON.parse(res.text).features as {
+      geometry: { type: string; coordinates: number[][][] & number[] };
+      properties: Record<string, number & string>;
+    }[];
+    const sectors = features.filter((f) => f.properties.kind === 'sector');
+    expect(sectors.length).toBeGreaterThan(0);
+    for (const sector of sectors) {
+      checkPolygon(sector.geometry.coordinates);
+      const post = features.find((f) => f.properties.kind === 'post' && f.properties.postId === sector.properties.postId)!;
+      const [lon0, lat0] = post.geometry.coordinates as unknown as [number, number];
+      const { fromDeg, toDeg, radiusM } = sector.properties;
+      const span = (toDeg - fromDeg + 360) % 360;
+      for (const [lon, lat] of sector.geometry.coordinates[0]!) {
+        // Source: Karney (2013), inverse problem (geographiclib): azimuth and distance from the post.
+        const { s12, azi1 } = Geodesic.WGS84.Inverse(lat0, lon0, lat!, lon!);
+        if (s12! < 1) continue; // the post itself
+        expect(Math.abs(s12! - radiusM)).toBeLessThan(0.3);
+        const along = (((azi1! - fromDeg) % 360) + 360) % 360;
+        // Clockwise from `fromDeg` to `toDeg` (true bearings), within rounding to 6 decimals.
+        expect(Math.min(along, 360 - along) < 0.01 || along <= span + 0.01).toBe(true);
+      }
+    }
   });
 });
 

@@ -15,11 +15,10 @@ export interface GridCell {
  * its bounding box padded by one empty cell each side. Null when the seed is
  * not a mask cell.
  */
-function patchAround(grid: RasterGrid, mask: Uint8Array, seed: GridCell) {
+function patchAround(grid: RasterGrid, mask: Uint8Array, seed: GridCell, visited: Uint8Array) {
   const { width: W, height: H } = grid;
   const start = seed.row * W + seed.col;
   if (seed.col < 0 || seed.col >= W || seed.row < 0 || seed.row >= H || mask[start] !== 1) return null;
-  const visited = new Uint8Array(W * H);
   const cells: number[] = [start];
   visited[start] = 1;
   let minCol = seed.col;
@@ -54,6 +53,7 @@ function patchAround(grid: RasterGrid, mask: Uint8Array, seed: GridCell) {
     const col = i % W;
     const row = (i - col) / W;
     values[(row - row0) * boxWidth + (col - col0)] = 1;
+    visited[i] = 0; // left clean for the next patch
   }
   return { col0, row0, boxWidth, boxHeight, values, cells: cells.length };
 }
@@ -90,6 +90,7 @@ function dropCollinear(ring: readonly Position[]): Position[] {
  * @param mask 1 = blind site cell, else 0; `width × height`, row-major (not modified)
  * @param seed a cell of the patch (a blind area's interior point)
  * @param toLatLon grid metres → WGS84 degrees
+ * @param scratch `width × height` zeros, reused across calls (left all zero again); default a new one
  * @returns the polygons and the patch's cell count, or null when `seed` is not blind
  */
 export function blindAreaPolygon(
@@ -97,8 +98,9 @@ export function blindAreaPolygon(
   mask: Uint8Array,
   seed: GridCell,
   toLatLon: (x: number, y: number) => LatLon,
+  scratch: Uint8Array = new Uint8Array(grid.width * grid.height),
 ): { coordinates: Position[][][]; cells: number } | null {
-  const patch = patchAround(grid, mask, seed);
+  const patch = patchAround(grid, mask, seed, scratch);
   if (!patch) return null;
   const [outline] = contours().size([patch.boxWidth, patch.boxHeight]).thresholds([0.5]).smooth(false)(patch.values);
   const yTop = grid.yll + grid.height * grid.cellSize;

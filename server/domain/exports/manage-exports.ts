@@ -131,6 +131,9 @@ async function blindAreaOutlines(
     return seaMask;
   };
   const outlines: BlindAreaOutline[] = [];
+  // One mask and one scratch buffer for every case: fresh memory is slow to touch on these machines.
+  const mask = new Uint8Array(grid.width * grid.height);
+  const scratch = new Uint8Array(grid.width * grid.height);
   for (const c of cases) {
     const key = `posts-per-cell:${c.key}`;
     const encoded = await coverageRepository.layer(coverage.runId, c.key, 'posts-per-cell', '');
@@ -138,7 +141,6 @@ async function blindAreaOutlines(
     checkLayerHash(coverage, planId, revision, key, encoded);
     const codes = decodeClassRaster(encoded);
     const sea = c.detection?.seaOnly ? await seaMaskNow() : null;
-    const mask = new Uint8Array(codes.length);
     for (let i = 0; i < codes.length; i++) {
       mask[i] = codes[i] === COVERAGE_LAYER.unseen && (siteMask === null || siteMask[i] === 1) && (sea === null || sea[i] === 1) ? 1 : 0;
     }
@@ -146,7 +148,7 @@ async function blindAreaOutlines(
     c.blindAreas.forEach((area, i) => {
       const point = area.interior ?? area.centroid;
       const seed = { col: Math.floor((point.x - grid.xll) / grid.cellSize), row: Math.floor((yTop - point.y) / grid.cellSize) };
-      const outline = blindAreaPolygon(grid, mask, seed, (x, y) => projection.toLatLon(x, y));
+      const outline = blindAreaPolygon(grid, mask, seed, (x, y) => projection.toLatLon(x, y), scratch);
       if (!outline) return;
       outlines.push({
         caseKey: c.key,
