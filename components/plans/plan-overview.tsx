@@ -32,6 +32,7 @@ import { AssumptionsPanel, InputsPanel, SnapshotCautions, unitsOf } from './plan
 import { PlanStatusBadge } from './plan-status';
 import { when } from './when';
 import { HistoryLink } from '@/components/audit/history-link';
+import { PlanExports } from '@/components/reports/plan-exports';
 
 const EDITABLE = new Set(['draft', 'returned']);
 
@@ -255,6 +256,7 @@ function PlanPage({
         frozen={editable || !history ? undefined : latestRevision === null ? null : frozen.data?.snapshot.coverage}
       />
 
+      <PlanExports planId={plan.id} revision={editable ? null : latestRevision} />
       <DocumentsPanel
         owner={{ ownerType: 'plan', ownerId: plan.id }}
         canEdit={isPlanner && editable}

@@ -311,7 +311,7 @@ describe('sectors in the GeoJSON', () => {
       checkPolygon(sector.geometry.coordinates);
       const post = features.find((f) => f.properties.kind === 'post' && f.properties.postId === sector.properties.postId)!;
       const [lon0, lat0] = post.geometry.coordinates as unknown as [number, number];
-      const { fromDeg, toDeg, radiusM } = sector.properties;
+      const { fromDeg, toDeg, radiusM } = sector.properties as unknown as { fromDeg: number; toDeg: number; radiusM: number };
       const span = (toDeg - fromDeg + 360) % 360;
       for (const [lon, lat] of sector.geometry.coordinates[0]!) {
         // Source: Karney (2013), inverse problem (geographiclib): azimuth and distance from the post.

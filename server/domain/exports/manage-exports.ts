@@ -21,7 +21,8 @@ import { getPlan, planRevision } from '../plans/manage-plans';
 import { verifiedRevision } from '../plans/verify-revision';
 import { blindAreaPolygon } from './blind-area-polygons';
 import { exportFileName } from './export-file-name';
-import { layerAsciiGrid, layerGeoTiff, LAYER_LEGENDS } from './layer-files';
+import { LAYER_LEGENDS } from '@/shared/terrain/class-layer-legends';
+import { layerAsciiGrid, layerGeoTiff } from './layer-files';
 import { planFeatureCollection, type BlindAreaOutline } from './plan-features';
 import { resultsCsv } from './results-csv';
 
