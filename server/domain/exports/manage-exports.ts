@@ -19,7 +19,7 @@ import type { CoverageRunInputs } from '../coverage/coverage-inputs';
 import { coverageLayer } from '../coverage/manage-coverage';
 import { getPlan, planRevision } from '../plans/manage-plans';
 import { verifiedRevision } from '../plans/verify-revision';
-import { blindAreaPolygon } from './blind-area-polygons';
+import { blindAreaPolygons } from './blind-area-polygons';
 import { exportFileName } from './export-file-name';
 import { LAYER_LEGENDS } from '@/shared/terrain/class-layer-legends';
 import { layerAsciiGrid, layerGeoTiff } from './layer-files';
@@ -132,9 +132,8 @@ async function blindAreaOutlines(
     return seaMask;
   };
   const outlines: BlindAreaOutline[] = [];
-  // One mask and one scratch buffer for every case: fresh memory is slow to touch on these machines.
+  // One mask for every case: fresh memory is slow to touch on these machines.
   const mask = new Uint8Array(grid.width * grid.height);
-  const scratch = new Uint8Array(grid.width * grid.height);
   for (const c of cases) {
     const key = `posts-per-cell:${c.key}`;
     const encoded = await coverageRepository.layer(coverage.runId, c.key, 'posts-per-cell', '');
@@ -146,10 +145,13 @@ async function blindAreaOutlines(
       mask[i] = codes[i] === COVERAGE_LAYER.unseen && (siteMask === null || siteMask[i] === 1) && (sea === null || sea[i] === 1) ? 1 : 0;
     }
     const yTop = grid.yll + grid.height * grid.cellSize;
-    c.blindAreas.forEach((area, i) => {
+    const seeds = c.blindAreas.map((area) => {
       const point = area.interior ?? area.centroid;
-      const seed = { col: Math.floor((point.x - grid.xll) / grid.cellSize), row: Math.floor((yTop - point.y) / grid.cellSize) };
-      const outline = blindAreaPolygon(grid, mask, seed, (x, y) => projection.toLatLon(x, y), scratch);
+      return { col: Math.floor((point.x - grid.xll) / grid.cellSize), row: Math.floor((yTop - point.y) / grid.cellSize) };
+    });
+    const polygons = blindAreaPolygons(grid, mask, seeds, (x, y) => projection.toLatLon(x, y));
+    c.blindAreas.forEach((area, i) => {
+      const outline = polygons[i];
       if (!outline) return;
       outlines.push({
         caseKey: c.key,

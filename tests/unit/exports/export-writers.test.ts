@@ -1,4 +1,4 @@
-import { blindAreaPolygon } from '@/server/domain/exports/blind-area-polygons';
+import { blindAreaPolygons } from '@/server/domain/exports/blind-area-polygons';
 import { exportFileName, namePart } from '@/server/domain/exports/export-file-name';
 import { geodesicSector, rfc7946Ring, signedArea2 } from '@/server/domain/exports/geojson-rings';
 import { csvField } from '@/server/domain/exports/results-csv';
@@ -52,14 +52,15 @@ describe('geodesicSector', () => {
   });
 });
 
-describe('blindAreaPolygon', () => {
+describe('blindAreaPolygons', () => {
   const grid = { width: 5, height: 4, cellSize: 10, xll: 1000, yll: 2000, crs: null };
   const identity = (x: number, y: number) => ({ lonDeg: x, latDeg: y });
 
   it('outlines one 8-connected patch through the edge middles, around every blind cell centre', () => {
     // Row 0 is north. The patch: (1,1), (2,1) and, touching at a corner, (3,2); (0,3) is another patch.
     const mask = new Uint8Array([0, 0, 0, 0, 0, 0, 1, 1, 0, 0, 0, 0, 0, 1, 0, 1, 0, 0, 0, 0]);
-    const out = blindAreaPolygon(grid, mask, { col: 1, row: 1 }, identity)!;
+    const [out, repeat, seen] = blindAreaPolygons(grid, mask, [{ col: 1, row: 1 }, { col: 3, row: 2 }, { col: 0, row: 0 }], identity);
+    if (!out) throw new Error('no outline');
     expect(out.cells).toBe(3);
     // The marching-squares outline of two cells side by side: through the middles of their outer edges.
     // Cell (1,1) spans x 1010–1020, y 2020–2030 (the grid's top is y 2040). Source: d3-contour (marching squares).
@@ -86,8 +87,13 @@ describe('blindAreaPolygon', () => {
     // The other patch and seen cells stay outside.
     expect(inside(1005, 2005)).toBe(false);
     expect(inside(1045, 2035)).toBe(false);
-    // A seed on a seen cell: no polygon.
-    expect(blindAreaPolygon(grid, mask, { col: 0, row: 0 }, identity)).toBeNull();
+    // A second seed in the same patch, and a seed on a seen cell: no outline of their own.
+    expect(repeat).toBeNull();
+    expect(seen).toBeNull();
+    // The other patch, seeded on its own, is its own outline (at the grid's edge: closed along it).
+    const [other] = blindAreaPolygons(grid, mask, [{ col: 0, row: 3 }], identity);
+    expect(other!.cells).toBe(1);
+    expect(other!.coordinates).toHaveLength(1);
   });
 });
 
