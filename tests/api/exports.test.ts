@@ -542,6 +542,31 @@ describe('GET /revisions/by-hash/:sha256 (verify a printout)', () => {
     expect(notHex.body.error.fields.sha256).toMatch(/0–9/);
   });
 
+  it('refuses a frozen coverage layer whose bytes no longer match the hash its revision recorded', async () => {
+    // The test plan's first version froze its run; one of its layers is changed behind the app's back.
+    const { plan } = await frozenTestPlan();
+    const coverage = (await planner.get(`/api/v1/plans/${plan.id}/revisions/1`).expect(200)).body.revision.snapshot.coverage;
+    const caseKey = coverage.cases[0].key as string;
+    await db.query(
+      `UPDATE coverage_layers SET encoded = jsonb_set(encoded, '{data}', to_jsonb('AQ' || (encoded->>'data')))
+        WHERE run_id = :runId AND case_key = :caseKey AND layer = 'cross-bearing'`,
+      { replacements: { runId: coverage.runId, caseKey } },
+    );
+    const spy = jest.spyOn(console, 'error').mockImplementation(() => undefined);
+    try {
+      const res = await planner.get(`/api/v1/coverage-runs/${coverage.runId}/layers/cross-bearing.tif?caseKey=${encodeURIComponent(caseKey)}`);
+      expect(res.status).toBe(500);
+      expect(res.body.error.code).toBe('layer_tampered');
+      expect(spy).toHaveBeenCalledWith(expect.stringContaining('INTEGRITY:'));
+    } finally {
+      spy.mockRestore();
+    }
+    // The untouched layer of the same case still exports.
+    await planner
+      .get(`/api/v1/coverage-runs/${coverage.runId}/layers/posts-per-cell.asc?caseKey=${encodeURIComponent(caseKey)}`)
+      .expect(200);
+  });
+
   it('refuses a revision whose content was changed behind the database’s guards', async () => {
     // The demo's approved revision, with its frozen trigger lifted for a moment by the owner role.
     await db.query('ALTER TABLE plan_revisions DISABLE TRIGGER plan_revisions_frozen');
