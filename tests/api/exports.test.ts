@@ -4,6 +4,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
 import { Geodesic } from 'geographiclib-geodesic';
+import proj4 from 'proj4';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '@/server/app';
@@ -288,6 +289,28 @@ describe('GET /plans/:planId/revisions/:n/features.geojson', () => {
       });
     }
     expect(checked).toBeGreaterThan(0);
+
+    // The outlines follow the terrain grid: taken back into the grid's CRS by proj4 (an outside reference for
+    // WGS 84 / UTM zone 33N), every vertex lies on an edge middle between two cells — one grid coordinate whole,
+    // the other a half — within the 6-decimal rounding (≈ 0.1 m of 25 m cells).
+    // Source: proj4 (npm), the transverse Mercator of Snyder, USGS PP 1395; d3-contour without smoothing.
+    const grid = snapshot.coverage!.grid;
+    const toGrid = proj4('EPSG:4326', `+proj=utm +zone=${grid.epsg! - 32600} +datum=WGS84 +units=m +no_defs`);
+    const yTop = grid.yllM + grid.height * grid.cellSizeM;
+    const offLattice: string[] = [];
+    const blind = collection.features.filter((x: { properties: { kind: string } }) => x.properties.kind === 'blind-area');
+    for (const f of blind.slice(0, 6)) {
+      for (const polygon of f.geometry.coordinates as number[][][][]) {
+        for (const [lon, lat] of polygon[0]!.slice(0, 40)) {
+          const [x, y] = toGrid.forward([lon!, lat!]);
+          const u = (x! - grid.xllM) / grid.cellSizeM;
+          const v = (yTop - y!) / grid.cellSizeM;
+          const near = (a: number) => Math.abs(a - Math.round(a)) < 0.01;
+          if (!((near(u) && near(v - 0.5)) || (near(u - 0.5) && near(v)))) offLattice.push(`${u.toFixed(3)},${v.toFixed(3)}`);
+        }
+      }
+    }
+    expect(offLattice).toEqual([]);
 
     // GDAL's GeoJSON driver reads it: every feature, in one layer.
     const file = path.join(tmp, 'features.geojson');
