@@ -31,7 +31,12 @@ const nodeProject = (name, extra = {}) => ({
   roots: ['<rootDir>/tests/' + name],
   testMatch: ['**/*.test.ts'],
   transform: { '^.+\\.tsx?$': tsJest },
-  moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1', '^quick-lru$': '<rootDir>/tests/support/quick-lru-stub.js' },
+  moduleNameMapper: {
+    '^@/(.*)$': '<rootDir>/$1',
+    '^quick-lru$': '<rootDir>/tests/support/quick-lru-stub.js',
+    // d3-contour and d3-array are ES modules only in their package entry; Jest's CommonJS runtime takes their UMD builds.
+    '^d3-(contour|array)$': '<rootDir>/node_modules/d3-$1/dist/d3-$1.js',
+  },
   cacheDirectory,
   ...extra,
 });

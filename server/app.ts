@@ -20,6 +20,7 @@ import { attachmentRoutes } from './routes/attachments';
 import { auditRoutes } from './routes/audit';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { coverageRoutes } from './routes/coverage';
+import { exportRoutes } from './routes/exports';
 import { fixRoutes } from './routes/fixes';
 import type { CoverageQueue } from './queue/coverage-queue';
 import { authRoutes } from './routes/auth';
@@ -125,6 +126,7 @@ export function createApp({
   api.use(authRoutes(db, limiter));
 
   const v1 = express.Router();
+  const cache = terrainCache ?? createTerrainCache({ files, maxBytes: config.TERRAIN_CACHE_MB * 2 ** 20 });
   v1.use(sightlineRoutes());
   v1.use(siteRoutes(db));
   v1.use(
@@ -133,7 +135,7 @@ export function createApp({
         db,
         files,
         ingest: terrainIngest ?? createTerrainIngestRunner(),
-        cache: terrainCache ?? createTerrainCache({ files, maxBytes: config.TERRAIN_CACHE_MB * 2 ** 20 }),
+        cache,
         maxCells: config.TERRAIN_MAX_CELLS,
         hillshadeMaxEdge: DEFAULT_HILLSHADE_MAX_EDGE,
       },
@@ -144,6 +146,7 @@ export function createApp({
   v1.use(sweepWidthRoutes(db));
   v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
+  v1.use(exportRoutes({ terrainCache: cache }));
   v1.use(reportRoutes(db, files));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(rosterRoutes(db));

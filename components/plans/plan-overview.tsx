@@ -34,6 +34,7 @@ import { PlanStatusBadge } from './plan-status';
 import { when } from './when';
 import { HistoryLink } from '@/components/audit/history-link';
 import { PlanPackageLink } from '@/components/reports/plan-package-link';
+import { PlanExports } from '@/components/reports/plan-exports';
 
 /** A plan's page: status, what to do next, and its results (frozen once submitted). */
 export function PlanOverview({ planId }: { planId: string }) {
@@ -256,6 +257,7 @@ function PlanPage({
         frozen={editable || !history ? undefined : latestRevision === null ? null : frozen.data?.snapshot.coverage}
       />
 
+      <PlanExports planId={plan.id} revision={editable ? null : latestRevision} />
       <DocumentsPanel
         owner={{ ownerType: 'plan', ownerId: plan.id }}
         canEdit={isPlanner && editable}

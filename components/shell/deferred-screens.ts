@@ -22,6 +22,7 @@ export { PlanOverview } from '@/components/plans/plan-overview';
 export { PlansScreen } from '@/components/plans/plans-screen';
 export { ReviewPanel } from '@/components/plans/review-panel';
 export { ReviewQueue } from '@/components/plans/review-queue';
+export { VerifyPrintoutScreen } from '@/components/reports/verify-printout-screen';
 export { SearchEffortScreen } from '@/components/search-effort/search-effort-screen';
 export { NewSiteScreen } from '@/components/sites/new-site-screen';
 export { PostEditor } from '@/components/sites/post-editor';

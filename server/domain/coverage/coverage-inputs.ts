@@ -98,7 +98,8 @@ export const caseKeyOf = (targetId: string, conditionSetId: string, conditionInd
 /** sha256 of the canonical JSON of the inputs, hex. */
 export const coverageInputsHash = (inputs: CoverageRunInputs) => createHash('sha256').update(canonicalJson(inputs)).digest('hex');
 
-const conditionLabel = (condition: RefractionCondition, k: number): string => {
+/** A condition for people: its preset's name, else its k. */
+export const conditionLabel = (condition: RefractionCondition, k: number): string => {
   if ('preset' in condition) {
     const preset = REFRACTION_PRESETS.find((p) => p.id === condition.preset);
     if (preset) return preset.label;
