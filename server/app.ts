@@ -19,6 +19,7 @@ import { auditRoutes } from './routes/audit';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { coverageRoutes } from './routes/coverage';
 import { fixRoutes } from './routes/fixes';
+import { incidentRoutes } from './routes/incidents';
 import type { CoverageQueue } from './queue/coverage-queue';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
@@ -138,6 +139,7 @@ export function createApp({
   v1.use(sweepWidthRoutes(db));
   v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
+  v1.use(incidentRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(rosterRoutes(db));
   v1.use(attachmentRoutes(db, files, uploadTempDir));

@@ -13,7 +13,13 @@ export const APPLICATION_ROLE = 'kenning_application';
 export const APPLICATION_LOGIN = 'kenning_app';
 
 /** Tables the application may read and add to but never change or delete from. */
-export const APPEND_ONLY_TABLES = ['audit_events', 'plan_revisions', 'plan_reviews', 'coverage_layers'] as const;
+export const APPEND_ONLY_TABLES = [
+  'audit_events',
+  'plan_revisions',
+  'plan_reviews',
+  'coverage_layers',
+  'incident_entries',
+] as const;
 
 /** Tables the application only reads. */
 const READ_ONLY_TABLES = ['spatial_ref_sys'] as const;
