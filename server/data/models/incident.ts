@@ -8,14 +8,13 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { IncidentEntryKind, IncidentStatus } from '@/shared/schemas/incident';
-import type { OrganizationModel } from './organization';
 import type { SiteModel } from './site';
 import type { UserModel } from './user';
 
 /** An incident on a site: its title and status for lists, and the head of its log's hash chain. */
 export class IncidentModel extends Model<InferAttributes<IncidentModel>, InferCreationAttributes<IncidentModel>> {
   declare id: CreationOptional<string>;
-  declare organizationId: ForeignKey<OrganizationModel['id']>;
+  declare organizationId: string;
   declare siteId: ForeignKey<SiteModel['id']>;
   declare title: string;
   declare status: CreationOptional<IncidentStatus>;
@@ -32,6 +31,7 @@ export class IncidentModel extends Model<InferAttributes<IncidentModel>, InferCr
     IncidentModel.init(
       {
         id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        organizationId: { type: DataTypes.UUID, allowNull: false },
         title: { type: DataTypes.STRING(200), allowNull: false },
         status: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'open' },
         openedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
@@ -53,7 +53,7 @@ export class IncidentEntryModel extends Model<
   InferCreationAttributes<IncidentEntryModel>
 > {
   declare id: CreationOptional<string>;
-  declare organizationId: ForeignKey<OrganizationModel['id']>;
+  declare organizationId: string;
   declare incidentId: ForeignKey<IncidentModel['id']>;
   declare seq: number;
   declare kind: IncidentEntryKind;
@@ -68,6 +68,7 @@ export class IncidentEntryModel extends Model<
     IncidentEntryModel.init(
       {
         id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+        organizationId: { type: DataTypes.UUID, allowNull: false },
         seq: { type: DataTypes.INTEGER, allowNull: false },
         kind: { type: DataTypes.STRING(20), allowNull: false },
         recordedAt: { type: DataTypes.DATE, allowNull: false },
