@@ -22,6 +22,7 @@ import { caughtMailRoutes } from './routes/caught-mail';
 import { coverageRoutes } from './routes/coverage';
 import { exportRoutes } from './routes/exports';
 import { fixRoutes } from './routes/fixes';
+import { incidentRoutes } from './routes/incidents';
 import type { CoverageQueue } from './queue/coverage-queue';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
@@ -148,6 +149,7 @@ export function createApp({
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(exportRoutes({ terrainCache: cache }));
   v1.use(reportRoutes(db, files));
+  v1.use(incidentRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(rosterRoutes(db));
   v1.use(attachmentRoutes(db, files, uploadTempDir));

@@ -13,7 +13,13 @@ export const APPLICATION_ROLE = 'kenning_application';
 export const APPLICATION_LOGIN = 'kenning_app';
 
 /** Tables the application may read and add to but never change or delete from. */
-export const APPEND_ONLY_TABLES = ['audit_events', 'plan_revisions', 'plan_reviews', 'coverage_layers'] as const;
+export const APPEND_ONLY_TABLES = [
+  'audit_events',
+  'plan_revisions',
+  'plan_reviews',
+  'coverage_layers',
+  'incident_entries',
+] as const;
 
 /** Tables the application only reads. */
 const READ_ONLY_TABLES = ['spatial_ref_sys'] as const;
@@ -44,7 +50,14 @@ export async function applyApplicationGrants(db: Sequelize): Promise<void> {
   await q(`GRANT USAGE, SELECT, UPDATE ON ALL SEQUENCES IN SCHEMA public TO ${role}`);
   await q(`REVOKE TRUNCATE, REFERENCES, TRIGGER ON ALL TABLES IN SCHEMA public FROM ${role}`);
   await q(`REVOKE ALL ON TABLE schema_migrations FROM ${role}`);
-  for (const table of APPEND_ONLY_TABLES) await q(`REVOKE UPDATE, DELETE ON TABLE ${table} FROM ${role}`);
+  // A migration older than a table runs this too (0017 before 0019's incident log): revoke on what exists.
+  for (const table of APPEND_ONLY_TABLES) {
+    await q(`DO $$ BEGIN
+      IF to_regclass('public.${table}') IS NOT NULL THEN
+        REVOKE UPDATE, DELETE ON TABLE public.${table} FROM ${role};
+      END IF;
+    END $$`);
+  }
   for (const table of READ_ONLY_TABLES) {
     await q(`DO $$ BEGIN
       IF to_regclass('public.${table}') IS NOT NULL THEN

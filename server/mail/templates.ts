@@ -240,3 +240,48 @@ export function reviewDecided(input: ReviewDecidedInput): MailContent {
     { kind: 'link', label: 'Open the plan', url },
   ]);
 }
+
+export interface FixReportedInput {
+  incidentTitle: string;
+  siteName: string;
+  /** The fix's position in words, e.g. `51.70123° N 15.30456° E (WGS 84) · MGRS 33U WT 12345 67890`. */
+  position: string;
+  /** The error area in words, e.g. `0.42 km² (error quadrilateral, ±1σ)`. */
+  errorArea: string;
+  /** Posts and their bearings, one line each. */
+  bearings: string[];
+  /** The fix's warnings (narrow cut angle, a bearing that disagrees …). */
+  warnings: string[];
+  /** Where the incident opens (absolute http(s) URL). */
+  incidentUrl: string;
+}
+
+/**
+ * Tells the duty planners that an incident has a new fix, with its position
+ * and error area.
+ *
+ * @example
+ * fixReported({ incidentTitle: 'Smoke north of Hobb Ridge', siteName: 'Wenlow Forest District',
+ *   position: '51.70000° N 15.30000° E (WGS 84)', errorArea: '0.42 km²', bearings: [], warnings: [],
+ *   incidentUrl: 'https://kenning.example/incidents/1' }).subject
+ * // 'New fix: Smoke north of Hobb Ridge (Wenlow Forest District)'
+ */
+export function fixReported(input: FixReportedInput): MailContent {
+  const title = oneLine(input.incidentTitle);
+  const site = oneLine(input.siteName);
+  const url = checkedUrl(input.incidentUrl, 'incidentUrl');
+  return compose(`New fix: ${title} (${site})`, [
+    paragraph(`Bearings from ${input.bearings.length} posts now cross for “${title}”.`),
+    {
+      kind: 'facts',
+      rows: [
+        ['Position', oneLine(input.position)],
+        ['Error area', oneLine(input.errorArea)],
+        ...input.bearings.map((b, i): [string, string] => [`Bearing ${i + 1}`, oneLine(b)]),
+      ],
+    },
+    ...input.warnings.map((w) => paragraph(`Note: ${oneLine(w)}`)),
+    paragraph(ESTIMATES_NOTE),
+    { kind: 'link', label: 'Open the incident', url },
+  ]);
+}

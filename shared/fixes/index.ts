@@ -17,3 +17,5 @@ export { geodesicRing, type GeodesicRing } from './ring-area';
 export { leastSquaresFix, DISAGREEMENT_SIGMAS, type LeastSquaresFix } from './least-squares-fix';
 export { trueBearingDeg } from './true-bearing';
 export { evaluateFix, FIX_CAUTIONS, GOOD_CUT_ANGLE_DEG, type ResolvedFixBearing } from './evaluate-fix';
+export { modelDeclination, MAGNETIC_MODEL, type ModelDeclination } from './declination';
+export { BEARING_INSTRUMENTS, type BearingInstrument } from './instruments';

@@ -41,7 +41,10 @@ export const FixBearingSchema = z
     /** The bearing as read, degrees clockwise from north (true or magnetic, see `bearingReference`), 0…360. */
     bearingDeg: degrees('The bearing', 0, 360),
     bearingReference: z.enum(BEARING_REFERENCES, { error: 'The bearing reference is true or magnetic.' }),
-    /** Magnetic declination at the post and date, degrees, east positive (true = magnetic + declination). */
+    /**
+     * Magnetic declination at the post and date, degrees, east positive (true = magnetic + declination);
+     * left out for a magnetic bearing, the World Magnetic Model's at the place and time is used.
+     */
     declinationDeg: degrees('The declination', -90, 90).optional(),
     /** Standard uncertainty of the bearing, degrees (a tripod-mounted sight about 0.5°, a hand compass 1–2°). */
     bearingSigmaDeg: z
@@ -61,13 +64,6 @@ export const FixBearingSchema = z
     }
     if (b.postId !== undefined && b.observer !== undefined) {
       ctx.addIssue({ code: 'custom', path: ['observer'], message: 'Give either a post or an observer’s position, not both.' });
-    }
-    if (b.bearingReference === 'magnetic' && b.declinationDeg === undefined) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['declinationDeg'],
-        message: 'A magnetic bearing needs the declination at the post and date (east positive).',
-      });
     }
   });
 export type FixBearing = z.infer<typeof FixBearingSchema>;
@@ -128,6 +124,8 @@ export const FixReportSchema = z.object({
   bearingReference: z.enum(BEARING_REFERENCES),
   /** Declination used, degrees east positive (0 for a true bearing). */
   declinationDeg: z.number(),
+  /** Where it came from: typed with the bearing, the World Magnetic Model, or none needed (a true bearing). */
+  declinationSource: z.enum(['typed', 'model', 'none']).optional(),
   /** The bearing from true north, degrees 0…360. */
   trueBearingDeg: z.number(),
   bearingSigmaDeg: z.number(),

@@ -1,5 +1,6 @@
 import type { Express } from 'express';
 import { Geodesic } from 'geographiclib-geodesic';
+import { magvar } from 'magvar';
 import request from 'supertest';
 import { PostModel } from '@/server/data/models';
 import type { LatLon } from '@/shared/geo/types';
@@ -111,6 +112,32 @@ describe('POST /api/v1/fixes', () => {
     expect(body.fix.warnings.join(' ')).toMatch(/Vertical angles/);
   });
 
+  it('takes a magnetic bearing without a declination with the World Magnetic Model’s at the post and time', async () => {
+    const observer = await signedInAgent(app, DEMO.observer);
+    const at = posts['Blackmoss Tower']!.at;
+    // Source: the `magvar` package (World Magnetic Model 2025, NOAA NCEI / BGS coefficients) as the reference.
+    const declinationDeg = magvar(at.latDeg, at.lonDeg, 0, new Date(observedAt));
+    const res = await observer
+      .post('/api/v1/fixes')
+      .send({
+        observedAt,
+        bearings: [
+          towerBearing('Crane Knoll Tower'),
+          towerBearing('Blackmoss Tower', {
+            bearingReference: 'magnetic',
+            bearingDeg: (azimuthDeg(at, smoke()) - declinationDeg + 360) % 360,
+          }),
+        ],
+      })
+      .expect(200);
+    const body = FixResultSchema.parse(res.body);
+    expect(body.reports[1]).toMatchObject({ declinationSource: 'model' });
+    expect(body.reports[1]!.declinationDeg).toBeCloseTo(declinationDeg, 2);
+    expect(body.reports[0]).toMatchObject({ declinationSource: 'none', declinationDeg: 0 });
+    // The model's declination is rounded to 0.01°: 6 km × 0.01° ≈ 1 m.
+    expect(distanceM(body.fix, smoke())).toBeLessThan(5);
+  });
+
   it('answers bad fields with the field at fault and the error shape', async () => {
     const observer = await signedInAgent(app, DEMO.observer);
     const res = await observer.post('/api/v1/fixes').send({
@@ -123,13 +150,11 @@ describe('POST /api/v1/fixes', () => {
     expect(res.status).toBe(400);
     expect(res.body.error).toMatchObject({ code: 'invalid_input', message: expect.any(String) });
     expect(Object.keys(res.body.error.fields).sort()).toEqual([
-      'bearings.0.declinationDeg',
       'bearings.1.bearingDeg',
       'bearings.1.bearingSigmaDeg',
       'bearings.1.postId',
       'observedAt',
     ]);
-    expect(res.body.error.fields['bearings.0.declinationDeg']).toMatch(/declination/);
 
     const one = await observer.post('/api/v1/fixes').send({ observedAt, bearings: [towerBearing('Crane Knoll Tower')] });
     expect(one.status).toBe(400);

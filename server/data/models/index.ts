@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { AssignmentModel } from './assignment';
 import { AttachmentModel } from './attachment';
 import { AuditEventModel } from './audit-event';
+import { IncidentEntryModel, IncidentModel } from './incident';
 import { ConditionSetModel, TargetProfileModel } from './library';
 import { OrganizationModel } from './organization';
 import { PlanModel, PlanReviewModel, PlanRevisionModel } from './plan';
@@ -19,6 +20,8 @@ export {
   AttachmentModel,
   AuditEventModel,
   ConditionSetModel,
+  IncidentEntryModel,
+  IncidentModel,
   PlanModel,
   PlanReviewModel,
   PlanRevisionModel,
@@ -51,6 +54,8 @@ export function initModels(sequelize: Sequelize): void {
   CoverageRunModel.register(sequelize);
   CoverageLayerModel.register(sequelize);
   SweepWidthTableModel.register(sequelize);
+  IncidentModel.register(sequelize);
+  IncidentEntryModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
@@ -72,4 +77,10 @@ export function initModels(sequelize: Sequelize): void {
   AttachmentModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
   UserModel.hasMany(AttachmentModel, { foreignKey: 'uploadedById', as: 'uploads' });
   AttachmentModel.belongsTo(UserModel, { foreignKey: 'uploadedById', as: 'uploadedBy' });
+  SiteModel.hasMany(IncidentModel, { foreignKey: 'siteId', as: 'incidents' });
+  IncidentModel.belongsTo(SiteModel, { foreignKey: 'siteId', as: 'site' });
+  IncidentModel.belongsTo(UserModel, { foreignKey: 'openedById', as: 'openedBy' });
+  IncidentModel.hasMany(IncidentEntryModel, { foreignKey: 'incidentId', as: 'entries' });
+  IncidentEntryModel.belongsTo(IncidentModel, { foreignKey: 'incidentId', as: 'incident' });
+  IncidentEntryModel.belongsTo(UserModel, { foreignKey: 'actorId', as: 'actor' });
 }

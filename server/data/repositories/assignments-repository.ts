@@ -84,6 +84,16 @@ export const assignmentsRepository = {
     return rows.map((r) => toAssignment(r as Loaded));
   },
 
+  /** Whether the person is on a watch at any post of the site at that instant (an observer on duty). */
+  async onWatchInSite(organizationId: string, userId: string, siteId: string, at: Date, transaction?: Transaction) {
+    const count = await AssignmentModel.count({
+      where: { organizationId, userId, '$post.site_id$': siteId, startsAt: { [Op.lte]: at }, ...overlapping(at, null) },
+      include: [{ model: PostModel, as: 'post', attributes: [] }],
+      transaction,
+    });
+    return count > 0;
+  },
+
   async find(organizationId: string, id: string, transaction?: Transaction): Promise<Assignment | null> {
     const row = await AssignmentModel.findOne({ where: { id, organizationId }, include, transaction });
     return row ? toAssignment(row as Loaded) : null;

@@ -1,13 +1,20 @@
-import { evaluateFix, FixError, type ResolvedFixBearing } from '@/shared/fixes';
+import { evaluateFix, FixError, modelDeclination, type ResolvedFixBearing } from '@/shared/fixes';
 import type { FixRequest, FixResult } from '@/shared/schemas/fix';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import type { Actor } from '@/server/domain/actor';
 import { AppError } from '@/server/domain/app-error';
 
+/** Where a bearing's declination comes from: typed with it, the magnetic model, or not needed. */
+export function declinationSourceOf(b: { bearingReference: 'true' | 'magnetic'; declinationDeg?: number }) {
+  if (b.bearingReference === 'true') return 'none' as const;
+  return b.declinationDeg === undefined ? ('model' as const) : ('typed' as const);
+}
+
 /**
  * A fix from bearings, stored nowhere: each `postId` is looked up in the
  * caller's organisation (its location and eye height), typed observers are
- * taken as given, and the pure core does the rest.
+ * taken as given, a magnetic bearing without a declination gets the World
+ * Magnetic Model's at its place and time, and the pure core does the rest.
  *
  * @throws {AppError} 404 `not_found` with `bearings.N.postId` for a post that is not the organisation's;
  *   422 `fix_input` with the bearings at fault when the core cannot fix them (parallel, diverging, …)
@@ -36,8 +43,16 @@ export async function computeFix(actor: Actor, request: FixRequest): Promise<Fix
       });
     }
   }
+  const when = new Date(request.observedAt);
+  const sources = resolved.map((b) => declinationSourceOf(b));
+  const withDeclination = resolved.map((b, i) =>
+    sources[i] === 'model'
+      ? { ...b, declinationDeg: modelDeclination(b.from.latDeg, b.from.lonDeg, when).declinationDeg }
+      : b,
+  );
   try {
-    return evaluateFix(request.observedAt, resolved);
+    const result = evaluateFix(request.observedAt, withDeclination);
+    return { ...result, reports: result.reports.map((r, i) => ({ ...r, declinationSource: sources[i] })) };
   } catch (error) {
     if (!(error instanceof FixError)) throw error;
     const indexes = error.bearingIndexes.length > 0 ? error.bearingIndexes : [];
