@@ -44,10 +44,13 @@ export function SiteSketch({ site, posts }: { site: Site; posts: Post[] }) {
   const kmPerPx = 111.195 / scale;
   const barKm = [1, 2, 5, 10, 20, 50].find((k) => k / kmPerPx > 60) ?? 50;
   // Metric keeps the sketch's own kilometre bar; feet, miles and nautical miles come from the map's scale bar.
+  // Before the first layout (width 0) nothing is drawn, and there is no scale to show.
   const bar =
-    system === 'metric'
-      ? { px: barKm / kmPerPx, label: `${barKm} km` }
-      : scaleBar(kmPerPx * 1000, Math.max(width / 3, 60), system);
+    scale <= 0
+      ? null
+      : system === 'metric'
+        ? { px: barKm / kmPerPx, label: `${barKm} km` }
+        : scaleBar(kmPerPx * 1000, Math.max(width / 3, 60), system);
 
   const wedge = (p: Post) => {
     if (!p.sector) return null;
@@ -63,7 +66,7 @@ export function SiteSketch({ site, posts }: { site: Site; posts: Post[] }) {
 
   return (
     <View onLayout={onLayout} style={{ gap: space.xs }}>
-      {width > 0 ? (
+      {bar ? (
         <Svg width={width} height={height} role="img" aria-label={`Sketch of ${site.name}`}>
           <Path d={`M0,0 H${width} V${height} H0 Z`} fill="#EEF2F3" />
           {site.boundary ? <Polygon points={poly(site.boundary)} fill="#E1ECE4" stroke={colors.moss} strokeWidth={2} /> : null}

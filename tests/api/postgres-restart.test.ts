@@ -82,6 +82,9 @@ it('answers 503 with Retry-After while PostgreSQL is stopped under load, logs th
 
     await pg.start();
     expect(await waitFor(async () => (await live.call('GET', '/api/health')).status === 200, 20)).toBe(true);
+    // The outage's end is logged by the recovery probe (once a second), which may come a moment after health answers.
+    const recoveryLogged = () => warnings.mock.calls.some((c) => /reachable again/.test(String(c[0])));
+    expect(await waitFor(async () => recoveryLogged(), 10)).toBe(true);
     await new Promise((r) => setTimeout(r, 500));
   } finally {
     loading = false;
