@@ -4,12 +4,16 @@ import { compassPoint } from '@/shared/geo/compass-point';
 import { geodesicInverse } from '@/shared/geo/geodesic-inverse';
 import type { LatLon } from '@/shared/geo/types';
 import type { Post } from '@/shared/schemas/site';
+import { convertLength } from '@/shared/units/length';
 import { ApiRequestError } from '@/components/data/api-client';
 import { useMovePost } from '@/components/data/placement';
+import { useLengthUnits } from '@/components/data/session';
+import { useSite } from '@/components/data/sites';
 import { useTerrainElevation } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { space } from '@/components/ui/theme';
+import { formatLength } from '@/components/check/format';
 import { formatPosition } from './map-chrome';
 
 /** A post dropped somewhere new on the map, waiting for the planner's yes. */
@@ -17,8 +21,6 @@ export interface PendingMove {
   readonly post: Post;
   readonly to: LatLon;
 }
-
-const metres = (m: number) => `${m.toFixed(1)} m`;
 
 /**
  * Asks before a dragged post is saved at its new place: where from and to,
@@ -42,6 +44,9 @@ export function PostMoveDialog({
 }) {
   const lookup = useTerrainElevation(siteId);
   const move = useMovePost(siteId);
+  // Heights to a tenth of a metre, in the person's (or the site's) units.
+  const units = useLengthUnits(useSite(siteId).data?.defaultUnits);
+  const metres = (m: number) => `${convertLength(m, 'm', units.height).toFixed(1)} ${units.height}`;
   const [ground, setGround] = useState<{ to: LatLon; elevationM: number | null; error: string } | null>(null);
   const { mutate: look, reset: resetLookup } = lookup;
   const { reset: resetMove } = move;
@@ -92,7 +97,7 @@ export function PostMoveDialog({
     <ConfirmDialog
       visible
       title={`Move ${post.name} here?`}
-      consequence={`${leg.distanceM < 1000 ? `${Math.round(leg.distanceM)} m` : `${(leg.distanceM / 1000).toFixed(2)} km`} ${compassPoint(leg.azimuthDeg)} of where it is now. Plans that use this post will need their coverage computed again.`}
+      consequence={`${leg.distanceM < 1000 ? formatLength(Math.round(leg.distanceM), units.height) : formatLength(leg.distanceM, units.distance)} ${compassPoint(leg.azimuthDeg)} of where it is now. Plans that use this post will need their coverage computed again.`}
       confirmLabel="Move post"
       busy={move.isPending}
       error={move.error?.message}

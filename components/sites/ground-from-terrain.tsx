@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { View } from 'react-native';
 import type { LatLon } from '@/shared/geo/types';
+import { convertLength, type LengthUnit } from '@/shared/units/length';
 import { useSiteTerrain, useTerrainElevation } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -13,10 +14,13 @@ import { space } from '@/components/ui/theme';
 export function GroundFromTerrain({
   siteId,
   location,
+  unit = 'm',
   onElevation,
 }: {
   siteId: string;
   location: LatLon | null;
+  /** The unit the form shows heights in (the message follows it). */
+  unit?: LengthUnit;
   onElevation: (metres: number) => void;
 }) {
   const terrain = useSiteTerrain(siteId);
@@ -33,7 +37,7 @@ export function GroundFromTerrain({
       onSuccess: (r) => {
         const metres = Math.round(r.elevationM * 10) / 10;
         onElevation(metres);
-        setMessage(`Ground from the terrain: ${metres.toFixed(1)} m.`);
+        setMessage(`Ground from the terrain: ${convertLength(metres, 'm', unit).toFixed(1)} ${unit}.`);
       },
       onError: (e) => setMessage(e.message),
     });

@@ -229,6 +229,7 @@ export function PostForm({
           <GroundFromTerrain
             siteId={siteId}
             location={parsed}
+            unit={heightUnit}
             onElevation={(m) => setValue('groundElevationM', lengthText(m, heightUnit), { shouldValidate: false })}
           />
         </View>

@@ -178,15 +178,17 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation o
       await terrainPanel.scrollIntoViewIfNeeded();
       await shot(page, 'empty-org-5-terrain', viewport);
 
-      // 6. The first post, typed, its ground from the terrain.
+      // 6. The first post, typed in feet, its ground from the terrain.
       const newPost = page.getByLabel('New post');
       await newPost.scrollIntoViewIfNeeded();
       await newPost.getByLabel('Name').fill(hillName);
+      await newPost.getByRole('radiogroup', { name: 'Units' }).getByRole('radio', { name: 'ft · mi' }).click();
       await newPost.getByRole('radio', { name: 'Hilltop' }).click();
       await newPost.getByLabel('Location').fill(HILL_TOP.text);
       await newPost.getByRole('button', { name: 'From terrain' }).click();
-      await newPost.getByText(/^Ground from the terrain: 28\d\.\d m\.$/).waitFor();
-      await newPost.getByLabel('Structure height').fill('10');
+      // 28x m is 9xx ft (0.3048 m to the foot, NIST SP 811 B.8).
+      await newPost.getByText(/^Ground from the terrain: 9\d\d\.\d ft\.$/).waitFor();
+      await newPost.getByLabel('Structure height').fill('33');
       await shot(page, 'empty-org-6-first-post', viewport);
       await newPost.getByRole('button', { name: 'Save post' }).click();
       const hillLink = page.getByRole('link', { name: hillName });
@@ -202,10 +204,12 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation o
       await shot(page, 'empty-org-7-copy-opened', viewport);
       const edit = page.getByLabel('Edit post');
       await edit.getByLabel('Name').fill(ridgeName);
+      await edit.getByRole('radiogroup', { name: 'Units' }).getByRole('radio', { name: 'ft · mi' }).click();
       await edit.getByLabel('Location').fill(RIDGE.text);
       await edit.getByRole('button', { name: 'From terrain' }).click();
-      await edit.getByText(/^Ground from the terrain: 14\d\.\d m\.$/).waitFor();
-      await edit.getByLabel('Structure height').fill('6');
+      // 14x m is 4xx ft.
+      await edit.getByText(/^Ground from the terrain: 4\d\d\.\d ft\.$/).waitFor();
+      await edit.getByLabel('Structure height').fill('20');
       await shot(page, 'empty-org-7-duplicate', viewport);
       await edit.getByRole('button', { name: 'Save changes' }).click();
       await page.getByRole('heading', { name: ridgeName }).waitFor();
@@ -214,7 +218,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation o
       const ridge = posts.find((p) => p.name === ridgeName)!;
       expect(Math.abs(hill.groundElevationM - HILL_TOP.groundM)).toBeLessThan(0.2);
       expect(Math.abs(ridge.groundElevationM - RIDGE.groundM)).toBeLessThan(0.2);
-      expect([hill.structureHeightM, ridge.structureHeightM]).toEqual([10, 6]);
+      // Typed in feet, stored in metres: 33 ft = 10.0584 m, 20 ft = 6.096 m (Source: NIST SP 811 B.8, 1 ft = 0.3048 m).
+      expect(hill.structureHeightM).toBeCloseTo(10.0584, 4);
+      expect(ridge.structureHeightM).toBeCloseTo(6.096, 4);
 
       // 8. On the map, the ridge post is dragged a little (a finger on the phone, the mouse on the wide screen),
       //    and saved after the question with the ground the terrain gives there.
