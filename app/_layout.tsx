@@ -3,13 +3,17 @@ import { Barlow_500Medium } from '@expo-google-fonts/barlow/500Medium';
 import { Barlow_600SemiBold } from '@expo-google-fonts/barlow/600SemiBold';
 import { Barlow_700Bold } from '@expo-google-fonts/barlow/700Bold';
 import { QueryClientProvider } from '@tanstack/react-query';
+import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
 import { useFonts } from 'expo-font';
 import { Stack } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
-import { useState } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
+import { Platform } from 'react-native';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { createQueryClient } from '@/components/data/query-client';
 import { meQuery, useSession } from '@/components/data/session';
+import { deviceCanKeepCopies, DEVICE_COPY_MAX_AGE_MS, persistOptions } from '@/components/offline/persisted-cache';
+import { registerServiceWorker } from '@/components/offline/register-service-worker';
 import { RootErrorBoundary } from '@/components/shell/root-error-boundary';
 import { SplashView } from '@/components/shell/splash-view';
 import { ErrorState } from '@/components/ui/states';
@@ -19,19 +23,38 @@ export { RootErrorBoundary as ErrorBoundary };
 /** The app's one query client; the session question goes out at once, beside the fonts rather than after them. */
 function createAppQueryClient() {
   const client = createQueryClient();
+  if (deviceCanKeepCopies()) {
+    // What was fetched stays in memory as long as the device keeps its copy, so the copy is not dropped early.
+    const queries = client.getDefaultOptions().queries;
+    client.setDefaultOptions({ queries: { ...queries, gcTime: DEVICE_COPY_MAX_AGE_MS } });
+  }
   void client.prefetchQuery(meQuery());
   return client;
+}
+
+/** On the web the query cache is kept on the device (field mode); elsewhere it lives in memory only. */
+function QueryProvider({ client, children }: { client: ReturnType<typeof createQueryClient>; children: ReactNode }) {
+  const [persist] = useState(() => (deviceCanKeepCopies() ? persistOptions() : null));
+  if (!persist) return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+  return (
+    <PersistQueryClientProvider client={client} persistOptions={persist}>
+      {children}
+    </PersistQueryClientProvider>
+  );
 }
 
 export default function RootLayout() {
   const [queryClient] = useState(createAppQueryClient);
   const [fontsLoaded, fontError] = useFonts({ Barlow_400Regular, Barlow_500Medium, Barlow_600SemiBold, Barlow_700Bold });
+  useEffect(() => {
+    if (Platform.OS === 'web') registerServiceWorker();
+  }, []);
   return (
     <SafeAreaProvider>
-      <QueryClientProvider client={queryClient}>
+      <QueryProvider client={queryClient}>
         <StatusBar style="dark" />
         {fontsLoaded || fontError ? <RootNavigator /> : <SplashView />}
-      </QueryClientProvider>
+      </QueryProvider>
     </SafeAreaProvider>
   );
 }
@@ -40,8 +63,9 @@ export default function RootLayout() {
 function RootNavigator() {
   const session = useSession();
   if (session.isPending) return <SplashView />;
-  if (session.isError) return <ErrorState error={session.error} onRetry={() => void session.refetch()} />;
-  const signedIn = session.data !== null;
+  // A failed refresh keeps the session the device already knows (offline in the field): only no answer at all is an error.
+  if (session.isError && session.data === undefined) return <ErrorState error={session.error} onRetry={() => void session.refetch()} />;
+  const signedIn = session.data != null;
   return (
     <Stack screenOptions={{ headerShown: false, animation: 'none' }}>
       <Stack.Protected guard={signedIn}>

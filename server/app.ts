@@ -172,6 +172,9 @@ export function createApp({
         setHeaders(res, file) {
           if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`)) {
             res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+          } else if (file.endsWith(`${path.sep}sw.js`) || file.endsWith('.webmanifest')) {
+            // The field-mode worker and manifest are checked on every start, so a new build reaches phones at once.
+            res.setHeader('Cache-Control', 'no-cache');
           }
         },
       }),

@@ -69,3 +69,6 @@ function draw(sizePx, file) {
 
 draw(1024, 'icon.png');
 draw(48, 'favicon.png');
+// The installed web app's icons (its manifest, written at build time by server/scripts/field-mode-web.ts).
+draw(192, 'icon-192.png');
+draw(512, 'icon-512.png');

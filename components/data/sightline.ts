@@ -29,6 +29,10 @@ export const sightlineQuery = <C>(request: SightlineRequest | null, context: C) 
     enabled: request !== null,
     staleTime: Infinity,
     retry: false,
+    // Offline too: the query runs and the device answers (a paused query would leave the check blank in the field).
+    networkMode: 'always',
+    // Every typed change is a new answer: not worth keeping on the device (the device can compute them again).
+    meta: { keepOnDevice: false },
     // The answer carries the request it answers and the caller's context (e.g. column labels),
     // so a screen showing a previous answer while the next loads never mixes the two.
     queryFn: async (): Promise<SightlineResponse & { computedOn: ComputedOn; request: SightlineRequest; context: C }> => {

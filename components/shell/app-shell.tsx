@@ -3,6 +3,7 @@ import { useEffect, useState } from 'react';
 import { Modal, Pressable, StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { useSession } from '@/components/data/session';
+import { OfflineBand, OutboxRunner } from '@/components/offline/field-status';
 import { AppText } from '@/components/ui/app-text';
 import { MoreIcon } from '@/components/ui/icons';
 import { Wordmark } from '@/components/ui/logo';
@@ -68,8 +69,10 @@ export function AppShell() {
           ) : null}
         </View>
         <View style={{ flex: 1 }} role="main">
+          <OfflineBand />
           <Slot />
         </View>
+        <OutboxRunner />
       </View>
     );
   }
@@ -93,8 +96,10 @@ function PhoneShell({ items, pathname, bottomInset }: { items: NavItem[]; pathna
   return (
     <View style={styles.phoneRoot}>
       <View style={{ flex: 1 }} role="main">
+        <OfflineBand />
         <Slot />
       </View>
+      <OutboxRunner />
       <View style={[styles.bar, { paddingBottom: Math.max(bottomInset, space.xs) }]} role="navigation" aria-label="Main">
         {bar.map((item) => (
           <BarItem

@@ -245,7 +245,7 @@ function sourceFingerprint() {
     }
   };
   for (const d of ['app', 'components', 'scenes', 'shared', 'assets']) walk(path.join(root, d));
-  for (const f of ['app.json', 'babel.config.js', 'metro.config.js', 'package-lock.json']) {
+  for (const f of ['app.json', 'babel.config.js', 'metro.config.js', 'package-lock.json', 'server/scripts/field-mode-web.ts']) {
     const p = path.join(root, f);
     if (existsSync(p)) hash.update(`${f}:${statSync(p).mtimeMs}\n`);
   }
@@ -262,6 +262,8 @@ function ensureWebBuild() {
   run('npx', ['expo', 'export', '--platform', 'web', '--output-dir', out], {
     env: { ...env, CI: '1', EXPO_NO_TELEMETRY: '1', EXPO_OFFLINE: '1', NODE_ENV: 'production' },
   });
+  // Field mode: the manifest, its icons and the service worker that keeps the app shell on the device.
+  tsx('server/scripts/field-mode-web.ts', [out]);
   // Brotli (quality 11) and gzip (level 9) copies of the scripts, sent as they are (server/http/precompressed-assets.ts).
   tsx('server/scripts/precompress-web.ts', [out]);
   writeFileSync(stamp, fp);

@@ -35,8 +35,18 @@ export async function launchBrowser(): Promise<{ browser: Browser; close: () => 
   return { browser, close: () => browser.close() };
 }
 
-export async function newPage(browser: Browser, viewport: ViewportName): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport: VIEWPORTS[viewport], deviceScaleFactor: 1 });
+export async function newPage(
+  browser: Browser,
+  viewport: ViewportName,
+  { fieldMode = false }: { fieldMode?: boolean } = {},
+): Promise<{ context: BrowserContext; page: Page }> {
+  // The field-mode service worker would take every page's requests out of Playwright's sight (and precache the
+  // whole app in each test): only the tests of field mode let it run.
+  const context = await browser.newContext({
+    viewport: VIEWPORTS[viewport],
+    deviceScaleFactor: 1,
+    serviceWorkers: fieldMode ? 'allow' : 'block',
+  });
   const page = await context.newPage();
   return { context, page };
 }

@@ -1,0 +1,58 @@
+import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
+import { defaultShouldDehydrateQuery, type Query } from '@tanstack/react-query';
+import type { PersistQueryClientOptions } from '@tanstack/react-query-persist-client';
+import { createStore, del, get, set, type UseStore } from 'idb-keyval';
+
+/**
+ * The query cache kept on the device, so what a person last saw (the
+ * briefing, their posts, crew cards, the libraries) opens on a cold start with
+ * no network. IndexedDB, in a database of its own; cleared at sign-out.
+ */
+const DB_NAME = 'kenning-cache';
+const KEY = 'queries';
+
+/** What the device keeps is kept this long after it was fetched. */
+export const DEVICE_COPY_MAX_AGE_MS = 7 * 24 * 60 * 60 * 1000;
+
+let idb: UseStore | null = null;
+const store = () => (idb ??= createStore(DB_NAME, 'cache'));
+
+/** Whether this runtime can keep copies (a browser with IndexedDB; not the tests' jsdom, not native yet). */
+export const deviceCanKeepCopies = () => typeof indexedDB !== 'undefined' && typeof window !== 'undefined';
+
+/**
+ * The build's own id: the content hash in the entry script's name. Copies made
+ * by another build are dropped, so a new build never reads old shapes.
+ */
+function buildId(): string {
+  if (typeof document === 'undefined') return 'unknown';
+  const src = Array.from(document.scripts, (s) => s.src).find((s) => /\/entry-[0-9a-f]+\.js/.test(s));
+  return src ? /\/entry-([0-9a-f]+)\.js/.exec(src)![1]! : 'development';
+}
+
+/** Queries that are never kept (answers that change by the second, or that are only meaningful online). */
+const notKept = (query: Query) => query.meta?.keepOnDevice === false;
+
+export function persistOptions(): Omit<PersistQueryClientOptions, 'queryClient'> {
+  const persister = createAsyncStoragePersister({
+    storage: {
+      getItem: (k) => get<string>(k, store()).then((v) => v ?? null),
+      setItem: (k, v: string) => set(k, v, store()),
+      removeItem: (k) => del(k, store()),
+    },
+    key: KEY,
+    throttleTime: 1000,
+  });
+  return {
+    persister,
+    maxAge: DEVICE_COPY_MAX_AGE_MS,
+    buster: buildId(),
+    dehydrateOptions: { shouldDehydrateQuery: (q) => defaultShouldDehydrateQuery(q) && !notKept(q) },
+  };
+}
+
+/** Deletes the device's copies of the person's data (sign-out). */
+export async function forgetDeviceCopies(): Promise<void> {
+  if (!deviceCanKeepCopies()) return;
+  await del(KEY, store());
+}
