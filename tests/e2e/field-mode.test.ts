@@ -1,0 +1,97 @@
+import type { Browser, Page } from 'playwright-core';
+import { DEMO } from '@/tests/support/agents';
+import { launchBrowser, newPage } from '@/tests/support/browser';
+import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+});
+afterAll(() => close());
+
+/** Waits until the field-mode worker controls the page and has kept the app shell. */
+async function shellKept(page: Page) {
+  await page.waitForFunction(async () => {
+    if (!navigator.serviceWorker?.controller) return false;
+    const names = await caches.keys();
+    for (const name of names) {
+      const cache = await caches.open(name);
+      if (await cache.match('/index.html', { ignoreSearch: true })) return true;
+    }
+    return false;
+  }, null, { timeout: 60_000 });
+}
+
+/** Whether the device still keeps a copy of the query cache (IndexedDB `kenning-cache`). */
+const deviceCopyKept = (page: Page) =>
+  page.evaluate(
+    () =>
+      new Promise<boolean>((resolve) => {
+        const open = indexedDB.open('kenning-cache');
+        open.onerror = () => resolve(false);
+        open.onsuccess = () => {
+          const db = open.result;
+          if (!db.objectStoreNames.contains('cache')) return resolve(false);
+          const get = db.transaction('cache').objectStore('cache').get('queries');
+          get.onsuccess = () => resolve(typeof get.result === 'string' && get.result.length > 0);
+          get.onerror = () => resolve(false);
+        };
+      }),
+  );
+
+it('starts with no network on a phone: the briefing from the device’s copy, marked offline, and the quick check computed on the device', async () => {
+  const { context, page } = await newPage(browser, 'phone', { fieldMode: true });
+  const errors = watchErrors(page);
+  try {
+    // Online first: the worker keeps the shell, the app keeps what the observer saw.
+    await signIn(page, DEMO.observer);
+    await page.waitForURL(/\/briefing$/);
+    await page.getByText('What you see from here, over the terrain').first().waitFor();
+    await shellKept(page);
+    await expectEventually(() => deviceCopyKept(page));
+
+    // The network goes; the app is started again from cold (a new tab, nothing in memory).
+    await context.setOffline(true);
+    await page.close();
+    const cold = await context.newPage();
+    const coldErrors = watchErrors(cold);
+    await cold.goto(`${e2eUrl()}/briefing`);
+    await cold.getByRole('status', { name: 'Offline' }).waitFor();
+    await cold.getByText(/^Offline · showing what this device kept, last updated/).waitFor();
+    await cold.getByText('What you see from here, over the terrain').first().waitFor();
+    await shot(cold, 'field-mode-offline-briefing', 'phone');
+
+    // The quick check needs no server: the same core runs on the device and says so.
+    await cold.goto(`${e2eUrl()}/check`);
+    await cold.getByLabel('Height of eye').fill('30');
+    await cold.getByText(/computed on this device with the same formulas/).waitFor();
+    await shot(cold, 'field-mode-offline-check', 'phone');
+
+    // Back online: the band goes.
+    await context.setOffline(false);
+    await cold.getByRole('status', { name: 'Offline' }).waitFor({ state: 'detached' });
+    // Requests refused while offline are the only errors allowed.
+    expect(coldErrors.filter((e) => !/Failed to fetch|ERR_INTERNET_DISCONNECTED|cannot reach its server/i.test(e))).toEqual([]);
+
+    // Signing out deletes the device's copy.
+    await cold.goto(`${e2eUrl()}/account`);
+    await cold.getByRole('button', { name: 'Sign out' }).click();
+    await cold.getByLabel('E-mail').waitFor();
+    await expectEventually(async () => !(await deviceCopyKept(cold)));
+    expect(errors).toEqual([]);
+  } finally {
+    await context.close();
+  }
+});
+
+/** Polls `check` for up to 10 s (the device's copy is written a second after a change). */
+async function expectEventually(check: () => Promise<boolean>) {
+  const until = Date.now() + 10_000;
+  while (Date.now() < until) {
+    if (await check()) return;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  expect(await check()).toBe(true);
+}
