@@ -2,7 +2,7 @@ import { Barlow_400Regular } from '@expo-google-fonts/barlow/400Regular';
 import { Barlow_500Medium } from '@expo-google-fonts/barlow/500Medium';
 import { Barlow_600SemiBold } from '@expo-google-fonts/barlow/600SemiBold';
 import { Barlow_700Bold } from '@expo-google-fonts/barlow/700Bold';
-import { QueryClientProvider } from '@tanstack/react-query';
+import { onlineManager, QueryClientProvider } from '@tanstack/react-query';
 import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
 import { useFonts } from 'expo-font';
 import { Stack } from 'expo-router';
@@ -23,6 +23,8 @@ export { RootErrorBoundary as ErrorBoundary };
 /** The app's one query client; the session question goes out at once, beside the fonts rather than after them. */
 function createAppQueryClient() {
   const client = createQueryClient();
+  // TanStack Query assumes a network at start and only hears later changes: a cold start in the field must know.
+  if (typeof navigator !== 'undefined' && typeof navigator.onLine === 'boolean') onlineManager.setOnline(navigator.onLine);
   if (deviceCanKeepCopies()) {
     // What was fetched stays in memory as long as the device keeps its copy, so the copy is not dropped early.
     const queries = client.getDefaultOptions().queries;
