@@ -109,3 +109,22 @@ describe('computeHiddenHeightRaster is bitwise the engine before the speed work'
     expect(bitDifferences(a, z).count).toBe(1);
   });
 });
+
+describe('range limit and nodata mask', () => {
+  // The mask keeps a run of columns per row; the old engine tested dc² + dr² > range² cell by cell.
+  // Source: tests/support/previous-hidden-height-raster.ts (as above); common practice, no source.
+  const terrain = generateSyntheticTerrain({ width: 97, height: 61, seed: 5 });
+
+  test.each([0.5, 1, 7, 7.5, 30.000001, 45, 200])('range of %f cells around posts on edges and inside', (rangeInCells) => {
+    for (const post of [
+      { col: 0, row: 0, eyeHeight: 10 },
+      { col: 48, row: 30, eyeHeight: 10 },
+      { col: 96, row: 17, eyeHeight: 10 },
+    ]) {
+      const conditions = { maxDistance: rangeInCells * terrain.cellSize };
+      const now = computeHiddenHeightRaster(terrain, post, conditions);
+      const before = computeHiddenHeightRasterBefore(terrain, post, conditions);
+      expect(bitDifferences(now.hidden, before.hidden)).toEqual({ count: 0, first: null });
+    }
+  });
+});
