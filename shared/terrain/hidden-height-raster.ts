@@ -373,16 +373,28 @@ function sweepColumn(
   const dropCur = dropAt[i] as number;
   const dropPrev = dropAt[iPrev] as number;
   let zBelow = 0; // raw height of (i, j − 1)
+  // Height of (i − 1, j − 1), carried from the previous cell's z1: the sight line of (i, j)
+  // crosses column i − 1 between minor rows j − 1 and j (a = j − 1) except on row 0 and
+  // when j − j/i rounds otherwise, which the test a === j − 1 catches.
+  let zCarried = 0;
   for (let j = 0; j <= jEnd; j++) {
     const m = j * invI; // sight-line direction: minor cells per major cell
     // Crossing of the previous column, between minor rows a and a + 1.
     const y = j - m;
     const a = y | 0;
     const f = y - a;
-    const p0 = colPrev + a * stepMinor;
-    const z0 = h[p0] as number;
-    let z1 = z0;
-    if (f > 0) z1 = h[p0 + stepMinor] as number;
+    const zNext = h[colPrev + j * stepMinor] as number; // raw height of (i − 1, j)
+    let z0: number;
+    let z1: number;
+    if (a === j - 1) {
+      z0 = zCarried;
+      z1 = f > 0 ? zNext : z0;
+    } else {
+      const p0 = colPrev + a * stepMinor;
+      z0 = h[p0] as number;
+      z1 = f > 0 ? (h[p0 + stepMinor] as number) : z0;
+    }
+    zCarried = zNext;
     let best = (z0 + f * (z1 - z0) - dropPrev - dropPerCell2 * y * y - eye) * invIPrev;
     let bestCol = iPrev;
 
@@ -421,7 +433,7 @@ function sweepColumn(
 
     const idx = colCur + j * stepMinor;
     const zRaw = h[idx] as number;
-    const zt = zRaw - dropCur - (dropAt[j] as number);
+    const zt = zRaw - dropCur - dropPerCell2 * j * j;
     let need = eye + best * i - zt;
     if (f > 0 && j > 0) {
       // Last stretch, inside the patch between columns i − 1, i and minor rows
