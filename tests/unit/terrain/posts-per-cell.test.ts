@@ -206,7 +206,7 @@ describe('countPostsPerCell on a flat plain (exact circles)', () => {
       ),
     ).toBe(0);
     expect(mismatches(result.noData, noData)).toBe(0);
-    expect(mismatches(result.reach, reach)).toBe(0);
+    expect(mismatches(result.reach ?? new Uint8Array(0), reach)).toBe(0);
     expect(sum(result.counts, (v) => v >= 2)).toBeGreaterThan(100); // several posts overlap
     expect(sum(result.noData, (v) => v === 1)).toBeGreaterThan(10);
   });
