@@ -562,12 +562,13 @@ function sweepRow(
   const rowLow = (aRow & 1) * span;
   let zLow = h[obs + (iStart - 1) * stepMajor + lowOffset] as number; // raw height of (i − 1, aRow)
   let zHigh = h[obs + (iStart - 1) * stepMajor + minorOffset] as number; // raw height of (i − 1, j)
+  // 1/i and the drop at i, carried to the next cell as those of i − 1.
+  let invIPrev = reciprocal[iStart - 1] as number;
+  let dropPrev = dropAt[iStart - 1] as number;
   for (let i = iStart; i <= iEnd; i++) {
     const invI = reciprocal[i] as number;
     const iPrev = i - 1;
-    const invIPrev = reciprocal[iPrev] as number;
     const dropCur = dropAt[i] as number;
-    const dropPrev = dropAt[iPrev] as number;
     const m = j * invI; // sight-line direction: minor cells per major cell
     // Crossing of the previous column, between minor rows a and a + 1.
     const y = j - m;
@@ -650,5 +651,7 @@ function sweepRow(
     out[idx] = need > 0 ? need : 0;
     if ((zt - eye) * invI > best) bestCol = i;
     rows[rowCur + i] = bestCol;
+    invIPrev = invI;
+    dropPrev = dropCur;
   }
 }
