@@ -76,20 +76,35 @@ function loadAverage(): string {
     .join(' ');
 }
 
-/** Old and new engine alternated, `runs` times each: medians in ms. */
-function oldVersusNew(terrain: TerrainRaster, runs: number): { old: number; now: number } {
+/**
+ * Old and new engine alternated, `runs` times each: medians of wall-clock and
+ * of CPU time (user + system of this process, which runs nothing else
+ * meanwhile), in ms. CPU time moves less than wall-clock time when other work
+ * loads the machine.
+ */
+function oldVersusNew(terrain: TerrainRaster, runs: number): { old: number; now: number; oldCpu: number; nowCpu: number } {
   const post = postOf(terrain);
   const olds: number[] = [];
   const nows: number[] = [];
+  const oldCpus: number[] = [];
+  const nowCpus: number[] = [];
+  const cpuMs = (since: NodeJS.CpuUsage) => {
+    const used = process.cpuUsage(since);
+    return (used.user + used.system) / 1000;
+  };
   for (let r = 0; r < runs; r++) {
+    let c0 = process.cpuUsage();
     let t0 = performance.now();
     computeHiddenHeightRasterBefore(terrain, post, CONDITIONS);
     olds.push(performance.now() - t0);
+    oldCpus.push(cpuMs(c0));
+    c0 = process.cpuUsage();
     t0 = performance.now();
     computeHiddenHeightRaster(terrain, post, CONDITIONS);
     nows.push(performance.now() - t0);
+    nowCpus.push(cpuMs(c0));
   }
-  return { old: median(olds), now: median(nows) };
+  return { old: median(olds), now: median(nows), oldCpu: median(oldCpus), nowCpu: median(nowCpus) };
 }
 
 function postOf(terrain: TerrainRaster): { col: number; row: number; eyeHeight: number } {
@@ -154,6 +169,12 @@ export async function benchViewshed(): Promise<Row[]> {
         value: versus.now / versus.old,
         unit: '×',
         detail: '< 1 means faster; same process, alternated',
+      });
+      rows.push({
+        name: `ratio new / old in CPU time, ${size}²`,
+        value: versus.nowCpu / versus.oldCpu,
+        unit: '×',
+        detail: `CPU ms old ${versus.oldCpu.toFixed(0)}, new ${versus.nowCpu.toFixed(0)}`,
       });
       const span = size + 2;
       rows.push({
