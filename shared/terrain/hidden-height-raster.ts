@@ -146,13 +146,9 @@ export function computeHiddenHeightRaster(
   const columnEnd = new Int32Array(maxSpan);
   const reciprocal = new Float64Array(maxSpan);
   for (let i = 1; i < maxSpan; i++) reciprocal[i] = 1 / i;
-  // Curvature drop of a whole number i of cells along an axis, dropPerCell2·i·i, computed
-  // once per distance (the same expression, so the same double as computing it in place).
-  const dropAt = new Float64Array(maxSpan);
-  for (let i = 1; i < maxSpan; i++) dropAt[i] = dropPerCell2 * i * i;
 
   const hidden = new Float32Array(W * H);
-  const sweepArgs = { eye, dropPerCell2, rangeCells, prevObstacle, curObstacle, rowObstacles, columnEnd, reciprocal, dropAt };
+  const sweepArgs = { eye, dropPerCell2, rangeCells, prevObstacle, curObstacle, rowObstacles, columnEnd, reciprocal };
   const obs = r0 * W + c0;
   // Every octant reads and writes the row-major grids along contiguous
   // memory: north–south octants column by column of the sweep (which are
@@ -267,16 +263,6 @@ function maskUncomputed(
   }
 }
 
-/**
- * max(x, 0) without a branch, bit for bit: x + |x| is exactly 2x for x > 0 (a
- * doubling only moves the exponent) and exactly +0 otherwise, and halving is
- * exact. Used where the sign of x is random from cell to cell, so a branch
- * would be mispredicted often. (NaN stays NaN; no caller passes one.)
- */
-function positivePart(x: number): number {
-  return (x + Math.abs(x)) * 0.5;
-}
-
 interface SweepArgs {
   readonly eye: number;
   readonly dropPerCell2: number;
@@ -288,8 +274,6 @@ interface SweepArgs {
   /** Last minor index j of each sweep column i (row-by-row sweep). */
   readonly columnEnd: Int32Array;
   readonly reciprocal: Float64Array;
-  /** dropPerCell2·i·i for whole i, metres. */
-  readonly dropAt: Float64Array;
 }
 
 /**
@@ -311,12 +295,13 @@ function sweepOctant(
   args: SweepArgs,
   out: Float32Array,
 ): void {
-  const { eye, dropPerCell2, rangeCells, reciprocal, dropAt } = args;
+  const { eye, dropPerCell2, rangeCells, reciprocal } = args;
   if (iMax < 1) return;
   let prev = args.prevObstacle;
   let cur = args.curObstacle;
   const range2 = rangeCells * rangeCells;
   const limited = Number.isFinite(rangeCells);
+  const twoDrop = 2 * dropPerCell2;
 
   // Column 1: nothing lies between the eye and these cells.
   const j1 = Math.min(1, jMax);
@@ -333,142 +318,101 @@ function sweepOctant(
       if (lim < jEnd) jEnd = lim;
     }
     if (jEnd < 0) break;
-    sweepColumn(h, out, prev, cur, reciprocal, dropAt, obs, stepMajor, stepMinor, i, jEnd, prevEnd, eye, dropPerCell2);
-    const t = prev;
-    prev = cur;
-    cur = t;
-    prevEnd = jEnd;
-  }
-}
-
-/**
- * Sweep column i of {@link sweepOctant}: cells (i, 0 … jEnd), reading the
- * obstacle columns of column i − 1 from `prev` (its last cell `prevEnd`) and
- * writing this column's to `cur`. A function of its own so that V8 compiles
- * the hot loop with every scalar unboxed once per column (rather than as an
- * on-stack replacement of the whole octant); the arithmetic is unchanged.
- */
-function sweepColumn(
-  h: Float32Array,
-  out: Float32Array,
-  prev: Int32Array,
-  cur: Int32Array,
-  reciprocal: Float64Array,
-  dropAt: Float64Array,
-  obs: number,
-  stepMajor: number,
-  stepMinor: number,
-  i: number,
-  jEnd: number,
-  prevEnd: number,
-  eye: number,
-  dropPerCell2: number,
-): void {
-  const twoDrop = 2 * dropPerCell2;
-  const invI = reciprocal[i] as number;
-  const iPrev = i - 1;
-  const invIPrev = reciprocal[iPrev] as number;
-  const colPrev = obs + iPrev * stepMajor;
-  const colCur = obs + i * stepMajor;
-  const dropCur = dropAt[i] as number;
-  const dropPrev = dropAt[iPrev] as number;
-  let zBelow = 0; // raw height of (i, j − 1)
-  // Height of (i − 1, j − 1), carried from the previous cell's z1: the sight line of (i, j)
-  // crosses column i − 1 between minor rows j − 1 and j (a = j − 1) except on row 0 and
-  // when j − j/i rounds otherwise, which the test a === j − 1 catches.
-  let zCarried = 0;
-  for (let j = 0; j <= jEnd; j++) {
-    const m = j * invI; // sight-line direction: minor cells per major cell
-    // Crossing of the previous column, between minor rows a and a + 1.
-    const y = j - m;
-    const a = y | 0;
-    const f = y - a;
-    const zNext = h[colPrev + j * stepMinor] as number; // raw height of (i − 1, j)
-    let z0: number;
-    let z1: number;
-    if (a === j - 1) {
-      z0 = zCarried;
-      z1 = f > 0 ? zNext : z0;
-    } else {
+    const invI = reciprocal[i] as number;
+    const iPrev = i - 1;
+    const invIPrev = reciprocal[iPrev] as number;
+    const colPrev = obs + iPrev * stepMajor;
+    const colCur = obs + i * stepMajor;
+    const dropCur = dropPerCell2 * i * i;
+    const dropPrev = dropPerCell2 * iPrev * iPrev;
+    let zBelow = 0; // raw height of (i, j − 1)
+    for (let j = 0; j <= jEnd; j++) {
+      const m = j * invI; // sight-line direction: minor cells per major cell
+      // Crossing of the previous column, between minor rows a and a + 1.
+      const y = j - m;
+      const a = y | 0;
+      const f = y - a;
       const p0 = colPrev + a * stepMinor;
-      z0 = h[p0] as number;
-      z1 = f > 0 ? (h[p0 + stepMinor] as number) : z0;
-    }
-    zCarried = zNext;
-    let best = (z0 + f * (z1 - z0) - dropPrev - dropPerCell2 * y * y - eye) * invIPrev;
-    let bestCol = iPrev;
+      const z0 = h[p0] as number;
+      let z1 = z0;
+      if (f > 0) z1 = h[p0 + stepMinor] as number;
+      let best = (z0 + f * (z1 - z0) - dropPrev - dropPerCell2 * y * y - eye) * invIPrev;
+      let bestCol = iPrev;
 
-    // Obstacles recorded by the previous column's cells a and a + 1,
-    // evaluated where this cell's sight line crosses their columns.
-    const kA = prev[a] as number;
-    if (kA !== iPrev) {
-      const yk = kA * m;
-      const ak = yk | 0;
-      const fk = yk - ak;
-      const pk = obs + kA * stepMajor + ak * stepMinor;
-      const zk0 = h[pk] as number;
-      const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
-      const s = (zk - dropPerCell2 * (kA * kA + yk * yk) - eye) * (reciprocal[kA] as number);
-      if (s > best) {
-        best = s;
-        bestCol = kA;
-      }
-    }
-    if (f > 0 && a < prevEnd) {
-      const kB = prev[a + 1] as number;
-      if (kB !== iPrev && kB !== kA) {
-        const yk = kB * m;
+      // Obstacles recorded by the previous column's cells a and a + 1,
+      // evaluated where this cell's sight line crosses their columns.
+      const kA = prev[a] as number;
+      if (kA !== iPrev) {
+        const yk = kA * m;
         const ak = yk | 0;
         const fk = yk - ak;
-        const pk = obs + kB * stepMajor + ak * stepMinor;
+        const pk = obs + kA * stepMajor + ak * stepMinor;
         const zk0 = h[pk] as number;
         const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
-        const s = (zk - dropPerCell2 * (kB * kB + yk * yk) - eye) * (reciprocal[kB] as number);
+        const s = (zk - dropPerCell2 * (kA * kA + yk * yk) - eye) * (reciprocal[kA] as number);
         if (s > best) {
           best = s;
-          bestCol = kB;
+          bestCol = kA;
         }
       }
-    }
+      if (f > 0 && a < prevEnd) {
+        const kB = prev[a + 1] as number;
+        if (kB !== iPrev && kB !== kA) {
+          const yk = kB * m;
+          const ak = yk | 0;
+          const fk = yk - ak;
+          const pk = obs + kB * stepMajor + ak * stepMinor;
+          const zk0 = h[pk] as number;
+          const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
+          const s = (zk - dropPerCell2 * (kB * kB + yk * yk) - eye) * (reciprocal[kB] as number);
+          if (s > best) {
+            best = s;
+            bestCol = kB;
+          }
+        }
+      }
 
-    const idx = colCur + j * stepMinor;
-    const zRaw = h[idx] as number;
-    const zt = zRaw - dropCur - dropPerCell2 * j * j;
-    let need = eye + best * i - zt;
-    if (f > 0 && j > 0) {
-      // Last stretch, inside the patch between columns i − 1, i and minor rows
-      // j − 1, j: the bilinear surface along the sight line is a quadratic
-      // q(v) = zt + qb·v + qa·v² of v, the major-axis distance back from the
-      // target (curvature drop included). Its contribution
-      // E + (q(v) − E)·i/(i − v) − zt has an interior maximum only if its
-      // slope at the target, ∝ qb·i + zt − E, is positive (a back slope).
-      const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
-      const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
-      // Upper bound of the contribution on 0 < v < 1: q(v) − zt ≤ max(qb, 0) + max(qa, 0),
-      // and the factor i/(i − v) adds at most 1/(i − 1) of any excess over the eye.
-      // Tested before the sign of the slope n0: it fails for ~99 % of cells, so the
-      // branch is well predicted (n0 > 0 alone holds for ~40 %, at random).
-      const rise = positivePart(qb) + positivePart(qa);
-      const over = zt - eye + rise;
-      if (rise + positivePart(over) * invIPrev > need) {
+      const idx = colCur + j * stepMinor;
+      const zRaw = h[idx] as number;
+      const zt = zRaw - dropCur - dropPerCell2 * j * j;
+      let need = eye + best * i - zt;
+      if (f > 0 && j > 0) {
+        // Last stretch, inside the patch between columns i − 1, i and minor rows
+        // j − 1, j: the bilinear surface along the sight line is a quadratic
+        // q(v) = zt + qb·v + qa·v² of v, the major-axis distance back from the
+        // target (curvature drop included). Its contribution
+        // E + (q(v) − E)·i/(i − v) − zt has an interior maximum only if its
+        // slope at the target, ∝ qb·i + zt − E, is positive (a back slope).
+        const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
         const n0 = qb * i + zt - eye;
         if (n0 > 0) {
-          const x = n0 / qa;
-          const disc = i * i + x;
-          if (disc >= 0) {
-            const v = -x / (i + Math.sqrt(disc));
-            if (v > 0 && v < 1) {
-              const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
-              if (local > need) need = local;
+          const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
+          // Upper bound of the contribution on 0 < v < 1: q(v) − zt ≤ max(qb, 0) + max(qa, 0),
+          // and the factor i/(i − v) adds at most 1/(i − 1) of any excess over the eye.
+          const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
+          const over = zt - eye + rise;
+          if (rise + (over > 0 ? over * invIPrev : 0) > need) {
+            const x = n0 / qa;
+            const disc = i * i + x;
+            if (disc >= 0) {
+              const v = -x / (i + Math.sqrt(disc));
+              if (v > 0 && v < 1) {
+                const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
+                if (local > need) need = local;
+              }
             }
           }
         }
       }
+      out[idx] = need > 0 ? need : 0;
+      if ((zt - eye) * invI > best) bestCol = i;
+      cur[j] = bestCol;
+      zBelow = zRaw;
     }
-    out[idx] = need > 0 ? need : 0;
-    if ((zt - eye) * invI > best) bestCol = i;
-    cur[j] = bestCol;
-    zBelow = zRaw;
+    const t = prev;
+    prev = cur;
+    cur = t;
+    prevEnd = jEnd;
   }
 }
 
@@ -491,11 +435,12 @@ function sweepOctantByRows(
   args: SweepArgs,
   out: Float32Array,
 ): void {
-  const { eye, dropPerCell2, rangeCells, reciprocal, dropAt, rowObstacles: rows, columnEnd } = args;
+  const { eye, dropPerCell2, rangeCells, reciprocal, rowObstacles: rows, columnEnd } = args;
   if (iMax < 1) return;
   const span = rows.length >> 1;
   const range2 = rangeCells * rangeCells;
   const limited = Number.isFinite(rangeCells);
+  const twoDrop = 2 * dropPerCell2;
 
   // Last j of every sweep column, as the column-by-column sweep bounds it.
   columnEnd[1] = Math.min(1, jMax);
@@ -524,134 +469,105 @@ function sweepOctantByRows(
     while (iEnd >= 2 && (columnEnd[iEnd] as number) < j) iEnd--;
     const iStart = j > 2 ? j : 2;
     if (iStart > iEnd) break;
-    sweepRow(h, out, rows, columnEnd, reciprocal, dropAt, obs, stepMajor, stepMinor, j, iStart, iEnd, span, eye, dropPerCell2);
-  }
-}
-
-/**
- * Row j of {@link sweepOctantByRows}: cells (iStart … iEnd, j), reading the
- * obstacle columns of row j − 1 and writing row j's into `rows` (two rows,
- * `span` apart). Its own function for the same reason as {@link sweepColumn}.
- */
-function sweepRow(
-  h: Float32Array,
-  out: Float32Array,
-  rows: Int32Array,
-  columnEnd: Int32Array,
-  reciprocal: Float64Array,
-  dropAt: Float64Array,
-  obs: number,
-  stepMajor: number,
-  stepMinor: number,
-  j: number,
-  iStart: number,
-  iEnd: number,
-  span: number,
-  eye: number,
-  dropPerCell2: number,
-): void {
-  const twoDrop = 2 * dropPerCell2;
-  const rowCur = (j & 1) * span;
-  const minorOffset = j * stepMinor;
-  const dropMinor = dropAt[j] as number;
-  // The sight line of (i, j) crosses column i − 1 between rows aRow and
-  // aRow + 1 (aRow = j − 1, or 0 on row 0); the heights there are the ones
-  // this row read for column i − 1, carried in zLow and zHigh.
-  const aRow = j > 0 ? j - 1 : 0;
-  const lowOffset = aRow * stepMinor;
-  const rowLow = (aRow & 1) * span;
-  let zLow = h[obs + (iStart - 1) * stepMajor + lowOffset] as number; // raw height of (i − 1, aRow)
-  let zHigh = h[obs + (iStart - 1) * stepMajor + minorOffset] as number; // raw height of (i − 1, j)
-  // 1/i and the drop at i, carried to the next cell as those of i − 1.
-  let invIPrev = reciprocal[iStart - 1] as number;
-  let dropPrev = dropAt[iStart - 1] as number;
-  for (let i = iStart; i <= iEnd; i++) {
-    const invI = reciprocal[i] as number;
-    const iPrev = i - 1;
-    const dropCur = dropAt[i] as number;
-    const m = j * invI; // sight-line direction: minor cells per major cell
-    // Crossing of the previous column, between minor rows a and a + 1.
-    const y = j - m;
-    const a = y | 0;
-    const f = y - a;
-    let z0 = zLow;
-    let z1 = z0;
-    if (f > 0) z1 = zHigh;
-    if (a !== aRow) {
-      // Not met on grids under ~10⁸ cells a side (j − j/i rounds into
-      // (j − 1, j)); kept so the result never rests on that rounding.
-      const p0 = obs + iPrev * stepMajor + a * stepMinor;
-      z0 = h[p0] as number;
-      z1 = f > 0 ? (h[p0 + stepMinor] as number) : z0;
-    }
-    let best = (z0 + f * (z1 - z0) - dropPrev - dropPerCell2 * y * y - eye) * invIPrev;
-    let bestCol = iPrev;
-
-    // Obstacles recorded by the previous column's cells a and a + 1,
-    // evaluated where this cell's sight line crosses their columns.
-    const kA = rows[(a === aRow ? rowLow : (a & 1) * span) + iPrev] as number;
-    if (kA !== iPrev) {
-      const yk = kA * m;
-      const ak = yk | 0;
-      const fk = yk - ak;
-      const pk = obs + kA * stepMajor + ak * stepMinor;
-      const zk0 = h[pk] as number;
-      const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
-      const s = (zk - dropPerCell2 * (kA * kA + yk * yk) - eye) * (reciprocal[kA] as number);
-      if (s > best) {
-        best = s;
-        bestCol = kA;
+    const rowCur = (j & 1) * span;
+    const minorOffset = j * stepMinor;
+    const dropMinor = dropPerCell2 * j * j;
+    // The sight line of (i, j) crosses column i − 1 between rows aRow and
+    // aRow + 1 (aRow = j − 1, or 0 on row 0); the heights there are the ones
+    // this row read for column i − 1, carried in zLow and zHigh.
+    const aRow = j > 0 ? j - 1 : 0;
+    const lowOffset = aRow * stepMinor;
+    const rowLow = (aRow & 1) * span;
+    let zLow = h[obs + (iStart - 1) * stepMajor + lowOffset] as number; // raw height of (i − 1, aRow)
+    let zHigh = h[obs + (iStart - 1) * stepMajor + minorOffset] as number; // raw height of (i − 1, j)
+    for (let i = iStart; i <= iEnd; i++) {
+      const invI = reciprocal[i] as number;
+      const iPrev = i - 1;
+      const invIPrev = reciprocal[iPrev] as number;
+      const dropCur = dropPerCell2 * i * i;
+      const dropPrev = dropPerCell2 * iPrev * iPrev;
+      const m = j * invI; // sight-line direction: minor cells per major cell
+      // Crossing of the previous column, between minor rows a and a + 1.
+      const y = j - m;
+      const a = y | 0;
+      const f = y - a;
+      let z0 = zLow;
+      let z1 = z0;
+      if (f > 0) z1 = zHigh;
+      if (a !== aRow) {
+        // Not met on grids under ~10⁸ cells a side (j − j/i rounds into
+        // (j − 1, j)); kept so the result never rests on that rounding.
+        const p0 = obs + iPrev * stepMajor + a * stepMinor;
+        z0 = h[p0] as number;
+        z1 = f > 0 ? (h[p0 + stepMinor] as number) : z0;
       }
-    }
-    if (f > 0 && a < (columnEnd[iPrev] as number)) {
-      const kB = rows[((a + 1) & 1) * span + iPrev] as number;
-      if (kB !== iPrev && kB !== kA) {
-        const yk = kB * m;
+      let best = (z0 + f * (z1 - z0) - dropPrev - dropPerCell2 * y * y - eye) * invIPrev;
+      let bestCol = iPrev;
+
+      // Obstacles recorded by the previous column's cells a and a + 1,
+      // evaluated where this cell's sight line crosses their columns.
+      const kA = rows[(a === aRow ? rowLow : (a & 1) * span) + iPrev] as number;
+      if (kA !== iPrev) {
+        const yk = kA * m;
         const ak = yk | 0;
         const fk = yk - ak;
-        const pk = obs + kB * stepMajor + ak * stepMinor;
+        const pk = obs + kA * stepMajor + ak * stepMinor;
         const zk0 = h[pk] as number;
         const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
-        const s = (zk - dropPerCell2 * (kB * kB + yk * yk) - eye) * (reciprocal[kB] as number);
+        const s = (zk - dropPerCell2 * (kA * kA + yk * yk) - eye) * (reciprocal[kA] as number);
         if (s > best) {
           best = s;
-          bestCol = kB;
+          bestCol = kA;
         }
       }
-    }
+      if (f > 0 && a < (columnEnd[iPrev] as number)) {
+        const kB = rows[((a + 1) & 1) * span + iPrev] as number;
+        if (kB !== iPrev && kB !== kA) {
+          const yk = kB * m;
+          const ak = yk | 0;
+          const fk = yk - ak;
+          const pk = obs + kB * stepMajor + ak * stepMinor;
+          const zk0 = h[pk] as number;
+          const zk = fk > 0 ? zk0 + fk * ((h[pk + stepMinor] as number) - zk0) : zk0;
+          const s = (zk - dropPerCell2 * (kB * kB + yk * yk) - eye) * (reciprocal[kB] as number);
+          if (s > best) {
+            best = s;
+            bestCol = kB;
+          }
+        }
+      }
 
-    const idx = obs + i * stepMajor + minorOffset;
-    const zRaw = h[idx] as number;
-    const zBelow = h[idx - minorOffset + lowOffset] as number; // raw height of (i, aRow)
-    zLow = zBelow;
-    zHigh = zRaw;
-    const zt = zRaw - dropCur - dropMinor;
-    let need = eye + best * i - zt;
-    if (f > 0 && j > 0) {
-      // Last stretch: see sweepOctant.
-      const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
-      const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
-      const rise = positivePart(qb) + positivePart(qa);
-      const over = zt - eye + rise;
-      if (rise + positivePart(over) * invIPrev > need) {
+      const idx = obs + i * stepMajor + minorOffset;
+      const zRaw = h[idx] as number;
+      const zBelow = h[idx - minorOffset + lowOffset] as number; // raw height of (i, aRow)
+      zLow = zBelow;
+      zHigh = zRaw;
+      const zt = zRaw - dropCur - dropMinor;
+      let need = eye + best * i - zt;
+      if (f > 0 && j > 0) {
+        // Last stretch: see sweepOctant.
+        const qb = m * zBelow + z1 - (1 + m) * zRaw + twoDrop * (i + j * m);
         const n0 = qb * i + zt - eye;
         if (n0 > 0) {
-          const x = n0 / qa;
-          const disc = i * i + x;
-          if (disc >= 0) {
-            const v = -x / (i + Math.sqrt(disc));
-            if (v > 0 && v < 1) {
-              const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
-              if (local > need) need = local;
+          const qa = m * (z0 - zBelow - z1 + zRaw) - dropPerCell2 * (1 + m * m);
+          const rise = (qb > 0 ? qb : 0) + (qa > 0 ? qa : 0);
+          const over = zt - eye + rise;
+          if (rise + (over > 0 ? over * invIPrev : 0) > need) {
+            const x = n0 / qa;
+            const disc = i * i + x;
+            if (disc >= 0) {
+              const v = -x / (i + Math.sqrt(disc));
+              if (v > 0 && v < 1) {
+                const local = eye + ((zt + v * (qb + v * qa) - eye) * i) / (i - v) - zt;
+                if (local > need) need = local;
+              }
             }
           }
         }
       }
+      out[idx] = need > 0 ? need : 0;
+      if ((zt - eye) * invI > best) bestCol = i;
+      rows[rowCur + i] = bestCol;
     }
-    out[idx] = need > 0 ? need : 0;
-    if ((zt - eye) * invI > best) bestCol = i;
-    rows[rowCur + i] = bestCol;
-    invIPrev = invI;
-    dropPrev = dropCur;
   }
 }
