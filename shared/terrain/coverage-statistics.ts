@@ -368,12 +368,15 @@ function findBlindAreas(postsPerCell: PostsPerCellRaster, siteMask: Uint8Array |
     if ((siteMask === null || siteMask[i] !== 0) && counts[i] === 0 && noData[i] === 0) open[i] = 1;
   }
   const stack = new Int32Array(W * H);
+  // The row of each stacked cell, kept beside it so that no cell needs a division.
+  const stackRows = new Int32Array(W * H);
   const labels = new Int32Array(W * H);
   const patches: Patch[] = [];
   for (let start = 0; start < open.length; start++) {
     if (open[start] === 0) continue;
     open[start] = 0;
     let top = 0;
+    stackRows[top] = Math.floor(start / W);
     stack[top++] = start;
     const patch: Patch = {
       label: patches.length + 1,
@@ -388,8 +391,8 @@ function findBlindAreas(postsPerCell: PostsPerCellRaster, siteMask: Uint8Array |
     };
     while (top > 0) {
       const i = stack[--top] as number;
-      const col = i % W;
-      const row = (i - col) / W;
+      const row = stackRows[top] as number;
+      const col = i - row * W;
       patch.cells++;
       labels[i] = patch.label;
       patch.sumCol += col;
@@ -407,6 +410,7 @@ function findBlindAreas(postsPerCell: PostsPerCellRaster, siteMask: Uint8Array |
           const j = r * W + c;
           if (open[j] === 1) {
             open[j] = 0;
+            stackRows[top] = r;
             stack[top++] = j;
           }
         }

@@ -25,31 +25,25 @@ import type { GridSpec } from '@/shared/terrain/grid-spec';
 export function encodeClassRaster(grid: GridSpec, values: Uint8Array): EncodedClassRaster {
   checkLayer(grid, values, 'Uint8Array', 'values');
   const n = values.length;
-  // Pass 1: size of the run bytes.
-  let size = 0;
-  for (let i = 0; i < n;) {
-    const v = values[i];
-    let j = i + 1;
-    while (j < n && values[j] === v) j++;
-    size += 1 + leb128Length(j - i);
-    i = j;
-  }
-  // Pass 2: write them.
-  const bytes = new Uint8Array(size);
+  // One pass, into room for the worst case: a run of length L takes 1 + ⌈log₁₂₈(L + 1)⌉ ≤ 2L
+  // bytes, so all runs together take at most 2n (the bytes written are the same as before,
+  // when a first pass measured them).
+  const room = new Uint8Array(Math.max(2 * n, 2));
   let k = 0;
   for (let i = 0; i < n;) {
     const v = values[i] as number;
     let j = i + 1;
     while (j < n && values[j] === v) j++;
-    bytes[k++] = v;
+    room[k++] = v;
     let run = j - i;
     while (run >= 0x80) {
-      bytes[k++] = (run & 0x7f) | 0x80;
+      room[k++] = (run & 0x7f) | 0x80;
       run = Math.floor(run / 128);
     }
-    bytes[k++] = run;
+    room[k++] = run;
     i = j;
   }
+  const bytes = room.subarray(0, k);
   return {
     format: CLASS_RASTER_ENCODING,
     width: grid.width,
@@ -60,15 +54,6 @@ export function encodeClassRaster(grid: GridSpec, values: Uint8Array): EncodedCl
     epsg: grid.crs?.epsg ?? null,
     data: toBase64(bytes),
   };
-}
-
-function leb128Length(value: number): number {
-  let length = 1;
-  while (value >= 0x80) {
-    value = Math.floor(value / 128);
-    length++;
-  }
-  return length;
 }
 
 function toBase64(bytes: Uint8Array): string {

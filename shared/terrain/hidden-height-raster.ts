@@ -165,7 +165,7 @@ export function computeHiddenHeightRaster(
   }
   hidden[r0 * W + c0] = 0;
   if (sweep.hasNodata || Number.isFinite(rangeCells)) {
-    maskUncomputed(hidden, terrain.heights, nodata, W, H, c0, r0, rangeCells);
+    maskUncomputed(hidden, terrain.heights, nodata, sweep.hasNodata, W, H, c0, r0, rangeCells);
   }
 
   return {
@@ -211,31 +211,55 @@ function validate(terrain: TerrainRaster, post: LookoutPost, k: number, R: numbe
   }
 }
 
+/**
+ * Writes NaN into the cells that were not computed: nodata cells (looked for
+ * only when the terrain has some) and cells farther than `rangeCells` from the
+ * post, i.e. with dc² + dr² > rangeCells² (integer squares, exact in doubles).
+ * The range is applied as one run of columns kept per row, so a range-limited
+ * raster costs two `fill`s per row instead of a distance test per cell.
+ */
 function maskUncomputed(
   hidden: Float32Array,
   source: Float32Array,
   nodata: number | null,
+  hasNodata: boolean,
   W: number,
   H: number,
   c0: number,
   r0: number,
   rangeCells: number,
 ): void {
-  const marker = nodata ?? NaN;
+  if (hasNodata) {
+    const marker = nodata ?? NaN;
+    for (let i = 0; i < source.length; i++) {
+      const v = source[i] as number;
+      if (v !== v || v === marker) hidden[i] = NaN;
+    }
+  }
+  if (!Number.isFinite(rangeCells)) return;
   const range2 = rangeCells * rangeCells;
-  const limited = Number.isFinite(rangeCells);
   for (let r = 0; r < H; r++) {
     const dr = r - r0;
     const base = r * W;
-    for (let c = 0; c < W; c++) {
-      const v = source[base + c] as number;
-      if (v !== v || v === marker) {
-        hidden[base + c] = NaN;
-      } else if (limited) {
-        const dc = c - c0;
-        if (dc * dc + dr * dr > range2) hidden[base + c] = NaN;
-      }
+    const left = range2 - dr * dr;
+    if (left < 0) {
+      hidden.fill(NaN, base, base + W);
+      continue;
     }
+    // Largest dc with dc² + dr² ≤ range2, from the square root, then checked
+    // against the exact test so that rounding of the root cannot move the edge.
+    let half = Math.floor(Math.sqrt(left));
+    if (half >= W) continue; // every column of the row is within range
+    while ((half + 1) * (half + 1) + dr * dr <= range2) half++;
+    while (half >= 0 && half * half + dr * dr > range2) half--;
+    const first = Math.max(0, c0 - half);
+    const last = Math.min(W - 1, c0 + half);
+    if (half < 0 || first > last) {
+      hidden.fill(NaN, base, base + W);
+      continue;
+    }
+    if (first > 0) hidden.fill(NaN, base, base + first);
+    if (last < W - 1) hidden.fill(NaN, base + last + 1, base + W);
   }
 }
 

@@ -118,6 +118,24 @@ export function countPostsPerCell(grid: GridSpec, posts: readonly CoveragePost[]
           c1 = Math.min(W - 1, post.col + span + 1);
         }
       }
+      if (allRound) {
+        // The same tally without a branch on the class, which flips often between
+        // neighbouring cells: seen and target only are 1 and 2, blind is 3, so
+        // (c − 1) as unsigned is ≤ 1 where the post sees and ≤ 2 where the cell is
+        // in its view; no data (0) is rare and keeps its branch.
+        for (let col = 0; col < W; col++) {
+          const i = base + col;
+          const c = classes[i] as number;
+          const u = (c - SEEN) >>> 0;
+          tally[i] = (tally[i] as number) + +(u <= TARGET_ONLY - SEEN);
+          reach[i] = (reach[i] as number) | +(u <= BLIND - SEEN);
+          if (c === NONE && col >= c0 && col <= c1) {
+            const dx = col - post.col;
+            if (dx * dx + dy * dy <= post.range2) noData[i] = 1;
+          }
+        }
+        continue;
+      }
       for (let col = 0; col < W; col++) {
         const i = base + col;
         const c = classes[i];

@@ -112,17 +112,18 @@ export function classifyVisibility(
       }
     }
     const base = row * W;
-    for (let col = 0; col < W; col++) {
-      const i = base + col;
-      if (col < c0 || col > c1) {
-        classes[i] = VISIBILITY_CLASS.outOfRange;
-        continue;
-      }
+    if (c0 > c1) {
+      classes.fill(VISIBILITY_CLASS.outOfRange, base, base + W);
+      continue;
+    }
+    if (c0 > 0) classes.fill(VISIBILITY_CLASS.outOfRange, base, base + c0);
+    if (c1 < W - 1) classes.fill(VISIBILITY_CLASS.outOfRange, base + c1 + 1, base + W);
+    // seen (1) + 1 above the ground tolerance + 1 above the target's top: 1 seen, 2 target
+    // only, 3 blind (tolerance ≤ targetLimit); NaN → none (0). Counted rather than branched
+    // on, since neighbouring cells often differ.
+    for (let i = base + c0, end = base + c1; i <= end; i++) {
       const v = values[i] as number;
-      if (v !== v) classes[i] = VISIBILITY_CLASS.none;
-      else if (v <= tolerance) classes[i] = VISIBILITY_CLASS.seen;
-      else if (v <= targetLimit) classes[i] = VISIBILITY_CLASS.targetOnly;
-      else classes[i] = VISIBILITY_CLASS.blind;
+      classes[i] = v === v ? VISIBILITY_CLASS.seen + +(v > tolerance) + +(v > targetLimit) : VISIBILITY_CLASS.none;
     }
   }
   return {

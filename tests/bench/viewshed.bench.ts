@@ -9,6 +9,11 @@
  * reading the GeoTIFF, computing, writing); the engine's "core" time is the
  * computation on a raster already in memory and its "file to file" time adds
  * decoding and encoding the GeoTIFFs, for a like-for-like comparison.
+ *
+ * "Old vs new": the engine before the speed work of issue 18 (kept verbatim in
+ * tests/support/previous-hidden-height-raster.ts) and today's, alternated in
+ * the same process (median of 5 each), so that the ratio holds on a machine
+ * whose load moves; the load average is printed beside it.
  */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -20,6 +25,7 @@ import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
 import { computeHiddenHeightRaster, type SightConditions } from '@/shared/terrain/hidden-height-raster';
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import { computeHiddenHeightRasterBefore } from '@/tests/support/previous-hidden-height-raster';
 
 interface Row {
   name: string;
@@ -63,6 +69,44 @@ const gdalAvailable = (() => {
   return probe.error === undefined && /GDAL \d/.test(probe.stdout + probe.stderr);
 })();
 
+function loadAverage(): string {
+  return os
+    .loadavg()
+    .map((x) => x.toFixed(2))
+    .join(' ');
+}
+
+/**
+ * Old and new engine alternated, `runs` times each: medians of wall-clock and
+ * of CPU time (user + system of this process, which runs nothing else
+ * meanwhile), in ms. CPU time moves less than wall-clock time when other work
+ * loads the machine.
+ */
+function oldVersusNew(terrain: TerrainRaster, runs: number): { old: number; now: number; oldCpu: number; nowCpu: number } {
+  const post = postOf(terrain);
+  const olds: number[] = [];
+  const nows: number[] = [];
+  const oldCpus: number[] = [];
+  const nowCpus: number[] = [];
+  const cpuMs = (since: NodeJS.CpuUsage) => {
+    const used = process.cpuUsage(since);
+    return (used.user + used.system) / 1000;
+  };
+  for (let r = 0; r < runs; r++) {
+    let c0 = process.cpuUsage();
+    let t0 = performance.now();
+    computeHiddenHeightRasterBefore(terrain, post, CONDITIONS);
+    olds.push(performance.now() - t0);
+    oldCpus.push(cpuMs(c0));
+    c0 = process.cpuUsage();
+    t0 = performance.now();
+    computeHiddenHeightRaster(terrain, post, CONDITIONS);
+    nows.push(performance.now() - t0);
+    nowCpus.push(cpuMs(c0));
+  }
+  return { old: median(olds), now: median(nows), oldCpu: median(oldCpus), nowCpu: median(nowCpus) };
+}
+
 function postOf(terrain: TerrainRaster): { col: number; row: number; eyeHeight: number } {
   return { col: Math.floor(terrain.width * 0.45), row: Math.floor(terrain.height * 0.55), eyeHeight: EYE };
 }
@@ -78,7 +122,10 @@ export async function benchViewshed(): Promise<Row[]> {
   try {
     // Warm-up: let the JIT compile the sweep before anything is timed.
     const warm = generateSyntheticTerrain({ width: 400, height: 400, seed: 99 });
-    for (let i = 0; i < 3; i++) computeHiddenHeightRaster(warm, postOf(warm), CONDITIONS);
+    for (let i = 0; i < 3; i++) {
+      computeHiddenHeightRaster(warm, postOf(warm), CONDITIONS);
+      computeHiddenHeightRasterBefore(warm, postOf(warm), CONDITIONS);
+    }
 
     for (const size of [1000, 2000, 4000]) {
       const terrain = generateSyntheticTerrain({ width: size, height: size, seed: 4242 });
@@ -97,6 +144,45 @@ export async function benchViewshed(): Promise<Row[]> {
         const hidden = computeHiddenHeightRaster(dem, post, CONDITIONS);
         writeFileSync(output, Buffer.from(writeGeoTiff(hidden, hidden.hidden)));
       }, runs);
+      const versus = oldVersusNew(terrain, 5);
+      const load = loadAverage();
+      rows.push({
+        name: `old engine core, one post, ${size}² (median of 5)`,
+        value: versus.old,
+        unit: 'ms',
+        detail: `load ${load}`,
+      });
+      rows.push({
+        name: `new engine core, one post, ${size}² (median of 5)`,
+        value: versus.now,
+        unit: 'ms',
+        detail: `load ${load}`,
+      });
+      rows.push({
+        name: `old → new throughput, ${size}²`,
+        value: cells / 1e6 / (versus.now / 1000),
+        unit: 'Mcells/s',
+        detail: `old ${(cells / 1e6 / (versus.old / 1000)).toFixed(1)} Mcells/s`,
+      });
+      rows.push({
+        name: `ratio new / old, ${size}²`,
+        value: versus.now / versus.old,
+        unit: '×',
+        detail: '< 1 means faster; same process, alternated',
+      });
+      rows.push({
+        name: `ratio new / old in CPU time, ${size}²`,
+        value: versus.nowCpu / versus.oldCpu,
+        unit: '×',
+        detail: `CPU ms old ${versus.oldCpu.toFixed(0)}, new ${versus.nowCpu.toFixed(0)}`,
+      });
+      const span = size + 2;
+      rows.push({
+        name: `memory per call, ${size}² (result + scratch, old and new alike)`,
+        value: (cells * 4 + span * (5 * 4 + 2 * 8)) / 2 ** 20,
+        unit: 'MiB',
+        detail: 'Float32 result; obstacle columns, 1/i and the per-distance drop per row or column',
+      });
       rows.push({ name: `engine core, one post, ${size}²`, value: core, unit: 'ms' });
       rows.push({ name: `engine core throughput, ${size}²`, value: cells / 1e6 / (core / 1000), unit: 'Mcells/s' });
       rows.push({ name: `engine file to file (read tif, compute, write tif), ${size}²`, value: fileToFile, unit: 'ms' });

@@ -20,11 +20,16 @@ const round = (value: number, digits: number) => Math.round(value * 10 ** digits
  * and case.
  */
 function countSeen(values: Uint8Array, kind: 0 | 1, siteMask: Uint8Array | null): number {
+  // "Sees" is a range of byte values, low … low + span: counts 1 … 255, or the classes seen and
+  // target only (consecutive codes). (v − low) as unsigned ≤ span tests it without a branch, and
+  // the test is summed rather than branched on, since it flips often between neighbouring cells.
+  const low = kind === 1 ? 1 : SEEN;
+  const span = kind === 1 ? 254 : TARGET_ONLY - SEEN;
   let seen = 0;
-  for (let j = 0; j < values.length; j++) {
-    const v = values[j]!;
-    const sees = kind === 1 ? v > 0 : v === SEEN || v === TARGET_ONLY;
-    if (sees && (siteMask === null || siteMask[j] === 1)) seen++;
+  if (siteMask === null) {
+    for (let j = 0; j < values.length; j++) seen += +((values[j]! - low) >>> 0 <= span);
+  } else {
+    for (let j = 0; j < values.length; j++) seen += +((values[j]! - low) >>> 0 <= span) & +(siteMask[j] === 1);
   }
   return seen;
 }

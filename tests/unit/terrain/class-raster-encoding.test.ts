@@ -56,6 +56,15 @@ describe('encodeClassRaster / decodeClassRaster', () => {
     }
   });
 
+  test('the worst case, every run one cell long, takes exactly two bytes a cell', () => {
+    // Source: the byte layout above (value, then LEB128 length 1 = one byte); the encoder writes into room for
+    // this worst case, so the test guards its bound (a typed array drops writes past its end without a word).
+    const values = Uint8Array.from({ length: 4_097 }, (_, i) => i % 2);
+    const encoded = encodeClassRaster(gridOf(4_097, 1), values);
+    expect(runBytes(encoded)).toHaveLength(2 * 4_097);
+    expect(mismatches(decodeClassRaster(encoded), values)).toBe(0);
+  });
+
   test('keeps the grid for the map and is much smaller than the raw layer on a typical coverage layer', () => {
     const grid = { width: 400, height: 300, cellSize: 25, xll: 512_000, yll: 5_731_000, crs: { epsg: 32633, wkt: null } };
     const values = new Uint8Array(400 * 300);

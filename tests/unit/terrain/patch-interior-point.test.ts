@@ -93,6 +93,23 @@ describe('patchInteriorPoint', () => {
     }
   });
 
+  it('agrees with brute force on wider masks (several column blocks and a remainder)', () => {
+    // Source: Felzenszwalb & Huttenlocher (2012), as above; widths 17–44 span the first pass's blocks of 8 columns.
+    let seed = 11;
+    const rand = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+    for (let t = 0; t < 6; t++) {
+      const width = 17 + Math.floor(rand() * 28);
+      const height = 5 + Math.floor(rand() * 20);
+      const mask = Uint8Array.from({ length: width * height }, () => (rand() < 0.85 ? 1 : 0));
+      const p = patchInteriorPoint(mask, width, height);
+      const brute = bruteDistances(mask, width, height);
+      const max = Math.max(...brute);
+      expect(max).toBeGreaterThan(1);
+      expect(p!.edgeDistanceCells).toBeCloseTo(max, 12);
+      expect(brute[p!.row * width + p!.col]).toBeCloseTo(max, 12);
+    }
+  });
+
   it('answers null for an empty mask, refuses a mask of the wrong size, and does not change its input', () => {
     expect(patchInteriorPoint(new Uint8Array(4), 2, 2)).toBeNull();
     expect(() => patchInteriorPoint(new Uint8Array(5), 2, 2)).toThrow(/width × height/);

@@ -172,6 +172,45 @@ describe('countPostsPerCell on a flat plain (exact circles)', () => {
     expect(mismatches(full.counts, countPostsPerCell(grid, [posts[1]!]).counts)).toBe(0);
   });
 
+  test('all-round posts on random classes agree cell by cell with the counting rules', () => {
+    // The rules as this module documents them, applied one cell at a time: seen and target only count,
+    // blind is in view, no data counts as no data only within the range limit, out of range is
+    // nothing. Guards the branch-free loop for all-round posts. Common practice, no source.
+    const random = seededRandom(29);
+    const grid = gridOf(83, 57);
+    const posts: CoveragePost[] = [0, 1, 2, 3].map((p) => ({
+      col: Math.floor(random() * 83),
+      row: Math.floor(random() * 57),
+      classes: Uint8Array.from({ length: 83 * 57 }, () => (random() < 0.05 ? 0 : Math.floor(random() * 5))),
+      ...(p % 2 === 0 ? { maxDistance: (20 + 10 * p) * 25 } : {}),
+    }));
+    const result = countPostsPerCell(grid, posts);
+    const counts = new Uint8Array(83 * 57);
+    const noData = new Uint8Array(83 * 57);
+    const reach = new Uint8Array(83 * 57);
+    for (const post of posts) {
+      const range = post.maxDistance === undefined ? Infinity : post.maxDistance / 25;
+      for (let i = 0; i < counts.length; i++) {
+        const c = post.classes[i] as number;
+        const dx = (i % 83) - post.col;
+        const dy = Math.floor(i / 83) - post.row;
+        if (c === VISIBILITY_CLASS.seen || c === VISIBILITY_CLASS.targetOnly) counts[i]!++;
+        if (c >= VISIBILITY_CLASS.seen && c <= VISIBILITY_CLASS.blind) reach[i] = 1;
+        if (c === VISIBILITY_CLASS.none && dx * dx + dy * dy <= range * range) noData[i] = 1;
+      }
+    }
+    expect(
+      mismatches(
+        result.counts,
+        counts.map((c, i) => (noData[i] === 1 ? 0 : c)),
+      ),
+    ).toBe(0);
+    expect(mismatches(result.noData, noData)).toBe(0);
+    expect(mismatches(result.reach ?? new Uint8Array(0), reach)).toBe(0);
+    expect(sum(result.counts, (v) => v >= 2)).toBeGreaterThan(100); // several posts overlap
+    expect(sum(result.noData, (v) => v === 1)).toBeGreaterThan(10);
+  });
+
   test('does not mutate its inputs', () => {
     const copies = posts.map((p) => Uint8Array.from(p.classes));
     const sector = { from: 1, to: 2 };
