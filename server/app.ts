@@ -17,6 +17,7 @@ import type { Mailer } from './mail/mailer';
 import type { FileStore } from './storage/file-store';
 import { attachmentRoutes } from './routes/attachments';
 import { auditRoutes } from './routes/audit';
+import { calibrationRoutes } from './routes/calibrations';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { coverageRoutes } from './routes/coverage';
 import { fixRoutes } from './routes/fixes';
@@ -140,6 +141,7 @@ export function createApp({
   );
   v1.use(libraryRoutes(db));
   v1.use(sweepWidthRoutes(db));
+  v1.use(calibrationRoutes(db));
   v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));

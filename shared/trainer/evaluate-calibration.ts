@@ -7,6 +7,7 @@ import { effectiveRadius } from '@/shared/sightline/effective-radius';
 import { formatK } from '@/shared/sightline/format-k';
 import { refractionFromCondition } from '@/shared/sightline/refraction-from-condition';
 import { refractionWarnings } from '@/shared/sightline/refraction-warnings';
+import { SIGHTLINE_CAUTIONS } from '@/shared/sightline/evaluate-sightline';
 import { convertAngle } from '@/shared/units/angle';
 import { kFromDip } from '@/shared/trainer/k-from-dip';
 import { kFromHiddenHeight, K_SEARCH_MIN } from '@/shared/trainer/k-from-hidden-height';
@@ -224,3 +225,18 @@ export function evaluateCalibration(
     warnings,
   };
 }
+
+/**
+ * The standing cautions shown with every calibration: the same four as every
+ * sightline answer (estimates only, refraction varies, visibility is not
+ * detection, follow procedures) and one of its own — a k of the day holds for
+ * that line, that height band and that hour.
+ */
+export const CALIBRATION_CAUTIONS = Object.freeze([
+  ...SIGHTLINE_CAUTIONS,
+  {
+    code: 'k-of-the-day',
+    message:
+      'A k solved from one sighting holds for that line of sight, at those heights, at that time; refraction near the surface changes within minutes and from one bearing to the next.',
+  },
+]);

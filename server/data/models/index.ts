@@ -10,6 +10,7 @@ import { PriorityZoneModel, SiteModel } from './site';
 import { SiteTerrainModel } from './site-terrain';
 import { SweepWidthTableModel } from './sweep-width-table';
 import { CoverageLayerModel, CoverageRunModel } from './coverage-run';
+import { FieldCalibrationModel } from './field-calibration';
 import { UserModel } from './user';
 
 export {
@@ -19,6 +20,7 @@ export {
   AttachmentModel,
   AuditEventModel,
   ConditionSetModel,
+  FieldCalibrationModel,
   PlanModel,
   PlanReviewModel,
   PlanRevisionModel,
@@ -51,6 +53,7 @@ export function initModels(sequelize: Sequelize): void {
   CoverageRunModel.register(sequelize);
   CoverageLayerModel.register(sequelize);
   SweepWidthTableModel.register(sequelize);
+  FieldCalibrationModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
@@ -72,4 +75,6 @@ export function initModels(sequelize: Sequelize): void {
   AttachmentModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
   UserModel.hasMany(AttachmentModel, { foreignKey: 'uploadedById', as: 'uploads' });
   AttachmentModel.belongsTo(UserModel, { foreignKey: 'uploadedById', as: 'uploadedBy' });
+  FieldCalibrationModel.belongsTo(PostModel, { foreignKey: 'postId', as: 'post' });
+  FieldCalibrationModel.belongsTo(UserModel, { foreignKey: 'observerId', as: 'observer' });
 }
