@@ -196,7 +196,12 @@ export const CalibrationListQuerySchema = z
     from: instant('From').optional(),
     to: instant('To').optional(),
     page: z.coerce.number({ error: 'Page must be a number.' }).int().min(1, 'Pages start at 1.').default(1),
-    pageSize: z.coerce.number({ error: 'Page size must be a number.' }).int().min(1).max(500, 'At most 500 per page.').default(100),
+    pageSize: z.coerce
+      .number({ error: 'Page size must be a number.' })
+      .int()
+      .min(1)
+      .max(500, 'At most 500 per page.')
+      .default(100),
   })
   .refine((q) => q.from === undefined || q.to === undefined || Date.parse(q.to) > Date.parse(q.from), {
     message: 'The window must end after it starts.',

@@ -24,7 +24,6 @@ import { refractionFromCondition } from '@/shared/sightline/refraction-from-cond
 import { waveScreenOf } from '@/shared/sightline/wave-screen';
 import { convertAngle } from '@/shared/units/angle';
 
-
 /** Standing cautions returned with every evaluation. */
 export const SIGHTLINE_CAUTIONS: readonly SightlineCaution[] = Object.freeze([
   {

@@ -36,7 +36,9 @@ function solveDip(m: Extract<CalibrationMeasurement, { method: 'dip' }>, r: numb
   const kMax = kFromDip(m.eyeHeightM, dip - acc, r);
   const working =
     `k = 1 − R·(1 − cos δ)/(h·cos δ) with R = ${fmt(r / 1000, 7)} km, h = ${fmt(m.eyeHeightM)} m, δ = ${fmt(m.observedDipArcmin)}′ ± ${fmt(m.accuracyArcmin)}′` +
-    (k === null ? ': a dip of 0′ or less has no k below 1 (the horizon is at or above the horizontal).' : ` → k = ${formatK(k)}.`);
+    (k === null
+      ? ': a dip of 0′ or less has no k below 1 (the horizon is at or above the horizontal).'
+      : ` → k = ${formatK(k)}.`);
   const warnings: CalibrationWarning[] = [];
   if (k === null) {
     return { k: null, kMin: kMin ?? 1, kMax: null, resultKind: 'lower-bound', working, warnings };

@@ -28,8 +28,8 @@ async function aPost(agent: Agent): Promise<string> {
 
 /** A site with one post of the agent's own (a planner), for an organisation the demo gives none. */
 async function newPost(agent: Agent): Promise<string> {
-  const site = (await agent.post('/api/v1/sites').send({ name: 'Calibration test coast', kind: 'coast-stretch' }).expect(201)).body
-    .site;
+  const site = (await agent.post('/api/v1/sites').send({ name: 'Calibration test coast', kind: 'coast-stretch' }).expect(201))
+    .body.site;
   const post = await agent
     .post(`/api/v1/sites/${site.id}/posts`)
     .send({ name: 'Test headland', kind: 'shore-post', location: { latDeg: 10.5, lonDeg: -20.25 }, groundElevationM: 35 })
@@ -82,7 +82,10 @@ describe('POST /api/v1/calibrations', () => {
 
   it('warns of a duct when the sea horizon stands above the horizontal', async () => {
     const observer = await signedInAgent(app, DEMO.observer);
-    const res = await observer.post('/api/v1/calibrations').send({ ...dipReading, observedDipArcmin: -0.4 }).expect(201);
+    const res = await observer
+      .post('/api/v1/calibrations')
+      .send({ ...dipReading, observedDipArcmin: -0.4 })
+      .expect(201);
     expect(res.body.calibration).toMatchObject({ k: null, kMin: 1, kMax: null, resultKind: 'lower-bound', regime: 'ducting' });
     expect(res.body.calibration.warnings.map((w: { code: string }) => w.code)).toContain('ducting');
   });
@@ -94,7 +97,13 @@ describe('POST /api/v1/calibrations', () => {
     const excessDeg = convertAngle((0.87 * 8000) / 6_371_008.8, 'rad', 'deg');
     const reciprocal = await planner
       .post('/api/v1/calibrations')
-      .send({ method: 'reciprocal', distanceM: 8000, zenithAngle1Deg: 89.8, zenithAngle2Deg: 90.2 + excessDeg, accuracyArcsec: 3 })
+      .send({
+        method: 'reciprocal',
+        distanceM: 8000,
+        zenithAngle1Deg: 89.8,
+        zenithAngle2Deg: 90.2 + excessDeg,
+        accuracyArcsec: 3,
+      })
       .expect(201);
     expect(Math.abs(reciprocal.body.calibration.k - 0.13)).toBeLessThan(1e-9);
 
@@ -196,7 +205,13 @@ describe('saving a calibration as a condition set', () => {
     const dip = convertAngle(horizonDip(20, { k }).value ?? NaN, 'rad', 'arcmin');
     const res = await planner
       .post('/api/v1/calibrations')
-      .send({ method: 'dip', eyeHeightM: 20, observedDipArcmin: dip, accuracyArcmin: 0.1, observedAt: '2026-10-14T09:00:00+02:00' })
+      .send({
+        method: 'dip',
+        eyeHeightM: 20,
+        observedDipArcmin: dip,
+        accuracyArcmin: 0.1,
+        observedAt: '2026-10-14T09:00:00+02:00',
+      })
       .expect(201);
     const id = res.body.calibration.id;
 
@@ -214,10 +229,7 @@ describe('saving a calibration as a condition set', () => {
     const listed = (await planner.get('/api/v1/conditions?q=observed').expect(200)).body.items.map((c: { id: string }) => c.id);
     expect(listed).toContain(set.id);
     // The sightline accepts the saved set's conditions as they are.
-    const check = await planner
-      .post('/api/v1/sightline')
-      .send({ observerHeightM: 20, conditions: set.conditions })
-      .expect(200);
+    const check = await planner.post('/api/v1/sightline').send({ observerHeightM: 20, conditions: set.conditions }).expect(200);
     expect(check.body.results).toHaveLength(3);
 
     const again = await planner.post(`/api/v1/calibrations/${id}/condition-set`).send({});

@@ -28,7 +28,9 @@ const MEASUREMENT_FIELDS = [
 ] as const;
 
 const onlyPlanners = () =>
-  AppError.forbidden('Only planners save condition sets: send the calibration without saveAsConditionSet, and ask a planner to save it.');
+  AppError.forbidden(
+    'Only planners save condition sets: send the calibration without saveAsConditionSet, and ask a planner to save it.',
+  );
 
 /** The method's measured fields alone, as stored and as the core takes them. */
 function measurementOf(input: CalibrationInput): Record<string, number | boolean | string> {
@@ -70,7 +72,11 @@ async function saveAsConditionSet(
   }
   const input = ConditionSetInputSchema.parse({ name: name ?? observedSetName(calibration.observedAt), conditions });
   const conditionSet = await conditionSetsRepository.create(actor.organizationId, input, t);
-  await auditRepository.record(actor, { action: 'create', entityType: 'condition-set', entityId: conditionSet.id, after: conditionSet }, t);
+  await auditRepository.record(
+    actor,
+    { action: 'create', entityType: 'condition-set', entityId: conditionSet.id, after: conditionSet },
+    t,
+  );
   if (!(await repo.linkConditionSet(actor.organizationId, calibration.id, conditionSet.id, t))) {
     throw AppError.conflict('This calibration is already saved as a condition set.', 'already_saved');
   }
@@ -113,7 +119,8 @@ export async function recordCalibration(
   return db.transaction(async (t) => {
     if (input.postId !== undefined) {
       const post = await postsRepository.findInOrganization(actor.organizationId, input.postId, t);
-      if (!post) throw new AppError(404, 'not_found', 'That post was not found.', { postId: 'No such post in your organisation.' });
+      if (!post)
+        throw new AppError(404, 'not_found', 'That post was not found.', { postId: 'No such post in your organisation.' });
     }
     const calibration = await repo.create(
       actor.organizationId,
@@ -129,7 +136,11 @@ export async function recordCalibration(
       },
       t,
     );
-    await auditRepository.record(actor, { action: 'create', entityType: ENTITY, entityId: calibration.id, after: calibration }, t);
+    await auditRepository.record(
+      actor,
+      { action: 'create', entityType: ENTITY, entityId: calibration.id, after: calibration },
+      t,
+    );
     if (!input.saveAsConditionSet) return { calibration, conditionSet: null };
     return saveAsConditionSet(actor, calibration, undefined, t);
   });
