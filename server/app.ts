@@ -20,6 +20,7 @@ import { auditRoutes } from './routes/audit';
 import { calibrationRoutes } from './routes/calibrations';
 import { caughtMailRoutes } from './routes/caught-mail';
 import { coverageRoutes } from './routes/coverage';
+import { drillRoutes } from './routes/drills';
 import { fixRoutes } from './routes/fixes';
 import type { CoverageQueue } from './queue/coverage-queue';
 import { authRoutes } from './routes/auth';
@@ -142,6 +143,7 @@ export function createApp({
   v1.use(libraryRoutes(db));
   v1.use(sweepWidthRoutes(db));
   v1.use(calibrationRoutes(db));
+  v1.use(drillRoutes(db));
   v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));

@@ -11,6 +11,7 @@ import { SiteTerrainModel } from './site-terrain';
 import { SweepWidthTableModel } from './sweep-width-table';
 import { CoverageLayerModel, CoverageRunModel } from './coverage-run';
 import { FieldCalibrationModel } from './field-calibration';
+import { TrainerDrillModel } from './trainer-drill';
 import { UserModel } from './user';
 
 export {
@@ -21,6 +22,7 @@ export {
   AuditEventModel,
   ConditionSetModel,
   FieldCalibrationModel,
+  TrainerDrillModel,
   PlanModel,
   PlanReviewModel,
   PlanRevisionModel,
@@ -54,6 +56,7 @@ export function initModels(sequelize: Sequelize): void {
   CoverageLayerModel.register(sequelize);
   SweepWidthTableModel.register(sequelize);
   FieldCalibrationModel.register(sequelize);
+  TrainerDrillModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
