@@ -124,6 +124,7 @@ export function createApp({
   api.use(healthRoutes(db));
   api.use(authRoutes(db, limiter));
 
+  const terrains = terrainCache ?? createTerrainCache({ files, maxBytes: config.TERRAIN_CACHE_MB * 2 ** 20 });
   const v1 = express.Router();
   v1.use(sightlineRoutes());
   v1.use(siteRoutes(db));
@@ -133,7 +134,7 @@ export function createApp({
         db,
         files,
         ingest: terrainIngest ?? createTerrainIngestRunner(),
-        cache: terrainCache ?? createTerrainCache({ files, maxBytes: config.TERRAIN_CACHE_MB * 2 ** 20 }),
+        cache: terrains,
         maxCells: config.TERRAIN_MAX_CELLS,
         hillshadeMaxEdge: DEFAULT_HILLSHADE_MAX_EDGE,
       },
@@ -143,7 +144,7 @@ export function createApp({
   v1.use(libraryRoutes(db));
   v1.use(sweepWidthRoutes(db));
   v1.use(calibrationRoutes(db));
-  v1.use(drillRoutes(db));
+  v1.use(drillRoutes(db, terrains));
   v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));

@@ -18,6 +18,9 @@ import { horizonDip } from '@/shared/sightline/horizon-dip';
 import { horizonDistance } from '@/shared/sightline/horizon-distance';
 import { refractionFromCondition } from '@/shared/sightline/refraction-from-condition';
 import { refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
+import { terrainProfile } from '@/shared/terrain/terrain-profile';
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 import { convertAngle } from '@/shared/units/angle';
 import { convertLength } from '@/shared/units/length';
 import { drillScoring } from '@/shared/trainer/score-drill-answer';
@@ -29,6 +32,18 @@ export interface DrillSetup {
     readonly name: string;
     /** Height of eye above the ground its targets stand on (the smooth-earth datum), metres. */
     readonly eyeHeightM: number;
+  } | null;
+  /**
+   * The post's site terrain, when it has one: target-visible questions are then set on the terrain
+   * profile from the post (grid bearing and distance) instead of over open water.
+   */
+  readonly terrain?: {
+    readonly raster: TerrainRaster;
+    /** The post's position in the grid's metres. */
+    readonly x: number;
+    readonly y: number;
+    /** Eye above the post's ground (structure + eye), metres. */
+    readonly eyeAboveGroundM: number;
   } | null;
   /** The organisation's targets, in a stable order (by name). */
   readonly targets: readonly Pick<
@@ -182,7 +197,103 @@ function hiddenHeightDrill(setup: DrillSetup, random: SeededRandom, units: Drill
   };
 }
 
+/** Target-visible on the post's terrain: the terrain profile to a seeded point; null when no point on the grid works. */
+function terrainVisibleDrill(setup: DrillSetup, random: SeededRandom, units: DrillUnits): GeneratedDrill | null {
+  const terrain = setup.terrain;
+  if (!terrain || !setup.post) return null;
+  const { raster } = terrain;
+  const k = refractionPreset(random.pick(EVERYDAY_K)).k;
+  const target = targetOf(setup, random);
+  const part = random.pick(['top', 'base'] as const);
+  const unit = distanceUnit(units);
+  const east = [raster.xll, raster.xll + raster.width * raster.cellSize];
+  const north = [raster.yll, raster.yll + raster.height * raster.cellSize];
+  for (let attempt = 0; attempt < 16; attempt += 1) {
+    const bearingDeg = random.int(0, 359);
+    const b = convertAngle(bearingDeg, 'deg', 'rad');
+    // How far the grid reaches along this bearing (to one cell inside its edge).
+    const reach = Math.min(
+      ...[
+        Math.sin(b) > 1e-9 ? (east[1]! - raster.cellSize - terrain.x) / Math.sin(b) : Infinity,
+        Math.sin(b) < -1e-9 ? (east[0]! + raster.cellSize - terrain.x) / Math.sin(b) : Infinity,
+        Math.cos(b) > 1e-9 ? (north[1]! - raster.cellSize - terrain.y) / Math.cos(b) : Infinity,
+        Math.cos(b) < -1e-9 ? (north[0]! + raster.cellSize - terrain.y) / Math.cos(b) : Infinity,
+      ],
+    );
+    if (!(reach > 1500)) continue;
+    const distanceM = roundDistance(random.between(1000, Math.min(reach, 40_000)), unit);
+    if (distanceM > reach) continue;
+    let profile;
+    try {
+      profile = terrainProfile(raster, {
+        observer: { x: terrain.x, y: terrain.y, eyeHeight: terrain.eyeAboveGroundM },
+        target: { x: terrain.x + distanceM * Math.sin(b), y: terrain.y + distanceM * Math.cos(b), height: target.heightM },
+        conditions: [{ refractionCoefficient: k, earthRadius: R }],
+      });
+    } catch (error) {
+      if (error instanceof TerrainInputError) continue;
+      throw error;
+    }
+    const c = profile.conditions[0]!;
+    const visible = part === 'top' ? c.targetTopSeen : c.groundSeen;
+    const blocker = c.firstObstruction;
+    const hidden = Number.isFinite(c.hiddenHeight) ? c.hiddenHeight : null;
+    const eyeAbove = terrain.eyeAboveGroundM;
+    return {
+      question: {
+        text:
+          `From ${setup.post.name} (eye ${say(eyeAbove, heightUnit(units))} above its ground), a ${target.name} ${say(target.heightM, heightUnit(units))} tall stands at grid bearing ` +
+          `${String(bearingDeg).padStart(3, '0')}°, ${say(distanceM, unit)} away on the site's terrain. With k = ${formatK(k)}, can the lookout see its ${part}? Answer yes (true) or no (false).`,
+        inputs: {
+          eyeHeightM: eyeAbove,
+          k,
+          targetHeightM: target.heightM,
+          distanceM,
+          bearingDeg,
+          targetName: target.name,
+          part,
+          basis: 'terrain',
+        },
+        unit: 'yes-no',
+      },
+      solution: {
+        correctValue: visible,
+        explanation: {
+          text:
+            `Along the terrain profile the eye is at ${num(profile.eyeElevation, 4)} m and the target's ground at ${num(profile.targetGround, 4)} m. ` +
+            (blocker
+              ? `The ground at ${say(blocker.distance, unit)} (${num(blocker.ground, 4)} m) rises into the line of sight first; `
+              : 'Nothing rises into the line of sight to the target’s ground; ') +
+            `${hidden === null ? 'all' : say(hidden, 'm')} of the target is hidden, so its ${part} is ${visible ? '' : 'not '}seen. Seen is not the same as detected.`,
+          formula: `ground lowered by (1 − k)·d²/(2R) = (1 − ${formatK(k)})·d²/(2 × ${num(R / 1000, 7)} km) along the profile; the sight line from the eye clears the highest lowered ground, or not`,
+          sideView: {
+            eyeHeightM: eyeAbove,
+            k,
+            eyeElevationM: profile.eyeElevation,
+            observerGroundM: profile.observerGround,
+            targetGroundM: profile.targetGround,
+            distanceM: profile.distance,
+            targetHeightM: target.heightM,
+            hiddenHeightM: hidden,
+            firstObstructionDistanceM: blocker?.distance ?? null,
+            firstObstructionGroundM: blocker?.ground ?? null,
+            horizonDistanceM: c.horizon?.distance ?? null,
+            part,
+            visible,
+            basis: 'terrain',
+          },
+          scoring: drillScoring('yes-no'),
+          cautions: cautions(),
+        },
+      },
+    };
+  }
+  return null;
+}
+
 function targetVisibleDrill(setup: DrillSetup, random: SeededRandom, units: DrillUnits): GeneratedDrill {
+  const onTerrain = terrainVisibleDrill(setup, random, units);
+  if (onTerrain) return onTerrain;
   const h = eyeOf(setup, random);
   const k = refractionPreset(random.pick(EVERYDAY_K)).k;
   const target = targetOf(setup, random);

@@ -85,6 +85,23 @@ describe('POST /api/v1/drills', () => {
     });
   });
 
+  it('sets target-visible on the terrain profile for a post whose site has terrain', async () => {
+    const observer = await signedInAgent(app, DEMO.observer);
+    const sites = (await observer.get('/api/v1/sites').expect(200)).body.items as { id: string }[];
+    let postId: string | null = null;
+    for (const { id } of sites) {
+      if ((await observer.get(`/api/v1/sites/${id}/terrain`)).status !== 200) continue;
+      postId = (await observer.get(`/api/v1/sites/${id}/posts`).expect(200)).body.items[0]?.id ?? null;
+      if (postId) break;
+    }
+    expect(postId).not.toBeNull();
+    const drill = (await observer.post('/api/v1/drills').send({ kind: 'target-visible', postId, seed: 2 }).expect(201)).body
+      .drill;
+    expect(drill.question).toMatchObject({ unit: 'yes-no', inputs: { basis: 'terrain', part: expect.any(String) } });
+    const answer = (await observer.post(`/api/v1/drills/${drill.id}/answer`).send({ value: true }).expect(200)).body;
+    expect(answer.explanation.sideView).toMatchObject({ basis: 'terrain', eyeElevationM: expect.any(Number) });
+  });
+
   it('sets a detection-range question from the organisation’s libraries', async () => {
     const observer = await signedInAgent(app, DEMO.observer);
     const { post } = await aPost(observer);

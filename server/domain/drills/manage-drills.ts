@@ -2,16 +2,24 @@ import { randomInt } from 'node:crypto';
 import { MAX_DRILL_SEED, type Drill, type DrillAnswer, type DrillRequest, type DrillResult } from '@/shared/schemas/drill';
 import { smoothEarthGround } from '@/shared/plans/smooth-earth-ground';
 import { SightlineInputError } from '@/shared/sightline/sightline-error';
+import { gridProjection, TerrainCrsError } from '@/shared/terrain/grid-projection';
 import { DrillUnavailableError, generateDrill, type DrillSetup } from '@/shared/trainer/generate-drill';
 import { scoreDrillAnswer } from '@/shared/trainer/score-drill-answer';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
+import { terrainRepository } from '@/server/data/repositories/terrain-repository';
 import { trainerDrillsRepository as repo } from '@/server/data/repositories/trainer-drills-repository';
 import type { Actor } from '@/server/domain/actor';
 import { AppError } from '@/server/domain/app-error';
+import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+
+/** What the drill use cases need: the database and, for questions on a site's terrain, the terrain cache. */
+export interface DrillDeps extends UseCaseDeps {
+  terrainCache?: TerrainCache | null;
+}
 
 const ENTITY = 'drill';
 const notFound = () => AppError.notFound('That drill');
@@ -21,29 +29,46 @@ const notFound = () => AppError.notFound('That drill');
  * (its height of eye above the ground its targets stand on, as the plans
  * count it) or on open water, with the organisation's targets and condition
  * sets, from the seed given or a random one (kept, so it can be set again).
+ * A target-visible question on a post whose site has terrain is set on the
+ * terrain profile from the post.
  *
  * @throws {AppError} 404 with `postId` for a post outside the organisation; 422 `drill_unavailable` with
  *   `kind` for a kind that cannot be set here (yet)
  */
-export async function createDrill({ db }: UseCaseDeps, actor: Actor, request: DrillRequest): Promise<Drill> {
+export async function createDrill({ db, terrainCache = null }: DrillDeps, actor: Actor, request: DrillRequest): Promise<Drill> {
   const seed = request.seed ?? randomInt(0, MAX_DRILL_SEED + 1);
-  return db.transaction(async (t) => {
-    let post: DrillSetup['post'] = null;
-    if (request.postId !== undefined) {
-      const found = await postsRepository.findInOrganization(actor.organizationId, request.postId, t);
-      if (!found)
-        throw new AppError(404, 'not_found', 'That post was not found.', { postId: 'No such post in your organisation.' });
-      const site = await sitesRepository.findInOrganization(actor.organizationId, found.siteId, t);
-      if (!site)
-        throw new AppError(404, 'not_found', 'That post was not found.', { postId: 'No such post in your organisation.' });
-      const datum = smoothEarthGround(site, found);
-      post = {
-        name: found.name,
-        eyeHeightM: Math.max(0, found.groundElevationM + found.structureHeightM + found.eyeHeightM - datum.groundM),
-      };
+  let post: DrillSetup['post'] = null;
+  let terrain: DrillSetup['terrain'] = null;
+  if (request.postId !== undefined) {
+    const found = await postsRepository.findInOrganization(actor.organizationId, request.postId);
+    const site = found && (await sitesRepository.findInOrganization(actor.organizationId, found.siteId));
+    if (!found || !site) {
+      throw new AppError(404, 'not_found', 'That post was not found.', { postId: 'No such post in your organisation.' });
     }
+    const datum = smoothEarthGround(site, found);
+    post = {
+      name: found.name,
+      eyeHeightM: Math.max(0, found.groundElevationM + found.structureHeightM + found.eyeHeightM - datum.groundM),
+    };
+    // Target-visible questions on a site with terrain use its terrain profile (read outside the transaction).
+    const record =
+      request.kind === 'target-visible' && terrainCache
+        ? await terrainRepository.findActive(actor.organizationId, found.siteId)
+        : null;
+    if (record && terrainCache) {
+      const raster = await terrainCache.loadTerrain(record);
+      try {
+        const at = gridProjection(raster.crs).toGrid(found.location);
+        terrain = { raster, x: at.x, y: at.y, eyeAboveGroundM: found.structureHeightM + found.eyeHeightM };
+      } catch (error) {
+        if (!(error instanceof TerrainCrsError)) throw error;
+      }
+    }
+  }
+  return db.transaction(async (t) => {
     const setup: DrillSetup = {
       post,
+      terrain,
       targets: await targetsRepository.list(actor.organizationId, t),
       conditionSets: await conditionSetsRepository.list(actor.organizationId, t),
     };

@@ -4,6 +4,7 @@ import { DrillUnavailableError, generateDrill, type DrillSetup } from '@/shared/
 import { drillScoring, scoreDrillAnswer } from '@/shared/trainer/score-drill-answer';
 import { seededRandom } from '@/shared/trainer/seeded-random';
 import { convertLength } from '@/shared/units';
+import { createTerrainRaster } from '@/shared/terrain/terrain-raster';
 import { deepFreeze, expectRelative, expectWithin } from '@/tests/unit/sightline/tolerance';
 
 const R = MEAN_EARTH_RADIUS_M;
@@ -196,4 +197,40 @@ describe('kinds not available yet', () => {
   it('a detection drill without targets or condition sets says what it needs', () => {
     expect(() => generateDrill('detection-range', 1, openWater, 'metric')).toThrow(/target and one condition set/);
   });
+});
+
+describe('target visible on a post’s terrain', () => {
+  // Invented terrain for this test: a plain at 0 m, 50 m cells, 12 km square, with a 100 m high ring wall
+  // 2 000 m (± 60 m) around the post in the middle.
+  const cell = 50;
+  const size = 240;
+  const heights = new Float32Array(size * size);
+  const centre = (size / 2) * cell;
+  for (let row = 0; row < size; row++) {
+    for (let col = 0; col < size; col++) {
+      const x = (col + 0.5) * cell - centre;
+      const y = centre - (row + 0.5) * cell;
+      heights[row * size + col] = Math.abs(Math.hypot(x, y) - 2000) <= 60 ? 100 : 0;
+    }
+  }
+  const raster = createTerrainRaster({ heights, width: size, height: size, cellSize: cell });
+  const onTerrain: DrillSetup = { ...setup, terrain: { raster, x: centre, y: centre, eyeAboveGroundM: 24 } };
+
+  it.each(SEEDS)(
+    'answers from the terrain profile: the wall hides the base, and the top only close behind it, seed %p',
+    (seed) => {
+      const { question, solution } = generateDrill('target-visible', seed, onTerrain, 'metric');
+      expect(question.inputs.basis).toBe('terrain');
+      const d = question.inputs.distanceM ?? NaN;
+      const top = question.inputs.targetHeightM ?? NaN;
+      // Plane geometry (curvature over ≤ 6 km is under 3 m at k ≥ 0, allowed for by the margins): the line from
+      // the eye (24 m) over the wall top (100 m at 1 940 m) is at 24 + 76·d/1940 m at d. Common practice, no source.
+      const lineAt = 24 + (76 * d) / 1940;
+      if (d < 1900) expect(solution.correctValue).toBe(true);
+      else if (question.inputs.part === 'base' && d > 2100) expect(solution.correctValue).toBe(false);
+      else if (question.inputs.part === 'top' && d > 2100 && top < lineAt - 5) expect(solution.correctValue).toBe(false);
+      else if (question.inputs.part === 'top' && d > 2100 && top > lineAt + 5) expect(solution.correctValue).toBe(true);
+      expect(solution.explanation.sideView.basis).toBe('terrain');
+    },
+  );
 });
