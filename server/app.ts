@@ -19,6 +19,7 @@ import { attachmentRoutes } from './routes/attachments';
 import { auditRoutes } from './routes/audit';
 import { calibrationRoutes } from './routes/calibrations';
 import { caughtMailRoutes } from './routes/caught-mail';
+import { courseRoutes } from './routes/courses';
 import { coverageRoutes } from './routes/coverage';
 import { drillRoutes } from './routes/drills';
 import { fixRoutes } from './routes/fixes';
@@ -145,6 +146,7 @@ export function createApp({
   v1.use(sweepWidthRoutes(db));
   v1.use(calibrationRoutes(db));
   v1.use(drillRoutes(db, terrains));
+  v1.use(courseRoutes(db, terrains));
   v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));

@@ -146,5 +146,15 @@ export const DrillResultSchema = z.object({
   score: z.number().min(0).max(1),
   explanation: DrillExplanationSchema,
   unit: z.enum(DRILL_ANSWER_UNITS),
+  /** For a drill of a course attempt: the attempt as it stands after this answer (scored once the last is in). */
+  attempt: z
+    .object({
+      id: z.uuid(),
+      completedAt: z.string().nullable(),
+      scorePct: z.number().nullable(),
+      passed: z.boolean().nullable(),
+    })
+    .nullable()
+    .default(null),
 });
 export type DrillResult = z.infer<typeof DrillResultSchema>;

@@ -11,6 +11,7 @@ import { SiteTerrainModel } from './site-terrain';
 import { SweepWidthTableModel } from './sweep-width-table';
 import { CoverageLayerModel, CoverageRunModel } from './coverage-run';
 import { FieldCalibrationModel } from './field-calibration';
+import { TrainerCourseAssigneeModel, TrainerCourseAttemptModel, TrainerCourseModel } from './trainer-course';
 import { TrainerDrillModel } from './trainer-drill';
 import { UserModel } from './user';
 
@@ -22,6 +23,9 @@ export {
   AuditEventModel,
   ConditionSetModel,
   FieldCalibrationModel,
+  TrainerCourseAssigneeModel,
+  TrainerCourseAttemptModel,
+  TrainerCourseModel,
   TrainerDrillModel,
   PlanModel,
   PlanReviewModel,
@@ -57,6 +61,9 @@ export function initModels(sequelize: Sequelize): void {
   SweepWidthTableModel.register(sequelize);
   FieldCalibrationModel.register(sequelize);
   TrainerDrillModel.register(sequelize);
+  TrainerCourseModel.register(sequelize);
+  TrainerCourseAssigneeModel.register(sequelize);
+  TrainerCourseAttemptModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });

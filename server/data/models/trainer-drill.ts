@@ -23,6 +23,8 @@ export class TrainerDrillModel extends Model<InferAttributes<TrainerDrillModel>,
   declare answer: CreationOptional<{ value: number | boolean } | null>;
   declare score: CreationOptional<number | null>;
   declare answeredAt: CreationOptional<Date | null>;
+  declare attemptId: CreationOptional<string | null>;
+  declare position: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -41,6 +43,8 @@ export class TrainerDrillModel extends Model<InferAttributes<TrainerDrillModel>,
         answer: { type: DataTypes.JSONB, allowNull: true },
         score: { type: DataTypes.DOUBLE, allowNull: true },
         answeredAt: { type: DataTypes.DATE, allowNull: true },
+        attemptId: { type: DataTypes.UUID, allowNull: true },
+        position: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -33,6 +33,8 @@ export interface NewDrill {
   units: DrillUnits;
   question: DrillQuestion;
   solution: GeneratedDrill['solution'];
+  attemptId?: string | null;
+  position?: number | null;
 }
 
 /** Drills of one organisation, each one person's, as plain objects (the solution only once answered). */
@@ -53,9 +55,39 @@ export const trainerDrillsRepository = {
     userId: string,
     id: string,
     transaction: Transaction,
-  ): Promise<{ question: DrillQuestion; solution: GeneratedDrill['solution']; answered: boolean } | null> {
+  ): Promise<{
+    question: DrillQuestion;
+    solution: GeneratedDrill['solution'];
+    answered: boolean;
+    attemptId: string | null;
+  } | null> {
     const row = await TrainerDrillModel.findOne({ where: { id, organizationId, userId }, transaction });
-    return row ? { question: row.question, solution: row.solution, answered: row.answeredAt !== null } : null;
+    return row
+      ? { question: row.question, solution: row.solution, answered: row.answeredAt !== null, attemptId: row.attemptId ?? null }
+      : null;
+  },
+
+  /** The drills of one attempt, in order. */
+  async ofAttempt(organizationId: string, attemptId: string, transaction?: Transaction): Promise<Drill[]> {
+    const rows = await TrainerDrillModel.findAll({
+      where: { organizationId, attemptId },
+      order: [['position', 'ASC']],
+      transaction,
+    });
+    return rows.map(toDrill);
+  },
+
+  /** Every answered drill of these attempts: kind and score, for results by kind. */
+  async scoresOfAttempts(
+    organizationId: string,
+    attemptIds: string[],
+  ): Promise<{ attemptId: string; kind: DrillKind; score: number }[]> {
+    if (attemptIds.length === 0) return [];
+    const rows = await TrainerDrillModel.findAll({
+      where: { organizationId, attemptId: { [Op.in]: attemptIds }, answeredAt: { [Op.not]: null } },
+      attributes: ['attemptId', 'kind', 'score'],
+    });
+    return rows.map((r) => ({ attemptId: r.attemptId!, kind: r.kind, score: r.score ?? 0 }));
   },
 
   /**

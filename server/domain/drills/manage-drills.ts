@@ -1,5 +1,14 @@
 import { randomInt } from 'node:crypto';
-import { MAX_DRILL_SEED, type Drill, type DrillAnswer, type DrillRequest, type DrillResult } from '@/shared/schemas/drill';
+import type { Transaction } from 'sequelize';
+import {
+  MAX_DRILL_SEED,
+  type Drill,
+  type DrillAnswer,
+  type DrillKind,
+  type DrillRequest,
+  type DrillResult,
+  type DrillUnits,
+} from '@/shared/schemas/drill';
 import { smoothEarthGround } from '@/shared/plans/smooth-earth-ground';
 import { SightlineInputError } from '@/shared/sightline/sightline-error';
 import { gridProjection, TerrainCrsError } from '@/shared/terrain/grid-projection';
@@ -10,6 +19,7 @@ import { conditionSetsRepository, targetsRepository } from '@/server/data/reposi
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import { terrainRepository } from '@/server/data/repositories/terrain-repository';
+import { trainerCoursesRepository as coursesRepository } from '@/server/data/repositories/trainer-courses-repository';
 import { trainerDrillsRepository as repo } from '@/server/data/repositories/trainer-drills-repository';
 import type { Actor } from '@/server/domain/actor';
 import { AppError } from '@/server/domain/app-error';
@@ -35,75 +45,105 @@ const notFound = () => AppError.notFound('That drill');
  * @throws {AppError} 404 with `postId` for a post outside the organisation; 422 `drill_unavailable` with
  *   `kind` for a kind that cannot be set here (yet)
  */
-export async function createDrill({ db, terrainCache = null }: DrillDeps, actor: Actor, request: DrillRequest): Promise<Drill> {
+export async function createDrill(deps: DrillDeps, actor: Actor, request: DrillRequest): Promise<Drill> {
   const seed = request.seed ?? randomInt(0, MAX_DRILL_SEED + 1);
-  let post: DrillSetup['post'] = null;
-  let terrain: DrillSetup['terrain'] = null;
-  if (request.postId !== undefined) {
-    const found = await postsRepository.findInOrganization(actor.organizationId, request.postId);
-    const site = found && (await sitesRepository.findInOrganization(actor.organizationId, found.siteId));
-    if (!found || !site) {
-      throw new AppError(404, 'not_found', 'That post was not found.', { postId: 'No such post in your organisation.' });
-    }
-    const datum = smoothEarthGround(site, found);
-    post = {
-      name: found.name,
-      eyeHeightM: Math.max(0, found.groundElevationM + found.structureHeightM + found.eyeHeightM - datum.groundM),
-    };
-    // Target-visible questions on a site with terrain use its terrain profile (read outside the transaction).
-    const record =
-      request.kind === 'target-visible' && terrainCache
-        ? await terrainRepository.findActive(actor.organizationId, found.siteId)
-        : null;
-    if (record && terrainCache) {
-      const raster = await terrainCache.loadTerrain(record);
-      try {
-        const at = gridProjection(raster.crs).toGrid(found.location);
-        terrain = { raster, x: at.x, y: at.y, eyeAboveGroundM: found.structureHeightM + found.eyeHeightM };
-      } catch (error) {
-        if (!(error instanceof TerrainCrsError)) throw error;
-      }
-    }
+  const place = await drillPlace(deps, actor, request.kind, request.postId);
+  return deps.db.transaction((t) => insertDrill(actor, { ...request, seed, postId: request.postId ?? null, place }, t));
+}
+
+/** Where a drill is set: the post's height of eye and, for target-visible, its terrain. */
+export interface DrillPlace {
+  post: DrillSetup['post'];
+  terrain: DrillSetup['terrain'];
+}
+
+/**
+ * Resolves a post (404 with `postId` outside the organisation) into the height of eye above the ground its
+ * targets stand on, as the plans count it, and for target-visible questions its site's terrain (read
+ * outside any transaction); no post: open water.
+ */
+export async function drillPlace(
+  { terrainCache = null }: DrillDeps,
+  actor: Actor,
+  kind: DrillKind,
+  postId: string | null | undefined,
+): Promise<DrillPlace> {
+  if (postId === undefined || postId === null) return { post: null, terrain: null };
+  const found = await postsRepository.findInOrganization(actor.organizationId, postId);
+  const site = found && (await sitesRepository.findInOrganization(actor.organizationId, found.siteId));
+  if (!found || !site) {
+    throw new AppError(404, 'not_found', 'That post was not found.', { postId: 'No such post in your organisation.' });
   }
-  return db.transaction(async (t) => {
-    const setup: DrillSetup = {
-      post,
-      terrain,
-      targets: await targetsRepository.list(actor.organizationId, t),
-      conditionSets: await conditionSetsRepository.list(actor.organizationId, t),
-    };
-    let generated;
-    try {
-      generated = generateDrill(request.kind, seed, setup, request.units);
-    } catch (error) {
-      if (error instanceof DrillUnavailableError) {
-        throw new AppError(422, 'drill_unavailable', error.message, { kind: error.message });
-      }
-      if (error instanceof SightlineInputError) {
-        throw new AppError(422, 'drill_unavailable', 'This post cannot carry that drill.', { postId: error.message });
-      }
-      throw error;
+  const datum = smoothEarthGround(site, found);
+  const post = {
+    name: found.name,
+    eyeHeightM: Math.max(0, found.groundElevationM + found.structureHeightM + found.eyeHeightM - datum.groundM),
+  };
+  const record =
+    kind === 'target-visible' && terrainCache ? await terrainRepository.findActive(actor.organizationId, found.siteId) : null;
+  if (!record || !terrainCache) return { post, terrain: null };
+  const raster = await terrainCache.loadTerrain(record);
+  try {
+    const at = gridProjection(raster.crs).toGrid(found.location);
+    return { post, terrain: { raster, x: at.x, y: at.y, eyeAboveGroundM: found.structureHeightM + found.eyeHeightM } };
+  } catch (error) {
+    if (!(error instanceof TerrainCrsError)) throw error;
+    return { post, terrain: null };
+  }
+}
+
+/** Generates one drill with the organisation's libraries and stores it with its audit event, in `t`. */
+export async function insertDrill(
+  actor: Actor,
+  d: {
+    kind: DrillKind;
+    seed: number;
+    units: DrillUnits;
+    postId: string | null;
+    place: DrillPlace;
+    attemptId?: string | null;
+    position?: number | null;
+  },
+  t: Transaction,
+): Promise<Drill> {
+  const setup: DrillSetup = {
+    ...d.place,
+    targets: await targetsRepository.list(actor.organizationId, t),
+    conditionSets: await conditionSetsRepository.list(actor.organizationId, t),
+  };
+  let generated;
+  try {
+    generated = generateDrill(d.kind, d.seed, setup, d.units);
+  } catch (error) {
+    if (error instanceof DrillUnavailableError) {
+      throw new AppError(422, 'drill_unavailable', error.message, { kind: error.message });
     }
-    const drill = await repo.create(
-      actor.organizationId,
-      {
-        userId: actor.userId,
-        postId: request.postId ?? null,
-        kind: request.kind,
-        seed,
-        units: request.units,
-        question: generated.question,
-        solution: generated.solution,
-      },
-      t,
-    );
-    await auditRepository.record(
-      actor,
-      { action: 'create', entityType: ENTITY, entityId: drill.id, after: { kind: drill.kind, seed, postId: drill.postId } },
-      t,
-    );
-    return drill;
-  });
+    if (error instanceof SightlineInputError) {
+      throw new AppError(422, 'drill_unavailable', 'This post cannot carry that drill.', { postId: error.message });
+    }
+    throw error;
+  }
+  const drill = await repo.create(
+    actor.organizationId,
+    {
+      userId: actor.userId,
+      postId: d.postId,
+      kind: d.kind,
+      seed: d.seed,
+      units: d.units,
+      question: generated.question,
+      solution: generated.solution,
+      attemptId: d.attemptId ?? null,
+      position: d.position ?? null,
+    },
+    t,
+  );
+  await auditRepository.record(
+    actor,
+    { action: 'create', entityType: ENTITY, entityId: drill.id, after: { kind: drill.kind, seed: d.seed, postId: drill.postId } },
+    t,
+  );
+  return drill;
 }
 
 /** The person's own drill (with its result once answered). */
@@ -142,5 +182,17 @@ export const answerDrill = ({ db }: UseCaseDeps, actor: Actor, id: string, answe
       { action: 'answer', entityType: ENTITY, entityId: id, after: { value: answer.value, score } },
       t,
     );
-    return { correctValue: solution.correctValue, score, explanation: solution.explanation, unit: question.unit };
+    const attempt = found.attemptId ? await coursesRepository.completeIfAnswered(actor.organizationId, found.attemptId, t) : null;
+    return {
+      correctValue: solution.correctValue,
+      score,
+      explanation: solution.explanation,
+      unit: question.unit,
+      attempt: attempt && {
+        id: attempt.id,
+        completedAt: attempt.completedAt,
+        scorePct: attempt.scorePct,
+        passed: attempt.passed,
+      },
+    };
   });
