@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { CourseAssignSchema, CourseInputSchema } from '@/shared/schemas/course';
+import { CourseAssignSchema, CourseInputSchema, QualificationQuerySchema } from '@/shared/schemas/course';
 import {
   assignCourse,
   courseResults,
@@ -9,6 +9,7 @@ import {
   getAttempt,
   getCourse,
   listCourses,
+  listQualifications,
   startAttempt,
 } from '@/server/domain/courses/manage-courses';
 import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
@@ -52,6 +53,10 @@ export function courseRoutes(db: Sequelize, terrainCache: TerrainCache) {
   router.get('/courses/:id/results', requireUser, async (req, res) => {
     const { id } = parseOrThrow(IdParams, req.params, 'address');
     res.json(await courseResults(actorOf(req), id));
+  });
+  router.get('/qualifications', requireUser, async (req, res) => {
+    const query = parseOrThrow(QualificationQuerySchema, req.query, 'query');
+    res.json({ items: await listQualifications(actorOf(req), query) });
   });
   return router;
 }

@@ -108,3 +108,23 @@ export const CoursePersonResultSchema = z.object({
 export type CoursePersonResult = z.infer<typeof CoursePersonResultSchema>;
 
 export const CourseResultsSchema = z.object({ course: CourseSchema, people: z.array(CoursePersonResultSchema) });
+
+/** Query of `GET /api/v1/qualifications`: one person and/or one course (observers: always themselves). */
+export const QualificationQuerySchema = z.object({
+  userId: z.uuid({ error: 'Not a person id.' }).optional(),
+  courseId: z.uuid({ error: 'Not a course id.' }).optional(),
+});
+export type QualificationQuery = z.infer<typeof QualificationQuerySchema>;
+
+/** A person's qualification by one course: passed within its validity (for the roster and the briefing). */
+export const QualificationSchema = z.object({
+  user: Person,
+  course: z.object({ id: z.uuid(), name: z.string(), validityDays: z.number().int() }),
+  /** Assigned and not qualified now: the course is due. */
+  due: z.boolean(),
+  qualified: z.boolean(),
+  qualifiedUntil: z.string().nullable(),
+  lastPassedAt: z.string().nullable(),
+});
+export type Qualification = z.infer<typeof QualificationSchema>;
+export const QualificationListSchema = z.object({ items: z.array(QualificationSchema) });

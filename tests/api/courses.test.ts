@@ -1,6 +1,6 @@
 import type { Express } from 'express';
 import type { Agent } from 'supertest';
-import { CourseAttemptSchema, CourseResultsSchema, CourseSchema } from '@/shared/schemas/course';
+import { CourseAttemptSchema, CourseResultsSchema, CourseSchema, QualificationListSchema } from '@/shared/schemas/course';
 import { DrillResultSchema, type Drill } from '@/shared/schemas/drill';
 import { hiddenHeight, horizonDistance } from '@/shared/sightline';
 import { createTestApp } from '@/tests/support/test-db';
@@ -129,6 +129,15 @@ describe('courses', () => {
       { kind: 'horizon-distance', answered: 4, meanScore: 0.5 },
       { kind: 'hidden-height', answered: 2, meanScore: 0.5 },
     ]);
+    // The qualification list (for the roster and the briefing) says the same, for this course.
+    const quals = QualificationListSchema.parse(
+      (await planner.get(`/api/v1/qualifications?userId=${observerId}&courseId=${id}`).expect(200)).body,
+    );
+    expect(quals.items).toEqual([
+      expect.objectContaining({ qualified: true, due: false, qualifiedUntil: person.qualifiedUntil }),
+    ]);
+    const mineOnly = (await observer.get('/api/v1/qualifications').expect(200)).body.items;
+    expect(mineOnly.every((q: { user: { id: string } }) => q.user.id === observerId)).toBe(true);
     const own = CourseResultsSchema.parse((await observer.get(`/api/v1/courses/${id}/results`).expect(200)).body);
     expect(own.people.map((p) => p.user.id)).toEqual([await idOf(observer)]);
   });

@@ -1,5 +1,12 @@
 import { randomInt } from 'node:crypto';
-import type { Course, CourseAttempt, CourseInput, CoursePersonResult } from '@/shared/schemas/course';
+import type {
+  Course,
+  CourseAttempt,
+  CourseInput,
+  CoursePersonResult,
+  Qualification,
+  QualificationQuery,
+} from '@/shared/schemas/course';
 import { MAX_DRILL_SEED, type DrillKind } from '@/shared/schemas/drill';
 import { seededRandom } from '@/shared/trainer/seeded-random';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
@@ -191,4 +198,31 @@ export async function courseResults(actor: Actor, courseId: string, now = new Da
     });
   }
   return { course, people: results };
+}
+
+/**
+ * Qualifications by course and person, for the watch roster and the briefing: every assigned person (and
+ * anyone who took an attempt) of each course, qualified while a passed attempt is within the validity, `due`
+ * when assigned and not qualified. Observers get their own only.
+ */
+export async function listQualifications(actor: Actor, query: QualificationQuery, now = new Date()): Promise<Qualification[]> {
+  const userId = seesOnlyOwn(actor) ? actor.userId : query.userId;
+  const courses = (await listCourses(actor)).filter((c) => query.courseId === undefined || c.id === query.courseId);
+  const out: Qualification[] = [];
+  for (const course of courses) {
+    const { people } = await courseResults(actor, course.id, now);
+    for (const person of people) {
+      if (userId !== undefined && person.user.id !== userId) continue;
+      const assigned = course.assignees.some((a) => a.id === person.user.id);
+      out.push({
+        user: person.user,
+        course: { id: course.id, name: course.name, validityDays: course.validityDays },
+        due: assigned && !person.qualified,
+        qualified: person.qualified,
+        qualifiedUntil: person.qualifiedUntil,
+        lastPassedAt: person.lastPassedAt,
+      });
+    }
+  }
+  return out;
 }
