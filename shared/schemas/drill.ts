@@ -156,5 +156,7 @@ export const DrillResultSchema = z.object({
     })
     .nullable()
     .default(null),
+  /** True when this exact answer had been received before (a resend): nothing was changed or counted again. */
+  replayed: z.boolean().default(false),
 });
 export type DrillResult = z.infer<typeof DrillResultSchema>;

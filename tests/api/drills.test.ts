@@ -1,6 +1,6 @@
 import type { Express } from 'express';
 import type { Agent } from 'supertest';
-import { TrainerDrillModel } from '@/server/data/models';
+import { AuditEventModel, TrainerDrillModel } from '@/server/data/models';
 import { DrillResultSchema, DrillSchema } from '@/shared/schemas/drill';
 import { smoothEarthGround } from '@/shared/plans/smooth-earth-ground';
 import { horizonDistance } from '@/shared/sightline';
@@ -168,7 +168,12 @@ describe('POST /api/v1/drills/:id/answer', () => {
   it('is answered once: a second answer is 409, two at once land one, and the database refuses a change', async () => {
     const observer = await signedInAgent(app, DEMO.observer);
     const drill = (await observer.post('/api/v1/drills').send({ kind: 'refraction-effect', seed: 5 }).expect(201)).body.drill;
-    await observer.post(`/api/v1/drills/${drill.id}/answer`).send({ value: 10 }).expect(200);
+    const first = (await observer.post(`/api/v1/drills/${drill.id}/answer`).send({ value: 10 }).expect(200)).body;
+    expect(first.replayed).toBe(false);
+    // The same answer sent again (a phone resending after a lost response) gets the same result back, counted once.
+    const resent = (await observer.post(`/api/v1/drills/${drill.id}/answer`).send({ value: 10 }).expect(200)).body;
+    expect(resent).toEqual({ ...first, replayed: true });
+    expect(await AuditEventModel.count({ where: { entityType: 'drill', entityId: drill.id, action: 'answer' } })).toBe(1);
     const again = await observer.post(`/api/v1/drills/${drill.id}/answer`).send({ value: 11 });
     expect(again.status).toBe(409);
     expect(again.body.error.code).toBe('already_answered');
@@ -178,6 +183,13 @@ describe('POST /api/v1/drills/:id/answer', () => {
       [1, 2, 3, 4].map((value) => observer.post(`/api/v1/drills/${race.id}/answer`).send({ value })),
     );
     expect(answers.map((a) => a.status).sort()).toEqual([200, 409, 409, 409]);
+
+    // The same answer sent twice at once: both get the result, only one counts.
+    const twice = (await observer.post('/api/v1/drills').send({ kind: 'refraction-effect', seed: 7 }).expect(201)).body.drill;
+    const both = await Promise.all([1, 2].map(() => observer.post(`/api/v1/drills/${twice.id}/answer`).send({ value: 12 })));
+    expect(both.map((a) => a.status)).toEqual([200, 200]);
+    expect(both.map((a) => a.body.replayed).sort()).toEqual([false, true]);
+    expect(await AuditEventModel.count({ where: { entityType: 'drill', entityId: twice.id, action: 'answer' } })).toBe(1);
 
     await expect(TrainerDrillModel.update({ score: 1 }, { where: { id: drill.id } })).rejects.toThrow(
       /answered and cannot change/,

@@ -58,13 +58,13 @@ export const trainerDrillsRepository = {
   ): Promise<{
     question: DrillQuestion;
     solution: GeneratedDrill['solution'];
-    answered: boolean;
+    answered: { value: number | boolean; score: number } | null;
     attemptId: string | null;
   } | null> {
     const row = await TrainerDrillModel.findOne({ where: { id, organizationId, userId }, transaction });
-    return row
-      ? { question: row.question, solution: row.solution, answered: row.answeredAt !== null, attemptId: row.attemptId ?? null }
-      : null;
+    if (!row) return null;
+    const answered = row.answeredAt && row.answer && row.score !== null ? { value: row.answer.value, score: row.score } : null;
+    return { question: row.question, solution: row.solution, answered, attemptId: row.attemptId ?? null };
   },
 
   /** The drills of one attempt, in order. */

@@ -153,13 +153,37 @@ export async function getDrill(actor: Actor, id: string): Promise<Drill> {
   return drill;
 }
 
+/** The answer's response: the solution, the score and, for a course, the attempt as it stands. */
+async function resultOf(
+  actor: Actor,
+  found: NonNullable<Awaited<ReturnType<typeof repo.solutionOf>>>,
+  score: number,
+  replayed: boolean,
+  t: Transaction,
+): Promise<DrillResult> {
+  const attempt = found.attemptId ? await coursesRepository.completeIfAnswered(actor.organizationId, found.attemptId, t) : null;
+  return {
+    correctValue: found.solution.correctValue,
+    score,
+    explanation: found.solution.explanation,
+    unit: found.question.unit,
+    attempt: attempt && { id: attempt.id, completedAt: attempt.completedAt, scorePct: attempt.scorePct, passed: attempt.passed },
+    replayed,
+  };
+}
+
+const alreadyAnswered = () => AppError.conflict('This drill is already answered; set a new one.', 'already_answered');
+
 /**
  * Scores the one answer to the person's own drill and returns the correct
  * value, the score and the explanation. A second answer is refused by the
  * database (a conditional update in the same transaction): 409 `already_answered`.
+ * The same answer sent again (a phone resending after a lost response) gets
+ * the stored result back, marked `replayed`, and changes nothing — so an
+ * answer kept offline is counted exactly once.
  *
  * @throws {AppError} 404 for a drill that is not the caller's; 400 with `value` for an answer of the wrong
- *   sort (a number for a yes-no question, or the reverse); 409 `already_answered`
+ *   sort (a number for a yes-no question, or the reverse); 409 `already_answered` for a different answer
  */
 export const answerDrill = ({ db }: UseCaseDeps, actor: Actor, id: string, answer: DrillAnswer): Promise<DrillResult> =>
   db.transaction(async (t) => {
@@ -172,27 +196,21 @@ export const answerDrill = ({ db }: UseCaseDeps, actor: Actor, id: string, answe
         value: yesNo ? 'Answer yes (true) or no (false).' : `Answer with a number of ${question.unit}.`,
       });
     }
-    if (found.answered) throw AppError.conflict('This drill is already answered; set a new one.', 'already_answered');
+    if (found.answered) {
+      if (found.answered.value !== answer.value) throw alreadyAnswered();
+      return resultOf(actor, found, found.answered.score, true, t);
+    }
     const score = scoreDrillAnswer(solution.correctValue, answer.value, question.unit);
     if (!(await repo.answerOnce(actor.organizationId, actor.userId, id, { value: answer.value }, score, t))) {
-      throw AppError.conflict('This drill is already answered; set a new one.', 'already_answered');
+      // Someone answered between the read and the write (the update waited for them): the same answer replays.
+      const now = await repo.solutionOf(actor.organizationId, actor.userId, id, t);
+      if (now?.answered && now.answered.value === answer.value) return resultOf(actor, now, now.answered.score, true, t);
+      throw alreadyAnswered();
     }
     await auditRepository.record(
       actor,
       { action: 'answer', entityType: ENTITY, entityId: id, after: { value: answer.value, score } },
       t,
     );
-    const attempt = found.attemptId ? await coursesRepository.completeIfAnswered(actor.organizationId, found.attemptId, t) : null;
-    return {
-      correctValue: solution.correctValue,
-      score,
-      explanation: solution.explanation,
-      unit: question.unit,
-      attempt: attempt && {
-        id: attempt.id,
-        completedAt: attempt.completedAt,
-        scorePct: attempt.scorePct,
-        passed: attempt.passed,
-      },
-    };
+    return resultOf(actor, found, score, false, t);
   });
