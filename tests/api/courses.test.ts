@@ -162,6 +162,19 @@ describe('courses', () => {
     expect(assigned.body.course.assignees.map((a: { id: string }) => a.id)).toEqual([await idOf(reviewer)]);
     const results = CourseResultsSchema.parse((await planner.get(`/api/v1/courses/${id}/results`).expect(200)).body);
     expect(results.people).toEqual([expect.objectContaining({ qualified: false, qualifiedUntil: null, attempts: [] })]);
+    // Putting them on a watch warns the planner, and keeps the watch.
+    const watch = await planner.post('/api/v1/assignments').send({
+      postId: await aPostId(planner),
+      userId: await idOf(reviewer),
+      startsAt: '2031-03-01T08:00:00Z',
+      endsAt: '2031-03-01T16:00:00Z',
+    });
+    expect(watch.status).toBe(201);
+    expect(watch.body.assignment.id).toEqual(expect.any(String));
+    expect(watch.body.warnings).toEqual([
+      expect.stringMatching(/has not passed “Horizon and hidden height, autumn” yet.*warning only/),
+    ]);
+
     const attempt = (await reviewer.post(`/api/v1/courses/${id}/attempts`).expect(201)).body.attempt;
     // No posts in the course: open water.
     expect(attempt.drills.every((d: Drill) => d.postId === null)).toBe(true);

@@ -226,3 +226,20 @@ export async function listQualifications(actor: Actor, query: QualificationQuery
   }
   return out;
 }
+
+/**
+ * What a planner is told when putting someone on a watch: one line per course assigned to that person in
+ * which they are not qualified now. A warning, not a refusal: the course record is the agency's training
+ * record, and the planner may know what it does not (a course just set, an equivalent qualification, no one
+ * else free); the decision stays with the planner and the agency's procedures.
+ */
+export async function qualificationWarnings(actor: Actor, userId: string, now = new Date()): Promise<string[]> {
+  const items = await listQualifications(actor, { userId }, now);
+  return items
+    .filter((q) => q.due)
+    .map((q) =>
+      q.qualifiedUntil
+        ? `${q.user.name} has not passed “${q.course.name}” again since the qualification ran out on ${q.qualifiedUntil.slice(0, 10)}. The watch is kept: a warning only, the decision is yours.`
+        : `${q.user.name} has not passed “${q.course.name}” yet. The watch is kept: a warning only, the decision is yours.`,
+    );
+}
