@@ -16,35 +16,40 @@ const uuids = (what: string, max: number) =>
     .refine((ids) => new Set(ids).size === ids.length, `A ${what} is listed twice.`);
 
 /** Body of `POST /api/v1/courses`. */
-export const CourseInputSchema = z.object({
-  name: z.string({ error: 'Name the course.' }).trim().min(1, 'Name the course.').max(120, 'At most 120 characters.'),
-  /** The kinds of question, each asked in turn. */
-  kinds: z
-    .array(z.enum(AVAILABLE_DRILL_KINDS, { error: `Kinds: ${AVAILABLE_DRILL_KINDS.join(', ')}.` }))
-    .min(1, 'Choose at least one kind of question.')
-    .refine((kinds) => new Set(kinds).size === kinds.length, 'A kind is listed twice.'),
-  /** The organisation's posts the questions are set on; empty: open water. */
-  postIds: uuids('post', 50).default([]),
-  questionCount: z
-    .number({ error: 'The number of questions must be a whole number.' })
-    .int('The number of questions must be a whole number.')
-    .min(1, 'At least 1 question.')
-    .max(50, 'At most 50 questions.'),
-  /** The mean score needed to pass, percent. */
-  passMarkPct: z
-    .number({ error: 'The pass mark must be a percentage.' })
-    .min(0, 'The pass mark is 0 to 100 %.')
-    .max(100, 'The pass mark is 0 to 100 %.'),
-  /** How long a pass keeps someone qualified, days. */
-  validityDays: z
-    .number({ error: 'The validity must be a whole number of days.' })
-    .int('The validity must be a whole number of days.')
-    .min(1, 'At least 1 day.')
-    .max(3650, 'At most 3 650 days.'),
-  units: z.enum(UNIT_SYSTEM_IDS, { error: `Units: ${UNIT_SYSTEM_IDS.join(', ')}.` }).default('metric'),
-  /** People of the organisation to assign it to. */
-  assigneeIds: uuids('person', 500).default([]),
-});
+export const CourseInputSchema = z
+  .object({
+    name: z.string({ error: 'Name the course.' }).trim().min(1, 'Name the course.').max(120, 'At most 120 characters.'),
+    /** The kinds of question, each asked in turn. */
+    kinds: z
+      .array(z.enum(AVAILABLE_DRILL_KINDS, { error: `Kinds: ${AVAILABLE_DRILL_KINDS.join(', ')}.` }))
+      .min(1, 'Choose at least one kind of question.')
+      .refine((kinds) => new Set(kinds).size === kinds.length, 'A kind is listed twice.'),
+    /** The organisation's posts the questions are set on; empty: open water. */
+    postIds: uuids('post', 50).default([]),
+    questionCount: z
+      .number({ error: 'The number of questions must be a whole number.' })
+      .int('The number of questions must be a whole number.')
+      .min(1, 'At least 1 question.')
+      .max(50, 'At most 50 questions.'),
+    /** The mean score needed to pass, percent. */
+    passMarkPct: z
+      .number({ error: 'The pass mark must be a percentage.' })
+      .min(0, 'The pass mark is 0 to 100 %.')
+      .max(100, 'The pass mark is 0 to 100 %.'),
+    /** How long a pass keeps someone qualified, days. */
+    validityDays: z
+      .number({ error: 'The validity must be a whole number of days.' })
+      .int('The validity must be a whole number of days.')
+      .min(1, 'At least 1 day.')
+      .max(3650, 'At most 3 650 days.'),
+    units: z.enum(UNIT_SYSTEM_IDS, { error: `Units: ${UNIT_SYSTEM_IDS.join(', ')}.` }).default('metric'),
+    /** People of the organisation to assign it to. */
+    assigneeIds: uuids('person', 500).default([]),
+  })
+  .refine((c) => !c.kinds.includes('bearing-fix') || c.postIds.length > 0, {
+    message: 'Bearing-fix questions need posts (each with a second post on its site).',
+    path: ['kinds'],
+  });
 export type CourseInput = z.infer<typeof CourseInputSchema>;
 
 /** Body of `POST /api/v1/courses/:id/assignees`. */

@@ -7,7 +7,7 @@ import { UNIT_SYSTEM_IDS } from './site';
  * stated tolerance bands and explained with the numbers.
  */
 
-/** Every kind the API names; `landmark-range` and `bearing-fix` are answered 422 until they can be done properly. */
+/** Every kind the API names; `landmark-range` is answered 422 until it can be done properly. */
 export const DRILL_KINDS = [
   'horizon-distance',
   'hidden-height',
@@ -26,6 +26,7 @@ export const AVAILABLE_DRILL_KINDS = [
   'target-visible',
   'detection-range',
   'refraction-effect',
+  'bearing-fix',
 ] as const satisfies readonly DrillKind[];
 
 /** Largest seed: seeds are whole numbers 0 … 2³¹ − 1 (a PostgreSQL integer). */

@@ -8,7 +8,12 @@ import type {
   DrillUnits,
 } from '@/shared/schemas/drill';
 import type { RefractionCondition } from '@/shared/schemas/sightline';
-import { MEAN_EARTH_RADIUS_M } from '@/shared/physics/constants';
+import { intersectBearings } from '@/shared/fixes/intersect-bearings';
+import { offsetPoint } from '@/shared/fixes/offset-point';
+import { FixError } from '@/shared/fixes/fix-error';
+import { geodesicInverse } from '@/shared/geo/geodesic-inverse';
+import type { LatLon } from '@/shared/geo/types';
+import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import { detectionInputsOf } from '@/shared/sightline/detection-inputs';
 import { effectiveRadius } from '@/shared/sightline/effective-radius';
 import { evaluateSightline, SIGHTLINE_CAUTIONS } from '@/shared/sightline/evaluate-sightline';
@@ -32,7 +37,11 @@ export interface DrillSetup {
     readonly name: string;
     /** Height of eye above the ground its targets stand on (the smooth-earth datum), metres. */
     readonly eyeHeightM: number;
+    /** Where it stands, WGS84 degrees (bearing-fix questions). */
+    readonly location?: LatLon;
   } | null;
+  /** Other posts of the same site, in a stable order (by name): the second post of a bearing-fix question. */
+  readonly otherPosts?: readonly { readonly name: string; readonly location: LatLon }[];
   /**
    * The post's site terrain, when it has one: target-visible questions are then set on the terrain
    * profile from the post (grid bearing and distance) instead of over open water.
@@ -458,6 +467,99 @@ function refractionEffectDrill(setup: DrillSetup, random: SeededRandom, units: D
   };
 }
 
+/** Cut angles a question accepts, degrees from parallel: a fix outside 30°…150° is poor (common practice). */
+const FIX_CUT_MIN_DEG = 30;
+
+function bearingFixDrill(setup: DrillSetup, random: SeededRandom, units: DrillUnits): GeneratedDrill {
+  const a = setup.post;
+  const others = setup.otherPosts ?? [];
+  if (!a?.location || others.length === 0) {
+    throw new DrillUnavailableError(
+      'Bearing-fix drills are not available yet for this post: they need the post and a second post on the same site.',
+    );
+  }
+  const b = random.pick(others);
+  const baseline = geodesicInverse(a.location, b.location);
+  const unit = distanceUnit(units);
+  for (let attempt = 0; attempt < 24; attempt += 1) {
+    // A smoke 2–30 km from the first post (at least half the baseline), anywhere around it.
+    const d = random.between(Math.max(2000, baseline.distanceM / 2), Math.max(30_000, baseline.distanceM * 2));
+    const azimuth = convertAngle(random.int(0, 359) + random.next(), 'deg', 'rad');
+    const smoke = offsetPoint(a.location, d * Math.sin(azimuth), d * Math.cos(azimuth));
+    // Bearings as lookouts report them: whole degrees true.
+    const bearingA = Math.round(geodesicInverse(a.location, smoke).azimuthDeg) % 360;
+    const bearingB = Math.round(geodesicInverse(b.location, smoke).azimuthDeg) % 360;
+    let fix;
+    try {
+      fix = intersectBearings(
+        { from: a.location, bearingRad: convertAngle(bearingA, 'deg', 'rad'), sigmaRad: convertAngle(1, 'deg', 'rad') },
+        { from: b.location, bearingRad: convertAngle(bearingB, 'deg', 'rad'), sigmaRad: convertAngle(1, 'deg', 'rad') },
+      );
+    } catch (error) {
+      if (error instanceof FixError) continue;
+      throw error;
+    }
+    const cutDeg = convertAngle(fix.cutAngleRad, 'rad', 'deg');
+    if (cutDeg < FIX_CUT_MIN_DEG || cutDeg > 180 - FIX_CUT_MIN_DEG) continue;
+    const fromA = geodesicInverse(a.location, fix.position).distanceM;
+    const fromB = geodesicInverse(b.location, fix.position).distanceM;
+    // The plane triangle's sine rule, for the working shown (the answer is the ellipsoidal crossing).
+    const between = (x: number, y: number) => Math.abs(((x - y + 540) % 360) - 180);
+    const angleA = between(bearingA, baseline.azimuthDeg);
+    const angleB = between(bearingB, geodesicInverse(b.location, a.location).azimuthDeg);
+    const angleS = 180 - angleA - angleB;
+    const planeA =
+      (baseline.distanceM * Math.sin(convertAngle(angleB, 'deg', 'rad'))) / Math.sin(convertAngle(angleS, 'deg', 'rad'));
+    const pad = (deg: number) => String(deg).padStart(3, '0');
+    return {
+      question: {
+        text:
+          `A smoke is reported: from ${a.name} at ${pad(bearingA)}° true, from ${b.name} (${say(baseline.distanceM, unit)} away at ${pad(Math.round(baseline.azimuthDeg) % 360)}°) at ${pad(bearingB)}° true. ` +
+          `How far from ${a.name} is the smoke? Answer in ${UNIT_WORDS[unit]}.`,
+        inputs: {
+          eyeHeightM: a.eyeHeightM,
+          k: STANDARD_OPTICAL_K,
+          bearingDeg: bearingA,
+          otherBearingDeg: bearingB,
+          otherPostName: b.name,
+          baselineM: baseline.distanceM,
+          baselineBearingDeg: baseline.azimuthDeg,
+        },
+        unit,
+      },
+      solution: {
+        correctValue: convertLength(fromA, 'm', unit),
+        explanation: {
+          text:
+            `The two bearings cross ${say(fromA, unit)} from ${a.name} and ${say(fromB, unit)} from ${b.name}, at a cut of ${num(cutDeg)}° ` +
+            `(a fix is best near 90°; below ${FIX_CUT_MIN_DEG}° or above ${180 - FIX_CUT_MIN_DEG}° a degree of error moves it far). A whole-degree bearing is ± 0.5°: ` +
+            `at ${say(fromA, unit)} that alone is ± ${say((fromA * Math.PI) / 360, unit)} across the line of sight.`,
+          formula:
+            `sine rule in the plane triangle of the posts and the smoke: d = baseline · sin B / sin S = ` +
+            `${num(convertLength(baseline.distanceM, 'm', unit), 4)} · sin ${num(angleB)}° / sin ${num(angleS)}° = ${say(planeA, unit, 4)} ` +
+            `(A = ${num(angleA)}°, B = ${num(angleB)}°, S = 180° − A − B); on the ellipsoid (geodesics, Karney): ${say(fromA, unit, 4)}`,
+          sideView: {
+            eyeHeightM: a.eyeHeightM,
+            k: STANDARD_OPTICAL_K,
+            baselineM: baseline.distanceM,
+            bearingDeg: bearingA,
+            otherBearingDeg: bearingB,
+            cutAngleDeg: cutDeg,
+            distanceFromPostM: fromA,
+            distanceFromOtherPostM: fromB,
+            planeDistanceFromPostM: planeA,
+            fixLatDeg: fix.position.latDeg,
+            fixLonDeg: fix.position.lonDeg,
+          },
+          scoring: drillScoring(unit),
+          cautions: cautions(),
+        },
+      },
+    };
+  }
+  throw new DrillUnavailableError('These two posts give no usable cut for a smoke within 30 km; set the drill on another post.');
+}
+
 /**
  * One drill question of a kind, generated from a seed on a setup (a post of
  * the organisation, or open water) with the organisation's targets and
@@ -472,8 +574,9 @@ function refractionEffectDrill(setup: DrillSetup, random: SeededRandom, units: D
  * @param setup - the post (height of eye above its targets' ground) or null, and the libraries
  * @param units - metric (km, m), nautical (nmi, m) or imperial (mi, ft)
  * @returns the question and its solution (correct value in the question's unit, explanation)
- * @throws {DrillUnavailableError} for `landmark-range` and `bearing-fix`
- *   (not available yet), and a detection drill without the library it needs
+ * @throws {DrillUnavailableError} for `landmark-range` (not available yet), a
+ *   bearing-fix drill without a second post on the site, and a detection
+ *   drill without the library it needs
  *
  * Source: see the sightline functions it calls.
  *
@@ -498,8 +601,6 @@ export function generateDrill(kind: DrillKind, seed: number, setup: DrillSetup, 
         'Landmark-range drills are not available yet for this post: they need reference marks with known positions, which Kenning does not keep yet.',
       );
     case 'bearing-fix':
-      throw new DrillUnavailableError(
-        'Bearing-fix drills are not available yet for this post: they need a second post and a smoke position to be set up together.',
-      );
+      return bearingFixDrill(setup, random, units);
   }
 }

@@ -75,9 +75,12 @@ describe('POST /api/v1/drills', () => {
     expect(foreign.body.error.fields).toHaveProperty('postId');
   });
 
-  it.each(['landmark-range', 'bearing-fix'])('%s is not available yet: 422 with the reason', async (kind) => {
+  it.each([
+    ['landmark-range', {}],
+    ['bearing-fix', {}],
+  ])('%s is not available here: 422 with the reason', async (kind, extra) => {
     const observer = await signedInAgent(app, DEMO.observer);
-    const res = await observer.post('/api/v1/drills').send({ kind });
+    const res = await observer.post('/api/v1/drills').send({ kind, ...extra });
     expect(res.status).toBe(422);
     expect(res.body.error).toMatchObject({
       code: 'drill_unavailable',
@@ -100,6 +103,25 @@ describe('POST /api/v1/drills', () => {
     expect(drill.question).toMatchObject({ unit: 'yes-no', inputs: { basis: 'terrain', part: expect.any(String) } });
     const answer = (await observer.post(`/api/v1/drills/${drill.id}/answer`).send({ value: true }).expect(200)).body;
     expect(answer.explanation.sideView).toMatchObject({ basis: 'terrain', eyeElevationM: expect.any(Number) });
+  });
+
+  it('sets a bearing-fix question on a post with a second post on its site', async () => {
+    const observer = await signedInAgent(app, DEMO.observer);
+    const sites = (await observer.get('/api/v1/sites').expect(200)).body.items as { id: string }[];
+    let postId: string | null = null;
+    for (const { id } of sites) {
+      const posts = (await observer.get(`/api/v1/sites/${id}/posts`).expect(200)).body.items;
+      if (posts.length >= 2) postId = posts[0].id;
+      if (postId) break;
+    }
+    expect(postId).not.toBeNull();
+    const drill = (await observer.post('/api/v1/drills').send({ kind: 'bearing-fix', postId, seed: 3 }).expect(201)).body.drill;
+    expect(drill.question).toMatchObject({
+      unit: 'km',
+      inputs: { bearingDeg: expect.any(Number), otherPostName: expect.any(String) },
+    });
+    const answer = (await observer.post(`/api/v1/drills/${drill.id}/answer`).send({ value: 5 }).expect(200)).body;
+    expect(answer.explanation.sideView.cutAngleDeg).toBeGreaterThanOrEqual(30);
   });
 
   it('sets a detection-range question from the organisation’s libraries', async () => {

@@ -114,10 +114,10 @@ export async function startAttempt(deps: DrillDeps, actor: Actor, courseId: stri
     postId: course.postIds.length > 0 ? random.pick(course.postIds) : null,
     seed: random.int(0, MAX_DRILL_SEED),
   }));
-  // Places (and terrains) are read before the transaction, once per post and kind.
+  // Places (terrains, a site's other posts) are read before the transaction, once per post and kind.
   const places = new Map<string, DrillPlace>();
   for (const q of plan) {
-    const key = `${q.postId}|${q.kind === 'target-visible' ? 'terrain' : 'smooth'}`;
+    const key = `${q.postId}|${q.kind}`;
     if (!places.has(key)) places.set(key, await drillPlace(deps, actor, q.kind, q.postId));
   }
   const attempt = await deps.db.transaction(async (t) => {
@@ -127,7 +127,7 @@ export async function startAttempt(deps: DrillDeps, actor: Actor, courseId: stri
       t,
     );
     for (const q of plan) {
-      const place = places.get(`${q.postId}|${q.kind === 'target-visible' ? 'terrain' : 'smooth'}`)!;
+      const place = places.get(`${q.postId}|${q.kind}`)!;
       await insertDrill(actor, { ...q, units: course.units, place, attemptId: row.id }, t);
     }
     await auditRepository.record(

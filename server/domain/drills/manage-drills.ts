@@ -55,6 +55,8 @@ export async function createDrill(deps: DrillDeps, actor: Actor, request: DrillR
 export interface DrillPlace {
   post: DrillSetup['post'];
   terrain: DrillSetup['terrain'];
+  /** The other posts of the post's site (bearing-fix questions only). */
+  otherPosts?: DrillSetup['otherPosts'];
 }
 
 /**
@@ -78,7 +80,13 @@ export async function drillPlace(
   const post = {
     name: found.name,
     eyeHeightM: Math.max(0, found.groundElevationM + found.structureHeightM + found.eyeHeightM - datum.groundM),
+    location: found.location,
   };
+  if (kind === 'bearing-fix') {
+    const siblings = await postsRepository.listInSite(actor.organizationId, found.siteId);
+    const otherPosts = siblings.filter((p) => p.id !== found.id).map((p) => ({ name: p.name, location: p.location }));
+    return { post, terrain: null, otherPosts };
+  }
   const record =
     kind === 'target-visible' && terrainCache ? await terrainRepository.findActive(actor.organizationId, found.siteId) : null;
   if (!record || !terrainCache) return { post, terrain: null };

@@ -5,6 +5,7 @@ import { drillScoring, scoreDrillAnswer } from '@/shared/trainer/score-drill-ans
 import { seededRandom } from '@/shared/trainer/seeded-random';
 import { convertLength } from '@/shared/units';
 import { createTerrainRaster } from '@/shared/terrain/terrain-raster';
+import { geodesicInverse } from '@/shared/geo/geodesic-inverse';
 import { deepFreeze, expectRelative, expectWithin } from '@/tests/unit/sightline/tolerance';
 
 const R = MEAN_EARTH_RADIUS_M;
@@ -12,7 +13,8 @@ const SEEDS = Array.from({ length: 40 }, (_, i) => i * 7919 + 3);
 
 /** Invented library rows, for the tests only. */
 const setup: DrillSetup = deepFreeze<DrillSetup>({
-  post: { name: 'Test Point', eyeHeightM: 24 },
+  post: { name: 'Test Point', eyeHeightM: 24, location: { latDeg: 47.2, lonDeg: 8.1 } },
+  otherPosts: [{ name: 'Test Ridge', location: { latDeg: 47.28, lonDeg: 8.22 } }],
   targets: [
     {
       name: 'fishing boat',
@@ -188,10 +190,33 @@ describe('answers agree with the navigation and levelling rules', () => {
   });
 });
 
+describe('bearing fix from two posts', () => {
+  it.each(SEEDS)('the smoke’s distance is where the reported bearings cross, seed %p', (seed) => {
+    const { question, solution } = generateDrill('bearing-fix', seed, setup, 'metric');
+    const view = solution.explanation.sideView;
+    const fix = { latDeg: view.fixLatDeg as number, lonDeg: view.fixLonDeg as number };
+    // Source: GeographicLib (Karney 2013, geographiclib-geodesic) inverse problem as the reference: from each post
+    // the geodesic to the crossing leaves on the reported whole-degree bearing. Tolerance 1e-6°.
+    expectWithin(geodesicInverse(setup.post!.location!, fix).azimuthDeg, question.inputs.bearingDeg ?? NaN, 1e-6);
+    expectWithin(geodesicInverse(setup.otherPosts![0]!.location, fix).azimuthDeg, Number(question.inputs.otherBearingDeg), 1e-6);
+    // Source: plane trigonometry, sine rule (common practice, no source): within 1 % of the ellipsoidal answer
+    // over these short lines.
+    expectRelative((solution.correctValue as number) * 1000, view.planeDistanceFromPostM as number, 0.01);
+    // Source: common practice, no source — a usable cut lies between 30° and 150°.
+    expect(view.cutAngleDeg as number).toBeGreaterThanOrEqual(30);
+    expect(view.cutAngleDeg as number).toBeLessThanOrEqual(150);
+  });
+
+  it('needs a second post on the site', () => {
+    expect(() => generateDrill('bearing-fix', 1, { ...setup, otherPosts: [] }, 'metric')).toThrow(/second post/);
+    expect(() => generateDrill('bearing-fix', 1, openWater, 'metric')).toThrow(DrillUnavailableError);
+  });
+});
+
 describe('kinds not available yet', () => {
-  it.each(['landmark-range', 'bearing-fix'] as const)('%s says so', (kind) => {
-    expect(() => generateDrill(kind, 1, setup, 'metric')).toThrow(DrillUnavailableError);
-    expect(() => generateDrill(kind, 1, setup, 'metric')).toThrow(/not available yet for this post/);
+  it('landmark-range says so', () => {
+    expect(() => generateDrill('landmark-range', 1, setup, 'metric')).toThrow(DrillUnavailableError);
+    expect(() => generateDrill('landmark-range', 1, setup, 'metric')).toThrow(/not available yet for this post/);
   });
 
   it('a detection drill without targets or condition sets says what it needs', () => {
