@@ -107,6 +107,8 @@ export const CoursePersonResultSchema = z.object({
   /** Passed within the validity: qualified until this instant; null when never passed. */
   qualifiedUntil: z.string().nullable(),
   qualified: z.boolean(),
+  /** Latest completed attempt's score minus the one before, percentage points; null with fewer than two. */
+  trendPct: z.number().nullable(),
   /** Mean score per kind of question over every answered drill of the course, 0…1. */
   byKind: z.array(z.object({ kind: z.enum(DRILL_KINDS), answered: z.number().int(), meanScore: z.number() })),
 });

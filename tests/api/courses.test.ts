@@ -122,6 +122,7 @@ describe('courses', () => {
     const person = results.people.find((p) => p.user.id === observerId)!;
     expect(person.attempts.map((a) => a.passed)).toEqual([true, false]);
     expect(person.qualified).toBe(true);
+    expect(person.trendPct).toBe(-100);
     const passedAt = Date.parse(person.lastPassedAt!);
     // Source: none — the course's own rule: qualified until completion + validityDays (30 × 86 400 000 ms).
     expect(Date.parse(person.qualifiedUntil!) - passedAt).toBe(30 * 86_400_000);

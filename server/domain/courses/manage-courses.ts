@@ -182,8 +182,11 @@ export async function courseResults(actor: Actor, courseId: string, now = new Da
       const own = scores.filter((s) => ids.has(s.attemptId) && s.kind === kind);
       return { kind, answered: own.length, meanScore: own.length ? own.reduce((sum, s) => sum + s.score, 0) / own.length : 0 };
     });
+    const completed = mine.filter((a) => a.scorePct !== null);
+    const [before, latest] = completed.slice(-2);
     results.push({
       user: person,
+      trendPct: before && latest ? latest.scorePct! - before.scorePct! : null,
       attempts: mine.map((a) => ({
         id: a.id,
         startedAt: a.startedAt,
