@@ -125,8 +125,8 @@ export function createApp({
   api.use(healthRoutes(db));
   api.use(authRoutes(db, limiter));
 
-  const terrains = terrainCache ?? createTerrainCache({ files, maxBytes: config.TERRAIN_CACHE_MB * 2 ** 20 });
   const v1 = express.Router();
+  const cache = terrainCache ?? createTerrainCache({ files, maxBytes: config.TERRAIN_CACHE_MB * 2 ** 20 });
   v1.use(sightlineRoutes());
   v1.use(siteRoutes(db));
   v1.use(
@@ -135,7 +135,7 @@ export function createApp({
         db,
         files,
         ingest: terrainIngest ?? createTerrainIngestRunner(),
-        cache: terrains,
+        cache,
         maxCells: config.TERRAIN_MAX_CELLS,
         hillshadeMaxEdge: DEFAULT_HILLSHADE_MAX_EDGE,
       },
@@ -145,8 +145,8 @@ export function createApp({
   v1.use(libraryRoutes(db));
   v1.use(sweepWidthRoutes(db));
   v1.use(calibrationRoutes(db));
-  v1.use(drillRoutes(db, terrains));
-  v1.use(courseRoutes(db, terrains));
+  v1.use(drillRoutes(db, cache));
+  v1.use(courseRoutes(db, cache));
   v1.use(fixRoutes());
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
