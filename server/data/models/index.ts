@@ -22,11 +22,6 @@ export {
   AttachmentModel,
   AuditEventModel,
   ConditionSetModel,
-  FieldCalibrationModel,
-  TrainerCourseAssigneeModel,
-  TrainerCourseAttemptModel,
-  TrainerCourseModel,
-  TrainerDrillModel,
   PlanModel,
   PlanReviewModel,
   PlanRevisionModel,
@@ -37,6 +32,11 @@ export {
   SiteModel,
   SiteTerrainModel,
   SweepWidthTableModel,
+  FieldCalibrationModel,
+  TrainerCourseAssigneeModel,
+  TrainerCourseAttemptModel,
+  TrainerCourseModel,
+  TrainerDrillModel,
   UserModel,
 };
 
@@ -55,15 +55,15 @@ export function initModels(sequelize: Sequelize): void {
   PlanReviewModel.register(sequelize);
   AssignmentModel.register(sequelize);
   AttachmentModel.register(sequelize);
-  SiteTerrainModel.register(sequelize);
-  CoverageRunModel.register(sequelize);
-  CoverageLayerModel.register(sequelize);
-  SweepWidthTableModel.register(sequelize);
   FieldCalibrationModel.register(sequelize);
   TrainerDrillModel.register(sequelize);
   TrainerCourseModel.register(sequelize);
   TrainerCourseAssigneeModel.register(sequelize);
   TrainerCourseAttemptModel.register(sequelize);
+  SiteTerrainModel.register(sequelize);
+  CoverageRunModel.register(sequelize);
+  CoverageLayerModel.register(sequelize);
+  SweepWidthTableModel.register(sequelize);
 
   OrganizationModel.hasMany(UserModel, { foreignKey: 'organizationId', as: 'users' });
   UserModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
@@ -80,11 +80,11 @@ export function initModels(sequelize: Sequelize): void {
   AssignmentModel.belongsTo(PostModel, { foreignKey: 'postId', as: 'post' });
   UserModel.hasMany(AssignmentModel, { foreignKey: 'userId', as: 'assignments' });
   AssignmentModel.belongsTo(UserModel, { foreignKey: 'userId', as: 'user' });
+  FieldCalibrationModel.belongsTo(PostModel, { foreignKey: 'postId', as: 'post' });
+  FieldCalibrationModel.belongsTo(UserModel, { foreignKey: 'observerId', as: 'observer' });
   // Attachments: the owner (post, site or plan) is polymorphic and checked by the use case, not by an association.
   OrganizationModel.hasMany(AttachmentModel, { foreignKey: 'organizationId', as: 'attachments' });
   AttachmentModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });
   UserModel.hasMany(AttachmentModel, { foreignKey: 'uploadedById', as: 'uploads' });
   AttachmentModel.belongsTo(UserModel, { foreignKey: 'uploadedById', as: 'uploadedBy' });
-  FieldCalibrationModel.belongsTo(PostModel, { foreignKey: 'postId', as: 'post' });
-  FieldCalibrationModel.belongsTo(UserModel, { foreignKey: 'observerId', as: 'observer' });
 }
