@@ -11,10 +11,10 @@ import type { CalibrationFigures, CalibrationMethod } from '@/shared/schemas/cal
 import type { PostModel } from './post';
 import type { UserModel } from './user';
 
-/** The figures kept beside the indexed k columns (see migration 0020). */
+/** The figures kept beside the indexed k columns (see migration 0023). */
 export type StoredCalibrationFigures = Omit<CalibrationFigures, 'k' | 'kMin' | 'kMax' | 'resultKind'>;
 
-/** A field calibration of an organisation (see migration 0020). */
+/** A field calibration of an organisation (see migration 0023). */
 export class FieldCalibrationModel extends Model<
   InferAttributes<FieldCalibrationModel>,
   InferCreationAttributes<FieldCalibrationModel>

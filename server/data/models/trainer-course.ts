@@ -8,7 +8,7 @@ import {
 } from 'sequelize';
 import type { DrillKind, DrillUnits } from '@/shared/schemas/drill';
 
-/** A planner's drill set (see migration 0022). */
+/** A planner's drill set (see migration 0025). */
 export class TrainerCourseModel extends Model<InferAttributes<TrainerCourseModel>, InferCreationAttributes<TrainerCourseModel>> {
   declare id: CreationOptional<string>;
   declare organizationId: string;
@@ -46,7 +46,7 @@ export class TrainerCourseModel extends Model<InferAttributes<TrainerCourseModel
   }
 }
 
-/** A person a course is assigned to (see migration 0022). */
+/** A person a course is assigned to (see migration 0025). */
 export class TrainerCourseAssigneeModel extends Model<
   InferAttributes<TrainerCourseAssigneeModel>,
   InferCreationAttributes<TrainerCourseAssigneeModel>
@@ -73,7 +73,7 @@ export class TrainerCourseAssigneeModel extends Model<
   }
 }
 
-/** One person's attempt at a course: its drills, scored when the last is answered (see migration 0022). */
+/** One person's attempt at a course: its drills, scored when the last is answered (see migration 0025). */
 export class TrainerCourseAttemptModel extends Model<
   InferAttributes<TrainerCourseAttemptModel>,
   InferCreationAttributes<TrainerCourseAttemptModel>

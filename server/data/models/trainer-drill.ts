@@ -9,7 +9,7 @@ import {
 import type { DrillKind, DrillQuestion, DrillUnits } from '@/shared/schemas/drill';
 import type { GeneratedDrill } from '@/shared/trainer/generate-drill';
 
-/** A drill set for one person (see migration 0021). */
+/** A drill set for one person (see migration 0024). */
 export class TrainerDrillModel extends Model<InferAttributes<TrainerDrillModel>, InferCreationAttributes<TrainerDrillModel>> {
   declare id: CreationOptional<string>;
   declare organizationId: string;
