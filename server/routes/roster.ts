@@ -16,6 +16,7 @@ import {
   siteRoster,
   updateAssignment,
 } from '@/server/domain/roster/manage-assignments';
+import { qualificationWarnings } from '@/server/domain/courses/manage-courses';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 
@@ -32,7 +33,8 @@ export function rosterRoutes(db: Sequelize) {
   });
   router.post('/assignments', ...planner, async (req, res) => {
     const input = parseOrThrow(AssignmentInputSchema, req.body, 'watch');
-    res.status(201).json({ assignment: await createAssignment({ db }, actorOf(req), input) });
+    const assignment = await createAssignment({ db }, actorOf(req), input);
+    res.status(201).json({ assignment, warnings: await qualificationWarnings(actorOf(req), input.userId) });
   });
   router.patch('/assignments/:assignmentId', ...planner, async (req, res) => {
     const { assignmentId } = parseOrThrow(IdParams, req.params, 'address');

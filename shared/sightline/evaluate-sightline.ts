@@ -19,17 +19,13 @@ import {
   visibleHeight,
   type SphereOptions,
 } from '@/shared/sightline';
-import { formatK } from '@/shared/sightline/format-k';
+import { refractionWarnings } from '@/shared/sightline/refraction-warnings';
 import { refractionFromCondition } from '@/shared/sightline/refraction-from-condition';
 import { waveScreenOf } from '@/shared/sightline/wave-screen';
 import { convertAngle } from '@/shared/units/angle';
 
-/** From this k on, the model warns that a duct is near (the horizon runs away as k → 1). */
-const NEAR_DUCT_FROM_K = 0.9;
-
-
 /** Standing cautions returned with every evaluation. */
-const CAUTIONS: readonly SightlineCaution[] = Object.freeze([
+export const SIGHTLINE_CAUTIONS: readonly SightlineCaution[] = Object.freeze([
   {
     code: 'estimates-only',
     message:
@@ -62,34 +58,7 @@ function evaluateCondition(request: SightlineRequest, condition: RefractionCondi
   const target = request.targetHeightM;
   const distance = request.distanceM;
 
-  if (regime === 'ducting') {
-    warnings.push({
-      code: 'ducting',
-      message:
-        `k = ${formatK(k)} ≥ 1 (ducting): rays bend at least as fast as the surface, so there is no geometric horizon. ` +
-        'Effective radius, horizon distance, tangent length, dip and geographic range do not exist, and nothing is hidden by curvature in this model; ' +
-        'real ducts trap light in layers this model does not describe.',
-    });
-  } else if (regime === 'sub-refraction') {
-    warnings.push({
-      code: 'sub-refraction',
-      message: `k = ${formatK(k)} < 0 (sub-refraction): rays bend upward, horizons come closer and distant targets sink.`,
-    });
-  } else if (regime === 'super-refraction') {
-    warnings.push({
-      code: 'super-refraction',
-      message: `k = ${formatK(k)} (super-refraction): rays bend more than standard, horizons recede and hidden targets may loom into view.`,
-    });
-    if (k >= NEAR_DUCT_FROM_K) {
-      warnings.push({
-        code: 'near-ducting',
-        message:
-          `k = ${formatK(k)} is close to 1, where the sight line bends as fast as the earth: the horizon and ranges below grow without bound ` +
-          `as k nears 1 (the effective radius is ${Math.round(1 / (1 - k))} times the earth's). Such a gradient does not hold over long ranges; ` +
-          'read these distances as "very far, unreliable", not as figures.',
-      });
-    }
-  }
+  warnings.push(...refractionWarnings(k));
 
   const dip = horizonDip(h, sphere);
 
@@ -215,6 +184,6 @@ function evaluateCondition(request: SightlineRequest, condition: RefractionCondi
 export function evaluateSightline(request: SightlineRequest): SightlineResponse {
   return {
     results: request.conditions.map((condition) => evaluateCondition(request, condition)),
-    cautions: CAUTIONS.map((caution) => ({ ...caution })),
+    cautions: SIGHTLINE_CAUTIONS.map((caution) => ({ ...caution })),
   };
 }

@@ -11,6 +11,9 @@ import { PriorityZoneModel, SiteModel } from './site';
 import { SiteTerrainModel } from './site-terrain';
 import { SweepWidthTableModel } from './sweep-width-table';
 import { CoverageLayerModel, CoverageRunModel } from './coverage-run';
+import { FieldCalibrationModel } from './field-calibration';
+import { TrainerCourseAssigneeModel, TrainerCourseAttemptModel, TrainerCourseModel } from './trainer-course';
+import { TrainerDrillModel } from './trainer-drill';
 import { UserModel } from './user';
 
 export {
@@ -32,6 +35,11 @@ export {
   SiteModel,
   SiteTerrainModel,
   SweepWidthTableModel,
+  FieldCalibrationModel,
+  TrainerCourseAssigneeModel,
+  TrainerCourseAttemptModel,
+  TrainerCourseModel,
+  TrainerDrillModel,
   UserModel,
 };
 
@@ -50,6 +58,11 @@ export function initModels(sequelize: Sequelize): void {
   PlanReviewModel.register(sequelize);
   AssignmentModel.register(sequelize);
   AttachmentModel.register(sequelize);
+  FieldCalibrationModel.register(sequelize);
+  TrainerDrillModel.register(sequelize);
+  TrainerCourseModel.register(sequelize);
+  TrainerCourseAssigneeModel.register(sequelize);
+  TrainerCourseAttemptModel.register(sequelize);
   SiteTerrainModel.register(sequelize);
   CoverageRunModel.register(sequelize);
   CoverageLayerModel.register(sequelize);
@@ -72,6 +85,8 @@ export function initModels(sequelize: Sequelize): void {
   AssignmentModel.belongsTo(PostModel, { foreignKey: 'postId', as: 'post' });
   UserModel.hasMany(AssignmentModel, { foreignKey: 'userId', as: 'assignments' });
   AssignmentModel.belongsTo(UserModel, { foreignKey: 'userId', as: 'user' });
+  FieldCalibrationModel.belongsTo(PostModel, { foreignKey: 'postId', as: 'post' });
+  FieldCalibrationModel.belongsTo(UserModel, { foreignKey: 'observerId', as: 'observer' });
   // Attachments: the owner (post, site or plan) is polymorphic and checked by the use case, not by an association.
   OrganizationModel.hasMany(AttachmentModel, { foreignKey: 'organizationId', as: 'attachments' });
   AttachmentModel.belongsTo(OrganizationModel, { foreignKey: 'organizationId', as: 'organization' });

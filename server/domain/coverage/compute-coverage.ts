@@ -194,9 +194,25 @@ export async function computeCoverage(
       addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
       addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
       coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', posts[i]!.input.id, classes));
-      const perPost = postSeenShares(terrain, network, coverage.postClasses, area.siteMask, posts.map((p) => p.input));
+      const perPost = postSeenShares(
+        terrain,
+        network,
+        coverage.postClasses,
+        area.siteMask,
+        posts.map((p) => p.input),
+      );
       cases.push(
-        coverageCaseOf({ key, target, condition, coverage, perPost, detection, seaOnly, projection, detectionModel: inputs.detectionModel }),
+        coverageCaseOf({
+          key,
+          target,
+          condition,
+          coverage,
+          perPost,
+          detection,
+          seaOnly,
+          projection,
+          detectionModel: inputs.detectionModel,
+        }),
       );
     });
   }
