@@ -5,7 +5,7 @@ import { UNIT_SYSTEMS, unitSystemFor, type UnitSystem } from '@/shared/units/uni
 import { forgetDeviceCopies } from '@/components/offline/persisted-cache';
 import { deviceOutbox } from '@/components/offline/device-outbox';
 import { resetLanding } from './first-landing';
-import { api, ApiRequestError } from './api-client';
+import { api, ApiRequestError, NetworkError } from './api-client';
 import { STALE } from './query-client';
 
 export const sessionKeys = {
@@ -19,6 +19,12 @@ export const meQuery = () =>
     queryKey: sessionKeys.me(),
     staleTime: STALE.session,
     queryFn: async (): Promise<User | null> => {
+      // A sign-out made with no network ends the server's session at the first contact, before anything else.
+      if (signOutPending()) {
+        await api.post('/auth/sign-out', {}, null);
+        setSignOutPending(false);
+        return null;
+      }
       try {
         return (await api.get('/me', MeResponseSchema)).user;
       } catch (e) {
@@ -46,16 +52,38 @@ export function useSignIn() {
   return useMutation({
     mutationFn: (input: SignInRequest) => api.post('/auth/sign-in', input, MeResponseSchema),
     onSuccess: ({ user }) => {
+      setSignOutPending(false);
       forgetOtherUsersData(qc);
       qc.setQueryData(sessionKeys.me(), user);
     },
   });
 }
 
+/**
+ * A sign-out the server has not heard yet (made in the field with no network).
+ * Kept in the browser's storage so a restart still finishes it.
+ */
+const SIGN_OUT_PENDING = 'kenning.signOutPending';
+const storage = () => (typeof localStorage === 'undefined' ? null : localStorage);
+const signOutPending = () => storage()?.getItem(SIGN_OUT_PENDING) === '1';
+function setSignOutPending(pending: boolean) {
+  if (pending) storage()?.setItem(SIGN_OUT_PENDING, '1');
+  else storage()?.removeItem(SIGN_OUT_PENDING);
+}
+
 export function useSignOut() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: () => api.post('/auth/sign-out', {}, null),
+    // Offline the device forgets the person at once; the server's session ends when the network is back.
+    networkMode: 'always',
+    mutationFn: async () => {
+      try {
+        await api.post('/auth/sign-out', {}, null);
+      } catch (e) {
+        if (!(e instanceof NetworkError)) throw e;
+        setSignOutPending(true);
+      }
+    },
     onSettled: () => {
       forgetOtherUsersData(qc);
       qc.setQueryData(sessionKeys.me(), null);

@@ -69,17 +69,20 @@ it('starts with no network on a phone: the briefing from the device’s copy, ma
     await cold.getByText(/computed on this device with the same formulas/).waitFor();
     await shot(cold, 'field-mode-offline-check', 'phone');
 
-    // Back online: the band goes.
-    await context.setOffline(false);
-    await cold.getByRole('status', { name: 'Offline' }).waitFor({ state: 'detached' });
-    // Requests refused while offline are the only errors allowed.
-    expect(coldErrors.filter((e) => !/Failed to fetch|ERR_INTERNET_DISCONNECTED|cannot reach its server/i.test(e))).toEqual([]);
-
-    // Signing out deletes the device's copy.
+    // Signing out with no network deletes the device's copy at once…
     await cold.goto(`${e2eUrl()}/account`);
     await cold.getByRole('button', { name: 'Sign out' }).click();
     await cold.getByLabel('E-mail').waitFor();
     await expectEventually(async () => !(await deviceCopyKept(cold)));
+
+    // …and the server's session ends at the first contact: back online, a restart does not sign the person in again.
+    await context.setOffline(false);
+    await cold.reload();
+    await cold.getByLabel('E-mail').waitFor();
+    await cold.getByRole('status', { name: 'Offline' }).waitFor({ state: 'detached' });
+    expect((await cold.request.get(`${e2eUrl()}/api/me`)).status()).toBe(401);
+    // Requests refused while offline are the only errors allowed.
+    expect(coldErrors.filter((e) => !/Failed to fetch|ERR_INTERNET_DISCONNECTED|cannot reach its server/i.test(e))).toEqual([]);
     expect(errors).toEqual([]);
   } finally {
     await context.close();
