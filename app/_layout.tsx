@@ -39,7 +39,8 @@ function QueryProvider({ client, children }: { client: ReturnType<typeof createQ
   const [persist] = useState(() => (deviceCanKeepCopies() ? persistOptions() : null));
   if (!persist) return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
   return (
-    <PersistQueryClientProvider client={client} persistOptions={persist}>
+    // The device's copy shows at once, and is then asked again: a copy counts as fresh only until the page reloads.
+    <PersistQueryClientProvider client={client} persistOptions={persist} onSuccess={() => void client.invalidateQueries()}>
       {children}
     </PersistQueryClientProvider>
   );

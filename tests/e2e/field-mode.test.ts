@@ -71,7 +71,7 @@ it('starts with no network on a phone: the briefing from the device’s copy, ma
 
     // Signing out with no network deletes the device's copy at once…
     await cold.goto(`${e2eUrl()}/account`);
-    await cold.getByRole('button', { name: 'Sign out' }).click();
+    await cold.getByRole('button', { name: 'Sign out', exact: true }).click();
     await cold.getByLabel('E-mail').waitFor();
     await expectEventually(async () => !(await deviceCopyKept(cold)));
 
