@@ -58,7 +58,9 @@ export interface SearchUnits {
  * always meant metres here.
  */
 export function searchUnits(system: UnitSystem): SearchUnits {
-  return system === 'metric' ? { distance: 'm', height: 'm' } : UNIT_SYSTEMS[system];
+  return system === 'metric'
+    ? { distance: 'm', height: 'm' }
+    : { distance: UNIT_SYSTEMS[system].distance, height: UNIT_SYSTEMS[system].height };
 }
 
 /** Example ranges of a curve line by unit (the nearest round figure to 500 m). */
@@ -102,7 +104,10 @@ export function parseCurveText(
  */
 export function retypeCurve(text: string, from: LengthUnit, to: LengthUnit): string {
   if (from === to) return text;
-  return text.replace(/^(\s*)([-+]?\d+(?:\.\d+)?)(?=[\s;,])/gm, (_, lead: string, range: string) => lead + retypeLength(range, from, to));
+  return text.replace(
+    /^(\s*)([-+]?\d+(?:\.\d+)?)(?=[\s;,])/gm,
+    (_, lead: string, range: string) => lead + retypeLength(range, from, to),
+  );
 }
 
 /** The column heads of a typed table row in `units`, for hints and errors. */
@@ -296,9 +301,7 @@ export function tableFormResolver(): Resolver<TableFormValues, unknown, SweepWid
  */
 export function describeRow(row: SweepWidthTable['rows'][number], system: UnitSystem = 'metric'): string {
   const { distance, height } = UNIT_SYSTEMS[system];
-  const vis = distanceIn(row.visibilityM, distance, (m) =>
-    m >= 1000 ? `${+(m / 1000).toFixed(1)} km` : `${m} m`,
-  );
+  const vis = distanceIn(row.visibilityM, distance, (m) => (m >= 1000 ? `${+(m / 1000).toFixed(1)} km` : `${m} m`));
   const h = lengthIn(row.heightM, height);
   return `${row.searchObject} · visibility ${vis} · height ${h} → W ${formatSweepDistance(row.sweepWidthM, system)}`;
 }

@@ -80,7 +80,11 @@ export function SearchEffortScreen() {
             e,
             (field, error, options) =>
               // The curve is plain text: its figures are restated here (the length fields restate their own).
-              setError(field, field === 'curve' ? { ...error, message: restateLengths(error.message ?? '', curveUnit) } : error, options),
+              setError(
+                field,
+                field === 'curve' ? { ...error, message: restateLengths(error.message ?? '', curveUnit) } : error,
+                options,
+              ),
             (path) => formFieldOf(path, typedIn[0]) ?? undefined,
           ),
         ),

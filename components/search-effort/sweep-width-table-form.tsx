@@ -11,13 +11,7 @@ import { Card } from '@/components/ui/card';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError } from '@/components/ui/states';
 import { UnitsField } from '@/components/ui/units-field';
-import {
-  retypeTableRows,
-  searchUnits,
-  tableFormResolver,
-  tableRowHeads,
-  type TableFormValues,
-} from './search-effort-form-model';
+import { retypeTableRows, searchUnits, tableFormResolver, tableRowHeads, type TableFormValues } from './search-effort-form-model';
 
 const FIELDS = ['name', 'edition', 'sourceName', 'rows'] as const;
 const empty = (units: UnitSystem): TableFormValues => ({ units, name: '', edition: '', sourceName: '', rows: '' });
@@ -29,7 +23,13 @@ const EXAMPLE_ROW = 'Life raft, 6 persons; 10000; 15; 3700';
  * its edition and source, the rows typed in the form's units (stored in
  * metres).
  */
-export function SweepWidthTableForm({ units: preferred = 'metric', onAdded }: { units?: UnitSystem; onAdded: (id: string) => void }) {
+export function SweepWidthTableForm({
+  units: preferred = 'metric',
+  onAdded,
+}: {
+  units?: UnitSystem;
+  onAdded: (id: string) => void;
+}) {
   const create = useCreateSweepWidthTable();
   const [formError, setFormError] = useState('');
   const [added, setAdded] = useState('');
