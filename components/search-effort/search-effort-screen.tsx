@@ -52,7 +52,7 @@ export function SearchEffortScreen() {
   const planner = user?.role === 'planner';
   const preferred = useUnitSystem();
   const [formError, setFormError] = useState('');
-  const { control, handleSubmit, setError, clearErrors, watch, setValue, getValues, formState } = useForm<
+  const { control, handleSubmit, setError, clearErrors, watch, setValue, getValues, getFieldState, formState } = useForm<
     SearchEffortValues,
     unknown,
     SweepWidthRequest
@@ -67,6 +67,11 @@ export function SearchEffortScreen() {
   const units = watch('units');
   const { distance } = searchUnits(units);
   useRetypedOnUnitChange(units, getValues, setValue);
+  // The person's units may arrive after the form: follow them until the person picks units here.
+  useEffect(() => {
+    if (!getFieldState('units').isDirty) setValue('units', preferred);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [preferred]);
 
   const submit = handleSubmit((request) => {
     setFormError('');

@@ -33,13 +33,18 @@ export function SweepWidthTableForm({
   const create = useCreateSweepWidthTable();
   const [formError, setFormError] = useState('');
   const [added, setAdded] = useState('');
-  const { control, handleSubmit, setError, reset, watch, getValues, setValue } = useForm<
+  const { control, handleSubmit, setError, reset, watch, getValues, setValue, getFieldState } = useForm<
     TableFormValues,
     unknown,
     SweepWidthTableInput
   >({ defaultValues: empty(preferred), resolver: tableFormResolver() });
   const units = watch('units');
   const typedIn = searchUnits(units);
+  // The person's units may arrive after the form: follow them until the person picks units here.
+  useEffect(() => {
+    if (!getFieldState('units').isDirty) setValue('units', preferred);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [preferred]);
 
   // The rows are plain text: re-type their lengths when the units change.
   const shownIn = useRef(units);

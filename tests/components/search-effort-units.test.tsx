@@ -1,5 +1,5 @@
 import { QueryClientProvider } from '@tanstack/react-query';
-import { fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import type { SweepWidthResult, SweepWidthTable } from '@/shared/schemas/sweep-width';
 import { createQueryClient } from '@/components/data/query-client';
 import { SearchEffortScreen } from '@/components/search-effort/search-effort-screen';
@@ -32,13 +32,33 @@ const answer = (sweepWidthM: number, trackSpacingM: number): SweepWidthResult =>
   caution: 'POD is an estimate.',
 });
 
-/** A fake API: signed out of /me (metric), one table, and the sweep-width answer echoing the request. */
-function fakeApi() {
+/** A planner who reads nautical units (their account setting). */
+const NAUTICAL_PLANNER = {
+  id: '00000000-0000-4000-8000-000000000009',
+  email: 'planner@example.test',
+  name: 'Test Planner',
+  role: 'planner',
+  organization: { id: '00000000-0000-4000-8000-000000000008', name: 'Test organisation' },
+  unitPreference: 'nautical',
+};
+
+/**
+ * A fake API: /me signed out (metric) or the given user, one table, the
+ * sweep-width answer echoing the request, and a new table echoed back.
+ */
+function fakeApi(user: unknown = null) {
   const posted: unknown[] = [];
   globalThis.fetch = jest.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
     const url = String(input);
     const reply = (status: number, body: unknown) => ({ ok: status < 300, status, json: async () => body }) as Response;
-    if (url.endsWith('/me')) return reply(401, { error: { code: 'unauthenticated', message: 'Sign in.' } });
+    if (url.endsWith('/me')) {
+      return user ? reply(200, { user }) : reply(401, { error: { code: 'unauthenticated', message: 'Sign in.' } });
+    }
+    if (url.endsWith('/v1/sweep-width-tables') && init?.method === 'POST') {
+      const body = JSON.parse(String(init.body)) as Omit<SweepWidthTable, 'id'>;
+      posted.push(body);
+      return reply(201, { table: { ...TABLE, ...body, id: '00000000-0000-4000-8000-000000000002' } });
+    }
     if (url.includes('/v1/sweep-width-tables')) return reply(200, { items: [TABLE], page: 1, pageSize: 200, total: 1 });
     if (url.endsWith('/v1/sweep-width') && init?.method === 'POST') {
       const body = JSON.parse(String(init.body)) as { sweepWidthM: number; trackSpacingM: number };
@@ -126,5 +146,26 @@ describe('search effort in the person’s units', () => {
     fireEvent.click(screen.getByRole('radio', { name: 'ft · nmi' }));
     // Source: NIST SP 811 B.8: 9260 m = 5 nmi, 15.24 m = 50 ft, 1852 m = 1 nmi.
     await screen.findByRole('checkbox', { name: 'Raft · visibility 5 nmi · height 50 ft → W 1 nmi' });
+  });
+
+  it('starts in the person’s own units and saves a new table’s rows in metres', async () => {
+    const posted = fakeApi(NAUTICAL_PLANNER);
+    renderScreen();
+    // The planner's setting: nautical miles in the form once the session is known.
+    await screen.findByText('One row a line: search object; visibility nmi; height of eye ft; sweep width nmi.');
+    const form = screen.getByLabelText('New sweep-width table');
+    const inForm = (name: string) => within(form).getByRole('textbox', { name }) as HTMLInputElement;
+    fireEvent.change(inForm('Table name'), { target: { value: 'Trial' } });
+    fireEvent.change(inForm('Edition'), { target: { value: 'Trial edition 1' } });
+    fireEvent.change(inForm('Source'), { target: { value: 'Own trials (invented for this test)' } });
+    fireEvent.change(inForm('Rows'), { target: { value: 'Raft; 5; 50; 1' } });
+    fireEvent.click(within(form).getByRole('button', { name: 'Save table' }));
+    await waitFor(() => expect(posted).toHaveLength(1));
+    const row = (posted[0] as { rows: SweepWidthTable['rows'] }).rows[0]!;
+    // Source: NIST SP 811 Appendix B.8: 5 nmi = 9260 m, 50 ft = 15.24 m, 1 nmi = 1852 m (exact).
+    near(row.visibilityM, 9260);
+    near(row.heightM, 15.24);
+    near(row.sweepWidthM, 1852);
+    await within(form).findByText('Added Trial.');
   });
 });
