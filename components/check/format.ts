@@ -47,3 +47,27 @@ export const REGIME_LABELS = {
 export function lengthIn(metres: number, unit: LengthUnit, metric: (m: number) => string = (m) => `${m} m`): string {
   return unit === 'm' ? metric(metres) : formatLength(metres, unit);
 }
+
+/** The shortest distance written in a distance unit; anything shorter is written in feet. */
+const SHORTEST_IN_UNIT: Partial<Record<LengthUnit, number>> = { nmi: 0.05, mi: 0.1 };
+
+/** Metric distances as the screens have long written them: "850 m", "2.4 km". */
+export const metricDistance = (m: number): string => (m >= 1000 ? `${+(m / 1000).toFixed(2)} km` : `${Math.round(m)} m`);
+
+/**
+ * A distance (a range, a visibility, a sweep width) for people in the
+ * person's distance `unit`: metric (`km` or `m`) as `metric` writes it;
+ * nautical or statute miles rounded like {@link formatLength} ("1.5 nmi",
+ * "12.3 mi"), short ones in feet (under 0.05 nmi or 0.1 mi: "250 ft"), so a
+ * few hundred metres never read "0 nmi".
+ *
+ * @example
+ * distanceIn(2778, 'nmi'); // "1.5 nmi"
+ * distanceIn(76.2, 'mi');  // "250 ft"
+ */
+export function distanceIn(metres: number, unit: LengthUnit, metric: (m: number) => string = metricDistance): string {
+  if (unit === 'km' || unit === 'm') return metric(metres);
+  const shortest = SHORTEST_IN_UNIT[unit];
+  if (shortest !== undefined && Math.abs(convertLength(metres, 'm', unit)) < shortest) return formatLength(metres, 'ft');
+  return formatLength(metres, unit);
+}

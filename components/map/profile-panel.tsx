@@ -194,7 +194,7 @@ export function ProfilePanel({
             );
           })}
         </View>
-        <ProfileView profile={data} labels={labels} />
+        <ProfileView profile={data} labels={labels} units={{ height, distance }} />
       </View>
     );
   }

@@ -2,6 +2,8 @@ import { useState } from 'react';
 import { View, type LayoutChangeEvent } from 'react-native';
 import Svg, { Circle, G, Line, Path, Rect, Text as SvgText } from 'react-native-svg';
 import type { TerrainProfileResponse } from '@/shared/schemas/terrain';
+import { convertLength, type LengthUnit } from '@/shared/units/length';
+import { distanceIn } from '@/components/check/format';
 import { conditionStyle } from '@/components/check/condition-colors';
 import { AppText } from '@/components/ui/app-text';
 import { colors, fonts, space } from '@/components/ui/theme';
@@ -19,7 +21,17 @@ const km = (m: number) =>
  * each condition's obstruction marked with a cross. Drawn in the true-earth
  * frame (see profile-chart.ts), vertical scale exaggerated and stated.
  */
-export function ProfileView({ profile, labels }: { profile: TerrainProfileResponse; labels: readonly string[] }) {
+export function ProfileView({
+  profile,
+  labels,
+  units = { height: 'm', distance: 'km' },
+}: {
+  profile: TerrainProfileResponse;
+  labels: readonly string[];
+  /** The person's units: heights on the axis and the hidden part, the line's length (metric by default). */
+  units?: { height: LengthUnit; distance: LengthUnit };
+}) {
+  const heightText = (m: number) => `${Math.round(convertLength(m, 'm', units.height))} ${units.height}`;
   const [width, setWidth] = useState(0);
   const onLayout = (e: LayoutChangeEvent) => setWidth(e.nativeEvent.layout.width);
   const chart = profileChart(profile);
@@ -44,7 +56,7 @@ export function ProfileView({ profile, labels }: { profile: TerrainProfileRespon
           width={width}
           height={HEIGHT}
           role="img"
-          aria-label={`Side view from the eye to the point, ${km(profile.distanceM)}, vertical scale ×${exaggeration}`}
+          aria-label={`Side view from the eye to the point, ${distanceIn(profile.distanceM, units.distance, km)}, vertical scale ×${exaggeration}`}
         >
           <Rect x={0} y={0} width={width} height={HEIGHT} fill="#EEF2F3" />
           {ticks.map((t) => (
@@ -58,7 +70,7 @@ export function ProfileView({ profile, labels }: { profile: TerrainProfileRespon
                 fill={colors.muted}
                 textAnchor="end"
               >
-                {Math.round(t)} m
+                {heightText(t)}
               </SvgText>
             </G>
           ))}
@@ -123,7 +135,7 @@ export function ProfileView({ profile, labels }: { profile: TerrainProfileRespon
               fill={colors.ink}
               textAnchor="end"
             >
-              ↑ hidden {Math.round(hidden)} m
+              ↑ hidden {heightText(hidden)}
             </SvgText>
           ) : null}
           <Line

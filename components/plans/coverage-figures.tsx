@@ -17,6 +17,7 @@ import {
   conditionSpread,
   COVERAGE_CAUTIONS,
   describeDetection,
+  type ReadingUnits,
   formatArea,
   formatPct,
   pickCase,
@@ -36,10 +37,13 @@ export function CoverageFigures({
   run,
   caseKey,
   onCase,
+  units,
 }: {
   run: Pick<CoverageRun, 'id' | 'siteId' | 'cases' | 'datum'> & { skippedConditions?: CoverageRun['skippedConditions'] };
   caseKey: string | null;
   onCase: (key: string) => void;
+  /** The units heights and ranges are read in (the person's); metric when not given. */
+  units?: ReadingUnits;
 }) {
   const router = useRouter();
   const { wide } = useLayout();
@@ -75,7 +79,7 @@ export function CoverageFigures({
       <View style={wide ? { flexDirection: 'row', gap: space.xl, alignItems: 'flex-start' } : { gap: space.lg }}>
         <View style={{ flex: wide ? 1 : undefined, gap: space.lg }}>
           <Verdict check={shown.check} />
-          <DetectionLimits c={shown} />
+          <DetectionLimits c={shown} units={units} />
           <ConditionBand cases={run.cases} shown={shown} onCase={onCase} />
           <SiteFigures site={shown.site} flat={run.datum === 'flat'} />
           {shown.zones.length ? <ZoneTable zones={shown.zones} /> : null}
@@ -315,8 +319,8 @@ const styles = StyleSheet.create({
 });
 
 /** What limits detection in this case: the range and its limit, what decided the rest, the areas. */
-function DetectionLimits({ c }: { c: CoverageCase }) {
-  const lines = describeDetection(c);
+function DetectionLimits({ c, units }: { c: CoverageCase; units?: ReadingUnits }) {
+  const lines = describeDetection(c, units);
   if (!lines) {
     return (
       <Notice tone="caution" title="Made before the detection model">

@@ -1,10 +1,19 @@
 import type { CoverageCase, CoverageComparison, CoverageRun, PlanCoverage, CoverageSnapshot } from '@/shared/schemas/coverage';
-import { LIMIT_LABELS } from '@/components/check/format';
+import type { LengthUnit } from '@/shared/units/length';
+import { distanceIn, formatLength, LIMIT_LABELS } from '@/components/check/format';
 
 /**
  * Pure helpers for the coverage screens: words and numbers for people
- * (areas arrive in m², shown in km²; shares in percent), the state of a
- * plan's coverage, and the figures of a comparison.
+ * (areas arrive in m², shown in km²; shares in percent; heights and ranges
+ * in the person's units, metric by default), the state of a plan's
+ * coverage, and the figures of a comparison.
+ *
+ * Areas stay in km² whatever the person's units: the agencies' cover
+ * standards and the site figures they are checked against are written in
+ * km² and percent of the site, and a reviewer compares plans by those
+ * figures — one unit of area across every screen and export keeps the
+ * comparison honest (a length unit switch changes how a height reads, not
+ * which standard a plan meets).
  */
 
 /** The standing cautions every coverage figure carries (shown with `CautionsPanel`). */
@@ -185,7 +194,7 @@ export interface PostComparison {
   /** Structure + eye above the ground, metres; null when the plan does not have the post. */
   readonly a: number | null;
   readonly b: number | null;
-  /** For people: "+10 m", "new in B", "only in A", or "" when nothing changed. */
+  /** For people, in the unit asked for: "+10 m" ("+32.8 ft"), "new in B", "only in A", or "" when nothing changed. */
   readonly change: string;
 }
 
@@ -194,15 +203,19 @@ const num = (v: unknown) => (typeof v === 'number' ? v : Number(v));
 /** Structure + eye height of a snapshot's post, metres. */
 export const eyeAboveGround = (p: SnapshotPost): number => num(p.structureHeightM) + num(p.eyeHeightM);
 
-/** A length in metres for people: "12 m", "1.7 m". */
-export const formatMetres = (m: number): string => `${Number.isInteger(m) ? m : m.toFixed(1)} m`;
+/**
+ * A height in metres for people, in `unit` (default metres): "12 m", "1.7 m";
+ * in feet rounded like `formatLength` ("39.4 ft").
+ */
+export const formatMetres = (m: number, unit: LengthUnit = 'm'): string =>
+  unit === 'm' ? `${Number.isInteger(m) ? m : m.toFixed(1)} m` : formatLength(m, unit);
 
 /**
  * The posts of two plans side by side (a's order, then b's new ones), with
  * what changed in their height: "what raising a tower by 10 m adds" starts
  * from this line.
  */
-export function comparePosts(a: readonly SnapshotPost[], b: readonly SnapshotPost[]): PostComparison[] {
+export function comparePosts(a: readonly SnapshotPost[], b: readonly SnapshotPost[], unit: LengthUnit = 'm'): PostComparison[] {
   const byId = (list: readonly SnapshotPost[]) => new Map(list.map((p) => [String(p.id), p]));
   const inA = byId(a);
   const inB = byId(b);
@@ -213,8 +226,16 @@ export function comparePosts(a: readonly SnapshotPost[], b: readonly SnapshotPos
     const ha = pa ? eyeAboveGround(pa) : null;
     const hb = pb ? eyeAboveGround(pb) : null;
     const d = ha !== null && hb !== null ? Math.round((hb - ha) * 10) / 10 : null;
+    // Metres to the decimetre as always; other units from the exact difference (no 10 ft → 9.84 ft).
+    const shown = unit === 'm' || ha === null || hb === null ? d : hb - ha;
     const change =
-      ha === null ? 'new in B' : hb === null ? 'only in A' : d ? `${d > 0 ? '+' : '−'}${formatMetres(Math.abs(d))}` : '';
+      ha === null
+        ? 'new in B'
+        : hb === null
+          ? 'only in A'
+          : d && shown
+            ? `${d > 0 ? '+' : '−'}${formatMetres(Math.abs(shown), unit)}`
+            : '';
     return { id, name: String((pb ?? pa)?.name ?? id), a: ha, b: hb, change };
   });
 }
@@ -265,7 +286,7 @@ export const DECIDED_BY_WORDS = {
 
 /** One case's detection limits as lines for people (see {@link CoverageCase.detection}). */
 export interface DetectionLines {
-  /** "Detected out to 0.69 km from a post (angular size)", or why never. */
+  /** "Detected out to 0.69 km from a post (angular size)" (in the person's distance unit), or why never. */
   readonly range: string;
   /** "Most of the undetected area: …", or null when all is detected. */
   readonly decided: string | null;
@@ -273,15 +294,28 @@ export interface DetectionLines {
   readonly areas: readonly { label: string; area: string }[];
   /** "Counted over the sea only.", or null. */
   readonly sea: string | null;
-  /** "Waves hide the lowest 0.63 m.", or null. */
+  /** "Waves hide the lowest 0.63 m." (in the person's height unit), or null. */
   readonly waves: string | null;
 }
 
+/** The units a person reads heights and distances in (`useLengthUnits`); metric when not given. */
+export interface ReadingUnits {
+  readonly height: LengthUnit;
+  readonly distance: LengthUnit;
+}
+
+const METRIC: ReadingUnits = { height: 'm', distance: 'km' };
+
 /**
- * Describes a case's detection limits, or returns null for runs made before
- * the detection model (their figures count the view and visibility only).
+ * Describes a case's detection limits, ranges in `units.distance` and wave
+ * heights in `units.height` (metric by default), or returns null for runs
+ * made before the detection model (their figures count the view and
+ * visibility only).
  */
-export function describeDetection(c: Pick<CoverageCase, 'detection' | 'targetName'>): DetectionLines | null {
+export function describeDetection(
+  c: Pick<CoverageCase, 'detection' | 'targetName'>,
+  units: ReadingUnits = METRIC,
+): DetectionLines | null {
   const d = c.detection;
   if (!d) return null;
   const limit = (by: NonNullable<typeof d.rangeLimitedBy>) => LIMIT_LABELS[by];
@@ -292,7 +326,7 @@ export function describeDetection(c: Pick<CoverageCase, 'detection' | 'targetNam
         ? `Wave crests hide ${c.targetName}: it is not detected anywhere in this sea.`
         : d.rangeLimitM === null
           ? `${c.targetName}: only the view limits detection (no stated visibility, size or light limit).`
-          : `${c.targetName} is detected out to ${formatKm(d.rangeLimitM)} from a post at most (${limit(d.rangeLimitedBy!)}).`;
+          : `${c.targetName} is detected out to ${distanceIn(d.rangeLimitM, units.distance, formatKm)} from a post at most (${limit(d.rangeLimitedBy!)}).`;
   const total = d.areaM2.detected + d.areaM2.noData + d.areaM2.view + d.areaM2.range;
   const areas = [
     { label: 'Detected', area: d.areaM2.detected },
@@ -308,7 +342,9 @@ export function describeDetection(c: Pick<CoverageCase, 'detection' | 'targetNam
     areas,
     sea: d.seaOnly ? 'A target on the water: counted over the site’s sea only, not its land.' : null,
     waves:
-      d.waveScreenM > 0 ? `Waves hide the lowest ${formatMetres(Math.round(d.waveScreenM * 100) / 100)} of the target.` : null,
+      d.waveScreenM > 0
+        ? `Waves hide the lowest ${units.height === 'm' ? formatMetres(Math.round(d.waveScreenM * 100) / 100) : formatMetres(d.waveScreenM, units.height)} of the target.`
+        : null,
   };
 }
 

@@ -5,7 +5,6 @@ import { StyleSheet, View } from 'react-native';
 import type { CoverageComparison, CoverageRun } from '@/shared/schemas/coverage';
 import type { Plan } from '@/shared/schemas/plan';
 import type { EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
-import { restateLengths } from '@/shared/units/typed-lengths';
 import { useCoverageCompare, useCoverageRun, usePlanCoverage } from '@/components/data/coverage';
 import { planQuery, usePlans } from '@/components/data/plans';
 import { useLengthUnits } from '@/components/data/session';
@@ -268,8 +267,8 @@ function Comparison({ a, b }: { a: Plan; b: Plan }) {
 
 /** Each post's height above its ground in A and B, and what changed. */
 function PostsTable({ a, b }: { a: readonly Record<string, unknown>[]; b: readonly Record<string, unknown>[] }) {
-  const rows = comparePosts(a, b);
   const { height } = useLengthUnits();
+  const rows = comparePosts(a, b, height);
   if (!rows.length) return null;
   const Head = ({ children, flex = 1 }: { children: string; flex?: number }) => (
     <View style={[tableStyles.th, { flex }]} role="columnheader">
@@ -300,7 +299,7 @@ function PostsTable({ a, b }: { a: readonly Record<string, unknown>[]; b: readon
             <Cell flex={2}>{r.name}</Cell>
             <Cell tone={r.a === null ? 'muted' : undefined}>{r.a === null ? '—' : lengthIn(r.a, height, formatMetres)}</Cell>
             <Cell tone={r.b === null ? 'muted' : undefined}>{r.b === null ? '—' : lengthIn(r.b, height, formatMetres)}</Cell>
-            <Cell tone="ember">{restateLengths(r.change, height)}</Cell>
+            <Cell tone="ember">{r.change}</Cell>
           </View>
         ))}
       </View>

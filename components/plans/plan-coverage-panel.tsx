@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { View } from 'react-native';
 import type { CoverageRun, CoverageSnapshot, PlanCoverage } from '@/shared/schemas/coverage';
 import { useCancelCoverage, useCoverageRun, usePlanCoverage, useStartCoverage } from '@/components/data/coverage';
+import { useLengthUnits } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -59,6 +60,7 @@ function CoverageCard({ planId, coverage, canRun }: { planId: string; coverage: 
       : initial;
   const start = useStartCoverage(planId);
   const cancel = useCancelCoverage();
+  const units = useLengthUnits();
   const [error, setError] = useState('');
   const [caseKey, setCaseKey] = useState<string | null>(null);
 
@@ -144,7 +146,7 @@ function CoverageCard({ planId, coverage, canRun }: { planId: string; coverage: 
             </AppText>
             {state.kind === 'stale' ? startButton('Compute again') : null}
           </View>
-          <CoverageFigures run={state.run} caseKey={caseKey} onCase={setCaseKey} />
+          <CoverageFigures run={state.run} caseKey={caseKey} onCase={setCaseKey} units={units} />
         </>
       )}
     </View>
@@ -161,6 +163,7 @@ function runSummary(run: CoverageRun): string {
 /** A frozen plan: the run its revision froze (asked for by id), never the live one. */
 function FrozenCoverage({ siteId, frozen }: { siteId: string; frozen: CoverageSnapshot | null | undefined }) {
   const run = useCoverageRun(frozen?.runId ?? null);
+  const units = useLengthUnits();
   const [caseKey, setCaseKey] = useState<string | null>(null);
   if (frozen === undefined) return <LoadingState label="Loading the frozen revision…" />;
   if (frozen === null) {
@@ -186,7 +189,7 @@ function FrozenCoverage({ siteId, frozen }: { siteId: string; frozen: CoverageSn
           </AppText>
         </Notice>
       ) : null}
-      <CoverageFigures run={shown} caseKey={caseKey} onCase={setCaseKey} />
+      <CoverageFigures run={shown} caseKey={caseKey} onCase={setCaseKey} units={units} />
     </View>
   );
 }

@@ -11,7 +11,7 @@ import { useConditionSets, useTargets } from '@/components/data/library';
 import { useCreatePlan, useUpdatePlan } from '@/components/data/plans';
 import { applyServerErrors } from '@/components/data/server-errors';
 import { useLengthUnits } from '@/components/data/session';
-import { lengthIn } from '@/components/check/format';
+import { distanceIn, lengthIn } from '@/components/check/format';
 import { siteQuery, sitePostsQuery, useSites } from '@/components/data/sites';
 import { describeCondition } from '@/components/library/describe-condition';
 import { AppText } from '@/components/ui/app-text';
@@ -99,7 +99,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
   const targetIds = watch('targetIds');
   const sites = useSites(1);
   const chosenSite = useQuery({ ...siteQuery(siteId), enabled: siteId !== '' });
-  const { height } = useLengthUnits(chosenSite.data?.defaultUnits);
+  const { height, distance } = useLengthUnits(chosenSite.data?.defaultUnits);
   const posts = useQuery({ ...sitePostsQuery(siteId), enabled: siteId !== '' });
   const targets = useTargets();
   const sets = useConditionSets();
@@ -251,7 +251,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
                 <CheckRow
                   key={s.id}
                   label={s.name}
-                  detail={`${s.conditions.map(describeCondition).join(' · ')}${s.visibilityM ? ` · visibility ${(s.visibilityM / 1000).toFixed(1)} km` : ''}`}
+                  detail={`${s.conditions.map(describeCondition).join(' · ')}${s.visibilityM ? ` · visibility ${distanceIn(s.visibilityM, distance, (m) => `${(m / 1000).toFixed(1)} km`)}` : ''}`}
                   checked={field.value.includes(s.id)}
                   onToggle={() => field.onChange(toggled(field.value, s.id))}
                 />

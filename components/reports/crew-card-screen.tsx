@@ -1,5 +1,7 @@
 import { Platform, View } from 'react-native';
+import { distanceIn, lengthIn } from '@/components/check/format';
 import { useCrewCard, crewCardPdfUrl } from '@/components/data/reports';
+import { useLengthUnits } from '@/components/data/session';
 import { COORDINATE_FORMATS, useCoordinateFormat } from '@/components/map/coordinate-format';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -20,8 +22,8 @@ const LIMITS: Record<string, string> = {
   'sea-state': 'sea state',
 };
 
-const km = (m: number | null) => (m === null ? '—' : m < 1000 ? `${Math.round(m)} m` : `${(m / 1000).toFixed(1)} km`);
-const metres = (m: number) => `${Math.round(m * 10) / 10} m`;
+const metricKm = (m: number) => (m < 1000 ? `${Math.round(m)} m` : `${(m / 1000).toFixed(1)} km`);
+const metricM = (m: number) => `${Math.round(m * 10) / 10} m`;
 const bearing = (deg: number) => `${Math.round(deg).toString().padStart(3, '0')}°`;
 
 /**
@@ -39,6 +41,10 @@ export function CrewCardScreen({ siteId, postId }: { siteId: string; postId: str
 
 function CardView({ card, format }: { card: CrewCard; format: (typeof COORDINATE_FORMATS)[number]['id'] }) {
   const { post } = card;
+  // The person's units on screen (the PDF is written in metres by the server).
+  const units = useLengthUnits();
+  const km = (m: number | null) => (m === null ? '—' : distanceIn(m, units.distance, metricKm));
+  const metres = (m: number) => lengthIn(m, units.height, metricM);
   const formatName = COORDINATE_FORMATS.find((f) => f.id === format)?.name ?? format;
   let position: string;
   try {

@@ -1,10 +1,12 @@
-import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useEffect, useRef, useState } from 'react';
+import { Controller, useForm, type UseFormGetValues, type UseFormSetValue } from 'react-hook-form';
 import { View } from 'react-native';
-import { SWEEP_MODEL_LABELS, SWEEP_MODELS } from '@/shared/schemas/sweep-width';
+import { SWEEP_MODEL_LABELS, SWEEP_MODELS, type SweepWidthRequest } from '@/shared/schemas/sweep-width';
+import { restateLengths, retypeLength } from '@/shared/units/typed-lengths';
+import { LENGTH_UNIT_WORDS, type UnitSystem } from '@/shared/units/unit-systems';
 import { Segmented } from '@/components/check/unit-switch';
 import { applyServerErrors } from '@/components/data/server-errors';
-import { useSession } from '@/components/data/session';
+import { useSession, useUnitSystem } from '@/components/data/session';
 import { useEvaluateSweep, useRetireSweepWidthTable, useSweepWidthTables } from '@/components/data/sweep-width';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -13,11 +15,15 @@ import { FormTextField } from '@/components/ui/form-text-field';
 import { EmptyState, ErrorState, FormError, LoadingState } from '@/components/ui/states';
 import { Screen } from '@/components/ui/screen';
 import { space } from '@/components/ui/theme';
+import { UnitNumberField } from '@/components/ui/unit-number-field';
+import { UnitsField } from '@/components/ui/units-field';
 import { useLayout } from '@/components/ui/use-layout';
 import {
   formFieldOf,
+  retypeCurve,
   SEARCH_EFFORT_DEFAULTS,
-  toSweepRequest,
+  searchEffortResolver,
+  searchUnits,
   type SearchEffortValues,
   type SweepSource,
 } from './search-effort-form-model';
@@ -44,26 +50,49 @@ export function SearchEffortScreen() {
   const retire = useRetireSweepWidthTable();
   const { data: user } = useSession();
   const planner = user?.role === 'planner';
+  const preferred = useUnitSystem();
   const [formError, setFormError] = useState('');
-  const { control, handleSubmit, setError, clearErrors, watch, setValue, formState } = useForm<SearchEffortValues>({
-    defaultValues: SEARCH_EFFORT_DEFAULTS,
+  const { control, handleSubmit, setError, clearErrors, watch, setValue, getValues, getFieldState, formState } = useForm<
+    SearchEffortValues,
+    unknown,
+    SweepWidthRequest
+  >({
+    defaultValues: { ...SEARCH_EFFORT_DEFAULTS, units: preferred },
+    resolver: searchEffortResolver(),
+    context: tables.data ?? [],
   });
   const source = watch('source');
   const tableId = watch('tableId');
   const rowIndex = watch('rowIndex');
+  const units = watch('units');
+  const { distance } = searchUnits(units);
+  useRetypedOnUnitChange(units, getValues, setValue);
+  // The person's units may arrive after the form: follow them until the person picks units here.
+  useEffect(() => {
+    if (!getFieldState('units').isDirty) setValue('units', preferred);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [preferred]);
 
-  const submit = handleSubmit((values) => {
+  const submit = handleSubmit((request) => {
     setFormError('');
     clearErrors();
-    const built = toSweepRequest(values, tables.data ?? []);
-    if ('errors' in built) {
-      for (const [field, message] of Object.entries(built.errors)) {
-        setError(field as keyof SearchEffortValues, { type: 'validate', message });
-      }
-      return;
-    }
-    evaluate.mutate(built.request, {
-      onError: (e) => setFormError(applyServerErrors(e, setError, (path) => formFieldOf(path, values.source) ?? undefined)),
+    const typedIn = getValues(['source', 'units']);
+    const curveUnit = searchUnits(typedIn[1]).distance;
+    evaluate.mutate(request, {
+      onError: (e) =>
+        setFormError(
+          applyServerErrors<SearchEffortValues>(
+            e,
+            (field, error, options) =>
+              // The curve is plain text: its figures are restated here (the length fields restate their own).
+              setError(
+                field,
+                field === 'curve' ? { ...error, message: restateLengths(error.message ?? '', curveUnit) } : error,
+                options,
+              ),
+            (path) => formFieldOf(path, typedIn[0]) ?? undefined,
+          ),
+        ),
     });
   });
 
@@ -71,6 +100,7 @@ export function SearchEffortScreen() {
     <Card accent="moss" aria-label="Search effort">
       <AppText variant="heading">Sweep width and track spacing</AppText>
       <FormError message={formError} />
+      <UnitsField control={control} name="units" />
       <Controller
         control={control}
         name="source"
@@ -91,6 +121,7 @@ export function SearchEffortScreen() {
         ) : (
           <TableRowPicker
             tables={tables.data}
+            units={units}
             tableId={tableId}
             rowIndex={rowIndex}
             onTable={(id) => {
@@ -117,12 +148,12 @@ export function SearchEffortScreen() {
         )
       ) : null}
       {source === 'width' ? (
-        <FormTextField
+        <UnitNumberField
           control={control}
           name="sweepWidth"
           label="Sweep width W"
-          unit="m"
-          inputMode="decimal"
+          unit={distance}
+          onSubmitEditing={() => void submit()}
           hint="From your agency’s tables for this search object, visibility and searcher."
         />
       ) : null}
@@ -134,8 +165,8 @@ export function SearchEffortScreen() {
           multiline
           numberOfLines={6}
           style={{ minHeight: 132, textAlignVertical: 'top' }}
-          placeholder={'0, 0.9\n500, 0.7\n1500, 0.2\n2500, 0'}
-          hint="One point a line: lateral range in metres, POD on one pass (0–1 or %), nearest first."
+          placeholder={retypeCurve('0, 0.9\n500, 0.7\n1500, 0.2\n2500, 0', 'm', distance)}
+          hint={`One point a line: lateral range in ${LENGTH_UNIT_WORDS[distance]}, POD on one pass (0–1 or %), nearest first.`}
         />
       ) : null}
       {source !== 'curve' ? (
@@ -152,26 +183,27 @@ export function SearchEffortScreen() {
           )}
         />
       ) : null}
-      <FormTextField
+      <UnitNumberField
         control={control}
         name="trackSpacing"
         label="Track spacing S"
-        unit="m"
-        inputMode="decimal"
+        unit={distance}
+        onSubmitEditing={() => void submit()}
         hint="Distance between adjacent search tracks."
       />
       <View style={{ alignItems: 'flex-start' }}>
-        <Button label="Compute POD" onPress={submit} busy={evaluate.isPending} />
+        <Button label="Compute POD" onPress={() => void submit()} busy={evaluate.isPending} disabled={evaluate.isPending} />
       </View>
     </Card>
   );
 
   const result = (
     <View style={{ gap: space.lg }}>
-      {evaluate.data ? <SweepResult result={evaluate.data} /> : null}
+      {evaluate.data ? <SweepResult result={evaluate.data} units={units} /> : null}
       <SweepCautions caution={evaluate.data?.caution} />
       {planner ? (
         <SweepWidthTableForm
+          units={preferred}
           onAdded={(id) => {
             setValue('source', 'table');
             setValue('tableId', id);
@@ -200,4 +232,29 @@ export function SearchEffortScreen() {
       )}
     </Screen>
   );
+}
+
+/**
+ * Re-types the lengths no mounted `UnitNumberField` looks after when the
+ * form's units change: the curve (plain text, one range a line) always, and
+ * the typed sweep width while the curve or a table is chosen (its field is
+ * not shown then), so nothing typed changes its length with the unit.
+ */
+function useRetypedOnUnitChange(
+  units: UnitSystem,
+  getValues: UseFormGetValues<SearchEffortValues>,
+  setValue: UseFormSetValue<SearchEffortValues>,
+) {
+  const shownIn = useRef(units);
+  useEffect(() => {
+    const from = searchUnits(shownIn.current).distance;
+    const to = searchUnits(units).distance;
+    shownIn.current = units;
+    if (from === to) return;
+    const [curve, sweepWidth, source] = getValues(['curve', 'sweepWidth', 'source']);
+    if (curve) setValue('curve', retypeCurve(curve, from, to));
+    if (sweepWidth && source !== 'width') setValue('sweepWidth', retypeLength(sweepWidth, from, to));
+    // Only a change of unit re-types.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [units]);
 }

@@ -1,11 +1,12 @@
 import { StyleSheet, View } from 'react-native';
 import { SWEEP_MODEL_LABELS, type SweepWidthResult } from '@/shared/schemas/sweep-width';
+import type { UnitSystem } from '@/shared/units/unit-systems';
 import type { ComputedOn } from '@/components/data/sightline';
 import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import { Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
-import { formatMetres } from './search-effort-form-model';
+import { formatSweepDistance } from './search-effort-form-model';
 
 const percent = (p: number) => `${(p * 100).toFixed(p >= 0.995 ? 1 : 0)} %`;
 
@@ -25,17 +26,23 @@ function Figure({ label, value, note }: { label: string; value: string; note?: s
   );
 }
 
-/** W, C and POD of one search, with the method, the source and any warnings. */
-export function SweepResult({ result }: { result: SweepWidthResult & { computedOn: ComputedOn } }) {
+/** W, C and POD of one search (W and S in `units`), with the method, the source and any warnings. */
+export function SweepResult({
+  result,
+  units = 'metric',
+}: {
+  result: SweepWidthResult & { computedOn: ComputedOn };
+  units?: UnitSystem;
+}) {
   return (
     <Card accent="ember" aria-label="Search effort result">
       <AppText variant="heading">Probability of detection (estimate)</AppText>
       <View style={styles.figures}>
-        <Figure label="Sweep width W" value={formatMetres(result.sweepWidthM)} />
+        <Figure label="Sweep width W" value={formatSweepDistance(result.sweepWidthM, units)} />
         <Figure
           label="Coverage factor C"
           value={result.coverageFactor.toFixed(2)}
-          note={`W / S, S = ${formatMetres(result.trackSpacingM)}`}
+          note={`W / S, S = ${formatSweepDistance(result.trackSpacingM, units)}`}
         />
         <Figure label="POD" value={percent(result.pod)} note={SWEEP_MODEL_LABELS[result.model]} />
         <Figure label="POD, random search" value={percent(result.podRandomSearch)} note="1 − e^(−C), the pessimistic bound" />

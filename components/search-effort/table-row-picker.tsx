@@ -1,5 +1,6 @@
 import { View } from 'react-native';
 import type { SweepWidthTable } from '@/shared/schemas/sweep-width';
+import type { UnitSystem } from '@/shared/units/unit-systems';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Chip, ChipRow } from '@/components/ui/chip';
@@ -10,6 +11,7 @@ import { describeRow } from './search-effort-form-model';
 /** Chooses a table of the library and one of its rows. */
 export function TableRowPicker({
   tables,
+  units = 'metric',
   tableId,
   rowIndex,
   onTable,
@@ -20,6 +22,8 @@ export function TableRowPicker({
   retiring,
 }: {
   tables: readonly SweepWidthTable[];
+  /** The units rows are described in. */
+  units?: UnitSystem;
   tableId: string;
   rowIndex: string;
   onTable: (id: string) => void;
@@ -57,7 +61,7 @@ export function TableRowPicker({
           ) : null}
           <ChipRow label="Row">
             {table.rows.map((row, i) => (
-              <Chip key={i} label={describeRow(row)} on={rowIndex === String(i)} onPress={() => onRow(String(i))} />
+              <Chip key={i} label={describeRow(row, units)} on={rowIndex === String(i)} onPress={() => onRow(String(i))} />
             ))}
           </ChipRow>
           {rowError ? (

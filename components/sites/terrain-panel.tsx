@@ -6,7 +6,7 @@ import { TERRAIN_FORMAT_LABELS, type SiteTerrain } from '@/shared/schemas/terrai
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { ApiRequestError } from '@/components/data/api-client';
 import type { PickedFile } from '@/components/data/file-part';
-import { formatLength } from '@/components/check/format';
+import { distanceIn, formatLength } from '@/components/check/format';
 import { useLengthUnits } from '@/components/data/session';
 import { useBoundaryFromTerrain } from '@/components/data/placement';
 import { useSiteTerrain, useUploadTerrain } from '@/components/data/terrain';
@@ -51,7 +51,8 @@ export function TerrainPanel({ site, canUpload }: { site: Site; canUpload: boole
 }
 
 function TerrainFacts({ site, terrain }: { site: Site; terrain: SiteTerrain }) {
-  const { height } = useLengthUnits(site.defaultUnits);
+  const { height, distance } = useLengthUnits(site.defaultUnits);
+  const extent = (m: number) => distanceIn(m, distance, km);
   const layer = terrain.baseLayer;
   const widthM = terrain.width * terrain.cellSizeM;
   const heightM = terrain.height * terrain.cellSizeM;
@@ -64,7 +65,7 @@ function TerrainFacts({ site, terrain }: { site: Site; terrain: SiteTerrain }) {
         {site.boundary ? 'Outline: the site boundary.' : ''}
       </AppText>
       <View style={styles.facts}>
-        <Fact label="Grid" value={`${terrain.width} × ${terrain.height} cells · ${km(widthM)} × ${km(heightM)}`} />
+        <Fact label="Grid" value={`${terrain.width} × ${terrain.height} cells · ${extent(widthM)} × ${extent(heightM)}`} />
         <Fact label="Cell size" value={`${terrain.cellSizeM} m`} />
         <Fact label="Coordinate system" value={terrain.crs.label} />
         <Fact

@@ -4,6 +4,7 @@ import {
   comparableRun,
   compareLines,
   comparePosts,
+  formatMetres,
   coverageCardState,
   formatArea,
   formatAreaChange,
@@ -233,6 +234,41 @@ describe('describeDetection', () => {
     expect(free.decided).toBeNull();
     expect(free.waves).toBeNull();
     expect(free.sea).toBeNull();
+  });
+});
+
+describe('heights and ranges in the person’s units', () => {
+  const detection = {
+    rangeLimitM: 9260,
+    rangeLimitedBy: 'visibility' as const,
+    waveScreenM: 0.9144,
+    reason: null,
+    decidedBy: 'visibility' as const,
+    areaM2: { detected: 1_000_000, noData: 0, view: 0, range: 0 },
+    seaOnly: true,
+  };
+  test('ranges in nautical or statute miles, wave heights in feet; areas stay in km²', () => {
+    const nautical = describeDetection({ targetName: 'Raft', detection }, { height: 'ft', distance: 'nmi' })!;
+    // Source: NIST SP 811 Appendix B.8: 1 nmi = 1852 m, so 9260 m = 5 nmi; 1 ft = 0.3048 m, so 0.9144 m = 3 ft.
+    expect(nautical.range).toBe('Raft is detected out to 5 nmi from a post at most (visibility).');
+    expect(nautical.waves).toBe('Waves hide the lowest 3 ft of the target.');
+    expect(nautical.areas[0]!.area).toBe('1.00 km² (100.0 %)');
+    const imperial = describeDetection({ targetName: 'Raft', detection }, { height: 'ft', distance: 'mi' })!;
+    // Source: NIST SP 811 B.8: 1 mi = 1609.344 m; 9260 m = 5.754 mi.
+    expect(imperial.range).toBe('Raft is detected out to 5.75 mi from a post at most (visibility).');
+    // Metric unchanged, given or not: 9260 m reads 9.3 km.
+    expect(describeDetection({ targetName: 'Raft', detection }, { height: 'm', distance: 'km' })!.range).toBe(
+      describeDetection({ targetName: 'Raft', detection })!.range,
+    );
+    expect(describeDetection({ targetName: 'Raft', detection })!.range).toMatch(/out to 9\.3 km/);
+  });
+  test('a post’s change of height in feet', () => {
+    const post = (structureHeightM: number) => ({ id: '1', name: 'Tower A', structureHeightM, eyeHeightM: 1.7 });
+    // Source: NIST SP 811 B.8: 10 m / 0.3048 = 32.8 ft; 3.048 m = 10 ft exactly.
+    expect(comparePosts([post(12)], [post(22)], 'ft')[0]!.change).toBe('+32.8 ft');
+    expect(comparePosts([post(12)], [post(12 - 3.048)], 'ft')[0]!.change).toBe('−10 ft');
+    expect(formatMetres(1.7, 'ft')).toBe('5.58 ft');
+    expect(formatMetres(1.7)).toBe('1.7 m');
   });
 });
 
