@@ -44,11 +44,38 @@ export function persistOptions(): Omit<PersistQueryClientOptions, 'queryClient'>
     throttleTime: 1000,
   });
   return {
-    persister,
+    persister: { ...persister, restoreClient: () => restoreOnlyUnreachable(persister.restoreClient) },
     maxAge: DEVICE_COPY_MAX_AGE_MS,
     buster: buildId(),
     dehydrateOptions: { shouldDehydrateQuery: (q) => defaultShouldDehydrateQuery(q) && !notKept(q) },
   };
+}
+
+/** How long the start waits for the server before it opens the device's copy instead. */
+const REACH_TIMEOUT_MS = 3000;
+
+/** Whether the server answers now (a phone can show signal and still have no data). */
+async function serverReachable(): Promise<boolean> {
+  if (typeof navigator !== 'undefined' && navigator.onLine === false) return false;
+  const abort = new AbortController();
+  const timer = setTimeout(() => abort.abort(), REACH_TIMEOUT_MS);
+  try {
+    await fetch('/api/health', { cache: 'no-store', signal: abort.signal });
+    return true; // any answer, even 503 (database away), means the server itself is there
+  } catch {
+    return false;
+  } finally {
+    clearTimeout(timer);
+  }
+}
+
+/**
+ * The device's copy is opened only when the server cannot be reached: online,
+ * the app starts from fresh answers, so a reload never shows figures older
+ * than the server's (the copy is still written as new answers come in).
+ */
+async function restoreOnlyUnreachable<T>(restore: () => PromiseLike<T | undefined> | T | undefined): Promise<T | undefined> {
+  return (await serverReachable()) ? undefined : restore();
 }
 
 /** Deletes the device's copies of the person's data (sign-out). */
