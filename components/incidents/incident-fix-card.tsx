@@ -76,7 +76,9 @@ export function IncidentFixCard({
             : ''}
         </AppText>
         <AppText variant="small" tone="muted">
-          {fix.method === 'two-bearing-intersection' ? 'Two bearings crossed' : `Least squares over ${fix.fromReports.length} bearings`}
+          {fix.method === 'two-bearing-intersection'
+            ? 'Two bearings crossed'
+            : `Least squares over ${fix.fromReports.length} bearings`}
           . {fix.errorAreaMethod}
         </AppText>
       </View>
@@ -112,7 +114,9 @@ export function IncidentFixCard({
               <AppText variant="small">
                 {formatLength(line.distanceM, distance)} at {toFix ? bearingText(toFix.azimuthDeg) : '—'} true
                 {report ? ` · reported ${bearingText(report.trueBearingDeg)} ± ${report.bearingSigmaDeg}°` : ''}
-                {fix.method === 'least-squares' ? ` · residual ${line.residualDeg >= 0 ? '+' : ''}${line.residualDeg.toFixed(2)}°` : ''}
+                {fix.method === 'least-squares'
+                  ? ` · residual ${line.residualDeg >= 0 ? '+' : ''}${line.residualDeg.toFixed(2)}°`
+                  : ''}
               </AppText>
               {line.flagged ? (
                 <AppText variant="small" tone="danger">

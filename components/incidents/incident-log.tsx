@@ -14,21 +14,27 @@ export function ChainNotice({ chain }: { chain: ChainCheck }) {
   return chain.intact ? (
     <Notice tone="info" title="Log intact">
       <AppText variant="small">
-        All {chain.entries} entries check out: each carries the hash of the one before, so a changed or removed entry would
-        show here.
+        All {chain.entries} entries check out: each carries the hash of the one before, so a changed or removed entry would show
+        here.
       </AppText>
     </Notice>
   ) : (
     <Notice tone="danger" title={`Log broken at entry ${chain.firstBrokenSeq ?? '?'}`}>
-      <AppText variant="small">
-        {chain.message} Do not rely on entries from there on; tell your administrator.
-      </AppText>
+      <AppText variant="small">{chain.message} Do not rely on entries from there on; tell your administrator.</AppText>
     </Notice>
   );
 }
 
 /** The append-only log, newest first, with its exports. */
-export function IncidentLog({ incidentId, entries, chain }: { incidentId: string; entries: readonly IncidentEntry[]; chain: ChainCheck }) {
+export function IncidentLog({
+  incidentId,
+  entries,
+  chain,
+}: {
+  incidentId: string;
+  entries: readonly IncidentEntry[];
+  chain: ChainCheck;
+}) {
   const broken = chain.firstBrokenSeq;
   return (
     <Card style={{ gap: space.md }} aria-label="Incident log">
@@ -42,7 +48,12 @@ export function IncidentLog({ incidentId, entries, chain }: { incidentId: string
             <View
               key={e.seq}
               role="listitem"
-              style={{ gap: 2, borderLeftWidth: 3, paddingLeft: space.sm, borderLeftColor: suspect ? colors.danger : colors.line }}
+              style={{
+                gap: 2,
+                borderLeftWidth: 3,
+                paddingLeft: space.sm,
+                borderLeftColor: suspect ? colors.danger : colors.line,
+              }}
             >
               <AppText variant="label">
                 {e.seq}. {title}

@@ -163,7 +163,12 @@ function CloseOrReopen({ detail }: { detail: IncidentDetail }) {
           )
         }
       >
-        <TextField label="Note for the log (optional)" value={note} onChangeText={setNote} placeholder="e.g. Crew on scene, out." />
+        <TextField
+          label="Note for the log (optional)"
+          value={note}
+          onChangeText={setNote}
+          placeholder="e.g. Crew on scene, out."
+        />
       </ConfirmDialog>
     </>
   );

@@ -131,8 +131,7 @@ function OpenIncidentForm({ siteChoices, onCancel }: { siteChoices: { id: string
   const onSubmit = handleSubmit((input) => {
     setFormError('');
     open.mutate(input, {
-      onSuccess: (detail) =>
-        router.navigate({ pathname: '/incidents/[incidentId]', params: { incidentId: detail.incident.id } }),
+      onSuccess: (detail) => router.navigate({ pathname: '/incidents/[incidentId]', params: { incidentId: detail.incident.id } }),
       onError: (e) => setFormError(applyServerErrors(e, setError, ['siteId', 'title'])),
     });
   });

@@ -3,7 +3,12 @@ import { Controller, useForm, type FieldErrors, type Resolver } from 'react-hook
 import { View } from 'react-native';
 import { modelDeclination } from '@/shared/fixes/declination';
 import { BEARING_INSTRUMENTS } from '@/shared/fixes/instruments';
-import { IncidentReportInputSchema, SIGHTING_KINDS, type IncidentReportInput, type SightingKind } from '@/shared/schemas/incident';
+import {
+  IncidentReportInputSchema,
+  SIGHTING_KINDS,
+  type IncidentReportInput,
+  type SightingKind,
+} from '@/shared/schemas/incident';
 import type { Post } from '@/shared/schemas/site';
 import { useReportBearing } from '@/components/data/incidents';
 import { applyServerErrors } from '@/components/data/server-errors';
@@ -222,7 +227,9 @@ export function ReportBearingForm({
               {model && post
                 ? `At ${post.name} today the magnetic model gives ${eastWest(model.declinationDeg)} (${model.model}); ` +
                   'Kenning adds it to your compass bearing unless you type your own below.' +
-                  (model.withinModelYears ? '' : ' The date is outside the model’s years: the figure may be a degree or more off.')
+                  (model.withinModelYears
+                    ? ''
+                    : ' The date is outside the model’s years: the figure may be a degree or more off.')
                 : 'Choose the post: the declination is worked out for its place and today’s date.'}
             </AppText>
           </Notice>

@@ -73,7 +73,10 @@ export function IncidentOverlay({
     return { x: s.x + margin, y: s.y + margin };
   };
   const list = (points: readonly { x: number; y: number }[]) =>
-    points.map((p) => at(p)).map((p) => `${p.x.toFixed(1)},${p.y.toFixed(1)}`).join(' ');
+    points
+      .map((p) => at(p))
+      .map((p) => `${p.x.toFixed(1)},${p.y.toFixed(1)}`)
+      .join(' ');
   return (
     <Svg
       width={size.width + 2 * margin}
@@ -88,12 +91,7 @@ export function IncidentOverlay({
         return (
           <G key={shape.incidentId}>
             {shape.errorRing ? (
-              <Polygon
-                points={list(shape.errorRing)}
-                fill="rgba(184, 70, 27, 0.28)"
-                stroke={BEARING}
-                strokeWidth={2}
-              />
+              <Polygon points={list(shape.errorRing)} fill="rgba(184, 70, 27, 0.28)" stroke={BEARING} strokeWidth={2} />
             ) : null}
             {shape.bearings.map((b) => (
               <Polyline

@@ -9,7 +9,11 @@ const Params = z.object({ incidentId: z.uuid() });
 
 function IncidentRouteContent() {
   const parsed = Params.safeParse(useLocalSearchParams());
-  return parsed.success ? <IncidentScreen incidentId={parsed.data.incidentId} /> : <BadAddress title="Incident" what="an incident" />;
+  return parsed.success ? (
+    <IncidentScreen incidentId={parsed.data.incidentId} />
+  ) : (
+    <BadAddress title="Incident" what="an incident" />
+  );
 }
 
 /** The tab's title until the page below names itself more precisely. */
