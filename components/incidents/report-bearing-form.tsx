@@ -148,10 +148,7 @@ export function ReportBearingForm({
   const instrument = watch('instrument');
   const post = posts.find((p) => p.id === postId);
   // The declination the server will use for a magnetic bearing with none typed: the same model, at the post, now.
-  const model = useMemo(
-    () => (post ? modelDeclination(post.location.latDeg, post.location.lonDeg, new Date(), post.groundElevationM) : null),
-    [post],
-  );
+  const model = useMemo(() => (post ? modelDeclination(post.location.latDeg, post.location.lonDeg, new Date()) : null), [post]);
 
   const onSubmit = handleSubmit((fields) => {
     setFormError('');

@@ -391,7 +391,8 @@ async function mailFix(deps: IncidentDeps, actor: Actor, detail: IncidentDetail)
           const r = byPost.get(seq)!;
           return `${r.postName}: ${r.trueBearingDeg.toFixed(1)}° true ± ${r.bearingSigmaDeg}° (${r.kind}, ${r.observedAt})`;
         }),
-        warnings: fix.warnings,
+        // What the posts cannot see of the place goes with the warnings: a smoke there may be higher than it looks, or elsewhere.
+        warnings: [...fix.warnings, ...(fix.visibility ?? []).filter((v) => v.seesGround === false).map((v) => v.message)],
         incidentUrl: deps.incidentUrl(detail.incident.id),
       }),
     });

@@ -127,8 +127,8 @@ describe('visibilitySentence', () => {
     ).toBe(
       'Sedge Ridge Tower cannot see the ground there; a smoke would have to rise at least 40 m to show above the terrain in between.',
     );
-    expect(visibilitySentence({ postName: 'Crane Knoll Tower', seesGround: true, minSmokeHeightM: 0, basis: 'coverage-run' })).toBe(
-      'Crane Knoll Tower sees the ground there (from the latest coverage run).',
-    );
+    expect(
+      visibilitySentence({ postName: 'Crane Knoll Tower', seesGround: true, minSmokeHeightM: 0, basis: 'coverage-run' }),
+    ).toBe('Crane Knoll Tower sees the ground there (from the latest coverage run).');
   });
 });
