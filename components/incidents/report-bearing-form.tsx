@@ -150,7 +150,11 @@ export function ReportBearingForm({
   // The declination the server will use for a magnetic bearing with none typed: the same model, at the post, now.
   const model = useMemo(() => (post ? modelDeclination(post.location.latDeg, post.location.lonDeg, new Date()) : null), [post]);
 
+  // A second tap while a report is on its way is ignored (a retry after a failure sends the same key again).
+  const inFlight = useRef(false);
   const onSubmit = handleSubmit((fields) => {
+    if (inFlight.current) return;
+    inFlight.current = true;
     setFormError('');
     setSent(null);
     const signature = signatureOf(fields);
@@ -161,10 +165,13 @@ export function ReportBearingForm({
     report.mutate(
       { ...fields, observedAt, idempotencyKey: key },
       {
+        onSettled: () => {
+          inFlight.current = false;
+        },
         onSuccess: (result) => {
           attempt.current = null;
           setSent(
-            `${result.replayed ? 'Already stored' : 'Sent'}: ${result.report.trueBearingDeg.toFixed(1)}° true from ${result.report.postName}` +
+            `${result.replayed ? 'Already received (stored once)' : 'Sent'}: ${result.report.trueBearingDeg.toFixed(1)}° true from ${result.report.postName}` +
               (result.report.declinationSource === 'model'
                 ? ` (declination ${eastWest(result.report.declinationDeg)} from the magnetic model).`
                 : '.'),

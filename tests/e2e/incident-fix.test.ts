@@ -62,7 +62,7 @@ async function reportBearing(page: Page, bearing: string, reference: 'true' | 'm
   const send = form.getByRole('button', { name: 'Send the bearing' });
   // A double tap sends the report once (one idempotency key per report).
   await send.dblclick();
-  await form.getByText(/^(Sent|Already stored): /).waitFor();
+  await form.getByText(/^(Sent|Already received \(stored once\)): /).waitFor();
 }
 
 describe('bearings from two phones give the planner a fix', () => {
@@ -121,6 +121,8 @@ describe('bearings from two phones give the planner a fix', () => {
       await openPlace(a, 'Incidents');
       await a.getByRole('button', { name: 'Open an incident' }).click();
       const openForm = a.getByLabel('Open an incident');
+      await openForm.waitFor();
+      await shot(a, 'incident-open', 'phone');
       await openForm.getByRole('checkbox', { name: FOREST }).click();
       await openForm.getByLabel('Title').fill(title);
       await openForm.getByRole('button', { name: 'Open', exact: true }).click();
@@ -146,7 +148,10 @@ describe('bearings from two phones give the planner a fix', () => {
       await reportBearing(b, sedgeMagnetic.toFixed(1), 'magnetic');
       await b.getByLabel('Fix position').waitFor();
       await b.getByText(/^MGRS 33U/).waitFor();
+      await b.getByRole('heading', { name: title }).scrollIntoViewIfNeeded();
       await shot(b, 'incident-fix', 'phone');
+      await b.getByText('Can each post see the place?').scrollIntoViewIfNeeded();
+      await shot(b, 'incident-fix-visibility', 'phone');
 
       // 3. The planner on a wide screen: the fix, its error area, each post's distance and view, the intact log.
       const p = planner.page;
