@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { Controller, useForm, type FieldErrors, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';
 import { modelDeclination } from '@/shared/fixes/declination';
@@ -129,7 +129,7 @@ export function ReportBearingForm({
   const [sent, setSent] = useState<string | null>(null);
   const attempt = useRef<{ key: string; observedAt: string; signature: string } | null>(null);
   const defaultPost = posts.find((p) => p.id === preferredPostId) ?? (posts.length === 1 ? posts[0] : undefined);
-  const { control, handleSubmit, setError, setValue, watch } = useForm<ReportForm, unknown, ReportFields>({
+  const { control, handleSubmit, setError, setValue, getValues, watch } = useForm<ReportForm, unknown, ReportFields>({
     resolver: reportResolver,
     defaultValues: {
       postId: defaultPost?.id ?? '',
@@ -143,6 +143,11 @@ export function ReportBearingForm({
       note: '',
     },
   });
+  // The posts and the lookout's watch may arrive after the form: choose the watch post then, unless one is chosen.
+  const defaultPostId = defaultPost?.id;
+  useEffect(() => {
+    if (defaultPostId && !getValues('postId')) setValue('postId', defaultPostId);
+  }, [defaultPostId, getValues, setValue]);
   const postId = watch('postId');
   const reference = watch('bearingReference');
   const instrument = watch('instrument');
