@@ -20,9 +20,10 @@ import { IncidentLog } from './incident-log';
 import { bearingText, SIGHTING_LABELS, STATUS_LABELS } from './incident-words';
 import { ReportBearingForm } from './report-bearing-form';
 
-/** The post an observer is on watch at now, if any (to pick first in the report form). */
-function usePostOnWatch(enabled: boolean): string | null {
+/** The post an observer is on watch at now (to pick first in the report form): null when none, undefined while loading. */
+function usePostOnWatch(enabled: boolean): string | null | undefined {
   const briefing = useQuery({ ...briefingQuery(), enabled });
+  if (enabled && briefing.isPending) return undefined;
   const now = Date.now();
   const watch = briefing.data?.assignments.find(
     (a) => Date.parse(a.startsAt) <= now && (a.endsAt === null || Date.parse(a.endsAt) > now),
@@ -61,7 +62,9 @@ export function IncidentScreen({ incidentId }: { incidentId: string }) {
   );
   const form =
     writer && open ? (
-      user?.role === 'observer' && !onWatchPost ? (
+      user?.role === 'observer' && onWatchPost === undefined ? (
+        <LoadingState label="Looking up your watch…" />
+      ) : user?.role === 'observer' && !onWatchPost ? (
         <Notice tone="info" title="Reporting">
           <AppText variant="small">Lookouts report bearings while on a watch at one of this site’s posts.</AppText>
         </Notice>
