@@ -93,9 +93,10 @@ export function IncidentScreen({ incidentId }: { incidentId: string }) {
           <View style={{ flex: 3, gap: space.lg }}>
             {fixCard}
             {reportList}
-            {log}
+            {form ? log : null}
           </View>
-          <View style={{ flex: 2, gap: space.lg }}>{form}</View>
+          {/* Without the form (closed, or a reader) the log takes the right column. */}
+          <View style={{ flex: 2, gap: space.lg }}>{form ?? log}</View>
         </View>
       ) : (
         <>

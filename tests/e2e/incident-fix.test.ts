@@ -152,6 +152,17 @@ describe('bearings from two phones give the planner a fix', () => {
       await shot(b, 'incident-fix', 'phone');
       await b.getByText('Can each post see the place?').scrollIntoViewIfNeeded();
       await shot(b, 'incident-fix-visibility', 'phone');
+      // On the phone's map: the incident is listed under the legend, drawn over the map.
+      await b.getByRole('link', { name: 'Show on the map' }).click();
+      await b.waitForURL(/\/sites\/[0-9a-f-]{36}\/map\?/);
+      await b.getByRole('button', { name: 'Legend and layers' }).waitFor();
+      await b.waitForTimeout(500);
+      await b.screenshot({ path: `${SCREENSHOT_DIR}/incident-map-phone.png` });
+      await b.getByRole('button', { name: 'Legend and layers' }).click();
+      await b
+        .getByLabel('Incidents on the map')
+        .getByText(new RegExp(`${title}: fix at`))
+        .waitFor();
 
       // 3. The planner on a wide screen: the fix, its error area, each post's distance and view, the intact log.
       const p = planner.page;
@@ -188,6 +199,18 @@ describe('bearings from two phones give the planner a fix', () => {
       expect(mail.text).toMatch(/MGRS 33U/);
       expect(mail.text).toMatch(/Error area/);
       expect(mail.text).toContain(`/incidents/${incidentId}`);
+
+      // 6. The planner closes the incident: asked first, with a note for the log.
+      await p.goto(`${e2eUrl()}/incidents/${incidentId}`);
+      await p.getByRole('button', { name: 'Close the incident' }).click();
+      const dialog = p.getByRole('dialog', { name: 'Close this incident?' });
+      await dialog.getByLabel('Note for the log (optional)').fill('Crew on scene; out.');
+      await dialog.getByRole('button', { name: 'Close', exact: true }).click();
+      await dialog.waitFor({ state: 'detached' });
+      await p.getByText(/· Closed ·/).waitFor();
+      await p.getByText('Crew on scene; out.').waitFor();
+      expect(await p.getByLabel('Report a bearing').count()).toBe(0);
+      await shot(p, 'incident-closed', 'wide');
 
       expect(errors.flat()).toEqual([]);
     } finally {
