@@ -151,11 +151,11 @@ export function createApp({
   v1.use(calibrationRoutes(db));
   v1.use(drillRoutes(db, cache));
   v1.use(courseRoutes(db, cache));
-  v1.use(fixRoutes());
+  v1.use(fixRoutes(cache));
   v1.use(planRoutes(db, publicUrl, mailer));
   v1.use(exportRoutes({ terrainCache: cache }));
   v1.use(reportRoutes(db, files));
-  v1.use(incidentRoutes(db, publicUrl, mailer));
+  v1.use(incidentRoutes(db, publicUrl, mailer, cache));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(rosterRoutes(db));
   v1.use(attachmentRoutes(db, files, uploadTempDir));

@@ -3,6 +3,7 @@ import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 import type { LatLon } from '@/shared/geo/types';
+import type { IncidentDetail } from '@/shared/schemas/incident';
 import type { Post, Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
 import type { RefractionPresetId } from '@/shared/sightline/refraction-presets';
@@ -20,6 +21,7 @@ import { useLayout } from '@/components/ui/use-layout';
 import { useCoordinateFormat } from './coordinate-format';
 import { useDecodedRaster, type MapCoverageLayer } from './map-coverage-layer';
 import { blindAreaOutline } from './blind-area-outline';
+import { IncidentMapPanel, IncidentOverlay, useIncidentShapes, useMapIncidents } from './incident-overlay';
 import type { MapTarget } from './map-features';
 import { MapLegend } from './map-legend';
 import { MapViewport, type MapHandles, type ShownLayer } from './map-viewport';
@@ -49,6 +51,8 @@ export interface SiteMapScreenProps {
   onChosenPost?: (postId: string | null) => void;
   /** `focusAt` is a point inside a blind area: outline that area (from the posts-per-cell layer). */
   outlineBlindArea?: boolean;
+  /** An incident to open on: the map centres on its fix (the site's open incidents are drawn anyway). */
+  focusIncidentId?: string | null;
 }
 
 /** Taps kept on the map (and as sight lines in 3D). */
@@ -63,11 +67,15 @@ export function SiteMapScreen({
   coveragePanel = null,
   onChosenPost,
   outlineBlindArea = false,
+  focusIncidentId = null,
 }: SiteMapScreenProps) {
   const site = useSite(siteId);
   const posts = useSitePosts(siteId);
   const terrain = useSiteTerrain(siteId);
-  if (site.isPending || posts.isPending || terrain.isPending) return <LoadingState label="Loading the map…" />;
+  const incidents = useMapIncidents(siteId, focusIncidentId);
+  if (site.isPending || posts.isPending || terrain.isPending || incidents.focusPending) {
+    return <LoadingState label="Loading the map…" />;
+  }
   if (site.isError) return <ErrorState error={site.error} onRetry={() => void site.refetch()} />;
   if (posts.isError) return <ErrorState error={posts.error} onRetry={() => void posts.refetch()} />;
   if (terrain.isError) return <ErrorState error={terrain.error} onRetry={() => void terrain.refetch()} />;
@@ -77,11 +85,12 @@ export function SiteMapScreen({
       posts={posts.data}
       terrain={terrain.data}
       focusPostId={focusPostId}
-      focusAt={focusAt}
+      focusAt={focusAt ?? incidents.focusFix}
       coverageLayers={coverageLayers}
       coveragePanel={coveragePanel}
       onChosenPost={onChosenPost}
       outlineBlindArea={outlineBlindArea}
+      incidents={incidents.details}
     />
   );
 }
@@ -96,6 +105,7 @@ function MapWorkspace({
   coveragePanel,
   onChosenPost,
   outlineBlindArea,
+  incidents,
 }: {
   site: Site;
   posts: Post[];
@@ -106,6 +116,7 @@ function MapWorkspace({
   coveragePanel: ReactNode;
   onChosenPost?: (postId: string | null) => void;
   outlineBlindArea: boolean;
+  incidents: readonly IncidentDetail[];
 }) {
   const { wide } = useLayout();
   const router = useRouter();
@@ -163,6 +174,7 @@ function MapWorkspace({
       at,
     );
   }, [postsLayer, postsValues, frame, focusAt]);
+  const incidentShapes = useIncidentShapes(frame, incidents);
   const chosen = posts.find((p) => p.id === chosenPostId) ?? null;
   const last = targets.at(-1) ?? null;
   const lastLatLon = last && frame ? { ...frame.projection.toLatLon(last.x, last.y), label: `P${last.id}` } : null;
@@ -255,6 +267,7 @@ function MapWorkspace({
         </Notice>
       ) : null}
       <MapLegend hasTerrain={!!frame.base} showSectors={posts.some((p) => p.sector)} palette={shown?.layer.palette ?? null} />
+      <IncidentMapPanel details={incidents} format={format} />
     </View>
   );
 
@@ -314,6 +327,7 @@ function MapWorkspace({
         handles={handles}
         label={handles ? 'Map: drag a post’s pin to move it, drag elsewhere to pan, tap a point for its profile' : undefined}
         keepInView={!wide && sheetOpen ? last : null}
+        overlay={(view) => <IncidentOverlay shapes={incidentShapes} {...view} />}
       />
     ) : (
       <Map3d

@@ -10,6 +10,8 @@ export { CaughtMailList } from '@/components/admin/caught-mail-list';
 export { UserAdmin } from '@/components/admin/user-admin';
 export { HistoryScreen } from '@/components/audit/history-screen';
 export { BriefingScreen } from '@/components/briefing/briefing-screen';
+export { IncidentScreen } from '@/components/incidents/incident-screen';
+export { IncidentsScreen } from '@/components/incidents/incidents-screen';
 export { QuickCheck } from '@/components/check/quick-check';
 export { LibraryScreen } from '@/components/library/library-screen';
 export { RunMapScreen } from '@/components/map/run-map-screen';

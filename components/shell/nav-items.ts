@@ -2,6 +2,7 @@ import type { Href } from 'expo-router';
 import type { Role } from '@/shared/schemas/auth';
 import {
   BriefingIcon,
+  IncidentIcon,
   LibraryIcon,
   MailIcon,
   PeopleIcon,
@@ -28,6 +29,13 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/briefing', match: '/briefing', label: 'My watch', Icon: BriefingIcon, roles: ['observer'] },
   { href: '/plans', match: '/plans', label: 'Plans', Icon: PlanIcon, roles: ['planner', 'reviewer', 'observer'] },
   { href: '/library', match: '/library', label: 'Library', Icon: LibraryIcon, roles: ['planner', 'reviewer'] },
+  {
+    href: '/incidents',
+    match: '/incidents',
+    label: 'Incidents',
+    Icon: IncidentIcon,
+    roles: ['planner', 'reviewer', 'observer'],
+  },
   {
     href: '/search-effort',
     match: '/search-effort',

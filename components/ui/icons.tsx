@@ -137,6 +137,18 @@ export function BriefingIcon(p: IconProps) {
   );
 }
 
+/** Incidents: two bearings crossing over a rising smoke. */
+export function IncidentIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Line x1="3" y1="21" x2="14" y2="6" />
+      <Line x1="21" y1="21" x2="10" y2="6" />
+      <Path d="M12 11c-2-2 1-3-1-6" />
+      <Path d="M3 21h18" />
+    </Frame>
+  );
+}
+
 /** Mail: an envelope whose flap is a horizon line. */
 export function MailIcon(p: IconProps) {
   return (

@@ -19,6 +19,7 @@ import {
 import { reportingPostsOf } from '@/server/domain/incidents/reporting-posts';
 import { actorOf, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
+import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
 import type { Mailer } from '@/server/mail/mailer';
 
 const IdParams = z.object({ incidentId: z.uuid({ error: 'Not an incident id.' }) });
@@ -35,9 +36,9 @@ function fileName(detail: Awaited<ReturnType<typeof incidentDetail>>, extension:
  * reads; planners, administrators and observers on watch at one of the
  * site's posts write.
  */
-export function incidentRoutes(db: Sequelize, publicUrl: () => string, mailer: Mailer | null) {
+export function incidentRoutes(db: Sequelize, publicUrl: () => string, mailer: Mailer | null, terrainCache?: TerrainCache) {
   const router = Router();
-  const deps = (): IncidentDeps => ({ db, mailer, incidentUrl: (id) => `${publicUrl()}/incidents/${id}` });
+  const deps = (): IncidentDeps => ({ db, mailer, terrainCache, incidentUrl: (id) => `${publicUrl()}/incidents/${id}` });
 
   router.get('/incidents', requireUser, async (req, res) => {
     res.json(await listIncidents(actorOf(req), parseOrThrow(IncidentListQuerySchema, req.query, 'query')));

@@ -89,6 +89,32 @@ export const GeoJsonPolygonSchema = z.object({
 });
 export type GeoJsonPolygon = z.infer<typeof GeoJsonPolygonSchema>;
 
+export const FIX_VISIBILITY_BASES = ['coverage-run', 'profile', 'no-terrain'] as const;
+export type FixVisibilityBasis = (typeof FIX_VISIBILITY_BASES)[number];
+
+/**
+ * Whether a reporting post can see the fix point: the ground there, or else
+ * how high a smoke (or anything) standing there must rise to show.
+ */
+export const FixVisibilitySchema = z.object({
+  postId: z.uuid().nullable(),
+  postName: z.string().nullable(),
+  /** The post sees the ground at the fix; null when there is no terrain to tell. */
+  seesGround: z.boolean().nullable(),
+  /**
+   * The least height above the ground at the fix that shows over the terrain from the post (the hidden height),
+   * metres; 0 when the ground is seen, null when unknown (no terrain, or the point is off the terrain).
+   */
+  minSmokeHeightM: z.number().nullable(),
+  /** Where the answer comes from: the site's latest finished coverage run, a terrain profile, or no terrain at all. */
+  basis: z.enum(FIX_VISIBILITY_BASES),
+  /** The refraction coefficient used, when terrain was used. */
+  refractionK: z.number().nullable(),
+  /** The same in words (metres). */
+  message: z.string(),
+});
+export type FixVisibility = z.infer<typeof FixVisibilitySchema>;
+
 /** The fix itself. */
 export const FixSchema = z.object({
   latDeg: z.number(),
@@ -107,6 +133,8 @@ export const FixSchema = z.object({
   errorEllipse: z.object({ semiMajorM: z.number(), semiMinorM: z.number(), majorAxisDeg: z.number() }).optional(),
   method: z.enum(FIX_METHODS),
   warnings: z.array(z.string()),
+  /** Per reporting post, whether it can see the fix point (added by the server where it knows the posts' terrain). */
+  visibility: z.array(FixVisibilitySchema).optional(),
 });
 export type Fix = z.infer<typeof FixSchema>;
 

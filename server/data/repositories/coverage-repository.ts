@@ -145,9 +145,34 @@ export const coverageRepository = {
     }
   },
 
-  async layer(runId: string, caseKey: string, layer: string, postId: string): Promise<EncodedClassRaster | null> {
-    const row = await CoverageLayerModel.findOne({ where: { runId, caseKey, layer, postId }, attributes: ['encoded'] });
+  async layer(
+    runId: string,
+    caseKey: string,
+    layer: string,
+    postId: string,
+    transaction?: Transaction,
+  ): Promise<EncodedClassRaster | null> {
+    const row = await CoverageLayerModel.findOne({
+      where: { runId, caseKey, layer, postId },
+      attributes: ['encoded'],
+      transaction,
+    });
     return row?.encoded ?? null;
+  },
+
+  /** The site's newest finished run (any plan's) on the given terrain, or null. */
+  async latestDoneOnTerrain(
+    organizationId: string,
+    siteId: string,
+    terrainId: string,
+    transaction?: Transaction,
+  ): Promise<CoverageRunRecord | null> {
+    const row = await CoverageRunModel.findOne({
+      where: { organizationId, siteId, terrainId, status: 'done', datum: 'terrain' },
+      order: [['finishedAt', 'DESC']],
+      transaction,
+    });
+    return one(row, transaction);
   },
 
   /** `${layer}:${caseKey}[:${postId}]` → sha256 of every layer of a run. */

@@ -3,6 +3,8 @@ import type { FixRequest, FixResult } from '@/shared/schemas/fix';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import type { Actor } from '@/server/domain/actor';
 import { AppError } from '@/server/domain/app-error';
+import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
+import { fixVisibility, type VisibilityObserver } from './fix-visibility';
 
 /** Where a bearing's declination comes from: typed with it, the magnetic model, or not needed. */
 export function declinationSourceOf(b: { bearingReference: 'true' | 'magnetic'; declinationDeg?: number }) {
@@ -19,14 +21,16 @@ export function declinationSourceOf(b: { bearingReference: 'true' | 'magnetic'; 
  * @throws {AppError} 404 `not_found` with `bearings.N.postId` for a post that is not the organisation's;
  *   422 `fix_input` with the bearings at fault when the core cannot fix them (parallel, diverging, …)
  */
-export async function computeFix(actor: Actor, request: FixRequest): Promise<FixResult> {
+export async function computeFix(actor: Actor, request: FixRequest, terrainCache?: TerrainCache): Promise<FixResult> {
   const resolved: ResolvedFixBearing[] = [];
+  const sites: (string | null)[] = [];
   for (const [i, bearing] of request.bearings.entries()) {
     if (bearing.postId !== undefined) {
       const post = await postsRepository.findInOrganization(actor.organizationId, bearing.postId);
       if (!post) {
         throw new AppError(404, 'not_found', 'That post was not found.', { [`bearings.${i}.postId`]: 'No such post.' });
       }
+      sites.push(post.siteId);
       resolved.push({
         ...bearing,
         from: post.location,
@@ -35,6 +39,7 @@ export async function computeFix(actor: Actor, request: FixRequest): Promise<Fix
       });
     } else {
       const observer = bearing.observer!;
+      sites.push(null);
       resolved.push({
         ...bearing,
         from: { latDeg: observer.latDeg, lonDeg: observer.lonDeg },
@@ -52,7 +57,19 @@ export async function computeFix(actor: Actor, request: FixRequest): Promise<Fix
   );
   try {
     const result = evaluateFix(request.observedAt, withDeclination);
-    return { ...result, reports: result.reports.map((r, i) => ({ ...r, declinationSource: sources[i] })) };
+    const observers: VisibilityObserver[] = resolved.map((b, i) => ({
+      postId: b.postId ?? null,
+      postName: b.postName,
+      siteId: sites[i] ?? null,
+      location: b.from,
+      eyeHeightM: b.eyeHeightM ?? 0,
+    }));
+    const visibility = terrainCache ? await fixVisibility(terrainCache, actor.organizationId, result.fix, observers) : undefined;
+    return {
+      ...result,
+      fix: visibility ? { ...result.fix, visibility } : result.fix,
+      reports: result.reports.map((r, i) => ({ ...r, declinationSource: sources[i] })),
+    };
   } catch (error) {
     if (!(error instanceof FixError)) throw error;
     const indexes = error.bearingIndexes.length > 0 ? error.bearingIndexes : [];

@@ -27,7 +27,9 @@ import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import type { IncidentModel } from '@/server/data/models';
 import type { Actor } from '@/server/domain/actor';
 import { AppError } from '@/server/domain/app-error';
+import { fixVisibility } from '@/server/domain/fixes/fix-visibility';
 import type { Mailer } from '@/server/domain/ports/mailer';
+import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
 import { fixReported } from '@/server/mail/templates';
 import { checkChain, entryHash, storedForm } from './hash-chain';
 
@@ -36,6 +38,8 @@ export interface IncidentDeps {
   mailer: Mailer | null;
   /** Absolute URL of an incident's page, for e-mails. */
   incidentUrl: (incidentId: string) => string;
+  /** Loaded terrains, for checking whether each post sees a new fix; without it the fix carries no `visibility`. */
+  terrainCache?: TerrainCache;
 }
 
 const NOT_FOUND = 'That incident';
@@ -318,6 +322,9 @@ export async function addReport(
       ]),
     );
     const attempt = fixFrom(reports, posts);
+    if (attempt && 'fix' in attempt && deps.terrainCache) {
+      attempt.fix.visibility = await visibilityOf(deps.terrainCache, actor, incident.siteId, attempt.fix, posts, t);
+    }
     if (attempt) await appendEntry(incident, { kind: 'fix', actorId: actor.userId, body: attempt }, {}, t);
     return { report: reportOf(stored), replayed: false, newFix: attempt !== null && 'fix' in attempt };
   });
@@ -325,6 +332,33 @@ export async function addReport(
   const detail = await incidentDetail(actor, id);
   const mailed = outcome.newFix && detail.incident.fix ? await mailFix(deps, actor, detail) : false;
   return { report: outcome.report, fix: detail.incident.fix, fixProblem: detail.fixProblem, replayed: outcome.replayed, mailed };
+}
+
+/**
+ * Whether each post of the fix sees it; stored with the fix in the log (what
+ * was known then). A failure of this check (a terrain file that cannot be
+ * read) is logged and leaves the fix without it rather than losing the report.
+ */
+async function visibilityOf(
+  cache: TerrainCache,
+  actor: Actor,
+  siteId: string,
+  fix: IncidentFix,
+  posts: Map<string, { latDeg: number; lonDeg: number; eyeHeightM: number }>,
+  t: Transaction,
+): Promise<IncidentFix['visibility']> {
+  try {
+    const observers = fix.lines.flatMap((line) => {
+      const p = posts.get(line.postId);
+      return p
+        ? [{ postId: line.postId, postName: line.postName, siteId, location: { latDeg: p.latDeg, lonDeg: p.lonDeg }, eyeHeightM: p.eyeHeightM }]
+        : [];
+    });
+    return await fixVisibility(cache, actor.organizationId, fix, observers, t);
+  } catch (error) {
+    console.error('[kenning] fix visibility check failed:', error);
+    return undefined;
+  }
 }
 
 /** Whether a stored report is the one the request describes (same key sent twice). */
@@ -357,7 +391,8 @@ async function mailFix(deps: IncidentDeps, actor: Actor, detail: IncidentDetail)
           const r = byPost.get(seq)!;
           return `${r.postName}: ${r.trueBearingDeg.toFixed(1)}° true ± ${r.bearingSigmaDeg}° (${r.kind}, ${r.observedAt})`;
         }),
-        warnings: fix.warnings,
+        // What the posts cannot see of the place goes with the warnings: a smoke there may be higher than it looks, or elsewhere.
+        warnings: [...fix.warnings, ...(fix.visibility ?? []).filter((v) => v.seesGround === false).map((v) => v.message)],
         incidentUrl: deps.incidentUrl(detail.incident.id),
       }),
     });

@@ -20,6 +20,8 @@ const Params = z.object({
   lon: z.coerce.number().min(-180).max(180).optional(),
   /** `1`: the point is inside a blind area of the case; outline it. */
   blind: z.literal('1').optional(),
+  /** An incident whose fix to open on. */
+  incidentId: z.uuid().optional(),
 });
 
 function SiteMapRouteContent() {
@@ -33,7 +35,7 @@ function SiteMapRouteContent() {
       </Screen>
     );
   }
-  const { siteId, postId, runId, caseKey, lat, lon, blind } = parsed.data;
+  const { siteId, postId, runId, caseKey, lat, lon, blind, incidentId } = parsed.data;
   const at = lat !== undefined && lon !== undefined ? { latDeg: lat, lonDeg: lon } : null;
   return runId ? (
     <RunMapScreen
@@ -45,7 +47,7 @@ function SiteMapRouteContent() {
       outlineBlindArea={blind === '1'}
     />
   ) : (
-    <SiteMapScreen siteId={siteId} focusPostId={postId ?? null} focusAt={at} />
+    <SiteMapScreen siteId={siteId} focusPostId={postId ?? null} focusAt={at} focusIncidentId={incidentId ?? null} />
   );
 }
 
