@@ -84,6 +84,8 @@ export const useUpdateIncident = (id: string) =>
 export function useReportBearing(id: string) {
   const qc = useQueryClient();
   return useMutation({
+    // Tried at once even offline: a report that cannot go now goes to the device's outbox (the form does that).
+    networkMode: 'always',
     mutationFn: (input: IncidentReportInput) => api.post(`/v1/incidents/${id}/reports`, input, IncidentReportResultSchema),
     onSuccess: () =>
       Promise.all([

@@ -18,6 +18,7 @@ import { useLayout } from '@/components/ui/use-layout';
 import { IncidentFixCard } from './incident-fix-card';
 import { IncidentLog } from './incident-log';
 import { bearingText, SIGHTING_LABELS, STATUS_LABELS } from './incident-words';
+import { OutboxList } from '@/components/offline/field-status';
 import { ReportBearingForm } from './report-bearing-form';
 
 /** The post an observer is on watch at now (to pick first in the report form): null when none, undefined while loading. */
@@ -69,7 +70,10 @@ export function IncidentScreen({ incidentId }: { incidentId: string }) {
           <AppText variant="small">Lookouts report bearings while on a watch at one of this site’s posts.</AppText>
         </Notice>
       ) : (
-        <ReportBearingForm incidentId={i.id} posts={sitePosts} preferredPostId={onWatchPost} />
+        <>
+          <ReportBearingForm incidentId={i.id} posts={sitePosts} preferredPostId={onWatchPost} />
+          <OutboxList />
+        </>
       )
     ) : null;
   const reportList = <ReportList reports={reports} />;

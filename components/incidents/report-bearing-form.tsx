@@ -10,7 +10,9 @@ import {
   type SightingKind,
 } from '@/shared/schemas/incident';
 import type { Post } from '@/shared/schemas/site';
-import { useReportBearing } from '@/components/data/incidents';
+import { NetworkError } from '@/components/data/api-client';
+import { incidentKeys, useReportBearing } from '@/components/data/incidents';
+import { deviceOutbox } from '@/components/offline/device-outbox';
 import { applyServerErrors } from '@/components/data/server-errors';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -184,7 +186,31 @@ export function ReportBearingForm({
           // The post, north, instrument and what is seen stay for the next bearing; the readings are cleared.
           for (const name of ['bearingDeg', 'declinationDeg', 'verticalAngleDeg', 'note'] as const) setValue(name, '');
         },
-        onError: (e) => setFormError(applyServerErrors(e, setError, FIELDS)),
+        onError: (e) => {
+          if (!(e instanceof NetworkError)) {
+            setFormError(applyServerErrors(e, setError, FIELDS));
+            return;
+          }
+          // No network: the report waits on the device with its key and time, and goes once the network is back.
+          const from = posts.find((p) => p.id === fields.postId)?.name ?? 'the post';
+          const reading = `${fields.bearingDeg}° ${fields.bearingReference === 'magnetic' ? 'magnetic' : 'true'}`;
+          void deviceOutbox
+            .add({
+              key,
+              label: `Bearing ${reading} from ${from}, ${new Date(observedAt).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}`,
+              path: `/v1/incidents/${incidentId}/reports`,
+              body: { ...fields, observedAt, idempotencyKey: key },
+              refresh: [incidentKeys.detail(incidentId), incidentKeys.lists()],
+            })
+            .then(
+              () => {
+                attempt.current = null;
+                setSent(`No network: the bearing ${reading} from ${from} is kept on this device and will be sent when the network is back.`);
+                for (const name of ['bearingDeg', 'declinationDeg', 'verticalAngleDeg', 'note'] as const) setValue(name, '');
+              },
+              () => setFormError('No network, and this device could not keep the report. Write it down and send it when you can.'),
+            );
+        },
       },
     );
   });

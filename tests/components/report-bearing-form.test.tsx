@@ -2,6 +2,7 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
 import { createQueryClient } from '@/components/data/query-client';
 import { ReportBearingForm } from '@/components/incidents/report-bearing-form';
+import { deviceOutbox } from '@/components/offline/device-outbox';
 import type { Post } from '@/shared/schemas/site';
 
 const INCIDENT = '00000000-0000-4000-8000-0000000000a1';
@@ -58,8 +59,9 @@ const renderForm = () => {
     </QueryClientProvider>,
   );
 };
-afterEach(() => {
+afterEach(async () => {
   for (const c of clients.splice(0)) c.clear();
+  await deviceOutbox.clear();
   delete (globalThis as { fetch?: unknown }).fetch;
 });
 
@@ -67,15 +69,19 @@ const bearingField = () => screen.getByLabelText('Bearing');
 const send = () => fireEvent.click(screen.getByRole('button', { name: 'Send the bearing' }));
 
 describe('ReportBearingForm', () => {
-  it('sends a retry after a lost connection with the same idempotency key and time, and a new report with a new key', async () => {
+  it('keeps a report that cannot go on the device, sends it later with the same idempotency key and time, and a new report with a new key', async () => {
     // Source: IETF draft-ietf-httpapi-idempotency-key-header (the same key on a retried request), from memory.
     const bodies = fakeReports(1);
     renderForm();
     fireEvent.change(bearingField(), { target: { value: '47.5' } });
     send();
-    await screen.findByText('Kenning cannot reach its server. Check your connection.');
-    send();
-    await screen.findByText(/^Sent: 47\.5° true from Test Tower/);
+    await screen.findByText(/^No network: the bearing 47\.5° true from Test Tower is kept on this device/);
+    const kept = await deviceOutbox.list();
+    expect(kept).toHaveLength(1);
+    expect(kept[0]).toMatchObject({ key: bodies[0]!.idempotencyKey, state: 'waiting', path: `/v1/incidents/${INCIDENT}/reports` });
+
+    // The network is back: the outbox sends it, the same report as the first try.
+    await deviceOutbox.flush();
     expect(bodies).toHaveLength(2);
     expect(bodies[1]!.idempotencyKey).toBe(bodies[0]!.idempotencyKey);
     expect(bodies[1]!.observedAt).toBe(bodies[0]!.observedAt);
@@ -86,10 +92,12 @@ describe('ReportBearingForm', () => {
       bearingSigmaDeg: 0.5,
       kind: 'smoke',
     });
+    expect((await deviceOutbox.list())[0]!.state).toBe('sent');
 
     fireEvent.change(bearingField(), { target: { value: '52' } });
     send();
-    await waitFor(() => expect(bodies).toHaveLength(3));
+    await screen.findByText(/^Sent: 52\.0° true from Test Tower/);
+    expect(bodies).toHaveLength(3);
     expect(bodies[2]!.idempotencyKey).not.toBe(bodies[0]!.idempotencyKey);
   });
 
