@@ -48,7 +48,7 @@ async function mailTo(to: string, subject: RegExp): Promise<CaughtMail> {
 }
 
 /** Sends one bearing from the incident page's form (the post is already chosen: the lookout's watch post). */
-async function reportBearing(page: Page, bearing: string, reference: 'true' | 'magnetic') {
+async function reportBearing(page: Page, bearing: string, reference: 'true' | 'magnetic', { offline = false } = {}) {
   const form = page.getByLabel('Report a bearing');
   await form.waitFor();
   if (reference === 'magnetic') {
@@ -62,7 +62,8 @@ async function reportBearing(page: Page, bearing: string, reference: 'true' | 'm
   const send = form.getByRole('button', { name: 'Send the bearing' });
   // A double tap sends the report once (one idempotency key per report).
   await send.dblclick();
-  await form.getByText(/^(Sent|Already received \(stored once\)): /).waitFor();
+  if (offline) await form.getByText(/^No network: the bearing .* is kept on this device/).waitFor();
+  else await form.getByText(/^(Sent|Already received \(stored once\)): /).waitFor();
 }
 
 describe('bearings from two phones give the planner a fix', () => {
@@ -70,7 +71,8 @@ describe('bearings from two phones give the planner a fix', () => {
     const title = `Smoke east of Crane Knoll ${Date.now().toString(36)}`;
     const planner = await newPage(browser, 'wide');
     const first = await newPage(browser, 'phone');
-    const second = await newPage(browser, 'phone');
+    // The second lookout's phone runs in field mode: his bearing is written with no network and sent later.
+    const second = await newPage(browser, 'phone', { fieldMode: true });
     const errors = [planner, first, second].map(({ page }) => watchErrors(page));
     let watchId: string | null = null;
     try {
@@ -145,7 +147,17 @@ describe('bearings from two phones give the planner a fix', () => {
       await b.goto(`${e2eUrl()}/incidents/${incidentId}`);
       await b.getByRole('heading', { name: title }).waitFor();
       expect(await b.getByRole('checkbox', { name: 'Sedge Ridge Tower' }).getAttribute('aria-checked')).toBe('true');
-      await reportBearing(b, sedgeMagnetic.toFixed(1), 'magnetic');
+      // No signal on the ridge: the report waits on the phone, then goes once the network is back.
+      await second.context.setOffline(true);
+      await reportBearing(b, sedgeMagnetic.toFixed(1), 'magnetic', { offline: true });
+      const outbox = b.getByLabel('Outbox');
+      await outbox.getByText(/^Waiting to be sent since/).waitFor();
+      await shot(b, 'incident-bearing-kept-offline', 'phone');
+      await second.context.setOffline(false);
+      await outbox.getByText(/^Sent at/).waitFor();
+      // Sent once: the incident holds one report from each post.
+      const { reports } = await apiJson<{ reports: { postName: string }[] }>(b, 'GET', `/incidents/${incidentId}`);
+      expect(reports.map((r) => r.postName).sort()).toEqual(['Crane Knoll Tower', 'Sedge Ridge Tower']);
       await b.getByLabel('Fix position').waitFor();
       await b.getByText(/^MGRS 33U/).waitFor();
       await b.getByRole('heading', { name: title }).scrollIntoViewIfNeeded();
