@@ -1,3 +1,4 @@
+// Over 300 lines: the quick check screen: one form, its answer table and the cautions share one request state.
 import { useEffect, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { BACKGROUND_LIGHTING_LABELS } from '@/shared/schemas/library';

@@ -1,3 +1,4 @@
+// Over 300 lines: one form (post, north, instrument, readings) with its resolver, idempotency and outbox handling.
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Controller, useForm, type FieldErrors, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';

@@ -1,3 +1,4 @@
+// Over 300 lines: one form whose refraction, visibility and light sections share one resolver and unit state.
 import { useState } from 'react';
 import { Controller, useForm, type Path } from 'react-hook-form';
 import { View } from 'react-native';

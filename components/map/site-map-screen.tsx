@@ -1,3 +1,4 @@
+// Over 300 lines: the site map screen wires layers, profile, posts, incidents and 3D to one camera and selection.
 import { useQueries } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';

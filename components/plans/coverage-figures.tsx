@@ -1,3 +1,4 @@
+// Over 300 lines: the figures of one coverage case (shares, zones, verdict, blind areas, posts) read together.
 import { useRouter } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';

@@ -1,3 +1,4 @@
+// Over 300 lines: pure formatting of coverage figures for people; one module so every screen words them alike.
 import type { CoverageCase, CoverageComparison, CoverageRun, PlanCoverage, CoverageSnapshot } from '@/shared/schemas/coverage';
 import type { LengthUnit } from '@/shared/units/length';
 import { distanceIn, formatLength, LIMIT_LABELS } from '@/components/check/format';

@@ -1,3 +1,4 @@
+// Over 300 lines: two plans side by side: posts, figures and the gain/loss map share one pair of queries.
 import { useQuery } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
 import { useMemo, useState } from 'react';

@@ -1,3 +1,4 @@
+// Over 300 lines: one plan form (posts, targets, conditions, standard) whose sections share the draft state.
 import { useQuery } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
 import { useState } from 'react';

@@ -1,3 +1,4 @@
+// Over 300 lines: pure form model of the search-effort screen: parsing, units and resolvers, tested together.
 import type { Resolver } from 'react-hook-form';
 import {
   SweepWidthRequestSchema,

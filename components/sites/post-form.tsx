@@ -1,3 +1,4 @@
+// Over 300 lines: one post form (kind, place, heights, sector) with its units and terrain lookup.
 import { useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';

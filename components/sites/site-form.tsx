@@ -1,3 +1,4 @@
+// Over 300 lines: one site form (fields, boundary, zones, three ways of entering a ring) sharing its draft.
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useQuery } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';

@@ -1,3 +1,4 @@
+// Over 300 lines: the site terrain card: upload with progress, extent sketch and boundary-from-terrain action.
 import { useState } from 'react';
 import { Image, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import Svg, { Polygon } from 'react-native-svg';

@@ -1,3 +1,4 @@
+// Over 300 lines: one seeded generator per drill kind, sharing the question, scoring and explanation shapes.
 import type { ConditionSet, Target } from '@/shared/schemas/library';
 import type {
   DrillAnswerUnit,

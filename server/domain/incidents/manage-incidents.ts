@@ -1,3 +1,4 @@
+// Over 300 lines: the incident use cases (open, update, report, fix, notify) share one transaction and hash chain.
 import type { Sequelize, Transaction } from 'sequelize';
 import { evaluateFix, FixError, modelDeclination, trueBearingDeg, type ResolvedFixBearing } from '@/shared/fixes';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';

@@ -1,3 +1,4 @@
+// Over 300 lines: the plan package is drawn page by page in one pass over the gathered data.
 import type { CoverageCase } from '@/shared/schemas/coverage';
 import { effectiveResolutionArcmin, type PlanResultRow } from '@/shared/schemas/plan';
 import { MEAN_EARTH_RADIUS_M } from '@/shared/physics/constants';
