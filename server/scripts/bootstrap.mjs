@@ -547,6 +547,7 @@ async function test() {
     if (!quick) step('type-check', () => run('npx', ['tsc', '--noEmit', '-p', 'tsconfig.json']));
     if (!quick) step('lint', () => run('npx', ['eslint', '.', '--max-warnings', '0']));
     if (!quick) step('layering', () => run('npm', ['run', '-s', 'lint:boundaries']));
+    if (!quick) step('format', () => run('npx', ['prettier', '--check', '.', '--log-level', 'warn']));
     step('test databases', () => {
       // The demo terrain goes to this run's file store, which the test server and the API tests' stores copy.
       tsx('server/scripts/prepare-database.ts', ['--database', template, '--seed', '--fresh', '--files', testFiles], {
