@@ -1,5 +1,5 @@
 import { QueryClientProvider } from '@tanstack/react-query';
-import { fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { fireEvent, render, screen } from '@testing-library/react';
 import { createQueryClient } from '@/components/data/query-client';
 import { ReportBearingForm } from '@/components/incidents/report-bearing-form';
 import { deviceOutbox } from '@/components/offline/device-outbox';
