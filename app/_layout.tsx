@@ -67,7 +67,8 @@ function RootNavigator() {
   const session = useSession();
   if (session.isPending) return <SplashView />;
   // A failed refresh keeps the session the device already knows (offline in the field): only no answer at all is an error.
-  if (session.isError && session.data === undefined) return <ErrorState error={session.error} onRetry={() => void session.refetch()} />;
+  if (session.isError && session.data === undefined)
+    return <ErrorState error={session.error} onRetry={() => void session.refetch()} />;
   const signedIn = session.data != null;
   return (
     <Stack screenOptions={{ headerShown: false, animation: 'none' }}>

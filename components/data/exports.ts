@@ -7,13 +7,7 @@ import { api } from './api-client';
 export const exportUrls = {
   resultsCsv: (planId: string, revision: number) => `/api/v1/plans/${planId}/revisions/${revision}/results.csv`,
   featuresGeoJson: (planId: string, revision: number) => `/api/v1/plans/${planId}/revisions/${revision}/features.geojson`,
-  layer: (
-    runId: string,
-    layer: CoverageLayerName,
-    format: 'tif' | 'asc',
-    caseKey: string,
-    postId?: string,
-  ) => {
+  layer: (runId: string, layer: CoverageLayerName, format: 'tif' | 'asc', caseKey: string, postId?: string) => {
     const q = new URLSearchParams({ caseKey, ...(postId && { postId }) });
     return `/api/v1/coverage-runs/${runId}/layers/${layer}.${format}?${q}`;
   },

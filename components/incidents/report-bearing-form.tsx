@@ -206,10 +206,13 @@ export function ReportBearingForm({
             .then(
               () => {
                 attempt.current = null;
-                setSent(`No network: the bearing ${reading} from ${from} is kept on this device and will be sent when the network is back.`);
+                setSent(
+                  `No network: the bearing ${reading} from ${from} is kept on this device and will be sent when the network is back.`,
+                );
                 for (const name of ['bearingDeg', 'declinationDeg', 'verticalAngleDeg', 'note'] as const) setValue(name, '');
               },
-              () => setFormError('No network, and this device could not keep the report. Write it down and send it when you can.'),
+              () =>
+                setFormError('No network, and this device could not keep the report. Write it down and send it when you can.'),
             );
         },
       },

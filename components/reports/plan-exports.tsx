@@ -96,7 +96,12 @@ function LayerExports({ coverage }: { coverage: CoverageSnapshot }) {
       </ChipRow>
       <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm }}>
         <Button label="GeoTIFF" kind="secondary" onPress={() => open(url('tif'))} aria-label="Download the layer as GeoTIFF" />
-        <Button label="ASCII grid" kind="secondary" onPress={() => open(url('asc'))} aria-label="Download the layer as an ASCII grid" />
+        <Button
+          label="ASCII grid"
+          kind="secondary"
+          onPress={() => open(url('asc'))}
+          aria-label="Download the layer as an ASCII grid"
+        />
       </View>
       <AppText variant="small" tone="muted">
         On the terrain’s grid and coordinate system ({coverage.grid.epsg ? `EPSG:${coverage.grid.epsg}` : 'its own CRS'},{' '}

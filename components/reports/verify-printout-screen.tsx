@@ -52,8 +52,8 @@ export function VerifyPrintoutScreen({ initialHash }: { initialHash?: string }) 
   const form = (
     <Card style={{ gap: space.md }}>
       <AppText>
-        Every page of a plan package and every crew card carries the content hash of the plan revision it was printed from.
-        Type or paste it here to see which revision it is and whether it is still the approved one.
+        Every page of a plan package and every crew card carries the content hash of the plan revision it was printed from. Type
+        or paste it here to see which revision it is and whether it is still the approved one.
       </AppText>
       <FormTextField
         control={control}

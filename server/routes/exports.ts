@@ -4,7 +4,13 @@ import { z } from 'zod';
 import { COVERAGE_LAYER_KINDS, CoverageLayerQuerySchema } from '@/shared/schemas/coverage';
 import { ContentHashSchema } from '@/shared/schemas/printout';
 import { INT_COLUMN_MAX } from '@/shared/schemas/seen-version';
-import { featuresExport, layerFileExport, resultsCsvExport, type ExportDeps, type ExportFile } from '@/server/domain/exports/manage-exports';
+import {
+  featuresExport,
+  layerFileExport,
+  resultsCsvExport,
+  type ExportDeps,
+  type ExportFile,
+} from '@/server/domain/exports/manage-exports';
 import { revisionByHash } from '@/server/domain/exports/verify-printout';
 import { actorOf, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';

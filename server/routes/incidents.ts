@@ -26,7 +26,13 @@ const IdParams = z.object({ incidentId: z.uuid({ error: 'Not an incident id.' })
 
 /** A file name that says site, incident and date, safe in any file system. */
 function fileName(detail: Awaited<ReturnType<typeof incidentDetail>>, extension: string) {
-  const slug = (s: string) => s.normalize('NFKD').replace(/[^\w-]+/g, '-').replace(/^-+|-+$/g, '').toLowerCase().slice(0, 40);
+  const slug = (s: string) =>
+    s
+      .normalize('NFKD')
+      .replace(/[^\w-]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .toLowerCase()
+      .slice(0, 40);
   const day = new Date().toISOString().slice(0, 10);
   return `${slug(detail.incident.siteName)}_${slug(detail.incident.title)}_incident-log_${day}.${extension}`;
 }
@@ -72,7 +78,10 @@ export function incidentRoutes(db: Sequelize, publicUrl: () => string, mailer: M
     const actor = actorOf(req);
     const detail = await incidentDetail(actor, incidentId);
     const posts = await reportingPostsOf(actor, detail);
-    res.attachment(fileName(detail, 'geojson')).type('application/geo+json').send(JSON.stringify(incidentGeoJson(detail, posts)));
+    res
+      .attachment(fileName(detail, 'geojson'))
+      .type('application/geo+json')
+      .send(JSON.stringify(incidentGeoJson(detail, posts)));
   });
   return router;
 }

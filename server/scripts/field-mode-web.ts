@@ -89,7 +89,8 @@ export async function prepareFieldMode(dir: string): Promise<{ files: number; by
 if (require.main === module) {
   const dir = path.resolve(process.argv[2] ?? 'dist/web');
   prepareFieldMode(dir).then(
-    ({ files, bytes }) => console.log(`field mode ${dir}: manifest, icons, service worker keeping ${files} files (${(bytes / 1024).toFixed(0)} KiB)`),
+    ({ files, bytes }) =>
+      console.log(`field mode ${dir}: manifest, icons, service worker keeping ${files} files (${(bytes / 1024).toFixed(0)} KiB)`),
     (e: unknown) => {
       console.error(e);
       process.exit(1);

@@ -1,5 +1,10 @@
 import { ONE_ARCMINUTE_RAD } from '@/shared/physics/constants';
-import { BACKGROUND_LIGHTING_FACTOR, NIGHT_THRESHOLD_ILLUMINANCE_LUX, VISIBILITY_CONTRAST_THRESHOLD, type BackgroundLighting } from '@/shared/sightline/constants';
+import {
+  BACKGROUND_LIGHTING_FACTOR,
+  NIGHT_THRESHOLD_ILLUMINANCE_LUX,
+  VISIBILITY_CONTRAST_THRESHOLD,
+  type BackgroundLighting,
+} from '@/shared/sightline/constants';
 import { checkInput } from '@/shared/sightline/check-input';
 import { convertVisibility } from '@/shared/sightline/convert-visibility';
 import { extinctionFromVisibility } from '@/shared/sightline/extinction-from-visibility';
@@ -159,7 +164,13 @@ export function detectionRange(input: DetectionInput): DetectionRange {
           thresholdLux: NIGHT_THRESHOLD_ILLUMINANCE_LUX * BACKGROUND_LIGHTING_FACTOR[input.backgroundLighting ?? 'none'],
         });
 
-  const limits = { horizon, visibilityM: visibilityLimit, angularSizeM: angularLimit, luminousRangeM: luminousLimit, waveScreenM };
+  const limits = {
+    horizon,
+    visibilityM: visibilityLimit,
+    angularSizeM: angularLimit,
+    luminousRangeM: luminousLimit,
+    waveScreenM,
+  };
   if (horizon.reason === 'required-part-exceeds-target') {
     return { rangeM: null, limitedBy: null, reason: 'required-part-exceeds-target', rangeLimit: none, limits };
   }

@@ -47,7 +47,6 @@ export const SIGHTLINE_CAUTIONS: readonly SightlineCaution[] = Object.freeze([
   },
 ] satisfies SightlineCaution[]);
 
-
 function evaluateCondition(request: SightlineRequest, condition: RefractionCondition): SightlineResult {
   const earthRadiusM = request.earthRadiusM ?? MEAN_EARTH_RADIUS_M;
   const k = refractionFromCondition(condition, earthRadiusM);

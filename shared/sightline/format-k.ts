@@ -17,7 +17,7 @@ export function formatK(k: number): string {
   const edges = [0, 0.5, 1];
   for (let decimals = 3; decimals <= 12; decimals++) {
     const rounded = Number(k.toFixed(decimals));
-    const crosses = edges.some((edge) => (k < edge) !== (rounded < edge));
+    const crosses = edges.some((edge) => k < edge !== rounded < edge);
     if (!crosses) return String(rounded);
   }
   return String(k);

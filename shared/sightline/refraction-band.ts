@@ -55,7 +55,11 @@ export function refractionBand(quantity: (k: number) => number | null, sweep: Re
   const step = checkInput('step', sweep.step ?? 0.05, { min: 0, minExclusive: true });
   const intervals = Math.ceil((kMax - kMin) / step - 1e-9);
   if (intervals > 10_000) {
-    throw new SightlineInputError('out-of-range', 'step', `the sweep would have ${intervals + 1} points; at most 10 001 are allowed`);
+    throw new SightlineInputError(
+      'out-of-range',
+      'step',
+      `the sweep would have ${intervals + 1} points; at most 10 001 are allowed`,
+    );
   }
 
   const series: RefractionBandPoint[] = [];

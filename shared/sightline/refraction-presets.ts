@@ -1,4 +1,10 @@
-import { RADIO_FOUR_THIRDS_K, STANDARD_OPTICAL_K, STANDARD_PRESSURE_HPA, STANDARD_TEMPERATURE_GRADIENT_K_PER_M, STANDARD_TEMPERATURE_K } from '@/shared/physics/constants';
+import {
+  RADIO_FOUR_THIRDS_K,
+  STANDARD_OPTICAL_K,
+  STANDARD_PRESSURE_HPA,
+  STANDARD_TEMPERATURE_GRADIENT_K_PER_M,
+  STANDARD_TEMPERATURE_K,
+} from '@/shared/physics/constants';
 import { refractionFromTemperatureGradient } from '@/shared/sightline/refraction-from-temperature-gradient';
 import { SightlineInputError } from '@/shared/sightline/sightline-error';
 
@@ -86,7 +92,7 @@ const PRESET_TABLE = [
     id: 'radio-four-thirds',
     label: 'Radar / radio 4/3 earth (k = 0.25)',
     k: RADIO_FOUR_THIRDS_K,
-    definition: "K = R′/R = 4/3, so k = 1 − 3/4 = 0.25 (dN/dh ≈ −39 N/km)",
+    definition: 'K = R′/R = 4/3, so k = 1 − 3/4 = 0.25 (dN/dh ≈ −39 N/km)',
     source: 'IEC 60050-705 (705-05-41); Federal Standard 1037C "effective Earth radius"',
   },
   {

@@ -34,9 +34,7 @@ export type NoDetectionReason = 'screened-by-waves' | 'unlit-at-night';
  * never ±Infinity: either a finite `value` with `reason: null`, or
  * `value: null` with the reason.
  */
-export type Derived =
-  | { readonly value: number; readonly reason: null }
-  | { readonly value: null; readonly reason: AbsentReason };
+export type Derived = { readonly value: number; readonly reason: null } | { readonly value: null; readonly reason: AbsentReason };
 
 /** The sphere and the refraction: all optional, with documented defaults. */
 export interface SphereOptions {

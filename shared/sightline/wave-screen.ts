@@ -45,7 +45,8 @@ export function waveScreenHeight(sea: SeaInput): number {
 
 /** The wave screen of a request: from its sea state or significant wave height, else 0. */
 export function waveScreenOf(request: { readonly seaState?: number; readonly significantWaveHeightM?: number }): number {
-  if (request.significantWaveHeightM !== undefined) return waveScreenHeight({ significantWaveHeightM: request.significantWaveHeightM });
+  if (request.significantWaveHeightM !== undefined)
+    return waveScreenHeight({ significantWaveHeightM: request.significantWaveHeightM });
   if (request.seaState !== undefined) return waveScreenHeight({ seaState: request.seaState });
   return 0;
 }

@@ -23,4 +23,3 @@ export const LAYER_LEGENDS: Record<CoverageLayerName, { nodata: number; legend: 
     legend: `one post's view: ${VISIBILITY_CLASS.none} not computed (no terrain data), ${VISIBILITY_CLASS.seen} ground seen, ${VISIBILITY_CLASS.targetOnly} only the target shows, ${VISIBILITY_CLASS.blind} blind, ${VISIBILITY_CLASS.outOfRange} beyond the detection range`,
   },
 };
-

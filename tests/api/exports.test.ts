@@ -144,7 +144,8 @@ const decimals = (v: number) => (String(v).split('.')[1] ?? '').length;
 /** What is wrong with one position by RFC 7946, if anything (collected, then asserted once: Jest's expect is slow per call). */
 function positionProblem(p: unknown): string | null {
   // Source: RFC 7946 §3.1.1 — a position is [longitude, latitude(, altitude)], numbers; §4 WGS84 degrees.
-  if (!Array.isArray(p) || p.length !== 2 || !p.every((v) => typeof v === 'number')) return `not [lon, lat]: ${JSON.stringify(p)}`;
+  if (!Array.isArray(p) || p.length !== 2 || !p.every((v) => typeof v === 'number'))
+    return `not [lon, lat]: ${JSON.stringify(p)}`;
   const [lon, lat] = p as number[];
   if (lon! < -180 || lon! > 180 || lat! < -90 || lat! > 90) return `out of range: ${JSON.stringify(p)}`;
   // Source: RFC 7946 §11.2 — 6 decimal places (about 10 cm) are enough; the brief asks for no more.
@@ -186,7 +187,14 @@ describe('GET /plans/:planId/revisions/:n/results.csv', () => {
     );
     const [header, ...rows] = parseCsv(res.text);
     // Source: RFC 4180 §2 rule 3 — an optional header line; the units are in the names (common practice, no source).
-    for (const column of ['horizon_range_m', 'geographic_range_m', 'detection_range_m', 'height_of_eye_m', 'dip_deg', 'limiting_factor']) {
+    for (const column of [
+      'horizon_range_m',
+      'geographic_range_m',
+      'detection_range_m',
+      'height_of_eye_m',
+      'dip_deg',
+      'limiting_factor',
+    ]) {
       expect(header).toContain(column);
     }
     // Source: RFC 4180 §2 rule 4 — every record has the same number of fields.
@@ -253,8 +261,14 @@ describe('GET /plans/:planId/revisions/:n/features.geojson', () => {
 
     // Longitude first: the demo forest lies near 51.8° N, 15.2° E (an invented district), so a post's
     // first coordinate is its longitude. Source: RFC 7946 §3.1.1.
-    for (const post of snapshot.inputs.posts as { id: string; location: { latDeg: number; lonDeg: number }; eyeHeightM: number }[]) {
-      const f = collection.features.find((x: { properties: { kind: string; postId: string } }) => x.properties.kind === 'post' && x.properties.postId === post.id);
+    for (const post of snapshot.inputs.posts as {
+      id: string;
+      location: { latDeg: number; lonDeg: number };
+      eyeHeightM: number;
+    }[]) {
+      const f = collection.features.find(
+        (x: { properties: { kind: string; postId: string } }) => x.properties.kind === 'post' && x.properties.postId === post.id,
+      );
       expect(f.geometry.coordinates[0]).toBeCloseTo(post.location.lonDeg, 6);
       expect(f.geometry.coordinates[1]).toBeCloseTo(post.location.latDeg, 6);
       expect(f.properties.eyeHeightM).toBe(post.eyeHeightM);
@@ -361,7 +375,9 @@ describe('GET /coverage-runs/:runId/layers/:layer.tif and .asc', () => {
       .parse(binary)
       .expect(200);
     expect(res.headers['content-type']).toBe('image/tiff');
-    expect(res.headers['content-disposition']).toMatch(/Harrowmere-Forest-District_Fire-season-cover-2026_v1_rev1_\d{4}-\d{2}-\d{2}_posts-per-cell/);
+    expect(res.headers['content-disposition']).toMatch(
+      /Harrowmere-Forest-District_Fire-season-cover-2026_v1_rev1_\d{4}-\d{2}-\d{2}_posts-per-cell/,
+    );
     const file = path.join(tmp, 'layer.tif');
     writeFileSync(file, res.body as Buffer);
     const info = gdalinfo(file);
@@ -522,7 +538,9 @@ describe('GET /revisions/by-hash/:sha256 (verify a printout)', () => {
 
     // Approved and current (typed in capitals with spaces, as read off paper).
     const spaced = first.toUpperCase().replace(/(.{8})/g, '$1 ');
-    let answer = RevisionByHashSchema.parse((await observer.get(`/api/v1/revisions/by-hash/${encodeURIComponent(spaced)}`).expect(200)).body);
+    let answer = RevisionByHashSchema.parse(
+      (await observer.get(`/api/v1/revisions/by-hash/${encodeURIComponent(spaced)}`).expect(200)).body,
+    );
     expect(answer).toMatchObject({
       plan: { id: plan.id, title: 'Export test plan', version: 1, status: 'approved' },
       revision: { number: 1 },
@@ -534,8 +552,12 @@ describe('GET /revisions/by-hash/:sha256 (verify a printout)', () => {
 
     // The next version is submitted but not decided: the first stays the approved one.
     await planner.post(`/api/v1/plans/${next.id}/coverage`).send({}).expect(202);
-    const s = await planner.post(`/api/v1/plans/${next.id}/submit`).send({ rowVersion: 0, exceptionNote: 'Test plan.' }).expect(200);
-    const second = (await planner.get(`/api/v1/plans/${next.id}/revisions/${s.body.revision}`).expect(200)).body.revision.contentHash;
+    const s = await planner
+      .post(`/api/v1/plans/${next.id}/submit`)
+      .send({ rowVersion: 0, exceptionNote: 'Test plan.' })
+      .expect(200);
+    const second = (await planner.get(`/api/v1/plans/${next.id}/revisions/${s.body.revision}`).expect(200)).body.revision
+      .contentHash;
     answer = RevisionByHashSchema.parse((await planner.get(`/api/v1/revisions/by-hash/${second}`).expect(200)).body);
     expect(answer).toMatchObject({ standing: 'under-review', isCurrentApproved: false, approval: null });
     expect(answer.currentApproved).toMatchObject({ planId: plan.id, revision: 1, contentHash: first });
@@ -577,7 +599,9 @@ describe('GET /revisions/by-hash/:sha256 (verify a printout)', () => {
     );
     const spy = jest.spyOn(console, 'error').mockImplementation(() => undefined);
     try {
-      const res = await planner.get(`/api/v1/coverage-runs/${coverage.runId}/layers/cross-bearing.tif?caseKey=${encodeURIComponent(caseKey)}`);
+      const res = await planner.get(
+        `/api/v1/coverage-runs/${coverage.runId}/layers/cross-bearing.tif?caseKey=${encodeURIComponent(caseKey)}`,
+      );
       expect(res.status).toBe(500);
       expect(res.body.error.code).toBe('layer_tampered');
       expect(spy).toHaveBeenCalledWith(expect.stringContaining('INTEGRITY:'));
@@ -604,7 +628,9 @@ describe('GET /revisions/by-hash/:sha256 (verify a printout)', () => {
     const spy = jest.spyOn(console, 'error').mockImplementation(() => undefined);
     try {
       expect((await planner.get(`/api/v1/revisions/by-hash/${contentHash}`)).body.error.code).toBe('revision_tampered');
-      expect((await planner.get(`/api/v1/plans/${approved.id}/revisions/1/results.csv`)).body.error.code).toBe('revision_tampered');
+      expect((await planner.get(`/api/v1/plans/${approved.id}/revisions/1/results.csv`)).body.error.code).toBe(
+        'revision_tampered',
+      );
       expect(spy).toHaveBeenCalledWith(expect.stringContaining('INTEGRITY:'));
     } finally {
       spy.mockRestore();

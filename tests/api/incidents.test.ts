@@ -127,7 +127,9 @@ describe('incidents', () => {
     expect(second.fix!.errorAreaM2).toBeGreaterThan(0);
     expect(second.fix!.fromReports).toEqual([first.report.seq, second.report.seq]);
     expect(second.mailed).toBe(true);
-    const mail = catcher.messages().find((m) => m.to.includes(DEMO.planner) && /New fix: Smoke east of Crane Knoll/.test(m.subject));
+    const mail = catcher
+      .messages()
+      .find((m) => m.to.includes(DEMO.planner) && /New fix: Smoke east of Crane Knoll/.test(m.subject));
     expect(mail?.text).toMatch(/MGRS/);
     expect(mail?.text).toMatch(/Error area/);
 
@@ -176,7 +178,10 @@ describe('incidents', () => {
     const planner = await agentFor(DEMO.planner);
     const { incident } = await open(planner, 'Drifting smoke');
     const url = `/api/v1/incidents/${incident.id}/reports`;
-    await planner.post(url).send(report('Crane Knoll Tower', { bearingDeg: 100 })).expect(201);
+    await planner
+      .post(url)
+      .send(report('Crane Knoll Tower', { bearingDeg: 100 }))
+      .expect(201);
     const c = await planner.post(url).send(report('Crane Knoll Tower')).expect(201);
     const s = await planner.post(url).send(report('Sedge Ridge Tower')).expect(201);
     const fix = IncidentReportResultSchema.parse(s.body).fix!;
@@ -241,7 +246,10 @@ describe('incidents', () => {
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['bearingDeg', 'idempotencyKey', 'kind', 'observedAt']);
     expect((await planner.get(`/api/v1/incidents/${incident.id}`)).body.entries).toHaveLength(1);
 
-    const closed = await planner.patch(`/api/v1/incidents/${incident.id}`).send({ version: incident.version, status: 'closed', note: 'False alarm: dust.' }).expect(200);
+    const closed = await planner
+      .patch(`/api/v1/incidents/${incident.id}`)
+      .send({ version: incident.version, status: 'closed', note: 'False alarm: dust.' })
+      .expect(200);
     expect(closed.body.incident.status).toBe('closed');
     expect(closed.body.entries.at(-1)).toMatchObject({ kind: 'closed', body: { note: 'False alarm: dust.' } });
     const late = await planner.post(url).send(report('Crane Knoll Tower')).expect(409);
@@ -253,12 +261,17 @@ describe('incidents', () => {
     const planner = await agentFor(DEMO.planner);
     const { incident } = await open(planner, 'Export, with "quotes", and commas');
     const url = `/api/v1/incidents/${incident.id}/reports`;
-    await planner.post(url).send(report('Crane Knoll Tower', { note: 'Grey, thin\ncolumn' })).expect(201);
+    await planner
+      .post(url)
+      .send(report('Crane Knoll Tower', { note: 'Grey, thin\ncolumn' }))
+      .expect(201);
     await planner.post(url).send(report('Sedge Ridge Tower')).expect(201);
 
     const csv = await planner.get(`/api/v1/incidents/${incident.id}/log.csv`).expect(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
-    expect(csv.headers['content-disposition']).toMatch(/harrowmere-forest-district_export-with-quotes-and-commas_incident-log_\d{4}-\d{2}-\d{2}\.csv/);
+    expect(csv.headers['content-disposition']).toMatch(
+      /harrowmere-forest-district_export-with-quotes-and-commas_incident-log_\d{4}-\d{2}-\d{2}\.csv/,
+    );
     // Source: RFC 4180 §2 — CRLF line breaks; fields with commas, quotes or line breaks in double quotes, quotes doubled.
     const text: string = csv.text;
     expect(text.endsWith('\r\n')).toBe(true);

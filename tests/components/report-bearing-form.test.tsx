@@ -78,7 +78,11 @@ describe('ReportBearingForm', () => {
     await screen.findByText(/^No network: the bearing 47\.5° true from Test Tower is kept on this device/);
     const kept = await deviceOutbox.list();
     expect(kept).toHaveLength(1);
-    expect(kept[0]).toMatchObject({ key: bodies[0]!.idempotencyKey, state: 'waiting', path: `/v1/incidents/${INCIDENT}/reports` });
+    expect(kept[0]).toMatchObject({
+      key: bodies[0]!.idempotencyKey,
+      state: 'waiting',
+      path: `/v1/incidents/${INCIDENT}/reports`,
+    });
 
     // The network is back: the outbox sends it, the same report as the first try.
     await deviceOutbox.flush();

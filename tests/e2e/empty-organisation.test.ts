@@ -75,11 +75,21 @@ async function symbolCentre(page: Page, name: string) {
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation on the %s viewport', (viewport) => {
   it('sets up a site from nothing — boundary by taps, zone pasted, terrain, two posts — and gets a plan approved', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({ viewport: VIEWPORTS[viewport], deviceScaleFactor: 1, hasTouch: phone, serviceWorkers: 'block' });
+    const context = await browser.newContext({
+      viewport: VIEWPORTS[viewport],
+      deviceScaleFactor: 1,
+      hasTouch: phone,
+      serviceWorkers: 'block',
+    });
     const page = await context.newPage();
     const cdp = await context.newCDPSession(page);
     const errors = watchErrors(page);
-    const reviewerContext = await browser.newContext({ viewport: VIEWPORTS[viewport], deviceScaleFactor: 1, hasTouch: phone, serviceWorkers: 'block' });
+    const reviewerContext = await browser.newContext({
+      viewport: VIEWPORTS[viewport],
+      deviceScaleFactor: 1,
+      hasTouch: phone,
+      serviceWorkers: 'block',
+    });
     const r = await reviewerContext.newPage();
     const reviewerErrors = watchErrors(r);
     const siteName = `Carrig Head (${viewport})`;

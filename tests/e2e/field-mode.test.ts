@@ -13,15 +13,19 @@ afterAll(() => close());
 
 /** Waits until the field-mode worker controls the page and has kept the app shell. */
 async function shellKept(page: Page) {
-  await page.waitForFunction(async () => {
-    if (!navigator.serviceWorker?.controller) return false;
-    const names = await caches.keys();
-    for (const name of names) {
-      const cache = await caches.open(name);
-      if (await cache.match('/index.html', { ignoreSearch: true })) return true;
-    }
-    return false;
-  }, null, { timeout: 60_000 });
+  await page.waitForFunction(
+    async () => {
+      if (!navigator.serviceWorker?.controller) return false;
+      const names = await caches.keys();
+      for (const name of names) {
+        const cache = await caches.open(name);
+        if (await cache.match('/index.html', { ignoreSearch: true })) return true;
+      }
+      return false;
+    },
+    null,
+    { timeout: 60_000 },
+  );
 }
 
 /** Whether the device still keeps a copy of the query cache (IndexedDB `kenning-cache`). */

@@ -157,7 +157,12 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
   });
 
   it('a tapped point stays in sight above the profile sheet, and the results table says when columns are off-screen', async () => {
-    const context = await browser.newContext({ viewport: VIEWPORTS[viewport], deviceScaleFactor: 1, hasTouch: phone, serviceWorkers: 'block' });
+    const context = await browser.newContext({
+      viewport: VIEWPORTS[viewport],
+      deviceScaleFactor: 1,
+      hasTouch: phone,
+      serviceWorkers: 'block',
+    });
     const page = await context.newPage();
     const errors = watchErrors(page);
     try {

@@ -44,7 +44,12 @@ async function freshForestDraft(page: Page, viewport: ViewportName): Promise<Pla
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain coverage on the %s viewport', (viewport) => {
   it('computes a plan’s coverage, shows it on the map and in 3D, and compares it with the approved plan', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({ viewport: VIEWPORTS[viewport], deviceScaleFactor: 1, hasTouch: phone, serviceWorkers: 'block' });
+    const context = await browser.newContext({
+      viewport: VIEWPORTS[viewport],
+      deviceScaleFactor: 1,
+      hasTouch: phone,
+      serviceWorkers: 'block',
+    });
     const page = await context.newPage();
     const errors = watchErrors(page);
     try {

@@ -47,7 +47,12 @@ async function touch(cdp: CDPSession, paths: { x: number; y: number }[][], steps
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s viewport', (viewport) => {
   it('opens from the site page, zooms, pans, reads a coordinate, profiles a tapped point and shows 3D', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({ viewport: VIEWPORTS[viewport], deviceScaleFactor: 1, hasTouch: phone, serviceWorkers: 'block' });
+    const context = await browser.newContext({
+      viewport: VIEWPORTS[viewport],
+      deviceScaleFactor: 1,
+      hasTouch: phone,
+      serviceWorkers: 'block',
+    });
     const page = await context.newPage();
     const cdp = await context.newCDPSession(page);
     const errors = watchErrors(page);
@@ -211,7 +216,12 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s view
 });
 
 it('draws a site without terrain on a plain background in its UTM zone, and says a profile needs terrain', async () => {
-  const context = await browser.newContext({ viewport: VIEWPORTS.phone, deviceScaleFactor: 1, hasTouch: true, serviceWorkers: 'block' });
+  const context = await browser.newContext({
+    viewport: VIEWPORTS.phone,
+    deviceScaleFactor: 1,
+    hasTouch: true,
+    serviceWorkers: 'block',
+  });
   const page = await context.newPage();
   const errors = watchErrors(page);
   try {

@@ -31,7 +31,12 @@ async function tapAt(page: Page, phone: boolean, p: { x: number; y: number }) {
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site setup on the %s viewport', (viewport) => {
   it('a planner of an empty organisation creates a site by drawing its boundary with taps and typing a zone', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({ viewport: VIEWPORTS[viewport], deviceScaleFactor: 1, hasTouch: phone, serviceWorkers: 'block' });
+    const context = await browser.newContext({
+      viewport: VIEWPORTS[viewport],
+      deviceScaleFactor: 1,
+      hasTouch: phone,
+      serviceWorkers: 'block',
+    });
     const page = await context.newPage();
     const cdp = await context.newCDPSession(page);
     const errors = watchErrors(page);

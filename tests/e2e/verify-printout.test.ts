@@ -43,14 +43,22 @@ describe('verify a printout', () => {
       await page.getByText('A content hash is 64 characters long.').waitFor();
 
       // Read off paper: in capitals, in groups of eight.
-      await field.fill(revision.contentHash.toUpperCase().replace(/(.{8})/g, '$1 ').trim());
+      await field.fill(
+        revision.contentHash
+          .toUpperCase()
+          .replace(/(.{8})/g, '$1 ')
+          .trim(),
+      );
       await page.getByRole('button', { name: 'Verify', exact: true }).click();
       await page.getByText('Current approved revision').waitFor();
       const printed = page.getByLabel('The printed revision');
       await printed.getByText('Fire season cover 2026 · v1 · revision 1').waitFor();
       await printed.getByText(revision.contentHash).waitFor();
       await printed.getByText('Approved by Lin Okonkwo-Hale', { exact: false }).waitFor();
-      await page.getByText(/visibility is not detection/).first().waitFor();
+      await page
+        .getByText(/visibility is not detection/)
+        .first()
+        .waitFor();
       await shot(page, 'verify-printout-approved', 'phone');
       const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
       expect(overflow).toBeLessThanOrEqual(0);
@@ -78,7 +86,10 @@ describe('verify a printout', () => {
       await page.getByText('Current approved revision').waitFor();
       await shot(page, 'verify-printout-approved', 'wide');
       await page.goto(`${e2eUrl()}/plans/${plan.id}`);
-      await page.getByLabel('Exports', { exact: true }).getByRole('button', { name: 'Download the layer as an ASCII grid' }).waitFor();
+      await page
+        .getByLabel('Exports', { exact: true })
+        .getByRole('button', { name: 'Download the layer as an ASCII grid' })
+        .waitFor();
       await page.getByLabel('Exports', { exact: true }).scrollIntoViewIfNeeded();
       await shot(page, 'plan-exports', 'wide');
     } finally {

@@ -5,7 +5,12 @@ import type { Migration } from '../migrator';
 export const up: Migration = async ({ context: qi }) => {
   await qi.createTable('plans', {
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-    organization_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'organizations', key: 'id' }, onDelete: 'RESTRICT' },
+    organization_id: {
+      type: DataTypes.UUID,
+      allowNull: false,
+      references: { model: 'organizations', key: 'id' },
+      onDelete: 'RESTRICT',
+    },
     site_id: { type: DataTypes.UUID, allowNull: false, references: { model: 'sites', key: 'id' }, onDelete: 'RESTRICT' },
     previous_id: { type: DataTypes.UUID, allowNull: true, references: { model: 'plans', key: 'id' }, onDelete: 'RESTRICT' },
     title: { type: DataTypes.STRING(200), allowNull: false },
@@ -20,7 +25,9 @@ export const up: Migration = async ({ context: qi }) => {
     created_at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     updated_at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
   });
-  await qi.sequelize.query("ALTER TABLE plans ADD CONSTRAINT plans_status_check CHECK (status IN ('draft','submitted','returned','approved','superseded'))");
+  await qi.sequelize.query(
+    "ALTER TABLE plans ADD CONSTRAINT plans_status_check CHECK (status IN ('draft','submitted','returned','approved','superseded'))",
+  );
   await qi.addIndex('plans', ['organization_id', 'status']);
   await qi.createTable('plan_revisions', {
     id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -52,7 +59,9 @@ export const up: Migration = async ({ context: qi }) => {
 
 export const down: Migration = async ({ context: qi }) => {
   await qi.dropTable('plan_reviews');
-  await qi.sequelize.query('DROP TRIGGER IF EXISTS plan_revisions_frozen ON plan_revisions; DROP FUNCTION IF EXISTS plan_revisions_frozen()');
+  await qi.sequelize.query(
+    'DROP TRIGGER IF EXISTS plan_revisions_frozen ON plan_revisions; DROP FUNCTION IF EXISTS plan_revisions_frozen()',
+  );
   await qi.dropTable('plan_revisions');
   await qi.dropTable('plans');
 };

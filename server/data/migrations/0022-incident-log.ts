@@ -31,9 +31,7 @@ export const up: Migration = async ({ context: qi }) => {
     created_at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     updated_at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
   });
-  await qi.sequelize.query(
-    "ALTER TABLE incidents ADD CONSTRAINT incidents_status CHECK (status IN ('open', 'closed'))",
-  );
+  await qi.sequelize.query("ALTER TABLE incidents ADD CONSTRAINT incidents_status CHECK (status IN ('open', 'closed'))");
   await qi.addIndex('incidents', ['organization_id', 'site_id', 'opened_at']);
 
   await qi.createTable('incident_entries', {

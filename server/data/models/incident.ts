@@ -48,10 +48,7 @@ export class IncidentModel extends Model<InferAttributes<IncidentModel>, InferCr
 }
 
 /** One line of an incident's log. Never updated or deleted (a trigger refuses both). */
-export class IncidentEntryModel extends Model<
-  InferAttributes<IncidentEntryModel>,
-  InferCreationAttributes<IncidentEntryModel>
-> {
+export class IncidentEntryModel extends Model<InferAttributes<IncidentEntryModel>, InferCreationAttributes<IncidentEntryModel>> {
   declare id: CreationOptional<string>;
   declare organizationId: string;
   declare incidentId: ForeignKey<IncidentModel['id']>;

@@ -142,4 +142,3 @@ export const incidentsRepository = {
     return rows.map((r) => r.email);
   },
 };
-

@@ -116,10 +116,7 @@ export function blindAreaPolygons(
   for (let r = 1; r < boxHeight - 1; r++) {
     for (let c = 1; c < boxWidth - 1; c++) if (labelAt(col0 + c, row0 + r) > 0) values[r * boxWidth + c] = 1;
   }
-  const [outline] = contours()
-    .size([boxWidth, boxHeight])
-    .thresholds([0.5])
-    .smooth(false)(values as unknown as number[]);
+  const [outline] = contours().size([boxWidth, boxHeight]).thresholds([0.5]).smooth(false)(values as unknown as number[]);
 
   const yTop = grid.yll + grid.height * grid.cellSize;
   const toLonLat = ([px, py]: Position): Position => {

@@ -54,12 +54,14 @@ export function localDate(at: string, timeZone: string): string {
  */
 export function exportFileName(parts: ExportNameParts): string {
   const revision = parts.revision === null ? 'draft' : `rev${parts.revision}`;
-  return [
-    namePart(parts.siteName),
-    namePart(parts.planTitle),
-    `v${parts.planVersion}`,
-    revision,
-    localDate(parts.at, parts.timeZone),
-    namePart(parts.what),
-  ].join('_') + `.${parts.extension}`;
+  return (
+    [
+      namePart(parts.siteName),
+      namePart(parts.planTitle),
+      `v${parts.planVersion}`,
+      revision,
+      localDate(parts.at, parts.timeZone),
+      namePart(parts.what),
+    ].join('_') + `.${parts.extension}`
+  );
 }

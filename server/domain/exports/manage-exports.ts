@@ -91,8 +91,7 @@ function checkLayerHash(
   );
 }
 
-const gridOf = (g: CoverageSnapshot['grid']): GridSpec =>
-  gridSpecFromM(g, g.epsg === null ? null : { epsg: g.epsg, wkt: null });
+const gridOf = (g: CoverageSnapshot['grid']): GridSpec => gridSpecFromM(g, g.epsg === null ? null : { epsg: g.epsg, wkt: null });
 
 /**
  * The listed blind areas of every case of the revision's coverage, outlined
@@ -137,7 +136,8 @@ async function blindAreaOutlines(
     const codes = decodeClassRaster(encoded);
     const sea = c.detection?.seaOnly ? await seaMaskNow() : null;
     for (let i = 0; i < codes.length; i++) {
-      mask[i] = codes[i] === COVERAGE_LAYER.unseen && (siteMask === null || siteMask[i] === 1) && (sea === null || sea[i] === 1) ? 1 : 0;
+      mask[i] =
+        codes[i] === COVERAGE_LAYER.unseen && (siteMask === null || siteMask[i] === 1) && (sea === null || sea[i] === 1) ? 1 : 0;
     }
     const yTop = grid.yll + grid.height * grid.cellSize;
     const seeds = c.blindAreas.map((area) => {

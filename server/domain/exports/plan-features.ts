@@ -77,7 +77,12 @@ export function planFeatureCollection(
   blindAreas: readonly BlindAreaOutline[],
 ): FeatureCollection & { kenning: FeatureCollectionMeta } {
   const features: Feature[] = [];
-  const site = snapshot.inputs.site as { name?: string; boundary?: Ring | null; priorityZones?: { name: string; weight: number; ring: Ring }[]; seaArea?: Ring | null };
+  const site = snapshot.inputs.site as {
+    name?: string;
+    boundary?: Ring | null;
+    priorityZones?: { name: string; weight: number; ring: Ring }[];
+    seaArea?: Ring | null;
+  };
   const push = (f: Feature | null) => {
     if (f) features.push(f);
   };

@@ -63,7 +63,8 @@ async function currentApprovedOf(actor: Actor, plan: Plan) {
 
 const SUMMARIES: Record<RevisionStanding, string> = {
   'approved-current': 'This is the approved revision of the plan, and it still is: work from it.',
-  superseded: 'This revision was approved, but a newer version of the plan has been approved since. Do not work from this printout.',
+  superseded:
+    'This revision was approved, but a newer version of the plan has been approved since. Do not work from this printout.',
   'under-review': 'This revision has been submitted and is waiting for review: it is not approved yet.',
   returned: 'This revision was returned to the planner and never approved.',
   replaced: 'A later revision of the plan took the place of this one; this one was never approved.',

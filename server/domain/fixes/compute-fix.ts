@@ -51,9 +51,7 @@ export async function computeFix(actor: Actor, request: FixRequest, terrainCache
   const when = new Date(request.observedAt);
   const sources = resolved.map((b) => declinationSourceOf(b));
   const withDeclination = resolved.map((b, i) =>
-    sources[i] === 'model'
-      ? { ...b, declinationDeg: modelDeclination(b.from.latDeg, b.from.lonDeg, when).declinationDeg }
-      : b,
+    sources[i] === 'model' ? { ...b, declinationDeg: modelDeclination(b.from.latDeg, b.from.lonDeg, when).declinationDeg } : b,
   );
   try {
     const result = evaluateFix(request.observedAt, withDeclination);

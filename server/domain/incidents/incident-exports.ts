@@ -117,7 +117,10 @@ export function incidentGeoJson(detail: IncidentDetail, posts: Map<string, { lat
         seen: r.kind,
         usedInFix: fix?.fromReports.includes(r.seq) ?? false,
       },
-      geometry: { type: 'LineString', coordinates: bearingLine(at.latDeg, at.lonDeg, r.trueBearingDeg, toFix ? toFix * 1.25 : LINE_WITHOUT_FIX_M) },
+      geometry: {
+        type: 'LineString',
+        coordinates: bearingLine(at.latDeg, at.lonDeg, r.trueBearingDeg, toFix ? toFix * 1.25 : LINE_WITHOUT_FIX_M),
+      },
     });
   }
   if (fix) {

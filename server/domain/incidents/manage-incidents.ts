@@ -114,7 +114,10 @@ function incidentOf(row: IncidentRow, entries: readonly StoredEntry[]): Incident
  * The fix from the latest bearing of each post that reported (a post's
  * newer bearing replaces its older one: a smoke drifts, a vessel moves).
  */
-function fixFrom(reports: readonly IncidentReport[], posts: Map<string, { latDeg: number; lonDeg: number; eyeHeightM: number }>): FixBody | null {
+function fixFrom(
+  reports: readonly IncidentReport[],
+  posts: Map<string, { latDeg: number; lonDeg: number; eyeHeightM: number }>,
+): FixBody | null {
   const latest = new Map<string, IncidentReport>();
   for (const r of reports) latest.set(r.postId, r);
   if (latest.size < 2) return null;
@@ -132,7 +135,10 @@ function fixFrom(reports: readonly IncidentReport[], posts: Map<string, { latDeg
       eyeHeightM: p.eyeHeightM,
     };
   });
-  const observedAt = used.map((r) => r.observedAt).sort().at(-1)!;
+  const observedAt = used
+    .map((r) => r.observedAt)
+    .sort()
+    .at(-1)!;
   try {
     const result = evaluateFix(observedAt, bearings);
     return {
@@ -159,7 +165,10 @@ function fixFrom(reports: readonly IncidentReport[], posts: Map<string, { latDeg
 /** Observers write only while on a watch at one of the site's posts; reviewers only read. */
 async function checkMayWrite(actor: Actor, siteId: string, t?: Transaction) {
   if (actor.role === 'planner' || actor.role === 'admin') return;
-  if (actor.role === 'observer' && (await assignmentsRepository.onWatchInSite(actor.organizationId, actor.userId, siteId, new Date(), t))) {
+  if (
+    actor.role === 'observer' &&
+    (await assignmentsRepository.onWatchInSite(actor.organizationId, actor.userId, siteId, new Date(), t))
+  ) {
     return;
   }
   throw AppError.forbidden(
@@ -180,7 +189,12 @@ export async function openIncident({ db }: IncidentDeps, actor: Actor, input: In
       { siteId: site.id, title: input.title, openedById: actor.userId },
       t,
     );
-    await appendEntry(incident, { kind: 'opened', actorId: actor.userId, body: { title: input.title, siteName: site.name } }, {}, t);
+    await appendEntry(
+      incident,
+      { kind: 'opened', actorId: actor.userId, body: { title: input.title, siteName: site.name } },
+      {},
+      t,
+    );
     await auditRepository.record(
       actor,
       { action: 'create', entityType: 'incident', entityId: incident.id, after: { title: input.title, siteId: site.id } },
@@ -246,7 +260,13 @@ export async function updateIncident({ db }: IncidentDeps, actor: Actor, id: str
     }
     await auditRepository.record(
       actor,
-      { action: 'update', entityType: 'incident', entityId: id, before, after: { title: incident.title, status: incident.status } },
+      {
+        action: 'update',
+        entityType: 'incident',
+        entityId: id,
+        before,
+        after: { title: incident.title, status: incident.status },
+      },
       t,
     );
   });
@@ -291,7 +311,11 @@ export async function addReport(
     const when = new Date(input.observedAt);
     const source = input.bearingReference === 'true' ? 'none' : input.declinationDeg === undefined ? 'model' : 'typed';
     const declinationDeg =
-      source === 'none' ? 0 : source === 'typed' ? input.declinationDeg! : modelDeclination(post.location.latDeg, post.location.lonDeg, when).declinationDeg;
+      source === 'none'
+        ? 0
+        : source === 'typed'
+          ? input.declinationDeg!
+          : modelDeclination(post.location.latDeg, post.location.lonDeg, when).declinationDeg;
     const body: ReportBody = {
       postId: post.id,
       postName: post.name,
@@ -352,7 +376,15 @@ async function visibilityOf(
     const observers = fix.lines.flatMap((line) => {
       const p = posts.get(line.postId);
       return p
-        ? [{ postId: line.postId, postName: line.postName, siteId, location: { latDeg: p.latDeg, lonDeg: p.lonDeg }, eyeHeightM: p.eyeHeightM }]
+        ? [
+            {
+              postId: line.postId,
+              postName: line.postName,
+              siteId,
+              location: { latDeg: p.latDeg, lonDeg: p.lonDeg },
+              eyeHeightM: p.eyeHeightM,
+            },
+          ]
         : [];
     });
     return await fixVisibility(cache, actor.organizationId, fix, observers, t);

@@ -28,8 +28,27 @@ describe('rfc7946Ring', () => {
     expect(signedArea2(outer)).toBeGreaterThan(0);
     expect(signedArea2(rfc7946Ring(clockwise, false)!)).toBeLessThan(0);
     // Rounded to 6 decimals; repeated positions dropped; degenerate rings refused.
-    expect(rfc7946Ring([[0.12345678, 0], [0.12345678, 0], [1, 0], [1, 1]], true)![0]).toEqual([0.123457, 0]);
-    expect(rfc7946Ring([[0, 0], [1, 1], [2, 2]], true)).toBeNull();
+    expect(
+      rfc7946Ring(
+        [
+          [0.12345678, 0],
+          [0.12345678, 0],
+          [1, 0],
+          [1, 1],
+        ],
+        true,
+      )![0],
+    ).toEqual([0.123457, 0]);
+    expect(
+      rfc7946Ring(
+        [
+          [0, 0],
+          [1, 1],
+          [2, 2],
+        ],
+        true,
+      ),
+    ).toBeNull();
   });
 
   it('does not modify its input', () => {
@@ -59,7 +78,16 @@ describe('blindAreaPolygons', () => {
   it('outlines one 8-connected patch through the edge middles, around every blind cell centre', () => {
     // Row 0 is north. The patch: (1,1), (2,1) and, touching at a corner, (3,2); (0,3) is another patch.
     const mask = new Uint8Array([0, 0, 0, 0, 0, 0, 1, 1, 0, 0, 0, 0, 0, 1, 0, 1, 0, 0, 0, 0]);
-    const [out, repeat, seen] = blindAreaPolygons(grid, mask, [{ col: 1, row: 1 }, { col: 3, row: 2 }, { col: 0, row: 0 }], identity);
+    const [out, repeat, seen] = blindAreaPolygons(
+      grid,
+      mask,
+      [
+        { col: 1, row: 1 },
+        { col: 3, row: 2 },
+        { col: 0, row: 0 },
+      ],
+      identity,
+    );
     if (!out) throw new Error('no outline');
     expect(out.cells).toBe(3);
     // The marching-squares outline of two cells side by side: through the middles of their outer edges.

@@ -96,7 +96,12 @@ describe('detection range: one model for day, night and sea', () => {
   });
 
   it('converts a 2 % visibility to the 5 % threshold before using it', () => {
-    const r = detectionRange({ observerHeightM: 25, targetHeightM: 10, visibilityM: 13_058, visibilityKind: 'meteorological-range-2pct' });
+    const r = detectionRange({
+      observerHeightM: 25,
+      targetHeightM: 10,
+      visibilityM: 13_058,
+      visibilityKind: 'meteorological-range-2pct',
+    });
     // Source: Koschmieder, V_5% = V_2% · ln 0.05 / ln 0.02 (AMS Glossary; CIE S 017 / WMO-No. 8). Tolerance 0.1 %.
     expectRelative(r.limits.visibilityM, (13_058 * Math.log(0.05)) / Math.log(0.02), 0.001);
     expect(r.limitedBy).toBe('visibility');
@@ -107,7 +112,13 @@ describe('detection range: one model for day, night and sea', () => {
     const head = detectionRange({ ...person, waveScreenM: screen });
     // Source: none — the model: 0.3 m of head under 0.625 m crests.
     expect(head).toMatchObject({ rangeM: 0, limitedBy: 'sea-state', reason: 'screened-by-waves' });
-    const raft = detectionRange({ observerHeightM: 25, targetHeightM: 1.2, targetSizeM: 2, visibilityM: 20_000, waveScreenM: screen });
+    const raft = detectionRange({
+      observerHeightM: 25,
+      targetHeightM: 1.2,
+      targetSizeM: 2,
+      visibilityM: 20_000,
+      waveScreenM: screen,
+    });
     expect(raft.limitedBy).toBe('angular-size');
     expect(raft.rangeM).toBeGreaterThan(1000);
   });
@@ -168,7 +179,12 @@ describe('evaluateSightline with the detection model', () => {
   });
 
   it('refuses a sea state and a wave height together, and a fractional degree', () => {
-    const both = SightlineRequestSchema.safeParse({ observerHeightM: 5, seaState: 2, significantWaveHeightM: 1, conditions: [{ k: 0 }] });
+    const both = SightlineRequestSchema.safeParse({
+      observerHeightM: 5,
+      seaState: 2,
+      significantWaveHeightM: 1,
+      conditions: [{ k: 0 }],
+    });
     // Source: none — input contract.
     expect(both.success).toBe(false);
     expect(both.error?.issues[0]?.path).toEqual(['significantWaveHeightM']);

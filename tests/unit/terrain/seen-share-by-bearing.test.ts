@@ -39,7 +39,16 @@ describe('seenShareByBearing', () => {
 
     // A mask leaving out the north-east cell (45°, seen) leaves sector 0 with its blind cell only.
     const mask = Uint8Array.from([1, 1, 0, 1, 1, 1, 1, 1, 1]);
-    const masked = seenShareByBearing({ width: 3, height: 3, classes, col: 1, row: 1, gridConvergenceRad: 0, sectorCount: 4, mask });
+    const masked = seenShareByBearing({
+      width: 3,
+      height: 3,
+      classes,
+      col: 1,
+      row: 1,
+      gridConvergenceRad: 0,
+      sectorCount: 4,
+      mask,
+    });
     expect([masked[0]!.inRangeCells, masked[0]!.seenCells, masked[0]!.seenShare]).toEqual([1, 0, 0]);
   });
 
@@ -52,7 +61,9 @@ describe('seenShareByBearing', () => {
     for (let k = 9; k < 18; k++) expect(sectors[k]!.seenShare).toBe(0);
     expect(sectors[8]!.seenShare).toBe(1);
     expect(sectors[18]!.seenShare).toBe(1);
-    expect(blindBearingRanges(sectors, 0.25)).toEqual([{ fromDeg: 90, toDeg: 180, seenShare: 0, inRangeCells: expect.any(Number) }]);
+    expect(blindBearingRanges(sectors, 0.25)).toEqual([
+      { fromDeg: 90, toDeg: 180, seenShare: 0, inRangeCells: expect.any(Number) },
+    ]);
   });
 
   it('turns grid bearings into true bearings with the grid convergence (true = grid + γ)', () => {
