@@ -51,8 +51,8 @@ it('lets a reviewer download the package of the approved demo plan', async () =>
   }
 });
 
-it('shows an observer their post’s crew card on a phone, with the PDF beside it', async () => {
-  const { context, page } = await newPage(browser, 'phone');
+it('shows an observer their post’s crew card on a phone, with the PDF beside it, and again with no network', async () => {
+  const { context, page } = await newPage(browser, 'phone', { fieldMode: true });
   const errors = watchErrors(page);
   try {
     await signIn(page, DEMO.observer);
@@ -69,6 +69,21 @@ it('shows an observer their post’s crew card on a phone, with the PDF beside i
     expect(await pdfLink.getAttribute('href')).toMatch(/\/card\.pdf\?coords=/);
     await shot(page, 'crew-card', 'phone');
     expect(errors).toEqual([]);
+
+    // In the field: the phone goes offline and the card is opened again from cold, from the device's copy.
+    const cardUrl = page.url();
+    await page.waitForFunction(async () => !!navigator.serviceWorker?.controller && (await caches.keys()).length > 0, null, {
+      timeout: 60_000,
+    });
+    await page.waitForTimeout(1500); // the device's copy is written a second after the last change
+    await context.setOffline(true);
+    await page.close();
+    const cold = await context.newPage();
+    await cold.goto(cardUrl);
+    await cold.getByRole('status', { name: 'Offline' }).waitFor();
+    await cold.getByText('How far from here').waitFor();
+    await cold.getByText(/From the approved plan “Fire season cover 2026”/).waitFor();
+    await shot(cold, 'crew-card-offline', 'phone');
   } finally {
     await context.close();
   }
