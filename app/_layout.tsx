@@ -7,13 +7,11 @@ import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client
 import { useFonts } from 'expo-font';
 import { Stack } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
-import { useEffect, useState, type ReactNode } from 'react';
-import { Platform } from 'react-native';
+import { useState, type ReactNode } from 'react';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { createQueryClient } from '@/components/data/query-client';
 import { meQuery, useSession } from '@/components/data/session';
 import { deviceCanKeepCopies, DEVICE_COPY_MAX_AGE_MS, persistOptions } from '@/components/offline/persisted-cache';
-import { registerServiceWorker } from '@/components/offline/register-service-worker';
 import { RootErrorBoundary } from '@/components/shell/root-error-boundary';
 import { SplashView } from '@/components/shell/splash-view';
 import { ErrorState } from '@/components/ui/states';
@@ -49,9 +47,6 @@ function QueryProvider({ client, children }: { client: ReturnType<typeof createQ
 export default function RootLayout() {
   const [queryClient] = useState(createAppQueryClient);
   const [fontsLoaded, fontError] = useFonts({ Barlow_400Regular, Barlow_500Medium, Barlow_600SemiBold, Barlow_700Bold });
-  useEffect(() => {
-    if (Platform.OS === 'web') registerServiceWorker();
-  }, []);
   return (
     <SafeAreaProvider>
       <QueryProvider client={queryClient}>

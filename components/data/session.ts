@@ -3,7 +3,6 @@ import { MeResponseSchema, type MeUpdate, type SignInRequest, type User } from '
 import type { LengthUnit } from '@/shared/units/length';
 import { UNIT_SYSTEMS, unitSystemFor, type UnitSystem } from '@/shared/units/unit-systems';
 import { forgetDeviceCopies } from '@/components/offline/persisted-cache';
-import { deviceOutbox } from '@/components/offline/device-outbox';
 import { resetLanding } from './first-landing';
 import { api, ApiRequestError, NetworkError } from './api-client';
 import { STALE } from './query-client';
@@ -44,7 +43,6 @@ function forgetOtherUsersData(qc: ReturnType<typeof useQueryClient>) {
   qc.removeQueries({ predicate: (q) => q.queryKey[0] !== sessionKeys.all[0] });
   // The device's own copies go too: the kept query cache and the outbox (field mode).
   void forgetDeviceCopies();
-  void deviceOutbox.clear();
 }
 
 export function useSignIn() {

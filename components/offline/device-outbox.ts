@@ -1,15 +1,16 @@
 import { createStore, get, update, type UseStore } from 'idb-keyval';
 import { api, ApiRequestError } from '@/components/data/api-client';
+import { OUTBOX_DB, OUTBOX_ITEMS, OUTBOX_STORE, onDeviceCopiesForgotten } from './persisted-cache';
 import { createOutbox, memoryOutboxStore, type OutboxItem, type OutboxStore, type SendOutcome } from './outbox';
 
 /** The outbox's own IndexedDB database (idb-keyval keeps one object store per database). */
-const DB_NAME = 'kenning-outbox';
-const ITEMS = 'items';
+const DB_NAME = OUTBOX_DB;
+const ITEMS = OUTBOX_ITEMS;
 
 function deviceStore(): OutboxStore {
   if (typeof indexedDB === 'undefined') return memoryOutboxStore();
   let idb: UseStore | null = null;
-  const store = () => (idb ??= createStore(DB_NAME, 'outbox'));
+  const store = () => (idb ??= createStore(DB_NAME, OUTBOX_STORE));
   return {
     read: async () => (await get<OutboxItem[]>(ITEMS, store())) ?? [],
     update: (change) => update<OutboxItem[]>(ITEMS, (old) => change(old ?? []), store()),
@@ -55,6 +56,9 @@ export const deviceOutbox = {
     changed();
   },
 };
+
+// A sign-out clears the stored list without loading this module; when it is loaded, what it shows follows.
+onDeviceCopiesForgotten(changed);
 
 export function onOutboxChange(listener: Listener): () => void {
   listeners.add(listener);

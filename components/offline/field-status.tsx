@@ -1,12 +1,13 @@
 import { onlineManager, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState, useSyncExternalStore } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { Platform, StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { colors, space } from '@/components/ui/theme';
 import { deviceOutbox, onOutboxChange } from './device-outbox';
 import type { OutboxItem } from './outbox';
+import { registerServiceWorker } from './register-service-worker';
 
 /** While items wait, sending is tried again this often (and at once when the network returns). */
 const RETRY_MS = 20_000;
@@ -101,6 +102,19 @@ export function OfflineBand() {
       </AppText>
     </View>
   );
+}
+
+/**
+ * The shell's field-mode part: the offline band and the outbox's sender. It
+ * lives in the deferred chunk (the first screen does not wait for it); the
+ * service worker keeps that chunk on the device, so it loads offline too.
+ */
+export function FieldStatus({ part }: { part: 'band' | 'sender' }) {
+  // The worker is registered once a person is signed in (field mode is for the signed-in app).
+  useEffect(() => {
+    if (part === 'sender' && Platform.OS === 'web') registerServiceWorker();
+  }, [part]);
+  return part === 'band' ? <OfflineBand /> : <OutboxRunner />;
 }
 
 const STATE_TEXT: Record<OutboxItem['state'], string> = {

@@ -1,6 +1,5 @@
-import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
 import { defaultShouldDehydrateQuery, type Query } from '@tanstack/react-query';
-import type { PersistQueryClientOptions } from '@tanstack/react-query-persist-client';
+import type { PersistedClient, Persister, PersistQueryClientOptions } from '@tanstack/react-query-persist-client';
 import { createStore, del, get, set, type UseStore } from 'idb-keyval';
 
 /**
@@ -34,20 +33,37 @@ function buildId(): string {
 const notKept = (query: Query) => query.meta?.keepOnDevice === false;
 
 export function persistOptions(): Omit<PersistQueryClientOptions, 'queryClient'> {
-  const persister = createAsyncStoragePersister({
-    storage: {
-      getItem: (k) => get<string>(k, store()).then((v) => v ?? null),
-      setItem: (k, v: string) => set(k, v, store()),
-      removeItem: (k) => del(k, store()),
-    },
-    key: KEY,
-    throttleTime: 1000,
-  });
   return {
-    persister: { ...persister, restoreClient: () => restoreOnlyUnreachable(persister.restoreClient) },
+    persister: { ...idbPersister(), restoreClient: () => restoreOnlyUnreachable(() => get<PersistedClient>(KEY, store())) },
     maxAge: DEVICE_COPY_MAX_AGE_MS,
     buster: buildId(),
     dehydrateOptions: { shouldDehydrateQuery: (q) => defaultShouldDehydrateQuery(q) && !notKept(q) },
+  };
+}
+
+/** Writes at most once a second: the cache changes in bursts (a page's queries arrive together). */
+const WRITE_EVERY_MS = 1000;
+
+/**
+ * The persister over IndexedDB that TanStack Query's documentation describes
+ * ("building a persister" with idb-keyval): the dehydrated cache is stored as
+ * it is (structured clone, no JSON), the last state of a burst written once.
+ */
+function idbPersister(): Persister {
+  let pending: PersistedClient | null = null;
+  let timer: ReturnType<typeof setTimeout> | null = null;
+  return {
+    persistClient(client) {
+      pending = client;
+      timer ??= setTimeout(() => {
+        timer = null;
+        const latest = pending;
+        pending = null;
+        if (latest) void set(KEY, latest, store()).catch(() => undefined);
+      }, WRITE_EVERY_MS);
+    },
+    restoreClient: () => get<PersistedClient>(KEY, store()),
+    removeClient: () => del(KEY, store()),
   };
 }
 
@@ -78,8 +94,24 @@ async function restoreOnlyUnreachable<T>(restore: () => PromiseLike<T | undefine
   return (await serverReachable()) ? undefined : restore();
 }
 
-/** Deletes the device's copies of the person's data (sign-out). */
+/**
+ * Deletes the device's copies of the person's data (sign-out): the kept query
+ * cache and the outbox (./device-outbox.ts keeps its list under `items` in
+ * `kenning-outbox`; cleared here directly, so sign-out does not load the outbox).
+ */
 export async function forgetDeviceCopies(): Promise<void> {
   if (!deviceCanKeepCopies()) return;
-  await del(KEY, store());
+  await Promise.all([del(KEY, store()), del(OUTBOX_ITEMS, createStore(OUTBOX_DB, OUTBOX_STORE))]);
+  outboxCleared?.();
+}
+
+/** The outbox's IndexedDB place (see ./device-outbox.ts). */
+export const OUTBOX_DB = 'kenning-outbox';
+export const OUTBOX_STORE = 'outbox';
+export const OUTBOX_ITEMS = 'items';
+
+let outboxCleared: (() => void) | null = null;
+/** The loaded outbox hears of a sign-out's clearing (to refresh what it shows). */
+export function onDeviceCopiesForgotten(listener: () => void) {
+  outboxCleared = listener;
 }

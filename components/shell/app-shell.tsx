@@ -3,14 +3,16 @@ import { useEffect, useState } from 'react';
 import { Modal, Pressable, StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { useSession } from '@/components/data/session';
-import { OfflineBand, OutboxRunner } from '@/components/offline/field-status';
 import { AppText } from '@/components/ui/app-text';
 import { MoreIcon } from '@/components/ui/icons';
 import { Wordmark } from '@/components/ui/logo';
 import { colors, radius, space, TOUCH } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
-import { preloadDeferredScreens } from './deferred-screen';
+import { deferredScreen, preloadDeferredScreens } from './deferred-screen';
 import { isActive, NAV_ITEMS, phoneBarItems, type NavItem } from './nav-items';
+
+/** Field mode's band and outbox sender, from the deferred chunk (nothing shows until it has loaded). */
+const FieldStatus = deferredScreen('FieldStatus', { fallback: null });
 
 /** After the first signed-in screen is up (its target is 1.2 s), the other screens' chunk is fetched in the background. */
 const PRELOAD_SCREENS_AFTER_MS = 1500;
@@ -69,10 +71,10 @@ export function AppShell() {
           ) : null}
         </View>
         <View style={{ flex: 1 }} role="main">
-          <OfflineBand />
+          <FieldStatus part="band" />
           <Slot />
         </View>
-        <OutboxRunner />
+        <FieldStatus part="sender" />
       </View>
     );
   }
@@ -96,10 +98,10 @@ function PhoneShell({ items, pathname, bottomInset }: { items: NavItem[]; pathna
   return (
     <View style={styles.phoneRoot}>
       <View style={{ flex: 1 }} role="main">
-        <OfflineBand />
+        <FieldStatus part="band" />
         <Slot />
       </View>
-      <OutboxRunner />
+      <FieldStatus part="sender" />
       <View style={[styles.bar, { paddingBottom: Math.max(bottomInset, space.xs) }]} role="navigation" aria-label="Main">
         {bar.map((item) => (
           <BarItem

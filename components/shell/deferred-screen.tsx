@@ -34,8 +34,12 @@ export function preloadDeferredScreens() {
  * boundary.
  *
  * @example const SiteMapScreen = deferredScreen('SiteMapScreen');
+ * @example const FieldStatus = deferredScreen('FieldStatus', { fallback: null }); // a part that shows nothing meanwhile
  */
-export function deferredScreen<K extends keyof Screens>(name: K): Screens[K] {
+export function deferredScreen<K extends keyof Screens>(
+  name: K,
+  { fallback = <LoadingState /> }: { fallback?: React.ReactNode } = {},
+): Screens[K] {
   const Lazy = lazy(() => loadScreens().then((m) => ({ default: m[name] as ComponentType<object> })));
   function DeferredScreen(props: object) {
     // Once loaded (e.g. preloaded by the shell), no Suspense round: React holds a revealed
@@ -43,7 +47,7 @@ export function deferredScreen<K extends keyof Screens>(name: K): Screens[K] {
     const Loaded = loaded?.[name] as ComponentType<object> | undefined;
     if (Loaded) return <Loaded {...props} />;
     return (
-      <Suspense fallback={<LoadingState />}>
+      <Suspense fallback={fallback}>
         <Lazy {...props} />
       </Suspense>
     );

@@ -10,6 +10,7 @@ export { CaughtMailList } from '@/components/admin/caught-mail-list';
 export { UserAdmin } from '@/components/admin/user-admin';
 export { HistoryScreen } from '@/components/audit/history-screen';
 export { BriefingScreen } from '@/components/briefing/briefing-screen';
+export { FieldStatus } from '@/components/offline/field-status';
 export { IncidentScreen } from '@/components/incidents/incident-screen';
 export { IncidentsScreen } from '@/components/incidents/incidents-screen';
 export { QuickCheck } from '@/components/check/quick-check';
