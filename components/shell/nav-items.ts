@@ -10,6 +10,7 @@ import {
   SightlineIcon,
   SweepIcon,
   TowerIcon,
+  TrainingIcon,
   type IconProps,
 } from '@/components/ui/icons';
 
@@ -26,6 +27,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/', match: '/', label: 'Sites', Icon: TowerIcon },
   { href: '/check', match: '/check', label: 'Quick check', Icon: SightlineIcon },
   { href: '/briefing', match: '/briefing', label: 'My watch', Icon: BriefingIcon, roles: ['observer'] },
+  { href: '/training', match: '/training', label: 'Training', Icon: TrainingIcon, roles: ['planner', 'observer'] },
   { href: '/plans', match: '/plans', label: 'Plans', Icon: PlanIcon, roles: ['planner', 'reviewer', 'observer'] },
   { href: '/library', match: '/library', label: 'Library', Icon: LibraryIcon, roles: ['planner', 'reviewer'] },
   {
