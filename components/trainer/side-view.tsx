@@ -21,8 +21,8 @@ export function DrillSideView({
   return (
     <View style={{ gap: space.sm }} aria-label="Side view">
       {g ? (
-        <View style={{ width: '100%', maxWidth: 520, aspectRatio: W / H }}>
-          <Svg width="100%" height="100%" viewBox={`0 0 ${W} ${H}`} role="img" aria-label="Side view, heights exaggerated">
+        <View style={{ width: '100%', maxWidth: 520, aspectRatio: W / H }} role="img" aria-label="Side view, heights exaggerated">
+          <Svg width="100%" height="100%" viewBox={`0 0 ${W} ${H}`}>
             <Rect x={0} y={0} width={W} height={H} fill={colors.paper} />
             <Polyline points={g.surface} fill="none" stroke={colors.moss} strokeWidth={2} />
             <Line x1={g.eye.x} y1={g.eye.baseY} x2={g.eye.x} y2={g.eye.y} stroke={colors.ink} strokeWidth={3} />
