@@ -27,7 +27,6 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/', match: '/', label: 'Sites', Icon: TowerIcon },
   { href: '/check', match: '/check', label: 'Quick check', Icon: SightlineIcon },
   { href: '/briefing', match: '/briefing', label: 'My watch', Icon: BriefingIcon, roles: ['observer'] },
-  { href: '/training', match: '/training', label: 'Training', Icon: TrainingIcon, roles: ['planner', 'observer'] },
   { href: '/plans', match: '/plans', label: 'Plans', Icon: PlanIcon, roles: ['planner', 'reviewer', 'observer'] },
   { href: '/library', match: '/library', label: 'Library', Icon: LibraryIcon, roles: ['planner', 'reviewer'] },
   {
@@ -37,6 +36,7 @@ export const NAV_ITEMS: NavItem[] = [
     Icon: SweepIcon,
     roles: ['planner', 'reviewer', 'observer'],
   },
+  { href: '/training', match: '/training', label: 'Training', Icon: TrainingIcon, roles: ['planner', 'observer'] },
   { href: '/admin/users', match: '/admin/users', label: 'Users', Icon: PeopleIcon, roles: ['admin'] },
   { href: '/admin/mail', match: '/admin/mail', label: 'Mail', Icon: MailIcon, roles: ['admin'] },
   { href: '/account', match: '/account', label: 'Account', Icon: PersonIcon },
