@@ -226,8 +226,8 @@ function CalibrationResult({
 
 function SaveAsConditionSet({ calibration, planner }: { calibration: Calibration; planner: boolean }) {
   const save = useSaveCalibrationAsConditionSet();
-  const [saved, setSaved] = useState(calibration.conditionSetId !== null);
-  if (saved) return <AppText tone="moss">Saved as a condition set.</AppText>;
+  const [savedHere, setSaved] = useState(false);
+  if (savedHere || calibration.conditionSetId !== null) return <AppText tone="moss">Saved as a condition set.</AppText>;
   if (!planner || calibration.resultKind === 'none') return null;
   return (
     <>

@@ -51,7 +51,7 @@ export function TrainingScreen() {
       <TrainerCautions />
       <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
         <View style={{ flex: 1, gap: space.xl, width: '100%' }}>
-          {user ? <DueCourses userId={user.id} /> : null}
+          {user ? <DueCourses userId={user.id} quietWhenNone={planner} /> : null}
           <OutboxList title="Answers kept on this device" />
           <Practice />
         </View>
@@ -66,7 +66,7 @@ export function TrainingScreen() {
   );
 }
 
-function DueCourses({ userId }: { userId: string }) {
+function DueCourses({ userId, quietWhenNone }: { userId: string; quietWhenNone: boolean }) {
   const courses = useCourses();
   const quals = useQualifications(userId);
   const start = useStartAttempt();
@@ -77,6 +77,7 @@ function DueCourses({ userId }: { userId: string }) {
   if (quals.isError) return <ErrorState error={quals.error} onRetry={() => void quals.refetch()} />;
   const mine = courses.data.filter((c) => c.assignees.some((a) => a.id === userId));
   if (mine.length === 0) {
+    if (quietWhenNone) return null;
     return <EmptyState title="No course assigned to you" body="When a planner assigns you a course it shows here. Practise below meanwhile." />;
   }
   return (

@@ -93,7 +93,7 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     await answer(page, q1);
     const explanation = page.getByLabel('Explanation');
     await explanation.getByText('Score 100 %').waitFor();
-    await explanation.getByText(/^Full credit/).waitFor();
+    await explanation.getByText(/^Full credit: within/).waitFor();
     await explanation.getByText('Formula with the values').waitFor();
     await page.getByRole('img', { name: /Side view/ }).waitFor();
     await explanation.getByText(/Refraction near the horizon varies widely/).first().waitFor();
