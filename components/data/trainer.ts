@@ -101,6 +101,9 @@ export function useCreateDrill() {
   });
 }
 
+/** One drill as it stands (its result once answered). */
+export const getDrill = async (id: string) => (await api.get(`/v1/drills/${id}`, z.object({ drill: DrillSchema }))).drill;
+
 /** Sends one answer; the caller keeps it in the device's outbox when the network is out. */
 export const answerDrill = (drillId: string, value: number | boolean) =>
   api.post(`/v1/drills/${drillId}/answer`, { value }, DrillResultSchema);

@@ -1,9 +1,9 @@
 import { useState } from 'react';
 import { View } from 'react-native';
 import type { Drill, DrillResult } from '@/shared/schemas/drill';
-import { NetworkError } from '@/components/data/api-client';
+import { ApiRequestError, NetworkError } from '@/components/data/api-client';
 import { useLengthUnits } from '@/components/data/session';
-import { answerDrill, trainerKeys } from '@/components/data/trainer';
+import { answerDrill, getDrill, trainerKeys } from '@/components/data/trainer';
 import { deviceOutbox } from '@/components/offline/device-outbox';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -12,7 +12,7 @@ import { FormError, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { DrillSideView } from './side-view';
-import { DRILL_KIND_LABELS, scoreBand, sideViewRows, TRAINER_CAUTIONS } from './trainer-format';
+import { DRILL_KIND_LABELS, scoreBand, showAnswer, sideViewRows, TRAINER_CAUTIONS } from './trainer-format';
 
 export type DrillOutcome = { kind: 'scored'; result: DrillResult } | { kind: 'kept' };
 
@@ -81,6 +81,14 @@ export function DrillCard({
         const kept: DrillOutcome = { kind: 'kept' };
         setOutcome(kept);
         onAnswered?.(kept);
+      } else if (e instanceof ApiRequestError && e.code === 'already_answered') {
+        // Answered before (e.g. from this device's outbox): show what the server kept.
+        const stored = storedResult(await getDrill(drill.id).catch(() => drill));
+        if (stored) {
+          const done: DrillOutcome = { kind: 'scored', result: stored };
+          setOutcome(done);
+          onAnswered?.(done);
+        } else setError(e.message);
       } else setError(e instanceof Error ? e.message : String(e));
     } finally {
       setBusy(false);
@@ -155,12 +163,11 @@ export function DrillCard({
 
 function Explanation({ result, units }: { result: DrillResult; units: ReturnType<typeof useLengthUnits> }) {
   const band = scoreBand(result.score, result.explanation.scoring);
-  const shown = (v: number | boolean) => (typeof v === 'boolean' ? (v ? 'yes' : 'no') : `${v} ${result.unit}`);
   return (
     <View style={{ gap: space.md }} aria-label="Explanation">
       <Notice tone={band.band === 'none' ? 'danger' : 'info'} title={`Score ${Math.round(result.score * 100)} %`}>
         <AppText>{band.text}</AppText>
-        <AppText>Correct: {shown(result.correctValue)}.</AppText>
+        <AppText>Correct: {showAnswer(result.correctValue, result.unit)}.</AppText>
         <AppText variant="small" tone="muted">
           {result.explanation.scoring.why}
         </AppText>

@@ -50,6 +50,13 @@ export function scoreBand(score: number, scoring: DrillScoring): { band: 'full' 
   return { band: 'none', text: `No credit: more than ±${scoring.partialCreditWithinPct} % (and ±${scoring.partialCreditFloor}) off.` };
 }
 
+/** An answer or correct value as shown: yes/no, or the number to a sensible precision with its unit. */
+export function showAnswer(value: number | boolean, unit: string): string {
+  if (typeof value === 'boolean') return value ? 'yes' : 'no';
+  const digits = Math.abs(value) >= 100 ? 0 : Math.abs(value) >= 10 ? 1 : 2;
+  return `${value.toFixed(digits)} ${unit}`;
+}
+
 /** Words for the side view's numbers. */
 const SIDE_VIEW_LABELS: Record<string, string> = {
   eyeHeightM: 'Height of eye',

@@ -1,7 +1,7 @@
 import type { Qualification } from '@/shared/schemas/course';
 import { drillScoring } from '@/shared/trainer/score-drill-answer';
 import { CALIBRATION_DEFAULTS, toCalibrationInput } from '@/components/trainer/calibration-form-model';
-import { qualificationSummary, scoreBand, sideViewGeometry, sideViewRows } from '@/components/trainer/trainer-format';
+import { qualificationSummary, scoreBand, showAnswer, sideViewGeometry, sideViewRows } from '@/components/trainer/trainer-format';
 
 const person = { id: '00000000-0000-4000-8000-000000000001', name: 'Sami Rookwood' };
 const qual = (name: string, qualified: boolean, qualifiedUntil: string | null): Qualification => ({
@@ -92,5 +92,13 @@ describe('toCalibrationInput', () => {
       false,
     );
     expect('input' in full && full.input.weather).toEqual({ pressureHpa: 1013, temperatureC: 15, lapseRateKPerM: 0.0065 });
+  });
+});
+
+describe('showAnswer', () => {
+  test('a correct value is rounded for reading, a choice is yes or no', () => {
+    expect(showAnswer(17.78630829643269, 'km')).toBe('17.8 km');
+    expect(showAnswer(4.2345, 'm')).toBe('4.23 m');
+    expect(showAnswer(false, 'yes-no')).toBe('no');
   });
 });
