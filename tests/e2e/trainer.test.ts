@@ -65,20 +65,23 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     expect(course.assignees.map((a) => a.name)).toEqual(['Sami Rookwood']);
     courseId = course.id;
 
-    // Putting the observer on a watch before they pass warns (and keeps the watch).
+    // Putting someone on a watch who has not passed an assigned course warns (and keeps the watch): the demo's
+    // Bram Tolliver has not started the seeded course (the observer is on watch already, a second would overlap).
     const sites = await apiJson<{ items: SiteSummary[] }>(p, 'GET', '/sites');
     const forest = sites.items.find((s) => s.name === 'Harrowmere Forest District')!;
     await p.goto(`${e2eUrl()}/sites/${forest.id}`);
     const watchForm = p.getByLabel('Put someone on a post');
     await watchForm.getByRole('checkbox', { name: 'Blackmoss Tower' }).click();
-    await watchForm.getByRole('checkbox', { name: 'Sami Rookwood' }).click();
+    await watchForm.getByRole('checkbox', { name: 'Bram Tolliver' }).click();
     const start = new Date(Date.now() + 5 * 86_400_000).toISOString().slice(0, 10);
     await watchForm.getByLabel('From', { exact: true }).fill(`${start} 08:00`);
     await watchForm.getByLabel('To', { exact: true }).fill(`${start} 18:00`);
     await watchForm.getByRole('button', { name: 'Put on watch' }).click();
     const warning = watchForm.getByText('Put on watch, but not qualified');
     await warning.waitFor();
-    await watchForm.getByText(`Sami Rookwood has not passed “${COURSE}” yet. The watch is kept: a warning only, the decision is yours.`).waitFor();
+    await watchForm
+      .getByText('Bram Tolliver has not passed “Horizon and hidden height, season refresher” yet. The watch is kept: a warning only, the decision is yours.')
+      .waitFor();
     await warning.scrollIntoViewIfNeeded();
     await shot(p, 'trainer-assignment-warning', 'wide');
     expect(plannerErrors).toEqual([]);
