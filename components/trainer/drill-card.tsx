@@ -175,7 +175,7 @@ function Explanation({ result, units }: { result: DrillResult; units: ReturnType
       <AppText>{result.explanation.text}</AppText>
       <View style={{ gap: space.xs }}>
         <AppText variant="label">Formula with the values</AppText>
-        <AppText style={{ fontFamily: 'monospace' }} selectable>
+        <AppText variant="small" style={{ fontFamily: 'monospace' }} selectable>
           {result.explanation.formula}
         </AppText>
       </View>

@@ -119,6 +119,8 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     await explanation.getByText(/Refraction near the horizon varies widely/).first().waitFor();
     await explanation.getByText(/Visible is not detected/).waitFor();
     await shot(page, 'trainer-explanation', 'phone');
+    await page.getByRole('img', { name: /Side view/ }).scrollIntoViewIfNeeded();
+    await shot(page, 'trainer-side-view', 'phone');
     await page.getByRole('button', { name: 'Next question' }).click();
 
     await context.setOffline(true);
