@@ -56,7 +56,7 @@ export function DrillSideView({
         </View>
       ) : null}
       <AppText variant="small" tone="muted">
-        Heights are exaggerated; the red part of the target is hidden by the earth’s curve.
+        Heights are exaggerated{g?.target ? '; the red part of the target is hidden by the earth’s curve' : ''}.
       </AppText>
       <View style={{ gap: 2 }}>
         {rows.map((r) => (
