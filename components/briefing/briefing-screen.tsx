@@ -15,6 +15,7 @@ import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { DueTrainingCard } from '@/components/trainer/due-training-card';
 import { TerrainViewCard } from './terrain-view-card';
 import { CrewCardLinks } from '@/components/reports/crew-card-links';
 
@@ -35,6 +36,7 @@ export function BriefingScreen() {
       title="Your watch"
       subtitle="Your posts for the next two weeks and what the approved plans expect you to see from them."
     >
+      <DueTrainingCard />
       {assignments.length === 0 ? (
         <EmptyState
           title="No watches"

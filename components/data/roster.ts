@@ -38,6 +38,12 @@ function useRosterMutation<V, R>(mutationFn: (vars: V) => Promise<R>) {
 }
 
 export const useCreateAssignment = () =>
-  useRosterMutation((input: AssignmentInput) => api.post('/v1/assignments', input, z.object({ assignment: AssignmentSchema })));
+  useRosterMutation((input: AssignmentInput) => api.post(
+      '/v1/assignments',
+      input,
+      // `warnings`: courses the person is not qualified in (the watch is kept; see the trainer).
+      z.object({ assignment: AssignmentSchema, warnings: z.array(z.string()).default([]) }),
+    ),
+  );
 
 export const useDeleteAssignment = () => useRosterMutation((id: string) => api.delete(`/v1/assignments/${id}`));

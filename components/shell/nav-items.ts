@@ -11,6 +11,7 @@ import {
   SightlineIcon,
   SweepIcon,
   TowerIcon,
+  TrainingIcon,
   type IconProps,
 } from '@/components/ui/icons';
 
@@ -43,6 +44,7 @@ export const NAV_ITEMS: NavItem[] = [
     Icon: SweepIcon,
     roles: ['planner', 'reviewer', 'observer'],
   },
+  { href: '/training', match: '/training', label: 'Training', Icon: TrainingIcon, roles: ['planner', 'observer'] },
   { href: '/admin/users', match: '/admin/users', label: 'Users', Icon: PeopleIcon, roles: ['admin'] },
   { href: '/admin/mail', match: '/admin/mail', label: 'Mail', Icon: MailIcon, roles: ['admin'] },
   { href: '/account', match: '/account', label: 'Account', Icon: PersonIcon },

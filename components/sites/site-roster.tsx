@@ -2,11 +2,13 @@ import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Roster } from '@/shared/schemas/assignment';
 import { useDeleteAssignment, useSiteRoster } from '@/components/data/roster';
+import { useQualifications } from '@/components/data/trainer';
 import { useSession } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { qualificationSummary } from '@/components/trainer/trainer-format';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { colors, radius, space } from '@/components/ui/theme';
 import { showWatchTime, weekFrom } from './watch-time';
@@ -30,6 +32,7 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
   const [takingOff, setTakingOff] = useState<{ id: string; who: string; post: string; until: string } | null>(null);
   const { data: user } = useSession();
   const planner = user?.role === 'planner';
+  const qualifications = useQualifications();
 
   return (
     <Card style={{ gap: space.md }} aria-label="Watch roster">
@@ -93,11 +96,14 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
                 </View>
                 {p.assignments.map((a) => (
                   <View key={a.id} style={styles.line}>
-                    <AppText variant="small" style={{ flex: 1 }}>
-                      {a.person.name}: {showWatchTime(a.startsAt, timeZone)} →{' '}
-                      {a.endsAt ? showWatchTime(a.endsAt, timeZone) : 'until further notice'}
-                      {a.note ? ` · ${a.note}` : ''}
-                    </AppText>
+                    <View style={{ flex: 1 }}>
+                      <AppText variant="small">
+                        {a.person.name}: {showWatchTime(a.startsAt, timeZone)} →{' '}
+                        {a.endsAt ? showWatchTime(a.endsAt, timeZone) : 'until further notice'}
+                        {a.note ? ` · ${a.note}` : ''}
+                      </AppText>
+                      <QualificationLine summary={qualificationSummary(qualifications.data ?? [], a.person.id)} />
+                    </View>
                     {planner ? (
                       <Button
                         kind="quiet"
@@ -196,3 +202,14 @@ const styles = StyleSheet.create({
   },
   line: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
 });
+
+/** A person's training standing beside their watch (nothing when no course is assigned to them). */
+function QualificationLine({ summary }: { summary: ReturnType<typeof qualificationSummary> }) {
+  if (!summary) return null;
+  return (
+    <AppText variant="small" tone={summary.ok ? 'moss' : 'ember'}>
+      {summary.ok ? '✓ ' : '! '}
+      {summary.text}
+    </AppText>
+  );
+}

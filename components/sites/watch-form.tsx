@@ -10,7 +10,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Chip, ChipRow } from '@/components/ui/chip';
 import { FormTextField } from '@/components/ui/form-text-field';
-import { FormError } from '@/components/ui/states';
+import { FormError, Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
 import { parseWatchTime, WATCH_TIME_FORMAT } from './watch-time';
 
@@ -65,6 +65,7 @@ export function WatchForm({ posts, timeZone }: { posts: Roster['posts']; timeZon
   const people = usePeople(true);
   const create = useCreateAssignment();
   const [formError, setFormError] = useState('');
+  const [warnings, setWarnings] = useState<string[]>([]);
   const { control, handleSubmit, setError, reset, getValues } = useForm<WatchFormValues, unknown, AssignmentInput>({
     resolver: zodResolver(watchFormSchema(timeZone) as never) as never,
     defaultValues: EMPTY,
@@ -72,9 +73,13 @@ export function WatchForm({ posts, timeZone }: { posts: Roster['posts']; timeZon
 
   const save = handleSubmit((input) => {
     setFormError('');
+    setWarnings([]);
     create.mutate(input, {
       // The same post and person stay chosen for the next watch.
-      onSuccess: () => reset({ ...EMPTY, postId: getValues('postId'), userId: getValues('userId') }),
+      onSuccess: (answer) => {
+        setWarnings(answer.warnings);
+        reset({ ...EMPTY, postId: getValues('postId'), userId: getValues('userId') });
+      },
       onError: (e) => setFormError(applyServerErrors(e, setError, FIELDS)),
     });
   });
@@ -87,6 +92,13 @@ export function WatchForm({ posts, timeZone }: { posts: Roster['posts']; timeZon
     >
       <AppText variant="heading">Put someone on a post</AppText>
       <FormError message={formError} />
+      {warnings.length > 0 ? (
+        <Notice title="Put on watch, but not qualified">
+          {warnings.map((w) => (
+            <AppText key={w}>{w}</AppText>
+          ))}
+        </Notice>
+      ) : null}
       <Controller
         control={control}
         name="postId"

@@ -115,6 +115,18 @@ export function SweepIcon(p: IconProps) {
   );
 }
 
+/** Training: a sight line from an eye to a mark standing over the horizon arc. */
+export function TrainingIcon(p: IconProps) {
+  return (
+    <Frame {...p}>
+      <Path d="M2 19c6-3 14-3 20 0" />
+      <Circle cx="5" cy="9" r="2" />
+      <Line x1="7" y1="9" x2="19" y2="12" />
+      <Line x1="19" y1="7" x2="19" y2="16" />
+    </Frame>
+  );
+}
+
 /** Plans: a folded sheet with two sight lines crossing on it. */
 export function PlanIcon(p: IconProps) {
   return (

@@ -26,6 +26,7 @@ import { requestCoverage } from '@/server/domain/coverage/manage-coverage';
 import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
 import { createViewshedPool } from '@/server/workers/viewshed-pool';
 import { seedSweepWidthExamples } from './sweep-width-examples';
+import { seedDemoTraining } from './trainer-demo';
 
 /** The demo terrain (invented, see assets/terrain/README.md), attached to the forest district. */
 export const DEMO_TERRAIN_FILE = path.join(__dirname, '..', '..', 'assets', 'terrain', 'demo-forest-district.tif');
@@ -582,7 +583,8 @@ export async function seedDemo(db: Sequelize, options: { files?: FileStore } = {
   const terrain = options.files ? await seedDemoTerrain(db, options.files) : false;
   const plans = await seedDemoPlans(db, options.files);
   const watches = await seedDemoWatches(db);
-  return accounts || sites || libraries || sweepWidthTables || plans || watches || terrain;
+  const training = await seedDemoTraining(db, DEMO_ORGANIZATIONS[0].slug);
+  return accounts || sites || libraries || sweepWidthTables || plans || watches || terrain || training;
 }
 
 async function seedDemoAccounts(db: Sequelize): Promise<boolean> {

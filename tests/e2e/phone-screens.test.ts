@@ -111,8 +111,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       await signIn(page, DEMO.planner);
       await page.getByText('Your sites').first().waitFor();
       const nav = page.getByRole('navigation', { name: 'Main' });
-      // A planner has seven places: Sites, Quick check, Plans, Library, Incidents, Search effort, Account.
-      const places = ['Sites', 'Quick check', 'Plans', 'Library', 'Incidents', 'Search effort', 'Account'];
+      // A planner has eight places: Sites, Quick check, Plans, Library, Incidents, Search effort, Training, Account.
+      const places = ['Sites', 'Quick check', 'Plans', 'Library', 'Incidents', 'Search effort', 'Training', 'Account'];
       if (!phone) {
         for (const name of places) await nav.getByRole('link', { name }).waitFor();
         expect(await nav.getByRole('button', { name: 'More' }).count()).toBe(0);
@@ -137,7 +137,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       await more.click();
       const list = page.getByRole('navigation', { name: 'More places' });
       await list.waitFor();
-      expect(await list.getByRole('link').allTextContents()).toEqual(['Incidents', 'Search effort', 'Account']);
+      expect(await list.getByRole('link').allTextContents()).toEqual(['Incidents', 'Search effort', 'Training', 'Account']);
       expect(await navIsCovered(page)).toBe(true);
       await page.screenshot({ path: `${SCREENSHOT_DIR}/phone-bar-more-${viewport}.png` });
       await list.getByRole('link', { name: 'Search effort' }).click();
