@@ -38,7 +38,8 @@ function useRosterMutation<V, R>(mutationFn: (vars: V) => Promise<R>) {
 }
 
 export const useCreateAssignment = () =>
-  useRosterMutation((input: AssignmentInput) => api.post(
+  useRosterMutation((input: AssignmentInput) =>
+    api.post(
       '/v1/assignments',
       input,
       // `warnings`: courses the person is not qualified in (the watch is kept; see the trainer).

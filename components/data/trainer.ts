@@ -1,10 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import {
-  CalibrationListSchema,
-  CalibrationSchema,
-  type CalibrationInput,
-} from '@/shared/schemas/calibration';
+import { CalibrationListSchema, CalibrationSchema, type CalibrationInput } from '@/shared/schemas/calibration';
 import {
   CourseAttemptSchema,
   CourseResultsSchema,
@@ -56,7 +52,10 @@ export const qualificationsQuery = (userId?: string) =>
   });
 
 export const calibrationsQuery = () =>
-  queryOptions({ queryKey: trainerKeys.calibrations(), queryFn: () => api.get('/v1/calibrations?pageSize=20', CalibrationListSchema) });
+  queryOptions({
+    queryKey: trainerKeys.calibrations(),
+    queryFn: () => api.get('/v1/calibrations?pageSize=20', CalibrationListSchema),
+  });
 
 export const useCourses = () => useQuery(coursesQuery());
 export const useCourseResults = (id: string) => useQuery(courseResultsQuery(id));

@@ -34,7 +34,7 @@ const notKept = (query: Query) => query.meta?.keepOnDevice === false;
 
 export function persistOptions(): Omit<PersistQueryClientOptions, 'queryClient'> {
   return {
-    persister: { ...idbPersister(), restoreClient: () => restoreOnlyUnreachable(() => get<PersistedClient>(KEY, store())) },
+    persister: { ...idbPersister(), restoreClient: () => restoreOnlyUnreachable(readCopy) },
     maxAge: DEVICE_COPY_MAX_AGE_MS,
     buster: buildId(),
     dehydrateOptions: { shouldDehydrateQuery: (q) => defaultShouldDehydrateQuery(q) && !notKept(q) },
@@ -46,25 +46,44 @@ const WRITE_EVERY_MS = 1000;
 
 /**
  * The persister over IndexedDB that TanStack Query's documentation describes
- * ("building a persister" with idb-keyval): the dehydrated cache is stored as
- * it is (structured clone, no JSON), the last state of a burst written once.
+ * ("building a persister" with idb-keyval), the last state of a burst written once.
  */
 function idbPersister(): Persister {
   let pending: PersistedClient | null = null;
   let timer: ReturnType<typeof setTimeout> | null = null;
+  const write = () => {
+    if (timer) clearTimeout(timer);
+    timer = null;
+    const latest = pending;
+    pending = null;
+    // As JSON, like TanStack's storage persisters: anything a structured clone would refuse is simply left out.
+    if (latest) void set(KEY, JSON.stringify(latest), store()).catch(() => undefined);
+  };
+  // A phone closes apps without warning: what is waiting is written when the page is hidden.
+  if (typeof document !== 'undefined') {
+    document.addEventListener('visibilitychange', () => {
+      if (document.visibilityState === 'hidden') write();
+    });
+  }
   return {
     persistClient(client) {
       pending = client;
-      timer ??= setTimeout(() => {
-        timer = null;
-        const latest = pending;
-        pending = null;
-        if (latest) void set(KEY, latest, store()).catch(() => undefined);
-      }, WRITE_EVERY_MS);
+      timer ??= setTimeout(write, WRITE_EVERY_MS);
     },
-    restoreClient: () => get<PersistedClient>(KEY, store()),
+    restoreClient: readCopy,
     removeClient: () => del(KEY, store()),
   };
+}
+
+/** The device's copy, or undefined when there is none (or it cannot be read). */
+async function readCopy(): Promise<PersistedClient | undefined> {
+  const text = await get<string>(KEY, store());
+  if (typeof text !== 'string') return undefined;
+  try {
+    return JSON.parse(text) as PersistedClient;
+  } catch {
+    return undefined;
+  }
 }
 
 /** How long the start waits for the server before it opens the device's copy instead. */

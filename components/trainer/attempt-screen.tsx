@@ -31,7 +31,8 @@ export function AttemptScreen({ courseId, attemptId }: { courseId: string; attem
   const firstOpen = a.drills.findIndex((d) => d.result === null);
   const at = index ?? (firstOpen === -1 ? a.drills.length : firstOpen);
   const drill = a.drills[at];
-  const finished = verdict ?? (a.completedAt ? { id: a.id, completedAt: a.completedAt, scorePct: a.scorePct, passed: a.passed } : null);
+  const finished =
+    verdict ?? (a.completedAt ? { id: a.id, completedAt: a.completedAt, scorePct: a.scorePct, passed: a.passed } : null);
 
   const onAnswered = (o: DrillOutcome) => {
     if (o.kind === 'kept') setKept((n) => n + 1);

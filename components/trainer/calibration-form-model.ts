@@ -129,7 +129,12 @@ export function toCalibrationInput(
     const zenithAngle1Deg = num('zenithAngle1Deg', true);
     const zenithAngle2Deg = num('zenithAngle2Deg', true);
     const accuracyArcsec = num('accuracyArcsec', true);
-    if (distanceM !== undefined && zenithAngle1Deg !== undefined && zenithAngle2Deg !== undefined && accuracyArcsec !== undefined) {
+    if (
+      distanceM !== undefined &&
+      zenithAngle1Deg !== undefined &&
+      zenithAngle2Deg !== undefined &&
+      accuracyArcsec !== undefined
+    ) {
       input = { method: 'reciprocal', distanceM, zenithAngle1Deg, zenithAngle2Deg, accuracyArcsec, ...common };
     }
   } else {
@@ -142,7 +147,15 @@ export function toCalibrationInput(
       if (v.markVisible === 'read' && observedVisibleFromM !== undefined) {
         input = { method: 'mark', eyeHeightM, distanceM, markHeightM, observedVisibleFromM, accuracyM, ...common };
       } else if (v.markVisible !== 'read') {
-        input = { method: 'mark', eyeHeightM, distanceM, markHeightM, markVisible: v.markVisible === 'yes', accuracyM, ...common };
+        input = {
+          method: 'mark',
+          eyeHeightM,
+          distanceM,
+          markHeightM,
+          markVisible: v.markVisible === 'yes',
+          accuracyM,
+          ...common,
+        };
       }
     }
   }

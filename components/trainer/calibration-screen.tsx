@@ -51,7 +51,8 @@ export function CalibrationScreen() {
     clearErrors();
     const built = toCalibrationInput(values, units, false);
     if ('errors' in built) {
-      for (const [f, m] of Object.entries(built.errors)) setError(f as keyof CalibrationFormValues, { type: 'validate', message: m });
+      for (const [f, m] of Object.entries(built.errors))
+        setError(f as keyof CalibrationFormValues, { type: 'validate', message: m });
       return;
     }
     record.mutate(built.input, {
@@ -71,7 +72,13 @@ export function CalibrationScreen() {
       />
       {method === 'dip' ? (
         <>
-          <FormTextField control={control} name="eyeHeight" label="Height of eye above the sea" unit={units.height} inputMode="decimal" />
+          <FormTextField
+            control={control}
+            name="eyeHeight"
+            label="Height of eye above the sea"
+            unit={units.height}
+            inputMode="decimal"
+          />
           <FormTextField
             control={control}
             name="observedDipArcmin"
@@ -97,7 +104,13 @@ export function CalibrationScreen() {
       {method === 'mark' ? (
         <>
           <FormTextField control={control} name="eyeHeight" label="Height of eye" unit={units.height} inputMode="decimal" />
-          <FormTextField control={control} name="distance" label="Distance to the mark" unit={units.distance} inputMode="decimal" />
+          <FormTextField
+            control={control}
+            name="distance"
+            label="Distance to the mark"
+            unit={units.distance}
+            inputMode="decimal"
+          />
           <FormTextField control={control} name="markHeight" label="Height of the mark" unit={units.height} inputMode="decimal" />
           <Controller
             control={control}
@@ -194,7 +207,8 @@ function CalibrationResult({
         {c.kMax === null ? 'no upper limit' : fmtK(c.kMax)}
       </AppText>
       <AppText>
-        Effective earth radius: {c.effectiveRadiusM === null ? '— (none under a duct)' : showLength(c.effectiveRadiusM, units, true)}
+        Effective earth radius:{' '}
+        {c.effectiveRadiusM === null ? '— (none under a duct)' : showLength(c.effectiveRadiusM, units, true)}
       </AppText>
       {c.regime ? <AppText>Regime: {c.regime}</AppText> : null}
       <AppText>
@@ -247,7 +261,8 @@ function RecentCalibrations({ planner }: { planner: boolean }) {
   const list = useCalibrations();
   if (list.isPending) return <LoadingState label="Loading the sightings…" />;
   if (list.isError) return <ErrorState error={list.error} onRetry={() => void list.refetch()} />;
-  if (list.data.items.length === 0) return <EmptyState title="No sightings yet" body="Solved sightings of your organisation show here." />;
+  if (list.data.items.length === 0)
+    return <EmptyState title="No sightings yet" body="Solved sightings of your organisation show here." />;
   return (
     <Card aria-label="Recent sightings" style={{ gap: space.sm }}>
       <AppText variant="heading">Recent sightings</AppText>

@@ -77,7 +77,9 @@ export function CourseComposer() {
     }
     create.mutate(parsed.data, {
       onSuccess: ({ course }) => {
-        setSaved(`“${course.name}” is set for ${course.assignees.length} ${course.assignees.length === 1 ? 'person' : 'people'}.`);
+        setSaved(
+          `“${course.name}” is set for ${course.assignees.length} ${course.assignees.length === 1 ? 'person' : 'people'}.`,
+        );
         reset(EMPTY);
       },
       onError: (e) => setFormError(applyServerErrors(e, setError, FIELDS)),
@@ -206,7 +208,12 @@ export function CourseResultsCard({ course }: { course: Course }) {
           .map((p) => {
             const on = more.includes(p.id);
             return (
-              <Chip key={p.id} label={p.name} on={on} onPress={() => setMore(on ? more.filter((x) => x !== p.id) : [...more, p.id])} />
+              <Chip
+                key={p.id}
+                label={p.name}
+                on={on}
+                onPress={() => setMore(on ? more.filter((x) => x !== p.id) : [...more, p.id])}
+              />
             );
           })}
       </ChipRow>

@@ -73,7 +73,11 @@ export function DrillCard({
       if (e instanceof NetworkError) {
         await deviceOutbox.add({
           key: `drill-answer:${drill.id}`,
-          label: `Answer ${position ?? ''} (${DRILL_KIND_LABELS[drill.kind]}): ${String(value)}${yesNo ? '' : ` ${q.unit}`}`.replace('  ', ' '),
+          label:
+            `Answer ${position ?? ''} (${DRILL_KIND_LABELS[drill.kind]}): ${String(value)}${yesNo ? '' : ` ${q.unit}`}`.replace(
+              '  ',
+              ' ',
+            ),
           path: `/v1/drills/${drill.id}/answer`,
           body: { value },
           refresh: [trainerKeys.all, ...refreshKeys],

@@ -22,7 +22,12 @@ export function DueTrainingCard() {
           {q.qualifiedUntil ? ` · ran out on ${q.qualifiedUntil.slice(0, 10)}` : ' · not passed yet'}
         </AppText>
       ))}
-      <Button kind="secondary" label="Open training" onPress={() => router.push('/training')} style={{ alignSelf: 'flex-start' }} />
+      <Button
+        kind="secondary"
+        label="Open training"
+        onPress={() => router.push('/training')}
+        style={{ alignSelf: 'flex-start' }}
+      />
     </Card>
   );
 }

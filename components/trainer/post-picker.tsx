@@ -34,9 +34,7 @@ export function PostPicker({
               key={p.id}
               label={p.name}
               on={on}
-              onPress={() =>
-                onChange(on ? value.filter((id) => id !== p.id) : multiple ? [...value, p.id] : [p.id])
-              }
+              onPress={() => onChange(on ? value.filter((id) => id !== p.id) : multiple ? [...value, p.id] : [p.id])}
             />
           );
         })}

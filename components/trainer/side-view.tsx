@@ -27,7 +27,15 @@ export function DrillSideView({
             <Polyline points={g.surface} fill="none" stroke={colors.moss} strokeWidth={2} />
             <Line x1={g.eye.x} y1={g.eye.baseY} x2={g.eye.x} y2={g.eye.y} stroke={colors.ink} strokeWidth={3} />
             <Circle cx={g.eye.x} cy={g.eye.y} r={3.5} fill={colors.ember} />
-            <Line x1={g.eye.x} y1={g.eye.y} x2={g.ray.x2} y2={g.ray.y2} stroke={colors.ember} strokeWidth={1} strokeDasharray="4 3" />
+            <Line
+              x1={g.eye.x}
+              y1={g.eye.y}
+              x2={g.ray.x2}
+              y2={g.ray.y2}
+              stroke={colors.ember}
+              strokeWidth={1}
+              strokeDasharray="4 3"
+            />
             {g.horizonX !== null ? (
               <SvgText x={g.horizonX} y={H - 4} fontSize={10} fill={colors.muted} textAnchor="middle">
                 horizon
@@ -35,7 +43,14 @@ export function DrillSideView({
             ) : null}
             {g.target ? (
               <>
-                <Line x1={g.target.x} y1={g.target.baseY} x2={g.target.x} y2={g.target.topY} stroke={colors.ink} strokeWidth={4} />
+                <Line
+                  x1={g.target.x}
+                  y1={g.target.baseY}
+                  x2={g.target.x}
+                  y2={g.target.topY}
+                  stroke={colors.ink}
+                  strokeWidth={4}
+                />
                 <Line
                   x1={g.target.x}
                   y1={g.target.baseY}

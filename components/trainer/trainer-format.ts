@@ -39,7 +39,10 @@ export function qualificationSummary(items: readonly Qualification[], userId: st
 /** Which band a score fell in, and what that band means (from the drill's stated scoring). */
 export function scoreBand(score: number, scoring: DrillScoring): { band: 'full' | 'partial' | 'none'; text: string } {
   if (score >= 1) {
-    return { band: 'full', text: `Full credit: within ±${scoring.fullCreditWithinPct} % (or ±${scoring.fullCreditFloor}) of the value.` };
+    return {
+      band: 'full',
+      text: `Full credit: within ±${scoring.fullCreditWithinPct} % (or ±${scoring.fullCreditFloor}) of the value.`,
+    };
   }
   if (score > 0) {
     return {
@@ -47,7 +50,10 @@ export function scoreBand(score: number, scoring: DrillScoring): { band: 'full' 
       text: `Partial credit (${scoring.partialCredit}): within ±${scoring.partialCreditWithinPct} % (or ±${scoring.partialCreditFloor}), but not within ±${scoring.fullCreditWithinPct} %.`,
     };
   }
-  return { band: 'none', text: `No credit: more than ±${scoring.partialCreditWithinPct} % (and ±${scoring.partialCreditFloor}) off.` };
+  return {
+    band: 'none',
+    text: `No credit: more than ±${scoring.partialCreditWithinPct} % (and ±${scoring.partialCreditFloor}) off.`,
+  };
 }
 
 /** An answer or correct value as shown: yes/no, or the number to a sensible precision with its unit. */
@@ -168,7 +174,8 @@ export function sideViewGeometry(
           hiddenTopY: y(-drop(dist) + Math.min(Math.max(hidden ?? 0, 0), targetH)),
         }
       : null;
-  const rayEnd = horizon !== null ? { x2: x(span), y2: y(eyeH + ((-drop(horizon) - eyeH) / horizon) * span) } : { x2: x(span), y2: y(eyeH) };
+  const rayEnd =
+    horizon !== null ? { x2: x(span), y2: y(eyeH + ((-drop(horizon) - eyeH) / horizon) * span) } : { x2: x(span), y2: y(eyeH) };
   return {
     surface: points.join(' '),
     eye: { x: x(0), y: y(eyeH), baseY: y(0) },

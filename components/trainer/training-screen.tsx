@@ -78,7 +78,12 @@ function DueCourses({ userId, quietWhenNone }: { userId: string; quietWhenNone: 
   const mine = courses.data.filter((c) => c.assignees.some((a) => a.id === userId));
   if (mine.length === 0) {
     if (quietWhenNone) return null;
-    return <EmptyState title="No course assigned to you" body="When a planner assigns you a course it shows here. Practise below meanwhile." />;
+    return (
+      <EmptyState
+        title="No course assigned to you"
+        body="When a planner assigns you a course it shows here. Practise below meanwhile."
+      />
+    );
   }
   return (
     <Card aria-label="Your courses" style={{ gap: space.md }}>
@@ -131,10 +136,7 @@ function Practice() {
   const newDrill = () => {
     setError('');
     setDrill(null);
-    create.mutate(
-      { kind, postId: postIds[0], units },
-      { onSuccess: (d) => setDrill(d), onError: (e) => setError(e.message) },
-    );
+    create.mutate({ kind, postId: postIds[0], units }, { onSuccess: (d) => setDrill(d), onError: (e) => setError(e.message) });
   };
   return (
     <Card aria-label="Practice" style={{ gap: space.md }}>
@@ -160,7 +162,8 @@ function PlannerCourses() {
   const [open, setOpen] = useState<string | null>(null);
   if (courses.isPending) return <LoadingState label="Loading the courses…" />;
   if (courses.isError) return <ErrorState error={courses.error} onRetry={() => void courses.refetch()} />;
-  if (courses.data.length === 0) return <EmptyState title="No courses yet" body="Compose one above and assign it to your crews." />;
+  if (courses.data.length === 0)
+    return <EmptyState title="No courses yet" body="Compose one above and assign it to your crews." />;
   return (
     <Card aria-label="Courses" style={{ gap: space.md }}>
       <AppText variant="heading">Courses and results</AppText>

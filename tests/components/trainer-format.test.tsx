@@ -20,7 +20,10 @@ describe('qualificationSummary (the roster line)', () => {
     expect(s).toEqual({ text: 'not qualified: Bb', ok: false });
   });
   test('all passed: the earliest expiry', () => {
-    const s = qualificationSummary([qual('A', true, '2027-03-01T00:00:00Z'), qual('Bb', true, '2027-01-15T00:00:00Z')], person.id);
+    const s = qualificationSummary(
+      [qual('A', true, '2027-03-01T00:00:00Z'), qual('Bb', true, '2027-01-15T00:00:00Z')],
+      person.id,
+    );
     expect(s).toEqual({ text: 'qualified until 2027-01-15', ok: true });
   });
   test('nobody assigned: nothing', () => {
@@ -45,14 +48,24 @@ describe('scoreBand', () => {
 
 describe('sideViewRows', () => {
   test('lengths in the person’s units: heights in ft, distances in nmi (1 nmi = 1852 m exactly, by definition)', () => {
-    const rows = sideViewRows({ eyeHeightM: 30.48, horizonDistanceM: 18_520, k: 0.13, visible: true }, { height: 'ft', distance: 'nmi' });
+    const rows = sideViewRows(
+      { eyeHeightM: 30.48, horizonDistanceM: 18_520, k: 0.13, visible: true },
+      { height: 'ft', distance: 'nmi' },
+    );
     expect(rows.map((r) => r.text)).toEqual(['100 ft', '10.0 nmi', '0.130', 'yes']);
   });
 });
 
 describe('sideViewGeometry', () => {
   test('the surface drops away from the eye and the horizon lies between the eye and the target', () => {
-    const g = sideViewGeometry({ eyeHeightM: 30, effectiveRadiusM: 7_323_000, horizonDistanceM: 20_900, distanceM: 30_000, targetHeightM: 40, hiddenHeightM: 8.7 })!;
+    const g = sideViewGeometry({
+      eyeHeightM: 30,
+      effectiveRadiusM: 7_323_000,
+      horizonDistanceM: 20_900,
+      distanceM: 30_000,
+      targetHeightM: 40,
+      hiddenHeightM: 8.7,
+    })!;
     const ys = g.surface.split(' ').map((p) => Number(p.split(',')[1]));
     expect(ys[ys.length - 1]!).toBeGreaterThan(ys[0]!); // lower on screen further out
     expect(g.horizonX!).toBeGreaterThan(g.eye.x);
@@ -73,10 +86,19 @@ describe('toCalibrationInput', () => {
       { height: 'ft', distance: 'nmi' },
       false,
     );
-    expect('input' in out && out.input).toMatchObject({ method: 'dip', eyeHeightM: 30.48, observedDipArcmin: 9.5, accuracyArcmin: 0.5 });
+    expect('input' in out && out.input).toMatchObject({
+      method: 'dip',
+      eyeHeightM: 30.48,
+      observedDipArcmin: 9.5,
+      accuracyArcmin: 0.5,
+    });
   });
   test('a missing or wrong number names its field and sends nothing', () => {
-    const out = toCalibrationInput({ ...CALIBRATION_DEFAULTS, method: 'reciprocal', distance: 'abc' }, { height: 'm', distance: 'km' }, false);
+    const out = toCalibrationInput(
+      { ...CALIBRATION_DEFAULTS, method: 'reciprocal', distance: 'abc' },
+      { height: 'm', distance: 'km' },
+      false,
+    );
     expect(out).toEqual({ errors: { distance: 'Type a number.', zenithAngle1Deg: 'Required.', zenithAngle2Deg: 'Required.' } });
   });
   test('weather is all three readings or none; the lapse rate is typed per km and sent per m', () => {
@@ -87,7 +109,14 @@ describe('toCalibrationInput', () => {
     );
     expect('errors' in partial && Object.keys(partial.errors).sort()).toEqual(['lapseRateKPerKm', 'temperatureC']);
     const full = toCalibrationInput(
-      { ...CALIBRATION_DEFAULTS, eyeHeight: '20', observedDipArcmin: '8', pressureHpa: '1013', temperatureC: '15', lapseRateKPerKm: '6.5' },
+      {
+        ...CALIBRATION_DEFAULTS,
+        eyeHeight: '20',
+        observedDipArcmin: '8',
+        pressureHpa: '1013',
+        temperatureC: '15',
+        lapseRateKPerKm: '6.5',
+      },
       { height: 'm', distance: 'km' },
       false,
     );

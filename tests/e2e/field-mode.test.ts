@@ -39,7 +39,7 @@ const deviceCopyKept = (page: Page) =>
           const db = open.result;
           if (!db.objectStoreNames.contains('cache')) return resolve(false);
           const get = db.transaction('cache').objectStore('cache').get('queries');
-          get.onsuccess = () => resolve(get.result != null && typeof get.result === 'object');
+          get.onsuccess = () => resolve(typeof get.result === 'string' && get.result.includes('briefing'));
           get.onerror = () => resolve(false);
         };
       }),

@@ -80,7 +80,9 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     const warning = watchForm.getByText('Put on watch, but not qualified');
     await warning.waitFor();
     await watchForm
-      .getByText('Bram Tolliver has not passed “Horizon and hidden height, season refresher” yet. The watch is kept: a warning only, the decision is yours.')
+      .getByText(
+        'Bram Tolliver has not passed “Horizon and hidden height, season refresher” yet. The watch is kept: a warning only, the decision is yours.',
+      )
       .waitFor();
     await warning.scrollIntoViewIfNeeded();
     await shot(p, 'trainer-assignment-warning', 'wide');
@@ -104,7 +106,8 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     await mine.getByRole('button', { name: 'Start the course' }).click();
     await page.waitForURL(/\/training\/attempt\?/);
     const attemptId = new URL(page.url()).searchParams.get('attemptId')!;
-    const attempt = (await apiJson<{ attempt: CourseAttempt }>(page, 'GET', `/courses/${courseId}/attempts/${attemptId}`)).attempt;
+    const attempt = (await apiJson<{ attempt: CourseAttempt }>(page, 'GET', `/courses/${courseId}/attempts/${attemptId}`))
+      .attempt;
     expect(attempt.drills).toHaveLength(3);
     const [q1, q2, q3] = attempt.drills as [Drill, Drill, Drill];
 
@@ -116,7 +119,10 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     await explanation.getByText(/^Full credit: within/).waitFor();
     await explanation.getByText('Formula with the values').waitFor();
     await page.getByRole('img', { name: /Side view/ }).waitFor();
-    await explanation.getByText(/Refraction near the horizon varies widely/).first().waitFor();
+    await explanation
+      .getByText(/Refraction near the horizon varies widely/)
+      .first()
+      .waitFor();
     await explanation.getByText(/Visible is not detected/).waitFor();
     await shot(page, 'trainer-explanation', 'phone');
     await page.getByRole('img', { name: /Side view/ }).scrollIntoViewIfNeeded();
@@ -126,7 +132,10 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     await context.setOffline(true);
     await answer(page, q2);
     await page.getByText('Answer kept on this device').waitFor();
-    await page.getByLabel('Outbox').getByText(/Waiting to be sent/).waitFor();
+    await page
+      .getByLabel('Outbox')
+      .getByText(/Waiting to be sent/)
+      .waitFor();
     await shot(page, 'trainer-offline-answer', 'phone');
     await page.getByRole('button', { name: 'Next question' }).click();
     await page.getByText('Question 3 of 3').waitFor();
@@ -168,9 +177,18 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     const forest = sites.items.find((s) => s.name === 'Harrowmere Forest District')!;
     await p.goto(`${e2eUrl()}/sites/${forest.id}`);
     const roster = p.getByLabel('Watch roster');
-    await roster.getByText(/^Sami Rookwood:/).first().waitFor();
-    await roster.getByText(/✓ qualified until \d{4}-\d{2}-\d{2}/).first().waitFor();
-    await roster.getByText(/✓ qualified until/).first().scrollIntoViewIfNeeded();
+    await roster
+      .getByText(/^Sami Rookwood:/)
+      .first()
+      .waitFor();
+    await roster
+      .getByText(/✓ qualified until \d{4}-\d{2}-\d{2}/)
+      .first()
+      .waitFor();
+    await roster
+      .getByText(/✓ qualified until/)
+      .first()
+      .scrollIntoViewIfNeeded();
     await shot(p, 'trainer-roster', 'wide');
 
     await p.goto(`${e2eUrl()}/training/calibration`);
