@@ -92,6 +92,8 @@ function ensureDebianPackages() {
   if (mode === 'test') {
     if (!existsSync('/usr/bin/chromium')) wanted.push('chromium');
     if (!commandExists('gdal_viewshed')) wanted.push('gdal-bin');
+    // The printed reports are read back with pdftotext and rendered with pdftoppm in the tests.
+    if (!commandExists('pdftotext')) wanted.push('poppler-utils');
   }
   if (wanted.length === 0) return;
   if (!isRoot)
