@@ -73,7 +73,8 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     const watchForm = p.getByLabel('Put someone on a post');
     await watchForm.getByRole('checkbox', { name: 'Blackmoss Tower' }).click();
     await watchForm.getByRole('checkbox', { name: 'Bram Tolliver' }).click();
-    const start = new Date(Date.now() + 5 * 86_400_000).toISOString().slice(0, 10);
+    // Ten days ahead: clear of the demo's watches and of the days other browser tests put Bram Tolliver on (5 and 6).
+    const start = new Date(Date.now() + 10 * 86_400_000).toISOString().slice(0, 10);
     await watchForm.getByLabel('From', { exact: true }).fill(`${start} 08:00`);
     await watchForm.getByLabel('To', { exact: true }).fill(`${start} 18:00`);
     await watchForm.getByRole('button', { name: 'Put on watch' }).click();
