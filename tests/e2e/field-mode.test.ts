@@ -56,12 +56,17 @@ it('starts with no network on a phone: the briefing from the device’s copy, ma
     await shellKept(page);
     await expectEventually(() => deviceCopyKept(page));
 
-    // The network goes; the app is started again from cold (a new tab, nothing in memory).
+    // The network goes; the app is started again from cold (a new tab, nothing of the app in memory). The first
+    // tab closes only after the new one has loaded: it keeps the worker running, so how fast a loaded machine
+    // starts a stopped worker does not decide the test.
+    await page.evaluate(async () => {
+      await navigator.serviceWorker.ready;
+    });
     await context.setOffline(true);
-    await page.close();
     const cold = await context.newPage();
     const coldErrors = watchErrors(cold);
     await cold.goto(`${e2eUrl()}/briefing`);
+    await page.close();
     await cold.getByRole('status', { name: 'Offline' }).waitFor();
     await cold.getByText(/^Offline · showing what this device kept, last updated/).waitFor();
     await cold.getByText('What you see from here, over the terrain').first().waitFor();
