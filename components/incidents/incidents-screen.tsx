@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { Pressable, View } from 'react-native';
 import { IncidentCreateSchema, type Incident, type IncidentCreate, type IncidentStatus } from '@/shared/schemas/incident';
 import { useIncidents, useOpenIncident } from '@/components/data/incidents';
@@ -13,6 +13,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Chip, ChipRow } from '@/components/ui/chip';
+import { FormChipChoice } from '@/components/ui/form-chip-choice';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, FormError, LoadingState } from '@/components/ui/states';
@@ -138,24 +139,7 @@ function OpenIncidentForm({ siteChoices, onCancel }: { siteChoices: { id: string
   return (
     <Card style={{ gap: space.md }} aria-label="Open an incident">
       <AppText variant="heading">Open an incident</AppText>
-      <Controller
-        control={control}
-        name="siteId"
-        render={({ field, fieldState }) => (
-          <View style={{ gap: space.xs }}>
-            <ChipRow label="Site">
-              {siteChoices.map((s) => (
-                <Chip key={s.id} label={s.name} on={field.value === s.id} onPress={() => field.onChange(s.id)} />
-              ))}
-            </ChipRow>
-            {fieldState.error ? (
-              <AppText variant="small" tone="danger" role="alert">
-                {fieldState.error.message}
-              </AppText>
-            ) : null}
-          </View>
-        )}
-      />
+      <FormChipChoice control={control} name="siteId" label="Site" options={siteChoices} />
       <FormTextField
         control={control}
         name="title"

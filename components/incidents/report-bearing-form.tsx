@@ -19,6 +19,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Chip, ChipRow } from '@/components/ui/chip';
+import { FormChipChoice } from '@/components/ui/form-chip-choice';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
@@ -222,24 +223,7 @@ export function ReportBearingForm({
   return (
     <Card style={{ gap: space.md }} aria-label="Report a bearing">
       <AppText variant="heading">Report a bearing</AppText>
-      <Controller
-        control={control}
-        name="postId"
-        render={({ field, fieldState }) => (
-          <View style={{ gap: space.xs }}>
-            <ChipRow label="From the post">
-              {posts.map((p) => (
-                <Chip key={p.id} label={p.name} on={field.value === p.id} onPress={() => field.onChange(p.id)} />
-              ))}
-            </ChipRow>
-            {fieldState.error ? (
-              <AppText variant="small" tone="danger" role="alert">
-                {fieldState.error.message}
-              </AppText>
-            ) : null}
-          </View>
-        )}
-      />
+      <FormChipChoice control={control} name="postId" label="From the post" options={posts} />
       <FormTextField
         control={control}
         name="bearingDeg"
