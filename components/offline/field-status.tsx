@@ -1,5 +1,5 @@
 import { onlineManager, useQueryClient } from '@tanstack/react-query';
-import { useEffect, useState, useSyncExternalStore } from 'react';
+import { useCallback, useEffect, useState, useSyncExternalStore } from 'react';
 import { Platform, StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -37,26 +37,31 @@ export function useOutboxItems(): OutboxItem[] {
   return items;
 }
 
+/** Sends what waits in the outbox and refreshes what each delivered item changed (the runner and "Send now" alike). */
+function useSendOutbox(): () => Promise<void> {
+  const qc = useQueryClient();
+  return useCallback(async () => {
+    const delivered = await deviceOutbox.flush();
+    for (const item of delivered) for (const key of item.refresh) void qc.invalidateQueries({ queryKey: [...key] });
+  }, [qc]);
+}
+
 /**
  * Sends what waits in the outbox: at start, when the network returns, and
  * every {@link RETRY_MS} while something waits; refreshes what a delivered
  * item changed (an incident's fix, a course's results).
  */
 export function OutboxRunner() {
-  const qc = useQueryClient();
+  const sendWaiting = useSendOutbox();
   const online = useOnline();
   const waiting = useOutboxItems().filter((i) => i.state === 'waiting').length;
   useEffect(() => {
     if (!online) return;
-    const send = () =>
-      void deviceOutbox.flush().then((delivered) => {
-        for (const item of delivered) for (const key of item.refresh) void qc.invalidateQueries({ queryKey: [...key] });
-      });
-    send();
+    void sendWaiting();
     if (waiting === 0) return;
-    const timer = setInterval(send, RETRY_MS);
+    const timer = setInterval(() => void sendWaiting(), RETRY_MS);
     return () => clearInterval(timer);
-  }, [online, waiting, qc]);
+  }, [online, waiting, sendWaiting]);
   return null;
 }
 
@@ -127,6 +132,7 @@ const STATE_TEXT: Record<OutboxItem['state'], string> = {
 export function OutboxList({ title = 'Sent from this device' }: { title?: string }) {
   const items = useOutboxItems();
   const online = useOnline();
+  const sendWaiting = useSendOutbox();
   const [busy, setBusy] = useState(false);
   if (items.length === 0) return null;
   const waiting = items.some((i) => i.state === 'waiting');
@@ -153,7 +159,7 @@ export function OutboxList({ title = 'Sent from this device' }: { title?: string
           busy={busy}
           onPress={() => {
             setBusy(true);
-            void deviceOutbox.flush().finally(() => setBusy(false));
+            void sendWaiting().finally(() => setBusy(false));
           }}
           style={{ alignSelf: 'flex-start' }}
         />
