@@ -26,6 +26,47 @@ module.exports = tseslint.config(
     },
   },
   {
+    // The first bundle (routes, the shell, sign-in, the home, the session and the API client) leaves zod
+    // and the schemas to the deferred chunk: they reach it through `lazySchema` (issue 12's first-load budget).
+    files: [
+      'app/**',
+      'components/shell/*.tsx',
+      'components/auth/sign-in-form.tsx',
+      'components/auth/auth-frame.tsx',
+      'components/home/**',
+      'components/data/{api-client,session,sites,deferred-chunk,route-params,first-landing,query-client,server-errors}.ts',
+      'components/offline/persisted-cache.ts',
+      'components/plans/use-plan-id.ts',
+    ],
+    rules: {
+      'no-restricted-imports': 'off',
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            {
+              name: 'zod',
+              allowTypeImports: true,
+              message: 'Not in the first bundle: use lazySchema (components/data/api-client).',
+            },
+            {
+              name: '@hookform/resolvers/zod',
+              message: 'Not in the first bundle: resolve with a schema from the deferred chunk.',
+            },
+          ],
+          patterns: [
+            { group: ['../../*'], message: 'Use the @/ alias.' },
+            {
+              group: ['@/shared/schemas/*', '!@/shared/schemas/site-kinds', '!@/shared/schemas/audit-entity-types'],
+              allowTypeImports: true,
+              message: 'Schemas (zod) are not in the first bundle: import types only, or use lazySchema.',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     files: ['**/*.js', '**/*.mjs'],
     rules: { '@typescript-eslint/no-var-requires': 'off' },
   },

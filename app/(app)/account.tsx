@@ -1,5 +1,7 @@
-import { AccountPanel } from '@/components/auth/account-panel';
+import { deferredScreen } from '@/components/shell/deferred-screen';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+
+const AccountPanel = deferredScreen('AccountPanel');
 
 function AccountScreenContent() {
   return <AccountPanel />;

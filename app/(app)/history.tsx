@@ -1,17 +1,17 @@
 import { useLocalSearchParams } from 'expo-router';
-import { z } from 'zod';
-import { AUDIT_ENTITY_TYPES } from '@/shared/schemas/audit';
+import { isAuditEntityType } from '@/shared/schemas/audit-entity-types';
+import { readIdParams } from '@/components/data/route-params';
 import { deferredScreen } from '@/components/shell/deferred-screen';
 import { BadAddress } from '@/components/ui/bad-address';
 
 const HistoryScreen = deferredScreen('HistoryScreen');
 
-const Params = z.object({ entityType: z.enum(AUDIT_ENTITY_TYPES).optional(), entityId: z.uuid().optional() });
-
 export default function HistoryRoute() {
-  const parsed = Params.safeParse(useLocalSearchParams());
-  if (!parsed.success) {
+  const params = useLocalSearchParams();
+  const ids = readIdParams(params, [], ['entityId']);
+  const { entityType } = params;
+  if (!ids || (entityType !== undefined && !isAuditEntityType(entityType))) {
     return <BadAddress title="History" what="a record" />;
   }
-  return <HistoryScreen entityType={parsed.data.entityType} entityId={parsed.data.entityId} />;
+  return <HistoryScreen entityType={entityType} entityId={ids.entityId} />;
 }

@@ -1,7 +1,9 @@
 import { useLocalSearchParams } from 'expo-router';
 import { AuthFrame } from '@/components/auth/auth-frame';
-import { SetPasswordForm } from '@/components/auth/set-password-form';
+import { deferredScreen } from '@/components/shell/deferred-screen';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
+
+const SetPasswordForm = deferredScreen('SetPasswordForm');
 
 function SetPasswordScreenContent() {
   const { token } = useLocalSearchParams<{ token?: string }>();

@@ -1,11 +1,14 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { MeResponseSchema, type MeUpdate, type SignInRequest, type User } from '@/shared/schemas/auth';
+import type { MeUpdate, SignInRequest, User } from '@/shared/schemas/auth';
 import type { LengthUnit } from '@/shared/units/length';
 import { UNIT_SYSTEMS, unitSystemFor, type UnitSystem } from '@/shared/units/unit-systems';
 import { forgetDeviceCopies } from '@/components/offline/persisted-cache';
 import { resetLanding } from './first-landing';
-import { api, ApiRequestError, NetworkError } from './api-client';
+import { api, ApiRequestError, lazySchema, NetworkError } from './api-client';
+import { loadDeferredChunk } from './deferred-chunk';
 import { STALE } from './query-client';
+
+const MeResponseSchema = lazySchema(() => loadDeferredChunk().then((m) => m.firstScreenSchemas.MeResponseSchema));
 
 export const sessionKeys = {
   all: ['session'] as const,

@@ -1,16 +1,14 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import {
-  PostListSchema,
-  PostSchema,
-  SiteListSchema,
-  SiteSchema,
-  type Post,
-  type PostInput,
-  type Site,
-  type SiteInput,
-} from '@/shared/schemas/site';
-import { api, ApiRequestError } from './api-client';
+import type { Post, PostInput, Site, SiteInput } from '@/shared/schemas/site';
+import { api, ApiRequestError, lazySchema } from './api-client';
+import { loadDeferredChunk } from './deferred-chunk';
+
+// The site list is the signed-in home's first question: its schemas come with the deferred chunk.
+const schemas = () => loadDeferredChunk().then((m) => m.firstScreenSchemas);
+const SiteListSchema = lazySchema(() => schemas().then((m) => m.SiteListSchema));
+const PostListSchema = lazySchema(() => schemas().then((m) => m.PostListSchema));
+const SiteBody = lazySchema(() => schemas().then((m) => m.SiteBodySchema));
+const PostBody = lazySchema(() => schemas().then((m) => m.PostBodySchema));
 
 export const siteKeys = {
   all: ['sites'] as const,
@@ -40,7 +38,7 @@ export const sitesQuery = (page = 1) =>
 export const siteQuery = (id: string) =>
   queryOptions({
     queryKey: siteKeys.detail(id),
-    queryFn: async () => (await api.get(`/v1/sites/${id}`, z.object({ site: SiteSchema }))).site,
+    queryFn: async () => (await api.get(`/v1/sites/${id}`, SiteBody)).site,
   });
 
 export const sitePostsQuery = (id: string) =>
@@ -79,7 +77,7 @@ export function usePost(siteId: string, postId: string) {
     queryKey: siteKeys.post(siteId, postId),
     queryFn: async (): Promise<Post | null> => {
       try {
-        return (await api.get(`/v1/sites/${siteId}/posts/${postId}`, z.object({ post: PostSchema }))).post;
+        return (await api.get(`/v1/sites/${siteId}/posts/${postId}`, PostBody)).post;
       } catch (e) {
         if (e instanceof ApiRequestError && e.status === 404) return null;
         throw e;
@@ -91,7 +89,7 @@ export function usePost(siteId: string, postId: string) {
 export function useCreatePost(siteId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: PostInput) => api.post(`/v1/sites/${siteId}/posts`, input, z.object({ post: PostSchema })),
+    mutationFn: (input: PostInput) => api.post(`/v1/sites/${siteId}/posts`, input, PostBody),
     onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.all }),
   });
 }
@@ -101,12 +99,10 @@ export function useUpdatePost(siteId: string, postId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: async (input: Partial<PostInput> & { version: number }) =>
-      (await api.patch(`/v1/sites/${siteId}/posts/${postId}`, input, z.object({ post: PostSchema }))).post,
+      (await api.patch(`/v1/sites/${siteId}/posts/${postId}`, input, PostBody)).post,
     onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.detail(siteId) }),
   });
 }
-
-const SiteBody = z.object({ site: SiteSchema });
 
 /** Creates a site (planners); the lists refresh. */
 export function useCreateSite() {

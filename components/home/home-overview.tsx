@@ -1,6 +1,6 @@
 import { useRouter } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
-import { SITE_KIND_LABELS } from '@/shared/schemas/site';
+import { SITE_KIND_LABELS } from '@/shared/schemas/site-kinds';
 import { useSession } from '@/components/data/session';
 import { useSites } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';

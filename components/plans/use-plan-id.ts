@@ -1,10 +1,6 @@
-import { useLocalSearchParams } from 'expo-router';
-import { z } from 'zod';
-
-const Params = z.object({ planId: z.uuid() });
+import { useIdParams } from '@/components/data/route-params';
 
 /** The `[planId]` of the current route, or null when it is not a plan id. */
 export function usePlanId(): string | null {
-  const parsed = Params.safeParse(useLocalSearchParams());
-  return parsed.success ? parsed.data.planId : null;
+  return useIdParams(['planId'])?.planId ?? null;
 }

@@ -1,30 +1,15 @@
 import { lazy, Suspense, type ComponentType } from 'react';
 import { LoadingState } from '@/components/ui/states';
+import { deferredChunkIfLoaded, loadDeferredChunk } from '@/components/data/deferred-chunk';
 
 type Screens = typeof import('@/components/shell/deferred-screens');
-
-let loading: Promise<Screens> | null = null;
-/** The chunk's exports once it has loaded: later screens render at once, without suspending. */
-let loaded: Screens | null = null;
-
-/** The deferred chunk, fetched once; a failed fetch is forgotten so the next use tries again. */
-function loadScreens(): Promise<Screens> {
-  loading ??= import('@/components/shell/deferred-screens').then(
-    (screens) => (loaded = screens),
-    (error: unknown) => {
-      loading = null;
-      throw error;
-    },
-  );
-  return loading;
-}
 
 /**
  * Fetches the deferred chunk without showing anything, so the next screen
  * opens without waiting for it. A failure is left to the screen that needs it.
  */
 export function preloadDeferredScreens() {
-  loadScreens().catch(() => undefined);
+  loadDeferredChunk().catch(() => undefined);
 }
 
 /**
@@ -33,18 +18,18 @@ export function preloadDeferredScreens() {
  * the screen itself. A chunk that fails to load throws to the route's error
  * boundary.
  *
- * @example const SiteMapScreen = deferredScreen('SiteMapScreen');
+ * @example const PlanEditor = deferredScreen('PlanEditor');
  * @example const FieldStatus = deferredScreen('FieldStatus', { fallback: null }); // a part that shows nothing meanwhile
  */
 export function deferredScreen<K extends keyof Screens>(
   name: K,
   { fallback = <LoadingState /> }: { fallback?: React.ReactNode } = {},
 ): Screens[K] {
-  const Lazy = lazy(() => loadScreens().then((m) => ({ default: m[name] as ComponentType<object> })));
+  const Lazy = lazy(() => loadDeferredChunk().then((m) => ({ default: m[name] as ComponentType<object> })));
   function DeferredScreen(props: object) {
     // Once loaded (e.g. preloaded by the shell), no Suspense round: React holds a revealed
     // fallback for a moment (≈ 300 ms) before it shows the content.
-    const Loaded = loaded?.[name] as ComponentType<object> | undefined;
+    const Loaded = deferredChunkIfLoaded()?.[name] as ComponentType<object> | undefined;
     if (Loaded) return <Loaded {...props} />;
     return (
       <Suspense fallback={fallback}>

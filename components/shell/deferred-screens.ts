@@ -6,6 +6,9 @@
  * async chunks share into `__common`, which index.html loads up front, so one
  * lazy import per screen would pull most of this back into the first load.
  */
+export * as firstScreenSchemas from '@/components/data/first-screen-schemas';
+export { AccountPanel } from '@/components/auth/account-panel';
+export { SetPasswordForm } from '@/components/auth/set-password-form';
 export { CaughtMailList } from '@/components/admin/caught-mail-list';
 export { UserAdmin } from '@/components/admin/user-admin';
 export { HistoryScreen } from '@/components/audit/history-screen';
@@ -15,8 +18,7 @@ export { IncidentScreen } from '@/components/incidents/incident-screen';
 export { IncidentsScreen } from '@/components/incidents/incidents-screen';
 export { QuickCheck } from '@/components/check/quick-check';
 export { LibraryScreen } from '@/components/library/library-screen';
-export { RunMapScreen } from '@/components/map/run-map-screen';
-export { SiteMapScreen } from '@/components/map/site-map-screen';
+export { SiteMapRouteContent } from '@/components/map/site-map-route';
 export { EditPlanScreen } from '@/components/plans/edit-plan-screen';
 export { PlanCompareScreen } from '@/components/plans/plan-compare-screen';
 export { PlanEditor } from '@/components/plans/plan-editor';

@@ -1,18 +1,8 @@
 import { z } from 'zod';
 import { pageOf } from './list';
+import { AUDIT_ENTITY_TYPES, type AuditEntityType } from './audit-entity-types';
 
-/** Kinds of record the audit trail names (the `entityType` each write records). */
-export const AUDIT_ENTITY_TYPES = [
-  'site',
-  'post',
-  'plan',
-  'target',
-  'condition-set',
-  'assignment',
-  'attachment',
-  'site_terrain',
-] as const;
-export type AuditEntityType = (typeof AUDIT_ENTITY_TYPES)[number];
+export { AUDIT_ENTITY_TYPES, type AuditEntityType } from './audit-entity-types';
 
 export const AUDIT_ENTITY_LABELS: Record<AuditEntityType, string> = {
   site: 'site',

@@ -5,16 +5,10 @@ import { LatLonSchema } from './lat-lon';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';
 import { SeenVersionSchema } from './seen-version';
+import { SITE_KINDS } from './site-kinds';
 
-export const SITE_KINDS = ['forest-district', 'coast-stretch', 'search-area'] as const;
+export { SITE_KIND_LABELS, SITE_KINDS, type SiteKind } from './site-kinds';
 export const SiteKindSchema = z.enum(SITE_KINDS, { error: `Choose one of: ${SITE_KINDS.join(', ')}.` });
-export type SiteKind = z.infer<typeof SiteKindSchema>;
-
-export const SITE_KIND_LABELS: Record<SiteKind, string> = {
-  'forest-district': 'Forest district',
-  'coast-stretch': 'Coast stretch',
-  'search-area': 'Search area',
-};
 
 export { UNIT_SYSTEM_IDS } from '@/shared/units/unit-systems';
 

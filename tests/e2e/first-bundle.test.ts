@@ -1,8 +1,9 @@
 /**
- * The first screens load without the heavy code: the sign-in page without
- * three.js (the `scenes-3d` chunk) or the deferred signed-in screens (the
- * `deferred-screens` chunk); the home fetches the deferred chunk in the
- * background once it is up; three.js comes only with a 3D view. Sizes and times are
+ * The first screens load without the heavy code: the sign-in page's first load
+ * (the scripts its HTML names) has neither three.js (the `scenes-3d` chunk) nor
+ * the deferred signed-in screens with zod and the schemas (the
+ * `deferred-screens` chunk), which the sign-in form fetches in the background
+ * once it is up; three.js comes only with a 3D view. Sizes and times are
  * figures for `npm run bench -- web`, not assertions here.
  *
  * Chunk names are the module names Metro's web export gives async chunks
@@ -34,23 +35,27 @@ function watchScripts(page: Page): string[] {
 const has = (scripts: string[], chunk: string) => scripts.some((s) => s.startsWith(`${chunk}-`));
 
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
-  it('signs in without the 3D and deferred chunks, preloads the deferred one after the home, and loads 3D where needed', async () => {
+  it('signs in without the 3D and deferred chunks in the first load, preloads the deferred one, and loads 3D where needed', async () => {
     const { context, page } = await newPage(browser, viewport);
     const errors = watchErrors(page);
     const scripts = watchScripts(page);
     try {
+      const html = await (await page.request.get(`${e2eUrl()}/sign-in`)).text();
+      const firstLoad = [...html.matchAll(/<script[^>]*\ssrc="([^"]+)"/g)].map((m) => m[1]!.split('/').pop()!);
+      expect(has(firstLoad, 'entry')).toBe(true);
+      expect(has(firstLoad, 'deferred-screens')).toBe(false);
+      expect(has(firstLoad, 'scenes-3d')).toBe(false);
+
       await page.goto(`${e2eUrl()}/sign-in`);
       await page.getByRole('button', { name: 'Sign in' }).waitFor();
       expect(has(scripts, 'entry')).toBe(true);
       expect(has(scripts, 'scenes-3d')).toBe(false);
-      expect(has(scripts, 'deferred-screens')).toBe(false);
+      // The form's check (zod, in the deferred chunk) is fetched while the person types.
+      await page.waitForRequest((r) => /\/deferred-screens-[^/]*\.js$/.test(r.url()), { timeout: 15_000 }).catch(() => null);
+      expect(has(scripts, 'deferred-screens')).toBe(true);
 
       await signIn(page, DEMO.planner);
       await page.getByText('Harrowmere Forest District').first().waitFor();
-      expect(has(scripts, 'scenes-3d')).toBe(false);
-      // Once the home is up, the other screens' chunk is fetched in the background (not three.js).
-      await page.waitForRequest((r) => /\/deferred-screens-[^/]*\.js$/.test(r.url()), { timeout: 15_000 }).catch(() => null);
-      expect(has(scripts, 'deferred-screens')).toBe(true);
       expect(has(scripts, 'scenes-3d')).toBe(false);
 
       // A deferred screen: the chunk arrives, the screen works.

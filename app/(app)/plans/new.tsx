@@ -1,15 +1,13 @@
-import { useLocalSearchParams } from 'expo-router';
-import { z } from 'zod';
+import { useIdParams } from '@/components/data/route-params';
 import { Screen } from '@/components/ui/screen';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
 import { deferredScreen } from '@/components/shell/deferred-screen';
 
 const PlanEditor = deferredScreen('PlanEditor');
 
-const Params = z.object({ siteId: z.uuid().optional().catch(undefined) });
-
 function NewPlanRouteContent() {
-  const { siteId } = Params.parse(useLocalSearchParams());
+  // A wrong site id in the address is left out: the editor then asks for the site.
+  const siteId = useIdParams([], ['siteId'])?.siteId;
   return (
     <Screen
       title="New coverage plan"

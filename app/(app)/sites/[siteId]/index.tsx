@@ -1,5 +1,4 @@
-import { useLocalSearchParams } from 'expo-router';
-import { z } from 'zod';
+import { useIdParams } from '@/components/data/route-params';
 import { Screen } from '@/components/ui/screen';
 import { Notice } from '@/components/ui/states';
 import { AppText } from '@/components/ui/app-text';
@@ -8,11 +7,9 @@ import { deferredScreen } from '@/components/shell/deferred-screen';
 
 const SiteOverview = deferredScreen('SiteOverview');
 
-const Params = z.object({ siteId: z.uuid() });
-
 function SiteScreenContent() {
-  const parsed = Params.safeParse(useLocalSearchParams());
-  if (!parsed.success) {
+  const ids = useIdParams(['siteId']);
+  if (!ids) {
     return (
       <Screen title="Site">
         <Notice tone="danger">
@@ -21,7 +18,7 @@ function SiteScreenContent() {
       </Screen>
     );
   }
-  return <SiteOverview siteId={parsed.data.siteId} />;
+  return <SiteOverview siteId={ids.siteId} />;
 }
 
 /** The tab's title until the page below names itself more precisely. */

@@ -1,5 +1,4 @@
-import { useLocalSearchParams } from 'expo-router';
-import { z } from 'zod';
+import { useIdParams } from '@/components/data/route-params';
 import { usePost } from '@/components/data/sites';
 import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
@@ -9,11 +8,9 @@ import { deferredScreen } from '@/components/shell/deferred-screen';
 
 const PostEditor = deferredScreen('PostEditor');
 
-const Params = z.object({ siteId: z.uuid(), postId: z.uuid() });
-
 function PostScreenContent() {
-  const parsed = Params.safeParse(useLocalSearchParams());
-  if (!parsed.success) {
+  const ids = useIdParams(['siteId', 'postId']);
+  if (!ids) {
     return (
       <Screen title="Post">
         <Notice tone="danger">
@@ -22,10 +19,10 @@ function PostScreenContent() {
       </Screen>
     );
   }
-  return <PostRoute {...parsed.data} />;
+  return <PostRoute {...ids} />;
 }
 
-function PostRoute({ siteId, postId }: z.infer<typeof Params>) {
+function PostRoute({ siteId, postId }: { siteId: string; postId: string }) {
   const post = usePost(siteId, postId);
   if (post.isPending) return <LoadingState label="Loading the post…" />;
   if (post.isError) return <ErrorState error={post.error} onRetry={() => void post.refetch()} />;
