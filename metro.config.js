@@ -13,7 +13,7 @@ config.resolver.blockList = ['.kenning', 'server', 'tests', 'dist'].map(own);
 
 // zod re-exports all of its ~50 message locales as `z.locales` (≈ 270 KB of the first bundle); the app
 // uses zod's English messages only, which zod sets up itself. The web bundle gets an English-only namespace.
-const zodLocales = path.join(__dirname, 'metro', 'zod-locales-en.js');
+const zodLocales = path.join(__dirname, 'shared', 'schemas', 'zod-locales-en.js');
 const zodApi = /[\\/]node_modules[\\/]zod[\\/]v4[\\/](classic|core|mini)[\\/][^\\/]+$/;
 const resolveRequest = config.resolver.resolveRequest;
 config.resolver.resolveRequest = (context, moduleName, platform) => {

@@ -210,6 +210,28 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
     expect(dip!.k!).toBeGreaterThan(0.13);
     expect(dip!.kMin!).toBeLessThan(dip!.k!);
     expect(dip!.k!).toBeLessThan(dip!.kMax!);
+
+    // The observed condition set is one of the plan's conditions: a coast plan drafted with it computes with its k.
+    const sets = await apiJson<{ items: Array<{ id: string; name: string }> }>(p, 'GET', '/conditions');
+    const observed = sets.items.find((c) => c.id === dip!.conditionSetId);
+    expect(observed?.name).toMatch(/^observed, \d{4}-\d{2}-\d{2}$/);
+    const title = `Dip of the day ${Date.now().toString(36)}`;
+    await p.goto(`${e2eUrl()}/plans/new`);
+    await p.getByRole('radio', { name: 'Tallow Strand' }).click();
+    await p.getByLabel('Title').fill(title);
+    await p.getByRole('checkbox', { name: 'Gull Point' }).click();
+    await p.getByRole('checkbox', { name: 'Six-person life raft' }).click();
+    const sameName = sets.items.filter((c) => c.name === observed!.name);
+    await p
+      .getByRole('checkbox', { name: observed!.name })
+      .nth(sameName.findIndex((c) => c.id === observed!.id))
+      .click();
+    await p.getByRole('button', { name: 'Create draft' }).click();
+    await p.getByRole('heading', { name: `${title} · v1` }).waitFor();
+    await p.getByText('Results from today’s inputs').waitFor();
+    await shot(p, 'trainer-calibration-plan', 'wide');
+    const plans = await apiJson<{ items: Array<{ title: string; conditionSetIds: string[] }> }>(p, 'GET', '/plans');
+    expect(plans.items.find((plan) => plan.title === title)?.conditionSetIds).toEqual([dip!.conditionSetId]);
     expect(againErrors).toEqual([]);
   } finally {
     await again.context.close();
