@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';
 import type { SignInRequest } from '@/shared/schemas/auth';
-import { loadDeferredChunk } from '@/components/data/deferred-chunk';
+import { loadDeferredChunk, loadFirstScreenSchemas } from '@/components/data/deferred-chunk';
 import { useSignIn } from '@/components/data/session';
 import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/states';
@@ -16,7 +16,7 @@ import { applyServerErrors } from '@/components/data/server-errors';
  * is up, so a first tap rarely waits for it.
  */
 const resolveSignIn: Resolver<SignInRequest> = async (values, context, options) =>
-  (await loadDeferredChunk()).firstScreenSchemas.signInResolver(values, context, options);
+  (await loadFirstScreenSchemas()).signInResolver(values, context, options);
 
 /** Runs `task` once the page is idle (the form drawn and answering), and returns how to call it off. */
 function whenIdle(task: () => void): () => void {

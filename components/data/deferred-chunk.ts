@@ -26,3 +26,8 @@ export function loadDeferredChunk(): Promise<DeferredChunk> {
   );
   return loading;
 }
+
+/** The response schemas of the first screens (the session, the site list, sign-in's check), from the deferred chunk. */
+export function loadFirstScreenSchemas(): Promise<DeferredChunk['firstScreenSchemas']> {
+  return loadDeferredChunk().then((chunk) => chunk.firstScreenSchemas);
+}

@@ -5,10 +5,10 @@ import { UNIT_SYSTEMS, unitSystemFor, type UnitSystem } from '@/shared/units/uni
 import { forgetDeviceCopies } from '@/components/offline/persisted-cache';
 import { resetLanding } from './first-landing';
 import { api, ApiRequestError, lazySchema, NetworkError } from './api-client';
-import { loadDeferredChunk } from './deferred-chunk';
+import { loadFirstScreenSchemas } from './deferred-chunk';
 import { STALE } from './query-client';
 
-const MeResponseSchema = lazySchema(() => loadDeferredChunk().then((m) => m.firstScreenSchemas.MeResponseSchema));
+const MeResponseSchema = lazySchema(() => loadFirstScreenSchemas().then((m) => m.MeResponseSchema));
 
 export const sessionKeys = {
   all: ['session'] as const,

@@ -1,14 +1,13 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { Post, PostInput, Site, SiteInput } from '@/shared/schemas/site';
 import { api, ApiRequestError, lazySchema } from './api-client';
-import { loadDeferredChunk } from './deferred-chunk';
+import { loadFirstScreenSchemas } from './deferred-chunk';
 
 // The site list is the signed-in home's first question: its schemas come with the deferred chunk.
-const schemas = () => loadDeferredChunk().then((m) => m.firstScreenSchemas);
-const SiteListSchema = lazySchema(() => schemas().then((m) => m.SiteListSchema));
-const PostListSchema = lazySchema(() => schemas().then((m) => m.PostListSchema));
-const SiteBody = lazySchema(() => schemas().then((m) => m.SiteBodySchema));
-const PostBody = lazySchema(() => schemas().then((m) => m.PostBodySchema));
+const SiteListSchema = lazySchema(() => loadFirstScreenSchemas().then((m) => m.SiteListSchema));
+const PostListSchema = lazySchema(() => loadFirstScreenSchemas().then((m) => m.PostListSchema));
+const SiteBody = lazySchema(() => loadFirstScreenSchemas().then((m) => m.SiteBodySchema));
+const PostBody = lazySchema(() => loadFirstScreenSchemas().then((m) => m.PostBodySchema));
 
 export const siteKeys = {
   all: ['sites'] as const,
