@@ -46,7 +46,7 @@ export function PostMoveDialog({
   const move = useMovePost(siteId);
   // Heights to a tenth of a metre, in the person's (or the site's) units.
   const units = useLengthUnits(useSite(siteId).data?.defaultUnits);
-  const metres = (m: number) => `${convertLength(m, 'm', units.height).toFixed(1)} ${units.height}`;
+  const heightText = (m: number) => `${convertLength(m, 'm', units.height).toFixed(1)} ${units.height}`;
   const [ground, setGround] = useState<{ to: LatLon; elevationM: number | null; error: string } | null>(null);
   const { mutate: look, reset: resetLookup } = lookup;
   const { reset: resetMove } = move;
@@ -73,12 +73,12 @@ export function PostMoveDialog({
   const leg = geodesicInverse(post.location, to);
   const groundKnown = hasTerrain ? (ground?.to === to ? ground : null) : null;
   const groundLine = !hasTerrain
-    ? `The site has no terrain, so the recorded ground (${metres(post.groundElevationM)}) is kept: check it on the post’s page.`
+    ? `The site has no terrain, so the recorded ground (${heightText(post.groundElevationM)}) is kept: check it on the post’s page.`
     : !groundKnown
       ? 'Reading the ground from the terrain…'
       : groundKnown.elevationM === null
         ? groundKnown.error
-        : `Ground from the terrain there: ${metres(groundKnown.elevationM)} (recorded now: ${metres(post.groundElevationM)}). The eye then stands ${metres(groundKnown.elevationM + post.structureHeightM + post.eyeHeightM)} above sea level.`;
+        : `Ground from the terrain there: ${heightText(groundKnown.elevationM)} (recorded now: ${heightText(post.groundElevationM)}). The eye then stands ${heightText(groundKnown.elevationM + post.structureHeightM + post.eyeHeightM)} above sea level.`;
 
   const confirm = () =>
     move.mutate(
@@ -87,8 +87,8 @@ export function PostMoveDialog({
         onSuccess: (r) =>
           onDone(
             r.ground.from === 'terrain'
-              ? `${r.post.name} moved; ground ${metres(r.ground.elevationM)} from the terrain (was ${metres(r.ground.previousM)}).`
-              : `${r.post.name} moved; its recorded ground (${metres(r.ground.elevationM)}) is kept.`,
+              ? `${r.post.name} moved; ground ${heightText(r.ground.elevationM)} from the terrain (was ${heightText(r.ground.previousM)}).`
+              : `${r.post.name} moved; its recorded ground (${heightText(r.ground.elevationM)}) is kept.`,
           ),
       },
     );
