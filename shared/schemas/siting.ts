@@ -49,7 +49,9 @@ export const FromTerrainSchema = z.strictObject({
   /** Only within `withinM` of this line (an access road or track), WGS84 `[lon, lat]` pairs. */
   accessLine: z
     .strictObject({
-      line: z.array(z.tuple([lonDeg, latDeg]), { error: 'A line is a list of [lon, lat] pairs.' }).min(2, 'A line needs two points.'),
+      line: z
+        .array(z.tuple([lonDeg, latDeg]), { error: 'A line is a list of [lon, lat] pairs.' })
+        .min(2, 'A line needs two points.'),
       withinM: z.number({ error: 'A distance in metres.' }).positive('More than 0 m.').max(50_000, 'At most 50 km.'),
     })
     .nullable()
@@ -79,15 +81,25 @@ export const SitingRunInputSchema = z
       .max(8, 'At most 8 heights.')
       .refine((h) => new Set(h).size === h.length, 'Give each height once.'),
     /** Cost of a tower of each height (same order as `heightsM`), any unit; null = no costs. */
-    costs: z.array(z.number({ error: 'A cost is a number.' }).min(0, 'Costs cannot be negative.')).nullable().default(null),
+    costs: z
+      .array(z.number({ error: 'A cost is a number.' }).min(0, 'Costs cannot be negative.'))
+      .nullable()
+      .default(null),
     /** Spend at most this (in the costs' unit); null = no budget. Needs `costs`. */
     budget: z.number({ error: 'A budget is a number.' }).positive('More than 0.').nullable().default(null),
     /** Stop once this share of the site (the objective's weighted share) is reached, percent; null = choose `count`. */
     goalPct: z.number({ error: 'A percentage.' }).gt(0, 'More than 0 %.').max(100, 'At most 100 %.').nullable().default(null),
     /** Eye height above the tower's platform, metres. */
     eyeHeightM: z.number({ error: 'A height in metres.' }).min(0, 'Cannot be negative.').max(10, 'At most 10 m.').default(1.6),
-    keepPostIds: z.array(z.uuid({ error: 'Not a post id.' })).max(50, 'At most 50 kept posts.').default([]),
-    count: z.number({ error: 'How many new posts, a whole number.' }).int('A whole number.').min(1, 'At least 1.').max(20, 'At most 20.'),
+    keepPostIds: z
+      .array(z.uuid({ error: 'Not a post id.' }))
+      .max(50, 'At most 50 kept posts.')
+      .default([]),
+    count: z
+      .number({ error: 'How many new posts, a whole number.' })
+      .int('A whole number.')
+      .min(1, 'At least 1.')
+      .max(20, 'At most 20.'),
     targetId: z.uuid({ error: 'Choose a target.' }),
     conditionSetId: z.uuid({ error: 'Choose a condition set.' }),
     objective: SitingObjectiveSchema,

@@ -129,9 +129,20 @@ export function chooseTowerSites(input: ChooseTowerSitesInput): SitingChoice {
   if (exact) {
     const set = enumerateBest(input, counter);
     const steps = curveOrder(input, set, counter);
-    return { method: 'exact', keptTotal, steps, total: steps.at(-1)?.total ?? keptTotal, evaluations: counter.evaluations, swaps: 0 };
+    return {
+      method: 'exact',
+      keptTotal,
+      steps,
+      total: steps.at(-1)?.total ?? keptTotal,
+      evaluations: counter.evaluations,
+      swaps: 0,
+    };
   }
-  let set = greedy(input, options.map((_, i) => i), counter).map((s) => s.option);
+  let set = greedy(
+    input,
+    options.map((_, i) => i),
+    counter,
+  ).map((s) => s.option);
   let swaps = 0;
   if (input.swap !== false && set.length > 0) ({ set, swaps } = swapPass(input, set, counter));
   const steps = curveOrder(input, set, counter);

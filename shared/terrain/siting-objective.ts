@@ -163,4 +163,3 @@ export function objectiveOf(objective: SitingObjective, views: readonly SitingVi
   for (const view of views) state.add(view);
   return state.total;
 }
-

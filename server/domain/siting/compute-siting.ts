@@ -330,4 +330,3 @@ function segmentDistance(x: number, y: number, a: { x: number; y: number }, b: {
   const t = len2 === 0 ? 0 : Math.max(0, Math.min(1, ((x - a.x) * dx + (y - a.y) * dy) / len2));
   return Math.hypot(x - (a.x + t * dx), y - (a.y + t * dy));
 }
-

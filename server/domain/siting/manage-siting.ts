@@ -121,7 +121,9 @@ async function freezeInputs(actor: Actor, siteId: string, input: SitingRunReques
           source: 'post' as const,
           eyeHeightM: post?.eyeHeightM ?? input.eyeHeightM,
           sector: post?.sector ?? null,
-          post: post ? { kind: post.kind, structureHeightM: post.structureHeightM, groundElevationM: post.groundElevationM } : null,
+          post: post
+            ? { kind: post.kind, structureHeightM: post.structureHeightM, groundElevationM: post.groundElevationM }
+            : null,
         };
       }
       return {
@@ -256,9 +258,17 @@ export async function cancelSitingRun(deps: SitingDeps, actor: Actor, runId: str
     throw AppError.conflict(`This run has already ${run.status === 'done' ? 'finished' : run.status}.`, 'run_ended');
   }
   await deps.db.transaction(async (t) => {
-    const stopped = await sitingRepository.updateActive(runId, { status: 'cancelled', stage: 'Cancelled', finishedAt: new Date() }, t);
+    const stopped = await sitingRepository.updateActive(
+      runId,
+      { status: 'cancelled', stage: 'Cancelled', finishedAt: new Date() },
+      t,
+    );
     if (!stopped) throw AppError.conflict('This run ended while you were cancelling it.', 'run_ended');
-    await auditRepository.record(actor, { action: 'siting-cancel', entityType: 'site', entityId: run.siteId, after: { runId } }, t);
+    await auditRepository.record(
+      actor,
+      { action: 'siting-cancel', entityType: 'site', entityId: run.siteId, after: { runId } },
+      t,
+    );
   });
   if (run.jobId && deps.queue) await deps.queue.cancel(run.jobId).catch(() => undefined);
   return getSitingRun(actor, runId);

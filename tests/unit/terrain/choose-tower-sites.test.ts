@@ -83,7 +83,10 @@ describe('chooseTowerSites', () => {
       for (let round = 0; round < 5; round++) {
         let best = -1;
         let bestGain = -1;
-        const base = objectiveOf(objective, chosen.map((i) => options[i]!));
+        const base = objectiveOf(
+          objective,
+          chosen.map((i) => options[i]!),
+        );
         options.forEach((o, i) => {
           if (chosen.some((c) => options[c]!.location === o.location)) return;
           const gain = objectiveOf(objective, [...chosen.map((c) => options[c]!), o]) - base;
@@ -155,8 +158,18 @@ describe('chooseTowerSites', () => {
     const counts = countPostsPerCell(grid, posts);
     const cross = crossBearingQuality(counts, posts);
     const expected = cross.classes.reduce((n, c) => n + (c === CROSS_BEARING_CLASS.good ? 1 : 0), 0);
-    const objective: SitingObjective = { cellCount: W * H, width: W, height: H, weights: new Float32Array(W * H).fill(1), minPosts: 2 };
-    const views = posts.map((p) => ({ col: p.col, row: p.row, seen: bitsetOf(W * H, (i) => p.classes[i] === VISIBILITY_CLASS.seen) }));
+    const objective: SitingObjective = {
+      cellCount: W * H,
+      width: W,
+      height: H,
+      weights: new Float32Array(W * H).fill(1),
+      minPosts: 2,
+    };
+    const views = posts.map((p) => ({
+      col: p.col,
+      row: p.row,
+      seen: bitsetOf(W * H, (i) => p.classes[i] === VISIBILITY_CLASS.seen),
+    }));
     expect(expected).toBeGreaterThan(0);
     expect(objectiveOf(objective, views)).toBe(expected);
     // The order the posts are added in does not change the total.
