@@ -20,7 +20,7 @@ export interface PickTerrainCandidatesOptions {
   readonly allowed: Uint8Array | null;
 }
 
-// The four lines through a cell: E–W, N–S and the two diagonals (column, row steps).
+// The four lines through a cell: E–W, N–S and the two diagonals (column, row steps); LINES[l ^ 1] is l's perpendicular.
 const LINES = [
   [1, 0],
   [0, 1],
@@ -31,8 +31,9 @@ const LINES = [
 /**
  * Candidate places for a lookout tower from the ground's shape: summits (a
  * cell higher than its eight neighbours) and ridge cells (higher than both
- * neighbours along at least one of the four lines through it — a crest
- * crossed by that line), inside `allowed`; then thinned to `spacingM`:
+ * neighbours along at least one of the four lines through it by more than
+ * the ground falls along the perpendicular line — a crest crossed by that
+ * line, not the flank of a rounded hill), inside `allowed`; then thinned to `spacingM`:
  * taken highest first (summits before ridge cells of the same height, then
  * row-major order), each kept only when at least `spacingM` from every one
  * kept before, up to `maxCandidates`. High ground with open crests sees
@@ -71,11 +72,17 @@ export function pickTerrainCandidates(terrain: TerrainRaster, options: PickTerra
       if (!Number.isFinite(z)) continue;
       let crests = 0;
       let summit = true;
-      for (const [dc, dr] of LINES) {
+      for (let l = 0; l < LINES.length; l++) {
+        const [dc, dr] = LINES[l]!;
         const a = heights[i + dr * W + dc]!;
         const b = heights[i - dr * W - dc]!;
         if (!(z > a) || !(z > b)) summit = false;
-        if (z > a && z > b) crests++;
+        // A crest across this line that is sharper than the ground falls along the crest itself
+        // (the perpendicular line): a ridge, not the flank of a rounded hill.
+        const [pc, pr] = LINES[l ^ 1]!;
+        const along = Math.abs(heights[i + pr * W + pc]! - heights[i - pr * W - pc]!) / 2;
+        const crest = Math.min(z - a, z - b);
+        if (crest > 0 && crest >= along) crests++;
       }
       if (crests > 0) found.push({ col, row, elevationM: z, summit });
     }
