@@ -70,7 +70,14 @@ export function SitingScreen({ siteId, runId }: { siteId: string; runId: string 
           </AppText>
         ))}
       </Notice>
-      <View style={{ flexDirection: wide ? 'row' : 'column', gap: space.xl, alignItems: 'flex-start' }}>
+      {/* On a phone the result of a run comes first (the form is long); on a wide screen the form sits on the left. */}
+      <View
+        style={{
+          flexDirection: wide ? 'row' : shown ? 'column-reverse' : 'column',
+          gap: space.xl,
+          alignItems: wide ? 'flex-start' : 'stretch',
+        }}
+      >
         {planner ? (
           <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%' }}>
             <SitingForm siteId={siteId} posts={posts.data} siteUnits={site.data.defaultUnits} onStarted={setPicked} />

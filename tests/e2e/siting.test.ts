@@ -45,16 +45,16 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('tower siting on the %s 
       await page.waitForURL(/\/siting/);
       const siteId = /\/sites\/([^/]+)\/siting/.exec(page.url())![1]!;
 
-      // Candidates: the proposed Blackmoss tower (ticked already) and three typed points.
-      await page
-        .getByRole('checkbox', { name: /Blackmoss Tower/ })
-        .first()
-        .waitFor();
+      // Candidates: the proposed Blackmoss tower (ticked already) and three typed points; towers that
+      // earlier runs proposed (named "… · 30 m tower") are left out.
+      await page.getByRole('checkbox', { name: 'Blackmoss Tower', exact: true }).first().waitFor();
+      const earlier = page.getByRole('checkbox', { name: / · \d+ m tower$/, checked: true });
+      while ((await earlier.count()) > 0) await earlier.first().click();
       for (const p of POINTS) {
         await page.getByLabel('Point (lat, lon)').fill(`${p.latDeg.toFixed(6)}, ${p.lonDeg.toFixed(6)}`);
         await page.getByLabel('Its name').fill(p.name);
         await page.getByRole('button', { name: 'Add the point' }).click();
-        await page.getByRole('checkbox', { name: new RegExp(p.name) }).waitFor();
+        await page.getByRole('checkbox', { name: p.name, exact: true }).waitFor();
       }
       // Three heights, two new towers, the early smoke under the refraction spread, seen by one post.
       await page.getByLabel('Tower heights to try').fill('0, 15, 30');
@@ -86,7 +86,12 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('tower siting on the %s 
       await steps.getByText(new RegExp(`^1\\. ${run.steps[0]!.candidate.name}`)).waitFor();
       await page.getByTestId('siting-added-map').waitFor();
       await page.getByText(/Seen is not detected/).waitFor();
-      await page.screenshot({ path: `/tmp/siting-result-${viewport}.png`, fullPage: true });
+      await steps.scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `/tmp/siting-steps-${viewport}.png` });
+      await curve.scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `/tmp/siting-curve-${viewport}.png` });
+      await page.getByTestId('siting-added-map').scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `/tmp/siting-map-${viewport}.png` });
       await shot(page, 'siting-result', viewport);
 
       // A draft plan from the result, computed, then compared with the approved plan.
@@ -107,6 +112,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('tower siting on the %s 
       await page.getByRole('link', { name: 'Compare with the approved plan' }).click();
       await page.waitForURL(/\/plans\/compare\?/);
       await page.getByText('What changes from A to B').waitFor({ timeout: 60_000 });
+      await page.getByText('What changes from A to B').scrollIntoViewIfNeeded();
       await page.screenshot({ path: `/tmp/siting-compare-${viewport}.png`, fullPage: true });
       expect(errors).toEqual([]);
     } finally {
