@@ -45,11 +45,47 @@ export function bitsetOf(cellCount: number, pick: (i: number) => boolean): Uint3
   return bits;
 }
 
+/** Set bits of a 32-bit word (the classic SWAR count; Warren, "Hacker's Delight", 2nd ed., §5-1). */
+function popcount(x: number): number {
+  x -= (x >>> 1) & 0x55555555;
+  x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
+  x = (x + (x >>> 4)) & 0x0f0f0f0f;
+  return Math.imul(x, 0x01010101) >>> 24;
+}
+
+const uniformCache = new WeakMap<Float32Array, Float32Array>();
+
+/**
+ * Per word of 32 cells, their common weight when all 32 share one, else NaN
+ * (kept per weights array): most words lie wholly inside or outside a zone,
+ * and their weighted count is then one popcount.
+ */
+function uniformWeights(weights: Float32Array): Float32Array {
+  let uniform = uniformCache.get(weights);
+  if (uniform) return uniform;
+  uniform = new Float32Array(bitsetWords(weights.length)).fill(NaN);
+  for (let w = 0; (w << 5) + 32 <= weights.length; w++) {
+    const first = weights[w << 5]!;
+    let same = true;
+    for (let k = 1; k < 32 && same; k++) same = weights[(w << 5) + k] === first;
+    if (same) uniform[w] = first;
+  }
+  uniformCache.set(weights, uniform);
+  return uniform;
+}
+
 /** Sum of the weights of the cells in `bits` and not in `minus` (null: none taken out). */
 export function weightOf(bits: Uint32Array, weights: Float32Array, minus: Uint32Array | null = null): number {
+  const uniform = uniformWeights(weights);
   let total = 0;
   for (let w = 0; w < bits.length; w++) {
     let word = bits[w]! & ~(minus === null ? 0 : minus[w]!);
+    if (word === 0) continue;
+    const same = uniform[w]!;
+    if (!Number.isNaN(same)) {
+      total += same * popcount(word);
+      continue;
+    }
     while (word !== 0) {
       const low = word & -word;
       total += weights[(w << 5) + 31 - Math.clz32(low)]!;

@@ -1,7 +1,7 @@
 import { chooseTowerSites, type SitingOption } from '@/shared/terrain/choose-tower-sites';
 import { countPostsPerCell } from '@/shared/terrain/posts-per-cell';
 import { CROSS_BEARING_CLASS, crossBearingQuality } from '@/shared/terrain/cross-bearing-quality';
-import { bitsetOf, objectiveOf, type SitingObjective } from '@/shared/terrain/siting-objective';
+import { bitsetOf, objectiveOf, weightOf, type SitingObjective } from '@/shared/terrain/siting-objective';
 import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 import { gridOf, seededRandom } from '@/tests/unit/terrain/coverage-fixtures';
 
@@ -174,6 +174,22 @@ describe('chooseTowerSites', () => {
     expect(objectiveOf(objective, views)).toBe(expected);
     // The order the posts are added in does not change the total.
     expect(objectiveOf(objective, [...views].reverse())).toBe(expected);
+  });
+
+  it('counts weights word by word exactly as cell by cell', () => {
+    // Source: the definition of a weighted count (sum of the weights of the set cells); the popcount
+    // path for words of one weight must give the same sum (common practice, no source).
+    const random = seededRandom(77);
+    const n = 32 * 40 + 13;
+    const weights = new Float32Array(n).map((_, i) => (i >= 320 && i < 700 ? 9 : i % 97 === 0 ? 3 : 1));
+    const bits = bitsetOf(n, () => random() < 0.4);
+    const minus = bitsetOf(n, () => random() < 0.3);
+    let expected = 0;
+    for (let i = 0; i < n; i++) {
+      const on = (bits[i >>> 5]! >>> (i & 31)) & 1 && !((minus[i >>> 5]! >>> (i & 31)) & 1);
+      if (on) expected += weights[i]!;
+    }
+    expect(weightOf(bits, weights, minus)).toBe(expected);
   });
 
   it('refuses a count below one', () => {
