@@ -74,11 +74,35 @@ function uniformWeights(weights: Float32Array): Float32Array {
   return uniform;
 }
 
-/** Sum of the weights of the cells in `bits` and not in `minus` (null: none taken out). */
+const nonZeroCache = new WeakMap<Uint32Array, Int32Array>();
+
+/**
+ * The indices of the words of `bits` with any cell set (kept per bitset): a
+ * post sees a small part of a large site, and a gain only needs its words.
+ */
+export function nonZeroWords(bits: Uint32Array): Int32Array {
+  let words = nonZeroCache.get(bits);
+  if (words) return words;
+  let n = 0;
+  for (let w = 0; w < bits.length; w++) if (bits[w] !== 0) n++;
+  words = new Int32Array(n);
+  n = 0;
+  for (let w = 0; w < bits.length; w++) if (bits[w] !== 0) words[n++] = w;
+  nonZeroCache.set(bits, words);
+  return words;
+}
+
+/**
+ * Sum of the weights of the cells in `bits` and not in `minus` (null: none
+ * taken out). `bits` must not change after its first use here (its non-zero
+ * words are remembered); `minus` may.
+ */
 export function weightOf(bits: Uint32Array, weights: Float32Array, minus: Uint32Array | null = null): number {
   const uniform = uniformWeights(weights);
+  const words = nonZeroWords(bits);
   let total = 0;
-  for (let w = 0; w < bits.length; w++) {
+  for (let k = 0; k < words.length; k++) {
+    const w = words[k]!;
     let word = bits[w]! & ~(minus === null ? 0 : minus[w]!);
     if (word === 0) continue;
     const same = uniform[w]!;
@@ -135,7 +159,8 @@ export class SitingState {
     let gain: number;
     if (this.objective.minPosts === 1) {
       gain = weightOf(view.seen, this.objective.weights, this.covered);
-      for (let w = 0; w < this.covered.length; w++) this.covered[w]! |= view.seen[w]!;
+      const words = nonZeroWords(view.seen);
+      for (let k = 0; k < words.length; k++) this.covered[words[k]!]! |= view.seen[words[k]!]!;
     } else {
       gain = this.crossGain(view, true);
     }
@@ -158,7 +183,9 @@ export class SitingState {
     const goodFrom = (this.objective.minCrossingAngle ?? Math.PI / 6) - ANGLE_TOLERANCE;
     const others = this.views;
     let gain = 0;
-    for (let w = 0; w < view.seen.length; w++) {
+    const words = nonZeroWords(view.seen);
+    for (let k = 0; k < words.length; k++) {
+      const w = words[k]!;
       let word = view.seen[w]! & ~this.covered[w]!;
       while (word !== 0) {
         const low = word & -word;
