@@ -316,13 +316,23 @@ function enumerateBest(input: ChooseTowerSitesInput, counter: { evaluations: num
  * Swap pass: for each chosen option in turn, the unchosen one that raises the
  * objective most in its place (keeping one height per location and the
  * budget), until a full pass finds none or after 5 passes. Only strict gains
- * are taken, so the objective never goes down.
+ * are taken, so the objective never goes down. With the one-post objective
+ * the options are tried in the order of what each adds alone, and the search
+ * stops where that upper bound cannot beat the best swap found (of equal
+ * swaps, the first in that order is taken).
  */
 function swapPass(input: ChooseTowerSitesInput, start: readonly number[], counter: { evaluations: number }) {
   const { options } = input;
   const set = [...start];
   let current = totalOf(input, set, counter);
   let swaps = 0;
+  // With the submodular objective an option adds at most what it adds to the kept posts alone, so
+  // options tried in that order can stop once that bound cannot beat the best swap found.
+  const submodular = input.objective.minPosts === 1;
+  const alone = fresh(input);
+  const bound = options.map((o) => (submodular ? alone.gain(o) : Infinity));
+  if (submodular) counter.evaluations += options.length;
+  const order = options.map((_, i) => i).sort((a, b) => bound[b]! - bound[a]! || a - b);
   for (let pass = 0; pass < 5; pass++) {
     let improved = false;
     for (let k = 0; k < set.length; k++) {
@@ -332,7 +342,8 @@ function swapPass(input: ChooseTowerSitesInput, start: readonly number[], counte
       const taken = new Set(others.map((i) => options[i]!.location));
       let best = -1;
       let bestTotal = current;
-      for (let i = 0; i < options.length; i++) {
+      for (const i of order) {
+        if (base.total + bound[i]! <= bestTotal + 1e-9 * Math.max(1, bestTotal)) break;
         if (set.includes(i) || taken.has(options[i]!.location)) continue;
         if (!feasible(input, [...others, i])) continue;
         const total = base.total + base.gain(options[i]!);
