@@ -69,10 +69,16 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('tower siting on the %s 
       expect(answer.status()).toBe(202);
       const runId = ((await answer.json()) as { run: { id: string } }).run.id;
 
-      // The result: the chosen towers in order, the curve, the map of what each adds.
-      await page.getByText('Coverage curve').waitFor({ timeout: 180_000 });
-      const { run } = await apiJson<{ run: RunBody }>(page, 'GET', `/siting-runs/${runId}`);
+      // The result: the chosen towers in order, the curve, the map of what each adds. (The screen showed
+      // an earlier run's result before this one was asked for: wait until this run is done first.)
+      let run!: RunBody;
+      for (let i = 0; i < 180; i++) {
+        ({ run } = await apiJson<{ run: RunBody }>(page, 'GET', `/siting-runs/${runId}`));
+        if (run.status !== 'queued' && run.status !== 'running') break;
+        await page.waitForTimeout(1000);
+      }
       expect(run.status).toBe('done');
+      await page.getByText('Coverage curve').waitFor({ timeout: 30_000 });
       expect(run.steps).toHaveLength(2);
       const curve = page.getByTestId('siting-curve');
       // The curve's labels are the run's shares: the kept posts, then after each tower.
