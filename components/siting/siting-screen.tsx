@@ -2,7 +2,7 @@
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { View } from 'react-native';
-import type { Post } from '@/shared/schemas/site';
+import type { Post, Site } from '@/shared/schemas/site';
 import type { SitingRun, SitingRunInput } from '@/shared/schemas/siting';
 import { convertLength } from '@/shared/units/length';
 import { ApiRequestError } from '@/components/data/api-client';
@@ -31,6 +31,7 @@ import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { AddedAreaMap, type MapMarker } from './added-area-map';
+import { CandidatePickMap } from './candidate-pick-map';
 import { CoverageCurveChart } from './coverage-curve-chart';
 import { coverageCurve, parseHeights, parseLatLon } from './siting-format';
 
@@ -80,7 +81,7 @@ export function SitingScreen({ siteId, runId }: { siteId: string; runId: string 
       >
         {planner ? (
           <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%' }}>
-            <SitingForm siteId={siteId} posts={posts.data} siteUnits={site.data.defaultUnits} onStarted={setPicked} />
+            <SitingForm site={site.data} posts={posts.data} onStarted={setPicked} />
           </View>
         ) : null}
         <View style={{ flex: wide ? 3 : undefined, width: wide ? undefined : '100%', gap: space.lg }}>
@@ -109,18 +110,10 @@ export function SitingScreen({ siteId, runId }: { siteId: string; runId: string 
 
 type SiteUnits = Parameters<typeof useLengthUnits>[0];
 
-function SitingForm({
-  siteId,
-  posts,
-  siteUnits,
-  onStarted,
-}: {
-  siteId: string;
-  posts: Post[];
-  siteUnits: SiteUnits;
-  onStarted: (runId: string) => void;
-}) {
-  const { height: heightUnit } = useLengthUnits(siteUnits);
+function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onStarted: (runId: string) => void }) {
+  const siteId = site.id;
+  const { height: heightUnit } = useLengthUnits(site.defaultUnits);
+  const [mapOpen, setMapOpen] = useState(false);
   const targets = useTargets();
   const sets = useConditionSets();
   const start = useStartSiting(siteId);
@@ -221,6 +214,20 @@ function SitingForm({
             </View>
             <Button kind="secondary" label="Add the point" onPress={addPoint} />
           </View>
+          <Button
+            kind="quiet"
+            label={mapOpen ? 'Hide the map' : 'Pick a point on the map'}
+            onPress={() => setMapOpen(!mapOpen)}
+            style={{ alignSelf: 'flex-start' }}
+          />
+          {mapOpen ? (
+            <CandidatePickMap
+              site={site}
+              posts={posts}
+              picked={points}
+              onPick={(at) => setPointText(`${at.latDeg.toFixed(6)}, ${at.lonDeg.toFixed(6)}`)}
+            />
+          ) : null}
           {pointError ? <FormError message={pointError} /> : null}
           {fieldError('candidates') ? <FormError message={fieldError('candidates')!} /> : null}
         </View>

@@ -50,6 +50,16 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('tower siting on the %s 
       await page.getByRole('checkbox', { name: 'Blackmoss Tower', exact: true }).first().waitFor();
       const earlier = page.getByRole('checkbox', { name: / · \d+ m tower$/, checked: true });
       while ((await earlier.count()) > 0) await earlier.first().click();
+      // A tap on the site map fills in the point's latitude and longitude (typed exactly below).
+      await page.getByRole('button', { name: 'Pick a point on the map' }).click();
+      const pickMap = page.getByLabel('Site map: tap a place to take it as a candidate');
+      await pickMap.waitFor();
+      await pickMap.click();
+      const pointField = page.getByLabel('Point (lat, lon)');
+      for (let i = 0; i < 50 && (await pointField.inputValue()) === ''; i++) await page.waitForTimeout(100);
+      expect(await pointField.inputValue()).toMatch(/^5\d\.\d{6}, 1\d\.\d{6}$/);
+      await page.screenshot({ path: `/tmp/siting-pick-${viewport}.png` });
+      await page.getByRole('button', { name: 'Hide the map' }).click();
       for (const p of POINTS) {
         await page.getByLabel('Point (lat, lon)').fill(`${p.latDeg.toFixed(6)}, ${p.lonDeg.toFixed(6)}`);
         await page.getByLabel('Its name').fill(p.name);
