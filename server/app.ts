@@ -26,6 +26,7 @@ import { coverageRoutes } from './routes/coverage';
 import { exportRoutes } from './routes/exports';
 import { fixRoutes } from './routes/fixes';
 import { incidentRoutes } from './routes/incidents';
+import { sitingRoutes } from './routes/siting';
 import type { CoverageQueue } from './queue/coverage-queue';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
@@ -55,6 +56,8 @@ export interface AppDeps {
   terrainCache?: TerrainCache;
   /** The coverage job queue; null or absent: coverage runs cannot be started (they can still be read). */
   coverageQueue?: CoverageQueue | null;
+  /** The siting job queue; null or absent: siting runs cannot be started (they can still be read). */
+  sitingQueue?: CoverageQueue | null;
   /** Signed-in users kept for a few seconds (`startSessionUserCache`); absent: loaded on every request. */
   sessionUsers?: SessionUserCache<SessionUser> | null;
   config: Pick<
@@ -87,6 +90,7 @@ export function createApp({
   terrainIngest,
   terrainCache,
   coverageQueue = null,
+  sitingQueue = null,
   sessionUsers = null,
 }: AppDeps) {
   const app = express();
@@ -157,6 +161,7 @@ export function createApp({
   v1.use(reportRoutes(db, files));
   v1.use(incidentRoutes(db, publicUrl, mailer, cache));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
+  v1.use(sitingRoutes({ db, queue: sitingQueue }));
   v1.use(rosterRoutes(db));
   v1.use(attachmentRoutes(db, files, uploadTempDir));
   v1.use(userRoutes(db, publicUrl, mailer));

@@ -78,6 +78,7 @@ async function serveApi(cfg: Config, { chores }: { chores: boolean }) {
     mailer,
     files: createDiskFileStore(cfg.FILE_STORE_DIR),
     coverageQueue: coverage.queue,
+    sitingQueue: coverage.sitingQueue,
     sessionUsers: sessionUsers.cache,
   });
   const server: Server = await new Promise((resolve) => {

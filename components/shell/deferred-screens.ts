@@ -34,6 +34,7 @@ export { PostEditor } from '@/components/sites/post-editor';
 export { CrewCardScreen } from '@/components/reports/crew-card-screen';
 export { SiteEditScreen } from '@/components/sites/site-edit-screen';
 export { SiteOverview } from '@/components/sites/site-overview';
+export { SitingScreen } from '@/components/siting/siting-screen';
 export { TrainingScreen } from '@/components/trainer/training-screen';
 export { AttemptScreen } from '@/components/trainer/attempt-screen';
 export { CalibrationScreen } from '@/components/trainer/calibration-screen';

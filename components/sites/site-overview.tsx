@@ -65,6 +65,15 @@ export function SiteOverview({ siteId }: { siteId: string }) {
               onPress={() => router.navigate({ pathname: '/sites/[siteId]/map', params: { siteId } })}
               style={{ alignSelf: 'flex-start' }}
             />
+            {user?.role === 'planner' || user?.role === 'reviewer' ? (
+              <Button
+                kind="secondary"
+                label="Where to put the next tower"
+                role="link"
+                onPress={() => router.navigate({ pathname: '/sites/[siteId]/siting', params: { siteId } })}
+                style={{ alignSelf: 'flex-start' }}
+              />
+            ) : null}
           </Card>
           <TerrainPanel site={s} canUpload={user?.role === 'planner'} />
           <AppText variant="heading">Coverage plans</AppText>

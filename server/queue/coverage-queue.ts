@@ -5,6 +5,9 @@ export type { CoverageQueue } from '@/server/domain/ports/coverage-queue';
 /** The pg-boss queue of plan coverage runs. */
 export const COVERAGE_QUEUE = 'plan-coverage';
 
+/** The pg-boss queue of siting runs (computed by the same workers). */
+export const SITING_QUEUE = 'site-siting';
+
 /** Longest a worker may hold a job before pg-boss hands it to another worker, seconds. */
 const JOB_EXPIRY_S = 30 * 60;
 
@@ -12,6 +15,8 @@ const JOB_EXPIRY_S = 30 * 60;
 export interface CoverageBoss {
   readonly boss: PgBoss;
   readonly queue: CoverageQueue;
+  /** The siting runs' queue (same port: enqueue a run id, cancel a job). */
+  readonly sitingQueue: CoverageQueue;
   stop(): Promise<void>;
 }
 
@@ -42,7 +47,18 @@ export async function startCoverageBoss(databaseUrl: string, options: { supervis
       await boss.cancel(COVERAGE_QUEUE, jobId);
     },
   };
-  return { boss, queue, stop: () => boss.stop({ graceful: true, timeout: 10_000 }) };
+  await boss.createQueue(SITING_QUEUE, { name: SITING_QUEUE, retryLimit: 0, expireInSeconds: JOB_EXPIRY_S });
+  const sitingQueue: CoverageQueue = {
+    async enqueue(runId) {
+      const id = await boss.send(SITING_QUEUE, { runId });
+      if (!id) throw new Error('The job queue did not accept the run.');
+      return id;
+    },
+    async cancel(jobId) {
+      await boss.cancel(SITING_QUEUE, jobId);
+    },
+  };
+  return { boss, queue, sitingQueue, stop: () => boss.stop({ graceful: true, timeout: 10_000 }) };
 }
 
 /**
@@ -60,4 +76,11 @@ export async function workCoverageQueue(
       if (job) await handle(job.data.runId, job.data.attempt);
     },
   );
+}
+
+/** Takes siting jobs off the queue one at a time and hands each run id to `handle`. */
+export async function workSitingQueue(boss: PgBoss, handle: (runId: string) => Promise<void>): Promise<string> {
+  return boss.work<{ runId: string }>(SITING_QUEUE, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
+    if (job) await handle(job.data.runId);
+  });
 }

@@ -3,7 +3,8 @@ import { createDatabase } from '@/server/data/database';
 import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
 import { startStaleRunReaper, withHeartbeat } from '@/server/domain/coverage/run-heartbeat';
 import { cachingViewsheds } from '@/server/domain/coverage/viewshed-cache';
-import { startCoverageBoss, workCoverageQueue } from '@/server/queue/coverage-queue';
+import { startCoverageBoss, workCoverageQueue, workSitingQueue } from '@/server/queue/coverage-queue';
+import { processSitingRun } from '@/server/domain/siting/process-siting-run';
 import { createDiskFileStore } from '@/server/storage/file-store';
 import { createTerrainCache } from '@/server/terrain/terrain-cache';
 import { createViewshedPool } from './viewshed-pool';
@@ -29,6 +30,9 @@ async function main() {
       attempt,
     });
     console.log(`[kenning] coverage run ${runId}: ${outcome}`);
+  });
+  await workSitingQueue(boss, async (runId) => {
+    console.log(`[kenning] siting run ${runId}: ${await processSitingRun({ db, cache, computeViewsheds }, runId)}`);
   });
   // Any live worker queues again (once), then fails, the runs of workers that died mid-run.
   const reaper = startStaleRunReaper(db, { requeue: (runId, next) => queue.enqueue(runId, next) });

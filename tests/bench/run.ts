@@ -51,6 +51,10 @@ async function main() {
       await benchLists(process.env.KENNING_BENCH_DATABASE_URL),
     );
   }
+  if (!only || only === 'siting') {
+    const { benchSiting } = await import('./siting.bench');
+    print('Tower siting: the choice alone (100 candidates × 3 heights, 2000², one condition)', await benchSiting());
+  }
   const viewshed = path.join(__dirname, 'viewshed.bench.ts');
   if ((!only || only === 'viewshed') && existsSync(viewshed)) {
     // Imported by path: the terrain benchmark may not exist on older checkouts.

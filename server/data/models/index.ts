@@ -11,6 +11,7 @@ import { PriorityZoneModel, SiteModel } from './site';
 import { SiteTerrainModel } from './site-terrain';
 import { SweepWidthTableModel } from './sweep-width-table';
 import { CoverageLayerModel, CoverageRunModel } from './coverage-run';
+import { SitingRunModel } from './siting-run';
 import { FieldCalibrationModel } from './field-calibration';
 import { TrainerCourseAssigneeModel, TrainerCourseAttemptModel, TrainerCourseModel } from './trainer-course';
 import { TrainerDrillModel } from './trainer-drill';
@@ -34,6 +35,7 @@ export {
   PriorityZoneModel,
   SiteModel,
   SiteTerrainModel,
+  SitingRunModel,
   SweepWidthTableModel,
   FieldCalibrationModel,
   TrainerCourseAssigneeModel,
@@ -66,6 +68,7 @@ export function initModels(sequelize: Sequelize): void {
   SiteTerrainModel.register(sequelize);
   CoverageRunModel.register(sequelize);
   CoverageLayerModel.register(sequelize);
+  SitingRunModel.register(sequelize);
   SweepWidthTableModel.register(sequelize);
   IncidentModel.register(sequelize);
   IncidentEntryModel.register(sequelize);

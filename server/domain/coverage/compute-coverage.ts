@@ -74,7 +74,7 @@ export function ringOnGrid(projection: GridProjection, ring: readonly (readonly 
  * targets' range limits (a target nothing but the geometry limits: no
  * limit), at least one cell.
  */
-function viewshedRange(detections: readonly DetectionRange[], cellSizeM: number): number | null {
+export function viewshedRange(detections: readonly DetectionRange[], cellSizeM: number): number | null {
   let farthest = 0;
   for (const d of detections) {
     if (d.rangeLimit.rangeM === null) return null;
@@ -226,7 +226,7 @@ export async function computeCoverage(
 }
 
 /** The site, its zones and (for targets on water) their sea parts as masks on the terrain grid. */
-function coverageAreas(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
+export function coverageAreas(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
   const toRing = (ring: [number, number][]) => ringOnGrid(projection, ring);
   const siteMask = inputs.site.boundary ? rasterizePolygon(terrain, [toRing(inputs.site.boundary)]) : null;
   const zones = inputs.site.zones.map((z) => ({
@@ -243,7 +243,7 @@ function coverageAreas(inputs: CoverageRunInputs, terrain: TerrainRaster, projec
 }
 
 /** Each post's cell, eye height, sector (radians) and grid convergence; a post off the grid is refused by name. */
-function placePosts(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
+export function placePosts(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
   const flat = inputs.terrain === null;
   return inputs.posts.map((p) => {
     const { x, y } = projection.toGrid({ latDeg: p.latDeg, lonDeg: p.lonDeg });
@@ -269,7 +269,7 @@ function placePosts(inputs: CoverageRunInputs, terrain: TerrainRaster, projectio
  * evaluates. Progress is reported as viewsheds finish; the first report that
  * throws (a cancel) stops the run after the batch.
  */
-async function networkOf(
+export async function networkOf(
   posts: ReturnType<typeof placePosts>,
   terrain: TerrainRaster,
   conditions: SightConditions,

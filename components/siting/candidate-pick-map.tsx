@@ -1,0 +1,76 @@
+import { useMemo, useState } from 'react';
+import { View } from 'react-native';
+import Svg, { Circle } from 'react-native-svg';
+import type { Post, Site } from '@/shared/schemas/site';
+import { useCoordinateFormat } from '@/components/map/coordinate-format';
+import { gridToScreen } from '@/components/map/map-camera';
+import { MapViewport } from '@/components/map/map-viewport';
+import { createReadoutStore } from '@/components/map/readout-store';
+import { siteMapFrame } from '@/components/map/site-map-frame';
+import { useSiteTerrain } from '@/components/data/terrain';
+import { AppText } from '@/components/ui/app-text';
+import { colors, radius } from '@/components/ui/theme';
+import { useLayout } from '@/components/ui/use-layout';
+
+/**
+ * The site map (hillshade, boundary, zones, posts) for picking a candidate by
+ * tapping: each tap hands the point's latitude and longitude to `onPick`;
+ * the points picked so far are drawn as rings.
+ */
+export function CandidatePickMap({
+  site,
+  posts,
+  picked,
+  onPick,
+}: {
+  site: Site;
+  posts: readonly Post[];
+  picked: readonly { latDeg: number; lonDeg: number }[];
+  onPick: (at: { latDeg: number; lonDeg: number }) => void;
+}) {
+  const terrain = useSiteTerrain(site.id);
+  const { wide } = useLayout();
+  const [readout] = useState(createReadoutStore);
+  const [format, setFormat] = useCoordinateFormat();
+  const frame = useMemo(
+    () => (terrain.isPending ? null : siteMapFrame(site, posts, terrain.data ?? null)),
+    [site, posts, terrain.isPending, terrain.data],
+  );
+  if (!frame) return <AppText tone="muted">Loading the map…</AppText>;
+  const points = picked.map((p) => frame.projection.toGrid(p));
+  return (
+    <View
+      style={{ height: wide ? 420 : 340, borderRadius: radius.md, overflow: 'hidden', borderWidth: 1, borderColor: colors.line }}
+    >
+      <MapViewport
+        frame={frame}
+        units={site.defaultUnits}
+        chosenPostId={null}
+        targets={[]}
+        shown={null}
+        focus={null}
+        readout={readout}
+        format={format}
+        onFormat={setFormat}
+        onTap={(point) => onPick(frame.projection.toLatLon(point.x, point.y))}
+        label="Site map: tap a place to take it as a candidate"
+        overlay={({ camera, size, margin }) => (
+          <Svg
+            width={size.width + 2 * margin}
+            height={size.height + 2 * margin}
+            style={{ position: 'absolute', left: -margin, top: -margin }}
+            pointerEvents="none"
+            aria-hidden
+          >
+            {points.map((p, i) => {
+              const s = gridToScreen(camera, size, p.x, p.y);
+              return (
+                <Circle key={i} cx={s.x + margin} cy={s.y + margin} r={8} fill="none" stroke={colors.ember} strokeWidth={3} />
+              );
+            })}
+          </Svg>
+        )}
+      />
+    </View>
+  );
+}

@@ -1,0 +1,272 @@
+import { rm } from 'node:fs/promises';
+import type { Express } from 'express';
+import type { Sequelize } from 'sequelize';
+import type request from 'supertest';
+import { CoverageRunSchema, type CoverageRun } from '@/shared/schemas/coverage';
+import { SitingRunSchema, type SitingRun } from '@/shared/schemas/siting';
+import { fromUtm } from '@/shared/geo/from-utm';
+import { createApp } from '@/server/app';
+import { ConditionSetModel, PlanModel, PostModel, SiteModel, TargetProfileModel } from '@/server/data/models';
+import { sitingRepository } from '@/server/data/repositories/siting-repository';
+import type { ComputeViewsheds } from '@/server/domain/coverage/compute-coverage';
+import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
+import { processSitingRun } from '@/server/domain/siting/process-siting-run';
+import { startCoverageBoss, workCoverageQueue, workSitingQueue, type CoverageBoss } from '@/server/queue/coverage-queue';
+import { createTerrainCache, type TerrainCache } from '@/server/terrain/terrain-cache';
+import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
+import { DEMO, signedInAgent } from '@/tests/support/agents';
+import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+
+/*
+ * Siting runs through the real job queue (pg-boss on the test database) and a
+ * worker in this process that takes both siting and coverage jobs.
+ */
+
+let db: Sequelize;
+let url: string;
+let drop: () => Promise<void>;
+let filesDir: string;
+let cache: TerrainCache;
+let pool: ViewshedPool;
+let boss: CoverageBoss;
+let app: Express;
+let planner: request.Agent;
+
+const wait = (ms: number) => new Promise((r) => setTimeout(r, ms));
+const utm33 = (easting: number, northing: number) => {
+  const p = fromUtm({ zone: 33, hemisphere: 'N', easting, northing });
+  return { latDeg: p.latDeg, lonDeg: p.lonDeg };
+};
+
+async function startWorker(options: { gate?: () => Promise<void> } = {}) {
+  const worker = await startCoverageBoss(url, { supervise: false });
+  const viewsheds = poolViewsheds(pool);
+  const computeViewsheds: ComputeViewsheds = async (terrain, jobs, onDone) => {
+    await options.gate?.();
+    return viewsheds(terrain, jobs, onDone);
+  };
+  const outcomes: string[] = [];
+  const deps = { db, cache, computeViewsheds, progressEveryMs: 0 };
+  await workSitingQueue(worker.boss, async (runId) => {
+    outcomes.push(await processSitingRun(deps, runId));
+  });
+  await workCoverageQueue(worker.boss, async (runId) => {
+    await processCoverageRun({ ...deps, computeViewsheds: viewsheds }, runId);
+  });
+  return { ...worker, outcomes };
+}
+
+async function waitFor<T>(agent: request.Agent, path: string, parse: (body: unknown) => T, until: (x: T) => boolean) {
+  for (let i = 0; i < 900; i++) {
+    const value = parse((await agent.get(path).expect(200)).body);
+    if (until(value)) return value;
+    await wait(200);
+  }
+  throw new Error(`${path} did not reach the expected state`);
+}
+const sitingRun = (agent: request.Agent, id: string, until: (r: SitingRun) => boolean) =>
+  waitFor(agent, `/api/v1/siting-runs/${id}`, (b) => SitingRunSchema.parse((b as { run: unknown }).run), until);
+const coverageRun = (agent: request.Agent, id: string, until: (r: CoverageRun) => boolean) =>
+  waitFor(agent, `/api/v1/coverage-runs/${id}`, (b) => CoverageRunSchema.parse((b as { run: unknown }).run), until);
+
+let forestId: string;
+let existing: string[];
+let proposed: string;
+let targetId: string;
+let conditionSetId: string;
+
+/** Four candidates on the forest: the proposed Blackmoss tower and three points of the demo terrain. */
+const fourCandidates = () => [
+  { postId: proposed },
+  { ...utm33(524_662.5, 5_740_437.5), name: 'High summit' },
+  { ...utm33(518_500, 5_738_500), name: 'Old-growth knoll' },
+  { ...utm33(521_000, 5_743_000), name: 'North shoulder' },
+];
+
+beforeAll(async () => {
+  ({ db, url, drop } = await createTestDatabase());
+  const store = scratchFileStore();
+  filesDir = store.filesDir;
+  cache = createTerrainCache({ files: store.files, maxBytes: 2 ** 28 });
+  pool = createViewshedPool({ size: 1 });
+  boss = await startCoverageBoss(url);
+  app = createApp({
+    db,
+    config: TEST_CONFIG,
+    files: store.files,
+    terrainCache: cache,
+    coverageQueue: boss.queue,
+    sitingQueue: boss.sitingQueue,
+  });
+  planner = await signedInAgent(app, DEMO.planner);
+  const forest = await SiteModel.findOne({ where: { name: 'Harrowmere Forest District' } });
+  forestId = forest!.id;
+  const posts = await PostModel.findAll({ where: { siteId: forestId } });
+  existing = posts.filter((p) => p.status === 'existing').map((p) => p.id);
+  proposed = posts.find((p) => p.status === 'proposed')!.id;
+  targetId = (await TargetProfileModel.findOne({
+    where: { name: 'Early smoke column', organizationId: forest!.organizationId },
+  }))!.id;
+  conditionSetId = (await ConditionSetModel.findOne({
+    where: { name: 'Refraction spread', organizationId: forest!.organizationId },
+  }))!.id;
+});
+afterAll(async () => {
+  await boss.stop();
+  await pool.close();
+  await drop();
+  await rm(filesDir, { recursive: true, force: true });
+});
+
+const request1 = () => ({
+  candidates: fourCandidates(),
+  heightsM: [0, 15, 30],
+  keepPostIds: existing,
+  count: 2,
+  targetId,
+  conditionSetId,
+  objective: { minPosts: 1, zoneWeights: true },
+});
+
+describe('siting runs', () => {
+  it('reports the same seen area as a coverage run of the draft plan it makes (same cells, same figure)', async () => {
+    const worker = await startWorker();
+    try {
+      const queued = await planner.post(`/api/v1/sites/${forestId}/siting-runs`).send(request1()).expect(202);
+      expect(queued.body.run).toMatchObject({ status: 'queued', steps: [], chosen: [] });
+      const done = await sitingRun(planner, queued.body.run.id, (r) => r.status === 'done');
+      // 4 candidates × 3 heights = 12 options, 2 new posts: small enough to be solved exactly.
+      expect(done.method).toBe('exact');
+      expect(done.steps).toHaveLength(2);
+      expect(new Set(done.chosen.map((c) => c.candidate.index)).size).toBe(2);
+      // The curve rises (each step adds ≥ 0) from what the kept towers see.
+      expect(done.steps[0]!.totalSeenM2).toBeGreaterThanOrEqual(done.keptSeenM2!);
+      expect(done.steps[1]!.totalSeenM2).toBeGreaterThanOrEqual(done.steps[0]!.totalSeenM2);
+      expect(done.steps[1]!.totalSeenM2 - done.steps[0]!.totalSeenM2).toBeCloseTo(done.steps[1]!.gainM2, 3);
+      expect(done.addedLayer).not.toBeNull();
+
+      // The same request again: the same frozen inputs and the same choice (reproducible).
+      const again = await planner.post(`/api/v1/sites/${forestId}/siting-runs`).send(request1()).expect(202);
+      const second = await sitingRun(planner, again.body.run.id, (r) => r.status === 'done');
+      expect(second.inputsHash).toBe(done.inputsHash);
+      expect(second.chosen).toEqual(done.chosen);
+
+      // A draft plan with the kept and chosen posts …
+      const made = await planner.post(`/api/v1/siting-runs/${done.id}/plan`).expect(201);
+      const plan = made.body.plan;
+      expect(plan).toMatchObject({ status: 'draft', siteId: forestId, targetIds: [targetId], conditionSetIds: [conditionSetId] });
+      expect(plan.postIds).toHaveLength(existing.length + 2);
+      expect((await planner.post(`/api/v1/siting-runs/${done.id}/plan`)).status).toBe(409);
+      // … whose coverage run sees exactly what the siting run said, condition by condition.
+      // Source: the objective counts a coverage run's own cells (countPostsPerCell, site mask), so the
+      // areas must be equal to the cell (common practice, no source).
+      const cov = await planner.post(`/api/v1/plans/${plan.id}/coverage`).send({}).expect(202);
+      const run = await coverageRun(planner, cov.body.run.id, (r) => r.status === 'done' || r.status === 'failed');
+      expect(run.status).toBe('done');
+      const last = done.steps.at(-1)!;
+      expect(last.byCondition.length).toBe(run.cases.length);
+      for (const figure of last.byCondition) {
+        const c = run.cases.find((k) => k.key === figure.caseKey)!;
+        expect(c).toBeDefined();
+        expect(figure.seenM2).toBe(c.site.seenBy1.area);
+        expect(figure.seenPct).toBeCloseTo(c.site.seenBy1.pct, 9);
+      }
+    } finally {
+      await worker.stop();
+    }
+  });
+
+  it('the fix objective (two posts, good cross-bearings) matches the coverage run too', async () => {
+    const worker = await startWorker();
+    try {
+      const body = { ...request1(), objective: { minPosts: 2, zoneWeights: false } };
+      const queued = await planner.post(`/api/v1/sites/${forestId}/siting-runs`).send(body).expect(202);
+      const done = await sitingRun(planner, queued.body.run.id, (r) => r.status === 'done');
+      const plan = (await planner.post(`/api/v1/siting-runs/${done.id}/plan`).expect(201)).body.plan;
+      const cov = await planner.post(`/api/v1/plans/${plan.id}/coverage`).send({}).expect(202);
+      const run = await coverageRun(planner, cov.body.run.id, (r) => r.status === 'done');
+      for (const figure of done.steps.at(-1)!.byCondition) {
+        const c = run.cases.find((k) => k.key === figure.caseKey)!;
+        expect(figure.seenM2).toBe(c.site.goodCrossBearing.area);
+      }
+    } finally {
+      await worker.stop();
+    }
+  });
+
+  it('a run cancelled while it computes keeps nothing', async () => {
+    let release!: () => void;
+    const held = new Promise<void>((r) => (release = r));
+    let entered!: () => void;
+    const inside = new Promise<void>((r) => (entered = r));
+    const worker = await startWorker({
+      gate: async () => {
+        entered();
+        await held;
+      },
+    });
+    try {
+      const runId: string = (await planner.post(`/api/v1/sites/${forestId}/siting-runs`).send(request1()).expect(202)).body.run
+        .id;
+      await inside;
+      await sitingRun(planner, runId, (r) => r.status === 'running');
+      expect((await (await signedInAgent(app, DEMO.reviewer)).post(`/api/v1/siting-runs/${runId}/cancel`)).status).toBe(403);
+      const cancelled = await planner.post(`/api/v1/siting-runs/${runId}/cancel`).expect(200);
+      expect(cancelled.body.run.status).toBe('cancelled');
+      release();
+      for (let i = 0; i < 100 && worker.outcomes.length === 0; i++) await wait(100);
+      expect(worker.outcomes).toEqual(['cancelled']);
+      const after = SitingRunSchema.parse((await planner.get(`/api/v1/siting-runs/${runId}`).expect(200)).body.run);
+      expect(after).toMatchObject({ status: 'cancelled', steps: [], chosen: [], addedLayer: null, method: null });
+      expect((await sitingRepository.findById(runId))!.result).toBeNull();
+      expect((await planner.post(`/api/v1/siting-runs/${runId}/cancel`)).status).toBe(409);
+      const plans = await PlanModel.count({ where: { siteId: forestId } });
+      expect((await planner.post(`/api/v1/siting-runs/${runId}/plan`)).status).toBe(409);
+      expect(await PlanModel.count({ where: { siteId: forestId } })).toBe(plans);
+    } finally {
+      release();
+      await worker.stop();
+    }
+  });
+
+  it('refuses bad input with 422, the field and the reason, and stores nothing', async () => {
+    const before = await sitingRepository.listInSite((await SiteModel.findByPk(forestId))!.organizationId, forestId, 100);
+    const bad = await planner
+      .post(`/api/v1/sites/${forestId}/siting-runs`)
+      .send({ ...request1(), heightsM: [-5], count: 0, objective: { minPosts: 3 } })
+      .expect(422);
+    expect(bad.body.error.code).toBe('invalid_input');
+    expect(bad.body.error.fields['heightsM.0']).toMatch(/negative/);
+    expect(bad.body.error.fields.count).toMatch(/at least 1/i);
+    expect(bad.body.error.fields['objective.minPosts']).toMatch(/1 or 2/);
+
+    const strangers = await planner
+      .post(`/api/v1/sites/${forestId}/siting-runs`)
+      .send({ ...request1(), candidates: [{ postId: existing[0] }, { postId: '00000000-0000-4000-8000-000000000000' }] })
+      .expect(422);
+    expect(strangers.body.error.fields['candidates.0.postId']).toMatch(/kept already/);
+    expect(strangers.body.error.fields['candidates.1.postId']).toMatch(/No such post/);
+
+    const noTarget = await planner
+      .post(`/api/v1/sites/${forestId}/siting-runs`)
+      .send({ ...request1(), targetId: '00000000-0000-4000-8000-000000000000' })
+      .expect(422);
+    expect(noTarget.body.error.fields.targetId).toMatch(/No such target/);
+
+    const budgetAlone = await planner
+      .post(`/api/v1/sites/${forestId}/siting-runs`)
+      .send({ ...request1(), budget: 100 })
+      .expect(422);
+    expect(budgetAlone.body.error.fields.budget).toMatch(/costs/);
+
+    // Observers cannot start runs; another organisation's site is not found.
+    expect(
+      (await (await signedInAgent(app, DEMO.observer)).post(`/api/v1/sites/${forestId}/siting-runs`).send(request1())).status,
+    ).toBe(403);
+    expect(
+      (await (await signedInAgent(app, DEMO.otherPlanner)).post(`/api/v1/sites/${forestId}/siting-runs`).send(request1())).status,
+    ).toBe(404);
+    const after = await sitingRepository.listInSite((await SiteModel.findByPk(forestId))!.organizationId, forestId, 100);
+    expect(after.length).toBe(before.length);
+  });
+});

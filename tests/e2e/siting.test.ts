@@ -1,0 +1,138 @@
+import type { Browser } from 'playwright-core';
+import { fromUtm } from '@/shared/geo/from-utm';
+import { DEMO } from '@/tests/support/agents';
+import { launchBrowser, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { apiJson, shot, signIn, watchErrors } from '@/tests/support/e2e';
+
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser());
+});
+afterAll(() => close());
+
+/** Three invented places on the demo forest's grid (UTM 33N), typed as a coordinator would. */
+const POINTS = [
+  { e: 524_662.5, n: 5_740_437.5, name: 'High summit' },
+  { e: 518_500, n: 5_738_500, name: 'Old-growth knoll' },
+  { e: 521_000, n: 5_743_000, name: 'North shoulder' },
+].map((p) => ({ ...fromUtm({ zone: 33, hemisphere: 'N', easting: p.e, northing: p.n }), name: p.name }));
+
+interface RunBody {
+  status: string;
+  planId: string | null;
+  keptSeenPct: number;
+  steps: { totalSeenPct: number; candidate: { name: string } }[];
+}
+
+describe.each(Object.keys(VIEWPORTS) as ViewportName[])('tower siting on the %s viewport', (viewport) => {
+  it('a coordinator runs siting with four candidates and three heights, reads the curve, makes a draft plan and compares it', async () => {
+    const phone = viewport === 'phone';
+    const context = await browser.newContext({
+      viewport: VIEWPORTS[viewport],
+      deviceScaleFactor: 1,
+      hasTouch: phone,
+      serviceWorkers: 'block',
+    });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    try {
+      await signIn(page, DEMO.planner);
+      await page.getByRole('link', { name: 'Harrowmere Forest District' }).waitFor();
+      await page.getByRole('link', { name: 'Harrowmere Forest District' }).click();
+      await page.getByRole('link', { name: 'Where to put the next tower' }).click();
+      await page.waitForURL(/\/siting/);
+      const siteId = /\/sites\/([^/]+)\/siting/.exec(page.url())![1]!;
+
+      // Candidates: the proposed Blackmoss tower (ticked already) and three typed points; towers that
+      // earlier runs proposed (named "… · 30 m tower") are left out.
+      await page.getByRole('checkbox', { name: 'Blackmoss Tower', exact: true }).first().waitFor();
+      const earlier = page.getByRole('checkbox', { name: / · \d+ m tower$/, checked: true });
+      while ((await earlier.count()) > 0) await earlier.first().click();
+      // A tap on the site map fills in the point's latitude and longitude (typed exactly below).
+      await page.getByRole('button', { name: 'Pick a point on the map' }).click();
+      const pickMap = page.getByLabel('Site map: tap a place to take it as a candidate');
+      await pickMap.waitFor();
+      await pickMap.click();
+      const pointField = page.getByLabel('Point (lat, lon)');
+      for (let i = 0; i < 50 && (await pointField.inputValue()) === ''; i++) await page.waitForTimeout(100);
+      expect(await pointField.inputValue()).toMatch(/^5\d\.\d{6}, 1\d\.\d{6}$/);
+      await page.screenshot({ path: `/tmp/siting-pick-${viewport}.png` });
+      await page.getByRole('button', { name: 'Hide the map' }).click();
+      for (const p of POINTS) {
+        await page.getByLabel('Point (lat, lon)').fill(`${p.latDeg.toFixed(6)}, ${p.lonDeg.toFixed(6)}`);
+        await page.getByLabel('Its name').fill(p.name);
+        await page.getByRole('button', { name: 'Add the point' }).click();
+        await page.getByRole('checkbox', { name: p.name, exact: true }).waitFor();
+      }
+      // Three heights, two new towers, the early smoke under the refraction spread, seen by one post.
+      await page.getByLabel('Tower heights to try').fill('0, 15, 30');
+      await page.getByLabel('New towers to choose').fill('2');
+      await page.getByRole('group', { name: 'Target' }).getByRole('checkbox', { name: 'Early smoke column' }).click();
+      await page.getByRole('group', { name: 'Condition set' }).getByRole('checkbox', { name: 'Refraction spread' }).click();
+      const started = page.waitForResponse(
+        (r) => r.url().endsWith(`/sites/${siteId}/siting-runs`) && r.request().method() === 'POST',
+      );
+      await page.getByRole('button', { name: 'Find the best sites' }).click();
+      const answer = await started;
+      expect(answer.status()).toBe(202);
+      const runId = ((await answer.json()) as { run: { id: string } }).run.id;
+
+      // The result: the chosen towers in order, the curve, the map of what each adds. (The screen showed
+      // an earlier run's result before this one was asked for: wait until this run is done first.)
+      let run!: RunBody;
+      for (let i = 0; i < 180; i++) {
+        ({ run } = await apiJson<{ run: RunBody }>(page, 'GET', `/siting-runs/${runId}`));
+        if (run.status !== 'queued' && run.status !== 'running') break;
+        await page.waitForTimeout(1000);
+      }
+      expect(run.status).toBe('done');
+      await page.getByText('Coverage curve').waitFor({ timeout: 30_000 });
+      expect(run.steps).toHaveLength(2);
+      const curve = page.getByTestId('siting-curve');
+      // The curve's labels are the run's shares: the kept posts, then after each tower.
+      for (const pct of [run.keptSeenPct, ...run.steps.map((s) => s.totalSeenPct)]) {
+        await curve
+          .getByText(`${pct.toFixed(1)} %`)
+          .first()
+          .waitFor();
+      }
+      const steps = page.getByTestId('siting-steps');
+      await steps.getByText(new RegExp(`^1\\. ${run.steps[0]!.candidate.name}`)).waitFor();
+      await page.getByTestId('siting-added-map').waitFor();
+      await page.getByText(/Seen is not detected/).waitFor();
+      await steps.scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `/tmp/siting-steps-${viewport}.png` });
+      await curve.scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `/tmp/siting-curve-${viewport}.png` });
+      await page.getByTestId('siting-added-map').scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `/tmp/siting-map-${viewport}.png` });
+      await shot(page, 'siting-result', viewport);
+
+      // A draft plan from the result, computed, then compared with the approved plan.
+      await page.getByRole('button', { name: 'Make a draft plan' }).click();
+      await page.getByRole('link', { name: 'Open the draft plan' }).waitFor();
+      const { run: withPlan } = await apiJson<{ run: RunBody }>(page, 'GET', `/siting-runs/${runId}`);
+      const planId = withPlan.planId!;
+      expect(planId).toBeTruthy();
+      await page.getByRole('link', { name: 'Open the draft plan' }).click();
+      await page.waitForURL(new RegExp(`/plans/${planId}`));
+      const card = page.getByRole('region', { name: 'Terrain coverage' });
+      await card.getByRole('button', { name: 'Compute coverage' }).click();
+      await card
+        .getByText(/^(Meets|Does not meet) the standard$/)
+        .first()
+        .waitFor({ timeout: 180_000 });
+      await page.goBack();
+      await page.getByRole('link', { name: 'Compare with the approved plan' }).click();
+      await page.waitForURL(/\/plans\/compare\?/);
+      await page.getByText('What changes from A to B').waitFor({ timeout: 60_000 });
+      await page.getByText('What changes from A to B').scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `/tmp/siting-compare-${viewport}.png`, fullPage: true });
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
