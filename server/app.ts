@@ -27,6 +27,7 @@ import { exportRoutes } from './routes/exports';
 import { fixRoutes } from './routes/fixes';
 import { incidentRoutes } from './routes/incidents';
 import type { CoverageQueue } from './queue/coverage-queue';
+import type { VisibilityIndexQueue } from './queue/visibility-index-queue';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
 import { libraryRoutes } from './routes/library';
@@ -40,6 +41,7 @@ import { terrainRoutes } from './routes/terrain';
 import { createTerrainCache, type TerrainCache } from './terrain/terrain-cache';
 import { createTerrainIngestRunner, type TerrainIngestRunner } from './workers/terrain-ingest-runner';
 import { userRoutes } from './routes/users';
+import { visibilityIndexRoutes } from './routes/visibility-index';
 
 export interface AppDeps {
   db: Sequelize;
@@ -55,6 +57,8 @@ export interface AppDeps {
   terrainCache?: TerrainCache;
   /** The coverage job queue; null or absent: coverage runs cannot be started (they can still be read). */
   coverageQueue?: CoverageQueue | null;
+  /** The visibility index job queue; null or absent: only layers already computed can be read. */
+  visibilityIndexQueue?: VisibilityIndexQueue | null;
   /** Signed-in users kept for a few seconds (`startSessionUserCache`); absent: loaded on every request. */
   sessionUsers?: SessionUserCache<SessionUser> | null;
   config: Pick<
@@ -87,6 +91,7 @@ export function createApp({
   terrainIngest,
   terrainCache,
   coverageQueue = null,
+  visibilityIndexQueue = null,
   sessionUsers = null,
 }: AppDeps) {
   const app = express();
@@ -157,6 +162,7 @@ export function createApp({
   v1.use(reportRoutes(db, files));
   v1.use(incidentRoutes(db, publicUrl, mailer, cache));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
+  v1.use(visibilityIndexRoutes({ queue: visibilityIndexQueue }));
   v1.use(rosterRoutes(db));
   v1.use(attachmentRoutes(db, files, uploadTempDir));
   v1.use(userRoutes(db, publicUrl, mailer));

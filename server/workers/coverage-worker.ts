@@ -4,9 +4,12 @@ import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/proc
 import { startStaleRunReaper, withHeartbeat } from '@/server/domain/coverage/run-heartbeat';
 import { cachingViewsheds } from '@/server/domain/coverage/viewshed-cache';
 import { startCoverageBoss, workCoverageQueue } from '@/server/queue/coverage-queue';
+import { workVisibilityIndexQueue } from '@/server/queue/visibility-index-queue';
+import { processVisibilityIndex } from '@/server/domain/visibility-index/process-visibility-index';
 import { createDiskFileStore } from '@/server/storage/file-store';
 import { createTerrainCache } from '@/server/terrain/terrain-cache';
 import { createViewshedPool } from './viewshed-pool';
+import { threadedVisibilityIndex } from './visibility-index-pool';
 
 /**
  * A coverage worker process (`npm run worker`): takes plan coverage runs off
@@ -29,6 +32,12 @@ async function main() {
       attempt,
     });
     console.log(`[kenning] coverage run ${runId}: ${outcome}`);
+  });
+  // Visibility index layers (the siting heat map), on as many threads as the viewshed pool.
+  const computeIndex = threadedVisibilityIndex(pool.size);
+  await workVisibilityIndexQueue(boss, async (layerId) => {
+    const outcome = await processVisibilityIndex({ cache, compute: computeIndex }, layerId);
+    console.log(`[kenning] visibility index ${layerId}: ${outcome}`);
   });
   // Any live worker queues again (once), then fails, the runs of workers that died mid-run.
   const reaper = startStaleRunReaper(db, { requeue: (runId, next) => queue.enqueue(runId, next) });

@@ -219,5 +219,6 @@ function validate(
   if (!Number.isInteger(stride) || stride < 1) throw bad(`Stride must be an integer ≥ 1, got ${stride}.`);
   if (!Number.isFinite(k) || k >= 1) throw bad(`Refraction coefficient must be finite and < 1, got ${k}.`);
   if (!(R > 0) || !Number.isFinite(R)) throw bad(`Earth radius must be > 0 m, got ${R}.`);
-  if (mask !== null && mask.length !== terrain.width * terrain.height) throw bad('The site mask must have one byte per terrain cell.');
+  if (mask !== null && mask.length !== terrain.width * terrain.height)
+    throw bad('The site mask must have one byte per terrain cell.');
 }

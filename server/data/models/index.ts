@@ -15,6 +15,7 @@ import { FieldCalibrationModel } from './field-calibration';
 import { TrainerCourseAssigneeModel, TrainerCourseAttemptModel, TrainerCourseModel } from './trainer-course';
 import { TrainerDrillModel } from './trainer-drill';
 import { UserModel } from './user';
+import { VisibilityIndexLayerModel } from './visibility-index-layer';
 
 export {
   CoverageLayerModel,
@@ -41,6 +42,7 @@ export {
   TrainerCourseModel,
   TrainerDrillModel,
   UserModel,
+  VisibilityIndexLayerModel,
 };
 
 /** Registers every model and declares all associations, in one place. */
@@ -67,6 +69,7 @@ export function initModels(sequelize: Sequelize): void {
   CoverageRunModel.register(sequelize);
   CoverageLayerModel.register(sequelize);
   SweepWidthTableModel.register(sequelize);
+  VisibilityIndexLayerModel.register(sequelize);
   IncidentModel.register(sequelize);
   IncidentEntryModel.register(sequelize);
 

@@ -7,7 +7,16 @@ import { computeVisibilityIndex, VISIBILITY_INDEX_RAYS, visibilityIndexStride } 
 jest.setTimeout(120_000);
 
 function flat(width: number, height: number, cellSize: number): TerrainRaster {
-  return { heights: new Float32Array(width * height), width, height, cellSize, xll: 500_000, yll: 6_000_000, nodata: null, crs: null };
+  return {
+    heights: new Float32Array(width * height),
+    width,
+    height,
+    cellSize,
+    xll: 500_000,
+    yll: 6_000_000,
+    nodata: null,
+    crs: null,
+  };
 }
 
 describe('computeVisibilityIndex against closed forms', () => {
