@@ -117,27 +117,47 @@ export function computeVisibilityIndex(
   }
   const cellM2 = cellSize * cellSize;
 
+  // The rays' geometry is the same from every cell (the cells are whole steps apart), so the
+  // sample positions relative to the tower are laid out once: per ray and step, the cell below
+  // and left of the sample (whole cells from the tower), the fractions within it, and the
+  // nearest cell (for the site mask).
+  const S = steps + 1;
+  const colOf = new Int32Array(rays * S);
+  const rowOf = new Int32Array(rays * S);
+  const fracX = new Float64Array(rays * S);
+  const fracY = new Float64Array(rays * S);
+  const nearest = new Int32Array(rays * S);
+  for (let r = 0; r < rays; r++) {
+    for (let s = 1; s <= steps; s++) {
+      const vx = s * (dCol[r] as number);
+      const vy = s * (dRow[r] as number);
+      const i = r * S + s;
+      colOf[i] = Math.floor(vx);
+      rowOf[i] = Math.floor(vy);
+      fracX[i] = vx - Math.floor(vx);
+      fracY[i] = vy - Math.floor(vy);
+      nearest[i] = Math.round(vy) * W + Math.round(vx);
+    }
+  }
+
   for (let orow = rowFrom; orow < rowTo; orow++) {
     const r0 = Math.min(H - 1, orow * stride + offset);
     for (let ocol = colFrom; ocol < colTo; ocol++) {
       const c0 = Math.min(W - 1, ocol * stride + offset);
-      const ground = h[r0 * W + c0] as number;
+      const at = r0 * W + c0;
+      const ground = h[at] as number;
       if (ground === NEVER_BLOCKS) continue;
       const eye = ground + options.heightM;
-      let seen = mask === null || mask[r0 * W + c0] === 1 ? cellM2 : 0;
+      let seen = mask === null || mask[at] === 1 ? cellM2 : 0;
       for (let r = 0; r < rays; r++) {
-        const ux = dCol[r] as number;
-        const uy = dRow[r] as number;
+        const base = r * S;
+        const last = lastInside(colOf, rowOf, base, steps, c0, r0, W, H);
         let horizon = -Infinity; // largest elevation slope so far, metres per cell
-        for (let s = 1; s <= steps; s++) {
-          const x = c0 + s * ux;
-          const y = r0 + s * uy;
-          if (x < 0 || y < 0 || x > W - 1 || y > H - 1) break;
-          const xi = Math.min(x | 0, W - 2);
-          const yi = Math.min(y | 0, H - 2);
-          const fx = x - xi;
-          const fy = y - yi;
-          const p = yi * W + xi;
+        for (let s = 1; s <= last; s++) {
+          const i = base + s;
+          const fx = fracX[i] as number;
+          const fy = fracY[i] as number;
+          const p = at + (rowOf[i] as number) * W + (colOf[i] as number);
           const z00 = h[p] as number;
           const z01 = h[p + 1] as number;
           const z10 = h[p + W] as number;
@@ -148,7 +168,7 @@ export function computeVisibilityIndex(
           const slope = (z - (drop[s] as number) - eye) * (reciprocal[s] as number);
           if (slope >= horizon) {
             horizon = slope;
-            if (mask === null || mask[Math.round(y) * W + Math.round(x)] === 1) seen += sampleM2[s] as number;
+            if (mask === null || mask[at + (nearest[i] as number)] === 1) seen += sampleM2[s] as number;
           }
         }
       }
@@ -189,6 +209,34 @@ export function visibilityIndexStride(grid: GridSpec, radiusM: number, rays: num
     const cells = Math.ceil(grid.width / stride) * Math.ceil(grid.height / stride);
     if (cells * perCell <= sampleBudget || stride >= Math.max(grid.width, grid.height)) return stride;
   }
+}
+
+/**
+ * The last step of a ray (samples `base + 1 … base + steps` of the tables)
+ * whose bilinear patch lies wholly on the grid: 0 ≤ col, col + 1 ≤ W − 1 and
+ * the same for rows. The patch indexes only move away from the tower as the
+ * step grows, so the first step that leaves the grid ends the ray.
+ */
+function lastInside(
+  colOf: Int32Array,
+  rowOf: Int32Array,
+  base: number,
+  steps: number,
+  c0: number,
+  r0: number,
+  W: number,
+  H: number,
+): number {
+  let lo = 0; // known inside (step 0 is the tower)
+  let hi = steps + 1; // known outside or past the end
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    const c = c0 + (colOf[base + mid] as number);
+    const r = r0 + (rowOf[base + mid] as number);
+    if (c >= 0 && c <= W - 2 && r >= 0 && r <= H - 2) lo = mid;
+    else hi = mid;
+  }
+  return lo;
 }
 
 function indexRange(range: readonly [number, number] | undefined, size: number, what: string): readonly [number, number] {
