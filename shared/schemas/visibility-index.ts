@@ -10,7 +10,7 @@ export type VisibilityIndexStatus = (typeof VISIBILITY_INDEX_STATUSES)[number];
 export const VISIBILITY_INDEX_LIMITS = { maxHeightM: 200, minRadiusM: 250, maxRadiusM: 50_000 } as const;
 
 /** Classes of the map layer: 0 = not computed, 1…CLASS_COUNT = equal steps of seen area up to the largest. */
-export const VISIBILITY_INDEX_CLASS_COUNT = 8;
+export const VISIBILITY_INDEX_CLASS_COUNT = 6;
 
 const metres = (field: string) =>
   z.coerce

@@ -4,7 +4,11 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
 import type request from 'supertest';
-import { VisibilityIndexResponseSchema, type VisibilityIndex } from '@/shared/schemas/visibility-index';
+import {
+  VISIBILITY_INDEX_CLASS_COUNT,
+  VisibilityIndexResponseSchema,
+  type VisibilityIndex,
+} from '@/shared/schemas/visibility-index';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
 import { computeVisibilityIndex } from '@/shared/terrain/visibility-index';
 import { createApp } from '@/server/app';
@@ -114,11 +118,11 @@ describe('GET /api/v1/sites/:siteId/visibility-index', () => {
     expect(done.layer).not.toBeNull();
     const layer = done.layer!;
     // Classes are equal steps of seen area up to the largest; every evaluated cell falls in one.
-    expect(layer.classUpperM2).toHaveLength(8);
-    expect(layer.classUpperM2[7]).toBeGreaterThanOrEqual(layer.maxSeenM2);
+    expect(layer.classUpperM2).toHaveLength(VISIBILITY_INDEX_CLASS_COUNT);
+    expect(layer.classUpperM2.at(-1)).toBeGreaterThanOrEqual(layer.maxSeenM2);
     const classes = decodeClassRaster(layer.raster);
     expect(classes.length).toBe(layer.raster.width * layer.raster.height);
-    expect(classes.every((c) => c >= 1 && c <= 8)).toBe(true);
+    expect(classes.every((c) => c >= 1 && c <= VISIBILITY_INDEX_CLASS_COUNT)).toBe(true);
     expect(layer.raster.epsg).toBe(32629);
 
     // The stored seen areas are the core's own on the same terrain (the site has no boundary: the whole grid counts).
