@@ -1,5 +1,7 @@
 /* Port: the queue of visibility index jobs (pg-boss in server/queue, or computed in process). */
 
+import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+
 /** Hands a visibility index layer to a worker. */
 export interface VisibilityIndexQueue {
   /** Queues the layer's job; resolves with the queue's job id. */
@@ -11,7 +13,7 @@ export interface VisibilityIndexQueue {
  * the terrain and the settings; reports the share done (0–1) as it goes.
  */
 export type ComputeVisibilityIndexSeen = (
-  terrain: import('@/shared/terrain/terrain-raster').TerrainRaster,
+  terrain: TerrainRaster,
   options: {
     readonly heightM: number;
     readonly radiusM: number;
