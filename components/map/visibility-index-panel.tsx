@@ -59,7 +59,7 @@ export function useVisibilityIndexOverlay(
   else if (data?.status === 'running') status = `Computing the heat map… ${Math.round(data.progress * 100)} %`;
   else if (data?.status === 'failed') status = `The heat map failed: ${data.error ?? 'no reason given'}`;
   else if (data?.status === 'done' && data.strideCells !== null) {
-    status = `Every ${data.strideCells === 1 ? '' : `${data.strideCells}th `}cell of the terrain, ${data.rays} rays each.`;
+    status = `${data.strideCells === 1 ? 'Every cell' : `One cell in ${data.strideCells} each way`} of the terrain, ${data.rays} rays from each.`;
   } else if (on && index.isPending) status = 'Asking for the heat map…';
 
   const panel = (
