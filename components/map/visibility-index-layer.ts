@@ -28,17 +28,17 @@ export function areaText(m2: number, distanceUnit: LengthUnit): string {
  * the person's area units (km², nmi² or mi² after their distance unit).
  *
  * @example
- * visibilityIndexMapLayer(index.layer, 20, 'km').palette.classes[0].label; // "up to 4.10 km²"
+ * visibilityIndexMapLayer(index.layer, '20 m', 'km').palette.classes[0].label; // "up to 4.10 km²"
  */
 export function visibilityIndexMapLayer(
   layer: VisibilityIndexMapLayer,
-  heightM: number,
+  heightText: string,
   distanceUnit: LengthUnit,
 ): MapCoverageLayer {
   const classes: PaletteClass[] = layer.classUpperM2.map((upper, c) => ({
     code: c + 1,
     label: `${c === 0 ? 'up to' : areaText(layer.classUpperM2[c - 1] as number, distanceUnit) + ' –'} ${areaText(upper, distanceUnit)}`,
-    meaning: `A ${Math.round(heightM)} m tower here would see ${c === 0 ? 'up to' : 'between ' + areaText(layer.classUpperM2[c - 1] as number, distanceUnit) + ' and'} ${areaText(upper, distanceUnit)} of the site's ground within the radius.`,
+    meaning: `A ${heightText} tower here would see ${c === 0 ? 'up to' : 'between ' + areaText(layer.classUpperM2[c - 1] as number, distanceUnit) + ' and'} ${areaText(upper, distanceUnit)} of the site's ground within the radius.`,
     color: RAMP[Math.round((c * (RAMP.length - 1)) / Math.max(1, layer.classUpperM2.length - 1))] ?? null,
   }));
   classes.push({ code: 0, label: 'Not assessed', meaning: 'No terrain data at this cell.', color: null });

@@ -50,8 +50,8 @@ export function useVisibilityIndexOverlay(
   const [radiusM, setRadiusM] = useState(10_000);
   const index = useVisibilityIndex(siteId, on ? { heightM, radiusM } : null);
   const data = on ? index.data : undefined;
-  const layer = data?.layer ? visibilityIndexMapLayer(data.layer, heightM, units.distance) : null;
   const lengthLabel = (m: number, unit: typeof units.height) => `${Math.round(convertLength(m, 'm', unit))} ${unit}`;
+  const layer = data?.layer ? visibilityIndexMapLayer(data.layer, lengthLabel(heightM, units.height), units.distance) : null;
 
   let status: string | null = null;
   if (on && index.isError) status = `The heat map could not be loaded: ${index.error.message}`;

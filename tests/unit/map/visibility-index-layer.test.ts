@@ -21,7 +21,7 @@ describe('visibilityIndexMapLayer', () => {
   };
 
   test('labels each class by its bounds in the person’s area unit, lightest first, and leaves no data undrawn', () => {
-    const { palette } = visibilityIndexMapLayer(layer, 20, 'km');
+    const { palette } = visibilityIndexMapLayer(layer, '20 m', 'km');
     expect(palette.classes.map((c) => c.label)).toEqual([
       'up to 1.00 km²',
       '1.00 km² – 2.00 km²',
@@ -40,7 +40,8 @@ describe('visibilityIndexMapLayer', () => {
   });
 
   test('nautical units restate the bounds in nmi²', () => {
-    const { palette } = visibilityIndexMapLayer(layer, 20, 'nmi');
+    const { palette } = visibilityIndexMapLayer(layer, '66 ft', 'nmi');
     expect(palette.classes[0]?.label).toBe(`up to ${(1e6 / 1852 ** 2).toFixed(2)} nmi²`);
+    expect(palette.classes[0]?.meaning).toMatch(/^A 66 ft tower here/);
   });
 });
