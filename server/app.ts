@@ -28,6 +28,7 @@ import { fixRoutes } from './routes/fixes';
 import { incidentRoutes } from './routes/incidents';
 import { sitingRoutes } from './routes/siting';
 import type { CoverageQueue } from './queue/coverage-queue';
+import type { VisibilityIndexQueue } from './queue/visibility-index-queue';
 import { authRoutes } from './routes/auth';
 import { healthRoutes } from './routes/health';
 import { libraryRoutes } from './routes/library';
@@ -41,6 +42,7 @@ import { terrainRoutes } from './routes/terrain';
 import { createTerrainCache, type TerrainCache } from './terrain/terrain-cache';
 import { createTerrainIngestRunner, type TerrainIngestRunner } from './workers/terrain-ingest-runner';
 import { userRoutes } from './routes/users';
+import { visibilityIndexRoutes } from './routes/visibility-index';
 
 export interface AppDeps {
   db: Sequelize;
@@ -58,6 +60,8 @@ export interface AppDeps {
   coverageQueue?: CoverageQueue | null;
   /** The siting job queue; null or absent: siting runs cannot be started (they can still be read). */
   sitingQueue?: CoverageQueue | null;
+  /** The visibility index job queue; null or absent: only layers already computed can be read. */
+  visibilityIndexQueue?: VisibilityIndexQueue | null;
   /** Signed-in users kept for a few seconds (`startSessionUserCache`); absent: loaded on every request. */
   sessionUsers?: SessionUserCache<SessionUser> | null;
   config: Pick<
@@ -91,6 +95,7 @@ export function createApp({
   terrainCache,
   coverageQueue = null,
   sitingQueue = null,
+  visibilityIndexQueue = null,
   sessionUsers = null,
 }: AppDeps) {
   const app = express();
@@ -162,6 +167,7 @@ export function createApp({
   v1.use(incidentRoutes(db, publicUrl, mailer, cache));
   v1.use(coverageRoutes({ db, queue: coverageQueue }));
   v1.use(sitingRoutes({ db, queue: sitingQueue }));
+  v1.use(visibilityIndexRoutes({ queue: visibilityIndexQueue }));
   v1.use(rosterRoutes(db));
   v1.use(attachmentRoutes(db, files, uploadTempDir));
   v1.use(userRoutes(db, publicUrl, mailer));

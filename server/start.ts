@@ -10,6 +10,7 @@ import { loadSessionUser } from './http/session';
 import { startSessionUserCache } from './http/session-user-cache';
 import { createMailer } from './mail/mailer';
 import { startCoverageBoss, type CoverageQueue } from './queue/coverage-queue';
+import { visibilityIndexQueue } from './queue/visibility-index-queue';
 import { DEFAULT_ATTACHMENT_UPLOAD_DIR } from './routes/attachments';
 import { cleanStaleUploads } from './storage/clean-stale-uploads';
 import { createDiskFileStore } from './storage/file-store';
@@ -79,6 +80,7 @@ async function serveApi(cfg: Config, { chores }: { chores: boolean }) {
     files: createDiskFileStore(cfg.FILE_STORE_DIR),
     coverageQueue: coverage.queue,
     sitingQueue: coverage.sitingQueue,
+    visibilityIndexQueue: await visibilityIndexQueue(coverage.boss),
     sessionUsers: sessionUsers.cache,
   });
   const server: Server = await new Promise((resolve) => {

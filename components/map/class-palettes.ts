@@ -34,7 +34,8 @@ export interface PaletteClass {
 
 /** A layer's classes, in legend order. */
 export interface ClassPalette {
-  readonly id: CoverageLayerKind;
+  /** A coverage layer's kind, or 'visibility-index' (the site map's tower heat map, legend made per layer). */
+  readonly id: CoverageLayerKind | 'visibility-index';
   /** Legend heading. */
   readonly title: string;
   /** Opacity of the drawn classes over the base map, 0 … 1. */

@@ -31,6 +31,7 @@ import { ProfilePanel } from './profile-panel';
 import { createReadoutStore } from './readout-store';
 import { siteMapFrame, type SiteMapFrame } from './site-map-frame';
 import { Terrain3d } from './terrain-3d';
+import { useVisibilityIndexOverlay } from './visibility-index-panel';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
 
 export interface SiteMapScreenProps {
@@ -74,6 +75,9 @@ export function SiteMapScreen({
   const posts = useSitePosts(siteId);
   const terrain = useSiteTerrain(siteId);
   const incidents = useMapIncidents(siteId, focusIncidentId);
+  // The tower heat map is offered on the plain site map (a run's map has its own layers).
+  const heat = useVisibilityIndexOverlay(siteId, site.data?.defaultUnits);
+  const plain = coverageLayers.length === 0 && !coveragePanel;
   if (site.isPending || posts.isPending || terrain.isPending || incidents.focusPending) {
     return <LoadingState label="Loading the map…" />;
   }
@@ -87,8 +91,8 @@ export function SiteMapScreen({
       terrain={terrain.data}
       focusPostId={focusPostId}
       focusAt={focusAt ?? incidents.focusFix}
-      coverageLayers={coverageLayers}
-      coveragePanel={coveragePanel}
+      coverageLayers={plain ? (heat.layer ? [heat.layer] : []) : coverageLayers}
+      coveragePanel={plain && terrain.data ? heat.panel : coveragePanel}
       onChosenPost={onChosenPost}
       outlineBlindArea={outlineBlindArea}
       incidents={incidents.details}

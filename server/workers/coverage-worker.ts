@@ -5,9 +5,12 @@ import { startStaleRunReaper, withHeartbeat } from '@/server/domain/coverage/run
 import { cachingViewsheds } from '@/server/domain/coverage/viewshed-cache';
 import { startCoverageBoss, workCoverageQueue, workSitingQueue } from '@/server/queue/coverage-queue';
 import { processSitingRun } from '@/server/domain/siting/process-siting-run';
+import { workVisibilityIndexQueue } from '@/server/queue/visibility-index-queue';
+import { processVisibilityIndex } from '@/server/domain/visibility-index/process-visibility-index';
 import { createDiskFileStore } from '@/server/storage/file-store';
 import { createTerrainCache } from '@/server/terrain/terrain-cache';
 import { createViewshedPool } from './viewshed-pool';
+import { threadedVisibilityIndex } from './visibility-index-pool';
 
 /**
  * A coverage worker process (`npm run worker`): takes plan coverage runs off
@@ -33,6 +36,12 @@ async function main() {
   });
   await workSitingQueue(boss, async (runId) => {
     console.log(`[kenning] siting run ${runId}: ${await processSitingRun({ db, cache, computeViewsheds }, runId)}`);
+  });
+  // Visibility index layers (the siting heat map), on as many threads as the viewshed pool.
+  const computeIndex = threadedVisibilityIndex(pool.size);
+  await workVisibilityIndexQueue(boss, async (layerId) => {
+    const outcome = await processVisibilityIndex({ cache, compute: computeIndex }, layerId);
+    console.log(`[kenning] visibility index ${layerId}: ${outcome}`);
   });
   // Any live worker queues again (once), then fails, the runs of workers that died mid-run.
   const reaper = startStaleRunReaper(db, { requeue: (runId, next) => queue.enqueue(runId, next) });

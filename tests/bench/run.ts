@@ -66,6 +66,10 @@ async function main() {
     const mod = (await import(coverage)) as { benchCoverage: () => Promise<Row[]> };
     print('Network coverage (10 posts, 2000², after the viewsheds)', await mod.benchCoverage());
   }
+  if (!only || only === 'heatmap') {
+    const { benchVisibilityIndex } = await import('./visibility-index.bench');
+    print('Visibility index (the siting heat map)', await benchVisibilityIndex());
+  }
   if (!only || only === 'plan') {
     const { benchPlanCoverage } = await import('./plan-coverage.bench');
     print('A plan coverage run as the worker computes it', await benchPlanCoverage());

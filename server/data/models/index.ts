@@ -16,6 +16,7 @@ import { FieldCalibrationModel } from './field-calibration';
 import { TrainerCourseAssigneeModel, TrainerCourseAttemptModel, TrainerCourseModel } from './trainer-course';
 import { TrainerDrillModel } from './trainer-drill';
 import { UserModel } from './user';
+import { VisibilityIndexLayerModel } from './visibility-index-layer';
 
 export {
   CoverageLayerModel,
@@ -43,6 +44,7 @@ export {
   TrainerCourseModel,
   TrainerDrillModel,
   UserModel,
+  VisibilityIndexLayerModel,
 };
 
 /** Registers every model and declares all associations, in one place. */
@@ -70,6 +72,7 @@ export function initModels(sequelize: Sequelize): void {
   CoverageLayerModel.register(sequelize);
   SitingRunModel.register(sequelize);
   SweepWidthTableModel.register(sequelize);
+  VisibilityIndexLayerModel.register(sequelize);
   IncidentModel.register(sequelize);
   IncidentEntryModel.register(sequelize);
 
