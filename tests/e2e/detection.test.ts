@@ -1,15 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 interface PlanBody {
   id: string;
@@ -34,9 +28,9 @@ const seenShare = async (page: Page) => {
   return Number(/([\d.]+) %$/.exec(label ?? '')?.[1]);
 };
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('detectable targets on the %s viewport', (viewport) => {
+eachViewport('detectable targets on the %s viewport', (viewport) => {
   it('a planner widens a target, sees the coverage go out of date, and the new figures after computing again', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);
@@ -112,7 +106,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('detectable targets on t
   });
 
   it('a reviewer reads how the verdict and the ranges move with refraction', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.reviewer);

@@ -1,18 +1,12 @@
 import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import type { Browser, CDPSession, Page } from 'playwright-core';
+import type { CDPSession, Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 // The invented fixture terrain (tests/fixtures/terrain/README.md): 160 × 150 cells of 30 m in UTM zone 29N.
 const TERRAIN_FILE = path.join(__dirname, '..', 'fixtures', 'terrain', 'small-hill-utm29.tif');
@@ -72,25 +66,13 @@ async function symbolCentre(page: Page, name: string) {
   return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation on the %s viewport', (viewport) => {
+eachViewport('an empty organisation on the %s viewport', (viewport) => {
   it('sets up a site from nothing — boundary by taps, zone pasted, terrain, two posts — and gets a plan approved', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await browser.newPage(viewport, { touch: phone });
     const cdp = await context.newCDPSession(page);
     const errors = watchErrors(page);
-    const reviewerContext = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const r = await reviewerContext.newPage();
+    const { context: reviewerContext, page: r } = await browser.newPage(viewport, { touch: phone });
     const reviewerErrors = watchErrors(r);
     const siteName = `Carrig Head (${viewport})`;
     const hillName = `Carrig Hill ${viewport}`;

@@ -1,15 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, SCREENSHOT_DIR, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport, SCREENSHOT_DIR, type ViewportName } from '@/tests/support/browser';
 import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 interface PlanBody {
   id: string;
@@ -41,16 +35,10 @@ async function freshForestDraft(page: Page, viewport: ViewportName): Promise<Pla
   return plan;
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain coverage on the %s viewport', (viewport) => {
+eachViewport('terrain coverage on the %s viewport', (viewport) => {
   it('computes a plan’s coverage, shows it on the map and in 3D, and compares it with the approved plan', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await browser.newPage(viewport, { touch: phone });
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);

@@ -1,15 +1,8 @@
-import type { Browser } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 interface PlanBody {
   id: string;
@@ -19,10 +12,10 @@ interface PlanBody {
   conditionSetIds: string[];
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   it('submits and approves a plan that fails its standard only as a recorded exception', async () => {
-    const planner = await newPage(browser, viewport);
-    const reviewer = await newPage(browser, viewport);
+    const planner = await browser.newPage(viewport);
+    const reviewer = await browser.newPage(viewport);
     const errors = [...watchErrors(planner.page), ...watchErrors(reviewer.page)];
     try {
       const p = planner.page;

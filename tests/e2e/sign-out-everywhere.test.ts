@@ -1,6 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
@@ -9,13 +8,7 @@ import { DEMO_PASSWORD } from '@/server/seeders/demo';
 // browser too. A person of its own (invited here), so the demo accounts other
 // browser tests use at the same time keep their sessions.
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 /** Invites a new observer through the API and sets their password; returns the e-mail and password. */
 async function newPerson() {
@@ -44,11 +37,11 @@ async function newPerson() {
   return { email, password };
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   it('signs the person out in the other browser too', async () => {
     const person = await newPerson();
-    const here = await newPage(browser, viewport);
-    const there = await newPage(browser, viewport);
+    const here = await browser.newPage(viewport);
+    const there = await browser.newPage(viewport);
     const errors = watchErrors(here.page);
     try {
       for (const { page } of [here, there]) {

@@ -1,15 +1,9 @@
-import type { Browser, CDPSession, Page } from 'playwright-core';
+import type { CDPSession, Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, SCREENSHOT_DIR, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport, SCREENSHOT_DIR } from '@/tests/support/browser';
 import { shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 // The demo district's tower (server/seeders/demo.ts): UTM zone 33N, invented coordinates.
 const CRANE_KNOLL = { easting: 516_200, northing: 5_741_300 };
@@ -44,16 +38,10 @@ async function touch(cdp: CDPSession, paths: { x: number; y: number }[][], steps
   await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s viewport', (viewport) => {
+eachViewport('site map on the %s viewport', (viewport) => {
   it('opens from the site page, zooms, pans, reads a coordinate, profiles a tapped point and shows 3D', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await browser.newPage(viewport, { touch: phone });
     const cdp = await context.newCDPSession(page);
     const errors = watchErrors(page);
     try {
@@ -216,13 +204,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s view
 });
 
 it('draws a site without terrain on a plain background in its UTM zone, and says a profile needs terrain', async () => {
-  const context = await browser.newContext({
-    viewport: VIEWPORTS.phone,
-    deviceScaleFactor: 1,
-    hasTouch: true,
-    serviceWorkers: 'block',
-  });
-  const page = await context.newPage();
+  const { context, page } = await browser.newPage('phone', { touch: true });
   const errors = watchErrors(page);
   try {
     await signIn(page, DEMO.planner);

@@ -1,16 +1,10 @@
-import type { Browser, CDPSession, Page } from 'playwright-core';
+import type { CDPSession, Page } from 'playwright-core';
 import { toUtm } from '@/shared/geo/to-utm';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 /** A one-finger drag through the DevTools protocol (Chromium turns it into pointer events). */
 async function touchDrag(cdp: CDPSession, from: { x: number; y: number }, to: { x: number; y: number }, steps = 8) {
@@ -28,16 +22,10 @@ async function tapAt(page: Page, phone: boolean, p: { x: number; y: number }) {
   else await page.mouse.click(p.x, p.y);
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site setup on the %s viewport', (viewport) => {
+eachViewport('site setup on the %s viewport', (viewport) => {
   it('a planner of an empty organisation creates a site by drawing its boundary with taps and typing a zone', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await browser.newPage(viewport, { touch: phone });
     const cdp = await context.newCDPSession(page);
     const errors = watchErrors(page);
     try {

@@ -1,6 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
@@ -9,13 +8,7 @@ import { DEMO_PASSWORD } from '@/server/seeders/demo';
 // metres and shown in feet. A planner of its own (invited here), so the demo planner other
 // browser tests use at the same time keeps metric forms.
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 /** Invites a new planner through the API and sets their password; returns the e-mail and password. */
 async function newPlanner() {
@@ -55,10 +48,10 @@ async function until(check: () => Promise<boolean>) {
 
 type PostRow = { id: string; name: string; groundElevationM: number; structureHeightM: number; eyeHeightM: number };
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('units on the %s viewport', (viewport) => {
+eachViewport('units on the %s viewport', (viewport) => {
   it('a planner sets feet on the account page, types a post in feet, and it is stored in metres and shown in feet', async () => {
     const person = await newPlanner();
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     const name = `Feet tower ${viewport}`;
     try {
