@@ -1,16 +1,9 @@
 import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
 import { browserForFile, eachViewport } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { apiJson, createPlan, e2eUrl, findPlan, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 const browser = browserForFile();
-
-interface PlanBody {
-  id: string;
-  siteId: string;
-  postIds: string[];
-  conditionSetIds: string[];
-}
 
 interface RunBody {
   current: {
@@ -45,10 +38,9 @@ eachViewport('detectable targets on the %s viewport', (viewport) => {
         requiredVisibleM: 0,
         period: 'day',
       });
-      const coast = (await apiJson<{ items: PlanBody[] }>(page, 'GET', `/plans?q=${encodeURIComponent('Summer watch')}`))
-        .items[0]!;
+      const coast = await findPlan(page, 'Summer watch');
       const sets = (await apiJson<{ items: { id: string; name: string }[] }>(page, 'GET', '/conditions')).items;
-      const { plan } = await apiJson<{ plan: PlanBody }>(page, 'POST', '/plans', {
+      const plan = await createPlan(page, {
         siteId: coast.siteId,
         title: `Raft cover (${viewport})`,
         postIds: coast.postIds,

@@ -1,10 +1,10 @@
 import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import type { CDPSession, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
 import { browserForFile, eachViewport } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { apiJson, drag, e2eUrl, shot, signIn, tapAt, watchErrors } from '@/tests/support/e2e';
 
 const browser = browserForFile();
 
@@ -31,33 +31,6 @@ interface PostBody {
 function gdalCellHeight(latDeg: number, lonDeg: number): number {
   const out = execFileSync('gdallocationinfo', ['-valonly', '-wgs84', TERRAIN_FILE, String(lonDeg), String(latDeg)]);
   return Number(out.toString().trim());
-}
-
-/** A one-finger drag through the DevTools protocol (Chromium turns it into pointer events). */
-async function touchDrag(cdp: CDPSession, from: { x: number; y: number }, to: { x: number; y: number }, steps = 8) {
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: [from] });
-  for (let i = 1; i <= steps; i++) {
-    const p = { x: from.x + ((to.x - from.x) * i) / steps, y: from.y + ((to.y - from.y) * i) / steps };
-    await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: [p] });
-    await new Promise((r) => setTimeout(r, 30));
-  }
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
-}
-
-async function drag(page: Page, cdp: CDPSession, phone: boolean, from: { x: number; y: number }, to: { x: number; y: number }) {
-  if (phone) {
-    await touchDrag(cdp, from, to);
-    return;
-  }
-  await page.mouse.move(from.x, from.y);
-  await page.mouse.down();
-  await page.mouse.move(to.x, to.y, { steps: 8 });
-  await page.mouse.up();
-}
-
-async function tapAt(page: Page, phone: boolean, p: { x: number; y: number }) {
-  if (phone) await page.touchscreen.tap(p.x, p.y);
-  else await page.mouse.click(p.x, p.y);
 }
 
 /** Centre of a post's symbol on the site map. */

@@ -1,7 +1,7 @@
 import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
 import { browserForFile, eachViewport, SCREENSHOT_DIR, type ViewportName, VIEWPORTS } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { apiJson, e2eUrl, openSiteMap, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 const browser = browserForFile();
 
@@ -154,11 +154,7 @@ eachViewport('on the %s viewport', (viewport) => {
     const { context, page } = await browser.newPage(viewport, { touch: phone });
     const errors = watchErrors(page);
     try {
-      await signIn(page, DEMO.planner);
-      await page.getByRole('link', { name: 'Harrowmere Forest District' }).click();
-      await page.getByRole('link', { name: 'Open the map' }).click();
-      const map = page.getByRole('application', { name: /^Map: drag to pan/ });
-      await map.waitFor();
+      const map = await openSiteMap(page, DEMO.planner, 'Harrowmere Forest District');
       const box = (await map.boundingBox())!;
       // Low on the map, above the scale bar and read-out: where the phone's profile sheet comes up.
       const at = { x: box.x + box.width * 0.3, y: box.y + box.height - 230 };

@@ -1,30 +1,19 @@
 import type { Page } from 'playwright-core';
+import type { Plan } from '@/shared/schemas/plan';
 import { DEMO } from '@/tests/support/agents';
 import { browserForFile, eachViewport, SCREENSHOT_DIR, type ViewportName } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { apiJson, createPlan, e2eUrl, findPlan, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 const browser = browserForFile();
-
-interface PlanBody {
-  id: string;
-  siteId: string;
-  title: string;
-  postIds: string[];
-  targetIds: string[];
-  conditionSetIds: string[];
-  standard: { minSeenPct: number; priorityMinPosts: number };
-}
 
 /**
  * A fresh draft on the forest district (which has terrain) with the demo
  * proposal's inputs, so each viewport starts from "not computed" whatever
  * other browser tests did to the seeded plans.
  */
-async function freshForestDraft(page: Page, viewport: ViewportName): Promise<PlanBody> {
-  const list = await apiJson<{ items: PlanBody[] }>(page, 'GET', `/plans?q=${encodeURIComponent('Blackmoss tower proposal')}`);
-  const proposal = list.items[0];
-  if (!proposal) throw new Error('The demo proposal is missing from the seed.');
-  const { plan } = await apiJson<{ plan: PlanBody }>(page, 'POST', '/plans', {
+async function freshForestDraft(page: Page, viewport: ViewportName): Promise<Plan> {
+  const proposal = await findPlan(page, 'Blackmoss tower proposal');
+  return createPlan(page, {
     siteId: proposal.siteId,
     title: `Coverage check (${viewport})`,
     postIds: proposal.postIds,
@@ -32,7 +21,6 @@ async function freshForestDraft(page: Page, viewport: ViewportName): Promise<Pla
     conditionSetIds: proposal.conditionSetIds,
     standard: proposal.standard,
   });
-  return plan;
 }
 
 eachViewport('terrain coverage on the %s viewport', (viewport) => {

@@ -1,16 +1,8 @@
 import { DEMO } from '@/tests/support/agents';
 import { browserForFile, eachViewport } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { apiJson, createPlan, e2eUrl, findPlan, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 const browser = browserForFile();
-
-interface PlanBody {
-  id: string;
-  siteId: string;
-  postIds: string[];
-  targetIds: string[];
-  conditionSetIds: string[];
-}
 
 eachViewport('on the %s viewport', (viewport) => {
   it('submits and approves a plan that fails its standard only as a recorded exception', async () => {
@@ -22,10 +14,9 @@ eachViewport('on the %s viewport', (viewport) => {
       await signIn(p, DEMO.planner);
       await p.getByText('Harrowmere Forest District').first().waitFor();
       // A forest plan with a standard its towers cannot meet (all of a hilly district seen).
-      const list = await apiJson<{ items: PlanBody[] }>(p, 'GET', `/plans?q=${encodeURIComponent('Fire season cover 2026')}`);
-      const season = list.items[0]!;
+      const season = await findPlan(p, 'Fire season cover 2026');
       const title = `Exception check (${viewport})`;
-      const { plan } = await apiJson<{ plan: PlanBody }>(p, 'POST', '/plans', {
+      const plan = await createPlan(p, {
         siteId: season.siteId,
         title,
         postIds: season.postIds,

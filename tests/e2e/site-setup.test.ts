@@ -1,26 +1,9 @@
-import type { CDPSession, Page } from 'playwright-core';
 import { toUtm } from '@/shared/geo/to-utm';
 import { DEMO } from '@/tests/support/agents';
 import { browserForFile, eachViewport } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { apiJson, drag, e2eUrl, shot, signIn, tapAt, watchErrors } from '@/tests/support/e2e';
 
 const browser = browserForFile();
-
-/** A one-finger drag through the DevTools protocol (Chromium turns it into pointer events). */
-async function touchDrag(cdp: CDPSession, from: { x: number; y: number }, to: { x: number; y: number }, steps = 8) {
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: [from] });
-  for (let i = 1; i <= steps; i++) {
-    const p = { x: from.x + ((to.x - from.x) * i) / steps, y: from.y + ((to.y - from.y) * i) / steps };
-    await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: [p] });
-    await new Promise((r) => setTimeout(r, 30));
-  }
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
-}
-
-async function tapAt(page: Page, phone: boolean, p: { x: number; y: number }) {
-  if (phone) await page.touchscreen.tap(p.x, p.y);
-  else await page.mouse.click(p.x, p.y);
-}
 
 eachViewport('site setup on the %s viewport', (viewport) => {
   it('a planner of an empty organisation creates a site by drawing its boundary with taps and typing a zone', async () => {
@@ -74,13 +57,7 @@ eachViewport('site setup on the %s viewport', (viewport) => {
       // Drag the third corner down and to the right (a finger on the phone, the mouse on the wide screen).
       const from = corners[2]!;
       const to = { x: from.x + 40, y: from.y + 30 };
-      if (phone) await touchDrag(cdp, from, to);
-      else {
-        await page.mouse.move(from.x, from.y);
-        await page.mouse.down();
-        await page.mouse.move(to.x, to.y, { steps: 8 });
-        await page.mouse.up();
-      }
+      await drag(page, cdp, phone, from, to);
       await page.waitForTimeout(200);
       await shot(page, 'site-setup-drawn', viewport);
       await map.screenshot({ path: `${__dirname}/screenshots/site-setup-map-${viewport}.png` });
@@ -91,13 +68,7 @@ eachViewport('site setup on the %s viewport', (viewport) => {
       const again = (await map.boundingBox())!;
       const from2 = { x: again.x + again.width * 0.7, y: again.y + again.height * 0.6 };
       const to2 = { x: from2.x + 40, y: from2.y + 30 };
-      if (phone) await touchDrag(cdp, from2, to2);
-      else {
-        await page.mouse.move(from2.x, from2.y);
-        await page.mouse.down();
-        await page.mouse.move(to2.x, to2.y, { steps: 8 });
-        await page.mouse.up();
-      }
+      await drag(page, cdp, phone, from2, to2);
       await page.waitForTimeout(200);
       await map.screenshot({ path: `${__dirname}/screenshots/site-setup-map-after-undo-${viewport}.png` });
       await form.getByRole('button', { name: 'Use this outline' }).click();
