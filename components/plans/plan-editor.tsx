@@ -23,6 +23,7 @@ import { FormTextField } from '@/components/ui/form-text-field';
 import { ErrorState, FormError, LoadingState } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
+import { FieldRow } from '@/components/ui/field-row';
 
 interface Values {
   siteId: string;
@@ -323,14 +324,10 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
           binoculars divide it by their magnification (an ideal instrument — real gain is less, and the narrow field slows the
           search).
         </AppText>
-        <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-          <View style={{ flex: 1, minWidth: 140 }}>
-            <FormTextField control={control} name="resolutionArcmin" label="Eye’s resolving angle" unit="′" inputMode="decimal" />
-          </View>
-          <View style={{ flex: 1, minWidth: 140 }}>
-            <FormTextField control={control} name="magnification" label="Optics magnification" unit="×" inputMode="decimal" />
-          </View>
-        </View>
+        <FieldRow minWidth={140} gap={space.md}>
+          <FormTextField control={control} name="resolutionArcmin" label="Eye’s resolving angle" unit="′" inputMode="decimal" />
+          <FormTextField control={control} name="magnification" label="Optics magnification" unit="×" inputMode="decimal" />
+        </FieldRow>
       </View>
 
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>

@@ -14,6 +14,7 @@ import { Chip, ChipRow } from '@/components/ui/chip';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
+import { FieldRow } from '@/components/ui/field-row';
 import { PostPicker } from './post-picker';
 import { DRILL_KIND_LABELS } from './trainer-format';
 
@@ -128,17 +129,11 @@ export function CourseComposer() {
           </>
         )}
       />
-      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <View style={{ flex: 1, minWidth: 100 }}>
-          <FormTextField control={control} name="questionCount" label="Questions" inputMode="numeric" />
-        </View>
-        <View style={{ flex: 1, minWidth: 100 }}>
-          <FormTextField control={control} name="passMarkPct" label="Pass mark" unit="%" inputMode="decimal" />
-        </View>
-        <View style={{ flex: 1, minWidth: 100 }}>
-          <FormTextField control={control} name="validityDays" label="Valid for" unit="days" inputMode="numeric" />
-        </View>
-      </View>
+      <FieldRow>
+        <FormTextField control={control} name="questionCount" label="Questions" inputMode="numeric" />
+        <FormTextField control={control} name="passMarkPct" label="Pass mark" unit="%" inputMode="decimal" />
+        <FormTextField control={control} name="validityDays" label="Valid for" unit="days" inputMode="numeric" />
+      </FieldRow>
       <Controller
         control={control}
         name="assigneeIds"
