@@ -28,6 +28,7 @@ import { FormError } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 import { UnitNumberField } from '@/components/ui/unit-number-field';
 import { UnitsField, unitsResolver } from '@/components/ui/units-field';
+import { FieldError } from '@/components/ui/field-error';
 
 type VisibilityKind = 'mor-5pct' | 'meteorological-range-2pct';
 
@@ -215,11 +216,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
           </ChipRow>
         )}
       />
-      {conditionsMessage ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {conditionsMessage}
-        </AppText>
-      ) : null}
+      <FieldError message={conditionsMessage} />
       {kept.map((c, i) => (
         <AppText key={i} variant="small" tone="muted">
           Kept as it is: {describeCondition(c as never)}
@@ -278,11 +275,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
                 />
               ))}
             </ChipRow>
-            {fieldState.error ? (
-              <AppText variant="small" tone="danger" role="alert">
-                {fieldState.error.message}
-              </AppText>
-            ) : null}
+            <FieldError message={fieldState.error?.message} />
           </>
         )}
       />

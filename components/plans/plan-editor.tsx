@@ -24,6 +24,7 @@ import { ErrorState, FormError, LoadingState } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { FieldRow } from '@/components/ui/field-row';
+import { FieldError } from '@/components/ui/field-error';
 
 interface Values {
   siteId: string;
@@ -287,11 +288,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
                 ]}
                 onChange={field.onChange}
               />
-              {fieldState.error ? (
-                <AppText variant="small" tone="danger" role="alert">
-                  {fieldState.error.message}
-                </AppText>
-              ) : null}
+              <FieldError message={fieldState.error?.message} />
             </View>
           )}
         />
@@ -406,11 +403,7 @@ function TargetRulesField({
           </View>
         );
       })}
-      {error ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {error}
-        </AppText>
-      ) : null}
+      <FieldError message={error} />
     </View>
   );
 }

@@ -15,6 +15,7 @@ import { FormTextField } from '@/components/ui/form-text-field';
 import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
 import { FieldRow } from '@/components/ui/field-row';
+import { FieldError } from '@/components/ui/field-error';
 import { PostPicker } from './post-picker';
 import { DRILL_KIND_LABELS } from './trainer-format';
 
@@ -39,14 +40,6 @@ const EMPTY: CourseFormValues = {
 };
 
 const FIELDS = ['name', 'kinds', 'postIds', 'questionCount', 'passMarkPct', 'validityDays', 'assigneeIds'] as const;
-
-function ChoiceError({ message }: { message?: string }) {
-  return message ? (
-    <AppText variant="small" tone="danger" role="alert">
-      {message}
-    </AppText>
-  ) : null;
-}
 
 /** A planner composes a course (kinds, posts, questions, pass mark, validity) and assigns it to people. */
 export function CourseComposer() {
@@ -115,7 +108,7 @@ export function CourseComposer() {
                 );
               })}
             </ChipRow>
-            <ChoiceError message={fieldState.error?.message} />
+            <FieldError message={fieldState.error?.message} />
           </>
         )}
       />
@@ -125,7 +118,7 @@ export function CourseComposer() {
         render={({ field, fieldState }) => (
           <>
             <PostPicker multiple value={field.value} onChange={field.onChange} />
-            <ChoiceError message={fieldState.error?.message} />
+            <FieldError message={fieldState.error?.message} />
           </>
         )}
       />
@@ -152,7 +145,7 @@ export function CourseComposer() {
                 );
               })}
             </ChipRow>
-            <ChoiceError message={fieldState.error?.message} />
+            <FieldError message={fieldState.error?.message} />
           </>
         )}
       />
