@@ -22,7 +22,7 @@ import { useUnitSystem } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Chip, ChipRow } from '@/components/ui/chip';
+import { Chip, ChipRow, toggled } from '@/components/ui/chip';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
@@ -208,9 +208,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
                 key={id}
                 label={refractionPreset(id).label}
                 on={field.value.includes(id)}
-                onPress={() =>
-                  field.onChange(field.value.includes(id) ? field.value.filter((x) => x !== id) : [...field.value, id])
-                }
+                onPress={() => field.onChange(toggled(field.value, id))}
               />
             ))}
           </ChipRow>

@@ -15,6 +15,7 @@ import { useLengthUnits } from '@/components/data/session';
 import { distanceIn, lengthIn } from '@/components/check/format';
 import { siteQuery, sitePostsQuery, useSites } from '@/components/data/sites';
 import { describeCondition } from '@/components/library/describe-condition';
+import { toggled } from '@/components/ui/chip';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -66,8 +67,6 @@ const fieldOf = (path: string) =>
   FIELD_OF[path] ?? FIELD_OF[path.replace(/\.\d+$/, '')] ?? (path.startsWith('standard.targetRules') ? 'targetRules' : undefined);
 
 const numberOf = (text: string) => (text.trim() === '' ? NaN : Number(text.replace(',', '.')));
-
-const toggled = (list: string[], id: string) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]);
 
 /**
  * Creates a plan (pick the site, posts, targets, conditions and the standard)

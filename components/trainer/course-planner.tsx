@@ -10,7 +10,7 @@ import { useAssignCourse, useCourseResults, useCreateCourse } from '@/components
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Chip, ChipRow } from '@/components/ui/chip';
+import { Chip, ChipRow, toggled } from '@/components/ui/chip';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
@@ -99,12 +99,7 @@ export function CourseComposer() {
               {AVAILABLE_DRILL_KINDS.map((k) => {
                 const on = field.value.includes(k);
                 return (
-                  <Chip
-                    key={k}
-                    label={DRILL_KIND_LABELS[k]}
-                    on={on}
-                    onPress={() => field.onChange(on ? field.value.filter((x) => x !== k) : [...field.value, k])}
-                  />
+                  <Chip key={k} label={DRILL_KIND_LABELS[k]} on={on} onPress={() => field.onChange(toggled(field.value, k))} />
                 );
               })}
             </ChipRow>
@@ -135,14 +130,7 @@ export function CourseComposer() {
             <ChipRow label="Assign to">
               {(people.data ?? []).map((p) => {
                 const on = field.value.includes(p.id);
-                return (
-                  <Chip
-                    key={p.id}
-                    label={p.name}
-                    on={on}
-                    onPress={() => field.onChange(on ? field.value.filter((x) => x !== p.id) : [...field.value, p.id])}
-                  />
-                );
+                return <Chip key={p.id} label={p.name} on={on} onPress={() => field.onChange(toggled(field.value, p.id))} />;
               })}
             </ChipRow>
             <FieldError message={fieldState.error?.message} />
@@ -195,14 +183,7 @@ export function CourseResultsCard({ course }: { course: Course }) {
           .filter((p) => !assigned.has(p.id))
           .map((p) => {
             const on = more.includes(p.id);
-            return (
-              <Chip
-                key={p.id}
-                label={p.name}
-                on={on}
-                onPress={() => setMore(on ? more.filter((x) => x !== p.id) : [...more, p.id])}
-              />
-            );
+            return <Chip key={p.id} label={p.name} on={on} onPress={() => setMore(toggled(more, p.id))} />;
           })}
       </ChipRow>
       {assign.isError ? <FormError message={assign.error.message} /> : null}
