@@ -13,6 +13,7 @@ import { TextField } from '@/components/ui/text-field';
 import { colors, radius, space } from '@/components/ui/theme';
 import { bearingFromText, formatBytes } from './format';
 import { pickFile } from '@/components/ui/pick-file';
+import { FieldError } from '@/components/ui/field-error';
 
 type Errors = { file?: string; bearingDeg?: string; caption?: string };
 
@@ -129,11 +130,7 @@ export function PhotoUpload({ owner }: { owner: AttachmentOwner }) {
               {formatBytes(file.size)}
             </AppText>
           ) : null}
-          {errors.file ? (
-            <AppText variant="small" tone="danger" role="alert">
-              {errors.file}
-            </AppText>
-          ) : null}
+          <FieldError message={errors.file} />
         </View>
         <Button
           kind="secondary"

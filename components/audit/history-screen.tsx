@@ -16,6 +16,7 @@ import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
+import { FieldRow } from '@/components/ui/field-row';
 
 /** A typed day (YYYY-MM-DD) as the ISO time of its start, UTC; '' stays unset, anything else is an error. */
 function dayStart(text: string): string | undefined | Error {
@@ -26,6 +27,25 @@ function dayStart(text: string): string | undefined | Error {
   return `${t}T00:00:00Z`;
 }
 const nextDay = (iso: string) => new Date(Date.parse(iso) + 86_400_000).toISOString();
+
+/** A day typed as YYYY-MM-DD, with what `dayStart` made of it: its error under the field. */
+function DayField({
+  text,
+  day,
+  example,
+  onChange,
+  ...props
+}: {
+  label: string;
+  text: string;
+  day: string | undefined | Error;
+  example: string;
+  hint: string;
+  onChange: (text: string) => void;
+}) {
+  const error = day instanceof Error ? day.message : undefined;
+  return <TextField {...props} value={text} onChangeText={onChange} placeholder={example} error={error} />;
+}
 
 /**
  * The audit trail: every write in the organisation (or one record's, with
@@ -43,6 +63,8 @@ export function HistoryScreen({ entityType, entityId }: { entityType?: AuditEnti
   const [page, setPage] = useState(1);
   const from = dayStart(fromText);
   const to = dayStart(toText);
+  /** A changed day starts the list again from its first page. */
+  const typed = (set: (text: string) => void) => (text: string) => (set(text), setPage(1));
   const filter: AuditFilter = {
     entityType: entityId ? entityType : kind,
     entityId,
@@ -130,28 +152,17 @@ export function HistoryScreen({ entityType, entityId }: { entityType?: AuditEnti
               </View>
             </>
           ) : null}
-          <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-            <View style={{ flex: 1, minWidth: 150 }}>
-              <TextField
-                label="From day"
-                value={fromText}
-                onChangeText={(t) => (setFromText(t), setPage(1))}
-                placeholder="2026-06-01"
-                error={from instanceof Error ? from.message : undefined}
-                hint="UTC"
-              />
-            </View>
-            <View style={{ flex: 1, minWidth: 150 }}>
-              <TextField
-                label="To day"
-                value={toText}
-                onChangeText={(t) => (setToText(t), setPage(1))}
-                placeholder="2026-06-30"
-                error={to instanceof Error ? to.message : undefined}
-                hint="UTC, included"
-              />
-            </View>
-          </View>
+          <FieldRow minWidth={150} gap={space.md}>
+            <DayField label="From day" text={fromText} day={from} example="2026-06-01" hint="UTC" onChange={typed(setFromText)} />
+            <DayField
+              label="To day"
+              text={toText}
+              day={to}
+              example="2026-06-30"
+              hint="UTC, included"
+              onChange={typed(setToText)}
+            />
+          </FieldRow>
         </Card>
       ) : null}
       {allowed || !user ? body() : null}

@@ -14,6 +14,7 @@ import { SignOutIcon } from '@/components/ui/icons';
 import { Screen } from '@/components/ui/screen';
 import { FormError } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
+import { FieldError } from '@/components/ui/field-error';
 
 export function AccountPanel() {
   const { data: user } = useSession();
@@ -114,11 +115,7 @@ function UnitPreferenceForm({ user }: { user: User }) {
                 ...UNIT_SYSTEM_IDS.map((u) => ({ value: u, label: UNIT_SYSTEMS[u].name })),
               ]}
             />
-            {fieldState.error ? (
-              <AppText variant="small" tone="danger" role="alert">
-                {fieldState.error.message}
-              </AppText>
-            ) : null}
+            <FieldError message={fieldState.error?.message} />
           </View>
         )}
       />

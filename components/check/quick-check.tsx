@@ -14,6 +14,7 @@ import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { colors, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { FieldError } from '@/components/ui/field-error';
 import {
   applyLibraryConditionSet,
   applyLibraryTarget,
@@ -246,11 +247,7 @@ export function QuickCheck() {
       <View style={{ gap: space.sm }}>
         <AppText variant="label">Refraction conditions</AppText>
         <ConditionPicker value={form.presets} onChange={set('presets')} />
-        {errors.presets ? (
-          <AppText variant="small" tone="danger" role="alert">
-            {errors.presets}
-          </AppText>
-        ) : null}
+        <FieldError message={errors.presets} />
         <TextField
           label="Your own k (optional)"
           inputMode="decimal"
@@ -420,11 +417,7 @@ function WeatherCondition({
             onChangeText={set('lapseRateKPerM')}
             hint="0.0065 is the standard atmosphere; negative in an inversion (air warming with height)."
           />
-          {error ? (
-            <AppText variant="small" tone="danger" role="alert">
-              {error}
-            </AppText>
-          ) : null}
+          <FieldError message={error} />
         </View>
       ) : null}
     </View>

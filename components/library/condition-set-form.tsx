@@ -22,12 +22,13 @@ import { useUnitSystem } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Chip, ChipRow } from '@/components/ui/chip';
+import { Chip, ChipRow, toggled } from '@/components/ui/chip';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 import { UnitNumberField } from '@/components/ui/unit-number-field';
 import { UnitsField, unitsResolver } from '@/components/ui/units-field';
+import { FieldError } from '@/components/ui/field-error';
 
 type VisibilityKind = 'mor-5pct' | 'meteorological-range-2pct';
 
@@ -207,19 +208,13 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
                 key={id}
                 label={refractionPreset(id).label}
                 on={field.value.includes(id)}
-                onPress={() =>
-                  field.onChange(field.value.includes(id) ? field.value.filter((x) => x !== id) : [...field.value, id])
-                }
+                onPress={() => field.onChange(toggled(field.value, id))}
               />
             ))}
           </ChipRow>
         )}
       />
-      {conditionsMessage ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {conditionsMessage}
-        </AppText>
-      ) : null}
+      <FieldError message={conditionsMessage} />
       {kept.map((c, i) => (
         <AppText key={i} variant="small" tone="muted">
           Kept as it is: {describeCondition(c as never)}
@@ -278,11 +273,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
                 />
               ))}
             </ChipRow>
-            {fieldState.error ? (
-              <AppText variant="small" tone="danger" role="alert">
-                {fieldState.error.message}
-              </AppText>
-            ) : null}
+            <FieldError message={fieldState.error?.message} />
           </>
         )}
       />

@@ -15,6 +15,7 @@ import { useLengthUnits } from '@/components/data/session';
 import { distanceIn, lengthIn } from '@/components/check/format';
 import { siteQuery, sitePostsQuery, useSites } from '@/components/data/sites';
 import { describeCondition } from '@/components/library/describe-condition';
+import { toggled } from '@/components/ui/chip';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -23,6 +24,8 @@ import { FormTextField } from '@/components/ui/form-text-field';
 import { ErrorState, FormError, LoadingState } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
+import { FieldRow } from '@/components/ui/field-row';
+import { FieldError } from '@/components/ui/field-error';
 
 interface Values {
   siteId: string;
@@ -64,8 +67,6 @@ const fieldOf = (path: string) =>
   FIELD_OF[path] ?? FIELD_OF[path.replace(/\.\d+$/, '')] ?? (path.startsWith('standard.targetRules') ? 'targetRules' : undefined);
 
 const numberOf = (text: string) => (text.trim() === '' ? NaN : Number(text.replace(',', '.')));
-
-const toggled = (list: string[], id: string) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]);
 
 /**
  * Creates a plan (pick the site, posts, targets, conditions and the standard)
@@ -286,11 +287,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
                 ]}
                 onChange={field.onChange}
               />
-              {fieldState.error ? (
-                <AppText variant="small" tone="danger" role="alert">
-                  {fieldState.error.message}
-                </AppText>
-              ) : null}
+              <FieldError message={fieldState.error?.message} />
             </View>
           )}
         />
@@ -323,14 +320,10 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
           binoculars divide it by their magnification (an ideal instrument — real gain is less, and the narrow field slows the
           search).
         </AppText>
-        <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-          <View style={{ flex: 1, minWidth: 140 }}>
-            <FormTextField control={control} name="resolutionArcmin" label="Eye’s resolving angle" unit="′" inputMode="decimal" />
-          </View>
-          <View style={{ flex: 1, minWidth: 140 }}>
-            <FormTextField control={control} name="magnification" label="Optics magnification" unit="×" inputMode="decimal" />
-          </View>
-        </View>
+        <FieldRow minWidth={140} gap={space.md}>
+          <FormTextField control={control} name="resolutionArcmin" label="Eye’s resolving angle" unit="′" inputMode="decimal" />
+          <FormTextField control={control} name="magnification" label="Optics magnification" unit="×" inputMode="decimal" />
+        </FieldRow>
       </View>
 
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
@@ -409,11 +402,7 @@ function TargetRulesField({
           </View>
         );
       })}
-      {error ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {error}
-        </AppText>
-      ) : null}
+      <FieldError message={error} />
     </View>
   );
 }

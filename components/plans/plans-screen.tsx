@@ -8,7 +8,7 @@ import { useSession } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Chip, ChipRow } from '@/components/ui/chip';
+import { Chip, ChipRow, toggled } from '@/components/ui/chip';
 import { Pager } from '@/components/ui/pager';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
@@ -42,7 +42,7 @@ export function PlansScreen() {
 
   const flip = (s: PlanStatus) => {
     setPage(1);
-    setStatuses((list) => (list.includes(s) ? list.filter((x) => x !== s) : [...list, s]));
+    setStatuses((list) => toggled(list, s));
   };
 
   return (

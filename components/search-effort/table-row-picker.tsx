@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Chip, ChipRow } from '@/components/ui/chip';
 import { Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
+import { FieldError } from '@/components/ui/field-error';
 import { describeRow } from './search-effort-form-model';
 
 /** Chooses a table of the library and one of its rows. */
@@ -42,11 +43,7 @@ export function TableRowPicker({
           <Chip key={t.id} label={t.name} on={t.id === tableId} onPress={() => onTable(t.id)} />
         ))}
       </ChipRow>
-      {tableError ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {tableError}
-        </AppText>
-      ) : null}
+      <FieldError message={tableError} />
       {table ? (
         <View style={{ gap: space.sm }}>
           <AppText variant="small" tone="muted">
@@ -64,11 +61,7 @@ export function TableRowPicker({
               <Chip key={i} label={describeRow(row, units)} on={rowIndex === String(i)} onPress={() => onRow(String(i))} />
             ))}
           </ChipRow>
-          {rowError ? (
-            <AppText variant="small" tone="danger" role="alert">
-              {rowError}
-            </AppText>
-          ) : null}
+          <FieldError message={rowError} />
           {onRetire ? (
             <View style={{ alignItems: 'flex-start' }}>
               <Button kind="quiet" label="Retire this table" onPress={() => onRetire(table)} busy={retiring} />

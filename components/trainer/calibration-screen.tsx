@@ -14,6 +14,7 @@ import { EmptyState, ErrorState, FormError, LoadingState, Notice } from '@/compo
 import { Screen } from '@/components/ui/screen';
 import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
+import { FieldRow } from '@/components/ui/field-row';
 import {
   CALIBRATION_DEFAULTS,
   calibrationFieldOf,
@@ -147,17 +148,11 @@ export function CalibrationScreen() {
         </>
       ) : null}
       <AppText variant="label">Weather at the time (optional)</AppText>
-      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <View style={{ flex: 1, minWidth: 100 }}>
-          <FormTextField control={control} name="pressureHpa" label="Pressure" unit="hPa" inputMode="decimal" />
-        </View>
-        <View style={{ flex: 1, minWidth: 100 }}>
-          <FormTextField control={control} name="temperatureC" label="Temperature" unit="°C" inputMode="decimal" />
-        </View>
-        <View style={{ flex: 1, minWidth: 100 }}>
-          <FormTextField control={control} name="lapseRateKPerKm" label="Lapse rate" unit="K/km" inputMode="decimal" />
-        </View>
-      </View>
+      <FieldRow>
+        <FormTextField control={control} name="pressureHpa" label="Pressure" unit="hPa" inputMode="decimal" />
+        <FormTextField control={control} name="temperatureC" label="Temperature" unit="°C" inputMode="decimal" />
+        <FormTextField control={control} name="lapseRateKPerKm" label="Lapse rate" unit="K/km" inputMode="decimal" />
+      </FieldRow>
       <Controller
         control={control}
         name="postIds"

@@ -10,10 +10,12 @@ import { useAssignCourse, useCourseResults, useCreateCourse } from '@/components
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Chip, ChipRow } from '@/components/ui/chip';
+import { Chip, ChipRow, toggled } from '@/components/ui/chip';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { ErrorState, FormError, LoadingState, Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
+import { FieldRow } from '@/components/ui/field-row';
+import { FieldError } from '@/components/ui/field-error';
 import { PostPicker } from './post-picker';
 import { DRILL_KIND_LABELS } from './trainer-format';
 
@@ -38,14 +40,6 @@ const EMPTY: CourseFormValues = {
 };
 
 const FIELDS = ['name', 'kinds', 'postIds', 'questionCount', 'passMarkPct', 'validityDays', 'assigneeIds'] as const;
-
-function ChoiceError({ message }: { message?: string }) {
-  return message ? (
-    <AppText variant="small" tone="danger" role="alert">
-      {message}
-    </AppText>
-  ) : null;
-}
 
 /** A planner composes a course (kinds, posts, questions, pass mark, validity) and assigns it to people. */
 export function CourseComposer() {
@@ -105,16 +99,11 @@ export function CourseComposer() {
               {AVAILABLE_DRILL_KINDS.map((k) => {
                 const on = field.value.includes(k);
                 return (
-                  <Chip
-                    key={k}
-                    label={DRILL_KIND_LABELS[k]}
-                    on={on}
-                    onPress={() => field.onChange(on ? field.value.filter((x) => x !== k) : [...field.value, k])}
-                  />
+                  <Chip key={k} label={DRILL_KIND_LABELS[k]} on={on} onPress={() => field.onChange(toggled(field.value, k))} />
                 );
               })}
             </ChipRow>
-            <ChoiceError message={fieldState.error?.message} />
+            <FieldError message={fieldState.error?.message} />
           </>
         )}
       />
@@ -124,21 +113,15 @@ export function CourseComposer() {
         render={({ field, fieldState }) => (
           <>
             <PostPicker multiple value={field.value} onChange={field.onChange} />
-            <ChoiceError message={fieldState.error?.message} />
+            <FieldError message={fieldState.error?.message} />
           </>
         )}
       />
-      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <View style={{ flex: 1, minWidth: 100 }}>
-          <FormTextField control={control} name="questionCount" label="Questions" inputMode="numeric" />
-        </View>
-        <View style={{ flex: 1, minWidth: 100 }}>
-          <FormTextField control={control} name="passMarkPct" label="Pass mark" unit="%" inputMode="decimal" />
-        </View>
-        <View style={{ flex: 1, minWidth: 100 }}>
-          <FormTextField control={control} name="validityDays" label="Valid for" unit="days" inputMode="numeric" />
-        </View>
-      </View>
+      <FieldRow>
+        <FormTextField control={control} name="questionCount" label="Questions" inputMode="numeric" />
+        <FormTextField control={control} name="passMarkPct" label="Pass mark" unit="%" inputMode="decimal" />
+        <FormTextField control={control} name="validityDays" label="Valid for" unit="days" inputMode="numeric" />
+      </FieldRow>
       <Controller
         control={control}
         name="assigneeIds"
@@ -147,17 +130,10 @@ export function CourseComposer() {
             <ChipRow label="Assign to">
               {(people.data ?? []).map((p) => {
                 const on = field.value.includes(p.id);
-                return (
-                  <Chip
-                    key={p.id}
-                    label={p.name}
-                    on={on}
-                    onPress={() => field.onChange(on ? field.value.filter((x) => x !== p.id) : [...field.value, p.id])}
-                  />
-                );
+                return <Chip key={p.id} label={p.name} on={on} onPress={() => field.onChange(toggled(field.value, p.id))} />;
               })}
             </ChipRow>
-            <ChoiceError message={fieldState.error?.message} />
+            <FieldError message={fieldState.error?.message} />
           </>
         )}
       />
@@ -207,14 +183,7 @@ export function CourseResultsCard({ course }: { course: Course }) {
           .filter((p) => !assigned.has(p.id))
           .map((p) => {
             const on = more.includes(p.id);
-            return (
-              <Chip
-                key={p.id}
-                label={p.name}
-                on={on}
-                onPress={() => setMore(on ? more.filter((x) => x !== p.id) : [...more, p.id])}
-              />
-            );
+            return <Chip key={p.id} label={p.name} on={on} onPress={() => setMore(toggled(more, p.id))} />;
           })}
       </ChipRow>
       {assign.isError ? <FormError message={assign.error.message} /> : null}

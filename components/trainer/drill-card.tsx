@@ -11,7 +11,7 @@ import { Card } from '@/components/ui/card';
 import { FormError, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
-import { DrillSideView } from './side-view';
+import { DrillSideView, FigureRows } from './side-view';
 import { DRILL_KIND_LABELS, scoreBand, showAnswer, sideViewRows, TRAINER_CAUTIONS } from './trainer-format';
 
 export type DrillOutcome = { kind: 'scored'; result: DrillResult } | { kind: 'kept' };
@@ -120,16 +120,7 @@ export function DrillCard({
         {DRILL_KIND_LABELS[drill.kind]}
       </AppText>
       <AppText variant="heading">{q.text}</AppText>
-      <View style={{ gap: 2 }} aria-label="Given">
-        {inputs.map((r) => (
-          <View key={r.key} style={{ flexDirection: 'row', gap: space.sm, justifyContent: 'space-between' }}>
-            <AppText variant="small" tone="muted" style={{ flex: 1 }}>
-              {r.label}
-            </AppText>
-            <AppText variant="small">{r.text}</AppText>
-          </View>
-        ))}
-      </View>
+      <FigureRows rows={inputs} label="Given" />
       {outcome === null ? (
         <>
           <FormError message={error} />

@@ -8,6 +8,27 @@ import type { LengthUnit } from '@/shared/units';
 const W = 320;
 const H = 140;
 
+/** Figures as label–value lines, the label muted on the left and the value on the right. */
+export function FigureRows({ rows, label }: { rows: { key: string; label: string; text: string }[]; label?: string }) {
+  return (
+    <View style={{ gap: 2 }} aria-label={label}>
+      {rows.map((r) => (
+        <View key={r.key} style={{ flexDirection: 'row', gap: space.sm, justifyContent: 'space-between' }}>
+          <AppText variant="small" tone="muted" style={{ flex: 1 }}>
+            {r.label}
+          </AppText>
+          <AppText variant="small">{r.text}</AppText>
+        </View>
+      ))}
+    </View>
+  );
+}
+
+/** An upright stroke of the drawing (the eye's height, the target, its hidden part) at `x` from `baseY` up to `topY`. */
+function Upright({ x, baseY, topY, colour, width }: { x: number; baseY: number; topY: number; colour: string; width: number }) {
+  return <Line x1={x} y1={baseY} x2={x} y2={topY} stroke={colour} strokeWidth={width} />;
+}
+
 /** The explanation's side view: a schematic drawing (heights exaggerated) and the numbers beside it. */
 export function DrillSideView({
   view,
@@ -25,7 +46,7 @@ export function DrillSideView({
           <Svg width="100%" height="100%" viewBox={`0 0 ${W} ${H}`}>
             <Rect x={0} y={0} width={W} height={H} fill={colors.paper} />
             <Polyline points={g.surface} fill="none" stroke={colors.moss} strokeWidth={2} />
-            <Line x1={g.eye.x} y1={g.eye.baseY} x2={g.eye.x} y2={g.eye.y} stroke={colors.ink} strokeWidth={3} />
+            <Upright x={g.eye.x} baseY={g.eye.baseY} topY={g.eye.y} colour={colors.ink} width={3} />
             <Circle cx={g.eye.x} cy={g.eye.y} r={3.5} fill={colors.ember} />
             <Line
               x1={g.eye.x}
@@ -43,22 +64,8 @@ export function DrillSideView({
             ) : null}
             {g.target ? (
               <>
-                <Line
-                  x1={g.target.x}
-                  y1={g.target.baseY}
-                  x2={g.target.x}
-                  y2={g.target.topY}
-                  stroke={colors.ink}
-                  strokeWidth={4}
-                />
-                <Line
-                  x1={g.target.x}
-                  y1={g.target.baseY}
-                  x2={g.target.x}
-                  y2={g.target.hiddenTopY}
-                  stroke={colors.danger}
-                  strokeWidth={4}
-                />
+                <Upright x={g.target.x} baseY={g.target.baseY} topY={g.target.topY} colour={colors.ink} width={4} />
+                <Upright x={g.target.x} baseY={g.target.baseY} topY={g.target.hiddenTopY} colour={colors.danger} width={4} />
                 <SvgText x={g.target.x} y={Math.max(g.target.topY - 4, 9)} fontSize={10} fill={colors.ink} textAnchor="middle">
                   target
                 </SvgText>
@@ -73,16 +80,7 @@ export function DrillSideView({
       <AppText variant="small" tone="muted">
         Heights are exaggerated{g?.target ? '; the red part of the target is hidden by the earth’s curve' : ''}.
       </AppText>
-      <View style={{ gap: 2 }}>
-        {rows.map((r) => (
-          <View key={r.key} style={{ flexDirection: 'row', gap: space.sm, justifyContent: 'space-between' }}>
-            <AppText variant="small" tone="muted" style={{ flex: 1 }}>
-              {r.label}
-            </AppText>
-            <AppText variant="small">{r.text}</AppText>
-          </View>
-        ))}
-      </View>
+      <FigureRows rows={rows} />
     </View>
   );
 }

@@ -2,6 +2,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import Svg, { Path } from 'react-native-svg';
 import { AppText } from './app-text';
 import { colors, radius, space, TOUCH } from './theme';
+import { FieldError } from './field-error';
 
 /** One choice: a box (several may be chosen) or a round mark (`single`: one of the group), a label and a detail line. */
 export function CheckRow({
@@ -66,11 +67,7 @@ export function CheckGroup({
     <View style={{ gap: space.xs }} role={single ? 'radiogroup' : 'group'} aria-label={label}>
       <AppText variant="label">{label}</AppText>
       <View style={[styles.group, !!error && { borderColor: colors.danger }]}>{children}</View>
-      {error ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {error}
-        </AppText>
-      ) : null}
+      <FieldError message={error} />
     </View>
   );
 }

@@ -21,6 +21,11 @@ export function Chip({ label, on, onPress, count }: { label: string; on: boolean
 }
 
 /** A wrapping row of chips with a label. */
+/** The list with `item` taken out if it is in it, added at the end if not (a chip of a multiple choice pressed). */
+export function toggled<T>(list: readonly T[], item: T): T[] {
+  return list.includes(item) ? list.filter((x) => x !== item) : [...list, item];
+}
+
 export function ChipRow({ label, children }: { label: string; children: React.ReactNode }) {
   return (
     <View style={{ gap: space.xs }} role="group" aria-label={label}>

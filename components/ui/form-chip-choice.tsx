@@ -1,8 +1,8 @@
 import { Controller, type Control, type FieldValues, type Path } from 'react-hook-form';
 import { View } from 'react-native';
-import { AppText } from './app-text';
 import { Chip, ChipRow } from './chip';
 import { space } from './theme';
+import { FieldError } from './field-error';
 
 /** One choice among a few named things (a site, a post) as chips, bound to a react-hook-form field; its error under it. */
 export function FormChipChoice<T extends FieldValues, TOut = T>({
@@ -27,11 +27,7 @@ export function FormChipChoice<T extends FieldValues, TOut = T>({
               <Chip key={o.id} label={o.name} on={field.value === o.id} onPress={() => field.onChange(o.id)} />
             ))}
           </ChipRow>
-          {fieldState.error ? (
-            <AppText variant="small" tone="danger" role="alert">
-              {fieldState.error.message}
-            </AppText>
-          ) : null}
+          <FieldError message={fieldState.error?.message} />
         </View>
       )}
     />

@@ -1,10 +1,10 @@
 import { execFile, spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
 import path from 'node:path';
 import { promisify } from 'node:util';
 import { createTestDatabase, scratchFileStore } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
+import { freePort } from '@/tests/support/free-port';
 
 // `server/start.ts` as `npm start` runs it: two API processes behind one port
 // (Node's cluster), each keeping signed-in users in memory for a few seconds. A
@@ -16,16 +16,6 @@ let drop: () => Promise<void>;
 let primary: ChildProcess;
 let base: string;
 let output = '';
-
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const s = createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
 
 /** The primary's children: the API processes. */
 const apiProcesses = async () => {

@@ -8,7 +8,7 @@ import { createTerrainCache } from '@/server/terrain/terrain-cache';
 import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
 import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
-import { listen } from '@/tests/support/live-server';
+import { createForestPlan, listen } from '@/tests/support/live-server';
 
 // The application connects as a member of kenning_application, not as the owner:
 // the approved record cannot be rewritten behind the revision trigger's back.
@@ -125,21 +125,7 @@ describe('the application role', () => {
 
 it('runs the everyday API as that role: sign-in, plans, coverage, watches, invitations, sign-out', async () => {
   const planner = await live.signIn(DEMO.planner);
-  const sites = (await live.call('GET', '/api/v1/sites', { cookie: planner })).body.items;
-  const site = sites.find((s: { name: string }) => s.name === 'Harrowmere Forest District');
-  const posts = (await live.call('GET', `/api/v1/sites/${site.id}/posts`, { cookie: planner })).body.items;
-  const targets = (await live.call('GET', '/api/v1/targets', { cookie: planner })).body.items;
-  const sets = (await live.call('GET', '/api/v1/conditions', { cookie: planner })).body.items;
-  const plan = await live.call('POST', '/api/v1/plans', {
-    cookie: planner,
-    json: {
-      siteId: site.id,
-      title: 'As the app role',
-      postIds: [posts[0].id],
-      targetIds: [targets[0].id],
-      conditionSetIds: [sets[0].id],
-    },
-  });
+  const plan = await createForestPlan(live, planner, 'As the app role');
   expect(plan.status).toBe(201);
   const edited = await live.call('PATCH', `/api/v1/plans/${plan.body.plan.id}`, {
     cookie: planner,
@@ -158,7 +144,12 @@ it('runs the everyday API as that role: sign-in, plans, coverage, watches, invit
   const people = (await live.call('GET', '/api/v1/people', { cookie: planner })).body.items;
   const watch = await live.call('POST', '/api/v1/assignments', {
     cookie: planner,
-    json: { postId: posts[0].id, userId: people[0].id, startsAt: '2032-01-01T06:00:00Z', endsAt: '2032-01-01T10:00:00Z' },
+    json: {
+      postId: plan.body.plan.postIds[0],
+      userId: people[0].id,
+      startsAt: '2032-01-01T06:00:00Z',
+      endsAt: '2032-01-01T10:00:00Z',
+    },
   });
   expect(watch.status).toBe(201);
 

@@ -6,6 +6,7 @@ import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/suppo
 import { DEMO } from '@/tests/support/agents';
 import { listen } from '@/tests/support/live-server';
 import { startTcpProxy } from '@/tests/support/tcp-proxy';
+import { waitFor } from '@/tests/support/wait';
 
 // PostgreSQL goes away under load and comes back. The app reaches it through a
 // relay the test cuts (every connection reset, new ones refused) and restores: the
@@ -35,15 +36,6 @@ afterAll(async () => {
   await drop();
   await proxy.stop();
 });
-
-const waitFor = async (ok: () => Promise<boolean>, seconds: number) => {
-  const until = Date.now() + seconds * 1000;
-  while (Date.now() < until) {
-    if (await ok()) return true;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  return false;
-};
 
 it('answers 503 database_unavailable with Retry-After while it is away, logs once, and recovers', async () => {
   const cookie = await live.signIn(DEMO.planner);

@@ -2,7 +2,7 @@ import { createApp } from '@/server/app';
 import type { CoverageQueue } from '@/server/queue/coverage-queue';
 import { createTestApp, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
-import { listen } from '@/tests/support/live-server';
+import { createForestPlan, listen } from '@/tests/support/live-server';
 
 // Identical requests sent at the same instant: the database refuses the duplicates
 // a check-then-insert lets through, and the API answers 409 (or the existing
@@ -62,21 +62,7 @@ it('30 identical watch requests create one watch; the rest are 409 assignment_ov
 
 it('10 identical coverage requests give one run, returned to every caller', async () => {
   const planner = await live.signIn(DEMO.planner);
-  const sites = (await live.call('GET', '/api/v1/sites', { cookie: planner })).body.items;
-  const site = sites.find((s: { name: string }) => s.name === 'Harrowmere Forest District');
-  const posts = (await live.call('GET', `/api/v1/sites/${site.id}/posts`, { cookie: planner })).body.items;
-  const targets = (await live.call('GET', '/api/v1/targets', { cookie: planner })).body.items;
-  const sets = (await live.call('GET', '/api/v1/conditions', { cookie: planner })).body.items;
-  const plan = await live.call('POST', '/api/v1/plans', {
-    cookie: planner,
-    json: {
-      siteId: site.id,
-      title: 'Race for one run',
-      postIds: [posts[0].id],
-      targetIds: [targets[0].id],
-      conditionSetIds: [sets[0].id],
-    },
-  });
+  const plan = await createForestPlan(live, planner, 'Race for one run');
   expect(plan.status).toBe(201);
   const planId = plan.body.plan.id;
 

@@ -3,12 +3,11 @@ import { Geodesic } from 'geographiclib-geodesic';
 import request from 'supertest';
 import { createApp } from '@/server/app';
 import { PostModel, SiteModel } from '@/server/data/models';
-import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import type { LatLon } from '@/shared/geo/types';
 import { FixResultSchema, type FixVisibility } from '@/shared/schemas/fix';
 import { IncidentDetailSchema, IncidentReportResultSchema } from '@/shared/schemas/incident';
 import { TerrainProfileResponseSchema } from '@/shared/schemas/terrain';
-import { DEMO } from '@/tests/support/agents';
+import { DEMO, signedInAgent } from '@/tests/support/agents';
 import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 
 /*
@@ -24,11 +23,7 @@ let drop: () => Promise<void>;
 let forestId: string;
 const posts: Record<string, { id: string; at: LatLon }> = {};
 
-const agentFor = async (email: string) => {
-  const agent = request.agent(app);
-  await agent.post('/api/auth/sign-in').send({ email, password: DEMO_PASSWORD }).expect(200);
-  return agent;
-};
+const agentFor = (email: string) => signedInAgent(app, email);
 const azimuthDeg = (a: LatLon, b: LatLon) => {
   const azi = WGS84.Inverse(a.latDeg, a.lonDeg, b.latDeg, b.lonDeg).azi1!;
   return azi < 0 ? azi + 360 : azi;

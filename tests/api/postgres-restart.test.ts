@@ -8,6 +8,7 @@ import { scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
 import { listen } from '@/tests/support/live-server';
 import { startPrivatePostgres } from '@/tests/support/private-postgres';
+import { waitFor } from '@/tests/support/wait';
 
 // PostgreSQL itself stopped under load (pg_ctl stop -m fast: every connection told
 // to go, new ones refused) and started again. The app runs on a cluster of this
@@ -43,15 +44,6 @@ afterAll(async () => {
   await pg?.destroy();
   rmSync(scratch, { recursive: true, force: true });
 });
-
-const waitFor = async (ok: () => Promise<boolean>, seconds: number) => {
-  const until = Date.now() + seconds * 1000;
-  while (Date.now() < until) {
-    if (await ok()) return true;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  return false;
-};
 
 it('answers 503 with Retry-After while PostgreSQL is stopped under load, logs the outage once, and carries on when it is started again', async () => {
   const cookie = await live.signIn(DEMO.planner);

@@ -1,22 +1,18 @@
-import { createTestApp } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
-import { listen } from '@/tests/support/live-server';
+import { listenTestApp, type Live } from '@/tests/support/live-server';
 
 // Sessions end on the server: a copy of a cookie stops working when its session
 // is signed out, and every session of a person ends when they sign out
 // everywhere or an administrator changes their role or deactivates them.
 
-let ctx: Awaited<ReturnType<typeof createTestApp>>;
-let live: Awaited<ReturnType<typeof listen>>;
+let ctx: Awaited<ReturnType<typeof listenTestApp>>['ctx'];
+let live: Live;
+let close: () => Promise<void>;
 
 beforeAll(async () => {
-  ctx = await createTestApp();
-  live = await listen(ctx.app);
+  ({ ctx, live, close } = await listenTestApp());
 });
-afterAll(async () => {
-  await live.close();
-  await ctx.close();
-});
+afterAll(() => close());
 
 const me = async (cookie: string) => (await live.call('GET', '/api/me', { cookie })).status;
 

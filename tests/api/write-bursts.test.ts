@@ -1,22 +1,17 @@
-import { createTestApp } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
-import { listen } from '@/tests/support/live-server';
+import { listenTestApp, type Live } from '@/tests/support/live-server';
 
 // A burst of writes to one plan must not hold the connection pool: every read of a
 // write runs inside its transaction, and a request that cannot get a connection
 // within the pool's acquire timeout is answered 503 `busy`.
 
-let ctx: Awaited<ReturnType<typeof createTestApp>>;
-let live: Awaited<ReturnType<typeof listen>>;
+let live: Live;
+let close: () => Promise<void>;
 
 beforeAll(async () => {
-  ctx = await createTestApp();
-  live = await listen(ctx.app);
+  ({ live, close } = await listenTestApp());
 });
-afterAll(async () => {
-  await live.close();
-  await ctx.close();
-});
+afterAll(() => close());
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 

@@ -16,11 +16,11 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
+import { freePort } from '@/tests/support/free-port';
 
 const root = path.resolve(__dirname, '../..');
 
@@ -40,16 +40,6 @@ app.post('/x', express.json(), (req, res) => res.json({ ok: true, n: Object.keys
 const s = app.listen(0, '127.0.0.1', () => console.log('listening ' + s.address().port));
 process.on('disconnect', () => process.exit(0));
 `;
-
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const s = createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
 
 /** Starts a child and resolves once `ready` matches a line of its output. */
 function startChild(command: string[], env: NodeJS.ProcessEnv, ready: RegExp) {

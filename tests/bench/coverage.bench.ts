@@ -25,22 +25,11 @@ import { rasterizePolygon } from '@/shared/terrain/rasterize-polygon';
 import { prepareSweepTerrain } from '@/shared/terrain/sweep-terrain';
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import { classifyVisibility } from '@/shared/terrain/visibility-classes';
-
-interface Row {
-  name: string;
-  value: number;
-  unit: string;
-  detail?: string;
-}
+import { type BenchRow, median } from './measure';
 
 const SIZE = 2000;
 const TARGET = 30; // metres, a smoke column
 const STANDARD = { minSeenPct: 70, priorityMinPosts: 2 };
-
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)] as number;
-}
 
 const cpuNow = () => {
   const usage = process.cpuUsage();
@@ -75,8 +64,8 @@ function wobblyRing(cx: number, cy: number, radius: number, n: number): [number,
 }
 
 /** Runs the coverage benchmark and returns its figures. */
-export async function benchCoverage(): Promise<Row[]> {
-  const rows: Row[] = [];
+export async function benchCoverage(): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
   const cells = SIZE * SIZE;
   const mcells = (ms: number) => cells / 1e6 / (ms / 1000);
   const add = (name: string, time: { wall: number; cpu: number }, detail?: string) => {

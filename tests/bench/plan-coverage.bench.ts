@@ -12,17 +12,11 @@ import { poolViewsheds } from '@/server/domain/coverage/process-coverage-run';
 import { createViewshedPool } from '@/server/workers/viewshed-pool';
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
-
-interface Row {
-  name: string;
-  value: number;
-  unit: string;
-  detail?: string;
-}
+import { type BenchRow } from './measure';
 
 const SIZE = 2000;
 
-export async function benchPlanCoverage(): Promise<Row[]> {
+export async function benchPlanCoverage(): Promise<BenchRow[]> {
   const terrain = generateSyntheticTerrain({ width: SIZE, height: SIZE, seed: 4243 });
   const projection = gridProjection(terrain.crs);
   const at = (col: number, row: number) =>
@@ -82,7 +76,7 @@ export async function benchPlanCoverage(): Promise<Row[]> {
     blindAreaMinAreaM2: 10_000,
   };
   const pool = createViewshedPool();
-  const rows: Row[] = [];
+  const rows: BenchRow[] = [];
   try {
     const times: number[] = [];
     let layersBytes = 0;

@@ -10,17 +10,11 @@ import { OrganizationModel, PlanModel, PostModel, UserModel } from '@/server/dat
 import { crewCard } from '@/server/domain/reports/crew-card';
 import { planPackage } from '@/server/domain/reports/plan-package';
 import { createDiskFileStore } from '@/server/storage/file-store';
-
-interface Row {
-  name: string;
-  value: number;
-  unit: string;
-  detail?: string;
-}
+import { type BenchRow } from './measure';
 
 const RUNS = 3;
 
-export async function benchReports(databaseUrl: string, filesDir: string): Promise<Row[]> {
+export async function benchReports(databaseUrl: string, filesDir: string): Promise<BenchRow[]> {
   const db = createDatabase(databaseUrl);
   try {
     const deps = { db, files: createDiskFileStore(filesDir) };
@@ -30,7 +24,7 @@ export async function benchReports(databaseUrl: string, filesDir: string): Promi
     const plan = (await PlanModel.findOne({ where: { organizationId: org.id, title: 'Fire season cover 2026' } }))!;
     const post = (await PostModel.findOne({ where: { organizationId: org.id, name: 'Crane Knoll Tower' } }))!;
 
-    const rows: Row[] = [];
+    const rows: BenchRow[] = [];
     const time = async (name: string, make: () => Promise<{ pdf: Buffer }>) => {
       const ms: number[] = [];
       let bytes = 0;

@@ -9,15 +9,9 @@ import { benchFixes } from './fixes.bench';
 import { benchLists } from './lists.bench';
 import { benchSightline } from './sightline.bench';
 import { benchTerrain } from './terrain.bench';
+import { type BenchRow } from './measure';
 
-interface Row {
-  name: string;
-  value: number;
-  unit: string;
-  detail?: string;
-}
-
-const print = (title: string, rows: Row[]) => {
+const print = (title: string, rows: BenchRow[]) => {
   console.log(`\n${title}`);
   for (const r of rows) {
     const v = r.value >= 100 ? Math.round(r.value).toLocaleString('en') : r.value.toPrecision(3);
@@ -58,12 +52,12 @@ async function main() {
   const viewshed = path.join(__dirname, 'viewshed.bench.ts');
   if ((!only || only === 'viewshed') && existsSync(viewshed)) {
     // Imported by path: the terrain benchmark may not exist on older checkouts.
-    const mod = (await import(viewshed)) as { benchViewshed: () => Promise<Row[]> };
+    const mod = (await import(viewshed)) as { benchViewshed: () => Promise<BenchRow[]> };
     print('Viewshed engine', await mod.benchViewshed());
   }
   const coverage = path.join(__dirname, 'coverage.bench.ts');
   if ((!only || only === 'coverage') && existsSync(coverage)) {
-    const mod = (await import(coverage)) as { benchCoverage: () => Promise<Row[]> };
+    const mod = (await import(coverage)) as { benchCoverage: () => Promise<BenchRow[]> };
     print('Network coverage (10 posts, 2000², after the viewsheds)', await mod.benchCoverage());
   }
   if (!only || only === 'heatmap') {

@@ -22,26 +22,7 @@ import { computeHillshade } from '@/shared/terrain/hillshade';
 import { hillshadeImage } from '@/shared/terrain/hillshade-image';
 import { terrainProfile } from '@/shared/terrain/terrain-profile';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
-
-interface Row {
-  name: string;
-  value: number;
-  unit: string;
-  detail?: string;
-}
-
-const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)] as number;
-
-function timed(fn: () => void, runs: number): number {
-  fn(); // warm-up
-  const times: number[] = [];
-  for (let r = 0; r < runs; r++) {
-    const t0 = performance.now();
-    fn();
-    times.push(performance.now() - t0);
-  }
-  return median(times);
-}
+import { type BenchRow, median, timed } from './measure';
 
 function surface(size: number): TerrainRaster {
   const heights = new Float32Array(size * size);
@@ -62,14 +43,14 @@ function surface(size: number): TerrainRaster {
   };
 }
 
-export async function benchTerrain(): Promise<Row[]> {
-  const rows: Row[] = [];
+export async function benchTerrain(): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
   const dir = mkdtempSync(path.join(os.tmpdir(), 'kenning-terrain-bench-'));
   try {
     for (const size of [1000, 4000]) {
       const terrain = surface(size);
       const cells = size * size;
-      const ms = timed(() => computeHillshade(terrain), size > 2000 ? 3 : 5);
+      const ms = timed(() => computeHillshade(terrain), size > 2000 ? 3 : 5, { warmUp: true });
       rows.push({
         name: `hillshade ${size}² (core, in memory)`,
         value: ms,
@@ -88,8 +69,16 @@ export async function benchTerrain(): Promise<Row[]> {
       if (gdalTimes.length)
         rows.push({ name: `gdaldem hillshade ${size}² (whole process)`, value: median(gdalTimes), unit: 'ms' });
       const relief = computeHillshade(terrain);
-      rows.push({ name: `hillshade picture ${size}² → ≤ 2048 px`, value: timed(() => hillshadeImage(relief), 3), unit: 'ms' });
-      rows.push({ name: `3D mesh ${size}² → ≤ 256 cells`, value: timed(() => decimateTerrain(terrain, 256), 3), unit: 'ms' });
+      rows.push({
+        name: `hillshade picture ${size}² → ≤ 2048 px`,
+        value: timed(() => hillshadeImage(relief), 3, { warmUp: true }),
+        unit: 'ms',
+      });
+      rows.push({
+        name: `3D mesh ${size}² → ≤ 256 cells`,
+        value: timed(() => decimateTerrain(terrain, 256), 3, { warmUp: true }),
+        unit: 'ms',
+      });
 
       // Corner to corner, three conditions.
       const span = size * 25;
@@ -98,7 +87,7 @@ export async function benchTerrain(): Promise<Row[]> {
         target: { x: terrain.xll + span - 12.5, y: terrain.yll + span - 12.5, height: 30 },
         conditions: [{ refractionCoefficient: 0 }, { refractionCoefficient: 0.13 }, { refractionCoefficient: -0.2 }],
       };
-      const profileMs = timed(() => terrainProfile(terrain, input), 20);
+      const profileMs = timed(() => terrainProfile(terrain, input), 20, { warmUp: true });
       rows.push({
         name: `terrain profile ${size}² diagonal, ${((span * Math.SQRT2) / 1000).toFixed(0)} km, 3 conditions`,
         value: profileMs,

@@ -26,34 +26,13 @@ import { computeHiddenHeightRaster, type SightConditions } from '@/shared/terrai
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 import { computeHiddenHeightRasterBefore } from '@/tests/support/previous-hidden-height-raster';
-
-interface Row {
-  name: string;
-  value: number;
-  unit: string;
-  detail?: string;
-}
+import { type BenchRow, median, timed } from './measure';
 
 const EYE = 15; // metres
 const CLI = path.join(__dirname, '..', '..', 'server', 'scripts', 'viewshed.ts');
 const K = 0.13;
 /** GDAL uses the CRS's semi-major axis as the earth radius; so does the engine here. */
 const CONDITIONS: SightConditions = { refractionCoefficient: K, earthRadius: 6_378_137 };
-
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)] as number;
-}
-
-function timed(fn: () => void, runs: number): number {
-  const times: number[] = [];
-  for (let r = 0; r < runs; r++) {
-    const t0 = performance.now();
-    fn();
-    times.push(performance.now() - t0);
-  }
-  return median(times);
-}
 
 async function timedAsync(fn: () => Promise<void>, runs: number): Promise<number> {
   const times: number[] = [];
@@ -83,7 +62,7 @@ function stamp(): string {
 }
 
 /** Appends the load average and peak RSS to every row's detail. */
-function stamped(row: Row): Row {
+function stamped(row: BenchRow): BenchRow {
   return { ...row, detail: row.detail ? `${row.detail}; ${stamp()}` : stamp() };
 }
 
@@ -141,10 +120,10 @@ function toArrayBuffer(bytes: Buffer): ArrayBuffer {
 }
 
 /** Runs the viewshed benchmark and returns its figures. */
-export async function benchViewshed(): Promise<Row[]> {
-  const rows: Row[] = [];
+export async function benchViewshed(): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
   // Every figure carries the load average and peak RSS at the moment it was measured.
-  const push = (row: Row) => rows.push(stamped(row));
+  const push = (row: BenchRow) => rows.push(stamped(row));
   const dir = mkdtempSync(path.join(os.tmpdir(), 'kenning-viewshed-bench-'));
   try {
     // Warm-up: let the JIT compile the sweep before anything is timed.

@@ -1,17 +1,10 @@
-import type { Browser } from 'playwright-core';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
 import { COVERAGE_LAYER } from '@/shared/terrain/posts-per-cell';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 interface BlindArea {
   area: number;
@@ -19,9 +12,9 @@ interface BlindArea {
   interior: { x: number; y: number; latDeg: number; lonDeg: number };
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   it('opens a blind area on the map at a point inside it, outlined', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.reviewer);

@@ -1,22 +1,15 @@
-import type { Browser } from 'playwright-core';
 import type { Briefing } from '@/shared/schemas/assignment';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { apiJson, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 const bearing = (deg: number) => `${String(Math.round(deg) % 360).padStart(3, '0')}°`;
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   it('lands the observer on their briefing with what their tower sees over the terrain', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.observer);

@@ -1,22 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
+import { apiJson, createPlan, e2eUrl, findPlan, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-interface PlanBody {
-  id: string;
-  siteId: string;
-  postIds: string[];
-  conditionSetIds: string[];
-}
+const browser = browserForFile();
 
 interface RunBody {
   current: {
@@ -34,9 +21,9 @@ const seenShare = async (page: Page) => {
   return Number(/([\d.]+) %$/.exec(label ?? '')?.[1]);
 };
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('detectable targets on the %s viewport', (viewport) => {
+eachViewport('detectable targets on the %s viewport', (viewport) => {
   it('a planner widens a target, sees the coverage go out of date, and the new figures after computing again', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);
@@ -51,10 +38,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('detectable targets on t
         requiredVisibleM: 0,
         period: 'day',
       });
-      const coast = (await apiJson<{ items: PlanBody[] }>(page, 'GET', `/plans?q=${encodeURIComponent('Summer watch')}`))
-        .items[0]!;
+      const coast = await findPlan(page, 'Summer watch');
       const sets = (await apiJson<{ items: { id: string; name: string }[] }>(page, 'GET', '/conditions')).items;
-      const { plan } = await apiJson<{ plan: PlanBody }>(page, 'POST', '/plans', {
+      const plan = await createPlan(page, {
         siteId: coast.siteId,
         title: `Raft cover (${viewport})`,
         postIds: coast.postIds,
@@ -112,7 +98,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('detectable targets on t
   });
 
   it('a reviewer reads how the verdict and the ranges move with refraction', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.reviewer);

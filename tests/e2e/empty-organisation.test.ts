@@ -1,18 +1,12 @@
 import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import type { Browser, CDPSession, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
+import { apiJson, drag, e2eUrl, shot, signIn, tapAt, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 // The invented fixture terrain (tests/fixtures/terrain/README.md): 160 × 150 cells of 30 m in UTM zone 29N.
 const TERRAIN_FILE = path.join(__dirname, '..', 'fixtures', 'terrain', 'small-hill-utm29.tif');
@@ -39,58 +33,19 @@ function gdalCellHeight(latDeg: number, lonDeg: number): number {
   return Number(out.toString().trim());
 }
 
-/** A one-finger drag through the DevTools protocol (Chromium turns it into pointer events). */
-async function touchDrag(cdp: CDPSession, from: { x: number; y: number }, to: { x: number; y: number }, steps = 8) {
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: [from] });
-  for (let i = 1; i <= steps; i++) {
-    const p = { x: from.x + ((to.x - from.x) * i) / steps, y: from.y + ((to.y - from.y) * i) / steps };
-    await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: [p] });
-    await new Promise((r) => setTimeout(r, 30));
-  }
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
-}
-
-async function drag(page: Page, cdp: CDPSession, phone: boolean, from: { x: number; y: number }, to: { x: number; y: number }) {
-  if (phone) {
-    await touchDrag(cdp, from, to);
-    return;
-  }
-  await page.mouse.move(from.x, from.y);
-  await page.mouse.down();
-  await page.mouse.move(to.x, to.y, { steps: 8 });
-  await page.mouse.up();
-}
-
-async function tapAt(page: Page, phone: boolean, p: { x: number; y: number }) {
-  if (phone) await page.touchscreen.tap(p.x, p.y);
-  else await page.mouse.click(p.x, p.y);
-}
-
 /** Centre of a post's symbol on the site map. */
 async function symbolCentre(page: Page, name: string) {
   const box = (await page.locator(`[aria-label="${name} symbol"]`).boundingBox())!;
   return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('an empty organisation on the %s viewport', (viewport) => {
+eachViewport('an empty organisation on the %s viewport', (viewport) => {
   it('sets up a site from nothing — boundary by taps, zone pasted, terrain, two posts — and gets a plan approved', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await browser.newPage(viewport, { touch: phone });
     const cdp = await context.newCDPSession(page);
     const errors = watchErrors(page);
-    const reviewerContext = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const r = await reviewerContext.newPage();
+    const { context: reviewerContext, page: r } = await browser.newPage(viewport, { touch: phone });
     const reviewerErrors = watchErrors(r);
     const siteName = `Carrig Head (${viewport})`;
     const hillName = `Carrig Hill ${viewport}`;

@@ -1,15 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage } from '@/tests/support/browser';
+import { browserForFile } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 /** Waits until the field-mode worker controls the page and has kept the app shell. */
 async function shellKept(page: Page) {
@@ -46,7 +40,7 @@ const deviceCopyKept = (page: Page) =>
   );
 
 it('starts with no network on a phone: the briefing from the device’s copy, marked offline, and the quick check computed on the device', async () => {
-  const { context, page } = await newPage(browser, 'phone', { fieldMode: true });
+  const { context, page } = await browser.newPage('phone', { fieldMode: true });
   const errors = watchErrors(page);
   try {
     // Online first: the worker keeps the shell, the app keeps what the observer saw.

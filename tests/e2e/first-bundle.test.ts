@@ -11,18 +11,12 @@
  * Source: issue 12 ("keep 3D and other heavy code out of the first bundle");
  * the split itself is common practice, no source.
  */
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import type { Page } from 'playwright-core';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 /** Every script the page requests, by file name. */
 function watchScripts(page: Page): string[] {
@@ -34,9 +28,9 @@ function watchScripts(page: Page): string[] {
 }
 const has = (scripts: string[], chunk: string) => scripts.some((s) => s.startsWith(`${chunk}-`));
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   it('signs in without the 3D and deferred chunks in the first load, preloads the deferred one, and loads 3D where needed', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     const scripts = watchScripts(page);
     try {

@@ -1,20 +1,13 @@
-import type { Browser } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = browserForFile();
 
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('history and post deletion on the %s viewport', (viewport) => {
+eachViewport('history and post deletion on the %s viewport', (viewport) => {
   it('a planner is told why a post in an approved plan stays, edits a site; a reviewer reads that as a sentence', async () => {
-    const planner = await newPage(browser, viewport);
-    const reviewer = await newPage(browser, viewport);
+    const planner = await browser.newPage(viewport);
+    const reviewer = await browser.newPage(viewport);
     const errors = [...watchErrors(planner.page), ...watchErrors(reviewer.page)];
     try {
       const page = planner.page;

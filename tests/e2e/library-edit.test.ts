@@ -1,19 +1,12 @@
-import type { Browser } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = browserForFile();
 
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('library editing on the %s viewport', (viewport) => {
+eachViewport('library editing on the %s viewport', (viewport) => {
   it('a planner edits a target: field errors under the field, the version conflict said, then saved; and retires one', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.otherPlanner);

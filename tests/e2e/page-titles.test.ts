@@ -1,15 +1,8 @@
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 /** Waits until the tab's title is the one expected (titles are set after the page's data arrives). */
 async function titleIs(page: import('playwright-core').Page, expected: string | RegExp) {
@@ -22,9 +15,9 @@ async function titleIs(page: import('playwright-core').Page, expected: string | 
   return page.title();
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   it('gives every page its own tab title, and an unknown address a page that says so with a way back', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await page.goto(`${e2eUrl()}/`);

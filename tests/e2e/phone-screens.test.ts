@@ -1,15 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, SCREENSHOT_DIR, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { browserForFile, eachViewport, SCREENSHOT_DIR, type ViewportName, VIEWPORTS } from '@/tests/support/browser';
+import { apiJson, e2eUrl, openSiteMap, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 const DAY_MS = 86_400_000;
 
@@ -45,11 +39,11 @@ async function sitePost(page: Page, viewport: ViewportName) {
   return { siteId: site.id, post };
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   const phone = viewport === 'phone';
 
   it('taking someone off a watch asks first: Cancel keeps the watch, the named action removes it', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);
@@ -105,7 +99,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
   });
 
   it('the navigation fits: one-line labels, at most five places on a phone with the rest under More', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);
@@ -157,20 +151,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
   });
 
   it('a tapped point stays in sight above the profile sheet, and the results table says when columns are off-screen', async () => {
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await browser.newPage(viewport, { touch: phone });
     const errors = watchErrors(page);
     try {
-      await signIn(page, DEMO.planner);
-      await page.getByRole('link', { name: 'Harrowmere Forest District' }).click();
-      await page.getByRole('link', { name: 'Open the map' }).click();
-      const map = page.getByRole('application', { name: /^Map: drag to pan/ });
-      await map.waitFor();
+      const map = await openSiteMap(page, DEMO.planner, 'Harrowmere Forest District');
       const box = (await map.boundingBox())!;
       // Low on the map, above the scale bar and read-out: where the phone's profile sheet comes up.
       const at = { x: box.x + box.width * 0.3, y: box.y + box.height - 230 };

@@ -1,36 +1,19 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
+import type { Plan } from '@/shared/schemas/plan';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, SCREENSHOT_DIR, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { browserForFile, eachViewport, SCREENSHOT_DIR, type ViewportName } from '@/tests/support/browser';
+import { apiJson, createPlan, e2eUrl, findPlan, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-interface PlanBody {
-  id: string;
-  siteId: string;
-  title: string;
-  postIds: string[];
-  targetIds: string[];
-  conditionSetIds: string[];
-  standard: { minSeenPct: number; priorityMinPosts: number };
-}
+const browser = browserForFile();
 
 /**
  * A fresh draft on the forest district (which has terrain) with the demo
  * proposal's inputs, so each viewport starts from "not computed" whatever
  * other browser tests did to the seeded plans.
  */
-async function freshForestDraft(page: Page, viewport: ViewportName): Promise<PlanBody> {
-  const list = await apiJson<{ items: PlanBody[] }>(page, 'GET', `/plans?q=${encodeURIComponent('Blackmoss tower proposal')}`);
-  const proposal = list.items[0];
-  if (!proposal) throw new Error('The demo proposal is missing from the seed.');
-  const { plan } = await apiJson<{ plan: PlanBody }>(page, 'POST', '/plans', {
+async function freshForestDraft(page: Page, viewport: ViewportName): Promise<Plan> {
+  const proposal = await findPlan(page, 'Blackmoss tower proposal');
+  return createPlan(page, {
     siteId: proposal.siteId,
     title: `Coverage check (${viewport})`,
     postIds: proposal.postIds,
@@ -38,19 +21,12 @@ async function freshForestDraft(page: Page, viewport: ViewportName): Promise<Pla
     conditionSetIds: proposal.conditionSetIds,
     standard: proposal.standard,
   });
-  return plan;
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain coverage on the %s viewport', (viewport) => {
+eachViewport('terrain coverage on the %s viewport', (viewport) => {
   it('computes a plan’s coverage, shows it on the map and in 3D, and compares it with the approved plan', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await browser.newPage(viewport, { touch: phone });
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);

@@ -2,27 +2,21 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { Browser } from 'playwright-core';
 import type { Plan } from '@/shared/schemas/plan';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage } from '@/tests/support/browser';
+import { browserForFile } from '@/tests/support/browser';
 import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = browserForFile();
 let work: string;
 
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
+beforeAll(() => {
   work = mkdtempSync(path.join(os.tmpdir(), 'kenning-e2e-package-'));
 });
-afterAll(async () => {
-  rmSync(work, { recursive: true, force: true });
-  await close();
-});
+afterAll(() => rmSync(work, { recursive: true, force: true }));
 
 it('lets a reviewer download the package of the approved demo plan', async () => {
-  const { context, page } = await newPage(browser, 'wide');
+  const { context, page } = await browser.newPage('wide');
   const errors = watchErrors(page);
   try {
     await signIn(page, DEMO.reviewer);
@@ -52,7 +46,7 @@ it('lets a reviewer download the package of the approved demo plan', async () =>
 });
 
 it('shows an observer their post’s crew card on a phone, with the PDF beside it, and again with no network', async () => {
-  const { context, page } = await newPage(browser, 'phone', { fieldMode: true });
+  const { context, page } = await browser.newPage('phone', { fieldMode: true });
   const errors = watchErrors(page);
   try {
     await signIn(page, DEMO.observer);

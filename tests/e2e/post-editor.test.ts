@@ -1,16 +1,10 @@
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import type { Page } from 'playwright-core';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 import { ridgePng } from '@/tests/support/pictures';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 /** A post of its own for this run, so the demo posts other tests use stay as they are. */
 async function newPost(page: Page, name: string) {
@@ -23,9 +17,9 @@ async function newPost(page: Page, name: string) {
   return { siteId: site.id as string, post: (await res.json()).post as { id: string; version: number } };
 }
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('the post page on the %s viewport', (viewport) => {
+eachViewport('the post page on the %s viewport', (viewport) => {
   it('lets a planner edit the post, see a clash with another edit, and add a photo with its bearing', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     const name = `Photo tower ${viewport}`;
     try {

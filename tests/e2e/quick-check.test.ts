@@ -1,25 +1,18 @@
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 import { SCREENSHOT_DIR } from '@/tests/support/browser';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 // Geometric horizon of a 30 m eye on a 6 371 008.8 m sphere, R·acos(R/(R+h)) = 19.55 km.
 // Source: spherical geometry of the tangent line, common practice, no source.
 const R = 6371008.8;
 const geometricHorizonKm = (R * Math.acos(R / (R + 30))) / 1000;
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('quick check on the %s viewport', (viewport) => {
+eachViewport('quick check on the %s viewport', (viewport) => {
   it('answers, shows cautions, the lookout’s view and 3D, flags bad input, and works offline', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.observer);

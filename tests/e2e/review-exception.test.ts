@@ -1,38 +1,22 @@
-import type { Browser } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
+import { apiJson, createPlan, e2eUrl, findPlan, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = browserForFile();
 
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-interface PlanBody {
-  id: string;
-  siteId: string;
-  postIds: string[];
-  targetIds: string[];
-  conditionSetIds: string[];
-}
-
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   it('submits and approves a plan that fails its standard only as a recorded exception', async () => {
-    const planner = await newPage(browser, viewport);
-    const reviewer = await newPage(browser, viewport);
+    const planner = await browser.newPage(viewport);
+    const reviewer = await browser.newPage(viewport);
     const errors = [...watchErrors(planner.page), ...watchErrors(reviewer.page)];
     try {
       const p = planner.page;
       await signIn(p, DEMO.planner);
       await p.getByText('Harrowmere Forest District').first().waitFor();
       // A forest plan with a standard its towers cannot meet (all of a hilly district seen).
-      const list = await apiJson<{ items: PlanBody[] }>(p, 'GET', `/plans?q=${encodeURIComponent('Fire season cover 2026')}`);
-      const season = list.items[0]!;
+      const season = await findPlan(p, 'Fire season cover 2026');
       const title = `Exception check (${viewport})`;
-      const { plan } = await apiJson<{ plan: PlanBody }>(p, 'POST', '/plans', {
+      const plan = await createPlan(p, {
         siteId: season.siteId,
         title,
         postIds: season.postIds,

@@ -1,19 +1,12 @@
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { openPlace, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = browserForFile();
 
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('search effort on the %s viewport', (viewport) => {
+eachViewport('search effort on the %s viewport', (viewport) => {
   it('computes W, C and POD from a table row, a typed W and a curve, with the cautions and field errors', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);

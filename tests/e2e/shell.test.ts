@@ -1,19 +1,12 @@
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport, VIEWPORTS } from '@/tests/support/browser';
 import { e2eUrl, openPlace, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = browserForFile();
 
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   it('signs in, shows the shell and the sites, and signs out', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await page.goto(`${e2eUrl()}/`);
@@ -59,7 +52,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
   });
 
   it('lets an admin manage users, and keeps an observer out of administration', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     try {
       await signIn(page, DEMO.admin);
       await page.getByText('Your sites').first().waitFor();
@@ -114,7 +107,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (v
       await context.close();
     }
 
-    const observer = await newPage(browser, viewport);
+    const observer = await browser.newPage(viewport);
     try {
       await signIn(observer.page, DEMO.observer);
       await observer.page.waitForURL(/\/briefing$/);

@@ -1,54 +1,22 @@
-import { randomBytes } from 'node:crypto';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
-import { DEMO } from '@/tests/support/agents';
-import { DEMO_PASSWORD } from '@/server/seeders/demo';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
+import { e2eUrl, invitePerson, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 // "Sign out everywhere" on the account page ends the person's session in another
 // browser too. A person of its own (invited here), so the demo accounts other
 // browser tests use at the same time keep their sessions.
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = browserForFile();
 
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-/** Invites a new observer through the API and sets their password; returns the e-mail and password. */
-async function newPerson() {
-  const base = e2eUrl();
-  const signedIn = await fetch(`${base}/api/auth/sign-in`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ email: DEMO.admin, password: DEMO_PASSWORD }),
-  });
-  const cookie = signedIn.headers.getSetCookie()[0]!.split(';')[0]!;
-  const email = `everywhere.${randomBytes(4).toString('hex')}@demo.kenning.test`;
-  const invited = await fetch(`${base}/api/v1/users`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', cookie },
-    body: JSON.stringify({ email, name: 'Everywhere Person', role: 'observer' }),
-  });
-  const { setPasswordUrl } = (await invited.json()) as { setPasswordUrl: string };
-  const token = new URL(setPasswordUrl).searchParams.get('token');
-  const password = 'everywhere-and-nowhere';
-  const set = await fetch(`${base}/api/auth/set-password`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ token, password }),
-  });
-  if (set.status !== 204) throw new Error(`set-password: ${set.status}`);
-  return { email, password };
-}
-
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('on the %s viewport', (viewport) => {
+eachViewport('on the %s viewport', (viewport) => {
   it('signs the person out in the other browser too', async () => {
-    const person = await newPerson();
-    const here = await newPage(browser, viewport);
-    const there = await newPage(browser, viewport);
+    const person = await invitePerson({
+      emailPrefix: 'everywhere',
+      name: 'Everywhere Person',
+      role: 'observer',
+      password: 'everywhere-and-nowhere',
+    });
+    const here = await browser.newPage(viewport);
+    const there = await browser.newPage(viewport);
     const errors = watchErrors(here.page);
     try {
       for (const { page } of [here, there]) {

@@ -1,15 +1,9 @@
-import type { Browser, CDPSession, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, SCREENSHOT_DIR, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { browserForFile, eachViewport, SCREENSHOT_DIR } from '@/tests/support/browser';
+import { openSiteMap, shot, touchGesture, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 // The demo district's tower (server/seeders/demo.ts): UTM zone 33N, invented coordinates.
 const CRANE_KNOLL = { easting: 516_200, northing: 5_741_300 };
@@ -32,36 +26,14 @@ async function readUtm(page: Page): Promise<{ zone: string; easting: number; nor
   return { zone: m[1]!, easting: Number(m[2]), northing: Number(m[3]) };
 }
 
-/** A touch drag or a two-finger pinch through the DevTools protocol (Chromium turns it into pointer events). */
-async function touch(cdp: CDPSession, paths: { x: number; y: number }[][], steps = 8) {
-  const at = (i: number) =>
-    paths.map((p) => ({ x: p[0]!.x + ((p[1]!.x - p[0]!.x) * i) / steps, y: p[0]!.y + ((p[1]!.y - p[0]!.y) * i) / steps }));
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: at(0) });
-  for (let i = 1; i <= steps; i++) {
-    await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: at(i) });
-    await new Promise((r) => setTimeout(r, 30));
-  }
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
-}
-
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s viewport', (viewport) => {
+eachViewport('site map on the %s viewport', (viewport) => {
   it('opens from the site page, zooms, pans, reads a coordinate, profiles a tapped point and shows 3D', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await browser.newPage(viewport, { touch: phone });
     const cdp = await context.newCDPSession(page);
     const errors = watchErrors(page);
     try {
-      await signIn(page, DEMO.planner);
-      await page.getByRole('link', { name: 'Harrowmere Forest District' }).click();
-      await page.getByRole('link', { name: 'Open the map' }).click();
-      const map = page.getByRole('application', { name: /^Map: drag to pan/ });
-      await map.waitFor();
+      const map = await openSiteMap(page, DEMO.planner, 'Harrowmere Forest District');
       await page.waitForFunction(() => {
         const img = document.querySelector<HTMLImageElement>('img[src*="hillshade.png"]');
         return !!img && img.complete && img.naturalWidth === 600;
@@ -81,7 +53,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s view
 
       // Zoom with the wheel (wide) or a pinch (phone): committed once the gesture ends.
       if (phone) {
-        await touch(cdp, [
+        await touchGesture(cdp, [
           [
             { x: centre.x - 30, y: centre.y },
             { x: centre.x - 90, y: centre.y },
@@ -118,7 +90,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s view
       expect(first.zone).toBe('33U');
       const drag = { dx: 70, dy: 40 };
       if (phone) {
-        await touch(cdp, [
+        await touchGesture(cdp, [
           [
             { x: dragFrom.x, y: dragFrom.y },
             { x: dragFrom.x + drag.dx, y: dragFrom.y + drag.dy },
@@ -216,20 +188,10 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site map on the %s view
 });
 
 it('draws a site without terrain on a plain background in its UTM zone, and says a profile needs terrain', async () => {
-  const context = await browser.newContext({
-    viewport: VIEWPORTS.phone,
-    deviceScaleFactor: 1,
-    hasTouch: true,
-    serviceWorkers: 'block',
-  });
-  const page = await context.newPage();
+  const { context, page } = await browser.newPage('phone', { touch: true });
   const errors = watchErrors(page);
   try {
-    await signIn(page, DEMO.planner);
-    await page.getByRole('link', { name: 'Tallow Strand' }).click();
-    await page.getByRole('link', { name: 'Open the map' }).click();
-    const map = page.getByRole('application', { name: /^Map: drag to pan/ });
-    await map.waitFor();
+    const map = await openSiteMap(page, DEMO.planner, 'Tallow Strand');
     await page.getByText('No terrain · WGS 84 / UTM zone 33N (EPSG:32633)').waitFor();
     expect(await page.locator('img[src*="hillshade.png"]').count()).toBe(0);
     // Tallow Strand's shore posts are drawn (invented coordinates in zone 33N).

@@ -1,43 +1,14 @@
-import type { Browser, CDPSession, Page } from 'playwright-core';
 import { toUtm } from '@/shared/geo/to-utm';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
+import { apiJson, drag, e2eUrl, shot, signIn, tapAt, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = browserForFile();
 
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-/** A one-finger drag through the DevTools protocol (Chromium turns it into pointer events). */
-async function touchDrag(cdp: CDPSession, from: { x: number; y: number }, to: { x: number; y: number }, steps = 8) {
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: [from] });
-  for (let i = 1; i <= steps; i++) {
-    const p = { x: from.x + ((to.x - from.x) * i) / steps, y: from.y + ((to.y - from.y) * i) / steps };
-    await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: [p] });
-    await new Promise((r) => setTimeout(r, 30));
-  }
-  await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
-}
-
-async function tapAt(page: Page, phone: boolean, p: { x: number; y: number }) {
-  if (phone) await page.touchscreen.tap(p.x, p.y);
-  else await page.mouse.click(p.x, p.y);
-}
-
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site setup on the %s viewport', (viewport) => {
+eachViewport('site setup on the %s viewport', (viewport) => {
   it('a planner of an empty organisation creates a site by drawing its boundary with taps and typing a zone', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await browser.newPage(viewport, { touch: phone });
     const cdp = await context.newCDPSession(page);
     const errors = watchErrors(page);
     try {
@@ -86,13 +57,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site setup on the %s vi
       // Drag the third corner down and to the right (a finger on the phone, the mouse on the wide screen).
       const from = corners[2]!;
       const to = { x: from.x + 40, y: from.y + 30 };
-      if (phone) await touchDrag(cdp, from, to);
-      else {
-        await page.mouse.move(from.x, from.y);
-        await page.mouse.down();
-        await page.mouse.move(to.x, to.y, { steps: 8 });
-        await page.mouse.up();
-      }
+      await drag(page, cdp, phone, from, to);
       await page.waitForTimeout(200);
       await shot(page, 'site-setup-drawn', viewport);
       await map.screenshot({ path: `${__dirname}/screenshots/site-setup-map-${viewport}.png` });
@@ -103,13 +68,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('site setup on the %s vi
       const again = (await map.boundingBox())!;
       const from2 = { x: again.x + again.width * 0.7, y: again.y + again.height * 0.6 };
       const to2 = { x: from2.x + 40, y: from2.y + 30 };
-      if (phone) await touchDrag(cdp, from2, to2);
-      else {
-        await page.mouse.move(from2.x, from2.y);
-        await page.mouse.down();
-        await page.mouse.move(to2.x, to2.y, { steps: 8 });
-        await page.mouse.up();
-      }
+      await drag(page, cdp, phone, from2, to2);
       await page.waitForTimeout(200);
       await map.screenshot({ path: `${__dirname}/screenshots/site-setup-map-after-undo-${viewport}.png` });
       await form.getByRole('button', { name: 'Use this outline' }).click();

@@ -1,19 +1,12 @@
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage, SCREENSHOT_DIR, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport, SCREENSHOT_DIR } from '@/tests/support/browser';
 import { shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = browserForFile();
 
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a site on the %s viewport', (viewport) => {
+eachViewport('a site on the %s viewport', (viewport) => {
   it('shows the sketch and posts, and lets a planner add a post from a UTM coordinate', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);
@@ -51,9 +44,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a site on the %s viewpo
   });
 });
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('the library on the %s viewport', (viewport) => {
+eachViewport('the library on the %s viewport', (viewport) => {
   it('lists the starter targets and condition sets and lets a planner add and remove entries', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     try {
       await signIn(page, DEMO.planner);
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Library' }).click();

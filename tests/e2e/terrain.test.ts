@@ -1,5 +1,4 @@
 import { readFileSync } from 'node:fs';
-import type { Browser } from 'playwright-core';
 import { fromUtm } from '@/shared/geo/from-utm';
 import { writeEsriAsciiGrid } from '@/shared/terrain/formats/esri-ascii-grid-writer';
 import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
@@ -8,25 +7,19 @@ import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import { elevationAt } from '@/shared/terrain/terrain-elevation';
 import { DEMO_TERRAIN_FILE } from '@/server/seeders/demo';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, SCREENSHOT_DIR, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { browserForFile, eachViewport, SCREENSHOT_DIR } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 const lonLat = (e: number, n: number): [number, number] => {
   const p = fromUtm({ zone: 33, hemisphere: 'N', easting: e, northing: n });
   return [p.lonDeg, p.latDeg];
 };
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain on the %s viewport', (viewport) => {
+eachViewport('terrain on the %s viewport', (viewport) => {
   it('shows the demo district’s terrain panel and hillshade, and fills a post’s ground from the terrain', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);
@@ -74,7 +67,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('terrain on the %s viewp
   });
 
   it('lets a planner upload a terrain, with the server’s field error and progress', async () => {
-    const { context, page } = await newPage(browser, viewport);
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);

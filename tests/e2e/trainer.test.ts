@@ -1,4 +1,4 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import type { Calibration } from '@/shared/schemas/calibration';
 import type { Course, CourseAttempt, Qualification } from '@/shared/schemas/course';
 import type { Drill } from '@/shared/schemas/drill';
@@ -6,16 +6,10 @@ import type { SiteSummary } from '@/shared/schemas/site';
 import { horizonDistance } from '@/shared/sightline/horizon-distance';
 import { convertLength, type LengthUnit } from '@/shared/units';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage } from '@/tests/support/browser';
+import { browserForFile } from '@/tests/support/browser';
 import { apiJson, e2eUrl, openPlace, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 const COURSE = 'Gull Point horizon check';
 
@@ -39,7 +33,7 @@ async function answer(page: Page, drill: Drill) {
 
 it('a planner sets a course; the observer takes it on a phone (one answer offline, sent once), passes, and is qualified on the roster; a dip sighting becomes a condition set', async () => {
   // --- The planner composes the course on a wide screen and assigns the demo observer.
-  const planner = await newPage(browser, 'wide');
+  const planner = await browser.newPage('wide');
   const plannerErrors = watchErrors(planner.page);
   let courseId = '';
   try {
@@ -93,7 +87,7 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
   }
 
   // --- The observer takes it on a phone; the second answer goes while the network is out.
-  const { context, page } = await newPage(browser, 'phone', { fieldMode: true });
+  const { context, page } = await browser.newPage('phone', { fieldMode: true });
   const errors = watchErrors(page);
   try {
     await signIn(page, DEMO.observer);
@@ -168,7 +162,7 @@ it('a planner sets a course; the observer takes it on a phone (one answer offlin
   }
 
   // --- The planner sees them qualified on the roster, then turns a dip sighting into a condition set.
-  const again = await newPage(browser, 'wide');
+  const again = await browser.newPage('wide');
   const againErrors = watchErrors(again.page);
   try {
     const p = again.page;

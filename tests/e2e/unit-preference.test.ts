@@ -1,48 +1,11 @@
-import { randomBytes } from 'node:crypto';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
-import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
-import { DEMO } from '@/tests/support/agents';
-import { DEMO_PASSWORD } from '@/server/seeders/demo';
+import { browserForFile, eachViewport } from '@/tests/support/browser';
+import { apiJson, e2eUrl, invitePerson, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 // A planner chooses feet on the account page; a post's heights are typed in feet, stored in
 // metres and shown in feet. A planner of its own (invited here), so the demo planner other
 // browser tests use at the same time keeps metric forms.
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
-
-/** Invites a new planner through the API and sets their password; returns the e-mail and password. */
-async function newPlanner() {
-  const base = e2eUrl();
-  const signedIn = await fetch(`${base}/api/auth/sign-in`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ email: DEMO.admin, password: DEMO_PASSWORD }),
-  });
-  const cookie = signedIn.headers.getSetCookie()[0]!.split(';')[0]!;
-  const email = `feet.${randomBytes(4).toString('hex')}@demo.kenning.test`;
-  const invited = await fetch(`${base}/api/v1/users`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', cookie },
-    body: JSON.stringify({ email, name: 'Feet Planner', role: 'planner' }),
-  });
-  const { setPasswordUrl } = (await invited.json()) as { setPasswordUrl: string };
-  const token = new URL(setPasswordUrl).searchParams.get('token');
-  const password = 'feet-and-inches-planner';
-  const set = await fetch(`${base}/api/auth/set-password`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ token, password }),
-  });
-  if (set.status !== 204) throw new Error(`set-password: ${set.status}`);
-  return { email, password };
-}
+const browser = browserForFile();
 
 /** Waits (up to 10 s) until `check` holds; fails with what it waited for otherwise. */
 async function until(check: () => Promise<boolean>) {
@@ -55,10 +18,15 @@ async function until(check: () => Promise<boolean>) {
 
 type PostRow = { id: string; name: string; groundElevationM: number; structureHeightM: number; eyeHeightM: number };
 
-describe.each(Object.keys(VIEWPORTS) as ViewportName[])('units on the %s viewport', (viewport) => {
+eachViewport('units on the %s viewport', (viewport) => {
   it('a planner sets feet on the account page, types a post in feet, and it is stored in metres and shown in feet', async () => {
-    const person = await newPlanner();
-    const { context, page } = await newPage(browser, viewport);
+    const person = await invitePerson({
+      emailPrefix: 'feet',
+      name: 'Feet Planner',
+      role: 'planner',
+      password: 'feet-and-inches-planner',
+    });
+    const { context, page } = await browser.newPage(viewport);
     const errors = watchErrors(page);
     const name = `Feet tower ${viewport}`;
     try {

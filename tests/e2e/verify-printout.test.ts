@@ -1,15 +1,8 @@
-import type { Browser } from 'playwright-core';
-import { launchBrowser, newPage } from '@/tests/support/browser';
+import { browserForFile } from '@/tests/support/browser';
 import { apiJson, e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 interface PlanList {
   items: { id: string; title: string }[];
@@ -17,7 +10,7 @@ interface PlanList {
 
 describe('verify a printout', () => {
   it('an observer reaches it from the plan’s exports on a phone and checks the hash read off the paper', async () => {
-    const { context, page } = await newPage(browser, 'phone');
+    const { context, page } = await browser.newPage('phone');
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.observer);
@@ -75,7 +68,7 @@ describe('verify a printout', () => {
   });
 
   it('shows the same on a wide screen when the hash comes in the address', async () => {
-    const { context, page } = await newPage(browser, 'wide');
+    const { context, page } = await browser.newPage('wide');
     try {
       await signIn(page, DEMO.reviewer);
       await page.getByText('Your sites').first().waitFor();

@@ -35,20 +35,54 @@ export async function launchBrowser(): Promise<{ browser: Browser; close: () => 
   return { browser, close: () => browser.close() };
 }
 
+export interface PageOptions {
+  /** Lets the field-mode service worker run (every other page blocks it). */
+  fieldMode?: boolean;
+  /** A touch screen (`hasTouch`): taps, drags and pinches through `page.touchscreen` or the DevTools protocol. */
+  touch?: boolean;
+}
+
 export async function newPage(
   browser: Browser,
   viewport: ViewportName,
-  { fieldMode = false }: { fieldMode?: boolean } = {},
+  { fieldMode = false, touch = false }: PageOptions = {},
 ): Promise<{ context: BrowserContext; page: Page }> {
   // The field-mode service worker would take every page's requests out of Playwright's sight (and precache the
   // whole app in each test): only the tests of field mode let it run.
   const context = await browser.newContext({
     viewport: VIEWPORTS[viewport],
     deviceScaleFactor: 1,
+    hasTouch: touch,
     serviceWorkers: fieldMode ? 'allow' : 'block',
   });
   const page = await context.newPage();
   return { context, page };
+}
+
+/** The browser of one test file: launched before its tests, closed after them. */
+export interface TestBrowser {
+  /** A fresh context (its own cookies and storage) and page at the viewport's size. */
+  newPage(viewport: ViewportName, options?: PageOptions): Promise<{ context: BrowserContext; page: Page }>;
+}
+
+/** Launches Chromium in the file's `beforeAll` and closes it in its `afterAll`. */
+export function browserForFile(): TestBrowser {
+  let launched: { browser: Browser; close: () => Promise<void> } | undefined;
+  beforeAll(async () => {
+    launched = await launchBrowser();
+  });
+  afterAll(() => launched?.close());
+  return {
+    newPage: (viewport, options) => {
+      if (!launched) throw new Error('browserForFile(): the browser is launched in beforeAll; open pages inside tests.');
+      return newPage(launched.browser, viewport, options);
+    },
+  };
+}
+
+/** `describe` once for each viewport (phone 390×844, wide 1440×900); `%s` in the title names it. */
+export function eachViewport(title: string, tests: (viewport: ViewportName) => void) {
+  describe.each(Object.keys(VIEWPORTS) as ViewportName[])(title, tests);
 }
 
 /** Where e2e screenshots go (ignored by git). */

@@ -1,7 +1,12 @@
+import { randomBytes } from 'node:crypto';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import type { Page } from 'playwright-core';
+import type { CDPSession, Locator, Page } from 'playwright-core';
+import type { z } from 'zod';
+import type { Role } from '@/shared/schemas/auth';
+import type { Plan, PlanInputSchema } from '@/shared/schemas/plan';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
+import { DEMO } from './agents';
 import { SCREENSHOT_DIR, type ViewportName } from './browser';
 
 /** The server `npm test` started, serving the built web app against a seeded database. */
@@ -46,4 +51,97 @@ export async function openPlace(page: Page, name: string) {
   if ((await link.count()) > 0) return link.click();
   await nav.getByRole('button', { name: 'More' }).click();
   await page.getByRole('navigation', { name: 'More places' }).getByRole('link', { name, exact: true }).click();
+}
+
+/** The first plan the plan list finds for `title` (a demo plan by its title), failing if there is none. */
+export async function findPlan(page: Page, title: string): Promise<Plan> {
+  const { items } = await apiJson<{ items: Plan[] }>(page, 'GET', `/plans?q=${encodeURIComponent(title)}`);
+  if (!items[0]) throw new Error(`No plan titled like “${title}” (the demo seed has changed?).`);
+  return items[0];
+}
+
+/** Creates a draft plan through the API as the signed-in page. */
+export async function createPlan(page: Page, input: z.input<typeof PlanInputSchema>): Promise<Plan> {
+  return (await apiJson<{ plan: Plan }>(page, 'POST', '/plans', input)).plan;
+}
+
+/**
+ * A person of the test's own: the demo admin invites them with `role` through the API and they set `password`
+ * through their link, so the demo accounts other browser tests use at the same time are left alone.
+ */
+export async function invitePerson({
+  emailPrefix,
+  name,
+  role,
+  password,
+}: {
+  emailPrefix: string;
+  name: string;
+  role: Role;
+  password: string;
+}): Promise<{ email: string; password: string }> {
+  const base = e2eUrl();
+  const signedIn = await fetch(`${base}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: DEMO.admin, password: DEMO_PASSWORD }),
+  });
+  const cookie = signedIn.headers.getSetCookie()[0]!.split(';')[0]!;
+  const email = `${emailPrefix}.${randomBytes(4).toString('hex')}@demo.kenning.test`;
+  const invited = await fetch(`${base}/api/v1/users`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', cookie },
+    body: JSON.stringify({ email, name, role }),
+  });
+  const { setPasswordUrl } = (await invited.json()) as { setPasswordUrl: string };
+  const token = new URL(setPasswordUrl).searchParams.get('token');
+  const set = await fetch(`${base}/api/auth/set-password`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ token, password }),
+  });
+  if (set.status !== 204) throw new Error(`set-password: ${set.status}`);
+  return { email, password };
+}
+
+/** Signs in and opens a site's map from its page; answers the map, drawn and waiting for gestures. */
+export async function openSiteMap(page: Page, email: string, siteName: string): Promise<Locator> {
+  await signIn(page, email);
+  await page.getByRole('link', { name: siteName }).click();
+  await page.getByRole('link', { name: 'Open the map' }).click();
+  const map = page.getByRole('application', { name: /^Map: drag to pan/ });
+  await map.waitFor();
+  return map;
+}
+
+type Point = { x: number; y: number };
+
+/**
+ * Touch drags through the DevTools protocol, one finger per path (two for a pinch), each from its first point to its
+ * second in `steps` moves; Chromium turns them into pointer events.
+ */
+export async function touchGesture(cdp: CDPSession, paths: [Point, Point][], steps = 8) {
+  const at = (i: number) =>
+    paths.map(([from, to]) => ({ x: from.x + ((to.x - from.x) * i) / steps, y: from.y + ((to.y - from.y) * i) / steps }));
+  await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: at(0) });
+  for (let i = 1; i <= steps; i++) {
+    await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: at(i) });
+    await new Promise((r) => setTimeout(r, 30));
+  }
+  await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
+}
+
+/** A tap on a touch screen, a click with the mouse otherwise. */
+export async function tapAt(page: Page, touch: boolean, p: Point) {
+  if (touch) await page.touchscreen.tap(p.x, p.y);
+  else await page.mouse.click(p.x, p.y);
+}
+
+/** A drag: one finger through the DevTools protocol on a touch screen, the mouse (in 8 moves) otherwise. */
+export async function drag(page: Page, cdp: CDPSession, touch: boolean, from: Point, to: Point) {
+  if (touch) return touchGesture(cdp, [[from, to]]);
+  await page.mouse.move(from.x, from.y);
+  await page.mouse.down();
+  await page.mouse.move(to.x, to.y, { steps: 8 });
+  await page.mouse.up();
 }

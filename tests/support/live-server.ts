@@ -1,6 +1,7 @@
 import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
+import { createTestApp } from './test-db';
 
 export interface LiveResponse {
   status: number;
@@ -15,6 +16,8 @@ export interface LiveResponse {
  * requests (supertest starts a server per request and serialises nothing, but
  * a shared listener is what a burst of clients meets).
  */
+export type Live = Awaited<ReturnType<typeof listen>>;
+
 export async function listen(app: Express) {
   const server = await new Promise<import('node:http').Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
@@ -65,4 +68,38 @@ export async function listen(app: Express) {
     signIn,
     close: () => new Promise<void>((resolve) => server.close(() => resolve())),
   };
+}
+
+/**
+ * A draft plan on the demo forest district with its first post, target and condition set, created by the signed-in
+ * `cookie` through the live server; answers the POST's response (201 with `plan`).
+ */
+export async function createForestPlan(live: Live, cookie: string, title: string): Promise<LiveResponse> {
+  const items = async (path: string) => (await live.call('GET', `/api/v1${path}`, { cookie })).body.items;
+  const sites = await items('/sites');
+  const site = sites.find((s: { name: string }) => s.name === 'Harrowmere Forest District');
+  const posts = await items(`/sites/${site.id}/posts`);
+  const targets = await items('/targets');
+  const sets = await items('/conditions');
+  return live.call('POST', '/api/v1/plans', {
+    cookie,
+    json: {
+      siteId: site.id,
+      title,
+      postIds: [posts[0].id],
+      targetIds: [targets[0].id],
+      conditionSetIds: [sets[0].id],
+    },
+  });
+}
+
+/** A test app with a database of its own (`createTestApp`), listening on a loopback port; `close` stops both. */
+export async function listenTestApp() {
+  const ctx = await createTestApp();
+  const live = await listen(ctx.app);
+  const close = async () => {
+    await live.close();
+    await ctx.close();
+  };
+  return { ctx, live, close };
 }

@@ -1,9 +1,9 @@
 import { execFile } from 'node:child_process';
 import { chownSync, existsSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { promisify } from 'node:util';
+import { freePort } from './free-port';
 
 const run = promisify(execFile);
 
@@ -17,16 +17,6 @@ function postgresBinDir(): string {
   if (!versions[0]) throw new Error('PostgreSQL is not installed (no /usr/lib/postgresql/*/bin/pg_ctl)');
   return path.join(base, versions[0], 'bin');
 }
-
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const s = createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
 
 /**
  * A PostgreSQL cluster of the test's own (initdb in a temporary folder, loopback, trust),

@@ -1,71 +1,20 @@
 import { buildSnapshot } from '@/server/domain/plans/build-snapshot';
 import { diffSnapshots } from '@/shared/plans/diff-snapshots';
-import type { ConditionSet, Target } from '@/shared/schemas/library';
-import type { Post, Site } from '@/shared/schemas/site';
+import type { Post } from '@/shared/schemas/site';
+import { SQUARE_RING, testConditionSet, testPost, testSite, testSmoke } from '@/tests/support/plan-fixtures';
 
 // Invented test data (no real place): a square district and two towers.
-const ring: [number, number][] = [
-  [14.0, 61.0],
-  [14.2, 61.0],
-  [14.2, 61.1],
-  [14.0, 61.1],
-  [14.0, 61.0],
-];
-const site: Site = {
-  id: '00000000-0000-4000-8000-000000000001',
-  name: 'Test district',
-  kind: 'forest-district',
-  notes: '',
-  boundary: ring,
-  priorityZones: [{ name: 'North block', weight: 5, ring }],
-  defaultUnits: 'metric',
-  timeZone: 'UTC',
-  seaLevelMaxM: null,
-  seaArea: null,
-  targetGroundM: null,
-  version: 0,
-  updatedAt: '2026-01-01T00:00:00.000Z',
-};
-const post = (n: number, structureHeightM: number): Post => ({
-  id: `00000000-0000-4000-8000-00000000010${n}`,
-  siteId: site.id,
-  name: `Tower ${n}`,
-  kind: 'tower',
-  location: { latDeg: 61.05, lonDeg: 14.05 + n * 0.05 },
-  groundElevationM: 300,
-  structureHeightM,
-  eyeHeightM: 1.6,
-  sector: null,
-  status: 'existing',
-  version: 0,
-  updatedAt: site.updatedAt,
-});
-const smoke: Target = {
-  id: '00000000-0000-4000-8000-000000000201',
-  name: 'Smoke 30 m',
-  kind: 'smoke-column',
-  heightM: 30,
-  // Wide enough that the horizon, not the angular size, limits detection.
-  widthM: 200,
-  requiredVisibleM: 10,
-  period: 'day',
-  lightIntensityCd: null,
-  onWater: false,
-  version: 0,
-  updatedAt: site.updatedAt,
-};
-const standard: ConditionSet = {
-  id: '00000000-0000-4000-8000-000000000301',
-  name: 'Standard',
-  conditions: [{ preset: 'standard-optical' }, { k: 0 }],
-  visibilityM: null,
-  visibilityKind: 'mor-5pct',
-  seaState: null,
-  significantWaveHeightM: null,
-  backgroundLighting: 'none',
-  version: 0,
-  updatedAt: site.updatedAt,
-};
+const site = testSite({ priorityZones: [{ name: 'North block', weight: 5, ring: SQUARE_RING }] });
+const post = (n: number, structureHeightM: number): Post =>
+  testPost({
+    id: `00000000-0000-4000-8000-00000000010${n}`,
+    name: `Tower ${n}`,
+    location: { latDeg: 61.05, lonDeg: 14.05 + n * 0.05 },
+    structureHeightM,
+  });
+// Wide enough that the horizon, not the angular size, limits detection.
+const smoke = testSmoke({ widthM: 200, requiredVisibleM: 10 });
+const standard = testConditionSet({ conditions: [{ preset: 'standard-optical' }, { k: 0 }] });
 const snap = (posts: Post[], minSeenPct = 70) =>
   buildSnapshot({
     title: 'Cover',

@@ -1,72 +1,13 @@
 import { buildSnapshot } from '@/server/domain/plans/build-snapshot';
 import { smoothEarthGround } from '@/shared/plans/smooth-earth-ground';
-import type { ConditionSet, Target } from '@/shared/schemas/library';
-import type { Post, Site } from '@/shared/schemas/site';
+import type { Site } from '@/shared/schemas/site';
+import { testConditionSet, testPost, testSite, testSmoke } from '@/tests/support/plan-fixtures';
 
 // Invented test data (no real place): an upland district with one tower on a 580 m ridge.
-const ring: [number, number][] = [
-  [14.0, 61.0],
-  [14.2, 61.0],
-  [14.2, 61.1],
-  [14.0, 61.1],
-  [14.0, 61.0],
-];
-const stamp = '2026-01-01T00:00:00.000Z';
-const site = (over: Partial<Site> = {}): Site => ({
-  id: '00000000-0000-4000-8000-000000000001',
-  name: 'Upland test district',
-  kind: 'forest-district',
-  notes: '',
-  boundary: ring,
-  priorityZones: [],
-  defaultUnits: 'metric',
-  timeZone: 'UTC',
-  seaLevelMaxM: null,
-  seaArea: null,
-  targetGroundM: null,
-  version: 0,
-  updatedAt: stamp,
-  ...over,
-});
-const tower: Post = {
-  id: '00000000-0000-4000-8000-000000000101',
-  siteId: site().id,
-  name: 'Ridge tower',
-  kind: 'tower',
-  location: { latDeg: 61.05, lonDeg: 14.1 },
-  groundElevationM: 580,
-  structureHeightM: 18.4,
-  eyeHeightM: 1.6,
-  sector: null,
-  status: 'existing',
-  version: 0,
-  updatedAt: stamp,
-};
-const smoke: Target = {
-  id: '00000000-0000-4000-8000-000000000201',
-  name: 'Smoke 30 m',
-  kind: 'smoke-column',
-  heightM: 30,
-  widthM: 500,
-  requiredVisibleM: 0,
-  period: 'day',
-  lightIntensityCd: null,
-  onWater: false,
-  version: 0,
-  updatedAt: stamp,
-};
-const noRefraction: ConditionSet = {
-  id: '00000000-0000-4000-8000-000000000301',
-  name: 'No refraction',
-  conditions: [{ k: 0 }],
-  visibilityM: null,
-  visibilityKind: 'mor-5pct',
-  seaState: null,
-  significantWaveHeightM: null,
-  backgroundLighting: 'none',
-  version: 0,
-  updatedAt: stamp,
-};
+const site = (over: Partial<Site> = {}): Site => testSite({ name: 'Upland test district', ...over });
+const tower = testPost({ name: 'Ridge tower', groundElevationM: 580, structureHeightM: 18.4 });
+const smoke = testSmoke({ widthM: 500 });
+const noRefraction = testConditionSet({ name: 'No refraction', conditions: [{ k: 0 }] });
 const resultFor = (s: Site) =>
   buildSnapshot({
     title: 'Datum',
