@@ -352,3 +352,41 @@ export function closeGapWith(
   const byDistance = (a: GapCloser, b: GapCloser) => a.distanceM - b.distanceM;
   return judged.filter((j) => j.blockedBy === null).sort(byDistance)[0] ?? judged.sort(byDistance)[0] ?? null;
 }
+
+/** A post's watched stations as chainage intervals [from, to], metres (touching stations merged). */
+export function watchedIntervals(stations: readonly ShoreStation[], watched: Uint8Array): [number, number][] {
+  return stationRuns(watched).map(([a, b]) => [stations[a]!.fromM, stations[b]!.toM]);
+}
+
+/**
+ * Length and share of the shore watched by ≥ 1 and ≥ 2 of the posts on watch,
+ * from each post's watched chainage intervals (a sweep over their ends).
+ * Equals `stripFigures` on the stations the intervals came from.
+ *
+ * Source: interval union and overlap by sorting end points — common practice, no source.
+ */
+export function intervalShares(
+  perPost: readonly (readonly (readonly [number, number])[])[],
+  on: readonly boolean[],
+  shoreLengthM: number,
+): { watched1: ShoreMeasure; watched2: ShoreMeasure } {
+  const events: [number, number][] = [];
+  perPost.forEach((intervals, p) => {
+    if (!on[p]) return;
+    for (const [a, b] of intervals) if (b > a) events.push([a, 1], [b, -1]);
+  });
+  // Ends before starts at one place: touching intervals do not overlap.
+  events.sort((x, y) => x[0] - y[0] || x[1] - y[1]);
+  let depth = 0;
+  let last = 0;
+  let one = 0;
+  let two = 0;
+  for (const [at, step] of events) {
+    if (depth >= 1) one += at - last;
+    if (depth >= 2) two += at - last;
+    depth += step;
+    last = at;
+  }
+  const share = (len: number) => (shoreLengthM > 0 ? round((100 * len) / shoreLengthM, 2) : 0);
+  return { watched1: { lengthM: one, pct: share(one) }, watched2: { lengthM: two, pct: share(two) } };
+}

@@ -1,6 +1,8 @@
 import { computeHiddenHeightRaster } from '@/shared/terrain/hidden-height-raster';
 import {
   closeGapWith,
+  intervalShares,
+  watchedIntervals,
   eyeHeightForRange,
   seaSideFromMask,
   shoreStations,
@@ -192,5 +194,30 @@ describe('tide', () => {
     expect(Math.abs(low - Math.sqrt(2 * 100_000 * 8))).toBeLessThanOrEqual(PLAIN_CELL);
     expect(Math.abs(high - Math.sqrt(2 * 100_000 * 2))).toBeLessThanOrEqual(PLAIN_CELL);
     expect(low / high).toBeCloseTo(Math.sqrt(8 / 2), 1);
+  });
+});
+
+describe('shares from chainage intervals', () => {
+  it('agree with the stations they came from', () => {
+    const band = { fromM: 0, toM: 500 };
+    const perPost = [210, 370, 450].map((col) => watchedStations(terrain, stations, band, seenFrom(terrain, col)));
+    const intervals = perPost.map((w) => watchedIntervals(stations, w));
+    for (const on of [
+      [true, true, true],
+      [true, false, true],
+      [false, true, false],
+    ]) {
+      const byStations = stripFigures(stations, perPost, on);
+      const byIntervals = intervalShares(intervals, on, byStations.shoreLengthM);
+      expect(byIntervals.watched1.lengthM).toBeCloseTo(byStations.watched1.lengthM, 6);
+      expect(byIntervals.watched2.lengthM).toBeCloseTo(byStations.watched2.lengthM, 6);
+    }
+  });
+
+  it('counts touching intervals once and overlaps twice', () => {
+    // common practice, no source
+    const shares = intervalShares([[[0, 10]], [[10, 30]], [[25, 40]]], [true, true, true], 100);
+    expect(shares.watched1).toEqual({ lengthM: 40, pct: 40 });
+    expect(shares.watched2).toEqual({ lengthM: 5, pct: 5 });
   });
 });
