@@ -53,7 +53,11 @@ export interface PostWatch {
  * Which posts are on watch in each hour: hour → post (in `postIds` order) → true
  * when its watches cover the whole hour, hand-overs under five minutes allowed.
  */
-export function onWatchByHour(watches: readonly PostWatch[], postIds: readonly string[], hours: readonly WatchHour[]): boolean[][] {
+export function onWatchByHour(
+  watches: readonly PostWatch[],
+  postIds: readonly string[],
+  hours: readonly WatchHour[],
+): boolean[][] {
   const byPost = new Map<string, PostWatch[]>();
   for (const w of watches) byPost.set(w.postId, [...(byPost.get(w.postId) ?? []), w]);
   return hours.map((h) =>

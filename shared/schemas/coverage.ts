@@ -98,7 +98,12 @@ export const CaseBandSchema = z.object({
   watched2: ShoreMeasureSchema,
   /** Per post: the chainage stretches it watches, [from, to] metres. */
   posts: z.array(
-    z.object({ postId: z.uuid(), postName: z.string(), lengthM: z.number(), watched: z.array(z.tuple([z.number(), z.number()])) }),
+    z.object({
+      postId: z.uuid(),
+      postName: z.string(),
+      lengthM: z.number(),
+      watched: z.array(z.tuple([z.number(), z.number()])),
+    }),
   ),
 });
 export type CaseBand = z.infer<typeof CaseBandSchema>;
@@ -151,6 +156,18 @@ export const HourlySeriesSchema = z.object({
   unwatchedHours: z.array(z.object({ startsAt: z.string(), local: z.string(), bands: z.array(z.string()) })),
 });
 export type HourlySeries = z.infer<typeof HourlySeriesSchema>;
+
+/** Query of GET /coverage-runs/:runId/hourly. */
+export const CoverageHourlyQuerySchema = z.object({
+  caseKey: z.string({ error: 'Name the case.' }).min(1, 'Name the case.').max(200),
+  /** First local day, YYYY-MM-DD; default today in the site's time zone. */
+  date: z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, 'Give a date as YYYY-MM-DD.')
+    .optional(),
+  /** 1 (a day) to 7 (a week). */
+  days: z.coerce.number({ error: '1 to 7 days.' }).int('1 to 7 days.').min(1, '1 to 7 days.').max(7, '1 to 7 days.').default(1),
+});
 
 /** The shoreline a case measured along. */
 export const CaseShoreSchema = z.object({

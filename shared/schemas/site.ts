@@ -154,7 +154,10 @@ export const SiteSchema = z.object({
   /** Ground height where targets stand, for smooth-earth figures, metres above sea level; null = see `smoothEarthGround`. */
   targetGroundM: z.number().nullable().default(null),
   /** The shoreline ([lon, lat], WGS84) from its start; null = not drawn. Always sent by the API; optional for older copies. */
-  shoreline: z.array(z.tuple([z.number(), z.number()])).nullable().optional(),
+  shoreline: z
+    .array(z.tuple([z.number(), z.number()]))
+    .nullable()
+    .optional(),
   /** Offshore bands, metres from the shoreline. */
   bands: z.array(z.object({ name: z.string(), fromM: z.number(), toM: z.number() })).optional(),
   /** What posts' ground elevations (and the tide) are measured from. */

@@ -369,16 +369,33 @@ export function checkShoreBandRules(
   rules: readonly ShoreBandRule[],
   bands: readonly { name: string; watched1: { pct: number }; watched2: { pct: number } }[],
   hourly: {
-    hours: readonly { local: string; hour: number; bands: readonly { name: string; watched1Pct: number; watched2Pct: number }[] }[];
+    hours: readonly {
+      local: string;
+      hour: number;
+      bands: readonly { name: string; watched1Pct: number; watched2Pct: number }[];
+    }[];
   } | null,
 ): ShoreBandRuleCheck[] {
   return rules.map((rule, i) => {
     const window = `${hh(rule.fromHour)}–${hh(rule.toHour)}`;
     const text = `${rule.band}: ${rule.minPct} % of the shore watched by ≥ ${rule.minPosts} post${rule.minPosts > 1 ? 's' : ''}, ${window}`;
-    const base = { id: `band-${i}`, zoneName: null, minPosts: rule.minPosts, minPct: rule.minPct, text, shortfallArea: 0 as const };
+    const base = {
+      id: `band-${i}`,
+      zoneName: null,
+      minPosts: rule.minPosts,
+      minPct: rule.minPct,
+      text,
+      shortfallArea: 0 as const,
+    };
     const band = bands.find((b) => b.name.toLowerCase() === rule.band.trim().toLowerCase());
     if (!band) {
-      return { ...base, actualPct: 0, passed: false, shortfallPct: rule.minPct, reasons: [`${text}: the site has no band “${rule.band}”.`] };
+      return {
+        ...base,
+        actualPct: 0,
+        passed: false,
+        shortfallPct: rule.minPct,
+        reasons: [`${text}: the site has no band “${rule.band}”.`],
+      };
     }
     const pick = (p: { watched1Pct: number; watched2Pct: number }) => (rule.minPosts >= 2 ? p.watched2Pct : p.watched1Pct);
     const inWindow = hourly ? hourly.hours.filter((h) => h.hour >= rule.fromHour && h.hour < rule.toHour) : [];

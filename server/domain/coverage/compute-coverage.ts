@@ -164,7 +164,13 @@ export async function computeCoverage(
   const tides: (TideLevel | null)[] = inputs.site.tideLevels?.length ? inputs.site.tideLevels : [null];
   const progress = { done: 0, total: placed.length * inputs.conditions.length * tides.length };
   const seaMask = seaMaskOf(inputs, terrain, (ring) => ringOnGrid(projection, ring));
-  const shore = shoreContextOf(inputs, terrain, projection, seaMask, placed.map((p) => p.xy));
+  const shore = shoreContextOf(
+    inputs,
+    terrain,
+    projection,
+    seaMask,
+    placed.map((p) => p.xy),
+  );
   const cases: CoverageCase[] = [];
   const layers: ComputedLayer[] = [];
   const addLayer = (caseKey: string, layer: CoverageLayerName, postId: string, values: Uint8Array) => {
@@ -172,83 +178,94 @@ export async function computeCoverage(
     layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
   };
 
-  for (const condition of inputs.conditions) for (const tide of tides) {
-    const posts = tide ? placed.map((p) => ({ ...p, post: { ...p.post, eyeHeight: eyeAt(inputs, p.input, tide, p.post.eyeHeight) } })) : placed;
-    const ground = tide ? raisedTerrain(terrain, seaMask, tide.levelM, inputs.terrain === null) : terrain;
-    await report((0.9 * progress.done) / progress.total, `Viewsheds: ${condition.conditionSetName}, ${condition.label}${tide ? `, ${tide.label}` : ''}`);
-    const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
-    const maxDistance = viewshedRange(detections, terrain.cellSize);
-    const conditions: SightConditions = {
-      refractionCoefficient: condition.k,
-      earthRadius: inputs.earthRadiusM,
-      ...(maxDistance !== null && { maxDistance }),
-    };
-    const network = await networkOf(posts, ground, conditions, computeViewsheds, report, progress);
-    inputs.targets.forEach((target, t) => {
-      const detection = detections[t]!;
-      const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex, tide);
-      const seaOnly = target.onWater && areas.sea !== null;
-      const area = seaOnly ? areas.sea! : areas.land;
-      const coverage = evaluateNetworkCoverage({
-        posts: network,
-        targetHeight: target.countsFromM,
-        siteMask: area.siteMask,
-        zones: area.zones,
-        standard: standardFor(inputs.standard, target),
-        blindAreaMinArea: inputs.blindAreaMinAreaM2,
-        maxBlindAreas: 20,
-        rangeLimit: detection.rangeLimit.rangeM,
-      });
-      addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
-      addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
-      coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', posts[i]!.input.id, classes));
-      const perPost = postSeenShares(
-        terrain,
-        network,
-        coverage.postClasses,
-        area.siteMask,
-        posts.map((p) => p.input),
+  for (const condition of inputs.conditions)
+    for (const tide of tides) {
+      const posts = tide
+        ? placed.map((p) => ({ ...p, post: { ...p.post, eyeHeight: eyeAt(inputs, p.input, tide, p.post.eyeHeight) } }))
+        : placed;
+      const ground = tide ? raisedTerrain(terrain, seaMask, tide.levelM, inputs.terrain === null) : terrain;
+      await report(
+        (0.9 * progress.done) / progress.total,
+        `Viewsheds: ${condition.conditionSetName}, ${condition.label}${tide ? `, ${tide.label}` : ''}`,
       );
-      const stored = coverageCaseOf({
-        key,
-        target,
-        condition: tide ? { ...condition, label: `${condition.label} · ${tideText(tide, inputs.site.heightDatum)}` } : condition,
-        coverage,
-        perPost,
-        detection,
-        seaOnly,
-        projection,
-        detectionModel: inputs.detectionModel,
-        tideLevelM: tide?.levelM ?? null,
-      });
-      if (shore) {
-        Object.assign(
-          stored,
-          shoreFiguresOf({
-            context: shore,
-            grid: terrain,
-            projection,
-            network,
-            postClasses: coverage.postClasses,
-            posts: posts.map((p) => p.input),
-            candidates: posts.map((p) => ({
-              x: p.xy.x,
-              y: p.xy.y,
-              eyeAboveWaterM: inputs.terrain === null ? p.post.eyeHeight : p.post.eyeHeight + Math.max(0, p.input.groundElevationM - (tide?.levelM ?? 0)),
-              sector: p.input.sector,
-              gridConvergence: p.gridConvergence,
-            })),
-            target: { countsFromM: target.countsFromM, rangeLimitM: detection.rangeLimit.rangeM },
-            sphere: { k: condition.k, earthRadiusM: inputs.earthRadiusM },
-            roster: options.roster ?? null,
-            standard: inputs.standard,
-            check: stored.check,
-          }),
+      const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
+      const maxDistance = viewshedRange(detections, terrain.cellSize);
+      const conditions: SightConditions = {
+        refractionCoefficient: condition.k,
+        earthRadius: inputs.earthRadiusM,
+        ...(maxDistance !== null && { maxDistance }),
+      };
+      const network = await networkOf(posts, ground, conditions, computeViewsheds, report, progress);
+      inputs.targets.forEach((target, t) => {
+        const detection = detections[t]!;
+        const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex, tide);
+        const seaOnly = target.onWater && areas.sea !== null;
+        const area = seaOnly ? areas.sea! : areas.land;
+        const coverage = evaluateNetworkCoverage({
+          posts: network,
+          targetHeight: target.countsFromM,
+          siteMask: area.siteMask,
+          zones: area.zones,
+          standard: standardFor(inputs.standard, target),
+          blindAreaMinArea: inputs.blindAreaMinAreaM2,
+          maxBlindAreas: 20,
+          rangeLimit: detection.rangeLimit.rangeM,
+        });
+        addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
+        addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
+        coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', posts[i]!.input.id, classes));
+        const perPost = postSeenShares(
+          terrain,
+          network,
+          coverage.postClasses,
+          area.siteMask,
+          posts.map((p) => p.input),
         );
-      }
-      cases.push(stored);
-    });
-  }
+        const stored = coverageCaseOf({
+          key,
+          target,
+          condition: tide
+            ? { ...condition, label: `${condition.label} · ${tideText(tide, inputs.site.heightDatum)}` }
+            : condition,
+          coverage,
+          perPost,
+          detection,
+          seaOnly,
+          projection,
+          detectionModel: inputs.detectionModel,
+          tideLevelM: tide?.levelM ?? null,
+        });
+        if (shore) {
+          Object.assign(
+            stored,
+            shoreFiguresOf({
+              context: shore,
+              grid: terrain,
+              projection,
+              network,
+              postClasses: coverage.postClasses,
+              posts: posts.map((p) => p.input),
+              candidates: posts.map((p) => ({
+                x: p.xy.x,
+                y: p.xy.y,
+                eyeAboveWaterM:
+                  inputs.terrain === null
+                    ? p.post.eyeHeight
+                    : p.post.eyeHeight + Math.max(0, p.input.groundElevationM - (tide?.levelM ?? 0)),
+                sector: p.input.sector,
+                gridConvergence: p.gridConvergence,
+              })),
+              target: { countsFromM: target.countsFromM, rangeLimitM: detection.rangeLimit.rangeM },
+              sphere: { k: condition.k, earthRadiusM: inputs.earthRadiusM },
+              roster: options.roster ?? null,
+              standard: inputs.standard,
+              check: stored.check,
+            }),
+          );
+        }
+        cases.push(stored);
+      });
+    }
   // Target × condition (× tide) order, as the plan lists them.
   const order = (k: CoverageCase) =>
     (inputs.targets.findIndex((t) => t.id === k.targetId) * inputs.conditions.length +
@@ -285,7 +302,10 @@ function coverageAreas(inputs: CoverageRunInputs, terrain: TerrainRaster, projec
  */
 function eyeAt(inputs: CoverageRunInputs, post: CoverageRunInputs['posts'][number], tide: TideLevel, onTerrain: number): number {
   if (inputs.terrain !== null) return onTerrain;
-  return eyeAboveWaterM({ groundElevationM: post.groundElevationM, aboveGroundM: post.aboveGroundM, floats: post.floats === true }, tide.levelM);
+  return eyeAboveWaterM(
+    { groundElevationM: post.groundElevationM, aboveGroundM: post.aboveGroundM, floats: post.floats === true },
+    tide.levelM,
+  );
 }
 
 /**

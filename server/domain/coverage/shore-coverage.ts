@@ -61,8 +61,10 @@ export function shoreContextOf(
   });
   const lengths = shore.shoreline
     .slice(1)
-    .map(([lon, lat], i) =>
-      geodesicInverse({ latDeg: shore.shoreline[i]![1], lonDeg: shore.shoreline[i]![0] }, { latDeg: lat, lonDeg: lon }).distanceM,
+    .map(
+      ([lon, lat], i) =>
+        geodesicInverse({ latDeg: shore.shoreline[i]![1], lonDeg: shore.shoreline[i]![0] }, { latDeg: lat, lonDeg: lon })
+          .distanceM,
     );
   let seaSide = seaMask ? seaSideFromMask(grid, line, seaMask) : null;
   if (!seaSide && grid.heights) {
@@ -249,5 +251,12 @@ export function hourlyOf(
       },
     })),
   );
-  return { date: roster.date, days, timeZone: context.shore.timeZone, rosterReadAt: roster.readAt, hours: series.hourly, unwatchedHours: series.unwatchedHours };
+  return {
+    date: roster.date,
+    days,
+    timeZone: context.shore.timeZone,
+    rosterReadAt: roster.readAt,
+    hours: series.hourly,
+    unwatchedHours: series.unwatchedHours,
+  };
 }

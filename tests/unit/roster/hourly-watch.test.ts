@@ -34,7 +34,11 @@ describe('hour by hour from the roster', () => {
     });
     const { hourly, unwatchedHours } = hourlySeries(hours, on, ['A', 'B'], [{ name: 'inshore', shares }]);
     expect(hourly).toHaveLength(24);
-    expect(hourly[8]).toMatchObject({ local: '2026-07-01 08:00', postIds: ['A', 'B'], bands: [{ name: 'inshore', watched1Pct: 80 }] });
+    expect(hourly[8]).toMatchObject({
+      local: '2026-07-01 08:00',
+      postIds: ['A', 'B'],
+      bands: [{ name: 'inshore', watched1Pct: 80 }],
+    });
     expect(hourly[13]).toMatchObject({ postIds: [], bands: [{ watched1Pct: 0, watched2Pct: 0 }] });
     expect(hourly[14]!.postIds).toEqual(['A', 'B']);
     expect(hourly[19]!.postIds).toEqual(['A', 'B']);

@@ -143,20 +143,40 @@ describe('closing a gap', () => {
     const perPost = [a, b].map((s) => watchedStations(terrain, stations, band, s));
     const gap = stripFigures(stations, perPost).gaps.find((g) => g.fromM > 3000 && g.toM < 12_000)!;
     expect(gap).toBeDefined();
-    const post = (col: number) => ({ x: xOfCol(col), y: yOfRow(ROW), eyeAboveWaterM: PLAIN_EYE, sector: null, gridConvergence: 0 });
-    const closer = closeGapWith(stations, gap, band, [post(170), post(450)], { countsFromM: PLAIN_TARGET, rangeLimitM: null }, {
-      k: 0,
-      earthRadiusM: 100_000,
-    })!;
+    const post = (col: number) => ({
+      x: xOfCol(col),
+      y: yOfRow(ROW),
+      eyeAboveWaterM: PLAIN_EYE,
+      sector: null,
+      gridConvergence: 0,
+    });
+    const closer = closeGapWith(
+      stations,
+      gap,
+      band,
+      [post(170), post(450)],
+      { countsFromM: PLAIN_TARGET, rangeLimitM: null },
+      {
+        k: 0,
+        earthRadiusM: 100_000,
+      },
+    )!;
     expect(closer.raiseByM).toBeGreaterThan(0);
     // The raised eye's range reaches the farthest point of the band along the gap.
     const reach = Math.sqrt(2 * 100_000 * closer.neededEyeM!) + Math.sqrt(2 * 100_000 * PLAIN_TARGET);
     expect(reach).toBeGreaterThanOrEqual(closer.farthestM * 0.999);
     // A range limit nearer than the gap: height cannot help.
-    const limited = closeGapWith(stations, gap, band, [post(170)], { countsFromM: PLAIN_TARGET, rangeLimitM: 2000 }, {
-      k: 0,
-      earthRadiusM: 100_000,
-    })!;
+    const limited = closeGapWith(
+      stations,
+      gap,
+      band,
+      [post(170)],
+      { countsFromM: PLAIN_TARGET, rangeLimitM: 2000 },
+      {
+        k: 0,
+        earthRadiusM: 100_000,
+      },
+    )!;
     expect(limited).toMatchObject({ blockedBy: 'range-limit', raiseByM: null });
     // A sector facing away (south) cannot close a gap to the sea side.
     const facingAway = closeGapWith(
