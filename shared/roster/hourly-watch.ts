@@ -109,3 +109,17 @@ export function hourlySeries(
     .filter((h) => h.bands.length > 0);
   return { hourly, unwatchedHours };
 }
+
+/**
+ * Stretches nobody covers after a change that were covered before it: each
+ * gap of `after` less the gaps of `before` (hand-overs under five minutes
+ * dropped). Empty when the change opened no gap.
+ *
+ * Source: interval difference — common practice, no source.
+ */
+export function openedGaps(
+  before: readonly { start: number; end: number }[],
+  after: readonly { start: number; end: number }[],
+): { start: number; end: number }[] {
+  return after.flatMap((g) => findWatchGaps(before, g, HANDOVER_MS));
+}

@@ -1,4 +1,4 @@
-import { hoursOfDays, hourlySeries, onWatchByHour } from '@/shared/roster/hourly-watch';
+import { hoursOfDays, hourlySeries, onWatchByHour, openedGaps } from '@/shared/roster/hourly-watch';
 
 const H = 3600_000;
 
@@ -64,5 +64,21 @@ describe('hour by hour from the roster', () => {
     expect(on[23]).toEqual([true, false]);
     expect(on[10]).toEqual([true, false]);
     expect(on[9]).toEqual([true, true]);
+  });
+});
+
+describe('a change that opens a gap', () => {
+  it('names what is newly uncovered, and nothing when the gaps only shrink', () => {
+    // common practice, no source: interval difference.
+    const before = [{ start: 0, end: 8 * H }];
+    expect(
+      openedGaps(before, [
+        { start: 0, end: 8 * H },
+        { start: 13 * H, end: 14 * H },
+      ]),
+    ).toEqual([{ start: 13 * H, end: 14 * H }]);
+    expect(openedGaps(before, [{ start: 0, end: 9 * H }])).toEqual([{ start: 8 * H, end: 9 * H }]);
+    expect(openedGaps(before, [{ start: 0, end: 7 * H }])).toEqual([]);
+    expect(openedGaps(before, [{ start: 8 * H, end: 8 * H + 2 * 60_000 }])).toEqual([]);
   });
 });
