@@ -97,6 +97,24 @@ describe('shoreline, bands, datum and tide on a site', () => {
   });
 });
 
+describe('a shoreline traced from the terrain', () => {
+  it('follows a stated level on the forest district’s terrain, and refuses a level the terrain does not cross', async () => {
+    const forest = (await SiteModel.findOne({ where: { name: 'Harrowmere Forest District' } }))!.id;
+    const traced = await planner.post(`/api/v1/sites/${forest}/shoreline-from-terrain`).send({ levelM: 600 });
+    expect(traced.status).toBe(200);
+    expect(traced.body.shoreline.length).toBeGreaterThan(10);
+    expect(traced.body.levelM).toBe(600);
+    const high = await planner.post(`/api/v1/sites/${forest}/shoreline-from-terrain`).send({ levelM: 8000 });
+    expect(high.status).toBe(422);
+    expect(high.body.error).toMatchObject({ code: 'level_not_crossed', fields: { levelM: expect.any(String) } });
+    const bad = await planner.post(`/api/v1/sites/${forest}/shoreline-from-terrain`).send({ levelM: 'sea' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields.levelM).toMatch(/number of metres/);
+    // The coast has no terrain.
+    expect((await planner.post(`/api/v1/sites/${siteId}/shoreline-from-terrain`).send({ levelM: 0 })).status).toBe(404);
+  });
+});
+
 describe('the coverage run along the shore', () => {
   let plan: { id: string };
   let run: ReturnType<typeof CoverageRunSchema.parse>;
