@@ -3,6 +3,10 @@ import { View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { GeoJsonLineError, linesFromGeoJson } from '@/shared/geo/lines-from-geojson';
 import { ShorelineSchema } from '@/shared/schemas/site';
+import type { LengthUnit } from '@/shared/units/length';
+import { typedToMetres } from '@/shared/units/typed-lengths';
+import { ApiRequestError } from '@/components/data/api-client';
+import { useTraceShoreline } from '@/components/data/placement';
 import { Segmented } from '@/components/check/unit-switch';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -11,7 +15,7 @@ import { colors, radius, space } from '@/components/ui/theme';
 import { RingDrawMap, type RingDrawContext } from './ring-draw-map';
 
 type Line = [number, number][];
-type Mode = 'draw' | 'paste';
+type Mode = 'draw' | 'paste' | 'trace';
 
 /**
  * The site's shoreline: drawn on the map from its start (chainage 0) along the
@@ -23,7 +27,9 @@ export function ShorelineField({
   onChange,
   error,
   drawContext,
+  heightUnit = 'm',
 }: {
+  heightUnit?: LengthUnit;
   line: Line | null;
   onChange: (line: Line | null) => void;
   error?: string;
@@ -34,6 +40,24 @@ export function ShorelineField({
   const [text, setText] = useState('');
   const [problem, setProblem] = useState('');
   const n = line?.length ?? 0;
+  const trace = useTraceShoreline(drawContext.site?.id ?? '');
+  const [levelText, setLevelText] = useState('0');
+  const canTrace = !!drawContext.site && !!drawContext.terrain;
+  const traceNow = () => {
+    const metres = typedToMetres(levelText, heightUnit);
+    if (typeof metres !== 'number' || !Number.isFinite(metres)) {
+      setProblem('Give the level as a number.');
+      return;
+    }
+    setProblem('');
+    trace.mutate(metres, {
+      onSuccess: (r) => {
+        onChange(r.shoreline);
+        setEditing(false);
+      },
+      onError: (e) => setProblem(e instanceof ApiRequestError ? e.message : 'The shoreline could not be traced.'),
+    });
+  };
   const usePasted = () => {
     try {
       const [first] = linesFromGeoJson(text);
@@ -80,6 +104,7 @@ export function ShorelineField({
             options={[
               { value: 'draw', label: 'Drawing on the map' },
               { value: 'paste', label: 'Pasting GeoJSON' },
+              ...(canTrace ? [{ value: 'trace' as const, label: 'Tracing the terrain' }] : []),
             ]}
           />
           {mode === 'draw' ? (
@@ -94,6 +119,23 @@ export function ShorelineField({
               }}
               onCancel={() => setEditing(false)}
             />
+          ) : mode === 'trace' ? (
+            <View style={{ gap: space.sm }}>
+              <TextField
+                label="Level of the shoreline"
+                value={levelText}
+                onChangeText={setLevelText}
+                onSubmitEditing={traceNow}
+                unit={heightUnit}
+                inputMode="decimal"
+                error={problem || undefined}
+                hint="The terrain's height where land meets sea (e.g. 0 for mean sea level): the longest contour at that level becomes the shoreline, sea on its left."
+              />
+              <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+                <Button kind="secondary" label="Trace it" onPress={traceNow} busy={trace.isPending} disabled={trace.isPending} />
+                <Button kind="quiet" label="Close" onPress={() => setEditing(false)} />
+              </View>
+            </View>
           ) : (
             <View style={{ gap: space.sm }}>
               <TextField

@@ -324,6 +324,7 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
               onChange={field.onChange}
               error={fieldState.error?.message}
               drawContext={drawContext('sea')}
+              heightUnit={heightUnit}
             />
           )}
         />
