@@ -30,6 +30,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('coast watch on the %s v
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);
+      await page.getByRole('heading', { name: 'Your sites' }).or(page.getByText('Your sites')).first().waitFor();
       const sites = await apiJson<{ items: Item[] }>(page, 'GET', '/sites');
       const coast = sites.items.find((s) => s.name === 'Tallow Strand')!;
       await page.goto(`${e2eUrl()}/sites/${coast.id}/edit`);
