@@ -54,8 +54,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('coast watch on the %s v
         else await page.mouse.click(p.x, p.y);
         await page.waitForTimeout(150);
       }
-      await page.getByText('4 corners. Tap to go on along the shore').waitFor();
       await coastShot(page, 'shoreline-drawn', viewport);
+      await page.getByText(/4 corners\. Tap to go on along the shore/).waitFor();
       await page.getByRole('button', { name: 'Use this line' }).click();
       await form.getByText(/4 corners, chainage 0 at/).waitFor();
 
@@ -107,7 +107,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('coast watch on the %s v
       });
       await page.goto(`${e2eUrl()}/plans/${plan.id}`);
       await page.getByRole('button', { name: 'Compute coverage' }).click();
-      const strips = page.getByLabel('Shore watch');
+      const strips = page.getByLabel('Shore watch', { exact: true });
       await strips.waitFor({ timeout: 120_000 });
       await strips.getByRole('img', { name: /Strip chart of the shore: Surf zone watched along/ }).waitFor();
       await strips.getByRole('table', { name: 'Bands along the shore' }).getByText('Inshore').waitFor();
