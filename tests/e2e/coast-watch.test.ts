@@ -42,6 +42,9 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('coast watch on the %s v
       const map = page.getByRole('application', { name: /^Drawing map for shoreline/ });
       await map.waitFor();
       await map.scrollIntoViewIfNeeded();
+      // A shoreline drawn before (the other viewport's run) is started over.
+      const startOver = page.getByRole('button', { name: 'Start over' });
+      if (await startOver.isEnabled()) await startOver.click();
       const box = (await map.boundingBox())!;
       // Inside the stretch's boundary, clear of the map's controls, scale bar and read-out (the phone's map is narrower).
       const taps = phone
