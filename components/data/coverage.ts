@@ -6,6 +6,7 @@ import {
   CoverageComparisonSchema,
   CoverageRunSchema,
   EncodedClassRasterSchema,
+  HourlySeriesSchema,
   PlanCoverageSchema,
   type CoverageLayerName,
   type CoverageRun,
@@ -90,6 +91,22 @@ export const coverageCompareQuery = (request: CoverageCompareRequest) =>
     gcTime: STALE.reference,
     queryFn: () => api.get(`/v1/coverage-compare?${params({ ...request })}`, CoverageComparisonSchema),
   });
+
+/** A coast run's band shares hour by hour for a day or week, from the roster as it is now (watches change: kept briefly). */
+export const coverageHourlyQuery = (runId: string, request: { caseKey: string; date?: string; days: number }) =>
+  queryOptions({
+    queryKey: [...coverageKeys.run(runId), 'hourly', request] as const,
+    queryFn: async () =>
+      (
+        await api.get(
+          `/v1/coverage-runs/${runId}/hourly?${params({ caseKey: request.caseKey, date: request.date, days: String(request.days) })}`,
+          z.object({ hourly: HourlySeriesSchema }),
+        )
+      ).hourly,
+  });
+
+export const useCoverageHourly = (runId: string | null, request: { caseKey: string; date?: string; days: number } | null) =>
+  useQuery({ ...coverageHourlyQuery(runId ?? '', request ?? { caseKey: '', days: 1 }), enabled: !!runId && !!request });
 
 export const usePlanCoverage = (planId: string, enabled = true) => useQuery({ ...planCoverageQuery(planId), enabled });
 

@@ -45,3 +45,16 @@ export function useBoundaryFromTerrain(siteId: string) {
     },
   });
 }
+
+const TracedShorelineSchema = z.object({
+  shoreline: z.array(z.tuple([z.number(), z.number()])),
+  terrainId: z.string(),
+  levelM: z.number(),
+});
+
+/** A shoreline traced from the site's terrain at a level, metres (not saved: the site form takes it). */
+export function useTraceShoreline(siteId: string) {
+  return useMutation({
+    mutationFn: (levelM: number) => api.post(`/v1/sites/${siteId}/shoreline-from-terrain`, { levelM }, TracedShorelineSchema),
+  });
+}

@@ -13,6 +13,7 @@ import { tableStyles } from '@/components/ui/table-styles';
 import { colors, radius, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { CoverageCasePicker } from './coverage-case-picker';
+import { ShoreStripsPanel } from './shore-strips-panel';
 import {
   caseLabel,
   conditionSpread,
@@ -97,6 +98,7 @@ export function CoverageFigures({
           />
         </View>
       </View>
+      <ShoreStripsPanel runId={run.id} c={shown} units={units} />
       <CautionsPanel cautions={COVERAGE_CAUTIONS} />
     </View>
   );

@@ -123,6 +123,8 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
         targetRules: Object.entries(v.targetRules)
           .filter(([targetId]) => v.targetIds.includes(targetId))
           .map(([targetId, r]) => ({ targetId, area: r.area, minPosts: Number(r.minPosts), minPct: numberOf(r.minPct) })),
+        // Band rules (coast sites) are not edited on this form yet: kept as they are.
+        ...(plan?.standard.bandRules && { bandRules: plan.standard.bandRules }),
       },
       lookout: { resolutionArcmin: numberOf(v.resolutionArcmin), magnification: numberOf(v.magnification) },
     };

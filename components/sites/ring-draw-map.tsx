@@ -6,7 +6,7 @@ import { CoordinateError } from '@/shared/geo/coordinate-error';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { parseCoordinate } from '@/shared/geo/parse-coordinate';
 import type { LatLon } from '@/shared/geo/types';
-import { RingSchema, type Post, type PriorityZone, type Site } from '@/shared/schemas/site';
+import { RingSchema, ShorelineSchema, type Post, type PriorityZone, type Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
 import { useCoordinateFormat } from '@/components/map/coordinate-format';
 import { gridLines } from '@/components/map/grid-lines';
@@ -53,6 +53,10 @@ const PLACEHOLDER_SITE: Site = {
   seaLevelMaxM: null,
   seaArea: null,
   targetGroundM: null,
+  shoreline: null,
+  bands: [],
+  heightDatum: 'mean-sea-level',
+  tide: null,
   version: 0,
   updatedAt: new Date(0).toISOString(),
 };
@@ -120,12 +124,15 @@ export function RingDrawMap({
   context,
   onDone,
   onCancel,
+  line = false,
 }: {
   label: string;
   ring: Ring | null;
   context: RingDrawContext;
   onDone: (ring: Ring) => void;
   onCancel: () => void;
+  /** An open line (a shoreline) instead of a closed ring: at least two corners, never closed. */
+  line?: boolean;
 }) {
   const [startText, setStartText] = useState('');
   const [startError, setStartError] = useState('');
@@ -165,7 +172,7 @@ export function RingDrawMap({
       </View>
     );
   }
-  return <Drawer label={label} frame={frame} ring={ring} onDone={onDone} onCancel={onCancel} />;
+  return <Drawer label={label} frame={frame} ring={ring} onDone={onDone} onCancel={onCancel} line={line} />;
 }
 
 function Drawer({
@@ -174,20 +181,24 @@ function Drawer({
   ring,
   onDone,
   onCancel,
+  line,
 }: {
   label: string;
   frame: SiteMapFrame;
   ring: Ring | null;
   onDone: (ring: Ring) => void;
   onCancel: () => void;
+  line: boolean;
 }) {
   const { wide } = useLayout();
   const [readout] = useState(createReadoutStore);
   const [format, setFormat] = useCoordinateFormat();
   const [drawing, setDrawing] = useState<Drawing>(() =>
-    ring && ring.length >= 3
-      ? { points: closedOf(ring).map(([lonDeg, latDeg]) => frame.projection.toGrid({ latDeg, lonDeg })), closed: true }
-      : { points: [], closed: false },
+    line && ring && ring.length >= 2
+      ? { points: ring.map(([lonDeg, latDeg]) => frame.projection.toGrid({ latDeg, lonDeg })), closed: false }
+      : ring && ring.length >= 3
+        ? { points: closedOf(ring).map(([lonDeg, latDeg]) => frame.projection.toGrid({ latDeg, lonDeg })), closed: true }
+        : { points: [], closed: false },
   );
   const [history, setHistory] = useState<Drawing[]>([]);
   const [problem, setProblem] = useState('');
@@ -203,7 +214,7 @@ function Drawer({
   const onTap = (point: GridPoint, at: { metresPerPx: number }) => {
     if (drawing.closed) return;
     const first = drawing.points[0];
-    if (first && n >= 3 && Math.hypot(first.x - point.x, first.y - point.y) <= HANDLE_REACH_PX * at.metresPerPx) {
+    if (!line && first && n >= 3 && Math.hypot(first.x - point.x, first.y - point.y) <= HANDLE_REACH_PX * at.metresPerPx) {
       change({ ...drawing, closed: true });
       return;
     }
@@ -236,7 +247,7 @@ function Drawer({
       const q = frame.projection.toLatLon(p.x, p.y);
       return [Number(q.lonDeg.toFixed(7)), Number(q.latDeg.toFixed(7))];
     });
-    const checked = RingSchema.safeParse(lonLat);
+    const checked = (line ? ShorelineSchema : RingSchema).safeParse(lonLat);
     if (!checked.success) {
       setProblem(checked.error.issues[0]?.message ?? 'This outline cannot be used.');
       return;
@@ -244,13 +255,17 @@ function Drawer({
     onDone(checked.data);
   };
 
-  const status = drawing.closed
-    ? `${n} corners, closed. Drag a corner to move it, or use the outline.`
-    : n === 0
-      ? 'Tap the map to place the first corner. Drag the map to move it; pinch, scroll or use +/− to zoom.'
-      : n < 3
-        ? `${n} corner${n === 1 ? '' : 's'}. Tap to add more (at least three).`
-        : `${n} corners. Tap the first corner (or Close the ring) to finish.`;
+  const status = line
+    ? n === 0
+      ? 'Tap the map where the shoreline starts (chainage 0), then along the shore. Drag the map to move it; pinch, scroll or use +/− to zoom.'
+      : `${n} corner${n === 1 ? '' : 's'}. Tap to go on along the shore; drag a corner to move it.`
+    : drawing.closed
+      ? `${n} corners, closed. Drag a corner to move it, or use the outline.`
+      : n === 0
+        ? 'Tap the map to place the first corner. Drag the map to move it; pinch, scroll or use +/− to zoom.'
+        : n < 3
+          ? `${n} corner${n === 1 ? '' : 's'}. Tap to add more (at least three).`
+          : `${n} corners. Tap the first corner (or Close the ring) to finish.`;
 
   const last = drawing.points[n - 1];
   return (
@@ -314,7 +329,7 @@ function Drawer({
                     key={i}
                     cx={p.x}
                     cy={p.y}
-                    r={i === 0 && !drawing.closed && n >= 3 ? 11 : 8}
+                    r={i === 0 && !line && !drawing.closed && n >= 3 ? 11 : 8}
                     fill={i === 0 ? colors.ember : colors.surface}
                     stroke={colors.ember}
                     strokeWidth={3}
@@ -338,16 +353,18 @@ function Drawer({
       ) : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         <Button kind="secondary" label="Undo" onPress={undo} disabled={history.length === 0} />
-        <Button
-          kind="secondary"
-          label="Close the ring"
-          onPress={() => change({ ...drawing, closed: true })}
-          disabled={drawing.closed || n < 3}
-        />
+        {line ? null : (
+          <Button
+            kind="secondary"
+            label="Close the ring"
+            onPress={() => change({ ...drawing, closed: true })}
+            disabled={drawing.closed || n < 3}
+          />
+        )}
         <Button kind="quiet" label="Start over" onPress={() => change({ points: [], closed: false })} disabled={n === 0} />
       </View>
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button label="Use this outline" onPress={use} disabled={n < 3} />
+        <Button label={line ? 'Use this line' : 'Use this outline'} onPress={use} disabled={n < (line ? 2 : 3)} />
         <Button kind="quiet" label="Cancel" onPress={onCancel} />
       </View>
     </View>

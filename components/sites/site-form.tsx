@@ -9,10 +9,13 @@ import { z } from 'zod';
 import {
   PriorityZoneSchema,
   RingSchema,
+  HEIGHT_DATUM_LABELS,
+  HEIGHT_DATUMS,
   SITE_KIND_LABELS,
   SITE_KINDS,
   SiteInputSchema,
   UNIT_SYSTEM_IDS,
+  type HeightDatum,
   type Site,
   type SiteKind,
 } from '@/shared/schemas/site';
@@ -33,6 +36,7 @@ import { UnitNumberField } from '@/components/ui/unit-number-field';
 import { FormError, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 import { GeoJsonImport } from './geojson-import';
+import { ShorelineField } from './shoreline-field';
 import { RingField } from './ring-field';
 import type { RingDrawContext } from './ring-draw-map';
 
@@ -41,7 +45,7 @@ import type { RingDrawContext } from './ring-draw-map';
  * as text and its outline required, and the two heights typed in `heightUnit`
  * (stored in metres).
  */
-export const siteFormSchema = (heightUnit: LengthUnit) =>
+export const siteFormSchema = (heightUnit: LengthUnit, distanceUnit: LengthUnit = 'km') =>
   SiteInputSchema.pick({
     name: true,
     kind: true,
@@ -50,7 +54,21 @@ export const siteFormSchema = (heightUnit: LengthUnit) =>
     defaultUnits: true,
     timeZone: true,
     seaArea: true,
+    shoreline: true,
+    heightDatum: true,
   }).extend({
+    // Band edges typed in the distance unit, checked by the shared schema in metres.
+    bands: z
+      .array(
+        z.object({
+          name: z.string(),
+          fromM: z.preprocess((t) => typedToMetres(t, distanceUnit), z.number({ error: 'Give the distance from the shore.' })),
+          toM: z.preprocess((t) => typedToMetres(t, distanceUnit), z.number({ error: 'Give the distance from the shore.' })),
+        }),
+      )
+      .pipe(SiteInputSchema.shape.bands.unwrap()),
+    tideLowM: z.preprocess((t) => typedToMetres(t, heightUnit), z.number({ error: 'A number, please.' }).nullable()),
+    tideHighM: z.preprocess((t) => typedToMetres(t, heightUnit), z.number({ error: 'A number, please.' }).nullable()),
     seaLevelMaxM: z.preprocess((t) => typedToMetres(t, heightUnit), SiteInputSchema.shape.seaLevelMaxM),
     targetGroundM: z.preprocess((t) => typedToMetres(t, heightUnit), SiteInputSchema.shape.targetGroundM),
     priorityZones: z
@@ -75,7 +93,8 @@ const browserTimeZone = () => {
   }
 };
 
-function valuesOf(site: Site | undefined, heightUnit: LengthUnit): FormIn {
+function valuesOf(site: Site | undefined, heightUnit: LengthUnit, distanceUnit: LengthUnit): FormIn {
+  const tide = site?.tide ?? null;
   return {
     name: site?.name ?? '',
     kind: site?.kind ?? 'forest-district',
@@ -86,6 +105,15 @@ function valuesOf(site: Site | undefined, heightUnit: LengthUnit): FormIn {
     seaArea: site?.seaArea ?? null,
     seaLevelMaxM: lengthText(site?.seaLevelMaxM, heightUnit),
     targetGroundM: lengthText(site?.targetGroundM, heightUnit),
+    shoreline: site?.shoreline ?? null,
+    heightDatum: site?.heightDatum ?? 'mean-sea-level',
+    bands: (site?.bands ?? []).map((b) => ({
+      name: b.name,
+      fromM: lengthText(b.fromM, distanceUnit),
+      toM: lengthText(b.toM, distanceUnit),
+    })),
+    tideLowM: lengthText(tide ? ('levelM' in tide ? tide.levelM : tide.lowM) : null, heightUnit),
+    tideHighM: lengthText(tide && 'highM' in tide ? tide.highM : null, heightUnit),
     priorityZones: (site?.priorityZones ?? []).map((z) => ({ name: z.name, weight: String(z.weight), ring: z.ring })),
   };
 }
@@ -101,6 +129,9 @@ const ROOT_FIELDS = [
   'seaArea',
   'seaLevelMaxM',
   'targetGroundM',
+  'shoreline',
+  'heightDatum',
+  'bands',
 ] as const;
 
 /** Where a server field path shows on this form: a zone's part under that part, a corner's under its outline. */
@@ -109,6 +140,10 @@ function fieldOf(path: string): Path<FormIn> | undefined {
   if (root === 'priorityZones' && index !== undefined && (part === 'name' || part === 'weight' || part === 'ring')) {
     return `priorityZones.${Number(index)}.${part}`;
   }
+  if (root === 'bands' && index !== undefined && (part === 'name' || part === 'fromM' || part === 'toM')) {
+    return `bands.${Number(index)}.${part}`;
+  }
+  if (root === 'tide') return index === 'highM' ? 'tideHighM' : 'tideLowM';
   return (ROOT_FIELDS as readonly string[]).includes(root ?? '') ? (root as Path<FormIn>) : undefined;
 }
 
@@ -129,12 +164,19 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
   // Heights are typed in the person's own units, else in the units this form gives the site.
   const preference = useSession().data?.unitPreference ?? null;
   const heightUnitOf = (defaultUnits: UnitSystem) => UNIT_SYSTEMS[preference ?? defaultUnits].height;
+  const distanceUnitOf = (defaultUnits: UnitSystem) => UNIT_SYSTEMS[preference ?? defaultUnits].distance;
   const { control, handleSubmit, setError, formState, watch } = useForm<FormIn, unknown, FormOut>({
     resolver: (values, context, options) =>
-      zodResolver(siteFormSchema(heightUnitOf(values.defaultUnits ?? 'metric')))(values, context, options),
-    defaultValues: valuesOf(site, heightUnitOf(site?.defaultUnits ?? 'metric')),
+      zodResolver(siteFormSchema(heightUnitOf(values.defaultUnits ?? 'metric'), distanceUnitOf(values.defaultUnits ?? 'metric')))(
+        values,
+        context,
+        options,
+      ),
+    defaultValues: valuesOf(site, heightUnitOf(site?.defaultUnits ?? 'metric'), distanceUnitOf(site?.defaultUnits ?? 'metric')),
   });
   const heightUnit = heightUnitOf(watch('defaultUnits') ?? 'metric');
+  const distanceUnit = distanceUnitOf(watch('defaultUnits') ?? 'metric');
+  const bands = useFieldArray({ control, name: 'bands' });
   const zones = useFieldArray({ control, name: 'priorityZones' });
   const posts = useQuery({ ...sitePostsQuery(site?.id ?? ''), enabled: !!site });
   const terrain = useQuery({ ...siteTerrainQuery(site?.id ?? ''), enabled: !!site });
@@ -152,7 +194,18 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
   const submit = handleSubmit((v) => {
     setFormError('');
     setStale(false);
-    const input = { ...v, priorityZones: v.priorityZones.map((z) => ({ name: z.name, weight: z.weight, ring: z.ring! })) };
+    const { tideLowM, tideHighM, ...rest } = v;
+    const tide =
+      tideLowM === null && tideHighM === null
+        ? null
+        : tideLowM !== null && tideHighM !== null
+          ? { lowM: tideLowM, highM: tideHighM }
+          : { levelM: (tideLowM ?? tideHighM)! };
+    const input = {
+      ...rest,
+      tide,
+      priorityZones: v.priorityZones.map((z) => ({ name: z.name, weight: z.weight, ring: z.ring! })),
+    };
     const onError = (e: unknown) => {
       if (e instanceof ApiRequestError && e.code === 'stale_version') {
         setStale(true);
@@ -254,6 +307,94 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
           unit={heightUnit}
           hint="Empty: sea level on a coast, each post’s own ground inland. Terrain coverage uses the terrain itself."
         />
+      </View>
+      <View style={{ gap: space.sm }} aria-label="Shore and offshore bands">
+        <AppText variant="heading">Shore and offshore bands</AppText>
+        <AppText tone="muted">
+          For coast watch: the shoreline, from where its chainage starts, and the bands of water off it you watch (e.g. surf zone,
+          inshore, offshore). Coverage runs then say how much of the shore each band is watched along, where the gaps are and hour
+          by hour from the roster.
+        </AppText>
+        <Controller
+          control={control}
+          name="shoreline"
+          render={({ field, fieldState }) => (
+            <ShorelineField
+              line={field.value ?? null}
+              onChange={field.onChange}
+              error={fieldState.error?.message}
+              drawContext={drawContext('sea')}
+              heightUnit={heightUnit}
+            />
+          )}
+        />
+        {formState.errors.bands?.root?.message || formState.errors.bands?.message ? (
+          <AppText tone="danger" role="alert">
+            {formState.errors.bands?.root?.message ?? formState.errors.bands?.message}
+          </AppText>
+        ) : null}
+        {bands.fields.map((f, i) => (
+          <View key={f.id} style={{ gap: space.xs }} aria-label={`Band ${i + 1}`}>
+            <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap', alignItems: 'flex-start' }}>
+              <View style={{ flex: 2, minWidth: 160 }}>
+                <FormTextField control={control} name={`bands.${i}.name`} label={`Band ${i + 1} name`} />
+              </View>
+              <View style={{ flex: 1, minWidth: 110 }}>
+                <UnitNumberField control={control} name={`bands.${i}.fromM`} label="From the shore" unit={distanceUnit} />
+              </View>
+              <View style={{ flex: 1, minWidth: 110 }}>
+                <UnitNumberField control={control} name={`bands.${i}.toM`} label="Out to" unit={distanceUnit} />
+              </View>
+            </View>
+            <Button
+              kind="quiet"
+              label={`Remove band ${i + 1}`}
+              onPress={() => bands.remove(i)}
+              style={{ alignSelf: 'flex-start' }}
+            />
+          </View>
+        ))}
+        <Button
+          kind="secondary"
+          label="Add a band"
+          onPress={() => {
+            const last = bands.fields.length ? watch(`bands.${bands.fields.length - 1}.toM`) : '';
+            bands.append({ name: '', fromM: String(last || '0'), toM: '' });
+          }}
+          style={{ alignSelf: 'flex-start' }}
+        />
+        <Controller
+          control={control}
+          name="heightDatum"
+          render={({ field }) => (
+            <Segmented<HeightDatum>
+              label="Heights of posts are above"
+              value={field.value ?? 'mean-sea-level'}
+              onChange={field.onChange}
+              options={HEIGHT_DATUMS.map((d) => ({ value: d, label: HEIGHT_DATUM_LABELS[d] }))}
+            />
+          )}
+        />
+        <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
+          <View style={{ flex: 1, minWidth: 150 }}>
+            <UnitNumberField
+              control={control}
+              name="tideLowM"
+              label="Tide: low water (or the one level)"
+              unit={heightUnit}
+              hint="Above the datum. Empty: the datum itself."
+            />
+          </View>
+          <View style={{ flex: 1, minWidth: 150 }}>
+            <UnitNumberField
+              control={control}
+              name="tideHighM"
+              label="Tide: high water"
+              unit={heightUnit}
+              hint="Give both for a high/low pair: each is a condition of the run."
+            />
+          </View>
+        </View>
       </View>
       <View style={{ gap: space.sm }}>
         <AppText variant="heading">Priority zones</AppText>

@@ -1,5 +1,7 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { findWatchGaps } from '@/shared/roster/find-watch-gaps';
+import { HANDOVER_MS, openedGaps } from '@/shared/roster/hourly-watch';
 import type { Roster } from '@/shared/schemas/assignment';
 import { useDeleteAssignment, useSiteRoster } from '@/components/data/roster';
 import { useQualifications } from '@/components/data/trainer';
@@ -33,6 +35,7 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
   const { data: user } = useSession();
   const planner = user?.role === 'planner';
   const qualifications = useQualifications();
+  const opened = useOpenedGaps(roster.data);
 
   return (
     <Card style={{ gap: space.md }} aria-label="Watch roster">
@@ -58,6 +61,16 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
         <AppText tone="muted">This site has no posts to put anyone on yet.</AppText>
       ) : (
         <>
+          {opened.length ? (
+            <Notice tone="danger" title="That change left nobody on watch">
+              {opened.slice(0, 6).map((g) => (
+                <AppText key={g.start}>
+                  No post is staffed {showWatchTime(new Date(g.start).toISOString(), timeZone)} →{' '}
+                  {showWatchTime(new Date(g.end).toISOString(), timeZone)}: the shore (or ground) is unwatched then.
+                </AppText>
+              ))}
+            </Notice>
+          ) : null}
           <GapSummary roster={roster.data} timeZone={timeZone} />
           <View style={styles.days}>
             {window.days.map((d) => (
@@ -157,6 +170,31 @@ export function SiteRoster({ siteId, timeZone }: { siteId: string; timeZone: str
 }
 
 /** One line per post that is not watched for the whole window, with how long it is left alone. */
+/** Stretches of the window in which no post of the site is staffed (hand-overs under five minutes ignored). */
+export function siteUncovered(roster: Roster): { start: number; end: number }[] {
+  const intervals = roster.posts.flatMap((p) =>
+    p.assignments.map((a) => ({ start: Date.parse(a.startsAt), end: a.endsAt ? Date.parse(a.endsAt) : null })),
+  );
+  return findWatchGaps(intervals, { start: Date.parse(roster.from), end: Date.parse(roster.to) }, HANDOVER_MS);
+}
+
+/** What the last change to the roster (same window) left with nobody on watch that was watched before. */
+function useOpenedGaps(roster: Roster | undefined) {
+  const previous = useRef<Roster | null>(null);
+  const [opened, setOpened] = useState<{ start: number; end: number }[]>([]);
+  useEffect(() => {
+    if (!roster) return;
+    const before = previous.current;
+    previous.current = roster;
+    if (!before || before.from !== roster.from || before.to !== roster.to) {
+      setOpened([]);
+      return;
+    }
+    setOpened(openedGaps(siteUncovered(before), siteUncovered(roster)));
+  }, [roster]);
+  return opened;
+}
+
 function GapSummary({ roster, timeZone }: { roster: Roster; timeZone: string }) {
   const open = roster.posts.filter((p) => p.gaps.length > 0);
   if (open.length === 0) {

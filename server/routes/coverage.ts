@@ -1,6 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { COVERAGE_LAYER_KINDS, CoverageCompareQuerySchema, CoverageLayerQuerySchema } from '@/shared/schemas/coverage';
+import {
+  COVERAGE_LAYER_KINDS,
+  CoverageCompareQuerySchema,
+  CoverageHourlyQuerySchema,
+  CoverageLayerQuerySchema,
+} from '@/shared/schemas/coverage';
+import { coverageHourly } from '@/server/domain/coverage/coverage-hourly';
 import {
   cancelCoverageRun,
   compareCoverageRuns,
@@ -47,6 +53,10 @@ export function coverageRoutes(deps: CoverageDeps) {
     // A finished run never changes: the layer may be cached privately.
     res.setHeader('Cache-Control', 'private, max-age=86400, immutable');
     res.json(await coverageLayer(actorOf(req), runId, layer, caseKey, postId));
+  });
+  router.get('/coverage-runs/:runId/hourly', requireUser, async (req, res) => {
+    const { runId } = parseOrThrow(RunParams, req.params, 'address');
+    res.json({ hourly: await coverageHourly(actorOf(req), runId, parseOrThrow(CoverageHourlyQuerySchema, req.query, 'query')) });
   });
   router.get('/coverage-compare', requireUser, async (req, res) => {
     res.json(await compareCoverageRuns(actorOf(req), parseOrThrow(CoverageCompareQuerySchema, req.query, 'query')));

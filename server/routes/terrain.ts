@@ -10,6 +10,7 @@ import {
 import { BoundaryFromTerrainSchema, PostMoveSchema } from '@/shared/schemas/post-actions';
 import { getSite } from '@/server/domain/sites/manage-sites';
 import { boundaryFromTerrain, movePost } from '@/server/domain/terrain/place-on-terrain';
+import { shorelineFromTerrain } from '@/server/domain/terrain/shoreline-from-terrain';
 import {
   getActiveTerrain,
   openHillshade,
@@ -25,6 +26,12 @@ import { actorOf, requireRole, requireUser } from '@/server/http/session';
 import { parseOrThrow } from '@/server/http/validate';
 
 const SiteParams = z.object({ siteId: z.uuid({ error: 'Not a site id.' }) });
+const ShorelineTraceSchema = z.object({
+  levelM: z
+    .number({ error: 'The level must be a number of metres.' })
+    .min(-500, 'At least −500 m.')
+    .max(9000, 'At most 9 000 m.'),
+});
 const PostParams = SiteParams.extend({ postId: z.uuid({ error: 'Not a post id.' }) });
 const HillshadeQuery = z.object({ terrainId: z.uuid({ error: 'Not a terrain id.' }).optional() });
 
@@ -128,6 +135,13 @@ export function terrainRoutes(deps: TerrainDeps, upload: TerrainUploadSettings) 
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
     const { version } = parseOrThrow(BoundaryFromTerrainSchema, req.body, 'site');
     res.json(await boundaryFromTerrain(deps, actorOf(req), siteId, version));
+  });
+
+  // A shoreline traced at a stated level; not saved (the site form takes it).
+  router.post('/sites/:siteId/shoreline-from-terrain', requireUser, requireRole('planner'), async (req, res) => {
+    const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
+    const { levelM } = parseOrThrow(ShorelineTraceSchema, req.body, 'trace');
+    res.json(await shorelineFromTerrain(deps, actorOf(req), siteId, levelM));
   });
 
   return router;

@@ -103,6 +103,10 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
       seaLevelMaxM: null,
       targetGroundM: null,
       seaArea: null,
+      shoreline: null,
+      bands: [],
+      heightDatum: 'mean-sea-level',
+      tide: null,
     },
     posts: [
       {
@@ -153,6 +157,11 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
       timeZone: 'Europe/Berlin',
       seaLevelMaxM: null,
       targetGroundM: null,
+      // The shoreline is drawn by the supervisor (the browser test does); heights above mean sea level.
+      shoreline: null,
+      bands: [],
+      heightDatum: 'mean-sea-level',
+      tide: null,
       // North of an invented shoreline that runs a little inland of the two shore posts' beaches.
       seaArea: ring([
         [529_000, 5_751_500],

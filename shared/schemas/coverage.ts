@@ -81,6 +81,105 @@ export const CaseDetectionSchema = z.object({
 export type CaseDetection = z.infer<typeof CaseDetectionSchema>;
 
 /** One target × one condition of a run: figures and the standard's verdict. */
+const ShoreMeasureSchema = z.object({ lengthM: z.number(), pct: z.number() });
+
+/**
+ * One offshore band along the shore in one case. A post watches the band at a
+ * place on the shore when it sees the target at every point of the offshore
+ * transect there within the band (see shared/terrain/shore-strips.ts).
+ */
+export const CaseBandSchema = z.object({
+  name: z.string(),
+  /** Metres from the shoreline. */
+  fromM: z.number(),
+  toM: z.number(),
+  /** Length and share of the shore watched by ≥ 1 and ≥ 2 posts (every post of the plan). */
+  watched1: ShoreMeasureSchema,
+  watched2: ShoreMeasureSchema,
+  /** Per post: the chainage stretches it watches, [from, to] metres. */
+  posts: z.array(
+    z.object({
+      postId: z.uuid(),
+      postName: z.string(),
+      lengthM: z.number(),
+      watched: z.array(z.tuple([z.number(), z.number()])),
+    }),
+  ),
+});
+export type CaseBand = z.infer<typeof CaseBandSchema>;
+
+/** A stretch of shore where a band is not watched, and what would close it. */
+export const CaseGapSchema = z.object({
+  band: z.string(),
+  /** Chainage, metres; from = to for a seam. */
+  fromM: z.number(),
+  toM: z.number(),
+  lengthM: z.number(),
+  /** `unwatched`: nobody watches it; `seam`: two posts' strips meet within one cell, nothing to spare. */
+  kind: z.enum(['unwatched', 'seam']),
+  /** Where the gap is (its middle on the shore), WGS84. */
+  at: z.object({ latDeg: z.number(), lonDeg: z.number() }),
+  /** The nearest post that could close it and how much higher it would need to be (smooth earth); null without posts. */
+  closer: z
+    .object({
+      postId: z.uuid(),
+      postName: z.string(),
+      distanceM: z.number(),
+      /** Eye height above the water needed, metres; null when height cannot help. */
+      neededEyeM: z.number().nullable(),
+      /** How much higher than now, metres; 0 = height is not what hides it; null when height cannot help. */
+      raiseByM: z.number().nullable(),
+      blockedBy: z.enum(['range-limit', 'sector']).nullable(),
+    })
+    .nullable(),
+});
+export type CaseGap = z.infer<typeof CaseGapSchema>;
+
+/** The band shares hour by hour from the roster (posts on watch the whole hour). */
+export const HourlySeriesSchema = z.object({
+  /** First local day (YYYY-MM-DD) and how many days. */
+  date: z.string(),
+  days: z.number().int(),
+  timeZone: z.string(),
+  /** When the roster was read, ISO 8601. */
+  rosterReadAt: z.string(),
+  hours: z.array(
+    z.object({
+      startsAt: z.string(),
+      local: z.string(),
+      hour: z.number().int(),
+      postIds: z.array(z.string()),
+      bands: z.array(z.object({ name: z.string(), watched1Pct: z.number(), watched2Pct: z.number() })),
+    }),
+  ),
+  /** Hours in which some band has no shore watched, with those bands. */
+  unwatchedHours: z.array(z.object({ startsAt: z.string(), local: z.string(), bands: z.array(z.string()) })),
+});
+export type HourlySeries = z.infer<typeof HourlySeriesSchema>;
+
+/** Query of GET /coverage-runs/:runId/hourly. */
+export const CoverageHourlyQuerySchema = z.object({
+  caseKey: z.string({ error: 'Name the case.' }).min(1, 'Name the case.').max(200),
+  /** First local day, YYYY-MM-DD; default today in the site's time zone. */
+  date: z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, 'Give a date as YYYY-MM-DD.')
+    .optional(),
+  /** 1 (a day) to 7 (a week). */
+  days: z.coerce.number({ error: '1 to 7 days.' }).int('1 to 7 days.').min(1, '1 to 7 days.').max(7, '1 to 7 days.').default(1),
+});
+
+/** The shoreline a case measured along. */
+export const CaseShoreSchema = z.object({
+  lengthM: z.number(),
+  /** Stations (pieces of about one cell) the shore was judged at. */
+  stations: z.number().int(),
+  /** Which side of the line (walking from its start) the sea was taken to be on. */
+  seaSide: z.enum(['left', 'right']),
+  /** Each post's position along the shore (chainage of the nearest point) and its distance from it, metres. */
+  posts: z.array(z.object({ postId: z.uuid(), postName: z.string(), chainageM: z.number(), offsetM: z.number() })),
+});
+
 export const CoverageCaseSchema = z.object({
   /** `${targetId}:${conditionSetId}:${conditionIndex}`; the same in every run of plans sharing them. */
   key: z.string(),
@@ -110,6 +209,16 @@ export const CoverageCaseSchema = z.object({
   detection: CaseDetectionSchema.nullable().default(null),
   /** The detection model the figures were made with; null in older runs. */
   detectionModel: z.string().nullable().default(null),
+  /** Water level of this case, metres above the site's datum; null = no tide stated. */
+  tideLevelM: z.number().nullable().default(null),
+  /** The shoreline measured along; null when the site has no shoreline or no bands. */
+  shore: CaseShoreSchema.nullable().default(null),
+  /** Each offshore band's figures along the shore. */
+  bands: z.array(CaseBandSchema).default([]),
+  /** Stretches of shore where a band is not watched. */
+  gaps: z.array(CaseGapSchema).default([]),
+  /** Band shares hour by hour for the day the run was computed, from the roster then; null without bands. */
+  hourly: HourlySeriesSchema.nullable().default(null),
 });
 export type CoverageCase = z.infer<typeof CoverageCaseSchema>;
 

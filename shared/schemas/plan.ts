@@ -22,6 +22,31 @@ export const TargetRuleSchema = z.object({
 });
 export type TargetRule = z.infer<typeof TargetRuleSchema>;
 
+const hourOfDay = (what: string, max: number) =>
+  z
+    .number({ error: `${what} is an hour, 0 to ${max}.` })
+    .int(`${what} is a whole hour, 0 to ${max}.`)
+    .min(0, `${what} is an hour, 0 to ${max}.`)
+    .max(max, `${what} is an hour, 0 to ${max}.`);
+
+/**
+ * A rule for an offshore band of a coast site, e.g. "inshore: 95 % of the
+ * shore by ≥ 1 post between 08:00 and 20:00" — checked in every hour of the
+ * window from the roster (the posts on watch), else with every post.
+ */
+export const ShoreBandRuleSchema = z
+  .object({
+    /** The band's name, as on the site. */
+    band: z.string({ error: 'Name the band.' }).trim().min(1, 'Name the band.').max(60),
+    minPosts: z.number({ error: '1 or 2 posts.' }).int('1 or 2 posts.').min(1, '1 or 2 posts.').max(2, '1 or 2 posts.'),
+    minPct: percent,
+    /** Local hours, from (inclusive) to (exclusive); 0 and 24 = the whole day. */
+    fromHour: hourOfDay('The start', 23).default(0),
+    toHour: hourOfDay('The end', 24).default(24),
+  })
+  .refine((r) => r.toHour > r.fromHour, { path: ['toHour'], message: 'The end must be after the start.' });
+export type ShoreBandRule = z.infer<typeof ShoreBandRuleSchema>;
+
 /** The standard a plan must meet. */
 export const PlanStandardSchema = z.object({
   /** Least share of the site seen by at least one post, percent. */
@@ -32,6 +57,8 @@ export const PlanStandardSchema = z.object({
   targetRules: z.array(TargetRuleSchema).max(50, 'At most 50 target rules.').default([]),
   /** Least share of each priority zone with good cross-bearings, percent; null = no such rule. */
   crossBearingMinPct: percent.nullable().default(null),
+  /** Rules for a coast site's offshore bands (absent in older plans). */
+  bandRules: z.array(ShoreBandRuleSchema).max(20, 'At most 20 band rules.').optional(),
 });
 export type PlanStandard = z.infer<typeof PlanStandardSchema>;
 

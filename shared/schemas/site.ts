@@ -42,6 +42,82 @@ export const RingSchema = z
     }
   });
 
+/**
+ * A shoreline as [longitude, latitude] pairs (GeoJSON order, WGS84 degrees)
+ * from its start: chainage (distance along the shore) runs from the first
+ * corner. 2 to 5 000 corners; corners repeated one after another are dropped.
+ */
+export const ShorelineSchema = z
+  .array(z.tuple([z.number().min(-180).max(180), z.number().min(-90).max(90)]), {
+    error: 'Give the shoreline as [longitude, latitude] pairs.',
+  })
+  .max(5000, 'At most 5 000 corners.')
+  .transform((line) => line.filter((p, i) => i === 0 || p[0] !== line[i - 1]![0] || p[1] !== line[i - 1]![1]))
+  .refine((line) => line.length >= 2, 'A shoreline needs at least two distinct corners.');
+
+/** Longest offshore distance a band may reach, metres (100 km). */
+export const BAND_MAX_M = 100_000;
+
+/**
+ * An offshore band the supervisor names: the water between `fromM` and `toM`
+ * metres from the shoreline (e.g. 0–926 m "surf zone").
+ */
+export const ShoreBandSchema = z
+  .object({
+    name: z.string({ error: 'Name the band.' }).trim().min(1, 'Name the band.').max(60, 'At most 60 characters.'),
+    fromM: z
+      .number({ error: 'The band’s inner edge must be a number of metres.' })
+      .min(0, 'The inner edge cannot be negative.')
+      .max(BAND_MAX_M, 'At most 100 km offshore.'),
+    toM: z
+      .number({ error: 'The band’s outer edge must be a number of metres.' })
+      .positive('The outer edge must be beyond the shore.')
+      .max(BAND_MAX_M, 'At most 100 km offshore.'),
+  })
+  .superRefine((band, ctx) => {
+    if (!(band.toM > band.fromM))
+      ctx.addIssue({ code: 'custom', path: ['toM'], message: 'The outer edge must be farther out than the inner edge.' });
+  });
+export type ShoreBand = z.infer<typeof ShoreBandSchema>;
+
+const uniqueBandNames = (bands: readonly { name: string }[], ctx: z.RefinementCtx) => {
+  const seen = new Set<string>();
+  bands.forEach((b, i) => {
+    const key = b.name.trim().toLowerCase();
+    if (seen.has(key)) ctx.addIssue({ code: 'custom', path: [i, 'name'], message: 'Two bands have this name.' });
+    seen.add(key);
+  });
+};
+
+/** What a shore post's heights (ground elevation) are measured from. */
+export const HEIGHT_DATUMS = ['mean-sea-level', 'chart-datum'] as const;
+export type HeightDatum = (typeof HEIGHT_DATUMS)[number];
+export const HEIGHT_DATUM_LABELS: Record<HeightDatum, string> = {
+  'mean-sea-level': 'Mean sea level',
+  'chart-datum': 'Chart datum (of the local chart)',
+};
+
+const tideMetres = (what: string) =>
+  z
+    .number({ error: `${what} must be a number of metres.` })
+    .min(-20, 'At least −20 m.')
+    .max(20, 'At most 20 m.');
+
+/**
+ * The water level(s) to compute with, metres above the site's height datum:
+ * one level, or a high/low pair (each becomes a condition of the run).
+ */
+export const TideSchema = z.union(
+  [
+    z.strictObject({ levelM: tideMetres('The tide level') }),
+    z
+      .strictObject({ lowM: tideMetres('Low water'), highM: tideMetres('High water') })
+      .refine((t) => t.highM >= t.lowM, { path: ['highM'], message: 'High water must be at or above low water.' }),
+  ],
+  { error: 'Give the tide as { levelM } or { lowM, highM }, metres above the datum.' },
+);
+export type Tide = z.infer<typeof TideSchema>;
+
 export const PriorityZoneSchema = z.object({
   name: z.string().trim().min(1, 'Name the zone.').max(120),
   /** Relative importance, 1 (low) … 10 (high). */
@@ -71,6 +147,20 @@ export const SiteSchema = z.object({
     .default(null),
   /** Ground height where targets stand, for smooth-earth figures, metres above sea level; null = see `smoothEarthGround`. */
   targetGroundM: z.number().nullable().default(null),
+  /** The shoreline ([lon, lat], WGS84) from its start; null = not drawn. Always sent by the API; optional for older copies. */
+  shoreline: z
+    .array(z.tuple([z.number(), z.number()]))
+    .nullable()
+    .optional(),
+  /** Offshore bands, metres from the shoreline. */
+  bands: z.array(z.object({ name: z.string(), fromM: z.number(), toM: z.number() })).optional(),
+  /** What posts' ground elevations (and the tide) are measured from. */
+  heightDatum: z.enum(HEIGHT_DATUMS).optional(),
+  /** Water level(s) above the datum for the coverage run; null = the datum itself. */
+  tide: z
+    .union([z.object({ levelM: z.number() }), z.object({ lowM: z.number(), highM: z.number() })])
+    .nullable()
+    .optional(),
   version: z.number().int(),
   /** ISO 8601. */
   updatedAt: z.string(),
@@ -121,6 +211,14 @@ export const SiteInputSchema = z.object({
     .max(9000, 'At most 9 000 m.')
     .nullable()
     .default(null),
+  /** The shoreline, [lon, lat] from its start (chainage 0); null = none. */
+  shoreline: ShorelineSchema.nullable().default(null),
+  /** Offshore bands the supervisor names, metres from the shoreline; at most 12, names unique. */
+  bands: z.array(ShoreBandSchema).max(12, 'At most 12 bands.').superRefine(uniqueBandNames).default([]),
+  /** What ground elevations and the tide are measured from. */
+  heightDatum: z.enum(HEIGHT_DATUMS, { error: `Choose one of: ${HEIGHT_DATUMS.join(', ')}.` }).default('mean-sea-level'),
+  /** Water level(s) above the datum for the coverage run; null = the datum itself (0 m). */
+  tide: TideSchema.nullable().default(null),
 });
 export type SiteInput = z.infer<typeof SiteInputSchema>;
 

@@ -326,3 +326,98 @@ function describeBlindArea(blind: BlindArea): string {
   const { x, y, col, row } = blind.centroid;
   return `${km2(blind.area)} around E ${Math.round(x)} m, N ${Math.round(y)} m (col ${Math.round(col)}, row ${Math.round(row)})`;
 }
+
+/** A band rule of the plan's standard (see `ShoreBandRuleSchema` in shared/schemas/plan.ts). */
+export interface ShoreBandRule {
+  readonly band: string;
+  readonly minPosts: number;
+  readonly minPct: number;
+  /** Local hours, from (inclusive) to (exclusive). */
+  readonly fromHour: number;
+  readonly toHour: number;
+}
+
+/** A band rule's verdict, in the shape of the other rules (lengths along the shore in `shortfallArea`'s place: 0). */
+export interface ShoreBandRuleCheck {
+  readonly id: string;
+  readonly zoneName: null;
+  readonly minPosts: number;
+  readonly minPct: number;
+  readonly text: string;
+  readonly actualPct: number;
+  readonly passed: boolean;
+  readonly shortfallPct: number;
+  readonly shortfallArea: 0;
+  readonly reasons: string[];
+}
+
+const hh = (h: number) => `${String(h).padStart(2, '0')}:00`;
+
+/**
+ * Checks the band rules of a standard against a case's band figures:
+ *
+ *   a band rule passes ⇔ in every hour of the window (local hours fromHour ≤ h < toHour of the
+ *   series' days) the share of the shore watched in the band by ≥ minPosts posts on watch ≥ minPct
+ *
+ * With no hourly series (no roster read), every post of the plan counts as on watch and the
+ * band's own figures are used. The rule's `actualPct` is the lowest hourly share in the window.
+ * A rule naming a band the site does not have fails, saying so.
+ *
+ * Source: Kenning's reading of the plan standard (shared/schemas/plan.ts) — no external source.
+ */
+export function checkShoreBandRules(
+  rules: readonly ShoreBandRule[],
+  bands: readonly { name: string; watched1: { pct: number }; watched2: { pct: number } }[],
+  hourly: {
+    hours: readonly {
+      local: string;
+      hour: number;
+      bands: readonly { name: string; watched1Pct: number; watched2Pct: number }[];
+    }[];
+  } | null,
+): ShoreBandRuleCheck[] {
+  return rules.map((rule, i) => {
+    const window = `${hh(rule.fromHour)}–${hh(rule.toHour)}`;
+    const text = `${rule.band}: ${rule.minPct} % of the shore watched by ≥ ${rule.minPosts} post${rule.minPosts > 1 ? 's' : ''}, ${window}`;
+    const base = {
+      id: `band-${i}`,
+      zoneName: null,
+      minPosts: rule.minPosts,
+      minPct: rule.minPct,
+      text,
+      shortfallArea: 0 as const,
+    };
+    const band = bands.find((b) => b.name.toLowerCase() === rule.band.trim().toLowerCase());
+    if (!band) {
+      return {
+        ...base,
+        actualPct: 0,
+        passed: false,
+        shortfallPct: rule.minPct,
+        reasons: [`${text}: the site has no band “${rule.band}”.`],
+      };
+    }
+    const pick = (p: { watched1Pct: number; watched2Pct: number }) => (rule.minPosts >= 2 ? p.watched2Pct : p.watched1Pct);
+    const inWindow = hourly ? hourly.hours.filter((h) => h.hour >= rule.fromHour && h.hour < rule.toHour) : [];
+    const samples = hourly
+      ? inWindow.map((h) => {
+          const b = h.bands.find((x) => x.name === band.name);
+          return { local: h.local, pct: b ? pick(b) : 0 };
+        })
+      : [{ local: 'every post on watch', pct: rule.minPosts >= 2 ? band.watched2.pct : band.watched1.pct }];
+    const actualPct = samples.length ? Math.min(...samples.map((s) => s.pct)) : 0;
+    const short = samples.filter((s) => s.pct < rule.minPct);
+    const passed = samples.length > 0 && short.length === 0;
+    const reasons = passed
+      ? [`${text}: met (lowest ${actualPct.toFixed(1)} %).`]
+      : short.length
+        ? [
+            `${text}: short in ${short.length} hour${short.length > 1 ? 's' : ''} — ${short
+              .slice(0, 6)
+              .map((s) => `${s.local} ${s.pct.toFixed(1)} %`)
+              .join(', ')}${short.length > 6 ? ', …' : ''}.`,
+          ]
+        : [`${text}: no hour of the window in the series.`];
+    return { ...base, actualPct, passed, shortfallPct: passed ? 0 : Math.max(0, rule.minPct - actualPct), reasons };
+  });
+}

@@ -42,6 +42,11 @@ export function sampleCase(overrides: Partial<CoverageCase> = {}, conditionIndex
   return {
     detection: null,
     detectionModel: null,
+    tideLevelM: null,
+    shore: null,
+    bands: [],
+    gaps: [],
+    hourly: null,
     key: `${IDS.target}:${IDS.set}:${conditionIndex}`,
     targetId: IDS.target,
     targetName: 'Test smoke',

@@ -8,7 +8,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import type { SiteKind } from '@/shared/schemas/site';
+import type { HeightDatum, ShoreBand, SiteKind, Tide } from '@/shared/schemas/site';
 import type { OrganizationModel } from './organization';
 
 /** GeoJSON polygon as stored (WGS84). */
@@ -30,6 +30,10 @@ export class SiteModel extends Model<InferAttributes<SiteModel>, InferCreationAt
   declare seaLevelMaxM: CreationOptional<number | null>;
   declare targetGroundM: CreationOptional<number | null>;
   declare seaArea: CreationOptional<[number, number][] | null>;
+  declare shoreline: CreationOptional<[number, number][] | null>;
+  declare bands: CreationOptional<ShoreBand[]>;
+  declare heightDatum: CreationOptional<HeightDatum>;
+  declare tide: CreationOptional<Tide | null>;
   declare version: CreationOptional<number>;
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -49,6 +53,10 @@ export class SiteModel extends Model<InferAttributes<SiteModel>, InferCreationAt
         seaLevelMaxM: { type: DataTypes.DOUBLE, allowNull: true },
         targetGroundM: { type: DataTypes.DOUBLE, allowNull: true },
         seaArea: { type: DataTypes.JSONB, allowNull: true },
+        shoreline: { type: DataTypes.JSONB, allowNull: true },
+        bands: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+        heightDatum: { type: DataTypes.STRING(24), allowNull: false, defaultValue: 'mean-sea-level' },
+        tide: { type: DataTypes.JSONB, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         deletedAt: DataTypes.DATE,
         createdAt: DataTypes.DATE,

@@ -22,6 +22,10 @@ function toSite(row: SiteModel, zones: PriorityZoneModel[]): Site {
     seaLevelMaxM: row.seaLevelMaxM ?? null,
     targetGroundM: row.targetGroundM ?? null,
     seaArea: row.seaArea ?? null,
+    shoreline: row.shoreline ?? null,
+    bands: row.bands ?? [],
+    heightDatum: row.heightDatum ?? 'mean-sea-level',
+    tide: row.tide ?? null,
     version: row.version,
     updatedAt: row.updatedAt.toISOString(),
   };
@@ -109,6 +113,10 @@ export const sitesRepository = {
         seaLevelMaxM: input.seaLevelMaxM,
         targetGroundM: input.targetGroundM,
         seaArea: input.seaArea,
+        shoreline: input.shoreline,
+        bands: input.bands,
+        heightDatum: input.heightDatum,
+        tide: input.tide,
       },
       { transaction },
     );

@@ -16,6 +16,8 @@ import type { CoverageGrid as CoverageRunGrid } from '@/shared/schemas/coverage'
 import { coverageCaseOf, postSeenShares } from './coverage-case';
 import { caseKeyOf, type CoverageRunInputs } from './coverage-inputs';
 import { gridSpecFromM, gridSpecToM } from '@/shared/terrain/grid-spec';
+import { eyeAboveWaterM, type TideLevel } from '@/shared/terrain/tide-levels';
+import { shoreContextOf, shoreFiguresOf, type RunRoster } from './shore-coverage';
 
 /** One viewshed the run needs: a post under one condition. */
 export interface CoverageViewshedJob {
@@ -153,12 +155,22 @@ export async function computeCoverage(
   terrain: TerrainRaster,
   computeViewsheds: ComputeViewsheds,
   report: ReportProgress,
+  options: { roster?: RunRoster | null } = {},
 ): Promise<ComputedCoverage> {
   const projection = gridProjection(terrain.crs);
   const areas = coverageAreas(inputs, terrain, projection);
-  const posts = placePosts(inputs, terrain, projection);
+  const placed = placePosts(inputs, terrain, projection);
   const grid: CoverageRunGrid = { ...gridSpecToM(terrain), epsg: terrain.crs?.epsg ?? null };
-  const progress = { done: 0, total: posts.length * inputs.conditions.length };
+  const tides: (TideLevel | null)[] = inputs.site.tideLevels?.length ? inputs.site.tideLevels : [null];
+  const progress = { done: 0, total: placed.length * inputs.conditions.length * tides.length };
+  const seaMask = seaMaskOf(inputs, terrain, (ring) => ringOnGrid(projection, ring));
+  const shore = shoreContextOf(
+    inputs,
+    terrain,
+    projection,
+    seaMask,
+    placed.map((p) => p.xy),
+  );
   const cases: CoverageCase[] = [];
   const layers: ComputedLayer[] = [];
   const addLayer = (caseKey: string, layer: CoverageLayerName, postId: string, values: Uint8Array) => {
@@ -166,60 +178,100 @@ export async function computeCoverage(
     layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
   };
 
-  for (const condition of inputs.conditions) {
-    await report((0.9 * progress.done) / progress.total, `Viewsheds: ${condition.conditionSetName}, ${condition.label}`);
-    const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
-    const maxDistance = viewshedRange(detections, terrain.cellSize);
-    const conditions: SightConditions = {
-      refractionCoefficient: condition.k,
-      earthRadius: inputs.earthRadiusM,
-      ...(maxDistance !== null && { maxDistance }),
-    };
-    const network = await networkOf(posts, terrain, conditions, computeViewsheds, report, progress);
-    inputs.targets.forEach((target, t) => {
-      const detection = detections[t]!;
-      const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex);
-      const seaOnly = target.onWater && areas.sea !== null;
-      const area = seaOnly ? areas.sea! : areas.land;
-      const coverage = evaluateNetworkCoverage({
-        posts: network,
-        targetHeight: target.countsFromM,
-        siteMask: area.siteMask,
-        zones: area.zones,
-        standard: standardFor(inputs.standard, target),
-        blindAreaMinArea: inputs.blindAreaMinAreaM2,
-        maxBlindAreas: 20,
-        rangeLimit: detection.rangeLimit.rangeM,
-      });
-      addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
-      addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
-      coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', posts[i]!.input.id, classes));
-      const perPost = postSeenShares(
-        terrain,
-        network,
-        coverage.postClasses,
-        area.siteMask,
-        posts.map((p) => p.input),
+  for (const condition of inputs.conditions)
+    for (const tide of tides) {
+      const posts = tide
+        ? placed.map((p) => ({ ...p, post: { ...p.post, eyeHeight: eyeAt(inputs, p.input, tide, p.post.eyeHeight) } }))
+        : placed;
+      const ground = tide ? raisedTerrain(terrain, seaMask, tide.levelM, inputs.terrain === null) : terrain;
+      await report(
+        (0.9 * progress.done) / progress.total,
+        `Viewsheds: ${condition.conditionSetName}, ${condition.label}${tide ? `, ${tide.label}` : ''}`,
       );
-      cases.push(
-        coverageCaseOf({
+      const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
+      const maxDistance = viewshedRange(detections, terrain.cellSize);
+      const conditions: SightConditions = {
+        refractionCoefficient: condition.k,
+        earthRadius: inputs.earthRadiusM,
+        ...(maxDistance !== null && { maxDistance }),
+      };
+      const network = await networkOf(posts, ground, conditions, computeViewsheds, report, progress);
+      inputs.targets.forEach((target, t) => {
+        const detection = detections[t]!;
+        const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex, tide);
+        const seaOnly = target.onWater && areas.sea !== null;
+        const area = seaOnly ? areas.sea! : areas.land;
+        const coverage = evaluateNetworkCoverage({
+          posts: network,
+          targetHeight: target.countsFromM,
+          siteMask: area.siteMask,
+          zones: area.zones,
+          standard: standardFor(inputs.standard, target),
+          blindAreaMinArea: inputs.blindAreaMinAreaM2,
+          maxBlindAreas: 20,
+          rangeLimit: detection.rangeLimit.rangeM,
+        });
+        addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
+        addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
+        coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', posts[i]!.input.id, classes));
+        const perPost = postSeenShares(
+          terrain,
+          network,
+          coverage.postClasses,
+          area.siteMask,
+          posts.map((p) => p.input),
+        );
+        const stored = coverageCaseOf({
           key,
           target,
-          condition,
+          condition: tide
+            ? { ...condition, label: `${condition.label} · ${tideText(tide, inputs.site.heightDatum)}` }
+            : condition,
           coverage,
           perPost,
           detection,
           seaOnly,
           projection,
           detectionModel: inputs.detectionModel,
-        }),
-      );
-    });
-  }
-  // Target × condition order, as the plan lists them.
+          tideLevelM: tide?.levelM ?? null,
+        });
+        if (shore) {
+          Object.assign(
+            stored,
+            shoreFiguresOf({
+              context: shore,
+              grid: terrain,
+              projection,
+              network,
+              postClasses: coverage.postClasses,
+              posts: posts.map((p) => p.input),
+              candidates: posts.map((p) => ({
+                x: p.xy.x,
+                y: p.xy.y,
+                eyeAboveWaterM:
+                  inputs.terrain === null
+                    ? p.post.eyeHeight
+                    : p.post.eyeHeight + Math.max(0, p.input.groundElevationM - (tide?.levelM ?? 0)),
+                sector: p.input.sector,
+                gridConvergence: p.gridConvergence,
+              })),
+              target: { countsFromM: target.countsFromM, rangeLimitM: detection.rangeLimit.rangeM },
+              sphere: { k: condition.k, earthRadiusM: inputs.earthRadiusM },
+              roster: options.roster ?? null,
+              standard: inputs.standard,
+              check: stored.check,
+            }),
+          );
+        }
+        cases.push(stored);
+      });
+    }
+  // Target × condition (× tide) order, as the plan lists them.
   const order = (k: CoverageCase) =>
-    inputs.targets.findIndex((t) => t.id === k.targetId) * inputs.conditions.length +
-    inputs.conditions.findIndex((c) => c.conditionSetId === k.conditionSetId && c.conditionIndex === k.conditionIndex);
+    (inputs.targets.findIndex((t) => t.id === k.targetId) * inputs.conditions.length +
+      inputs.conditions.findIndex((c) => c.conditionSetId === k.conditionSetId && c.conditionIndex === k.conditionIndex)) *
+      tides.length +
+    tides.findIndex((tide) => (tide?.levelM ?? null) === k.tideLevelM);
   cases.sort((a, b) => order(a) - order(b));
   await report(0.99, 'Saving the layers');
   return { grid, cases, layers };
@@ -242,6 +294,37 @@ export function coverageAreas(inputs: CoverageRunInputs, terrain: TerrainRaster,
   };
 }
 
+/**
+ * A post's eye height at a tide level: on the flat datum its height above the
+ * water (`eyeAboveWaterM`: a shore post's heights are above the datum, a
+ * vessel rides the tide); on terrain its height above the ground of its cell
+ * is kept and the sea is raised instead (`raisedTerrain`).
+ */
+function eyeAt(inputs: CoverageRunInputs, post: CoverageRunInputs['posts'][number], tide: TideLevel, onTerrain: number): number {
+  if (inputs.terrain !== null) return onTerrain;
+  return eyeAboveWaterM(
+    { groundElevationM: post.groundElevationM, aboveGroundM: post.aboveGroundM, floats: post.floats === true },
+    tide.levelM,
+  );
+}
+
+/**
+ * The ground at a tide level. Terrain: sea cells (the site's land/sea mask)
+ * stand at least at the water level; without a mask the terrain is used as it
+ * is. The flat datum stays at 0 (the tide is in the posts' eye heights).
+ */
+function raisedTerrain(terrain: TerrainRaster, seaMask: Uint8Array | null, levelM: number, flat: boolean): TerrainRaster {
+  if (flat || seaMask === null) return terrain;
+  const heights = Float32Array.from(terrain.heights);
+  for (let i = 0; i < heights.length; i++) if (seaMask[i] === 1 && heights[i]! < levelM) heights[i] = levelM;
+  return createTerrainRaster({ ...gridSpecFromM(gridSpecToM(terrain), terrain.crs), heights, nodata: terrain.nodata });
+}
+
+/** "high water (1.8 m above mean sea level)". */
+function tideText(tide: TideLevel, datum: CoverageRunInputs['site']['heightDatum']) {
+  return `${tide.label} (${tide.levelM.toFixed(1)} m above ${datum === 'chart-datum' ? 'chart datum' : 'mean sea level'})`;
+}
+
 /** Each post's cell, eye height, sector (radians) and grid convergence; a post off the grid is refused by name. */
 export function placePosts(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
   const flat = inputs.terrain === null;
@@ -257,6 +340,7 @@ export function placePosts(inputs: CoverageRunInputs, terrain: TerrainRaster, pr
     }
     return {
       input: p,
+      xy: { x, y },
       post: { ...cell, eyeHeight: p.aboveGroundM + (flat ? p.groundElevationM : 0) },
       sector: p.sector && { from: p.sector.fromDeg * DEG, to: p.sector.toDeg * DEG },
       gridConvergence: gridConvergence(projection, { latDeg: p.latDeg, lonDeg: p.lonDeg }),

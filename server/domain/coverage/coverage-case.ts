@@ -106,6 +106,7 @@ export function coverageCaseOf(args: {
   seaOnly: boolean;
   projection: GridProjection;
   detectionModel: string;
+  tideLevelM?: number | null;
 }): CoverageCase {
   const { key, target, condition, coverage, projection } = args;
   const { statistics, check } = coverage;
@@ -141,5 +142,10 @@ export function coverageCaseOf(args: {
     posts: args.perPost,
     detection: detectionOfCase(args.detection, coverage.limits, args.seaOnly),
     detectionModel: args.detectionModel,
+    tideLevelM: args.tideLevelM ?? null,
+    shore: null,
+    bands: [],
+    gaps: [],
+    hourly: null,
   };
 }

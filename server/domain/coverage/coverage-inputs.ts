@@ -3,7 +3,8 @@ import { canonicalJson } from '@/shared/plans/canonical-json';
 import type { ConditionSet, Target } from '@/shared/schemas/library';
 import type { Plan } from '@/shared/schemas/plan';
 import type { RefractionCondition } from '@/shared/schemas/sightline';
-import type { Post, Site } from '@/shared/schemas/site';
+import type { HeightDatum, Post, Site } from '@/shared/schemas/site';
+import { tideLevelsOf, type TideLevel } from '@/shared/terrain/tide-levels';
 import { DETECTION_MODEL_VERSION, MEAN_EARTH_RADIUS_M } from '@/shared/sightline';
 import { effectiveResolutionArcmin, type PlanLookout } from '@/shared/schemas/plan';
 import { formatK } from '@/shared/sightline/format-k';
@@ -36,6 +37,17 @@ export interface CoverageRunInputs {
     seaLevelMaxM: number | null;
     /** Land/sea mask: the sea part as a WGS84 ring; null = not drawn. */
     seaArea: [number, number][] | null;
+    /**
+     * Coast watch (present only when the site has a shoreline and bands, so
+     * older plans keep their inputs hash): the shoreline ([lon, lat] from
+     * chainage 0), the offshore bands, the site's time zone for the hourly
+     * series.
+     */
+    shore?: { shoreline: [number, number][]; bands: { name: string; fromM: number; toM: number }[]; timeZone: string };
+    /** Water levels above the datum, each a condition of the run (present only when the site states a tide). */
+    tideLevels?: TideLevel[];
+    /** What heights are measured from (present only with a tide). */
+    heightDatum?: HeightDatum;
   };
   posts: {
     id: string;
@@ -47,6 +59,8 @@ export interface CoverageRunInputs {
     /** Structure height + eye height above the platform, metres. */
     aboveGroundM: number;
     sector: { fromDeg: number; toDeg: number } | null;
+    /** A vessel: rides the tide (present only when true). */
+    floats?: true;
   }[];
   targets: {
     id: string;
@@ -91,9 +105,9 @@ export interface CoverageRunInputs {
 export const DUCT_REASON =
   'k ≥ 1: a duct. The sight line bends at least as much as the earth, so there is no horizon and the seen area is not defined; judge such conditions from the sightline results.';
 
-/** `${targetId}:${conditionSetId}:${conditionIndex}`. */
-export const caseKeyOf = (targetId: string, conditionSetId: string, conditionIndex: number) =>
-  `${targetId}:${conditionSetId}:${conditionIndex}`;
+/** `${targetId}:${conditionSetId}:${conditionIndex}`, then `:tide-low`, `:tide-high` or `:tide-level` when the site states a tide. */
+export const caseKeyOf = (targetId: string, conditionSetId: string, conditionIndex: number, tide?: TideLevel | null) =>
+  `${targetId}:${conditionSetId}:${conditionIndex}${tide ? `:tide-${tide.id}` : ''}`;
 
 /** sha256 of the canonical JSON of the inputs, hex. */
 export const coverageInputsHash = (inputs: CoverageRunInputs) => createHash('sha256').update(canonicalJson(inputs)).digest('hex');
@@ -155,6 +169,7 @@ export function buildCoverageInputs(input: {
   lookout?: PlanLookout;
 }): CoverageRunInputs {
   const earthRadiusM = MEAN_EARTH_RADIUS_M;
+  const tideLevels = tideLevelsOf(input.site.tide);
   const conditions = input.conditionSets.flatMap((set) =>
     (set.conditions as RefractionCondition[]).map((condition, conditionIndex) => {
       const k = refractionFromCondition(condition, earthRadiusM);
@@ -180,6 +195,11 @@ export function buildCoverageInputs(input: {
       zones: input.site.priorityZones.map((z) => ({ name: z.name, weight: z.weight, ring: z.ring })),
       seaLevelMaxM: input.site.seaLevelMaxM,
       seaArea: input.site.seaArea,
+      ...(input.site.shoreline &&
+        (input.site.bands ?? []).length > 0 && {
+          shore: { shoreline: input.site.shoreline, bands: input.site.bands!, timeZone: input.site.timeZone },
+        }),
+      ...(tideLevels.length > 0 && { tideLevels, heightDatum: input.site.heightDatum ?? 'mean-sea-level' }),
     },
     posts: input.posts.map((p) => ({
       id: p.id,
@@ -189,6 +209,7 @@ export function buildCoverageInputs(input: {
       groundElevationM: p.groundElevationM,
       aboveGroundM: p.structureHeightM + p.eyeHeightM,
       sector: p.sector,
+      ...(p.kind === 'vessel' && { floats: true as const }),
     })),
     targets: input.targets.map((t) => ({
       id: t.id,

@@ -154,7 +154,7 @@ export async function requestCoverage(
 }
 
 /** A run of the caller's organisation; observers only see runs of approved plans. */
-async function visibleRun(actor: Actor, runId: string): Promise<CoverageRunRecord> {
+export async function visibleRun(actor: Actor, runId: string): Promise<CoverageRunRecord> {
   const run = await coverageRepository.find(actor.organizationId, runId);
   if (!run) throw AppError.notFound('That coverage run');
   if (actor.role === 'observer') {

@@ -1,6 +1,9 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { coverageRepository } from '@/server/data/repositories/coverage-repository';
+import { DateTime } from 'luxon';
+import { assignmentsRepository } from '@/server/data/repositories/assignments-repository';
 import { terrainRepository } from '@/server/data/repositories/terrain-repository';
+import type { RunRoster } from './shore-coverage';
 import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
 import type { ViewshedPool } from '@/server/domain/ports/viewshed-pool';
 import { computeCoverage, flatTerrain, type ComputeViewsheds } from './compute-coverage';
@@ -13,6 +16,27 @@ export interface CoverageWorkerDeps extends UseCaseDeps {
   computeViewsheds: ComputeViewsheds;
   /** Least time between progress writes, ms; default 400. */
   progressEveryMs?: number;
+}
+
+/**
+ * The roster for a coast run's hourly series: the watches of the plan's posts
+ * over the site's local day the run is computed on (read now; the series for
+ * any other day or week comes from `GET /coverage-runs/:runId/hourly`).
+ */
+async function runRosterOf(organizationId: string, siteId: string, inputs: CoverageRunInputs): Promise<RunRoster | null> {
+  const shore = inputs.site.shore;
+  if (!shore) return null;
+  const day = DateTime.now().setZone(shore.timeZone).startOf('day');
+  const date = day.toISODate()!;
+  const ids = new Set(inputs.posts.map((p) => p.id));
+  const watches = await assignmentsRepository.inSite(organizationId, siteId, day.toJSDate(), day.plus({ days: 1 }).toJSDate());
+  return {
+    date,
+    readAt: new Date().toISOString(),
+    watches: watches
+      .filter((w) => ids.has(w.postId))
+      .map((w) => ({ postId: w.postId, start: Date.parse(w.startsAt), end: w.endsAt ? Date.parse(w.endsAt) : null })),
+  };
 }
 
 /** Thrown inside a run when its status says it was cancelled. */
@@ -71,7 +95,8 @@ export async function processCoverageRun(
     } else {
       terrain = flatTerrain(inputs.flatGrid!);
     }
-    const result = await computeCoverage(inputs, terrain, deps.computeViewsheds, report);
+    const roster = await runRosterOf(run.organizationId, run.siteId, inputs);
+    const result = await computeCoverage(inputs, terrain, deps.computeViewsheds, report, { roster });
     const written = await deps.db.transaction(async (t) => {
       const locked = await coverageRepository.findById(runId, t, true);
       if (locked?.status !== 'running' || locked.attempts !== attempt) return false;
