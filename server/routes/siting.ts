@@ -9,9 +9,8 @@ import {
   requestSiting,
   type SitingDeps,
 } from '@/server/domain/siting/manage-siting';
-import { AppError } from '@/server/domain/app-error';
 import { actorOf, requireRole, requireUser } from '@/server/http/session';
-import { fieldErrors, parseOrThrow } from '@/server/http/validate';
+import { parseOrThrow } from '@/server/http/validate';
 
 const SiteParams = z.object({ siteId: z.uuid({ error: 'Not a site id.' }) });
 const RunParams = z.object({ runId: z.uuid({ error: 'Not a run id.' }) });
@@ -23,12 +22,8 @@ export function sitingRoutes(deps: SitingDeps) {
 
   router.post('/sites/:siteId/siting-runs', ...planner, async (req, res) => {
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');
-    // A body that is not a valid request: 422 with each field at fault and why.
-    const parsed = SitingRunInputSchema.safeParse(req.body);
-    if (!parsed.success) {
-      throw new AppError(422, 'invalid_input', 'The siting request has invalid fields.', fieldErrors(parsed.error));
-    }
-    res.status(202).json({ run: await requestSiting(deps, actorOf(req), siteId, parsed.data) });
+    const input = parseOrThrow(SitingRunInputSchema, req.body, 'siting request');
+    res.status(202).json({ run: await requestSiting(deps, actorOf(req), siteId, input) });
   });
   router.get('/sites/:siteId/siting-runs', requireUser, async (req, res) => {
     const { siteId } = parseOrThrow(SiteParams, req.params, 'address');

@@ -229,12 +229,12 @@ describe('siting runs', () => {
     }
   });
 
-  it('refuses bad input with 422, the field and the reason, and stores nothing', async () => {
+  it('refuses bad input with 400, the field and the reason, and stores nothing', async () => {
     const before = await sitingRepository.listInSite((await SiteModel.findByPk(forestId))!.organizationId, forestId, 100);
     const bad = await planner
       .post(`/api/v1/sites/${forestId}/siting-runs`)
       .send({ ...request1(), heightsM: [-5], count: 0, objective: { minPosts: 3 } })
-      .expect(422);
+      .expect(400);
     expect(bad.body.error.code).toBe('invalid_input');
     expect(bad.body.error.fields['heightsM.0']).toMatch(/negative/);
     expect(bad.body.error.fields.count).toMatch(/at least 1/i);
@@ -243,20 +243,20 @@ describe('siting runs', () => {
     const strangers = await planner
       .post(`/api/v1/sites/${forestId}/siting-runs`)
       .send({ ...request1(), candidates: [{ postId: existing[0] }, { postId: '00000000-0000-4000-8000-000000000000' }] })
-      .expect(422);
+      .expect(400);
     expect(strangers.body.error.fields['candidates.0.postId']).toMatch(/kept already/);
     expect(strangers.body.error.fields['candidates.1.postId']).toMatch(/No such post/);
 
     const noTarget = await planner
       .post(`/api/v1/sites/${forestId}/siting-runs`)
       .send({ ...request1(), targetId: '00000000-0000-4000-8000-000000000000' })
-      .expect(422);
+      .expect(400);
     expect(noTarget.body.error.fields.targetId).toMatch(/No such target/);
 
     const budgetAlone = await planner
       .post(`/api/v1/sites/${forestId}/siting-runs`)
       .send({ ...request1(), budget: 100 })
-      .expect(422);
+      .expect(400);
     expect(budgetAlone.body.error.fields.budget).toMatch(/costs/);
 
     // Observers cannot start runs; another organisation's site is not found.

@@ -145,7 +145,7 @@ describe('GET /api/v1/sites/:siteId/visibility-index', () => {
     expect(outcomes.length).toBe(jobsBefore);
   });
 
-  it('refuses bad parameters with 422 naming the field', async () => {
+  it('refuses bad parameters with 400 naming the field', async () => {
     const siteId = await siteWithTerrain('Heat map refusals');
     const cases: [string, string][] = [
       ['heightM=-1&radiusM=2000', 'heightM'],
@@ -155,7 +155,7 @@ describe('GET /api/v1/sites/:siteId/visibility-index', () => {
       ['heightM=10', 'radiusM'],
     ];
     for (const [query, field] of cases) {
-      const res = await planner.get(`/api/v1/sites/${siteId}/visibility-index?${query}`).expect(422);
+      const res = await planner.get(`/api/v1/sites/${siteId}/visibility-index?${query}`).expect(400);
       expect(res.body.error.code).toBe('invalid_input');
       expect(Object.keys(res.body.error.fields)).toEqual([field]);
     }
