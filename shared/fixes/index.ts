@@ -19,3 +19,11 @@ export { trueBearingDeg } from './true-bearing';
 export { evaluateFix, FIX_CAUTIONS, GOOD_CUT_ANGLE_DEG, type ResolvedFixBearing } from './evaluate-fix';
 export { modelDeclination, MAGNETIC_MODEL, type ModelDeclination } from './declination';
 export { BEARING_INSTRUMENTS, type BearingInstrument } from './instruments';
+export { horizonDipRad, smoothEarthRangeM } from './depression-range';
+export { rayTerrainHit, type RayTerrainHit, type RayTerrainInput } from './ray-terrain-hit';
+export {
+  evaluateVerticalAngleFix,
+  VERTICAL_ANGLE_CAUTION,
+  type TerrainAlongBearing,
+  type VerticalAngleOptions,
+} from './vertical-angle-fix';
