@@ -59,6 +59,10 @@ export const IncidentReportInputSchema = z
     declinationDeg: bearing.declinationDeg,
     bearingSigmaDeg: bearing.bearingSigmaDeg,
     verticalAngleDeg: bearing.verticalAngleDeg,
+    /** Standard uncertainty of the vertical angle, degrees (default 0.1°). */
+    verticalAngleSigmaDeg: bearing.verticalAngleSigmaDeg,
+    /** The vertical angle is from the horizontal (default) or the visible sea horizon. */
+    verticalAngleReference: bearing.verticalAngleReference,
     kind: z.enum(SIGHTING_KINDS, { error: `What was seen: one of ${SIGHTING_KINDS.join(', ')}.` }),
     note: z.string().trim().max(1000, 'At most 1 000 characters.').default(''),
     /** Chosen by the sender (e.g. a UUID made on the phone); the same key again returns the stored report. */
@@ -92,6 +96,9 @@ export const IncidentReportSchema = z.object({
   trueBearingDeg: z.number(),
   bearingSigmaDeg: z.number(),
   verticalAngleDeg: z.number().nullable(),
+  /** Null when no vertical angle was given (and in reports stored before these fields existed). */
+  verticalAngleSigmaDeg: z.number().nullish(),
+  verticalAngleReference: bearing.verticalAngleReference.unwrap().nullish(),
   kind: z.enum(SIGHTING_KINDS),
   note: z.string(),
   idempotencyKey: z.string(),
@@ -100,7 +107,10 @@ export const IncidentReportSchema = z.object({
 });
 export type IncidentReport = z.infer<typeof IncidentReportSchema>;
 
-/** The incident's current fix: from the latest bearing of each post that reported. */
+/**
+ * The incident's current fix: from the latest bearing of each post that reported, or, while only one post has
+ * reported, from its latest bearing and vertical angle (`method: 'vertical-angle'`, with `range`).
+ */
 export const IncidentFixSchema = FixSchema.extend({
   /** The reports (log sequence numbers) the fix was made from, one per post. */
   fromReports: z.array(z.number().int()),

@@ -3,6 +3,7 @@ import type { Sequelize, Transaction } from 'sequelize';
 import { evaluateFix, FixError, modelDeclination, trueBearingDeg, type ResolvedFixBearing } from '@/shared/fixes';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { formatMgrs } from '@/shared/geo/mgrs';
+import { DEFAULT_VERTICAL_SIGMA_DEG } from '@/shared/schemas/fix';
 import type {
   Incident,
   IncidentCreate,
@@ -29,6 +30,7 @@ import type { IncidentModel } from '@/server/data/models';
 import type { Actor } from '@/server/domain/actor';
 import { AppError } from '@/server/domain/app-error';
 import { fixVisibility } from '@/server/domain/fixes/fix-visibility';
+import { verticalAngleFix } from '@/server/domain/fixes/vertical-angle-fix';
 import type { Mailer } from '@/server/domain/ports/mailer';
 import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
 import { fixReported } from '@/server/mail/templates';
@@ -100,6 +102,7 @@ function summarise(entries: readonly StoredEntry[]) {
       posts.size === 0
         ? 'No bearings yet. A fix needs bearings from at least two posts.'
         : 'Bearings from one post so far. A fix needs bearings from at least two posts.';
+    if (posts.size === 1) fixProblem += ' (Or a vertical angle to the smoke’s base with the bearing.)';
   }
   return { reports, fix, fixProblem };
 }
@@ -159,6 +162,67 @@ function fixFrom(
   } catch (error) {
     if (!(error instanceof FixError)) throw error;
     return { problem: `These bearings give no fix: ${error.message}`, fromReports: used.map((r) => r.seq) };
+  }
+}
+
+/**
+ * While one post only has reported: the fix from its latest bearing and
+ * vertical angle, if it gave one (over the site's terrain, else a smooth
+ * earth); null without a vertical angle.
+ */
+async function onePostFix(
+  deps: IncidentDeps,
+  actor: Actor,
+  siteId: string,
+  reports: readonly IncidentReport[],
+  posts: Map<string, { latDeg: number; lonDeg: number; eyeHeightM: number }>,
+  t: Transaction,
+): Promise<FixBody | null> {
+  const last = reports.at(-1);
+  if (!last || last.verticalAngleDeg === null || new Set(reports.map((r) => r.postId)).size !== 1) return null;
+  const p = posts.get(last.postId)!;
+  const bearing: ResolvedFixBearing = {
+    postId: last.postId,
+    bearingDeg: last.trueBearingDeg,
+    bearingReference: 'true',
+    bearingSigmaDeg: last.bearingSigmaDeg,
+    verticalAngleDeg: last.verticalAngleDeg,
+    ...(last.verticalAngleSigmaDeg != null && { verticalAngleSigmaDeg: last.verticalAngleSigmaDeg }),
+    ...(last.verticalAngleReference != null && { verticalAngleReference: last.verticalAngleReference }),
+    from: { latDeg: p.latDeg, lonDeg: p.lonDeg },
+    postName: last.postName,
+    eyeHeightM: p.eyeHeightM,
+  };
+  try {
+    const result = await verticalAngleFix(
+      deps.terrainCache,
+      actor.organizationId,
+      siteId,
+      last.observedAt,
+      bearing,
+      last.trueBearingDeg,
+      t,
+    );
+    return {
+      fix: {
+        ...result.fix,
+        fromReports: [last.seq],
+        lines: [
+          {
+            seq: last.seq,
+            postId: last.postId,
+            postName: last.postName,
+            distanceM: result.reports[0]!.distanceM,
+            residualDeg: 0,
+            flagged: false,
+          },
+        ],
+        computedAt: new Date().toISOString(),
+      },
+    };
+  } catch (error) {
+    if (!(error instanceof FixError)) throw error;
+    return { problem: error.message, fromReports: [last.seq] };
   }
 }
 
@@ -327,6 +391,9 @@ export async function addReport(
       trueBearingDeg: trueBearingDeg(input.bearingDeg, input.bearingReference, declinationDeg),
       bearingSigmaDeg: input.bearingSigmaDeg,
       verticalAngleDeg: input.verticalAngleDeg ?? null,
+      verticalAngleSigmaDeg:
+        input.verticalAngleDeg === undefined ? null : (input.verticalAngleSigmaDeg ?? DEFAULT_VERTICAL_SIGMA_DEG),
+      verticalAngleReference: input.verticalAngleDeg === undefined ? null : (input.verticalAngleReference ?? 'horizontal'),
       kind: input.kind,
       note: input.note,
       idempotencyKey: input.idempotencyKey,
@@ -346,7 +413,7 @@ export async function addReport(
         { ...p.location, eyeHeightM: p.structureHeightM + p.eyeHeightM },
       ]),
     );
-    const attempt = fixFrom(reports, posts);
+    const attempt = fixFrom(reports, posts) ?? (await onePostFix(deps, actor, incident.siteId, reports, posts, t));
     if (attempt && 'fix' in attempt && deps.terrainCache) {
       attempt.fix.visibility = await visibilityOf(deps.terrainCache, actor, incident.siteId, attempt.fix, posts, t);
     }
