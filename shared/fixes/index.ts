@@ -27,3 +27,4 @@ export {
   type TerrainAlongBearing,
   type VerticalAngleOptions,
 } from './vertical-angle-fix';
+export { landmarkOffsetFix, LANDMARK_BEARING_SIGMA_DEG, type LandmarkOffsetInput } from './landmark-offset-fix';

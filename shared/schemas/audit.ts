@@ -11,6 +11,7 @@ export const AUDIT_ENTITY_TYPES = [
   'assignment',
   'attachment',
   'site_terrain',
+  'landmark',
 ] as const;
 export type AuditEntityType = (typeof AUDIT_ENTITY_TYPES)[number];
 
@@ -23,6 +24,7 @@ export const AUDIT_ENTITY_LABELS: Record<AuditEntityType, string> = {
   assignment: 'watch',
   attachment: 'attachment',
   site_terrain: 'terrain',
+  landmark: 'landmark',
 };
 
 const isoTime = (what: string) =>

@@ -107,7 +107,7 @@ export const FixRequestSchema = z.strictObject({
 });
 export type FixRequest = z.infer<typeof FixRequestSchema>;
 
-export const FIX_METHODS = ['two-bearing-intersection', 'least-squares', 'vertical-angle'] as const;
+export const FIX_METHODS = ['two-bearing-intersection', 'least-squares', 'vertical-angle', 'landmark-offset'] as const;
 export type FixMethod = (typeof FIX_METHODS)[number];
 
 /** A GeoJSON polygon: one counter-clockwise ring of [longitude, latitude] degrees, closed. */
@@ -188,6 +188,17 @@ export const FixSchema = z.object({
   warnings: z.array(z.string()),
   /** One post with a vertical angle: the range along its bearing and its interval. */
   range: FixRangeSchema.optional(),
+  /** A position given from a named landmark ("1.2 km at 040° from Crag Hut"). */
+  fromLandmark: z
+    .object({
+      landmarkId: z.uuid(),
+      name: z.string(),
+      distanceM: z.number(),
+      bearingDeg: z.number(),
+      distanceSigmaM: z.number(),
+      bearingSigmaDeg: z.number(),
+    })
+    .optional(),
   /** Per reporting post, whether it can see the fix point (added by the server where it knows the posts' terrain). */
   visibility: z.array(FixVisibilitySchema).optional(),
 });

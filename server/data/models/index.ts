@@ -12,6 +12,7 @@ import { SiteTerrainModel } from './site-terrain';
 import { SweepWidthTableModel } from './sweep-width-table';
 import { CoverageLayerModel, CoverageRunModel } from './coverage-run';
 import { FieldCalibrationModel } from './field-calibration';
+import { LandmarkModel } from './landmark';
 import { TrainerCourseAssigneeModel, TrainerCourseAttemptModel, TrainerCourseModel } from './trainer-course';
 import { TrainerDrillModel } from './trainer-drill';
 import { UserModel } from './user';
@@ -36,6 +37,7 @@ export {
   SiteTerrainModel,
   SweepWidthTableModel,
   FieldCalibrationModel,
+  LandmarkModel,
   TrainerCourseAssigneeModel,
   TrainerCourseAttemptModel,
   TrainerCourseModel,
@@ -59,6 +61,7 @@ export function initModels(sequelize: Sequelize): void {
   AssignmentModel.register(sequelize);
   AttachmentModel.register(sequelize);
   FieldCalibrationModel.register(sequelize);
+  LandmarkModel.register(sequelize);
   TrainerDrillModel.register(sequelize);
   TrainerCourseModel.register(sequelize);
   TrainerCourseAssigneeModel.register(sequelize);

@@ -1,6 +1,13 @@
 // Over 300 lines: the incident use cases (open, update, report, fix, notify) share one transaction and hash chain.
 import type { Sequelize, Transaction } from 'sequelize';
-import { evaluateFix, FixError, modelDeclination, trueBearingDeg, type ResolvedFixBearing } from '@/shared/fixes';
+import {
+  evaluateFix,
+  FixError,
+  landmarkOffsetFix,
+  modelDeclination,
+  trueBearingDeg,
+  type ResolvedFixBearing,
+} from '@/shared/fixes';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { formatMgrs } from '@/shared/geo/mgrs';
 import { DEFAULT_VERTICAL_SIGMA_DEG } from '@/shared/schemas/fix';
@@ -18,6 +25,7 @@ import type {
 import { IncidentFixSchema, IncidentReportSchema } from '@/shared/schemas/incident';
 import { assignmentsRepository } from '@/server/data/repositories/assignments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
+import { landmarksRepository } from '@/server/data/repositories/landmarks-repository';
 import {
   incidentsRepository,
   type ChainedEntry,
@@ -163,6 +171,32 @@ function fixFrom(
     if (!(error instanceof FixError)) throw error;
     return { problem: `These bearings give no fix: ${error.message}`, fromReports: used.map((r) => r.seq) };
   }
+}
+
+/**
+ * When the newest report gives the position from a landmark, that places
+ * the fix (a stated position beats lines of bearing); a newer bearing
+ * without one goes back to the bearings.
+ */
+function landmarkFix(reports: readonly IncidentReport[]): FixBody | null {
+  const last = reports.at(-1);
+  const mark = last?.landmark;
+  if (!last || !mark) return null;
+  const fix = landmarkOffsetFix({
+    landmark: { id: mark.landmarkId, name: mark.name, latDeg: mark.latDeg, lonDeg: mark.lonDeg },
+    distanceM: mark.distanceM,
+    bearingDeg: mark.bearingDeg,
+    ...(mark.distanceSigmaM !== null && { distanceSigmaM: mark.distanceSigmaM }),
+    ...(mark.bearingSigmaDeg !== null && { bearingSigmaDeg: mark.bearingSigmaDeg }),
+  });
+  return {
+    fix: {
+      ...fix,
+      fromReports: [last.seq],
+      lines: [],
+      computedAt: new Date().toISOString(),
+    },
+  };
 }
 
 /**
@@ -372,6 +406,30 @@ export async function addReport(
     if (!post) {
       throw new AppError(404, 'not_found', 'That post is not one of this site’s posts.', { postId: 'Not a post of this site.' });
     }
+    let landmark: ReportBody['landmark'] = null;
+    if (input.landmarkOffset) {
+      const mark = await landmarksRepository.findInSite(
+        actor.organizationId,
+        incident.siteId,
+        input.landmarkOffset.landmarkId,
+        t,
+      );
+      if (!mark) {
+        throw new AppError(404, 'not_found', 'That landmark is not one of this site’s landmarks.', {
+          'landmarkOffset.landmarkId': 'Not a landmark of this site.',
+        });
+      }
+      landmark = {
+        landmarkId: mark.id,
+        name: mark.name,
+        latDeg: mark.latDeg,
+        lonDeg: mark.lonDeg,
+        distanceM: input.landmarkOffset.distanceM,
+        bearingDeg: input.landmarkOffset.bearingDeg,
+        distanceSigmaM: input.landmarkOffset.distanceSigmaM ?? null,
+        bearingSigmaDeg: input.landmarkOffset.bearingSigmaDeg ?? null,
+      };
+    }
     const when = new Date(input.observedAt);
     const source = input.bearingReference === 'true' ? 'none' : input.declinationDeg === undefined ? 'model' : 'typed';
     const declinationDeg =
@@ -394,6 +452,7 @@ export async function addReport(
       verticalAngleSigmaDeg:
         input.verticalAngleDeg === undefined ? null : (input.verticalAngleSigmaDeg ?? DEFAULT_VERTICAL_SIGMA_DEG),
       verticalAngleReference: input.verticalAngleDeg === undefined ? null : (input.verticalAngleReference ?? 'horizontal'),
+      landmark,
       kind: input.kind,
       note: input.note,
       idempotencyKey: input.idempotencyKey,
@@ -413,7 +472,8 @@ export async function addReport(
         { ...p.location, eyeHeightM: p.structureHeightM + p.eyeHeightM },
       ]),
     );
-    const attempt = fixFrom(reports, posts) ?? (await onePostFix(deps, actor, incident.siteId, reports, posts, t));
+    const attempt =
+      landmarkFix(reports) ?? fixFrom(reports, posts) ?? (await onePostFix(deps, actor, incident.siteId, reports, posts, t));
     if (attempt && 'fix' in attempt && deps.terrainCache) {
       attempt.fix.visibility = await visibilityOf(deps.terrainCache, actor, incident.siteId, attempt.fix, posts, t);
     }
