@@ -37,6 +37,7 @@ import { reportRoutes } from './routes/reports';
 import { rosterRoutes } from './routes/roster';
 import { sightlineRoutes } from './routes/sightline';
 import { siteRoutes } from './routes/sites';
+import { landmarkRoutes } from './routes/landmarks';
 import { sweepWidthRoutes } from './routes/sweep-width';
 import { terrainRoutes } from './routes/terrain';
 import { createTerrainCache, type TerrainCache } from './terrain/terrain-cache';
@@ -142,6 +143,7 @@ export function createApp({
   const cache = terrainCache ?? createTerrainCache({ files, maxBytes: config.TERRAIN_CACHE_MB * 2 ** 20 });
   v1.use(sightlineRoutes());
   v1.use(siteRoutes(db));
+  v1.use(landmarkRoutes(db));
   v1.use(
     terrainRoutes(
       {

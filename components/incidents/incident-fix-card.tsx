@@ -78,10 +78,31 @@ export function IncidentFixCard({
         <AppText variant="small" tone="muted">
           {fix.method === 'two-bearing-intersection'
             ? 'Two bearings crossed'
-            : `Least squares over ${fix.fromReports.length} bearings`}
+            : fix.method === 'vertical-angle'
+              ? 'One bearing and its vertical angle'
+              : `Least squares over ${fix.fromReports.length} bearings`}
           . {fix.errorAreaMethod}
         </AppText>
       </View>
+      {fix.range ? (
+        <View style={{ gap: 2 }} aria-label="Range from the vertical angle">
+          <AppText variant="label">
+            {fix.range.basis === 'terrain' ? 'Where the sight line meets the terrain' : 'No terrain: smooth-earth estimate'}
+          </AppText>
+          <AppText selectable>
+            Range {formatLength(fix.range.distanceM, distance)} · between {formatLength(fix.range.minM, distance)} and{' '}
+            {fix.range.maxM === null ? 'open-ended (no ground)' : formatLength(fix.range.maxM, distance)} for the angle ±{' '}
+            {fix.range.verticalAngleSigmaDeg}°
+          </AppText>
+          <AppText variant="small" tone="muted">
+            {fix.range.angleFromHorizontalDeg.toFixed(2)}° from the horizontal
+            {fix.range.verticalAngleReference === 'horizon' ? ' (the sea-horizon reading plus the dip)' : ''} · refraction k{' '}
+            {fix.range.refractionK} · eye {formatLength(fix.range.eyeAltitudeM, height)}{' '}
+            {fix.range.basis === 'terrain' ? 'above the datum' : 'above the ground'}. Estimates only: refraction near the horizon
+            varies widely.
+          </AppText>
+        </View>
+      ) : null}
       {fix.warnings.length > 0 ? (
         <Notice tone="caution" title="Warnings">
           {fix.warnings.map((w) => (

@@ -10,6 +10,7 @@ import {
   type IncidentReportInput,
   type SightingKind,
 } from '@/shared/schemas/incident';
+import { DEFAULT_VERTICAL_SIGMA_DEG, type VerticalAngleReference } from '@/shared/schemas/fix';
 import type { Post } from '@/shared/schemas/site';
 import { NetworkError } from '@/components/data/api-client';
 import { incidentKeys, useReportBearing } from '@/components/data/incidents';
@@ -34,6 +35,8 @@ interface ReportForm {
   instrument: string;
   bearingSigmaDeg: string;
   verticalAngleDeg: string;
+  verticalAngleSigmaDeg: string;
+  verticalAngleReference: VerticalAngleReference;
   kind: SightingKind;
   note: string;
 }
@@ -47,6 +50,8 @@ const FIELDS = [
   'declinationDeg',
   'bearingSigmaDeg',
   'verticalAngleDeg',
+  'verticalAngleSigmaDeg',
+  'verticalAngleReference',
   'kind',
   'note',
 ] as const satisfies readonly (keyof ReportForm)[];
@@ -76,6 +81,10 @@ const reportResolver: Resolver<ReportForm, unknown, ReportFields> = (values) => 
     declinationDeg: values.bearingReference === 'magnetic' ? numberOrAbsent(values.declinationDeg) : undefined,
     bearingSigmaDeg: numberOrAbsent(values.bearingSigmaDeg),
     verticalAngleDeg: numberOrAbsent(values.verticalAngleDeg),
+    ...(numberOrAbsent(values.verticalAngleDeg) !== undefined && {
+      verticalAngleSigmaDeg: numberOrAbsent(values.verticalAngleSigmaDeg),
+      verticalAngleReference: values.verticalAngleReference,
+    }),
     kind: values.kind,
     note: values.note,
   };
@@ -143,6 +152,8 @@ export function ReportBearingForm({
       instrument: BEARING_INSTRUMENTS[0].key,
       bearingSigmaDeg: String(BEARING_INSTRUMENTS[0].sigmaDeg),
       verticalAngleDeg: '',
+      verticalAngleSigmaDeg: String(DEFAULT_VERTICAL_SIGMA_DEG),
+      verticalAngleReference: 'horizontal',
       kind: 'smoke',
       note: '',
     },
@@ -155,6 +166,7 @@ export function ReportBearingForm({
   const postId = watch('postId');
   const reference = watch('bearingReference');
   const instrument = watch('instrument');
+  const verticalTyped = watch('verticalAngleDeg').trim() !== '';
   const post = posts.find((p) => p.id === postId);
   // The declination the server will use for a magnetic bearing with none typed: the same model, at the post, now.
   const model = useMemo(() => (post ? modelDeclination(post.location.latDeg, post.location.lonDeg, new Date()) : null), [post]);
@@ -295,9 +307,42 @@ export function ReportBearingForm({
         label="Vertical angle (optional)"
         unit="°"
         inputMode="decimal"
-        hint="Below the horizontal is negative, e.g. −1.5 for the foot of a smoke below the tower."
+        hint="Below the horizontal is negative, e.g. −1.5 to the base of a smoke below the tower. While only one post reports, the smoke is placed where this sight line meets the ground."
         onSubmitEditing={() => void onSubmit()}
       />
+      {verticalTyped ? (
+        <View style={{ gap: space.sm }}>
+          <Controller
+            control={control}
+            name="verticalAngleReference"
+            render={({ field }) => (
+              <ChipRow label="Vertical angle measured from">
+                <Chip
+                  label="The horizontal (level)"
+                  on={field.value === 'horizontal'}
+                  onPress={() => field.onChange('horizontal')}
+                />
+                <Chip label="The sea horizon" on={field.value === 'horizon'} onPress={() => field.onChange('horizon')} />
+              </ChipRow>
+            )}
+          />
+          <FormTextField
+            control={control}
+            name="verticalAngleSigmaDeg"
+            label="Uncertainty of the vertical angle"
+            unit="°"
+            inputMode="decimal"
+            hint="One standard deviation: 0.1° for a level clinometer read to a tenth; 0.25–0.5° for a hand clinometer."
+            onSubmitEditing={() => void onSubmit()}
+          />
+          <Notice tone="caution" title="A range from one angle is an estimate">
+            <AppText variant="small">
+              Refraction near the horizon varies widely, and a tenth of a degree can move a point seen just below it by
+              kilometres. Read the angle to the base of the smoke, and confirm with a bearing from a second post.
+            </AppText>
+          </Notice>
+        </View>
+      ) : null}
       <Controller
         control={control}
         name="kind"

@@ -58,7 +58,9 @@ export function incidentShapes(
     for (const r of latest.values()) {
       const from = postAt.get(r.postId);
       if (!from) continue;
-      const lengthM = fix ? Math.max(1000, geodesicInverse(from, fix).distanceM * PAST_FIX) : LONE_BEARING_M;
+      let lengthM = fix ? Math.max(1000, geodesicInverse(from, fix).distanceM * PAST_FIX) : LONE_BEARING_M;
+      // A one-post fix from a vertical angle: the line reaches past the far end of its range interval.
+      if (fix?.range) lengthM = Math.max(lengthM, (fix.range.maxM ?? fix.range.distanceM * 1.5) * 1.05);
       const az = r.trueBearingDeg * toRad;
       const points: GridPoint[] = [];
       for (let i = 0; i <= STEPS; i++) {

@@ -23,6 +23,7 @@ import { useCoordinateFormat } from './coordinate-format';
 import { useDecodedRaster, type MapCoverageLayer } from './map-coverage-layer';
 import { blindAreaOutline } from './blind-area-outline';
 import { IncidentMapPanel, IncidentOverlay, useIncidentShapes, useMapIncidents } from './incident-overlay';
+import { LandmarkOverlay, useLandmarkPoints } from './landmark-overlay';
 import type { MapTarget } from './map-features';
 import { MapLegend } from './map-legend';
 import { MapViewport, type MapHandles, type ShownLayer } from './map-viewport';
@@ -180,6 +181,7 @@ function MapWorkspace({
     );
   }, [postsLayer, postsValues, frame, focusAt]);
   const incidentShapes = useIncidentShapes(frame, incidents);
+  const landmarkPoints = useLandmarkPoints(frame, site.id);
   const chosen = posts.find((p) => p.id === chosenPostId) ?? null;
   const last = targets.at(-1) ?? null;
   const lastLatLon = last && frame ? { ...frame.projection.toLatLon(last.x, last.y), label: `P${last.id}` } : null;
@@ -332,7 +334,12 @@ function MapWorkspace({
         handles={handles}
         label={handles ? 'Map: drag a post’s pin to move it, drag elsewhere to pan, tap a point for its profile' : undefined}
         keepInView={!wide && sheetOpen ? last : null}
-        overlay={(view) => <IncidentOverlay shapes={incidentShapes} {...view} />}
+        overlay={(view) => (
+          <>
+            <LandmarkOverlay points={landmarkPoints} {...view} />
+            <IncidentOverlay shapes={incidentShapes} {...view} />
+          </>
+        )}
       />
     ) : (
       <Map3d

@@ -13,6 +13,7 @@ import { space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { PostForm } from './post-form';
 import { SitePlans } from './site-plans';
+import { SiteLandmarks } from './site-landmarks';
 import { SitePosts } from './site-posts';
 import { SiteRoster } from './site-roster';
 import { SiteSketch } from './site-sketch';
@@ -81,6 +82,7 @@ export function SiteOverview({ siteId }: { siteId: string }) {
           <SiteRoster siteId={siteId} timeZone={s.timeZone} />
           <AppText variant="heading">Posts</AppText>
           <SitePosts siteId={siteId} />
+          <SiteLandmarks siteId={siteId} canWrite={user?.role === 'planner'} />
         </View>
         {user?.role === 'planner' ? (
           <View style={{ flex: wide ? 2 : undefined, width: wide ? undefined : '100%' }}>

@@ -66,6 +66,8 @@ export function showAnswer(value: number | boolean, unit: string): string {
 /** Words for the side view's numbers. */
 const SIDE_VIEW_LABELS: Record<string, string> = {
   eyeHeightM: 'Height of eye',
+  landmarkName: 'Landmark',
+  landmarkHeightM: 'Landmark height',
   k: 'Refraction coefficient k',
   otherK: 'Other k',
   effectiveRadiusM: 'Effective earth radius',

@@ -27,6 +27,7 @@ import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
 import { createViewshedPool } from '@/server/workers/viewshed-pool';
 import { seedSweepWidthExamples } from './sweep-width-examples';
 import { seedDemoTraining } from './trainer-demo';
+import { seedDemoLandmarks } from './landmarks-demo';
 
 /** The demo terrain (invented, see assets/terrain/README.md), attached to the forest district. */
 export const DEMO_TERRAIN_FILE = path.join(__dirname, '..', '..', 'assets', 'terrain', 'demo-forest-district.tif');
@@ -593,7 +594,8 @@ export async function seedDemo(db: Sequelize, options: { files?: FileStore } = {
   const plans = await seedDemoPlans(db, options.files);
   const watches = await seedDemoWatches(db);
   const training = await seedDemoTraining(db, DEMO_ORGANIZATIONS[0].slug);
-  return accounts || sites || libraries || sweepWidthTables || plans || watches || terrain || training;
+  const landmarks = await seedDemoLandmarks(db);
+  return accounts || sites || libraries || sweepWidthTables || plans || watches || terrain || training || landmarks;
 }
 
 async function seedDemoAccounts(db: Sequelize): Promise<boolean> {

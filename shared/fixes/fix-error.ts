@@ -8,7 +8,8 @@ export type FixErrorCode =
   | 'too-far'
   | 'at-post'
   | 'no-convergence'
-  | 'error-area-unbounded';
+  | 'error-area-unbounded'
+  | 'no-ground';
 
 /**
  * Thrown by the bearing-fix core on bearings it cannot fix. `code` is stable;

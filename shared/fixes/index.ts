@@ -19,3 +19,12 @@ export { trueBearingDeg } from './true-bearing';
 export { evaluateFix, FIX_CAUTIONS, GOOD_CUT_ANGLE_DEG, type ResolvedFixBearing } from './evaluate-fix';
 export { modelDeclination, MAGNETIC_MODEL, type ModelDeclination } from './declination';
 export { BEARING_INSTRUMENTS, type BearingInstrument } from './instruments';
+export { horizonDipRad, smoothEarthRangeM } from './depression-range';
+export { rayTerrainHit, type RayTerrainHit, type RayTerrainInput } from './ray-terrain-hit';
+export {
+  evaluateVerticalAngleFix,
+  VERTICAL_ANGLE_CAUTION,
+  type TerrainAlongBearing,
+  type VerticalAngleOptions,
+} from './vertical-angle-fix';
+export { landmarkOffsetFix, LANDMARK_BEARING_SIGMA_DEG, type LandmarkOffsetInput } from './landmark-offset-fix';

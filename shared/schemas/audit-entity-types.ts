@@ -8,6 +8,7 @@ export const AUDIT_ENTITY_TYPES = [
   'assignment',
   'attachment',
   'site_terrain',
+  'landmark',
 ] as const;
 export type AuditEntityType = (typeof AUDIT_ENTITY_TYPES)[number];
 

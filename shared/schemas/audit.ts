@@ -13,6 +13,7 @@ export const AUDIT_ENTITY_LABELS: Record<AuditEntityType, string> = {
   assignment: 'watch',
   attachment: 'attachment',
   site_terrain: 'terrain',
+  landmark: 'landmark',
 };
 
 const isoTime = (what: string) =>

@@ -7,7 +7,7 @@ import { UNIT_SYSTEM_IDS } from './site';
  * stated tolerance bands and explained with the numbers.
  */
 
-/** Every kind the API names; `landmark-range` is answered 422 until it can be done properly. */
+/** Every kind the API names; `landmark-range` needs a post whose site has landmarks (else 422). */
 export const DRILL_KINDS = [
   'horizon-distance',
   'hidden-height',
@@ -27,6 +27,7 @@ export const AVAILABLE_DRILL_KINDS = [
   'detection-range',
   'refraction-effect',
   'bearing-fix',
+  'landmark-range',
 ] as const satisfies readonly DrillKind[];
 
 /** Largest seed: seeds are whole numbers 0 … 2³¹ − 1 (a PostgreSQL integer). */

@@ -21,6 +21,17 @@ const degrees = (what: string, min: number, max: number) =>
     .min(min, `${what} must be at least ${min}°.`)
     .max(max, `${what} must be at most ${max}°.`);
 
+export const VERTICAL_ANGLE_REFERENCES = ['horizontal', 'horizon'] as const;
+export type VerticalAngleReference = (typeof VERTICAL_ANGLE_REFERENCES)[number];
+
+/**
+ * Default standard uncertainty of a vertical angle, degrees: 0.1° (6′), a level clinometer or an alidade's
+ * vertical scale read to the nearest tenth of a degree; a hand-held clinometer is nearer 0.25–0.5°
+ * (common practice, from memory). It matters: 0.1° moves a point seen 0.5° below the horizontal by about a fifth
+ * of its range.
+ */
+export const DEFAULT_VERTICAL_SIGMA_DEG = 0.1;
+
 /** A position a bearing was taken from when it is not one of the organisation's posts. */
 export const FixObserverSchema = z.strictObject({
   latDeg: LatLonSchema.shape.latDeg,
@@ -51,8 +62,22 @@ export const FixBearingSchema = z
       .number({ error: 'The bearing uncertainty must be a number of degrees.' })
       .positive('The bearing uncertainty must be more than 0°.')
       .max(20, 'The bearing uncertainty must be at most 20°.'),
-    /** Angle of the sighting below (−) or above (+) the horizontal, degrees (kept with the report; not used by the fix yet). */
+    /**
+     * Angle of the sighting below (−) or above (+) the horizontal (or, with `verticalAngleReference: 'horizon'`,
+     * the visible sea horizon), degrees. One bearing with a vertical angle gives a fix on its own (the ray meets the
+     * terrain, or a smooth earth); with bearings from two or more posts it is kept but the bearings place the fix.
+     */
     verticalAngleDeg: degrees('The vertical angle', -90, 90).optional(),
+    /** Standard uncertainty of the vertical angle, degrees (default {@link DEFAULT_VERTICAL_SIGMA_DEG}). */
+    verticalAngleSigmaDeg: z
+      .number({ error: 'The vertical angle’s uncertainty must be a number of degrees.' })
+      .positive('The vertical angle’s uncertainty must be more than 0°.')
+      .max(10, 'The vertical angle’s uncertainty must be at most 10°.')
+      .optional(),
+    /** What the vertical angle is measured from: the true horizontal (level, clinometer) or the visible sea horizon. */
+    verticalAngleReference: z
+      .enum(VERTICAL_ANGLE_REFERENCES, { error: 'The vertical angle is measured from the horizontal or the horizon.' })
+      .optional(),
   })
   .superRefine((b, ctx) => {
     if (b.postId === undefined && b.observer === undefined) {
@@ -74,12 +99,15 @@ export const FixRequestSchema = z.strictObject({
   observedAt: z.iso.datetime({ offset: true, error: 'The time must be a date and time (ISO 8601).' }),
   bearings: z
     .array(FixBearingSchema, { error: 'Bearings must be a list.' })
-    .min(2, 'A fix needs at least two bearings.')
-    .max(MAX_FIX_BEARINGS, `At most ${MAX_FIX_BEARINGS} bearings per fix.`),
+    .min(1, 'A fix needs at least two bearings, or one with a vertical angle.')
+    .max(MAX_FIX_BEARINGS, `At most ${MAX_FIX_BEARINGS} bearings per fix.`)
+    .refine((list) => list.length >= 2 || list[0]?.verticalAngleDeg !== undefined, {
+      message: 'A fix needs at least two bearings, or one with a vertical angle.',
+    }),
 });
 export type FixRequest = z.infer<typeof FixRequestSchema>;
 
-export const FIX_METHODS = ['two-bearing-intersection', 'least-squares'] as const;
+export const FIX_METHODS = ['two-bearing-intersection', 'least-squares', 'vertical-angle', 'landmark-offset'] as const;
 export type FixMethod = (typeof FIX_METHODS)[number];
 
 /** A GeoJSON polygon: one counter-clockwise ring of [longitude, latitude] degrees, closed. */
@@ -115,6 +143,31 @@ export const FixVisibilitySchema = z.object({
 });
 export type FixVisibility = z.infer<typeof FixVisibilitySchema>;
 
+export const FIX_RANGE_BASES = ['terrain', 'smooth-earth'] as const;
+
+/** A one-post fix from a vertical angle: how far along the bearing, and the interval the angle's uncertainty allows. */
+export const FixRangeSchema = z.object({
+  /** Where the ray meets the ground: the terrain, or a smooth earth at the post's foot (no terrain). */
+  basis: z.enum(FIX_RANGE_BASES),
+  /** Ground distance from the post to the fix, metres. */
+  distanceM: z.number(),
+  /** Nearest distance the angle − its uncertainty gives, metres. */
+  minM: z.number(),
+  /** Farthest distance the angle + its uncertainty gives, metres; null when that ray meets no ground (open-ended). */
+  maxM: z.number().nullable(),
+  /** The angle used, below (−) or above (+) the horizontal, degrees (a horizon reading has the dip added). */
+  angleFromHorizontalDeg: z.number(),
+  verticalAngleSigmaDeg: z.number(),
+  verticalAngleReference: z.enum(VERTICAL_ANGLE_REFERENCES),
+  /** The refraction coefficient of the ray. */
+  refractionK: z.number(),
+  /** Eye above the datum the ray starts from, metres (ground + structure + eye with terrain; eye height above a smooth earth). */
+  eyeAltitudeM: z.number(),
+  /** In words, e.g. "no terrain: smooth-earth estimate". */
+  message: z.string(),
+});
+export type FixRange = z.infer<typeof FixRangeSchema>;
+
 /** The fix itself. */
 export const FixSchema = z.object({
   latDeg: z.number(),
@@ -133,6 +186,19 @@ export const FixSchema = z.object({
   errorEllipse: z.object({ semiMajorM: z.number(), semiMinorM: z.number(), majorAxisDeg: z.number() }).optional(),
   method: z.enum(FIX_METHODS),
   warnings: z.array(z.string()),
+  /** One post with a vertical angle: the range along its bearing and its interval. */
+  range: FixRangeSchema.optional(),
+  /** A position given from a named landmark ("1.2 km at 040° from Crag Hut"). */
+  fromLandmark: z
+    .object({
+      landmarkId: z.uuid(),
+      name: z.string(),
+      distanceM: z.number(),
+      bearingDeg: z.number(),
+      distanceSigmaM: z.number(),
+      bearingSigmaDeg: z.number(),
+    })
+    .optional(),
   /** Per reporting post, whether it can see the fix point (added by the server where it knows the posts' terrain). */
   visibility: z.array(FixVisibilitySchema).optional(),
 });
@@ -169,7 +235,7 @@ export const FixReportSchema = z.object({
 });
 export type FixReport = z.infer<typeof FixReportSchema>;
 
-export const FIX_CAUTION_CODES = ['estimates-only', 'bearing-error', 'follow-procedures'] as const;
+export const FIX_CAUTION_CODES = ['estimates-only', 'bearing-error', 'follow-procedures', 'vertical-angle'] as const;
 /** A standing caution shown with every fix. */
 export const FixCautionSchema = z.object({ code: z.enum(FIX_CAUTION_CODES), message: z.string() });
 export type FixCaution = z.infer<typeof FixCautionSchema>;

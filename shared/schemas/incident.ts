@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { FixBearingSchema, FixSchema, GeoJsonPolygonSchema } from './fix';
+import { LandmarkOffsetSchema } from './landmark';
 import { SeenVersionSchema } from './seen-version';
 
 /*
@@ -59,6 +60,12 @@ export const IncidentReportInputSchema = z
     declinationDeg: bearing.declinationDeg,
     bearingSigmaDeg: bearing.bearingSigmaDeg,
     verticalAngleDeg: bearing.verticalAngleDeg,
+    /** Standard uncertainty of the vertical angle, degrees (default 0.1°). */
+    verticalAngleSigmaDeg: bearing.verticalAngleSigmaDeg,
+    /** The vertical angle is from the horizontal (default) or the visible sea horizon. */
+    verticalAngleReference: bearing.verticalAngleReference,
+    /** The position given from a named landmark of the site ("1.2 km at 040° from Crag Hut"); it places the fix. */
+    landmarkOffset: LandmarkOffsetSchema.optional(),
     kind: z.enum(SIGHTING_KINDS, { error: `What was seen: one of ${SIGHTING_KINDS.join(', ')}.` }),
     note: z.string().trim().max(1000, 'At most 1 000 characters.').default(''),
     /** Chosen by the sender (e.g. a UUID made on the phone); the same key again returns the stored report. */
@@ -92,6 +99,22 @@ export const IncidentReportSchema = z.object({
   trueBearingDeg: z.number(),
   bearingSigmaDeg: z.number(),
   verticalAngleDeg: z.number().nullable(),
+  /** Null when no vertical angle was given (and in reports stored before these fields existed). */
+  verticalAngleSigmaDeg: z.number().nullish(),
+  verticalAngleReference: bearing.verticalAngleReference.unwrap().nullish(),
+  /** The position given from a landmark, as stored (the landmark's name and place at the time). */
+  landmark: z
+    .object({
+      landmarkId: z.uuid(),
+      name: z.string(),
+      latDeg: z.number(),
+      lonDeg: z.number(),
+      distanceM: z.number(),
+      bearingDeg: z.number(),
+      distanceSigmaM: z.number().nullable(),
+      bearingSigmaDeg: z.number().nullable(),
+    })
+    .nullish(),
   kind: z.enum(SIGHTING_KINDS),
   note: z.string(),
   idempotencyKey: z.string(),
@@ -100,7 +123,10 @@ export const IncidentReportSchema = z.object({
 });
 export type IncidentReport = z.infer<typeof IncidentReportSchema>;
 
-/** The incident's current fix: from the latest bearing of each post that reported. */
+/**
+ * The incident's current fix: from the latest bearing of each post that reported, or, while only one post has
+ * reported, from its latest bearing and vertical angle (`method: 'vertical-angle'`, with `range`).
+ */
 export const IncidentFixSchema = FixSchema.extend({
   /** The reports (log sequence numbers) the fix was made from, one per post. */
   fromReports: z.array(z.number().int()),

@@ -55,6 +55,8 @@ export interface DrillSetup {
     /** Eye above the post's ground (structure + eye), metres. */
     readonly eyeAboveGroundM: number;
   } | null;
+  /** The post's site's landmarks (named reference marks), in a stable order (by name): landmark-range questions. */
+  readonly landmarks?: readonly { readonly name: string; readonly location: LatLon; readonly heightM: number | null }[];
   /** The organisation's targets, in a stable order (by name). */
   readonly targets: readonly Pick<
     Target,
@@ -561,6 +563,77 @@ function bearingFixDrill(setup: DrillSetup, random: SeededRandom, units: DrillUn
   throw new DrillUnavailableError('These two posts give no usable cut for a smoke within 30 km; set the drill on another post.');
 }
 
+/** Landmarks farther than this from the post are not asked about, metres. */
+const LANDMARK_MAX_M = 60_000;
+
+/**
+ * Range to a named landmark of the post's site: the geodesic distance on the
+ * WGS84 ellipsoid (Karney's inverse problem), with the true bearing given as
+ * the lookout would read it off the sighting ring. The seed picks the
+ * landmark. The explanation gives the distance, the bearing and the cue a
+ * lookout uses on the ground (the angle a landmark of known height fills).
+ */
+function landmarkRangeDrill(setup: DrillSetup, random: SeededRandom, units: DrillUnits): GeneratedDrill {
+  const post = setup.post;
+  if (!post?.location) {
+    throw new DrillUnavailableError('A landmark-range drill is set on a post: choose one of your posts.');
+  }
+  const from = post.location;
+  const near = (setup.landmarks ?? [])
+    .map((m) => ({ ...m, leg: geodesicInverse(from, m.location) }))
+    .filter((m) => m.leg.distanceM > 50 && m.leg.distanceM <= LANDMARK_MAX_M);
+  if (near.length === 0) {
+    throw new DrillUnavailableError(
+      `${post.name}'s site has no landmark within ${LANDMARK_MAX_M / 1000} km: add landmarks (name and position) to the site first.`,
+    );
+  }
+  const mark = random.pick(near);
+  const unit = distanceUnit(units);
+  const bearingDeg = Math.round(mark.leg.azimuthDeg) % 360;
+  const pad = (deg: number) => String(deg).padStart(3, '0');
+  const subtendDeg = mark.heightM ? convertAngle(Math.atan(mark.heightM / mark.leg.distanceM), 'rad', 'deg') : null;
+  return {
+    question: {
+      text:
+        `From ${post.name}, ${mark.name} lies at ${pad(bearingDeg)}° true. How far away is it? Answer in ${UNIT_WORDS[unit]}.` +
+        (mark.heightM ? ` (${mark.name} stands ${num(mark.heightM)} m high.)` : ''),
+      inputs: {
+        eyeHeightM: post.eyeHeightM,
+        k: STANDARD_OPTICAL_K,
+        landmarkName: mark.name,
+        bearingDeg,
+        landmarkHeightM: mark.heightM,
+      },
+      unit,
+    },
+    solution: {
+      correctValue: convertLength(mark.leg.distanceM, 'm', unit),
+      explanation: {
+        text:
+          `${mark.name} is ${say(mark.leg.distanceM, unit)} from ${post.name} at ${num(mark.leg.azimuthDeg, 4)}° true. ` +
+          'Ranges judged by eye are usually short over open ground and long into haze or against the light; ' +
+          'known landmarks at known ranges are the lookout’s yardstick for everything else seen in that direction.' +
+          (subtendDeg === null
+            ? ''
+            : ` A mark ${num(mark.heightM!)} m high fills ${num(subtendDeg * 60)}′ of arc at that range (height / range in radians).`),
+        formula:
+          `geodesic distance on the WGS84 ellipsoid between the post (${num(from.latDeg, 7)}°, ${num(from.lonDeg, 7)}°) ` +
+          `and the landmark (${num(mark.location.latDeg, 7)}°, ${num(mark.location.lonDeg, 7)}°), Karney's inverse problem: ${say(mark.leg.distanceM, unit, 4)}`,
+        sideView: {
+          eyeHeightM: post.eyeHeightM,
+          k: STANDARD_OPTICAL_K,
+          distanceM: mark.leg.distanceM,
+          bearingDeg: mark.leg.azimuthDeg,
+          landmarkName: mark.name,
+          landmarkHeightM: mark.heightM,
+        },
+        scoring: drillScoring(unit),
+        cautions: cautions(),
+      },
+    },
+  };
+}
+
 /**
  * One drill question of a kind, generated from a seed on a setup (a post of
  * the organisation, or open water) with the organisation's targets and
@@ -575,8 +648,8 @@ function bearingFixDrill(setup: DrillSetup, random: SeededRandom, units: DrillUn
  * @param setup - the post (height of eye above its targets' ground) or null, and the libraries
  * @param units - metric (km, m), nautical (nmi, m) or imperial (mi, ft)
  * @returns the question and its solution (correct value in the question's unit, explanation)
- * @throws {DrillUnavailableError} for `landmark-range` (not available yet), a
- *   bearing-fix drill without a second post on the site, and a detection
+ * @throws {DrillUnavailableError} for `landmark-range` without a post or without a landmark on its site
+ *   within 60 km, a bearing-fix drill without a second post on the site, and a detection
  *   drill without the library it needs
  *
  * Source: see the sightline functions it calls.
@@ -598,9 +671,7 @@ export function generateDrill(kind: DrillKind, seed: number, setup: DrillSetup, 
     case 'refraction-effect':
       return refractionEffectDrill(setup, random, units);
     case 'landmark-range':
-      throw new DrillUnavailableError(
-        'Landmark-range drills are not available yet for this post: they need reference marks with known positions, which Kenning does not keep yet.',
-      );
+      return landmarkRangeDrill(setup, random, units);
     case 'bearing-fix':
       return bearingFixDrill(setup, random, units);
   }

@@ -57,7 +57,7 @@ describe('courses', () => {
     const other = await signedInAgent(app, DEMO.otherPlanner);
     const bad = await planner.post('/api/v1/courses').send({
       ...course(postId, [await idOf(other)]),
-      kinds: ['landmark-range'],
+      kinds: ['crystal-ball'],
       questionCount: 0,
       passMarkPct: 120,
     });

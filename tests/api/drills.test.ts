@@ -1,6 +1,7 @@
 import type { Express } from 'express';
 import type { Agent } from 'supertest';
-import { AuditEventModel, TrainerDrillModel } from '@/server/data/models';
+import { Geodesic } from 'geographiclib-geodesic';
+import { AuditEventModel, PostModel, TrainerDrillModel } from '@/server/data/models';
 import { DrillResultSchema, DrillSchema } from '@/shared/schemas/drill';
 import { smoothEarthGround } from '@/shared/plans/smooth-earth-ground';
 import { horizonDistance } from '@/shared/sightline';
@@ -75,16 +76,40 @@ describe('POST /api/v1/drills', () => {
     expect(foreign.body.error.fields).toHaveProperty('postId');
   });
 
+  it('landmark-range on a demo tower asks the range to a demo landmark, scored against the geodesic distance', async () => {
+    const observer = await signedInAgent(app, DEMO.observer);
+    const post = (await PostModel.findOne({ where: { name: 'Crane Knoll Tower' } }))!;
+    const res = await observer.post('/api/v1/drills').send({ kind: 'landmark-range', postId: post.id, seed: 4 }).expect(201);
+    const drill = DrillSchema.parse(res.body.drill);
+    const siteMarks = (await observer.get(`/api/v1/sites/${post.siteId}/landmarks`).expect(200)).body.items as {
+      name: string;
+      latDeg: number;
+      lonDeg: number;
+    }[];
+    const mark = siteMarks.find((m) => m.name === drill.question.inputs.landmarkName)!;
+    const [lonDeg, latDeg] = post.location.coordinates;
+    // Source: Karney (2013) inverse problem (geographiclib-geodesic), independently here.
+    const s12 = Geodesic.WGS84.Inverse(latDeg, lonDeg, mark.latDeg, mark.lonDeg).s12!;
+    const answered = await observer
+      .post(`/api/v1/drills/${drill.id}/answer`)
+      .send({ value: s12 / 1000 })
+      .expect(200);
+    expect(answered.body.score).toBe(1);
+    expect(answered.body.correctValue).toBeCloseTo(s12 / 1000, 6);
+    const again = await observer.post('/api/v1/drills').send({ kind: 'landmark-range', postId: post.id, seed: 4 }).expect(201);
+    expect(again.body.drill.question.text).toBe(drill.question.text);
+  });
+
   it.each([
     ['landmark-range', {}],
     ['bearing-fix', {}],
-  ])('%s is not available here: 422 with the reason', async (kind, extra) => {
+  ])('%s without a post is not available here: 422 with the reason', async (kind, extra) => {
     const observer = await signedInAgent(app, DEMO.observer);
     const res = await observer.post('/api/v1/drills').send({ kind, ...extra });
     expect(res.status).toBe(422);
     expect(res.body.error).toMatchObject({
       code: 'drill_unavailable',
-      fields: { kind: expect.stringMatching(/not available yet for this post/) },
+      fields: { kind: expect.stringMatching(/post/) },
     });
   });
 

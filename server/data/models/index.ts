@@ -13,6 +13,7 @@ import { SweepWidthTableModel } from './sweep-width-table';
 import { CoverageLayerModel, CoverageRunModel } from './coverage-run';
 import { SitingRunModel } from './siting-run';
 import { FieldCalibrationModel } from './field-calibration';
+import { LandmarkModel } from './landmark';
 import { TrainerCourseAssigneeModel, TrainerCourseAttemptModel, TrainerCourseModel } from './trainer-course';
 import { TrainerDrillModel } from './trainer-drill';
 import { UserModel } from './user';
@@ -39,6 +40,7 @@ export {
   SitingRunModel,
   SweepWidthTableModel,
   FieldCalibrationModel,
+  LandmarkModel,
   TrainerCourseAssigneeModel,
   TrainerCourseAttemptModel,
   TrainerCourseModel,
@@ -63,6 +65,7 @@ export function initModels(sequelize: Sequelize): void {
   AssignmentModel.register(sequelize);
   AttachmentModel.register(sequelize);
   FieldCalibrationModel.register(sequelize);
+  LandmarkModel.register(sequelize);
   TrainerDrillModel.register(sequelize);
   TrainerCourseModel.register(sequelize);
   TrainerCourseAssigneeModel.register(sequelize);

@@ -16,6 +16,7 @@ import { DrillUnavailableError, generateDrill, type DrillSetup } from '@/shared/
 import { scoreDrillAnswer } from '@/shared/trainer/score-drill-answer';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
+import { landmarksRepository } from '@/server/data/repositories/landmarks-repository';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import { terrainRepository } from '@/server/data/repositories/terrain-repository';
@@ -57,6 +58,8 @@ export interface DrillPlace {
   terrain: DrillSetup['terrain'];
   /** The other posts of the post's site (bearing-fix questions only). */
   otherPosts?: DrillSetup['otherPosts'];
+  /** The landmarks of the post's site (landmark-range questions only). */
+  landmarks?: DrillSetup['landmarks'];
 }
 
 /**
@@ -82,6 +85,11 @@ export async function drillPlace(
     eyeHeightM: Math.max(0, found.groundElevationM + found.structureHeightM + found.eyeHeightM - datum.groundM),
     location: found.location,
   };
+  if (kind === 'landmark-range') {
+    const marks = await landmarksRepository.listInSite(actor.organizationId, found.siteId);
+    const landmarks = marks.map((m) => ({ name: m.name, location: { latDeg: m.latDeg, lonDeg: m.lonDeg }, heightM: m.heightM }));
+    return { post, terrain: null, landmarks };
+  }
   if (kind === 'bearing-fix') {
     const siblings = await postsRepository.listInSite(actor.organizationId, found.siteId);
     const otherPosts = siblings.filter((p) => p.id !== found.id).map((p) => ({ name: p.name, location: p.location }));

@@ -1,10 +1,11 @@
-import { evaluateFix, FixError, modelDeclination, type ResolvedFixBearing } from '@/shared/fixes';
+import { evaluateFix, FixError, modelDeclination, trueBearingDeg, type ResolvedFixBearing } from '@/shared/fixes';
 import type { FixRequest, FixResult } from '@/shared/schemas/fix';
 import { postsRepository } from '@/server/data/repositories/posts-repository';
 import type { Actor } from '@/server/domain/actor';
 import { AppError } from '@/server/domain/app-error';
 import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
 import { fixVisibility, type VisibilityObserver } from './fix-visibility';
+import { verticalAngleFix } from './vertical-angle-fix';
 
 /** Where a bearing's declination comes from: typed with it, the magnetic model, or not needed. */
 export function declinationSourceOf(b: { bearingReference: 'true' | 'magnetic'; declinationDeg?: number }) {
@@ -17,6 +18,8 @@ export function declinationSourceOf(b: { bearingReference: 'true' | 'magnetic'; 
  * caller's organisation (its location and eye height), typed observers are
  * taken as given, a magnetic bearing without a declination gets the World
  * Magnetic Model's at its place and time, and the pure core does the rest.
+ * One bearing with a vertical angle is fixed on its own: over its post's
+ * site's terrain, or a smooth earth for a typed position or a site without.
  *
  * @throws {AppError} 404 `not_found` with `bearings.N.postId` for a post that is not the organisation's;
  *   422 `fix_input` with the bearings at fault when the core cannot fix them (parallel, diverging, …)
@@ -54,7 +57,18 @@ export async function computeFix(actor: Actor, request: FixRequest, terrainCache
     sources[i] === 'model' ? { ...b, declinationDeg: modelDeclination(b.from.latDeg, b.from.lonDeg, when).declinationDeg } : b,
   );
   try {
-    const result = evaluateFix(request.observedAt, withDeclination);
+    const only = withDeclination[0]!;
+    const result =
+      withDeclination.length === 1
+        ? await verticalAngleFix(
+            terrainCache,
+            actor.organizationId,
+            sites[0] ?? null,
+            request.observedAt,
+            only,
+            trueBearingDeg(only.bearingDeg, only.bearingReference, only.declinationDeg),
+          )
+        : evaluateFix(request.observedAt, withDeclination);
     const observers: VisibilityObserver[] = resolved.map((b, i) => ({
       postId: b.postId ?? null,
       postName: b.postName,

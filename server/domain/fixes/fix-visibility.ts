@@ -25,7 +25,7 @@ export interface VisibilityObserver {
   eyeHeightM: number;
 }
 
-interface SiteView {
+export interface SiteView {
   terrain: TerrainRaster | null;
   projection: GridProjection | null;
   run: CoverageRunRecord | null;
@@ -35,7 +35,7 @@ interface SiteView {
 }
 
 /** The site's terrain and its latest finished coverage run on it, once per site. */
-async function siteView(cache: TerrainCache, organizationId: string, siteId: string, t?: Transaction): Promise<SiteView> {
+export async function siteView(cache: TerrainCache, organizationId: string, siteId: string, t?: Transaction): Promise<SiteView> {
   const record = await terrainRepository.findActive(organizationId, siteId, t);
   if (!record) return { terrain: null, projection: null, run: null, caseKey: null, k: STANDARD_OPTICAL_K };
   const terrain = await cache.loadTerrain(record);

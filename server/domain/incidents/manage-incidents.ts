@@ -1,8 +1,16 @@
 // Over 300 lines: the incident use cases (open, update, report, fix, notify) share one transaction and hash chain.
 import type { Sequelize, Transaction } from 'sequelize';
-import { evaluateFix, FixError, modelDeclination, trueBearingDeg, type ResolvedFixBearing } from '@/shared/fixes';
+import {
+  evaluateFix,
+  FixError,
+  landmarkOffsetFix,
+  modelDeclination,
+  trueBearingDeg,
+  type ResolvedFixBearing,
+} from '@/shared/fixes';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { formatMgrs } from '@/shared/geo/mgrs';
+import { DEFAULT_VERTICAL_SIGMA_DEG } from '@/shared/schemas/fix';
 import type {
   Incident,
   IncidentCreate,
@@ -17,6 +25,7 @@ import type {
 import { IncidentFixSchema, IncidentReportSchema } from '@/shared/schemas/incident';
 import { assignmentsRepository } from '@/server/data/repositories/assignments-repository';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
+import { landmarksRepository } from '@/server/data/repositories/landmarks-repository';
 import {
   incidentsRepository,
   type ChainedEntry,
@@ -29,6 +38,7 @@ import type { IncidentModel } from '@/server/data/models';
 import type { Actor } from '@/server/domain/actor';
 import { AppError } from '@/server/domain/app-error';
 import { fixVisibility } from '@/server/domain/fixes/fix-visibility';
+import { verticalAngleFix } from '@/server/domain/fixes/vertical-angle-fix';
 import type { Mailer } from '@/server/domain/ports/mailer';
 import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
 import { fixReported } from '@/server/mail/templates';
@@ -100,6 +110,7 @@ function summarise(entries: readonly StoredEntry[]) {
       posts.size === 0
         ? 'No bearings yet. A fix needs bearings from at least two posts.'
         : 'Bearings from one post so far. A fix needs bearings from at least two posts.';
+    if (posts.size === 1) fixProblem += ' (Or a vertical angle to the smoke’s base with the bearing.)';
   }
   return { reports, fix, fixProblem };
 }
@@ -159,6 +170,93 @@ function fixFrom(
   } catch (error) {
     if (!(error instanceof FixError)) throw error;
     return { problem: `These bearings give no fix: ${error.message}`, fromReports: used.map((r) => r.seq) };
+  }
+}
+
+/**
+ * When the newest report gives the position from a landmark, that places
+ * the fix (a stated position beats lines of bearing); a newer bearing
+ * without one goes back to the bearings.
+ */
+function landmarkFix(reports: readonly IncidentReport[]): FixBody | null {
+  const last = reports.at(-1);
+  const mark = last?.landmark;
+  if (!last || !mark) return null;
+  const fix = landmarkOffsetFix({
+    landmark: { id: mark.landmarkId, name: mark.name, latDeg: mark.latDeg, lonDeg: mark.lonDeg },
+    distanceM: mark.distanceM,
+    bearingDeg: mark.bearingDeg,
+    ...(mark.distanceSigmaM !== null && { distanceSigmaM: mark.distanceSigmaM }),
+    ...(mark.bearingSigmaDeg !== null && { bearingSigmaDeg: mark.bearingSigmaDeg }),
+  });
+  return {
+    fix: {
+      ...fix,
+      fromReports: [last.seq],
+      lines: [],
+      computedAt: new Date().toISOString(),
+    },
+  };
+}
+
+/**
+ * While one post only has reported: the fix from its latest bearing and
+ * vertical angle, if it gave one (over the site's terrain, else a smooth
+ * earth); null without a vertical angle.
+ */
+async function onePostFix(
+  deps: IncidentDeps,
+  actor: Actor,
+  siteId: string,
+  reports: readonly IncidentReport[],
+  posts: Map<string, { latDeg: number; lonDeg: number; eyeHeightM: number }>,
+  t: Transaction,
+): Promise<FixBody | null> {
+  const last = reports.at(-1);
+  if (!last || last.verticalAngleDeg === null || new Set(reports.map((r) => r.postId)).size !== 1) return null;
+  const p = posts.get(last.postId)!;
+  const bearing: ResolvedFixBearing = {
+    postId: last.postId,
+    bearingDeg: last.trueBearingDeg,
+    bearingReference: 'true',
+    bearingSigmaDeg: last.bearingSigmaDeg,
+    verticalAngleDeg: last.verticalAngleDeg,
+    ...(last.verticalAngleSigmaDeg != null && { verticalAngleSigmaDeg: last.verticalAngleSigmaDeg }),
+    ...(last.verticalAngleReference != null && { verticalAngleReference: last.verticalAngleReference }),
+    from: { latDeg: p.latDeg, lonDeg: p.lonDeg },
+    postName: last.postName,
+    eyeHeightM: p.eyeHeightM,
+  };
+  try {
+    const result = await verticalAngleFix(
+      deps.terrainCache,
+      actor.organizationId,
+      siteId,
+      last.observedAt,
+      bearing,
+      last.trueBearingDeg,
+      t,
+    );
+    return {
+      fix: {
+        ...result.fix,
+        fromReports: [last.seq],
+        lines: [
+          {
+            seq: last.seq,
+            postId: last.postId,
+            postName: last.postName,
+            distanceM: result.reports[0]!.distanceM,
+            residualDeg: 0,
+            flagged: false,
+          },
+        ],
+        computedAt: new Date().toISOString(),
+      },
+    };
+  } catch (error) {
+    if (!(error instanceof FixError)) throw error;
+    return { problem: error.message, fromReports: [last.seq] };
   }
 }
 
@@ -308,6 +406,30 @@ export async function addReport(
     if (!post) {
       throw new AppError(404, 'not_found', 'That post is not one of this site’s posts.', { postId: 'Not a post of this site.' });
     }
+    let landmark: ReportBody['landmark'] = null;
+    if (input.landmarkOffset) {
+      const mark = await landmarksRepository.findInSite(
+        actor.organizationId,
+        incident.siteId,
+        input.landmarkOffset.landmarkId,
+        t,
+      );
+      if (!mark) {
+        throw new AppError(404, 'not_found', 'That landmark is not one of this site’s landmarks.', {
+          'landmarkOffset.landmarkId': 'Not a landmark of this site.',
+        });
+      }
+      landmark = {
+        landmarkId: mark.id,
+        name: mark.name,
+        latDeg: mark.latDeg,
+        lonDeg: mark.lonDeg,
+        distanceM: input.landmarkOffset.distanceM,
+        bearingDeg: input.landmarkOffset.bearingDeg,
+        distanceSigmaM: input.landmarkOffset.distanceSigmaM ?? null,
+        bearingSigmaDeg: input.landmarkOffset.bearingSigmaDeg ?? null,
+      };
+    }
     const when = new Date(input.observedAt);
     const source = input.bearingReference === 'true' ? 'none' : input.declinationDeg === undefined ? 'model' : 'typed';
     const declinationDeg =
@@ -327,6 +449,10 @@ export async function addReport(
       trueBearingDeg: trueBearingDeg(input.bearingDeg, input.bearingReference, declinationDeg),
       bearingSigmaDeg: input.bearingSigmaDeg,
       verticalAngleDeg: input.verticalAngleDeg ?? null,
+      verticalAngleSigmaDeg:
+        input.verticalAngleDeg === undefined ? null : (input.verticalAngleSigmaDeg ?? DEFAULT_VERTICAL_SIGMA_DEG),
+      verticalAngleReference: input.verticalAngleDeg === undefined ? null : (input.verticalAngleReference ?? 'horizontal'),
+      landmark,
       kind: input.kind,
       note: input.note,
       idempotencyKey: input.idempotencyKey,
@@ -346,7 +472,8 @@ export async function addReport(
         { ...p.location, eyeHeightM: p.structureHeightM + p.eyeHeightM },
       ]),
     );
-    const attempt = fixFrom(reports, posts);
+    const attempt =
+      landmarkFix(reports) ?? fixFrom(reports, posts) ?? (await onePostFix(deps, actor, incident.siteId, reports, posts, t));
     if (attempt && 'fix' in attempt && deps.terrainCache) {
       attempt.fix.visibility = await visibilityOf(deps.terrainCache, actor, incident.siteId, attempt.fix, posts, t);
     }

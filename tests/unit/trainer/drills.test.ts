@@ -15,6 +15,11 @@ const SEEDS = Array.from({ length: 40 }, (_, i) => i * 7919 + 3);
 const setup: DrillSetup = deepFreeze<DrillSetup>({
   post: { name: 'Test Point', eyeHeightM: 24, location: { latDeg: 47.2, lonDeg: 8.1 } },
   otherPosts: [{ name: 'Test Ridge', location: { latDeg: 47.28, lonDeg: 8.22 } }],
+  landmarks: [
+    { name: 'Test Cairn', location: { latDeg: 47.23, lonDeg: 8.15 }, heightM: 2 },
+    { name: 'Test Hut', location: { latDeg: 47.16, lonDeg: 8.07 }, heightM: null },
+    { name: 'Test Mast', location: { latDeg: 47.25, lonDeg: 8.02 }, heightM: 40 },
+  ],
   targets: [
     {
       name: 'fishing boat',
@@ -213,12 +218,27 @@ describe('bearing fix from two posts', () => {
   });
 });
 
-describe('kinds not available yet', () => {
-  it('landmark-range says so', () => {
-    expect(() => generateDrill('landmark-range', 1, setup, 'metric')).toThrow(DrillUnavailableError);
-    expect(() => generateDrill('landmark-range', 1, setup, 'metric')).toThrow(/not available yet for this post/);
+describe('landmark-range', () => {
+  it('the answer is the geodesic distance from the post to the named landmark, in the question’s unit', () => {
+    // Source: Karney (2013) inverse problem as geographiclib-geodesic computes it (via geodesicInverse), 1e-9.
+    for (const seed of [1, 2, 3, 4, 5]) {
+      const { question, solution } = generateDrill('landmark-range', seed, setup, 'nautical');
+      const mark = setup.landmarks!.find((m) => m.name === question.inputs.landmarkName)!;
+      const leg = geodesicInverse(setup.post!.location!, mark.location);
+      expect(question.unit).toBe('nmi');
+      expectRelative(solution.correctValue as number, leg.distanceM / 1852, 1e-9);
+      expect(question.inputs.bearingDeg).toBe(Math.round(leg.azimuthDeg) % 360);
+      expect(question.text).toContain(mark.name);
+    }
   });
 
+  it('without a post, or without landmarks on the site, says what it needs', () => {
+    expect(() => generateDrill('landmark-range', 1, openWater, 'metric')).toThrow(DrillUnavailableError);
+    expect(() => generateDrill('landmark-range', 1, { ...setup, landmarks: [] }, 'metric')).toThrow(/no landmark within/);
+  });
+});
+
+describe('kinds that need more', () => {
   it('a detection drill without targets or condition sets says what it needs', () => {
     expect(() => generateDrill('detection-range', 1, openWater, 'metric')).toThrow(/target and one condition set/);
   });
