@@ -15,6 +15,8 @@ import type { DetectionRange } from '@/shared/sightline/detection-range';
 import type { CoverageGrid as CoverageRunGrid } from '@/shared/schemas/coverage';
 import { coverageCaseOf, postSeenShares } from './coverage-case';
 import { caseKeyOf, type CoverageRunInputs } from './coverage-inputs';
+import { patrolFigures, patrolLayer, patrolSamplesOf, placePatrols, sweepPatrols, type SweptPatrol } from './patrol-coverage';
+import type { PatrolTarget } from '@/shared/terrain/patrol-sweep';
 import { gridSpecFromM, gridSpecToM } from '@/shared/terrain/grid-spec';
 
 /** One viewshed the run needs: a post under one condition. */
@@ -157,17 +159,9 @@ export async function computeCoverage(
   const projection = gridProjection(terrain.crs);
   const areas = coverageAreas(inputs, terrain, projection);
   const posts = placePosts(inputs, terrain, projection);
+  const patrols = placePatrols(inputs, terrain, projection);
   const grid: CoverageRunGrid = { ...gridSpecToM(terrain), epsg: terrain.crs?.epsg ?? null };
-  const progress = { done: 0, total: posts.length * inputs.conditions.length };
-  const cases: CoverageCase[] = [];
-  const layers: ComputedLayer[] = [];
-  const addLayer = (caseKey: string, layer: CoverageLayerName, postId: string, values: Uint8Array) => {
-    const encoded = encodeClassRaster(terrain, values);
-    layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
-  };
-
-  for (const condition of inputs.conditions) {
-    await report((0.9 * progress.done) / progress.total, `Viewsheds: ${condition.conditionSetName}, ${condition.label}`);
+  const plannedConditions = inputs.conditions.map((condition) => {
     const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
     const maxDistance = viewshedRange(detections, terrain.cellSize);
     const conditions: SightConditions = {
@@ -175,12 +169,42 @@ export async function computeCoverage(
       earthRadius: inputs.earthRadiusM,
       ...(maxDistance !== null && { maxDistance }),
     };
-    const network = await networkOf(posts, terrain, conditions, computeViewsheds, report, progress);
+    const patrolTargets: PatrolTarget[] = inputs.targets.map((target, t) => ({
+      countsFromM: target.countsFromM,
+      rangeM: detections[t]!.rangeLimit.rangeM,
+    }));
+    return { condition, detections, conditions, patrolTargets };
+  });
+  const patrolSamples = plannedConditions.reduce(
+    (n, c) => n + patrols.reduce((m, p) => m + patrolSamplesOf(p, c.patrolTargets, c.conditions, terrain.cellSize).samples.length, 0),
+    0,
+  );
+  const progress = { done: 0, total: posts.length * inputs.conditions.length + patrolSamples };
+  const cases: CoverageCase[] = [];
+  const layers: ComputedLayer[] = [];
+  const addLayer = (caseKey: string, layer: CoverageLayerName, postId: string, values: Uint8Array) => {
+    const encoded = encodeClassRaster(terrain, values);
+    layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
+  };
+
+  for (const { condition, detections, conditions, patrolTargets } of plannedConditions) {
+    await report((0.9 * progress.done) / progress.total, `Viewsheds: ${condition.conditionSetName}, ${condition.label}`);
+    const fixedNetwork = posts.length > 0 ? await networkOf(posts, terrain, conditions, computeViewsheds, report, progress) : [];
+    const swept = await sweepPatrolsWithProgress(patrols, terrain, conditions, patrolTargets, computeViewsheds, report, progress);
     inputs.targets.forEach((target, t) => {
       const detection = detections[t]!;
       const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex);
       const seaOnly = target.onWater && areas.sea !== null;
       const area = seaOnly ? areas.sea! : areas.land;
+      // The plan's posts in its order: fixed posts as they are, patrols by their view over the cycle.
+      const results = swept.map((p) => p.sweep.result(t));
+      const network: NetworkPost[] = inputs.posts.map((p) => {
+        const f = posts.findIndex((x) => x.input.id === p.id);
+        if (f >= 0) return fixedNetwork[f]!;
+        const s = swept.findIndex((x) => x.placed.input.id === p.id);
+        const first = swept[s]!.first;
+        return { post: first.post, hidden: first, classes: results[s]!.classes };
+      });
       const coverage = evaluateNetworkCoverage({
         posts: network,
         targetHeight: target.countsFromM,
@@ -193,27 +217,31 @@ export async function computeCoverage(
       });
       addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
       addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
-      coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', posts[i]!.input.id, classes));
-      const perPost = postSeenShares(
-        terrain,
-        network,
-        coverage.postClasses,
-        area.siteMask,
-        posts.map((p) => p.input),
-      );
-      cases.push(
-        coverageCaseOf({
-          key,
-          target,
-          condition,
-          coverage,
-          perPost,
-          detection,
-          seaOnly,
-          projection,
-          detectionModel: inputs.detectionModel,
-        }),
-      );
+      coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', inputs.posts[i]!.id, classes));
+      const patrolFigs = swept.map((p, s) => {
+        addLayer(key, 'patrol-fraction', p.placed.input.id, patrolLayer(p, results[s]!, area.siteMask));
+        return patrolFigures({
+          swept: p,
+          result: results[s]!,
+          target: patrolTargets[t]!,
+          conditions,
+          mask: area.siteMask,
+          cellSize: terrain.cellSize,
+        });
+      });
+      const perPost = postSeenShares(terrain, network, coverage.postClasses, area.siteMask, inputs.posts);
+      const computed = coverageCaseOf({
+        key,
+        target,
+        condition,
+        coverage,
+        perPost,
+        detection,
+        seaOnly,
+        projection,
+        detectionModel: inputs.detectionModel,
+      });
+      cases.push(patrolFigs.length > 0 ? { ...computed, patrols: patrolFigs } : computed);
     });
   }
   // Target × condition order, as the plan lists them.
@@ -242,10 +270,14 @@ function coverageAreas(inputs: CoverageRunInputs, terrain: TerrainRaster, projec
   };
 }
 
-/** Each post's cell, eye height, sector (radians) and grid convergence; a post off the grid is refused by name. */
+/**
+ * Each fixed post's cell, eye height, sector (radians) and grid convergence; a
+ * post off the grid is refused by name. Patrols are placed by their routes
+ * (`placePatrols`).
+ */
 function placePosts(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
   const flat = inputs.terrain === null;
-  return inputs.posts.map((p) => {
+  return inputs.posts.filter((p) => !p.patrol).map((p) => {
     const { x, y } = projection.toGrid({ latDeg: p.latDeg, lonDeg: p.lonDeg });
     let cell;
     try {
@@ -296,4 +328,43 @@ async function networkOf(
   await Promise.all(pending);
   if (stopped) throw (stopped as { reason: unknown }).reason;
   return posts.map((p, i) => ({ post: p.post, hidden: rasters[i]!, sector: p.sector, gridConvergence: p.gridConvergence }));
+}
+
+/** Every patrol swept under one condition, reporting progress as its viewsheds finish (a cancel stops it, as for posts). */
+async function sweepPatrolsWithProgress(
+  patrols: ReturnType<typeof placePatrols>,
+  terrain: TerrainRaster,
+  conditions: SightConditions,
+  targets: readonly PatrolTarget[],
+  computeViewsheds: ComputeViewsheds,
+  report: ReportProgress,
+  progress: { done: number; total: number },
+): Promise<SweptPatrol[]> {
+  if (patrols.length === 0) return [];
+  const pending: Promise<void>[] = [];
+  let stopped: { reason: unknown } | null = null;
+  const checkpoint = async () => {
+    await Promise.all(pending);
+    if (stopped) throw (stopped as { reason: unknown }).reason;
+  };
+  const swept = await sweepPatrols(
+    patrols,
+    terrain,
+    conditions,
+    targets,
+    computeViewsheds,
+    () => {
+      progress.done += 1;
+      pending.push(
+        report((0.9 * progress.done) / progress.total, `Patrol views: ${progress.done} of ${progress.total}`).catch(
+          (reason: unknown) => {
+            stopped ??= { reason };
+          },
+        ),
+      );
+    },
+    checkpoint,
+  );
+  await checkpoint();
+  return swept;
 }

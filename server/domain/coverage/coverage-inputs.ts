@@ -47,6 +47,12 @@ export interface CoverageRunInputs {
     /** Structure height + eye height above the platform, metres. */
     aboveGroundM: number;
     sector: { fromDeg: number; toDeg: number } | null;
+    /**
+     * A vessel's or aircraft's patrol: its route (WGS84), speed (m/s) and
+     * cycle (minutes). Absent for a fixed post (so the inputs of plans
+     * without patrols hash as before).
+     */
+    patrol?: { route: { latDeg: number; lonDeg: number }[]; speedMps: number; cycleMinutes: number };
   }[];
   targets: {
     id: string;
@@ -189,6 +195,9 @@ export function buildCoverageInputs(input: {
       groundElevationM: p.groundElevationM,
       aboveGroundM: p.structureHeightM + p.eyeHeightM,
       sector: p.sector,
+      ...(p.route &&
+        p.speedMps &&
+        p.cycleMinutes && { patrol: { route: p.route, speedMps: p.speedMps, cycleMinutes: p.cycleMinutes } }),
     })),
     targets: input.targets.map((t) => ({
       id: t.id,
