@@ -25,8 +25,10 @@ export function checkPatrol(post: PatrolFields): Record<string, string> {
   const speedMps = post.speedMps ?? null;
   const cycleMinutes = post.cycleMinutes ?? null;
   if (route === null) {
-    if (speedMps !== null) errors.speedMps = 'A speed belongs to a patrol route; draw or type the route first, or clear the speed.';
-    if (cycleMinutes !== null) errors.cycleMinutes = 'A cycle belongs to a patrol route; draw or type the route first, or clear the cycle.';
+    if (speedMps !== null)
+      errors.speedMps = 'A speed belongs to a patrol route; draw or type the route first, or clear the speed.';
+    if (cycleMinutes !== null)
+      errors.cycleMinutes = 'A cycle belongs to a patrol route; draw or type the route first, or clear the cycle.';
     return errors;
   }
   if (!isPatrolKind(post.kind)) {

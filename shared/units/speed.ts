@@ -39,6 +39,7 @@ export function convertSpeed(value: number, from: SpeedUnit, to: SpeedUnit = 'm/
   if (!Number.isFinite(value)) throw new UnitError('not-finite', `speed must be a finite number, got ${String(value)}`);
   const a = MPS_PER_SPEED_UNIT[from];
   const b = MPS_PER_SPEED_UNIT[to];
-  if (a === undefined || b === undefined) throw new UnitError('unknown-unit', `unknown speed unit: ${a === undefined ? from : to}`);
+  if (a === undefined || b === undefined)
+    throw new UnitError('unknown-unit', `unknown speed unit: ${a === undefined ? from : to}`);
   return from === to ? value : (value * a) / b;
 }

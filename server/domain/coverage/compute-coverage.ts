@@ -176,7 +176,8 @@ export async function computeCoverage(
     return { condition, detections, conditions, patrolTargets };
   });
   const patrolSamples = plannedConditions.reduce(
-    (n, c) => n + patrols.reduce((m, p) => m + patrolSamplesOf(p, c.patrolTargets, c.conditions, terrain.cellSize).samples.length, 0),
+    (n, c) =>
+      n + patrols.reduce((m, p) => m + patrolSamplesOf(p, c.patrolTargets, c.conditions, terrain.cellSize).samples.length, 0),
     0,
   );
   const progress = { done: 0, total: posts.length * inputs.conditions.length + patrolSamples };
@@ -277,23 +278,25 @@ function coverageAreas(inputs: CoverageRunInputs, terrain: TerrainRaster, projec
  */
 function placePosts(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
   const flat = inputs.terrain === null;
-  return inputs.posts.filter((p) => !p.patrol).map((p) => {
-    const { x, y } = projection.toGrid({ latDeg: p.latDeg, lonDeg: p.lonDeg });
-    let cell;
-    try {
-      cell = locatePostCell(terrain, x, y);
-    } catch (error) {
-      if (error instanceof TerrainInputError)
-        throw new TerrainInputError(error.code, `Post “${p.name}” stands outside the terrain grid.`, 'postIds');
-      throw error;
-    }
-    return {
-      input: p,
-      post: { ...cell, eyeHeight: p.aboveGroundM + (flat ? p.groundElevationM : 0) },
-      sector: p.sector && { from: p.sector.fromDeg * DEG, to: p.sector.toDeg * DEG },
-      gridConvergence: gridConvergence(projection, { latDeg: p.latDeg, lonDeg: p.lonDeg }),
-    };
-  });
+  return inputs.posts
+    .filter((p) => !p.patrol)
+    .map((p) => {
+      const { x, y } = projection.toGrid({ latDeg: p.latDeg, lonDeg: p.lonDeg });
+      let cell;
+      try {
+        cell = locatePostCell(terrain, x, y);
+      } catch (error) {
+        if (error instanceof TerrainInputError)
+          throw new TerrainInputError(error.code, `Post “${p.name}” stands outside the terrain grid.`, 'postIds');
+        throw error;
+      }
+      return {
+        input: p,
+        post: { ...cell, eyeHeight: p.aboveGroundM + (flat ? p.groundElevationM : 0) },
+        sector: p.sector && { from: p.sector.fromDeg * DEG, to: p.sector.toDeg * DEG },
+        gridConvergence: gridConvergence(projection, { latDeg: p.latDeg, lonDeg: p.lonDeg }),
+      };
+    });
 }
 
 /**

@@ -9,8 +9,14 @@ import { PatrolSweep, patrolFractionCodes, type PatrolSweepResult, type PatrolTa
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
-import type { ComputeViewsheds } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
+
+/** Computes viewsheds as the run does (`ComputeViewsheds` of compute-coverage, restated here to keep the import one-way). */
+type ComputeViewsheds = (
+  terrain: TerrainRaster,
+  jobs: readonly { readonly post: LookoutPost; readonly conditions: SightConditions }[],
+  onDone: () => void,
+) => Promise<HiddenHeightRaster[]>;
 
 /** Most places one patrol's view is computed from per condition; a longer route gets a wider spacing (reported). */
 export const MAX_PATROL_SAMPLES = 240;
@@ -127,7 +133,9 @@ export function patrolSamplesOf(
   cellSize: number,
 ): PatrolSamples {
   const spacing = patrolSampleSpacing(spacingRange(patrol, targets, conditions, cellSize), cellSize);
-  const lengthM = patrol.route.slice(1).reduce((m, w, i) => m + Math.hypot(w.x - patrol.route[i]!.x, w.y - patrol.route[i]!.y), 0);
+  const lengthM = patrol.route
+    .slice(1)
+    .reduce((m, w, i) => m + Math.hypot(w.x - patrol.route[i]!.x, w.y - patrol.route[i]!.y), 0);
   const capped = Math.max(spacing, lengthM / MAX_PATROL_SAMPLES);
   return samplePatrol(patrol.route, patrol.input.patrol.speedMps, patrol.cycleS, capped);
 }
