@@ -30,7 +30,15 @@ const inputs: CoverageRunInputs = {
   flatGrid: grid,
   site: { boundary: ring, zones: [], seaLevelMaxM: null, seaArea: null },
   posts: [
-    { id: '00000000-0000-4000-8000-000000000001', name: 'West buoy', latDeg: 50, lonDeg: -20.2, groundElevationM: 0, aboveGroundM: EYE, sector: null },
+    {
+      id: '00000000-0000-4000-8000-000000000001',
+      name: 'West buoy',
+      latDeg: 50,
+      lonDeg: -20.2,
+      groundElevationM: 0,
+      aboveGroundM: EYE,
+      sector: null,
+    },
     {
       id: '00000000-0000-4000-8000-000000000002',
       name: 'Cutter',

@@ -21,7 +21,14 @@ const TARGET = 0.5;
 const D = geographicRange(EYE, TARGET, SPHERE).value!; // ≈ 948.7 m
 const XLL = 500_000;
 const YLL = 6_000_000;
-const sea = createTerrainRaster({ heights: new Float32Array(WIDTH * HEIGHT), width: WIDTH, height: HEIGHT, cellSize: CELL, xll: XLL, yll: YLL });
+const sea = createTerrainRaster({
+  heights: new Float32Array(WIDTH * HEIGHT),
+  width: WIDTH,
+  height: HEIGHT,
+  cellSize: CELL,
+  xll: XLL,
+  yll: YLL,
+});
 // The track runs west–east along the centre of row 80, from 1 km to 9 km.
 const ROW = 80;
 const Y = YLL + (HEIGHT - ROW - 0.5) * CELL;
