@@ -13,6 +13,7 @@ import { tableStyles } from '@/components/ui/table-styles';
 import { colors, radius, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { CoverageCasePicker } from './coverage-case-picker';
+import { PatrolFigures } from './patrol-figures';
 import {
   caseLabel,
   conditionSpread,
@@ -88,6 +89,7 @@ export function CoverageFigures({
         <View style={{ flex: wide ? 1 : undefined, gap: space.lg }}>
           <BlindAreas c={shown} onMap={openMap} />
           <PostShares posts={shown.posts} />
+          <PatrolFigures patrols={shown.patrols} distanceUnit={units?.distance} />
           <Button
             kind="secondary"
             label="Open on the map"
