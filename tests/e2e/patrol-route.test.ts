@@ -63,6 +63,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a patrol route on the %
         [0.5, 0.2],
       ] as const) {
         await page.mouse.click(box.x + fx * box.width, box.y + fy * box.height);
+        await page.waitForTimeout(300); // apart, so two taps are not read as a double tap (zoom)
       }
       await page.getByText('3 waypoints, 2 legs.', { exact: false }).waitFor();
       await page.getByRole('button', { name: 'Back to the start' }).click();
