@@ -51,6 +51,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a patrol route on the %
       await page.getByRole('heading', { name: vessel.name }).waitFor();
       if (viewport === 'phone') await page.getByRole('button', { name: 'Edit post' }).click();
       const form = page.getByLabel('Edit post');
+      // Nautical units on this form: distances in nautical miles, the speed in knots.
+      await form.getByRole('radiogroup', { name: 'Units' }).getByRole('radio', { name: 'ft · nmi' }).click();
       const patrol = form.getByLabel('Patrol route');
       await patrol.getByRole('button', { name: 'Draw the route on the map' }).click();
       const map = page.getByLabel(/^Route map: tap to add a waypoint/);
