@@ -57,14 +57,16 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a patrol route on the %
       await patrol.getByRole('button', { name: 'Draw the route on the map' }).click();
       const map = page.getByLabel(/^Route map: tap to add a waypoint/);
       await map.scrollIntoViewIfNeeded();
-      const box = (await map.boundingBox())!;
-      // Three waypoints over the sea (the north of the strand), then back to the start: a loop.
-      for (const [fx, fy] of [
-        [0.3, 0.35],
-        [0.7, 0.35],
-        [0.5, 0.2],
+      // Three waypoints over the sea around the demo vessel's own mark (the middle of the strand's sea), then back
+      // to the start: a loop.
+      const mark = (await map.getByText('Patrol vessel Kittiwake', { exact: true }).first().boundingBox())!;
+      const vesselAt = { x: mark.x - 12, y: mark.y + mark.height / 2 };
+      for (const [dx, dy] of [
+        [-60, 30],
+        [60, 30],
+        [0, -40],
       ] as const) {
-        await page.mouse.click(box.x + fx * box.width, box.y + fy * box.height);
+        await page.mouse.click(vesselAt.x + dx, vesselAt.y + dy);
         await page.waitForTimeout(300); // apart, so two taps are not read as a double tap (zoom)
       }
       await page.getByText('3 waypoints, 2 legs.', { exact: false }).waitFor();
