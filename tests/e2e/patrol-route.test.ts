@@ -14,6 +14,7 @@ afterAll(() => close());
 interface PostBody {
   id: string;
   name: string;
+  location: { latDeg: number; lonDeg: number };
   version: number;
   route: unknown;
 }
@@ -41,6 +42,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a patrol route on the %
       );
       const { post: vessel } = await apiJson<{ post: PostBody }>(page, 'PATCH', `/sites/${coast.id}/posts/${copy.id}`, {
         name: `Kittiwake patrol (${viewport})`,
+        // Moored 2.5 km south of the demo vessel, so their marks and names on the map stay apart.
+        location: { latDeg: demoVessel.location.latDeg - 0.0225, lonDeg: demoVessel.location.lonDeg },
         route: null,
         speedMps: null,
         cycleMinutes: null,
@@ -116,7 +119,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a patrol route on the %
       await patrolShot(page, 'figures', viewport);
 
       // On the map: the patrol's time-in-view layer with its legend.
-      await card.getByRole('button', { name: 'Open on the map' }).click();
+      await card.getByRole('link', { name: 'Open on the map' }).click();
       await page.waitForURL('**/map**');
       const chip = page.getByRole('checkbox', { name: `${vessel.name}: time in view` });
       if (viewport === 'phone') await page.getByRole('button', { name: 'Legend and layers' }).click();
