@@ -126,6 +126,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a patrol route on the %
       await chip.click();
       await page.getByText('Share of the patrol cycle in view').first().waitFor();
       for (const label of ['Never', 'Up to 25 %', 'Over 75 %']) await page.getByText(label, { exact: true }).first().waitFor();
+      await page.getByText('Share of the patrol cycle in view').first().scrollIntoViewIfNeeded();
       await patrolShot(page, 'map', viewport);
       expect(errors).toEqual([]);
     } finally {
