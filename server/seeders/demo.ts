@@ -193,10 +193,10 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
         eyeHeightM: 1.6,
         sector: null,
         status: 'existing',
-        // An invented triangle off the strand, about 24.7 km, run at 12 kn (≈ 67 min) in a 90-minute cycle.
-        route: [utm33(534_000, 5_754_500), utm33(544_500, 5_755_000), utm33(539_000, 5_759_500), utm33(534_000, 5_754_500)],
-        speedMps: (12 * 1852) / 3600,
-        cycleMinutes: 90,
+        // An invented run out and back in front of the beaches, 2 × 4 km at 10 kn (≈ 26 min) in an hour's cycle.
+        route: [utm33(537_000, 5_755_000), utm33(541_000, 5_755_500), utm33(537_000, 5_755_000)],
+        speedMps: (10 * 1852) / 3600,
+        cycleMinutes: 60,
       },
     ],
   },
