@@ -2,6 +2,7 @@ import { COVERAGE_CHANGE } from '@/shared/terrain/coverage-difference';
 import { CROSS_BEARING_CLASS } from '@/shared/terrain/cross-bearing-quality';
 import { COVERAGE_LAYER } from '@/shared/terrain/posts-per-cell';
 import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
+import { PATROL_FRACTION_CODE } from '@/shared/terrain/patrol-sweep';
 
 /**
  * Colours and names of the coverage layers' class codes, for the map overlay,
@@ -22,8 +23,10 @@ import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 
 /** One class of a layer. */
 export interface PaletteClass {
-  /** The code stored in the raster. */
+  /** The code stored in the raster (the first of a range). */
   readonly code: number;
+  /** Last code of a class that stands for a range of codes (`code` … `codeTo`); default `code` alone. */
+  readonly codeTo?: number;
   /** Short name for the legend and the read-out. */
   readonly label: string;
   /** What it means, one sentence. */
@@ -44,7 +47,7 @@ export interface ClassPalette {
 }
 
 /** The coverage layers Kenning draws. */
-export type CoverageLayerKind = 'posts-per-cell' | 'cross-bearing' | 'post-visibility' | 'coverage-change';
+export type CoverageLayerKind = 'posts-per-cell' | 'cross-bearing' | 'post-visibility' | 'coverage-change' | 'patrol-fraction';
 
 const AMBER = '#E69F2E';
 
@@ -144,6 +147,36 @@ export const POST_VISIBILITY_PALETTE: ClassPalette = {
   ],
 };
 
+/**
+ * Share of a patrol's cycle each cell is in view (PATROL_FRACTION_CODE: 1
+ * never, 1 + p for p % of the cycle), in four bands of a quarter each: the
+ * same rule, amber for never watched and deeper blue for watched longer.
+ */
+export const PATROL_FRACTION_PALETTE: ClassPalette = {
+  id: 'patrol-fraction',
+  title: 'Share of the patrol cycle in view',
+  opacity: 0.74,
+  classes: [
+    { code: PATROL_FRACTION_CODE.never, label: 'Never', meaning: 'The patrol never has the target here in view.', color: AMBER },
+    { code: 2, codeTo: 26, label: 'Up to 25 %', meaning: 'In view for at most a quarter of the cycle.', color: '#CFE1F2' },
+    { code: 27, codeTo: 51, label: '26–50 %', meaning: 'In view for a quarter to half of the cycle.', color: '#86B5E0' },
+    { code: 52, codeTo: 76, label: '51–75 %', meaning: 'In view for half to three quarters of the cycle.', color: '#3A75B8' },
+    {
+      code: 77,
+      codeTo: 101,
+      label: 'Over 75 %',
+      meaning: 'In view for more than three quarters of the cycle.',
+      color: '#15356B',
+    },
+    {
+      code: PATROL_FRACTION_CODE.none,
+      label: 'Not judged',
+      meaning: 'Outside the judged area, or no terrain data.',
+      color: null,
+    },
+  ],
+};
+
 /** What changed between two coverage runs (COVERAGE_CHANGE codes). */
 export const COVERAGE_CHANGE_PALETTE: ClassPalette = {
   id: 'coverage-change',
@@ -175,11 +208,12 @@ export const CLASS_PALETTES: Readonly<Record<CoverageLayerKind, ClassPalette>> =
   'cross-bearing': CROSS_BEARING_PALETTE,
   'post-visibility': POST_VISIBILITY_PALETTE,
   'coverage-change': COVERAGE_CHANGE_PALETTE,
+  'patrol-fraction': PATROL_FRACTION_PALETTE,
 };
 
 /** The class of a code in a palette, or null for a code the palette does not know. */
 export function paletteClass(palette: ClassPalette, code: number): PaletteClass | null {
-  return palette.classes.find((c) => c.code === code) ?? null;
+  return palette.classes.find((c) => code >= c.code && code <= (c.codeTo ?? c.code)) ?? null;
 }
 
 /** RGBA bytes per code (256 × 4), alpha from the palette's opacity; unknown and undrawn codes are transparent. */
@@ -189,10 +223,12 @@ export function paletteLookup(palette: ClassPalette): Uint8ClampedArray {
   for (const c of palette.classes) {
     if (c.color === null || c.code < 0 || c.code > 255) continue;
     const hex = c.color.slice(1);
-    table[c.code * 4] = parseInt(hex.slice(0, 2), 16);
-    table[c.code * 4 + 1] = parseInt(hex.slice(2, 4), 16);
-    table[c.code * 4 + 2] = parseInt(hex.slice(4, 6), 16);
-    table[c.code * 4 + 3] = alpha;
+    for (let code = c.code; code <= Math.min(255, c.codeTo ?? c.code); code++) {
+      table[code * 4] = parseInt(hex.slice(0, 2), 16);
+      table[code * 4 + 1] = parseInt(hex.slice(2, 4), 16);
+      table[code * 4 + 2] = parseInt(hex.slice(4, 6), 16);
+      table[code * 4 + 3] = alpha;
+    }
   }
   return table;
 }

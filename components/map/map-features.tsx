@@ -1,5 +1,5 @@
 import { memo } from 'react';
-import Svg, { Circle, G, Line, Path, Polygon, Text as SvgText } from 'react-native-svg';
+import Svg, { Circle, G, Line, Path, Polygon, Polyline, Text as SvgText } from 'react-native-svg';
 import { colors, fonts } from '@/components/ui/theme';
 import { gridToScreen, type MapCamera, type MapSize } from './map-camera';
 import type { FramedPost, FramedRing, SiteMapFrame } from './site-map-frame';
@@ -16,6 +16,8 @@ export const SYMBOL = {
   boundary: { stroke: colors.ink, halo: '#FFFFFF', width: 2.5 },
   zone: { stroke: '#7A3E6E', fill: 'rgba(122, 62, 110, 0.10)', dash: '7 4', width: 2 },
   sector: { fill: 'rgba(232, 176, 74, 0.30)', stroke: '#8A6A12' },
+  /** A patrol's route (dashed). */
+  route: '#1F6F78',
   chosen: colors.ember,
   target: colors.ember,
   outline: { stroke: colors.ink, halo: colors.lantern, width: 2 },
@@ -148,6 +150,23 @@ export const MapFeatures = memo(function MapFeatures({
             stroke={SYMBOL.sector.stroke}
             strokeWidth={1}
           />
+        );
+      })}
+      {frame.posts.map((p) => {
+        // A patrol's route: a dashed line through its waypoints.
+        if (!p.post.route || p.post.route.length < 2) return null;
+        const line = p.post.route
+          .map((w) => {
+            const g = frame.projection.toGrid(w);
+            const s = at(g.x, g.y);
+            return `${s.x.toFixed(1)},${s.y.toFixed(1)}`;
+          })
+          .join(' ');
+        return (
+          <G key={`route-${p.post.id}`}>
+            <Polyline points={line} fill="none" stroke="#FFFFFF" strokeWidth={5} opacity={0.8} />
+            <Polyline points={line} fill="none" stroke={SYMBOL.route} strokeWidth={2.5} strokeDasharray="9 5" />
+          </G>
         );
       })}
       {outline && outline.length > 0 ? <AreaOutline d={outlinePath(outline, at)} /> : null}

@@ -43,10 +43,14 @@ export function RunMapScreen({
   const done = run.data?.status === 'done' ? run.data : null;
   const shownCase = done ? pickCase(done.cases, caseKey) : null;
   const runPost = shownCase?.posts.find((p) => p.postId === postId) ?? null;
+  // The chosen post's patrol layer when it patrols, else the case's first patrol's.
+  const patrols = shownCase?.patrols ?? [];
+  const patrol = patrols.find((p) => p.postId === postId) ?? patrols[0] ?? null;
   const layers = useCoverageRunLayers(
     done?.id ?? null,
     shownCase?.key ?? null,
     runPost ? { id: runPost.postId, name: runPost.postName } : null,
+    patrol ? { id: patrol.postId, name: patrol.postName } : null,
   );
 
   const onCase = (key: string) => {
@@ -84,6 +88,13 @@ export function RunMapScreen({
             <Notice tone="danger" title="A layer cannot be loaded">
               <AppText variant="small">{layers.error.message}</AppText>
             </Notice>
+          ) : null}
+          {patrol ? (
+            <AppText variant="small" tone="muted">
+              {patrol.postName} patrols its route: watched at least once {patrol.sweptPct.toFixed(1)} % of the judged area, in
+              view {(100 * patrol.meanFractionInView).toFixed(1)} % of the cycle on average
+              {patrol.pod !== null ? `; probability of detection in one cycle ${(100 * patrol.pod).toFixed(1)} %` : ''}.
+            </AppText>
           ) : null}
           {postId && !runPost ? (
             <AppText variant="small" tone="muted">

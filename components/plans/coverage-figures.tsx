@@ -14,6 +14,7 @@ import { colors, radius, space } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 import { CoverageCasePicker } from './coverage-case-picker';
 import { ShoreStripsPanel } from './shore-strips-panel';
+import { PatrolFigures } from './patrol-figures';
 import {
   caseLabel,
   conditionSpread,
@@ -89,6 +90,7 @@ export function CoverageFigures({
         <View style={{ flex: wide ? 1 : undefined, gap: space.lg }}>
           <BlindAreas c={shown} onMap={openMap} />
           <PostShares posts={shown.posts} />
+          <PatrolFigures patrols={shown.patrols} distanceUnit={units?.distance} />
           <Button
             kind="secondary"
             label="Open on the map"

@@ -1,18 +1,20 @@
 // Over 300 lines: one post form (kind, place, heights, sector) with its units and terrain lookup.
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { z } from 'zod';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { parseCoordinate } from '@/shared/geo/parse-coordinate';
-import { POST_KIND_LABELS, POST_KINDS, PostInputSchema, type Post, type PostInput } from '@/shared/schemas/site';
+import { isPatrolKind, POST_KIND_LABELS, POST_KINDS, PostInputSchema, type Post, type PostInput } from '@/shared/schemas/site';
+import { convertSpeed, SPEED_UNIT_OF_SYSTEM } from '@/shared/units/speed';
 import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
 import { UNIT_SYSTEM_IDS, UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { ApiRequestError } from '@/components/data/api-client';
 import { applyServerErrors } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
-import { useCreatePost, useSite, useUpdatePost } from '@/components/data/sites';
+import { useCreatePost, useSite, useSitePosts, useUpdatePost } from '@/components/data/sites';
+import { useSiteTerrain } from '@/components/data/terrain';
 import { Segmented } from '@/components/check/unit-switch';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -24,6 +26,7 @@ import { UnitNumberField } from '@/components/ui/unit-number-field';
 import { UnitsField, unitsResolver } from '@/components/ui/units-field';
 import { formatPosition } from '@/components/map/map-chrome';
 import { GroundFromTerrain } from './ground-from-terrain';
+import { PatrolFields, readRouteText, routeText, speedText } from './patrol-fields';
 
 type Kind = (typeof POST_KINDS)[number];
 
@@ -38,6 +41,10 @@ interface PostFormValues {
   eyeHeightM: string;
   status: 'existing' | 'proposed';
   sector: { fromDeg: string; toDeg: string };
+  /** Patrol (vessels and aircraft): waypoints one a line, speed in the units' speed unit, cycle in minutes. */
+  route: string;
+  speedMps: string;
+  cycleMinutes: string;
 }
 
 /** A typed number, '' left out (so the schema's default applies), anything else as typed. */
@@ -80,7 +87,28 @@ export function postFormSchema(units: UnitSystem) {
       const { fromDeg = '', toDeg = '' } = (s ?? {}) as { fromDeg?: string; toDeg?: string };
       return fromDeg.trim() || toDeg.trim() ? { fromDeg: typedNumber(fromDeg), toDeg: typedNumber(toDeg) } : null;
     }, PostInputSchema.shape.sector),
-  });
+    route: z.string().transform((text, ctx) => {
+      const read = readRouteText(text);
+      if (read !== null && !Array.isArray(read)) {
+        ctx.addIssue({ code: 'custom', message: `Line ${read.line}: ${read.message}` });
+        return z.NEVER;
+      }
+      const checked = PostInputSchema.shape.route.safeParse(read);
+      if (!checked.success) {
+        ctx.addIssue({ code: 'custom', message: checked.error.issues[0]?.message ?? 'Not a route.' });
+        return z.NEVER;
+      }
+      return checked.data ?? null;
+    }),
+    speedMps: z.preprocess((t) => {
+      const n = typedNumber(t);
+      return n === undefined ? null : typeof n === 'number' ? convertSpeed(n, SPEED_UNIT_OF_SYSTEM[units]) : n;
+    }, PostInputSchema.shape.speedMps),
+    cycleMinutes: z.preprocess((t) => typedNumber(t) ?? null, PostInputSchema.shape.cycleMinutes),
+  }).transform((post) =>
+    // A post that does not move has no patrol, whatever the hidden fields hold.
+    isPatrolKind(post.kind) ? post : { ...post, route: null, speedMps: null, cycleMinutes: null },
+  );
 }
 
 /** The form's values for an existing post (or a new one), lengths in `units`. */
@@ -96,6 +124,9 @@ function valuesOf(p: Post | undefined, units: UnitSystem): PostFormValues {
     eyeHeightM: lengthText(p?.eyeHeightM ?? 1.6, unit),
     status: p?.status ?? 'existing',
     sector: { fromDeg: p?.sector ? String(p.sector.fromDeg) : '', toDeg: p?.sector ? String(p.sector.toDeg) : '' },
+    route: routeText(p?.route),
+    speedMps: speedText(p?.speedMps, SPEED_UNIT_OF_SYSTEM[units]),
+    cycleMinutes: p?.cycleMinutes == null ? '' : String(p.cycleMinutes),
   };
 }
 
@@ -110,6 +141,9 @@ const FIELDS = [
   'sector.fromDeg',
   'sector.toDeg',
   'sector',
+  'route',
+  'speedMps',
+  'cycleMinutes',
 ] as const;
 
 /**
@@ -152,6 +186,18 @@ export function PostForm({
   const locationText = watch('location');
   const located = locationText.trim() ? readLocation(locationText) : null;
   const parsed = located && typeof located !== 'string' ? located : null;
+  const kind = watch('kind');
+  const sitePosts = useSitePosts(siteId);
+  const terrain = useSiteTerrain(siteId);
+  const previousUnits = useRef(units);
+  // The speed is re-typed in the new unit when the units change (the same speed).
+  useEffect(() => {
+    const from = SPEED_UNIT_OF_SYSTEM[previousUnits.current];
+    previousUnits.current = units;
+    const typed = Number(getValues('speedMps').replace(',', '.'));
+    if (getValues('speedMps').trim() && Number.isFinite(typed) && from !== SPEED_UNIT_OF_SYSTEM[units])
+      setValue('speedMps', speedText(convertSpeed(typed, from), SPEED_UNIT_OF_SYSTEM[units]));
+  }, [units, getValues, setValue]);
 
   const onError = (e: Error) => {
     if (e instanceof ApiRequestError && e.code === 'stale_version') {
@@ -276,6 +322,24 @@ export function PostForm({
           />
         </View>
       </View>
+      {isPatrolKind(kind) ? (
+        <PatrolFields
+          control={control}
+          units={units}
+          routeValue={watch('route')}
+          speedValue={watch('speedMps')}
+          cycleValue={watch('cycleMinutes')}
+          onRoute={(text) => setValue('route', text, { shouldValidate: false })}
+          near={parsed}
+          drawContext={{
+            site: site.data ?? null,
+            posts: (sitePosts.data ?? []).filter((p) => p.id !== post?.id),
+            terrain: terrain.data ?? null,
+            boundary: site.data?.boundary ?? null,
+            zones: site.data?.priorityZones ?? [],
+          }}
+        />
+      ) : null}
       <Controller
         control={control}
         name="status"

@@ -73,7 +73,7 @@ const closedOf = (ring: Ring) => {
  * The outline being drawn is in view at first. Null until there is somewhere to
  * start.
  */
-function drawingFrame(context: RingDrawContext, ring: Ring | null, start: LatLon | null): SiteMapFrame | null {
+export function drawingFrame(context: RingDrawContext, ring: Ring | null, start: LatLon | null): SiteMapFrame | null {
   const reference: Site = {
     ...(context.site ?? PLACEHOLDER_SITE),
     boundary: context.boundary,

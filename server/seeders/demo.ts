@@ -203,6 +203,10 @@ export const DEMO_SITES: { site: SiteInput; posts: PostInput[] }[] = [
         eyeHeightM: 1.6,
         sector: null,
         status: 'existing',
+        // An invented run out and back in front of the beaches, 2 × 4 km at 10 kn (≈ 26 min) in an hour's cycle.
+        route: [utm33(537_000, 5_755_000), utm33(541_000, 5_755_500), utm33(537_000, 5_755_000)],
+        speedMps: (10 * 1852) / 3600,
+        cycleMinutes: 60,
       },
     ],
   },

@@ -18,7 +18,7 @@ export type CoverageRunStatus = (typeof COVERAGE_RUN_STATUSES)[number];
 export const ACTIVE_RUN_STATUSES: readonly CoverageRunStatus[] = ['queued', 'running'];
 
 /** Layers a run serves (`GET /coverage-runs/:id/layers/:layer`). */
-export const COVERAGE_LAYER_KINDS = ['posts-per-cell', 'cross-bearing', 'post-visibility'] as const;
+export const COVERAGE_LAYER_KINDS = ['posts-per-cell', 'cross-bearing', 'post-visibility', 'patrol-fraction'] as const;
 export type CoverageLayerName = (typeof COVERAGE_LAYER_KINDS)[number];
 
 /** What the ground was: the site's terrain, or a flat datum at sea level (a site without terrain). */
@@ -79,6 +79,40 @@ export const CaseDetectionSchema = z.object({
   seaOnly: z.boolean(),
 });
 export type CaseDetection = z.infer<typeof CaseDetectionSchema>;
+
+/**
+ * A patrol post's figures in one case. The craft runs its route once per
+ * cycle at its speed and holds at the last waypoint for the rest; its views
+ * are computed at samples along the track (`sampleSpacingM` apart at most).
+ */
+export const PatrolFiguresSchema = z.object({
+  postId: z.uuid(),
+  postName: z.string(),
+  /** Route length, metres; the cycle, minutes; the time spent running the route, minutes. */
+  routeLengthM: z.number(),
+  cycleMinutes: z.number(),
+  transitMinutes: z.number(),
+  /** Places the view was computed from, and the longest distance between two of them along the track, metres. */
+  samples: z.number().int(),
+  sampleSpacingM: z.number(),
+  /** Area of the judged part of the site (its sea part for targets on the water), m². */
+  searchAreaM2: z.number(),
+  /** Area where the target is detected at least once during the cycle, m², and as a share of the judged area, %. */
+  sweptAreaM2: z.number(),
+  sweptPct: z.number(),
+  /** Mean over the swept cells of the share of the cycle each is in view, 0 … 1. */
+  meanFractionInView: z.number(),
+  /**
+   * Sweep width W = 2 × the detection range over open water (the definite-range
+   * law, Koopman), metres; coverage factor C = W·L/A for the track length L
+   * run in one cycle; POD = 1 − e^(−C), the random-search probability of detection.
+   * Null when the target cannot be detected from the craft (range 0).
+   */
+  sweepWidthM: z.number().nullable(),
+  coverageFactor: z.number().nullable(),
+  pod: z.number().nullable(),
+});
+export type PatrolFigures = z.infer<typeof PatrolFiguresSchema>;
 
 /** One target × one condition of a run: figures and the standard's verdict. */
 const ShoreMeasureSchema = z.object({ lengthM: z.number(), pct: z.number() });
@@ -205,6 +239,8 @@ export const CoverageCaseSchema = z.object({
   }),
   /** Per post: share of the site where it sees the target (within its sector), percent. */
   posts: z.array(z.object({ postId: z.uuid(), postName: z.string(), seenPct: z.number() })),
+  /** Per patrol post (a vessel or aircraft with a route): what it watches over its cycle; absent without patrols. */
+  patrols: z.array(PatrolFiguresSchema).optional(),
   /** What limits detection in this case; null in runs made before the detection model (view and visibility only). */
   detection: CaseDetectionSchema.nullable().default(null),
   /** The detection model the figures were made with; null in older runs. */

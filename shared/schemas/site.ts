@@ -241,6 +241,17 @@ export const POST_KIND_LABELS: Record<(typeof POST_KINDS)[number], string> = {
 };
 export const POST_STATUSES = ['existing', 'proposed'] as const;
 
+/** Kinds of post that move: they may patrol a route (`route`, `speedMps`, `cycleMinutes`). */
+export const PATROL_POST_KINDS = ['vessel', 'aircraft'] as const satisfies readonly (typeof POST_KINDS)[number][];
+export const isPatrolKind = (kind: string): boolean => (PATROL_POST_KINDS as readonly string[]).includes(kind);
+
+/** Most waypoints a route may have. */
+export const MAX_ROUTE_WAYPOINTS = 100;
+/** Fastest patrol, m/s (≈ 390 kn: above any patrol aircraft's search speed). */
+export const MAX_PATROL_SPEED_MPS = 200;
+/** Longest patrol cycle, minutes (one day). */
+export const MAX_CYCLE_MINUTES = 1440;
+
 const metres = (what: string, max: number) =>
   z
     .number({ error: `${what} must be a number of metres.` })
@@ -267,6 +278,17 @@ export const PostSchema = z.object({
   /** Viewing sector, clockwise from → to, degrees true; null = all round. */
   sector: z.object({ fromDeg: z.number(), toDeg: z.number() }).nullable(),
   status: z.enum(POST_STATUSES),
+  /**
+   * A vessel's or aircraft's patrol route: waypoints (WGS84) joined by
+   * straight legs, followed from the first to the last once per cycle; the
+   * craft holds at the last waypoint for the rest of the cycle. Null = the
+   * post stays at its location.
+   */
+  route: z.array(LatLonSchema).nullish(),
+  /** Speed along the route, m/s; null without a route. */
+  speedMps: z.number().nullish(),
+  /** Length of one patrol cycle (time on station), minutes; null without a route. */
+  cycleMinutes: z.number().nullish(),
   version: z.number().int(),
   updatedAt: z.string(),
 });
@@ -284,6 +306,21 @@ export const PostInputSchema = z.object({
   eyeHeightM: metres('Eye height', 10).default(1.6),
   sector: z.object({ fromDeg: bearing, toDeg: bearing }).nullable().default(null),
   status: z.enum(POST_STATUSES).default('existing'),
+  route: z
+    .array(LatLonSchema, { error: 'A route is a list of waypoints { latDeg, lonDeg }.' })
+    .min(2, 'A route needs at least two waypoints (one leg).')
+    .max(MAX_ROUTE_WAYPOINTS, `At most ${MAX_ROUTE_WAYPOINTS} waypoints.`)
+    .nullish(),
+  speedMps: z
+    .number({ error: 'Speed must be a number of metres per second.' })
+    .positive('Speed must be more than 0.')
+    .max(MAX_PATROL_SPEED_MPS, `Speed must be at most ${MAX_PATROL_SPEED_MPS} m/s.`)
+    .nullish(),
+  cycleMinutes: z
+    .number({ error: 'The cycle must be a number of minutes.' })
+    .positive('The cycle must be more than 0 minutes.')
+    .max(MAX_CYCLE_MINUTES, `The cycle must be at most ${MAX_CYCLE_MINUTES} minutes (one day).`)
+    .nullish(),
 });
 export type PostInput = z.infer<typeof PostInputSchema>;
 

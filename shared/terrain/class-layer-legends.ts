@@ -2,6 +2,7 @@ import type { CoverageLayerName } from '@/shared/schemas/coverage';
 import { CROSS_BEARING_CLASS } from '@/shared/terrain/cross-bearing-quality';
 import { COVERAGE_LAYER } from '@/shared/terrain/posts-per-cell';
 import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
+import { PATROL_FRACTION_CODE } from '@/shared/terrain/patrol-sweep';
 
 /**
  * What the cell values of each exported layer mean, and which value is
@@ -21,5 +22,9 @@ export const LAYER_LEGENDS: Record<CoverageLayerName, { nodata: number; legend: 
   'post-visibility': {
     nodata: VISIBILITY_CLASS.none,
     legend: `one post's view: ${VISIBILITY_CLASS.none} not computed (no terrain data), ${VISIBILITY_CLASS.seen} ground seen, ${VISIBILITY_CLASS.targetOnly} only the target shows, ${VISIBILITY_CLASS.blind} blind, ${VISIBILITY_CLASS.outOfRange} beyond the detection range`,
+  },
+  'patrol-fraction': {
+    nodata: PATROL_FRACTION_CODE.none,
+    legend: `one patrol's share of its cycle in view: ${PATROL_FRACTION_CODE.none} not computed or outside the judged area, ${PATROL_FRACTION_CODE.never} never in view, 2–101 in view 1–100 % of the cycle (code − 1, rounded up)`,
   },
 };

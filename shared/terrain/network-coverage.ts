@@ -22,6 +22,12 @@ export interface NetworkPost {
   readonly sector?: ViewingSector | null;
   /** Grid convergence at the post, radians (true north → grid north, clockwise); default 0. */
   readonly gridConvergence?: number;
+  /**
+   * Visibility classes already made for the target being evaluated, range
+   * included (a patrol's view over its cycle, `PatrolSweep`); when given they
+   * are used as they are and `hidden` only supplies the grid and condition.
+   */
+  readonly classes?: Uint8Array;
 }
 
 /** What to evaluate: one condition (the rasters') × one target height. */
@@ -142,10 +148,12 @@ export function evaluateNetworkCoverage(input: NetworkCoverageInput): NetworkCov
       );
     }
     const rangeLimit = input.rangeLimit ?? null;
-    const classes = classifyVisibility(hidden, targetHeight, {
-      groundTolerance: input.groundTolerance,
-      rangeLimit: rangeLimit === null ? null : { col: post.col, row: post.row, maxDistance: rangeLimit },
-    }).classes;
+    const classes =
+      entry.classes ??
+      classifyVisibility(hidden, targetHeight, {
+        groundTolerance: input.groundTolerance,
+        rangeLimit: rangeLimit === null ? null : { col: post.col, row: post.row, maxDistance: rangeLimit },
+      }).classes;
     return {
       col: post.col,
       row: post.row,

@@ -30,6 +30,10 @@ export class PostModel extends Model<InferAttributes<PostModel>, InferCreationAt
   declare sectorFromDeg: number | null;
   declare sectorToDeg: number | null;
   declare status: (typeof POST_STATUSES)[number];
+  /** Patrol route as `[lon, lat]` pairs (WGS84); null = a fixed post. */
+  declare route: CreationOptional<[number, number][] | null>;
+  declare speedMps: CreationOptional<number | null>;
+  declare cycleMinutes: CreationOptional<number | null>;
   declare version: CreationOptional<number>;
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -48,6 +52,9 @@ export class PostModel extends Model<InferAttributes<PostModel>, InferCreationAt
         sectorFromDeg: { type: DataTypes.DOUBLE, allowNull: true },
         sectorToDeg: { type: DataTypes.DOUBLE, allowNull: true },
         status: { type: DataTypes.STRING(16), allowNull: false },
+        route: { type: DataTypes.JSONB, allowNull: true },
+        speedMps: { type: DataTypes.DOUBLE, allowNull: true },
+        cycleMinutes: { type: DataTypes.DOUBLE, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         deletedAt: DataTypes.DATE,
         createdAt: DataTypes.DATE,

@@ -18,15 +18,23 @@ function toPost(row: PostModel): Post {
     sector:
       row.sectorFromDeg === null || row.sectorToDeg === null ? null : { fromDeg: row.sectorFromDeg, toDeg: row.sectorToDeg },
     status: row.status,
+    route: row.route ? row.route.map(([lonDeg, latDeg]) => ({ latDeg, lonDeg })) : null,
+    speedMps: row.speedMps ?? null,
+    cycleMinutes: row.cycleMinutes ?? null,
     version: row.version,
     updatedAt: row.updatedAt.toISOString(),
   };
 }
 
+/** A route as stored: `[lon, lat]` pairs. */
+const routeColumn = (route: PostInput['route']): [number, number][] | null =>
+  route ? route.map((p) => [p.lonDeg, p.latDeg] as [number, number]) : null;
+
 const columns = (input: Partial<PostInput>) => {
-  const { location, sector, ...plain } = input;
+  const { location, sector, route, ...plain } = input;
   return {
     ...plain,
+    ...(route !== undefined && { route: routeColumn(route) }),
     ...(location && {
       location: { type: 'Point' as const, coordinates: [location.lonDeg, location.latDeg] as [number, number] },
     }),
@@ -86,6 +94,9 @@ export const postsRepository = {
         location: { type: 'Point', coordinates: [input.location.lonDeg, input.location.latDeg] },
         sectorFromDeg: input.sector?.fromDeg ?? null,
         sectorToDeg: input.sector?.toDeg ?? null,
+        route: routeColumn(input.route ?? null),
+        speedMps: input.speedMps ?? null,
+        cycleMinutes: input.cycleMinutes ?? null,
       },
       { transaction },
     );

@@ -18,6 +18,8 @@ import { caseKeyOf, type CoverageRunInputs } from './coverage-inputs';
 import { gridSpecFromM, gridSpecToM } from '@/shared/terrain/grid-spec';
 import { eyeAboveWaterM, type TideLevel } from '@/shared/terrain/tide-levels';
 import { shoreContextOf, shoreFiguresOf, type RunRoster } from './shore-coverage';
+import { patrolFigures, patrolLayer, patrolSamplesOf, placePatrols, sweepPatrols, type SweptPatrol } from './patrol-coverage';
+import type { PatrolTarget } from '@/shared/terrain/patrol-sweep';
 
 /** One viewshed the run needs: a post under one condition. */
 export interface CoverageViewshedJob {
@@ -160,9 +162,29 @@ export async function computeCoverage(
   const projection = gridProjection(terrain.crs);
   const areas = coverageAreas(inputs, terrain, projection);
   const placed = placePosts(inputs, terrain, projection);
+  const patrols = placePatrols(inputs, terrain, projection);
   const grid: CoverageRunGrid = { ...gridSpecToM(terrain), epsg: terrain.crs?.epsg ?? null };
   const tides: (TideLevel | null)[] = inputs.site.tideLevels?.length ? inputs.site.tideLevels : [null];
-  const progress = { done: 0, total: placed.length * inputs.conditions.length * tides.length };
+  const plannedConditions = inputs.conditions.map((condition) => {
+    const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
+    const maxDistance = viewshedRange(detections, terrain.cellSize);
+    const conditions: SightConditions = {
+      refractionCoefficient: condition.k,
+      earthRadius: inputs.earthRadiusM,
+      ...(maxDistance !== null && { maxDistance }),
+    };
+    const patrolTargets: PatrolTarget[] = inputs.targets.map((target, t) => ({
+      countsFromM: target.countsFromM,
+      rangeM: detections[t]!.rangeLimit.rangeM,
+    }));
+    return { condition, detections, conditions, patrolTargets };
+  });
+  const patrolSamples = plannedConditions.reduce(
+    (n, c) =>
+      n + patrols.reduce((m, p) => m + patrolSamplesOf(p, c.patrolTargets, c.conditions, terrain.cellSize).samples.length, 0),
+    0,
+  );
+  const progress = { done: 0, total: (placed.length * inputs.conditions.length + patrolSamples) * tides.length };
   const seaMask = seaMaskOf(inputs, terrain, (ring) => ringOnGrid(projection, ring));
   const shore = shoreContextOf(
     inputs,
@@ -178,7 +200,7 @@ export async function computeCoverage(
     layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
   };
 
-  for (const condition of inputs.conditions)
+  for (const { condition, detections, conditions, patrolTargets } of plannedConditions)
     for (const tide of tides) {
       const posts = tide
         ? placed.map((p) => ({ ...p, post: { ...p.post, eyeHeight: eyeAt(inputs, p.input, tide, p.post.eyeHeight) } }))
@@ -188,19 +210,31 @@ export async function computeCoverage(
         (0.9 * progress.done) / progress.total,
         `Viewsheds: ${condition.conditionSetName}, ${condition.label}${tide ? `, ${tide.label}` : ''}`,
       );
-      const detections = inputs.targets.map((target) => rangeLimitsOf(target, condition, inputs.resolutionArcmin));
-      const maxDistance = viewshedRange(detections, terrain.cellSize);
-      const conditions: SightConditions = {
-        refractionCoefficient: condition.k,
-        earthRadius: inputs.earthRadiusM,
-        ...(maxDistance !== null && { maxDistance }),
-      };
-      const network = await networkOf(posts, ground, conditions, computeViewsheds, report, progress);
+      const fixedNetwork = posts.length > 0 ? await networkOf(posts, ground, conditions, computeViewsheds, report, progress) : [];
+      // A patrol craft rides the tide: its eye above the water is the same at every level; the ground is the tide's.
+      const swept = await sweepPatrolsWithProgress(
+        patrols,
+        ground,
+        conditions,
+        patrolTargets,
+        computeViewsheds,
+        report,
+        progress,
+      );
       inputs.targets.forEach((target, t) => {
         const detection = detections[t]!;
         const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex, tide);
         const seaOnly = target.onWater && areas.sea !== null;
         const area = seaOnly ? areas.sea! : areas.land;
+        // The plan's posts in its order: fixed posts as they are, patrols by their view over the cycle.
+        const results = swept.map((p) => p.sweep.result(t));
+        const network: NetworkPost[] = inputs.posts.map((p) => {
+          const f = posts.findIndex((x) => x.input.id === p.id);
+          if (f >= 0) return fixedNetwork[f]!;
+          const s = swept.findIndex((x) => x.placed.input.id === p.id);
+          const first = swept[s]!.first;
+          return { post: first.post, hidden: first, classes: results[s]!.classes };
+        });
         const coverage = evaluateNetworkCoverage({
           posts: network,
           targetHeight: target.countsFromM,
@@ -213,14 +247,19 @@ export async function computeCoverage(
         });
         addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
         addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
-        coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', posts[i]!.input.id, classes));
-        const perPost = postSeenShares(
-          terrain,
-          network,
-          coverage.postClasses,
-          area.siteMask,
-          posts.map((p) => p.input),
-        );
+        coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', inputs.posts[i]!.id, classes));
+        const patrolFigs = swept.map((p, s) => {
+          addLayer(key, 'patrol-fraction', p.placed.input.id, patrolLayer(p, results[s]!, area.siteMask));
+          return patrolFigures({
+            swept: p,
+            result: results[s]!,
+            target: patrolTargets[t]!,
+            conditions,
+            mask: area.siteMask,
+            cellSize: terrain.cellSize,
+          });
+        });
+        const perPost = postSeenShares(terrain, network, coverage.postClasses, area.siteMask, inputs.posts);
         const stored = coverageCaseOf({
           key,
           target,
@@ -242,9 +281,11 @@ export async function computeCoverage(
               context: shore,
               grid: terrain,
               projection,
+              // Every post, patrols included (watched when in view at least once in the cycle).
               network,
               postClasses: coverage.postClasses,
-              posts: posts.map((p) => p.input),
+              posts: inputs.posts,
+              // What could close a gap: the fixed posts, raised.
               candidates: posts.map((p) => ({
                 x: p.xy.x,
                 y: p.xy.y,
@@ -263,7 +304,7 @@ export async function computeCoverage(
             }),
           );
         }
-        cases.push(stored);
+        cases.push(patrolFigs.length > 0 ? { ...stored, patrols: patrolFigs } : stored);
       });
     }
   // Target × condition (× tide) order, as the plan lists them.
@@ -325,27 +366,33 @@ function tideText(tide: TideLevel, datum: CoverageRunInputs['site']['heightDatum
   return `${tide.label} (${tide.levelM.toFixed(1)} m above ${datum === 'chart-datum' ? 'chart datum' : 'mean sea level'})`;
 }
 
-/** Each post's cell, eye height, sector (radians) and grid convergence; a post off the grid is refused by name. */
+/**
+ * Each fixed post's cell, eye height, sector (radians) and grid convergence; a
+ * post off the grid is refused by name. Patrols are placed by their routes
+ * (`placePatrols`).
+ */
 export function placePosts(inputs: CoverageRunInputs, terrain: TerrainRaster, projection: GridProjection) {
   const flat = inputs.terrain === null;
-  return inputs.posts.map((p) => {
-    const { x, y } = projection.toGrid({ latDeg: p.latDeg, lonDeg: p.lonDeg });
-    let cell;
-    try {
-      cell = locatePostCell(terrain, x, y);
-    } catch (error) {
-      if (error instanceof TerrainInputError)
-        throw new TerrainInputError(error.code, `Post “${p.name}” stands outside the terrain grid.`, 'postIds');
-      throw error;
-    }
-    return {
-      input: p,
-      xy: { x, y },
-      post: { ...cell, eyeHeight: p.aboveGroundM + (flat ? p.groundElevationM : 0) },
-      sector: p.sector && { from: p.sector.fromDeg * DEG, to: p.sector.toDeg * DEG },
-      gridConvergence: gridConvergence(projection, { latDeg: p.latDeg, lonDeg: p.lonDeg }),
-    };
-  });
+  return inputs.posts
+    .filter((p) => !p.patrol)
+    .map((p) => {
+      const { x, y } = projection.toGrid({ latDeg: p.latDeg, lonDeg: p.lonDeg });
+      let cell;
+      try {
+        cell = locatePostCell(terrain, x, y);
+      } catch (error) {
+        if (error instanceof TerrainInputError)
+          throw new TerrainInputError(error.code, `Post “${p.name}” stands outside the terrain grid.`, 'postIds');
+        throw error;
+      }
+      return {
+        input: p,
+        xy: { x, y },
+        post: { ...cell, eyeHeight: p.aboveGroundM + (flat ? p.groundElevationM : 0) },
+        sector: p.sector && { from: p.sector.fromDeg * DEG, to: p.sector.toDeg * DEG },
+        gridConvergence: gridConvergence(projection, { latDeg: p.latDeg, lonDeg: p.lonDeg }),
+      };
+    });
 }
 
 /**
@@ -380,4 +427,43 @@ export async function networkOf(
   await Promise.all(pending);
   if (stopped) throw (stopped as { reason: unknown }).reason;
   return posts.map((p, i) => ({ post: p.post, hidden: rasters[i]!, sector: p.sector, gridConvergence: p.gridConvergence }));
+}
+
+/** Every patrol swept under one condition, reporting progress as its viewsheds finish (a cancel stops it, as for posts). */
+async function sweepPatrolsWithProgress(
+  patrols: ReturnType<typeof placePatrols>,
+  terrain: TerrainRaster,
+  conditions: SightConditions,
+  targets: readonly PatrolTarget[],
+  computeViewsheds: ComputeViewsheds,
+  report: ReportProgress,
+  progress: { done: number; total: number },
+): Promise<SweptPatrol[]> {
+  if (patrols.length === 0) return [];
+  const pending: Promise<void>[] = [];
+  let stopped: { reason: unknown } | null = null;
+  const checkpoint = async () => {
+    await Promise.all(pending);
+    if (stopped) throw (stopped as { reason: unknown }).reason;
+  };
+  const swept = await sweepPatrols(
+    patrols,
+    terrain,
+    conditions,
+    targets,
+    computeViewsheds,
+    () => {
+      progress.done += 1;
+      pending.push(
+        report((0.9 * progress.done) / progress.total, `Patrol views: ${progress.done} of ${progress.total}`).catch(
+          (reason: unknown) => {
+            stopped ??= { reason };
+          },
+        ),
+      );
+    },
+    checkpoint,
+  );
+  await checkpoint();
+  return swept;
 }

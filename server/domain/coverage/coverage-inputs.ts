@@ -61,6 +61,12 @@ export interface CoverageRunInputs {
     sector: { fromDeg: number; toDeg: number } | null;
     /** A vessel: rides the tide (present only when true). */
     floats?: true;
+    /**
+     * A vessel's or aircraft's patrol: its route (WGS84), speed (m/s) and
+     * cycle (minutes). Absent for a fixed post (so the inputs of plans
+     * without patrols hash as before).
+     */
+    patrol?: { route: { latDeg: number; lonDeg: number }[]; speedMps: number; cycleMinutes: number };
   }[];
   targets: {
     id: string;
@@ -210,6 +216,9 @@ export function buildCoverageInputs(input: {
       aboveGroundM: p.structureHeightM + p.eyeHeightM,
       sector: p.sector,
       ...(p.kind === 'vessel' && { floats: true as const }),
+      ...(p.route &&
+        p.speedMps &&
+        p.cycleMinutes && { patrol: { route: p.route, speedMps: p.speedMps, cycleMinutes: p.cycleMinutes } }),
     })),
     targets: input.targets.map((t) => ({
       id: t.id,

@@ -209,12 +209,15 @@ export async function coverageLayer(
   if (!run.cases.some((c) => c.key === caseKey)) {
     throw AppError.badRequest('No such case in this run.', { caseKey: 'Not a case of this run.' });
   }
-  if (layer === 'post-visibility') {
+  const perPost = layer === 'post-visibility' || layer === 'patrol-fraction';
+  if (perPost) {
     if (!postId) throw AppError.badRequest('Name the post.', { postId: 'Give the post whose view you want.' });
     if (!run.cases[0]!.posts.some((p) => p.postId === postId))
       throw AppError.badRequest('No such post in this run.', { postId: 'Not a post of this run.' });
+    if (layer === 'patrol-fraction' && !(run.cases[0]!.patrols ?? []).some((p) => p.postId === postId))
+      throw AppError.badRequest('That post does not patrol in this run.', { postId: 'Not a patrol of this run.' });
   }
-  const encoded = await coverageRepository.layer(runId, caseKey, layer, layer === 'post-visibility' ? postId! : '');
+  const encoded = await coverageRepository.layer(runId, caseKey, layer, perPost ? postId! : '');
   if (!encoded) throw AppError.notFound('That layer');
   return encoded;
 }

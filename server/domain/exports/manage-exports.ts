@@ -224,7 +224,9 @@ export async function layerFileExport(
     .at(-1);
   if (frozenBy) {
     const verified = verifiedRevision(run.planId, frozenBy);
-    const key = [layer, caseKey, layer === 'post-visibility' ? postId : ''].filter(Boolean).join(':');
+    const key = [layer, caseKey, layer === 'post-visibility' || layer === 'patrol-fraction' ? postId : '']
+      .filter(Boolean)
+      .join(':');
     checkLayerHash(verified.snapshot!.coverage!, run.planId, verified.number, key, encoded);
   }
   const c = run.cases.find((x) => x.key === caseKey)!;

@@ -6,9 +6,21 @@ import { sitesRepository } from '@/server/data/repositories/sites-repository';
 import { AppError } from '@/server/domain/app-error';
 import type { Actor } from '../actor';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
+import { checkPatrol, type PatrolFields } from '@/shared/patrol/check-patrol';
 import { staleMessage, writeVersioned } from '@/server/domain/audit/versioned-write';
 
 const STALE = staleMessage();
+
+/**
+ * 422 `invalid_patrol` with the fields at fault when a post's route, speed,
+ * cycle and kind do not fit together (`checkPatrol`); checked on the post as
+ * it would be stored, so a change to one field is judged with the others.
+ */
+function refuseBadPatrol(post: PatrolFields): void {
+  const fields = checkPatrol(post);
+  const first = Object.values(fields)[0];
+  if (first !== undefined) throw new AppError(422, 'invalid_patrol', first, fields);
+}
 
 /** The organisation's sites, a page at a time. */
 export function listSites(actor: Actor, page: number, pageSize: number) {
@@ -76,6 +88,7 @@ export async function getPost(actor: Actor, siteId: string, id: string): Promise
 export function createPost({ db }: UseCaseDeps, actor: Actor, siteId: string, input: PostInput): Promise<Post> {
   return db.transaction(async (t) => {
     if (!(await sitesRepository.findInOrganization(actor.organizationId, siteId, t))) throw AppError.notFound('That site');
+    refuseBadPatrol(input);
     const post = await postsRepository.create(actor.organizationId, siteId, input, t);
     await auditRepository.record(actor, { action: 'create', entityType: 'post', entityId: post.id, after: post }, t);
     return post;
@@ -93,6 +106,7 @@ export function updatePost(
     const before = await postsRepository.findInSite(actor.organizationId, siteId, id, t);
     if (!before) throw AppError.notFound('That post');
     const { version, ...changes } = input;
+    refuseBadPatrol({ ...before, ...changes });
     return writeVersioned(actor, t, { entityType: 'post', entityId: id, before, stale: STALE }, () =>
       postsRepository.updateIfVersion(actor.organizationId, siteId, id, version, changes, t),
     );
@@ -138,10 +152,23 @@ export function duplicatePost({ db }: UseCaseDeps, actor: Actor, siteId: string,
     if (!original) throw AppError.notFound('That post');
     const taken = new Set((await postsRepository.listInSite(actor.organizationId, siteId, t)).map((p) => p.name));
     const { name, kind, location, groundElevationM, structureHeightM, eyeHeightM, sector, status } = original;
+    const { route, speedMps, cycleMinutes } = original;
     const post = await postsRepository.create(
       actor.organizationId,
       siteId,
-      { name: copyName(name, taken), kind, location, groundElevationM, structureHeightM, eyeHeightM, sector, status },
+      {
+        name: copyName(name, taken),
+        kind,
+        location,
+        groundElevationM,
+        structureHeightM,
+        eyeHeightM,
+        sector,
+        status,
+        route,
+        speedMps,
+        cycleMinutes,
+      },
       t,
     );
     await auditRepository.record(
