@@ -191,7 +191,7 @@ export async function computeCoverage(
     terrain,
     projection,
     seaMask,
-    placed.map((p) => p.xy),
+    inputs.posts.map((p) => placed.find((x) => x.input.id === p.id)?.xy ?? null),
   );
   const cases: CoverageCase[] = [];
   const layers: ComputedLayer[] = [];

@@ -37,8 +37,8 @@ export interface ShoreContext {
   seaSide: SeaSide;
   lengthM: number;
   shore: NonNullable<CoverageRunInputs['site']['shore']>;
-  /** Each post's chainage (nearest station) and distance from it, metres. */
-  postPlaces: { chainageM: number; offsetM: number }[];
+  /** Each post's chainage (nearest station) and distance from it, metres; null for a patrol, which has no one place. */
+  postPlaces: ({ chainageM: number; offsetM: number } | null)[];
 }
 
 /**
@@ -51,7 +51,7 @@ export function shoreContextOf(
   grid: GridSpec & { heights?: Float32Array },
   projection: GridProjection,
   seaMask: Uint8Array | null,
-  postsXY: readonly { x: number; y: number }[],
+  postsXY: readonly ({ x: number; y: number } | null)[],
 ): ShoreContext | null {
   const shore = inputs.site.shore;
   if (!shore) return null;
@@ -90,6 +90,7 @@ export function shoreContextOf(
   const stations = shoreStations(line, lengths, grid.cellSize, side);
   const lengthM = lengths.reduce((a, b) => a + b, 0);
   const postPlaces = postsXY.map((p) => {
+    if (p === null) return null;
     let best = { chainageM: 0, offsetM: Infinity };
     for (const s of stations) {
       const d = Math.hypot(s.x - p.x, s.y - p.y);
@@ -214,12 +215,13 @@ export function shoreFiguresOf(args: {
       lengthM: round(context.lengthM, 1),
       stations: stations.length,
       seaSide: context.seaSide,
-      posts: posts.map((p, i) => ({
-        postId: p.id,
-        postName: p.name,
-        chainageM: round(context.postPlaces[i]!.chainageM, 1),
-        offsetM: round(context.postPlaces[i]!.offsetM, 1),
-      })),
+      // The posts that stand somewhere (patrols move: they have no column on the strip).
+      posts: posts.flatMap((p, i) => {
+        const place = context.postPlaces[i];
+        return place
+          ? [{ postId: p.id, postName: p.name, chainageM: round(place.chainageM, 1), offsetM: round(place.offsetM, 1) }]
+          : [];
+      }),
     },
     bands,
     gaps,

@@ -26,8 +26,8 @@ export interface SitingDeps extends UseCaseDeps {
 const DEFAULT_STANDARD: Plan['standard'] = { minSeenPct: 70, priorityMinPosts: 2, targetRules: [], crossBearingMinPct: null };
 const DEFAULT_LOOKOUT: Plan['lookout'] = { resolutionArcmin: 1, magnification: 1 };
 
-/** 422 with the fields at fault: the request was well formed but names things that do not fit. */
-const unfit = (message: string, fields: FieldErrors) => new AppError(422, 'invalid_input', message, fields);
+/** 400 `invalid_input` with the fields at fault (a request naming things that do not fit), as the API answers any bad field. */
+const unfit = (message: string, fields: FieldErrors) => AppError.badRequest(message, fields);
 
 /** The API shape of a run. */
 export function toSitingRun(run: SitingRunRecord): SitingRun {
