@@ -6,6 +6,7 @@ import { formatMgrs } from '@/shared/geo/mgrs';
 import type { IncidentFix, IncidentReport } from '@/shared/schemas/incident';
 import type { Post } from '@/shared/schemas/site';
 import { formatLength } from '@/components/check/format';
+import { useSiteLandmarks } from '@/components/data/landmarks';
 import { useLengthUnits } from '@/components/data/session';
 import { COORDINATE_FORMATS, DATUM_LABEL, useCoordinateFormat } from '@/components/map/coordinate-format';
 import { AppText } from '@/components/ui/app-text';
@@ -15,12 +16,13 @@ import { Chip, ChipRow } from '@/components/ui/chip';
 import { Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
 import { areaText, bearingText, INCIDENT_CAUTIONS } from './incident-words';
+import { nearestLandmarkLegs } from './landmark-legs';
 import { visibilitySentence } from './visibility-words';
 
 /**
  * The incident's current fix: where, how sure (the error area and its
  * method, the cut angle or residuals), from where (distance and bearing from
- * each post), what looks wrong (warnings, the bearing that disagrees) and
+ * each post and from the site's nearest landmarks), what looks wrong (warnings, the bearing that disagrees) and
  * whether each post can see the place at all.
  */
 export function IncidentFixCard({
@@ -41,6 +43,7 @@ export function IncidentFixCard({
   const router = useRouter();
   const [format, setFormat] = useCoordinateFormat();
   const { distance, height } = useLengthUnits();
+  const landmarks = useSiteLandmarks(siteId);
   if (!fix) {
     return (
       <Card style={{ gap: space.sm }} aria-label="Fix">
@@ -148,6 +151,16 @@ export function IncidentFixCard({
           );
         })}
       </View>
+      {landmarks.data && landmarks.data.length > 0 ? (
+        <View style={{ gap: 2 }} role="list" aria-label="From the landmarks">
+          <AppText variant="label">From the landmarks</AppText>
+          {nearestLandmarkLegs(landmarks.data, fix).map((leg) => (
+            <AppText key={leg.id} variant="small" role="listitem">
+              {formatLength(leg.distanceM, distance)} at {bearingText(leg.bearingDeg)} true from {leg.name}
+            </AppText>
+          ))}
+        </View>
+      ) : null}
       {fix.visibility && fix.visibility.length > 0 ? (
         <View style={{ gap: space.xs }} aria-label="Can each post see the place?">
           <AppText variant="label">Can each post see the place?</AppText>

@@ -69,6 +69,11 @@ it('a bearing and a vertical angle from one post give a fix with its range inter
   await p.goto(`${e2eUrl()}/incidents/${incidentId}`);
   await p.getByRole('heading', { name: title }).waitFor();
   await p.getByLabel('Range from the vertical angle').waitFor();
+  // The fix told from the demo forest's landmarks too, nearest first (all three are within a few km).
+  const fromLandmarks = p.getByRole('list', { name: 'From the landmarks' });
+  await fromLandmarks.getByRole('listitem').first().waitFor();
+  expect(await fromLandmarks.getByRole('listitem').count()).toBe(3);
+  await fromLandmarks.getByText(/ at \d{3}° true from Tarnwick Fire Hut$/).waitFor();
   await p.screenshot({ path: '/tmp/landmark-vertical-fix-wide.png', fullPage: true });
   await p.getByRole('link', { name: 'Show on the map' }).click();
   await p.waitForURL(/\/sites\/[0-9a-f-]{36}\/map\?/);
