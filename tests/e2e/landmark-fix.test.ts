@@ -73,7 +73,7 @@ it('a bearing and a vertical angle from one post give a fix with its range inter
   const fromLandmarks = p.getByRole('list', { name: 'From the landmarks' });
   await fromLandmarks.getByRole('listitem').first().waitFor();
   expect(await fromLandmarks.getByRole('listitem').count()).toBe(3);
-  await fromLandmarks.getByText(/ at \d{3}° true from Tarnwick Fire Hut$/).waitFor();
+  await fromLandmarks.getByText(/ at \d{3}\.\d° true from Tarnwick Fire Hut$/).waitFor();
   await p.screenshot({ path: '/tmp/landmark-vertical-fix-wide.png', fullPage: true });
   await p.getByRole('link', { name: 'Show on the map' }).click();
   await p.waitForURL(/\/sites\/[0-9a-f-]{36}\/map\?/);
