@@ -69,7 +69,7 @@ it('a bearing and a vertical angle from one post give a fix with its range inter
   await p.goto(`${e2eUrl()}/incidents/${incidentId}`);
   await p.getByRole('heading', { name: title }).waitFor();
   await p.getByLabel('Range from the vertical angle').waitFor();
-  // The fix told from the demo forest's landmarks too, nearest first (all three are within a few km).
+  // The fix told from the demo forest's three landmarks too, nearest first.
   const fromLandmarks = p.getByRole('list', { name: 'From the landmarks' });
   await fromLandmarks.getByRole('listitem').first().waitFor();
   expect(await fromLandmarks.getByRole('listitem').count()).toBe(3);
