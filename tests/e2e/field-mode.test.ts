@@ -1,7 +1,7 @@
 import type { Page } from 'playwright-core';
 import { DEMO } from '@/tests/support/agents';
 import { browserForFile } from '@/tests/support/browser';
-import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { e2eUrl, openPlace, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 const browser = browserForFile();
 
@@ -22,10 +22,10 @@ async function shellKept(page: Page) {
   );
 }
 
-/** Whether the device still keeps a copy of the query cache (IndexedDB `kenning-cache`). */
-const deviceCopyKept = (page: Page) =>
+/** Whether the device still keeps a copy of the query cache (IndexedDB `kenning-cache`) holding `word` (a query key part). */
+const deviceCopyKept = (page: Page, word = 'briefing') =>
   page.evaluate(
-    () =>
+    (word) =>
       new Promise<boolean>((resolve) => {
         const open = indexedDB.open('kenning-cache');
         open.onerror = () => resolve(false);
@@ -33,10 +33,11 @@ const deviceCopyKept = (page: Page) =>
           const db = open.result;
           if (!db.objectStoreNames.contains('cache')) return resolve(false);
           const get = db.transaction('cache').objectStore('cache').get('queries');
-          get.onsuccess = () => resolve(typeof get.result === 'string' && get.result.includes('briefing'));
+          get.onsuccess = () => resolve(typeof get.result === 'string' && get.result.includes(word));
           get.onerror = () => resolve(false);
         };
       }),
+    word,
   );
 
 it('starts with no network on a phone: the briefing from the device’s copy, marked offline, and the quick check computed on the device', async () => {
@@ -47,8 +48,18 @@ it('starts with no network on a phone: the briefing from the device’s copy, ma
     await signIn(page, DEMO.observer);
     await page.waitForURL(/\/briefing$/);
     await page.getByText('What you see from here, over the terrain').first().waitFor();
+    // An open course attempt is kept too (its questions are fixed once started): the demo's refresher, again.
+    await openPlace(page, 'Training');
+    await page
+      .getByLabel('Course Horizon and hidden height, season refresher')
+      .getByRole('button', { name: /^(Start the course|Take it again)$/ })
+      .click();
+    await page.waitForURL(/\/training\/attempt\?/);
+    const attemptUrl = page.url();
+    await page.getByText(/^Question 1 of \d+$/).waitFor();
     await shellKept(page);
     await expectEventually(() => deviceCopyKept(page));
+    await expectEventually(() => deviceCopyKept(page, 'attempt'));
 
     // The network goes; the app is started again from cold (a new tab, nothing of the app in memory). The first
     // tab closes only after the new one has loaded: it keeps the worker running, so how fast a loaded machine
@@ -65,6 +76,11 @@ it('starts with no network on a phone: the briefing from the device’s copy, ma
     await cold.getByText(/^Offline · showing what this device kept, last updated/).waitFor();
     await cold.getByText('What you see from here, over the terrain').first().waitFor();
     await shot(cold, 'field-mode-offline-briefing', 'phone');
+
+    // The open attempt's questions, from the device's copy.
+    await cold.goto(attemptUrl);
+    await cold.getByText(/^Question 1 of \d+$/).waitFor();
+    await shot(cold, 'field-mode-offline-attempt', 'phone');
 
     // The quick check needs no server: the same core runs on the device and says so.
     await cold.goto(`${e2eUrl()}/check`);
