@@ -1,3 +1,7 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import type { Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import type request from 'supertest';
@@ -236,5 +240,39 @@ describe('the coverage run along the shore', () => {
     const long = await planner.get(`/api/v1/coverage-runs/${run.id}/hourly`).query({ caseKey: run.cases[0]!.key, days: 8 });
     expect(long.status).toBe(400);
     expect(long.body.error.fields.days).toMatch(/1 to 7/);
+  });
+
+  it('prints the bands, the unwatched stretches and the patrol in the plan package', async () => {
+    const res = await planner
+      .get(`/api/v1/plans/${plan.id}/preview/report.pdf`)
+      .buffer(true)
+      .parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(res.status).toBe(200);
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'kenning-coast-report-'));
+    try {
+      const file = path.join(dir, 'package.pdf');
+      writeFileSync(file, res.body as Buffer);
+      // poppler-utils' pdftotext; runs of spaces squeezed to compare words.
+      const flat = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+      const [c] = run.cases;
+      expect(flat).toContain('The shore, band by band');
+      for (const b of c!.bands) expect(flat).toContain(`${b.name} `);
+      // The ≥ 1 share of the first band as the run has it, one decimal.
+      expect(flat).toContain(`(${c!.bands[0]!.watched1.pct.toFixed(1)} %)`);
+      const unwatched = c!.gaps.filter((g) => g.kind === 'unwatched');
+      expect(flat).toContain(
+        unwatched.length === 0 ? 'No unwatched stretch in any band' : `${unwatched.length} unwatched stretch`,
+      );
+      if (c!.patrols?.length) {
+        expect(flat).toContain('Patrols');
+        for (const p of c!.patrols) expect(flat).toContain(p.postName);
+      }
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });

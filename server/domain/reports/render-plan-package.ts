@@ -652,6 +652,115 @@ async function caseSection(
       { size: 8 },
     );
   }
+  shoreSection(r, c, format);
+  patrolSection(r, c);
+}
+
+/**
+ * The shore watched band by band (coast sites with a shoreline and bands): the
+ * share of the shore each band is watched along, the gaps with what would close
+ * them, and the unwatched hours of the day the run was computed.
+ */
+function shoreSection(r: ReportDocument, c: CoverageCase, format: PlanPackageData['options']['coordinateFormat']) {
+  if (!c.shore || c.bands.length === 0) return;
+  heading(r, 'The shore, band by band', 2);
+  paragraph(
+    r,
+    `Along ${formatDistance(c.shore.lengthM)} of shoreline (chainage from its start). A post watches a band at a place on the shore when it sees the target at every point of the offshore transect there within the band; the shore is counted in ${c.shore.stations} stretches about one grid cell long.`,
+    { size: 8.5 },
+  );
+  table(
+    r,
+    [
+      { title: 'Band', weight: 1.4 },
+      { title: 'Offshore', weight: 1.2 },
+      { title: 'Watched by ≥ 1', weight: 1.2, align: 'right' },
+      { title: '≥ 2', weight: 1.2, align: 'right' },
+    ],
+    c.bands.map((b) => [
+      b.name,
+      `${formatDistance(b.fromM)}–${formatDistance(b.toM)}`,
+      `${formatDistance(b.watched1.lengthM)} (${formatPct(b.watched1.pct)})`,
+      `${formatDistance(b.watched2.lengthM)} (${formatPct(b.watched2.pct)})`,
+    ]),
+    { size: 8 },
+  );
+  const unwatched = c.gaps.filter((g) => g.kind === 'unwatched');
+  const seams = c.gaps.length - unwatched.length;
+  paragraph(
+    r,
+    unwatched.length === 0
+      ? `No unwatched stretch in any band${seams > 0 ? ` (${seams} place${seams === 1 ? '' : 's'} where two posts' stretches only just meet)` : ''}.`
+      : `${unwatched.length} unwatched stretch${unwatched.length === 1 ? '' : 'es'}${seams > 0 ? `, and ${seams} place${seams === 1 ? '' : 's'} where two posts' stretches only just meet` : ''}. The post named could close a stretch; "raise" is the smooth-sea height it would need to gain (an estimate: terrain may hide the water still).`,
+    { size: 8.5 },
+  );
+  if (unwatched.length > 0) {
+    table(
+      r,
+      [
+        { title: 'Band', weight: 1 },
+        { title: 'Chainage', weight: 1.3 },
+        { title: 'Length', weight: 0.7, align: 'right' },
+        { title: 'Middle', weight: 2 },
+        { title: 'Could be closed by', weight: 1.8 },
+      ],
+      unwatched.map((g) => [
+        g.band,
+        `${formatDistance(g.fromM)}–${formatDistance(g.toM)}`,
+        formatDistance(g.lengthM),
+        formatPosition(g.at, format),
+        !g.closer
+          ? '—'
+          : g.closer.blockedBy
+            ? `${g.closer.postName}: not by height (${g.closer.blockedBy === 'sector' ? 'outside its sector' : 'beyond its range'})`
+            : g.closer.raiseByM
+              ? `${g.closer.postName}, ${formatHeight(g.closer.raiseByM)} higher`
+              : `${g.closer.postName} (height is not what hides it)`,
+      ]),
+      { size: 7.5 },
+    );
+  }
+  if (c.hourly) {
+    const hours = c.hourly.unwatchedHours;
+    paragraph(
+      r,
+      hours.length === 0
+        ? `Every hour of ${c.hourly.date} (${c.hourly.timeZone}) has some of each band watched, from the roster as read at ${c.hourly.rosterReadAt.slice(0, 16).replace('T', ' ')} UTC.`
+        : `Hours of ${c.hourly.date} (${c.hourly.timeZone}) with a band unwatched, from the roster as read at ${c.hourly.rosterReadAt.slice(0, 16).replace('T', ' ')} UTC: ${hours.map((h) => `${h.local.slice(11, 16)} (${h.bands.join(', ')})`).join('; ')}.`,
+      { size: 8.5 },
+    );
+  }
+}
+
+/** Each patrol's figures over its cycle, with the model they follow. */
+function patrolSection(r: ReportDocument, c: CoverageCase) {
+  if (!c.patrols || c.patrols.length === 0) return;
+  heading(r, 'Patrols', 2);
+  paragraph(
+    r,
+    'A patrol counts where it detects the target at least once in its cycle. Sweep width W = 2 × the detection range over open water (definite-range law); coverage factor C = W·L/A for the track length L run in one cycle over the judged area A; probability of detection 1 − e^(−C) (random search). Estimates only: detection at sea depends on the sea state, the lookout and the light.',
+    { size: 8.5 },
+  );
+  table(
+    r,
+    [
+      { title: 'Patrol', weight: 1.6 },
+      { title: 'Route', weight: 0.8, align: 'right' },
+      { title: 'Cycle', weight: 0.7, align: 'right' },
+      { title: 'Swept', weight: 1.3, align: 'right' },
+      { title: 'Time in view', weight: 0.9, align: 'right' },
+      { title: 'POD', weight: 0.6, align: 'right' },
+    ],
+    c.patrols.map((p) => [
+      p.postName,
+      formatDistance(p.routeLengthM),
+      `${Math.round(p.cycleMinutes)} min`,
+      `${formatArea(p.sweptAreaM2)} (${formatPct(p.sweptPct)})`,
+      formatPct(p.meanFractionInView * 100),
+      p.pod === null ? '—' : formatPct(p.pod * 100),
+    ]),
+    { size: 8 },
+  );
 }
 
 /** A point surely inside a blind area (older runs: its centre of mass), grid metres. */
