@@ -134,7 +134,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('coast watch on the %s v
       await strips.getByRole('img', { name: /Strip chart of the shore/ }).scrollIntoViewIfNeeded();
       await coastShot(page, 'strips', viewport);
 
-      // An unwatched hour on a day ahead, closed by moving a watch an hour earlier.
+      // An unwatched hour on a day ahead (a gap between two watches), closed on the roster screen.
       const run = (await apiJson<{ latest: { id: string; cases: { key: string }[] } }>(page, 'GET', `/plans/${plan.id}/coverage`))
         .latest;
       const day = DateTime.now()
@@ -167,14 +167,12 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('coast watch on the %s v
         startsAt: at(8),
         endsAt: at(13),
       });
-      const late = (
-        await apiJson<{ assignment: { id: string; version: number } }>(page, 'POST', '/assignments', {
-          postId: post('Gull Point'),
-          userId: person('Ines Marrow'),
-          startsAt: at(14),
-          endsAt: at(20),
-        })
-      ).assignment;
+      await apiJson(page, 'POST', '/assignments', {
+        postId: post('Gull Point'),
+        userId: person('Ines Marrow'),
+        startsAt: at(14),
+        endsAt: at(20),
+      });
       const hourly = async () =>
         (
           await apiJson<{ hourly: { unwatchedHours: { local: string }[] } }>(
@@ -186,7 +184,21 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('coast watch on the %s v
           .map((u) => u.local.slice(11))
           .filter((h) => h >= '08:00' && h < '20:00');
       expect(await hourly()).toEqual(['13:00']);
-      await apiJson(page, 'PATCH', `/assignments/${late.id}`, { startsAt: at(13), version: late.version });
+      // The supervisor closes the hour on the site's roster: Ines Marrow on Gull Point 13:00–14:00 that day
+      // (the site's local time), between her two watches.
+      await page.goto(`${e2eUrl()}/sites/${coast.id}`);
+      const watchForm = page.getByLabel('Put someone on a post');
+      await watchForm.getByRole('checkbox', { name: 'Gull Point' }).click();
+      await watchForm.getByRole('checkbox', { name: 'Ines Marrow' }).click();
+      await watchForm.getByLabel('From', { exact: true }).fill(`${day.toISODate()} 13:00`);
+      await watchForm.getByLabel('To', { exact: true }).fill(`${day.toISODate()} 14:00`);
+      await watchForm.getByLabel('From', { exact: true }).scrollIntoViewIfNeeded();
+      await coastShot(page, 'close-hour', viewport);
+      await watchForm.getByRole('button', { name: 'Put on watch' }).click();
+      // Saved: the form clears its times for the next watch.
+      const from = watchForm.getByLabel('From', { exact: true });
+      for (let i = 0; i < 100 && (await from.inputValue()) !== ''; i++) await page.waitForTimeout(100);
+      expect(await from.inputValue()).toBe('');
       expect(await hourly()).toEqual([]);
 
       // Today's hour by hour on the page.
