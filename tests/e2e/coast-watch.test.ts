@@ -186,6 +186,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('coast watch on the %s v
       expect(await hourly()).toEqual(['13:00']);
       // The supervisor closes the hour on the site's roster: Ines Marrow on Gull Point 13:00–14:00 that day
       // (the site's local time), between her two watches.
+      const planUrl = page.url();
       await page.goto(`${e2eUrl()}/sites/${coast.id}`);
       const watchForm = page.getByLabel('Put someone on a post');
       await watchForm.getByRole('checkbox', { name: 'Gull Point' }).click();
@@ -201,7 +202,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('coast watch on the %s v
       expect(await from.inputValue()).toBe('');
       expect(await hourly()).toEqual([]);
 
-      // Today's hour by hour on the page.
+      // Today's hour by hour on the plan's page.
+      await page.goto(planUrl);
       await strips.getByLabel('Hour by hour', { exact: true }).scrollIntoViewIfNeeded();
       await strips.getByRole('table', { name: 'Watched share of each band by hour' }).waitFor();
       await coastShot(page, 'hourly', viewport);

@@ -56,7 +56,10 @@ it('starts with no network on a phone: the briefing from the device’s copy, ma
       .click();
     await page.waitForURL(/\/training\/attempt\?/);
     const attemptUrl = page.url();
-    await page.getByText(/^Question 1 of \d+$/).waitFor();
+    await page
+      .getByText(/Question 1 of \d+/)
+      .first()
+      .waitFor();
     await shellKept(page);
     await expectEventually(() => deviceCopyKept(page));
     await expectEventually(() => deviceCopyKept(page, 'attempt'));
@@ -79,7 +82,10 @@ it('starts with no network on a phone: the briefing from the device’s copy, ma
 
     // The open attempt's questions, from the device's copy.
     await cold.goto(attemptUrl);
-    await cold.getByText(/^Question 1 of \d+$/).waitFor();
+    await cold
+      .getByText(/Question 1 of \d+/)
+      .first()
+      .waitFor();
     await shot(cold, 'field-mode-offline-attempt', 'phone');
 
     // The quick check needs no server: the same core runs on the device and says so.
