@@ -249,6 +249,7 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
           .map((p) => (
             <CheckRow key={p.id} label={p.name} checked={kept.includes(p.id)} onToggle={() => setKept(toggle(kept, p.id))} />
           ))}
+        {fieldError('keepPostIds') ? <FormError message={fieldError('keepPostIds')!} /> : null}
       </View>
       <TextField
         label="Tower heights to try"

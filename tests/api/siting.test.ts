@@ -247,6 +247,13 @@ describe('siting runs', () => {
     expect(strangers.body.error.fields['candidates.0.postId']).toMatch(/kept already/);
     expect(strangers.body.error.fields['candidates.1.postId']).toMatch(/No such post/);
 
+    // A place off the site's terrain is refused up front, by name, rather than failing the run later.
+    const far = await planner
+      .post(`/api/v1/sites/${forestId}/siting-runs`)
+      .send({ ...request1(), candidates: [{ latDeg: 61.05, lonDeg: 14.1, name: 'Far hill' }] })
+      .expect(400);
+    expect(far.body.error.fields['candidates.0.latDeg']).toMatch(/Far hill lies outside the site's terrain/);
+
     const noTarget = await planner
       .post(`/api/v1/sites/${forestId}/siting-runs`)
       .send({ ...request1(), targetId: '00000000-0000-4000-8000-000000000000' })

@@ -131,8 +131,8 @@ describe('bearings from two phones give the planner a fix', () => {
       await a.waitForURL(/\/incidents\/[0-9a-f-]{36}$/);
       const incidentUrl = a.url();
       const incidentId = incidentUrl.split('/').pop()!;
-      // The lookout's watch post is chosen already.
-      expect(await a.getByRole('checkbox', { name: 'Crane Knoll Tower' }).getAttribute('aria-checked')).toBe('true');
+      // The lookout's watch post is chosen already (once the watch has loaded).
+      await a.getByRole('checkbox', { name: 'Crane Knoll Tower', checked: true }).waitFor();
       await reportBearing(a, craneTrue.toFixed(1), 'true');
       await a.getByText('Bearings from one post so far. A fix needs bearings from at least two posts.').waitFor();
       await shot(a, 'incident-first-bearing', 'phone');
@@ -146,7 +146,7 @@ describe('bearings from two phones give the planner a fix', () => {
         .waitFor();
       await b.goto(`${e2eUrl()}/incidents/${incidentId}`);
       await b.getByRole('heading', { name: title }).waitFor();
-      expect(await b.getByRole('checkbox', { name: 'Sedge Ridge Tower' }).getAttribute('aria-checked')).toBe('true');
+      await b.getByRole('checkbox', { name: 'Sedge Ridge Tower', checked: true }).waitFor();
       // No signal on the ridge: the report waits on the phone, then goes once the network is back.
       await second.context.setOffline(true);
       await reportBearing(b, sedgeMagnetic.toFixed(1), 'magnetic', { offline: true });

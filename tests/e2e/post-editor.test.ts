@@ -3,6 +3,7 @@ import { browserForFile, eachViewport } from '@/tests/support/browser';
 import { e2eUrl, shot, signIn, watchErrors } from '@/tests/support/e2e';
 import { DEMO } from '@/tests/support/agents';
 import { ridgePng } from '@/tests/support/pictures';
+import { fromUtm } from '@/shared/geo/from-utm';
 
 const browser = browserForFile();
 
@@ -11,7 +12,14 @@ async function newPost(page: Page, name: string) {
   const sites = await (await page.request.get(`${e2eUrl()}/api/v1/sites`)).json();
   const site = sites.items.find((s: { name: string }) => s.name === 'Harrowmere Forest District');
   const res = await page.request.post(`${e2eUrl()}/api/v1/sites/${site.id}/posts`, {
-    data: { name, kind: 'tower', location: { latDeg: 61.05, lonDeg: 14.1 }, groundElevationM: 412, structureHeightM: 18 },
+    // On the demo forest's terrain (UTM 33N), where every screen of the site can place it.
+    data: {
+      name,
+      kind: 'tower',
+      location: fromUtm({ zone: 33, hemisphere: 'N', easting: 520_600, northing: 5_736_400 }),
+      groundElevationM: 412,
+      structureHeightM: 18,
+    },
   });
   expect(res.status()).toBe(201);
   return { siteId: site.id as string, post: (await res.json()).post as { id: string; version: number } };

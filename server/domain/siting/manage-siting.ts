@@ -2,6 +2,11 @@ import type { Plan } from '@/shared/schemas/plan';
 import type { Post } from '@/shared/schemas/site';
 import type { SitingCandidate, SitingRun, SitingRunRequest } from '@/shared/schemas/siting';
 import { ACTIVE_RUN_STATUSES } from '@/shared/schemas/coverage';
+import type { LatLon } from '@/shared/geo/types';
+import { gridProjection } from '@/shared/terrain/grid-projection';
+import { gridSpecFromM } from '@/shared/terrain/grid-spec';
+import { locatePostCell } from '@/shared/terrain/locate-post-cell';
+import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { auditRepository } from '@/server/data/repositories/audit-repository';
 import { conditionSetsRepository, targetsRepository } from '@/server/data/repositories/library-repository';
 import { plansRepository } from '@/server/data/repositories/plans-repository';
@@ -98,10 +103,29 @@ async function freezeInputs(actor: Actor, siteId: string, input: SitingRunReques
   const posts = await postsRepository.listInSite(actor.organizationId, siteId);
   const byId = new Map(posts.map((p) => [p.id, p]));
   const fields: FieldErrors = {};
+  // Every place must stand on the terrain: asked now, so the run does not fail later on one stray post.
+  const crs = { epsg: terrain.epsg, wkt: terrain.crsWkt };
+  const projection = gridProjection(crs);
+  const grid = gridSpecFromM(
+    { width: terrain.width, height: terrain.height, cellSizeM: terrain.cellSizeM, xllM: terrain.xllM, yllM: terrain.yllM },
+    crs,
+  );
+  const offTerrain = (at: LatLon) => {
+    const { x, y } = projection.toGrid(at);
+    try {
+      locatePostCell(grid, x, y);
+      return false;
+    } catch (error) {
+      if (error instanceof TerrainInputError) return true;
+      throw error;
+    }
+  };
   const kept: Post[] = [];
   input.keepPostIds.forEach((id, i) => {
     const post = byId.get(id);
     if (!post) fields[`keepPostIds.${i}`] = 'No such post on this site.';
+    else if (offTerrain(post.location))
+      fields[`keepPostIds.${i}`] = `${post.name} stands outside the site's terrain: leave it out, or move it onto the terrain.`;
     else kept.push(post);
   });
   let candidates: FrozenCandidate[] | null = null;
@@ -112,6 +136,8 @@ async function freezeInputs(actor: Actor, siteId: string, input: SitingRunReques
         if (!post) fields[`candidates.${index}.postId`] = 'No such post on this site.';
         else if (input.keepPostIds.includes(c.postId))
           fields[`candidates.${index}.postId`] = 'This post is kept already; a candidate must be a new place.';
+        else if (offTerrain(post.location))
+          fields[`candidates.${index}.postId`] = `${post.name} stands outside the site's terrain: it cannot be judged there.`;
         return {
           index,
           name: post?.name ?? '',
@@ -126,6 +152,8 @@ async function freezeInputs(actor: Actor, siteId: string, input: SitingRunReques
             : null,
         };
       }
+      if (offTerrain(c))
+        fields[`candidates.${index}.latDeg`] = `${c.name} lies outside the site's terrain: it cannot be judged there.`;
       return {
         index,
         name: c.name,
