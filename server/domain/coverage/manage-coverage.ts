@@ -1,6 +1,5 @@
 import { UniqueConstraintError } from 'sequelize';
 import type { CoverageComparison, CoverageLayerName, CoverageRun, PlanCoverage } from '@/shared/schemas/coverage';
-import { ACTIVE_RUN_STATUSES } from '@/shared/schemas/coverage';
 import { compareCoverage } from '@/shared/terrain/coverage-difference';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
 import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';
@@ -15,6 +14,7 @@ import { AppError } from '@/server/domain/app-error';
 import type { CoverageQueue } from '@/server/domain/ports/coverage-queue';
 import type { Actor } from '../actor';
 import { getPlan, loadPlanInputs } from '../plans/manage-plans';
+import { cancelActiveRun } from './cancel-active-run';
 import { ringOnGrid } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
 import { currentCoverageInputs } from './coverage-snapshot';
@@ -176,23 +176,10 @@ export async function getCoverageRun(actor: Actor, runId: string): Promise<Cover
 /** Stops a queued or running run; whatever it had computed is dropped. */
 export async function cancelCoverageRun(deps: CoverageDeps, actor: Actor, runId: string): Promise<CoverageRun> {
   const run = await visibleRun(actor, runId);
-  if (!ACTIVE_RUN_STATUSES.includes(run.status)) {
-    throw AppError.conflict(`This run has already ${run.status === 'done' ? 'finished' : run.status}.`, 'run_ended');
-  }
-  await deps.db.transaction(async (t) => {
-    const stopped = await coverageRepository.updateActive(
-      runId,
-      { status: 'cancelled', stage: 'Cancelled', finishedAt: new Date() },
-      t,
-    );
-    if (!stopped) throw AppError.conflict('This run ended while you were cancelling it.', 'run_ended');
-    await auditRepository.record(
-      actor,
-      { action: 'coverage-cancel', entityType: 'plan', entityId: run.planId, after: { runId } },
-      t,
-    );
+  await cancelActiveRun(deps, actor, run, {
+    updateActive: (id, patch, t) => coverageRepository.updateActive(id, patch, t),
+    audit: { action: 'coverage-cancel', entityType: 'plan', entityId: run.planId },
   });
-  if (run.jobId && deps.queue) await deps.queue.cancel(run.jobId).catch(() => undefined);
   return getCoverageRun(actor, runId);
 }
 

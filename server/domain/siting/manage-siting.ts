@@ -1,7 +1,6 @@
 import type { Plan } from '@/shared/schemas/plan';
 import type { Post } from '@/shared/schemas/site';
 import type { SitingCandidate, SitingRun, SitingRunRequest } from '@/shared/schemas/siting';
-import { ACTIVE_RUN_STATUSES } from '@/shared/schemas/coverage';
 import type { LatLon } from '@/shared/geo/types';
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { gridSpecFromM } from '@/shared/terrain/grid-spec';
@@ -17,6 +16,7 @@ import { AppError, type FieldErrors } from '@/server/domain/app-error';
 import type { CoverageQueue } from '@/server/domain/ports/coverage-queue';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 import type { Actor } from '../actor';
+import { cancelActiveRun } from '../coverage/cancel-active-run';
 import { buildCoverageInputs } from '../coverage/coverage-inputs';
 import { getSite } from '../sites/manage-sites';
 import type { SitingResult } from './compute-siting';
@@ -282,23 +282,10 @@ export async function listSitingRuns(actor: Actor, siteId: string): Promise<Siti
 /** Stops a queued or running run; it keeps no result. */
 export async function cancelSitingRun(deps: SitingDeps, actor: Actor, runId: string): Promise<SitingRun> {
   const run = await visibleRun(actor, runId);
-  if (!ACTIVE_RUN_STATUSES.includes(run.status)) {
-    throw AppError.conflict(`This run has already ${run.status === 'done' ? 'finished' : run.status}.`, 'run_ended');
-  }
-  await deps.db.transaction(async (t) => {
-    const stopped = await sitingRepository.updateActive(
-      runId,
-      { status: 'cancelled', stage: 'Cancelled', finishedAt: new Date() },
-      t,
-    );
-    if (!stopped) throw AppError.conflict('This run ended while you were cancelling it.', 'run_ended');
-    await auditRepository.record(
-      actor,
-      { action: 'siting-cancel', entityType: 'site', entityId: run.siteId, after: { runId } },
-      t,
-    );
+  await cancelActiveRun(deps, actor, run, {
+    updateActive: (id, patch, t) => sitingRepository.updateActive(id, patch, t),
+    audit: { action: 'siting-cancel', entityType: 'site', entityId: run.siteId },
   });
-  if (run.jobId && deps.queue) await deps.queue.cancel(run.jobId).catch(() => undefined);
   return getSitingRun(actor, runId);
 }
 
