@@ -4,7 +4,7 @@ import { checkSameGrid } from '@/shared/terrain/check-same-grid';
 import { CROSS_BEARING_CLASS, type CrossBearingRaster } from '@/shared/terrain/cross-bearing-quality';
 import type { PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
-import { patchInteriorPoint } from '@/shared/terrain/patch-interior-point';
+import { squaredEdgeDistances } from '@/shared/terrain/patch-interior-point';
 
 /** A share of an area: cells, square metres and percent of the area's cells. */
 export interface CoverageMeasure {
@@ -240,6 +240,8 @@ export function computeCoverageStatistics(
   const sumCells = (list: readonly { cells: number }[]) => list.reduce((sum, p) => sum + p.cells, 0);
   const { cellSize, xll, yll, height: H } = postsPerCell;
   const yTop = yll + H * cellSize;
+  // One distance transform of all blind cells serves every listed patch (see squaredEdgeDistances).
+  const edge = listed.length > 0 ? squaredEdgeDistances(labels, postsPerCell.width, H) : null;
 
   return {
     cellArea,
@@ -247,7 +249,7 @@ export function computeCoverageStatistics(
     zones: zoneResults,
     zonesWeighted,
     blindAreas: listed.map((p) => {
-      const inside = interiorCell(p, labels, postsPerCell.width);
+      const inside = interiorCell(p, labels, edge!, postsPerCell.width);
       return {
         cells: p.cells,
         area: p.cells * cellArea,
@@ -334,16 +336,34 @@ function areaCoverage(mask: Uint8Array | null, { counts, noData, cross }: Layers
   };
 }
 
-/** The patch's cell farthest from its edge, on its bounding box (other patches there count as outside). */
-function interiorCell(p: Patch, labels: Int32Array, W: number) {
+/**
+ * The patch's cell farthest from its edge (`patchInteriorPoint`'s rule: ties go to the cell nearest the patch's
+ * centroid, then the first in row order), read from the squared edge distances of all blind cells.
+ */
+function interiorCell(p: Patch, labels: Int32Array, edge: Float64Array, W: number) {
   const w = p.maxCol - p.minCol + 1;
   const h = p.maxRow - p.minRow + 1;
-  const mask = new Uint8Array(w * h);
+  // The centroid in the patch's own box, from integer sums, as patchInteriorPoint computes it.
+  const meanCol = (p.sumCol - p.cells * p.minCol) / p.cells;
+  const meanRow = (p.sumRow - p.cells * p.minRow) / p.cells;
+  let best = -1;
+  let bestD = -1;
+  let bestTie = Infinity;
   for (let r = 0; r < h; r++) {
-    for (let c = 0; c < w; c++) mask[r * w + c] = labels[(p.minRow + r) * W + p.minCol + c] === p.label ? 1 : 0;
+    const at = (p.minRow + r) * W + p.minCol;
+    const padded = (p.minRow + r + 1) * (W + 2) + p.minCol + 1;
+    for (let c = 0; c < w; c++) {
+      if (labels[at + c] !== p.label) continue;
+      const dist = edge[padded + c] as number;
+      const tie = (c - meanCol) ** 2 + (r - meanRow) ** 2;
+      if (dist > bestD || (dist === bestD && tie < bestTie)) {
+        best = r * w + c;
+        bestD = dist;
+        bestTie = tie;
+      }
+    }
   }
-  const inside = patchInteriorPoint(mask, w, h)!;
-  return { col: p.minCol + inside.col, row: p.minRow + inside.row, edgeDistanceCells: inside.edgeDistanceCells };
+  return { col: p.minCol + (best % w), row: p.minRow + Math.floor(best / w), edgeDistanceCells: Math.sqrt(bestD) };
 }
 
 interface Patch {

@@ -45,13 +45,61 @@ export function patchInteriorPoint(mask: ArrayLike<number>, width: number, heigh
       `The mask must have width × height cells, got ${mask.length} for ${width} × ${height}.`,
     );
   }
+  let cells = 0;
+  let sumCol = 0;
+  let sumRow = 0;
+  for (let r = 0; r < height; r++) {
+    for (let c = 0; c < width; c++) {
+      if (mask[r * width + c] === 0) continue;
+      cells++;
+      sumCol += c;
+      sumRow += r;
+    }
+  }
+  if (cells === 0) return null;
+  const d = squaredEdgeDistances(mask, width, height);
+  const W = width + 2;
+
+  const meanCol = sumCol / cells;
+  const meanRow = sumRow / cells;
+  let best = -1;
+  let bestD = -1;
+  let bestTie = Infinity;
+  for (let r = 0; r < height; r++) {
+    for (let c = 0; c < width; c++) {
+      if (mask[r * width + c] === 0) continue;
+      const dist = d[(r + 1) * W + (c + 1)] as number;
+      const tie = (c - meanCol) ** 2 + (r - meanRow) ** 2;
+      if (dist > bestD || (dist === bestD && tie < bestTie)) {
+        best = r * width + c;
+        bestD = dist;
+        bestTie = tie;
+      }
+    }
+  }
+  return { col: best % width, row: Math.floor(best / width), edgeDistanceCells: Math.sqrt(bestD) };
+}
+
+/**
+ * Squared Euclidean distance from every cell of a mask to the centre of the
+ * nearest cell outside it (0 outside the mask), on the grid with one cell of
+ * padding all round (`(width + 2) × (height + 2)`, cell (c, r) at
+ * `(r + 1) × (width + 2) + c + 1`): cells beyond the grid count as outside.
+ * Exact (integers in doubles); the two passes of {@link patchInteriorPoint}.
+ *
+ * For 8-connected patches the distance within the union of all patches is
+ * each patch's own (other patches counted as outside): a nearest outside
+ * cell in another patch would be reached from the cell by a line of cells,
+ * each strictly nearer and so all in the patch, making the two patches one.
+ * So one transform of all patches serves every patch.
+ *
+ * @param mask row-major, `width × height`; non-zero = inside (not modified)
+ */
+export function squaredEdgeDistances(mask: ArrayLike<number>, width: number, height: number): Float64Array {
   // One cell of padding all round: the grid's edge is the patch's edge.
   const W = width + 2;
   const H = height + 2;
   const d = new Float64Array(W * H);
-  let cells = 0;
-  let sumCol = 0;
-  let sumRow = 0;
   // The padding stays 0 (a new array is zero-filled).
   for (let r = 0; r < height; r++) {
     const from = r * width;
@@ -59,13 +107,8 @@ export function patchInteriorPoint(mask: ArrayLike<number>, width: number, heigh
     for (let c = 0; c < width; c++) {
       if (mask[from + c] === 0) continue;
       d[to + c] = INF;
-      cells++;
-      sumCol += c;
-      sumRow += r;
     }
   }
-  if (cells === 0) return null;
-
   const n = Math.max(W, H);
   const f = new Float64Array(n);
   const out = new Float64Array(n);
@@ -93,24 +136,7 @@ export function patchInteriorPoint(mask: ArrayLike<number>, width: number, heigh
     for (let c = 0; c < W; c++) d[r * W + c] = out[c] as number;
   }
 
-  const meanCol = sumCol / cells;
-  const meanRow = sumRow / cells;
-  let best = -1;
-  let bestD = -1;
-  let bestTie = Infinity;
-  for (let r = 0; r < height; r++) {
-    for (let c = 0; c < width; c++) {
-      if (mask[r * width + c] === 0) continue;
-      const dist = d[(r + 1) * W + (c + 1)] as number;
-      const tie = (c - meanCol) ** 2 + (r - meanRow) ** 2;
-      if (dist > bestD || (dist === bestD && tie < bestTie)) {
-        best = r * width + c;
-        bestD = dist;
-        bestTie = tie;
-      }
-    }
-  }
-  return { col: best % width, row: Math.floor(best / width), edgeDistanceCells: Math.sqrt(bestD) };
+  return d;
 }
 
 /**

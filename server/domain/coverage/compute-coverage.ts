@@ -200,27 +200,31 @@ export async function computeCoverage(
     layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
   };
 
-  for (const { condition, detections, conditions, patrolTargets } of plannedConditions)
-    for (const tide of tides) {
-      const posts = tide
-        ? placed.map((p) => ({ ...p, post: { ...p.post, eyeHeight: eyeAt(inputs, p.input, tide, p.post.eyeHeight) } }))
-        : placed;
-      const ground = tide ? raisedTerrain(terrain, seaMask, tide.levelM, inputs.terrain === null) : terrain;
-      await report(
-        (0.9 * progress.done) / progress.total,
-        `Viewsheds: ${condition.conditionSetName}, ${condition.label}${tide ? `, ${tide.label}` : ''}`,
-      );
-      const fixedNetwork = posts.length > 0 ? await networkOf(posts, ground, conditions, computeViewsheds, report, progress) : [];
-      // A patrol craft rides the tide: its eye above the water is the same at every level; the ground is the tide's.
-      const swept = await sweepPatrolsWithProgress(
-        patrols,
-        ground,
-        conditions,
-        patrolTargets,
-        computeViewsheds,
-        report,
-        progress,
-      );
+  // The viewsheds of the next condition (and tide) are computed in the worker pool while this one is evaluated
+  // on the main thread: the two overlap instead of taking turns, and each batch's results are the same as alone.
+  const batches = plannedConditions.flatMap((planned) => tides.map((tide) => ({ ...planned, tide })));
+  const load = async ({ condition, conditions, patrolTargets, tide }: (typeof batches)[number]) => {
+    const posts = tide
+      ? placed.map((p) => ({ ...p, post: { ...p.post, eyeHeight: eyeAt(inputs, p.input, tide, p.post.eyeHeight) } }))
+      : placed;
+    const ground = tide ? raisedTerrain(terrain, seaMask, tide.levelM, inputs.terrain === null) : terrain;
+    await report(
+      (0.9 * progress.done) / progress.total,
+      `Viewsheds: ${condition.conditionSetName}, ${condition.label}${tide ? `, ${tide.label}` : ''}`,
+    );
+    const fixedNetwork = posts.length > 0 ? await networkOf(posts, ground, conditions, computeViewsheds, report, progress) : [];
+    // A patrol craft rides the tide: its eye above the water is the same at every level; the ground is the tide's.
+    const swept = await sweepPatrolsWithProgress(patrols, ground, conditions, patrolTargets, computeViewsheds, report, progress);
+    return { posts, fixedNetwork, swept };
+  };
+  let ahead: Promise<Awaited<ReturnType<typeof load>>> | null = batches.length > 0 ? load(batches[0]!) : null;
+  try {
+    for (let b = 0; b < batches.length; b++) {
+      const { condition, detections, conditions, patrolTargets, tide } = batches[b]!;
+      const { posts, fixedNetwork, swept } = await ahead!;
+      ahead = b + 1 < batches.length ? load(batches[b + 1]!) : null;
+      // Handled where it is awaited (next turn, or below on the way out); this only keeps an early failure quiet.
+      ahead?.catch(() => {});
       inputs.targets.forEach((target, t) => {
         const detection = detections[t]!;
         const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex, tide);
@@ -307,6 +311,10 @@ export async function computeCoverage(
         cases.push(patrolFigs.length > 0 ? { ...stored, patrols: patrolFigs } : stored);
       });
     }
+  } finally {
+    // A run that stops while the next batch is out lets it finish first, so no viewshed outlives the run.
+    if (ahead) await ahead.catch(() => {});
+  }
   // Target × condition (× tide) order, as the plan lists them.
   const order = (k: CoverageCase) =>
     (inputs.targets.findIndex((t) => t.id === k.targetId) * inputs.conditions.length +

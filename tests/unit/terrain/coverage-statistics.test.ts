@@ -1,5 +1,6 @@
 import { checkCoverageStandard, COVERAGE_STANDARD_RULES } from '@/shared/terrain/check-coverage-standard';
 import { computeCoverageStatistics } from '@/shared/terrain/coverage-statistics';
+import { patchInteriorPoint } from '@/shared/terrain/patch-interior-point';
 import { CROSS_BEARING_CLASS, type CrossBearingRaster } from '@/shared/terrain/cross-bearing-quality';
 import type { PostsPerCellRaster } from '@/shared/terrain/posts-per-cell';
 import { gridOf, mismatches } from '@/tests/unit/terrain/coverage-fixtures';
@@ -277,5 +278,64 @@ describe('checkCoverageStandard', () => {
         expect.objectContaining({ code: 'invalid-standard', field: 'standard.priorityMinPosts' }),
       );
     }
+  });
+});
+
+describe('blind-area interior points on random grids', () => {
+  test('each listed area’s interior is patchInteriorPoint of that area alone (one transform serves all areas)', () => {
+    // Source: patchInteriorPoint's rule (farthest from the edge, ties to the centroid, then row order), applied
+    // here to each patch cut out on its own bounding box — common practice, no source.
+    let seed = 5;
+    const rand = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+    let checked = 0;
+    for (let t = 0; t < 8; t++) {
+      const width = 20 + Math.floor(rand() * 40);
+      const height = 20 + Math.floor(rand() * 40);
+      const g = gridOf(width, height, 10, 500_000, 5_700_000);
+      const cellCounts = Uint8Array.from({ length: width * height }, () => (rand() < 0.45 ? 0 : 1));
+      const ppc: PostsPerCellRaster = {
+        ...g,
+        counts: cellCounts,
+        noData: new Uint8Array(width * height),
+        layer: new Uint8Array(width * height),
+        postCount: 1,
+      };
+      const cross: CrossBearingRaster = {
+        ...g,
+        classes: new Uint8Array(width * height),
+        bestAngle: new Float32Array(width * height),
+        minCrossingAngle: Math.PI / 6,
+      };
+      const result = computeCoverageStatistics(ppc, cross, null, [], { blindAreaMinArea: 0, maxBlindAreas: 1000 });
+      for (const area of result.blindAreas) {
+        const { minCol, maxCol, minRow, maxRow } = area.bounds;
+        const w = maxCol - minCol + 1;
+        const h = maxRow - minRow + 1;
+        // The patch alone: flood-filled from the cell the statistics put inside it.
+        const alone = new Uint8Array(w * h);
+        const stack = [[area.interior.col, area.interior.row]];
+        alone[(area.interior.row - minRow) * w + area.interior.col - minCol] = 1;
+        while (stack.length > 0) {
+          const [c, r] = stack.pop()!;
+          for (let dr = -1; dr <= 1; dr++)
+            for (let dc = -1; dc <= 1; dc++) {
+              const cc = c! + dc;
+              const rr = r! + dr;
+              if (cc < minCol || cc > maxCol || rr < minRow || rr > maxRow) continue;
+              const k = (rr - minRow) * w + cc - minCol;
+              if (alone[k] === 0 && cellCounts[rr * width + cc] === 0) {
+                alone[k] = 1;
+                stack.push([cc, rr]);
+              }
+            }
+        }
+        expect(alone.reduce((n, v) => n + v, 0)).toBe(area.cells);
+        const own = patchInteriorPoint(alone, w, h)!;
+        expect({ col: area.interior.col, row: area.interior.row }).toEqual({ col: minCol + own.col, row: minRow + own.row });
+        expect(area.interior.edgeDistance).toBe(own.edgeDistanceCells * 10);
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThan(100);
   });
 });
