@@ -18,7 +18,9 @@ import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
  *
  * @param bytes the whole file
  * @param options `maxCells`: refuse larger grids before decoding them
- *   (default {@link MAX_TERRAIN_CELLS})
+ *   (default {@link MAX_TERRAIN_CELLS}); `allocate`: makes the heights array
+ *   (default `new Float32Array(n)`; e.g. one over a SharedArrayBuffer that
+ *   worker threads read without a copy)
  * @returns a promise of a new terrain raster (heights in the file's units, metres expected)
  * @throws TerrainFormatError (as a rejected promise) `wrong-type` (not a TIFF),
  *   `truncated`, `corrupt`, `geographic-crs` (degrees — reproject to UTM),
@@ -27,7 +29,11 @@ import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
  * @example
  * const terrain = await readGeoTiff(await fs.promises.readFile('dem.tif').then((b) => b.buffer));
  */
-export async function readGeoTiff(bytes: ArrayBuffer, options: { maxCells?: number } = {}): Promise<TerrainRaster> {
+export async function readGeoTiff(
+  bytes: ArrayBuffer,
+  options: { maxCells?: number; allocate?: (length: number) => Float32Array } = {},
+): Promise<TerrainRaster> {
+  const allocate = options.allocate ?? ((length: number) => new Float32Array(length));
   const maxCells = Math.min(options.maxCells ?? MAX_TERRAIN_CELLS, MAX_TERRAIN_CELLS);
   if (bytes.byteLength < 8) {
     throw new TerrainFormatError(bytes.byteLength === 0 ? 'truncated' : 'wrong-type', 'The file is too short to be a TIFF.');
@@ -128,8 +134,9 @@ export async function readGeoTiff(bytes: ArrayBuffer, options: { maxCells?: numb
     );
   }
 
-  let band: ArrayLike<number> | null = readPlainFloat32(bytes, directory, little, width * height, offsets, counts);
-  if (band === null) {
+  let heights = readPlainFloat32(bytes, directory, little, width * height, offsets, counts, allocate);
+  if (heights === null) {
+    let band: ArrayLike<number>;
     try {
       const rasters = await image.readRasters({ samples: [0] });
       band = (rasters as unknown as ArrayLike<number>[])[0] as ArrayLike<number>;
@@ -140,11 +147,16 @@ export async function readGeoTiff(bytes: ArrayBuffer, options: { maxCells?: numb
         { cause },
       );
     }
+    if (!band || band.length !== width * height) {
+      throw new TerrainFormatError('corrupt', 'Decoded image data does not match the image size.');
+    }
+    if (band instanceof Float32Array && options.allocate === undefined) {
+      heights = band;
+    } else {
+      heights = allocate(band.length);
+      heights.set(band);
+    }
   }
-  if (!band || band.length !== width * height) {
-    throw new TerrainFormatError('corrupt', 'Decoded image data does not match the image size.');
-  }
-  const heights = band instanceof Float32Array ? band : Float32Array.from(band);
   const nodataValue = image.getGDALNoData();
   const nodata = nodataValue === null || Number.isNaN(nodataValue) ? null : nodataValue;
   const epsg = projected !== undefined && projected !== 32767 ? projected : null;
@@ -181,6 +193,7 @@ function readPlainFloat32(
   cells: number,
   offsets: ArrayLike<number>,
   counts: ArrayLike<number>,
+  allocate: (length: number) => Float32Array,
 ): Float32Array | null {
   const first = (value: unknown): unknown =>
     Array.isArray(value) || ArrayBuffer.isView(value) ? (value as unknown as ArrayLike<unknown>)[0] : value;
@@ -199,8 +212,9 @@ function readPlainFloat32(
   let total = 0;
   for (let i = 0; i < counts.length; i++) total += counts[i] as number;
   if (total !== cells * 4) return null;
-  const heights = new Float32Array(cells);
-  const target = new Uint8Array(heights.buffer);
+  const heights = allocate(cells);
+  if (heights.length !== cells) throw new RangeError(`allocate(${cells}) returned ${heights.length} values.`);
+  const target = new Uint8Array(heights.buffer, heights.byteOffset, heights.byteLength);
   let at = 0;
   for (let i = 0; i < offsets.length; i++) {
     const count = counts[i] as number;

@@ -5,7 +5,7 @@ jest.mock('quick-lru', () => ({ __esModule: true, default: class QuickLRU extend
 import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
-import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
+import { geoTiffParts, writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import { describeWithGdal, gdal, temporaryFolder } from '@/tests/unit/terrain/gdal-tools';
 
@@ -35,6 +35,29 @@ describe('writeGeoTiff and readGeoTiff', () => {
     const back = await readGeoTiff(writeGeoTiff(terrain, values, { nodata: -9999 }));
     expect(back.nodata).toBe(-9999);
     expect(values).toEqual(terrain.heights);
+  });
+
+  test('the two parts the command line writes are the file, the pixels a view on the values (no copy)', () => {
+    // Source: writeGeoTiff above (round-trips and GDAL reads it); common practice, no source.
+    const values = Float32Array.from(terrain.heights);
+    const { head, data } = geoTiffParts(terrain, values);
+    expect(data.buffer).toBe(values.buffer);
+    const joined = Buffer.concat([head, data]);
+    expect(Buffer.compare(joined, Buffer.from(writeGeoTiff(terrain, values)))).toBe(0);
+    expect(head.byteLength % 8).toBe(0); // pixels start 8-byte aligned
+  });
+
+  test('reads the heights into an array the caller makes (shared memory for threads)', async () => {
+    const file = writeGeoTiff(terrain, terrain.heights);
+    let made = 0;
+    const allocate = (length: number) => {
+      made++;
+      return new Float32Array(new SharedArrayBuffer(length * 4));
+    };
+    const back = await readGeoTiff(file, { allocate });
+    expect(made).toBe(1);
+    expect(back.heights.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(back.heights).toEqual(terrain.heights);
   });
 
   test('a 4000 × 4000 raster round-trips', async () => {
@@ -120,6 +143,10 @@ describeWithGdal('GeoTIFF and GDAL', () => {
       terrain.yll,
       32633,
     ]);
+    // The general decoder's values land in the caller's array too.
+    const shared = await readGeoTiff(bufferOf(out), { allocate: (n) => new Float32Array(new SharedArrayBuffer(n * 4)) });
+    expect(shared.heights.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(shared.heights).toEqual(back.heights);
     const integer = options.includes('Int16');
     for (let i = 0; i < back.heights.length; i++) {
       expect(Math.abs((back.heights[i] as number) - (terrain.heights[i] as number))).toBeLessThanOrEqual(integer ? 0.5 : 1e-4);
