@@ -9,7 +9,7 @@
  * success, 2 for bad arguments, 1 when the terrain cannot be read or the
  * result cannot be written.
  */
-import { closeSync, existsSync, openSync, readFileSync, writeFileSync, writeSync } from 'node:fs';
+import { closeSync, existsSync, fstatSync, openSync, readFileSync, readSync, writeFileSync, writeSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
@@ -195,13 +195,33 @@ async function readTerrain(file: string, shared: boolean): Promise<TerrainRaster
     heights.set(terrain.heights);
     return { ...terrain, heights };
   }
-  const bytes = readFileSync(file);
-  // A large file's Buffer owns its whole ArrayBuffer: hand that over rather than a copy.
-  const whole = bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength;
-  const buffer = (
-    whole ? bytes.buffer : bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength)
-  ) as ArrayBuffer;
-  return readGeoTiff(buffer, shared ? { allocate: sharedFloat32 } : {});
+  // The header and tables are read first; plain Float32 pixels then go straight from the file into the
+  // heights (no buffer of the whole file, no copy). Anything else is read whole by readGeoTiff.
+  const fd = openSync(file, 'r');
+  try {
+    const byteLength = fstatSync(fd).size;
+    const start = new Uint8Array(Math.min(byteLength, TIFF_START_BYTES));
+    readFully(fd, start, 0);
+    return await readGeoTiff(start.buffer, {
+      ...(shared ? { allocate: sharedFloat32 } : {}),
+      file: { byteLength, read: (target, position) => readFully(fd, target, position) },
+    });
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** Bytes of a GeoTIFF read before its tables are known: enough for the tables of common files. */
+const TIFF_START_BYTES = 1 << 20;
+
+/** Reads `target.length` bytes at `position`, or throws when the file ends first. */
+function readFully(fd: number, target: Uint8Array, position: number): void {
+  let at = 0;
+  while (at < target.byteLength) {
+    const got = readSync(fd, target, at, target.byteLength - at, position + at);
+    if (got === 0) throw new Error(`the file ends at byte ${position + at}`);
+    at += got;
+  }
 }
 
 /** Writes all of `bytes` at the file position of `fd`. */
