@@ -1,4 +1,4 @@
-// Over 300 lines: the viewshed engine — one entry point and its two octant sweeps (by columns, by rows), one algorithm.
+// Over 300 lines: the viewshed engine — its entry points (a whole post, or half of one for two threads) and its two octant sweeps, one algorithm.
 import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
@@ -118,7 +118,94 @@ export function computeHiddenHeightRaster(
   conditions: SightConditions = {},
   prepared?: SweepTerrain,
 ): HiddenHeightRaster {
-  const { width: W, height: H, cellSize, nodata } = terrain;
+  const setup = setUpSweep(terrain, post, conditions, prepared);
+  const hidden = new Float32Array(terrain.width * terrain.height);
+  sweepHalf(setup, 1, hidden);
+  sweepHalf(setup, -1, hidden);
+  return finish(setup, hidden);
+}
+
+/** Half of the grid: the post's row and the rows south (down) or north (up) of it. */
+export type HiddenHeightHalf = 'south' | 'north';
+
+/**
+ * Sweeps one half of {@link computeHiddenHeightRaster}'s octants — the four
+ * south of the post or the four north of it — into `out`, so that two
+ * threads can share one post: each sweeps its half into the same
+ * (shared) array, then {@link completeHiddenHeightRaster} finishes it. The
+ * two halves write disjoint cells except the post's own row, which both
+ * write with the same values (those cells depend on that row only), so the
+ * result is bitwise that of `computeHiddenHeightRaster`, whichever half ends
+ * first. Cells the half does not cover are left as they are.
+ *
+ * @param terrain ground heights, metres (not modified)
+ * @param post the post's cell and eye height above ground, metres
+ * @param conditions as for `computeHiddenHeightRaster`
+ * @param half `'south'` (rows ≥ the post's) or `'north'` (rows ≤ the post's)
+ * @param out width × height values, row-major; receives hidden heights, metres
+ * @param prepared the terrain laid out by `prepareSweepTerrain(terrain)`; made on the fly when omitted
+ * @throws TerrainInputError as `computeHiddenHeightRaster`, or for an `out` of the wrong length
+ * @example
+ * const out = new Float32Array(new SharedArrayBuffer(terrain.width * terrain.height * 4));
+ * computeHiddenHeightHalf(terrain, post, {}, 'north', out); // and 'south' in another thread
+ * const raster = completeHiddenHeightRaster(terrain, post, {}, out);
+ */
+export function computeHiddenHeightHalf(
+  terrain: TerrainRaster,
+  post: LookoutPost,
+  conditions: SightConditions,
+  half: HiddenHeightHalf,
+  out: Float32Array,
+  prepared?: SweepTerrain,
+): void {
+  const setup = setUpSweep(terrain, post, conditions, prepared);
+  checkOut(terrain, out);
+  sweepHalf(setup, half === 'south' ? 1 : -1, out);
+}
+
+/**
+ * Finishes a raster whose two halves {@link computeHiddenHeightHalf} swept:
+ * the post's cell set to 0, nodata cells and cells beyond the range limit set
+ * to NaN (in place), and the raster's description attached.
+ *
+ * @param terrain, post, conditions, prepared as given to both halves
+ * @param hidden the array both halves filled (kept, not copied)
+ * @returns the raster, as `computeHiddenHeightRaster` returns it
+ * @throws TerrainInputError as `computeHiddenHeightHalf`
+ * @example
+ * const raster = completeHiddenHeightRaster(terrain, post, {}, out);
+ */
+export function completeHiddenHeightRaster(
+  terrain: TerrainRaster,
+  post: LookoutPost,
+  conditions: SightConditions,
+  hidden: Float32Array,
+  prepared?: SweepTerrain,
+): HiddenHeightRaster {
+  const setup = setUpSweep(terrain, post, conditions, prepared);
+  checkOut(terrain, hidden);
+  return finish(setup, hidden);
+}
+
+/** What every octant of one post needs: validated inputs, the eye, the drop and scratch arrays. */
+interface SweepSetup {
+  readonly terrain: TerrainRaster;
+  readonly sweep: SweepTerrain;
+  readonly post: LookoutPost;
+  readonly k: number;
+  readonly R: number;
+  readonly maxDistance: number;
+  readonly iLimit: number;
+  readonly args: SweepArgs;
+}
+
+function setUpSweep(
+  terrain: TerrainRaster,
+  post: LookoutPost,
+  conditions: SightConditions,
+  prepared: SweepTerrain | undefined,
+): SweepSetup {
+  const { width: W, height: H, cellSize } = terrain;
   const k = conditions.refractionCoefficient ?? STANDARD_OPTICAL_K;
   const R = conditions.earthRadius ?? MEAN_EARTH_RADIUS_M;
   const maxDistance = conditions.maxDistance ?? Infinity;
@@ -128,9 +215,7 @@ export function computeHiddenHeightRaster(
   }
   const sweep = prepared ?? prepareSweepTerrain(terrain);
 
-  const c0 = post.col;
-  const r0 = post.row;
-  const groundAtPost = sweep.heights[r0 * W + c0] as number;
+  const groundAtPost = sweep.heights[post.row * W + post.col] as number;
   if (groundAtPost === NEVER_BLOCKS) {
     throw new TerrainInputError('post-on-nodata', `The post's cell (col ${post.col}, row ${post.row}) has no ground height.`);
   }
@@ -140,32 +225,56 @@ export function computeHiddenHeightRaster(
   const rangeCells = maxDistance / cellSize;
   const iLimit = Math.floor(rangeCells);
   const maxSpan = Math.max(W, H) + 2;
-  const prevObstacle = new Int32Array(maxSpan);
-  const curObstacle = new Int32Array(maxSpan);
-  const rowObstacles = new Int32Array(2 * maxSpan);
-  const columnEnd = new Int32Array(maxSpan);
   const reciprocal = new Float64Array(maxSpan);
   for (let i = 1; i < maxSpan; i++) reciprocal[i] = 1 / i;
+  const args: SweepArgs = {
+    eye,
+    dropPerCell2,
+    rangeCells,
+    prevObstacle: new Int32Array(maxSpan),
+    curObstacle: new Int32Array(maxSpan),
+    rowObstacles: new Int32Array(2 * maxSpan),
+    columnEnd: new Int32Array(maxSpan),
+    reciprocal,
+  };
+  return { terrain, sweep, post, k, R, maxDistance, iLimit, args };
+}
 
-  const hidden = new Float32Array(W * H);
-  const sweepArgs = { eye, dropPerCell2, rangeCells, prevObstacle, curObstacle, rowObstacles, columnEnd, reciprocal };
-  const obs = r0 * W + c0;
-  // Every octant reads and writes the row-major grids along contiguous
-  // memory: north–south octants column by column of the sweep (which are
-  // grid rows), east–west octants grid row by grid row (see sweepOctantByRows).
-  for (const sR of [1, -1]) {
-    for (const sC of [1, -1]) {
-      const iMax = Math.min(sR > 0 ? H - 1 - r0 : r0, iLimit);
-      const jMax = sC > 0 ? W - 1 - c0 : c0;
-      sweepOctant(sweep.heights, obs, sR * W, sC, iMax, jMax, sweepArgs, hidden);
-      const iMaxT = Math.min(sC > 0 ? W - 1 - c0 : c0, iLimit);
-      const jMaxT = sR > 0 ? H - 1 - r0 : r0;
-      sweepOctantByRows(sweep.heights, obs, sC, sR * W, iMaxT, jMaxT, sweepArgs, hidden);
-    }
+function checkOut(terrain: TerrainRaster, out: Float32Array): void {
+  if (out.length !== terrain.width * terrain.height) {
+    throw new TerrainInputError('invalid-raster', `The result array must hold width × height values, got ${out.length}.`);
   }
-  hidden[r0 * W + c0] = 0;
-  if (sweep.hasNodata || Number.isFinite(rangeCells)) {
-    maskUncomputed(hidden, terrain.heights, nodata, sweep.hasNodata, W, H, c0, r0, rangeCells);
+}
+
+/**
+ * The four octants south (sR = 1) or north (sR = −1) of the post. Every
+ * octant reads and writes the row-major grids along contiguous memory:
+ * north–south octants column by column of the sweep (which are grid rows),
+ * east–west octants grid row by grid row (see sweepOctantByRows).
+ */
+function sweepHalf(setup: SweepSetup, sR: 1 | -1, hidden: Float32Array): void {
+  const { terrain, sweep, post, iLimit, args } = setup;
+  const { width: W, height: H } = terrain;
+  const c0 = post.col;
+  const r0 = post.row;
+  const obs = r0 * W + c0;
+  for (const sC of [1, -1]) {
+    const iMax = Math.min(sR > 0 ? H - 1 - r0 : r0, iLimit);
+    const jMax = sC > 0 ? W - 1 - c0 : c0;
+    sweepOctant(sweep.heights, obs, sR * W, sC, iMax, jMax, args, hidden);
+    const iMaxT = Math.min(sC > 0 ? W - 1 - c0 : c0, iLimit);
+    const jMaxT = sR > 0 ? H - 1 - r0 : r0;
+    sweepOctantByRows(sweep.heights, obs, sC, sR * W, iMaxT, jMaxT, args, hidden);
+  }
+}
+
+/** The post's cell, the cells not computed, and the raster's description. */
+function finish(setup: SweepSetup, hidden: Float32Array): HiddenHeightRaster {
+  const { terrain, sweep, post, k, R, maxDistance, args } = setup;
+  const { width: W, height: H, cellSize, nodata } = terrain;
+  hidden[post.row * W + post.col] = 0;
+  if (sweep.hasNodata || Number.isFinite(args.rangeCells)) {
+    maskUncomputed(hidden, terrain.heights, nodata, sweep.hasNodata, W, H, post.col, post.row, args.rangeCells);
   }
 
   return {
@@ -177,7 +286,7 @@ export function computeHiddenHeightRaster(
     crs: terrain.crs,
     hidden,
     post: { col: post.col, row: post.row, eyeHeight: post.eyeHeight },
-    eyeElevation: eye,
+    eyeElevation: args.eye,
     refractionCoefficient: k,
     earthRadius: R,
     maxDistance,

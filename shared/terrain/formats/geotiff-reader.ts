@@ -18,7 +18,13 @@ import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
  *
  * @param bytes the whole file
  * @param options `maxCells`: refuse larger grids before decoding them
- *   (default {@link MAX_TERRAIN_CELLS})
+ *   (default {@link MAX_TERRAIN_CELLS}); `allocate`: makes the heights array
+ *   (default `new Float32Array(n)`; e.g. one over a SharedArrayBuffer that
+ *   worker threads read without a copy); `file`: when `bytes` is only the
+ *   start of the file (its header and tables), the file's length and a way to
+ *   read a part of it — plain Float32 pixels are then read straight into the
+ *   heights array (no copy of the whole file); any other file is read whole
+ *   through `file.read` and decoded as usual
  * @returns a promise of a new terrain raster (heights in the file's units, metres expected)
  * @throws TerrainFormatError (as a rejected promise) `wrong-type` (not a TIFF),
  *   `truncated`, `corrupt`, `geographic-crs` (degrees — reproject to UTM),
@@ -27,7 +33,48 @@ import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
  * @example
  * const terrain = await readGeoTiff(await fs.promises.readFile('dem.tif').then((b) => b.buffer));
  */
-export async function readGeoTiff(bytes: ArrayBuffer, options: { maxCells?: number } = {}): Promise<TerrainRaster> {
+export async function readGeoTiff(bytes: ArrayBuffer, options: GeoTiffReadOptions = {}): Promise<TerrainRaster> {
+  const { file, ...wholeFileOptions } = options;
+  if (file === undefined || bytes.byteLength >= file.byteLength) return readTiff(bytes, wholeFileOptions, null);
+  try {
+    return await readTiff(bytes, wholeFileOptions, file);
+  } catch (error) {
+    // Tables beyond the start (seen as truncated or corrupt) or pixels that need decoding: read it whole,
+    // which also reports a real fault. What the tables alone decide (size, CRS, grid) stands.
+    const fromTables = error instanceof TerrainFormatError && error.code !== 'truncated' && error.code !== 'corrupt';
+    if (fromTables || !(error instanceof NeedsWholeFile || error instanceof TerrainFormatError)) throw error;
+  }
+  const whole = new Uint8Array(file.byteLength);
+  file.read(whole, 0);
+  return readTiff(whole.buffer, wholeFileOptions, null);
+}
+
+/** Settings of {@link readGeoTiff}. */
+export interface GeoTiffReadOptions {
+  /** Refuse larger grids before decoding them; default and at most {@link MAX_TERRAIN_CELLS}. */
+  readonly maxCells?: number;
+  /** Makes the heights array; default `new Float32Array(length)`. */
+  readonly allocate?: (length: number) => Float32Array;
+  /** The whole file, when `bytes` is only its start. */
+  readonly file?: GeoTiffFile;
+}
+
+/** Random access to a GeoTIFF file: its length and a read of `target.length` bytes at `position`. */
+export interface GeoTiffFile {
+  readonly byteLength: number;
+  read(target: Uint8Array, position: number): void;
+}
+
+/** Thrown inside when only the file's start was given and it is not enough; readGeoTiff then reads the file whole. */
+class NeedsWholeFile extends Error {}
+
+async function readTiff(
+  bytes: ArrayBuffer,
+  options: Omit<GeoTiffReadOptions, 'file'>,
+  file: GeoTiffFile | null,
+): Promise<TerrainRaster> {
+  const fileLength = file ? file.byteLength : bytes.byteLength;
+  const allocate = options.allocate ?? ((length: number) => new Float32Array(length));
   const maxCells = Math.min(options.maxCells ?? MAX_TERRAIN_CELLS, MAX_TERRAIN_CELLS);
   if (bytes.byteLength < 8) {
     throw new TerrainFormatError(bytes.byteLength === 0 ? 'truncated' : 'wrong-type', 'The file is too short to be a TIFF.');
@@ -69,10 +116,10 @@ export async function readGeoTiff(bytes: ArrayBuffer, options: { maxCells?: numb
     throw new TerrainFormatError('corrupt', 'The TIFF has no valid strip or tile table.');
   }
   for (let i = 0; i < offsets.length; i++) {
-    if ((offsets[i] as number) + (counts[i] as number) > bytes.byteLength) {
+    if ((offsets[i] as number) + (counts[i] as number) > fileLength) {
       throw new TerrainFormatError(
         'truncated',
-        `The file ends at byte ${bytes.byteLength} but image data runs to byte ${(offsets[i] as number) + (counts[i] as number)}.`,
+        `The file ends at byte ${fileLength} but image data runs to byte ${(offsets[i] as number) + (counts[i] as number)}.`,
       );
     }
   }
@@ -128,8 +175,10 @@ export async function readGeoTiff(bytes: ArrayBuffer, options: { maxCells?: numb
     );
   }
 
-  let band: ArrayLike<number> | null = readPlainFloat32(bytes, directory, little, width * height, offsets, counts);
-  if (band === null) {
+  let heights = readPlainFloat32(file ?? bytes, directory, little, width * height, offsets, counts, allocate);
+  if (heights === null) {
+    if (file) throw new NeedsWholeFile('The pixels need the general decoder.');
+    let band: ArrayLike<number>;
     try {
       const rasters = await image.readRasters({ samples: [0] });
       band = (rasters as unknown as ArrayLike<number>[])[0] as ArrayLike<number>;
@@ -140,11 +189,16 @@ export async function readGeoTiff(bytes: ArrayBuffer, options: { maxCells?: numb
         { cause },
       );
     }
+    if (!band || band.length !== width * height) {
+      throw new TerrainFormatError('corrupt', 'Decoded image data does not match the image size.');
+    }
+    if (band instanceof Float32Array && options.allocate === undefined) {
+      heights = band;
+    } else {
+      heights = allocate(band.length);
+      heights.set(band);
+    }
   }
-  if (!band || band.length !== width * height) {
-    throw new TerrainFormatError('corrupt', 'Decoded image data does not match the image size.');
-  }
-  const heights = band instanceof Float32Array ? band : Float32Array.from(band);
   const nodataValue = image.getGDALNoData();
   const nodata = nodataValue === null || Number.isNaN(nodataValue) ? null : nodataValue;
   const epsg = projected !== undefined && projected !== 32767 ? projected : null;
@@ -175,12 +229,13 @@ function isOutOfRange(cause: unknown): boolean {
  * goes through the `geotiff` package's general decoder.
  */
 function readPlainFloat32(
-  bytes: ArrayBuffer,
+  bytes: ArrayBuffer | GeoTiffFile,
   directory: Record<string, unknown>,
   little: boolean,
   cells: number,
   offsets: ArrayLike<number>,
   counts: ArrayLike<number>,
+  allocate: (length: number) => Float32Array,
 ): Float32Array | null {
   const first = (value: unknown): unknown =>
     Array.isArray(value) || ArrayBuffer.isView(value) ? (value as unknown as ArrayLike<unknown>)[0] : value;
@@ -199,12 +254,14 @@ function readPlainFloat32(
   let total = 0;
   for (let i = 0; i < counts.length; i++) total += counts[i] as number;
   if (total !== cells * 4) return null;
-  const heights = new Float32Array(cells);
-  const target = new Uint8Array(heights.buffer);
+  const heights = allocate(cells);
+  if (heights.length !== cells) throw new RangeError(`allocate(${cells}) returned ${heights.length} values.`);
+  const target = new Uint8Array(heights.buffer, heights.byteOffset, heights.byteLength);
   let at = 0;
   for (let i = 0; i < offsets.length; i++) {
     const count = counts[i] as number;
-    target.set(new Uint8Array(bytes, offsets[i] as number, count), at);
+    if ('read' in bytes) bytes.read(target.subarray(at, at + count), offsets[i] as number);
+    else target.set(new Uint8Array(bytes, offsets[i] as number, count), at);
     at += count;
   }
   return heights;

@@ -44,6 +44,37 @@ interface Entry {
  * const bytes = writeGeoTiff(hidden, hidden.hidden); // Float32 GeoTIFF of hidden heights
  */
 export function writeGeoTiff(grid: GridSpec, values: Float32Array, options: GeoTiffWriteOptions = {}): ArrayBuffer {
+  const { head, data } = geoTiffParts(grid, values, options);
+  const buffer = new ArrayBuffer(head.byteLength + data.byteLength);
+  const bytes = new Uint8Array(buffer);
+  bytes.set(head);
+  bytes.set(data, head.byteLength);
+  return buffer;
+}
+
+/**
+ * The file {@link writeGeoTiff} makes, as two parts to be written one after
+ * the other: the header (TIFF header, directory and georeferencing, padded to
+ * where the pixels start) and the pixels. On a little-endian machine the
+ * pixels are a view on `values` itself, so a large raster is written to disk
+ * without being copied (the command line does this).
+ *
+ * @param grid geometry and CRS of the raster (metres)
+ * @param values one value per cell, row 0 = north (not modified)
+ * @param options nodata tag (default NaN)
+ * @returns `head` (a new array) and `data` (a view on `values`, or a
+ *   little-endian copy on a big-endian machine)
+ * @throws TerrainFormatError as `writeGeoTiff`
+ * @example
+ * const { head, data } = geoTiffParts(hidden, hidden.hidden);
+ * fs.writeSync(fd, head);
+ * fs.writeSync(fd, data);
+ */
+export function geoTiffParts(
+  grid: GridSpec,
+  values: Float32Array,
+  options: GeoTiffWriteOptions = {},
+): { head: Uint8Array; data: Uint8Array } {
   const { width, height, cellSize } = grid;
   if (values.length !== width * height) {
     throw new TerrainFormatError(
@@ -110,7 +141,7 @@ export function writeGeoTiff(grid: GridSpec, values: Float32Array, options: GeoT
     return o;
   });
 
-  const buffer = new ArrayBuffer(dataStart + dataBytes);
+  const buffer = new ArrayBuffer(dataStart);
   const view = new DataView(buffer);
   view.setUint8(0, 0x49);
   view.setUint8(1, 0x49);
@@ -140,11 +171,10 @@ export function writeGeoTiff(grid: GridSpec, values: Float32Array, options: GeoT
   }
   view.setUint32(p, 0, true); // no next IFD
 
+  const head = new Uint8Array(buffer);
   const littleEndianHost = new Uint8Array(new Float32Array([1]).buffer)[3] === 0x3f;
-  if (littleEndianHost) {
-    new Float32Array(buffer, dataStart, width * height).set(values);
-  } else {
-    for (let i = 0; i < values.length; i++) view.setFloat32(dataStart + i * 4, values[i] as number, true);
-  }
-  return buffer;
+  if (littleEndianHost) return { head, data: new Uint8Array(values.buffer, values.byteOffset, dataBytes) };
+  const data = new DataView(new ArrayBuffer(dataBytes));
+  for (let i = 0; i < values.length; i++) data.setFloat32(i * 4, values[i] as number, true);
+  return { head, data: new Uint8Array(data.buffer) };
 }

@@ -4,12 +4,25 @@ jest.mock('quick-lru', () => ({ __esModule: true, default: class QuickLRU extend
 
 import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
-import { writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
+import { type GeoTiffFile, readGeoTiff } from '@/shared/terrain/formats/geotiff-reader';
+import { geoTiffParts, writeGeoTiff } from '@/shared/terrain/formats/geotiff-writer';
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import { describeWithGdal, gdal, temporaryFolder } from '@/tests/unit/terrain/gdal-tools';
 
 jest.setTimeout(60_000);
+
+/** The first `startBytes` of a file and random access to the rest, as the command line reads a GeoTIFF. */
+function startAndFile(whole: ArrayBuffer, startBytes: number): [ArrayBuffer, GeoTiffFile & { bytesRead: number }] {
+  const file = {
+    byteLength: whole.byteLength,
+    bytesRead: 0,
+    read(target: Uint8Array, position: number) {
+      this.bytesRead += target.byteLength;
+      target.set(new Uint8Array(whole, position, target.byteLength));
+    },
+  };
+  return [whole.slice(0, startBytes), file];
+}
 
 function bufferOf(file: string): ArrayBuffer {
   const bytes = readFileSync(file);
@@ -35,6 +48,47 @@ describe('writeGeoTiff and readGeoTiff', () => {
     const back = await readGeoTiff(writeGeoTiff(terrain, values, { nodata: -9999 }));
     expect(back.nodata).toBe(-9999);
     expect(values).toEqual(terrain.heights);
+  });
+
+  test('the two parts the command line writes are the file, the pixels a view on the values (no copy)', () => {
+    // Source: writeGeoTiff above (round-trips and GDAL reads it); common practice, no source.
+    const values = Float32Array.from(terrain.heights);
+    const { head, data } = geoTiffParts(terrain, values);
+    expect(data.buffer).toBe(values.buffer);
+    const joined = Buffer.concat([head, data]);
+    expect(Buffer.compare(joined, Buffer.from(writeGeoTiff(terrain, values)))).toBe(0);
+    expect(head.byteLength % 8).toBe(0); // pixels start 8-byte aligned
+  });
+
+  test('reads the heights into an array the caller makes (shared memory for threads)', async () => {
+    const file = writeGeoTiff(terrain, terrain.heights);
+    let made = 0;
+    const allocate = (length: number) => {
+      made++;
+      return new Float32Array(new SharedArrayBuffer(length * 4));
+    };
+    const back = await readGeoTiff(file, { allocate });
+    expect(made).toBe(1);
+    expect(back.heights.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(back.heights).toEqual(terrain.heights);
+  });
+
+  test('reads from the start of a file and random access: pixels straight into the heights, else the whole file', async () => {
+    // Source: readGeoTiff on the whole file (round-trips above, GDAL below); common practice, no source.
+    const values = Float32Array.from(terrain.heights);
+    values[5] = NaN;
+    const whole = writeGeoTiff(terrain, values, { nodata: -9999 });
+    const expected = await readGeoTiff(whole);
+    for (const startBytes of [4096, 16]) {
+      const [start, file] = startAndFile(whole, startBytes);
+      const back = await readGeoTiff(start, { file });
+      expect(back).toEqual(expected);
+      // With the tables in the start, only the pixels are read; with 16 bytes, the whole file.
+      expect(file.bytesRead).toBe(startBytes === 16 ? whole.byteLength : values.length * 4);
+    }
+    const [start, file] = startAndFile(whole.slice(0, whole.byteLength - 100), 4096);
+    await expect(readGeoTiff(start, { file })).rejects.toMatchObject({ code: 'truncated' });
+    await expect(readGeoTiff(start, { file, maxCells: 100 })).rejects.toMatchObject({ code: 'oversize' });
   });
 
   test('a 4000 × 4000 raster round-trips', async () => {
@@ -120,6 +174,13 @@ describeWithGdal('GeoTIFF and GDAL', () => {
       terrain.yll,
       32633,
     ]);
+    // Read from the file's start: the general decoder needs the whole file, read through `file`.
+    const [start, file] = startAndFile(bufferOf(out), 4096);
+    expect((await readGeoTiff(start, { file })).heights).toEqual(back.heights);
+    // The general decoder's values land in the caller's array too.
+    const shared = await readGeoTiff(bufferOf(out), { allocate: (n) => new Float32Array(new SharedArrayBuffer(n * 4)) });
+    expect(shared.heights.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(shared.heights).toEqual(back.heights);
     const integer = options.includes('Int16');
     for (let i = 0; i < back.heights.length; i++) {
       expect(Math.abs((back.heights[i] as number) - (terrain.heights[i] as number))).toBeLessThanOrEqual(integer ? 0.5 : 1e-4);

@@ -1,4 +1,10 @@
-import { computeHiddenHeightRaster, type LookoutPost, type SightConditions } from '@/shared/terrain/hidden-height-raster';
+import {
+  completeHiddenHeightRaster,
+  computeHiddenHeightHalf,
+  computeHiddenHeightRaster,
+  type LookoutPost,
+  type SightConditions,
+} from '@/shared/terrain/hidden-height-raster';
 import { prepareSweepTerrain } from '@/shared/terrain/sweep-terrain';
 import { generateSyntheticTerrain } from '@/shared/terrain/synthetic-terrain';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
@@ -126,5 +132,57 @@ describe('range limit and nodata mask', () => {
       const before = computeHiddenHeightRasterBefore(terrain, post, conditions);
       expect(bitDifferences(now.hidden, before.hidden)).toEqual({ count: 0, first: null });
     }
+  });
+});
+
+describe('two halves of one post (for two threads) are bitwise the whole sweep', () => {
+  // The command line sweeps the north half on one thread and the south half on another into one shared
+  // array. Source: the whole-post sweep above, itself held to the previous engine bit for bit.
+  const terrain = generateSyntheticTerrain({ width: 211, height: 157, seed: 31 });
+  const heights = Float32Array.from(terrain.heights);
+  for (let r = 100; r < 110; r++) for (let c = 20; c < 45; c++) heights[r * terrain.width + c] = NaN;
+  const holed: TerrainRaster = { ...terrain, heights, nodata: null };
+
+  test.each([
+    { name: 'post inside', terrain, post: { col: 90, row: 70, eyeHeight: 15 }, conditions: {} },
+    { name: 'post on the north edge', terrain, post: { col: 30, row: 0, eyeHeight: 5 }, conditions: {} },
+    { name: 'post on the south-east corner', terrain, post: { col: 210, row: 156, eyeHeight: 20 }, conditions: {} },
+    {
+      name: 'range limit, k 0',
+      terrain,
+      post: { col: 150, row: 40, eyeHeight: 12 },
+      conditions: { maxDistance: 2_000, refractionCoefficient: 0 },
+    },
+    { name: 'nodata holes', terrain: holed, post: { col: 60, row: 120, eyeHeight: 25 }, conditions: {} },
+  ])('$name, either half first', ({ terrain: grid, post, conditions }) => {
+    const whole = computeHiddenHeightRaster(grid, post, conditions);
+    for (const order of [
+      ['north', 'south'],
+      ['south', 'north'],
+    ] as const) {
+      const out = new Float32Array(grid.width * grid.height).fill(123);
+      for (const half of order) computeHiddenHeightHalf(grid, post, conditions, half, out);
+      const done = completeHiddenHeightRaster(grid, post, conditions, out);
+      expect(done.hidden).toBe(out);
+      expect(bitDifferences(done.hidden, whole.hidden)).toEqual({ count: 0, first: null });
+      expect(done.eyeElevation).toBe(whole.eyeElevation);
+      expect(done.maxDistance).toBe(whole.maxDistance);
+    }
+  });
+
+  test('a half covers its side of the post only', () => {
+    const post = { col: 90, row: 70, eyeHeight: 15 };
+    const out = new Float32Array(terrain.width * terrain.height).fill(-1);
+    computeHiddenHeightHalf(terrain, post, {}, 'north', out);
+    const untouched = (r: number) => out.subarray(r * terrain.width, (r + 1) * terrain.width).every((v) => v === -1);
+    expect(untouched(post.row - 1)).toBe(false);
+    expect(untouched(post.row + 1)).toBe(true);
+    expect(untouched(terrain.height - 1)).toBe(true);
+  });
+
+  test('refuses a result array of the wrong size', () => {
+    expect(() => computeHiddenHeightHalf(terrain, { col: 1, row: 1, eyeHeight: 1 }, {}, 'south', new Float32Array(10))).toThrow(
+      /width × height/,
+    );
   });
 });

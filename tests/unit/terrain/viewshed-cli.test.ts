@@ -101,6 +101,7 @@ describe('server/scripts/viewshed.ts', () => {
     [['--dem', 'x.tif', '--x', '1', '--y', '2', '--eye', '3', '--out', 'o.png'], /--out must end in \.asc/],
     [['--dem', 'x.tif', '--x', '1', '--y', '2', '--eye', '3', '--out', 'o.tif', '--mode', 'seen'], /--mode must be/],
     [['--dem', 'x.tif', '--x', '1', '--y', '2', '--eye', '3', '--out', 'o.tif', '--bogus'], /Unknown option '--bogus'/],
+    [['--dem', 'x.tif', '--x', '1', '--y', '2', '--eye', '3', '--out', 'o.tif', '--threads', '3'], /--threads must be 1 or 2/],
     [['--dem', 'missing.tif', '--x', '1', '--y', '2', '--eye', '3', '--out', 'o.tif'], /file not found/],
   ])('rejects bad arguments %j with exit status 2', (args, message) => {
     const run = viewshed(args as string[]);
@@ -122,6 +123,57 @@ describe('server/scripts/viewshed.ts', () => {
     expect(run.status).toBe(1);
     expect(run.stderr).toMatch(/wrong-type/);
     expect(existsSync(out)).toBe(false);
+  });
+
+  test('two threads write the same bits as one (GeoTIFF, and ASCII with a range limit)', () => {
+    // Source: the one-thread sweep (held to the previous engine in sweep-reference.test.ts); the two
+    // halves must not change a bit of it. Common practice, no source.
+    const base = ['--x', String(x), '--y', String(y), '--eye', '12', '--k', '0.2'];
+    for (const [dem, ext, extra] of [
+      [tif, 'tif', []],
+      [asc, 'asc', ['--max-distance', '700']],
+    ] as const) {
+      const outs = (['1', '2'] as const).map((threads) => {
+        const out = path.join(folder.dir, `threads-${threads}.${ext}`);
+        const run = viewshed(['--dem', dem, ...base, ...extra, '--threads', threads, '--out', out]);
+        expect(run.stderr).toMatch(threads === '2' ? /Mcells\/s, 2 threads\)/ : /Mcells\/s, 1 thread\)/);
+        expect(run.status).toBe(0);
+        return readFileSync(out);
+      });
+      expect(outs[0]?.length).toBeGreaterThan(1000);
+      expect(Buffer.compare(outs[0] as Buffer, outs[1] as Buffer)).toBe(0);
+    }
+  });
+
+  test('two threads: a post on nodata is refused with exit status 2 and nothing written', () => {
+    const heights = Float32Array.from(terrain.heights);
+    heights[post.row * terrain.width + post.col] = NaN;
+    const holed = path.join(folder.dir, 'holed.tif');
+    writeFileSync(holed, Buffer.from(writeGeoTiff(terrain, heights)));
+    const out = path.join(folder.dir, 'holed-out.tif');
+    const run = viewshed(['--dem', holed, '--x', String(x), '--y', String(y), '--eye', '3', '--threads', '2', '--out', out]);
+    expect(run.stderr).toMatch(/no ground height/);
+    expect(run.status).toBe(2);
+    expect(existsSync(out)).toBe(false);
+  });
+
+  test('the prebuilt command (npm run viewshed) builds its bundle and writes the same file as the TypeScript entry', () => {
+    const out = path.join(folder.dir, 'prebuilt.tif');
+    const args = ['--dem', tif, '--x', String(x), '--y', String(y), '--eye', '15', '--threads', '2'];
+    const run = spawnSync(
+      process.execPath,
+      [path.join(ROOT, 'server', 'scripts', 'viewshed-command.mjs'), ...args, '--out', out],
+      {
+        cwd: ROOT,
+        encoding: 'utf8',
+      },
+    );
+    expect(run.stderr).toMatch(/compute \d+ ms/);
+    expect(run.status).toBe(0);
+    const reference = path.join(folder.dir, 'reference.tif');
+    expect(viewshed([...args, '--threads', '1', '--out', reference]).status).toBe(0);
+    expect(Buffer.compare(readFileSync(out), readFileSync(reference))).toBe(0);
+    expect(existsSync(path.join(ROOT, 'dist', 'cli', 'viewshed.cjs'))).toBe(true);
   });
 
   test('prints usage with --help', () => {
