@@ -130,6 +130,71 @@ describe('chooseTowerSites', () => {
     }
   });
 
+  it('the swap pass picks what trying every swap in full picks', () => {
+    // Source: the swap pass as documented on chooseTowerSites (each position in turn, the option that
+    // raises the objective most, the first of equal ones in the order of what each adds alone; ≤ 5
+    // passes); the reference below recomputes every candidate set's objective from scratch, so the
+    // fast path (shared weights through a word index) must give the same sets and totals.
+    const fullSwap = (
+      objective: SitingObjective,
+      options: SitingOption[],
+      kept: SitingOption[],
+      start: number[],
+      budget: number | null,
+    ) => {
+      const totalOf = (set: number[]) => objectiveOf(objective, [...kept, ...set.map((i) => options[i]!)]);
+      const alone = options.map((_, i) => totalOf([i]) - totalOf([]));
+      const order = options.map((_, i) => i).sort((a, b) => alone[b]! - alone[a]! || a - b);
+      const set = [...start];
+      let current = totalOf(set);
+      for (let pass = 0; pass < 5; pass++) {
+        let improved = false;
+        for (let k = 0; k < set.length; k++) {
+          const others = set.filter((_, j) => j !== k);
+          let best = -1;
+          let bestTotal = current;
+          for (const i of order) {
+            if (set.includes(i) || others.some((j) => options[j]!.location === options[i]!.location)) continue;
+            if (budget !== null && [...others, i].reduce((sum, j) => sum + options[j]!.cost, 0) > budget + 1e-9) continue;
+            const total = totalOf([...others, i]);
+            if (total > bestTotal) {
+              best = i;
+              bestTotal = total;
+            }
+          }
+          if (best !== -1) {
+            set[k] = best;
+            current = bestTotal;
+            improved = true;
+          }
+        }
+        if (!improved) break;
+      }
+      return { set, total: current };
+    };
+    let swapsSeen = 0;
+    for (let seed = 900; seed < 960; seed++) {
+      const { objective, options } = randomCase(seed, 14, 3);
+      const kept = seed % 3 === 0 ? [options[0]!] : [];
+      const budget = seed % 4 === 0 ? 9 : null;
+      const input = { objective, kept, options, count: 4, method: 'greedy' as const, budget };
+      const plain = chooseTowerSites({ ...input, swap: false });
+      const swapped = chooseTowerSites(input);
+      const reference = fullSwap(
+        objective,
+        options,
+        kept,
+        plain.steps.map((s) => s.option),
+        budget,
+      );
+      expect(new Set(swapped.steps.map((s) => s.option))).toEqual(new Set(reference.set));
+      expect(swapped.total).toBe(reference.total);
+      swapsSeen += swapped.swaps;
+    }
+    // The cases must exercise swaps, or the comparison proves little.
+    expect(swapsSeen).toBeGreaterThan(5);
+  });
+
   it('chooses at most one height per location and keeps to the budget', () => {
     // common practice, no source: one tower per site; the budget is a hard limit.
     for (let seed = 700; seed < 720; seed++) {
