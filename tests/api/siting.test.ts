@@ -358,9 +358,12 @@ describe('siting runs', () => {
     );
     // `lost`: its job gone from the queue (cancelled there) a minute ago; `waiting`: as old, job still waiting.
     await boss.sitingQueue.cancel(await jobOf(lost.id));
-    await db.query(`UPDATE siting_runs SET updated_at = now() - interval '1 minute' WHERE id IN (:ids)`, {
-      replacements: { ids: [lost.id, waiting.id] },
-    });
+    await db.query(
+      `UPDATE siting_runs SET heartbeat_at = now() - interval '1 minute', updated_at = now() - interval '1 minute' WHERE id IN (:ids)`,
+      {
+        replacements: { ids: [lost.id, waiting.id] },
+      },
+    );
     const reaped = await reapStaleSitingRuns(db, { staleAfterS: 30 });
     expect(reaped.failed.sort()).toEqual([dead.id, lost.id].sort());
     const deadNow = await sitingRun(planner, dead.id, () => true);
