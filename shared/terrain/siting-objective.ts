@@ -279,6 +279,8 @@ export function addSharedWeights(
 export class SitingState {
   /** Cells counted as covered. */
   readonly covered: Uint32Array;
+  /** With two posts needed: cells seen by any post of the set (only there can a new post make a pair). */
+  private readonly seenByAny: Uint32Array | null;
   /** Posts in the set, in the order added. */
   readonly views: SitingView[] = [];
   /** Weighted cells covered. */
@@ -289,12 +291,14 @@ export class SitingState {
       throw new TerrainInputError('invalid-layer', 'One weight per cell is needed.', 'weights');
     }
     this.covered = new Uint32Array(bitsetWords(objective.cellCount));
+    this.seenByAny = objective.minPosts === 2 ? new Uint32Array(bitsetWords(objective.cellCount)) : null;
   }
 
   /** A copy to try additions on. */
   clone(): SitingState {
     const copy = new SitingState(this.objective);
     copy.covered.set(this.covered);
+    if (this.seenByAny) copy.seenByAny!.set(this.seenByAny);
     copy.views.push(...this.views);
     copy.total = this.total;
     return copy;
@@ -315,6 +319,8 @@ export class SitingState {
       for (let k = 0; k < words.length; k++) this.covered[words[k]!]! |= view.seen[words[k]!]!;
     } else {
       gain = this.crossGain(view, true);
+      const words = nonZeroWords(view.seen);
+      for (let k = 0; k < words.length; k++) this.seenByAny![words[k]!]! |= view.seen[words[k]!]!;
     }
     this.views.push(view);
     this.total += gain;
@@ -333,12 +339,19 @@ export class SitingState {
     const { weights, width, height } = this.objective;
     const gridCells = width * height;
     const goodFrom = (this.objective.minCrossingAngle ?? Math.PI / 6) - ANGLE_TOLERANCE;
+    // sin² of the band limit, with a margin: clearly above or below it needs no arcsine; near it,
+    // the arcsine decides as crossBearingQuality's does.
+    const sin2 = Math.sin(goodFrom) ** 2;
+    const surelyGood = goodFrom <= 0 ? -Infinity : goodFrom >= Math.PI / 2 ? Infinity : sin2 + 1e-9;
+    const surelyNot = goodFrom <= 0 ? -Infinity : sin2 - 1e-9;
+    const seenByAny = this.seenByAny!;
     const others = this.views;
     let gain = 0;
     const words = nonZeroWords(view.seen);
     for (let k = 0; k < words.length; k++) {
       const w = words[k]!;
-      let word = view.seen[w]! & ~this.covered[w]!;
+      // Only cells a post of the set sees can pair with the new one.
+      let word = view.seen[w]! & ~this.covered[w]! & seenByAny[w]!;
       while (word !== 0) {
         const low = word & -word;
         word ^= low;
@@ -360,7 +373,7 @@ export class SitingState {
           if (lb === 0) continue;
           const cross = ax * by - ay * bx;
           const s = (cross * cross) / (la * lb);
-          if (Math.asin(Math.sqrt(s > 1 ? 1 : s)) >= goodFrom) {
+          if (s >= surelyGood || (s > surelyNot && Math.asin(Math.sqrt(s > 1 ? 1 : s)) >= goodFrom)) {
             gain += weight;
             if (write) this.covered[w]! |= low;
             break;

@@ -83,7 +83,17 @@ export async function benchSiting(): Promise<SitingBenchRow[]> {
   time('greedy choice of 10 (lazy), 300 options, 2000²', (fresh) =>
     chooseTowerSites({ objective, kept: [], options: fresh, count: 10, method: 'greedy', swap: false }),
   );
-  time('greedy + swap pass, same', (fresh) =>
+  time('greedy choice of 10, two posts with good cross-bearings', (fresh) =>
+    chooseTowerSites({
+      objective: { ...objective, minPosts: 2 },
+      kept: [],
+      options: fresh,
+      count: 10,
+      method: 'greedy',
+      swap: false,
+    }),
+  );
+  time('greedy (one post) + swap pass, same options', (fresh) =>
     chooseTowerSites({ objective, kept: [], options: fresh, count: 10, method: 'greedy' }),
   );
   const mem = process.memoryUsage();

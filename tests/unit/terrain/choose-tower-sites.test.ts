@@ -241,6 +241,53 @@ describe('chooseTowerSites', () => {
     expect(objectiveOf(objective, [...views].reverse())).toBe(expected);
   });
 
+  it('counts two-post cells against the band limit at its extremes as the definition does', () => {
+    // Source: crossBearingQuality's definition (the crossing angle q = min(θ, π − θ) of two bearing lines
+    // lies in [0, π/2]): a limit of 0 counts every cell two posts see (but their own cells), a limit above
+    // π/2 none, and 30° counts exactly the cells whose q ≥ 30°, tested here cell by cell with the arcsine.
+    const random = seededRandom(4242);
+    const views = [0, 1, 2].map(() => {
+      const col = Math.floor(random() * W);
+      const row = Math.floor(random() * H);
+      return { col, row, seen: bitsetOf(W * H, disc(random, col, row, 5 + random() * 5, 10)) };
+    });
+    const has = (bits: Uint32Array, i: number) => ((bits[i >>> 5]! >>> (i & 31)) & 1) === 1;
+    const count = (limit: number) => {
+      let n = 0;
+      for (let i = 0; i < W * H; i++) {
+        const col = i % W;
+        const row = (i - col) / W;
+        const seers = views.filter((v) => has(v.seen, i) && (v.col !== col || v.row !== row));
+        let good = false;
+        for (let a = 0; a < seers.length && !good; a++) {
+          for (let b = a + 1; b < seers.length && !good; b++) {
+            const t1 = Math.atan2(col - seers[a]!.col, seers[a]!.row - row);
+            const t2 = Math.atan2(col - seers[b]!.col, seers[b]!.row - row);
+            let d = Math.abs(t1 - t2) % Math.PI;
+            d = Math.min(d, Math.PI - d);
+            good = d >= limit - 1e-9;
+          }
+        }
+        if (good) n++;
+      }
+      return n;
+    };
+    const weights = new Float32Array(W * H).fill(1);
+    const objective = (minCrossingAngle: number): SitingObjective => ({
+      cellCount: W * H,
+      width: W,
+      height: H,
+      weights,
+      minPosts: 2,
+      minCrossingAngle,
+    });
+    expect(count(Math.PI / 6)).toBeGreaterThan(0);
+    for (const limit of [0, Math.PI / 6, Math.PI / 3, Math.PI / 2 + 0.1]) {
+      expect(objectiveOf(objective(limit), views)).toBe(count(limit));
+    }
+    expect(objectiveOf(objective(Math.PI / 2 + 0.1), views)).toBe(0);
+  });
+
   it('counts weights word by word exactly as cell by cell', () => {
     // Source: the definition of a weighted count (sum of the weights of the set cells); the popcount
     // path for words of one weight must give the same sum (common practice, no source).
