@@ -139,6 +139,12 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
   const [minPosts, setMinPosts] = useState<1 | 2>(1);
   const [zoneWeights, setZoneWeights] = useState(true);
   const [local, setLocal] = useState<Record<string, string>>({});
+  // A new point answers "tap at least two points": that message goes with the change.
+  const setLine = (next: { latDeg: number; lonDeg: number }[]) => {
+    setLinePoints(next);
+    const { ['candidates.fromTerrain.accessLine.line']: _answered, ...rest } = local;
+    setLocal(rest);
+  };
   const toggle = (list: string[], id: string) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]);
 
   const addPoint = () => {
@@ -286,7 +292,7 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
                 posts={posts}
                 picked={[]}
                 line={linePoints}
-                onPick={(at) => setLinePoints([...linePoints, at])}
+                onPick={(at) => setLine([...linePoints, at])}
                 label="Site map: tap the access line's points in order"
               />
               <AppText variant="small" tone="muted">
@@ -299,14 +305,9 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
                   kind="quiet"
                   label="Remove the last point"
                   disabled={linePoints.length === 0}
-                  onPress={() => setLinePoints(linePoints.slice(0, -1))}
+                  onPress={() => setLine(linePoints.slice(0, -1))}
                 />
-                <Button
-                  kind="quiet"
-                  label="Start the line over"
-                  disabled={linePoints.length === 0}
-                  onPress={() => setLinePoints([])}
-                />
+                <Button kind="quiet" label="Start the line over" disabled={linePoints.length === 0} onPress={() => setLine([])} />
               </View>
               {fieldError('candidates.fromTerrain.accessLine.line') ? (
                 <FormError message={fieldError('candidates.fromTerrain.accessLine.line')!} />

@@ -185,6 +185,8 @@ describe('tower siting from the terrain near an access line', () => {
       await page.getByText('1 point; tap the next one.').waitFor();
       await map.click({ position: { x: box.width * 0.7, y: box.height * 0.55 } });
       await page.getByText('2 points; tap the next one.').waitFor();
+      // The line now has its points: the message about them has gone.
+      expect(await page.getByText('Tap at least two points of the line on the map.').count()).toBe(0);
       await page.getByLabel('Within this distance of the line').fill('3000');
       await page.getByLabel('Cost of each height (optional)').fill('20, 35');
       await page.screenshot({ path: `/tmp/siting-access-line-${viewport}.png`, fullPage: true });
