@@ -238,6 +238,7 @@ describe('tower siting from the terrain near an access line', () => {
           .getByText(/ · cost \d+/)
           .first()
           .waitFor();
+      await page.getByText('Coverage curve').scrollIntoViewIfNeeded();
       await shot(page, 'siting-access-line-result', viewport);
       expect(errors).toEqual([]);
     } finally {
