@@ -6,6 +6,7 @@ import { createApp } from './app';
 import { config, type Config } from './config';
 import { createDatabase } from './data/database';
 import { startStaleRunReaper } from './domain/coverage/run-heartbeat';
+import { startStaleSitingReaper } from './domain/siting/reap-stale-siting-runs';
 import { loadSessionUser } from './http/session';
 import { startSessionUserCache } from './http/session-user-cache';
 import { createMailer } from './mail/mailer';
@@ -35,6 +36,8 @@ async function main() {
 async function startChores(cfg: Config, db: Sequelize, queue: CoverageQueue) {
   // Queues again (once), then fails, runs whose worker died, even when no worker is left to notice.
   const reaper = startStaleRunReaper(db, { requeue: (runId, attempt) => queue.enqueue(runId, attempt) });
+  // Fails siting runs whose worker died or whose job the queue no longer holds.
+  const sitingReaper = startStaleSitingReaper(db);
   // Uploads a killed server left half-received; again every half hour.
   const uploadRoots = [cfg.TERRAIN_UPLOAD_DIR, DEFAULT_ATTACHMENT_UPLOAD_DIR];
   const sweepUploads = () =>
@@ -49,6 +52,7 @@ async function startChores(cfg: Config, db: Sequelize, queue: CoverageQueue) {
   return {
     stop() {
       reaper.stop();
+      sitingReaper.stop();
       clearInterval(uploadSweeper);
     },
   };

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { View } from 'react-native';
-import Svg, { Circle } from 'react-native-svg';
+import Svg, { Circle, Polyline } from 'react-native-svg';
 import type { Post, Site } from '@/shared/schemas/site';
 import { useCoordinateFormat } from '@/components/map/coordinate-format';
 import { gridToScreen } from '@/components/map/map-camera';
@@ -15,18 +15,23 @@ import { useLayout } from '@/components/ui/use-layout';
 /**
  * The site map (hillshade, boundary, zones, posts) for picking a candidate by
  * tapping: each tap hands the point's latitude and longitude to `onPick`;
- * the points picked so far are drawn as rings.
+ * the points picked so far are drawn as rings, and `line` (an access line
+ * being drawn), when given, as a dashed line through its points.
  */
 export function CandidatePickMap({
   site,
   posts,
   picked,
+  line = null,
   onPick,
+  label = 'Site map: tap a place to take it as a candidate',
 }: {
   site: Site;
   posts: readonly Post[];
   picked: readonly { latDeg: number; lonDeg: number }[];
+  line?: readonly { latDeg: number; lonDeg: number }[] | null;
   onPick: (at: { latDeg: number; lonDeg: number }) => void;
+  label?: string;
 }) {
   const terrain = useSiteTerrain(site.id);
   const { wide } = useLayout();
@@ -38,6 +43,7 @@ export function CandidatePickMap({
   );
   if (!frame) return <AppText tone="muted">Loading the map…</AppText>;
   const points = picked.map((p) => frame.projection.toGrid(p));
+  const linePoints = (line ?? []).map((p) => frame.projection.toGrid(p));
   return (
     <View
       style={{ height: wide ? 420 : 340, borderRadius: radius.md, overflow: 'hidden', borderWidth: 1, borderColor: colors.line }}
@@ -53,7 +59,7 @@ export function CandidatePickMap({
         format={format}
         onFormat={setFormat}
         onTap={(point) => onPick(frame.projection.toLatLon(point.x, point.y))}
-        label="Site map: tap a place to take it as a candidate"
+        label={label}
         overlay={({ camera, size, margin }) => (
           <Svg
             width={size.width + 2 * margin}
@@ -62,6 +68,22 @@ export function CandidatePickMap({
             pointerEvents="none"
             aria-hidden
           >
+            {linePoints.length > 1 ? (
+              <Polyline
+                points={linePoints
+                  .map((p) => gridToScreen(camera, size, p.x, p.y))
+                  .map((s) => `${s.x + margin},${s.y + margin}`)
+                  .join(' ')}
+                fill="none"
+                stroke={colors.ink}
+                strokeWidth={3}
+                strokeDasharray="8 5"
+              />
+            ) : null}
+            {linePoints.map((p, i) => {
+              const s = gridToScreen(camera, size, p.x, p.y);
+              return <Circle key={`line-${i}`} cx={s.x + margin} cy={s.y + margin} r={5} fill={colors.ink} />;
+            })}
             {points.map((p, i) => {
               const s = gridToScreen(camera, size, p.x, p.y);
               return (

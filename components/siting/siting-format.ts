@@ -64,3 +64,68 @@ export function candidatesSummary(candidates: SitingRunInput['candidates']): str
   if (!Array.isArray(candidates)) return 'from the terrain';
   return `${candidates.length} ${candidates.length === 1 ? 'candidate' : 'candidates'}`;
 }
+
+/** What the form holds for the optional limits of a run, as typed. */
+export interface SitingLimitsText {
+  /** Cost of each height, in the order of the heights, separated by commas; blank = no costs. */
+  costs: string;
+  /** Most to spend, in the costs' unit; blank = no budget. */
+  budget: string;
+  /** Stop once this share of the site is seen, %; blank = choose every tower asked for. */
+  goalPct: string;
+}
+
+/**
+ * The optional limits of a run read from the form: costs per height, budget
+ * and coverage goal, with an error per field (keyed as the API names them)
+ * for what does not read or does not fit — the same rules the API applies,
+ * so most mistakes are shown before anything is sent.
+ */
+export function readSitingLimits(
+  text: SitingLimitsText,
+  heightCount: number | null,
+): { costs: number[] | null; budget: number | null; goalPct: number | null; errors: Record<string, string> } {
+  const errors: Record<string, string> = {};
+  const numbers = (s: string) =>
+    s
+      .split(/[\s,;]+/)
+      .filter(Boolean)
+      .map(Number);
+  let costs: number[] | null = null;
+  if (text.costs.trim() !== '') {
+    costs = numbers(text.costs);
+    if (costs.some((c) => !Number.isFinite(c))) errors.costs = 'Type the costs as numbers, e.g. 0, 40, 90.';
+    else if (costs.some((c) => c < 0)) errors.costs = 'Costs cannot be negative.';
+    else if (heightCount !== null && costs.length !== heightCount) {
+      errors.costs = `Give one cost per tower height (${heightCount}).`;
+    }
+  }
+  let budget: number | null = null;
+  if (text.budget.trim() !== '') {
+    budget = Number(text.budget.trim());
+    if (!Number.isFinite(budget) || budget <= 0) errors.budget = 'A budget is a number more than 0.';
+    else if (costs === null) errors.budget = 'A budget needs the costs of the heights.';
+  }
+  let goalPct: number | null = null;
+  if (text.goalPct.trim() !== '') {
+    goalPct = Number(text.goalPct.trim().replace(/%$/, ''));
+    if (!Number.isFinite(goalPct) || goalPct <= 0 || goalPct > 100)
+      errors.goalPct = 'A share of the site, more than 0 and at most 100 %.';
+  }
+  return { costs, budget, goalPct, errors };
+}
+
+/** The access line as the form holds it: points tapped on the map, and the distance from it, as typed. */
+export function readAccessLine(
+  points: readonly { latDeg: number; lonDeg: number }[],
+  withinText: string,
+): { accessLine: { line: [number, number][]; withinM: number } | null; errors: Record<string, string> } {
+  const errors: Record<string, string> = {};
+  if (points.length < 2) errors['candidates.fromTerrain.accessLine.line'] = 'Tap at least two points of the line on the map.';
+  const withinM = Number(withinText.trim());
+  if (withinText.trim() === '' || !Number.isFinite(withinM) || withinM <= 0 || withinM > 50_000) {
+    errors['candidates.fromTerrain.accessLine.withinM'] = 'A distance in metres, more than 0 and at most 50 000.';
+  }
+  if (Object.keys(errors).length > 0) return { accessLine: null, errors };
+  return { accessLine: { line: points.map((p) => [p.lonDeg, p.latDeg]), withinM }, errors };
+}

@@ -33,7 +33,7 @@ import { useLayout } from '@/components/ui/use-layout';
 import { AddedAreaMap, type MapMarker } from './added-area-map';
 import { CandidatePickMap } from './candidate-pick-map';
 import { CoverageCurveChart } from './coverage-curve-chart';
-import { coverageCurve, parseHeights, parseLatLon } from './siting-format';
+import { coverageCurve, parseHeights, parseLatLon, readAccessLine, readSitingLimits } from './siting-format';
 
 interface TypedPoint {
   latDeg: number;
@@ -125,6 +125,13 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
   const [pointName, setPointName] = useState('');
   const [pointError, setPointError] = useState<string | null>(null);
   const [spacing, setSpacing] = useState('1500');
+  const [maxText, setMaxText] = useState('20');
+  const [lineOn, setLineOn] = useState(false);
+  const [linePoints, setLinePoints] = useState<{ latDeg: number; lonDeg: number }[]>([]);
+  const [withinText, setWithinText] = useState('1000');
+  const [costsText, setCostsText] = useState('');
+  const [budgetText, setBudgetText] = useState('');
+  const [goalText, setGoalText] = useState('');
   const [heightsText, setHeightsText] = useState(heightUnit === 'm' ? '0, 15, 30' : '0, 50, 100');
   const [countText, setCountText] = useState('2');
   const [targetId, setTargetId] = useState<string | null>(null);
@@ -132,6 +139,12 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
   const [minPosts, setMinPosts] = useState<1 | 2>(1);
   const [zoneWeights, setZoneWeights] = useState(true);
   const [local, setLocal] = useState<Record<string, string>>({});
+  // A new point answers "tap at least two points": that message goes with the change.
+  const setLine = (next: { latDeg: number; lonDeg: number }[]) => {
+    setLinePoints(next);
+    const { ['candidates.fromTerrain.accessLine.line']: _answered, ...rest } = local;
+    setLocal(rest);
+  };
   const toggle = (list: string[], id: string) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]);
 
   const addPoint = () => {
@@ -152,10 +165,24 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
     if (!Number.isInteger(count) || count < 1) errors.count = 'A whole number, at least 1.';
     if (!targetId) errors.targetId = 'Choose a target.';
     if (!setId) errors.conditionSetId = 'Choose a condition set.';
-    const candidates: SitingRunInput['candidates'] =
-      source === 'terrain'
-        ? { fromTerrain: { spacingM: Number(spacing) } }
-        : [...candidatePosts.map((postId) => ({ postId })), ...points];
+    const limits = readSitingLimits({ costs: costsText, budget: budgetText, goalPct: goalText }, heightsM?.length ?? null);
+    Object.assign(errors, limits.errors);
+    let candidates: SitingRunInput['candidates'];
+    if (source === 'terrain') {
+      const spacingM = Number(spacing.trim());
+      if (spacing.trim() === '' || !Number.isFinite(spacingM)) {
+        errors['candidates.fromTerrain.spacingM'] = 'The spacing must be a number of metres.';
+      }
+      const maxCandidates = Number(maxText.trim());
+      if (!Number.isInteger(maxCandidates) || maxCandidates < 1 || maxCandidates > 100) {
+        errors['candidates.fromTerrain.maxCandidates'] = 'A whole number from 1 to 100.';
+      }
+      const access = lineOn ? readAccessLine(linePoints, withinText) : { accessLine: null, errors: {} };
+      Object.assign(errors, access.errors);
+      candidates = { fromTerrain: { spacingM, maxCandidates, accessLine: access.accessLine } };
+    } else {
+      candidates = [...candidatePosts.map((postId) => ({ postId })), ...points];
+    }
     if (Array.isArray(candidates) && candidates.length === 0) errors.candidates = 'Pick or add at least one candidate.';
     setLocal(errors);
     if (Object.keys(errors).length > 0) return;
@@ -168,6 +195,9 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
         targetId: targetId!,
         conditionSetId: setId!,
         objective: { minPosts, zoneWeights },
+        costs: limits.costs,
+        budget: limits.budget,
+        goalPct: limits.goalPct,
       },
       { onSuccess: (run) => onStarted(run.id) },
     );
@@ -232,15 +262,67 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
           {fieldError('candidates') ? <FormError message={fieldError('candidates')!} /> : null}
         </View>
       ) : (
-        <TextField
-          label="Least distance between candidates"
-          unit="m"
-          keyboardType="numeric"
-          value={spacing}
-          onChangeText={setSpacing}
-          hint="Summits and ridge crests inside the site, the highest first, at most 20."
-          error={fieldError('candidates.fromTerrain')}
-        />
+        <View style={{ gap: space.md }}>
+          <TextField
+            label="Least distance between candidates"
+            unit="m"
+            keyboardType="numeric"
+            value={spacing}
+            onChangeText={setSpacing}
+            hint="Summits and ridge crests inside the site, the highest first."
+            error={fieldError('candidates.fromTerrain.spacingM')}
+          />
+          <TextField
+            label="Most candidates"
+            keyboardType="numeric"
+            value={maxText}
+            onChangeText={setMaxText}
+            error={fieldError('candidates.fromTerrain.maxCandidates')}
+          />
+          <CheckRow
+            label="Only near an access line"
+            detail="Draw the road or track on the map; only places within the distance of it are candidates."
+            checked={lineOn}
+            onToggle={() => setLineOn(!lineOn)}
+          />
+          {lineOn ? (
+            <View style={{ gap: space.sm }} testID="siting-access-line">
+              <CandidatePickMap
+                site={site}
+                posts={posts}
+                picked={[]}
+                line={linePoints}
+                onPick={(at) => setLine([...linePoints, at])}
+                label="Site map: tap the access line's points in order"
+              />
+              <AppText variant="small" tone="muted">
+                {linePoints.length === 0
+                  ? 'Tap the first point of the line.'
+                  : `${linePoints.length} ${linePoints.length === 1 ? 'point' : 'points'}; tap the next one.`}
+              </AppText>
+              <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm }}>
+                <Button
+                  kind="quiet"
+                  label="Remove the last point"
+                  disabled={linePoints.length === 0}
+                  onPress={() => setLine(linePoints.slice(0, -1))}
+                />
+                <Button kind="quiet" label="Start the line over" disabled={linePoints.length === 0} onPress={() => setLine([])} />
+              </View>
+              {fieldError('candidates.fromTerrain.accessLine.line') ? (
+                <FormError message={fieldError('candidates.fromTerrain.accessLine.line')!} />
+              ) : null}
+              <TextField
+                label="Within this distance of the line"
+                unit="m"
+                keyboardType="numeric"
+                value={withinText}
+                onChangeText={setWithinText}
+                error={fieldError('candidates.fromTerrain.accessLine.withinM')}
+              />
+            </View>
+          ) : null}
+        </View>
       )}
       <AppText variant="heading">Kept posts</AppText>
       <View style={{ gap: space.sm }}>
@@ -265,6 +347,31 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
         value={countText}
         onChangeText={setCountText}
         error={fieldError('count')}
+      />
+      <TextField
+        label="Cost of each height (optional)"
+        value={costsText}
+        onChangeText={setCostsText}
+        placeholder="0, 40, 90"
+        hint="In the order of the heights, in any one unit (e.g. thousands)."
+        error={fieldError('costs')}
+      />
+      <TextField
+        label="Budget (optional)"
+        keyboardType="numeric"
+        value={budgetText}
+        onChangeText={setBudgetText}
+        hint="The chosen towers together cost at most this; needs the costs."
+        error={fieldError('budget')}
+      />
+      <TextField
+        label="Stop when this much of the site is covered (optional)"
+        unit="%"
+        keyboardType="numeric"
+        value={goalText}
+        onChangeText={setGoalText}
+        hint="Fewer towers are chosen when they reach it."
+        error={fieldError('goalPct')}
       />
       <ChipRow label="Target">
         {(targets.data ?? []).map((t) => (
@@ -373,6 +480,7 @@ function DoneRun({ siteId, run, posts, siteUnits }: { siteId: string; run: Sitin
             <View key={`${s.candidate.index}-${s.heightM}`} style={{ gap: 2 }}>
               <AppText variant="label">
                 {i + 1}. {s.candidate.name} — {formatMetres(convertLength(s.heightM, 'm', heightUnit), heightUnit)} tower
+                {s.cost !== null ? ` · cost ${s.cost.toLocaleString()}` : ''}
               </AppText>
               <AppText variant="small">
                 Adds {formatAreaChange(s.gainM2)} ({s.gainPct >= 0 ? '+' : ''}

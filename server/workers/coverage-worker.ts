@@ -2,6 +2,7 @@ import { config } from '@/server/config';
 import { createDatabase } from '@/server/data/database';
 import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
 import { startStaleRunReaper, withHeartbeat } from '@/server/domain/coverage/run-heartbeat';
+import { startStaleSitingReaper } from '@/server/domain/siting/reap-stale-siting-runs';
 import { cachingViewsheds } from '@/server/domain/coverage/viewshed-cache';
 import { startCoverageBoss, workCoverageQueue, workSitingQueue } from '@/server/queue/coverage-queue';
 import { processSitingRun } from '@/server/domain/siting/process-siting-run';
@@ -45,6 +46,7 @@ async function main() {
   });
   // Any live worker queues again (once), then fails, the runs of workers that died mid-run.
   const reaper = startStaleRunReaper(db, { requeue: (runId, next) => queue.enqueue(runId, next) });
+  const sitingReaper = startStaleSitingReaper(db);
   console.log(`[kenning] coverage worker ready (${pool.size} viewshed threads)`);
 
   let stopping = false;
@@ -54,6 +56,7 @@ async function main() {
     console.log(`[kenning] coverage worker: ${signal}, closing`);
     setTimeout(() => process.exit(1), 12_000).unref();
     reaper.stop();
+    sitingReaper.stop();
     void stop()
       .then(() => pool.close())
       .then(() => db.close())

@@ -1,4 +1,13 @@
-import { SitingState, type SitingObjective, type SitingView } from '@/shared/terrain/siting-objective';
+import {
+  addSharedWeights,
+  cellsNotIn,
+  SitingState,
+  sparseCells,
+  weightOfSparse,
+  wordIndexOf,
+  type SitingObjective,
+  type SitingView,
+} from '@/shared/terrain/siting-objective';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 
 /** One candidate location at one tower height, with what it would see. */
@@ -138,13 +147,15 @@ export function chooseTowerSites(input: ChooseTowerSitesInput): SitingChoice {
       swaps: 0,
     };
   }
+  const alone = new Float64Array(options.length).fill(NaN);
   let set = greedy(
     input,
     options.map((_, i) => i),
     counter,
+    alone,
   ).map((s) => s.option);
   let swaps = 0;
-  if (input.swap !== false && set.length > 0) ({ set, swaps } = swapPass(input, set, counter));
+  if (input.swap !== false && set.length > 0) ({ set, swaps } = swapPass(input, set, counter, alone));
   const steps = curveOrder(input, set, counter);
   return {
     method: input.swap === false ? 'greedy' : 'greedy-swap',
@@ -157,7 +168,12 @@ export function chooseTowerSites(input: ChooseTowerSitesInput): SitingChoice {
 }
 
 /** Greedy over the allowed options (lazy when the objective is submodular). */
-function greedy(input: ChooseTowerSitesInput, allowed: readonly number[], counter: { evaluations: number }): SitingStep[] {
+function greedy(
+  input: ChooseTowerSitesInput,
+  allowed: readonly number[],
+  counter: { evaluations: number },
+  alone: Float64Array | null = null,
+): SitingStep[] {
   const { options, count } = input;
   const budget = input.budget ?? null;
   const goal = input.goal ?? null;
@@ -195,6 +211,7 @@ function greedy(input: ChooseTowerSitesInput, allowed: readonly number[], counte
         const gain = state.gain(options[top]!);
         counter.evaluations++;
         bound.set(top, value(top, gain));
+        if (round === 0 && alone) alone[top] = gain;
         freshIn.set(top, round);
       }
       pickGain = pick === -1 ? 0 : state.gain(options[pick]!);
@@ -316,23 +333,19 @@ function enumerateBest(input: ChooseTowerSitesInput, counter: { evaluations: num
  * Swap pass: for each chosen option in turn, the unchosen one that raises the
  * objective most in its place (keeping one height per location and the
  * budget), until a full pass finds none or after 5 passes. Only strict gains
- * are taken, so the objective never goes down. With the one-post objective
- * the options are tried in the order of what each adds alone, and the search
- * stops where that upper bound cannot beat the best swap found (of equal
- * swaps, the first in that order is taken).
+ * are taken, so the objective never goes down; of equal swaps, the first in
+ * the order tried is taken.
  */
-function swapPass(input: ChooseTowerSitesInput, start: readonly number[], counter: { evaluations: number }) {
+function swapPass(input: ChooseTowerSitesInput, start: readonly number[], counter: { evaluations: number }, alone: Float64Array) {
+  return input.objective.minPosts === 1 ? swapPassCover(input, start, counter, alone) : swapPassAny(input, start, counter);
+}
+
+/** The swap pass for any objective: each candidate's total is computed in full. */
+function swapPassAny(input: ChooseTowerSitesInput, start: readonly number[], counter: { evaluations: number }) {
   const { options } = input;
   const set = [...start];
   let current = totalOf(input, set, counter);
   let swaps = 0;
-  // With the submodular objective an option adds at most what it adds to the kept posts alone, so
-  // options tried in that order can stop once that bound cannot beat the best swap found.
-  const submodular = input.objective.minPosts === 1;
-  const alone = fresh(input);
-  const bound = options.map((o) => (submodular ? alone.gain(o) : Infinity));
-  if (submodular) counter.evaluations += options.length;
-  const order = options.map((_, i) => i).sort((a, b) => bound[b]! - bound[a]! || a - b);
   for (let pass = 0; pass < 5; pass++) {
     let improved = false;
     for (let k = 0; k < set.length; k++) {
@@ -342,8 +355,7 @@ function swapPass(input: ChooseTowerSitesInput, start: readonly number[], counte
       const taken = new Set(others.map((i) => options[i]!.location));
       let best = -1;
       let bestTotal = current;
-      for (const i of order) {
-        if (base.total + bound[i]! <= bestTotal + 1e-9 * Math.max(1, bestTotal)) break;
+      for (let i = 0; i < options.length; i++) {
         if (set.includes(i) || taken.has(options[i]!.location)) continue;
         if (!feasible(input, [...others, i])) continue;
         const total = base.total + base.gain(options[i]!);
@@ -359,6 +371,91 @@ function swapPass(input: ChooseTowerSitesInput, start: readonly number[], counte
         swaps++;
         improved = true;
       }
+    }
+    if (!improved) break;
+  }
+  return { set, swaps };
+}
+
+/**
+ * The swap pass for seen by ≥ 1 post, without rebuilding the set for each
+ * swap. With S the chosen set, k the option taken out and U_k the cells only
+ * k covers (seen by k, by no other chosen option, by no kept post), what an
+ * option i adds in k's place splits into two disjoint parts:
+ *
+ *   gain(i | S − k) = gain(i | S) + weight(seen_i ∩ U_k)
+ *
+ * gain(i | S) does not depend on k, and after a swap of k for b it follows as
+ * gain(i | S − k) − weight(seen_i ∩ V_b), V_b what b adds to S − k. The
+ * shared weights of every option with U_k (or V_b) come from one walk of its
+ * words through an index of which options see each word. The sums are those
+ * of the same cells, so the choice is the one trying every set in full gives
+ * (options tried in the order of what each adds alone, the first of equal
+ * swaps taken).
+ */
+function swapPassCover(
+  input: ChooseTowerSitesInput,
+  start: readonly number[],
+  counter: { evaluations: number },
+  knownAlone: Float64Array,
+) {
+  const { options } = input;
+  const { weights } = input.objective;
+  const seen = options.map((o) => o.seen);
+  const index = wordIndexOf(seen);
+  const set = [...start];
+  const kept = fresh(input);
+  // What each adds to the kept posts alone: greedy's first round computed most of them.
+  const alone = Array.from(knownAlone, (gain, i) => {
+    if (!Number.isNaN(gain)) return gain;
+    counter.evaluations++;
+    return kept.gain(options[i]!);
+  });
+  const order = options.map((_, i) => i).sort((a, b) => alone[b]! - alone[a]! || a - b);
+  const tolerance = (total: number) => 1e-9 * Math.max(1, total);
+  const full = kept.clone();
+  for (const i of set) full.add(options[i]!);
+  counter.evaluations += set.length;
+  let current = full.total;
+  // gain(i | S) = what i adds alone − what it shares with the cells S adds to the kept posts.
+  const shared = new Float64Array(options.length);
+  addSharedWeights(sparseCells(full.covered, kept.covered), index, weights, shared);
+  const gainToSet = Float64Array.from(options, (_, i) => alone[i]! - shared[i]!);
+  let swaps = 0;
+  // Once every position has been tried on the same set without a swap, trying again changes nothing.
+  let triedSinceSwap = 0;
+  for (let pass = 0; pass < 5 && triedSinceSwap < set.length; pass++) {
+    let improved = false;
+    for (let k = 0; k < set.length && triedSinceSwap < set.length; k++) {
+      triedSinceSwap++;
+      const others = set.filter((_, j) => j !== k);
+      const coveredByBase = [kept.covered, ...others.map((i) => seen[i]!)];
+      const only = cellsNotIn(seen[set[k]!]!, coveredByBase);
+      const baseTotal = current - weightOfSparse(only, weights);
+      shared.fill(0);
+      addSharedWeights(only, index, weights, shared);
+      const taken = new Set(others.map((i) => options[i]!.location));
+      let best = -1;
+      let bestTotal = current;
+      for (const i of order) {
+        if (baseTotal + alone[i]! <= bestTotal + tolerance(bestTotal)) break;
+        if (set.includes(i) || taken.has(options[i]!.location)) continue;
+        if (!feasible(input, [...others, i])) continue;
+        const total = baseTotal + gainToSet[i]! + shared[i]!;
+        if (total > bestTotal + tolerance(bestTotal)) {
+          best = i;
+          bestTotal = total;
+        }
+      }
+      if (best === -1) continue;
+      const added = cellsNotIn(seen[best]!, coveredByBase);
+      addSharedWeights(added, index, weights, shared, -1);
+      for (let i = 0; i < options.length; i++) gainToSet[i]! += shared[i]!;
+      set[k] = best;
+      current = bestTotal;
+      swaps++;
+      triedSinceSwap = 0;
+      improved = true;
     }
     if (!improved) break;
   }

@@ -75,6 +75,7 @@ function uniformWeights(weights: Float32Array): Float32Array {
 }
 
 const nonZeroCache = new WeakMap<Uint32Array, Int32Array>();
+let scratch = new Int32Array(0);
 
 /**
  * The indices of the words of `bits` with any cell set (kept per bitset): a
@@ -83,11 +84,16 @@ const nonZeroCache = new WeakMap<Uint32Array, Int32Array>();
 export function nonZeroWords(bits: Uint32Array): Int32Array {
   let words = nonZeroCache.get(bits);
   if (words) return words;
+  if (scratch.length < bits.length) scratch = new Int32Array(bits.length);
   let n = 0;
-  for (let w = 0; w < bits.length; w++) if (bits[w] !== 0) n++;
-  words = new Int32Array(n);
-  n = 0;
-  for (let w = 0; w < bits.length; w++) if (bits[w] !== 0) words[n++] = w;
+  let w = 0;
+  // Four words at a time: most of a large site is outside one post's view.
+  for (; w + 4 <= bits.length; w += 4) {
+    if ((bits[w]! | bits[w + 1]! | bits[w + 2]! | bits[w + 3]!) === 0) continue;
+    for (let k = w; k < w + 4; k++) if (bits[k] !== 0) scratch[n++] = k;
+  }
+  for (; w < bits.length; w++) if (bits[w] !== 0) scratch[n++] = w;
+  words = scratch.slice(0, n);
   nonZeroCache.set(bits, words);
   return words;
 }
@@ -119,6 +125,152 @@ export function weightOf(bits: Uint32Array, weights: Float32Array, minus: Uint32
   return total;
 }
 
+/** Some cells as a sparse bitset: the indices of its non-zero words (ascending) and those words. */
+export interface SparseCells {
+  readonly words: Int32Array;
+  readonly bits: Uint32Array;
+}
+
+/** The cells of `seen` in none of `covers` (full bitsets), as a sparse bitset. */
+export function cellsNotIn(seen: Uint32Array, covers: readonly Uint32Array[]): SparseCells {
+  const words = nonZeroWords(seen);
+  const at = new Int32Array(words.length);
+  const bits = new Uint32Array(words.length);
+  let n = 0;
+  for (let k = 0; k < words.length; k++) {
+    const w = words[k]!;
+    let word = seen[w]!;
+    for (let j = 0; j < covers.length && word !== 0; j++) word &= ~covers[j]![w]!;
+    if (word === 0) continue;
+    at[n] = w;
+    bits[n++] = word;
+  }
+  return { words: at.slice(0, n), bits: bits.slice(0, n) };
+}
+
+/** The cells of `bits` not in `minus`, as a sparse bitset (every word looked at; neither is remembered). */
+export function sparseCells(bits: Uint32Array, minus: Uint32Array): SparseCells {
+  let n = 0;
+  for (let w = 0; w < bits.length; w++) if ((bits[w]! & ~minus[w]!) !== 0) n++;
+  const words = new Int32Array(n);
+  const kept = new Uint32Array(n);
+  n = 0;
+  for (let w = 0; w < bits.length; w++) {
+    const word = bits[w]! & ~minus[w]!;
+    if (word === 0) continue;
+    words[n] = w;
+    kept[n++] = word;
+  }
+  return { words, bits: kept };
+}
+
+/** Sum of the weights of the cells of `cells` that are also in `within` (a full bitset; null: all). */
+export function weightOfSparse(cells: SparseCells, weights: Float32Array, within: Uint32Array | null = null): number {
+  const uniform = uniformWeights(weights);
+  const { words, bits } = cells;
+  let total = 0;
+  for (let k = 0; k < words.length; k++) {
+    const w = words[k]!;
+    let word = bits[k]! & (within === null ? -1 : within[w]!);
+    if (word === 0) continue;
+    const same = uniform[w]!;
+    if (!Number.isNaN(same)) {
+      total += same * popcount(word);
+      continue;
+    }
+    while (word !== 0) {
+      const low = word & -word;
+      total += weights[(w << 5) + 31 - Math.clz32(low)]!;
+      word ^= low;
+    }
+  }
+  return total;
+}
+
+/** For each word of the objective's cells, the bitsets (by their index in the list given) with any cell in it. */
+export interface WordIndex {
+  /** Entries of word w: `entries[offsets[w]]` up to `entries[offsets[w + 1]]`. */
+  readonly offsets: Int32Array;
+  readonly entries: Int32Array;
+  /** The bitset's word at each entry (read in order, not from 300 places). */
+  readonly bits: Uint32Array;
+}
+
+const INDEX_BLOCK = 2048; // words; common practice (cache blocking), no source
+
+/** The word index of these bitsets (all of one objective). */
+export function wordIndexOf(bitsets: readonly Uint32Array[]): WordIndex {
+  const length = bitsets[0]?.length ?? 0;
+  const offsets = new Int32Array(length + 1);
+  for (const bits of bitsets) {
+    const words = nonZeroWords(bits);
+    for (let k = 0; k < words.length; k++) offsets[words[k]! + 1]!++;
+  }
+  for (let w = 0; w < length; w++) offsets[w + 1]! += offsets[w]!;
+  const entries = new Int32Array(offsets[length]!);
+  const entryBits = new Uint32Array(offsets[length]!);
+  const next = offsets.slice(0, length);
+  // A block of words at a time, so the writes stay within a few hundred kB.
+  const cursor = new Int32Array(bitsets.length);
+  for (let end = INDEX_BLOCK; end < length + INDEX_BLOCK; end += INDEX_BLOCK) {
+    for (let i = 0; i < bitsets.length; i++) {
+      const bits = bitsets[i]!;
+      const words = nonZeroWords(bits);
+      let k = cursor[i]!;
+      for (; k < words.length && words[k]! < end; k++) {
+        const w = words[k]!;
+        const at = next[w]!++;
+        entries[at] = i;
+        entryBits[at] = bits[w]!;
+      }
+      cursor[i] = k;
+    }
+  }
+  return { offsets, entries, bits: entryBits };
+}
+
+/**
+ * For every bitset of the index, the weight of its cells among `cells`, added
+ * to `out[i]` (one walk of `cells`' words; only the bitsets with a cell in a
+ * word are visited there).
+ */
+export function addSharedWeights(
+  cells: SparseCells,
+  index: WordIndex,
+  weights: Float32Array,
+  out: Float64Array,
+  sign: 1 | -1 = 1,
+): void {
+  const uniform = uniformWeights(weights);
+  const { offsets, entries } = index;
+  for (let k = 0; k < cells.words.length; k++) {
+    const w = cells.words[k]!;
+    const mine = cells.bits[k]!;
+    const same = uniform[w]!;
+    const last = offsets[w + 1]!;
+    if (!Number.isNaN(same)) {
+      const weight = sign * same;
+      for (let e = offsets[w]!; e < last; e++) {
+        const word = mine & index.bits[e]!;
+        if (word !== 0) out[entries[e]!]! += weight * popcount(word);
+      }
+      continue;
+    }
+    for (let e = offsets[w]!; e < last; e++) {
+      const i = entries[e]!;
+      let word = mine & index.bits[e]!;
+      if (word === 0) continue;
+      let sum = 0;
+      while (word !== 0) {
+        const low = word & -word;
+        sum += weights[(w << 5) + 31 - Math.clz32(low)]!;
+        word ^= low;
+      }
+      out[i]! += sign * sum;
+    }
+  }
+}
+
 /**
  * What a set of posts has reached so far, built up one post at a time: the
  * cells covered (seen by one, or well cross-bearing) and the posts in it.
@@ -127,6 +279,8 @@ export function weightOf(bits: Uint32Array, weights: Float32Array, minus: Uint32
 export class SitingState {
   /** Cells counted as covered. */
   readonly covered: Uint32Array;
+  /** With two posts needed: cells seen by any post of the set (only there can a new post make a pair). */
+  private readonly seenByAny: Uint32Array | null;
   /** Posts in the set, in the order added. */
   readonly views: SitingView[] = [];
   /** Weighted cells covered. */
@@ -137,12 +291,14 @@ export class SitingState {
       throw new TerrainInputError('invalid-layer', 'One weight per cell is needed.', 'weights');
     }
     this.covered = new Uint32Array(bitsetWords(objective.cellCount));
+    this.seenByAny = objective.minPosts === 2 ? new Uint32Array(bitsetWords(objective.cellCount)) : null;
   }
 
   /** A copy to try additions on. */
   clone(): SitingState {
     const copy = new SitingState(this.objective);
     copy.covered.set(this.covered);
+    if (this.seenByAny) copy.seenByAny!.set(this.seenByAny);
     copy.views.push(...this.views);
     copy.total = this.total;
     return copy;
@@ -163,6 +319,8 @@ export class SitingState {
       for (let k = 0; k < words.length; k++) this.covered[words[k]!]! |= view.seen[words[k]!]!;
     } else {
       gain = this.crossGain(view, true);
+      const words = nonZeroWords(view.seen);
+      for (let k = 0; k < words.length; k++) this.seenByAny![words[k]!]! |= view.seen[words[k]!]!;
     }
     this.views.push(view);
     this.total += gain;
@@ -181,12 +339,19 @@ export class SitingState {
     const { weights, width, height } = this.objective;
     const gridCells = width * height;
     const goodFrom = (this.objective.minCrossingAngle ?? Math.PI / 6) - ANGLE_TOLERANCE;
+    // sin² of the band limit, with a margin: clearly above or below it needs no arcsine; near it,
+    // the arcsine decides as crossBearingQuality's does.
+    const sin2 = Math.sin(goodFrom) ** 2;
+    const surelyGood = goodFrom <= 0 ? -Infinity : goodFrom >= Math.PI / 2 ? Infinity : sin2 + 1e-9;
+    const surelyNot = goodFrom <= 0 ? -Infinity : sin2 - 1e-9;
+    const seenByAny = this.seenByAny!;
     const others = this.views;
     let gain = 0;
     const words = nonZeroWords(view.seen);
     for (let k = 0; k < words.length; k++) {
       const w = words[k]!;
-      let word = view.seen[w]! & ~this.covered[w]!;
+      // Only cells a post of the set sees can pair with the new one.
+      let word = view.seen[w]! & ~this.covered[w]! & seenByAny[w]!;
       while (word !== 0) {
         const low = word & -word;
         word ^= low;
@@ -208,7 +373,7 @@ export class SitingState {
           if (lb === 0) continue;
           const cross = ax * by - ay * bx;
           const s = (cross * cross) / (la * lb);
-          if (Math.asin(Math.sqrt(s > 1 ? 1 : s)) >= goodFrom) {
+          if (s >= surelyGood || (s > surelyNot && Math.asin(Math.sqrt(s > 1 ? 1 : s)) >= goodFrom)) {
             gain += weight;
             if (write) this.covered[w]! |= low;
             break;

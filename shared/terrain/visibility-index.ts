@@ -7,6 +7,8 @@ import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
 /** Rays per evaluated cell unless told otherwise (see DEVELOPERS.md for the measured error). */
 export const VISIBILITY_INDEX_RAYS = 64;
 
+const TILE = 32; // cells a side of the tiles whose highest ground bounds a ray; common practice, no source
+
 /** Settings of {@link computeVisibilityIndex}. */
 export interface VisibilityIndexOptions {
   /** Eye height of the imagined tower above the ground of its cell, metres. */
@@ -127,6 +129,8 @@ export function computeVisibilityIndex(
   const fracX = new Float64Array(rays * S);
   const fracY = new Float64Array(rays * S);
   const nearest = new Int32Array(rays * S);
+  const cornerOf = new Int32Array(rays * S); // rowOf·W + colOf: the corner cell's offset from the tower
+
   for (let r = 0; r < rays; r++) {
     for (let s = 1; s <= steps; s++) {
       const vx = s * (dCol[r] as number);
@@ -137,8 +141,39 @@ export function computeVisibilityIndex(
       fracX[i] = vx - Math.floor(vx);
       fracY[i] = vy - Math.floor(vy);
       nearest[i] = Math.round(vy) * W + Math.round(vx);
+      cornerOf[i] = rowOf[i]! * W + colOf[i]!;
     }
   }
+
+  // The highest ground within reach of a tower: once even it, at a sample's distance, would lie
+  // below the horizon of a ray, nothing further along that ray can be seen (the drop only lowers
+  // it more), so the ray stops there. Exact: the bound is compared as the slope itself is
+  // computed. Kept per tile of TILE² cells, so a tower's is the largest of the tiles its radius reaches.
+  const tilesW = Math.ceil(W / TILE);
+  const tilesH = Math.ceil(H / TILE);
+  const tileTop = new Float64Array(tilesW * tilesH).fill(NaN); // found when first needed (a band needs few)
+  const topOfTile = (tc: number, tr: number) => {
+    const t = tr * tilesW + tc;
+    if (Number.isNaN(tileTop[t]!)) {
+      let top = -Infinity;
+      for (let row = tr * TILE; row < Math.min(H, (tr + 1) * TILE); row++) {
+        for (let col = tc * TILE; col < Math.min(W, (tc + 1) * TILE); col++) if (h[row * W + col]! > top) top = h[row * W + col]!;
+      }
+      tileTop[t] = top;
+    }
+    return tileTop[t]!;
+  };
+  const highestNear = (c0: number, r0: number) => {
+    let top = -Infinity;
+    const tc1 = Math.min(tilesW - 1, ((c0 + steps + 1) / TILE) | 0);
+    const tr1 = Math.min(tilesH - 1, ((r0 + steps + 1) / TILE) | 0);
+    for (let tr = Math.max(0, ((r0 - steps - 1) / TILE) | 0); tr <= tr1; tr++) {
+      for (let tc = Math.max(0, ((c0 - steps - 1) / TILE) | 0); tc <= tc1; tc++) {
+        top = Math.max(top, topOfTile(tc, tr));
+      }
+    }
+    return top;
+  };
 
   for (let orow = rowFrom; orow < rowTo; orow++) {
     const r0 = Math.min(H - 1, orow * stride + offset);
@@ -148,6 +183,7 @@ export function computeVisibilityIndex(
       const ground = h[at] as number;
       if (ground === NEVER_BLOCKS) continue;
       const eye = ground + options.heightM;
+      const rise = highestNear(c0, r0) - eye; // the most any sample can stand above the eye, metres
       let seen = mask === null || mask[at] === 1 ? cellM2 : 0;
       for (let r = 0; r < rays; r++) {
         const base = r * S;
@@ -155,9 +191,10 @@ export function computeVisibilityIndex(
         let horizon = -Infinity; // largest elevation slope so far, metres per cell
         for (let s = 1; s <= last; s++) {
           const i = base + s;
+          if (rise * (reciprocal[s] as number) < horizon) break;
           const fx = fracX[i] as number;
           const fy = fracY[i] as number;
-          const p = at + (rowOf[i] as number) * W + (colOf[i] as number);
+          const p = at + (cornerOf[i] as number);
           const z00 = h[p] as number;
           const z01 = h[p + 1] as number;
           const z10 = h[p + W] as number;

@@ -1,16 +1,18 @@
 import { rm } from 'node:fs/promises';
 import type { Express } from 'express';
-import type { Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
 import type request from 'supertest';
 import { CoverageRunSchema, type CoverageRun } from '@/shared/schemas/coverage';
 import { SitingRunSchema, type SitingRun } from '@/shared/schemas/siting';
 import { fromUtm } from '@/shared/geo/from-utm';
+import { toUtm } from '@/shared/geo/to-utm';
 import { createApp } from '@/server/app';
 import { ConditionSetModel, PlanModel, PostModel, SiteModel, TargetProfileModel } from '@/server/data/models';
 import { sitingRepository } from '@/server/data/repositories/siting-repository';
 import type { ComputeViewsheds } from '@/server/domain/coverage/compute-coverage';
 import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
 import { processSitingRun } from '@/server/domain/siting/process-siting-run';
+import { reapStaleSitingRuns, SITING_JOB_LOST, SITING_WORKER_STOPPED } from '@/server/domain/siting/reap-stale-siting-runs';
 import { startCoverageBoss, workCoverageQueue, workSitingQueue, type CoverageBoss } from '@/server/queue/coverage-queue';
 import { createTerrainCache, type TerrainCache } from '@/server/terrain/terrain-cache';
 import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
@@ -275,5 +277,125 @@ describe('siting runs', () => {
     ).toBe(404);
     const after = await sitingRepository.listInSite((await SiteModel.findByPk(forestId))!.organizationId, forestId, 100);
     expect(after.length).toBe(before.length);
+  });
+
+  it('picks candidates from the terrain at least spacingM apart, and near the access line when one is drawn', async () => {
+    // Source: issue 18's definition of terrain candidates (summits and ridge cells, thinned to a
+    // spacing, optionally only within a distance of an access line); distances measured on the
+    // terrain's own grid (UTM zone 33, as the demo forest's terrain), common practice, no source.
+    const worker = await startWorker();
+    try {
+      const spacingM = 1500;
+      const body = {
+        ...request1(),
+        candidates: { fromTerrain: { spacingM, maxCandidates: 6 } },
+        heightsM: [0, 20],
+        count: 2,
+      };
+      const queued = await planner.post(`/api/v1/sites/${forestId}/siting-runs`).send(body).expect(202);
+      const done = await sitingRun(planner, queued.body.run.id, (r) => r.status === 'done' || r.status === 'failed');
+      expect(done.status).toBe('done');
+      expect(done.candidates.length).toBeGreaterThan(1);
+      expect(done.candidates.length).toBeLessThanOrEqual(6);
+      const grid = done.candidates.map((c) => toUtm({ latDeg: c.latDeg, lonDeg: c.lonDeg }, 33));
+      for (const c of done.candidates) {
+        expect(c.source).toBe('terrain');
+        expect(c.name).toMatch(/^(Summit|Ridge) \d+ \(\d+ m\)$/);
+      }
+      for (let a = 0; a < grid.length; a++) {
+        for (let b = a + 1; b < grid.length; b++) {
+          const d = Math.hypot(grid[a]!.easting - grid[b]!.easting, grid[a]!.northing - grid[b]!.northing);
+          expect(d).toBeGreaterThanOrEqual(spacingM - 0.01);
+        }
+      }
+      expect(done.chosen.every((c) => c.candidate.source === 'terrain')).toBe(true);
+
+      // With an access line: every candidate within withinM of it (cell centres are tested).
+      const line = [utm33(517_000, 5_739_000), utm33(526_000, 5_742_000)];
+      const withinM = 1200;
+      const near = await planner
+        .post(`/api/v1/sites/${forestId}/siting-runs`)
+        .send({
+          ...body,
+          candidates: {
+            fromTerrain: { spacingM, maxCandidates: 6, accessLine: { line: line.map((p) => [p.lonDeg, p.latDeg]), withinM } },
+          },
+        })
+        .expect(202);
+      const nearDone = await sitingRun(planner, near.body.run.id, (r) => r.status === 'done' || r.status === 'failed');
+      expect(nearDone.status).toBe('done');
+      expect(nearDone.candidates.length).toBeGreaterThan(0);
+      const [a, b] = line.map((p) => toUtm(p, 33));
+      for (const c of nearDone.candidates) {
+        const p = toUtm({ latDeg: c.latDeg, lonDeg: c.lonDeg }, 33);
+        const ux = b!.easting - a!.easting;
+        const uy = b!.northing - a!.northing;
+        const t = Math.max(
+          0,
+          Math.min(1, ((p.easting - a!.easting) * ux + (p.northing - a!.northing) * uy) / (ux * ux + uy * uy)),
+        );
+        const d = Math.hypot(p.easting - a!.easting - t * ux, p.northing - a!.northing - t * uy);
+        expect(d).toBeLessThanOrEqual(withinM + 0.01);
+      }
+      // The line narrows the choice: not the same places as without it.
+      expect(nearDone.candidates.map((c) => c.name)).not.toEqual(done.candidates.map((c) => c.name));
+    } finally {
+      await worker.stop();
+    }
+  });
+
+  it('fails a run whose worker stopped, or whose job the queue no longer holds, with the reason', async () => {
+    // No worker runs here: the runs stay queued with their jobs waiting.
+    const ask = async () =>
+      SitingRunSchema.parse((await planner.post(`/api/v1/sites/${forestId}/siting-runs`).send(request1()).expect(202)).body.run);
+    const [dead, lost, waiting] = [await ask(), await ask(), await ask()];
+    const jobOf = async (id: string) => (await sitingRepository.findById(id))!.jobId!;
+    // `dead`: taken by a worker that then went silent a minute ago.
+    await db.query(
+      `UPDATE siting_runs SET status = 'running', heartbeat_at = now() - interval '1 minute', updated_at = now() - interval '1 minute'
+        WHERE id = :id`,
+      { replacements: { id: dead.id } },
+    );
+    // `lost`: its job gone from the queue (cancelled there) a minute ago; `waiting`: as old, job still waiting.
+    await boss.sitingQueue.cancel(await jobOf(lost.id));
+    await db.query(
+      `UPDATE siting_runs SET heartbeat_at = now() - interval '1 minute', updated_at = now() - interval '1 minute' WHERE id IN (:ids)`,
+      {
+        replacements: { ids: [lost.id, waiting.id] },
+      },
+    );
+    const reaped = await reapStaleSitingRuns(db, { staleAfterS: 30 });
+    expect(reaped.failed.sort()).toEqual([dead.id, lost.id].sort());
+    const deadNow = await sitingRun(planner, dead.id, () => true);
+    expect(deadNow).toMatchObject({ status: 'failed', error: SITING_WORKER_STOPPED, steps: [], chosen: [] });
+    expect(deadNow.finishedAt).not.toBeNull();
+    expect(await sitingRun(planner, lost.id, () => true)).toMatchObject({ status: 'failed', error: SITING_JOB_LOST });
+    expect((await sitingRun(planner, waiting.id, () => true)).status).toBe('queued');
+    // Reaping again changes nothing (the runs have ended; two reapers never both act).
+    expect((await reapStaleSitingRuns(db, { staleAfterS: 30 })).failed).toEqual([]);
+
+    // An ended run is frozen by the database: its inputs, status and result cannot change, nor can it be
+    // removed; only the draft plan made from it may be recorded (common practice, no source: as coverage runs).
+    await expect(
+      db.query(`UPDATE siting_runs SET inputs = '{}' WHERE id = :id`, { replacements: { id: dead.id } }),
+    ).rejects.toThrow(/has ended \(failed\) and cannot change/);
+    await expect(
+      db.query(`UPDATE siting_runs SET status = 'queued' WHERE id = :id`, { replacements: { id: dead.id } }),
+    ).rejects.toThrow(/cannot change/);
+    await expect(db.query(`DELETE FROM siting_runs WHERE id = :id`, { replacements: { id: dead.id } })).rejects.toThrow(
+      /cannot change/,
+    );
+    const planId = (await PlanModel.findOne({ where: { siteId: forestId } }))!.id;
+    await db.query(`UPDATE siting_runs SET plan_id = :planId, updated_at = now() WHERE id = :id`, {
+      replacements: { id: dead.id, planId },
+    });
+    const otherPlan = (await PlanModel.findOne({ where: { siteId: forestId, id: { [Op.ne]: planId } } }))!.id;
+    await expect(
+      db.query(`UPDATE siting_runs SET plan_id = :otherPlan WHERE id = :id`, { replacements: { id: dead.id, otherPlan } }),
+    ).rejects.toThrow(/cannot change/);
+
+    // Withdraw the waiting run (and its job), so no later worker takes it.
+    await planner.post(`/api/v1/siting-runs/${waiting.id}/cancel`).expect(200);
+    await boss.sitingQueue.cancel(await jobOf(dead.id));
   });
 });

@@ -1,5 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { fromUtm } from '@/shared/geo/from-utm';
+import { toUtm } from '@/shared/geo/to-utm';
 import { DEMO } from '@/tests/support/agents';
 import { launchBrowser, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
 import { apiJson, shot, signIn, watchErrors } from '@/tests/support/e2e';
@@ -130,6 +131,115 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('tower siting on the %s 
       await page.getByText('What changes from A to B').waitFor({ timeout: 60_000 });
       await page.getByText('What changes from A to B').scrollIntoViewIfNeeded();
       await page.screenshot({ path: `/tmp/siting-compare-${viewport}.png`, fullPage: true });
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
+
+describe('tower siting from the terrain near an access line', () => {
+  it('a coordinator draws the access line, gives costs and a budget; bad fields are named before anything is sent', async () => {
+    // Source: issue 18 (terrain candidates only within a distance of a line the planner draws; a cost per
+    // height and a budget); distances on the demo terrain's grid (UTM 33N), common practice, no source.
+    const viewport: ViewportName = 'phone';
+    const context = await browser.newContext({
+      viewport: VIEWPORTS[viewport],
+      deviceScaleFactor: 1,
+      hasTouch: true,
+      serviceWorkers: 'block',
+    });
+    const page = await context.newPage();
+    const errors = watchErrors(page);
+    let posts = 0;
+    page.on('request', (r) => {
+      if (r.method() === 'POST' && r.url().endsWith('/siting-runs')) posts++;
+    });
+    try {
+      await signIn(page, DEMO.planner);
+      await page.getByRole('link', { name: 'Harrowmere Forest District' }).click();
+      await page.getByRole('link', { name: 'Where to put the next tower' }).click();
+      await page.waitForURL(/\/siting/);
+      const siteId = /\/sites\/([^/]+)\/siting/.exec(page.url())![1]!;
+      await page
+        .getByRole('group', { name: 'Where the candidates come from' })
+        .getByRole('checkbox', { name: 'High ground of the terrain' })
+        .click();
+      await page.getByRole('checkbox', { name: 'Only near an access line' }).click();
+      await page.getByLabel('Tower heights to try').fill('0, 20');
+      await page.getByLabel('New towers to choose').fill('3');
+      await page.getByLabel('Budget (optional)').fill('60');
+      await page.getByRole('group', { name: 'Target' }).getByRole('checkbox', { name: 'Early smoke column' }).click();
+      await page.getByRole('group', { name: 'Condition set' }).getByRole('checkbox', { name: 'Refraction spread' }).click();
+      // No line yet and a budget without costs: both named, nothing sent.
+      await page.getByRole('button', { name: 'Find the best sites' }).click();
+      await page.getByText('A budget needs the costs of the heights.').waitFor();
+      await page.getByText('Tap at least two points of the line on the map.').waitFor();
+      expect(posts).toBe(0);
+
+      // The line: two taps across the middle of the site map.
+      const map = page.getByLabel("Site map: tap the access line's points in order");
+      await map.waitFor();
+      const box = (await map.boundingBox())!;
+      await map.click({ position: { x: box.width * 0.3, y: box.height * 0.45 } });
+      await page.getByText('1 point; tap the next one.').waitFor();
+      await map.click({ position: { x: box.width * 0.7, y: box.height * 0.55 } });
+      await page.getByText('2 points; tap the next one.').waitFor();
+      // The line now has its points: the message about them has gone.
+      expect(await page.getByText('Tap at least two points of the line on the map.').count()).toBe(0);
+      await page.getByLabel('Within this distance of the line').fill('3000');
+      await page.getByLabel('Cost of each height (optional)').fill('20, 35');
+      await page.screenshot({ path: `/tmp/siting-access-line-${viewport}.png`, fullPage: true });
+      const started = page.waitForResponse(
+        (r) => r.url().endsWith(`/sites/${siteId}/siting-runs`) && r.request().method() === 'POST',
+      );
+      await page.getByRole('button', { name: 'Find the best sites' }).click();
+      const answer = await started;
+      expect(answer.status()).toBe(202);
+      const sent = answer.request().postDataJSON() as {
+        candidates: { fromTerrain: { accessLine: { line: [number, number][]; withinM: number } } };
+        costs: number[];
+        budget: number;
+      };
+      expect(sent.costs).toEqual([20, 35]);
+      expect(sent.budget).toBe(60);
+      const { line, withinM } = sent.candidates.fromTerrain.accessLine;
+      expect(line).toHaveLength(2);
+      expect(withinM).toBe(3000);
+      const runId = ((await answer.json()) as { run: { id: string } }).run.id;
+      let run!: { status: string; candidates: { latDeg: number; lonDeg: number; source: string }[]; steps: { cost: number }[] };
+      for (let i = 0; i < 180; i++) {
+        ({ run } = await apiJson<{ run: typeof run }>(page, 'GET', `/siting-runs/${runId}`));
+        if (run.status !== 'queued' && run.status !== 'running') break;
+        await page.waitForTimeout(1000);
+      }
+      expect(run.status).toBe('done');
+      expect(run.candidates.length).toBeGreaterThan(0);
+      const [a, b] = line.map(([lonDeg, latDeg]) => toUtm({ latDeg, lonDeg }, 33));
+      for (const c of run.candidates) {
+        expect(c.source).toBe('terrain');
+        const p = toUtm(c, 33);
+        const ux = b!.easting - a!.easting;
+        const uy = b!.northing - a!.northing;
+        const t = Math.max(
+          0,
+          Math.min(1, ((p.easting - a!.easting) * ux + (p.northing - a!.northing) * uy) / (ux * ux + uy * uy)),
+        );
+        expect(Math.hypot(p.easting - a!.easting - t * ux, p.northing - a!.northing - t * uy)).toBeLessThanOrEqual(
+          withinM + 0.01,
+        );
+      }
+      // The chosen towers keep to the budget, and each step shows its cost.
+      expect(run.steps.reduce((sum, s) => sum + s.cost, 0)).toBeLessThanOrEqual(60);
+      await page.getByText('Coverage curve').waitFor({ timeout: 30_000 });
+      if (run.steps.length > 0)
+        await page
+          .getByTestId('siting-steps')
+          .getByText(/ · cost \d+/)
+          .first()
+          .waitFor();
+      await page.getByText('Coverage curve').scrollIntoViewIfNeeded();
+      await shot(page, 'siting-access-line-result', viewport);
       expect(errors).toEqual([]);
     } finally {
       await context.close();

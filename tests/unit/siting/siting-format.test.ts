@@ -1,10 +1,12 @@
-import { SITING_ADDED } from '@/shared/schemas/siting';
+import { SITING_ADDED, SitingRunInputSchema } from '@/shared/schemas/siting';
 import {
   addedColour,
   coverageCurve,
   KEPT_COLOUR,
   parseHeights,
   parseLatLon,
+  readAccessLine,
+  readSitingLimits,
   STEP_COLOURS,
 } from '@/components/siting/siting-format';
 
@@ -44,5 +46,82 @@ describe('siting screen helpers', () => {
     expect(addedColour(SITING_ADDED.kept)).toBe(KEPT_COLOUR);
     expect(addedColour(SITING_ADDED.firstStep)).toBe(STEP_COLOURS[0]);
     expect(addedColour(SITING_ADDED.firstStep + STEP_COLOURS.length)).toBe(STEP_COLOURS[0]);
+  });
+
+  it('reads costs, budget and goal, refusing by field what the API would refuse', () => {
+    // Source: the API's own rules (SitingRunInputSchema: one cost per height, costs ≥ 0, a budget > 0 needs
+    // costs, a goal in (0, 100] %); every request the form builds must also pass that schema.
+    const base = {
+      candidates: [{ latDeg: 51.68, lonDeg: 15.27, name: 'Fox hill' }],
+      heightsM: [0, 15, 30],
+      count: 2,
+      targetId: '00000000-0000-4000-8000-000000000001',
+      conditionSetId: '00000000-0000-4000-8000-000000000002',
+      objective: { minPosts: 1 },
+    };
+    const ok = readSitingLimits({ costs: '0, 40, 90', budget: '100', goalPct: '85 %' }, 3);
+    expect(ok).toEqual({ costs: [0, 40, 90], budget: 100, goalPct: 85, errors: {} });
+    expect(SitingRunInputSchema.safeParse({ ...base, costs: ok.costs, budget: ok.budget, goalPct: ok.goalPct }).success).toBe(
+      true,
+    );
+    expect(readSitingLimits({ costs: '', budget: '', goalPct: '' }, 3)).toEqual({
+      costs: null,
+      budget: null,
+      goalPct: null,
+      errors: {},
+    });
+
+    const bad = [
+      [{ costs: '0, 40', budget: '', goalPct: '' }, 'costs', /one cost per tower height/],
+      [{ costs: '0, -1, 5', budget: '', goalPct: '' }, 'costs', /negative/],
+      [{ costs: 'a lot', budget: '', goalPct: '' }, 'costs', /numbers/],
+      [{ costs: '', budget: '100', goalPct: '' }, 'budget', /needs the costs/],
+      [{ costs: '1, 2, 3', budget: '0', goalPct: '' }, 'budget', /more than 0/],
+      [{ costs: '', budget: '', goalPct: '120' }, 'goalPct', /at most 100/],
+      [{ costs: '', budget: '', goalPct: '0' }, 'goalPct', /more than 0/],
+    ] as const;
+    for (const [text, field, message] of bad) {
+      const read = readSitingLimits(text, 3);
+      expect(read.errors[field]).toMatch(message);
+      // The API refuses the same request on the same field.
+      const api = SitingRunInputSchema.safeParse({ ...base, costs: read.costs, budget: read.budget, goalPct: read.goalPct });
+      if (read.costs?.some((c) => Number.isNaN(c))) continue; // not a number: never sent
+      expect(api.success).toBe(false);
+      expect(api.error!.issues.some((i) => i.path[0] === field)).toBe(true);
+    }
+  });
+
+  it('reads the access line as [lon, lat] pairs and the distance from it', () => {
+    // Source: the API's FromTerrainSchema (a line of at least two [lon, lat] pairs, 0 < withinM ≤ 50 km;
+    // GeoJSON's longitude-first order, RFC 7946 §3.1.1).
+    const points = [
+      { latDeg: 51.6, lonDeg: 15.2 },
+      { latDeg: 51.7, lonDeg: 15.3 },
+    ];
+    const read = readAccessLine(points, '1200');
+    expect(read).toEqual({
+      accessLine: {
+        line: [
+          [15.2, 51.6],
+          [15.3, 51.7],
+        ],
+        withinM: 1200,
+      },
+      errors: {},
+    });
+    const request = {
+      candidates: { fromTerrain: { spacingM: 1500, accessLine: read.accessLine } },
+      heightsM: [0],
+      count: 1,
+      targetId: '00000000-0000-4000-8000-000000000001',
+      conditionSetId: '00000000-0000-4000-8000-000000000002',
+      objective: { minPosts: 1 },
+    };
+    expect(SitingRunInputSchema.safeParse(request).success).toBe(true);
+    const short = readAccessLine(points.slice(0, 1), '0');
+    expect(short.accessLine).toBeNull();
+    expect(short.errors['candidates.fromTerrain.accessLine.line']).toMatch(/two points/);
+    expect(short.errors['candidates.fromTerrain.accessLine.withinM']).toMatch(/more than 0/);
+    expect(readAccessLine(points, '60000').errors['candidates.fromTerrain.accessLine.withinM']).toMatch(/50 000/);
   });
 });

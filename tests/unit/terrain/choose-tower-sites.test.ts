@@ -130,6 +130,71 @@ describe('chooseTowerSites', () => {
     }
   });
 
+  it('the swap pass picks what trying every swap in full picks', () => {
+    // Source: the swap pass as documented on chooseTowerSites (each position in turn, the option that
+    // raises the objective most, the first of equal ones in the order of what each adds alone; ≤ 5
+    // passes); the reference below recomputes every candidate set's objective from scratch, so the
+    // fast path (shared weights through a word index) must give the same sets and totals.
+    const fullSwap = (
+      objective: SitingObjective,
+      options: SitingOption[],
+      kept: SitingOption[],
+      start: number[],
+      budget: number | null,
+    ) => {
+      const totalOf = (set: number[]) => objectiveOf(objective, [...kept, ...set.map((i) => options[i]!)]);
+      const alone = options.map((_, i) => totalOf([i]) - totalOf([]));
+      const order = options.map((_, i) => i).sort((a, b) => alone[b]! - alone[a]! || a - b);
+      const set = [...start];
+      let current = totalOf(set);
+      for (let pass = 0; pass < 5; pass++) {
+        let improved = false;
+        for (let k = 0; k < set.length; k++) {
+          const others = set.filter((_, j) => j !== k);
+          let best = -1;
+          let bestTotal = current;
+          for (const i of order) {
+            if (set.includes(i) || others.some((j) => options[j]!.location === options[i]!.location)) continue;
+            if (budget !== null && [...others, i].reduce((sum, j) => sum + options[j]!.cost, 0) > budget + 1e-9) continue;
+            const total = totalOf([...others, i]);
+            if (total > bestTotal) {
+              best = i;
+              bestTotal = total;
+            }
+          }
+          if (best !== -1) {
+            set[k] = best;
+            current = bestTotal;
+            improved = true;
+          }
+        }
+        if (!improved) break;
+      }
+      return { set, total: current };
+    };
+    let swapsSeen = 0;
+    for (let seed = 900; seed < 960; seed++) {
+      const { objective, options } = randomCase(seed, 14, 3);
+      const kept = seed % 3 === 0 ? [options[0]!] : [];
+      const budget = seed % 4 === 0 ? 9 : null;
+      const input = { objective, kept, options, count: 4, method: 'greedy' as const, budget };
+      const plain = chooseTowerSites({ ...input, swap: false });
+      const swapped = chooseTowerSites(input);
+      const reference = fullSwap(
+        objective,
+        options,
+        kept,
+        plain.steps.map((s) => s.option),
+        budget,
+      );
+      expect(new Set(swapped.steps.map((s) => s.option))).toEqual(new Set(reference.set));
+      expect(swapped.total).toBe(reference.total);
+      swapsSeen += swapped.swaps;
+    }
+    // The cases must exercise swaps, or the comparison proves little.
+    expect(swapsSeen).toBeGreaterThan(5);
+  });
+
   it('chooses at most one height per location and keeps to the budget', () => {
     // common practice, no source: one tower per site; the budget is a hard limit.
     for (let seed = 700; seed < 720; seed++) {
@@ -174,6 +239,53 @@ describe('chooseTowerSites', () => {
     expect(objectiveOf(objective, views)).toBe(expected);
     // The order the posts are added in does not change the total.
     expect(objectiveOf(objective, [...views].reverse())).toBe(expected);
+  });
+
+  it('counts two-post cells against the band limit at its extremes as the definition does', () => {
+    // Source: crossBearingQuality's definition (the crossing angle q = min(θ, π − θ) of two bearing lines
+    // lies in [0, π/2]): a limit of 0 counts every cell two posts see (but their own cells), a limit above
+    // π/2 none, and 30° counts exactly the cells whose q ≥ 30°, tested here cell by cell with the arcsine.
+    const random = seededRandom(4242);
+    const views = [0, 1, 2].map(() => {
+      const col = Math.floor(random() * W);
+      const row = Math.floor(random() * H);
+      return { col, row, seen: bitsetOf(W * H, disc(random, col, row, 5 + random() * 5, 10)) };
+    });
+    const has = (bits: Uint32Array, i: number) => ((bits[i >>> 5]! >>> (i & 31)) & 1) === 1;
+    const count = (limit: number) => {
+      let n = 0;
+      for (let i = 0; i < W * H; i++) {
+        const col = i % W;
+        const row = (i - col) / W;
+        const seers = views.filter((v) => has(v.seen, i) && (v.col !== col || v.row !== row));
+        let good = false;
+        for (let a = 0; a < seers.length && !good; a++) {
+          for (let b = a + 1; b < seers.length && !good; b++) {
+            const t1 = Math.atan2(col - seers[a]!.col, seers[a]!.row - row);
+            const t2 = Math.atan2(col - seers[b]!.col, seers[b]!.row - row);
+            let d = Math.abs(t1 - t2) % Math.PI;
+            d = Math.min(d, Math.PI - d);
+            good = d >= limit - 1e-9;
+          }
+        }
+        if (good) n++;
+      }
+      return n;
+    };
+    const weights = new Float32Array(W * H).fill(1);
+    const objective = (minCrossingAngle: number): SitingObjective => ({
+      cellCount: W * H,
+      width: W,
+      height: H,
+      weights,
+      minPosts: 2,
+      minCrossingAngle,
+    });
+    expect(count(Math.PI / 6)).toBeGreaterThan(0);
+    for (const limit of [0, Math.PI / 6, Math.PI / 3, Math.PI / 2 + 0.1]) {
+      expect(objectiveOf(objective(limit), views)).toBe(count(limit));
+    }
+    expect(objectiveOf(objective(Math.PI / 2 + 0.1), views)).toBe(0);
   });
 
   it('counts weights word by word exactly as cell by cell', () => {

@@ -19,6 +19,61 @@ function flat(width: number, height: number, cellSize: number): TerrainRaster {
   };
 }
 
+describe('computeVisibilityIndex stops a ray only where nothing further can be seen', () => {
+  test('a far mountain above a near wall is still counted, as a plain ray walk counts it', () => {
+    // Source: the visibility index's own definition (a sample is seen when its elevation slope is at
+    // least the largest before it on the ray); the reference walks every sample of every ray with no
+    // early stop, so any stop that drops a seen sample makes the figures differ.
+    const W = 301;
+    const cellSize = 10;
+    const terrain = flat(W, W, cellSize);
+    for (let row = 0; row < W; row++) {
+      for (let col = 0; col < W; col++) {
+        const d = Math.hypot(col - 150, row - 150);
+        let z = 0;
+        if (d > 40 && d < 43) z = 30; // a wall all round at 400 m
+        if (Math.hypot(col - 260, row - 150) < 25) z = 400 - 12 * Math.hypot(col - 260, row - 150); // a mountain east
+        if (Math.hypot(col - 150, row - 40) < 5) z = 2000; // the grid's highest ground, north
+        terrain.heights[row * W + col] = z;
+      }
+    }
+    const options = { heightM: 10, radiusM: 1400, rays: 32, earthRadius: 6_371_008.8, refractionCoefficient: 0.13 };
+    const index = computeVisibilityIndex(terrain, { ...options, indexRows: [150, 151] });
+    const got = index.seenM2[150 * index.width + 150] as number;
+    // Reference: the same sampling, written plainly, every sample of every ray.
+    const steps = Math.floor(options.radiusM / cellSize);
+    const at = (x: number, y: number) => {
+      const c = Math.floor(x);
+      const r = Math.floor(y);
+      const fx = x - c;
+      const fy = y - r;
+      const z = (cc: number, rr: number) => terrain.heights[rr * W + cc] as number;
+      const top = z(c, r) + fx * (z(c + 1, r) - z(c, r));
+      return top + fy * (z(c, r + 1) + fx * (z(c + 1, r + 1) - z(c, r + 1)) - top);
+    };
+    const eye = options.heightM;
+    let expected = cellSize * cellSize;
+    for (let r = 0; r < options.rays; r++) {
+      const theta = (2 * Math.PI * r) / options.rays;
+      let horizon = -Infinity;
+      for (let s = 1; s <= steps; s++) {
+        const x = 150 + s * Math.sin(theta);
+        const y = 150 - s * Math.cos(theta);
+        if (x < 0 || y < 0 || x > W - 2 || y > W - 2) break;
+        const drop = ((1 - options.refractionCoefficient) * (s * cellSize) ** 2) / (2 * options.earthRadius);
+        const slope = (at(x, y) - drop - eye) * (1 / s);
+        if (slope >= horizon) {
+          horizon = slope;
+          expected += ((2 * Math.PI) / options.rays) * s * cellSize * cellSize;
+        }
+      }
+    }
+    // The mountain's face must be in it: more than the ground inside the wall alone.
+    expect(expected).toBeGreaterThan(Math.PI * 420 ** 2 * 1.05);
+    expect(Math.abs(got - expected) / expected).toBeLessThan(1e-6); // stored as Float32
+  });
+});
+
 describe('computeVisibilityIndex against closed forms', () => {
   test('a flat plain without curvature: the whole disc of the radius is seen', () => {
     // Source: area of a disc, π r² (common practice, no source); R = 1e15 m makes the drop negligible.
