@@ -97,8 +97,9 @@ eachViewport('coast watch on the %s viewport', (viewport) => {
       );
       const { post: vessel } = await apiJson<{ post: PostBody }>(page, 'PATCH', `/sites/${coast.id}/posts/${copy.id}`, {
         name: `Kittiwake patrol (${viewport})`,
-        // Moored 2.5 km south of the demo vessel, so their marks and names on the map stay apart.
-        location: { latDeg: demoVessel.location.latDeg - 0.0225, lonDeg: demoVessel.location.lonDeg },
+        // Moored 2.5 km south of the demo vessel (the wide run's copy 1.4 km east of the phone run's), so their marks
+        // and names on the map stay apart.
+        location: { latDeg: demoVessel.location.latDeg - 0.0225, lonDeg: demoVessel.location.lonDeg + (phone ? 0 : 0.02) },
         route: null,
         speedMps: null,
         cycleMinutes: null,
@@ -192,8 +193,13 @@ eachViewport('coast watch on the %s viewport', (viewport) => {
       await shot(page, 'coast-patrol-figures', viewport);
 
       // 6. An unwatched hour on a day ahead (a gap between two watches), closed on the roster screen.
-      const run = (await apiJson<{ latest: { id: string; cases: { key: string }[] } }>(page, 'GET', `/plans/${plan.id}/coverage`))
-        .latest;
+      const run = (
+        await apiJson<{ latest: { id: string; cases: { key: string; gaps: { band: string; kind: string }[] }[] } }>(
+          page,
+          'GET',
+          `/plans/${plan.id}/coverage`,
+        )
+      ).latest;
       const day = DateTime.now()
         .setZone('Europe/Berlin')
         .startOf('day')
@@ -272,6 +278,25 @@ eachViewport('coast watch on the %s viewport', (viewport) => {
       }
       await page.getByText('Share of the patrol cycle in view').first().scrollIntoViewIfNeeded();
       await shot(page, 'coast-map', viewport);
+      // The shoreline with its chainage ticks from 0, and the case's gaps on it, named by band.
+      await page.getByText('Shoreline, ticks at round chainages').first().waitFor();
+      const gapsOfCase = run.cases[0]!.gaps;
+      if (gapsOfCase.length > 0)
+        await page
+          .getByText(/^Gap along the shore/)
+          .first()
+          .waitFor();
+      if (phone) await page.getByRole('button', { name: 'Legend and layers' }).click();
+      const mapText = page.locator('svg text');
+      await mapText
+        .filter({ hasText: /^0 (nmi|km|mi)$/ })
+        .first()
+        .waitFor();
+      for (const g of gapsOfCase.slice(0, 3)) {
+        const label = `${g.band}: ${g.kind === 'seam' ? 'seam' : 'gap'}`;
+        await mapText.filter({ hasText: label }).first().waitFor({ state: 'attached' });
+      }
+      await shot(page, 'coast-map-shore', viewport);
       expect(errors).toEqual([]);
     } finally {
       await context.close();
