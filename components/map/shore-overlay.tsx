@@ -139,6 +139,10 @@ export function ShoreOverlay({
         return `${s.x.toFixed(1)},${s.y.toFixed(1)}`;
       })
       .join(' ');
+  const labelPlaces = gapLabelPlaces(
+    gaps.map((g) => at(pointAtChainage(shore, (g.fromM + g.toM) / 2))),
+    size.width + margin,
+  );
   return (
     <Svg
       width={size.width + 2 * margin}
@@ -153,17 +157,18 @@ export function ShoreOverlay({
       {gaps.map((g, k) => {
         const mid = at(pointAtChainage(shore, (g.fromM + g.toM) / 2));
         const label = `${g.band}: ${g.kind === 'seam' ? 'seam' : 'gap'}`;
+        const place = labelPlaces[k]!;
         return g.kind === 'seam' || g.toM - g.fromM <= 0 ? (
           <G key={`gap-${k}`}>
             <Circle cx={mid.x} cy={mid.y} r={7} fill="none" stroke="#FFFFFF" strokeWidth={4} />
             <Circle cx={mid.x} cy={mid.y} r={7} fill="none" stroke={SHORE_SYMBOL.gap} strokeWidth={2} />
-            <HaloText x={mid.x + 10} y={mid.y + 18} text={label} color={SHORE_SYMBOL.gap} />
+            <HaloText x={place.x} y={place.y} text={label} color={SHORE_SYMBOL.gap} anchor={place.anchor} />
           </G>
         ) : (
           <G key={`gap-${k}`}>
             <Polyline points={line(stretchOf(shore, g.fromM, g.toM))} fill="none" stroke="#FFFFFF" strokeWidth={10} />
             <Polyline points={line(stretchOf(shore, g.fromM, g.toM))} fill="none" stroke={SHORE_SYMBOL.gap} strokeWidth={6} />
-            <HaloText x={mid.x + 8} y={mid.y + 20} text={label} color={SHORE_SYMBOL.gap} />
+            <HaloText x={place.x} y={place.y} text={label} color={SHORE_SYMBOL.gap} anchor={place.anchor} />
           </G>
         );
       })}
@@ -181,4 +186,21 @@ export function ShoreOverlay({
       })}
     </Svg>
   );
+}
+
+/** Gap labels under the shore, stacked where two gaps (two bands at one place) would print over each other. */
+export function gapLabelPlaces(
+  mids: readonly { x: number; y: number }[],
+  rightEdge: number,
+): { x: number; y: number; anchor: 'start' | 'end' }[] {
+  const placed: { x: number; y: number; anchor: 'start' | 'end' }[] = [];
+  for (const m of mids) {
+    // Near the view's right edge the label runs leftwards, so it is not cut off.
+    const anchor = m.x > rightEdge - 110 ? ('end' as const) : ('start' as const);
+    const x = anchor === 'end' ? m.x - 8 : m.x + 8;
+    let y = m.y + 20;
+    while (placed.some((p) => Math.abs(p.x - x) < 110 && Math.abs(p.y - y) < 15)) y += 15;
+    placed.push({ x, y, anchor });
+  }
+  return placed;
 }

@@ -1,5 +1,5 @@
 import { render } from '@testing-library/react';
-import { frameShore, pointAtChainage, shoreTicks, ShoreOverlay, stretchOf } from '@/components/map/shore-overlay';
+import { frameShore, gapLabelPlaces, pointAtChainage, shoreTicks, ShoreOverlay, stretchOf } from '@/components/map/shore-overlay';
 import { siteMapFrame } from '@/components/map/site-map-frame';
 import { testSite } from '@/tests/support/plan-fixtures';
 
@@ -83,5 +83,19 @@ describe('the shoreline on the map', () => {
     const texts = [...drawn.container.querySelectorAll('text')].map((t) => t.textContent);
     expect(texts).toContain('Inshore: gap');
     expect(texts).toContain('10 km');
+  });
+
+  it('stacks the labels of two gaps at one place, and runs a label leftwards at the right edge', () => {
+    const places = gapLabelPlaces(
+      [
+        { x: 100, y: 200 },
+        { x: 102, y: 200 },
+        { x: 580, y: 200 },
+      ],
+      600,
+    );
+    expect(places[0]).toEqual({ x: 108, y: 220, anchor: 'start' });
+    expect(places[1]).toEqual({ x: 110, y: 235, anchor: 'start' });
+    expect(places[2]).toEqual({ x: 572, y: 220, anchor: 'end' });
   });
 });

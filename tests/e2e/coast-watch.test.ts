@@ -97,9 +97,8 @@ eachViewport('coast watch on the %s viewport', (viewport) => {
       );
       const { post: vessel } = await apiJson<{ post: PostBody }>(page, 'PATCH', `/sites/${coast.id}/posts/${copy.id}`, {
         name: `Kittiwake patrol (${viewport})`,
-        // Moored 2.5 km south of the demo vessel (the wide run's copy 1.4 km east of the phone run's), so their marks
-        // and names on the map stay apart.
-        location: { latDeg: demoVessel.location.latDeg - 0.0225, lonDeg: demoVessel.location.lonDeg + (phone ? 0 : 0.02) },
+        // Moored 2.5 km south (phone) or north (wide) of the demo vessel, so their marks and names on the map stay apart.
+        location: { latDeg: demoVessel.location.latDeg + (phone ? -0.0225 : 0.0225), lonDeg: demoVessel.location.lonDeg },
         route: null,
         speedMps: null,
         cycleMinutes: null,
