@@ -159,14 +159,24 @@ eachViewport('coast watch on the %s viewport', (viewport) => {
         postIds: planPosts.map((p) => p.id),
         targetIds: [targets.items.find((t) => t.name === 'Small open boat')!.id],
         conditionSetIds: [sets.items.find((s) => s.name === 'Standard day')!.id],
-        standard: {
-          minSeenPct: 0,
-          priorityMinPosts: 1,
-          bandRules: [{ band: 'Inshore', minPosts: 1, minPct: 95, fromHour: 8, toHour: 20 }],
-        },
+        standard: { minSeenPct: 0, priorityMinPosts: 1 },
       });
       const planUrl = `${e2eUrl()}/plans/${plan.id}`;
-      await page.goto(planUrl);
+      // The standard's band rule, set on the plan form: "Inshore: 95 % of the shore by ≥ 1 post, 08:00–20:00".
+      await page.goto(`${planUrl}/edit`);
+      await page.getByRole('button', { name: 'Add a band rule' }).click();
+      const rule = page.getByLabel('Band rule 1', { exact: true });
+      await rule.getByRole('radio', { name: 'Inshore' }).click();
+      await rule.getByLabel('Share of the shore').fill('95');
+      await rule.getByLabel('From', { exact: true }).fill('08:00');
+      await rule.getByLabel('To', { exact: true }).fill('20:00');
+      await rule.getByText('Reads: Inshore: 95 % of the shore by ≥ 1 post, 08:00–20:00').waitFor();
+      await rule.scrollIntoViewIfNeeded();
+      await shot(page, 'coast-band-rule', viewport);
+      await page.getByRole('button', { name: 'Save changes' }).click();
+      await page.waitForURL(new RegExp(`/plans/${plan.id}$`));
+      const ruled = await apiJson<{ plan: { standard: { bandRules?: unknown } } }>(page, 'GET', `/plans/${plan.id}`);
+      expect(ruled.plan.standard.bandRules).toEqual([{ band: 'Inshore', minPosts: 1, minPct: 95, fromHour: 8, toHour: 20 }]);
       const card = page.getByRole('region', { name: 'Terrain coverage' });
       await card.scrollIntoViewIfNeeded();
       await card.getByRole('button', { name: 'Compute coverage' }).click();
