@@ -4,6 +4,7 @@ import { AppText } from '@/components/ui/app-text';
 import { colors, space } from '@/components/ui/theme';
 import type { ClassPalette } from './class-palettes';
 import { existingPostPath, proposedPostPath, sectorPath, SYMBOL } from './map-features';
+import { SHORE_SYMBOL } from './shore-overlay';
 
 const SWATCH = 22;
 /** The hillshade's grey on flat ground (1 + 254·sin 45° ≈ 181), under the legend's colour swatches. */
@@ -67,10 +68,13 @@ export function MapLegend({
   hasTerrain,
   showSectors,
   palette,
+  shore = null,
 }: {
   hasTerrain: boolean;
   showSectors: boolean;
   palette: ClassPalette | null;
+  /** The site has a shoreline; `gaps`: a case's gaps are drawn on it. */
+  shore?: { gaps: boolean } | null;
 }) {
   const s = SWATCH;
   return (
@@ -159,6 +163,29 @@ export function MapLegend({
           }
           label="Line of the profile, from the chosen post"
         />
+        {shore ? (
+          <Row
+            symbol={
+              <Svg width={s} height={s}>
+                <Line x1={2} y1={s / 2} x2={s - 2} y2={s / 2} stroke={SHORE_SYMBOL.line} strokeWidth={3} />
+                <Line x1={s / 2} y1={s / 2 - 6} x2={s / 2} y2={s / 2 + 6} stroke={SHORE_SYMBOL.line} strokeWidth={2} />
+              </Svg>
+            }
+            label="Shoreline, ticks at round chainages"
+            meaning="Chainage: distance along the shore from its start."
+          />
+        ) : null}
+        {shore?.gaps ? (
+          <Row
+            symbol={
+              <Svg width={s} height={s}>
+                <Line x1={2} y1={s / 2} x2={s - 2} y2={s / 2} stroke={SHORE_SYMBOL.gap} strokeWidth={6} />
+              </Svg>
+            }
+            label="Gap along the shore (band named; a ring where two strips only just meet)"
+            meaning="Nobody watches that band there in this case. Watched is in view, not detected; estimates only."
+          />
+        ) : null}
       </View>
       {palette ? <ClassLegend palette={palette} /> : null}
     </View>

@@ -96,6 +96,12 @@ export function RunMapScreen({
               {patrol.pod !== null ? `; probability of detection in one cycle ${(100 * patrol.pod).toFixed(1)} %` : ''}.
             </AppText>
           ) : null}
+          {shownCase && shownCase.gaps.length > 0 ? (
+            <AppText variant="small" tone="muted" aria-label="Gaps on the map">
+              {shownCase.gaps.length} gap{shownCase.gaps.length === 1 ? '' : 's'} along the shore in this case, drawn in red on
+              the shoreline (the plan’s coverage card lists them with what would close them).
+            </AppText>
+          ) : null}
           {postId && !runPost ? (
             <AppText variant="small" tone="muted">
               The chosen post is not in this plan: pick one of its posts above to see what it sees.
@@ -124,6 +130,7 @@ export function RunMapScreen({
       coveragePanel={panel}
       onChosenPost={onChosenPost}
       outlineBlindArea={outlineBlindArea && caseKey === initialCaseKey}
+      shoreGaps={shownCase?.gaps ?? []}
     />
   );
 }

@@ -4,12 +4,13 @@ import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 import type { LatLon } from '@/shared/geo/types';
+import type { CaseGap } from '@/shared/schemas/coverage';
 import type { IncidentDetail } from '@/shared/schemas/incident';
 import type { Post, Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
 import type { RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import type { ScenePost, SceneTarget } from '@/scenes/terrain/terrain-scene';
-import { useSession } from '@/components/data/session';
+import { useLengthUnits, useSession } from '@/components/data/session';
 import { useSite, useSitePosts } from '@/components/data/sites';
 import { terrainProfileQuery, useSiteTerrain } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
@@ -30,6 +31,7 @@ import { MapViewport, type MapHandles, type ShownLayer } from './map-viewport';
 import { PostMoveDialog, type PendingMove } from './post-move';
 import { ProfilePanel } from './profile-panel';
 import { createReadoutStore } from './readout-store';
+import { ShoreOverlay } from './shore-overlay';
 import { siteMapFrame, type SiteMapFrame } from './site-map-frame';
 import { Terrain3d } from './terrain-3d';
 import { useVisibilityIndexOverlay } from './visibility-index-panel';
@@ -56,6 +58,8 @@ export interface SiteMapScreenProps {
   outlineBlindArea?: boolean;
   /** An incident to open on: the map centres on its fix (the site's open incidents are drawn anyway). */
   focusIncidentId?: string | null;
+  /** A coverage case's gaps along the shore, drawn on the shoreline (a run's map). */
+  shoreGaps?: readonly CaseGap[];
 }
 
 /** Taps kept on the map (and as sight lines in 3D). */
@@ -71,6 +75,7 @@ export function SiteMapScreen({
   onChosenPost,
   outlineBlindArea = false,
   focusIncidentId = null,
+  shoreGaps = [],
 }: SiteMapScreenProps) {
   const site = useSite(siteId);
   const posts = useSitePosts(siteId);
@@ -97,6 +102,7 @@ export function SiteMapScreen({
       onChosenPost={onChosenPost}
       outlineBlindArea={outlineBlindArea}
       incidents={incidents.details}
+      shoreGaps={shoreGaps}
     />
   );
 }
@@ -112,6 +118,7 @@ function MapWorkspace({
   onChosenPost,
   outlineBlindArea,
   incidents,
+  shoreGaps,
 }: {
   site: Site;
   posts: Post[];
@@ -123,8 +130,10 @@ function MapWorkspace({
   onChosenPost?: (postId: string | null) => void;
   outlineBlindArea: boolean;
   incidents: readonly IncidentDetail[];
+  shoreGaps: readonly CaseGap[];
 }) {
   const { wide } = useLayout();
+  const { distance } = useLengthUnits(site.defaultUnits);
   const router = useRouter();
   const { data: user } = useSession();
   const canMove = user?.role === 'planner';
@@ -273,7 +282,12 @@ function MapWorkspace({
           <AppText variant="small">{frame.baseProblem}</AppText>
         </Notice>
       ) : null}
-      <MapLegend hasTerrain={!!frame.base} showSectors={posts.some((p) => p.sector)} palette={shown?.layer.palette ?? null} />
+      <MapLegend
+        hasTerrain={!!frame.base}
+        showSectors={posts.some((p) => p.sector)}
+        palette={shown?.layer.palette ?? null}
+        shore={site.shoreline && site.shoreline.length >= 2 ? { gaps: shoreGaps.length > 0 } : null}
+      />
       <IncidentMapPanel details={incidents} format={format} />
     </View>
   );
@@ -336,6 +350,7 @@ function MapWorkspace({
         keepInView={!wide && sheetOpen ? last : null}
         overlay={(view) => (
           <>
+            <ShoreOverlay frame={frame} shoreline={site.shoreline} gaps={shoreGaps} unit={distance} {...view} />
             <LandmarkOverlay points={landmarkPoints} {...view} />
             <IncidentOverlay shapes={incidentShapes} {...view} />
           </>

@@ -26,6 +26,7 @@ import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
 import { FieldRow } from '@/components/ui/field-row';
 import { FieldError } from '@/components/ui/field-error';
+import { BandRulesField, bandRuleFieldOf, bandRulesOf, bandRuleValues, type BandRuleValues } from './band-rules-field';
 
 interface Values {
   siteId: string;
@@ -39,6 +40,8 @@ interface Values {
   crossBearingMinPct: string;
   /** One optional rule per target, keyed by target id. */
   targetRules: Record<string, RuleValues>;
+  /** Rules for a coast site's offshore bands. */
+  bandRules: BandRuleValues[];
   resolutionArcmin: string;
   magnification: string;
 }
@@ -63,8 +66,11 @@ const FIELD_OF: Record<string, Path<Values>> = {
   'lookout.resolutionArcmin': 'resolutionArcmin',
   'lookout.magnification': 'magnification',
 };
-const fieldOf = (path: string) =>
-  FIELD_OF[path] ?? FIELD_OF[path.replace(/\.\d+$/, '')] ?? (path.startsWith('standard.targetRules') ? 'targetRules' : undefined);
+const fieldOf = (path: string): Path<Values> | undefined =>
+  (bandRuleFieldOf(path) as Path<Values> | undefined) ??
+  FIELD_OF[path] ??
+  FIELD_OF[path.replace(/\.\d+$/, '')] ??
+  (path.startsWith('standard.targetRules') ? 'targetRules' : undefined);
 
 const numberOf = (text: string) => (text.trim() === '' ? NaN : Number(text.replace(',', '.')));
 
@@ -93,6 +99,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
           { area: r.area, minPosts: String(r.minPosts) as RuleValues['minPosts'], minPct: String(r.minPct) },
         ]),
       ),
+      bandRules: (plan?.standard.bandRules ?? []).map(bandRuleValues),
       resolutionArcmin: String(plan?.lookout.resolutionArcmin ?? 1),
       magnification: String(plan?.lookout.magnification ?? 1),
     },
@@ -123,8 +130,8 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
         targetRules: Object.entries(v.targetRules)
           .filter(([targetId]) => v.targetIds.includes(targetId))
           .map(([targetId, r]) => ({ targetId, area: r.area, minPosts: Number(r.minPosts), minPct: numberOf(r.minPct) })),
-        // Band rules (coast sites) are not edited on this form yet: kept as they are.
-        ...(plan?.standard.bandRules && { bandRules: plan.standard.bandRules }),
+        // A plan that never had band rules (a forest) is sent without any, as before.
+        ...((v.bandRules.length > 0 || plan?.standard.bandRules) && { bandRules: bandRulesOf(v.bandRules) }),
       },
       lookout: { resolutionArcmin: numberOf(v.resolutionArcmin), magnification: numberOf(v.magnification) },
     };
@@ -313,6 +320,7 @@ export function PlanEditor({ plan, siteId: presetSite }: { plan?: Plan; siteId?:
             />
           )}
         />
+        <BandRulesField control={control} name="bandRules" bands={(chosenSite.data?.bands ?? []).map((b) => b.name)} />
       </View>
 
       <View style={{ gap: space.sm }}>

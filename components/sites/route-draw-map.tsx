@@ -89,7 +89,7 @@ export function RouteDrawMap({
       ? 'Tap the map where the patrol starts. Drag the map to move it; pinch, scroll or use +/− to zoom.'
       : n === 1
         ? 'Tap the next waypoint.'
-        : `${n} waypoints, ${n - 1} legs${closed ? ', back at the start' : ''}. Tap to add more, drag one to move it.`;
+        : `${n} waypoints, ${n - 1} leg${n === 2 ? '' : 's'}${closed ? ', back at the start' : ''}. Tap to add more, drag one to move it.`;
   const last = points[n - 1];
 
   return (

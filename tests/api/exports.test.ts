@@ -637,3 +637,119 @@ describe('GET /revisions/by-hash/:sha256 (verify a printout)', () => {
     }
   });
 });
+
+describe('coast features in the GeoJSON', () => {
+  it('has the patrol routes, the shoreline, the shore strips per band × post and the gaps, placed by their chainage', async () => {
+    const sites = (await planner.get('/api/v1/sites').expect(200)).body.items as { id: string; name: string }[];
+    const coastId = sites.find((s) => s.name === 'Tallow Strand')!.id;
+    const site = (await planner.get(`/api/v1/sites/${coastId}`).expect(200)).body.site;
+    const posts = (await planner.get(`/api/v1/sites/${coastId}/posts`).expect(200)).body.items as {
+      id: string;
+      name: string;
+      location: { latDeg: number; lonDeg: number };
+      route: { latDeg: number; lonDeg: number }[] | null;
+    }[];
+    const gull = posts.find((p) => p.name === 'Gull Point')!;
+    const fenwick = posts.find((p) => p.name === 'Fenwick Head')!;
+    const vessel = posts.find((p) => p.name === 'Patrol vessel Kittiwake')!;
+    // A straight shoreline from one shore post to the other (the sea side from the site's sea area), two bands.
+    const shoreline = [
+      [gull.location.lonDeg, gull.location.latDeg],
+      [fenwick.location.lonDeg, fenwick.location.latDeg],
+    ];
+    await planner
+      .patch(`/api/v1/sites/${coastId}`)
+      .send({
+        shoreline,
+        bands: [
+          { name: 'Surf zone', fromM: 0, toM: 926 },
+          { name: 'Inshore', fromM: 926, toM: 5556 },
+        ],
+        version: site.version,
+      })
+      .expect(200);
+    const targets = (await planner.get('/api/v1/targets').expect(200)).body.items as { id: string; name: string }[];
+    const sets = (await planner.get('/api/v1/conditions').expect(200)).body.items as { id: string; name: string }[];
+    const plan = (
+      await planner
+        .post('/api/v1/plans')
+        .send({
+          siteId: coastId,
+          title: 'Coast export test',
+          postIds: [gull.id, fenwick.id, vessel.id],
+          targetIds: [targets.find((t) => t.name === 'Small open boat')!.id],
+          conditionSetIds: [sets.find((s) => s.name === 'Standard day')!.id],
+          standard: { minSeenPct: 0, priorityMinPosts: 1 },
+        })
+        .expect(201)
+    ).body.plan;
+    await planner.post(`/api/v1/plans/${plan.id}/coverage`).send({}).expect(202);
+    await planner.post(`/api/v1/plans/${plan.id}/submit`).send({ rowVersion: 0, exceptionNote: 'Test plan.' }).expect(200);
+    const frozen = (await planner.get(`/api/v1/plans/${plan.id}/revisions/1`).expect(200)).body.revision.snapshot as PlanSnapshot;
+    const shoreCase = frozen.coverage!.cases[0]!;
+    expect(shoreCase.bands.map((b) => b.name)).toEqual(['Surf zone', 'Inshore']);
+
+    const res = await planner.get(`/api/v1/plans/${plan.id}/revisions/1/features.geojson`).expect(200);
+    const features = JSON.parse(res.text).features as {
+      geometry: { type: string; coordinates: unknown };
+      properties: Record<string, unknown>;
+    }[];
+    const ofKind = (kind: string) => features.filter((f) => f.properties.kind === kind);
+    // Source: Karney (2013), inverse problem (geographiclib): the geodesic length on WGS 84.
+    const geodesicM = ([lon1, lat1]: number[], [lon2, lat2]: number[]) => Geodesic.WGS84.Inverse(lat1!, lon1!, lat2!, lon2!).s12!;
+    // Source: RFC 7946 §3.1.1 — positions are longitude, latitude; 6 decimals ≈ 0.11 m.
+    const ROUNDING_M = 0.5;
+
+    // The patrol's route: its waypoints in order, and its length along the geodesics between them.
+    const [route] = ofKind('patrol-route');
+    expect(route!.geometry.type).toBe('LineString');
+    const waypoints = route!.geometry.coordinates as number[][];
+    expect(waypoints).toEqual(vessel.route!.map((w) => [+w.lonDeg.toFixed(6), +w.latDeg.toFixed(6)]));
+    const routeLength = waypoints.slice(1).reduce((sum, p, i) => sum + geodesicM(waypoints[i]!, p), 0);
+    expect(route!.properties).toMatchObject({ postId: vessel.id, waypoints: vessel.route!.length });
+    expect(Math.abs((route!.properties.routeLengthM as number) - routeLength)).toBeLessThan(ROUNDING_M);
+
+    // The shoreline and its length.
+    const [line] = ofKind('shoreline');
+    expect(line!.geometry.type).toBe('LineString');
+    const start = (line!.geometry.coordinates as number[][])[0]!;
+    expect(Math.abs((line!.properties.lengthM as number) - geodesicM(shoreline[0]!, shoreline[1]!))).toBeLessThan(ROUNDING_M);
+    expect((line!.properties.bands as unknown[]).length).toBe(2);
+
+    // Every post's watched stretches of every band: on a straight shore, each stretch starts and ends at its chainage
+    // from the shoreline's start.
+    const strips = ofKind('shore-strip');
+    const expected = shoreCase.bands.flatMap((b) => b.posts.filter((p) => p.watched.some(([f, t]) => t > f)));
+    expect(strips.length).toBe(expected.length);
+    expect(strips.length).toBeGreaterThan(0);
+    for (const strip of strips) {
+      const watched = strip.properties.watched as [number, number][];
+      const parts = strip.geometry.coordinates as number[][][];
+      expect(strip.geometry.type).toBe('MultiLineString');
+      expect(parts.length).toBe(watched.filter(([f, t]) => t > f).length);
+      parts.forEach((part, i) => {
+        const [from, to] = watched.filter(([f, t]) => t > f)[i]!;
+        expect(Math.abs(geodesicM(start, part[0]!) - from)).toBeLessThan(ROUNDING_M);
+        expect(Math.abs(geodesicM(start, part.at(-1)!) - to)).toBeLessThan(ROUNDING_M);
+      });
+    }
+
+    // The gaps, each where its chainage says, named by band and with the post that could close it.
+    const gaps = ofKind('shore-gap');
+    expect(gaps.length).toBe(shoreCase.gaps.length);
+    gaps.forEach((gap, i) => {
+      const listed = shoreCase.gaps[i]!;
+      expect(gap.properties).toMatchObject({
+        band: listed.band,
+        gapKind: listed.kind,
+        closerPostName: listed.closer?.postName ?? null,
+      });
+      const ends =
+        gap.geometry.type === 'Point'
+          ? [gap.geometry.coordinates as number[], gap.geometry.coordinates as number[]]
+          : [(gap.geometry.coordinates as number[][])[0]!, (gap.geometry.coordinates as number[][]).at(-1)!];
+      expect(Math.abs(geodesicM(start, ends[0]!) - listed.fromM)).toBeLessThan(ROUNDING_M);
+      expect(Math.abs(geodesicM(start, ends[1]!) - listed.toM)).toBeLessThan(ROUNDING_M);
+    });
+  });
+});

@@ -1,6 +1,7 @@
 import type { Feature, FeatureCollection, Geometry } from 'geojson';
 import type { PlanSnapshot } from '@/shared/schemas/plan';
 import { geodesicCircle, geodesicSector, rfc7946Ring, roundCoordinate, type Position } from './geojson-rings';
+import { measureLine, positionAt, stretchPositions } from './shore-lines';
 
 /** One listed blind area of one case, outlined from the stored class raster. */
 export interface BlindAreaOutline {
@@ -36,6 +37,10 @@ interface FrozenPost {
   structureHeightM: number;
   eyeHeightM: number;
   sector: { fromDeg: number; toDeg: number } | null;
+  /** A patrol's waypoints (vessels and aircraft), absent or null otherwise. */
+  route?: { latDeg: number; lonDeg: number }[] | null;
+  speedMps?: number | null;
+  cycleMinutes?: number | null;
 }
 
 type Ring = [number, number][];
@@ -62,6 +67,11 @@ const feature = (geometry: Geometry, properties: Record<string, unknown>): Featu
  * a range ring per post × target × condition (the geodesic circle of the
  * detection range, with what limits it); and the listed blind areas of each
  * terrain-coverage case (MultiPolygons traced from the stored layer).
+ * On a coast: each patrol's route (a LineString through its waypoints), the
+ * shoreline (a LineString with its length and bands), and per coverage case
+ * the shore strips (per band × post, a MultiLineString of the stretches the
+ * post watches) and the gaps (a LineString along the shore between their
+ * chainages, or a Point for a seam of no length).
  * Every feature says what it is in `properties.kind`.
  *
  * Source: RFC 7946 §3 (geometry objects; §3.1.1 positions are longitude,
@@ -82,6 +92,8 @@ export function planFeatureCollection(
     boundary?: Ring | null;
     priorityZones?: { name: string; weight: number; ring: Ring }[];
     seaArea?: Ring | null;
+    shoreline?: Ring | null;
+    bands?: { name: string; fromM: number; toM: number }[];
   };
   const push = (f: Feature | null) => {
     if (f) features.push(f);
@@ -113,6 +125,23 @@ export function planFeatureCollection(
         },
       ),
     );
+    if (post.route && post.route.length >= 2) {
+      features.push(
+        feature(
+          { type: 'LineString', coordinates: post.route.map((w) => [roundCoordinate(w.lonDeg), roundCoordinate(w.latDeg)]) },
+          {
+            kind: 'patrol-route',
+            postId: post.id,
+            postName: post.name,
+            postKind: post.kind,
+            waypoints: post.route.length,
+            routeLengthM: round(measureLine(post.route.map((w) => [w.lonDeg, w.latDeg] as Position))!.lengthM, 1),
+            speedMps: post.speedMps ?? null,
+            cycleMinutes: post.cycleMinutes ?? null,
+          },
+        ),
+      );
+    }
     const rows = snapshot.results.filter((r) => r.postId === post.id);
     if (post.sector) {
       const ranges = rows.map((r) => r.result.detectionRangeM ?? r.result.geographicRangeM ?? 0);
@@ -182,5 +211,76 @@ export function planFeatureCollection(
       ),
     );
   }
+  shoreFeatures(site.shoreline ?? null, site.bands ?? [], snapshot.coverage?.cases ?? [], features);
   return { type: 'FeatureCollection', kenning: meta, features };
+}
+
+type FrozenCase = NonNullable<PlanSnapshot['coverage']>['cases'][number];
+
+/** The shoreline, and each case's shore strips and gaps along it (chainage in metres from its first corner). */
+function shoreFeatures(
+  shoreline: Ring | null,
+  bands: readonly { name: string; fromM: number; toM: number }[],
+  cases: readonly FrozenCase[],
+  features: Feature[],
+) {
+  const line = shoreline ? measureLine(shoreline) : null;
+  if (!line) return;
+  features.push(
+    feature(
+      { type: 'LineString', coordinates: line.corners.map(([lon, lat]) => [roundCoordinate(lon), roundCoordinate(lat)]) },
+      { kind: 'shoreline', lengthM: round(line.lengthM, 1), bands: bands.map((b) => ({ ...b })) },
+    ),
+  );
+  for (const c of cases) {
+    const about = {
+      caseKey: c.key,
+      targetName: c.targetName,
+      conditionSetName: c.conditionSetName,
+      conditionLabel: c.conditionLabel,
+    };
+    for (const band of c.bands ?? []) {
+      for (const post of band.posts) {
+        const parts = post.watched.map(([from, to]) => stretchPositions(line, from, to)).filter((p) => p !== null);
+        if (parts.length === 0) continue;
+        features.push(
+          feature(
+            { type: 'MultiLineString', coordinates: parts },
+            {
+              kind: 'shore-strip',
+              ...about,
+              band: band.name,
+              bandFromM: band.fromM,
+              bandToM: band.toM,
+              postId: post.postId,
+              postName: post.postName,
+              lengthM: round(post.lengthM, 1),
+              watched: post.watched.map(([from, to]) => [round(from, 1), round(to, 1)]),
+            },
+          ),
+        );
+      }
+    }
+    for (const gap of c.gaps ?? []) {
+      const stretch = stretchPositions(line, gap.fromM, gap.toM);
+      features.push(
+        feature(
+          stretch ? { type: 'LineString', coordinates: stretch } : { type: 'Point', coordinates: positionAt(line, gap.fromM) },
+          {
+            kind: 'shore-gap',
+            ...about,
+            band: gap.band,
+            gapKind: gap.kind,
+            fromM: round(gap.fromM, 1),
+            toM: round(gap.toM, 1),
+            lengthM: round(gap.lengthM, 1),
+            closerPostId: gap.closer?.postId ?? null,
+            closerPostName: gap.closer?.postName ?? null,
+            closerRaiseByM: gap.closer?.raiseByM ?? null,
+            closerBlockedBy: gap.closer?.blockedBy ?? null,
+          },
+        ),
+      );
+    }
+  }
 }
