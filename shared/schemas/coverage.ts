@@ -1,3 +1,4 @@
+// Over 300 lines: the whole coverage run contract (cases, bands, gaps, patrols, hourly series, layers, comparison), field by field with units.
 import { z } from 'zod';
 import { GridSpecMSchema } from './grid-spec';
 import { CLASS_RASTER_ENCODING, type EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
