@@ -1,34 +1,22 @@
-import { rm } from 'node:fs/promises';
 import type { Express } from 'express';
-import type { Sequelize } from 'sequelize';
 import type request from 'supertest';
 import { CoverageRunSchema, type CoverageRun } from '@/shared/schemas/coverage';
 import { SitingRunSchema, type SitingRun } from '@/shared/schemas/siting';
 import { fromUtm } from '@/shared/geo/from-utm';
-import { createApp } from '@/server/app';
 import { ConditionSetModel, PlanModel, PostModel, SiteModel, TargetProfileModel } from '@/server/data/models';
 import { sitingRepository } from '@/server/data/repositories/siting-repository';
-import type { ComputeViewsheds } from '@/server/domain/coverage/compute-coverage';
 import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
 import { processSitingRun } from '@/server/domain/siting/process-siting-run';
-import { startCoverageBoss, workCoverageQueue, workSitingQueue, type CoverageBoss } from '@/server/queue/coverage-queue';
-import { createTerrainCache, type TerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
+import { startCoverageBoss, workCoverageQueue, workSitingQueue } from '@/server/queue/coverage-queue';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import { gatedViewsheds, openQueueTestbed, type QueueTestbed } from '@/tests/support/queue-testbed';
 
 /*
  * Siting runs through the real job queue (pg-boss on the test database) and a
  * worker in this process that takes both siting and coverage jobs.
  */
 
-let db: Sequelize;
-let url: string;
-let drop: () => Promise<void>;
-let filesDir: string;
-let cache: TerrainCache;
-let pool: ViewshedPool;
-let boss: CoverageBoss;
+let bed: QueueTestbed;
 let app: Express;
 let planner: request.Agent;
 
@@ -39,14 +27,11 @@ const utm33 = (easting: number, northing: number) => {
 };
 
 async function startWorker(options: { gate?: () => Promise<void> } = {}) {
-  const worker = await startCoverageBoss(url, { supervise: false });
-  const viewsheds = poolViewsheds(pool);
-  const computeViewsheds: ComputeViewsheds = async (terrain, jobs, onDone) => {
-    await options.gate?.();
-    return viewsheds(terrain, jobs, onDone);
-  };
+  const worker = await startCoverageBoss(bed.url, { supervise: false });
+  const viewsheds = poolViewsheds(bed.pool);
+  const computeViewsheds = gatedViewsheds(bed.pool, options.gate);
   const outcomes: string[] = [];
-  const deps = { db, cache, computeViewsheds, progressEveryMs: 0 };
+  const deps = { db: bed.db, cache: bed.cache, computeViewsheds, progressEveryMs: 0 };
   await workSitingQueue(worker.boss, async (runId) => {
     outcomes.push(await processSitingRun(deps, runId));
   });
@@ -84,21 +69,8 @@ const fourCandidates = () => [
 ];
 
 beforeAll(async () => {
-  ({ db, url, drop } = await createTestDatabase());
-  const store = scratchFileStore();
-  filesDir = store.filesDir;
-  cache = createTerrainCache({ files: store.files, maxBytes: 2 ** 28 });
-  pool = createViewshedPool({ size: 1 });
-  boss = await startCoverageBoss(url);
-  app = createApp({
-    db,
-    config: TEST_CONFIG,
-    files: store.files,
-    terrainCache: cache,
-    coverageQueue: boss.queue,
-    sitingQueue: boss.sitingQueue,
-  });
-  planner = await signedInAgent(app, DEMO.planner);
+  bed = await openQueueTestbed({ sitingQueue: true });
+  ({ app, planner } = bed);
   const forest = await SiteModel.findOne({ where: { name: 'Harrowmere Forest District' } });
   forestId = forest!.id;
   const posts = await PostModel.findAll({ where: { siteId: forestId } });
@@ -111,12 +83,7 @@ beforeAll(async () => {
     where: { name: 'Refraction spread', organizationId: forest!.organizationId },
   }))!.id;
 });
-afterAll(async () => {
-  await boss.stop();
-  await pool.close();
-  await drop();
-  await rm(filesDir, { recursive: true, force: true });
-});
+afterAll(() => bed.close());
 
 const request1 = () => ({
   candidates: fourCandidates(),
