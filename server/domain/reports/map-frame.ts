@@ -5,7 +5,7 @@
  * metres (the terrain's projected CRS); paper in points (1/72 in).
  */
 
-import { gridBounds } from '@/shared/terrain/grid-bounds';
+import { boundsOfPoints } from '@/shared/terrain/bounds-of-points';
 
 /** Metres of paper in one point. */
 export const METRES_PER_POINT = 0.0254 / 72;
@@ -35,7 +35,7 @@ export interface MapFrame {
 
 /** The extent of points, grown by `padShare` of its size on each side (at least `minSizeM` across). */
 export function extentOf(points: readonly { x: number; y: number }[], padShare = 0.06, minSizeM = 1000): Extent {
-  const bounds = gridBounds(points);
+  const bounds = boundsOfPoints(points);
   if (!bounds) throw new Error('extentOf needs at least one point');
   const { west, south, east, north } = bounds;
   const cx = (west + east) / 2;

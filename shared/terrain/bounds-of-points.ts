@@ -1,5 +1,5 @@
 /** The smallest rectangle holding a set of grid points: grid metres, x east, y north. */
-export interface GridBounds {
+export interface PointsBounds {
   readonly west: number;
   readonly south: number;
   readonly east: number;
@@ -14,9 +14,9 @@ export interface GridBounds {
  * @returns the bounds, or null when there are no points
  *
  * @example
- * gridBounds([{ x: 3, y: 1 }, { x: -2, y: 4 }]); // { west: -2, south: 1, east: 3, north: 4 }
+ * boundsOfPoints([{ x: 3, y: 1 }, { x: -2, y: 4 }]); // { west: -2, south: 1, east: 3, north: 4 }
  */
-export function gridBounds(points: readonly { x: number; y: number }[]): GridBounds | null {
+export function boundsOfPoints(points: readonly { x: number; y: number }[]): PointsBounds | null {
   if (points.length === 0) return null;
   let west = Infinity;
   let south = Infinity;

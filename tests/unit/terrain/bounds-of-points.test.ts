@@ -1,10 +1,10 @@
-import { gridBounds } from '@/shared/terrain/grid-bounds';
+import { boundsOfPoints } from '@/shared/terrain/bounds-of-points';
 
-describe('gridBounds', () => {
+describe('boundsOfPoints', () => {
   it('takes the least and greatest x and y of the points', () => {
     // Common practice, no source: a bounding box is the coordinate-wise minimum and maximum.
     expect(
-      gridBounds([
+      boundsOfPoints([
         { x: 3, y: 1 },
         { x: -2, y: 4 },
         { x: 0.5, y: -7 },
@@ -14,13 +14,13 @@ describe('gridBounds', () => {
 
   it('is one point wide for one point, and null for none', () => {
     // Common practice, no source.
-    expect(gridBounds([{ x: 518_500, y: 5_738_500 }])).toEqual({
+    expect(boundsOfPoints([{ x: 518_500, y: 5_738_500 }])).toEqual({
       west: 518_500,
       south: 5_738_500,
       east: 518_500,
       north: 5_738_500,
     });
-    expect(gridBounds([])).toBeNull();
+    expect(boundsOfPoints([])).toBeNull();
   });
 
   it('does not change its input', () => {
@@ -29,7 +29,7 @@ describe('gridBounds', () => {
       { x: 1, y: 1 },
     ];
     const copy = structuredClone(points);
-    gridBounds(points);
+    boundsOfPoints(points);
     expect(points).toEqual(copy);
   });
 });
