@@ -9,7 +9,7 @@ import { coverageRepository } from '@/server/data/repositories/coverage-reposito
 import { processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
 import { startCoverageBoss, workCoverageQueue } from '@/server/queue/coverage-queue';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
-import { gatedViewsheds, openQueueTestbed, type QueueTestbed } from '@/tests/support/queue-testbed';
+import { gatedViewsheds, holdingGate, openQueueTestbed, type QueueTestbed } from '@/tests/support/queue-testbed';
 import { scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 
 /*
@@ -139,16 +139,8 @@ describe('coverage runs on the queue', () => {
       })
       .expect(201);
     const id: string = created.body.plan.id;
-    let release!: () => void;
-    const held = new Promise<void>((r) => (release = r));
-    let entered!: () => void;
-    const inside = new Promise<void>((r) => (entered = r));
-    const worker = await startWorker({
-      gate: async () => {
-        entered();
-        await held;
-      },
-    });
+    const { gate, inside, release } = holdingGate();
+    const worker = await startWorker({ gate });
     try {
       const runId: string = (await planner.post(`/api/v1/plans/${id}/coverage`).send({}).expect(202)).body.run.id;
       await inside;

@@ -9,7 +9,7 @@ import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/proc
 import { processSitingRun } from '@/server/domain/siting/process-siting-run';
 import { startCoverageBoss, workCoverageQueue, workSitingQueue } from '@/server/queue/coverage-queue';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
-import { gatedViewsheds, openQueueTestbed, type QueueTestbed } from '@/tests/support/queue-testbed';
+import { gatedViewsheds, holdingGate, openQueueTestbed, type QueueTestbed } from '@/tests/support/queue-testbed';
 
 /*
  * Siting runs through the real job queue (pg-boss on the test database) and a
@@ -162,16 +162,8 @@ describe('siting runs', () => {
   });
 
   it('a run cancelled while it computes keeps nothing', async () => {
-    let release!: () => void;
-    const held = new Promise<void>((r) => (release = r));
-    let entered!: () => void;
-    const inside = new Promise<void>((r) => (entered = r));
-    const worker = await startWorker({
-      gate: async () => {
-        entered();
-        await held;
-      },
-    });
+    const { gate, inside, release } = holdingGate();
+    const worker = await startWorker({ gate });
     try {
       const runId: string = (await planner.post(`/api/v1/sites/${forestId}/siting-runs`).send(request1()).expect(202)).body.run
         .id;

@@ -71,3 +71,19 @@ export function gatedViewsheds(pool: ViewshedPool, gate?: () => Promise<void>): 
     return viewsheds(terrain, jobs, onDone);
   };
 }
+
+/**
+ * A gate that holds every viewshed batch until `release` is called; `inside`
+ * settles once the first batch has reached it (the run is then mid-way).
+ */
+export function holdingGate(): { gate: () => Promise<void>; inside: Promise<void>; release: () => void } {
+  let release!: () => void;
+  const held = new Promise<void>((r) => (release = r));
+  let entered!: () => void;
+  const inside = new Promise<void>((r) => (entered = r));
+  const gate = async () => {
+    entered();
+    await held;
+  };
+  return { gate, inside, release };
+}
