@@ -14,6 +14,59 @@
 const SERVER_COMPOSITION = '^server/(app|start|config)[.]ts$|^server/(seeders|scripts)/';
 const SERVER_ADAPTERS = '^server/(queue|workers|storage|terrain)/|^server/mail/(?!templates[.]ts$)';
 
+/**
+ * The layering rules, one a row: name, the files it applies to (`!` before the pattern: every file but those), the
+ * files they may not import, and why.
+ */
+const LAYER_RULES = [
+  [
+    'shared-stays-shared',
+    '^shared/',
+    '^(app|components|scenes|server|tests)/',
+    'shared/ (core and schemas) runs on both sides: it imports nothing from app, components, scenes, server or tests.',
+  ],
+  [
+    'client-never-imports-server',
+    '^(app|components|scenes)/',
+    '^server/',
+    'The client talks to the server over HTTP only (components/data), never by importing it.',
+  ],
+  ['server-never-imports-client', '^server/', '^(app|components|scenes)/'],
+  ['routes-are-the-top', '!^app/', '^app/', 'app/ holds Expo Router routes only; nothing else imports them.'],
+  [
+    'scenes-below-components',
+    '^scenes/',
+    '^(components|app)/',
+    'components/ loads scenes/ lazily; scenes get their data as props and import only shared/.',
+  ],
+  ['no-imports-from-tests', '!^tests/', '^tests/'],
+  [
+    'domain-knows-no-http-or-adapters',
+    '^server/domain/',
+    `^server/(routes|http)/|${SERVER_ADAPTERS}|${SERVER_COMPOSITION}`,
+    'Use cases depend on repositories, the core and their ports (server/domain/ports); never on routes, HTTP, ' +
+      'the adapters that implement the ports, or the composition root. Mail templates are plain text builders.',
+  ],
+  [
+    'data-below-domain',
+    '^server/data/',
+    `^server/(domain|routes|http|mail)/|${SERVER_ADAPTERS}|${SERVER_COMPOSITION}`,
+    'Repositories and models know nothing above them.',
+  ],
+  [
+    'routes-through-use-cases',
+    '^server/(routes|http)/',
+    '^server/data/(repositories|models)/|^server/data/migrations/',
+    'Routes and middleware call use cases; only use cases call repositories and models.',
+  ],
+  [
+    'adapters-below-http',
+    SERVER_ADAPTERS,
+    `^server/(routes|http)/|^server/(app|start)[.]ts$|^server/seeders/`,
+    'Queue, workers, storage, terrain files and mail implement ports; they never reach up into HTTP.',
+  ],
+];
+
 /** @type {import('dependency-cruiser').IConfiguration} */
 module.exports = {
   forbidden: [
@@ -31,76 +84,13 @@ module.exports = {
         viaOnly: { dependencyTypesNot: ['dynamic-import', 'type-import'] },
       },
     },
-    {
-      name: 'shared-stays-shared',
+    ...LAYER_RULES.map(([name, from, to, comment]) => ({
+      name,
       severity: 'error',
-      comment: 'shared/ (core and schemas) runs on both sides: it imports nothing from app, components, scenes, server or tests.',
-      from: { path: '^shared/' },
-      to: { path: '^(app|components|scenes|server|tests)/' },
-    },
-    {
-      name: 'client-never-imports-server',
-      severity: 'error',
-      comment: 'The client talks to the server over HTTP only (components/data), never by importing it.',
-      from: { path: '^(app|components|scenes)/' },
-      to: { path: '^server/' },
-    },
-    {
-      name: 'server-never-imports-client',
-      severity: 'error',
-      from: { path: '^server/' },
-      to: { path: '^(app|components|scenes)/' },
-    },
-    {
-      name: 'routes-are-the-top',
-      severity: 'error',
-      comment: 'app/ holds Expo Router routes only; nothing else imports them.',
-      from: { pathNot: '^app/' },
-      to: { path: '^app/' },
-    },
-    {
-      name: 'scenes-below-components',
-      severity: 'error',
-      comment: 'components/ loads scenes/ lazily; scenes get their data as props and import only shared/.',
-      from: { path: '^scenes/' },
-      to: { path: '^(components|app)/' },
-    },
-    {
-      name: 'no-imports-from-tests',
-      severity: 'error',
-      from: { pathNot: '^tests/' },
-      to: { path: '^tests/' },
-    },
-    {
-      name: 'domain-knows-no-http-or-adapters',
-      severity: 'error',
-      comment:
-        'Use cases depend on repositories, the core and their ports (server/domain/ports); never on routes, HTTP, ' +
-        'the adapters that implement the ports, or the composition root. Mail templates are plain text builders.',
-      from: { path: '^server/domain/' },
-      to: { path: `^server/(routes|http)/|${SERVER_ADAPTERS}|${SERVER_COMPOSITION}` },
-    },
-    {
-      name: 'data-below-domain',
-      severity: 'error',
-      comment: 'Repositories and models know nothing above them.',
-      from: { path: '^server/data/' },
-      to: { path: `^server/(domain|routes|http|mail)/|${SERVER_ADAPTERS}|${SERVER_COMPOSITION}` },
-    },
-    {
-      name: 'routes-through-use-cases',
-      severity: 'error',
-      comment: 'Routes and middleware call use cases; only use cases call repositories and models.',
-      from: { path: '^server/(routes|http)/' },
-      to: { path: '^server/data/(repositories|models)/|^server/data/migrations/' },
-    },
-    {
-      name: 'adapters-below-http',
-      severity: 'error',
-      comment: 'Queue, workers, storage, terrain files and mail implement ports; they never reach up into HTTP.',
-      from: { path: SERVER_ADAPTERS },
-      to: { path: `^server/(routes|http)/|^server/(app|start)[.]ts$|^server/seeders/` },
-    },
+      ...(comment ? { comment } : {}),
+      from: from.startsWith('!') ? { pathNot: from.slice(1) } : { path: from },
+      to: { path: to },
+    })),
   ],
   options: {
     doNotFollow: { path: 'node_modules' },

@@ -2,6 +2,7 @@ import { utmZoneFor } from '@/shared/geo/utm-zone-for';
 import type { LatLon } from '@/shared/geo/types';
 import type { Post, Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
+import { boundsOfPoints } from '@/shared/terrain/bounds-of-points';
 import { gridConvergence } from '@/shared/terrain/grid-convergence';
 import { gridProjection, type GridProjection } from '@/shared/terrain/grid-projection';
 import type { GridRect, ZoomLimits } from './map-camera';
@@ -44,21 +45,6 @@ const ringOf = (projection: GridProjection, ring: readonly (readonly [number, nu
   name,
   points: ring.map(([lonDeg, latDeg]) => projection.toGrid({ latDeg, lonDeg })),
 });
-
-function rectOf(points: readonly { x: number; y: number }[]): GridRect | null {
-  if (points.length === 0) return null;
-  let west = Infinity;
-  let south = Infinity;
-  let east = -Infinity;
-  let north = -Infinity;
-  for (const p of points) {
-    west = Math.min(west, p.x);
-    east = Math.max(east, p.x);
-    south = Math.min(south, p.y);
-    north = Math.max(north, p.y);
-  }
-  return { west, south, east, north };
-}
 
 /** A rectangle grown by `share` of its larger side on every side (at least `minM` metres). */
 export function padRect(rect: GridRect, share: number, minM = 250): GridRect {
@@ -116,10 +102,10 @@ export function siteMapFrame(site: Site, posts: readonly Post[], terrain: SiteTe
   // The first view is the site itself: its boundary and zones when drawn (a post far outside, e.g.
   // one typed with a wrong zone, is still drawn and reached by panning), else the posts.
   const drawn = [...(boundary?.points ?? []), ...zones.flatMap((z) => z.points)];
-  const siteRect = rectOf(drawn.length > 0 ? drawn : framedPosts);
+  const siteRect = boundsOfPoints(drawn.length > 0 ? drawn : framedPosts);
   const initial = siteRect ? padRect(siteRect, 0.08) : (base?.rect ?? { west: -5000, south: -5000, east: 5000, north: 5000 });
   const everything = [...cornersOf(initial), ...(base ? cornersOf(base.rect) : []), ...framedPosts];
-  const all = rectOf(everything)!;
+  const all = boundsOfPoints(everything)!;
   const span = Math.max(all.east - all.west, all.north - all.south, 1000);
   // Out until everything there is fits in 150 px (but at least to a view of the site in 50 px); in to
   // 2 px a metre (a 25 m cell 50 px wide).

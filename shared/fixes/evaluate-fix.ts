@@ -38,6 +38,38 @@ export type ResolvedFixBearing = FixBearing & {
 };
 
 const DEG = 1 / RAD_PER_DEG;
+
+/** Where a fix lies and the area around it that holds the smoke, with how that area was drawn. */
+const fixWithArea = (
+  position: LatLon,
+  area: { ring: Fix['errorArea']['coordinates'][number]; areaM2: number },
+  errorAreaMethod: string,
+) => ({
+  latDeg: position.latDeg,
+  lonDeg: position.lonDeg,
+  errorArea: { type: 'Polygon' as const, coordinates: [area.ring] },
+  errorAreaM2: area.areaM2,
+  errorAreaMethod,
+});
+
+/**
+ * What a fix's report repeats of one bearing: where and by whom it was taken,
+ * what was read and the true bearing it stands for (degrees).
+ */
+export function reportedBearing(b: ResolvedFixBearing, index: number, trueBearingDeg: number) {
+  return {
+    index,
+    postId: b.postId ?? null,
+    postName: b.postName,
+    from: { latDeg: b.from.latDeg, lonDeg: b.from.lonDeg },
+    eyeHeightM: b.eyeHeightM,
+    bearingDeg: b.bearingDeg,
+    bearingReference: b.bearingReference,
+    declinationDeg: b.bearingReference === 'magnetic' ? b.declinationDeg! : 0,
+    trueBearingDeg,
+    bearingSigmaDeg: b.bearingSigmaDeg,
+  };
+}
 const round = (x: number, digits: number) => Number(x.toFixed(digits));
 
 /**
@@ -89,11 +121,7 @@ export function evaluateFix(observedAt: string, bearings: readonly ResolvedFixBe
       );
     }
     fix = {
-      latDeg: crossing.position.latDeg,
-      lonDeg: crossing.position.lonDeg,
-      errorArea: { type: 'Polygon', coordinates: [area.ring] },
-      errorAreaM2: area.areaM2,
-      errorAreaMethod: ERROR_QUADRILATERAL_METHOD,
+      ...fixWithArea(crossing.position, area, ERROR_QUADRILATERAL_METHOD),
       cutAngleDeg: round(cutAngleDeg, 3),
       method: 'two-bearing-intersection',
       warnings,
@@ -117,11 +145,7 @@ export function evaluateFix(observedAt: string, bearings: readonly ResolvedFixBe
       );
     }
     fix = {
-      latDeg: ls.position.latDeg,
-      lonDeg: ls.position.lonDeg,
-      errorArea: { type: 'Polygon', coordinates: [ellipse.ring] },
-      errorAreaM2: ellipse.areaM2,
-      errorAreaMethod: ERROR_ELLIPSE_METHOD,
+      ...fixWithArea(ls.position, ellipse, ERROR_ELLIPSE_METHOD),
       residualsDeg: ls.residualsRad.map((r) => round(r * DEG, 6)),
       errorEllipse: {
         semiMajorM: ellipse.semiMajorM,
@@ -141,16 +165,7 @@ export function evaluateFix(observedAt: string, bearings: readonly ResolvedFixBe
     const sight = sightToPoint(b.from, position);
     const residualRad = wrapPi(lines[i]!.bearingRad - sight.azimuthAtFromRad);
     return {
-      index: i,
-      postId: b.postId ?? null,
-      postName: b.postName,
-      from: { latDeg: b.from.latDeg, lonDeg: b.from.lonDeg },
-      eyeHeightM: b.eyeHeightM,
-      bearingDeg: b.bearingDeg,
-      bearingReference: b.bearingReference,
-      declinationDeg: b.bearingReference === 'magnetic' ? b.declinationDeg! : 0,
-      trueBearingDeg: trueDeg[i]!,
-      bearingSigmaDeg: b.bearingSigmaDeg,
+      ...reportedBearing(b, i, trueDeg[i]!),
       verticalAngleDeg: b.verticalAngleDeg ?? null,
       distanceM: sight.distanceM,
       bearingToFixDeg: wrap360Deg(sight.azimuthAtFromRad * DEG),

@@ -10,7 +10,7 @@ import {
 } from '@/shared/schemas/fix';
 import { RAD_PER_DEG, wrap360Deg } from './angles';
 import { horizonDipRad, smoothEarthRangeM } from './depression-range';
-import { FIX_CAUTIONS, type ResolvedFixBearing } from './evaluate-fix';
+import { FIX_CAUTIONS, reportedBearing, type ResolvedFixBearing } from './evaluate-fix';
 import { FixError } from './fix-error';
 import { rayTerrainHit } from './ray-terrain-hit';
 import { geodesicRing } from './ring-area';
@@ -211,16 +211,7 @@ export function evaluateVerticalAngleFix(
     },
     reports: [
       {
-        index: 0,
-        postId: bearing.postId ?? null,
-        postName: bearing.postName,
-        from: { latDeg: bearing.from.latDeg, lonDeg: bearing.from.lonDeg },
-        eyeHeightM: bearing.eyeHeightM,
-        bearingDeg: bearing.bearingDeg,
-        bearingReference: bearing.bearingReference,
-        declinationDeg: bearing.bearingReference === 'magnetic' ? bearing.declinationDeg! : 0,
-        trueBearingDeg: trueDeg,
-        bearingSigmaDeg: bearing.bearingSigmaDeg,
+        ...reportedBearing(bearing, 0, trueDeg),
         verticalAngleDeg: angleDeg,
         distanceM: centre.distanceM,
         bearingToFixDeg: wrap360Deg(trueDeg),

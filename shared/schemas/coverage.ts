@@ -1,5 +1,7 @@
+// Over 300 lines: the whole coverage run contract (cases, bands, gaps, patrols, hourly series, layers, comparison), field by field with units.
 import { z } from 'zod';
 import { GridSpecMSchema } from './grid-spec';
+import { runStateShape } from './run-state';
 import { CLASS_RASTER_ENCODING, type EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
 
 /*
@@ -273,17 +275,7 @@ export const CoverageRunSchema = z.object({
   datum: z.enum(COVERAGE_DATUMS),
   /** sha256 of the canonical JSON of every input (terrain, posts, targets, conditions, site, standard). */
   inputsHash: z.string(),
-  status: z.enum(COVERAGE_RUN_STATUSES),
-  /** 0 … 1. */
-  progress: z.number(),
-  /** What the run is doing, for people. */
-  stage: z.string(),
-  /** Why it failed, for people; null otherwise. */
-  error: z.string().nullable(),
-  requestedBy: z.object({ id: z.uuid().nullable(), name: z.string() }),
-  createdAt: z.string(),
-  startedAt: z.string().nullable(),
-  finishedAt: z.string().nullable(),
+  ...runStateShape(COVERAGE_RUN_STATUSES),
   /** Whether the plan's inputs today are the ones this run computed. */
   current: z.boolean(),
   grid: CoverageGridSchema.nullable(),

@@ -1,3 +1,4 @@
+// Over 300 lines: the whole plan contract (standard, lookouts, results snapshot, revisions, review, signatures) whose parts nest in one another.
 import { z } from 'zod';
 import { listQuerySchema, pageOf } from './list';
 import { patchOf } from './patch-of';

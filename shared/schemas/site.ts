@@ -1,3 +1,4 @@
+// Over 300 lines: the site and post contracts (rings, shoreline, bands, tide, posts and patrols) with their field-by-field refinements and messages.
 import { z } from 'zod';
 import { ringSelfIntersection } from '@/shared/geo/ring-self-intersection';
 import { UNIT_SYSTEM_IDS } from '@/shared/units/unit-systems';

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { CoverageGridSchema, EncodedClassRasterSchema } from './coverage';
 import { COVERAGE_RUN_STATUSES } from './coverage';
+import { runStateShape } from './run-state';
 
 /*
  * Siting runs: which candidate places, at which tower height, add the most
@@ -164,14 +165,7 @@ export type SitingStep = z.infer<typeof SitingStepSchema>;
 export const SitingRunSchema = z.object({
   id: z.uuid(),
   siteId: z.uuid(),
-  status: z.enum(SITING_RUN_STATUSES),
-  progress: z.number(),
-  stage: z.string(),
-  error: z.string().nullable(),
-  requestedBy: z.object({ id: z.uuid().nullable(), name: z.string() }),
-  createdAt: z.string(),
-  startedAt: z.string().nullable(),
-  finishedAt: z.string().nullable(),
+  ...runStateShape(SITING_RUN_STATUSES),
   elapsedS: z.number().nullable(),
   /** sha256 of the frozen inputs: the same inputs give the same choice. */
   inputsHash: z.string(),

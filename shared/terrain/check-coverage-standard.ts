@@ -338,15 +338,9 @@ export interface ShoreBandRule {
 }
 
 /** A band rule's verdict, in the shape of the other rules (lengths along the shore in `shortfallArea`'s place: 0). */
-export interface ShoreBandRuleCheck {
+export interface ShoreBandRuleCheck extends Omit<CoverageRuleCheck, 'id' | 'zoneName' | 'shortfallArea' | 'reasons'> {
   readonly id: string;
   readonly zoneName: null;
-  readonly minPosts: number;
-  readonly minPct: number;
-  readonly text: string;
-  readonly actualPct: number;
-  readonly passed: boolean;
-  readonly shortfallPct: number;
   readonly shortfallArea: 0;
   readonly reasons: string[];
 }

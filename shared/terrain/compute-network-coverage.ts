@@ -1,8 +1,6 @@
-import type { CoverageStandard } from '@/shared/terrain/check-coverage-standard';
 import type { ViewingSector } from '@/shared/terrain/coverage-post';
-import type { CoverageZone } from '@/shared/terrain/coverage-statistics';
 import { computeHiddenHeightRaster, type LookoutPost, type SightConditions } from '@/shared/terrain/hidden-height-raster';
-import { evaluateNetworkCoverage, type NetworkCoverage } from '@/shared/terrain/network-coverage';
+import { evaluateNetworkCoverage, type NetworkCoverage, type NetworkCoverageInput } from '@/shared/terrain/network-coverage';
 import { prepareSweepTerrain } from '@/shared/terrain/sweep-terrain';
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
@@ -15,18 +13,11 @@ export interface NetworkPostSetup extends LookoutPost {
   readonly gridConvergence?: number;
 }
 
-/** Site, zones, standard and thresholds of {@link computeNetworkCoverage}. */
-export interface NetworkCoverageSetup {
-  /** 1 inside the site, 0 outside; null = the whole terrain. */
-  readonly siteMask: Uint8Array | null;
-  readonly zones?: readonly CoverageZone[];
-  readonly standard: CoverageStandard;
-  /** Radians; default π/6. */
-  readonly minCrossingAngle?: number;
-  /** m²; default 10 000. */
-  readonly blindAreaMinArea?: number;
-  readonly maxBlindAreas?: number;
-}
+/** Site, zones, standard and thresholds of {@link computeNetworkCoverage}, as {@link evaluateNetworkCoverage} takes them. */
+export type NetworkCoverageSetup = Pick<
+  NetworkCoverageInput,
+  'siteMask' | 'zones' | 'standard' | 'minCrossingAngle' | 'blindAreaMinArea' | 'maxBlindAreas'
+>;
 
 /** One condition × one target height of {@link computeNetworkCoverage}. */
 export interface NetworkCoverageCase {

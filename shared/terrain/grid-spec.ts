@@ -67,6 +67,17 @@ export function gridSpecFromM(grid: GridSpecM, crs: TerrainCrs | null): GridSpec
 }
 
 /**
+ * The grid alone, copied from a raster that carries one (its cells left behind).
+ *
+ * @example
+ * gridSpecOf({ width: 2, height: 1, cellSize: 25, xll: 0, yll: 0, crs: null, heights: new Float32Array(2) });
+ * // { width: 2, height: 1, cellSize: 25, xll: 0, yll: 0, crs: null }
+ */
+export function gridSpecOf(grid: GridSpec): GridSpec {
+  return { width: grid.width, height: grid.height, cellSize: grid.cellSize, xll: grid.xll, yll: grid.yll, crs: grid.crs };
+}
+
+/**
  * A core grid's size and placement in its API / database form (the CRS is
  * carried separately: each API shape names it its own way).
  *

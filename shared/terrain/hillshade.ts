@@ -1,6 +1,6 @@
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
-import type { GridSpec } from '@/shared/terrain/grid-spec';
+import { gridSpecOf, type GridSpec } from '@/shared/terrain/grid-spec';
 
 /** Light and scaling of {@link computeHillshade}. */
 export interface HillshadeOptions {
@@ -191,13 +191,5 @@ export function computeHillshade(terrain: TerrainRaster, options: HillshadeOptio
     }
   }
 
-  return {
-    width: W,
-    height: H,
-    cellSize,
-    xll: terrain.xll,
-    yll: terrain.yll,
-    crs: terrain.crs,
-    shade,
-  };
+  return { ...gridSpecOf(terrain), shade };
 }

@@ -1,3 +1,4 @@
+// Over 300 lines: one shore-strip model (stations, bands watched, gaps, the post to close them) whose steps share the station definition.
 import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /*

@@ -658,21 +658,16 @@ function landmarkRangeDrill(setup: DrillSetup, random: SeededRandom, units: Dril
  * generateDrill('horizon-distance', 7, { post: null, targets: [], conditionSets: [] }, 'metric').question.unit; // 'km'
  */
 export function generateDrill(kind: DrillKind, seed: number, setup: DrillSetup, units: DrillUnits): GeneratedDrill {
-  const random = seededRandom(seed);
-  switch (kind) {
-    case 'horizon-distance':
-      return horizonDrill(setup, random, units);
-    case 'hidden-height':
-      return hiddenHeightDrill(setup, random, units);
-    case 'target-visible':
-      return targetVisibleDrill(setup, random, units);
-    case 'detection-range':
-      return detectionDrill(setup, random, units);
-    case 'refraction-effect':
-      return refractionEffectDrill(setup, random, units);
-    case 'landmark-range':
-      return landmarkRangeDrill(setup, random, units);
-    case 'bearing-fix':
-      return bearingFixDrill(setup, random, units);
-  }
+  return DRILL_MAKERS[kind](setup, seededRandom(seed), units);
 }
+
+/** The maker of each kind of drill. */
+const DRILL_MAKERS: Record<DrillKind, (setup: DrillSetup, random: SeededRandom, units: DrillUnits) => GeneratedDrill> = {
+  'horizon-distance': horizonDrill,
+  'hidden-height': hiddenHeightDrill,
+  'target-visible': targetVisibleDrill,
+  'detection-range': detectionDrill,
+  'refraction-effect': refractionEffectDrill,
+  'landmark-range': landmarkRangeDrill,
+  'bearing-fix': bearingFixDrill,
+};

@@ -1,6 +1,4 @@
-import { rm } from 'node:fs/promises';
 import type { Express } from 'express';
-import type { Sequelize } from 'sequelize';
 import type request from 'supertest';
 import { CoverageComparisonSchema, CoverageRunSchema, PlanCoverageSchema, type CoverageRun } from '@/shared/schemas/coverage';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
@@ -8,26 +6,18 @@ import { COVERAGE_LAYER } from '@/shared/terrain/posts-per-cell';
 import { createApp } from '@/server/app';
 import { PlanModel, SiteModel } from '@/server/data/models';
 import { coverageRepository } from '@/server/data/repositories/coverage-repository';
-import type { ComputeViewsheds } from '@/server/domain/coverage/compute-coverage';
-import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
-import { startCoverageBoss, workCoverageQueue, type CoverageBoss } from '@/server/queue/coverage-queue';
-import { createTerrainCache, type TerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
+import { processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
+import { startCoverageBoss, workCoverageQueue } from '@/server/queue/coverage-queue';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import { gatedViewsheds, holdingGate, openQueueTestbed, type QueueTestbed } from '@/tests/support/queue-testbed';
+import { scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 
 /*
  * Coverage runs through the real job queue (pg-boss on the test database)
  * and a worker in this process, started and stopped by the tests.
  */
 
-let db: Sequelize;
-let url: string;
-let drop: () => Promise<void>;
-let filesDir: string;
-let cache: TerrainCache;
-let pool: ViewshedPool;
-let boss: CoverageBoss;
+let bed: QueueTestbed;
 let app: Express;
 let planner: request.Agent;
 
@@ -35,15 +25,11 @@ const wait = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** A worker on its own pg-boss (as a separate process would have); `gate` can hold each viewshed batch. */
 async function startWorker(options: { gate?: () => Promise<void> } = {}) {
-  const worker = await startCoverageBoss(url, { supervise: false });
-  const viewsheds = poolViewsheds(pool);
-  const computeViewsheds: ComputeViewsheds = async (terrain, jobs, onDone) => {
-    await options.gate?.();
-    return viewsheds(terrain, jobs, onDone);
-  };
+  const worker = await startCoverageBoss(bed.url, { supervise: false });
+  const computeViewsheds = gatedViewsheds(bed.pool, options.gate);
   const outcomes: string[] = [];
   await workCoverageQueue(worker.boss, async (runId) => {
-    outcomes.push(await processCoverageRun({ db, cache, computeViewsheds, progressEveryMs: 0 }, runId));
+    outcomes.push(await processCoverageRun({ db: bed.db, cache: bed.cache, computeViewsheds, progressEveryMs: 0 }, runId));
   });
   return { ...worker, outcomes };
 }
@@ -59,22 +45,14 @@ async function waitForRun(agent: request.Agent, runId: string, until: (run: Cove
 
 const planId = async (title: string) => (await PlanModel.findOne({ where: { title } }))!.id;
 
+/** What the planner creates by POSTing `body` to `path`: the answer's `key` (a 201). */
+const created = async (path: string, body: object, key: string) => (await planner.post(path).send(body).expect(201)).body[key];
+
 beforeAll(async () => {
-  ({ db, url, drop } = await createTestDatabase());
-  const store = scratchFileStore();
-  filesDir = store.filesDir;
-  cache = createTerrainCache({ files: store.files, maxBytes: 2 ** 28 });
-  pool = createViewshedPool({ size: 1 });
-  boss = await startCoverageBoss(url);
-  app = createApp({ db, config: TEST_CONFIG, files: store.files, terrainCache: cache, coverageQueue: boss.queue });
-  planner = await signedInAgent(app, DEMO.planner);
+  bed = await openQueueTestbed();
+  ({ app, planner } = bed);
 });
-afterAll(async () => {
-  await boss.stop();
-  await pool.close();
-  await drop();
-  await rm(filesDir, { recursive: true, force: true });
-});
+afterAll(() => bed.close());
 
 describe('coverage runs on the queue', () => {
   it('a run queued while no worker runs survives a restart of the queue, then a worker computes it', async () => {
@@ -90,9 +68,15 @@ describe('coverage runs on the queue', () => {
     expect(again.body.run.id).toBe(runId);
 
     // The server stops and starts again; the job is in PostgreSQL.
-    await boss.stop();
-    boss = await startCoverageBoss(url);
-    app = createApp({ db, config: TEST_CONFIG, files: scratchFileStore().files, terrainCache: cache, coverageQueue: boss.queue });
+    await bed.boss.stop();
+    bed.boss = await startCoverageBoss(bed.url);
+    app = createApp({
+      db: bed.db,
+      config: TEST_CONFIG,
+      files: scratchFileStore().files,
+      terrainCache: bed.cache,
+      coverageQueue: bed.boss.queue,
+    });
     planner = await signedInAgent(app, DEMO.planner);
 
     const worker = await startWorker();
@@ -155,16 +139,8 @@ describe('coverage runs on the queue', () => {
       })
       .expect(201);
     const id: string = created.body.plan.id;
-    let release!: () => void;
-    const held = new Promise<void>((r) => (release = r));
-    let entered!: () => void;
-    const inside = new Promise<void>((r) => (entered = r));
-    const worker = await startWorker({
-      gate: async () => {
-        entered();
-        await held;
-      },
-    });
+    const { gate, inside, release } = holdingGate();
+    const worker = await startWorker({ gate });
     try {
       const runId: string = (await planner.post(`/api/v1/plans/${id}/coverage`).send({}).expect(202)).body.run.id;
       await inside;
@@ -287,57 +263,47 @@ describe('a site without terrain', () => {
       [-3.8, 48.5],
       [-5.2, 48.5],
     ];
-    const site = (
-      await planner
-        .post('/api/v1/sites')
-        .send({ name: 'Flat sea test', kind: 'coast-stretch', boundary: ring, timeZone: 'UTC' })
-        .expect(201)
-    ).body.site;
+    const site = await created(
+      '/api/v1/sites',
+      { name: 'Flat sea test', kind: 'coast-stretch', boundary: ring, timeZone: 'UTC' },
+      'site',
+    );
     const eyeM = 20;
-    const post = (
-      await planner
-        .post(`/api/v1/sites/${site.id}/posts`)
-        .send({
-          name: 'Mast',
-          kind: 'shore-post',
-          location: centre,
-          groundElevationM: 0,
-          structureHeightM: eyeM - 1.6,
-          eyeHeightM: 1.6,
-        })
-        .expect(201)
-    ).body.post;
-    const ground = (
-      await planner
-        .post('/api/v1/targets')
-        .send({ name: 'Sea surface', kind: 'light', heightM: 0, widthM: 5000, requiredVisibleM: 0, period: 'day' })
-        .expect(201)
-    ).body.target;
-    const mast = (
-      await planner
-        .post('/api/v1/targets')
-        .send({ name: 'Ship 30 m', kind: 'vessel', heightM: 30, widthM: 150, requiredVisibleM: 0, period: 'day' })
-        .expect(201)
-    ).body.target;
+    const post = await created(
+      `/api/v1/sites/${site.id}/posts`,
+      {
+        name: 'Mast',
+        kind: 'shore-post',
+        location: centre,
+        groundElevationM: 0,
+        structureHeightM: eyeM - 1.6,
+        eyeHeightM: 1.6,
+      },
+      'post',
+    );
+    const ground = await created(
+      '/api/v1/targets',
+      { name: 'Sea surface', kind: 'light', heightM: 0, widthM: 5000, requiredVisibleM: 0, period: 'day' },
+      'target',
+    );
+    const mast = await created(
+      '/api/v1/targets',
+      { name: 'Ship 30 m', kind: 'vessel', heightM: 30, widthM: 150, requiredVisibleM: 0, period: 'day' },
+      'target',
+    );
     const k = 0.13;
-    const set = (
-      await planner
-        .post('/api/v1/conditions')
-        .send({ name: 'Plain k', conditions: [{ k }] })
-        .expect(201)
-    ).body.conditionSet;
-    const plan = (
-      await planner
-        .post('/api/v1/plans')
-        .send({
-          siteId: site.id,
-          title: 'Flat sea',
-          postIds: [post.id],
-          targetIds: [ground.id, mast.id],
-          conditionSetIds: [set.id],
-        })
-        .expect(201)
-    ).body.plan;
+    const set = await created('/api/v1/conditions', { name: 'Plain k', conditions: [{ k }] }, 'conditionSet');
+    const plan = await created(
+      '/api/v1/plans',
+      {
+        siteId: site.id,
+        title: 'Flat sea',
+        postIds: [post.id],
+        targetIds: [ground.id, mast.id],
+        conditionSetIds: [set.id],
+      },
+      'plan',
+    );
     const worker = await startWorker();
     try {
       const runId = (await planner.post(`/api/v1/plans/${plan.id}/coverage`).send({}).expect(202)).body.run.id;

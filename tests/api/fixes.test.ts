@@ -48,6 +48,14 @@ const towerBearing = (name: string, extra: Record<string, unknown> = {}) => ({
   bearingSigmaDeg: 0.5,
   ...extra,
 });
+/** A tower's bearing to the smoke as read on a magnetic compass. */
+const magneticBearing = (name: string, declinationDeg: number, extra: Record<string, unknown> = {}) =>
+  towerBearing(name, {
+    bearingReference: 'magnetic',
+    ...extra,
+    // Common practice (NOAA's convention, from memory): magnetic = true − declination (east positive).
+    bearingDeg: (azimuthDeg(posts[name]!.at, smoke()) - declinationDeg + 360) % 360,
+  });
 const observedAt = '2026-07-14T13:20:00+02:00';
 
 describe('POST /api/v1/fixes', () => {
@@ -85,12 +93,7 @@ describe('POST /api/v1/fixes', () => {
         observedAt,
         bearings: [
           towerBearing('Crane Knoll Tower'),
-          towerBearing('Blackmoss Tower', {
-            bearingReference: 'magnetic',
-            declinationDeg,
-            // Common practice (NOAA's convention, from memory): magnetic = true − declination (east positive).
-            bearingDeg: (azimuthDeg(posts['Blackmoss Tower']!.at, smoke()) - declinationDeg + 360) % 360,
-          }),
+          magneticBearing('Blackmoss Tower', declinationDeg, { declinationDeg }),
           {
             observer: { ...lookout, eyeHeightM: 1.7 },
             bearingDeg: azimuthDeg(lookout, smoke()),
@@ -121,13 +124,7 @@ describe('POST /api/v1/fixes', () => {
       .post('/api/v1/fixes')
       .send({
         observedAt,
-        bearings: [
-          towerBearing('Crane Knoll Tower'),
-          towerBearing('Blackmoss Tower', {
-            bearingReference: 'magnetic',
-            bearingDeg: (azimuthDeg(at, smoke()) - declinationDeg + 360) % 360,
-          }),
-        ],
+        bearings: [towerBearing('Crane Knoll Tower'), magneticBearing('Blackmoss Tower', declinationDeg)],
       })
       .expect(200);
     const body = FixResultSchema.parse(res.body);

@@ -24,6 +24,19 @@ beforeAll(async () => {
 });
 afterAll(() => close());
 
+/** A smoke report from Crane Knoll placed 1200 m on 40° from a landmark. */
+const reportOffFrom = (landmarkId: string, idempotencyKey: string) => ({
+  postId: craneKnoll,
+  observedAt: new Date(Date.now() - 60_000).toISOString(),
+  bearingDeg: 150,
+  bearingReference: 'true',
+  bearingSigmaDeg: 0.5,
+  landmarkOffset: { landmarkId, distanceM: 1200, bearingDeg: 40 },
+  kind: 'smoke',
+  note: '',
+  idempotencyKey,
+});
+
 describe('/api/v1/sites/:siteId/landmarks', () => {
   it('lists the demo landmarks to every role, by name', async () => {
     const reviewer = await signedInAgent(app, DEMO.reviewer);
@@ -84,17 +97,7 @@ describe('a report giving the position from a landmark', () => {
     const opened = await observer.post('/api/v1/incidents').send({ siteId, title: 'Smoke near the fire hut (test)' }).expect(201);
     const res = await observer
       .post(`/api/v1/incidents/${opened.body.incident.id}/reports`)
-      .send({
-        postId: craneKnoll,
-        observedAt: new Date(Date.now() - 60_000).toISOString(),
-        bearingDeg: 150,
-        bearingReference: 'true',
-        bearingSigmaDeg: 0.5,
-        landmarkOffset: { landmarkId: hut.id, distanceM: 1200, bearingDeg: 40 },
-        kind: 'smoke',
-        note: '',
-        idempotencyKey: `landmark-${Date.now()}`,
-      })
+      .send(reportOffFrom(hut.id, `landmark-${Date.now()}`))
       .expect(201);
     const body = IncidentReportResultSchema.parse(res.body);
     // Source: Karney (2013) direct problem, as geographiclib-geodesic computes it independently here.
@@ -111,17 +114,7 @@ describe('a report giving the position from a landmark', () => {
     const opened = await observer.post('/api/v1/incidents').send({ siteId, title: 'Unknown landmark (test)' }).expect(201);
     const res = await observer
       .post(`/api/v1/incidents/${opened.body.incident.id}/reports`)
-      .send({
-        postId: craneKnoll,
-        observedAt: new Date(Date.now() - 60_000).toISOString(),
-        bearingDeg: 150,
-        bearingReference: 'true',
-        bearingSigmaDeg: 0.5,
-        landmarkOffset: { landmarkId: '00000000-0000-4000-8000-000000000000', distanceM: 1200, bearingDeg: 40 },
-        kind: 'smoke',
-        note: '',
-        idempotencyKey: `landmark-missing-${Date.now()}`,
-      })
+      .send(reportOffFrom('00000000-0000-4000-8000-000000000000', `landmark-missing-${Date.now()}`))
       .expect(404);
     expect(JSON.stringify(res.body)).toMatch(/landmarkOffset\.landmarkId/);
   });

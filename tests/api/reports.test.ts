@@ -7,6 +7,7 @@ import { CrewCardSchema } from '@/shared/schemas/crew-card';
 import { PlanHistorySchema, PlanRevisionSchema, type Plan } from '@/shared/schemas/plan';
 import { createTestApp } from '@/tests/support/test-db';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
+import { retitleFirstRevision } from '@/tests/support/tamper-revision';
 
 // The printed plan package and crew cards (PDF, pdfkit on the server), parsed back
 // with poppler-utils' pdftotext and pdfinfo. Set KENNING_REPORTS_OUT=dir to keep the
@@ -257,11 +258,7 @@ describe('GET /sites/:siteId/posts/:postId/card(.pdf)', () => {
 describe('a revision changed after it was frozen', () => {
   it('is withheld, not printed', async () => {
     const approved = await planTitled(reviewer, 'Fire season cover 2026');
-    await ctx.db.query(`
-      ALTER TABLE plan_revisions DISABLE TRIGGER plan_revisions_frozen;
-      UPDATE plan_revisions SET snapshot = jsonb_set(snapshot, '{title}', '"A quietly different plan"')
-        WHERE plan_id = '${approved.id}' AND number = 1;
-      ALTER TABLE plan_revisions ENABLE TRIGGER plan_revisions_frozen;`);
+    await retitleFirstRevision(ctx.db, approved.id);
     const errors = jest.spyOn(console, 'error').mockImplementation(() => {});
     try {
       const res = await reviewer.get(`/api/v1/plans/${approved.id}/revisions/1/report.pdf`);

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { createTestApp } from '@/tests/support/test-db';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
+import { retitleFirstRevision } from '@/tests/support/tamper-revision';
 
 // A frozen revision is re-verified against its recorded sha256 each time it is
 // read; one changed behind the trigger's back (here by the owner, who may disable
@@ -22,11 +23,7 @@ it('serves a revision whose content matches its hash, and withholds it once chan
   // Stored as JSONB and read back, the snapshot still hashes to what was recorded.
   expect(first.status).toBe(200);
 
-  await ctx.db.query(`
-    ALTER TABLE plan_revisions DISABLE TRIGGER plan_revisions_frozen;
-    UPDATE plan_revisions SET snapshot = jsonb_set(snapshot, '{title}', '"A quietly different plan"')
-      WHERE plan_id = '${planId}' AND number = 1;
-    ALTER TABLE plan_revisions ENABLE TRIGGER plan_revisions_frozen;`);
+  await retitleFirstRevision(ctx.db, planId);
 
   const errors = jest.spyOn(console, 'error').mockImplementation(() => {});
   try {

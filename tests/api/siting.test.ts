@@ -1,36 +1,25 @@
-import { rm } from 'node:fs/promises';
 import type { Express } from 'express';
-import { Op, type Sequelize } from 'sequelize';
+import { Op } from 'sequelize';
 import type request from 'supertest';
 import { CoverageRunSchema, type CoverageRun } from '@/shared/schemas/coverage';
 import { SitingRunSchema, type SitingRun } from '@/shared/schemas/siting';
 import { fromUtm } from '@/shared/geo/from-utm';
 import { toUtm } from '@/shared/geo/to-utm';
-import { createApp } from '@/server/app';
 import { ConditionSetModel, PlanModel, PostModel, SiteModel, TargetProfileModel } from '@/server/data/models';
 import { sitingRepository } from '@/server/data/repositories/siting-repository';
-import type { ComputeViewsheds } from '@/server/domain/coverage/compute-coverage';
 import { poolViewsheds, processCoverageRun } from '@/server/domain/coverage/process-coverage-run';
 import { processSitingRun } from '@/server/domain/siting/process-siting-run';
 import { reapStaleSitingRuns, SITING_JOB_LOST, SITING_WORKER_STOPPED } from '@/server/domain/siting/reap-stale-siting-runs';
-import { startCoverageBoss, workCoverageQueue, workSitingQueue, type CoverageBoss } from '@/server/queue/coverage-queue';
-import { createTerrainCache, type TerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
+import { startCoverageBoss, workCoverageQueue, workSitingQueue } from '@/server/queue/coverage-queue';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import { gatedViewsheds, holdingGate, openQueueTestbed, type QueueTestbed } from '@/tests/support/queue-testbed';
 
 /*
  * Siting runs through the real job queue (pg-boss on the test database) and a
  * worker in this process that takes both siting and coverage jobs.
  */
 
-let db: Sequelize;
-let url: string;
-let drop: () => Promise<void>;
-let filesDir: string;
-let cache: TerrainCache;
-let pool: ViewshedPool;
-let boss: CoverageBoss;
+let bed: QueueTestbed;
 let app: Express;
 let planner: request.Agent;
 
@@ -41,14 +30,11 @@ const utm33 = (easting: number, northing: number) => {
 };
 
 async function startWorker(options: { gate?: () => Promise<void> } = {}) {
-  const worker = await startCoverageBoss(url, { supervise: false });
-  const viewsheds = poolViewsheds(pool);
-  const computeViewsheds: ComputeViewsheds = async (terrain, jobs, onDone) => {
-    await options.gate?.();
-    return viewsheds(terrain, jobs, onDone);
-  };
+  const worker = await startCoverageBoss(bed.url, { supervise: false });
+  const viewsheds = poolViewsheds(bed.pool);
+  const computeViewsheds = gatedViewsheds(bed.pool, options.gate);
   const outcomes: string[] = [];
-  const deps = { db, cache, computeViewsheds, progressEveryMs: 0 };
+  const deps = { db: bed.db, cache: bed.cache, computeViewsheds, progressEveryMs: 0 };
   await workSitingQueue(worker.boss, async (runId) => {
     outcomes.push(await processSitingRun(deps, runId));
   });
@@ -86,21 +72,8 @@ const fourCandidates = () => [
 ];
 
 beforeAll(async () => {
-  ({ db, url, drop } = await createTestDatabase());
-  const store = scratchFileStore();
-  filesDir = store.filesDir;
-  cache = createTerrainCache({ files: store.files, maxBytes: 2 ** 28 });
-  pool = createViewshedPool({ size: 1 });
-  boss = await startCoverageBoss(url);
-  app = createApp({
-    db,
-    config: TEST_CONFIG,
-    files: store.files,
-    terrainCache: cache,
-    coverageQueue: boss.queue,
-    sitingQueue: boss.sitingQueue,
-  });
-  planner = await signedInAgent(app, DEMO.planner);
+  bed = await openQueueTestbed({ sitingQueue: true });
+  ({ app, planner } = bed);
   const forest = await SiteModel.findOne({ where: { name: 'Harrowmere Forest District' } });
   forestId = forest!.id;
   const posts = await PostModel.findAll({ where: { siteId: forestId } });
@@ -113,12 +86,7 @@ beforeAll(async () => {
     where: { name: 'Refraction spread', organizationId: forest!.organizationId },
   }))!.id;
 });
-afterAll(async () => {
-  await boss.stop();
-  await pool.close();
-  await drop();
-  await rm(filesDir, { recursive: true, force: true });
-});
+afterAll(() => bed.close());
 
 const request1 = () => ({
   candidates: fourCandidates(),
@@ -197,16 +165,8 @@ describe('siting runs', () => {
   });
 
   it('a run cancelled while it computes keeps nothing', async () => {
-    let release!: () => void;
-    const held = new Promise<void>((r) => (release = r));
-    let entered!: () => void;
-    const inside = new Promise<void>((r) => (entered = r));
-    const worker = await startWorker({
-      gate: async () => {
-        entered();
-        await held;
-      },
-    });
+    const { gate, inside, release } = holdingGate();
+    const worker = await startWorker({ gate });
     try {
       const runId: string = (await planner.post(`/api/v1/sites/${forestId}/siting-runs`).send(request1()).expect(202)).body.run
         .id;
@@ -351,20 +311,20 @@ describe('siting runs', () => {
     const [dead, lost, waiting] = [await ask(), await ask(), await ask()];
     const jobOf = async (id: string) => (await sitingRepository.findById(id))!.jobId!;
     // `dead`: taken by a worker that then went silent a minute ago.
-    await db.query(
+    await bed.db.query(
       `UPDATE siting_runs SET status = 'running', heartbeat_at = now() - interval '1 minute', updated_at = now() - interval '1 minute'
         WHERE id = :id`,
       { replacements: { id: dead.id } },
     );
     // `lost`: its job gone from the queue (cancelled there) a minute ago; `waiting`: as old, job still waiting.
-    await boss.sitingQueue.cancel(await jobOf(lost.id));
-    await db.query(
+    await bed.boss.sitingQueue.cancel(await jobOf(lost.id));
+    await bed.db.query(
       `UPDATE siting_runs SET heartbeat_at = now() - interval '1 minute', updated_at = now() - interval '1 minute' WHERE id IN (:ids)`,
       {
         replacements: { ids: [lost.id, waiting.id] },
       },
     );
-    const reaped = await reapStaleSitingRuns(db, { staleAfterS: 30 });
+    const reaped = await reapStaleSitingRuns(bed.db, { staleAfterS: 30 });
     expect(reaped.failed.sort()).toEqual([dead.id, lost.id].sort());
     const deadNow = await sitingRun(planner, dead.id, () => true);
     expect(deadNow).toMatchObject({ status: 'failed', error: SITING_WORKER_STOPPED, steps: [], chosen: [] });
@@ -372,30 +332,30 @@ describe('siting runs', () => {
     expect(await sitingRun(planner, lost.id, () => true)).toMatchObject({ status: 'failed', error: SITING_JOB_LOST });
     expect((await sitingRun(planner, waiting.id, () => true)).status).toBe('queued');
     // Reaping again changes nothing (the runs have ended; two reapers never both act).
-    expect((await reapStaleSitingRuns(db, { staleAfterS: 30 })).failed).toEqual([]);
+    expect((await reapStaleSitingRuns(bed.db, { staleAfterS: 30 })).failed).toEqual([]);
 
     // An ended run is frozen by the database: its inputs, status and result cannot change, nor can it be
     // removed; only the draft plan made from it may be recorded (common practice, no source: as coverage runs).
     await expect(
-      db.query(`UPDATE siting_runs SET inputs = '{}' WHERE id = :id`, { replacements: { id: dead.id } }),
+      bed.db.query(`UPDATE siting_runs SET inputs = '{}' WHERE id = :id`, { replacements: { id: dead.id } }),
     ).rejects.toThrow(/has ended \(failed\) and cannot change/);
     await expect(
-      db.query(`UPDATE siting_runs SET status = 'queued' WHERE id = :id`, { replacements: { id: dead.id } }),
+      bed.db.query(`UPDATE siting_runs SET status = 'queued' WHERE id = :id`, { replacements: { id: dead.id } }),
     ).rejects.toThrow(/cannot change/);
-    await expect(db.query(`DELETE FROM siting_runs WHERE id = :id`, { replacements: { id: dead.id } })).rejects.toThrow(
+    await expect(bed.db.query(`DELETE FROM siting_runs WHERE id = :id`, { replacements: { id: dead.id } })).rejects.toThrow(
       /cannot change/,
     );
     const planId = (await PlanModel.findOne({ where: { siteId: forestId } }))!.id;
-    await db.query(`UPDATE siting_runs SET plan_id = :planId, updated_at = now() WHERE id = :id`, {
+    await bed.db.query(`UPDATE siting_runs SET plan_id = :planId, updated_at = now() WHERE id = :id`, {
       replacements: { id: dead.id, planId },
     });
     const otherPlan = (await PlanModel.findOne({ where: { siteId: forestId, id: { [Op.ne]: planId } } }))!.id;
     await expect(
-      db.query(`UPDATE siting_runs SET plan_id = :otherPlan WHERE id = :id`, { replacements: { id: dead.id, otherPlan } }),
+      bed.db.query(`UPDATE siting_runs SET plan_id = :otherPlan WHERE id = :id`, { replacements: { id: dead.id, otherPlan } }),
     ).rejects.toThrow(/cannot change/);
 
     // Withdraw the waiting run (and its job), so no later worker takes it.
     await planner.post(`/api/v1/siting-runs/${waiting.id}/cancel`).expect(200);
-    await boss.sitingQueue.cancel(await jobOf(dead.id));
+    await bed.boss.sitingQueue.cancel(await jobOf(dead.id));
   });
 });

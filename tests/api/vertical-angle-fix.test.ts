@@ -35,27 +35,27 @@ afterAll(() => close());
 
 const observedAt = () => new Date(Date.now() - 60_000).toISOString();
 
+/** Asks for a fix from these bearings, observed a minute ago, as the demo observer; expects `status`. */
+const askFix = async (bearings: unknown[], status: number) =>
+  (await signedInAgent(app, DEMO.observer)).post('/api/v1/fixes').send({ observedAt: observedAt(), bearings }).expect(status);
+
 describe('POST /api/v1/fixes with one bearing and a vertical angle', () => {
   it('over a smooth earth (a typed position, no terrain) inverts Bowditch’s dip short of the horizon, and says so', async () => {
-    const observer = await signedInAgent(app, DEMO.observer);
     // Source: N. Bowditch, The American Practical Navigator (NGA Pub. 9), Table 14, Ds = 60·tan⁻¹(h/(6076.1 d) + d/8268):
     // 60 ft eye, waterline at 2 NM → Ds ≈ 7.33′ (the table is built for k = 0.168; the API uses k = 0.13, hence 1.5 %).
     const dsArcmin = 60 * (Math.atan(60 / (6076.1 * 2) + 2 / 8268) / RAD);
-    const res = await observer
-      .post('/api/v1/fixes')
-      .send({
-        observedAt: observedAt(),
-        bearings: [
-          {
-            observer: { latDeg: 54.1, lonDeg: 10.9, eyeHeightM: 60 * 0.3048 },
-            bearingDeg: 300,
-            bearingReference: 'true',
-            bearingSigmaDeg: 0.5,
-            verticalAngleDeg: -dsArcmin / 60,
-          },
-        ],
-      })
-      .expect(200);
+    const res = await askFix(
+      [
+        {
+          observer: { latDeg: 54.1, lonDeg: 10.9, eyeHeightM: 60 * 0.3048 },
+          bearingDeg: 300,
+          bearingReference: 'true',
+          bearingSigmaDeg: 0.5,
+          verticalAngleDeg: -dsArcmin / 60,
+        },
+      ],
+      200,
+    );
     const body = FixResultSchema.parse(res.body);
     expect(body.fix.method).toBe('vertical-angle');
     expect(body.fix.range!.basis).toBe('smooth-earth');
@@ -68,23 +68,19 @@ describe('POST /api/v1/fixes with one bearing and a vertical angle', () => {
   });
 
   it('from a demo tower meets the demo terrain on the bearing, inside its range interval', async () => {
-    const observer = await signedInAgent(app, DEMO.observer);
-    const res = await observer
-      .post('/api/v1/fixes')
-      .send({
-        observedAt: observedAt(),
-        bearings: [
-          {
-            postId: posts['Crane Knoll Tower']!.id,
-            bearingDeg: 140,
-            bearingReference: 'true',
-            bearingSigmaDeg: 0.5,
-            verticalAngleDeg: -1.5,
-            verticalAngleSigmaDeg: 0.2,
-          },
-        ],
-      })
-      .expect(200);
+    const res = await askFix(
+      [
+        {
+          postId: posts['Crane Knoll Tower']!.id,
+          bearingDeg: 140,
+          bearingReference: 'true',
+          bearingSigmaDeg: 0.5,
+          verticalAngleDeg: -1.5,
+          verticalAngleSigmaDeg: 0.2,
+        },
+      ],
+      200,
+    );
     const { fix } = FixResultSchema.parse(res.body);
     expect(fix.range!.basis).toBe('terrain');
     expect(fix.range!.verticalAngleSigmaDeg).toBe(0.2);
@@ -98,34 +94,26 @@ describe('POST /api/v1/fixes with one bearing and a vertical angle', () => {
   });
 
   it('one bearing without a vertical angle is still refused, naming the field', async () => {
-    const observer = await signedInAgent(app, DEMO.observer);
-    const res = await observer
-      .post('/api/v1/fixes')
-      .send({
-        observedAt: observedAt(),
-        bearings: [{ postId: posts['Crane Knoll Tower']!.id, bearingDeg: 140, bearingReference: 'true', bearingSigmaDeg: 0.5 }],
-      })
-      .expect(400);
+    const res = await askFix(
+      [{ postId: posts['Crane Knoll Tower']!.id, bearingDeg: 140, bearingReference: 'true', bearingSigmaDeg: 0.5 }],
+      400,
+    );
     expect(JSON.stringify(res.body)).toMatch(/at least two bearings, or one with a vertical angle/);
   });
 
   it('a sight above the horizon over a smooth earth is a 422 under the bearing', async () => {
-    const observer = await signedInAgent(app, DEMO.observer);
-    const res = await observer
-      .post('/api/v1/fixes')
-      .send({
-        observedAt: observedAt(),
-        bearings: [
-          {
-            observer: { latDeg: 54.1, lonDeg: 10.9, eyeHeightM: 20 },
-            bearingDeg: 10,
-            bearingReference: 'true',
-            bearingSigmaDeg: 1,
-            verticalAngleDeg: 0.3,
-          },
-        ],
-      })
-      .expect(422);
+    const res = await askFix(
+      [
+        {
+          observer: { latDeg: 54.1, lonDeg: 10.9, eyeHeightM: 20 },
+          bearingDeg: 10,
+          bearingReference: 'true',
+          bearingSigmaDeg: 1,
+          verticalAngleDeg: 0.3,
+        },
+      ],
+      422,
+    );
     expect(JSON.stringify(res.body)).toMatch(/no fix/);
   });
 });

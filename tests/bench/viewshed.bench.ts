@@ -216,25 +216,28 @@ export async function benchViewshed(): Promise<BenchRow[]> {
         const x = terrain.xll + (post.col + 0.5) * terrain.cellSize;
         const y = terrain.yll + (size - post.row - 0.5) * terrain.cellSize;
         const gdalOut = path.join(dir, `gdal-${size}.tif`);
-        const gdal = timed(() => {
-          execFileSync('gdal_viewshed', [
-            '-q',
-            '-om',
-            'GROUND',
-            '-oz',
-            String(EYE),
-            '-tz',
-            '0',
-            '-cc',
-            String(1 - K),
-            '-ox',
-            String(x),
-            '-oy',
-            String(y),
-            input,
-            gdalOut,
-          ]);
-        }, runs);
+        // The same question as the engine's: ground seen from the eye at (x, y), target at 0 m, curvature coefficient 1 − k.
+        const gdalArgs = [
+          '-q',
+          '-om',
+          'GROUND',
+          '-oz',
+          String(EYE),
+          '-tz',
+          '0',
+          '-cc',
+          String(1 - K),
+          '-ox',
+          String(x),
+          '-oy',
+          String(y),
+          input,
+          gdalOut,
+        ];
+        const runGdal = () => {
+          execFileSync('gdal_viewshed', gdalArgs);
+        };
+        const gdal = timed(runGdal, runs);
         push({ name: `gdal_viewshed -om GROUND (whole process), ${size}²`, value: gdal, unit: 'ms' });
         push({
           name: `ratio engine core / gdal_viewshed, ${size}²`,
@@ -263,17 +266,7 @@ export async function benchViewshed(): Promise<BenchRow[]> {
               ours[threads].push(performance.now() - t0);
             }
             const t0 = performance.now();
-            execFileSync(
-              'gdal_viewshed',
-              ['-q', '-om', 'GROUND', '-oz', String(EYE), '-tz', '0', '-cc', String(1 - K)].concat([
-                '-ox',
-                String(x),
-                '-oy',
-                String(y),
-                input,
-                gdalOut,
-              ]),
-            );
+            runGdal();
             theirs.push(performance.now() - t0);
           }
           for (const threads of [1, 2] as const) {

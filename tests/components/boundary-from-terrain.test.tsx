@@ -4,6 +4,7 @@ import { createQueryClient } from '@/components/data/query-client';
 import { TerrainPanel } from '@/components/sites/terrain-panel';
 import type { Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
+import { fakeApi } from '@/tests/support/fake-api';
 
 const SITE_ID = '7d3f7d6e-2f0a-4c55-9b1e-0d6f1f3d9a01';
 const TERRAIN_ID = '2c1b5a4e-8d7f-4e3a-9c2b-1a0f9e8d7c6b';
@@ -68,21 +69,6 @@ const ring: [number, number][] = [
   [-10.0836002, 51.6393684],
   [-10.0826434, 51.5991834],
 ];
-
-/** A fake API answering per "METHOD path" (the last answer repeats), recording the bodies sent. */
-function fakeApi(answers: Record<string, { status?: number; body: unknown }[]>) {
-  const sent: { key: string; body: unknown }[] = [];
-  globalThis.fetch = jest.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
-    const key = `${init?.method ?? 'GET'} ${String(input)}`;
-    sent.push({ key, body: typeof init?.body === 'string' ? JSON.parse(init.body) : undefined });
-    const list = answers[key];
-    if (!list?.length) throw new Error(`No fake answer for ${key}`);
-    const answer = list.length > 1 ? list.shift()! : list[0]!;
-    const status = answer.status ?? 200;
-    return { ok: status < 300, status, json: async () => answer.body } as Response;
-  }) as typeof fetch;
-  return sent;
-}
 
 const clients: ReturnType<typeof createQueryClient>[] = [];
 const renderPanel = (canUpload: boolean) => {

@@ -5,25 +5,10 @@ import { CoverageFigures } from '@/components/plans/coverage-figures';
 import { PlanCoveragePanel } from '@/components/plans/plan-coverage-panel';
 import type { CoverageRun } from '@/shared/schemas/coverage';
 import { IDS, sampleRun } from '@/tests/support/coverage-samples';
+import { fakeApi } from '@/tests/support/fake-api';
 
 const mockNavigate = jest.fn();
 jest.mock('expo-router', () => ({ useRouter: () => ({ navigate: mockNavigate, setParams: jest.fn() }) }));
-
-/** A fake API: answers per "METHOD path", in order when a list is given (the last answer repeats). */
-function fakeApi(answers: Record<string, { status?: number; body: unknown }[]>) {
-  const calls: string[] = [];
-  // jsdom has no fetch of its own: the app's API client finds this one.
-  globalThis.fetch = jest.fn(async (input: RequestInfo | URL, init?: RequestInit) => {
-    const key = `${init?.method ?? 'GET'} ${String(input)}`;
-    calls.push(key);
-    const list = answers[key];
-    if (!list?.length) throw new Error(`No fake answer for ${key}`);
-    const answer = list.length > 1 ? list.shift()! : list[0]!;
-    const status = answer.status ?? 200;
-    return { ok: status < 300, status, json: async () => answer.body } as Response;
-  }) as typeof fetch;
-  return calls;
-}
 
 /** Query clients made by a test, cleared after it so no garbage-collection timer outlives the test file. */
 const clients: ReturnType<typeof createQueryClient>[] = [];
@@ -68,7 +53,7 @@ describe('PlanCoveragePanel (editable plan)', () => {
 
     // Done: the poll stops, the plan's coverage is asked again, the figures show.
     await screen.findByText('Does not meet the standard', undefined, { timeout: 5000 });
-    expect(calls.filter((c) => c === `GET ${coveragePath}`).length).toBeGreaterThanOrEqual(3);
+    expect(calls.filter((c) => c.key === `GET ${coveragePath}`).length).toBeGreaterThanOrEqual(3);
     const rules = within(screen.getByRole('list', { name: 'Rules of the standard' })).getAllByRole('listitem');
     expect(rules[0]!.textContent).toContain('North block seen by 2 posts or more — 30.0 % now, 70.0 points short (0.70 km²)');
     expect(rules[1]!.textContent).toContain('At least 70 % of the site seen by 1 post or more');

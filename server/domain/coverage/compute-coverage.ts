@@ -1,3 +1,4 @@
+// Over 300 lines: one coverage run from inputs to stored layers; the case loop shares terrain, tide, sea mask and progress with its helpers.
 import { createHash } from 'node:crypto';
 import type { CoverageCase, CoverageLayerName } from '@/shared/schemas/coverage';
 import { encodeClassRaster } from '@/shared/terrain/encode-class-raster';

@@ -18,6 +18,7 @@ import { cancelActiveRun } from './cancel-active-run';
 import { ringOnGrid } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
 import { currentCoverageInputs } from './coverage-snapshot';
+import { enqueueRun, runStateOf } from './queued-runs';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 import { isEditablePlanStatus } from '@/shared/plans/editable-plan-statuses';
 
@@ -36,14 +37,7 @@ export function toCoverageRun(run: CoverageRunRecord, currentHash: string | null
     terrainId: run.terrainId,
     datum: run.datum,
     inputsHash: run.inputsHash,
-    status: run.status,
-    progress: run.progress,
-    stage: run.stage,
-    error: run.error,
-    requestedBy: run.requestedBy,
-    createdAt: run.createdAt,
-    startedAt: run.startedAt,
-    finishedAt: run.finishedAt,
+    ...runStateOf(run),
     current: currentHash === run.inputsHash,
     grid: run.grid,
     cases: run.cases,
@@ -139,17 +133,7 @@ export async function requestCoverage(
     })
     .catch(orRunThatWonTheRace(planId, inputsHash));
   if ('raced' in run) return { run: toCoverageRun(run, inputsHash), created: false };
-  try {
-    const jobId = await deps.queue.enqueue(run.id);
-    await coverageRepository.updateActive(run.id, { jobId });
-  } catch (error) {
-    await coverageRepository.updateActive(run.id, {
-      status: 'failed',
-      error: 'The job queue could not take the run. Try again.',
-      finishedAt: new Date(),
-    });
-    throw error;
-  }
+  await enqueueRun(deps.queue, run.id, (changes) => coverageRepository.updateActive(run.id, changes));
   return { run: toCoverageRun((await coverageRepository.findById(run.id))!, inputsHash), created: true };
 }
 

@@ -8,6 +8,7 @@ import type { TerrainCache } from '@/server/domain/ports/terrain-cache';
 import type { ViewshedPool } from '@/server/domain/ports/viewshed-pool';
 import { computeCoverage, flatTerrain, type ComputeViewsheds } from './compute-coverage';
 import type { CoverageRunInputs } from './coverage-inputs';
+import { endThrownRun, runProgress } from './queued-runs';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 
 /** What a worker needs to compute runs. */
@@ -38,9 +39,6 @@ async function runRosterOf(organizationId: string, siteId: string, inputs: Cover
       .map((w) => ({ postId: w.postId, start: Date.parse(w.startsAt), end: w.endsAt ? Date.parse(w.endsAt) : null })),
   };
 }
-
-/** Thrown inside a run when its status says it was cancelled. */
-class RunCancelled extends Error {}
 
 /** Hidden-height rasters from the worker-thread pool. */
 export const poolViewsheds =
@@ -78,14 +76,9 @@ export async function processCoverageRun(
   );
   if (!begun) return 'cancelled';
   const inputs = run.inputs as CoverageRunInputs;
-  const every = deps.progressEveryMs ?? 400;
-  let lastWrite = 0;
-  const report = async (progress: number, stage: string) => {
-    const now = performance.now();
-    if (now - lastWrite < every && progress < 0.99) return;
-    lastWrite = now;
-    if (!(await coverageRepository.updateActive(runId, { progress, stage }, undefined, attempt))) throw new RunCancelled();
-  };
+  const report = runProgress(deps.progressEveryMs ?? 400, (changes) =>
+    coverageRepository.updateActive(runId, changes, undefined, attempt),
+  );
   try {
     let terrain;
     if (run.terrainId) {
@@ -110,18 +103,8 @@ export async function processCoverageRun(
     });
     return written ? 'done' : 'cancelled';
   } catch (error) {
-    if (error instanceof RunCancelled) return 'cancelled';
-    const reason =
-      error instanceof TerrainInputError
-        ? error.message
-        : 'The computation failed on the server. Try again; if it fails again, tell your administrator.';
-    if (!(error instanceof TerrainInputError)) console.error(`[kenning] coverage run ${runId} failed:`, error);
-    const marked = await coverageRepository.updateActive(
-      runId,
-      { status: 'failed', stage: 'Failed', error: reason, finishedAt: new Date() },
-      undefined,
-      attempt,
+    return endThrownRun('coverage', runId, error, (changes) =>
+      coverageRepository.updateActive(runId, changes, undefined, attempt),
     );
-    return marked ? 'failed' : 'cancelled';
   }
 }

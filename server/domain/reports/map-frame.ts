@@ -5,6 +5,8 @@
  * metres (the terrain's projected CRS); paper in points (1/72 in).
  */
 
+import { boundsOfPoints } from '@/shared/terrain/bounds-of-points';
+
 /** Metres of paper in one point. */
 export const METRES_PER_POINT = 0.0254 / 72;
 
@@ -33,17 +35,9 @@ export interface MapFrame {
 
 /** The extent of points, grown by `padShare` of its size on each side (at least `minSizeM` across). */
 export function extentOf(points: readonly { x: number; y: number }[], padShare = 0.06, minSizeM = 1000): Extent {
-  if (points.length === 0) throw new Error('extentOf needs at least one point');
-  let west = Infinity;
-  let south = Infinity;
-  let east = -Infinity;
-  let north = -Infinity;
-  for (const p of points) {
-    west = Math.min(west, p.x);
-    east = Math.max(east, p.x);
-    south = Math.min(south, p.y);
-    north = Math.max(north, p.y);
-  }
+  const bounds = boundsOfPoints(points);
+  if (!bounds) throw new Error('extentOf needs at least one point');
+  const { west, south, east, north } = bounds;
   const cx = (west + east) / 2;
   const cy = (south + north) / 2;
   const w = Math.max(east - west, minSizeM) * (1 + 2 * padShare);

@@ -9,6 +9,7 @@ import { type Extent, extentOf, fitFrame } from './map-frame';
 import { CROSS_BEARING_PRINT, POSTS_PER_CELL_PRINT } from './map-picture';
 import type { PlanPackageData } from './plan-package-data';
 import {
+  type Column,
   type ReportDocument,
   INK,
   MUTED,
@@ -466,16 +467,19 @@ function verdictSection(r: ReportDocument, data: PlanPackageData) {
   }
 }
 
-function resultsTable(r: ReportDocument, results: PlanResultRow[]) {
-  heading(r, 'Ranges per post, target and condition (smooth earth)');
-  paragraph(
-    r,
-    'Height of eye above the result’s datum. Horizon: the eye’s horizon distance. Geographic: eye’s horizon plus the target top’s. Detection: the least of the geographic range and the visibility, angular-size, luminous-range and sea-state limits; “limited by” names it.',
-    { size: 8, color: MUTED },
-  );
+/** A section that is one table, under its title and a small note on how to read it. */
+function explainedTable(r: ReportDocument, title: string, note: string, columns: Column[], rows: string[][]) {
+  heading(r, title);
+  paragraph(r, note, { size: 8, color: MUTED });
   r.doc.moveDown(0.2);
-  table(
+  table(r, columns, rows);
+}
+
+function resultsTable(r: ReportDocument, results: PlanResultRow[]) {
+  explainedTable(
     r,
+    'Ranges per post, target and condition (smooth earth)',
+    'Height of eye above the result’s datum. Horizon: the eye’s horizon distance. Geographic: eye’s horizon plus the target top’s. Detection: the least of the geographic range and the visibility, angular-size, luminous-range and sea-state limits; “limited by” names it.',
     [
       { title: 'Post', weight: 1.5 },
       { title: 'Target', weight: 1.5 },
@@ -520,15 +524,10 @@ function sensitivitySection(r: ReportDocument, results: PlanResultRow[]) {
     ]);
   }
   if (rows.length === 0) return;
-  heading(r, 'Refraction sensitivity band');
-  paragraph(
+  explainedTable(
     r,
+    'Refraction sensitivity band',
     'The same question asked again over k from 0 to 0.3 and the set’s own conditions (ducts left out): how far the detection range and the geographic range move with refraction alone.',
-    { size: 8, color: MUTED },
-  );
-  r.doc.moveDown(0.2);
-  table(
-    r,
     [
       { title: 'Post', weight: 1.4 },
       { title: 'Target', weight: 1.4 },

@@ -17,6 +17,7 @@ import type { CoverageQueue } from '@/server/domain/ports/coverage-queue';
 import type { UseCaseDeps } from '@/server/domain/use-case-deps';
 import type { Actor } from '../actor';
 import { cancelActiveRun } from '../coverage/cancel-active-run';
+import { enqueueRun, runStateOf } from '../coverage/queued-runs';
 import { buildCoverageInputs } from '../coverage/coverage-inputs';
 import { getSite } from '../sites/manage-sites';
 import type { SitingResult } from './compute-siting';
@@ -49,14 +50,7 @@ export function toSitingRun(run: SitingRunRecord): SitingRun {
   return {
     id: run.id,
     siteId: run.siteId,
-    status: run.status,
-    progress: run.progress,
-    stage: run.stage,
-    error: run.error,
-    requestedBy: run.requestedBy,
-    createdAt: run.createdAt,
-    startedAt: run.startedAt,
-    finishedAt: run.finishedAt,
+    ...runStateOf(run),
     elapsedS: run.elapsedS,
     inputsHash: run.inputsHash,
     targetId: inputs.targetId,
@@ -247,17 +241,7 @@ export async function requestSiting(deps: SitingDeps, actor: Actor, siteId: stri
     );
     return created;
   });
-  try {
-    const jobId = await deps.queue.enqueue(run.id);
-    await sitingRepository.updateActive(run.id, { jobId });
-  } catch (error) {
-    await sitingRepository.updateActive(run.id, {
-      status: 'failed',
-      error: 'The job queue could not take the run. Try again.',
-      finishedAt: new Date(),
-    });
-    throw error;
-  }
+  await enqueueRun(deps.queue, run.id, (changes) => sitingRepository.updateActive(run.id, changes));
   return toSitingRun((await sitingRepository.findById(run.id))!);
 }
 

@@ -2,11 +2,9 @@ import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 import { sitingRepository } from '@/server/data/repositories/siting-repository';
 import { terrainRepository } from '@/server/data/repositories/terrain-repository';
 import type { CoverageWorkerDeps } from '../coverage/process-coverage-run';
+import { endThrownRun, runProgress } from '../coverage/queued-runs';
 import { computeSiting } from './compute-siting';
 import type { SitingRunInputs } from './siting-inputs';
-
-/** Thrown inside a run when its status says it was cancelled. */
-class RunCancelled extends Error {}
 
 /** Seconds between heartbeats while a run computes (progress writes beat too). */
 const HEARTBEAT_EVERY_S = 5;
@@ -36,14 +34,7 @@ export async function processSitingRun(
   });
   if (!begun) return 'cancelled';
   const inputs = run.inputs as SitingRunInputs;
-  const every = deps.progressEveryMs ?? 400;
-  let lastWrite = 0;
-  const report = async (progress: number, stage: string) => {
-    const now = performance.now();
-    if (now - lastWrite < every && progress < 0.99) return;
-    lastWrite = now;
-    if (!(await sitingRepository.updateActive(runId, { progress, stage }))) throw new RunCancelled();
-  };
+  const report = runProgress(deps.progressEveryMs ?? 400, (changes) => sitingRepository.updateActive(runId, changes));
   const timer = setInterval(() => {
     void sitingRepository.updateActive(runId, {}).catch(() => undefined);
   }, HEARTBEAT_EVERY_S * 1000);
@@ -60,19 +51,7 @@ export async function processSitingRun(
     });
     return written ? 'done' : 'cancelled';
   } catch (error) {
-    if (error instanceof RunCancelled) return 'cancelled';
-    const reason =
-      error instanceof TerrainInputError
-        ? error.message
-        : 'The computation failed on the server. Try again; if it fails again, tell your administrator.';
-    if (!(error instanceof TerrainInputError)) console.error(`[kenning] siting run ${runId} failed:`, error);
-    const marked = await sitingRepository.updateActive(runId, {
-      status: 'failed',
-      stage: 'Failed',
-      error: reason,
-      finishedAt: new Date(),
-    });
-    return marked ? 'failed' : 'cancelled';
+    return await endThrownRun('siting', runId, error, (changes) => sitingRepository.updateActive(runId, changes));
   } finally {
     clearInterval(timer);
   }

@@ -3,17 +3,11 @@
  * class rasters built from simple rules.
  */
 import type { GridSpec as RasterGrid } from '@/shared/terrain/grid-spec';
+import { seededRandom as seededStream } from '@/shared/trainer/seeded-random';
 
-/** Deterministic pseudo-random numbers in [0, 1) (mulberry32, public domain). */
+/** Deterministic pseudo-random numbers in [0, 1) (mulberry32, public domain): the core's seeded stream. */
 export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  return seededStream(seed).next;
 }
 
 /** A grid without a CRS. */

@@ -6,15 +6,18 @@ import { checkImage, ImageCheckError, MAX_IMAGE_SIDE_PX } from '@/server/domain/
 
 const fixture = (name: string) => readFileSync(path.join(__dirname, '../../../fixtures/attachments', name));
 
+/** The whole 64 × 48 fixtures of each format, with their content types (tests/fixtures/attachments/README.md). */
+const WHOLE_FIXTURES = [
+  ['ridge-64x48.png', 'image/png'],
+  ['ridge-64x48.jpg', 'image/jpeg'],
+  ['ridge-64x48-progressive.jpg', 'image/jpeg'],
+  ['ridge-64x48.webp', 'image/webp'],
+  ['ridge-64x48-lossless.webp', 'image/webp'],
+] as const;
+
 describe('checkImage: whole images', () => {
   // Dimensions as GDAL wrote them (tests/fixtures/attachments/README.md; `gdalinfo` "Size is 64, 48").
-  it.each([
-    ['ridge-64x48.png', 'image/png'],
-    ['ridge-64x48.jpg', 'image/jpeg'],
-    ['ridge-64x48-progressive.jpg', 'image/jpeg'],
-    ['ridge-64x48.webp', 'image/webp'],
-    ['ridge-64x48-lossless.webp', 'image/webp'],
-  ] as const)('%s is whole and 64 × 48', (name, type) => {
+  it.each(WHOLE_FIXTURES)('%s is whole and 64 × 48', (name, type) => {
     expect(checkImage(fixture(name), type)).toEqual({ widthPx: 64, heightPx: 48 });
   });
 
@@ -36,16 +39,10 @@ describe('checkImage: whole images', () => {
 
 describe('checkImage: cut or damaged images are refused', () => {
   const cuts = (b: Buffer) => [b.length - 1, b.length - 2, Math.floor(b.length / 2), 40];
-  it.each([
-    // Source: PNG specification 5.6: IEND must be last; a file cut anywhere before its end lacks it.
-    ['ridge-64x48.png', 'image/png'],
-    // Source: ITU-T T.81 B.2.1: the compressed image data ends with EOI (X'FFD9').
-    ['ridge-64x48.jpg', 'image/jpeg'],
-    ['ridge-64x48-progressive.jpg', 'image/jpeg'],
-    // Source: RFC 9649 2.5: File Size counts the bytes after the first 8; a cut file is shorter.
-    ['ridge-64x48.webp', 'image/webp'],
-    ['ridge-64x48-lossless.webp', 'image/webp'],
-  ] as const)('%s cut short', (name, type) => {
+  // Source: PNG specification 5.6: IEND must be last; a file cut anywhere before its end lacks it.
+  // Source: ITU-T T.81 B.2.1: the compressed image data ends with EOI (X'FFD9').
+  // Source: RFC 9649 2.5: File Size counts the bytes after the first 8; a cut file is shorter.
+  it.each(WHOLE_FIXTURES)('%s cut short', (name, type) => {
     const whole = fixture(name);
     for (const at of cuts(whole)) {
       expect(() => checkImage(whole.subarray(0, at), type)).toThrow(ImageCheckError);
