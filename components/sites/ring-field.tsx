@@ -1,10 +1,9 @@
 import { useState } from 'react';
 import { View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
-import { Segmented } from '@/components/check/unit-switch';
-import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
-import { colors, radius, space } from '@/components/ui/theme';
+import { space } from '@/components/ui/theme';
+import { EntryModes, GeometryFieldBox } from './geometry-field-box';
 import { GeoJsonImport } from './geojson-import';
 import { RingDrawMap, type RingDrawContext } from './ring-draw-map';
 import { RingTextEntry, type Ring } from './ring-text-entry';
@@ -44,40 +43,27 @@ export function RingField({
   const [editing, setEditing] = useState(false);
   const n = cornerCount(ring);
   return (
-    <View
-      style={{
-        gap: space.sm,
-        padding: space.md,
-        borderRadius: radius.md,
-        borderWidth: 1,
-        borderColor: error ? colors.danger : colors.line,
-      }}
-    >
-      <AppText variant="label">{label}</AppText>
-      <AppText tone="muted" aria-live="polite">
-        {ring && n > 0
+    <GeometryFieldBox
+      label={label}
+      error={error}
+      summary={
+        ring && n > 0
           ? `${n} corners, from ${formatCoordinate({ latDeg: ring[0]![1], lonDeg: ring[0]![0] }, 'dd')}.`
           : optional
             ? 'None yet: draw it, type its corners or import it.'
-            : 'No outline yet: draw it, type its corners or import it.'}
-      </AppText>
-      {error ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {error}
-        </AppText>
-      ) : null}
+            : 'No outline yet: draw it, type its corners or import it.'
+      }
+    >
       {editing ? (
-        <View style={{ gap: space.sm }}>
-          <Segmented<Mode>
-            label="Enter it by"
-            value={mode}
-            onChange={setMode}
-            options={[
-              { value: 'draw', label: 'Drawing on the map' },
-              { value: 'type', label: 'Typing corners' },
-              { value: 'import', label: 'Importing GeoJSON' },
-            ]}
-          />
+        <EntryModes
+          mode={mode}
+          onMode={setMode}
+          options={[
+            { value: 'draw', label: 'Drawing on the map' },
+            { value: 'type', label: 'Typing corners' },
+            { value: 'import', label: 'Importing GeoJSON' },
+          ]}
+        >
           {mode === 'draw' ? (
             <RingDrawMap
               label={label}
@@ -112,7 +98,7 @@ export function RingField({
           {mode !== 'draw' ? (
             <Button kind="quiet" label="Close" onPress={() => setEditing(false)} style={{ alignSelf: 'flex-start' }} />
           ) : null}
-        </View>
+        </EntryModes>
       ) : (
         <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
           <Button
@@ -123,6 +109,6 @@ export function RingField({
           {n > 0 && optional ? <Button kind="quiet" label="Remove" onPress={() => onChange(null)} /> : null}
         </View>
       )}
-    </View>
+    </GeometryFieldBox>
   );
 }

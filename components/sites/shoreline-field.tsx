@@ -7,11 +7,10 @@ import type { LengthUnit } from '@/shared/units/length';
 import { typedToMetres } from '@/shared/units/typed-lengths';
 import { ApiRequestError } from '@/components/data/api-client';
 import { useTraceShoreline } from '@/components/data/placement';
-import { Segmented } from '@/components/check/unit-switch';
-import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
-import { colors, radius, space } from '@/components/ui/theme';
+import { space } from '@/components/ui/theme';
+import { EntryModes, GeometryFieldBox } from './geometry-field-box';
 import { RingDrawMap, type RingDrawContext } from './ring-draw-map';
 
 type Line = [number, number][];
@@ -74,39 +73,26 @@ export function ShorelineField({
     }
   };
   return (
-    <View
-      style={{
-        gap: space.sm,
-        padding: space.md,
-        borderRadius: radius.md,
-        borderWidth: 1,
-        borderColor: error ? colors.danger : colors.line,
-      }}
-      aria-label="Shoreline"
-    >
-      <AppText variant="label">Shoreline</AppText>
-      <AppText tone="muted" aria-live="polite">
-        {line && n > 1
+    <GeometryFieldBox
+      label="Shoreline"
+      ariaLabel="Shoreline"
+      error={error}
+      summary={
+        line && n > 1
           ? `${n} corners, chainage 0 at ${formatCoordinate({ latDeg: line[0]![1], lonDeg: line[0]![0] }, 'dd')}.`
-          : 'None yet: draw it along the shore from where chainage starts, or paste a GeoJSON line.'}
-      </AppText>
-      {error ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {error}
-        </AppText>
-      ) : null}
+          : 'None yet: draw it along the shore from where chainage starts, or paste a GeoJSON line.'
+      }
+    >
       {editing ? (
-        <View style={{ gap: space.sm }}>
-          <Segmented<Mode>
-            label="Enter it by"
-            value={mode}
-            onChange={setMode}
-            options={[
-              { value: 'draw', label: 'Drawing on the map' },
-              { value: 'paste', label: 'Pasting GeoJSON' },
-              ...(canTrace ? [{ value: 'trace' as const, label: 'Tracing the terrain' }] : []),
-            ]}
-          />
+        <EntryModes
+          mode={mode}
+          onMode={setMode}
+          options={[
+            { value: 'draw', label: 'Drawing on the map' },
+            { value: 'paste', label: 'Pasting GeoJSON' },
+            ...(canTrace ? [{ value: 'trace' as const, label: 'Tracing the terrain' }] : []),
+          ]}
+        >
           {mode === 'draw' ? (
             <RingDrawMap
               line
@@ -155,7 +141,7 @@ export function ShorelineField({
               </View>
             </View>
           )}
-        </View>
+        </EntryModes>
       ) : (
         <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
           <Button
@@ -166,6 +152,6 @@ export function ShorelineField({
           {n > 1 ? <Button kind="quiet" label="Remove the shoreline" onPress={() => onChange(null)} /> : null}
         </View>
       )}
-    </View>
+    </GeometryFieldBox>
   );
 }
