@@ -14,11 +14,11 @@ import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { REFRACTION_PRESET_IDS, refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import { describeCondition } from './describe-condition';
 import { StaleNotice } from './stale-notice';
-import { Segmented } from '@/components/check/unit-switch';
 import { ApiRequestError } from '@/components/data/api-client';
 import { useCreateConditionSet, useReloadLibrary, useUpdateConditionSet } from '@/components/data/library';
 import { applyServerErrors } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -239,20 +239,14 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
             onSubmitEditing={submit}
           />
         </View>
-        <Controller
+        <FormSegmented
           control={control}
           name="visibilityKind"
-          render={({ field }) => (
-            <Segmented
-              label="Reported as"
-              value={field.value}
-              onChange={field.onChange}
-              options={[
-                { value: 'mor-5pct', label: 'MOR (5 %)' },
-                { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
-              ]}
-            />
-          )}
+          label="Reported as"
+          options={[
+            { value: 'mor-5pct', label: 'MOR (5 %)' },
+            { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
+          ]}
         />
       </View>
       <Controller
@@ -288,17 +282,11 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
         }}
         onSubmitEditing={submit}
       />
-      <Controller
+      <FormSegmented
         control={control}
         name="backgroundLighting"
-        render={({ field }) => (
-          <Segmented
-            label="Lights behind a target at night"
-            value={field.value}
-            onChange={field.onChange}
-            options={LIGHTING_OPTIONS}
-          />
-        )}
+        label="Lights behind a target at night"
+        options={LIGHTING_OPTIONS}
       />
       {stale ? <StaleNotice what="condition set" onReload={() => void reload()} /> : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { z } from 'zod';
 import {
@@ -17,6 +17,7 @@ import { ApiRequestError } from '@/components/data/api-client';
 import { useCreateTarget, useReloadLibrary, useUpdateTarget } from '@/components/data/library';
 import { applyServerErrors } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -142,17 +143,11 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
       <FormError message={failed} />
       <View aria-live="polite">{added ? <AppText variant="small">{added}</AppText> : null}</View>
       <FormTextField control={control} name="name" label="Name" onSubmitEditing={submit} />
-      <Controller
+      <FormSegmented
         control={control}
         name="kind"
-        render={({ field }) => (
-          <Segmented<Kind>
-            label="Kind"
-            value={field.value}
-            onChange={field.onChange}
-            options={TARGET_KINDS.map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))}
-          />
-        )}
+        label="Kind"
+        options={TARGET_KINDS.map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))}
       />
       <UnitsField control={control} name="units" />
       <View style={{ flexDirection: 'row', gap: space.md }}>
@@ -178,20 +173,14 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
         hint={`E.g. the upper ${heightUnit === 'ft' ? '100 ft' : '30 m'} of a smoke column; 0 when any part will do.`}
         onSubmitEditing={submit}
       />
-      <Controller
+      <FormSegmented
         control={control}
         name="period"
-        render={({ field }) => (
-          <Segmented
-            label="Seen by"
-            value={field.value}
-            onChange={field.onChange}
-            options={[
-              { value: 'day', label: 'Day' },
-              { value: 'night', label: 'Night' },
-            ]}
-          />
-        )}
+        label="Seen by"
+        options={[
+          { value: 'day', label: 'Day' },
+          { value: 'night', label: 'Night' },
+        ]}
       />
       {period === 'night' || kind === 'light' ? (
         <FormTextField

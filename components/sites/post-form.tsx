@@ -1,6 +1,6 @@
 // Over 300 lines: one post form (kind, place, heights, sector) with its units and terrain lookup.
 import { useEffect, useRef, useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { z } from 'zod';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
@@ -15,7 +15,7 @@ import { applyServerErrors } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
 import { useCreatePost, useSite, useSitePosts, useUpdatePost } from '@/components/data/sites';
 import { useSiteTerrain } from '@/components/data/terrain';
-import { Segmented } from '@/components/check/unit-switch';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -234,17 +234,11 @@ export function PostForm({
       <AppText variant="heading">{post ? 'Edit this post' : 'Add a post'}</AppText>
       <FormError message={formError} />
       <FormTextField control={control} name="name" label="Name" onSubmitEditing={submit} />
-      <Controller
+      <FormSegmented
         control={control}
         name="kind"
-        render={({ field }) => (
-          <Segmented<Kind>
-            label="Kind"
-            value={field.value}
-            onChange={field.onChange}
-            options={POST_KINDS.map((k) => ({ value: k, label: POST_KIND_LABELS[k] }))}
-          />
-        )}
+        label="Kind"
+        options={POST_KINDS.map((k) => ({ value: k, label: POST_KIND_LABELS[k] }))}
       />
       <FormTextField
         control={control}
@@ -340,20 +334,14 @@ export function PostForm({
           }}
         />
       ) : null}
-      <Controller
+      <FormSegmented
         control={control}
         name="status"
-        render={({ field }) => (
-          <Segmented
-            label="Status"
-            value={field.value}
-            onChange={field.onChange}
-            options={[
-              { value: 'existing', label: 'Existing' },
-              { value: 'proposed', label: 'Proposed' },
-            ]}
-          />
-        )}
+        label="Status"
+        options={[
+          { value: 'existing', label: 'Existing' },
+          { value: 'proposed', label: 'Proposed' },
+        ]}
       />
       {/* Beside the button just pressed, so it is seen on a phone too. */}
       {stale ? (

@@ -17,7 +17,6 @@ import {
   UNIT_SYSTEM_IDS,
   type HeightDatum,
   type Site,
-  type SiteKind,
 } from '@/shared/schemas/site';
 import type { LengthUnit } from '@/shared/units/length';
 import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
@@ -28,6 +27,7 @@ import { applyServerErrors } from '@/components/data/server-errors';
 import { useSession } from '@/components/data/session';
 import { sitePostsQuery, useCreateSite, useUpdateSite } from '@/components/data/sites';
 import { siteTerrainQuery } from '@/components/data/terrain';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -226,17 +226,11 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
     <Card accent="moss" aria-label={site ? 'Edit site' : 'New site'} style={{ gap: space.lg }}>
       <FormError message={formError} />
       <FormTextField control={control} name="name" label="Name" onSubmitEditing={() => void submit()} />
-      <Controller
+      <FormSegmented
         control={control}
         name="kind"
-        render={({ field }) => (
-          <Segmented<SiteKind>
-            label="Kind"
-            value={field.value}
-            onChange={field.onChange}
-            options={SITE_KINDS.map((k) => ({ value: k, label: SITE_KIND_LABELS[k] }))}
-          />
-        )}
+        label="Kind"
+        options={SITE_KINDS.map((k) => ({ value: k, label: SITE_KIND_LABELS[k] }))}
       />
       <Controller
         control={control}

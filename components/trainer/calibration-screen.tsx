@@ -2,10 +2,10 @@ import { useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import type { Calibration, CalibrationMethod } from '@/shared/schemas/calibration';
-import { Segmented } from '@/components/check/unit-switch';
 import { applyServerErrors } from '@/components/data/server-errors';
 import { useLengthUnits, useSession } from '@/components/data/session';
 import { useCalibrations, useRecordCalibration, useSaveCalibrationAsConditionSet } from '@/components/data/trainer';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -66,11 +66,7 @@ export function CalibrationScreen() {
     <Card accent="moss" aria-label="Field sighting" style={{ gap: space.md, flex: 1, width: '100%' }}>
       <AppText variant="heading">Field sighting</AppText>
       <FormError message={formError} />
-      <Controller
-        control={control}
-        name="method"
-        render={({ field }) => <Segmented label="Method" value={field.value} onChange={field.onChange} options={METHODS} />}
-      />
+      <FormSegmented control={control} name="method" label="Method" options={METHODS} />
       {method === 'dip' ? (
         <>
           <FormTextField
@@ -113,21 +109,15 @@ export function CalibrationScreen() {
             inputMode="decimal"
           />
           <FormTextField control={control} name="markHeight" label="Height of the mark" unit={units.height} inputMode="decimal" />
-          <Controller
+          <FormSegmented
             control={control}
             name="markVisible"
-            render={({ field }) => (
-              <Segmented
-                label="What was seen"
-                value={field.value}
-                onChange={field.onChange}
-                options={[
-                  { value: 'read', label: 'Visible from a height' },
-                  { value: 'yes', label: 'Top visible' },
-                  { value: 'no', label: 'Not visible' },
-                ]}
-              />
-            )}
+            label="What was seen"
+            options={[
+              { value: 'read', label: 'Visible from a height' },
+              { value: 'yes', label: 'Top visible' },
+              { value: 'no', label: 'Not visible' },
+            ]}
           />
           {watch('markVisible') === 'read' ? (
             <>
