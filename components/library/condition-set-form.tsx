@@ -14,9 +14,8 @@ import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { REFRACTION_PRESET_IDS, refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import { describeCondition } from './describe-condition';
 import { StaleNotice } from './stale-notice';
-import { ApiRequestError } from '@/components/data/api-client';
 import { useCreateConditionSet, useReloadLibrary, useUpdateConditionSet } from '@/components/data/library';
-import { applyServerErrors } from '@/components/data/server-errors';
+import { handleSaveError } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
 import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
@@ -156,13 +155,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
     const known = ['name', 'visibilityM', 'visibilityKind', 'seaState', 'significantWaveHeightM', 'backgroundLighting'];
     return known.includes(root ?? '') ? (root as Path<ConditionSetFormValues>) : undefined;
   };
-  const onError = (e: Error) => {
-    if (e instanceof ApiRequestError && e.code === 'stale_version') {
-      setStale(true);
-      return;
-    }
-    setFailed(applyServerErrors(e, setError, fieldOf));
-  };
+  const onError = (e: unknown) => handleSaveError(e, setError, fieldOf, { onStale: () => setStale(true), onMessage: setFailed });
   const save = handleSubmit((input) => {
     setFailed('');
     setAdded('');

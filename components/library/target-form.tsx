@@ -13,9 +13,8 @@ import {
 import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
 import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { Segmented } from '@/components/check/unit-switch';
-import { ApiRequestError } from '@/components/data/api-client';
 import { useCreateTarget, useReloadLibrary, useUpdateTarget } from '@/components/data/library';
-import { applyServerErrors } from '@/components/data/server-errors';
+import { handleSaveError } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
 import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
@@ -112,13 +111,7 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
   // Floats by default for kinds found on the water, until the planner says otherwise.
   const onWater = chosenWater ?? WATER_TARGET_KINDS.includes(kind);
 
-  const onError = (e: Error) => {
-    if (e instanceof ApiRequestError && e.code === 'stale_version') {
-      setStale(true);
-      return;
-    }
-    setFailed(applyServerErrors(e, setError, FIELDS));
-  };
+  const onError = (e: unknown) => handleSaveError(e, setError, FIELDS, { onStale: () => setStale(true), onMessage: setFailed });
   const save = handleSubmit((input) => {
     setFailed('');
     setAdded('');

@@ -10,8 +10,7 @@ import { isPatrolKind, POST_KIND_LABELS, POST_KINDS, PostInputSchema, type Post,
 import { convertSpeed, SPEED_UNIT_OF_SYSTEM } from '@/shared/units/speed';
 import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
 import { UNIT_SYSTEM_IDS, UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
-import { ApiRequestError } from '@/components/data/api-client';
-import { applyServerErrors } from '@/components/data/server-errors';
+import { handleSaveError } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
 import { useCreatePost, useSite, useSitePosts, useUpdatePost } from '@/components/data/sites';
 import { useSiteTerrain } from '@/components/data/terrain';
@@ -199,13 +198,8 @@ export function PostForm({
       setValue('speedMps', speedText(convertSpeed(typed, from), SPEED_UNIT_OF_SYSTEM[units]));
   }, [units, getValues, setValue]);
 
-  const onError = (e: Error) => {
-    if (e instanceof ApiRequestError && e.code === 'stale_version') {
-      setStale(true);
-      return;
-    }
-    setFormError(applyServerErrors(e, setError, FIELDS));
-  };
+  const onError = (e: unknown) =>
+    handleSaveError(e, setError, FIELDS, { onStale: () => setStale(true), onMessage: setFormError });
 
   const save = handleSubmit((out) => {
     setFormError('');

@@ -22,8 +22,7 @@ import type { LengthUnit } from '@/shared/units/length';
 import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
 import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { Segmented } from '@/components/check/unit-switch';
-import { ApiRequestError } from '@/components/data/api-client';
-import { applyServerErrors } from '@/components/data/server-errors';
+import { handleSaveError } from '@/components/data/server-errors';
 import { useSession } from '@/components/data/session';
 import { sitePostsQuery, useCreateSite, useUpdateSite } from '@/components/data/sites';
 import { siteTerrainQuery } from '@/components/data/terrain';
@@ -206,13 +205,8 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
       tide,
       priorityZones: v.priorityZones.map((z) => ({ name: z.name, weight: z.weight, ring: z.ring! })),
     };
-    const onError = (e: unknown) => {
-      if (e instanceof ApiRequestError && e.code === 'stale_version') {
-        setStale(true);
-        return;
-      }
-      setFormError(applyServerErrors(e, setError, fieldOf));
-    };
+    const onError = (e: unknown) =>
+      handleSaveError(e, setError, fieldOf, { onStale: () => setStale(true), onMessage: setFormError });
     const open = (id: string) => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: id } });
     // The saved site comes back with a new version, which remounts this form (its key on the edit
     // screen) before a per-call onSuccess could run; the promise resolves regardless.
