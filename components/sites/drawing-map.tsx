@@ -1,11 +1,11 @@
 import { useRef, useState, type ReactNode } from 'react';
 import { View } from 'react-native';
-import Svg, { Line } from 'react-native-svg';
+import { Line } from 'react-native-svg';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { useCoordinateFormat } from '@/components/map/coordinate-format';
 import { gridLines } from '@/components/map/grid-lines';
-import { gridToScreen } from '@/components/map/map-camera';
 import { MapViewport, type MapHandles, type MapViewportProps } from '@/components/map/map-viewport';
+import { OverlaySvg, overlayPoint } from '@/components/map/overlay-svg';
 import { createReadoutStore } from '@/components/map/readout-store';
 import type { SiteMapFrame } from '@/components/map/site-map-frame';
 import { AppText } from '@/components/ui/app-text';
@@ -109,22 +109,13 @@ export function DrawingMap({
           handles={handles}
           label={label}
           overlay={({ camera, size, margin }) => {
-            const at = (p: GridPoint) => {
-              const s = gridToScreen(camera, size, p.x, p.y);
-              return { x: s.x + margin, y: s.y + margin };
-            };
+            const at = overlayPoint(camera, size, margin);
             // Without terrain the ground is a plain grid of round eastings and northings.
             const grid = frame.base ? null : gridLines(camera, size, margin);
             const W = size.width + 2 * margin;
             const H = size.height + 2 * margin;
             return (
-              <Svg
-                width={W}
-                height={H}
-                style={{ position: 'absolute', left: -margin, top: -margin }}
-                pointerEvents="none"
-                aria-hidden
-              >
+              <OverlaySvg size={size} margin={margin}>
                 {grid?.eastings.map((e) => {
                   const x = at({ x: e, y: 0 }).x;
                   return <Line key={`e${e}`} x1={x} y1={0} x2={x} y2={H} stroke="#C9D1CD" strokeWidth={1} />;
@@ -134,7 +125,7 @@ export function DrawingMap({
                   return <Line key={`n${n2}`} x1={0} y1={y} x2={W} y2={y} stroke="#C9D1CD" strokeWidth={1} />;
                 })}
                 {children(at)}
-              </Svg>
+              </OverlaySvg>
             );
           }}
         />
