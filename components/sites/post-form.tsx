@@ -18,6 +18,7 @@ import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { FieldRow } from '@/components/ui/field-row';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
@@ -252,8 +253,8 @@ export function PostForm({
         </AppText>
       ) : null}
       <UnitsField control={control} name="units" />
-      <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-        <View style={{ flex: 1, minWidth: 140 }}>
+      <FieldRow minWidth={140} gap={space.md}>
+        <>
           <UnitNumberField
             control={control}
             name="groundElevationM"
@@ -267,26 +268,22 @@ export function PostForm({
             unit={heightUnit}
             onElevation={(m) => setValue('groundElevationM', lengthText(m, heightUnit), { shouldValidate: false })}
           />
-        </View>
-        <View style={{ flex: 1, minWidth: 140 }}>
-          <UnitNumberField
-            control={control}
-            name="structureHeightM"
-            unit={heightUnit}
-            label="Structure height"
-            onSubmitEditing={submit}
-          />
-        </View>
-        <View style={{ flex: 1, minWidth: 140 }}>
-          <UnitNumberField
-            control={control}
-            name="eyeHeightM"
-            unit={heightUnit}
-            label="Eye above platform"
-            onSubmitEditing={submit}
-          />
-        </View>
-      </View>
+        </>
+        <UnitNumberField
+          control={control}
+          name="structureHeightM"
+          unit={heightUnit}
+          label="Structure height"
+          onSubmitEditing={submit}
+        />
+        <UnitNumberField
+          control={control}
+          name="eyeHeightM"
+          unit={heightUnit}
+          label="Eye above platform"
+          onSubmitEditing={submit}
+        />
+      </FieldRow>
       <View style={{ flexDirection: 'row', gap: space.md }}>
         <View style={{ flex: 1 }}>
           <FormTextField

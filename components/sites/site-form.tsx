@@ -30,6 +30,7 @@ import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { FieldRow } from '@/components/ui/field-row';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { UnitNumberField } from '@/components/ui/unit-number-field';
 import { FormError, Notice } from '@/components/ui/states';
@@ -363,26 +364,22 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
             />
           )}
         />
-        <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-          <View style={{ flex: 1, minWidth: 150 }}>
-            <UnitNumberField
-              control={control}
-              name="tideLowM"
-              label="Tide: low water (or the one level)"
-              unit={heightUnit}
-              hint="Above the datum. Empty: the datum itself."
-            />
-          </View>
-          <View style={{ flex: 1, minWidth: 150 }}>
-            <UnitNumberField
-              control={control}
-              name="tideHighM"
-              label="Tide: high water"
-              unit={heightUnit}
-              hint="Give both for a high/low pair: each is a condition of the run."
-            />
-          </View>
-        </View>
+        <FieldRow minWidth={150} gap={space.md}>
+          <UnitNumberField
+            control={control}
+            name="tideLowM"
+            label="Tide: low water (or the one level)"
+            unit={heightUnit}
+            hint="Above the datum. Empty: the datum itself."
+          />
+          <UnitNumberField
+            control={control}
+            name="tideHighM"
+            label="Tide: high water"
+            unit={heightUnit}
+            hint="Give both for a high/low pair: each is a condition of the run."
+          />
+        </FieldRow>
       </View>
       <View style={{ gap: space.sm }}>
         <AppText variant="heading">Priority zones</AppText>
