@@ -27,7 +27,7 @@ import {
   type UnitSystem,
 } from './check-form-model';
 import { CautionsPanel } from './cautions-panel';
-import { formatLength, LIMIT_EXPLANATIONS, LIMIT_LABELS } from './format';
+import { formatLength, LIMIT_EXPLANATIONS, LIMIT_LABELS, VISIBILITY_KIND_OPTIONS } from './format';
 import { conditionStyle } from './condition-colors';
 import { ConditionPicker } from './condition-picker';
 import { RefractionBandPanel } from './refraction-band-panel';
@@ -150,10 +150,7 @@ export function QuickCheck() {
         {decimal('visibility', 'Visibility', units.distance, 'Leave empty if unknown.')}
         {decimal('targetSize', 'Target size', units.height, 'Its width, for the angular limit.')}
       </Pair>
-      {choice('visibilityKind', 'Visibility is', [
-        { value: 'mor-5pct', label: 'MOR (5 %)' },
-        { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
-      ])}
+      {choice('visibilityKind', 'Visibility is', VISIBILITY_KIND_OPTIONS)}
       {decimal('resolutionArcmin', 'Eye must resolve', 'arcmin', '1′ is normal acuity; lookouts searching need several.')}
       {choice('period', 'Searching by', [
         { value: 'day', label: 'Day' },

@@ -125,6 +125,18 @@ function signatureOf(fields: ReportFields): string {
   return JSON.stringify(fields);
 }
 
+/** Which north a bearing is read from. */
+const NORTH_OPTIONS = [
+  { id: 'true', name: 'True north' },
+  { id: 'magnetic', name: 'Magnetic (compass)' },
+];
+
+/** What a vertical angle is measured from. */
+const VERTICAL_REFERENCE_OPTIONS = [
+  { id: 'horizontal', name: 'The horizontal (level)' },
+  { id: 'horizon', name: 'The sea horizon' },
+];
+
 /**
  * Reporting a bearing to what is seen from one of the site's posts. The
  * idempotency key and the time are fixed when a report is first sent and kept
@@ -253,15 +265,7 @@ export function ReportBearingForm({
       <AppText variant="heading">Report a bearing</AppText>
       <FormChipChoice control={control} name="postId" label="From the post" options={posts} />
       {degrees('bearingDeg', 'Bearing', 'Degrees clockwise from north, 0–360.')}
-      <FormChipChoice
-        control={control}
-        name="bearingReference"
-        label="North used"
-        options={[
-          { id: 'true', name: 'True north' },
-          { id: 'magnetic', name: 'Magnetic (compass)' },
-        ]}
-      />
+      <FormChipChoice control={control} name="bearingReference" label="North used" options={NORTH_OPTIONS} />
       {reference === 'magnetic' ? (
         <View style={{ gap: space.sm }}>
           <Notice tone="info" title="Declination">
@@ -311,10 +315,7 @@ export function ReportBearingForm({
             control={control}
             name="verticalAngleReference"
             label="Vertical angle measured from"
-            options={[
-              { id: 'horizontal', name: 'The horizontal (level)' },
-              { id: 'horizon', name: 'The sea horizon' },
-            ]}
+            options={VERTICAL_REFERENCE_OPTIONS}
           />
           {degrees(
             'verticalAngleSigmaDeg',

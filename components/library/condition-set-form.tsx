@@ -17,6 +17,7 @@ import { StaleNotice } from './stale-notice';
 import { useCreateConditionSet, useReloadLibrary, useUpdateConditionSet } from '@/components/data/library';
 import { handleSaveError } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
+import { VISIBILITY_KIND_OPTIONS } from '@/components/check/format';
 import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
@@ -232,15 +233,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
             onSubmitEditing={submit}
           />
         </View>
-        <FormSegmented
-          control={control}
-          name="visibilityKind"
-          label="Reported as"
-          options={[
-            { value: 'mor-5pct', label: 'MOR (5 %)' },
-            { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
-          ]}
-        />
+        <FormSegmented control={control} name="visibilityKind" label="Reported as" options={VISIBILITY_KIND_OPTIONS} />
       </View>
       <Controller
         control={control}

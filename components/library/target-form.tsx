@@ -84,6 +84,12 @@ function valuesOf(t: Target | undefined, units: UnitSystem): TargetFormValues {
 
 const FIELDS = ['name', 'kind', 'period', 'heightM', 'widthM', 'requiredVisibleM', 'lightIntensityCd', 'onWater'] as const;
 
+/** When a target is looked for. */
+const PERIOD_OPTIONS: { value: 'day' | 'night'; label: string }[] = [
+  { value: 'day', label: 'Day' },
+  { value: 'night', label: 'Night' },
+];
+
 /**
  * A target profile: a new one, or — given `target` — an edit of it saved with
  * the version it was loaded at (what it is, how tall and wide in the person's
@@ -166,15 +172,7 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
         hint={`E.g. the upper ${heightUnit === 'ft' ? '100 ft' : '30 m'} of a smoke column; 0 when any part will do.`}
         onSubmitEditing={submit}
       />
-      <FormSegmented
-        control={control}
-        name="period"
-        label="Seen by"
-        options={[
-          { value: 'day', label: 'Day' },
-          { value: 'night', label: 'Night' },
-        ]}
-      />
+      <FormSegmented control={control} name="period" label="Seen by" options={PERIOD_OPTIONS} />
       {period === 'night' || kind === 'light' ? (
         <FormTextField
           control={control}

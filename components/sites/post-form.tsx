@@ -146,6 +146,12 @@ const FIELDS = [
   'cycleMinutes',
 ] as const;
 
+/** Whether a post stands or is only planned. */
+const STATUS_OPTIONS: { value: 'existing' | 'proposed'; label: string }[] = [
+  { value: 'existing', label: 'Existing' },
+  { value: 'proposed', label: 'Proposed' },
+];
+
 /**
  * A post's form: a new post, or — given `post` — an edit of that post saved
  * with the version it was loaded at. Coordinates in any usual format (DD,
@@ -325,15 +331,7 @@ export function PostForm({
           }}
         />
       ) : null}
-      <FormSegmented
-        control={control}
-        name="status"
-        label="Status"
-        options={[
-          { value: 'existing', label: 'Existing' },
-          { value: 'proposed', label: 'Proposed' },
-        ]}
-      />
+      <FormSegmented control={control} name="status" label="Status" options={STATUS_OPTIONS} />
       {/* Beside the button just pressed, so it is seen on a phone too. */}
       {stale ? (
         <Notice tone="danger" title="Not saved: this post changed">

@@ -33,6 +33,13 @@ const METHODS: { value: CalibrationMethod; label: string }[] = [
 
 const fmtK = (k: number | null) => (k === null ? '—' : k.toFixed(3));
 
+/** What the observer saw of the mark. */
+const MARK_SEEN_OPTIONS: { value: 'read' | 'yes' | 'no'; label: string }[] = [
+  { value: 'read', label: 'Visible from a height' },
+  { value: 'yes', label: 'Top visible' },
+  { value: 'no', label: 'Not visible' },
+];
+
 /** k of the day: a field sighting (dip, reciprocal zenith angles, a reference mark) solved for k; planners save it as a condition set. */
 export function CalibrationScreen() {
   const { wide } = useLayout();
@@ -95,16 +102,7 @@ export function CalibrationScreen() {
           {decimal('eyeHeight', 'Height of eye', units.height)}
           {decimal('distance', 'Distance to the mark', units.distance)}
           {decimal('markHeight', 'Height of the mark', units.height)}
-          <FormSegmented
-            control={control}
-            name="markVisible"
-            label="What was seen"
-            options={[
-              { value: 'read', label: 'Visible from a height' },
-              { value: 'yes', label: 'Top visible' },
-              { value: 'no', label: 'Not visible' },
-            ]}
-          />
+          <FormSegmented control={control} name="markVisible" label="What was seen" options={MARK_SEEN_OPTIONS} />
           {watch('markVisible') === 'read' ? (
             <>
               {decimal('observedVisibleFrom', 'Visible from (above the mark’s base)', units.height)}
