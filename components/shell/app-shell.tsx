@@ -37,24 +37,21 @@ export function AppShell() {
           <View style={{ paddingHorizontal: space.lg, paddingVertical: space.xl }}>
             <Wordmark inverse />
           </View>
-          {items.map((item) => {
-            const active = isActive(item, pathname);
-            return (
-              <NavLink
-                key={item.label}
-                item={item}
-                active={active}
-                onPress={() => router.navigate(item.href)}
-                style={(pressed) => [
-                  styles.railItem,
-                  active && styles.railItemActive,
-                  pressed && { backgroundColor: colors.nightRaised },
-                ]}
-                labelColor={colors.railText}
-                fontSize={16}
-              />
-            );
-          })}
+          {items.map((item) => (
+            <NavLink
+              key={item.label}
+              item={item}
+              active={isActive(item, pathname)}
+              onPress={() => router.navigate(item.href)}
+              style={(pressed, active) => [
+                styles.railItem,
+                active && styles.railItemActive,
+                pressed && { backgroundColor: colors.nightRaised },
+              ]}
+              labelColor={colors.railText}
+              fontSize={16}
+            />
+          ))}
           <View style={{ flex: 1 }} />
           {user ? (
             <View style={styles.railUser}>
@@ -122,20 +119,17 @@ function PhoneShell({ items, pathname, bottomInset }: { items: NavItem[]; pathna
             role="navigation"
             aria-label="More places"
           >
-            {more.map((item) => {
-              const active = isActive(item, pathname);
-              return (
-                <NavLink
-                  key={item.label}
-                  item={item}
-                  active={active}
-                  onPress={() => go(item)}
-                  style={(pressed) => [styles.moreItem, (active || pressed) && { backgroundColor: colors.nightRaised }]}
-                  labelColor={colors.surface}
-                  fontSize={17}
-                />
-              );
-            })}
+            {more.map((item) => (
+              <NavLink
+                key={item.label}
+                item={item}
+                active={isActive(item, pathname)}
+                onPress={() => go(item)}
+                style={(pressed, active) => [styles.moreItem, (active || pressed) && { backgroundColor: colors.nightRaised }]}
+                labelColor={colors.surface}
+                fontSize={17}
+              />
+            ))}
           </View>
         </View>
       </Modal>
@@ -189,13 +183,18 @@ function NavLink({
   item: NavItem;
   active: boolean;
   onPress: () => void;
-  style: (pressed: boolean) => StyleProp<ViewStyle>;
+  style: (pressed: boolean, active: boolean) => StyleProp<ViewStyle>;
   /** The name's colour when the place is not the current page. */
   labelColor: string;
   fontSize: number;
 }) {
   return (
-    <Pressable role="link" aria-current={active ? 'page' : undefined} onPress={onPress} style={({ pressed }) => style(pressed)}>
+    <Pressable
+      role="link"
+      aria-current={active ? 'page' : undefined}
+      onPress={onPress}
+      style={({ pressed }) => style(pressed, active)}
+    >
       <item.Icon color={active ? colors.lantern : colors.railText} />
       <AppText variant="label" style={{ color: active ? colors.lantern : labelColor, fontSize }}>
         {item.label}
