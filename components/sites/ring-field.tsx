@@ -42,6 +42,10 @@ export function RingField({
   const [mode, setMode] = useState<Mode>('draw');
   const [editing, setEditing] = useState(false);
   const n = cornerCount(ring);
+  const done = (entered: Ring) => {
+    onChange(entered);
+    setEditing(false);
+  };
   return (
     <GeometryFieldBox
       label={label}
@@ -65,36 +69,10 @@ export function RingField({
           ]}
         >
           {mode === 'draw' ? (
-            <RingDrawMap
-              label={label}
-              ring={ring}
-              context={drawContext}
-              onDone={(r) => {
-                onChange(r);
-                setEditing(false);
-              }}
-              onCancel={() => setEditing(false)}
-            />
+            <RingDrawMap label={label} ring={ring} context={drawContext} onDone={done} onCancel={() => setEditing(false)} />
           ) : null}
-          {mode === 'import' ? (
-            <GeoJsonImport
-              label={`${label} from a file`}
-              onUse={(p) => {
-                onChange(p.ring);
-                setEditing(false);
-              }}
-            />
-          ) : null}
-          {mode === 'type' ? (
-            <RingTextEntry
-              label={label}
-              ring={ring}
-              onRing={(r) => {
-                onChange(r);
-                setEditing(false);
-              }}
-            />
-          ) : null}
+          {mode === 'import' ? <GeoJsonImport label={`${label} from a file`} onUse={(p) => done(p.ring)} /> : null}
+          {mode === 'type' ? <RingTextEntry label={label} ring={ring} onRing={done} /> : null}
           {mode !== 'draw' ? (
             <Button kind="quiet" label="Close" onPress={() => setEditing(false)} style={{ alignSelf: 'flex-start' }} />
           ) : null}

@@ -39,6 +39,10 @@ export function ShorelineField({
   const [text, setText] = useState('');
   const [problem, setProblem] = useState('');
   const n = line?.length ?? 0;
+  const done = (entered: Line) => {
+    onChange(entered);
+    setEditing(false);
+  };
   const trace = useTraceShoreline(drawContext.site?.id ?? '');
   const [levelText, setLevelText] = useState('0');
   const canTrace = !!drawContext.site && !!drawContext.terrain;
@@ -50,10 +54,7 @@ export function ShorelineField({
     }
     setProblem('');
     trace.mutate(metres, {
-      onSuccess: (r) => {
-        onChange(r.shoreline);
-        setEditing(false);
-      },
+      onSuccess: (r) => done(r.shoreline),
       onError: (e) => setProblem(e instanceof ApiRequestError ? e.message : 'The shoreline could not be traced.'),
     });
   };
@@ -65,9 +66,8 @@ export function ShorelineField({
         setProblem(checked.error.issues[0]?.message ?? 'This line cannot be used.');
         return;
       }
-      onChange(checked.data);
       setProblem('');
-      setEditing(false);
+      done(checked.data);
     } catch (e) {
       setProblem(e instanceof GeoJsonLineError ? e.message : 'This line cannot be used.');
     }
@@ -99,10 +99,7 @@ export function ShorelineField({
               label="Shoreline"
               ring={line}
               context={drawContext}
-              onDone={(l) => {
-                onChange(l);
-                setEditing(false);
-              }}
+              onDone={done}
               onCancel={() => setEditing(false)}
             />
           ) : mode === 'trace' ? (
