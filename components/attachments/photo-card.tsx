@@ -10,6 +10,7 @@ import { FormError } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { colors, radius, space } from '@/components/ui/theme';
 import { BearingDial } from './bearing-dial';
+import { CameraBearingField } from './camera-bearing-field';
 import { bearingFromText, formatBearing } from './format';
 
 type Mode = 'view' | 'edit' | 'confirm-delete';
@@ -122,10 +123,7 @@ function EditPhoto({ photo, onDone }: { photo: Attachment; onDone: () => void })
   return (
     <View style={{ gap: space.sm }} aria-label="Edit photo">
       <FormError message={formError} />
-      <TextField
-        label="Bearing"
-        unit="°"
-        inputMode="decimal"
+      <CameraBearingField
         value={bearing}
         onChangeText={setBearing}
         error={errors.bearingDeg}

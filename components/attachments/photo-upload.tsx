@@ -11,6 +11,7 @@ import { ProgressBar } from '@/components/ui/progress-bar';
 import { FormError, Notice } from '@/components/ui/states';
 import { TextField } from '@/components/ui/text-field';
 import { colors, radius, space } from '@/components/ui/theme';
+import { CameraBearingField } from './camera-bearing-field';
 import { bearingFromText, formatBytes } from './format';
 import { pickFile } from '@/components/ui/pick-file';
 import { FieldError } from '@/components/ui/field-error';
@@ -141,10 +142,7 @@ export function PhotoUpload({ owner }: { owner: AttachmentOwner }) {
       </View>
       <View style={styles.fields}>
         <View style={{ flex: 1, minWidth: 140 }}>
-          <TextField
-            label="Bearing"
-            unit="°"
-            inputMode="decimal"
+          <CameraBearingField
             value={bearing}
             onChangeText={setBearing}
             error={errors.bearingDeg}

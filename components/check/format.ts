@@ -71,3 +71,9 @@ export function distanceIn(metres: number, unit: LengthUnit, metric: (m: number)
   if (shortest !== undefined && Math.abs(convertLength(metres, 'm', unit)) < shortest) return formatLength(metres, 'ft');
   return formatLength(metres, unit);
 }
+
+/** The two ways a visibility is reported (meteorological optical range, or the older 2 % meteorological range), as forms offer them. */
+export const VISIBILITY_KIND_OPTIONS: { value: 'mor-5pct' | 'meteorological-range-2pct'; label: string }[] = [
+  { value: 'mor-5pct', label: 'MOR (5 %)' },
+  { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
+];

@@ -1,5 +1,5 @@
 // Over 300 lines: the quick check screen: one form, its answer table and the cautions share one request state.
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useState, type ReactNode } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { BACKGROUND_LIGHTING_LABELS } from '@/shared/schemas/library';
 import type { SightlineRequest, SightlineResult } from '@/shared/schemas/sightline';
@@ -27,7 +27,7 @@ import {
   type UnitSystem,
 } from './check-form-model';
 import { CautionsPanel } from './cautions-panel';
-import { formatLength, LIMIT_EXPLANATIONS, LIMIT_LABELS } from './format';
+import { formatLength, LIMIT_EXPLANATIONS, LIMIT_LABELS, VISIBILITY_KIND_OPTIONS } from './format';
 import { conditionStyle } from './condition-colors';
 import { ConditionPicker } from './condition-picker';
 import { RefractionBandPanel } from './refraction-band-panel';
@@ -36,6 +36,21 @@ import { LookoutView } from './lookout-view';
 import { Sightline3d } from './sightline-3d';
 import { Segmented } from './unit-switch';
 import { LibraryPicks } from './library-picks';
+
+/** The form's fields typed as decimal numbers. */
+type DecimalField =
+  | 'observerHeight'
+  | 'targetHeight'
+  | 'distance'
+  | 'requiredVisible'
+  | 'visibility'
+  | 'targetSize'
+  | 'resolutionArcmin'
+  | 'lightIntensity'
+  | 'customK';
+
+/** The form's fields chosen from a few values. */
+type ChoiceField = 'visibilityKind' | 'period' | 'backgroundLighting';
 
 const presetLabel = (id: Parameters<typeof refractionPreset>[0]) => refractionPreset(id).label;
 
@@ -78,6 +93,24 @@ export function QuickCheck() {
       if (SET_FIELDS.includes(key)) setPicked((p) => ({ ...p, setId: null, left: 0 }));
     };
 
+  /** A decimal field of the form, with its error; typing in it lets go of a library pick it came from. */
+  const decimal = (key: DecimalField, label: string, unit: string | undefined, hint?: string) => (
+    <TextField
+      label={label}
+      unit={unit}
+      inputMode="decimal"
+      value={form[key]}
+      onChangeText={set(key)}
+      error={errors[key]}
+      hint={hint}
+    />
+  );
+
+  /** A choice of the form, one of a few. */
+  const choice = <K extends ChoiceField>(key: K, label: string, options: { value: CheckFormValues[K]; label: string }[]) => (
+    <Segmented<CheckFormValues[K]> label={label} value={form[key]} onChange={set(key)} options={options} />
+  );
+
   const formPane = (
     <Card style={{ gap: space.lg }}>
       <LibraryPicks
@@ -107,155 +140,65 @@ export function QuickCheck() {
         onChange={(u) => setForm((f) => switchUnits(f, u))}
         options={Object.entries(UNIT_SYSTEMS).map(([value, u]) => ({ value: value as UnitSystem, label: u.label }))}
       />
-      <TextField
-        label="Height of eye"
-        unit={units.height}
-        inputMode="decimal"
-        value={form.observerHeight}
-        onChangeText={set('observerHeight')}
-        error={errors.observerHeight}
-        hint="Above the sea or the plain, including any structure."
-      />
-      <View style={styles.pair}>
-        <View style={styles.half}>
-          <TextField
-            label="Target height"
-            unit={units.height}
-            inputMode="decimal"
-            value={form.targetHeight}
-            onChangeText={set('targetHeight')}
-            error={errors.targetHeight}
-          />
-        </View>
-        <View style={styles.half}>
-          <TextField
-            label="Distance"
-            unit={units.distance}
-            inputMode="decimal"
-            value={form.distance}
-            onChangeText={set('distance')}
-            error={errors.distance}
-          />
-        </View>
-      </View>
-      <TextField
-        label="Part that must show"
-        unit={units.height}
-        inputMode="decimal"
-        value={form.requiredVisible}
-        onChangeText={set('requiredVisible')}
-        error={errors.requiredVisible}
-        hint="e.g. the top 30 m of a smoke column; 0 = any part."
-      />
-      <View style={styles.pair}>
-        <View style={styles.half}>
-          <TextField
-            label="Visibility"
-            unit={units.distance}
-            inputMode="decimal"
-            value={form.visibility}
-            onChangeText={set('visibility')}
-            error={errors.visibility}
-            hint="Leave empty if unknown."
-          />
-        </View>
-        <View style={styles.half}>
-          <TextField
-            label="Target size"
-            unit={units.height}
-            inputMode="decimal"
-            value={form.targetSize}
-            onChangeText={set('targetSize')}
-            error={errors.targetSize}
-            hint="Its width, for the angular limit."
-          />
-        </View>
-      </View>
-      <Segmented
-        label="Visibility is"
-        value={form.visibilityKind}
-        onChange={set('visibilityKind')}
-        options={[
-          { value: 'mor-5pct', label: 'MOR (5 %)' },
-          { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
-        ]}
-      />
-      <TextField
-        label="Eye must resolve"
-        unit="arcmin"
-        inputMode="decimal"
-        value={form.resolutionArcmin}
-        onChangeText={set('resolutionArcmin')}
-        error={errors.resolutionArcmin}
-        hint="1′ is normal acuity; lookouts searching need several."
-      />
-      <Segmented
-        label="Searching by"
-        value={form.period}
-        onChange={set('period')}
-        options={[
-          { value: 'day', label: 'Day' },
-          { value: 'night', label: 'Night (a light)' },
-        ]}
-      />
+      {decimal('observerHeight', 'Height of eye', units.height, 'Above the sea or the plain, including any structure.')}
+      <Pair>
+        {decimal('targetHeight', 'Target height', units.height)}
+        {decimal('distance', 'Distance', units.distance)}
+      </Pair>
+      {decimal('requiredVisible', 'Part that must show', units.height, 'e.g. the top 30 m of a smoke column; 0 = any part.')}
+      <Pair>
+        {decimal('visibility', 'Visibility', units.distance, 'Leave empty if unknown.')}
+        {decimal('targetSize', 'Target size', units.height, 'Its width, for the angular limit.')}
+      </Pair>
+      {choice('visibilityKind', 'Visibility is', VISIBILITY_KIND_OPTIONS)}
+      {decimal('resolutionArcmin', 'Eye must resolve', 'arcmin', '1′ is normal acuity; lookouts searching need several.')}
+      {choice('period', 'Searching by', [
+        { value: 'day', label: 'Day' },
+        { value: 'night', label: 'Night (a light)' },
+      ])}
       {form.period === 'night' ? (
         <>
-          <TextField
-            label="Light intensity"
-            unit="cd"
-            inputMode="decimal"
-            value={form.lightIntensity}
-            onChangeText={set('lightIntensity')}
-            error={errors.lightIntensity}
-            hint="Candela, from the maker's data. Empty: the target is unlit and is not detected at night."
-          />
-          <Segmented
-            label="Lights behind it"
-            value={form.backgroundLighting}
-            onChange={set('backgroundLighting')}
-            options={Object.entries(BACKGROUND_LIGHTING_LABELS).map(([value, label]) => ({
+          {decimal(
+            'lightIntensity',
+            'Light intensity',
+            'cd',
+            "Candela, from the maker's data. Empty: the target is unlit and is not detected at night.",
+          )}
+          {choice(
+            'backgroundLighting',
+            'Lights behind it',
+            Object.entries(BACKGROUND_LIGHTING_LABELS).map(([value, label]) => ({
               value: value as CheckFormValues['backgroundLighting'],
               label,
-            }))}
-          />
+            })),
+          )}
         </>
       ) : null}
-      <View style={styles.pair}>
-        <View style={styles.half}>
-          <TextField
-            label="Sea state"
-            unit="0–9"
-            inputMode="numeric"
-            value={form.seaState}
-            onChangeText={(t) => setForm((f) => ({ ...f, seaState: t, waveHeight: t.trim() === '' ? f.waveHeight : '' }))}
-            error={errors.seaState}
-            hint="Douglas degree, for a target on the water."
-          />
-        </View>
-        <View style={styles.half}>
-          <TextField
-            label="Or wave height"
-            unit={units.height}
-            inputMode="decimal"
-            value={form.waveHeight}
-            onChangeText={(t) => setForm((f) => ({ ...f, waveHeight: t, seaState: t.trim() === '' ? f.seaState : '' }))}
-            error={errors.waveHeight}
-            hint="Significant height; crests hide half of it."
-          />
-        </View>
-      </View>
+      <Pair>
+        <TextField
+          label="Sea state"
+          unit="0–9"
+          inputMode="numeric"
+          value={form.seaState}
+          onChangeText={(t) => setForm((f) => ({ ...f, seaState: t, waveHeight: t.trim() === '' ? f.waveHeight : '' }))}
+          error={errors.seaState}
+          hint="Douglas degree, for a target on the water."
+        />
+        <TextField
+          label="Or wave height"
+          unit={units.height}
+          inputMode="decimal"
+          value={form.waveHeight}
+          onChangeText={(t) => setForm((f) => ({ ...f, waveHeight: t, seaState: t.trim() === '' ? f.seaState : '' }))}
+          error={errors.waveHeight}
+          hint="Significant height; crests hide half of it."
+        />
+      </Pair>
       <View style={{ gap: space.sm }}>
         <AppText variant="label">Refraction conditions</AppText>
         <ConditionPicker value={form.presets} onChange={set('presets')} />
         <FieldError message={errors.presets} />
-        <TextField
-          label="Your own k (optional)"
-          inputMode="decimal"
-          value={form.customK}
-          onChangeText={set('customK')}
-          error={errors.customK}
-          hint="Refraction coefficient; 0.13 is standard optical."
-        />
+        {decimal('customK', 'Your own k (optional)', undefined, 'Refraction coefficient; 0.13 is standard optical.')}
         <WeatherCondition value={form.weather} onChange={set('weather')} error={errors.weather} />
       </View>
     </Card>
@@ -306,6 +249,13 @@ function Answer({
   data: NonNullable<ReturnType<typeof useSightline<ConditionLabel[]>>['data']>;
   units: (typeof UNIT_SYSTEMS)[UnitSystem];
 }) {
+  // The eye, the target and the results, as both drawings of the sightline take them.
+  const sightline = {
+    observerHeightM: request.observerHeightM,
+    targetHeightM: request.targetHeightM,
+    distanceM: request.distanceM,
+    results: data.results,
+  };
   const warnings = data.results.flatMap((r, i) => r.warnings.map((w) => ({ ...w, label: labels[i]?.label ?? '' })));
   return (
     <View style={{ gap: space.lg }}>
@@ -339,25 +289,14 @@ function Answer({
       ) : null}
       <Card>
         <AppText variant="heading">As the lookout sees it</AppText>
-        <LookoutView
-          observerHeightM={request.observerHeightM}
-          targetHeightM={request.targetHeightM}
-          distanceM={request.distanceM}
-          targetSizeM={request.targetSizeM}
-          results={data.results}
-          labels={labels}
-          units={units}
-        />
+        <LookoutView {...sightline} targetSizeM={request.targetSizeM} labels={labels} units={units} />
       </Card>
       <RefractionBandPanel request={request} units={units} />
       <Card>
         <AppText variant="heading">3D view</AppText>
         <Sightline3d
-          observerHeightM={request.observerHeightM}
-          targetHeightM={request.targetHeightM}
-          distanceM={request.distanceM}
+          {...sightline}
           earthRadiusM={request.earthRadiusM}
-          results={data.results}
           colors={data.results.map((_, i) => conditionStyle(i).color)}
         />
       </Card>
@@ -375,7 +314,17 @@ function WeatherCondition({
   onChange: (v: CheckFormValues['weather']) => void;
   error?: string;
 }) {
-  const set = (key: 'pressureHpa' | 'temperatureC' | 'lapseRateKPerM') => (text: string) => onChange({ ...value, [key]: text });
+  type Reading = 'pressureHpa' | 'temperatureC' | 'lapseRateKPerM';
+  const reading = (key: Reading, label: string, unit: string, hint?: string) => (
+    <TextField
+      label={label}
+      unit={unit}
+      inputMode="decimal"
+      value={value[key]}
+      onChangeText={(text) => onChange({ ...value, [key]: text })}
+      hint={hint}
+    />
+  );
   return (
     <View style={{ gap: space.sm }}>
       <Pressable
@@ -389,37 +338,29 @@ function WeatherCondition({
       </Pressable>
       {value.enabled ? (
         <View style={{ gap: space.sm }}>
-          <View style={styles.pair}>
-            <View style={styles.half}>
-              <TextField
-                label="Pressure"
-                unit="hPa"
-                inputMode="decimal"
-                value={value.pressureHpa}
-                onChangeText={set('pressureHpa')}
-              />
-            </View>
-            <View style={styles.half}>
-              <TextField
-                label="Air temperature"
-                unit="°C"
-                inputMode="decimal"
-                value={value.temperatureC}
-                onChangeText={set('temperatureC')}
-              />
-            </View>
-          </View>
-          <TextField
-            label="Lapse rate Γ = −dT/dh"
-            unit="K/m"
-            inputMode="decimal"
-            value={value.lapseRateKPerM}
-            onChangeText={set('lapseRateKPerM')}
-            hint="0.0065 is the standard atmosphere; negative in an inversion (air warming with height)."
-          />
+          <Pair>
+            {reading('pressureHpa', 'Pressure', 'hPa')}
+            {reading('temperatureC', 'Air temperature', '°C')}
+          </Pair>
+          {reading(
+            'lapseRateKPerM',
+            'Lapse rate Γ = −dT/dh',
+            'K/m',
+            '0.0065 is the standard atmosphere; negative in an inversion (air warming with height).',
+          )}
           <FieldError message={error} />
         </View>
       ) : null}
+    </View>
+  );
+}
+
+/** Two fields side by side, sharing the width. */
+function Pair({ children }: { children: [ReactNode, ReactNode] }) {
+  return (
+    <View style={styles.pair}>
+      <View style={styles.half}>{children[0]}</View>
+      <View style={styles.half}>{children[1]}</View>
     </View>
   );
 }

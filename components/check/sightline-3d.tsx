@@ -1,34 +1,15 @@
-import { Component, lazy, Suspense, useState, type ReactNode } from 'react';
+import { lazy, useState } from 'react';
 import { View } from 'react-native';
 import type { SightlineSceneProps } from '@/scenes/sightline/sightline-scene';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
-import { LoadingState, Notice } from '@/components/ui/states';
+import { hasWebGL, Scene3dFrame } from '@/components/ui/scene-3d-frame';
+import { Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
 
 // Loaded on demand, so three.js is not part of the first bundle; through the one 3D module
 // (see scenes/scenes-3d.ts), so three.js is in one async chunk.
 const SightlineScene = lazy(() => import('@/scenes/scenes-3d').then((m) => ({ default: m.SightlineScene })));
-
-function hasWebGL(): boolean {
-  if (typeof document === 'undefined') return false;
-  try {
-    const c = document.createElement('canvas');
-    return !!(c.getContext('webgl2') ?? c.getContext('webgl'));
-  } catch {
-    return false;
-  }
-}
-
-class SceneBoundary extends Component<{ fallback: ReactNode; children: ReactNode }, { failed: boolean }> {
-  override state = { failed: false };
-  static getDerivedStateFromError() {
-    return { failed: true };
-  }
-  override render() {
-    return this.state.failed ? this.props.fallback : this.props.children;
-  }
-}
 
 const NoWebGL = (
   <Notice tone="info" title="3D view not available">
@@ -47,11 +28,9 @@ export function Sightline3d(props: SightlineSceneProps) {
   return (
     <View style={{ gap: space.sm }}>
       <View style={{ height: 340, borderRadius: 14, overflow: 'hidden' }} aria-label="3D sightline view">
-        <SceneBoundary fallback={NoWebGL}>
-          <Suspense fallback={<LoadingState label="Loading the 3D view…" />}>
-            <SightlineScene {...props} />
-          </Suspense>
-        </SceneBoundary>
+        <Scene3dFrame fallback={NoWebGL}>
+          <SightlineScene {...props} />
+        </Scene3dFrame>
       </View>
       <AppText variant="small" tone="muted">
         Drag sideways to turn the view. Heights exaggerated; grey on the target is its hidden part.

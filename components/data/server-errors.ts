@@ -45,3 +45,22 @@ export function applyServerErrors<T extends FieldValues>(
   }
   return error instanceof Error ? error.message : 'Something went wrong.';
 }
+
+/**
+ * The one way a form with a versioned record handles a failed save: a stale
+ * version (someone else saved first) calls `onStale`, so the form can offer to
+ * reload; anything else goes through `applyServerErrors` and its message to
+ * `onMessage`.
+ *
+ * @example
+ * onError: (e) => handleSaveError(e, setError, FIELDS, { onStale: () => setStale(true), onMessage: setFormError })
+ */
+export function handleSaveError<T extends FieldValues>(
+  error: unknown,
+  setError: UseFormSetError<T>,
+  fields: ServerFieldMap<T>,
+  { onStale, onMessage }: { onStale: () => void; onMessage: (message: string) => void },
+): void {
+  if (error instanceof ApiRequestError && error.code === 'stale_version') onStale();
+  else onMessage(applyServerErrors(error, setError, fields));
+}

@@ -1,6 +1,6 @@
 // Over 300 lines: one form (post, north, instrument, readings) with its resolver, idempotency and outbox handling.
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { Controller, useForm, type FieldErrors, type Resolver } from 'react-hook-form';
+import { useForm, type FieldErrors, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';
 import { modelDeclination } from '@/shared/fixes/declination';
 import { BEARING_INSTRUMENTS } from '@/shared/fixes/instruments';
@@ -40,6 +40,9 @@ interface ReportForm {
   kind: SightingKind;
   note: string;
 }
+
+/** The fields typed as angles in degrees. */
+type DegreeField = 'bearingDeg' | 'declinationDeg' | 'bearingSigmaDeg' | 'verticalAngleDeg' | 'verticalAngleSigmaDeg';
 
 type ReportFields = Omit<IncidentReportInput, 'observedAt' | 'idempotencyKey'>;
 
@@ -121,6 +124,18 @@ function requiredMessage(field: keyof ReportForm): string {
 function signatureOf(fields: ReportFields): string {
   return JSON.stringify(fields);
 }
+
+/** Which north a bearing is read from. */
+const NORTH_OPTIONS = [
+  { id: 'true', name: 'True north' },
+  { id: 'magnetic', name: 'Magnetic (compass)' },
+];
+
+/** What a vertical angle is measured from. */
+const VERTICAL_REFERENCE_OPTIONS = [
+  { id: 'horizontal', name: 'The horizontal (level)' },
+  { id: 'horizon', name: 'The sea horizon' },
+];
 
 /**
  * Reporting a bearing to what is seen from one of the site's posts. The
@@ -232,29 +247,25 @@ export function ReportBearingForm({
     );
   });
 
+  /** An angle field of the report, in degrees; Enter sends the report. */
+  const degrees = (name: DegreeField, label: string, hint: string) => (
+    <FormTextField
+      control={control}
+      name={name}
+      label={label}
+      unit="°"
+      inputMode="decimal"
+      hint={hint}
+      onSubmitEditing={() => void onSubmit()}
+    />
+  );
+
   return (
     <Card style={{ gap: space.md }} aria-label="Report a bearing">
       <AppText variant="heading">Report a bearing</AppText>
       <FormChipChoice control={control} name="postId" label="From the post" options={posts} />
-      <FormTextField
-        control={control}
-        name="bearingDeg"
-        label="Bearing"
-        unit="°"
-        inputMode="decimal"
-        hint="Degrees clockwise from north, 0–360."
-        onSubmitEditing={() => void onSubmit()}
-      />
-      <Controller
-        control={control}
-        name="bearingReference"
-        render={({ field }) => (
-          <ChipRow label="North used">
-            <Chip label="True north" on={field.value === 'true'} onPress={() => field.onChange('true')} />
-            <Chip label="Magnetic (compass)" on={field.value === 'magnetic'} onPress={() => field.onChange('magnetic')} />
-          </ChipRow>
-        )}
-      />
+      {degrees('bearingDeg', 'Bearing', 'Degrees clockwise from north, 0–360.')}
+      <FormChipChoice control={control} name="bearingReference" label="North used" options={NORTH_OPTIONS} />
       {reference === 'magnetic' ? (
         <View style={{ gap: space.sm }}>
           <Notice tone="info" title="Declination">
@@ -268,15 +279,11 @@ export function ReportBearingForm({
                 : 'Choose the post: the declination is worked out for its place and today’s date.'}
             </AppText>
           </Notice>
-          <FormTextField
-            control={control}
-            name="declinationDeg"
-            label="Declination (optional)"
-            unit="°"
-            inputMode="decimal"
-            hint="East positive, e.g. 3.5 for 3.5° E or −2 for 2° W. Leave empty to use the model’s."
-            onSubmitEditing={() => void onSubmit()}
-          />
+          {degrees(
+            'declinationDeg',
+            'Declination (optional)',
+            'East positive, e.g. 3.5 for 3.5° E or −2 for 2° W. Leave empty to use the model’s.',
+          )}
         </View>
       ) : null}
       <ChipRow label="Instrument">
@@ -292,49 +299,29 @@ export function ReportBearingForm({
           />
         ))}
       </ChipRow>
-      <FormTextField
-        control={control}
-        name="bearingSigmaDeg"
-        label="Uncertainty of the bearing"
-        unit="°"
-        inputMode="decimal"
-        hint="One standard deviation; the instrument fills it in, type your own if you know better."
-        onSubmitEditing={() => void onSubmit()}
-      />
-      <FormTextField
-        control={control}
-        name="verticalAngleDeg"
-        label="Vertical angle (optional)"
-        unit="°"
-        inputMode="decimal"
-        hint="Below the horizontal is negative, e.g. −1.5 to the base of a smoke below the tower. While only one post reports, the smoke is placed where this sight line meets the ground."
-        onSubmitEditing={() => void onSubmit()}
-      />
+      {degrees(
+        'bearingSigmaDeg',
+        'Uncertainty of the bearing',
+        'One standard deviation; the instrument fills it in, type your own if you know better.',
+      )}
+      {degrees(
+        'verticalAngleDeg',
+        'Vertical angle (optional)',
+        'Below the horizontal is negative, e.g. −1.5 to the base of a smoke below the tower. While only one post reports, the smoke is placed where this sight line meets the ground.',
+      )}
       {verticalTyped ? (
         <View style={{ gap: space.sm }}>
-          <Controller
+          <FormChipChoice
             control={control}
             name="verticalAngleReference"
-            render={({ field }) => (
-              <ChipRow label="Vertical angle measured from">
-                <Chip
-                  label="The horizontal (level)"
-                  on={field.value === 'horizontal'}
-                  onPress={() => field.onChange('horizontal')}
-                />
-                <Chip label="The sea horizon" on={field.value === 'horizon'} onPress={() => field.onChange('horizon')} />
-              </ChipRow>
-            )}
+            label="Vertical angle measured from"
+            options={VERTICAL_REFERENCE_OPTIONS}
           />
-          <FormTextField
-            control={control}
-            name="verticalAngleSigmaDeg"
-            label="Uncertainty of the vertical angle"
-            unit="°"
-            inputMode="decimal"
-            hint="One standard deviation: 0.1° for a level clinometer read to a tenth; 0.25–0.5° for a hand clinometer."
-            onSubmitEditing={() => void onSubmit()}
-          />
+          {degrees(
+            'verticalAngleSigmaDeg',
+            'Uncertainty of the vertical angle',
+            'One standard deviation: 0.1° for a level clinometer read to a tenth; 0.25–0.5° for a hand clinometer.',
+          )}
           <Notice tone="caution" title="A range from one angle is an estimate">
             <AppText variant="small">
               Refraction near the horizon varies widely, and a tenth of a degree can move a point seen just below it by
@@ -343,16 +330,11 @@ export function ReportBearingForm({
           </Notice>
         </View>
       ) : null}
-      <Controller
+      <FormChipChoice
         control={control}
         name="kind"
-        render={({ field }) => (
-          <ChipRow label="What is seen">
-            {SIGHTING_KINDS.map((k) => (
-              <Chip key={k} label={SIGHTING_LABELS[k]} on={field.value === k} onPress={() => field.onChange(k)} />
-            ))}
-          </ChipRow>
-        )}
+        label="What is seen"
+        options={SIGHTING_KINDS.map((k) => ({ id: k, name: SIGHTING_LABELS[k] }))}
       />
       <FormTextField control={control} name="note" label="Note (optional)" placeholder="e.g. white smoke, drifting east" />
       <FormError message={formError} />

@@ -14,11 +14,11 @@ import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { REFRACTION_PRESET_IDS, refractionPreset, type RefractionPresetId } from '@/shared/sightline/refraction-presets';
 import { describeCondition } from './describe-condition';
 import { StaleNotice } from './stale-notice';
-import { Segmented } from '@/components/check/unit-switch';
-import { ApiRequestError } from '@/components/data/api-client';
 import { useCreateConditionSet, useReloadLibrary, useUpdateConditionSet } from '@/components/data/library';
-import { applyServerErrors } from '@/components/data/server-errors';
+import { handleSaveError } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
+import { VISIBILITY_KIND_OPTIONS } from '@/components/check/format';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -156,13 +156,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
     const known = ['name', 'visibilityM', 'visibilityKind', 'seaState', 'significantWaveHeightM', 'backgroundLighting'];
     return known.includes(root ?? '') ? (root as Path<ConditionSetFormValues>) : undefined;
   };
-  const onError = (e: Error) => {
-    if (e instanceof ApiRequestError && e.code === 'stale_version') {
-      setStale(true);
-      return;
-    }
-    setFailed(applyServerErrors(e, setError, fieldOf));
-  };
+  const onError = (e: unknown) => handleSaveError(e, setError, fieldOf, { onStale: () => setStale(true), onMessage: setFailed });
   const save = handleSubmit((input) => {
     setFailed('');
     setAdded('');
@@ -239,21 +233,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
             onSubmitEditing={submit}
           />
         </View>
-        <Controller
-          control={control}
-          name="visibilityKind"
-          render={({ field }) => (
-            <Segmented
-              label="Reported as"
-              value={field.value}
-              onChange={field.onChange}
-              options={[
-                { value: 'mor-5pct', label: 'MOR (5 %)' },
-                { value: 'meteorological-range-2pct', label: 'Met. range (2 %)' },
-              ]}
-            />
-          )}
-        />
+        <FormSegmented control={control} name="visibilityKind" label="Reported as" options={VISIBILITY_KIND_OPTIONS} />
       </View>
       <Controller
         control={control}
@@ -288,17 +268,11 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
         }}
         onSubmitEditing={submit}
       />
-      <Controller
+      <FormSegmented
         control={control}
         name="backgroundLighting"
-        render={({ field }) => (
-          <Segmented
-            label="Lights behind a target at night"
-            value={field.value}
-            onChange={field.onChange}
-            options={LIGHTING_OPTIONS}
-          />
-        )}
+        label="Lights behind a target at night"
+        options={LIGHTING_OPTIONS}
       />
       {stale ? <StaleNotice what="condition set" onReload={() => void reload()} /> : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>

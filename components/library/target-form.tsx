@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { z } from 'zod';
 import {
@@ -13,10 +13,10 @@ import {
 import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
 import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { Segmented } from '@/components/check/unit-switch';
-import { ApiRequestError } from '@/components/data/api-client';
 import { useCreateTarget, useReloadLibrary, useUpdateTarget } from '@/components/data/library';
-import { applyServerErrors } from '@/components/data/server-errors';
+import { handleSaveError } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -84,6 +84,12 @@ function valuesOf(t: Target | undefined, units: UnitSystem): TargetFormValues {
 
 const FIELDS = ['name', 'kind', 'period', 'heightM', 'widthM', 'requiredVisibleM', 'lightIntensityCd', 'onWater'] as const;
 
+/** When a target is looked for. */
+const PERIOD_OPTIONS: { value: 'day' | 'night'; label: string }[] = [
+  { value: 'day', label: 'Day' },
+  { value: 'night', label: 'Night' },
+];
+
 /**
  * A target profile: a new one, or — given `target` — an edit of it saved with
  * the version it was loaded at (what it is, how tall and wide in the person's
@@ -111,13 +117,7 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
   // Floats by default for kinds found on the water, until the planner says otherwise.
   const onWater = chosenWater ?? WATER_TARGET_KINDS.includes(kind);
 
-  const onError = (e: Error) => {
-    if (e instanceof ApiRequestError && e.code === 'stale_version') {
-      setStale(true);
-      return;
-    }
-    setFailed(applyServerErrors(e, setError, FIELDS));
-  };
+  const onError = (e: unknown) => handleSaveError(e, setError, FIELDS, { onStale: () => setStale(true), onMessage: setFailed });
   const save = handleSubmit((input) => {
     setFailed('');
     setAdded('');
@@ -142,17 +142,11 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
       <FormError message={failed} />
       <View aria-live="polite">{added ? <AppText variant="small">{added}</AppText> : null}</View>
       <FormTextField control={control} name="name" label="Name" onSubmitEditing={submit} />
-      <Controller
+      <FormSegmented
         control={control}
         name="kind"
-        render={({ field }) => (
-          <Segmented<Kind>
-            label="Kind"
-            value={field.value}
-            onChange={field.onChange}
-            options={TARGET_KINDS.map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))}
-          />
-        )}
+        label="Kind"
+        options={TARGET_KINDS.map((k) => ({ value: k, label: TARGET_KIND_LABELS[k] }))}
       />
       <UnitsField control={control} name="units" />
       <View style={{ flexDirection: 'row', gap: space.md }}>
@@ -178,21 +172,7 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
         hint={`E.g. the upper ${heightUnit === 'ft' ? '100 ft' : '30 m'} of a smoke column; 0 when any part will do.`}
         onSubmitEditing={submit}
       />
-      <Controller
-        control={control}
-        name="period"
-        render={({ field }) => (
-          <Segmented
-            label="Seen by"
-            value={field.value}
-            onChange={field.onChange}
-            options={[
-              { value: 'day', label: 'Day' },
-              { value: 'night', label: 'Night' },
-            ]}
-          />
-        )}
-      />
+      <FormSegmented control={control} name="period" label="Seen by" options={PERIOD_OPTIONS} />
       {period === 'night' || kind === 'light' ? (
         <FormTextField
           control={control}

@@ -1,19 +1,8 @@
 import { memo, useMemo } from 'react';
 import Svg, { Rect } from 'react-native-svg';
-import type { EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
-import type { ClassPalette } from './class-palettes';
+import type { ClassRasterOverlayProps } from './class-raster-overlay-props';
 import { classRasterBounds, classRuns } from './class-raster-pixels';
-import { gridRectToScreen, type MapCamera, type MapSize } from './map-camera';
-
-export interface ClassRasterOverlayProps {
-  /** The layer as the API sends it (grid + run-length data). */
-  raster: EncodedClassRaster;
-  /** Its decoded codes (`useDecodedRaster`), row 0 = north. */
-  values: Uint8Array;
-  palette: ClassPalette;
-  camera: MapCamera;
-  size: MapSize;
-}
+import { gridRectToScreen } from './map-camera';
 
 /**
  * Native (no canvas): the drawn classes as one SVG rectangle per run of equal

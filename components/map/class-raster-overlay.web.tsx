@@ -1,18 +1,7 @@
 import { createElement, useMemo } from 'react';
-import type { EncodedClassRaster } from '@/shared/terrain/encoded-class-raster';
-import type { ClassPalette } from './class-palettes';
+import type { ClassRasterOverlayProps } from './class-raster-overlay-props';
 import { classRasterBounds, paintClassRaster } from './class-raster-pixels';
-import { gridRectToScreen, type MapCamera, type MapSize } from './map-camera';
-
-export interface ClassRasterOverlayProps {
-  /** The layer as the API sends it (grid + run-length data). */
-  raster: EncodedClassRaster;
-  /** Its decoded codes (`useDecodedRaster`), row 0 = north. */
-  values: Uint8Array;
-  palette: ClassPalette;
-  camera: MapCamera;
-  size: MapSize;
-}
+import { gridRectToScreen } from './map-camera';
 
 /**
  * Web: the class raster painted once into an offscreen canvas (one pixel per

@@ -2,7 +2,7 @@ import { useQueries } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
 import { useMemo } from 'react';
 import { View } from 'react-native';
-import Svg, { Circle, G, Line, Polygon, Polyline } from 'react-native-svg';
+import { Circle, G, Line, Polygon, Polyline } from 'react-native-svg';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import type { CoordinateFormat } from '@/shared/geo/types';
 import type { IncidentDetail } from '@/shared/schemas/incident';
@@ -10,9 +10,10 @@ import { incidentQuery, useIncidents } from '@/components/data/incidents';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { colors, space } from '@/components/ui/theme';
-import { gridToScreen, type MapCamera, type MapSize } from './map-camera';
+import type { MapCamera, MapSize } from './map-camera';
 import { incidentShapes, type IncidentShape } from './incident-shapes';
 import { HaloText } from './map-features';
+import { OverlaySvg, overlayPoint } from './overlay-svg';
 import type { SiteMapFrame } from './site-map-frame';
 
 /** Bearing lines and error areas: the ember of the app's own marks, the flagged bearing in the danger red. */
@@ -68,24 +69,14 @@ export function IncidentOverlay({
   margin: number;
 }) {
   if (shapes.length === 0) return null;
-  const at = (p: { x: number; y: number }) => {
-    const s = gridToScreen(camera, size, p.x, p.y);
-    return { x: s.x + margin, y: s.y + margin };
-  };
+  const at = overlayPoint(camera, size, margin);
   const list = (points: readonly { x: number; y: number }[]) =>
     points
       .map((p) => at(p))
       .map((p) => `${p.x.toFixed(1)},${p.y.toFixed(1)}`)
       .join(' ');
   return (
-    <Svg
-      width={size.width + 2 * margin}
-      height={size.height + 2 * margin}
-      style={{ position: 'absolute', left: -margin, top: -margin }}
-      pointerEvents="none"
-      aria-hidden
-      testID="incident-overlay"
-    >
+    <OverlaySvg size={size} margin={margin} testID="incident-overlay">
       {shapes.map((shape) => {
         const fix = shape.fix ? at(shape.fix) : null;
         return (
@@ -115,7 +106,7 @@ export function IncidentOverlay({
           </G>
         );
       })}
-    </Svg>
+    </OverlaySvg>
   );
 }
 

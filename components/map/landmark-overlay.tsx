@@ -1,10 +1,11 @@
 import { useMemo } from 'react';
-import Svg, { G, Polygon } from 'react-native-svg';
+import { G, Polygon } from 'react-native-svg';
 import type { Landmark } from '@/shared/schemas/landmark';
 import { useSiteLandmarks } from '@/components/data/landmarks';
 import { colors } from '@/components/ui/theme';
-import { gridToScreen, type MapCamera, type MapSize } from './map-camera';
+import type { MapCamera, MapSize } from './map-camera';
 import { HaloText } from './map-features';
+import { OverlaySvg, overlayPoint } from './overlay-svg';
 import type { SiteMapFrame } from './site-map-frame';
 
 /** A landmark as the map draws it, in grid metres. */
@@ -37,19 +38,11 @@ export function LandmarkOverlay({
   margin: number;
 }) {
   if (points.length === 0) return null;
+  const at = overlayPoint(camera, size, margin);
   return (
-    <Svg
-      width={size.width + 2 * margin}
-      height={size.height + 2 * margin}
-      style={{ position: 'absolute', left: -margin, top: -margin }}
-      pointerEvents="none"
-      aria-hidden
-      testID="landmark-overlay"
-    >
+    <OverlaySvg size={size} margin={margin} testID="landmark-overlay">
       {points.map((m) => {
-        const s = gridToScreen(camera, size, m.x, m.y);
-        const x = s.x + margin;
-        const y = s.y + margin;
+        const { x, y } = at(m);
         return (
           <G key={m.id}>
             <Polygon
@@ -62,6 +55,6 @@ export function LandmarkOverlay({
           </G>
         );
       })}
-    </Svg>
+    </OverlaySvg>
   );
 }

@@ -272,32 +272,21 @@ export function HaloText({
   bold?: boolean;
   italic?: boolean;
 }) {
-  const font = bold ? fonts.semibold : fonts.medium;
+  // The same text twice: first as a thick white outline, then in its colour over it.
+  const placed = {
+    x,
+    y,
+    fontSize: 13,
+    fontFamily: bold ? fonts.semibold : fonts.medium,
+    fontStyle: italic ? 'italic' : 'normal',
+    textAnchor: anchor,
+  } as const;
   return (
     <G>
-      <SvgText
-        x={x}
-        y={y}
-        fontSize={13}
-        fontFamily={font}
-        fontStyle={italic ? 'italic' : 'normal'}
-        textAnchor={anchor}
-        stroke="#FFFFFF"
-        strokeWidth={3.5}
-        strokeLinejoin="round"
-        fill="#FFFFFF"
-      >
+      <SvgText {...placed} stroke="#FFFFFF" strokeWidth={3.5} strokeLinejoin="round" fill="#FFFFFF">
         {text}
       </SvgText>
-      <SvgText
-        x={x}
-        y={y}
-        fontSize={13}
-        fontFamily={font}
-        fontStyle={italic ? 'italic' : 'normal'}
-        textAnchor={anchor}
-        fill={color}
-      >
+      <SvgText {...placed} fill={color}>
         {text}
       </SvgText>
     </G>

@@ -1,10 +1,11 @@
-import { Component, lazy, Suspense, useMemo, type ReactNode } from 'react';
+import { lazy, useMemo } from 'react';
 import { View } from 'react-native';
 import type { SceneDrape } from '@/scenes/terrain/coverage-drape';
 import type { ScenePost, SceneTarget } from '@/scenes/terrain/terrain-scene';
 import { defaultExaggeration } from '@/scenes/terrain/terrain-geometry';
 import { useTerrainMesh } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
+import { hasWebGL, Scene3dFrame } from '@/components/ui/scene-3d-frame';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { colors, radius, space } from '@/components/ui/theme';
 import type { ShownLayer } from './map-viewport';
@@ -13,27 +14,6 @@ import type { SiteMapFrame } from './site-map-frame';
 // Loaded on demand: three.js and the scene stay out of the first bundle and never block first paint.
 // Through the one 3D module (see scenes/scenes-3d.ts), so three.js is in one async chunk.
 const TerrainScene = lazy(() => import('@/scenes/scenes-3d').then((m) => ({ default: m.TerrainScene })));
-
-/** Whether the browser can draw WebGL at all (checked before loading three.js). */
-export function hasWebGL(): boolean {
-  if (typeof document === 'undefined') return false;
-  try {
-    const canvas = document.createElement('canvas');
-    return !!(canvas.getContext('webgl2') ?? canvas.getContext('webgl'));
-  } catch {
-    return false;
-  }
-}
-
-class SceneBoundary extends Component<{ fallback: ReactNode; children: ReactNode }, { failed: boolean }> {
-  override state = { failed: false };
-  static getDerivedStateFromError() {
-    return { failed: true };
-  }
-  override render() {
-    return this.state.failed ? this.props.fallback : this.props.children;
-  }
-}
 
 function Fallback({ reason }: { reason: string }) {
   return (
@@ -79,19 +59,17 @@ export function Terrain3d({
   return (
     <View style={{ flex: 1 }}>
       <View style={{ flex: 1 }} aria-label="3D terrain view" role="img">
-        <SceneBoundary fallback={<Fallback reason="The 3D view failed to start on this device." />}>
-          <Suspense fallback={<LoadingState label="Loading the 3D view…" />}>
-            <TerrainScene
-              mesh={mesh.data}
-              texture={{ url: frame.base.url, bounds: frame.base.rect }}
-              exaggeration={exaggeration}
-              posts={posts}
-              chosenPostId={chosenPostId}
-              targets={targets}
-              drape={sceneDrape}
-            />
-          </Suspense>
-        </SceneBoundary>
+        <Scene3dFrame fallback={<Fallback reason="The 3D view failed to start on this device." />}>
+          <TerrainScene
+            mesh={mesh.data}
+            texture={{ url: frame.base.url, bounds: frame.base.rect }}
+            exaggeration={exaggeration}
+            posts={posts}
+            chosenPostId={chosenPostId}
+            targets={targets}
+            drape={sceneDrape}
+          />
+        </Scene3dFrame>
       </View>
       <View
         style={{

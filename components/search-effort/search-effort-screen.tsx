@@ -8,6 +8,7 @@ import { Segmented } from '@/components/check/unit-switch';
 import { applyServerErrors } from '@/components/data/server-errors';
 import { useSession, useUnitSystem } from '@/components/data/session';
 import { useEvaluateSweep, useRetireSweepWidthTable, useSweepWidthTables } from '@/components/data/sweep-width';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -170,17 +171,11 @@ export function SearchEffortScreen() {
         />
       ) : null}
       {source !== 'curve' ? (
-        <Controller
+        <FormSegmented
           control={control}
           name="model"
-          render={({ field }) => (
-            <Segmented
-              label="Detection law"
-              value={field.value}
-              onChange={field.onChange}
-              options={SWEEP_MODELS.map((m) => ({ value: m, label: SWEEP_MODEL_LABELS[m] }))}
-            />
-          )}
+          label="Detection law"
+          options={SWEEP_MODELS.map((m) => ({ value: m, label: SWEEP_MODEL_LABELS[m] }))}
         />
       ) : null}
       <UnitNumberField

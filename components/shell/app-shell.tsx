@@ -1,6 +1,6 @@
 import { Slot, usePathname, useRouter } from 'expo-router';
 import { useEffect, useState } from 'react';
-import { Modal, Pressable, StyleSheet, View } from 'react-native';
+import { Modal, Pressable, StyleSheet, View, type StyleProp, type ViewStyle } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { useSession } from '@/components/data/session';
 import { AppText } from '@/components/ui/app-text';
@@ -37,27 +37,21 @@ export function AppShell() {
           <View style={{ paddingHorizontal: space.lg, paddingVertical: space.xl }}>
             <Wordmark inverse />
           </View>
-          {items.map((item) => {
-            const active = isActive(item, pathname);
-            return (
-              <Pressable
-                key={item.label}
-                role="link"
-                aria-current={active ? 'page' : undefined}
-                onPress={() => router.navigate(item.href)}
-                style={({ pressed }) => [
-                  styles.railItem,
-                  active && styles.railItemActive,
-                  pressed && { backgroundColor: colors.nightRaised },
-                ]}
-              >
-                <item.Icon color={active ? colors.lantern : colors.railText} />
-                <AppText variant="label" style={{ color: active ? colors.lantern : colors.railText, fontSize: 16 }}>
-                  {item.label}
-                </AppText>
-              </Pressable>
-            );
-          })}
+          {items.map((item) => (
+            <NavLink
+              key={item.label}
+              item={item}
+              active={isActive(item, pathname)}
+              onPress={() => router.navigate(item.href)}
+              style={(pressed, active) => [
+                styles.railItem,
+                active && styles.railItemActive,
+                pressed && { backgroundColor: colors.nightRaised },
+              ]}
+              labelColor={colors.railText}
+              fontSize={16}
+            />
+          ))}
           <View style={{ flex: 1 }} />
           {user ? (
             <View style={styles.railUser}>
@@ -125,23 +119,17 @@ function PhoneShell({ items, pathname, bottomInset }: { items: NavItem[]; pathna
             role="navigation"
             aria-label="More places"
           >
-            {more.map((item) => {
-              const active = isActive(item, pathname);
-              return (
-                <Pressable
-                  key={item.label}
-                  role="link"
-                  aria-current={active ? 'page' : undefined}
-                  onPress={() => go(item)}
-                  style={({ pressed }) => [styles.moreItem, (active || pressed) && { backgroundColor: colors.nightRaised }]}
-                >
-                  <item.Icon color={active ? colors.lantern : colors.railText} />
-                  <AppText variant="label" style={{ color: active ? colors.lantern : colors.surface, fontSize: 17 }}>
-                    {item.label}
-                  </AppText>
-                </Pressable>
-              );
-            })}
+            {more.map((item) => (
+              <NavLink
+                key={item.label}
+                item={item}
+                active={isActive(item, pathname)}
+                onPress={() => go(item)}
+                style={(pressed, active) => [styles.moreItem, (active || pressed) && { backgroundColor: colors.nightRaised }]}
+                labelColor={colors.surface}
+                fontSize={17}
+              />
+            ))}
           </View>
         </View>
       </Modal>
@@ -178,6 +166,38 @@ function BarItem({
         style={{ color: active ? colors.lantern : colors.railText, fontSize: 12, lineHeight: 15 }}
       >
         {label}
+      </AppText>
+    </Pressable>
+  );
+}
+
+/** One place in a navigation list (the rail, the "more" sheet): its icon and name, lantern-lit when it is the current page. */
+function NavLink({
+  item,
+  active,
+  onPress,
+  style,
+  labelColor,
+  fontSize,
+}: {
+  item: NavItem;
+  active: boolean;
+  onPress: () => void;
+  style: (pressed: boolean, active: boolean) => StyleProp<ViewStyle>;
+  /** The name's colour when the place is not the current page. */
+  labelColor: string;
+  fontSize: number;
+}) {
+  return (
+    <Pressable
+      role="link"
+      aria-current={active ? 'page' : undefined}
+      onPress={onPress}
+      style={({ pressed }) => style(pressed, active)}
+    >
+      <item.Icon color={active ? colors.lantern : colors.railText} />
+      <AppText variant="label" style={{ color: active ? colors.lantern : labelColor, fontSize }}>
+        {item.label}
       </AppText>
     </Pressable>
   );

@@ -11,6 +11,7 @@ import { convertSpeed, SPEED_UNIT_OF_SYSTEM, type SpeedUnit } from '@/shared/uni
 import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
+import { FieldRow } from '@/components/ui/field-row';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { colors, radius, space } from '@/components/ui/theme';
 import type { RingDrawContext } from './ring-draw-map';
@@ -153,20 +154,16 @@ export function PatrolFields<T extends FieldValues, TOut>({
           </AppText>
         </View>
       ) : null}
-      <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-        <View style={{ flex: 1, minWidth: 140 }}>
-          <FormTextField control={control} name={'speedMps' as Path<T>} label="Speed" unit={speedUnit} inputMode="decimal" />
-        </View>
-        <View style={{ flex: 1, minWidth: 140 }}>
-          <FormTextField
-            control={control}
-            name={'cycleMinutes' as Path<T>}
-            label="Cycle (time on station)"
-            unit="min"
-            inputMode="decimal"
-          />
-        </View>
-      </View>
+      <FieldRow minWidth={140} gap={space.md}>
+        <FormTextField control={control} name={'speedMps' as Path<T>} label="Speed" unit={speedUnit} inputMode="decimal" />
+        <FormTextField
+          control={control}
+          name={'cycleMinutes' as Path<T>}
+          label="Cycle (time on station)"
+          unit="min"
+          inputMode="decimal"
+        />
+      </FieldRow>
       {speedMps !== null && !Number.isNaN(speedMps) ? (
         <AppText variant="small" tone="muted">
           {speedValue.trim()} {speedUnit} = {speedMps.toFixed(2)} m/s (stored)

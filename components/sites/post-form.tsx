@@ -1,6 +1,6 @@
 // Over 300 lines: one post form (kind, place, heights, sector) with its units and terrain lookup.
 import { useEffect, useRef, useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { z } from 'zod';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
@@ -10,15 +10,15 @@ import { isPatrolKind, POST_KIND_LABELS, POST_KINDS, PostInputSchema, type Post,
 import { convertSpeed, SPEED_UNIT_OF_SYSTEM } from '@/shared/units/speed';
 import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
 import { UNIT_SYSTEM_IDS, UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
-import { ApiRequestError } from '@/components/data/api-client';
-import { applyServerErrors } from '@/components/data/server-errors';
+import { handleSaveError } from '@/components/data/server-errors';
 import { useUnitSystem } from '@/components/data/session';
 import { useCreatePost, useSite, useSitePosts, useUpdatePost } from '@/components/data/sites';
 import { useSiteTerrain } from '@/components/data/terrain';
-import { Segmented } from '@/components/check/unit-switch';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { FieldRow } from '@/components/ui/field-row';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError, Notice } from '@/components/ui/states';
 import { space } from '@/components/ui/theme';
@@ -146,6 +146,12 @@ const FIELDS = [
   'cycleMinutes',
 ] as const;
 
+/** Whether a post stands or is only planned. */
+const STATUS_OPTIONS: { value: 'existing' | 'proposed'; label: string }[] = [
+  { value: 'existing', label: 'Existing' },
+  { value: 'proposed', label: 'Proposed' },
+];
+
 /**
  * A post's form: a new post, or — given `post` — an edit of that post saved
  * with the version it was loaded at. Coordinates in any usual format (DD,
@@ -199,13 +205,8 @@ export function PostForm({
       setValue('speedMps', speedText(convertSpeed(typed, from), SPEED_UNIT_OF_SYSTEM[units]));
   }, [units, getValues, setValue]);
 
-  const onError = (e: Error) => {
-    if (e instanceof ApiRequestError && e.code === 'stale_version') {
-      setStale(true);
-      return;
-    }
-    setFormError(applyServerErrors(e, setError, FIELDS));
-  };
+  const onError = (e: unknown) =>
+    handleSaveError(e, setError, FIELDS, { onStale: () => setStale(true), onMessage: setFormError });
 
   const save = handleSubmit((out) => {
     setFormError('');
@@ -234,17 +235,11 @@ export function PostForm({
       <AppText variant="heading">{post ? 'Edit this post' : 'Add a post'}</AppText>
       <FormError message={formError} />
       <FormTextField control={control} name="name" label="Name" onSubmitEditing={submit} />
-      <Controller
+      <FormSegmented
         control={control}
         name="kind"
-        render={({ field }) => (
-          <Segmented<Kind>
-            label="Kind"
-            value={field.value}
-            onChange={field.onChange}
-            options={POST_KINDS.map((k) => ({ value: k, label: POST_KIND_LABELS[k] }))}
-          />
-        )}
+        label="Kind"
+        options={POST_KINDS.map((k) => ({ value: k, label: POST_KIND_LABELS[k] }))}
       />
       <FormTextField
         control={control}
@@ -264,8 +259,8 @@ export function PostForm({
         </AppText>
       ) : null}
       <UnitsField control={control} name="units" />
-      <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-        <View style={{ flex: 1, minWidth: 140 }}>
+      <FieldRow minWidth={140} gap={space.md}>
+        <>
           <UnitNumberField
             control={control}
             name="groundElevationM"
@@ -279,26 +274,22 @@ export function PostForm({
             unit={heightUnit}
             onElevation={(m) => setValue('groundElevationM', lengthText(m, heightUnit), { shouldValidate: false })}
           />
-        </View>
-        <View style={{ flex: 1, minWidth: 140 }}>
-          <UnitNumberField
-            control={control}
-            name="structureHeightM"
-            unit={heightUnit}
-            label="Structure height"
-            onSubmitEditing={submit}
-          />
-        </View>
-        <View style={{ flex: 1, minWidth: 140 }}>
-          <UnitNumberField
-            control={control}
-            name="eyeHeightM"
-            unit={heightUnit}
-            label="Eye above platform"
-            onSubmitEditing={submit}
-          />
-        </View>
-      </View>
+        </>
+        <UnitNumberField
+          control={control}
+          name="structureHeightM"
+          unit={heightUnit}
+          label="Structure height"
+          onSubmitEditing={submit}
+        />
+        <UnitNumberField
+          control={control}
+          name="eyeHeightM"
+          unit={heightUnit}
+          label="Eye above platform"
+          onSubmitEditing={submit}
+        />
+      </FieldRow>
       <View style={{ flexDirection: 'row', gap: space.md }}>
         <View style={{ flex: 1 }}>
           <FormTextField
@@ -340,21 +331,7 @@ export function PostForm({
           }}
         />
       ) : null}
-      <Controller
-        control={control}
-        name="status"
-        render={({ field }) => (
-          <Segmented
-            label="Status"
-            value={field.value}
-            onChange={field.onChange}
-            options={[
-              { value: 'existing', label: 'Existing' },
-              { value: 'proposed', label: 'Proposed' },
-            ]}
-          />
-        )}
-      />
+      <FormSegmented control={control} name="status" label="Status" options={STATUS_OPTIONS} />
       {/* Beside the button just pressed, so it is seen on a phone too. */}
       {stale ? (
         <Notice tone="danger" title="Not saved: this post changed">

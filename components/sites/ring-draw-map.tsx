@@ -1,27 +1,21 @@
 // Over 300 lines: drawing a ring by taps: vertices, drag, undo and closing share one gesture state.
-import { useMemo, useRef, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { View } from 'react-native';
-import Svg, { Circle, Line, Polygon, Polyline } from 'react-native-svg';
+import { Circle, Polygon, Polyline } from 'react-native-svg';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
-import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { parseCoordinate } from '@/shared/geo/parse-coordinate';
 import type { LatLon } from '@/shared/geo/types';
 import { RingSchema, ShorelineSchema, type Post, type PriorityZone, type Site } from '@/shared/schemas/site';
 import type { SiteTerrain } from '@/shared/schemas/terrain';
-import { useCoordinateFormat } from '@/components/map/coordinate-format';
-import { gridLines } from '@/components/map/grid-lines';
-import { gridToScreen } from '@/components/map/map-camera';
-import { HANDLE_REACH_PX, MapViewport, type MapHandles } from '@/components/map/map-viewport';
-import { createReadoutStore } from '@/components/map/readout-store';
+import { HANDLE_REACH_PX } from '@/components/map/map-viewport';
 import { siteMapFrame, type SiteMapFrame } from '@/components/map/site-map-frame';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
-import { colors, radius, space } from '@/components/ui/theme';
-import { useLayout } from '@/components/ui/use-layout';
+import { colors, space } from '@/components/ui/theme';
+import { DrawingMap, useDrawing, type GridPoint } from './drawing-map';
 import type { Ring } from './ring-text-entry';
 
-type GridPoint = { x: number; y: number };
 interface Drawing {
   readonly points: readonly GridPoint[];
   readonly closed: boolean;
@@ -190,23 +184,26 @@ function Drawer({
   onCancel: () => void;
   line: boolean;
 }) {
-  const { wide } = useLayout();
-  const [readout] = useState(createReadoutStore);
-  const [format, setFormat] = useCoordinateFormat();
-  const [drawing, setDrawing] = useState<Drawing>(() =>
-    line && ring && ring.length >= 2
-      ? { points: ring.map(([lonDeg, latDeg]) => frame.projection.toGrid({ latDeg, lonDeg })), closed: false }
-      : ring && ring.length >= 3
-        ? { points: closedOf(ring).map(([lonDeg, latDeg]) => frame.projection.toGrid({ latDeg, lonDeg })), closed: true }
-        : { points: [], closed: false },
+  const {
+    drawing,
+    change: changeDrawing,
+    undo: undoDrawing,
+    canUndo,
+    handles,
+  } = useDrawing<Drawing>(
+    () =>
+      line && ring && ring.length >= 2
+        ? { points: ring.map(([lonDeg, latDeg]) => frame.projection.toGrid({ latDeg, lonDeg })), closed: false }
+        : ring && ring.length >= 3
+          ? { points: closedOf(ring).map(([lonDeg, latDeg]) => frame.projection.toGrid({ latDeg, lonDeg })), closed: true }
+          : { points: [], closed: false },
+    (d) => d.points,
+    (d, index, point) => ({ ...d, points: d.points.map((p, i) => (i === index ? point : p)) }),
   );
-  const [history, setHistory] = useState<Drawing[]>([]);
   const [problem, setProblem] = useState('');
-  const dragStart = useRef<Drawing | null>(null);
 
   const change = (next: Drawing) => {
-    setHistory((h) => [...h, drawing]);
-    setDrawing(next);
+    changeDrawing(next);
     setProblem('');
   };
   const n = drawing.points.length;
@@ -221,24 +218,8 @@ function Drawer({
     change({ points: [...drawing.points, point], closed: false });
   };
 
-  const handles: MapHandles = {
-    points: drawing.points,
-    onDrag: (index, point) => {
-      dragStart.current ??= drawing;
-      setDrawing((d) => ({ ...d, points: d.points.map((p, i) => (i === index ? point : p)) }));
-    },
-    onDragEnd: () => {
-      const before = dragStart.current;
-      dragStart.current = null;
-      if (before) setHistory((h) => [...h, before]);
-    },
-  };
-
   const undo = () => {
-    const last = history[history.length - 1];
-    if (!last) return;
-    setHistory((h) => h.slice(0, -1));
-    setDrawing(last);
+    undoDrawing();
     setProblem('');
   };
 
@@ -267,92 +248,49 @@ function Drawer({
           ? `${n} corner${n === 1 ? '' : 's'}. Tap to add more (at least three).`
           : `${n} corners. Tap the first corner (or Close the ring) to finish.`;
 
-  const last = drawing.points[n - 1];
   return (
     <View style={{ gap: space.sm }}>
-      <View
-        style={{
-          height: wide ? 520 : 420,
-          borderRadius: radius.md,
-          overflow: 'hidden',
-          borderWidth: 1,
-          borderColor: colors.line,
-        }}
+      <DrawingMap
+        frame={frame}
+        phoneHeight={420}
+        onTap={onTap}
+        handles={handles}
+        label={`Drawing map for ${label.toLowerCase()}: tap to add a corner, drag a corner to move it`}
+        status={status}
+        last={{ point: drawing.points[n - 1], noun: 'corner' }}
       >
-        <MapViewport
-          frame={frame}
-          units="metric"
-          chosenPostId={null}
-          targets={[]}
-          shown={null}
-          focus={null}
-          readout={readout}
-          format={format}
-          onFormat={setFormat}
-          onTap={onTap}
-          handles={handles}
-          label={`Drawing map for ${label.toLowerCase()}: tap to add a corner, drag a corner to move it`}
-          overlay={({ camera, size, margin }) => {
-            const at = (p: GridPoint) => {
-              const s = gridToScreen(camera, size, p.x, p.y);
-              return { x: s.x + margin, y: s.y + margin };
-            };
-            const pts = drawing.points.map(at);
-            const list = pts.map((p) => `${p.x.toFixed(1)},${p.y.toFixed(1)}`).join(' ');
-            // Without terrain the ground is a plain grid of round eastings and northings.
-            const grid = frame.base ? null : gridLines(camera, size, margin);
-            const W = size.width + 2 * margin;
-            const H = size.height + 2 * margin;
-            return (
-              <Svg
-                width={W}
-                height={H}
-                style={{ position: 'absolute', left: -margin, top: -margin }}
-                pointerEvents="none"
-                aria-hidden
-              >
-                {grid?.eastings.map((e) => {
-                  const x = at({ x: e, y: 0 }).x;
-                  return <Line key={`e${e}`} x1={x} y1={0} x2={x} y2={H} stroke="#C9D1CD" strokeWidth={1} />;
-                })}
-                {grid?.northings.map((n2) => {
-                  const y = at({ x: 0, y: n2 }).y;
-                  return <Line key={`n${n2}`} x1={0} y1={y} x2={W} y2={y} stroke="#C9D1CD" strokeWidth={1} />;
-                })}
-                {drawing.closed ? (
-                  <Polygon points={list} fill="rgba(196, 84, 36, 0.15)" stroke={colors.ember} strokeWidth={3} />
-                ) : n > 1 ? (
-                  <Polyline points={list} fill="none" stroke={colors.ember} strokeWidth={3} />
-                ) : null}
-                {pts.map((p, i) => (
-                  <Circle
-                    key={i}
-                    cx={p.x}
-                    cy={p.y}
-                    r={i === 0 && !line && !drawing.closed && n >= 3 ? 11 : 8}
-                    fill={i === 0 ? colors.ember : colors.surface}
-                    stroke={colors.ember}
-                    strokeWidth={3}
-                  />
-                ))}
-              </Svg>
-            );
-          }}
-        />
-      </View>
-      <AppText aria-live="polite">{status}</AppText>
-      {last ? (
-        <AppText variant="small" tone="muted">
-          Last corner: {formatCoordinate(frame.projection.toLatLon(last.x, last.y), format)} (WGS 84)
-        </AppText>
-      ) : null}
+        {(at) => {
+          const pts = drawing.points.map(at);
+          const list = pts.map((p) => `${p.x.toFixed(1)},${p.y.toFixed(1)}`).join(' ');
+          return (
+            <>
+              {drawing.closed ? (
+                <Polygon points={list} fill="rgba(196, 84, 36, 0.15)" stroke={colors.ember} strokeWidth={3} />
+              ) : n > 1 ? (
+                <Polyline points={list} fill="none" stroke={colors.ember} strokeWidth={3} />
+              ) : null}
+              {pts.map((p, i) => (
+                <Circle
+                  key={i}
+                  cx={p.x}
+                  cy={p.y}
+                  r={i === 0 && !line && !drawing.closed && n >= 3 ? 11 : 8}
+                  fill={i === 0 ? colors.ember : colors.surface}
+                  stroke={colors.ember}
+                  strokeWidth={3}
+                />
+              ))}
+            </>
+          );
+        }}
+      </DrawingMap>
       {problem ? (
         <AppText tone="danger" role="alert">
           {problem}
         </AppText>
       ) : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button kind="secondary" label="Undo" onPress={undo} disabled={history.length === 0} />
+        <Button kind="secondary" label="Undo" onPress={undo} disabled={!canUndo} />
         {line ? null : (
           <Button
             kind="secondary"

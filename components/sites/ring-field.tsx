@@ -1,10 +1,9 @@
 import { useState } from 'react';
 import { View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
-import { Segmented } from '@/components/check/unit-switch';
-import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
-import { colors, radius, space } from '@/components/ui/theme';
+import { space } from '@/components/ui/theme';
+import { EntryModes, GeometryFieldBox } from './geometry-field-box';
 import { GeoJsonImport } from './geojson-import';
 import { RingDrawMap, type RingDrawContext } from './ring-draw-map';
 import { RingTextEntry, type Ring } from './ring-text-entry';
@@ -43,76 +42,41 @@ export function RingField({
   const [mode, setMode] = useState<Mode>('draw');
   const [editing, setEditing] = useState(false);
   const n = cornerCount(ring);
+  const done = (entered: Ring) => {
+    onChange(entered);
+    setEditing(false);
+  };
   return (
-    <View
-      style={{
-        gap: space.sm,
-        padding: space.md,
-        borderRadius: radius.md,
-        borderWidth: 1,
-        borderColor: error ? colors.danger : colors.line,
-      }}
-    >
-      <AppText variant="label">{label}</AppText>
-      <AppText tone="muted" aria-live="polite">
-        {ring && n > 0
+    <GeometryFieldBox
+      label={label}
+      error={error}
+      summary={
+        ring && n > 0
           ? `${n} corners, from ${formatCoordinate({ latDeg: ring[0]![1], lonDeg: ring[0]![0] }, 'dd')}.`
           : optional
             ? 'None yet: draw it, type its corners or import it.'
-            : 'No outline yet: draw it, type its corners or import it.'}
-      </AppText>
-      {error ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {error}
-        </AppText>
-      ) : null}
+            : 'No outline yet: draw it, type its corners or import it.'
+      }
+    >
       {editing ? (
-        <View style={{ gap: space.sm }}>
-          <Segmented<Mode>
-            label="Enter it by"
-            value={mode}
-            onChange={setMode}
-            options={[
-              { value: 'draw', label: 'Drawing on the map' },
-              { value: 'type', label: 'Typing corners' },
-              { value: 'import', label: 'Importing GeoJSON' },
-            ]}
-          />
+        <EntryModes
+          mode={mode}
+          onMode={setMode}
+          options={[
+            { value: 'draw', label: 'Drawing on the map' },
+            { value: 'type', label: 'Typing corners' },
+            { value: 'import', label: 'Importing GeoJSON' },
+          ]}
+        >
           {mode === 'draw' ? (
-            <RingDrawMap
-              label={label}
-              ring={ring}
-              context={drawContext}
-              onDone={(r) => {
-                onChange(r);
-                setEditing(false);
-              }}
-              onCancel={() => setEditing(false)}
-            />
+            <RingDrawMap label={label} ring={ring} context={drawContext} onDone={done} onCancel={() => setEditing(false)} />
           ) : null}
-          {mode === 'import' ? (
-            <GeoJsonImport
-              label={`${label} from a file`}
-              onUse={(p) => {
-                onChange(p.ring);
-                setEditing(false);
-              }}
-            />
-          ) : null}
-          {mode === 'type' ? (
-            <RingTextEntry
-              label={label}
-              ring={ring}
-              onRing={(r) => {
-                onChange(r);
-                setEditing(false);
-              }}
-            />
-          ) : null}
+          {mode === 'import' ? <GeoJsonImport label={`${label} from a file`} onUse={(p) => done(p.ring)} /> : null}
+          {mode === 'type' ? <RingTextEntry label={label} ring={ring} onRing={done} /> : null}
           {mode !== 'draw' ? (
             <Button kind="quiet" label="Close" onPress={() => setEditing(false)} style={{ alignSelf: 'flex-start' }} />
           ) : null}
-        </View>
+        </EntryModes>
       ) : (
         <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
           <Button
@@ -123,6 +87,6 @@ export function RingField({
           {n > 0 && optional ? <Button kind="quiet" label="Remove" onPress={() => onChange(null)} /> : null}
         </View>
       )}
-    </View>
+    </GeometryFieldBox>
   );
 }

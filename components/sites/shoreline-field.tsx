@@ -7,11 +7,10 @@ import type { LengthUnit } from '@/shared/units/length';
 import { typedToMetres } from '@/shared/units/typed-lengths';
 import { ApiRequestError } from '@/components/data/api-client';
 import { useTraceShoreline } from '@/components/data/placement';
-import { Segmented } from '@/components/check/unit-switch';
-import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
-import { colors, radius, space } from '@/components/ui/theme';
+import { space } from '@/components/ui/theme';
+import { EntryModes, GeometryFieldBox } from './geometry-field-box';
 import { RingDrawMap, type RingDrawContext } from './ring-draw-map';
 
 type Line = [number, number][];
@@ -40,6 +39,10 @@ export function ShorelineField({
   const [text, setText] = useState('');
   const [problem, setProblem] = useState('');
   const n = line?.length ?? 0;
+  const done = (entered: Line) => {
+    onChange(entered);
+    setEditing(false);
+  };
   const trace = useTraceShoreline(drawContext.site?.id ?? '');
   const [levelText, setLevelText] = useState('0');
   const canTrace = !!drawContext.site && !!drawContext.terrain;
@@ -51,10 +54,7 @@ export function ShorelineField({
     }
     setProblem('');
     trace.mutate(metres, {
-      onSuccess: (r) => {
-        onChange(r.shoreline);
-        setEditing(false);
-      },
+      onSuccess: (r) => done(r.shoreline),
       onError: (e) => setProblem(e instanceof ApiRequestError ? e.message : 'The shoreline could not be traced.'),
     });
   };
@@ -66,57 +66,40 @@ export function ShorelineField({
         setProblem(checked.error.issues[0]?.message ?? 'This line cannot be used.');
         return;
       }
-      onChange(checked.data);
       setProblem('');
-      setEditing(false);
+      done(checked.data);
     } catch (e) {
       setProblem(e instanceof GeoJsonLineError ? e.message : 'This line cannot be used.');
     }
   };
   return (
-    <View
-      style={{
-        gap: space.sm,
-        padding: space.md,
-        borderRadius: radius.md,
-        borderWidth: 1,
-        borderColor: error ? colors.danger : colors.line,
-      }}
-      aria-label="Shoreline"
-    >
-      <AppText variant="label">Shoreline</AppText>
-      <AppText tone="muted" aria-live="polite">
-        {line && n > 1
+    <GeometryFieldBox
+      label="Shoreline"
+      ariaLabel="Shoreline"
+      error={error}
+      summary={
+        line && n > 1
           ? `${n} corners, chainage 0 at ${formatCoordinate({ latDeg: line[0]![1], lonDeg: line[0]![0] }, 'dd')}.`
-          : 'None yet: draw it along the shore from where chainage starts, or paste a GeoJSON line.'}
-      </AppText>
-      {error ? (
-        <AppText variant="small" tone="danger" role="alert">
-          {error}
-        </AppText>
-      ) : null}
+          : 'None yet: draw it along the shore from where chainage starts, or paste a GeoJSON line.'
+      }
+    >
       {editing ? (
-        <View style={{ gap: space.sm }}>
-          <Segmented<Mode>
-            label="Enter it by"
-            value={mode}
-            onChange={setMode}
-            options={[
-              { value: 'draw', label: 'Drawing on the map' },
-              { value: 'paste', label: 'Pasting GeoJSON' },
-              ...(canTrace ? [{ value: 'trace' as const, label: 'Tracing the terrain' }] : []),
-            ]}
-          />
+        <EntryModes
+          mode={mode}
+          onMode={setMode}
+          options={[
+            { value: 'draw', label: 'Drawing on the map' },
+            { value: 'paste', label: 'Pasting GeoJSON' },
+            ...(canTrace ? [{ value: 'trace' as const, label: 'Tracing the terrain' }] : []),
+          ]}
+        >
           {mode === 'draw' ? (
             <RingDrawMap
               line
               label="Shoreline"
               ring={line}
               context={drawContext}
-              onDone={(l) => {
-                onChange(l);
-                setEditing(false);
-              }}
+              onDone={done}
               onCancel={() => setEditing(false)}
             />
           ) : mode === 'trace' ? (
@@ -155,7 +138,7 @@ export function ShorelineField({
               </View>
             </View>
           )}
-        </View>
+        </EntryModes>
       ) : (
         <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
           <Button
@@ -166,6 +149,6 @@ export function ShorelineField({
           {n > 1 ? <Button kind="quiet" label="Remove the shoreline" onPress={() => onChange(null)} /> : null}
         </View>
       )}
-    </View>
+    </GeometryFieldBox>
   );
 }

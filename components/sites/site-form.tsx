@@ -17,20 +17,20 @@ import {
   UNIT_SYSTEM_IDS,
   type HeightDatum,
   type Site,
-  type SiteKind,
 } from '@/shared/schemas/site';
 import type { LengthUnit } from '@/shared/units/length';
 import { lengthText, typedToMetres } from '@/shared/units/typed-lengths';
 import { UNIT_SYSTEMS, type UnitSystem } from '@/shared/units/unit-systems';
 import { Segmented } from '@/components/check/unit-switch';
-import { ApiRequestError } from '@/components/data/api-client';
-import { applyServerErrors } from '@/components/data/server-errors';
+import { handleSaveError } from '@/components/data/server-errors';
 import { useSession } from '@/components/data/session';
 import { sitePostsQuery, useCreateSite, useUpdateSite } from '@/components/data/sites';
 import { siteTerrainQuery } from '@/components/data/terrain';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { FieldRow } from '@/components/ui/field-row';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { UnitNumberField } from '@/components/ui/unit-number-field';
 import { FormError, Notice } from '@/components/ui/states';
@@ -206,13 +206,8 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
       tide,
       priorityZones: v.priorityZones.map((z) => ({ name: z.name, weight: z.weight, ring: z.ring! })),
     };
-    const onError = (e: unknown) => {
-      if (e instanceof ApiRequestError && e.code === 'stale_version') {
-        setStale(true);
-        return;
-      }
-      setFormError(applyServerErrors(e, setError, fieldOf));
-    };
+    const onError = (e: unknown) =>
+      handleSaveError(e, setError, fieldOf, { onStale: () => setStale(true), onMessage: setFormError });
     const open = (id: string) => router.navigate({ pathname: '/sites/[siteId]', params: { siteId: id } });
     // The saved site comes back with a new version, which remounts this form (its key on the edit
     // screen) before a per-call onSuccess could run; the promise resolves regardless.
@@ -226,17 +221,11 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
     <Card accent="moss" aria-label={site ? 'Edit site' : 'New site'} style={{ gap: space.lg }}>
       <FormError message={formError} />
       <FormTextField control={control} name="name" label="Name" onSubmitEditing={() => void submit()} />
-      <Controller
+      <FormSegmented
         control={control}
         name="kind"
-        render={({ field }) => (
-          <Segmented<SiteKind>
-            label="Kind"
-            value={field.value}
-            onChange={field.onChange}
-            options={SITE_KINDS.map((k) => ({ value: k, label: SITE_KIND_LABELS[k] }))}
-          />
-        )}
+        label="Kind"
+        options={SITE_KINDS.map((k) => ({ value: k, label: SITE_KIND_LABELS[k] }))}
       />
       <Controller
         control={control}
@@ -375,26 +364,22 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
             />
           )}
         />
-        <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-          <View style={{ flex: 1, minWidth: 150 }}>
-            <UnitNumberField
-              control={control}
-              name="tideLowM"
-              label="Tide: low water (or the one level)"
-              unit={heightUnit}
-              hint="Above the datum. Empty: the datum itself."
-            />
-          </View>
-          <View style={{ flex: 1, minWidth: 150 }}>
-            <UnitNumberField
-              control={control}
-              name="tideHighM"
-              label="Tide: high water"
-              unit={heightUnit}
-              hint="Give both for a high/low pair: each is a condition of the run."
-            />
-          </View>
-        </View>
+        <FieldRow minWidth={150} gap={space.md}>
+          <UnitNumberField
+            control={control}
+            name="tideLowM"
+            label="Tide: low water (or the one level)"
+            unit={heightUnit}
+            hint="Above the datum. Empty: the datum itself."
+          />
+          <UnitNumberField
+            control={control}
+            name="tideHighM"
+            label="Tide: high water"
+            unit={heightUnit}
+            hint="Give both for a high/low pair: each is a condition of the run."
+          />
+        </FieldRow>
       </View>
       <View style={{ gap: space.sm }}>
         <AppText variant="heading">Priority zones</AppText>

@@ -9,6 +9,7 @@ import { applyServerErrors } from '@/components/data/server-errors';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Chip, ChipRow } from '@/components/ui/chip';
+import { FieldRow } from '@/components/ui/field-row';
 import { FormTextField } from '@/components/ui/form-text-field';
 import { FormError, Notice } from '@/components/ui/states';
 import { colors, space } from '@/components/ui/theme';
@@ -127,26 +128,22 @@ export function WatchForm({ posts, timeZone }: { posts: Roster['posts']; timeZon
           </>
         )}
       />
-      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <View style={{ flex: 1, minWidth: 160 }}>
-          <FormTextField
-            control={control}
-            name="startsAt"
-            label="From"
-            placeholder={WATCH_TIME_FORMAT.toLowerCase()}
-            onSubmitEditing={submit}
-          />
-        </View>
-        <View style={{ flex: 1, minWidth: 160 }}>
-          <FormTextField
-            control={control}
-            name="endsAt"
-            label="To"
-            placeholder="empty: until further notice"
-            onSubmitEditing={submit}
-          />
-        </View>
-      </View>
+      <FieldRow minWidth={160}>
+        <FormTextField
+          control={control}
+          name="startsAt"
+          label="From"
+          placeholder={WATCH_TIME_FORMAT.toLowerCase()}
+          onSubmitEditing={submit}
+        />
+        <FormTextField
+          control={control}
+          name="endsAt"
+          label="To"
+          placeholder="empty: until further notice"
+          onSubmitEditing={submit}
+        />
+      </FieldRow>
       <FormTextField control={control} name="note" label="Note" onSubmitEditing={submit} />
       <View style={{ alignSelf: 'flex-start' }}>
         <Button label="Put on watch" onPress={submit} busy={create.isPending} disabled={create.isPending} />

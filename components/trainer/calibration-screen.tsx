@@ -1,11 +1,11 @@
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { Controller, useForm, type Path } from 'react-hook-form';
 import { View } from 'react-native';
 import type { Calibration, CalibrationMethod } from '@/shared/schemas/calibration';
-import { Segmented } from '@/components/check/unit-switch';
 import { applyServerErrors } from '@/components/data/server-errors';
 import { useLengthUnits, useSession } from '@/components/data/session';
 import { useCalibrations, useRecordCalibration, useSaveCalibrationAsConditionSet } from '@/components/data/trainer';
+import { FormSegmented } from '@/components/ui/form-segmented';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -32,6 +32,13 @@ const METHODS: { value: CalibrationMethod; label: string }[] = [
 ];
 
 const fmtK = (k: number | null) => (k === null ? '—' : k.toFixed(3));
+
+/** What the observer saw of the mark. */
+const MARK_SEEN_OPTIONS: { value: 'read' | 'yes' | 'no'; label: string }[] = [
+  { value: 'read', label: 'Visible from a height' },
+  { value: 'yes', label: 'Top visible' },
+  { value: 'no', label: 'Not visible' },
+];
 
 /** k of the day: a field sighting (dip, reciprocal zenith angles, a reference mark) solved for k; planners save it as a condition set. */
 export function CalibrationScreen() {
@@ -62,41 +69,29 @@ export function CalibrationScreen() {
     });
   });
 
+  /** A number field of the sighting, typed in its unit. */
+  const decimal = (name: Path<CalibrationFormValues>, label: string, unit: string, hint?: string) => (
+    <FormTextField control={control} name={name} label={label} unit={unit} hint={hint} inputMode="decimal" />
+  );
+
   const form = (
     <Card accent="moss" aria-label="Field sighting" style={{ gap: space.md, flex: 1, width: '100%' }}>
       <AppText variant="heading">Field sighting</AppText>
       <FormError message={formError} />
-      <Controller
-        control={control}
-        name="method"
-        render={({ field }) => <Segmented label="Method" value={field.value} onChange={field.onChange} options={METHODS} />}
-      />
+      <FormSegmented control={control} name="method" label="Method" options={METHODS} />
       {method === 'dip' ? (
         <>
-          <FormTextField
-            control={control}
-            name="eyeHeight"
-            label="Height of eye above the sea"
-            unit={units.height}
-            inputMode="decimal"
-          />
-          <FormTextField
-            control={control}
-            name="observedDipArcmin"
-            label="Measured dip of the sea horizon"
-            unit="′"
-            hint="Minutes of arc below the horizontal."
-            inputMode="decimal"
-          />
-          <FormTextField control={control} name="accuracyArcmin" label="Instrument accuracy ±" unit="′" inputMode="decimal" />
+          {decimal('eyeHeight', 'Height of eye above the sea', units.height)}
+          {decimal('observedDipArcmin', 'Measured dip of the sea horizon', '′', 'Minutes of arc below the horizontal.')}
+          {decimal('accuracyArcmin', 'Instrument accuracy ±', '′')}
         </>
       ) : null}
       {method === 'reciprocal' ? (
         <>
-          <FormTextField control={control} name="distance" label="Length of the line" unit={units.distance} inputMode="decimal" />
-          <FormTextField control={control} name="zenithAngle1Deg" label="Zenith angle at end 1" unit="°" inputMode="decimal" />
-          <FormTextField control={control} name="zenithAngle2Deg" label="Zenith angle at end 2" unit="°" inputMode="decimal" />
-          <FormTextField control={control} name="accuracyArcsec" label="Accuracy of one angle ±" unit="″" inputMode="decimal" />
+          {decimal('distance', 'Length of the line', units.distance)}
+          {decimal('zenithAngle1Deg', 'Zenith angle at end 1', '°')}
+          {decimal('zenithAngle2Deg', 'Zenith angle at end 2', '°')}
+          {decimal('accuracyArcsec', 'Accuracy of one angle ±', '″')}
           <AppText variant="small" tone="muted">
             Both angles measured at the same time.
           </AppText>
@@ -104,41 +99,14 @@ export function CalibrationScreen() {
       ) : null}
       {method === 'mark' ? (
         <>
-          <FormTextField control={control} name="eyeHeight" label="Height of eye" unit={units.height} inputMode="decimal" />
-          <FormTextField
-            control={control}
-            name="distance"
-            label="Distance to the mark"
-            unit={units.distance}
-            inputMode="decimal"
-          />
-          <FormTextField control={control} name="markHeight" label="Height of the mark" unit={units.height} inputMode="decimal" />
-          <Controller
-            control={control}
-            name="markVisible"
-            render={({ field }) => (
-              <Segmented
-                label="What was seen"
-                value={field.value}
-                onChange={field.onChange}
-                options={[
-                  { value: 'read', label: 'Visible from a height' },
-                  { value: 'yes', label: 'Top visible' },
-                  { value: 'no', label: 'Not visible' },
-                ]}
-              />
-            )}
-          />
+          {decimal('eyeHeight', 'Height of eye', units.height)}
+          {decimal('distance', 'Distance to the mark', units.distance)}
+          {decimal('markHeight', 'Height of the mark', units.height)}
+          <FormSegmented control={control} name="markVisible" label="What was seen" options={MARK_SEEN_OPTIONS} />
           {watch('markVisible') === 'read' ? (
             <>
-              <FormTextField
-                control={control}
-                name="observedVisibleFrom"
-                label="Visible from (above the mark’s base)"
-                unit={units.height}
-                inputMode="decimal"
-              />
-              <FormTextField control={control} name="accuracy" label="Read to ±" unit={units.height} inputMode="decimal" />
+              {decimal('observedVisibleFrom', 'Visible from (above the mark’s base)', units.height)}
+              {decimal('accuracy', 'Read to ±', units.height)}
             </>
           ) : (
             <AppText variant="small" tone="muted">
@@ -149,9 +117,9 @@ export function CalibrationScreen() {
       ) : null}
       <AppText variant="label">Weather at the time (optional)</AppText>
       <FieldRow>
-        <FormTextField control={control} name="pressureHpa" label="Pressure" unit="hPa" inputMode="decimal" />
-        <FormTextField control={control} name="temperatureC" label="Temperature" unit="°C" inputMode="decimal" />
-        <FormTextField control={control} name="lapseRateKPerKm" label="Lapse rate" unit="K/km" inputMode="decimal" />
+        {decimal('pressureHpa', 'Pressure', 'hPa')}
+        {decimal('temperatureC', 'Temperature', '°C')}
+        {decimal('lapseRateKPerKm', 'Lapse rate', 'K/km')}
       </FieldRow>
       <Controller
         control={control}

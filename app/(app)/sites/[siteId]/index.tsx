@@ -1,7 +1,5 @@
 import { useIdParams } from '@/components/data/route-params';
-import { Screen } from '@/components/ui/screen';
-import { Notice } from '@/components/ui/states';
-import { AppText } from '@/components/ui/app-text';
+import { BadAddress } from '@/components/ui/bad-address';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
 import { deferredScreen } from '@/components/shell/deferred-screen';
 
@@ -10,13 +8,7 @@ const SiteOverview = deferredScreen('SiteOverview');
 function SiteScreenContent() {
   const ids = useIdParams(['siteId']);
   if (!ids) {
-    return (
-      <Screen title="Site">
-        <Notice tone="danger">
-          <AppText>This address does not name a site.</AppText>
-        </Notice>
-      </Screen>
-    );
+    return <BadAddress title="Site" what="a site" />;
   }
   return <SiteOverview siteId={ids.siteId} />;
 }

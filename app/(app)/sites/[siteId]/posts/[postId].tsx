@@ -1,8 +1,8 @@
 import { useIdParams } from '@/components/data/route-params';
 import { usePost } from '@/components/data/sites';
-import { AppText } from '@/components/ui/app-text';
 import { Screen } from '@/components/ui/screen';
-import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { BadAddress } from '@/components/ui/bad-address';
 import { documentTitle, PageTitle } from '@/components/ui/page-title';
 import { deferredScreen } from '@/components/shell/deferred-screen';
 
@@ -11,13 +11,7 @@ const PostEditor = deferredScreen('PostEditor');
 function PostScreenContent() {
   const ids = useIdParams(['siteId', 'postId']);
   if (!ids) {
-    return (
-      <Screen title="Post">
-        <Notice tone="danger">
-          <AppText>This address does not name a post.</AppText>
-        </Notice>
-      </Screen>
-    );
+    return <BadAddress title="Post" what="a post" />;
   }
   return <PostRoute {...ids} />;
 }
