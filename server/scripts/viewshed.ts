@@ -1,3 +1,4 @@
+// Over 300 lines: the command line's arguments, file reading and writing, and its second thread belong to one program.
 /**
  * Command line: the hidden-height raster or the seen/not-seen mask of one
  * lookout post, written as an ESRI ASCII grid or a Float32 GeoTIFF with the

@@ -1,3 +1,4 @@
+// Over 300 lines: greedy, enumeration and the swap passes share their bookkeeping and are read together against the bound.
 import {
   addSharedWeights,
   cellsNotIn,

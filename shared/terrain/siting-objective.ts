@@ -1,3 +1,4 @@
+// Over 300 lines: the bitset and sparse-cell kernels of the siting objective, each small, kept beside the one objective they serve.
 import { TerrainInputError } from '@/shared/terrain/terrain-input-error';
 
 /*

@@ -1,3 +1,4 @@
+// Over 300 lines: the ray sampler, its stride choice and its input checks form one documented algorithm.
 import { MEAN_EARTH_RADIUS_M, STANDARD_OPTICAL_K } from '@/shared/physics/constants';
 import type { GridSpec } from '@/shared/terrain/grid-spec';
 import { NEVER_BLOCKS, prepareSweepTerrain, type SweepTerrain } from '@/shared/terrain/sweep-terrain';

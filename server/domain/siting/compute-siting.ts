@@ -1,3 +1,4 @@
+// Over 300 lines: one siting run — candidates from posts, points or the terrain, their viewsheds, the choice and its map — in one flow.
 import type { SitingCandidate, SitingStep } from '@/shared/schemas/siting';
 import { SITING_ADDED } from '@/shared/schemas/siting';
 import type { CoverageGrid } from '@/shared/schemas/coverage';

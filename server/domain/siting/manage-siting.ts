@@ -1,3 +1,4 @@
+// Over 300 lines: the five siting use cases (request, read, list, cancel, make a plan) with the input freezing and the mapper they share.
 import type { Plan } from '@/shared/schemas/plan';
 import type { Post } from '@/shared/schemas/site';
 import type { SitingCandidate, SitingRun, SitingRunRequest } from '@/shared/schemas/siting';
