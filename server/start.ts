@@ -90,6 +90,12 @@ async function serveApi(cfg: Config, { chores }: { chores: boolean }) {
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(cfg.PORT, cfg.HOST, () => resolve(s));
   });
+  // A client that reuses a kept-alive socket just as the server closes it for idleness gets ECONNRESET (browsers,
+  // proxies and test runners all reuse sockets). Idle sockets are kept longer than the 60 s that clients and
+  // proxies commonly keep them, so the client closes first; headers must be allowed longer still (Node's rule).
+  // Common practice, no source.
+  server.keepAliveTimeout = 65_000;
+  server.headersTimeout = 66_000;
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : cfg.PORT;
   if (!cluster.isWorker) console.log(`[kenning] serving on http://${cfg.HOST}:${port}`);
