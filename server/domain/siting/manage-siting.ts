@@ -267,9 +267,10 @@ export async function listSitingRuns(actor: Actor, siteId: string): Promise<Siti
 /** Stops a queued or running run; it keeps no result. */
 export async function cancelSitingRun(deps: SitingDeps, actor: Actor, runId: string): Promise<SitingRun> {
   const run = await visibleRun(actor, runId);
-  await cancelActiveRun(deps, actor, run, {
-    updateActive: (id, patch, t) => sitingRepository.updateActive(id, patch, t),
-    audit: { action: 'siting-cancel', entityType: 'site', entityId: run.siteId },
+  await cancelActiveRun(deps, actor, run, sitingRepository, {
+    action: 'siting-cancel',
+    entityType: 'site',
+    entityId: run.siteId,
   });
   return getSitingRun(actor, runId);
 }
