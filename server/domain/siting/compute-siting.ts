@@ -24,7 +24,7 @@ import {
   type ReportProgress,
 } from '../coverage/compute-coverage';
 import { caseKeyOf, type CoverageRunInputs } from '../coverage/coverage-inputs';
-import type { FrozenCandidate, SitingRunInputs } from './siting-inputs';
+import { describeCandidate, type FrozenCandidate, type SitingRunInputs } from './siting-inputs';
 
 /** What a finished run stores (the `result` column). */
 export interface SitingResult {
@@ -214,14 +214,6 @@ export async function computeSiting(
   const pct = (cells: number) => (siteCells === 0 ? 0 : (100 * cells) / siteCells);
   let before = perCondition();
   const keptCells = before;
-  const describe = (c: FrozenCandidate): SitingCandidate => ({
-    index: c.index,
-    name: c.name,
-    postId: c.postId,
-    latDeg: c.latDeg,
-    lonDeg: c.lonDeg,
-    source: c.source,
-  });
   const steps: SitingStep[] = choice.steps.map((step, s) => {
     const option = sitingOptions[step.option]!;
     plain.add(option);
@@ -230,7 +222,7 @@ export async function computeSiting(
     const gainCells = mean(after.map((a, c) => a - before[c]!));
     before = after;
     return {
-      candidate: describe(candidates[option.location]!),
+      candidate: describeCandidate(candidates[option.location]!),
       heightM: option.heightM,
       cost: inputs.costs === null ? null : option.cost,
       gainM2: gainCells * cellArea,
@@ -249,7 +241,7 @@ export async function computeSiting(
   const grid: CoverageGrid = { ...gridSpecToM(terrain), epsg: terrain.crs?.epsg ?? null };
   return {
     method: choice.method,
-    candidates: candidates.map(describe),
+    candidates: candidates.map(describeCandidate),
     candidateGroundM: candidates.map((c) => {
       const { x, y } = projection.toGrid({ latDeg: c.latDeg, lonDeg: c.lonDeg });
       return elevationAt(terrain, x, y);
