@@ -11,6 +11,7 @@ import { gridSpecToM } from '@/shared/terrain/grid-spec';
 import type { SightConditions } from '@/shared/terrain/hidden-height-raster';
 import { pickTerrainCandidates } from '@/shared/terrain/pick-terrain-candidates';
 import { countPostsPerCell } from '@/shared/terrain/posts-per-cell';
+import { coveragePostOf } from '@/shared/terrain/network-coverage';
 import { bitsetWords, SitingState, type SitingObjective, type SitingView } from '@/shared/terrain/siting-objective';
 import { elevationAt } from '@/shared/terrain/terrain-elevation';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
@@ -139,16 +140,7 @@ export async function computeSiting(
           rangeLimit: rangeLimit === null ? null : { col: post.col, row: post.row, maxDistance: rangeLimit },
         }).classes;
         // One post counted alone: exactly the cells a coverage run counts for it (sector, range, no data).
-        const counts = countPostsPerCell(terrain, [
-          {
-            col: post.col,
-            row: post.row,
-            classes,
-            sector: entry.sector ?? null,
-            gridConvergence: entry.gridConvergence ?? 0,
-            maxDistance: hidden.maxDistance,
-          },
-        ]).counts;
+        const counts = countPostsPerCell(terrain, [coveragePostOf(entry, classes)]).counts;
         const bits = seen[from + b]!;
         for (let g = 0; g < N; g++) {
           const i = c * N + g;
