@@ -3,10 +3,8 @@ import { Client } from 'pg';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '@/server/app';
 import { APPLICATION_ROLE } from '@/server/data/application-role';
-import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
-import { createTerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import type { ViewshedPool } from '@/server/workers/viewshed-pool';
+import { createTestDatabase, inlineTestCoverage, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
 import { createForestPlan, listen } from '@/tests/support/live-server';
 
@@ -52,9 +50,9 @@ beforeAll(async () => {
   asApp = new Client({ connectionString: appUrl.toString() });
   await asApp.connect();
   const { files } = scratchFileStore();
-  pool = createViewshedPool({ size: 1 });
   // Coverage computed in this process, as this role: run rows, progress and layers.
-  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
+  const { coverageQueue, pool: inlinePool } = inlineTestCoverage(db, files);
+  pool = inlinePool;
   live = await listen(createApp({ db, config: TEST_CONFIG, files, coverageQueue }));
 });
 afterAll(async () => {

@@ -10,11 +10,9 @@ import { fromUtm } from '@/shared/geo/from-utm';
 import { CoverageRunSchema } from '@/shared/schemas/coverage';
 import { createApp } from '@/server/app';
 import { AssignmentModel, PostModel, SiteModel, UserModel } from '@/server/data/models';
-import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
-import { createTerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
+import type { ViewshedPool } from '@/server/workers/viewshed-pool';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import { createTestDatabase, inlineTestCoverage, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 
 /*
  * Coast watch through the API on the demo coast (Tallow Strand, flat datum,
@@ -51,8 +49,8 @@ const BANDS = [
 beforeAll(async () => {
   ({ db, drop } = await createTestDatabase());
   const { files } = scratchFileStore();
-  pool = createViewshedPool({ size: 1 });
-  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
+  const { coverageQueue, pool: inlinePool } = inlineTestCoverage(db, files);
+  pool = inlinePool;
   app = createApp({ db, config: TEST_CONFIG, files, coverageQueue });
   planner = await signedInAgent(app, DEMO.planner);
   siteId = (await SiteModel.findOne({ where: { name: 'Tallow Strand' } }))!.id;

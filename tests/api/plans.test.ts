@@ -5,10 +5,8 @@ import type { Sequelize } from 'sequelize';
 import { createApp } from '@/server/app';
 import { startMailCatcher } from '@/server/mail/mail-catcher';
 import { createMailer, type Mailer } from '@/server/mail/mailer';
-import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
-import { createTerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import type { ViewshedPool } from '@/server/workers/viewshed-pool';
+import { createTestDatabase, inlineTestCoverage, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import { DEMO } from '@/tests/support/agents';
 
@@ -42,9 +40,9 @@ beforeAll(async () => {
   catcher = await startMailCatcher({ port: 0, onError: () => {} });
   mailer = createMailer({ host: '127.0.0.1', port: catcher.port, from: 'Kenning <no-reply@demo.kenning.test>' });
   const { files } = scratchFileStore();
-  pool = createViewshedPool({ size: 1 });
   // Runs are computed as they are requested: these tests are about the review cycle, not the queue.
-  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
+  const { coverageQueue, pool: inlinePool } = inlineTestCoverage(db, files);
+  pool = inlinePool;
   app = createApp({ db, config: TEST_CONFIG, mailer, files, coverageQueue });
   [planner, reviewer, observer] = await Promise.all([agentFor(DEMO.planner), agentFor(DEMO.reviewer), agentFor(DEMO.observer)]);
   const sites = (await planner.get('/api/v1/sites')).body.items;

@@ -7,7 +7,10 @@ import { Client } from 'pg';
 import type { Sequelize } from 'sequelize';
 import { createApp, type AppDeps } from '@/server/app';
 import { createDatabase } from '@/server/data/database';
-import { createDiskFileStore } from '@/server/storage/file-store';
+import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
+import { createDiskFileStore, type FileStore } from '@/server/storage/file-store';
+import { createTerrainCache } from '@/server/terrain/terrain-cache';
+import { createViewshedPool } from '@/server/workers/viewshed-pool';
 
 /**
  * A disposable database per test file, copied from the migrated and seeded
@@ -86,6 +89,16 @@ export function scratchFileStore() {
   const seeded = process.env.KENNING_TEST_FILES_DIR;
   if (seeded && existsSync(seeded)) cpSync(seeded, filesDir, { recursive: true });
   return { files: createDiskFileStore(filesDir), filesDir };
+}
+
+/**
+ * A coverage queue that computes each run in this process as it is requested,
+ * on a one-worker viewshed pool over `files` (close `pool` in afterAll).
+ */
+export function inlineTestCoverage(db: Sequelize, files: FileStore) {
+  const pool = createViewshedPool({ size: 1 });
+  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
+  return { pool, coverageQueue };
 }
 
 /**
