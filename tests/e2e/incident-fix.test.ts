@@ -1,11 +1,11 @@
 import { Geodesic } from 'geographiclib-geodesic';
 import { magvar } from 'magvar';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import type { LatLon } from '@/shared/geo/types';
 import type { CaughtMail } from '@/shared/schemas/mail';
 import { createCaughtMailClient } from '@/server/mail/caught-mail-client';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, SCREENSHOT_DIR } from '@/tests/support/browser';
+import { browserForFile, SCREENSHOT_DIR } from '@/tests/support/browser';
 import { apiJson, e2eUrl, openIncident, shot, signIn, signInToWatch, watchErrors } from '@/tests/support/e2e';
 
 /*
@@ -22,12 +22,7 @@ const WGS84 = Geodesic.WGS84;
 const TOLLIVER = 'lookout.tolliver@demo.kenning.test';
 const FOREST = 'Harrowmere Forest District';
 
-let browser: Browser;
-let close: () => Promise<void>;
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 const azimuthDeg = (a: LatLon, b: LatLon) => {
   const azi = WGS84.Inverse(a.latDeg, a.lonDeg, b.latDeg, b.lonDeg).azi1!;
@@ -69,10 +64,10 @@ async function reportBearing(page: Page, bearing: string, reference: 'true' | 'm
 describe('bearings from two phones give the planner a fix', () => {
   it('two lookouts report a smoke, the planner sees the fix, its error area and the map, and the e-mail is caught', async () => {
     const title = `Smoke east of Crane Knoll ${Date.now().toString(36)}`;
-    const planner = await newPage(browser, 'wide');
-    const first = await newPage(browser, 'phone');
+    const planner = await browser.newPage('wide');
+    const first = await browser.newPage('phone');
     // The second lookout's phone runs in field mode: his bearing is written with no network and sent later.
-    const second = await newPage(browser, 'phone', { fieldMode: true });
+    const second = await browser.newPage('phone', { fieldMode: true });
     const errors = [planner, first, second].map(({ page }) => watchErrors(page));
     let watchId: string | null = null;
     try {

@@ -1,8 +1,7 @@
 import { Geodesic } from 'geographiclib-geodesic';
-import type { Browser } from 'playwright-core';
 import type { LatLon } from '@/shared/geo/types';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage } from '@/tests/support/browser';
+import { browserForFile } from '@/tests/support/browser';
 import { apiJson, e2eUrl, openIncident, openPlace, signIn, signInToWatch, watchErrors } from '@/tests/support/e2e';
 
 /*
@@ -15,16 +14,11 @@ import { apiJson, e2eUrl, openIncident, openPlace, signIn, signInToWatch, watchE
  */
 
 const FOREST = 'Harrowmere Forest District';
-let browser: Browser;
-let close: () => Promise<void>;
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 it('a bearing and a vertical angle from one post give a fix with its range interval; a landmark-range drill is answered', async () => {
-  const phone = await newPage(browser, 'phone');
-  const wide = await newPage(browser, 'wide');
+  const phone = await browser.newPage('phone');
+  const wide = await browser.newPage('wide');
   const errors = [phone, wide].map(({ page }) => watchErrors(page));
   const title = `Smoke below Crane Knoll ${Date.now().toString(36)}`;
 
