@@ -1,10 +1,9 @@
 import { randomBytes } from 'node:crypto';
 import { Client } from 'pg';
 import type { Sequelize } from 'sequelize';
-import { createApp } from '@/server/app';
 import { APPLICATION_ROLE } from '@/server/data/application-role';
 import type { ViewshedPool } from '@/server/workers/viewshed-pool';
-import { createTestDatabase, inlineTestCoverage, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import { appWithInlineCoverage, createTestDatabase } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
 import { createForestPlan, listen } from '@/tests/support/live-server';
 
@@ -49,11 +48,10 @@ beforeAll(async () => {
   appUrl.password = password;
   asApp = new Client({ connectionString: appUrl.toString() });
   await asApp.connect();
-  const { files } = scratchFileStore();
   // Coverage computed in this process, as this role: run rows, progress and layers.
-  const { coverageQueue, pool: inlinePool } = inlineTestCoverage(db, files);
-  pool = inlinePool;
-  live = await listen(createApp({ db, config: TEST_CONFIG, files, coverageQueue }));
+  const inline = appWithInlineCoverage(db);
+  pool = inline.pool;
+  live = await listen(inline.app);
 });
 afterAll(async () => {
   await live.close();

@@ -8,11 +8,10 @@ import type request from 'supertest';
 import { DateTime } from 'luxon';
 import { fromUtm } from '@/shared/geo/from-utm';
 import { CoverageRunSchema } from '@/shared/schemas/coverage';
-import { createApp } from '@/server/app';
 import { AssignmentModel, PostModel, SiteModel, UserModel } from '@/server/data/models';
 import type { ViewshedPool } from '@/server/workers/viewshed-pool';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
-import { createTestDatabase, inlineTestCoverage, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import { appWithInlineCoverage, createTestDatabase } from '@/tests/support/test-db';
 
 /*
  * Coast watch through the API on the demo coast (Tallow Strand, flat datum,
@@ -48,10 +47,7 @@ const BANDS = [
 
 beforeAll(async () => {
   ({ db, drop } = await createTestDatabase());
-  const { files } = scratchFileStore();
-  const { coverageQueue, pool: inlinePool } = inlineTestCoverage(db, files);
-  pool = inlinePool;
-  app = createApp({ db, config: TEST_CONFIG, files, coverageQueue });
+  ({ app, pool } = appWithInlineCoverage(db));
   planner = await signedInAgent(app, DEMO.planner);
   siteId = (await SiteModel.findOne({ where: { name: 'Tallow Strand' } }))!.id;
 });

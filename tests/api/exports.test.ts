@@ -7,14 +7,13 @@ import { Geodesic } from 'geographiclib-geodesic';
 import proj4 from 'proj4';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
-import { createApp } from '@/server/app';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import type { ViewshedPool } from '@/server/workers/viewshed-pool';
 import { RevisionByHashSchema } from '@/shared/schemas/printout';
 import type { PlanSnapshot } from '@/shared/schemas/plan';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
 import { DEMO } from '@/tests/support/agents';
-import { createTestDatabase, inlineTestCoverage, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import { appWithInlineCoverage, createTestDatabase } from '@/tests/support/test-db';
 
 let app: Express;
 let db: Sequelize;
@@ -48,10 +47,7 @@ const binary = (res: request.Response, callback: (error: Error | null, body: Buf
 
 beforeAll(async () => {
   ({ db, drop } = await createTestDatabase());
-  const { files } = scratchFileStore();
-  const { coverageQueue, pool: inlinePool } = inlineTestCoverage(db, files);
-  pool = inlinePool;
-  app = createApp({ db, config: TEST_CONFIG, files, coverageQueue });
+  ({ app, pool } = appWithInlineCoverage(db));
   [planner, reviewer, observer, stranger] = await Promise.all([
     agentFor(DEMO.planner),
     agentFor(DEMO.reviewer),

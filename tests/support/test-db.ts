@@ -8,7 +8,7 @@ import type { Sequelize } from 'sequelize';
 import { createApp, type AppDeps } from '@/server/app';
 import { createDatabase } from '@/server/data/database';
 import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
-import { createDiskFileStore, type FileStore } from '@/server/storage/file-store';
+import { createDiskFileStore } from '@/server/storage/file-store';
 import { createTerrainCache } from '@/server/terrain/terrain-cache';
 import { createViewshedPool } from '@/server/workers/viewshed-pool';
 
@@ -92,13 +92,15 @@ export function scratchFileStore() {
 }
 
 /**
- * A coverage queue that computes each run in this process as it is requested,
- * on a one-worker viewshed pool over `files` (close `pool` in afterAll).
+ * An app on `db` (the test config, a scratch file store) whose coverage runs
+ * are computed in this process as they are requested, on a one-worker viewshed
+ * pool (close `pool` in afterAll); `deps` adds app dependencies (a mailer).
  */
-export function inlineTestCoverage(db: Sequelize, files: FileStore) {
+export function appWithInlineCoverage(db: Sequelize, deps: Partial<Omit<AppDeps, 'db'>> = {}) {
+  const { files } = scratchFileStore();
   const pool = createViewshedPool({ size: 1 });
   const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
-  return { pool, coverageQueue };
+  return { app: createApp({ db, config: TEST_CONFIG, files, coverageQueue, ...deps }), pool };
 }
 
 /**
