@@ -1,3 +1,5 @@
+import type { GridSpec } from '@/shared/terrain/grid-spec';
+
 /** Name and version of the transport encoding of {@link EncodedClassRaster}. */
 export const CLASS_RASTER_ENCODING = 'kenning-rle8/1';
 
@@ -15,16 +17,8 @@ export const CLASS_RASTER_ENCODING = 'kenning-rle8/1';
  * `width × height`. The bytes are then written as base64 (RFC 4648 §4,
  * standard alphabet, `=` padding).
  */
-export interface EncodedClassRaster {
+export interface EncodedClassRaster extends Omit<GridSpec, 'crs'> {
   readonly format: typeof CLASS_RASTER_ENCODING;
-  readonly width: number;
-  readonly height: number;
-  /** Cell side, metres. */
-  readonly cellSize: number;
-  /** Easting of the grid's lower-left corner, metres. */
-  readonly xll: number;
-  /** Northing of the grid's lower-left corner, metres. */
-  readonly yll: number;
   /** EPSG code of the grid's CRS, or null when unknown. */
   readonly epsg: number | null;
   /** Run-length bytes as base64. */

@@ -30,6 +30,23 @@ export interface NetworkPost {
   readonly classes?: Uint8Array;
 }
 
+/**
+ * One network post as the coverage count takes it: its cell, the visibility
+ * `classes` made for the target, its sector and grid convergence, and the range
+ * its raster was computed to.
+ */
+export function coveragePostOf(entry: NetworkPost, classes: Uint8Array): CoveragePost {
+  const { post, hidden } = entry;
+  return {
+    col: post.col,
+    row: post.row,
+    classes,
+    sector: entry.sector ?? null,
+    gridConvergence: entry.gridConvergence ?? 0,
+    maxDistance: hidden.maxDistance,
+  };
+}
+
 /** What to evaluate: one condition (the rasters') × one target height. */
 export interface NetworkCoverageInput {
   /** The posts, all computed on one terrain under one condition. */
@@ -154,14 +171,7 @@ export function evaluateNetworkCoverage(input: NetworkCoverageInput): NetworkCov
         groundTolerance: input.groundTolerance,
         rangeLimit: rangeLimit === null ? null : { col: post.col, row: post.row, maxDistance: rangeLimit },
       }).classes;
-    return {
-      col: post.col,
-      row: post.row,
-      classes,
-      sector: entry.sector ?? null,
-      gridConvergence: entry.gridConvergence ?? 0,
-      maxDistance: hidden.maxDistance,
-    };
+    return coveragePostOf(entry, classes);
   });
   const postsPerCell = countPostsPerCell(first, coveragePosts);
   const crossBearings = crossBearingQuality(postsPerCell, coveragePosts, { minCrossingAngle: input.minCrossingAngle });

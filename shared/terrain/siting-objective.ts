@@ -100,6 +100,22 @@ export function nonZeroWords(bits: Uint32Array): Int32Array {
 }
 
 /**
+ * `total` plus the weights of the cells set in `word` (word `w` of a bitset),
+ * added one by one in cell order; `same` is their one weight, NaN when they
+ * differ (then one popcount does). A plain function, no closure: it is the
+ * inner step of the kernels below.
+ */
+function addWordWeights(total: number, word: number, w: number, same: number, weights: Float32Array): number {
+  if (!Number.isNaN(same)) return total + same * popcount(word);
+  while (word !== 0) {
+    const low = word & -word;
+    total += weights[(w << 5) + 31 - Math.clz32(low)]!;
+    word ^= low;
+  }
+  return total;
+}
+
+/**
  * Sum of the weights of the cells in `bits` and not in `minus` (null: none
  * taken out). `bits` must not change after its first use here (its non-zero
  * words are remembered); `minus` may.
@@ -110,18 +126,8 @@ export function weightOf(bits: Uint32Array, weights: Float32Array, minus: Uint32
   let total = 0;
   for (let k = 0; k < words.length; k++) {
     const w = words[k]!;
-    let word = bits[w]! & ~(minus === null ? 0 : minus[w]!);
-    if (word === 0) continue;
-    const same = uniform[w]!;
-    if (!Number.isNaN(same)) {
-      total += same * popcount(word);
-      continue;
-    }
-    while (word !== 0) {
-      const low = word & -word;
-      total += weights[(w << 5) + 31 - Math.clz32(low)]!;
-      word ^= low;
-    }
+    const word = bits[w]! & ~(minus === null ? 0 : minus[w]!);
+    if (word !== 0) total = addWordWeights(total, word, w, uniform[w]!, weights);
   }
   return total;
 }
@@ -172,18 +178,8 @@ export function weightOfSparse(cells: SparseCells, weights: Float32Array, within
   let total = 0;
   for (let k = 0; k < words.length; k++) {
     const w = words[k]!;
-    let word = bits[k]! & (within === null ? -1 : within[w]!);
-    if (word === 0) continue;
-    const same = uniform[w]!;
-    if (!Number.isNaN(same)) {
-      total += same * popcount(word);
-      continue;
-    }
-    while (word !== 0) {
-      const low = word & -word;
-      total += weights[(w << 5) + 31 - Math.clz32(low)]!;
-      word ^= low;
-    }
+    const word = bits[k]! & (within === null ? -1 : within[w]!);
+    if (word !== 0) total = addWordWeights(total, word, w, uniform[w]!, weights);
   }
   return total;
 }

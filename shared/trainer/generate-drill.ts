@@ -164,12 +164,26 @@ function targetOf(setup: DrillSetup, random: SeededRandom) {
   return tall.length > 0 ? random.pick(tall) : { name: 'mast', heightM: 30 };
 }
 
-function hiddenHeightDrill(setup: DrillSetup, random: SeededRandom, units: DrillUnits): GeneratedDrill {
+/** The start of the drills over open water: the eye, an everyday k, a target, R′ and the horizon, and the side view's common part. */
+function overWaterSighting(setup: DrillSetup, random: SeededRandom) {
   const h = eyeOf(setup, random);
   const k = refractionPreset(random.pick(EVERYDAY_K)).k;
   const target = targetOf(setup, random);
-  const bearingDeg = random.int(0, 359);
   const { r, d: horizon } = horizonFigures(h, k);
+  const sideView = (distanceM: number) => ({
+    eyeHeightM: h,
+    k,
+    effectiveRadiusM: r,
+    horizonDistanceM: horizon,
+    distanceM,
+    targetHeightM: target.heightM,
+  });
+  return { h, k, target, r, horizon, sideView };
+}
+
+function hiddenHeightDrill(setup: DrillSetup, random: SeededRandom, units: DrillUnits): GeneratedDrill {
+  const { h, k, target, r, horizon, sideView } = overWaterSighting(setup, random);
+  const bearingDeg = random.int(0, 359);
   const unit = distanceUnit(units);
   const distanceM = roundDistance(horizon! * random.between(1.2, 2.6), unit);
   const hidden = hiddenHeight(h, distanceM, { k }).value ?? 0;
@@ -193,12 +207,7 @@ function hiddenHeightDrill(setup: DrillSetup, random: SeededRandom, units: Drill
           `hidden = R′/cos((D − d_h)/R′) − R′ ≈ (D − d_h)²/(2R′); R′ = ${num(r! / 1000, 6)} km, d_h = ${num(horizon! / 1000, 4)} km, ` +
           `D = ${num(distanceM / 1000, 4)} km → ${say(hidden, answerUnit, 4)}`,
         sideView: {
-          eyeHeightM: h,
-          k,
-          effectiveRadiusM: r,
-          horizonDistanceM: horizon,
-          distanceM,
-          targetHeightM: target.heightM,
+          ...sideView(distanceM),
           hiddenHeightM: hidden,
           visibleHeightM: visible,
         },
@@ -306,11 +315,8 @@ function terrainVisibleDrill(setup: DrillSetup, random: SeededRandom, units: Dri
 function targetVisibleDrill(setup: DrillSetup, random: SeededRandom, units: DrillUnits): GeneratedDrill {
   const onTerrain = terrainVisibleDrill(setup, random, units);
   if (onTerrain) return onTerrain;
-  const h = eyeOf(setup, random);
-  const k = refractionPreset(random.pick(EVERYDAY_K)).k;
-  const target = targetOf(setup, random);
+  const { h, k, target, r, horizon, sideView } = overWaterSighting(setup, random);
   const part = random.pick(['top', 'base'] as const);
-  const { r, d: horizon } = horizonFigures(h, k);
   // Near the edge: the top shows out to the geographic range, the base to the horizon.
   const targetHorizon = horizonDistance(target.heightM, { k }).value!;
   const edge = part === 'top' ? horizon! + targetHorizon : horizon!;
@@ -338,12 +344,7 @@ function targetVisibleDrill(setup: DrillSetup, random: SeededRandom, units: Dril
             ? `geographic range = d_h(eye) + d_h(top) = √(2R′·${num(h)} m) + √(2R′·${num(target.heightM)} m), R′ = ${num(r! / 1000, 6)} km → ${say(edge, unit, 4)}`
             : `d_h = √(2R′h) = √(2 · ${num(r! / 1000, 6)} km · ${num(h)} m) → ${say(horizon!, unit, 4)}`,
         sideView: {
-          eyeHeightM: h,
-          k,
-          effectiveRadiusM: r,
-          horizonDistanceM: horizon,
-          distanceM,
-          targetHeightM: target.heightM,
+          ...sideView(distanceM),
           hiddenHeightM: Number.isFinite(hidden) ? hidden : null,
           geographicRangeM: horizon! + targetHorizon,
           part,

@@ -1,12 +1,9 @@
 import { randomBytes } from 'node:crypto';
 import { Client } from 'pg';
 import type { Sequelize } from 'sequelize';
-import { createApp } from '@/server/app';
 import { APPLICATION_ROLE } from '@/server/data/application-role';
-import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
-import { createTerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import type { ViewshedPool } from '@/server/workers/viewshed-pool';
+import { appWithInlineCoverage, createTestDatabase } from '@/tests/support/test-db';
 import { DEMO } from '@/tests/support/agents';
 import { createForestPlan, listen } from '@/tests/support/live-server';
 
@@ -51,11 +48,10 @@ beforeAll(async () => {
   appUrl.password = password;
   asApp = new Client({ connectionString: appUrl.toString() });
   await asApp.connect();
-  const { files } = scratchFileStore();
-  pool = createViewshedPool({ size: 1 });
   // Coverage computed in this process, as this role: run rows, progress and layers.
-  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
-  live = await listen(createApp({ db, config: TEST_CONFIG, files, coverageQueue }));
+  const inline = appWithInlineCoverage(db);
+  pool = inline.pool;
+  live = await listen(inline.app);
 });
 afterAll(async () => {
   await live.close();

@@ -8,13 +8,10 @@ import type request from 'supertest';
 import { DateTime } from 'luxon';
 import { fromUtm } from '@/shared/geo/from-utm';
 import { CoverageRunSchema } from '@/shared/schemas/coverage';
-import { createApp } from '@/server/app';
 import { AssignmentModel, PostModel, SiteModel, UserModel } from '@/server/data/models';
-import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
-import { createTerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
+import type { ViewshedPool } from '@/server/workers/viewshed-pool';
 import { DEMO, signedInAgent } from '@/tests/support/agents';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import { appWithInlineCoverage, createTestDatabase } from '@/tests/support/test-db';
 
 /*
  * Coast watch through the API on the demo coast (Tallow Strand, flat datum,
@@ -50,10 +47,7 @@ const BANDS = [
 
 beforeAll(async () => {
   ({ db, drop } = await createTestDatabase());
-  const { files } = scratchFileStore();
-  pool = createViewshedPool({ size: 1 });
-  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
-  app = createApp({ db, config: TEST_CONFIG, files, coverageQueue });
+  ({ app, pool } = appWithInlineCoverage(db));
   planner = await signedInAgent(app, DEMO.planner);
   siteId = (await SiteModel.findOne({ where: { name: 'Tallow Strand' } }))!.id;
 });

@@ -7,16 +7,13 @@ import { Geodesic } from 'geographiclib-geodesic';
 import proj4 from 'proj4';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
-import { createApp } from '@/server/app';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
-import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
-import { createTerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
+import type { ViewshedPool } from '@/server/workers/viewshed-pool';
 import { RevisionByHashSchema } from '@/shared/schemas/printout';
 import type { PlanSnapshot } from '@/shared/schemas/plan';
 import { decodeClassRaster } from '@/shared/terrain/decode-class-raster';
 import { DEMO } from '@/tests/support/agents';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import { appWithInlineCoverage, createTestDatabase } from '@/tests/support/test-db';
 
 let app: Express;
 let db: Sequelize;
@@ -50,10 +47,7 @@ const binary = (res: request.Response, callback: (error: Error | null, body: Buf
 
 beforeAll(async () => {
   ({ db, drop } = await createTestDatabase());
-  const { files } = scratchFileStore();
-  pool = createViewshedPool({ size: 1 });
-  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
-  app = createApp({ db, config: TEST_CONFIG, files, coverageQueue });
+  ({ app, pool } = appWithInlineCoverage(db));
   [planner, reviewer, observer, stranger] = await Promise.all([
     agentFor(DEMO.planner),
     agentFor(DEMO.reviewer),

@@ -2,13 +2,10 @@ import { createHash } from 'node:crypto';
 import type { Express } from 'express';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
-import { createApp } from '@/server/app';
 import { startMailCatcher } from '@/server/mail/mail-catcher';
 import { createMailer, type Mailer } from '@/server/mail/mailer';
-import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
-import { createTerrainCache } from '@/server/terrain/terrain-cache';
-import { createViewshedPool, type ViewshedPool } from '@/server/workers/viewshed-pool';
-import { createTestDatabase, scratchFileStore, TEST_CONFIG } from '@/tests/support/test-db';
+import type { ViewshedPool } from '@/server/workers/viewshed-pool';
+import { appWithInlineCoverage, createTestDatabase } from '@/tests/support/test-db';
 import { DEMO_PASSWORD } from '@/server/seeders/demo';
 import { DEMO } from '@/tests/support/agents';
 
@@ -41,11 +38,8 @@ beforeAll(async () => {
   ({ db, drop } = await createTestDatabase());
   catcher = await startMailCatcher({ port: 0, onError: () => {} });
   mailer = createMailer({ host: '127.0.0.1', port: catcher.port, from: 'Kenning <no-reply@demo.kenning.test>' });
-  const { files } = scratchFileStore();
-  pool = createViewshedPool({ size: 1 });
   // Runs are computed as they are requested: these tests are about the review cycle, not the queue.
-  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
-  app = createApp({ db, config: TEST_CONFIG, mailer, files, coverageQueue });
+  ({ app, pool } = appWithInlineCoverage(db, { mailer }));
   [planner, reviewer, observer] = await Promise.all([agentFor(DEMO.planner), agentFor(DEMO.reviewer), agentFor(DEMO.observer)]);
   const sites = (await planner.get('/api/v1/sites')).body.items;
   const site = sites.find((s: { name: string }) => s.name === 'Harrowmere Forest District');

@@ -1,12 +1,12 @@
 import { Geodesic } from 'geographiclib-geodesic';
 import { magvar } from 'magvar';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import type { LatLon } from '@/shared/geo/types';
 import type { CaughtMail } from '@/shared/schemas/mail';
 import { createCaughtMailClient } from '@/server/mail/caught-mail-client';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage, SCREENSHOT_DIR } from '@/tests/support/browser';
-import { apiJson, e2eUrl, openPlace, shot, signIn, watchErrors } from '@/tests/support/e2e';
+import { browserForFile, SCREENSHOT_DIR } from '@/tests/support/browser';
+import { apiJson, e2eUrl, openIncident, shot, signIn, signInToWatch, watchErrors } from '@/tests/support/e2e';
 
 /*
  * Two lookouts on phones report bearings to one invented smoke in the demo
@@ -22,12 +22,7 @@ const WGS84 = Geodesic.WGS84;
 const TOLLIVER = 'lookout.tolliver@demo.kenning.test';
 const FOREST = 'Harrowmere Forest District';
 
-let browser: Browser;
-let close: () => Promise<void>;
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 const azimuthDeg = (a: LatLon, b: LatLon) => {
   const azi = WGS84.Inverse(a.latDeg, a.lonDeg, b.latDeg, b.lonDeg).azi1!;
@@ -69,10 +64,10 @@ async function reportBearing(page: Page, bearing: string, reference: 'true' | 'm
 describe('bearings from two phones give the planner a fix', () => {
   it('two lookouts report a smoke, the planner sees the fix, its error area and the map, and the e-mail is caught', async () => {
     const title = `Smoke east of Crane Knoll ${Date.now().toString(36)}`;
-    const planner = await newPage(browser, 'wide');
-    const first = await newPage(browser, 'phone');
+    const planner = await browser.newPage('wide');
+    const first = await browser.newPage('phone');
     // The second lookout's phone runs in field mode: his bearing is written with no network and sent later.
-    const second = await newPage(browser, 'phone', { fieldMode: true });
+    const second = await browser.newPage('phone', { fieldMode: true });
     const errors = [planner, first, second].map(({ page }) => watchErrors(page));
     let watchId: string | null = null;
     try {
@@ -115,22 +110,8 @@ describe('bearings from two phones give the planner a fix', () => {
 
       // 1. Sami Rookwood, on watch at Crane Knoll Tower, opens the incident on a phone and reports a true bearing.
       const a = first.page;
-      await signIn(a, DEMO.observer);
-      await a
-        .getByText(/My watch|Your watches/)
-        .first()
-        .waitFor();
-      await openPlace(a, 'Incidents');
-      await a.getByRole('button', { name: 'Open an incident' }).click();
-      const openForm = a.getByLabel('Open an incident');
-      await openForm.waitFor();
-      await shot(a, 'incident-open', 'phone');
-      await openForm.getByRole('checkbox', { name: FOREST }).click();
-      await openForm.getByLabel('Title').fill(title);
-      await openForm.getByRole('button', { name: 'Open', exact: true }).click();
-      await a.waitForURL(/\/incidents\/[0-9a-f-]{36}$/);
-      const incidentUrl = a.url();
-      const incidentId = incidentUrl.split('/').pop()!;
+      await signInToWatch(a, DEMO.observer);
+      const incidentId = await openIncident(a, FOREST, title, () => shot(a, 'incident-open', 'phone'));
       // The lookout's watch post is chosen already (once the watch has loaded).
       await a.getByRole('checkbox', { name: 'Crane Knoll Tower', checked: true }).waitFor();
       await reportBearing(a, craneTrue.toFixed(1), 'true');
@@ -139,11 +120,7 @@ describe('bearings from two phones give the planner a fix', () => {
 
       // 2. Bram Tolliver at Sedge Ridge Tower reads a compass bearing; Kenning adds the model's declination.
       const b = second.page;
-      await signIn(b, TOLLIVER);
-      await b
-        .getByText(/My watch|Your watches/)
-        .first()
-        .waitFor();
+      await signInToWatch(b, TOLLIVER);
       await b.goto(`${e2eUrl()}/incidents/${incidentId}`);
       await b.getByRole('heading', { name: title }).waitFor();
       await b.getByRole('checkbox', { name: 'Sedge Ridge Tower', checked: true }).waitFor();

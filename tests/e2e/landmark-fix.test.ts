@@ -1,9 +1,8 @@
 import { Geodesic } from 'geographiclib-geodesic';
-import type { Browser } from 'playwright-core';
 import type { LatLon } from '@/shared/geo/types';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, newPage } from '@/tests/support/browser';
-import { apiJson, e2eUrl, openPlace, signIn, watchErrors } from '@/tests/support/e2e';
+import { browserForFile } from '@/tests/support/browser';
+import { apiJson, e2eUrl, openIncident, openPlace, signIn, signInToWatch, watchErrors } from '@/tests/support/e2e';
 
 /*
  * One lookout, one post: Sami Rookwood (on watch at Crane Knoll Tower)
@@ -15,34 +14,18 @@ import { apiJson, e2eUrl, openPlace, signIn, watchErrors } from '@/tests/support
  */
 
 const FOREST = 'Harrowmere Forest District';
-let browser: Browser;
-let close: () => Promise<void>;
-beforeAll(async () => {
-  ({ browser, close } = await launchBrowser());
-});
-afterAll(() => close());
+const browser = browserForFile();
 
 it('a bearing and a vertical angle from one post give a fix with its range interval; a landmark-range drill is answered', async () => {
-  const phone = await newPage(browser, 'phone');
-  const wide = await newPage(browser, 'wide');
+  const phone = await browser.newPage('phone');
+  const wide = await browser.newPage('wide');
   const errors = [phone, wide].map(({ page }) => watchErrors(page));
   const title = `Smoke below Crane Knoll ${Date.now().toString(36)}`;
 
   // 1. The lookout on a phone: open the incident, report 140° true, −1.5° below the horizontal.
   const a = phone.page;
-  await signIn(a, DEMO.observer);
-  await a
-    .getByText(/My watch|Your watches/)
-    .first()
-    .waitFor();
-  await openPlace(a, 'Incidents');
-  await a.getByRole('button', { name: 'Open an incident' }).click();
-  const openForm = a.getByLabel('Open an incident');
-  await openForm.getByRole('checkbox', { name: FOREST }).click();
-  await openForm.getByLabel('Title').fill(title);
-  await openForm.getByRole('button', { name: 'Open', exact: true }).click();
-  await a.waitForURL(/\/incidents\/[0-9a-f-]{36}$/);
-  const incidentId = a.url().split('/').pop()!;
+  await signInToWatch(a, DEMO.observer);
+  const incidentId = await openIncident(a, FOREST, title);
   const form = a.getByLabel('Report a bearing');
   await form.getByLabel('Bearing', { exact: true }).fill('140');
   await form.getByLabel('Vertical angle (optional)').fill('-1.5');

@@ -2,7 +2,7 @@ import type { Browser } from 'playwright-core';
 import { fromUtm } from '@/shared/geo/from-utm';
 import { toUtm } from '@/shared/geo/to-utm';
 import { DEMO } from '@/tests/support/agents';
-import { launchBrowser, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
+import { launchBrowser, newPage, VIEWPORTS, type ViewportName } from '@/tests/support/browser';
 import { apiJson, shot, signIn, watchErrors } from '@/tests/support/e2e';
 
 let browser: Browser;
@@ -30,13 +30,7 @@ interface RunBody {
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('tower siting on the %s viewport', (viewport) => {
   it('a coordinator runs siting with four candidates and three heights, reads the curve, makes a draft plan and compares it', async () => {
     const phone = viewport === 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: phone,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await newPage(browser, viewport, { touch: phone });
     const errors = watchErrors(page);
     try {
       await signIn(page, DEMO.planner);
@@ -143,13 +137,7 @@ describe('tower siting from the terrain near an access line', () => {
     // Source: issue 18 (terrain candidates only within a distance of a line the planner draws; a cost per
     // height and a budget); distances on the demo terrain's grid (UTM 33N), common practice, no source.
     const viewport: ViewportName = 'phone';
-    const context = await browser.newContext({
-      viewport: VIEWPORTS[viewport],
-      deviceScaleFactor: 1,
-      hasTouch: true,
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
+    const { context, page } = await newPage(browser, viewport, { touch: true });
     const errors = watchErrors(page);
     let posts = 0;
     page.on('request', (r) => {

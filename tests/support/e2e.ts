@@ -53,6 +53,33 @@ export async function openPlace(page: Page, name: string) {
   await page.getByRole('navigation', { name: 'More places' }).getByRole('link', { name, exact: true }).click();
 }
 
+/** Signs `email` in on `page` and waits for the lookout's watch page it opens on. */
+export async function signInToWatch(page: Page, email: string) {
+  await signIn(page, email);
+  await page
+    .getByText(/My watch|Your watches/)
+    .first()
+    .waitFor();
+}
+
+/**
+ * Opens a new incident `title` in the site `siteName` from the incidents page
+ * and waits for its own page; `onForm` runs once the form shows (a screenshot).
+ * @returns the incident's id
+ */
+export async function openIncident(page: Page, siteName: string, title: string, onForm?: () => Promise<void>): Promise<string> {
+  await openPlace(page, 'Incidents');
+  await page.getByRole('button', { name: 'Open an incident' }).click();
+  const openForm = page.getByLabel('Open an incident');
+  await openForm.waitFor();
+  await onForm?.();
+  await openForm.getByRole('checkbox', { name: siteName }).click();
+  await openForm.getByLabel('Title').fill(title);
+  await openForm.getByRole('button', { name: 'Open', exact: true }).click();
+  await page.waitForURL(/\/incidents\/[0-9a-f-]{36}$/);
+  return page.url().split('/').pop()!;
+}
+
 /** The first plan the plan list finds for `title` (a demo plan by its title), failing if there is none. */
 export async function findPlan(page: Page, title: string): Promise<Plan> {
   const { items } = await apiJson<{ items: Plan[] }>(page, 'GET', `/plans?q=${encodeURIComponent(title)}`);

@@ -7,7 +7,10 @@ import { Client } from 'pg';
 import type { Sequelize } from 'sequelize';
 import { createApp, type AppDeps } from '@/server/app';
 import { createDatabase } from '@/server/data/database';
+import { inlineCoverageQueue } from '@/server/queue/inline-coverage-queue';
 import { createDiskFileStore } from '@/server/storage/file-store';
+import { createTerrainCache } from '@/server/terrain/terrain-cache';
+import { createViewshedPool } from '@/server/workers/viewshed-pool';
 
 /**
  * A disposable database per test file, copied from the migrated and seeded
@@ -86,6 +89,18 @@ export function scratchFileStore() {
   const seeded = process.env.KENNING_TEST_FILES_DIR;
   if (seeded && existsSync(seeded)) cpSync(seeded, filesDir, { recursive: true });
   return { files: createDiskFileStore(filesDir), filesDir };
+}
+
+/**
+ * An app on `db` (the test config, a scratch file store) whose coverage runs
+ * are computed in this process as they are requested, on a one-worker viewshed
+ * pool (close `pool` in afterAll); `deps` adds app dependencies (a mailer).
+ */
+export function appWithInlineCoverage(db: Sequelize, deps: Partial<Omit<AppDeps, 'db'>> = {}) {
+  const { files } = scratchFileStore();
+  const pool = createViewshedPool({ size: 1 });
+  const coverageQueue = inlineCoverageQueue({ db, cache: createTerrainCache({ files, maxBytes: 2 ** 28 }), pool });
+  return { app: createApp({ db, config: TEST_CONFIG, files, coverageQueue, ...deps }), pool };
 }
 
 /**

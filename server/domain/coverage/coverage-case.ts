@@ -2,7 +2,7 @@ import type { CoverageCase } from '@/shared/schemas/coverage';
 import type { DetectionRange } from '@/shared/sightline/detection-range';
 import type { GridSpec } from '@/shared/terrain/grid-spec';
 import type { GridProjection } from '@/shared/terrain/grid-projection';
-import type { LimitShares, NetworkCoverage, NetworkPost } from '@/shared/terrain/network-coverage';
+import { coveragePostOf, type LimitShares, type NetworkCoverage, type NetworkPost } from '@/shared/terrain/network-coverage';
 import { countPostsPerCell } from '@/shared/terrain/posts-per-cell';
 import { VISIBILITY_CLASS } from '@/shared/terrain/visibility-classes';
 import type { CoverageRunInputs } from './coverage-inputs';
@@ -50,20 +50,7 @@ export function postSeenShares(
     const classes = postClasses[i]!;
     // Cells where the post sees the target: its classes, and its sector when it has one.
     const seen = entry.sector
-      ? countSeen(
-          countPostsPerCell(grid, [
-            {
-              col: entry.post.col,
-              row: entry.post.row,
-              classes,
-              sector: entry.sector,
-              gridConvergence: entry.gridConvergence,
-              maxDistance: entry.hidden.maxDistance,
-            },
-          ]).counts,
-          1,
-          siteMask,
-        )
+      ? countSeen(countPostsPerCell(grid, [coveragePostOf(entry, classes)]).counts, 1, siteMask)
       : countSeen(classes, 0, siteMask);
     return { postId: posts[i]!.id, postName: posts[i]!.name, seenPct: siteCells ? round((100 * seen) / siteCells, 2) : 0 };
   });

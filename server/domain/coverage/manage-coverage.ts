@@ -160,9 +160,10 @@ export async function getCoverageRun(actor: Actor, runId: string): Promise<Cover
 /** Stops a queued or running run; whatever it had computed is dropped. */
 export async function cancelCoverageRun(deps: CoverageDeps, actor: Actor, runId: string): Promise<CoverageRun> {
   const run = await visibleRun(actor, runId);
-  await cancelActiveRun(deps, actor, run, {
-    updateActive: (id, patch, t) => coverageRepository.updateActive(id, patch, t),
-    audit: { action: 'coverage-cancel', entityType: 'plan', entityId: run.planId },
+  await cancelActiveRun(deps, actor, run, coverageRepository, {
+    action: 'coverage-cancel',
+    entityType: 'plan',
+    entityId: run.planId,
   });
   return getCoverageRun(actor, runId);
 }

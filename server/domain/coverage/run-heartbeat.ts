@@ -127,11 +127,20 @@ export function startStaleRunReaper(
     requeue,
   }: { everyS?: number; staleAfterS?: number; requeue?: Requeue } = {},
 ) {
+  return repeatUnlessBusy(() => reapStaleRuns(db, { requeue, staleAfterS }), everyS);
+}
+
+/**
+ * Runs `task` every `everyS` seconds until stopped, skipping a turn while the last
+ * one is still going; its errors (database away) are skipped. The timer does not
+ * keep the process alive.
+ */
+export function repeatUnlessBusy(task: () => Promise<unknown>, everyS: number) {
   let busy = false;
   const timer = setInterval(() => {
     if (busy) return;
     busy = true;
-    reapStaleRuns(db, { requeue, staleAfterS })
+    task()
       .catch(() => {})
       .finally(() => {
         busy = false;

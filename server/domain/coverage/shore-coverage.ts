@@ -4,7 +4,7 @@ import { checkShoreBandRules } from '@/shared/terrain/check-coverage-standard';
 import type { GridProjection } from '@/shared/terrain/grid-projection';
 import type { GridSpec } from '@/shared/terrain/grid-spec';
 import { countPostsPerCell } from '@/shared/terrain/posts-per-cell';
-import type { NetworkPost } from '@/shared/terrain/network-coverage';
+import { coveragePostOf, type NetworkPost } from '@/shared/terrain/network-coverage';
 import {
   closeGapWith,
   intervalShares,
@@ -113,16 +113,7 @@ function seenMaskOf(grid: GridSpec, entry: NetworkPost, classes: Uint8Array): Ui
     }
     return out;
   }
-  const { counts } = countPostsPerCell(grid, [
-    {
-      col: entry.post.col,
-      row: entry.post.row,
-      classes,
-      sector: entry.sector,
-      gridConvergence: entry.gridConvergence ?? 0,
-      maxDistance: entry.hidden.maxDistance,
-    },
-  ]);
+  const { counts } = countPostsPerCell(grid, [coveragePostOf(entry, classes)]);
   return counts.map((c) => (c > 0 ? 1 : 0));
 }
 

@@ -1,6 +1,7 @@
 /* Port: what the terrain upload use case needs of the ingest (a worker thread in server/workers/terrain-ingest-runner, reading with server/terrain/ingest-terrain-file). */
 
 import type { TerrainFormat } from '@/shared/schemas/terrain';
+import type { GridSpec } from '@/shared/terrain/grid-spec';
 
 /** What to ingest: the uploaded file(s) on local disk and the uploader's settings. */
 export interface TerrainIngestRequest {
@@ -21,13 +22,8 @@ export interface TerrainIngestRequest {
   readonly outDir: string;
 }
 
-/** What the ingest produced. */
-export interface TerrainIngestResult {
-  readonly width: number;
-  readonly height: number;
-  readonly cellSize: number;
-  readonly xll: number;
-  readonly yll: number;
+/** What the ingest produced: the grid (its CRS as `epsg`, `wkt` and `crsLabel`), its extremes and its files. */
+export interface TerrainIngestResult extends Omit<GridSpec, 'crs'> {
   readonly epsg: number | null;
   readonly wkt: string | null;
   readonly crsLabel: string;

@@ -11,6 +11,7 @@ import { gridSpecToM } from '@/shared/terrain/grid-spec';
 import type { SightConditions } from '@/shared/terrain/hidden-height-raster';
 import { pickTerrainCandidates } from '@/shared/terrain/pick-terrain-candidates';
 import { countPostsPerCell } from '@/shared/terrain/posts-per-cell';
+import { coveragePostOf } from '@/shared/terrain/network-coverage';
 import { bitsetWords, SitingState, type SitingObjective, type SitingView } from '@/shared/terrain/siting-objective';
 import { elevationAt } from '@/shared/terrain/terrain-elevation';
 import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
@@ -24,7 +25,7 @@ import {
   type ReportProgress,
 } from '../coverage/compute-coverage';
 import { caseKeyOf, type CoverageRunInputs } from '../coverage/coverage-inputs';
-import type { FrozenCandidate, SitingRunInputs } from './siting-inputs';
+import { describeCandidate, type FrozenCandidate, type SitingRunInputs } from './siting-inputs';
 
 /** What a finished run stores (the `result` column). */
 export interface SitingResult {
@@ -139,16 +140,7 @@ export async function computeSiting(
           rangeLimit: rangeLimit === null ? null : { col: post.col, row: post.row, maxDistance: rangeLimit },
         }).classes;
         // One post counted alone: exactly the cells a coverage run counts for it (sector, range, no data).
-        const counts = countPostsPerCell(terrain, [
-          {
-            col: post.col,
-            row: post.row,
-            classes,
-            sector: entry.sector ?? null,
-            gridConvergence: entry.gridConvergence ?? 0,
-            maxDistance: hidden.maxDistance,
-          },
-        ]).counts;
+        const counts = countPostsPerCell(terrain, [coveragePostOf(entry, classes)]).counts;
         const bits = seen[from + b]!;
         for (let g = 0; g < N; g++) {
           const i = c * N + g;
@@ -214,14 +206,6 @@ export async function computeSiting(
   const pct = (cells: number) => (siteCells === 0 ? 0 : (100 * cells) / siteCells);
   let before = perCondition();
   const keptCells = before;
-  const describe = (c: FrozenCandidate): SitingCandidate => ({
-    index: c.index,
-    name: c.name,
-    postId: c.postId,
-    latDeg: c.latDeg,
-    lonDeg: c.lonDeg,
-    source: c.source,
-  });
   const steps: SitingStep[] = choice.steps.map((step, s) => {
     const option = sitingOptions[step.option]!;
     plain.add(option);
@@ -230,7 +214,7 @@ export async function computeSiting(
     const gainCells = mean(after.map((a, c) => a - before[c]!));
     before = after;
     return {
-      candidate: describe(candidates[option.location]!),
+      candidate: describeCandidate(candidates[option.location]!),
       heightM: option.heightM,
       cost: inputs.costs === null ? null : option.cost,
       gainM2: gainCells * cellArea,
@@ -249,7 +233,7 @@ export async function computeSiting(
   const grid: CoverageGrid = { ...gridSpecToM(terrain), epsg: terrain.crs?.epsg ?? null };
   return {
     method: choice.method,
-    candidates: candidates.map(describe),
+    candidates: candidates.map(describeCandidate),
     candidateGroundM: candidates.map((c) => {
       const { x, y } = projection.toGrid({ latDeg: c.latDeg, lonDeg: c.lonDeg });
       return elevationAt(terrain, x, y);

@@ -1,7 +1,7 @@
 // Over 300 lines: the five siting use cases (request, read, list, cancel, make a plan) with the input freezing and the mapper they share.
 import type { Plan } from '@/shared/schemas/plan';
 import type { Post } from '@/shared/schemas/site';
-import type { SitingCandidate, SitingRun, SitingRunRequest } from '@/shared/schemas/siting';
+import type { SitingRun, SitingRunRequest } from '@/shared/schemas/siting';
 import type { LatLon } from '@/shared/geo/types';
 import { gridProjection } from '@/shared/terrain/grid-projection';
 import { gridSpecFromM } from '@/shared/terrain/grid-spec';
@@ -22,7 +22,7 @@ import { enqueueRun, runStateOf } from '../coverage/queued-runs';
 import { buildCoverageInputs } from '../coverage/coverage-inputs';
 import { getSite } from '../sites/manage-sites';
 import type { SitingResult } from './compute-siting';
-import { sitingInputsHash, type FrozenCandidate, type SitingRunInputs } from './siting-inputs';
+import { describeCandidate, sitingInputsHash, type FrozenCandidate, type SitingRunInputs } from './siting-inputs';
 
 /** What the siting use cases need. */
 export interface SitingDeps extends UseCaseDeps {
@@ -40,14 +40,6 @@ const unfit = (message: string, fields: FieldErrors) => AppError.badRequest(mess
 export function toSitingRun(run: SitingRunRecord): SitingRun {
   const inputs = run.inputs as SitingRunInputs;
   const result = run.result as SitingResult | null;
-  const describe = (c: FrozenCandidate): SitingCandidate => ({
-    index: c.index,
-    name: c.name,
-    postId: c.postId,
-    latDeg: c.latDeg,
-    lonDeg: c.lonDeg,
-    source: c.source,
-  });
   return {
     id: run.id,
     siteId: run.siteId,
@@ -62,7 +54,7 @@ export function toSitingRun(run: SitingRunRecord): SitingRun {
     count: inputs.count,
     objective: { minPosts: inputs.minPosts, zoneWeights: inputs.zoneWeights },
     keepPostIds: inputs.keepPostIds,
-    candidates: result?.candidates ?? (inputs.candidates ?? []).map(describe),
+    candidates: result?.candidates ?? (inputs.candidates ?? []).map(describeCandidate),
     method: result?.method ?? null,
     siteAreaM2: result?.siteAreaM2 ?? null,
     keptSeenM2: result?.keptSeenM2 ?? null,
@@ -267,9 +259,10 @@ export async function listSitingRuns(actor: Actor, siteId: string): Promise<Siti
 /** Stops a queued or running run; it keeps no result. */
 export async function cancelSitingRun(deps: SitingDeps, actor: Actor, runId: string): Promise<SitingRun> {
   const run = await visibleRun(actor, runId);
-  await cancelActiveRun(deps, actor, run, {
-    updateActive: (id, patch, t) => sitingRepository.updateActive(id, patch, t),
-    audit: { action: 'siting-cancel', entityType: 'site', entityId: run.siteId },
+  await cancelActiveRun(deps, actor, run, sitingRepository, {
+    action: 'siting-cancel',
+    entityType: 'site',
+    entityId: run.siteId,
   });
   return getSitingRun(actor, runId);
 }

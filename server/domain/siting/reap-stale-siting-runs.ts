@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import { REAP_EVERY_S, STALE_AFTER_S } from '../coverage/run-heartbeat';
+import { REAP_EVERY_S, STALE_AFTER_S, repeatUnlessBusy } from '../coverage/run-heartbeat';
 
 /** The reason a siting run whose worker stopped shows. */
 export const SITING_WORKER_STOPPED =
@@ -65,16 +65,5 @@ export function startStaleSitingReaper(
   db: Sequelize,
   { everyS = REAP_EVERY_S, staleAfterS = STALE_AFTER_S }: { everyS?: number; staleAfterS?: number } = {},
 ) {
-  let busy = false;
-  const timer = setInterval(() => {
-    if (busy) return;
-    busy = true;
-    reapStaleSitingRuns(db, { staleAfterS })
-      .catch(() => {})
-      .finally(() => {
-        busy = false;
-      });
-  }, everyS * 1000);
-  timer.unref();
-  return { stop: () => clearInterval(timer) };
+  return repeatUnlessBusy(() => reapStaleSitingRuns(db, { staleAfterS }), everyS);
 }

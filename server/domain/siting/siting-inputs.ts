@@ -14,6 +14,11 @@ export interface FrozenCandidate extends SitingCandidate {
   post: { kind: string; structureHeightM: number; groundElevationM: number } | null;
 }
 
+/** A frozen candidate as the API shows it (where it stands, without how it would be built). */
+export function describeCandidate(c: FrozenCandidate): SitingCandidate {
+  return { index: c.index, name: c.name, postId: c.postId, latDeg: c.latDeg, lonDeg: c.lonDeg, source: c.source };
+}
+
 /**
  * Everything a siting run computes from, resolved and frozen when it is asked
  * for: the same inputs give the same choice (the hash says whether two runs

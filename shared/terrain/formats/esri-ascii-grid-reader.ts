@@ -1,6 +1,6 @@
 import { epsgFromWkt } from '@/shared/terrain/formats/epsg-from-wkt';
 import { MAX_TERRAIN_CELLS, REPROJECT_ADVICE, TerrainFormatError } from '@/shared/terrain/formats/terrain-format-error';
-import type { TerrainRaster } from '@/shared/terrain/terrain-raster';
+import { createTerrainRaster, type TerrainRaster } from '@/shared/terrain/terrain-raster';
 
 const HEADER_KEYS = new Set([
   'ncols',
@@ -169,16 +169,9 @@ export function readEsriAsciiGrid(text: string, prjText?: string | null, options
   if (skipSpace(text, pos) < n) {
     throw new TerrainFormatError('corrupt', `The grid has more than ncols × nrows = ${count} values.`);
   }
-  return {
-    heights,
-    width,
-    height,
-    cellSize,
-    xll,
-    yll,
-    nodata,
-    crs: prj === null ? null : { epsg: epsgFromWkt(prj), wkt: prj },
-  };
+  // Every check createTerrainRaster makes has passed above (with the format's own errors).
+  const crs = prj === null ? null : { epsg: epsgFromWkt(prj), wkt: prj };
+  return createTerrainRaster({ heights, width, height, cellSize, xll, yll, nodata, crs });
 }
 
 function isSpace(c: number): boolean {
