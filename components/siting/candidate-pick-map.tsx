@@ -1,10 +1,10 @@
 import { useMemo, useState } from 'react';
 import { View } from 'react-native';
-import Svg, { Circle, Polyline } from 'react-native-svg';
+import { Circle, Polyline } from 'react-native-svg';
 import type { Post, Site } from '@/shared/schemas/site';
 import { useCoordinateFormat } from '@/components/map/coordinate-format';
-import { gridToScreen } from '@/components/map/map-camera';
 import { MapViewport } from '@/components/map/map-viewport';
+import { OverlaySvg, overlayPoint } from '@/components/map/overlay-svg';
 import { createReadoutStore } from '@/components/map/readout-store';
 import { siteMapFrame } from '@/components/map/site-map-frame';
 import { useSiteTerrain } from '@/components/data/terrain';
@@ -60,38 +60,33 @@ export function CandidatePickMap({
         onFormat={setFormat}
         onTap={(point) => onPick(frame.projection.toLatLon(point.x, point.y))}
         label={label}
-        overlay={({ camera, size, margin }) => (
-          <Svg
-            width={size.width + 2 * margin}
-            height={size.height + 2 * margin}
-            style={{ position: 'absolute', left: -margin, top: -margin }}
-            pointerEvents="none"
-            aria-hidden
-          >
-            {linePoints.length > 1 ? (
-              <Polyline
-                points={linePoints
-                  .map((p) => gridToScreen(camera, size, p.x, p.y))
-                  .map((s) => `${s.x + margin},${s.y + margin}`)
-                  .join(' ')}
-                fill="none"
-                stroke={colors.ink}
-                strokeWidth={3}
-                strokeDasharray="8 5"
-              />
-            ) : null}
-            {linePoints.map((p, i) => {
-              const s = gridToScreen(camera, size, p.x, p.y);
-              return <Circle key={`line-${i}`} cx={s.x + margin} cy={s.y + margin} r={5} fill={colors.ink} />;
-            })}
-            {points.map((p, i) => {
-              const s = gridToScreen(camera, size, p.x, p.y);
-              return (
-                <Circle key={i} cx={s.x + margin} cy={s.y + margin} r={8} fill="none" stroke={colors.ember} strokeWidth={3} />
-              );
-            })}
-          </Svg>
-        )}
+        overlay={({ camera, size, margin }) => {
+          const at = overlayPoint(camera, size, margin);
+          return (
+            <OverlaySvg size={size} margin={margin}>
+              {linePoints.length > 1 ? (
+                <Polyline
+                  points={linePoints
+                    .map(at)
+                    .map((s) => `${s.x},${s.y}`)
+                    .join(' ')}
+                  fill="none"
+                  stroke={colors.ink}
+                  strokeWidth={3}
+                  strokeDasharray="8 5"
+                />
+              ) : null}
+              {linePoints.map((p, i) => {
+                const s = at(p);
+                return <Circle key={`line-${i}`} cx={s.x} cy={s.y} r={5} fill={colors.ink} />;
+              })}
+              {points.map((p, i) => {
+                const s = at(p);
+                return <Circle key={i} cx={s.x} cy={s.y} r={8} fill="none" stroke={colors.ember} strokeWidth={3} />;
+              })}
+            </OverlaySvg>
+          );
+        }}
       />
     </View>
   );
