@@ -115,7 +115,7 @@ export function ShorelineField({
                 hint="The terrain's height where land meets sea (e.g. 0 for mean sea level): the longest contour at that level becomes the shoreline, sea on its left."
               />
               <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-                <Button kind="secondary" label="Trace it" onPress={traceNow} busy={trace.isPending} disabled={trace.isPending} />
+                <Button kind="secondary" label="Trace it" onPress={traceNow} busy={trace.isPending} />
                 <Button kind="quiet" label="Close" onPress={() => setEditing(false)} />
               </View>
             </View>
