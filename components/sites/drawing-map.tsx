@@ -1,5 +1,5 @@
 import { useRef, useState, type ReactNode } from 'react';
-import { Line } from 'react-native-svg';
+import { Circle, Line } from 'react-native-svg';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { useCoordinateFormat } from '@/components/map/coordinate-format';
 import { gridLines } from '@/components/map/grid-lines';
@@ -8,6 +8,7 @@ import { OverlaySvg, overlayPoint } from '@/components/map/overlay-svg';
 import { PickingMap } from '@/components/map/picking-map';
 import type { SiteMapFrame } from '@/components/map/site-map-frame';
 import { AppText } from '@/components/ui/app-text';
+import { colors } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 
 export type GridPoint = { x: number; y: number };
@@ -117,6 +118,37 @@ export function DrawingMap({
           Last {last.noun}: {formatCoordinate(frame.projection.toLatLon(last.point.x, last.point.y), format)} (WGS 84)
         </AppText>
       ) : null}
+    </>
+  );
+}
+
+/**
+ * A drawing's points in the overlay's pixels, as rings in `colour` with the
+ * first one filled (where the drawing starts); `firstBig` draws the first one
+ * larger (a tap there closes the outline).
+ */
+export function DrawnPoints({
+  points,
+  colour,
+  firstBig = false,
+}: {
+  points: readonly GridPoint[];
+  colour: string;
+  firstBig?: boolean;
+}) {
+  return (
+    <>
+      {points.map((p, i) => (
+        <Circle
+          key={i}
+          cx={p.x}
+          cy={p.y}
+          r={i === 0 && firstBig ? 11 : 8}
+          fill={i === 0 ? colour : colors.surface}
+          stroke={colour}
+          strokeWidth={3}
+        />
+      ))}
     </>
   );
 }
