@@ -276,12 +276,7 @@ export function ConditionSetForm({ set, onDone }: { set?: ConditionSet; onDone?:
       />
       {stale ? <StaleNotice what="condition set" onReload={() => void reload()} /> : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button
-          label={set ? 'Save changes' : 'Save condition set'}
-          onPress={submit}
-          busy={saving.isPending}
-          disabled={saving.isPending}
-        />
+        <Button label={set ? 'Save changes' : 'Save condition set'} onPress={submit} busy={saving.isPending} />
         {set && onDone ? <Button kind="quiet" label="Cancel" onPress={onDone} /> : null}
       </View>
     </Card>

@@ -200,12 +200,7 @@ export function TargetForm({ target, onDone }: { target?: Target; onDone?: () =>
       </AppText>
       {stale ? <StaleNotice what="target" onReload={() => void reload()} /> : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button
-          label={target ? 'Save changes' : 'Save target'}
-          onPress={submit}
-          busy={saving.isPending}
-          disabled={saving.isPending}
-        />
+        <Button label={target ? 'Save changes' : 'Save target'} onPress={submit} busy={saving.isPending} />
         {target && onDone ? <Button kind="quiet" label="Cancel" onPress={onDone} /> : null}
       </View>
     </Card>

@@ -1,11 +1,12 @@
 import { Geodesic } from 'geographiclib-geodesic';
 import { useMemo } from 'react';
-import Svg, { Circle, G, Line, Polyline } from 'react-native-svg';
+import { Circle, G, Line, Polyline } from 'react-native-svg';
 import { convertLength, type LengthUnit } from '@/shared/units/length';
 import type { CaseGap } from '@/shared/schemas/coverage';
 import { colors } from '@/components/ui/theme';
-import { gridToScreen, type MapCamera, type MapSize } from './map-camera';
+import type { MapCamera, MapSize } from './map-camera';
 import { HaloText } from './map-features';
+import { OverlaySvg, overlayPoint } from './overlay-svg';
 import type { SiteMapFrame } from './site-map-frame';
 
 type GridPoint = { x: number; y: number };
@@ -128,10 +129,7 @@ export function ShoreOverlay({
   const shore = useMemo(() => frameShore(frame, shoreline), [frame, shoreline]);
   const ticks = useMemo(() => (shore ? shoreTicks(shore, unit) : []), [shore, unit]);
   if (!shore) return null;
-  const at = (p: GridPoint) => {
-    const s = gridToScreen(camera, size, p.x, p.y);
-    return { x: s.x + margin, y: s.y + margin };
-  };
+  const at = overlayPoint(camera, size, margin);
   const line = (pts: readonly GridPoint[]) =>
     pts
       .map((p) => {
@@ -144,14 +142,7 @@ export function ShoreOverlay({
     size.width + margin,
   );
   return (
-    <Svg
-      width={size.width + 2 * margin}
-      height={size.height + 2 * margin}
-      style={{ position: 'absolute', left: -margin, top: -margin }}
-      pointerEvents="none"
-      aria-hidden
-      testID="shore-overlay"
-    >
+    <OverlaySvg size={size} margin={margin} testID="shore-overlay">
       <Polyline points={line(shore.points)} fill="none" stroke="#FFFFFF" strokeWidth={6} opacity={0.85} />
       <Polyline points={line(shore.points)} fill="none" stroke={SHORE_SYMBOL.line} strokeWidth={3} />
       {gaps.map((g, k) => {
@@ -184,7 +175,7 @@ export function ShoreOverlay({
           </G>
         );
       })}
-    </Svg>
+    </OverlaySvg>
   );
 }
 

@@ -187,7 +187,7 @@ export function SearchEffortScreen() {
         hint="Distance between adjacent search tracks."
       />
       <View style={{ alignItems: 'flex-start' }}>
-        <Button label="Compute POD" onPress={() => void submit()} busy={evaluate.isPending} disabled={evaluate.isPending} />
+        <Button label="Compute POD" onPress={() => void submit()} busy={evaluate.isPending} />
       </View>
     </Card>
   );

@@ -92,13 +92,7 @@ export function SweepWidthTableForm({
         hint={`One row a line: ${tableRowHeads(typedIn).replace('height', 'height of eye')}.`}
       />
       <View style={{ alignItems: 'flex-start' }}>
-        <Button
-          label="Save table"
-          kind="secondary"
-          onPress={() => void submit()}
-          busy={create.isPending}
-          disabled={create.isPending}
-        />
+        <Button label="Save table" kind="secondary" onPress={() => void submit()} busy={create.isPending} />
       </View>
     </Card>
   );

@@ -1,15 +1,14 @@
 import { useRef, useState, type ReactNode } from 'react';
-import { View } from 'react-native';
-import { Line } from 'react-native-svg';
+import { Circle, Line } from 'react-native-svg';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { useCoordinateFormat } from '@/components/map/coordinate-format';
 import { gridLines } from '@/components/map/grid-lines';
-import { MapViewport, type MapHandles, type MapViewportProps } from '@/components/map/map-viewport';
+import type { MapHandles, MapViewportProps } from '@/components/map/map-viewport';
 import { OverlaySvg, overlayPoint } from '@/components/map/overlay-svg';
-import { createReadoutStore } from '@/components/map/readout-store';
+import { PickingMap } from '@/components/map/picking-map';
 import type { SiteMapFrame } from '@/components/map/site-map-frame';
 import { AppText } from '@/components/ui/app-text';
-import { colors, radius } from '@/components/ui/theme';
+import { colors } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 
 export type GridPoint = { x: number; y: number };
@@ -82,60 +81,74 @@ export function DrawingMap({
   children: (at: (p: GridPoint) => GridPoint) => ReactNode;
 }) {
   const { wide } = useLayout();
-  const [readout] = useState(createReadoutStore);
-  const [format, setFormat] = useCoordinateFormat();
+  const [format] = useCoordinateFormat();
   return (
     <>
-      <View
-        style={{
-          height: wide ? 520 : phoneHeight,
-          borderRadius: radius.md,
-          overflow: 'hidden',
-          borderWidth: 1,
-          borderColor: colors.line,
+      <PickingMap
+        frame={frame}
+        height={wide ? 520 : phoneHeight}
+        units="metric"
+        onTap={onTap}
+        handles={handles}
+        label={label}
+        overlay={({ camera, size, margin }) => {
+          const at = overlayPoint(camera, size, margin);
+          // Without terrain the ground is a plain grid of round eastings and northings.
+          const grid = frame.base ? null : gridLines(camera, size, margin);
+          const W = size.width + 2 * margin;
+          const H = size.height + 2 * margin;
+          return (
+            <OverlaySvg size={size} margin={margin}>
+              {grid?.eastings.map((e) => {
+                const x = at({ x: e, y: 0 }).x;
+                return <Line key={`e${e}`} x1={x} y1={0} x2={x} y2={H} stroke="#C9D1CD" strokeWidth={1} />;
+              })}
+              {grid?.northings.map((n2) => {
+                const y = at({ x: 0, y: n2 }).y;
+                return <Line key={`n${n2}`} x1={0} y1={y} x2={W} y2={y} stroke="#C9D1CD" strokeWidth={1} />;
+              })}
+              {children(at)}
+            </OverlaySvg>
+          );
         }}
-      >
-        <MapViewport
-          frame={frame}
-          units="metric"
-          chosenPostId={null}
-          targets={[]}
-          shown={null}
-          focus={null}
-          readout={readout}
-          format={format}
-          onFormat={setFormat}
-          onTap={onTap}
-          handles={handles}
-          label={label}
-          overlay={({ camera, size, margin }) => {
-            const at = overlayPoint(camera, size, margin);
-            // Without terrain the ground is a plain grid of round eastings and northings.
-            const grid = frame.base ? null : gridLines(camera, size, margin);
-            const W = size.width + 2 * margin;
-            const H = size.height + 2 * margin;
-            return (
-              <OverlaySvg size={size} margin={margin}>
-                {grid?.eastings.map((e) => {
-                  const x = at({ x: e, y: 0 }).x;
-                  return <Line key={`e${e}`} x1={x} y1={0} x2={x} y2={H} stroke="#C9D1CD" strokeWidth={1} />;
-                })}
-                {grid?.northings.map((n2) => {
-                  const y = at({ x: 0, y: n2 }).y;
-                  return <Line key={`n${n2}`} x1={0} y1={y} x2={W} y2={y} stroke="#C9D1CD" strokeWidth={1} />;
-                })}
-                {children(at)}
-              </OverlaySvg>
-            );
-          }}
-        />
-      </View>
+      />
       <AppText aria-live="polite">{status}</AppText>
       {last.point ? (
         <AppText variant="small" tone="muted">
           Last {last.noun}: {formatCoordinate(frame.projection.toLatLon(last.point.x, last.point.y), format)} (WGS 84)
         </AppText>
       ) : null}
+    </>
+  );
+}
+
+/**
+ * A drawing's points in the overlay's pixels, as rings in `colour` with the
+ * first one filled (where the drawing starts); `firstBig` draws the first one
+ * larger (a tap there closes the outline).
+ */
+export function DrawnPoints({
+  points,
+  colour,
+  firstBig = false,
+}: {
+  points: readonly GridPoint[];
+  colour: string;
+  firstBig?: boolean;
+}) {
+  return (
+    <>
+      {points.map((p, i) => (
+        <Circle
+          key={i}
+          cx={p.x}
+          cy={p.y}
+          r={i === 0 && firstBig ? 11 : 8}
+          fill={i === 0 ? colour : colors.surface}
+          stroke={colour}
+          strokeWidth={3}
+        />
+      ))}
     </>
   );
 }

@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { View } from 'react-native';
 import { Segmented } from '@/components/check/unit-switch';
 import { AppText } from '@/components/ui/app-text';
+import { Button } from '@/components/ui/button';
 import { colors, radius, space } from '@/components/ui/theme';
 
 /**
@@ -48,21 +49,50 @@ export function GeometryFieldBox({
   );
 }
 
-/** The ways to enter a geometry (drawing, typing, importing…), one at a time, and the chosen one's panel below. */
-export function EntryModes<M extends string>({
+/**
+ * How a geometry field's value is entered. Shut: a button that opens it, and
+ * one that removes the value where `onRemove` is given. Open: the ways to
+ * enter it, drawing on the map first, one at a time, and the chosen one's
+ * panel below.
+ */
+export function GeometryEntry<M extends string>({
+  editing,
+  openLabel,
+  onOpen,
+  removeLabel,
+  onRemove,
   mode,
   onMode,
-  options,
+  otherModes,
   children,
 }: {
-  mode: M;
-  onMode: (mode: M) => void;
-  options: { value: M; label: string }[];
+  editing: boolean;
+  openLabel: string;
+  onOpen: () => void;
+  removeLabel: string;
+  onRemove?: () => void;
+  mode: M | 'draw';
+  onMode: (mode: M | 'draw') => void;
+  /** The ways after drawing on the map. */
+  otherModes: { value: M; label: string }[];
   children: ReactNode;
 }) {
+  if (!editing) {
+    return (
+      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+        <Button kind="secondary" label={openLabel} onPress={onOpen} />
+        {onRemove ? <Button kind="quiet" label={removeLabel} onPress={onRemove} /> : null}
+      </View>
+    );
+  }
   return (
     <View style={{ gap: space.sm }}>
-      <Segmented<M> label="Enter it by" value={mode} onChange={onMode} options={options} />
+      <Segmented<M | 'draw'>
+        label="Enter it by"
+        value={mode}
+        onChange={onMode}
+        options={[{ value: 'draw', label: 'Drawing on the map' }, ...otherModes]}
+      />
       {children}
     </View>
   );

@@ -343,12 +343,7 @@ export function PostForm({
         </Notice>
       ) : null}
       <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-        <Button
-          label={post ? 'Save changes' : 'Save post'}
-          onPress={submit}
-          busy={saving.isPending}
-          disabled={saving.isPending}
-        />
+        <Button label={post ? 'Save changes' : 'Save post'} onPress={submit} busy={saving.isPending} />
         {post ? (
           <Button
             kind="quiet"

@@ -1,7 +1,7 @@
 // Over 300 lines: drawing a ring by taps: vertices, drag, undo and closing share one gesture state.
 import { useMemo, useState } from 'react';
 import { View } from 'react-native';
-import { Circle, Polygon, Polyline } from 'react-native-svg';
+import { Polygon, Polyline } from 'react-native-svg';
 import { CoordinateError } from '@/shared/geo/coordinate-error';
 import { parseCoordinate } from '@/shared/geo/parse-coordinate';
 import type { LatLon } from '@/shared/geo/types';
@@ -13,7 +13,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
 import { colors, space } from '@/components/ui/theme';
-import { DrawingMap, useDrawing, type GridPoint } from './drawing-map';
+import { DrawingMap, DrawnPoints, useDrawing, type GridPoint } from './drawing-map';
 import type { Ring } from './ring-text-entry';
 
 interface Drawing {
@@ -269,17 +269,7 @@ function Drawer({
               ) : n > 1 ? (
                 <Polyline points={list} fill="none" stroke={colors.ember} strokeWidth={3} />
               ) : null}
-              {pts.map((p, i) => (
-                <Circle
-                  key={i}
-                  cx={p.x}
-                  cy={p.y}
-                  r={i === 0 && !line && !drawing.closed && n >= 3 ? 11 : 8}
-                  fill={i === 0 ? colors.ember : colors.surface}
-                  stroke={colors.ember}
-                  strokeWidth={3}
-                />
-              ))}
+              <DrawnPoints points={pts} colour={colors.ember} firstBig={!line && !drawing.closed && n >= 3} />
             </>
           );
         }}

@@ -1,9 +1,7 @@
 import { useState } from 'react';
-import { View } from 'react-native';
 import { formatCoordinate } from '@/shared/geo/format-coordinate';
 import { Button } from '@/components/ui/button';
-import { space } from '@/components/ui/theme';
-import { EntryModes, GeometryFieldBox } from './geometry-field-box';
+import { GeometryEntry, GeometryFieldBox } from './geometry-field-box';
 import { GeoJsonImport } from './geojson-import';
 import { RingDrawMap, type RingDrawContext } from './ring-draw-map';
 import { RingTextEntry, type Ring } from './ring-text-entry';
@@ -58,35 +56,28 @@ export function RingField({
             : 'No outline yet: draw it, type its corners or import it.'
       }
     >
-      {editing ? (
-        <EntryModes
-          mode={mode}
-          onMode={setMode}
-          options={[
-            { value: 'draw', label: 'Drawing on the map' },
-            { value: 'type', label: 'Typing corners' },
-            { value: 'import', label: 'Importing GeoJSON' },
-          ]}
-        >
-          {mode === 'draw' ? (
-            <RingDrawMap label={label} ring={ring} context={drawContext} onDone={done} onCancel={() => setEditing(false)} />
-          ) : null}
-          {mode === 'import' ? <GeoJsonImport label={`${label} from a file`} onUse={(p) => done(p.ring)} /> : null}
-          {mode === 'type' ? <RingTextEntry label={label} ring={ring} onRing={done} /> : null}
-          {mode !== 'draw' ? (
-            <Button kind="quiet" label="Close" onPress={() => setEditing(false)} style={{ alignSelf: 'flex-start' }} />
-          ) : null}
-        </EntryModes>
-      ) : (
-        <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-          <Button
-            kind="secondary"
-            label={n > 0 ? `Change ${label.toLowerCase()}` : `Enter ${label.toLowerCase()}`}
-            onPress={() => setEditing(true)}
-          />
-          {n > 0 && optional ? <Button kind="quiet" label="Remove" onPress={() => onChange(null)} /> : null}
-        </View>
-      )}
+      <GeometryEntry
+        editing={editing}
+        openLabel={n > 0 ? `Change ${label.toLowerCase()}` : `Enter ${label.toLowerCase()}`}
+        onOpen={() => setEditing(true)}
+        removeLabel="Remove"
+        onRemove={n > 0 && optional ? () => onChange(null) : undefined}
+        mode={mode}
+        onMode={setMode}
+        otherModes={[
+          { value: 'type', label: 'Typing corners' },
+          { value: 'import', label: 'Importing GeoJSON' },
+        ]}
+      >
+        {mode === 'draw' ? (
+          <RingDrawMap label={label} ring={ring} context={drawContext} onDone={done} onCancel={() => setEditing(false)} />
+        ) : null}
+        {mode === 'import' ? <GeoJsonImport label={`${label} from a file`} onUse={(p) => done(p.ring)} /> : null}
+        {mode === 'type' ? <RingTextEntry label={label} ring={ring} onRing={done} /> : null}
+        {mode !== 'draw' ? (
+          <Button kind="quiet" label="Close" onPress={() => setEditing(false)} style={{ alignSelf: 'flex-start' }} />
+        ) : null}
+      </GeometryEntry>
     </GeometryFieldBox>
   );
 }

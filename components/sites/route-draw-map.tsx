@@ -1,11 +1,11 @@
 import { useMemo } from 'react';
 import { View } from 'react-native';
-import { Circle, Polyline, Text as SvgText } from 'react-native-svg';
+import { Polyline, Text as SvgText } from 'react-native-svg';
 import type { LatLon } from '@/shared/geo/types';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
-import { colors, space } from '@/components/ui/theme';
-import { DrawingMap, useDrawing, type GridPoint } from './drawing-map';
+import { space } from '@/components/ui/theme';
+import { DrawingMap, DrawnPoints, useDrawing, type GridPoint } from './drawing-map';
 import { drawingFrame, type RingDrawContext } from './ring-draw-map';
 
 /** The route's line on the map: a deep teal, apart from the outlines' ember. */
@@ -96,17 +96,7 @@ export function RouteDrawMap({
                   strokeDasharray="10 6"
                 />
               ) : null}
-              {pts.map((p, i) => (
-                <Circle
-                  key={i}
-                  cx={p.x}
-                  cy={p.y}
-                  r={8}
-                  fill={i === 0 ? ROUTE_COLOUR : colors.surface}
-                  stroke={ROUTE_COLOUR}
-                  strokeWidth={3}
-                />
-              ))}
+              <DrawnPoints points={pts} colour={ROUTE_COLOUR} />
               {pts.map((p, i) =>
                 closed && i === n - 1 ? null : (
                   <SvgText key={`t${i}`} x={p.x + 11} y={p.y - 9} fontSize={13} fontWeight="700" fill={ROUTE_COLOUR}>

@@ -10,7 +10,7 @@ import { useTraceShoreline } from '@/components/data/placement';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
 import { space } from '@/components/ui/theme';
-import { EntryModes, GeometryFieldBox } from './geometry-field-box';
+import { GeometryEntry, GeometryFieldBox } from './geometry-field-box';
 import { RingDrawMap, type RingDrawContext } from './ring-draw-map';
 
 type Line = [number, number][];
@@ -83,72 +83,65 @@ export function ShorelineField({
           : 'None yet: draw it along the shore from where chainage starts, or paste a GeoJSON line.'
       }
     >
-      {editing ? (
-        <EntryModes
-          mode={mode}
-          onMode={setMode}
-          options={[
-            { value: 'draw', label: 'Drawing on the map' },
-            { value: 'paste', label: 'Pasting GeoJSON' },
-            ...(canTrace ? [{ value: 'trace' as const, label: 'Tracing the terrain' }] : []),
-          ]}
-        >
-          {mode === 'draw' ? (
-            <RingDrawMap
-              line
-              label="Shoreline"
-              ring={line}
-              context={drawContext}
-              onDone={done}
-              onCancel={() => setEditing(false)}
-            />
-          ) : mode === 'trace' ? (
-            <View style={{ gap: space.sm }}>
-              <TextField
-                label="Level of the shoreline"
-                value={levelText}
-                onChangeText={setLevelText}
-                onSubmitEditing={traceNow}
-                unit={heightUnit}
-                inputMode="decimal"
-                error={problem || undefined}
-                hint="The terrain's height where land meets sea (e.g. 0 for mean sea level): the longest contour at that level becomes the shoreline, sea on its left."
-              />
-              <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-                <Button kind="secondary" label="Trace it" onPress={traceNow} busy={trace.isPending} disabled={trace.isPending} />
-                <Button kind="quiet" label="Close" onPress={() => setEditing(false)} />
-              </View>
-            </View>
-          ) : (
-            <View style={{ gap: space.sm }}>
-              <TextField
-                label="GeoJSON LineString"
-                value={text}
-                onChangeText={setText}
-                multiline
-                numberOfLines={4}
-                style={{ minHeight: 96 }}
-                autoCapitalize="none"
-                error={problem || undefined}
-                hint="A LineString (or a Feature holding one), WGS 84 longitude first. The first corner is chainage 0."
-              />
-              <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-                <Button kind="secondary" label="Use this line" onPress={usePasted} disabled={!text.trim()} />
-                <Button kind="quiet" label="Close" onPress={() => setEditing(false)} />
-              </View>
-            </View>
-          )}
-        </EntryModes>
-      ) : (
-        <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-          <Button
-            kind="secondary"
-            label={n > 1 ? 'Change the shoreline' : 'Enter the shoreline'}
-            onPress={() => setEditing(true)}
+      <GeometryEntry
+        editing={editing}
+        openLabel={n > 1 ? 'Change the shoreline' : 'Enter the shoreline'}
+        onOpen={() => setEditing(true)}
+        removeLabel="Remove the shoreline"
+        onRemove={n > 1 ? () => onChange(null) : undefined}
+        mode={mode}
+        onMode={setMode}
+        otherModes={[
+          { value: 'paste', label: 'Pasting GeoJSON' },
+          ...(canTrace ? [{ value: 'trace' as const, label: 'Tracing the terrain' }] : []),
+        ]}
+      >
+        {mode === 'draw' ? (
+          <RingDrawMap
+            line
+            label="Shoreline"
+            ring={line}
+            context={drawContext}
+            onDone={done}
+            onCancel={() => setEditing(false)}
           />
-          {n > 1 ? <Button kind="quiet" label="Remove the shoreline" onPress={() => onChange(null)} /> : null}
-        </View>
-      )}
+        ) : mode === 'trace' ? (
+          <View style={{ gap: space.sm }}>
+            <TextField
+              label="Level of the shoreline"
+              value={levelText}
+              onChangeText={setLevelText}
+              onSubmitEditing={traceNow}
+              unit={heightUnit}
+              inputMode="decimal"
+              error={problem || undefined}
+              hint="The terrain's height where land meets sea (e.g. 0 for mean sea level): the longest contour at that level becomes the shoreline, sea on its left."
+            />
+            <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+              <Button kind="secondary" label="Trace it" onPress={traceNow} busy={trace.isPending} />
+              <Button kind="quiet" label="Close" onPress={() => setEditing(false)} />
+            </View>
+          </View>
+        ) : (
+          <View style={{ gap: space.sm }}>
+            <TextField
+              label="GeoJSON LineString"
+              value={text}
+              onChangeText={setText}
+              multiline
+              numberOfLines={4}
+              style={{ minHeight: 96 }}
+              autoCapitalize="none"
+              error={problem || undefined}
+              hint="A LineString (or a Feature holding one), WGS 84 longitude first. The first corner is chainage 0."
+            />
+            <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+              <Button kind="secondary" label="Use this line" onPress={usePasted} disabled={!text.trim()} />
+              <Button kind="quiet" label="Close" onPress={() => setEditing(false)} />
+            </View>
+          </View>
+        )}
+      </GeometryEntry>
     </GeometryFieldBox>
   );
 }

@@ -460,12 +460,7 @@ export function SiteForm({ site, onReload }: { site?: Site; onReload?: () => voi
           {onReload ? <Button kind="secondary" label="Reload the site" onPress={onReload} /> : null}
         </Notice>
       ) : null}
-      <Button
-        label={site ? 'Save changes' : 'Create site'}
-        onPress={() => void submit()}
-        busy={saving.isPending}
-        disabled={saving.isPending}
-      />
+      <Button label={site ? 'Save changes' : 'Create site'} onPress={() => void submit()} busy={saving.isPending} />
     </Card>
   );
 }

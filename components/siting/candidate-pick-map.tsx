@@ -1,15 +1,12 @@
-import { useMemo, useState } from 'react';
-import { View } from 'react-native';
-import Svg, { Circle, Polyline } from 'react-native-svg';
+import { useMemo } from 'react';
+import { Circle, Polyline } from 'react-native-svg';
 import type { Post, Site } from '@/shared/schemas/site';
-import { useCoordinateFormat } from '@/components/map/coordinate-format';
-import { gridToScreen } from '@/components/map/map-camera';
-import { MapViewport } from '@/components/map/map-viewport';
-import { createReadoutStore } from '@/components/map/readout-store';
+import { OverlaySvg, overlayPoint } from '@/components/map/overlay-svg';
+import { PickingMap } from '@/components/map/picking-map';
 import { siteMapFrame } from '@/components/map/site-map-frame';
 import { useSiteTerrain } from '@/components/data/terrain';
 import { AppText } from '@/components/ui/app-text';
-import { colors, radius } from '@/components/ui/theme';
+import { colors } from '@/components/ui/theme';
 import { useLayout } from '@/components/ui/use-layout';
 
 /**
@@ -35,8 +32,6 @@ export function CandidatePickMap({
 }) {
   const terrain = useSiteTerrain(site.id);
   const { wide } = useLayout();
-  const [readout] = useState(createReadoutStore);
-  const [format, setFormat] = useCoordinateFormat();
   const frame = useMemo(
     () => (terrain.isPending ? null : siteMapFrame(site, posts, terrain.data ?? null)),
     [site, posts, terrain.isPending, terrain.data],
@@ -45,34 +40,21 @@ export function CandidatePickMap({
   const points = picked.map((p) => frame.projection.toGrid(p));
   const linePoints = (line ?? []).map((p) => frame.projection.toGrid(p));
   return (
-    <View
-      style={{ height: wide ? 420 : 340, borderRadius: radius.md, overflow: 'hidden', borderWidth: 1, borderColor: colors.line }}
-    >
-      <MapViewport
-        frame={frame}
-        units={site.defaultUnits}
-        chosenPostId={null}
-        targets={[]}
-        shown={null}
-        focus={null}
-        readout={readout}
-        format={format}
-        onFormat={setFormat}
-        onTap={(point) => onPick(frame.projection.toLatLon(point.x, point.y))}
-        label={label}
-        overlay={({ camera, size, margin }) => (
-          <Svg
-            width={size.width + 2 * margin}
-            height={size.height + 2 * margin}
-            style={{ position: 'absolute', left: -margin, top: -margin }}
-            pointerEvents="none"
-            aria-hidden
-          >
+    <PickingMap
+      frame={frame}
+      height={wide ? 420 : 340}
+      units={site.defaultUnits}
+      onTap={(point) => onPick(frame.projection.toLatLon(point.x, point.y))}
+      label={label}
+      overlay={({ camera, size, margin }) => {
+        const at = overlayPoint(camera, size, margin);
+        return (
+          <OverlaySvg size={size} margin={margin}>
             {linePoints.length > 1 ? (
               <Polyline
                 points={linePoints
-                  .map((p) => gridToScreen(camera, size, p.x, p.y))
-                  .map((s) => `${s.x + margin},${s.y + margin}`)
+                  .map(at)
+                  .map((s) => `${s.x},${s.y}`)
                   .join(' ')}
                 fill="none"
                 stroke={colors.ink}
@@ -81,18 +63,16 @@ export function CandidatePickMap({
               />
             ) : null}
             {linePoints.map((p, i) => {
-              const s = gridToScreen(camera, size, p.x, p.y);
-              return <Circle key={`line-${i}`} cx={s.x + margin} cy={s.y + margin} r={5} fill={colors.ink} />;
+              const s = at(p);
+              return <Circle key={`line-${i}`} cx={s.x} cy={s.y} r={5} fill={colors.ink} />;
             })}
             {points.map((p, i) => {
-              const s = gridToScreen(camera, size, p.x, p.y);
-              return (
-                <Circle key={i} cx={s.x + margin} cy={s.y + margin} r={8} fill="none" stroke={colors.ember} strokeWidth={3} />
-              );
+              const s = at(p);
+              return <Circle key={i} cx={s.x} cy={s.y} r={8} fill="none" stroke={colors.ember} strokeWidth={3} />;
             })}
-          </Svg>
-        )}
-      />
-    </View>
+          </OverlaySvg>
+        );
+      }}
+    />
   );
 }

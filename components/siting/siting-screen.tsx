@@ -258,8 +258,8 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
               onPick={(at) => setPointText(`${at.latDeg.toFixed(6)}, ${at.lonDeg.toFixed(6)}`)}
             />
           ) : null}
-          {pointError ? <FormError message={pointError} /> : null}
-          {fieldError('candidates') ? <FormError message={fieldError('candidates')!} /> : null}
+          <FormError message={pointError} />
+          <FormError message={fieldError('candidates')} />
         </View>
       ) : (
         <View style={{ gap: space.md }}>
@@ -309,9 +309,7 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
                 />
                 <Button kind="quiet" label="Start the line over" disabled={linePoints.length === 0} onPress={() => setLine([])} />
               </View>
-              {fieldError('candidates.fromTerrain.accessLine.line') ? (
-                <FormError message={fieldError('candidates.fromTerrain.accessLine.line')!} />
-              ) : null}
+              <FormError message={fieldError('candidates.fromTerrain.accessLine.line')} />
               <TextField
                 label="Within this distance of the line"
                 unit="m"
@@ -331,7 +329,7 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
           .map((p) => (
             <CheckRow key={p.id} label={p.name} checked={kept.includes(p.id)} onToggle={() => setKept(toggle(kept, p.id))} />
           ))}
-        {fieldError('keepPostIds') ? <FormError message={fieldError('keepPostIds')!} /> : null}
+        <FormError message={fieldError('keepPostIds')} />
       </View>
       <TextField
         label="Tower heights to try"
@@ -378,13 +376,13 @@ function SitingForm({ site, posts, onStarted }: { site: Site; posts: Post[]; onS
           <Chip key={t.id} label={t.name} on={targetId === t.id} onPress={() => setTargetId(t.id)} />
         ))}
       </ChipRow>
-      {fieldError('targetId') ? <FormError message={fieldError('targetId')!} /> : null}
+      <FormError message={fieldError('targetId')} />
       <ChipRow label="Condition set">
         {(sets.data ?? []).map((s) => (
           <Chip key={s.id} label={s.name} on={setId === s.id} onPress={() => setSetId(s.id)} />
         ))}
       </ChipRow>
-      {fieldError('conditionSetId') ? <FormError message={fieldError('conditionSetId')!} /> : null}
+      <FormError message={fieldError('conditionSetId')} />
       <ChipRow label="Count a cell as covered when">
         <Chip label="One post sees it" on={minPosts === 1} onPress={() => setMinPosts(1)} />
         <Chip label="Two posts can fix it (good cross-bearing)" on={minPosts === 2} onPress={() => setMinPosts(2)} />

@@ -63,7 +63,7 @@ const styles = StyleSheet.create({
 });
 
 /** A form-level error above the fields; renders nothing when there is no message. */
-export function FormError({ message }: { message: string }) {
+export function FormError({ message }: { message?: string | null }) {
   if (!message) return null;
   return (
     <Notice tone="danger">
