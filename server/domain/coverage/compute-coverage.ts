@@ -201,8 +201,8 @@ export async function computeCoverage(
     layers.push({ caseKey, layer, postId, encoded, sha256: sha256(encoded) });
   };
 
-  // The viewsheds of the next condition (and tide) are computed in the worker pool while this one is evaluated
-  // on the main thread: the two overlap instead of taking turns, and each batch's results are the same as alone.
+  // One condition (and tide) at a time, to bound memory. Computing the next one's viewsheds while this one is
+  // evaluated was tried and measured: no faster on 2 cores (the workers already use both), and twice the rasters.
   const batches = plannedConditions.flatMap((planned) => tides.map((tide) => ({ ...planned, tide })));
   const load = async ({ condition, conditions, patrolTargets, tide }: (typeof batches)[number]) => {
     const posts = tide
@@ -218,103 +218,92 @@ export async function computeCoverage(
     const swept = await sweepPatrolsWithProgress(patrols, ground, conditions, patrolTargets, computeViewsheds, report, progress);
     return { posts, fixedNetwork, swept };
   };
-  let ahead: Promise<Awaited<ReturnType<typeof load>>> | null = batches.length > 0 ? load(batches[0]!) : null;
-  try {
-    for (let b = 0; b < batches.length; b++) {
-      const { condition, detections, conditions, patrolTargets, tide } = batches[b]!;
-      const { posts, fixedNetwork, swept } = await ahead!;
-      ahead = b + 1 < batches.length ? load(batches[b + 1]!) : null;
-      // Handled where it is awaited (next turn, or below on the way out); this only keeps an early failure quiet.
-      ahead?.catch(() => {});
-      inputs.targets.forEach((target, t) => {
-        const detection = detections[t]!;
-        const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex, tide);
-        const seaOnly = target.onWater && areas.sea !== null;
-        const area = seaOnly ? areas.sea! : areas.land;
-        // The plan's posts in its order: fixed posts as they are, patrols by their view over the cycle.
-        const results = swept.map((p) => p.sweep.result(t));
-        const network: NetworkPost[] = inputs.posts.map((p) => {
-          const f = posts.findIndex((x) => x.input.id === p.id);
-          if (f >= 0) return fixedNetwork[f]!;
-          const s = swept.findIndex((x) => x.placed.input.id === p.id);
-          const first = swept[s]!.first;
-          return { post: first.post, hidden: first, classes: results[s]!.classes };
-        });
-        const coverage = evaluateNetworkCoverage({
-          posts: network,
-          targetHeight: target.countsFromM,
-          siteMask: area.siteMask,
-          zones: area.zones,
-          standard: standardFor(inputs.standard, target),
-          blindAreaMinArea: inputs.blindAreaMinAreaM2,
-          maxBlindAreas: 20,
-          rangeLimit: detection.rangeLimit.rangeM,
-        });
-        addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
-        addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
-        coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', inputs.posts[i]!.id, classes));
-        const patrolFigs = swept.map((p, s) => {
-          addLayer(key, 'patrol-fraction', p.placed.input.id, patrolLayer(p, results[s]!, area.siteMask));
-          return patrolFigures({
-            swept: p,
-            result: results[s]!,
-            target: patrolTargets[t]!,
-            conditions,
-            mask: area.siteMask,
-            cellSize: terrain.cellSize,
-          });
-        });
-        const perPost = postSeenShares(terrain, network, coverage.postClasses, area.siteMask, inputs.posts);
-        const stored = coverageCaseOf({
-          key,
-          target,
-          condition: tide
-            ? { ...condition, label: `${condition.label} · ${tideText(tide, inputs.site.heightDatum)}` }
-            : condition,
-          coverage,
-          perPost,
-          detection,
-          seaOnly,
-          projection,
-          detectionModel: inputs.detectionModel,
-          tideLevelM: tide?.levelM ?? null,
-        });
-        if (shore) {
-          Object.assign(
-            stored,
-            shoreFiguresOf({
-              context: shore,
-              grid: terrain,
-              projection,
-              // Every post, patrols included (watched when in view at least once in the cycle).
-              network,
-              postClasses: coverage.postClasses,
-              posts: inputs.posts,
-              // What could close a gap: the fixed posts, raised.
-              candidates: posts.map((p) => ({
-                x: p.xy.x,
-                y: p.xy.y,
-                eyeAboveWaterM:
-                  inputs.terrain === null
-                    ? p.post.eyeHeight
-                    : p.post.eyeHeight + Math.max(0, p.input.groundElevationM - (tide?.levelM ?? 0)),
-                sector: p.input.sector,
-                gridConvergence: p.gridConvergence,
-              })),
-              target: { countsFromM: target.countsFromM, rangeLimitM: detection.rangeLimit.rangeM },
-              sphere: { k: condition.k, earthRadiusM: inputs.earthRadiusM },
-              roster: options.roster ?? null,
-              standard: inputs.standard,
-              check: stored.check,
-            }),
-          );
-        }
-        cases.push(patrolFigs.length > 0 ? { ...stored, patrols: patrolFigs } : stored);
+  for (const batch of batches) {
+    const { condition, detections, conditions, patrolTargets, tide } = batch;
+    const { posts, fixedNetwork, swept } = await load(batch);
+    inputs.targets.forEach((target, t) => {
+      const detection = detections[t]!;
+      const key = caseKeyOf(target.id, condition.conditionSetId, condition.conditionIndex, tide);
+      const seaOnly = target.onWater && areas.sea !== null;
+      const area = seaOnly ? areas.sea! : areas.land;
+      // The plan's posts in its order: fixed posts as they are, patrols by their view over the cycle.
+      const results = swept.map((p) => p.sweep.result(t));
+      const network: NetworkPost[] = inputs.posts.map((p) => {
+        const f = posts.findIndex((x) => x.input.id === p.id);
+        if (f >= 0) return fixedNetwork[f]!;
+        const s = swept.findIndex((x) => x.placed.input.id === p.id);
+        const first = swept[s]!.first;
+        return { post: first.post, hidden: first, classes: results[s]!.classes };
       });
-    }
-  } finally {
-    // A run that stops while the next batch is out lets it finish first, so no viewshed outlives the run.
-    if (ahead) await ahead.catch(() => {});
+      const coverage = evaluateNetworkCoverage({
+        posts: network,
+        targetHeight: target.countsFromM,
+        siteMask: area.siteMask,
+        zones: area.zones,
+        standard: standardFor(inputs.standard, target),
+        blindAreaMinArea: inputs.blindAreaMinAreaM2,
+        maxBlindAreas: 20,
+        rangeLimit: detection.rangeLimit.rangeM,
+      });
+      addLayer(key, 'posts-per-cell', '', coverage.postsPerCell.layer);
+      addLayer(key, 'cross-bearing', '', coverage.crossBearings.classes);
+      coverage.postClasses.forEach((classes, i) => addLayer(key, 'post-visibility', inputs.posts[i]!.id, classes));
+      const patrolFigs = swept.map((p, s) => {
+        addLayer(key, 'patrol-fraction', p.placed.input.id, patrolLayer(p, results[s]!, area.siteMask));
+        return patrolFigures({
+          swept: p,
+          result: results[s]!,
+          target: patrolTargets[t]!,
+          conditions,
+          mask: area.siteMask,
+          cellSize: terrain.cellSize,
+        });
+      });
+      const perPost = postSeenShares(terrain, network, coverage.postClasses, area.siteMask, inputs.posts);
+      const stored = coverageCaseOf({
+        key,
+        target,
+        condition: tide ? { ...condition, label: `${condition.label} · ${tideText(tide, inputs.site.heightDatum)}` } : condition,
+        coverage,
+        perPost,
+        detection,
+        seaOnly,
+        projection,
+        detectionModel: inputs.detectionModel,
+        tideLevelM: tide?.levelM ?? null,
+      });
+      if (shore) {
+        Object.assign(
+          stored,
+          shoreFiguresOf({
+            context: shore,
+            grid: terrain,
+            projection,
+            // Every post, patrols included (watched when in view at least once in the cycle).
+            network,
+            postClasses: coverage.postClasses,
+            posts: inputs.posts,
+            // What could close a gap: the fixed posts, raised.
+            candidates: posts.map((p) => ({
+              x: p.xy.x,
+              y: p.xy.y,
+              eyeAboveWaterM:
+                inputs.terrain === null
+                  ? p.post.eyeHeight
+                  : p.post.eyeHeight + Math.max(0, p.input.groundElevationM - (tide?.levelM ?? 0)),
+              sector: p.input.sector,
+              gridConvergence: p.gridConvergence,
+            })),
+            target: { countsFromM: target.countsFromM, rangeLimitM: detection.rangeLimit.rangeM },
+            sphere: { k: condition.k, earthRadiusM: inputs.earthRadiusM },
+            roster: options.roster ?? null,
+            standard: inputs.standard,
+            check: stored.check,
+          }),
+        );
+      }
+      cases.push(patrolFigs.length > 0 ? { ...stored, patrols: patrolFigs } : stored);
+    });
   }
   // Target × condition (× tide) order, as the plan lists them.
   const order = (k: CoverageCase) =>
